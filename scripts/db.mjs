@@ -1,0 +1,29 @@
+// `npm run db:migrate | db:seed [-- --reset] | db:stop`
+import { localSessionSecret } from './lib/secrets.mjs';
+import {
+  clusterUrl, ensureDatabase, ensureNodeModules, runTs, say, startCluster, stopCluster,
+} from './lib/setup.mjs';
+
+const [command, ...rest] = process.argv.slice(2);
+
+if (command === 'stop') {
+  say(stopCluster() ? 'PostgreSQL stopped.' : 'PostgreSQL was not running.');
+  process.exit(0);
+}
+
+ensureNodeModules();
+let databaseUrl = process.env.DATABASE_URL;
+if (!databaseUrl) {
+  startCluster();
+  databaseUrl = clusterUrl('rackside');
+  await ensureDatabase(databaseUrl);
+}
+const env = { ...process.env, DATABASE_URL: databaseUrl, SESSION_SECRET: process.env.SESSION_SECRET ?? localSessionSecret() };
+if (command === 'migrate') runTs('server/db/cli.ts', ['migrate'], env);
+else if (command === 'seed') {
+  runTs('server/db/cli.ts', ['migrate'], env);
+  runTs('server/db/cli.ts', ['seed', ...rest], env);
+} else {
+  say('Usage: node scripts/db.mjs migrate | seed [--reset] | stop');
+  process.exit(2);
+}

@@ -1,0 +1,38 @@
+// `npm run dev`: Vite with hot reload for the client, the API in watch mode behind its proxy.
+import { spawn } from 'node:child_process';
+import path from 'node:path';
+import { localSessionSecret } from './lib/secrets.mjs';
+import { clusterUrl, ensureDatabase, ensureNodeModules, repoRoot, runTs, startCluster } from './lib/setup.mjs';
+
+ensureNodeModules();
+let databaseUrl = process.env.DATABASE_URL;
+if (!databaseUrl) {
+  startCluster();
+  databaseUrl = clusterUrl('rackside');
+  await ensureDatabase(databaseUrl);
+}
+const env = {
+  ...process.env,
+  DATABASE_URL: databaseUrl,
+  DEMO_MODE: process.env.DEMO_MODE ?? 'true',
+  SESSION_SECRET: process.env.SESSION_SECRET ?? localSessionSecret(),
+  PORT: process.env.API_PORT ?? '3001',
+  PUBLIC_URL: process.env.PUBLIC_URL ?? 'http://localhost:5173',
+};
+runTs('server/db/cli.ts', ['migrate'], env);
+runTs('server/db/cli.ts', ['seed', '--if-empty'], env);
+
+const bin = (name) => path.join(repoRoot, 'node_modules', '.bin', name);
+// Detached groups so Ctrl-C takes every child with it (vite leaves children otherwise).
+const children = [
+  spawn(bin('tsx'), ['watch', 'server/index.ts'], { cwd: repoRoot, env, stdio: 'inherit', detached: true }),
+  spawn(bin('vite'), [], { cwd: repoRoot, env, stdio: 'inherit', detached: true }),
+];
+const stop = () => {
+  for (const child of children) {
+    try { process.kill(-child.pid, 'SIGTERM'); } catch { /* already gone */ }
+  }
+  process.exit(0);
+};
+process.on('SIGINT', stop);
+process.on('SIGTERM', stop);

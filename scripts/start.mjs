@@ -1,0 +1,58 @@
+// `npm start`: from a clean clone to a running, seeded app.
+import { spawn } from 'node:child_process';
+import path from 'node:path';
+import { localSessionSecret } from './lib/secrets.mjs';
+import {
+  clusterUrl, ensureDatabase, ensureNodeModules, repoRoot, run, runTs, say, startCluster, stopCluster,
+} from './lib/setup.mjs';
+
+const began = Date.now();
+ensureNodeModules();
+
+let startedCluster = false;
+let databaseUrl = process.env.DATABASE_URL;
+if (databaseUrl) {
+  say('Using the PostgreSQL server in DATABASE_URL (no private cluster).');
+} else {
+  startedCluster = startCluster();
+  databaseUrl = clusterUrl('rackside');
+  await ensureDatabase(databaseUrl);
+}
+
+const production = process.env.NODE_ENV === 'production';
+const env = {
+  ...process.env,
+  DATABASE_URL: databaseUrl,
+  DEMO_MODE: process.env.DEMO_MODE ?? (production ? 'false' : 'true'),
+  SESSION_SECRET: process.env.SESSION_SECRET ?? (production ? '' : localSessionSecret()),
+};
+
+say('Applying database migrations…');
+runTs('server/db/cli.ts', ['migrate'], env);
+if (env.DEMO_MODE === 'true') runTs('server/db/cli.ts', ['seed', '--if-empty'], env);
+
+say('Building the app…');
+run(path.join(repoRoot, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], { env });
+say(`Ready to serve after ${((Date.now() - began) / 1000).toFixed(1)} s of set-up.`);
+
+const server = spawn(path.join(repoRoot, 'node_modules', '.bin', 'tsx'), ['server/index.ts'], {
+  cwd: repoRoot,
+  env,
+  stdio: 'inherit',
+});
+
+let stopping = false;
+function shutdown() {
+  if (stopping) return;
+  stopping = true;
+  server.kill('SIGTERM');
+}
+process.on('SIGINT', shutdown);
+process.on('SIGTERM', shutdown);
+server.on('exit', (code) => {
+  if (startedCluster) {
+    say('Stopping the private PostgreSQL cluster…');
+    stopCluster();
+  }
+  process.exit(stopping ? 0 : (code ?? 1));
+});

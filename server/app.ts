@@ -1,0 +1,162 @@
+import { randomUUID } from 'node:crypto';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import connectPgSimple from 'connect-pg-simple';
+import express, { type RequestHandler } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { Role } from '../shared/domain/roles';
+import type { Database } from './db/client';
+import type { Env } from './env';
+import { animalsRoutes } from './features/animals/animals.routes';
+import { createAnimalsService } from './features/animals/animals.service';
+import { authRoutes, DEFAULT_AUTH_LIMITS, type AuthLimits } from './features/auth/auth.routes';
+import { createAuthService } from './features/auth/auth.service';
+import { collectionsRoutes } from './features/collections/collections.routes';
+import { createCollectionsService } from './features/collections/collections.service';
+import { devRoutes } from './features/dev/dev.routes';
+import { healthRoutes } from './features/health/health.routes';
+import { createLogger, type Logger } from './logger';
+import type { DevMailbox } from './mail/dev-smtp';
+import type { Mailer } from './mail/mailer';
+import { requireUser } from './middleware/auth';
+import { requireSameSiteWrite } from './middleware/csrf';
+import { apiNotFound, errorHandler, HttpError } from './middleware/errors';
+import { requireMember } from './middleware/roles';
+import { serveClient } from './static';
+
+/** Sessions for people signed in on their own phone for weeks (docs/decisions/003-sessions.md). */
+export const SESSION_IDLE_MS = 30 * 24 * 60 * 60 * 1000;
+export const SESSION_ABSOLUTE_MS = 90 * 24 * 60 * 60 * 1000;
+export const SESSION_COOKIE = 'rackside.sid';
+
+const defaultDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
+
+export interface AppOptions {
+  env: Env;
+  database: Database;
+  mailer: Mailer;
+  devMailbox?: DevMailbox;
+  now?: () => Date;
+  authLimits?: Partial<AuthLimits>;
+  distDir?: string;
+  logger?: Logger;
+  /** Base URL for links in e-mails; defaults to PUBLIC_URL or the request's own origin. */
+  publicUrl?: string;
+}
+
+export function createApp(options: AppOptions) {
+  const { env, database } = options;
+  const now = options.now ?? (() => new Date());
+  const logger = options.logger ?? createLogger(env);
+  const app = express();
+  app.disable('x-powered-by');
+  if (env.TRUST_PROXY) {
+    const n = Number(env.TRUST_PROXY);
+    app.set('trust proxy', Number.isInteger(n) ? n : env.TRUST_PROXY);
+  }
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // html5-qrcode and React set inline style attributes.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          mediaSrc: ["'self'", 'blob:'],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          workerSrc: ["'self'"],
+          manifestSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+        },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  );
+  app.use((_req, res, next) => {
+    res.setHeader('Permissions-Policy', 'camera=(self), microphone=(), geolocation=()');
+    next();
+  });
+  app.use(
+    pinoHttp({
+      logger,
+      genReqId: (req, res) => {
+        const id = randomUUID();
+        res.setHeader('X-Request-Id', id);
+        return id;
+      },
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+    }),
+  );
+
+  const PgStore = connectPgSimple(session);
+  const store = new PgStore({
+    pool: database.pool,
+    tableName: 'sessions',
+    createTableIfMissing: false,
+    pruneSessionInterval: env.NODE_ENV === 'test' ? false : 15 * 60,
+  });
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use(
+    session({
+      name: SESSION_COOKIE,
+      secret: env.SESSION_SECRET,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: env.COOKIE_SECURE === 'auto' ? 'auto' : env.COOKIE_SECURE === 'true',
+        maxAge: SESSION_IDLE_MS,
+      },
+    }),
+  );
+  const absoluteTimeout: RequestHandler = (req, _res, next) => {
+    const began = req.session.signedInAt;
+    if (req.session.userId && (!began || Date.now() - began > SESSION_ABSOLUTE_MS)) {
+      return req.session.destroy(() => next(new HttpError(401, 'session_expired', 'Your sign-in has expired. Please sign in again.')));
+    }
+    next();
+  };
+  api.use(absoluteTimeout);
+  api.use(requireSameSiteWrite);
+
+  const publicUrl = (p: string) => `${options.publicUrl ?? env.PUBLIC_URL ?? `http://localhost:${env.PORT}`}${p}`;
+  const auth = createAuthService({ db: database.db, mailer: options.mailer, now, bcryptCost: env.BCRYPT_COST, publicUrl });
+  const member = (min: Role) => requireMember(database.db, min, now);
+
+  api.use('/health', healthRoutes(database.pool));
+  api.use('/auth', authRoutes(auth, { ...DEFAULT_AUTH_LIMITS, ...options.authLimits }, SESSION_COOKIE));
+  if (env.DEMO_MODE) api.use('/dev', devRoutes(options.devMailbox));
+  api.get('/collections', requireUser, async (req, res) => {
+    res.json({ memberships: (await auth.me(req.session.userId!)).memberships });
+  });
+  api.use('/collections/:collectionId', requireUser);
+  api.use('/collections/:collectionId/animals', animalsRoutes(createAnimalsService(database.db), member));
+  api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db), member));
+  api.use(apiNotFound);
+  api.use(errorHandler);
+  app.use('/api', api);
+
+  serveClient(app, options.distDir ?? defaultDist);
+  app.use(errorHandler);
+
+  return {
+    app,
+    async shutdown() {
+      await new Promise<void>((resolve) => store.close ? (store.close(), resolve()) : resolve());
+    },
+  };
+}

@@ -1,0 +1,30 @@
+// Database chores for the npm scripts: `migrate`, `seed [--reset|--if-empty]`.
+import { readEnv } from '../env';
+import { connectDatabase } from './client';
+import { migrateDatabase } from './migrate';
+import { DEMO_PASSWORD, seedDemo } from './seed/demo';
+
+const env = readEnv();
+const database = connectDatabase(env.DATABASE_URL, 4);
+const [command, ...flags] = process.argv.slice(2);
+try {
+  if (command === 'migrate') {
+    await migrateDatabase(database.db);
+  } else if (command === 'seed') {
+    const result = await seedDemo(database.db, {
+      reset: flags.includes('--reset'),
+      ifEmpty: flags.includes('--if-empty'),
+      bcryptCost: env.BCRYPT_COST,
+    });
+    console.log(
+      result.created
+        ? `Seeded the demo collection: ${result.animals} animals, ${result.events} events (password: ${DEMO_PASSWORD}).`
+        : 'The demo collection is already there (npm run db:seed -- --reset rebuilds it).',
+    );
+  } else {
+    console.error('Usage: tsx server/db/cli.ts migrate | seed [--reset|--if-empty]');
+    process.exitCode = 2;
+  }
+} finally {
+  await database.close();
+}

@@ -1,0 +1,94 @@
+import {
+  boolean,
+  date,
+  doublePrecision,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  unique,
+  uuid,
+} from 'drizzle-orm/pg-core';
+import {
+  ANIMAL_GROUPS,
+  ANIMAL_STATUSES,
+  LIFE_STAGES,
+  SEXES,
+} from '../../../shared/domain/animal-facts';
+import { collections, locations } from './collections';
+import { users } from './users';
+
+export const groupEnum = pgEnum('animal_group', ANIMAL_GROUPS);
+export const stageEnum = pgEnum('life_stage', LIFE_STAGES);
+export const sexEnum = pgEnum('animal_sex', SEXES);
+export const statusEnum = pgEnum('animal_status', ANIMAL_STATUSES);
+
+export const animals = pgTable(
+  'animals',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    collectionId: uuid('collection_id')
+      .notNull()
+      .references(() => collections.id, { onDelete: 'cascade' }),
+    labelCode: text('label_code').notNull(),
+    name: text('name').notNull(),
+    scientificName: text('scientific_name').notNull(),
+    commonName: text('common_name'),
+    group: groupEnum('group').notNull(),
+    lifeStage: stageEnum('life_stage').notNull(),
+    sex: sexEnum('sex').notNull().default('unknown'),
+    sizeMm: doublePrecision('size_mm'),
+    locationId: uuid('location_id').references(() => locations.id, { onDelete: 'set null' }),
+    hasWaterDish: boolean('has_water_dish').notNull().default(false),
+    preyType: text('prey_type'),
+    preySize: text('prey_size'),
+    preyCount: integer('prey_count'),
+    intervalDays: integer('interval_days'),
+    doNotFeedUntil: date('do_not_feed_until'),
+    cautions: text('cautions').array().notNull().default([]),
+    cautionNote: text('caution_note'),
+    status: statusEnum('status').notNull().default('active'),
+    statusDate: date('status_date'),
+    acquiredOn: date('acquired_on'),
+    source: text('source'),
+    notes: text('notes'),
+    // Per-animal rule overrides (same shape as collection rules, subset).
+    settings: jsonb('settings').notNull().default({}),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    unique('animals_collection_label').on(t.collectionId, t.labelCode),
+    index('animals_collection_idx').on(t.collectionId),
+  ],
+);
+
+export const events = pgTable(
+  'events',
+  {
+    // Generated on the device, so a re-sent event is recognised and never stored twice.
+    id: uuid('id').primaryKey(),
+    collectionId: uuid('collection_id')
+      .notNull()
+      .references(() => collections.id, { onDelete: 'cascade' }),
+    animalId: uuid('animal_id')
+      .notNull()
+      .references(() => animals.id, { onDelete: 'cascade' }),
+    kind: text('kind').notNull(),
+    payload: jsonb('payload').notNull().default({}),
+    recordedBy: uuid('recorded_by').references(() => users.id, { onDelete: 'set null' }),
+    deviceId: text('device_id'),
+    clientRecordedAt: timestamp('client_recorded_at', { withTimezone: true }).notNull(),
+    clientSentAt: timestamp('client_sent_at', { withTimezone: true }),
+    serverReceivedAt: timestamp('server_received_at', { withTimezone: true }).notNull().defaultNow(),
+    effectiveAt: timestamp('effective_at', { withTimezone: true }).notNull(),
+    flags: text('flags').array().notNull().default([]),
+  },
+  (t) => [
+    index('events_animal_time_idx').on(t.animalId, t.effectiveAt),
+    index('events_collection_time_idx').on(t.collectionId, t.effectiveAt),
+  ],
+);

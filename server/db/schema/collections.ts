@@ -1,0 +1,81 @@
+import {
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  unique,
+  uuid,
+} from 'drizzle-orm/pg-core';
+import { ROLES } from '../../../shared/domain/roles';
+import { users } from './users';
+
+export const roleEnum = pgEnum('member_role', ROLES);
+
+export const collections = pgTable('collections', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  name: text('name').notNull(),
+  timeZone: text('time_zone').notNull(),
+  // Per-collection overrides of the round engine's defaults; absent keys use the defaults.
+  rules: jsonb('rules').notNull().default({}),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+export const memberships = pgTable(
+  'memberships',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    collectionId: uuid('collection_id')
+      .notNull()
+      .references(() => collections.id, { onDelete: 'cascade' }),
+    userId: uuid('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    role: roleEnum('role').notNull(),
+    // A helper's cover window; null for owners and keepers.
+    startsAt: timestamp('starts_at', { withTimezone: true }),
+    endsAt: timestamp('ends_at', { withTimezone: true }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique('memberships_collection_user').on(t.collectionId, t.userId), index('memberships_user_idx').on(t.userId)],
+);
+
+export const invites = pgTable(
+  'invites',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    collectionId: uuid('collection_id')
+      .notNull()
+      .references(() => collections.id, { onDelete: 'cascade' }),
+    email: text('email').notNull(),
+    role: roleEnum('role').notNull(),
+    tokenHash: text('token_hash').notNull().unique(),
+    message: text('message'),
+    startsAt: timestamp('starts_at', { withTimezone: true }),
+    endsAt: timestamp('ends_at', { withTimezone: true }),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    acceptedAt: timestamp('accepted_at', { withTimezone: true }),
+    invitedBy: uuid('invited_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('invites_collection_idx').on(t.collectionId)],
+);
+
+export const locations = pgTable(
+  'locations',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    collectionId: uuid('collection_id')
+      .notNull()
+      .references(() => collections.id, { onDelete: 'cascade' }),
+    room: text('room').notNull(),
+    rack: text('rack').notNull(),
+    shelf: text('shelf').notNull(),
+    position: text('position').notNull(),
+    // Keeper's own walk order; ties fall back to the natural sort of room/rack/shelf/position.
+    walkOrder: integer('walk_order').notNull().default(0),
+  },
+  (t) => [unique('locations_place').on(t.collectionId, t.room, t.rack, t.shelf, t.position)],
+);

@@ -1,0 +1,302 @@
+// The invented demo collection (demo scenario): people, room layout, ~42 animals and about
+// 60 days of history, arranged so that "today" shows every rule of the round engine.
+import { randomUUID } from 'node:crypto';
+import { eq, inArray } from 'drizzle-orm';
+import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import type { AnimalGroup, Caution, LifeStage, Sex } from '../../../shared/domain/animal-facts';
+import type { EventKind } from '../../../shared/domain/event-kinds';
+import { generateLabelCodes } from '../../../shared/domain/label-codes';
+import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
+import { hashPassword } from '../../features/auth/passwords';
+import { animals, events } from '../schema/animals';
+import { collections, locations, memberships } from '../schema/collections';
+import { users } from '../schema/users';
+import { DEMO_ACCOUNTS, DEMO_COLLECTION, DEMO_PASSWORD } from './demo-people';
+
+export { DEMO_PASSWORD };
+
+/** Small seeded generator (mulberry32) so the demo is the same on every machine. */
+export function seededRandom(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+interface DemoAnimal {
+  name: string;
+  scientificName: string;
+  commonName?: string;
+  group: AnimalGroup;
+  lifeStage: LifeStage;
+  sex: Sex;
+  sizeMm: number;
+  place: [rack: string, shelf: string, position: string];
+  cautions?: Caution[];
+  hasWaterDish?: boolean;
+  /** What happened recently, driving today's round (see the scenario's "states"). */
+  story?: 'two_refusals' | 'premolt' | 'molted_5_days' | 'sac_3_weeks' | 'paired_10_days' | 'prey_left_yesterday' | 'missed';
+}
+
+const ADULTS: DemoAnimal[] = [
+  { name: 'Juniper', scientificName: 'Tliltocatl albopilosus', commonName: 'Curly hair tarantula', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 130, place: ['A', '1', '1'], cautions: ['urticating_hairs'], hasWaterDish: true, story: 'sac_3_weeks' },
+  { name: 'Pepper', scientificName: 'Grammostola pulchra', commonName: 'Brazilian black', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 150, place: ['A', '1', '2'], cautions: ['urticating_hairs'], hasWaterDish: true },
+  { name: 'Dusty', scientificName: 'Aphonopelma chalcodes', commonName: 'Desert blonde', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 125, place: ['A', '1', '3'], cautions: ['urticating_hairs'], hasWaterDish: true, story: 'missed' },
+  { name: 'Bramble', scientificName: 'Acanthoscurria geniculata', commonName: 'Whitebanded tarantula', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 170, place: ['A', '1', '4'], cautions: ['urticating_hairs', 'fast_defensive'], hasWaterDish: true, story: 'two_refusals' },
+  { name: 'Indigo', scientificName: 'Monocentropus balfouri', commonName: 'Socotra Island blue baboon', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 120, place: ['A', '2', '1'], cautions: ['potent_venom', 'fast_defensive'], hasWaterDish: true, story: 'paired_10_days' },
+  { name: 'Blue Jay', scientificName: 'Monocentropus balfouri', commonName: 'Socotra Island blue baboon', group: 'tarantula', lifeStage: 'adult', sex: 'mature_male', sizeMm: 110, place: ['A', '2', '2'], cautions: ['potent_venom', 'fast_defensive'], hasWaterDish: true },
+  { name: 'Ember', scientificName: 'Omothymus schioedtei', commonName: 'Malaysian earth tiger', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 180, place: ['A', '2', '3'], cautions: ['potent_venom', 'fast_defensive', 'escape_risk'], hasWaterDish: true, story: 'missed' },
+  { name: 'Rattler', scientificName: 'Scolopendra heros', commonName: 'Giant desert centipede', group: 'centipede', lifeStage: 'adult', sex: 'unknown', sizeMm: 160, place: ['A', '3', '1'], cautions: ['potent_venom', 'fast_defensive', 'escape_risk'], hasWaterDish: true },
+  { name: 'Pinch', scientificName: 'Heterometrus spinifer', commonName: 'Giant forest scorpion', group: 'scorpion', lifeStage: 'adult', sex: 'female', sizeMm: 110, place: ['A', '3', '2'], hasWaterDish: true },
+  { name: 'Mantra', scientificName: 'Hierodula membranacea', commonName: 'Giant Asian mantis', group: 'mantis', lifeStage: 'adult', sex: 'female', sizeMm: 90, place: ['A', '3', '3'] },
+];
+
+const JUVENILES: DemoAnimal[] = [
+  { name: 'Verdi', scientificName: 'Caribena versicolor', commonName: 'Martinique pinktoe', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 45, place: ['B', '1', '1'], cautions: ['fast_defensive'], story: 'premolt' },
+  { name: 'Goliath Jr', scientificName: 'Theraphosa stirmi', commonName: 'Burgundy goliath birdeater', group: 'tarantula', lifeStage: 'subadult', sex: 'female', sizeMm: 140, place: ['B', '1', '2'], cautions: ['urticating_hairs'], hasWaterDish: true, story: 'molted_5_days' },
+  { name: 'Rusty', scientificName: 'Harpactira pulchripes', commonName: 'Golden blue-leg baboon', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 50, place: ['B', '1', '3'], cautions: ['potent_venom', 'fast_defensive'] },
+  { name: 'Tiger', scientificName: 'Davus pentaloris', commonName: 'Guatemalan tiger rump', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 40, place: ['B', '2', '1'], cautions: ['urticating_hairs', 'fast_defensive'], story: 'missed' },
+  { name: 'Ruby', scientificName: 'Tliltocatl vagans', commonName: 'Mexican red rump', group: 'tarantula', lifeStage: 'subadult', sex: 'female', sizeMm: 95, place: ['B', '2', '2'], cautions: ['urticating_hairs'], hasWaterDish: true },
+  { name: 'Stripes', scientificName: 'Nhandu chromatus', commonName: 'Brazilian red and white', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 60, place: ['B', '2', '3'], cautions: ['urticating_hairs', 'fast_defensive'] },
+  { name: 'Pebble', scientificName: 'Cyriocosmus elegans', commonName: 'Trinidad dwarf tiger', group: 'tarantula', lifeStage: 'sling', sex: 'unknown', sizeMm: 12, place: ['B', '3', '4'] },
+  { name: 'Flicker', scientificName: 'Neoholothele incei', commonName: 'Trinidad olive', group: 'tarantula', lifeStage: 'sling', sex: 'unknown', sizeMm: 15, place: ['B', '3', '5'], cautions: ['fast_defensive'] },
+];
+
+function clutch(): DemoAnimal[] {
+  return Array.from({ length: 24 }, (_, i) => {
+    const tray = i < 12 ? '1' : '2';
+    const pot = String((i % 12) + 1).padStart(2, '0');
+    return {
+      name: `Formosus ${String(i + 1).padStart(2, '0')}`,
+      scientificName: 'Hapalopus formosus',
+      commonName: 'Colombian pumpkin patch',
+      group: 'tarantula',
+      lifeStage: 'sling',
+      sex: 'unknown',
+      sizeMm: 10 + (i % 5),
+      place: ['C', tray, pot],
+      cautions: ['urticating_hairs'],
+      story: i === 3 ? 'prey_left_yesterday' : i === 7 || i === 15 ? 'missed' : undefined,
+    } satisfies DemoAnimal;
+  });
+}
+
+// Demo history uses the round engine's default intervals (husbandry rules R1).
+const INTERVAL: Record<LifeStage, number> = { sling: 3, juvenile: 6, subadult: 9, adult: 12 };
+const GROUP_INTERVAL: Partial<Record<AnimalGroup, number>> = { centipede: 7, scorpion: 10, mantis: 4 };
+const OFFER: Record<LifeStage, { preyType: string; preySize: string; count: number }> = {
+  sling: { preyType: 'fruit-fly larvae', preySize: 'tiny', count: 1 },
+  juvenile: { preyType: 'cricket', preySize: 'small', count: 1 },
+  subadult: { preyType: 'roach nymph', preySize: 'medium', count: 2 },
+  adult: { preyType: 'cricket', preySize: 'large', count: 2 },
+};
+
+interface SeedEvent {
+  kind: EventKind;
+  day: LocalDate;
+  minute: number;
+  payload?: Record<string, unknown>;
+  by: 'owner' | 'partner';
+}
+
+/** The history of one animal over the last `days` days, ending yesterday or today. */
+function historyFor(animal: DemoAnimal, today: LocalDate, random: () => number): SeedEvent[] {
+  const interval = GROUP_INTERVAL[animal.group] ?? INTERVAL[animal.lifeStage];
+  const offer = OFFER[animal.lifeStage];
+  const out: SeedEvent[] = [];
+  const at = (offset: number): LocalDate => addDays(today, offset);
+  const by = (): 'owner' | 'partner' => (random() < 0.75 ? 'owner' : 'partner');
+  const minute = () => 18 * 60 + Math.floor(random() * 150); // evening rounds, 18:00–20:30
+
+  // Routine feeding from 60 days ago until the story takes over.
+  const storyStart: Record<NonNullable<DemoAnimal['story']> | 'none', number> = {
+    none: 0,
+    two_refusals: -8,
+    premolt: -7,
+    molted_5_days: -5,
+    sac_3_weeks: -21,
+    paired_10_days: -10,
+    prey_left_yesterday: -1,
+    missed: -1,
+  };
+  const stopAt = storyStart[animal.story ?? 'none'];
+  let offset = -60 + Math.floor(random() * interval);
+  const lastRoutine = animal.story === 'missed' ? -interval - 1 : stopAt - 1;
+  while (offset <= lastRoutine && offset < 0) {
+    const refused = random() < 0.08;
+    out.push({ kind: refused ? 'refused' : 'ate', day: at(offset), minute: minute(), by: by(), payload: refused ? {} : { ...offer } });
+    offset += refused ? Math.max(2, Math.round(interval / 2)) : interval;
+  }
+  if (animal.hasWaterDish) {
+    for (let d = -60 + Math.floor(random() * 3); d < 0; d += 3) {
+      out.push({ kind: 'watered', day: at(d), minute: minute(), by: by() });
+    }
+  }
+  // A molt somewhere in the middle of the history for growing animals, to fill the charts.
+  if (animal.lifeStage !== 'adult' && animal.story !== 'molted_5_days' && animal.story !== 'premolt') {
+    out.push({ kind: 'molted', day: at(-35 - Math.floor(random() * 10)), minute: minute(), by: by(), payload: { sizeMm: animal.sizeMm } });
+  }
+
+  switch (animal.story) {
+    case 'two_refusals':
+      out.push({ kind: 'ate', day: at(-20), minute: minute(), by: 'owner', payload: { ...offer } });
+      out.push({ kind: 'refused', day: at(-8), minute: minute(), by: 'owner' });
+      out.push({ kind: 'refused', day: at(-1), minute: minute(), by: 'partner', payload: { note: 'Turned away from the tongs again.' } });
+      break;
+    case 'premolt':
+      out.push({ kind: 'ate', day: at(-13), minute: minute(), by: 'owner', payload: { ...offer } });
+      out.push({ kind: 'premolt_seen', day: at(-2), minute: minute(), by: 'owner', payload: { note: 'Abdomen dark and shiny, molt mat started.' } });
+      break;
+    case 'molted_5_days':
+      out.push({ kind: 'ate', day: at(-16), minute: minute(), by: 'owner', payload: { ...offer } });
+      out.push({ kind: 'molted', day: at(-5), minute: 7 * 60 + 40, by: 'owner', payload: { sizeMm: animal.sizeMm, exuviaeKept: true } });
+      break;
+    case 'sac_3_weeks':
+      out.push({ kind: 'sac_laid', day: at(-21), minute: minute(), by: 'owner' });
+      out.push({ kind: 'sac_pulled', day: at(-20), minute: minute(), by: 'owner', payload: { note: 'Pulled for incubation.' } });
+      out.push({ kind: 'ate', day: at(-6), minute: minute(), by: 'owner', payload: { ...offer } });
+      break;
+    case 'paired_10_days':
+      out.push({ kind: 'ate', day: at(-12), minute: minute(), by: 'owner', payload: { ...offer } });
+      out.push({ kind: 'paired', day: at(-10), minute: 20 * 60, by: 'owner', payload: { outcome: 'accepted', note: 'Male tapped, she accepted; separated after insertion.' } });
+      out.push({ kind: 'ate', day: at(-4), minute: minute(), by: 'owner', payload: { ...offer } });
+      break;
+    case 'prey_left_yesterday':
+      out.push({ kind: 'ate', day: at(-4), minute: minute(), by: 'owner', payload: { ...offer } });
+      out.push({ kind: 'prey_left_in', day: at(-1), minute: minute(), by: 'partner', payload: { ...offer } });
+      break;
+    default:
+      break;
+  }
+  return out;
+}
+
+export interface SeedOptions {
+  reset?: boolean;
+  ifEmpty?: boolean;
+  bcryptCost?: number;
+  now?: Date;
+}
+
+export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
+  const emails = DEMO_ACCOUNTS.map((a) => a.email);
+  const existing = await db.select({ id: users.id }).from(users).where(inArray(users.email, emails));
+  if (existing.length && !options.reset) return { created: false, animals: 0, events: 0 };
+  if (existing.length) {
+    const owned = await db
+      .select({ collectionId: memberships.collectionId })
+      .from(memberships)
+      .where(inArray(memberships.userId, existing.map((u) => u.id)));
+    const ids = [...new Set(owned.map((o) => o.collectionId))];
+    if (ids.length) await db.delete(collections).where(inArray(collections.id, ids));
+    await db.delete(users).where(inArray(users.email, emails));
+  }
+
+  const zone = DEMO_COLLECTION.timeZone;
+  const now = options.now ?? new Date();
+  const today = localDateOf(now, zone);
+  const random = seededRandom(20261201);
+  const passwordHash = await hashPassword(DEMO_PASSWORD, options.bcryptCost ?? 11);
+
+  return db.transaction(async (tx) => {
+    const people = await tx
+      .insert(users)
+      .values(DEMO_ACCOUNTS.map((a) => ({ email: a.email, displayName: a.displayName, passwordHash })))
+      .returning({ id: users.id, email: users.email });
+    const idOf = (email: string) => people.find((p) => p.email === email)!.id;
+    const ownerId = idOf(DEMO_ACCOUNTS[0].email);
+    const partnerId = idOf(DEMO_ACCOUNTS[1].email);
+
+    const [collection] = await tx.insert(collections).values(DEMO_COLLECTION).returning({ id: collections.id });
+    const collectionId = collection!.id;
+
+    // The helper covers 7 days from the Friday after today.
+    const weekday = new Date(`${today}T12:00:00Z`).getUTCDay();
+    const firstDay = addDays(today, ((5 - weekday + 7) % 7) || 7);
+    await tx.insert(memberships).values([
+      { collectionId, userId: ownerId, role: 'owner' },
+      { collectionId, userId: partnerId, role: 'keeper' },
+      {
+        collectionId,
+        userId: idOf(DEMO_ACCOUNTS[2].email),
+        role: 'helper',
+        startsAt: startOfLocalDate(firstDay, zone),
+        endsAt: startOfLocalDate(addDays(firstDay, 7), zone),
+      },
+    ]);
+
+    const roster = [...ADULTS, ...JUVENILES, ...clutch()];
+    const places = new Map<string, string>();
+    const placeRows = roster.map((a) => ({ collectionId, room: 'Spare room', rack: a.place[0], shelf: a.place[1], position: a.place[2] }));
+    // Empty spots exist too: the room has more positions than animals.
+    for (const [rack, shelves, positions] of [['A', 3, 4], ['B', 3, 5]] as const) {
+      for (let s = 1; s <= shelves; s++) {
+        for (let p = 1; p <= positions; p++) {
+          if (!placeRows.some((r) => r.rack === rack && r.shelf === String(s) && r.position === String(p))) {
+            placeRows.push({ collectionId, room: 'Spare room', rack, shelf: String(s), position: String(p) });
+          }
+        }
+      }
+    }
+    const insertedPlaces = await tx.insert(locations).values(placeRows).returning();
+    for (const l of insertedPlaces) places.set(`${l.rack}|${l.shelf}|${l.position}`, l.id);
+
+    const codes = generateLabelCodes('NL', roster.length, random);
+    const insertedAnimals = await tx
+      .insert(animals)
+      .values(
+        roster.map((a, i) => ({
+          collectionId,
+          labelCode: codes[i]!,
+          name: a.name,
+          scientificName: a.scientificName,
+          commonName: a.commonName ?? null,
+          group: a.group,
+          lifeStage: a.lifeStage,
+          sex: a.sex,
+          sizeMm: a.sizeMm,
+          locationId: places.get(a.place.join('|'))!,
+          hasWaterDish: a.hasWaterDish ?? false,
+          cautions: a.cautions ?? [],
+          acquiredOn: addDays(today, -200 - Math.floor(random() * 300)),
+        })),
+      )
+      .returning({ id: animals.id });
+
+    const rows = roster.flatMap((a, i) =>
+      historyFor(a, today, random).map((e) => {
+        const at = new Date(startOfLocalDate(e.day, zone).getTime() + e.minute * 60_000);
+        return {
+          id: randomUUID(),
+          collectionId,
+          animalId: insertedAnimals[i]!.id,
+          kind: e.kind,
+          payload: e.payload ?? {},
+          recordedBy: e.by === 'owner' ? ownerId : partnerId,
+          deviceId: 'demo-seed',
+          clientRecordedAt: at,
+          clientSentAt: at,
+          serverReceivedAt: at,
+          effectiveAt: at,
+        };
+      }),
+    );
+    for (let i = 0; i < rows.length; i += 500) await tx.insert(events).values(rows.slice(i, i + 500));
+    return { created: true, animals: roster.length, events: rows.length, collectionId, today };
+  });
+}
+
+export async function demoCollectionId(db: NodePgDatabase): Promise<string | null> {
+  const [row] = await db
+    .select({ id: collections.id })
+    .from(collections)
+    .innerJoin(memberships, eq(memberships.collectionId, collections.id))
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(users.email, DEMO_ACCOUNTS[0].email))
+    .limit(1);
+  return row?.id ?? null;
+}

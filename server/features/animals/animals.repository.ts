@@ -1,0 +1,13 @@
+import { asc, eq } from 'drizzle-orm';
+import type { Db } from '../../db/client';
+import { animals } from '../../db/schema/animals';
+import { locations } from '../../db/schema/collections';
+
+export async function listAnimals(db: Db, collectionId: string) {
+  return db
+    .select({ animal: animals, location: locations })
+    .from(animals)
+    .leftJoin(locations, eq(locations.id, animals.locationId))
+    .where(eq(animals.collectionId, collectionId))
+    .orderBy(asc(locations.walkOrder), asc(animals.labelCode));
+}

@@ -1,0 +1,30 @@
+import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import { compareLocations } from '../../../shared/domain/walk-order';
+import type { AnimalSummary } from '../../../shared/schemas/animals';
+import { listAnimals } from './animals.repository';
+
+export function createAnimalsService(db: NodePgDatabase) {
+  return {
+    async list(collectionId: string): Promise<AnimalSummary[]> {
+      const rows = await listAnimals(db, collectionId);
+      const summaries = rows.map(({ animal: a, location: l }) => ({
+        id: a.id,
+        labelCode: a.labelCode,
+        name: a.name,
+        scientificName: a.scientificName,
+        commonName: a.commonName,
+        group: a.group,
+        lifeStage: a.lifeStage,
+        sex: a.sex,
+        sizeMm: a.sizeMm,
+        status: a.status,
+        cautions: a.cautions as AnimalSummary['cautions'],
+        location: l
+          ? { id: l.id, room: l.room, rack: l.rack, shelf: l.shelf, position: l.position, walkOrder: l.walkOrder }
+          : null,
+      }));
+      return summaries.sort((x, y) => compareLocations(x.location, y.location) || x.labelCode.localeCompare(y.labelCode));
+    },
+  };
+}
+export type AnimalsService = ReturnType<typeof createAnimalsService>;

@@ -1,0 +1,47 @@
+import { and, eq, gt, isNull, sql } from 'drizzle-orm';
+import type { Db } from '../../db/client';
+import { passwordResets, sessions, users } from '../../db/schema/users';
+
+export async function findUserByEmail(db: Db, email: string) {
+  const [row] = await db.select().from(users).where(eq(users.email, email)).limit(1);
+  return row ?? null;
+}
+
+export async function findUserById(db: Db, id: string) {
+  const [row] = await db.select().from(users).where(eq(users.id, id)).limit(1);
+  return row ?? null;
+}
+
+export async function insertUser(db: Db, values: { email: string; displayName: string; passwordHash: string }) {
+  const [row] = await db.insert(users).values(values).returning();
+  return row!;
+}
+
+export async function updatePasswordHash(db: Db, userId: string, passwordHash: string, at: Date) {
+  await db.update(users).set({ passwordHash, passwordChangedAt: at }).where(eq(users.id, userId));
+}
+
+export async function insertPasswordReset(db: Db, values: { userId: string; tokenHash: string; expiresAt: Date }) {
+  await db.insert(passwordResets).values(values);
+}
+
+/** Marks a live token used and returns its user — atomically, so a token works once. */
+export async function consumePasswordReset(db: Db, tokenHash: string, now: Date) {
+  const [row] = await db
+    .update(passwordResets)
+    .set({ usedAt: now })
+    .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, now)))
+    .returning({ userId: passwordResets.userId });
+  return row?.userId ?? null;
+}
+
+/** Signs a user out everywhere (after a password reset or change), except one session. */
+export async function deleteSessionsOfUser(db: Db, userId: string, keepSid?: string) {
+  await db
+    .delete(sessions)
+    .where(
+      keepSid
+        ? sql`${sessions.sess}->>'userId' = ${userId} and ${sessions.sid} <> ${keepSid}`
+        : sql`${sessions.sess}->>'userId' = ${userId}`,
+    );
+}

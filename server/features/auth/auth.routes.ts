@@ -1,0 +1,121 @@
+import { Router, type Request } from 'express';
+import { rateLimit, type Options } from 'express-rate-limit';
+import {
+  changePasswordBody,
+  resetBody,
+  resetRequestBody,
+  signInBody,
+  signUpBody,
+  type SignInBody,
+  type SignUpBody,
+} from '../../../shared/schemas/auth';
+import { currentUserId, requireUser } from '../../middleware/auth';
+import { HttpError } from '../../middleware/errors';
+import { input, validate } from '../../middleware/validate';
+import type { AuthService } from './auth.service';
+
+export interface AuthLimits {
+  /** Sign-in attempts per IP address per 15 minutes. */
+  signInPerIp: number;
+  /** Failed sign-ins per account per hour (OWASP ASVS 4.0.3 2.2.1: at most 100). */
+  failedSignInPerAccount: number;
+  /** Password-reset requests per IP per 15 minutes and per e-mail per hour. */
+  resetPerIp: number;
+  resetPerEmail: number;
+}
+
+export const DEFAULT_AUTH_LIMITS: AuthLimits = {
+  signInPerIp: 60,
+  failedSignInPerAccount: 20,
+  resetPerIp: 10,
+  resetPerEmail: 3,
+};
+
+function limiter(options: Partial<Options>) {
+  return rateLimit({
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    handler: (_req, _res, next, opts) => {
+      const minutes = Math.ceil(opts.windowMs / 60_000);
+      next(new HttpError(429, 'rate_limited', `Too many attempts. Wait up to ${minutes} minutes and try again.`));
+    },
+    ...options,
+  });
+}
+
+/** Keyed on the e-mail in the body, so one account cannot be hammered from many addresses. */
+function byEmail(req: Request): string {
+  const raw = (req.body as { email?: unknown } | undefined)?.email;
+  return typeof raw === 'string' ? raw.trim().toLowerCase() : '';
+}
+
+function regenerate(req: Request) {
+  return new Promise<void>((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
+}
+
+function destroy(req: Request) {
+  return new Promise<void>((resolve, reject) => req.session.destroy((err) => (err ? reject(err) : resolve())));
+}
+
+export function authRoutes(auth: AuthService, limits: AuthLimits, cookieName: string) {
+  const router = Router();
+
+  const signInLimit = limiter({ windowMs: 15 * 60_000, limit: limits.signInPerIp });
+  const accountLimit = limiter({
+    windowMs: 60 * 60_000,
+    limit: limits.failedSignInPerAccount,
+    keyGenerator: byEmail,
+    skipSuccessfulRequests: true,
+  });
+  const resetIpLimit = limiter({ windowMs: 15 * 60_000, limit: limits.resetPerIp });
+  const resetEmailLimit = limiter({ windowMs: 60 * 60_000, limit: limits.resetPerEmail, keyGenerator: byEmail });
+
+  async function startSession(req: Request, userId: string) {
+    // A fresh session id at every sign-in (OWASP ASVS 4.0.3 3.2.1): no session fixation.
+    await regenerate(req);
+    req.session.userId = userId;
+    req.session.signedInAt = Date.now();
+  }
+
+  router.post('/sign-up', signInLimit, validate({ body: signUpBody }), async (req, res) => {
+    const user = await auth.signUp(input<SignUpBody>(res, 'body'));
+    await startSession(req, user.id);
+    res.status(201).json(await auth.me(user.id));
+  });
+
+  router.post('/sign-in', signInLimit, accountLimit, validate({ body: signInBody }), async (req, res) => {
+    const { email, password } = input<SignInBody>(res, 'body');
+    const user = await auth.verifyCredentials(email, password);
+    await startSession(req, user.id);
+    res.json(await auth.me(user.id));
+  });
+
+  router.post('/sign-out', async (req, res) => {
+    await destroy(req);
+    res.clearCookie(cookieName, { path: '/' });
+    res.status(204).end();
+  });
+
+  router.get('/me', requireUser, async (req, res) => {
+    res.json(await auth.me(currentUserId(req)));
+  });
+
+  router.post('/password', requireUser, validate({ body: changePasswordBody }), async (req, res) => {
+    const body = input<{ currentPassword: string; newPassword: string }>(res, 'body');
+    await auth.changePassword(currentUserId(req), body.currentPassword, body.newPassword, req.sessionID);
+    res.status(204).end();
+  });
+
+  router.post('/reset-request', resetIpLimit, resetEmailLimit, validate({ body: resetRequestBody }), async (req, res) => {
+    await auth.requestReset(input<{ email: string }>(res, 'body').email);
+    res.status(202).json({ message: 'If an account uses that e-mail, a reset link is on its way. It works for one hour.' });
+  });
+
+  router.post('/reset', resetIpLimit, validate({ body: resetBody }), async (req, res) => {
+    const body = input<{ token: string; password: string }>(res, 'body');
+    await auth.resetPassword(body.token, body.password);
+    res.status(204).end();
+  });
+
+  return router;
+}

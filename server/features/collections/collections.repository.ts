@@ -1,0 +1,74 @@
+import { and, asc, eq } from 'drizzle-orm';
+import type { Db } from '../../db/client';
+import { collections, memberships } from '../../db/schema/collections';
+import { users } from '../../db/schema/users';
+
+export async function findMembership(db: Db, collectionId: string, userId: string) {
+  const rows = await db
+    .select({
+      collectionId: collections.id,
+      collectionName: collections.name,
+      timeZone: collections.timeZone,
+      role: memberships.role,
+      startsAt: memberships.startsAt,
+      endsAt: memberships.endsAt,
+    })
+    .from(memberships)
+    .innerJoin(collections, eq(collections.id, memberships.collectionId))
+    .where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, userId)))
+    .limit(1);
+  return rows[0] ?? null;
+}
+export type Membership = NonNullable<Awaited<ReturnType<typeof findMembership>>>;
+
+export async function listMembershipsOfUser(db: Db, userId: string) {
+  return db
+    .select({
+      collectionId: collections.id,
+      collectionName: collections.name,
+      timeZone: collections.timeZone,
+      role: memberships.role,
+      startsAt: memberships.startsAt,
+      endsAt: memberships.endsAt,
+    })
+    .from(memberships)
+    .innerJoin(collections, eq(collections.id, memberships.collectionId))
+    .where(eq(memberships.userId, userId))
+    .orderBy(asc(collections.name));
+}
+
+export async function listMembers(db: Db, collectionId: string) {
+  return db
+    .select({
+      userId: users.id,
+      displayName: users.displayName,
+      email: users.email,
+      role: memberships.role,
+      startsAt: memberships.startsAt,
+      endsAt: memberships.endsAt,
+    })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(eq(memberships.collectionId, collectionId))
+    .orderBy(asc(users.displayName));
+}
+
+export async function insertMembership(
+  db: Db,
+  values: { collectionId: string; userId: string; role: 'owner' | 'keeper' | 'helper'; startsAt?: Date | null; endsAt?: Date | null },
+) {
+  await db.insert(memberships).values(values);
+}
+
+export async function deleteMembership(db: Db, collectionId: string, userId: string) {
+  const removed = await db
+    .delete(memberships)
+    .where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, userId)))
+    .returning({ id: memberships.id });
+  return removed.length > 0;
+}
+
+export async function insertCollection(db: Db, values: { name: string; timeZone: string }) {
+  const [row] = await db.insert(collections).values(values).returning({ id: collections.id });
+  return row!.id;
+}

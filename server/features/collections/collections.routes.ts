@@ -1,0 +1,33 @@
+import { Router, type RequestHandler } from 'express';
+import type { Role } from '../../../shared/domain/roles';
+import { addMemberBody, memberParams } from '../../../shared/schemas/collections';
+import { currentUserId } from '../../middleware/auth';
+import { membershipOf } from '../../middleware/roles';
+import { input, validate } from '../../middleware/validate';
+import type { CollectionsService } from './collections.service';
+
+export function collectionsRoutes(service: CollectionsService, member: (min: Role) => RequestHandler) {
+  const router = Router({ mergeParams: true });
+
+  router.get('/', member('helper'), (_req, res) => {
+    const m = membershipOf(res);
+    res.json({ id: m.collectionId, name: m.collectionName, timeZone: m.timeZone, role: m.role });
+  });
+
+  router.get('/members', member('owner'), async (_req, res) => {
+    res.json({ members: await service.members(membershipOf(res).collectionId) });
+  });
+
+  router.post('/members', member('owner'), validate({ body: addMemberBody }), async (_req, res) => {
+    await service.addKeeper(membershipOf(res).collectionId, input<{ email: string }>(res, 'body').email);
+    res.status(201).json({ members: await service.members(membershipOf(res).collectionId) });
+  });
+
+  router.delete('/members/:userId', member('owner'), validate({ params: memberParams }), async (req, res) => {
+    const { userId } = input<{ userId: string }>(res, 'params');
+    await service.removeMember(membershipOf(res).collectionId, userId, currentUserId(req));
+    res.status(204).end();
+  });
+
+  return router;
+}

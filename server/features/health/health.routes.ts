@@ -1,0 +1,20 @@
+import { Router } from 'express';
+import type pg from 'pg';
+
+/** Liveness plus a database ping, so a load balancer sees when PostgreSQL is away. */
+export function healthRoutes(pool: pg.Pool) {
+  const router = Router();
+  router.get('/', async (_req, res) => {
+    const started = Date.now();
+    try {
+      await Promise.race([
+        pool.query('select 1'),
+        new Promise((_, reject) => setTimeout(() => reject(new Error('timeout')), 2000)),
+      ]);
+      res.json({ status: 'ok', database: 'up', databaseMs: Date.now() - started });
+    } catch {
+      res.status(503).json({ status: 'degraded', database: 'down' });
+    }
+  });
+  return router;
+}

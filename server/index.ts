@@ -1,0 +1,48 @@
+import { readEnv } from './env';
+import { createApp } from './app';
+import { connectDatabase } from './db/client';
+import { createLogger } from './logger';
+import { startDevSmtp, type DevSmtp } from './mail/dev-smtp';
+import { createSmtpMailer } from './mail/mailer';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './db/seed/demo-people';
+
+const env = readEnv();
+const logger = createLogger(env);
+const database = connectDatabase(env.DATABASE_URL, 20);
+
+let devSmtp: DevSmtp | undefined;
+let smtpUrl = env.SMTP_URL;
+if (!smtpUrl) {
+  devSmtp = await startDevSmtp();
+  smtpUrl = devSmtp.url;
+}
+const mailer = createSmtpMailer(smtpUrl, env.MAIL_FROM);
+const { app, shutdown } = createApp({ env, database, mailer, devMailbox: devSmtp?.mailbox, logger });
+
+const server = app.listen(env.PORT, env.HOST, () => {
+  const shown = env.HOST === '0.0.0.0' ? 'localhost' : env.HOST;
+  const url = env.PUBLIC_URL ?? `http://${shown}:${env.PORT}`;
+  const lines = [``, `  Rackside is running at ${url}`];
+  if (env.DEMO_MODE) {
+    lines.push(`  Demo sign-in: ${DEMO_ACCOUNTS[0]!.email} / ${DEMO_PASSWORD}`);
+    lines.push(`  (also ${DEMO_ACCOUNTS.slice(1).map((a) => a.email).join(', ')})`);
+  }
+  if (devSmtp) lines.push(`  E-mail goes to a local mailbox: ${url}/dev/mailbox`);
+  lines.push(`  Press Ctrl-C to stop.`, ``);
+  console.log(lines.join('\n'));
+});
+
+let closing = false;
+async function stop() {
+  if (closing) return;
+  closing = true;
+  server.close();
+  server.closeAllConnections();
+  await shutdown();
+  mailer.close();
+  await devSmtp?.stop();
+  await database.close();
+  process.exit(0);
+}
+process.on('SIGINT', stop);
+process.on('SIGTERM', stop);

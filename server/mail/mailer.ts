@@ -1,0 +1,32 @@
+import nodemailer from 'nodemailer';
+
+export interface OutgoingMail {
+  to: string;
+  subject: string;
+  text: string;
+  html?: string;
+}
+
+export interface Mailer {
+  send(mail: OutgoingMail): Promise<void>;
+  close(): void;
+}
+
+export function createSmtpMailer(smtpUrl: string, from: string): Mailer {
+  const url = new URL(smtpUrl);
+  // Our loopback fake speaks plain SMTP; anything else negotiates TLS as usual.
+  const local = url.hostname === '127.0.0.1' || url.hostname === 'localhost';
+  const transport = nodemailer.createTransport({
+    host: url.hostname,
+    port: Number(url.port || (url.protocol === 'smtps:' ? 465 : 587)),
+    secure: url.protocol === 'smtps:',
+    ignoreTLS: local,
+    auth: url.username ? { user: decodeURIComponent(url.username), pass: decodeURIComponent(url.password) } : undefined,
+  });
+  return {
+    async send(mail) {
+      await transport.sendMail({ from, ...mail });
+    },
+    close: () => transport.close(),
+  };
+}

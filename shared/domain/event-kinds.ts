@@ -1,0 +1,22 @@
+/** Every fact the round can record. Events are append-only; `void` cancels one by id. */
+export const EVENT_KINDS = [
+  'ate',
+  'refused',
+  'prey_left_in',
+  'prey_removed',
+  'watered',
+  'molted',
+  'premolt_seen',
+  'premolt_cleared',
+  'molting_now',
+  'sac_laid',
+  'sac_pulled',
+  'paired',
+  'rebuild_started',
+  'rebuild_ended',
+  'skipped',
+  'void',
+  'note',
+  'moved',
+] as const;
+export type EventKind = (typeof EVENT_KINDS)[number];

@@ -1,0 +1,77 @@
+import { z } from 'zod';
+import { utf8ByteLength } from '../domain/text-bytes';
+import { ROLES } from '../domain/roles';
+import { timeZone } from './common';
+
+/** bcrypt reads at most 72 bytes (OWASP Password Storage Cheat Sheet, "bcrypt"). */
+export const PASSWORD_MAX_BYTES = 72;
+export const PASSWORD_MIN_CHARS = 8;
+
+export const email = z
+  .string()
+  .trim()
+  .toLowerCase()
+  .max(254, { message: 'That e-mail address is too long.' })
+  .pipe(z.email({ message: 'Enter an e-mail address such as name@example.com.' }));
+
+export const newPassword = z
+  .string()
+  .min(PASSWORD_MIN_CHARS, { message: `Use at least ${PASSWORD_MIN_CHARS} characters.` })
+  .refine((p) => utf8ByteLength(p) <= PASSWORD_MAX_BYTES, {
+    message: `Passwords can be at most ${PASSWORD_MAX_BYTES} bytes long. Letters such as é and emoji take more than one byte each.`,
+  });
+
+/** Signing in never reveals the rules a password was made under; just bound the size. */
+const existingPassword = z
+  .string()
+  .min(1, { message: 'Enter your password.' })
+  .max(1024, { message: 'That password is too long.' });
+
+export const signUpBody = z.object({
+  email,
+  password: newPassword,
+  displayName: z.string().trim().min(1, { message: 'Tell us what to call you.' }).max(80),
+  collectionName: z
+    .string()
+    .trim()
+    .min(1, { message: 'Name your collection.' })
+    .max(80, { message: 'Keep the collection name under 80 characters.' }),
+  timeZone,
+});
+export type SignUpBody = z.infer<typeof signUpBody>;
+
+export const signInBody = z.object({ email, password: existingPassword });
+export type SignInBody = z.infer<typeof signInBody>;
+
+export const resetRequestBody = z.object({ email });
+export const resetBody = z.object({
+  token: z.string().min(20, { message: 'This reset link is not valid.' }).max(200),
+  password: newPassword,
+});
+export const changePasswordBody = z.object({
+  currentPassword: existingPassword,
+  newPassword,
+});
+
+export const membershipSummary = z.object({
+  collectionId: z.string(),
+  collectionName: z.string(),
+  timeZone: z.string(),
+  role: z.enum(ROLES),
+  startsAt: z.string().nullable(),
+  endsAt: z.string().nullable(),
+});
+export type MembershipSummary = z.infer<typeof membershipSummary>;
+
+export const meResponse = z.object({
+  user: z.object({ id: z.string(), email: z.string(), displayName: z.string() }),
+  memberships: z.array(membershipSummary),
+});
+export type MeResponse = z.infer<typeof meResponse>;
+
+export const demoInfoResponse = z.object({
+  demo: z.boolean(),
+  accounts: z.array(z.object({ email: z.string(), role: z.string() })),
+  password: z.string().optional(),
+});
+export type DemoInfoResponse = z.infer<typeof demoInfoResponse>;

@@ -1,0 +1,28 @@
+import { z } from 'zod';
+import { isIanaTimeZone } from '../domain/time-zone';
+
+export const uuid = z.uuid({ message: 'This id is not valid.' });
+
+export const timeZone = z
+  .string()
+  .trim()
+  .refine(isIanaTimeZone, { message: 'Choose a time zone such as America/Toronto.' });
+
+/** A calendar date written YYYY-MM-DD (ISO 8601 calendar date, extended format). */
+export const localDate = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'Write the date as YYYY-MM-DD.' })
+  .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)), {
+    message: 'This date does not exist.',
+  });
+
+export const errorBody = z.object({
+  error: z.object({
+    code: z.string(),
+    message: z.string(),
+    issues: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
+  }),
+});
+export type ErrorBody = z.infer<typeof errorBody>;
+
+export const collectionParams = z.object({ collectionId: uuid });

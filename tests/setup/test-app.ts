@@ -1,0 +1,81 @@
+// A real app on a real, private PostgreSQL database for one test file.
+import { randomUUID } from 'node:crypto';
+import pg from 'pg';
+import supertest from 'supertest';
+import { createApp, type AppOptions } from '../../server/app';
+import { connectDatabase, type Database } from '../../server/db/client';
+import { readEnv } from '../../server/env';
+import { startDevSmtp, type DevMailbox } from '../../server/mail/dev-smtp';
+import { createSmtpMailer } from '../../server/mail/mailer';
+import { adminUrl, templateName, testDatabaseUrl } from './database-urls';
+
+export interface TestContext {
+  app: ReturnType<typeof createApp>['app'];
+  database: Database;
+  databaseUrl: string;
+  mailbox: DevMailbox;
+  /** Moves the app's clock (cover windows, token expiry); pass null for the real clock. */
+  setNow(date: Date | null): void;
+  /** A supertest agent that keeps cookies and sends the app's CSRF header. */
+  agent(): ReturnType<typeof supertest.agent>;
+  close(): Promise<void>;
+}
+
+export async function createTestDatabase(): Promise<string> {
+  const name = `rackside_t_${randomUUID().replace(/-/g, '').slice(0, 12)}`;
+  const admin = new pg.Client({ connectionString: adminUrl() });
+  await admin.connect();
+  await admin.query(`create database "${name}" template "${templateName()}"`);
+  await admin.end();
+  return name;
+}
+
+export async function dropTestDatabase(name: string): Promise<void> {
+  const admin = new pg.Client({ connectionString: adminUrl() });
+  await admin.connect();
+  await admin.query(`drop database if exists "${name}" with (force)`);
+  await admin.end();
+}
+
+export async function createTestContext(options: Partial<Pick<AppOptions, 'authLimits' | 'distDir' | 'publicUrl'>> = {}): Promise<TestContext> {
+  const name = await createTestDatabase();
+  const databaseUrl = testDatabaseUrl(name);
+  const database = connectDatabase(databaseUrl, 5);
+  const smtp = await startDevSmtp();
+  const mailer = createSmtpMailer(smtp.url, 'Rackside tests <tests@rackside.invalid>');
+  const env = readEnv({
+    NODE_ENV: 'test',
+    DATABASE_URL: databaseUrl,
+    SESSION_SECRET: 'test-secret-that-is-long-enough-for-sessions',
+    DEMO_MODE: 'true',
+    BCRYPT_COST: '10',
+  });
+  let fixed: Date | null = null;
+  const { app, shutdown } = createApp({
+    env,
+    database,
+    mailer,
+    devMailbox: smtp.mailbox,
+    now: () => fixed ?? new Date(),
+    publicUrl: options.publicUrl ?? 'http://rackside.test',
+    authLimits: { signInPerIp: 10_000, resetPerIp: 10_000, resetPerEmail: 10_000, ...options.authLimits },
+    distDir: options.distDir ?? '/nonexistent',
+  });
+  return {
+    app,
+    database,
+    databaseUrl,
+    mailbox: smtp.mailbox,
+    setNow: (date) => {
+      fixed = date;
+    },
+    agent: () => supertest.agent(app).set('X-Rackside-Client', '1'),
+    async close() {
+      await shutdown();
+      mailer.close();
+      await smtp.stop();
+      await database.close();
+      await dropTestDatabase(name);
+    },
+  };
+}
