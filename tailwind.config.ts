@@ -1,6 +1,6 @@
 import type { Config } from 'tailwindcss';
 import plugin from 'tailwindcss/plugin';
-import { cssVar, PALETTE_KEYS, PALETTES, THEMES } from './src/styles/palette';
+import { cssVar, PALETTE_KEYS, PALETTES, THEMES } from './src/styles/palette.ts';
 
 const colors = Object.fromEntries(
   PALETTE_KEYS.map((key) => [key.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`), `var(${cssVar(key)})`]),

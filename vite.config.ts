@@ -3,7 +3,7 @@ import tailwindcss from '@tailwindcss/vite';
 import react from '@vitejs/plugin-react';
 import { VitePWA } from 'vite-plugin-pwa';
 import { defineConfig } from 'vitest/config';
-import { PALETTES } from './src/styles/palette';
+import { PALETTES } from './src/styles/palette.ts';
 
 const alias = {
   '@': path.resolve(import.meta.dirname, 'src'),

@@ -1,10 +1,10 @@
-import { readEnv } from './env';
 import { createApp } from './app';
 import { connectDatabase } from './db/client';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './db/seed/demo-people';
+import { readEnv } from './env';
 import { createLogger } from './logger';
 import { startDevSmtp, type DevSmtp } from './mail/dev-smtp';
 import { createSmtpMailer } from './mail/mailer';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './db/seed/demo-people';
 
 const env = readEnv();
 const logger = createLogger(env);

@@ -1,6 +1,6 @@
 import type { RequestHandler, Response } from 'express';
-import { coverWindowState, roleAtLeast, type Role } from '../../shared/domain/roles';
 import { describeLocalDate, localDateOf } from '../../shared/domain/local-dates';
+import { coverWindowState, roleAtLeast, type Role } from '../../shared/domain/roles';
 import { uuid } from '../../shared/schemas/common';
 import type { Db } from '../db/client';
 import { findMembership, type Membership } from '../features/collections/collections.repository';

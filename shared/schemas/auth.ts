@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import { utf8ByteLength } from '../domain/text-bytes';
 import { ROLES } from '../domain/roles';
+import { utf8ByteLength } from '../domain/text-bytes';
 import { timeZone } from './common';
 
 /** bcrypt reads at most 72 bytes (OWASP Password Storage Cheat Sheet, "bcrypt"). */

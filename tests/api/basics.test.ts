@@ -1,5 +1,5 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import supertest from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PASSWORD, sessionCookie, signUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 

@@ -1,6 +1,6 @@
 import { Router } from 'express';
-import type { DevMailbox } from '../../mail/dev-smtp';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../db/seed/demo-people';
+import type { DevMailbox } from '../../mail/dev-smtp';
 
 /** Demo-mode helpers: the sign-in hints and the local mailbox. Never mounted in production. */
 export function devRoutes(mailbox: DevMailbox | undefined) {

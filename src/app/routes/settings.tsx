@@ -1,0 +1,38 @@
+import { useNavigate } from 'react-router-dom';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { SafetyNote } from '@/components/ui/safety-note';
+import { useSignOut } from '@/features/auth/api/sign-out';
+import { ChangePasswordForm } from '@/features/auth/components/change-password-form';
+import { CollectionSwitcher } from '@/features/auth/components/collection-switcher';
+import { ThemePicker } from '@/features/settings/components/theme-picker';
+import { useShell } from './shell';
+
+export function SettingsRoute() {
+  const { me, collection, chooseCollection } = useShell();
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  return (
+    <div className="flex flex-col gap-6">
+      <h1 className="text-3xl font-extrabold">Settings</h1>
+      <ThemePicker />
+      {me.memberships.length > 0 && (
+        <CollectionSwitcher memberships={me.memberships} currentId={collection?.collectionId} onChoose={chooseCollection} />
+      )}
+      <section aria-labelledby="account-heading" className="flex flex-col gap-3">
+        <h2 id="account-heading" className="text-xl font-extrabold">
+          Account
+        </h2>
+        <p>
+          Signed in as <span className="font-bold">{me.user.displayName}</span> ({me.user.email})
+        </p>
+        <ChangePasswordForm />
+      </section>
+      {signOut.isError && <Notice tone="error" title={signOut.error.message} />}
+      <Button variant="danger" wide busy={signOut.isPending} onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })}>
+        Sign out
+      </Button>
+      <SafetyNote />
+    </div>
+  );
+}

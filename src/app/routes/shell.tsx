@@ -1,0 +1,80 @@
+import { NavLink, Navigate, Outlet, useLocation, useOutletContext } from 'react-router-dom';
+import type { MeResponse, MembershipSummary } from '#shared/schemas/auth';
+import { DialIcon, RackIcon, RoundIcon } from '@/components/ui/icons';
+import { Notice } from '@/components/ui/notice';
+import { Loading } from '@/components/ui/spinner';
+import { useMe } from '@/features/auth/api/get-me';
+import { useCurrentCollection } from '@/features/auth/hooks/use-current-collection';
+import { ApiError } from '@/lib/api-client';
+
+export interface ShellContext {
+  me: MeResponse;
+  collection: MembershipSummary | null;
+  chooseCollection: (id: string) => void;
+}
+
+export function useShell() {
+  return useOutletContext<ShellContext>();
+}
+
+const NAV = [
+  { to: '/today', label: 'Today', Icon: RoundIcon },
+  { to: '/animals', label: 'Animals', Icon: RackIcon },
+  { to: '/settings', label: 'Settings', Icon: DialIcon },
+];
+
+function BottomNav() {
+  return (
+    <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 border-t-2 border-border bg-surface pb-[env(safe-area-inset-bottom)]">
+      <ul className="mx-auto flex max-w-xl">
+        {NAV.map(({ to, label, Icon }) => (
+          <li key={to} className="flex-1">
+            <NavLink
+              to={to}
+              className={({ isActive }) =>
+                `flex min-h-16 flex-col items-center justify-center gap-0.5 text-sm font-bold ${isActive ? 'text-text underline decoration-4 underline-offset-4' : 'text-muted'}`
+              }
+            >
+              <Icon />
+              {label}
+            </NavLink>
+          </li>
+        ))}
+      </ul>
+    </nav>
+  );
+}
+
+/** Everything behind sign-in: the header with the collection's name and the thumb-reach nav. */
+export function Shell() {
+  const me = useMe();
+  const location = useLocation();
+  const membershipList = me.data?.memberships ?? [];
+  const { current, choose } = useCurrentCollection(membershipList);
+
+  if (me.isPending) return <Loading />;
+  if (me.error instanceof ApiError && me.error.status === 401) {
+    return <Navigate to="/sign-in" replace state={{ from: location.pathname }} />;
+  }
+  if (me.isError) {
+    return (
+      <main className="mx-auto max-w-xl p-4">
+        <Notice tone="error" title={me.error.message} />
+      </main>
+    );
+  }
+  const context: ShellContext = { me: me.data, collection: current, chooseCollection: choose };
+  return (
+    <div className="min-h-dvh pb-24">
+      <header className="border-b-2 border-border bg-surface px-4 py-2">
+        <p className="mx-auto max-w-xl truncate text-sm font-bold text-muted">
+          Rackside · <span className="text-text">{current?.collectionName ?? 'No collection'}</span>
+        </p>
+      </header>
+      <main className="mx-auto max-w-xl px-4 pt-3">
+        <Outlet context={context} />
+      </main>
+      <BottomNav />
+    </div>
+  );
+}

@@ -1,0 +1,26 @@
+import { SEX_LABEL, STAGE_LABEL } from '#shared/domain/animal-facts';
+import type { AnimalSummary } from '#shared/schemas/animals';
+import { CautionBadges } from '@/components/ui/caution-badges';
+
+export function placeCode(location: AnimalSummary['location']): string {
+  return location ? `${location.rack}${location.shelf}-${location.position}` : 'No place yet';
+}
+
+export function AnimalCard({ animal }: { animal: AnimalSummary }) {
+  return (
+    <article className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3" aria-label={`${animal.name}, ${animal.labelCode}`}>
+      <div className="flex items-baseline justify-between gap-2">
+        <h3 className="text-xl font-extrabold">{animal.name}</h3>
+        <span className="rounded-md border-2 border-border px-2 font-mono text-base font-bold tracking-wider">{animal.labelCode}</span>
+      </div>
+      <p className="text-muted">
+        <i lang="la">{animal.scientificName}</i>
+        {' · '}
+        {STAGE_LABEL[animal.lifeStage]} · {SEX_LABEL[animal.sex]}
+        {' · '}
+        <span className="font-bold text-text">{placeCode(animal.location)}</span>
+      </p>
+      <CautionBadges cautions={animal.cautions} />
+    </article>
+  );
+}

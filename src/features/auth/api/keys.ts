@@ -1,0 +1,4 @@
+export const authKeys = {
+  me: () => ['auth', 'me'] as const,
+  demo: () => ['auth', 'demo'] as const,
+};

@@ -1,0 +1,48 @@
+import { Fragment } from 'react';
+import { Notice } from '@/components/ui/notice';
+import { Loading } from '@/components/ui/spinner';
+import { useMail, type DevMail } from '../api/list-mail';
+
+/** Shows a message's text with its links clickable (they point back into this app). */
+function MailText({ text }: { text: string }) {
+  const parts = text.split(/(https?:\/\/\S+)/g);
+  return (
+    <p className="whitespace-pre-wrap break-words">
+      {parts.map((part, i) =>
+        /^https?:\/\//.test(part) ? (
+          <a key={i} href={part} className="font-bold text-text underline underline-offset-4">
+            {part}
+          </a>
+        ) : (
+          <Fragment key={i}>{part}</Fragment>
+        ),
+      )}
+    </p>
+  );
+}
+
+function Message({ mail }: { mail: DevMail }) {
+  return (
+    <article className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
+      <h2 className="text-lg font-extrabold">{mail.subject || '(no subject)'}</h2>
+      <p className="text-sm text-muted">
+        To {mail.to.join(', ')} · {new Date(mail.receivedAt).toLocaleString()}
+      </p>
+      <MailText text={mail.text} />
+    </article>
+  );
+}
+
+export function Mailbox() {
+  const mail = useMail();
+  if (mail.isPending) return <Loading label="Opening the mailbox…" />;
+  if (mail.isError) return <Notice tone="info" title="The local mailbox is only there in demo and development mode." />;
+  if (!mail.data.messages.length) return <Notice tone="info" title="No e-mail yet. Messages the app sends appear here." />;
+  return (
+    <div className="flex flex-col gap-3">
+      {mail.data.messages.map((m) => (
+        <Message key={m.id} mail={m} />
+      ))}
+    </div>
+  );
+}

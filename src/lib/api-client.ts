@@ -1,0 +1,54 @@
+import type { z } from 'zod';
+import { errorBody } from '#shared/schemas/common';
+
+/** Every failed API call becomes one of these, with a message fit to show a person. */
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly issues?: { path: string; message: string }[],
+  ) {
+    super(message);
+  }
+}
+
+interface RequestOptions<T> {
+  method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+  body?: unknown;
+  schema?: z.ZodType<T>;
+  signal?: AbortSignal;
+}
+
+/** The only fetch wrapper: JSON in and out, our CSRF header, typed errors, checked answers. */
+export async function apiRequest<T = void>(path: string, options: RequestOptions<T> = {}): Promise<T> {
+  const { method = 'GET', body, schema, signal } = options;
+  let res: Response;
+  try {
+    res = await fetch(`/api${path}`, {
+      method,
+      credentials: 'same-origin',
+      headers: {
+        Accept: 'application/json',
+        'X-Rackside-Client': '1',
+        ...(body === undefined ? {} : { 'Content-Type': 'application/json' }),
+      },
+      body: body === undefined ? undefined : JSON.stringify(body),
+      signal,
+    });
+  } catch (err) {
+    if (signal?.aborted) throw err;
+    throw new ApiError(0, 'offline', 'No connection to Rackside right now. Check your signal and try again.');
+  }
+  if (res.status === 204) return undefined as T;
+  const data: unknown = await res.json().catch(() => null);
+  if (!res.ok) {
+    const parsed = errorBody.safeParse(data);
+    if (parsed.success) {
+      const { code, message, issues } = parsed.data.error;
+      throw new ApiError(res.status, code, message, issues);
+    }
+    throw new ApiError(res.status, `http_${res.status}`, `Rackside answered with an error (${res.status}). Try again.`);
+  }
+  return schema ? schema.parse(data) : (data as T);
+}

@@ -1,0 +1,111 @@
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { DEMO_PASSWORD } from '../../server/db/seed/demo-people';
+import { expectAccessible, launchBrowser, phonePage, screenshot, startServer, type E2eServer } from './support';
+
+let server: E2eServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startServer();
+  ({ browser } = await launchBrowser());
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.close();
+});
+
+describe('the app shell at 360 × 740', () => {
+  it('signs in as the demo owner, shows the demo collection, switches themes and signs out', async () => {
+    const { context, page, consoleErrors } = await phonePage(browser);
+    await page.goto(`${server.baseUrl}/today`);
+    await page.waitForURL('**/sign-in');
+    await expect.poll(() => page.getByText('Demo accounts').isVisible()).toBe(true);
+    await expectAccessible(page, 'sign-in');
+    await screenshot(page, 'foundation-01-sign-in');
+
+    await page.getByLabel('E-mail').fill('owner@northlight.test');
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL('**/today');
+    await expect.poll(() => page.getByText('Northlight Inverts').first().isVisible()).toBe(true);
+    await expect.poll(() => page.getByRole('article', { name: /Juniper/ }).isVisible()).toBe(true);
+    expect(await page.getByRole('article').count()).toBe(42);
+    await expectAccessible(page, 'today');
+    await screenshot(page, 'foundation-02-today-dark');
+
+    await page.getByRole('link', { name: 'Settings' }).click();
+    await page.waitForURL('**/settings');
+    for (const [label, theme] of [['Light', 'light'], ['Night (red)', 'night'], ['Dark', 'dark']] as const) {
+      await page.getByLabel(label, { exact: false }).first().check();
+      expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe(theme);
+      await expectAccessible(page, `settings-${theme}`);
+      await screenshot(page, `foundation-03-settings-${theme}`);
+    }
+    // The choice survives a reload.
+    await page.getByLabel('Night (red)').check();
+    await page.reload();
+    expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe('night');
+    await page.goto(`${server.baseUrl}/today`);
+    await screenshot(page, 'foundation-04-today-night');
+    await page.goto(`${server.baseUrl}/settings`);
+
+    await page.getByRole('button', { name: 'Sign out' }).click();
+    await page.waitForURL('**/sign-in');
+    await page.goto(`${server.baseUrl}/today`);
+    await page.waitForURL('**/sign-in');
+    expect(consoleErrors).toEqual([]);
+    await context.close();
+  });
+
+  it('keeps every control at least 48 px for gloved thumbs', async () => {
+    const { context, page } = await phonePage(browser);
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill('owner@northlight.test');
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL('**/today');
+    for (const route of ['/today', '/settings']) {
+      await page.goto(`${server.baseUrl}${route}`);
+      await page.getByRole('navigation', { name: 'Main' }).waitFor();
+      const small = await page.$$eval('button, a, input[type=radio], input[type=text], input[type=email], input[type=password], input[type=search]', (els) =>
+        els
+          .map((el) => {
+            const target = el.matches('input[type=radio]') ? el.closest('label') ?? el : el;
+            const r = target.getBoundingClientRect();
+            return { what: el.outerHTML.slice(0, 80), w: r.width, h: r.height };
+          })
+          .filter((r) => r.w > 0 && (r.w < 48 || r.h < 48)),
+      );
+      expect(small, route).toEqual([]);
+    }
+    // Nothing scrolls sideways at 360 px.
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(360);
+    await context.close();
+  });
+
+  it('resets a password through the dev mailbox link', async () => {
+    const { context, page } = await phonePage(browser);
+    await page.goto(`${server.baseUrl}/forgot-password`);
+    await page.getByLabel('E-mail').fill('partner@northlight.test');
+    await page.getByRole('button', { name: 'Send me a reset link' }).click();
+    await expect.poll(() => page.getByText(/a reset link is on its way/).isVisible()).toBe(true);
+    await page.goto(`${server.baseUrl}/dev/mailbox`);
+    const link = page.getByRole('link', { name: /reset-password\?token=/ });
+    await link.first().waitFor();
+    await expectAccessible(page, 'mailbox');
+    await screenshot(page, 'foundation-05-mailbox');
+    const href = (await link.first().getAttribute('href'))!;
+    await page.goto(href.replace(/^https?:\/\/[^/]+/, server.baseUrl));
+    await page.getByLabel('New password', { exact: true }).fill('a new partner password');
+    await page.getByLabel('New password again').fill('a new partner password');
+    await page.getByRole('button', { name: 'Save new password' }).click();
+    await expect.poll(() => page.getByText(/Your password is changed/).isVisible()).toBe(true);
+    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.getByLabel('E-mail').fill('partner@northlight.test');
+    await page.getByLabel('Password').fill('a new partner password');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL('**/today');
+    await context.close();
+  });
+});

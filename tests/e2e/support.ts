@@ -1,0 +1,83 @@
+// End-to-end harness: the production build served by the real Express app on a real
+// database seeded with the demo, driven by Debian's Chromium through playwright-core.
+import fs from 'node:fs';
+import type { AddressInfo } from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import AxeBuilder from '@axe-core/playwright';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { expect } from 'vitest';
+import { seedDemo } from '../../server/db/seed/demo';
+import { createTestContext, type TestContext } from '../setup/test-app';
+
+export const distDir = path.resolve(import.meta.dirname, '../../dist');
+export const screenshotsDir = path.resolve(import.meta.dirname, '../../test-results/screenshots');
+
+export interface E2eServer {
+  ctx: TestContext;
+  baseUrl: string;
+  close(): Promise<void>;
+}
+
+export async function startServer(): Promise<E2eServer> {
+  if (!fs.existsSync(path.join(distDir, 'index.html'))) throw new Error('No production build: run `vite build` first (npm test does).');
+  let baseUrl = '';
+  const ctx = await createTestContext({ distDir, publicUrl: undefined });
+  await seedDemo(ctx.database.db, { bcryptCost: 10 });
+  const server = await new Promise<import('node:http').Server>((resolve) => {
+    const s = ctx.app.listen(0, '127.0.0.1', () => resolve(s));
+  });
+  baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  return {
+    ctx,
+    baseUrl,
+    async close() {
+      server.closeAllConnections();
+      await new Promise((r) => server.close(r));
+      await ctx.close();
+    },
+  };
+}
+
+// Flags from the machine notes: headless, no sandbox as root, and no background traffic to a
+// network this machine does not have.
+const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
+
+export async function launchBrowser(): Promise<{ browser: Browser; userDataDir: string }> {
+  const userDataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-chromium-'));
+  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS });
+  return { browser, userDataDir };
+}
+
+/** A phone-sized page (360 × 740) that fails the test on any console error from the app. */
+export async function phonePage(browser: Browser): Promise<{ context: BrowserContext; page: Page; consoleErrors: string[] }> {
+  const context = await browser.newContext({ viewport: { width: 360, height: 740 }, deviceScaleFactor: 2, hasTouch: true, isMobile: true });
+  const page = await context.newPage();
+  const consoleErrors: string[] = [];
+  page.on('console', (msg) => {
+    // 401 from /api/auth/me on a signed-out start is expected; the browser logs every failed fetch.
+    if (msg.type() === 'error' && !/status of 401/.test(msg.text())) consoleErrors.push(msg.text());
+  });
+  page.on('pageerror', (err) => consoleErrors.push(err.message));
+  return { context, page, consoleErrors };
+}
+
+/** axe-core: no serious or critical violation (WCAG 2.2 A/AA rules). */
+export async function expectAccessible(page: Page, label: string) {
+  const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
+  const bad = results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+  expect(bad.map((v) => `${label}: ${v.id} — ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
+}
+
+export async function screenshot(page: Page, name: string) {
+  fs.mkdirSync(screenshotsDir, { recursive: true });
+  await page.screenshot({ path: path.join(screenshotsDir, `${name}.png`), fullPage: false });
+}
