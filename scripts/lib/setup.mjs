@@ -108,7 +108,8 @@ function clusterRoot() {
 
 function asPostgres(cmd, args) {
   const full = isRoot ? ['runuser', ['-u', 'postgres', '--', cmd, ...args]] : [cmd, args];
-  const result = spawnSync(full[0], full[1], { encoding: 'utf8' });
+  // cwd '/': the postgres user may not be allowed into the caller's folder.
+  const result = spawnSync(full[0], full[1], { encoding: 'utf8', cwd: '/' });
   return { ok: result.status === 0, out: `${result.stdout ?? ''}${result.stderr ?? ''}` };
 }
 
@@ -149,6 +150,8 @@ export function startCluster() {
   const password = clusterPassword();
   if (!fs.existsSync(path.join(dataDir, 'PG_VERSION'))) {
     say(`Creating a private PostgreSQL cluster in ${dataDir}…`);
+    // Parents stay traversable (0755) for the postgres user; the cluster folder itself is private.
+    fs.mkdirSync(path.dirname(root), { recursive: true, mode: 0o755 });
     fs.mkdirSync(root, { recursive: true, mode: 0o700 });
     const pwFile = path.join(root, 'initial-password');
     fs.writeFileSync(pwFile, password, { mode: 0o600 });
