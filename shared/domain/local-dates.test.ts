@@ -1,0 +1,75 @@
+// Local calendar dates in America/Toronto across its 2026 daylight-saving changes
+// (IANA tz database: DST starts 8 Mar 2026 02:00 EST → 03:00 EDT; ends 1 Nov 2026 02:00 EDT →
+// 01:00 EST), cross-checked against luxon, a second, independent time-zone library.
+import fc from 'fast-check';
+import { DateTime } from 'luxon';
+import { describe, expect, it } from 'vitest';
+import { addDays, daysBetween, describeLocalDate, localDateOf, startOfLocalDate } from './local-dates';
+
+const ZONE = 'America/Toronto';
+
+describe('Toronto in 2026', () => {
+  it('starts 8 March (a 23-hour day) and 1 November (a 25-hour day) where the tz database says', () => {
+    expect(startOfLocalDate('2026-03-08', ZONE).toISOString()).toBe('2026-03-08T05:00:00.000Z'); // EST, UTC−5
+    expect(startOfLocalDate('2026-03-09', ZONE).toISOString()).toBe('2026-03-09T04:00:00.000Z'); // EDT, UTC−4
+    expect(startOfLocalDate('2026-11-01', ZONE).toISOString()).toBe('2026-11-01T04:00:00.000Z');
+    expect(startOfLocalDate('2026-11-02', ZONE).toISOString()).toBe('2026-11-02T05:00:00.000Z');
+    const hours = (d: string) => (startOfLocalDate(addDays(d, 1), ZONE).getTime() - startOfLocalDate(d, ZONE).getTime()) / 3_600_000;
+    expect(hours('2026-03-08')).toBe(23);
+    expect(hours('2026-11-01')).toBe(25);
+    expect(hours('2026-06-15')).toBe(24);
+  });
+
+  it('puts a meal at 23:30 and one at 00:10 on different days, also across both changes', () => {
+    for (const [evening, morning] of [
+      ['2026-03-07T23:30', '2026-03-08T00:10'],
+      ['2026-03-08T23:30', '2026-03-09T00:10'],
+      ['2026-10-31T23:30', '2026-11-01T00:10'],
+      ['2026-11-01T23:30', '2026-11-02T00:10'],
+    ] as const) {
+      const a = DateTime.fromISO(evening, { zone: ZONE }).toJSDate();
+      const b = DateTime.fromISO(morning, { zone: ZONE }).toJSDate();
+      expect(daysBetween(localDateOf(a, ZONE), localDateOf(b, ZONE))).toBe(1);
+      expect(b.getTime() - a.getTime()).toBe(40 * 60_000);
+    }
+  });
+
+  it('calls "tomorrow" the next calendar date, not now + 24 h', () => {
+    // 23:30 EST on 7 Mar + 24 h is 00:30 EDT on 9 Mar: two dates later, not one.
+    const lateEvening = DateTime.fromISO('2026-03-07T23:30', { zone: ZONE }).toJSDate();
+    expect(localDateOf(new Date(lateEvening.getTime() + 24 * 3_600_000), ZONE)).toBe('2026-03-09');
+    expect(addDays(localDateOf(lateEvening, ZONE), 1)).toBe('2026-03-08');
+  });
+
+  it('agrees with luxon on the local date of any instant in 2025–2027', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: Date.UTC(2025, 0, 1), max: Date.UTC(2027, 11, 31) }), (ms) => {
+        const instant = new Date(ms);
+        expect(localDateOf(instant, ZONE)).toBe(DateTime.fromMillis(ms, { zone: ZONE }).toISODate());
+      }),
+      { numRuns: 2000 },
+    );
+  });
+
+  it('agrees with luxon on where every local date of 2026 begins, in several zones', () => {
+    for (const zone of [ZONE, 'Europe/London', 'Australia/Sydney', 'Asia/Kolkata', 'UTC']) {
+      for (let d = '2026-01-01'; d <= '2026-12-31'; d = addDays(d, 1)) {
+        expect(startOfLocalDate(d, zone).getTime(), `${zone} ${d}`).toBe(DateTime.fromISO(d, { zone }).startOf('day').toMillis());
+      }
+    }
+  });
+});
+
+describe('calendar arithmetic', () => {
+  it('crosses months, years and leap days (2028 is a leap year, Gregorian calendar)', () => {
+    expect(addDays('2026-12-31', 1)).toBe('2027-01-01');
+    expect(addDays('2028-02-28', 1)).toBe('2028-02-29');
+    expect(addDays('2027-02-28', 1)).toBe('2027-03-01');
+    expect(daysBetween('2026-01-01', '2027-01-01')).toBe(365);
+    expect(daysBetween('2028-01-01', '2029-01-01')).toBe(366);
+  });
+  it('describes dates for sentences', () => {
+    expect(describeLocalDate('2026-12-11')).toBe('Fri 11 Dec');
+    expect(describeLocalDate('2026-03-08', true)).toBe('Sun 8 Mar 2026');
+  });
+});

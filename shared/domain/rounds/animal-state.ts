@@ -1,0 +1,188 @@
+import type { EventKind } from '../event-kinds';
+import { localDateOf, type LocalDate } from '../local-dates';
+
+/** The facts the engine needs from one event. */
+export interface EngineEvent {
+  id: string;
+  kind: EventKind;
+  effectiveAt: string; // ISO instant
+  payload?: Record<string, unknown>;
+}
+
+/**
+ * What the round engine needs to know about one animal, folded from its events. Kept as a
+ * projection in the database (updated with each ingested event) so building a round reads
+ * O(animals), and rebuilt from the log when events arrive out of order.
+ * All dates are local calendar dates in the collection's zone.
+ */
+export interface AnimalState {
+  lastMeal: LocalDate | null;
+  /** Consecutive refusals since the last meal, molt or keeper's clearing. */
+  refusalStreak: number;
+  lastRefusal: LocalDate | null;
+  lastMolt: LocalDate | null;
+  /** Premolt seen by the keeper (R4), until a molt, a meal or premolt-cleared. */
+  premoltSince: LocalDate | null;
+  /** Molting now / guarding a sac (R11), until the next outcome. */
+  leaveAlone: { reason: 'molting' | 'guarding_sac'; since: LocalDate } | null;
+  preyLeftIn: { since: LocalDate; preyType: string | null } | null;
+  lastWatered: LocalDate | null;
+  /** R8: fed more often until this date (exclusive). */
+  rebuildUntil: LocalDate | null;
+  rebuildReason: 'sac_pulled' | 'paired' | 'keeper' | null;
+  rebuildSince: LocalDate | null;
+  /** The last time the keeper looked at the animal without feeding it (check tasks). */
+  lastObserved: LocalDate | null;
+  lastSkipped: LocalDate | null;
+  /** Instant of the latest event folded in, to tell whether a new event is in order. */
+  lastEventAt: string | null;
+  lastEventId: string | null;
+}
+
+export const EMPTY_STATE: AnimalState = {
+  lastMeal: null,
+  refusalStreak: 0,
+  lastRefusal: null,
+  lastMolt: null,
+  premoltSince: null,
+  leaveAlone: null,
+  preyLeftIn: null,
+  lastWatered: null,
+  rebuildUntil: null,
+  rebuildReason: null,
+  rebuildSince: null,
+  lastObserved: null,
+  lastSkipped: null,
+  lastEventAt: null,
+  lastEventId: null,
+};
+
+/** Events that end a leave-alone period ("until the next outcome", R11). */
+const ENDS_LEAVE_ALONE: ReadonlySet<EventKind> = new Set([
+  'ate', 'refused', 'molted', 'sac_pulled', 'premolt_cleared',
+]);
+
+/** Events in the order the engine folds them: by effective instant, then id (stable). */
+export function compareEvents(a: EngineEvent, b: EngineEvent): number {
+  return a.effectiveAt < b.effectiveAt ? -1 : a.effectiveAt > b.effectiveAt ? 1 : a.id < b.id ? -1 : a.id > b.id ? 1 : 0;
+}
+
+/** True when `event` comes after everything already folded into `state`. */
+export function isInOrder(state: AnimalState, event: EngineEvent): boolean {
+  if (!state.lastEventAt) return true;
+  return compareEvents({ id: state.lastEventId ?? '', kind: 'note', effectiveAt: state.lastEventAt }, event) < 0;
+}
+
+function addDaysTo(date: LocalDate, days: number): LocalDate {
+  const [y, m, d] = date.split('-').map(Number) as [number, number, number];
+  return new Date(Date.UTC(y, m - 1, d + days)).toISOString().slice(0, 10);
+}
+
+/** Folds one event into the state (a pure function: returns a new state). */
+export function applyEvent(state: AnimalState, event: EngineEvent, zone: string, rebuildDays: number): AnimalState {
+  const day = localDateOf(new Date(event.effectiveAt), zone);
+  const s: AnimalState = { ...state, lastEventAt: event.effectiveAt, lastEventId: event.id };
+  if (s.leaveAlone && ENDS_LEAVE_ALONE.has(event.kind)) s.leaveAlone = null;
+  const payload = event.payload ?? {};
+  switch (event.kind) {
+    case 'ate':
+      s.lastMeal = day;
+      s.refusalStreak = 0;
+      s.premoltSince = null;
+      s.preyLeftIn = null; // it ate what was offered
+      break;
+    case 'refused':
+      s.refusalStreak += 1;
+      s.lastRefusal = day;
+      break;
+    case 'prey_left_in':
+      // Offered and not taken yet. If it is later found eaten the keeper records "ate".
+      s.preyLeftIn = { since: day, preyType: typeof payload.preyType === 'string' ? payload.preyType : null };
+      break;
+    case 'prey_removed':
+      // Prey taken out uneaten is a refusal of that offer.
+      if (s.preyLeftIn) {
+        s.refusalStreak += 1;
+        s.lastRefusal = day;
+      }
+      s.preyLeftIn = null;
+      break;
+    case 'watered':
+      s.lastWatered = day;
+      break;
+    case 'molted':
+      s.lastMolt = day;
+      s.refusalStreak = 0;
+      s.premoltSince = null;
+      break;
+    case 'premolt_seen':
+      s.premoltSince = s.premoltSince ?? day;
+      s.lastObserved = day;
+      break;
+    case 'premolt_cleared':
+      s.premoltSince = null;
+      s.refusalStreak = 0;
+      s.lastObserved = day;
+      break;
+    case 'molting_now':
+      s.leaveAlone = { reason: 'molting', since: day };
+      break;
+    case 'sac_laid':
+      s.leaveAlone = { reason: 'guarding_sac', since: day };
+      break;
+    case 'sac_pulled':
+      s.rebuildUntil = addDaysTo(day, rebuildDays);
+      s.rebuildReason = 'sac_pulled';
+      s.rebuildSince = day;
+      break;
+    case 'paired':
+      // Common practice, no published source: a paired female is fed up for the sac to come.
+      s.rebuildUntil = addDaysTo(day, rebuildDays);
+      s.rebuildReason = 'paired';
+      s.rebuildSince = day;
+      break;
+    case 'rebuild_started':
+      s.rebuildUntil = addDaysTo(day, rebuildDays);
+      s.rebuildReason = 'keeper';
+      s.rebuildSince = day;
+      break;
+    case 'rebuild_ended':
+      s.rebuildUntil = null;
+      s.rebuildReason = null;
+      s.rebuildSince = null;
+      break;
+    case 'skipped':
+      s.lastSkipped = day;
+      break;
+    case 'note':
+      s.lastObserved = day;
+      break;
+    case 'moved':
+    case 'void':
+      break;
+  }
+  return s;
+}
+
+/**
+ * The state after all of an animal's events, whatever order they arrived in: events are
+ * sorted by effective time, and events cancelled by a `void` are left out.
+ * `before`, when given, folds only events whose local date is earlier (a round's view).
+ */
+export function projectState(
+  events: readonly EngineEvent[],
+  zone: string,
+  rebuildDays: number,
+  before?: LocalDate,
+): AnimalState {
+  const voided = new Set(
+    events.filter((e) => e.kind === 'void' && typeof e.payload?.targetId === 'string').map((e) => e.payload!.targetId as string),
+  );
+  const live = events
+    .filter((e) => e.kind !== 'void' && !voided.has(e.id))
+    .filter((e) => !before || localDateOf(new Date(e.effectiveAt), zone) < before)
+    .sort(compareEvents);
+  let state = EMPTY_STATE;
+  for (const event of live) state = applyEvent(state, event, zone, rebuildDays);
+  return state;
+}

@@ -1,0 +1,301 @@
+// Worked cases for each rule of the round engine (husbandry rules R1–R15).
+// Sources: where the rules say "common practice", no zoo, lab or university source was found;
+// that is written beside the test as "common practice, no published source".
+import { describe, expect, it } from 'vitest';
+import type { EventKind } from '../event-kinds';
+import { startOfLocalDate } from '../local-dates';
+import { projectState, type EngineEvent } from './animal-state';
+import { buildRound, decideAnimal, type EngineAnimal, type RoundTask } from './build-round';
+import { DEFAULT_RULES, effectiveRules } from './rules';
+
+const ZONE = 'America/Toronto';
+const TODAY = '2026-03-20';
+
+let seq = 0;
+function animal(overrides: Partial<EngineAnimal> = {}): EngineAnimal {
+  seq += 1;
+  return {
+    id: `animal-${seq}`,
+    labelCode: `NL-${String(seq).padStart(3, '2')}`,
+    name: `Animal ${seq}`,
+    scientificName: 'Tliltocatl albopilosus',
+    group: 'tarantula',
+    lifeStage: 'adult',
+    sex: 'female',
+    sizeMm: 120,
+    status: 'active',
+    cautions: [],
+    location: { id: `loc-${seq}`, room: 'Spare room', rack: 'A', shelf: '1', position: String(seq), walkOrder: 0 },
+    hasWaterDish: false,
+    intervalDays: null,
+    preyType: null,
+    preySize: null,
+    preyCount: null,
+    doNotFeedUntil: null,
+    addedOn: null,
+    ...overrides,
+  };
+}
+
+/** An event at 19:00 local time on `date`. */
+function ev(kind: EventKind, date: string, payload: Record<string, unknown> = {}, id = `${kind}-${date}-${seq++}`): EngineEvent {
+  return { id, kind, effectiveAt: new Date(startOfLocalDate(date, ZONE).getTime() + 19 * 3600_000).toISOString(), payload };
+}
+
+function decide(a: EngineAnimal, events: EngineEvent[], date = TODAY, rules = DEFAULT_RULES) {
+  return decideAnimal(a, projectState(events, ZONE, rules.rebuildDays), rules, date);
+}
+const kinds = (tasks: RoundTask[]) => tasks.map((t) => t.kind);
+
+describe('R1 interval by life stage (common practice, no published source; pet-care guidance: slings 2–4, juveniles 4–7, adults 7–14 days)', () => {
+  it('feeds an adult 12 days after its last meal, not 11', () => {
+    const a = animal();
+    expect(kinds(decide(a, [ev('ate', '2026-03-08')]).tasks)).toEqual(['feed']);
+    expect(decide(a, [ev('ate', '2026-03-09')]).tasks).toEqual([]);
+    const feed = decide(a, [ev('ate', '2026-03-08')]).tasks[0]!;
+    expect(feed.reasons[0]!.text).toBe('Due: 12 days since last meal on 8 Mar.');
+  });
+  it.each([
+    ['sling', 3],
+    ['juvenile', 6],
+    ['subadult', 9],
+    ['adult', 12],
+  ] as const)('uses %s interval %i days', (stage, days) => {
+    const a = animal({ lifeStage: stage, sizeMm: 30 });
+    const lastMeal = `2026-03-${String(20 - days).padStart(2, '0')}`;
+    expect(decide(a, [ev('ate', lastMeal)]).nextFeed).toBe(TODAY);
+  });
+  it('uses the group interval for centipedes (7), scorpions (10) and mantids (4), and the animal’s own when set', () => {
+    expect(decide(animal({ group: 'centipede' }), [ev('ate', '2026-03-13')]).nextFeed).toBe('2026-03-20');
+    expect(decide(animal({ group: 'scorpion' }), [ev('ate', '2026-03-10')]).nextFeed).toBe('2026-03-20');
+    expect(decide(animal({ group: 'mantis' }), [ev('ate', '2026-03-16')]).nextFeed).toBe('2026-03-20');
+    expect(decide(animal({ intervalDays: 20 }), [ev('ate', '2026-03-10')]).nextFeed).toBe('2026-03-30');
+  });
+  it('offers food to an animal with no meal recorded', () => {
+    expect(decide(animal(), []).tasks[0]!.reasons[0]!.text).toBe('No meal recorded yet.');
+  });
+  it('honours a collection’s own interval', () => {
+    const rules = effectiveRules({ intervalDays: { adult: 7 } });
+    expect(rules.intervalDays.juvenile).toBe(6);
+    expect(decide(animal(), [ev('ate', '2026-03-13')], TODAY, rules).nextFeed).toBe('2026-03-20');
+  });
+});
+
+describe('R2 refusal retry (common practice, no published source)', () => {
+  it('offers an adult food again 7 days after a refusal', () => {
+    const d = decide(animal(), [ev('ate', '2026-02-20'), ev('refused', '2026-03-13')]);
+    expect(kinds(d.tasks)).toEqual(['feed']);
+    expect(d.tasks[0]!.reasons[0]!.text).toBe('Refused on 13 Mar: offer again after 7 days.');
+    expect(decide(animal(), [ev('ate', '2026-02-20'), ev('refused', '2026-03-14')]).tasks).toEqual([]);
+  });
+  it('retries a sling after 2 days', () => {
+    expect(decide(animal({ lifeStage: 'sling', sizeMm: 20 }), [ev('ate', '2026-03-10'), ev('refused', '2026-03-18')]).nextFeed).toBe('2026-03-20');
+  });
+});
+
+describe('R3 refusal streak → possible premolt (common practice, no published source: premolt animals refuse food, darken, spin a molt mat)', () => {
+  it('stops offering food to an adult after 3 refusals and puts a check on the round every 7 days', () => {
+    const events = [ev('ate', '2026-02-01'), ev('refused', '2026-02-20'), ev('refused', '2026-02-27'), ev('refused', '2026-03-06')];
+    const flagged = decide(animal(), events, '2026-03-12');
+    expect(flagged.tasks).toEqual([]);
+    expect(flagged.notes.map((n) => n.code)).toContain('possible_premolt');
+    const check = decide(animal(), events, '2026-03-13');
+    expect(kinds(check.tasks)).toEqual(['check']);
+    expect(check.tasks[0]!.reasons[0]!.text).toMatch(/^Possible premolt since 6 Mar/);
+    // After a look on the 13th the next check is due on the 20th.
+    expect(decide(animal(), [...events, ev('note', '2026-03-13', { text: 'still dark' })], '2026-03-19').tasks).toEqual([]);
+    expect(kinds(decide(animal(), [...events, ev('note', '2026-03-13')], '2026-03-20').tasks)).toEqual(['check']);
+  });
+  it('flags a juvenile after 2 refusals; a meal, a molt or the keeper clears it', () => {
+    const juvenile = animal({ lifeStage: 'juvenile', sizeMm: 40 });
+    const events = [ev('ate', '2026-03-01'), ev('refused', '2026-03-10'), ev('refused', '2026-03-13')];
+    expect(decide(juvenile, events).notes.map((n) => n.code)).toContain('possible_premolt');
+    expect(decide(juvenile, [...events, ev('premolt_cleared', '2026-03-14')]).notes.map((n) => n.code)).not.toContain('possible_premolt');
+    expect(decide(juvenile, [...events, ev('ate', '2026-03-14')]).notes.map((n) => n.code)).not.toContain('possible_premolt');
+  });
+  it('follows a collection that flags adults after 2 refusals', () => {
+    const rules = effectiveRules({ refusalStreak: { adult: 2 } });
+    const d = decide(animal(), [ev('ate', '2026-02-20'), ev('refused', '2026-03-06'), ev('refused', '2026-03-13')], TODAY, rules);
+    expect(d.notes[0]!.text).toBe('2 refusals in a row (last on 13 Mar): possible premolt, so no food is offered.');
+  });
+});
+
+describe('R4 premolt: no food, water continues, prey removed first (common practice, no published source: live prey can injure a molting spider)', () => {
+  it('gives a premolt animal with a dish water but no food, and removes the prey first', () => {
+    const a = animal({ hasWaterDish: true });
+    const d = decide(a, [ev('ate', '2026-02-01'), ev('prey_left_in', '2026-03-18', { preyType: 'roach' }), ev('premolt_seen', '2026-03-18')]);
+    expect(kinds(d.tasks)).toEqual(['remove_prey', 'water']);
+    expect(d.tasks[0]!.reasons[0]!.text).toBe('Prey left in on 18 Mar: remove it (premolt: live prey can injure a molting animal).');
+    expect(d.notes[0]!.text).toBe('Premolt seen on 18 Mar: no food until it molts; water continues.');
+    expect(d.nextFeed).toBeNull();
+  });
+});
+
+describe('R5 post-molt hold (common practice, no published source: about a week, longer for large spiders)', () => {
+  it('holds an adult 14 days after a molt, then feeds it', () => {
+    const events = [ev('ate', '2026-02-01'), ev('molted', '2026-03-07')];
+    const held = decide(animal(), events, '2026-03-20');
+    expect(held.tasks).toEqual([]);
+    expect(held.notes[0]!.text).toBe('Post-molt hold until 21 Mar (molted on 7 Mar): no food while the fangs harden.');
+    const fed = decide(animal(), events, '2026-03-21');
+    expect(fed.tasks[0]!.reasons[0]!.text).toBe('Post-molt hold ended on 21 Mar (molted on 7 Mar): food can be offered again.');
+  });
+  it.each([['sling', 4], ['juvenile', 7], ['subadult', 10]] as const)('holds a %s for %i days', (stage, days) => {
+    const d = decide(animal({ lifeStage: stage, sizeMm: 30 }), [ev('molted', '2026-03-10')]);
+    expect(d.nextFeed).toBe(`2026-03-${10 + days}`);
+  });
+});
+
+describe('R6 prey left in (common practice, no published source)', () => {
+  it('removes a cricket from anyone, but lets an adult outside the molt cycle keep a roach (note, no task)', () => {
+    const cricket = decide(animal(), [ev('ate', '2026-03-01'), ev('prey_left_in', '2026-03-19', { preyType: 'cricket' })]);
+    expect(kinds(cricket.tasks)).toEqual(['remove_prey']);
+    const roach = decide(animal(), [ev('ate', '2026-03-01'), ev('prey_left_in', '2026-03-19', { preyType: 'roach nymph' })]);
+    expect(roach.tasks).toEqual([]);
+    expect(roach.notes.map((n) => n.code)).toEqual(['prey_may_stay', 'prey_inside']);
+  });
+  it('removes prey from a sling first thing, and a removed prey counts as a refusal', () => {
+    const sling = animal({ lifeStage: 'sling', sizeMm: 12 });
+    const d = decide(sling, [ev('ate', '2026-03-15'), ev('prey_left_in', '2026-03-19', { preyType: 'fruit-fly larvae' })]);
+    expect(kinds(d.tasks)).toEqual(['remove_prey']);
+    expect(d.tasks[0]!.reasons[0]!.text).toMatch(/slings are not left with live prey/);
+    const after = decide(sling, [ev('ate', '2026-03-15'), ev('prey_left_in', '2026-03-19'), ev('prey_removed', '2026-03-20')], '2026-03-22');
+    expect(after.tasks[0]!.reasons[0]!.code).toBe('due_refusal_retry');
+  });
+  it('removes prey from an animal in a post-molt hold', () => {
+    const d = decide(animal(), [ev('prey_left_in', '2026-03-12', { preyType: 'roach' }), ev('molted', '2026-03-15')]);
+    expect(d.tasks[0]!.reasons[0]!.text).toMatch(/post-molt hold/);
+  });
+});
+
+describe('R7 water (common practice, no published source; a dish from about 7.5 cm leg span)', () => {
+  it('tops up a dish every 3 days; animals without a dish never get a water task', () => {
+    const withDish = animal({ hasWaterDish: true });
+    expect(kinds(decide(withDish, [ev('ate', '2026-03-19'), ev('watered', '2026-03-17')]).tasks)).toEqual(['water']);
+    expect(decide(withDish, [ev('ate', '2026-03-19'), ev('watered', '2026-03-18')]).tasks).toEqual([]);
+    expect(decide(animal({ lifeStage: 'sling', sizeMm: 12 }), [ev('ate', '2026-03-19')]).tasks).toEqual([]);
+  });
+});
+
+describe('R8 rebuild after an egg sac or for pairing (common practice, no published source)', () => {
+  it('feeds a female every 6 days instead of 12 for 8 weeks after the sac is pulled', () => {
+    const events = [ev('sac_laid', '2026-02-20'), ev('sac_pulled', '2026-02-25'), ev('ate', '2026-03-14')];
+    const d = decide(animal(), events);
+    expect(kinds(d.tasks)).toEqual(['feed']);
+    expect(d.tasks[0]!.reasons[1]!.text).toBe('Rebuilding after the egg sac was pulled on 25 Feb: fed every 6 days instead of 12 until 22 Apr.');
+    expect(decide(animal(), [...events, ev('ate', '2026-04-25')], '2026-05-01').tasks).toEqual([]); // rebuild over: back to 12
+  });
+  it('conditions a female after pairing and after the keeper sets the flag', () => {
+    expect(decide(animal(), [ev('paired', '2026-03-10'), ev('ate', '2026-03-14')]).nextFeed).toBe('2026-03-20');
+    expect(decide(animal(), [ev('rebuild_started', '2026-03-10'), ev('ate', '2026-03-14'), ev('rebuild_ended', '2026-03-15')]).nextFeed).toBe('2026-03-26');
+  });
+});
+
+describe('R9 carry-over', () => {
+  it('marks a feed due two days ago as carried over 2 days, and sorts it first on its shelf', () => {
+    const late = animal({ location: { id: 'l9', room: 'Spare room', rack: 'B', shelf: '1', position: '5', walkOrder: 0 } });
+    const onTime = animal({ location: { id: 'l8', room: 'Spare room', rack: 'B', shelf: '1', position: '1', walkOrder: 0 } });
+    const round = buildRound(
+      [
+        { animal: onTime, state: projectState([ev('ate', '2026-03-08')], ZONE, 56) },
+        { animal: late, state: projectState([ev('ate', '2026-03-06')], ZONE, 56) },
+      ],
+      DEFAULT_RULES,
+      TODAY,
+    );
+    expect(round.items.map((i) => i.animal.id)).toEqual([late.id, onTime.id]);
+    expect(round.items[0]!.tasks[0]!.reasons.at(-1)!.text).toBe('Carried over 2 days: due on 18 Mar.');
+  });
+  it('does not carry over past a deliberate skip', () => {
+    expect(decide(animal(), [ev('ate', '2026-03-06')]).tasks[0]!.carriedOverDays).toBe(2);
+    expect(decide(animal(), [ev('ate', '2026-03-06'), ev('skipped', '2026-03-18')]).tasks[0]!.carriedOverDays).toBe(1);
+  });
+});
+
+describe('R10 no double meal', () => {
+  it('never schedules food for an animal that ate within min(interval, 2) days, even after an off-schedule meal', () => {
+    // A collection that retries slings the next day; a helper fed in the morning, the owner's
+    // offer in the evening was refused: the retry would fall tomorrow, R10 holds it back.
+    const rules = effectiveRules({ refusalRetryDays: { sling: 1 } });
+    const sling = animal({ lifeStage: 'sling', sizeMm: 10 });
+    const morning = { ...ev('ate', '2026-03-19'), effectiveAt: new Date(startOfLocalDate('2026-03-19', ZONE).getTime() + 8 * 3600_000).toISOString() };
+    const d = decide(sling, [morning, ev('refused', '2026-03-19')], TODAY, rules);
+    expect(d.tasks).toEqual([]);
+    expect(d.notes.map((n) => n.text)).toContain('Ate on 19 Mar: never two meals within 2 days.');
+    expect(kinds(decide(sling, [morning, ev('refused', '2026-03-19')], '2026-03-21', rules).tasks)).toEqual(['feed']);
+  });
+});
+
+describe('R11 leave alone (common practice, no published source)', () => {
+  it('shows a molting animal only as "leave alone" — no food, no water — until the next outcome', () => {
+    const a = animal({ hasWaterDish: true });
+    const d = decide(a, [ev('ate', '2026-03-01'), ev('molting_now', '2026-03-19')]);
+    expect(kinds(d.tasks)).toEqual(['leave_alone']);
+    expect(d.tasks[0]!.reasons[0]!.text).toBe('Molting since 19 Mar: leave alone — no food, no disturbance.');
+    expect(kinds(decide(a, [ev('ate', '2026-03-01'), ev('molting_now', '2026-03-15'), ev('molted', '2026-03-16')]).tasks)).toEqual(['water']);
+  });
+  it('still takes live prey out of a molting animal', () => {
+    const d = decide(animal(), [ev('prey_left_in', '2026-03-18', { preyType: 'cricket' }), ev('molting_now', '2026-03-19')]);
+    expect(kinds(d.tasks)).toEqual(['remove_prey', 'leave_alone']);
+  });
+  it('leaves a female guarding a sac alone until the sac is pulled', () => {
+    expect(kinds(decide(animal(), [ev('sac_laid', '2026-03-01')]).tasks)).toEqual(['leave_alone']);
+  });
+});
+
+describe('R12 inactive animals', () => {
+  it.each(['sold', 'deceased', 'rehomed', 'on_loan'] as const)('never puts a %s animal on the round', (status) => {
+    expect(decide(animal({ status }), []).tasks).toEqual([]);
+  });
+});
+
+describe('R13 offer (common practice, no published source)', () => {
+  it('offers the stage default, tiny prey for the smallest slings, and the animal’s own setting first', () => {
+    expect(decide(animal(), []).tasks[0]!.offer).toEqual({ preyType: 'cricket', preySize: 'large', countMin: 1, countMax: 3 });
+    expect(decide(animal({ lifeStage: 'sling', sizeMm: 10 }), []).tasks[0]!.offer).toEqual({ preyType: 'fruit-fly larvae', preySize: 'tiny', countMin: 1, countMax: 1 });
+    expect(decide(animal({ lifeStage: 'sling', sizeMm: 20 }), []).tasks[0]!.offer!.preySize).toBe('pinhead');
+    expect(decide(animal({ preyType: 'roach', preySize: 'adult', preyCount: 2 }), []).tasks[0]!.offer).toEqual({ preyType: 'roach', preySize: 'adult', countMin: 2, countMax: 2 });
+  });
+});
+
+describe('R14 walk order', () => {
+  it('sorts room → rack → shelf → position naturally (2 before 10), and within an animal remove prey, feed, water, check', () => {
+    const place = (rack: string, shelf: string, position: string) => ({ id: `${rack}${shelf}${position}`, room: 'Spare room', rack, shelf, position, walkOrder: 0 });
+    const list = [place('B', '1', '1'), place('A', '10', '1'), place('A', '2', '10'), place('A', '2', '2')].map((l) => ({
+      animal: animal({ location: l }),
+      state: projectState([], ZONE, 56),
+    }));
+    const round = buildRound(list, DEFAULT_RULES, TODAY);
+    expect(round.items.map((i) => i.animal.location!.id)).toEqual(['A22', 'A210', 'A101', 'B11']);
+  });
+  it('follows the keeper’s own walk order before the natural order', () => {
+    const first = animal({ location: { id: 'x', room: 'Spare room', rack: 'Z', shelf: '9', position: '9', walkOrder: -1 } });
+    const round = buildRound([{ animal: animal(), state: projectState([], ZONE, 56) }, { animal: first, state: projectState([], ZONE, 56) }], DEFAULT_RULES, TODAY);
+    expect(round.items[0]!.animal.id).toBe(first.id);
+  });
+});
+
+describe('R15 prep list', () => {
+  it('sums the feed tasks by prey type and size', () => {
+    const list = [
+      animal({ lifeStage: 'sling', sizeMm: 10 }),
+      animal({ lifeStage: 'sling', sizeMm: 11 }),
+      animal({ lifeStage: 'juvenile', sizeMm: 40 }),
+      animal(),
+      animal(),
+    ].map((a) => ({ animal: a, state: projectState([], ZONE, 56) }));
+    expect(buildRound(list, DEFAULT_RULES, TODAY).prepList).toEqual([
+      { preyType: 'cricket', preySize: 'small', countMin: 1, countMax: 2, animals: 1 },
+      { preyType: 'cricket', preySize: 'large', countMin: 2, countMax: 6, animals: 2 },
+      { preyType: 'fruit-fly larvae', preySize: 'tiny', countMin: 2, countMax: 2, animals: 2 },
+    ]);
+  });
+});
+
+describe('void events', () => {
+  it('forgets a meal that was voided, as if it had never been recorded', () => {
+    const meal = ev('ate', '2026-03-19');
+    expect(decide(animal(), [ev('ate', '2026-03-01'), meal]).tasks).toEqual([]);
+    expect(kinds(decide(animal(), [ev('ate', '2026-03-01'), meal, ev('void', '2026-03-19', { targetId: meal.id })]).tasks)).toEqual(['feed']);
+  });
+});
