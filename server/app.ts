@@ -16,7 +16,10 @@ import { createAuthService } from './features/auth/auth.service';
 import { collectionsRoutes } from './features/collections/collections.routes';
 import { createCollectionsService } from './features/collections/collections.service';
 import { devRoutes } from './features/dev/dev.routes';
+import { createEventsService } from './features/events/events.service';
 import { healthRoutes } from './features/health/health.routes';
+import { roundsRoutes } from './features/rounds/rounds.routes';
+import { createRoundsService } from './features/rounds/rounds.service';
 import { createLogger, type Logger } from './logger';
 import type { DevMailbox } from './mail/dev-smtp';
 import type { Mailer } from './mail/mailer';
@@ -144,7 +147,10 @@ export function createApp(options: AppOptions) {
     res.json({ memberships: (await auth.me(req.session.userId!)).memberships });
   });
   api.use('/collections/:collectionId', requireUser);
-  api.use('/collections/:collectionId/animals', animalsRoutes(createAnimalsService(database.db), member));
+  const animals = createAnimalsService(database.db);
+  const rounds = createRoundsService(database.db, now);
+  api.use('/collections/:collectionId/animals', animalsRoutes(animals, member));
+  api.use('/collections/:collectionId', roundsRoutes(rounds, animals, member));
   api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db), member));
   api.use(apiNotFound);
   api.use(errorHandler);
@@ -155,6 +161,7 @@ export function createApp(options: AppOptions) {
 
   return {
     app,
+    services: { rounds, events: createEventsService(database.db, rounds, now) },
     async shutdown() {
       await new Promise<void>((resolve) => store.close ? (store.close(), resolve()) : resolve());
     },

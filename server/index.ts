@@ -2,6 +2,7 @@ import { createApp } from './app';
 import { connectDatabase } from './db/client';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './db/seed/demo-people';
 import { readEnv } from './env';
+import { startJobs } from './jobs/jobs';
 import { createLogger } from './logger';
 import { startDevSmtp, type DevSmtp } from './mail/dev-smtp';
 import { createSmtpMailer } from './mail/mailer';
@@ -17,7 +18,8 @@ if (!smtpUrl) {
   smtpUrl = devSmtp.url;
 }
 const mailer = createSmtpMailer(smtpUrl, env.MAIL_FROM);
-const { app, shutdown } = createApp({ env, database, mailer, devMailbox: devSmtp?.mailbox, logger });
+const { app, services, shutdown } = createApp({ env, database, mailer, devMailbox: devSmtp?.mailbox, logger });
+const jobs = await startJobs({ databaseUrl: env.DATABASE_URL, rounds: services.rounds, logger });
 
 const server = app.listen(env.PORT, env.HOST, () => {
   const shown = env.HOST === '0.0.0.0' ? 'localhost' : env.HOST;
@@ -38,6 +40,7 @@ async function stop() {
   closing = true;
   server.close();
   server.closeAllConnections();
+  await jobs.stop();
   await shutdown();
   mailer.close();
   await devSmtp?.stop();

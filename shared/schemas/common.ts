@@ -12,9 +12,14 @@ export const timeZone = z
 export const localDate = z
   .string()
   .regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'Write the date as YYYY-MM-DD.' })
-  .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)), {
-    message: 'This date does not exist.',
-  });
+  .refine(
+    (s) => {
+      const [y, m, d] = s.split('-').map(Number) as [number, number, number];
+      const date = new Date(Date.UTC(y, m - 1, d));
+      return y >= 1900 && y <= 2200 && date.toISOString().slice(0, 10) === s;
+    },
+    { message: 'This date does not exist.' },
+  );
 
 export const errorBody = z.object({
   error: z.object({

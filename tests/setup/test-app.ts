@@ -11,6 +11,7 @@ import { adminUrl, templateName, testDatabaseUrl } from './database-urls';
 
 export interface TestContext {
   app: ReturnType<typeof createApp>['app'];
+  services: ReturnType<typeof createApp>['services'];
   database: Database;
   databaseUrl: string;
   mailbox: DevMailbox;
@@ -51,7 +52,7 @@ export async function createTestContext(options: Partial<Pick<AppOptions, 'authL
     BCRYPT_COST: '10',
   });
   let fixed: Date | null = null;
-  const { app, shutdown } = createApp({
+  const { app, services, shutdown } = createApp({
     env,
     database,
     mailer,
@@ -63,6 +64,7 @@ export async function createTestContext(options: Partial<Pick<AppOptions, 'authL
   });
   return {
     app,
+    services,
     database,
     databaseUrl,
     mailbox: smtp.mailbox,

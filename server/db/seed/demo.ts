@@ -8,6 +8,7 @@ import type { EventKind } from '../../../shared/domain/event-kinds';
 import { generateLabelCodes } from '../../../shared/domain/label-codes';
 import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
 import { hashPassword } from '../../features/auth/passwords';
+import { refoldStates } from '../../features/rounds/projection';
 import { animals, events } from '../schema/animals';
 import { collections, locations, memberships } from '../schema/collections';
 import { users } from '../schema/users';
@@ -56,7 +57,7 @@ const ADULTS: DemoAnimal[] = [
 ];
 
 const JUVENILES: DemoAnimal[] = [
-  { name: 'Verdi', scientificName: 'Caribena versicolor', commonName: 'Martinique pinktoe', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 45, place: ['B', '1', '1'], cautions: ['fast_defensive'], story: 'premolt' },
+  { name: 'Verdi', scientificName: 'Caribena versicolor', commonName: 'Martinique pinktoe', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 75, place: ['B', '1', '1'], cautions: ['fast_defensive'], hasWaterDish: true, story: 'premolt' },
   { name: 'Goliath Jr', scientificName: 'Theraphosa stirmi', commonName: 'Burgundy goliath birdeater', group: 'tarantula', lifeStage: 'subadult', sex: 'female', sizeMm: 140, place: ['B', '1', '2'], cautions: ['urticating_hairs'], hasWaterDish: true, story: 'molted_5_days' },
   { name: 'Rusty', scientificName: 'Harpactira pulchripes', commonName: 'Golden blue-leg baboon', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 50, place: ['B', '1', '3'], cautions: ['potent_venom', 'fast_defensive'] },
   { name: 'Tiger', scientificName: 'Davus pentaloris', commonName: 'Guatemalan tiger rump', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 40, place: ['B', '2', '1'], cautions: ['urticating_hairs', 'fast_defensive'], story: 'missed' },
@@ -115,7 +116,7 @@ function historyFor(animal: DemoAnimal, today: LocalDate, random: () => number):
   // Routine feeding from 60 days ago until the story takes over.
   const storyStart: Record<NonNullable<DemoAnimal['story']> | 'none', number> = {
     none: 0,
-    two_refusals: -8,
+    two_refusals: -14,
     premolt: -7,
     molted_5_days: -5,
     sac_3_weeks: -21,
@@ -132,9 +133,9 @@ function historyFor(animal: DemoAnimal, today: LocalDate, random: () => number):
     offset += refused ? Math.max(2, Math.round(interval / 2)) : interval;
   }
   if (animal.hasWaterDish) {
-    for (let d = -60 + Math.floor(random() * 3); d < 0; d += 3) {
-      out.push({ kind: 'watered', day: at(d), minute: minute(), by: by() });
-    }
+    // Animals whose story must show on today's round were last watered three days ago.
+    const last = animal.story === 'premolt' || animal.story === 'molted_5_days' ? -3 : -1 - Math.floor(random() * 3);
+    for (let d = last; d >= -60; d -= 3) out.push({ kind: 'watered', day: at(d), minute: minute(), by: by() });
   }
   // A molt somewhere in the middle of the history for growing animals, to fill the charts.
   if (animal.lifeStage !== 'adult' && animal.story !== 'molted_5_days' && animal.story !== 'premolt') {
@@ -143,9 +144,9 @@ function historyFor(animal: DemoAnimal, today: LocalDate, random: () => number):
 
   switch (animal.story) {
     case 'two_refusals':
-      out.push({ kind: 'ate', day: at(-20), minute: minute(), by: 'owner', payload: { ...offer } });
-      out.push({ kind: 'refused', day: at(-8), minute: minute(), by: 'owner' });
-      out.push({ kind: 'refused', day: at(-1), minute: minute(), by: 'partner', payload: { note: 'Turned away from the tongs again.' } });
+      out.push({ kind: 'ate', day: at(-26), minute: minute(), by: 'owner', payload: { ...offer } });
+      out.push({ kind: 'refused', day: at(-14), minute: minute(), by: 'owner' });
+      out.push({ kind: 'refused', day: at(-7), minute: minute(), by: 'partner', payload: { note: 'Turned away from the tongs again.' } });
       break;
     case 'premolt':
       out.push({ kind: 'ate', day: at(-13), minute: minute(), by: 'owner', payload: { ...offer } });
@@ -163,7 +164,7 @@ function historyFor(animal: DemoAnimal, today: LocalDate, random: () => number):
     case 'paired_10_days':
       out.push({ kind: 'ate', day: at(-12), minute: minute(), by: 'owner', payload: { ...offer } });
       out.push({ kind: 'paired', day: at(-10), minute: 20 * 60, by: 'owner', payload: { outcome: 'accepted', note: 'Male tapped, she accepted; separated after insertion.' } });
-      out.push({ kind: 'ate', day: at(-4), minute: minute(), by: 'owner', payload: { ...offer } });
+      out.push({ kind: 'ate', day: at(-6), minute: minute(), by: 'owner', payload: { ...offer } });
       break;
     case 'prey_left_yesterday':
       out.push({ kind: 'ate', day: at(-4), minute: minute(), by: 'owner', payload: { ...offer } });
@@ -211,7 +212,11 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
     const ownerId = idOf(DEMO_ACCOUNTS[0].email);
     const partnerId = idOf(DEMO_ACCOUNTS[1].email);
 
-    const [collection] = await tx.insert(collections).values(DEMO_COLLECTION).returning({ id: collections.id });
+    // The demo flags adults after two refusals (the default is three): a collection's own rule.
+    const [collection] = await tx
+      .insert(collections)
+      .values({ ...DEMO_COLLECTION, rules: { refusalStreak: { adult: 2 } } })
+      .returning({ id: collections.id });
     const collectionId = collection!.id;
 
     // The helper covers 7 days from the Friday after today.
@@ -263,6 +268,7 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
           hasWaterDish: a.hasWaterDish ?? false,
           cautions: a.cautions ?? [],
           acquiredOn: addDays(today, -200 - Math.floor(random() * 300)),
+          createdAt: startOfLocalDate(addDays(today, -61), zone),
         })),
       )
       .returning({ id: animals.id });
@@ -286,6 +292,7 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
       }),
     );
     for (let i = 0; i < rows.length; i += 500) await tx.insert(events).values(rows.slice(i, i + 500));
+    await refoldStates(tx, collectionId, zone);
     return { created: true, animals: roster.length, events: rows.length, collectionId, today };
   });
 }

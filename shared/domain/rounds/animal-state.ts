@@ -27,10 +27,9 @@ export interface AnimalState {
   leaveAlone: { reason: 'molting' | 'guarding_sac'; since: LocalDate } | null;
   preyLeftIn: { since: LocalDate; preyType: string | null } | null;
   lastWatered: LocalDate | null;
-  /** R8: fed more often until this date (exclusive). */
-  rebuildUntil: LocalDate | null;
-  rebuildReason: 'sac_pulled' | 'paired' | 'keeper' | null;
+  /** R8: fed more often from this date (for as long as the rules say). */
   rebuildSince: LocalDate | null;
+  rebuildReason: 'sac_pulled' | 'paired' | 'keeper' | null;
   /** The last time the keeper looked at the animal without feeding it (check tasks). */
   lastObserved: LocalDate | null;
   lastSkipped: LocalDate | null;
@@ -48,9 +47,8 @@ export const EMPTY_STATE: AnimalState = {
   leaveAlone: null,
   preyLeftIn: null,
   lastWatered: null,
-  rebuildUntil: null,
-  rebuildReason: null,
   rebuildSince: null,
+  rebuildReason: null,
   lastObserved: null,
   lastSkipped: null,
   lastEventAt: null,
@@ -73,13 +71,8 @@ export function isInOrder(state: AnimalState, event: EngineEvent): boolean {
   return compareEvents({ id: state.lastEventId ?? '', kind: 'note', effectiveAt: state.lastEventAt }, event) < 0;
 }
 
-function addDaysTo(date: LocalDate, days: number): LocalDate {
-  const [y, m, d] = date.split('-').map(Number) as [number, number, number];
-  return new Date(Date.UTC(y, m - 1, d + days)).toISOString().slice(0, 10);
-}
-
 /** Folds one event into the state (a pure function: returns a new state). */
-export function applyEvent(state: AnimalState, event: EngineEvent, zone: string, rebuildDays: number): AnimalState {
+export function applyEvent(state: AnimalState, event: EngineEvent, zone: string): AnimalState {
   const day = localDateOf(new Date(event.effectiveAt), zone);
   const s: AnimalState = { ...state, lastEventAt: event.effectiveAt, lastEventId: event.id };
   if (s.leaveAlone && ENDS_LEAVE_ALONE.has(event.kind)) s.leaveAlone = null;
@@ -131,25 +124,21 @@ export function applyEvent(state: AnimalState, event: EngineEvent, zone: string,
       s.leaveAlone = { reason: 'guarding_sac', since: day };
       break;
     case 'sac_pulled':
-      s.rebuildUntil = addDaysTo(day, rebuildDays);
-      s.rebuildReason = 'sac_pulled';
       s.rebuildSince = day;
+      s.rebuildReason = 'sac_pulled';
       break;
     case 'paired':
       // Common practice, no published source: a paired female is fed up for the sac to come.
-      s.rebuildUntil = addDaysTo(day, rebuildDays);
-      s.rebuildReason = 'paired';
       s.rebuildSince = day;
+      s.rebuildReason = 'paired';
       break;
     case 'rebuild_started':
-      s.rebuildUntil = addDaysTo(day, rebuildDays);
-      s.rebuildReason = 'keeper';
       s.rebuildSince = day;
+      s.rebuildReason = 'keeper';
       break;
     case 'rebuild_ended':
-      s.rebuildUntil = null;
-      s.rebuildReason = null;
       s.rebuildSince = null;
+      s.rebuildReason = null;
       break;
     case 'skipped':
       s.lastSkipped = day;
@@ -172,7 +161,6 @@ export function applyEvent(state: AnimalState, event: EngineEvent, zone: string,
 export function projectState(
   events: readonly EngineEvent[],
   zone: string,
-  rebuildDays: number,
   before?: LocalDate,
 ): AnimalState {
   const voided = new Set(
@@ -183,6 +171,6 @@ export function projectState(
     .filter((e) => !before || localDateOf(new Date(e.effectiveAt), zone) < before)
     .sort(compareEvents);
   let state = EMPTY_STATE;
-  for (const event of live) state = applyEvent(state, event, zone, rebuildDays);
+  for (const event of live) state = applyEvent(state, event, zone);
   return state;
 }

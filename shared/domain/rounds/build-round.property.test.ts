@@ -70,7 +70,7 @@ const collectionArb = fc.integer({ min: 1, max: 25 }).chain((n) =>
 
 function build(collection: [EngineAnimal, EngineEvent[]][], date = TODAY) {
   return buildRound(
-    collection.map(([animal, events]) => ({ animal, state: projectState(events, ZONE, DEFAULT_RULES.rebuildDays) })),
+    collection.map(([animal, events]) => ({ animal, state: projectState(events, ZONE) })),
     DEFAULT_RULES,
     date,
   );
@@ -82,7 +82,7 @@ describe('round engine properties', () => {
       fc.property(collectionArb, (collection) => {
         for (const item of build(collection).items) {
           const events = collection.find(([a]) => a.id === item.animal.id)![1];
-          const state = projectState(events, ZONE, DEFAULT_RULES.rebuildDays);
+          const state = projectState(events, ZONE);
           const feeds = item.tasks.some((t) => t.kind === 'feed');
           const holdEnd = state.lastMolt ? addDays(state.lastMolt, DEFAULT_RULES.postMoltHoldDays[item.animal.lifeStage]) : null;
           if (holdEnd && TODAY < holdEnd) expect(feeds).toBe(false);
@@ -101,7 +101,7 @@ describe('round engine properties', () => {
         const ids = round.items.map((i) => i.animal.id);
         expect(new Set(ids).size).toBe(ids.length);
         for (const [animal, events] of collection) {
-          const decision = decideAnimal(animal, projectState(events, ZONE, DEFAULT_RULES.rebuildDays), DEFAULT_RULES, TODAY);
+          const decision = decideAnimal(animal, projectState(events, ZONE), DEFAULT_RULES, TODAY);
           expect(ids.includes(animal.id)).toBe(decision.tasks.length > 0);
         }
       }),

@@ -43,7 +43,7 @@ function ev(kind: EventKind, date: string, payload: Record<string, unknown> = {}
 }
 
 function decide(a: EngineAnimal, events: EngineEvent[], date = TODAY, rules = DEFAULT_RULES) {
-  return decideAnimal(a, projectState(events, ZONE, rules.rebuildDays), rules, date);
+  return decideAnimal(a, projectState(events, ZONE), rules, date);
 }
 const kinds = (tasks: RoundTask[]) => tasks.map((t) => t.kind);
 
@@ -197,8 +197,8 @@ describe('R9 carry-over', () => {
     const onTime = animal({ location: { id: 'l8', room: 'Spare room', rack: 'B', shelf: '1', position: '1', walkOrder: 0 } });
     const round = buildRound(
       [
-        { animal: onTime, state: projectState([ev('ate', '2026-03-08')], ZONE, 56) },
-        { animal: late, state: projectState([ev('ate', '2026-03-06')], ZONE, 56) },
+        { animal: onTime, state: projectState([ev('ate', '2026-03-08')], ZONE) },
+        { animal: late, state: projectState([ev('ate', '2026-03-06')], ZONE) },
       ],
       DEFAULT_RULES,
       TODAY,
@@ -263,14 +263,14 @@ describe('R14 walk order', () => {
     const place = (rack: string, shelf: string, position: string) => ({ id: `${rack}${shelf}${position}`, room: 'Spare room', rack, shelf, position, walkOrder: 0 });
     const list = [place('B', '1', '1'), place('A', '10', '1'), place('A', '2', '10'), place('A', '2', '2')].map((l) => ({
       animal: animal({ location: l }),
-      state: projectState([], ZONE, 56),
+      state: projectState([], ZONE),
     }));
     const round = buildRound(list, DEFAULT_RULES, TODAY);
     expect(round.items.map((i) => i.animal.location!.id)).toEqual(['A22', 'A210', 'A101', 'B11']);
   });
   it('follows the keeper’s own walk order before the natural order', () => {
     const first = animal({ location: { id: 'x', room: 'Spare room', rack: 'Z', shelf: '9', position: '9', walkOrder: -1 } });
-    const round = buildRound([{ animal: animal(), state: projectState([], ZONE, 56) }, { animal: first, state: projectState([], ZONE, 56) }], DEFAULT_RULES, TODAY);
+    const round = buildRound([{ animal: animal(), state: projectState([], ZONE) }, { animal: first, state: projectState([], ZONE) }], DEFAULT_RULES, TODAY);
     expect(round.items[0]!.animal.id).toBe(first.id);
   });
 });
@@ -283,7 +283,7 @@ describe('R15 prep list', () => {
       animal({ lifeStage: 'juvenile', sizeMm: 40 }),
       animal(),
       animal(),
-    ].map((a) => ({ animal: a, state: projectState([], ZONE, 56) }));
+    ].map((a) => ({ animal: a, state: projectState([], ZONE) }));
     expect(buildRound(list, DEFAULT_RULES, TODAY).prepList).toEqual([
       { preyType: 'cricket', preySize: 'small', countMin: 1, countMax: 2, animals: 1 },
       { preyType: 'cricket', preySize: 'large', countMin: 2, countMax: 6, animals: 2 },

@@ -221,9 +221,9 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
   // R8 shortens the interval for meals that fall due inside the rebuild window; judging by the
   // due date (not today) keeps an overdue meal's due date stable when the window closes.
   const shortInterval = Math.max(1, Math.round(interval * rules.rebuildFactor));
+  const rebuildUntil = state.rebuildSince ? addDays(state.rebuildSince, rules.rebuildDays) : null;
   const rebuilding =
-    !!state.rebuildUntil &&
-    (state.lastMeal ? addDays(state.lastMeal, shortInterval) < state.rebuildUntil : date < state.rebuildUntil);
+    !!rebuildUntil && (state.lastMeal ? addDays(state.lastMeal, shortInterval) < rebuildUntil : date < rebuildUntil);
   const effectiveInterval = rebuilding ? shortInterval : interval;
   const refusedSinceMeal = state.refusalStreak > 0 && !!state.lastRefusal && (!state.lastMeal || state.lastRefusal >= state.lastMeal);
 
@@ -259,8 +259,8 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
   const rebuildReason: Reason | null = rebuilding
     ? {
         code: 'rebuild',
-        text: `${state.rebuildReason === 'sac_pulled' ? `Rebuilding after the egg sac was pulled on ${shortDate(state.rebuildSince!)}` : state.rebuildReason === 'paired' ? `Conditioning after pairing on ${shortDate(state.rebuildSince!)}` : `Rebuilding since ${shortDate(state.rebuildSince!)}`}: fed every ${plural(effectiveInterval, 'day')} instead of ${interval} until ${shortDate(state.rebuildUntil!)}.`,
-        dates: [state.rebuildSince!, state.rebuildUntil!],
+        text: `${state.rebuildReason === 'sac_pulled' ? `Rebuilding after the egg sac was pulled on ${shortDate(state.rebuildSince!)}` : state.rebuildReason === 'paired' ? `Conditioning after pairing on ${shortDate(state.rebuildSince!)}` : `Rebuilding since ${shortDate(state.rebuildSince!)}`}: fed every ${plural(effectiveInterval, 'day')} instead of ${interval} until ${shortDate(rebuildUntil!)}.`,
+        dates: [state.rebuildSince!, rebuildUntil!],
       }
     : null;
 

@@ -1,0 +1,44 @@
+import { eq, inArray } from 'drizzle-orm';
+import { applyEvent, EMPTY_STATE, isInOrder, projectState, type AnimalState, type EngineEvent } from '../../../shared/domain/rounds/animal-state';
+import type { Db } from '../../db/client';
+import { animals } from '../../db/schema/animals';
+import { animalStates } from '../../db/schema/rounds';
+import { loadEventsOf, upsertStates } from './rounds.repository';
+
+/** Re-folds animals' states from the whole event log (all of a collection's when no ids). */
+export async function refoldStates(db: Db, collectionId: string, zone: string, animalIds?: string[]) {
+  const ids = animalIds ?? (await db.select({ id: animals.id }).from(animals).where(eq(animals.collectionId, collectionId))).map((r) => r.id);
+  const logs = await loadEventsOf(db, ids);
+  await upsertStates(db, collectionId, ids.map((id) => ({ animalId: id, state: projectState(logs.get(id) ?? [], zone) })));
+}
+
+/**
+ * Brings the projection up to date with newly stored events, in the caller's transaction.
+ * Events that come after everything folded so far are applied one by one; an animal that got
+ * an event out of order (a phone syncing late) or a void is re-folded from its log.
+ */
+export async function applyNewEvents(db: Db, collectionId: string, zone: string, fresh: (EngineEvent & { animalId: string })[]) {
+  const byAnimal = new Map<string, EngineEvent[]>();
+  for (const e of fresh) byAnimal.set(e.animalId, [...(byAnimal.get(e.animalId) ?? []), e]);
+  const ids = [...byAnimal.keys()];
+  if (!ids.length) return;
+  const current = new Map(
+    (await db.select({ animalId: animalStates.animalId, state: animalStates.state }).from(animalStates).where(inArray(animalStates.animalId, ids)).for('update')).map(
+      (r) => [r.animalId, r.state as AnimalState],
+    ),
+  );
+  const refold: string[] = [];
+  const updated: { animalId: string; state: AnimalState }[] = [];
+  for (const [animalId, list] of byAnimal) {
+    let state = current.get(animalId) ?? EMPTY_STATE;
+    const sorted = [...list].sort((a, b) => (a.effectiveAt < b.effectiveAt ? -1 : a.effectiveAt > b.effectiveAt ? 1 : a.id < b.id ? -1 : 1));
+    if (sorted.some((e) => e.kind === 'void') || !isInOrder(state, sorted[0]!)) {
+      refold.push(animalId);
+      continue;
+    }
+    for (const e of sorted) state = applyEvent(state, e, zone);
+    updated.push({ animalId, state });
+  }
+  await upsertStates(db, collectionId, updated);
+  if (refold.length) await refoldStates(db, collectionId, zone, refold);
+}

@@ -1,0 +1,115 @@
+import { and, asc, eq, gte, inArray, lt, sql } from 'drizzle-orm';
+import type { LocalDate } from '../../../shared/domain/local-dates';
+import type { AnimalState, EngineEvent } from '../../../shared/domain/rounds/animal-state';
+import type { Db } from '../../db/client';
+import { animals, events } from '../../db/schema/animals';
+import { collections, locations } from '../../db/schema/collections';
+import { animalStates, roundItems, rounds } from '../../db/schema/rounds';
+import { users } from '../../db/schema/users';
+
+export async function findCollection(db: Db, collectionId: string) {
+  const [row] = await db.select().from(collections).where(eq(collections.id, collectionId)).limit(1);
+  return row ?? null;
+}
+
+export async function updateCollectionRules(db: Db, collectionId: string, rules: unknown) {
+  await db.update(collections).set({ rules }).where(eq(collections.id, collectionId));
+}
+
+/** Every animal of a collection with its place and its projected state (one query). */
+export async function loadAnimalsWithState(db: Db, collectionId: string, animalIds?: string[]) {
+  return db
+    .select({ animal: animals, location: locations, state: animalStates.state, lastEventAt: animalStates.lastEventAt })
+    .from(animals)
+    .leftJoin(locations, eq(locations.id, animals.locationId))
+    .leftJoin(animalStates, eq(animalStates.animalId, animals.id))
+    .where(animalIds ? and(eq(animals.collectionId, collectionId), inArray(animals.id, animalIds)) : eq(animals.collectionId, collectionId));
+}
+export type AnimalRow = Awaited<ReturnType<typeof loadAnimalsWithState>>[number];
+
+export async function loadEventsOf(db: Db, animalIds: string[]): Promise<Map<string, EngineEvent[]>> {
+  const byAnimal = new Map<string, EngineEvent[]>(animalIds.map((id) => [id, []]));
+  if (!animalIds.length) return byAnimal;
+  const rows = await db
+    .select({ id: events.id, animalId: events.animalId, kind: events.kind, effectiveAt: events.effectiveAt, payload: events.payload })
+    .from(events)
+    .where(inArray(events.animalId, animalIds));
+  for (const r of rows) {
+    byAnimal.get(r.animalId)!.push({
+      id: r.id,
+      kind: r.kind as EngineEvent['kind'],
+      effectiveAt: r.effectiveAt.toISOString(),
+      payload: r.payload as Record<string, unknown>,
+    });
+  }
+  return byAnimal;
+}
+
+export async function upsertStates(db: Db, collectionId: string, states: { animalId: string; state: AnimalState }[]) {
+  for (let i = 0; i < states.length; i += 1000) {
+    const chunk = states.slice(i, i + 1000);
+    await db
+      .insert(animalStates)
+      .values(chunk.map((s) => ({ animalId: s.animalId, collectionId, state: s.state, lastEventAt: s.state.lastEventAt ? new Date(s.state.lastEventAt) : null, updatedAt: new Date() })))
+      .onConflictDoUpdate({
+        target: animalStates.animalId,
+        set: { state: sql`excluded.state`, lastEventAt: sql`excluded.last_event_at`, updatedAt: sql`excluded.updated_at` },
+      });
+  }
+}
+
+export async function findRound(db: Db, collectionId: string, date: LocalDate) {
+  const [row] = await db.select().from(rounds).where(and(eq(rounds.collectionId, collectionId), eq(rounds.localDate, date))).limit(1);
+  return row ?? null;
+}
+
+/** Inserts the round row unless one exists: returns its id only when this call created it. */
+export async function claimRound(db: Db, collectionId: string, date: LocalDate, prepList: unknown) {
+  const [row] = await db
+    .insert(rounds)
+    .values({ collectionId, localDate: date, prepList })
+    .onConflictDoNothing({ target: [rounds.collectionId, rounds.localDate] })
+    .returning({ id: rounds.id });
+  return row?.id ?? null;
+}
+
+export type NewRoundItem = typeof roundItems.$inferInsert;
+
+export async function insertRoundItems(db: Db, items: NewRoundItem[]) {
+  for (let i = 0; i < items.length; i += 1000) await db.insert(roundItems).values(items.slice(i, i + 1000));
+}
+
+export async function upsertUrgentItem(db: Db, item: NewRoundItem) {
+  await db
+    .insert(roundItems)
+    .values(item)
+    .onConflictDoUpdate({ target: [roundItems.roundId, roundItems.animalId], set: { tasks: item.tasks, notes: item.notes, addedDuringDay: true } });
+}
+
+export async function loadRoundItems(db: Db, roundId: string) {
+  return db
+    .select({ item: roundItems, animal: animals, location: locations })
+    .from(roundItems)
+    .innerJoin(animals, eq(animals.id, roundItems.animalId))
+    .leftJoin(locations, eq(locations.id, animals.locationId))
+    .where(eq(roundItems.roundId, roundId))
+    .orderBy(asc(roundItems.sortIndex));
+}
+
+/** A collection's events in [from, to) with who recorded them: the day's outcomes. */
+export async function loadOutcomes(db: Db, collectionId: string, from: Date, to: Date) {
+  return db
+    .select({ id: events.id, animalId: events.animalId, kind: events.kind, effectiveAt: events.effectiveAt, payload: events.payload, by: users.displayName })
+    .from(events)
+    .leftJoin(users, eq(users.id, events.recordedBy))
+    .where(and(eq(events.collectionId, collectionId), gte(events.effectiveAt, from), lt(events.effectiveAt, to)));
+}
+
+/** Each collection with the date of its newest built round (null when none). */
+export async function collectionsWithLatestRound(db: Db) {
+  return db
+    .select({ id: collections.id, timeZone: collections.timeZone, latest: sql<string | null>`max(${rounds.localDate})` })
+    .from(collections)
+    .leftJoin(rounds, eq(rounds.collectionId, collections.id))
+    .groupBy(collections.id);
+}

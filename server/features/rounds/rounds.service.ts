@@ -1,0 +1,289 @@
+import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import type { Caution } from '../../../shared/domain/animal-facts';
+import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
+import { EMPTY_STATE, projectState, type AnimalState } from '../../../shared/domain/rounds/animal-state';
+import { buildRound, decideAnimal, type EngineAnimal, type RoundItem, type RoundTask } from '../../../shared/domain/rounds/build-round';
+import { effectiveRules, type RoundRules, type RulesOverride } from '../../../shared/domain/rounds/rules';
+import { countsForProgress, doubleMealWarning, liveOutcomes, settlingOutcome, type DayOutcome } from '../../../shared/domain/rounds/settle';
+import type { RoundItemView, RoundResponse, ScheduleResponse } from '../../../shared/schemas/rounds';
+import { HttpError } from '../../middleware/errors';
+import { refoldStates } from './projection';
+import {
+  claimRound,
+  collectionsWithLatestRound,
+  findCollection,
+  findRound,
+  insertRoundItems,
+  updateCollectionRules,
+  loadAnimalsWithState,
+  loadEventsOf,
+  loadOutcomes,
+  loadRoundItems,
+  upsertUrgentItem,
+  type AnimalRow,
+} from './rounds.repository';
+
+type Collection = NonNullable<Awaited<ReturnType<typeof findCollection>>>;
+
+function toEngineAnimal(row: AnimalRow, zone: string): EngineAnimal {
+  const a = row.animal;
+  const l = row.location;
+  return {
+    id: a.id,
+    labelCode: a.labelCode,
+    name: a.name,
+    scientificName: a.scientificName,
+    group: a.group,
+    lifeStage: a.lifeStage,
+    sex: a.sex,
+    sizeMm: a.sizeMm,
+    status: a.status,
+    cautions: a.cautions as Caution[],
+    location: l ? { id: l.id, room: l.room, rack: l.rack, shelf: l.shelf, position: l.position, walkOrder: l.walkOrder } : null,
+    hasWaterDish: a.hasWaterDish,
+    intervalDays: a.intervalDays,
+    preyType: a.preyType,
+    preySize: a.preySize,
+    preyCount: a.preyCount,
+    doNotFeedUntil: a.doNotFeedUntil,
+    addedOn: localDateOf(a.createdAt, zone),
+  };
+}
+
+function animalView(a: EngineAnimal): RoundItemView['animal'] {
+  const { id, labelCode, name, scientificName, group, lifeStage, sex, cautions, location } = a;
+  return { id, labelCode, name, scientificName, group, lifeStage, sex, cautions, location: location ?? null };
+}
+
+function timeFormatter(zone: string) {
+  const f = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone: zone });
+  return (iso: string) => f.format(new Date(iso));
+}
+
+export function createRoundsService(db: NodePgDatabase, now: () => Date) {
+  async function collectionOf(collectionId: string): Promise<Collection> {
+    const c = await findCollection(db, collectionId);
+    if (!c) throw new HttpError(404, 'not_found', 'We could not find that collection.');
+    return c;
+  }
+  const rulesOf = (c: Collection): RoundRules => effectiveRules(c.rules as RulesOverride);
+
+  /**
+   * Engine input for a collection. With `before`, states reflect only events before that
+   * local date: animals with an event on or after it are re-folded from the log.
+   */
+  async function engineInput(c: Collection, before?: LocalDate, animalIds?: string[]) {
+    const rows = await loadAnimalsWithState(db, c.id, animalIds);
+    const cutoff = before ? startOfLocalDate(before, c.timeZone) : null;
+    const stale = rows.filter((r) => cutoff && r.lastEventAt && r.lastEventAt >= cutoff).map((r) => r.animal.id);
+    const logs = await loadEventsOf(db, stale);
+    return rows.map((r) => ({
+      animal: toEngineAnimal(r, c.timeZone),
+      state: logs.has(r.animal.id) ? projectState(logs.get(r.animal.id)!, c.timeZone, before) : ((r.state as AnimalState | null) ?? EMPTY_STATE),
+    }));
+  }
+
+  async function outcomesByAnimal(c: Collection, date: LocalDate) {
+    const rows = await loadOutcomes(db, c.id, startOfLocalDate(date, c.timeZone), startOfLocalDate(addDays(date, 1), c.timeZone));
+    const map = new Map<string, DayOutcome[]>();
+    for (const r of rows) {
+      const payload = r.payload as { targetId?: unknown };
+      const outcome: DayOutcome = {
+        eventId: r.id,
+        kind: r.kind as DayOutcome['kind'],
+        at: r.effectiveAt.toISOString(),
+        by: r.by,
+        voids: typeof payload.targetId === 'string' ? payload.targetId : null,
+      };
+      map.set(r.animalId, [...(map.get(r.animalId) ?? []), outcome]);
+    }
+    for (const [id, list] of map) map.set(id, liveOutcomes(list));
+    return map;
+  }
+
+  function view(
+    c: Collection,
+    date: LocalDate,
+    builtAt: Date | null,
+    items: { animal: EngineAnimal; tasks: RoundTask[]; notes: RoundItem['notes']; carriedOverDays: number; addedDuringDay: boolean }[],
+    prepList: RoundResponse['prepList'],
+    outcomes: Map<string, DayOutcome[]>,
+  ): RoundResponse {
+    const time = timeFormatter(c.timeZone);
+    let done = 0;
+    let total = 0;
+    const viewItems = items.map((item) => {
+      const day = outcomes.get(item.animal.id) ?? [];
+      const tasks = item.tasks.map((t) => {
+        const settled = settlingOutcome(t.kind, day);
+        if (countsForProgress(t.kind)) {
+          total += 1;
+          if (settled) done += 1;
+        }
+        return { ...t, done: settled ? { eventId: settled.eventId, kind: settled.kind, at: settled.at, by: settled.by } : null };
+      });
+      const warning = doubleMealWarning(day, time);
+      return {
+        animal: animalView(item.animal),
+        tasks,
+        notes: item.notes,
+        carriedOverDays: item.carriedOverDays,
+        addedDuringDay: item.addedDuringDay,
+        outcomes: day.map(({ eventId, kind, at, by }) => ({ eventId, kind, at, by })),
+        warnings: warning ? [warning] : [],
+      };
+    });
+    return { date, timeZone: c.timeZone, builtAt: builtAt?.toISOString() ?? null, items: viewItems, prepList, progress: { done, total } };
+  }
+
+  const service = {
+    today(c: { timeZone: string }): LocalDate {
+      return localDateOf(now(), c.timeZone);
+    },
+
+    /** Re-folds the projection of some (or all) animals from the event log. */
+    async rebuildProjection(collectionId: string, animalIds?: string[]) {
+      const c = await collectionOf(collectionId);
+      await refoldStates(db, c.id, c.timeZone, animalIds);
+    },
+
+    /**
+     * Materialises the round for `date` once: the unique (collection, date) row is claimed in
+     * the same transaction as the items, so concurrent builders (several server processes, the
+     * job and a request) produce exactly one round.
+     */
+    async build(collectionId: string, date: LocalDate): Promise<{ created: boolean }> {
+      const c = await collectionOf(collectionId);
+      if (await findRound(db, c.id, date)) return { created: false };
+      const input = await engineInput(c, date);
+      const round = buildRound(input, rulesOf(c), date);
+      return db.transaction(async (tx) => {
+        const roundId = await claimRound(tx, c.id, date, round.prepList);
+        if (!roundId) return { created: false };
+        await insertRoundItems(
+          tx,
+          round.items.map((item, i) => ({
+            roundId,
+            animalId: item.animal.id,
+            sortIndex: i,
+            tasks: item.tasks,
+            notes: item.notes,
+            carriedOverDays: item.carriedOverDays,
+          })),
+        );
+        return { created: true };
+      });
+    },
+
+    /** The round for a date as it stands: built items, settled by the day's outcomes. */
+    async round(collectionId: string, date: LocalDate): Promise<RoundResponse> {
+      const c = await collectionOf(collectionId);
+      let row = await findRound(db, c.id, date);
+      if (!row) {
+        await service.build(c.id, date);
+        row = (await findRound(db, c.id, date))!;
+      }
+      const rows = await loadRoundItems(db, row.id);
+      const items = rows.map((r) => ({
+        animal: toEngineAnimal({ animal: r.animal, location: r.location, state: null, lastEventAt: null }, c.timeZone),
+        tasks: r.item.tasks as RoundTask[],
+        notes: r.item.notes as RoundItem['notes'],
+        carriedOverDays: r.item.carriedOverDays,
+        addedDuringDay: r.item.addedDuringDay,
+      }));
+      return view(c, date, row.builtAt, items, row.prepList as RoundResponse['prepList'], await outcomesByAnimal(c, date));
+    },
+
+    async todayRound(collectionId: string) {
+      const c = await collectionOf(collectionId);
+      return service.round(c.id, service.today(c));
+    },
+
+    /** Tomorrow as things stand now (not materialised: today's outcomes still change it). */
+    async tomorrowPreview(collectionId: string): Promise<RoundResponse> {
+      const c = await collectionOf(collectionId);
+      const date = addDays(service.today(c), 1);
+      const round = buildRound(await engineInput(c), rulesOf(c), date);
+      return view(c, date, null, round.items.map((i) => ({ ...i, addedDuringDay: false })), round.prepList, new Map());
+    },
+
+    async prepList(collectionId: string, date: LocalDate) {
+      const c = await collectionOf(collectionId);
+      const today = service.today(c);
+      if (date === today) return (await service.round(c.id, date)).prepList;
+      if (date === addDays(today, 1)) return (await service.tomorrowPreview(c.id)).prepList;
+      const row = await findRound(db, c.id, date);
+      if (!row) throw new HttpError(404, 'no_round', 'There is no round for that date. Prep lists exist for past rounds, today and tomorrow.');
+      return row.prepList as RoundResponse['prepList'];
+    },
+
+    /** Why an animal is (or is not) on today's round, with its next due dates. */
+    async schedule(collectionId: string, animalId: string): Promise<ScheduleResponse> {
+      const c = await collectionOf(collectionId);
+      const date = service.today(c);
+      const [input] = await engineInput(c, date, [animalId]);
+      if (!input) throw new HttpError(404, 'not_found', 'We could not find that animal.');
+      const d = decideAnimal(input.animal, input.state, rulesOf(c), date);
+      return { date, onRound: d.tasks.length > 0, tasks: d.tasks, notes: d.notes, nextFeed: d.nextFeed, nextWater: d.nextWater };
+    },
+
+    /**
+     * After new events: urgent removals the day's round did not plan (prey left in with an animal
+     * that is now molting or in premolt) are added to today's round with their reason.
+     */
+    async addUrgentTasks(collectionId: string, animalIds: string[]) {
+      const c = await collectionOf(collectionId);
+      const date = service.today(c);
+      const row = await findRound(db, c.id, date);
+      if (!row || !animalIds.length) return;
+      const existing = new Map((await loadRoundItems(db, row.id)).map((r) => [r.animal.id, r.item]));
+      const rules = rulesOf(c);
+      for (const { animal, state } of await engineInput(c, undefined, animalIds)) {
+        const d = decideAnimal(animal, state, rules, date);
+        const removal = d.tasks.find((t) => t.kind === 'remove_prey');
+        const urgent = removal && (state.leaveAlone || state.premoltSince);
+        const item = existing.get(animal.id);
+        const planned = (item?.tasks as RoundTask[] | undefined) ?? [];
+        if (!urgent || planned.some((t) => t.kind === 'remove_prey')) continue;
+        const added: RoundTask = { ...removal, reasons: [...removal.reasons, { code: 'remove_prey', text: 'Added during the day: remove it now.', dates: [date] }] };
+        await upsertUrgentItem(db, {
+          roundId: row.id,
+          animalId: animal.id,
+          sortIndex: item?.sortIndex ?? -1,
+          tasks: [added, ...planned],
+          notes: item?.notes ?? d.notes,
+          carriedOverDays: item?.carriedOverDays ?? 0,
+          addedDuringDay: true,
+        });
+      }
+    },
+
+    /**
+     * The scheduled job: every collection whose local day has begun without a round gets it
+     * built. Runs every few minutes, so "shortly after local midnight" in every zone, DST too.
+     */
+    async buildDueRounds(): Promise<string[]> {
+      const built: string[] = [];
+      for (const c of await collectionsWithLatestRound(db)) {
+        const today = localDateOf(now(), c.timeZone);
+        if (c.latest && c.latest >= today) continue;
+        if ((await service.build(c.id, today)).created) built.push(c.id);
+      }
+      return built;
+    },
+
+    async rules(collectionId: string) {
+      const c = await collectionOf(collectionId);
+      return { rules: rulesOf(c), defaults: effectiveRules({}), overrides: (c.rules ?? {}) as RulesOverride };
+    },
+
+    /** Replaces the collection's overrides; today's built round stays as it was built. */
+    async replaceRules(collectionId: string, overrides: RulesOverride) {
+      await updateCollectionRules(db, collectionId, overrides);
+      return service.rules(collectionId);
+    },
+  };
+  return service;
+}
+
+export type RoundsService = ReturnType<typeof createRoundsService>;

@@ -1,0 +1,46 @@
+import type { EventKind } from '../event-kinds';
+import type { TaskKind } from './build-round';
+
+/** Which of the day's outcomes settle which task (an outcome is a recorded event). */
+export const SETTLED_BY: Record<TaskKind, readonly EventKind[]> = {
+  remove_prey: ['prey_removed', 'ate'],
+  feed: ['ate', 'refused', 'prey_left_in', 'skipped'],
+  water: ['watered', 'skipped'],
+  check: ['note', 'premolt_seen', 'premolt_cleared', 'molted', 'molting_now', 'ate', 'refused', 'skipped'],
+  leave_alone: [],
+};
+
+export interface DayOutcome {
+  eventId: string;
+  kind: EventKind;
+  at: string; // ISO instant
+  by: string | null; // display name
+  /** Ids of events this one cancels (a void). */
+  voids?: string | null;
+}
+
+/** The day's outcomes without voided ones (and without the voids themselves), oldest first. */
+export function liveOutcomes<T extends DayOutcome>(outcomes: readonly T[]): T[] {
+  const voided = new Set(outcomes.filter((o) => o.kind === 'void' && o.voids).map((o) => o.voids!));
+  return outcomes.filter((o) => o.kind !== 'void' && !voided.has(o.eventId)).sort((a, b) => (a.at < b.at ? -1 : a.at > b.at ? 1 : 0));
+}
+
+/** The outcome that settled a task, if any: the first matching one of the day. */
+export function settlingOutcome<T extends DayOutcome>(kind: TaskKind, outcomes: readonly T[]): T | null {
+  return outcomes.find((o) => SETTLED_BY[kind].includes(o.kind)) ?? null;
+}
+
+/** Tasks that count towards progress (leave-alone is information, not work). */
+export function countsForProgress(kind: TaskKind): boolean {
+  return kind !== 'leave_alone';
+}
+
+/**
+ * "Fed twice today: 08:12 Robin, 08:40 Alex" when two meals were recorded for one animal on
+ * one day (two phones offline). `time` formats an instant as local HH:mm.
+ */
+export function doubleMealWarning(outcomes: readonly DayOutcome[], time: (iso: string) => string): string | null {
+  const meals = outcomes.filter((o) => o.kind === 'ate');
+  if (meals.length < 2) return null;
+  return `Fed ${meals.length === 2 ? 'twice' : `${meals.length} times`} today: ${meals.map((m) => `${time(m.at)} ${m.by ?? 'someone'}`).join(', ')}.`;
+}
