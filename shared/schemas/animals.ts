@@ -30,6 +30,12 @@ export const animalSummary = z.object({
   status: z.enum(ANIMAL_STATUSES),
   cautions: z.array(z.enum(CAUTIONS)),
   location: locationSummary.nullable(),
+  hasWaterDish: z.boolean(),
+  intervalDays: z.number().nullable(),
+  preyType: z.string().nullable(),
+  preySize: z.string().nullable(),
+  preyCount: z.number().nullable(),
+  doNotFeedUntil: z.string().nullable(),
 });
 export type AnimalSummary = z.infer<typeof animalSummary>;
 

@@ -30,9 +30,11 @@ describe('the app shell at 360 × 740', () => {
     await page.waitForURL('**/today');
     await expect.poll(() => page.getByText('Northlight Inverts').first().isVisible()).toBe(true);
     await expect.poll(() => page.getByRole('article', { name: /Juniper/ }).isVisible()).toBe(true);
-    expect(await page.getByRole('article').count()).toBe(42);
     await expectAccessible(page, 'today');
     await screenshot(page, 'foundation-02-today-dark');
+    await page.getByRole('link', { name: 'Animals' }).click();
+    await page.waitForURL('**/animals');
+    await expect.poll(() => page.getByRole('article').count()).toBe(42);
 
     await page.getByRole('link', { name: 'Settings' }).click();
     await page.waitForURL('**/settings');
@@ -65,7 +67,7 @@ describe('the app shell at 360 × 740', () => {
     await page.getByLabel('Password').fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL('**/today');
-    for (const route of ['/today', '/settings']) {
+    for (const route of ['/today', '/tomorrow', '/animals', '/settings', '/settings/rules']) {
       await page.goto(`${server.baseUrl}${route}`);
       await page.getByRole('navigation', { name: 'Main' }).waitFor();
       const small = await page.$$eval('button, a, input[type=radio], input[type=text], input[type=email], input[type=password], input[type=search]', (els) =>

@@ -114,14 +114,15 @@ function historyFor(animal: DemoAnimal, today: LocalDate, random: () => number):
   const minute = () => 18 * 60 + Math.floor(random() * 150); // evening rounds, 18:00–20:30
 
   // Routine feeding from 60 days ago until the story takes over.
+  // Routine history stops before the first event of the animal's story.
   const storyStart: Record<NonNullable<DemoAnimal['story']> | 'none', number> = {
     none: 0,
-    two_refusals: -14,
-    premolt: -7,
-    molted_5_days: -5,
+    two_refusals: -26,
+    premolt: -13,
+    molted_5_days: -16,
     sac_3_weeks: -21,
-    paired_10_days: -10,
-    prey_left_yesterday: -1,
+    paired_10_days: -12,
+    prey_left_yesterday: -4,
     missed: -1,
   };
   const stopAt = storyStart[animal.story ?? 'none'];

@@ -24,6 +24,12 @@ export function createAnimalsService(db: NodePgDatabase) {
         location: l
           ? { id: l.id, room: l.room, rack: l.rack, shelf: l.shelf, position: l.position, walkOrder: l.walkOrder }
           : null,
+        hasWaterDish: a.hasWaterDish,
+        intervalDays: a.intervalDays,
+        preyType: a.preyType,
+        preySize: a.preySize,
+        preyCount: a.preyCount,
+        doNotFeedUntil: a.doNotFeedUntil,
       }));
       return summaries.sort((x, y) => compareLocations(x.location, y.location) || x.labelCode.localeCompare(y.labelCode));
     },

@@ -1,4 +1,4 @@
-import { useNavigate } from 'react-router-dom';
+import { Link, useNavigate } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { SafetyNote } from '@/components/ui/safety-note';
@@ -16,6 +16,12 @@ export function SettingsRoute() {
     <div className="flex flex-col gap-6">
       <h1 className="text-3xl font-extrabold">Settings</h1>
       <ThemePicker />
+      {collection && collection.role !== 'helper' && (
+        <Link to="/settings/rules" className="flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold">
+          Round rules
+          <span aria-hidden="true">›</span>
+        </Link>
+      )}
       {me.memberships.length > 0 && (
         <CollectionSwitcher memberships={me.memberships} currentId={collection?.collectionId} onChoose={chooseCollection} />
       )}

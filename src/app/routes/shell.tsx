@@ -1,6 +1,6 @@
 import { NavLink, Navigate, Outlet, useLocation, useOutletContext } from 'react-router-dom';
 import type { MeResponse, MembershipSummary } from '#shared/schemas/auth';
-import { DialIcon, RackIcon, RoundIcon } from '@/components/ui/icons';
+import { DialIcon, RackIcon, RoundIcon, TomorrowIcon } from '@/components/ui/icons';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useMe } from '@/features/auth/api/get-me';
@@ -19,13 +19,14 @@ export function useShell() {
 
 const NAV = [
   { to: '/today', label: 'Today', Icon: RoundIcon },
+  { to: '/tomorrow', label: 'Tomorrow', Icon: TomorrowIcon },
   { to: '/animals', label: 'Animals', Icon: RackIcon },
   { to: '/settings', label: 'Settings', Icon: DialIcon },
 ];
 
 function BottomNav() {
   return (
-    <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 border-t-2 border-border bg-surface pb-[env(safe-area-inset-bottom)]">
+    <nav aria-label="Main" className="print:hidden fixed inset-x-0 bottom-0 z-20 border-t-2 border-border bg-surface pb-[env(safe-area-inset-bottom)]">
       <ul className="mx-auto flex max-w-xl">
         {NAV.map(({ to, label, Icon }) => (
           <li key={to} className="flex-1">
@@ -66,7 +67,7 @@ export function Shell() {
   const context: ShellContext = { me: me.data, collection: current, chooseCollection: choose };
   return (
     <div className="min-h-dvh pb-24">
-      <header className="border-b-2 border-border bg-surface px-4 py-2">
+      <header className="print:hidden border-b-2 border-border bg-surface px-4 py-2">
         <p className="mx-auto max-w-xl truncate text-sm font-bold text-muted">
           Rackside · <span className="text-text">{current?.collectionName ?? 'No collection'}</span>
         </p>

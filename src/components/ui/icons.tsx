@@ -36,12 +36,13 @@ export function DialIcon(props: SVGProps<SVGSVGElement>) {
   );
 }
 
-/** Potent venom: a drop. */
+/** Potent venom: a pair of fangs. */
 export function VenomIcon(props: SVGProps<SVGSVGElement>) {
   return (
     <Svg {...props}>
-      <path d="M12 3c3 4.5 6 8 6 11a6 6 0 0 1-12 0c0-3 3-6.5 6-11z" />
-      <path d="M10 14.5a2 2 0 0 0 2 2" />
+      <path d="M4 4h16" />
+      <path d="M7 4c0 6 1.5 11 4 15-3-1-5.5-5-5.5-10" />
+      <path d="M17 4c0 6-1.5 11-4 15 3-1 5.5-5 5.5-10" />
     </Svg>
   );
 }
@@ -80,6 +81,66 @@ export function MailIcon(props: SVGProps<SVGSVGElement>) {
     <Svg {...props}>
       <rect x="3" y="5" width="18" height="14" rx="2" />
       <path d="M3 7l9 6 9-6" />
+    </Svg>
+  );
+}
+
+/** Remove prey: tongs lifting something out of a box. */
+export function RemovePreyIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <path d="M4 12v8h16v-8" />
+      <path d="M12 16V3M8 7l4-4 4 4" />
+    </Svg>
+  );
+}
+
+/** Feed: tongs closing on prey. */
+export function FeedIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <path d="M3 3l9 12M9 3l3 12" />
+      <ellipse cx="15.5" cy="18" rx="4.5" ry="2.5" />
+    </Svg>
+  );
+}
+
+/** Water: a drop over a dish. */
+export function WaterIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <path d="M12 3c2.5 3.5 4.5 6 4.5 8.5a4.5 4.5 0 0 1-9 0C7.5 9 9.5 6.5 12 3z" />
+      <path d="M3 19h18l-2 2H5z" />
+    </Svg>
+  );
+}
+
+/** Check: an eye. */
+export function CheckIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <path d="M2 12s3.5-6 10-6 10 6 10 6-3.5 6-10 6S2 12 2 12z" />
+      <circle cx="12" cy="12" r="2.5" />
+    </Svg>
+  );
+}
+
+/** Leave alone: a raised flat hand (stop). */
+export function LeaveAloneIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <circle cx="12" cy="12" r="9" />
+      <path d="M9.5 8.5v7M14.5 8.5v7" />
+    </Svg>
+  );
+}
+
+/** Tomorrow: a calendar page with an arrow. */
+export function TomorrowIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <rect x="3" y="5" width="18" height="16" rx="2" />
+      <path d="M3 10h18M8 3v4M16 3v4M10 15.5h5M13 13l2.5 2.5L13 18" />
     </Svg>
   );
 }

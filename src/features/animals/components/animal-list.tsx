@@ -46,7 +46,7 @@ export function AnimalList({ collectionId, searchable = false }: { collectionId:
         <section key={label} aria-label={label} className="flex flex-col gap-2">
           <h2 className="sticky top-0 z-10 bg-bg py-1 text-lg font-extrabold">{label}</h2>
           {list.map((a) => (
-            <AnimalCard key={a.id} animal={a} />
+            <AnimalCard key={a.id} animal={a} linked />
           ))}
         </section>
       ))}

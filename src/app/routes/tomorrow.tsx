@@ -1,0 +1,40 @@
+import { describeLocalDate } from '#shared/domain/local-dates';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { Loading } from '@/components/ui/spinner';
+import { useTomorrowRound } from '@/features/rounds/api/get-tomorrow-round';
+import { PrepList } from '@/features/rounds/components/prep-list';
+import { RoundList } from '@/features/rounds/components/round-list';
+import { useShell } from './shell';
+
+export function TomorrowRoute() {
+  const { collection } = useShell();
+  if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
+  if (collection.role === 'helper') return <Notice tone="info" title="Helpers see today’s round only." />;
+  return <Tomorrow collectionId={collection.collectionId} />;
+}
+
+function Tomorrow({ collectionId }: { collectionId: string }) {
+  const round = useTomorrowRound(collectionId);
+  if (round.isPending) return <Loading label="Working out tomorrow…" />;
+  if (round.isError) return <Notice tone="error" title={round.error.message} />;
+  const r = round.data;
+  return (
+    <div className="flex flex-col gap-4">
+      <h1 className="text-3xl font-extrabold">Tomorrow · {describeLocalDate(r.date)}</h1>
+      <p className="text-muted print:hidden">A preview: what is recorded today still changes it. The round is fixed when its day begins.</p>
+      <section aria-labelledby="prep-heading" className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3 print:border-black">
+        <h2 id="prep-heading" className="text-xl font-extrabold">
+          Prep list · {r.items.length} animals
+        </h2>
+        <PrepList lines={r.prepList} />
+        <Button variant="secondary" className="print:hidden" onClick={() => window.print()}>
+          Print prep list
+        </Button>
+      </section>
+      <div className="print:hidden">
+        <RoundList items={r.items} />
+      </div>
+    </div>
+  );
+}

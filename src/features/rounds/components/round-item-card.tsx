@@ -1,0 +1,78 @@
+import { SEX_LABEL, STAGE_LABEL } from '#shared/domain/animal-facts';
+import type { RoundItemView } from '#shared/schemas/rounds';
+import { CautionBadges } from '@/components/ui/caution-badges';
+import { describeOffer, TASK_META } from './task-meta';
+
+function placeCode(location: RoundItemView['animal']['location']) {
+  return location ? `${location.rack}${location.shelf}-${location.position}` : 'No place';
+}
+
+/** One animal on the round: what, where, how much and why, without opening anything. */
+export function RoundItemCard({ item }: { item: RoundItemView }) {
+  const { animal } = item;
+  return (
+    <article aria-label={`${animal.name}, ${animal.labelCode}`} className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
+      <header className="flex items-start justify-between gap-2">
+        <div>
+          <h3 className="text-xl font-extrabold leading-tight">{animal.name}</h3>
+          <p className="text-sm text-muted">
+            <i lang="la">{animal.scientificName}</i> · {STAGE_LABEL[animal.lifeStage]} · {SEX_LABEL[animal.sex]}
+          </p>
+        </div>
+        <div className="flex flex-col items-end gap-1">
+          <span className="whitespace-nowrap rounded-md border-2 border-border px-2 font-mono font-bold tracking-wider">{animal.labelCode}</span>
+          <span className="font-bold">{placeCode(animal.location)}</span>
+        </div>
+      </header>
+      {/* Safety first: cautions sit above the tasks. */}
+      <CautionBadges cautions={animal.cautions} />
+      {item.warnings.map((w) => (
+        <p key={w} role="alert" className="rounded-lg border-2 border-accent px-2 py-1 font-bold text-accent">
+          <span aria-hidden="true">! </span>
+          {w}
+        </p>
+      ))}
+      <ul className="flex flex-col gap-2">
+        {item.tasks.map((task) => {
+          const { word, Icon } = TASK_META[task.kind];
+          return (
+            <li key={task.kind} className="flex gap-2">
+              <Icon className={task.kind === 'leave_alone' || task.kind === 'remove_prey' ? 'shrink-0 text-danger' : 'shrink-0 text-text'} />
+              <div className="flex-1">
+                <p className="font-extrabold">
+                  {word}
+                  {task.offer && <span className="font-bold"> · {describeOffer(task.offer)}</span>}
+                  {task.carriedOverDays > 0 && (
+                    <span className="ml-2 rounded-md border-2 border-accent px-1.5 text-sm text-accent">
+                      carried over {task.carriedOverDays} {task.carriedOverDays === 1 ? 'day' : 'days'}
+                    </span>
+                  )}
+                  {task.done && (
+                    <span className="ml-2 rounded-md border-2 border-ok px-1.5 text-sm text-ok">
+                      <span aria-hidden="true">✓ </span>done{task.done.by ? ` by ${task.done.by}` : ''}
+                    </span>
+                  )}
+                </p>
+                <ul className="text-sm text-muted">
+                  {task.reasons.map((r) => (
+                    <li key={r.code + r.text}>{r.text}</li>
+                  ))}
+                </ul>
+              </div>
+            </li>
+          );
+        })}
+      </ul>
+      {item.notes.length > 0 && (
+        <ul className="border-t-2 border-border pt-2 text-sm">
+          {item.notes.map((n) => (
+            <li key={n.code + n.text}>
+              <span aria-hidden="true">ℹ </span>
+              {n.text}
+            </li>
+          ))}
+        </ul>
+      )}
+    </article>
+  );
+}

@@ -1,0 +1,31 @@
+import type { RoundItemView } from '#shared/schemas/rounds';
+import { RoundItemCard } from './round-item-card';
+
+function shelfOf(item: RoundItemView) {
+  const l = item.animal.location;
+  return l ? `${l.room} · Rack ${l.rack} · Shelf ${l.shelf}` : 'Without a place';
+}
+
+/** Items in walk order, grouped by shelf with sticky headings. */
+export function RoundList({ items }: { items: RoundItemView[] }) {
+  const groups: [string, RoundItemView[]][] = [];
+  for (const item of items) {
+    const label = shelfOf(item);
+    const last = groups.at(-1);
+    if (last && last[0] === label) last[1].push(item);
+    else groups.push([label, [item]]);
+  }
+  if (!items.length) return <p className="text-muted">Nothing is due. Enjoy the quiet.</p>;
+  return (
+    <div className="flex flex-col gap-4">
+      {groups.map(([label, list], i) => (
+        <section key={`${label}-${i}`} aria-label={label} className="flex flex-col gap-2">
+          <h2 className="sticky top-0 z-10 bg-bg py-1 text-lg font-extrabold">{label}</h2>
+          {list.map((item) => (
+            <RoundItemCard key={item.animal.id} item={item} />
+          ))}
+        </section>
+      ))}
+    </div>
+  );
+}
