@@ -1,8 +1,6 @@
 // `npm run db:migrate | db:seed [-- --reset] | db:stop`
 import { localSessionSecret } from './lib/secrets.mjs';
-import {
-  clusterUrl, ensureDatabase, ensureNodeModules, runTs, say, startCluster, stopCluster,
-} from './lib/setup.mjs';
+import { ensureNodeModules, prepareDatabase, runTs, say, stopCluster } from './lib/setup.mjs';
 
 const [command, ...rest] = process.argv.slice(2);
 
@@ -12,12 +10,7 @@ if (command === 'stop') {
 }
 
 ensureNodeModules();
-let databaseUrl = process.env.DATABASE_URL;
-if (!databaseUrl) {
-  startCluster();
-  databaseUrl = clusterUrl('rackside');
-  await ensureDatabase(databaseUrl);
-}
+const { databaseUrl } = await prepareDatabase();
 const env = { ...process.env, DATABASE_URL: databaseUrl, SESSION_SECRET: process.env.SESSION_SECRET ?? localSessionSecret() };
 if (command === 'migrate') runTs('server/db/cli.ts', ['migrate'], env);
 else if (command === 'seed') {

@@ -2,15 +2,10 @@
 import { spawn } from 'node:child_process';
 import path from 'node:path';
 import { localSessionSecret } from './lib/secrets.mjs';
-import { clusterUrl, ensureDatabase, ensureNodeModules, repoRoot, runTs, startCluster } from './lib/setup.mjs';
+import { ensureNodeModules, prepareDatabase, repoRoot, runTs } from './lib/setup.mjs';
 
 ensureNodeModules();
-let databaseUrl = process.env.DATABASE_URL;
-if (!databaseUrl) {
-  startCluster();
-  databaseUrl = clusterUrl('rackside');
-  await ensureDatabase(databaseUrl);
-}
+const { databaseUrl } = await prepareDatabase();
 const env = {
   ...process.env,
   DATABASE_URL: databaseUrl,

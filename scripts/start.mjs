@@ -2,22 +2,12 @@
 import { spawn } from 'node:child_process';
 import path from 'node:path';
 import { localSessionSecret } from './lib/secrets.mjs';
-import {
-  clusterUrl, ensureDatabase, ensureNodeModules, repoRoot, run, runTs, say, startCluster, stopCluster,
-} from './lib/setup.mjs';
+import { ensureNodeModules, prepareDatabase, repoRoot, run, runTs, say, stopCluster } from './lib/setup.mjs';
 
 const began = Date.now();
 ensureNodeModules();
 
-let startedCluster = false;
-let databaseUrl = process.env.DATABASE_URL;
-if (databaseUrl) {
-  say('Using the PostgreSQL server in DATABASE_URL (no private cluster).');
-} else {
-  startedCluster = startCluster();
-  databaseUrl = clusterUrl('rackside');
-  await ensureDatabase(databaseUrl);
-}
+const { databaseUrl, startedCluster } = await prepareDatabase();
 
 const production = process.env.NODE_ENV === 'production';
 const env = {

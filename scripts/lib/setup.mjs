@@ -210,3 +210,18 @@ export async function ensureDatabase(url) {
 export function runTs(file, args = [], env = process.env) {
   run(path.join(repoRoot, 'node_modules', '.bin', 'tsx'), [file, ...args], { env });
 }
+
+/**
+ * The app's database: the server in DATABASE_URL, else the private cluster (started if need
+ * be) and its `rackside` database. Returns the URL and whether this call started the cluster.
+ */
+export async function prepareDatabase() {
+  if (process.env.DATABASE_URL) {
+    say('Using the PostgreSQL server in DATABASE_URL (no private cluster).');
+    return { databaseUrl: process.env.DATABASE_URL, startedCluster: false };
+  }
+  const startedCluster = startCluster();
+  const databaseUrl = clusterUrl('rackside');
+  await ensureDatabase(databaseUrl);
+  return { databaseUrl, startedCluster };
+}

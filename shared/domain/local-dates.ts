@@ -1,5 +1,4 @@
-import { TZDate, tz } from '@date-fns/tz';
-import { format } from 'date-fns';
+import { TZDate } from '@date-fns/tz';
 
 /**
  * A round belongs to a calendar date in the collection's IANA zone. Calendar dates are kept as
@@ -10,13 +9,46 @@ export type LocalDate = string;
 const DAY_MS = 86_400_000;
 
 function parts(date: LocalDate): [number, number, number] {
-  const [y, m, d] = date.split('-').map(Number);
-  return [y!, m!, d!];
+  return [Number(date.slice(0, 4)), Number(date.slice(5, 7)), Number(date.slice(8, 10))];
 }
+
+// Day arithmetic runs millions of times when a large collection's round is built: dates are
+// mapped to day numbers (days since 1970-01-01) once and remembered. Bounded caches.
+const dayNumbers = new Map<string, number>();
+const dayStrings = new Map<number, string>();
+function dayNumber(date: LocalDate): number {
+  let n = dayNumbers.get(date);
+  if (n === undefined) {
+    const [y, m, d] = parts(date);
+    n = Math.round(Date.UTC(y, m - 1, d) / DAY_MS);
+    if (dayNumbers.size > 50_000) dayNumbers.clear();
+    dayNumbers.set(date, n);
+  }
+  return n;
+}
+function fromDayNumber(n: number): LocalDate {
+  let s = dayStrings.get(n);
+  if (s === undefined) {
+    s = new Date(n * DAY_MS).toISOString().slice(0, 10);
+    if (dayStrings.size > 50_000) dayStrings.clear();
+    dayStrings.set(n, s);
+  }
+  return s;
+}
+
+// One formatter per zone: building an Intl.DateTimeFormat is the expensive part.
+const formatters = new Map<string, Intl.DateTimeFormat>();
 
 /** The calendar date an instant falls on in `zone`. */
 export function localDateOf(instant: Date, zone: string): LocalDate {
-  return format(instant, 'yyyy-MM-dd', { in: tz(zone) });
+  let f = formatters.get(zone);
+  if (!f) {
+    f = new Intl.DateTimeFormat('en-CA', { timeZone: zone, year: 'numeric', month: '2-digit', day: '2-digit' });
+    formatters.set(zone, f);
+  }
+  const parts = f.formatToParts(instant);
+  const get = (type: string) => parts.find((p) => p.type === type)!.value;
+  return `${get('year')}-${get('month')}-${get('day')}`;
 }
 
 /** The instant a local calendar date begins in `zone` (handles DST: not always 00:00 UTC±n). */
@@ -27,15 +59,12 @@ export function startOfLocalDate(date: LocalDate, zone: string): Date {
 
 /** The calendar date `days` after `date` (negative goes back). Pure calendar arithmetic. */
 export function addDays(date: LocalDate, days: number): LocalDate {
-  const [y, m, d] = parts(date);
-  return new Date(Date.UTC(y, m - 1, d) + days * DAY_MS).toISOString().slice(0, 10);
+  return fromDayNumber(dayNumber(date) + days);
 }
 
 /** Whole calendar days from `from` to `to` (positive when `to` is later). */
 export function daysBetween(from: LocalDate, to: LocalDate): number {
-  const [y1, m1, d1] = parts(from);
-  const [y2, m2, d2] = parts(to);
-  return Math.round((Date.UTC(y2, m2 - 1, d2) - Date.UTC(y1, m1 - 1, d1)) / DAY_MS);
+  return dayNumber(to) - dayNumber(from);
 }
 
 const WEEKDAYS = ['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat'];

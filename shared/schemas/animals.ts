@@ -17,6 +17,11 @@ export const locationSummary = z.object({
 });
 export type LocationSummary = z.infer<typeof locationSummary>;
 
+/** A stored location row as the API shows it. */
+export function toLocationSummary(l: LocationSummary | null): LocationSummary | null {
+  return l ? { id: l.id, room: l.room, rack: l.rack, shelf: l.shelf, position: l.position, walkOrder: l.walkOrder } : null;
+}
+
 export const animalSummary = z.object({
   id: z.string(),
   labelCode: z.string(),

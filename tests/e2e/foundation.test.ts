@@ -1,24 +1,13 @@
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD } from '../../server/db/seed/demo-people';
-import { expectAccessible, launchBrowser, phonePage, screenshot, startServer, type E2eServer } from './support';
+import { expectAccessible, phonePage, screenshot, useE2e } from './support';
 
-let server: E2eServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  ({ browser } = await launchBrowser());
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const env = useE2e();
 
 describe('the app shell at 360 × 740', () => {
   it('signs in as the demo owner, shows the demo collection, switches themes and signs out', async () => {
-    const { context, page, consoleErrors } = await phonePage(browser);
-    await page.goto(`${server.baseUrl}/today`);
+    const { context, page, consoleErrors } = await phonePage(env.browser);
+    await page.goto(`${env.server.baseUrl}/today`);
     await page.waitForURL('**/sign-in');
     await expect.poll(() => page.getByText('Demo accounts').isVisible()).toBe(true);
     await expectAccessible(page, 'sign-in');
@@ -48,27 +37,27 @@ describe('the app shell at 360 × 740', () => {
     await page.getByLabel('Night (red)').check();
     await page.reload();
     expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe('night');
-    await page.goto(`${server.baseUrl}/today`);
+    await page.goto(`${env.server.baseUrl}/today`);
     await screenshot(page, 'foundation-04-today-night');
-    await page.goto(`${server.baseUrl}/settings`);
+    await page.goto(`${env.server.baseUrl}/settings`);
 
     await page.getByRole('button', { name: 'Sign out' }).click();
     await page.waitForURL('**/sign-in');
-    await page.goto(`${server.baseUrl}/today`);
+    await page.goto(`${env.server.baseUrl}/today`);
     await page.waitForURL('**/sign-in');
     expect(consoleErrors).toEqual([]);
     await context.close();
   });
 
   it('keeps every control at least 48 px for gloved thumbs', async () => {
-    const { context, page } = await phonePage(browser);
-    await page.goto(`${server.baseUrl}/sign-in`);
+    const { context, page } = await phonePage(env.browser);
+    await page.goto(`${env.server.baseUrl}/sign-in`);
     await page.getByLabel('E-mail').fill('owner@northlight.test');
     await page.getByLabel('Password').fill(DEMO_PASSWORD);
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL('**/today');
     for (const route of ['/today', '/tomorrow', '/animals', '/settings', '/settings/rules']) {
-      await page.goto(`${server.baseUrl}${route}`);
+      await page.goto(`${env.server.baseUrl}${route}`);
       await page.getByRole('navigation', { name: 'Main' }).waitFor();
       const small = await page.$$eval('button, a, input[type=radio], input[type=text], input[type=email], input[type=password], input[type=search]', (els) =>
         els
@@ -87,23 +76,23 @@ describe('the app shell at 360 × 740', () => {
   });
 
   it('resets a password through the dev mailbox link', async () => {
-    const { context, page } = await phonePage(browser);
-    await page.goto(`${server.baseUrl}/forgot-password`);
+    const { context, page } = await phonePage(env.browser);
+    await page.goto(`${env.server.baseUrl}/forgot-password`);
     await page.getByLabel('E-mail').fill('partner@northlight.test');
     await page.getByRole('button', { name: 'Send me a reset link' }).click();
     await expect.poll(() => page.getByText(/a reset link is on its way/).isVisible()).toBe(true);
-    await page.goto(`${server.baseUrl}/dev/mailbox`);
+    await page.goto(`${env.server.baseUrl}/dev/mailbox`);
     const link = page.getByRole('link', { name: /reset-password\?token=/ });
     await link.first().waitFor();
     await expectAccessible(page, 'mailbox');
     await screenshot(page, 'foundation-05-mailbox');
     const href = (await link.first().getAttribute('href'))!;
-    await page.goto(href.replace(/^https?:\/\/[^/]+/, server.baseUrl));
+    await page.goto(href.replace(/^https?:\/\/[^/]+/, env.server.baseUrl));
     await page.getByLabel('New password', { exact: true }).fill('a new partner password');
     await page.getByLabel('New password again').fill('a new partner password');
     await page.getByRole('button', { name: 'Save new password' }).click();
     await expect.poll(() => page.getByText(/Your password is changed/).isVisible()).toBe(true);
-    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.goto(`${env.server.baseUrl}/sign-in`);
     await page.getByLabel('E-mail').fill('partner@northlight.test');
     await page.getByLabel('Password').fill('a new partner password');
     await page.getByRole('button', { name: 'Sign in' }).click();

@@ -1,8 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import type { Browser } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { distDir, launchBrowser, startServer, type E2eServer } from './support';
+import { describe, expect, it } from 'vitest';
+import { distDir, useE2e } from './support';
 
 /** Width and height from a PNG's IHDR chunk (PNG spec, ISO/IEC 15948, 11.2.2). */
 function pngSize(file: string): { width: number; height: number } {
@@ -11,16 +10,7 @@ function pngSize(file: string): { width: number; height: number } {
   return { width: buf.readUInt32BE(16), height: buf.readUInt32BE(20) };
 }
 
-let server: E2eServer;
-let browser: Browser;
-beforeAll(async () => {
-  server = await startServer();
-  ({ browser } = await launchBrowser());
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const env = useE2e();
 
 describe('installable app', () => {
   // W3C Web App Manifest; Chromium's install criteria: name or short_name, icons of 192 and
@@ -42,23 +32,23 @@ describe('installable app', () => {
   });
 
   it('serves the service worker and page uncached, hashed assets immutable, and never swallows /api', async () => {
-    const sw = await fetch(`${server.baseUrl}/sw.js`);
+    const sw = await fetch(`${env.server.baseUrl}/sw.js`);
     expect(sw.status).toBe(200);
     expect(sw.headers.get('cache-control')).toBe('no-cache');
-    const page = await fetch(`${server.baseUrl}/animals`, { headers: { Accept: 'text/html' } });
+    const page = await fetch(`${env.server.baseUrl}/animals`, { headers: { Accept: 'text/html' } });
     expect(page.headers.get('cache-control')).toBe('no-cache');
     const html = await page.text();
     const asset = /\/assets\/[\w.-]+\.js/.exec(html)![0];
-    expect((await fetch(`${server.baseUrl}${asset}`)).headers.get('cache-control')).toContain('immutable');
-    const api = await fetch(`${server.baseUrl}/api/nothing-here`, { headers: { Accept: 'text/html' } });
+    expect((await fetch(`${env.server.baseUrl}${asset}`)).headers.get('cache-control')).toContain('immutable');
+    const api = await fetch(`${env.server.baseUrl}/api/nothing-here`, { headers: { Accept: 'text/html' } });
     expect(api.status).toBe(404);
     expect(api.headers.get('content-type')).toContain('application/json');
   });
 
   it('registers a service worker that precaches the shell and fonts', async () => {
-    const context = await browser.newContext();
+    const context = await env.browser.newContext();
     const page = await context.newPage();
-    await page.goto(`${server.baseUrl}/sign-in`);
+    await page.goto(`${env.server.baseUrl}/sign-in`);
     const cached = await page.evaluate(async () => {
       const reg = await Promise.race([
         navigator.serviceWorker.ready,

@@ -1,22 +1,12 @@
-import type { Browser, Page } from 'playwright-core';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD } from '../../server/db/seed/demo-people';
-import { expectAccessible, launchBrowser, phonePage, screenshot, startServer, type E2eServer } from './support';
+import { expectAccessible, phonePage, screenshot, useE2e } from './support';
 
-let server: E2eServer;
-let browser: Browser;
-
-beforeAll(async () => {
-  server = await startServer();
-  ({ browser } = await launchBrowser());
-});
-afterAll(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const env = useE2e();
 
 async function signIn(page: Page, email: string) {
-  await page.goto(`${server.baseUrl}/sign-in`);
+  await page.goto(`${env.server.baseUrl}/sign-in`);
   await page.getByLabel('E-mail').fill(email);
   await page.getByLabel('Password').fill(DEMO_PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
@@ -25,7 +15,7 @@ async function signIn(page: Page, email: string) {
 
 describe('the round screens at 360 × 740', () => {
   it('shows today with reasons, tomorrow with its prep list, the rules, and an animal’s schedule', async () => {
-    const { context, page, consoleErrors } = await phonePage(browser);
+    const { context, page, consoleErrors } = await phonePage(env.browser);
     await signIn(page, 'owner@northlight.test');
 
     const bramble = page.getByRole('article', { name: /Bramble/ });
@@ -48,7 +38,7 @@ describe('the round screens at 360 × 740', () => {
     expect(await page.getByRole('navigation', { name: 'Main' }).isVisible()).toBe(false);
     await page.emulateMedia({ media: 'screen' });
 
-    await page.goto(`${server.baseUrl}/settings/rules`);
+    await page.goto(`${env.server.baseUrl}/settings/rules`);
     const adult = page.getByLabel('Adult (refusals)', { exact: true });
     await adult.waitFor();
     expect(await adult.inputValue()).toBe('2');

@@ -6,7 +6,7 @@ import os from 'node:os';
 import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { expect } from 'vitest';
+import { afterAll, beforeAll, expect } from 'vitest';
 import { seedDemo } from '../../server/db/seed/demo';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
@@ -80,4 +80,18 @@ export async function expectAccessible(page: Page, label: string) {
 export async function screenshot(page: Page, name: string) {
   fs.mkdirSync(screenshotsDir, { recursive: true });
   await page.screenshot({ path: path.join(screenshotsDir, `${name}.png`), fullPage: false });
+}
+
+/** Registers the usual hooks: one seeded server and one browser for the whole test file. */
+export function useE2e(): { readonly server: E2eServer; readonly browser: Browser } {
+  const env = {} as { server: E2eServer; browser: Browser };
+  beforeAll(async () => {
+    env.server = await startServer();
+    ({ browser: env.browser } = await launchBrowser());
+  });
+  afterAll(async () => {
+    await env.browser?.close();
+    await env.server?.close();
+  });
+  return env;
 }

@@ -1,6 +1,6 @@
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { compareLocations } from '../../../shared/domain/walk-order';
-import type { AnimalSummary } from '../../../shared/schemas/animals';
+import { toLocationSummary, type AnimalSummary } from '../../../shared/schemas/animals';
 import type { CareSettingsBody } from '../../../shared/schemas/rules';
 import { HttpError } from '../../middleware/errors';
 import { listAnimals, updateAnimalCare } from './animals.repository';
@@ -21,9 +21,7 @@ export function createAnimalsService(db: NodePgDatabase) {
         sizeMm: a.sizeMm,
         status: a.status,
         cautions: a.cautions as AnimalSummary['cautions'],
-        location: l
-          ? { id: l.id, room: l.room, rack: l.rack, shelf: l.shelf, position: l.position, walkOrder: l.walkOrder }
-          : null,
+        location: toLocationSummary(l),
         hasWaterDish: a.hasWaterDish,
         intervalDays: a.intervalDays,
         preyType: a.preyType,

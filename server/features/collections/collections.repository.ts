@@ -3,16 +3,18 @@ import type { Db } from '../../db/client';
 import { collections, memberships } from '../../db/schema/collections';
 import { users } from '../../db/schema/users';
 
+const membershipFields = {
+  collectionId: collections.id,
+  collectionName: collections.name,
+  timeZone: collections.timeZone,
+  role: memberships.role,
+  startsAt: memberships.startsAt,
+  endsAt: memberships.endsAt,
+};
+
 export async function findMembership(db: Db, collectionId: string, userId: string) {
   const rows = await db
-    .select({
-      collectionId: collections.id,
-      collectionName: collections.name,
-      timeZone: collections.timeZone,
-      role: memberships.role,
-      startsAt: memberships.startsAt,
-      endsAt: memberships.endsAt,
-    })
+    .select(membershipFields)
     .from(memberships)
     .innerJoin(collections, eq(collections.id, memberships.collectionId))
     .where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, userId)))
@@ -23,14 +25,7 @@ export type Membership = NonNullable<Awaited<ReturnType<typeof findMembership>>>
 
 export async function listMembershipsOfUser(db: Db, userId: string) {
   return db
-    .select({
-      collectionId: collections.id,
-      collectionName: collections.name,
-      timeZone: collections.timeZone,
-      role: memberships.role,
-      startsAt: memberships.startsAt,
-      endsAt: memberships.endsAt,
-    })
+    .select(membershipFields)
     .from(memberships)
     .innerJoin(collections, eq(collections.id, memberships.collectionId))
     .where(eq(memberships.userId, userId))

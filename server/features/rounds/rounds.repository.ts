@@ -75,8 +75,25 @@ export async function claimRound(db: Db, collectionId: string, date: LocalDate, 
 
 export type NewRoundItem = typeof roundItems.$inferInsert;
 
-export async function insertRoundItems(db: Db, items: NewRoundItem[]) {
-  for (let i = 0; i < items.length; i += 1000) await db.insert(roundItems).values(items.slice(i, i + 1000));
+/**
+ * Writes a round's items as one JSON document per 5,000 rows: PostgreSQL unpacks it with
+ * jsonb_to_recordset far faster than it binds tens of thousands of parameters.
+ */
+export async function insertRoundItems(db: Db, roundId: string, items: Omit<NewRoundItem, 'roundId'>[]) {
+  for (let i = 0; i < items.length; i += 5000) {
+    const chunk = items.slice(i, i + 5000).map((it) => ({
+      animal_id: it.animalId,
+      sort_index: it.sortIndex,
+      tasks: it.tasks,
+      notes: it.notes ?? [],
+      carried_over_days: it.carriedOverDays ?? 0,
+    }));
+    await db.execute(sql`
+      insert into round_items (round_id, animal_id, sort_index, tasks, notes, carried_over_days)
+      select ${roundId}::uuid, x.animal_id, x.sort_index, x.tasks, x.notes, x.carried_over_days
+      from jsonb_to_recordset(${JSON.stringify(chunk)}::jsonb)
+        as x(animal_id uuid, sort_index int, tasks jsonb, notes jsonb, carried_over_days int)`);
+  }
 }
 
 export async function upsertUrgentItem(db: Db, item: NewRoundItem) {

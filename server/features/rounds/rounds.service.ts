@@ -5,6 +5,7 @@ import { EMPTY_STATE, projectState, type AnimalState } from '../../../shared/dom
 import { buildRound, decideAnimal, type EngineAnimal, type RoundItem, type RoundTask } from '../../../shared/domain/rounds/build-round';
 import { effectiveRules, type RoundRules, type RulesOverride } from '../../../shared/domain/rounds/rules';
 import { countsForProgress, doubleMealWarning, liveOutcomes, settlingOutcome, type DayOutcome } from '../../../shared/domain/rounds/settle';
+import { toLocationSummary } from '../../../shared/schemas/animals';
 import type { RoundItemView, RoundResponse, ScheduleResponse } from '../../../shared/schemas/rounds';
 import { HttpError } from '../../middleware/errors';
 import { refoldStates } from './projection';
@@ -27,7 +28,6 @@ type Collection = NonNullable<Awaited<ReturnType<typeof findCollection>>>;
 
 function toEngineAnimal(row: AnimalRow, zone: string): EngineAnimal {
   const a = row.animal;
-  const l = row.location;
   return {
     id: a.id,
     labelCode: a.labelCode,
@@ -39,7 +39,7 @@ function toEngineAnimal(row: AnimalRow, zone: string): EngineAnimal {
     sizeMm: a.sizeMm,
     status: a.status,
     cautions: a.cautions as Caution[],
-    location: l ? { id: l.id, room: l.room, rack: l.rack, shelf: l.shelf, position: l.position, walkOrder: l.walkOrder } : null,
+    location: toLocationSummary(row.location),
     hasWaterDish: a.hasWaterDish,
     intervalDays: a.intervalDays,
     preyType: a.preyType,
@@ -162,8 +162,8 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
         if (!roundId) return { created: false };
         await insertRoundItems(
           tx,
+          roundId,
           round.items.map((item, i) => ({
-            roundId,
             animalId: item.animal.id,
             sortIndex: i,
             tasks: item.tasks,

@@ -1,6 +1,6 @@
 import type { AnimalGroup, AnimalStatus, Caution, LifeStage, Sex } from '../animal-facts';
 import { addDays, daysBetween, type LocalDate } from '../local-dates';
-import { compareLocations, type Place } from '../walk-order';
+import type { Place } from '../walk-order';
 import type { AnimalState } from './animal-state';
 import { feedingInterval, TINY_SLING_OFFER, type Offer, type RoundRules } from './rules';
 
@@ -97,8 +97,7 @@ export interface BuiltRound {
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 /** "3 Mar" — the short date used in reasons. */
 export function shortDate(date: LocalDate): string {
-  const [, m, d] = date.split('-').map(Number) as [number, number, number];
-  return `${d} ${MONTHS[m - 1]}`;
+  return `${Number(date.slice(8, 10))} ${MONTHS[Number(date.slice(5, 7)) - 1]}`;
 }
 
 const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
@@ -324,22 +323,51 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
 
 const collator = new Intl.Collator('en', { numeric: true, sensitivity: 'base' });
 
+/** A key that sorts with plain comparison like a natural sort: digit runs padded. */
+const naturalKeys = new Map<string, string>();
+function natural(s: string): string {
+  let k = naturalKeys.get(s);
+  if (k === undefined) {
+    k = s.toLowerCase().replace(/\d+/g, (d) => d.padStart(12, '0'));
+    if (naturalKeys.size > 100_000) naturalKeys.clear();
+    naturalKeys.set(s, k);
+  }
+  return k;
+}
+
+interface SortKeys {
+  shelf: string;
+  position: string;
+}
+const keyCache = new WeakMap<RoundItem, SortKeys>();
+function keysOf(item: RoundItem): SortKeys {
+  let k = keyCache.get(item);
+  if (!k) {
+    const l = item.animal.location;
+    k = l
+      ? {
+          shelf: `${String(l.walkOrder + 1e9).padStart(12, '0')}\u0000${natural(l.room)}\u0000${natural(l.rack)}\u0000${natural(l.shelf)}`,
+          position: `${natural(l.position)}\u0000${natural(item.animal.labelCode)}`,
+        }
+      : { shelf: '\uffff', position: natural(item.animal.labelCode) };
+    keyCache.set(item, k);
+  }
+  return k;
+}
+const cmp = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+
 /**
- * R14 walk order: shelf by shelf (room → rack → shelf, natural sort, or the keeper's own walk
- * order), carried-over items first within a shelf, then by position.
+ * R14 walk order: shelf by shelf (the keeper's own walk order, then room → rack → shelf by
+ * natural sort, so 2 before 10), carried-over items first within a shelf, then by position.
+ * Sort keys are computed once per item: a collator per comparison is too slow at 20,000 items.
  */
 export function compareItems(a: RoundItem, b: RoundItem): number {
-  const la = a.animal.location;
-  const lb = b.animal.location;
-  if (!la || !lb) return la ? -1 : lb ? 1 : collator.compare(a.animal.labelCode, b.animal.labelCode);
-  const shelf =
-    la.walkOrder - lb.walkOrder ||
-    collator.compare(la.room, lb.room) ||
-    collator.compare(la.rack, lb.rack) ||
-    collator.compare(la.shelf, lb.shelf);
+  const ka = keysOf(a);
+  const kb = keysOf(b);
+  const shelf = cmp(ka.shelf, kb.shelf);
   if (shelf) return shelf;
   const carried = Number(b.carriedOverDays > 0) - Number(a.carriedOverDays > 0);
-  return carried || compareLocations(la, lb) || collator.compare(a.animal.labelCode, b.animal.labelCode);
+  return carried || cmp(ka.position, kb.position);
 }
 
 const SIZE_ORDER = ['tiny', 'pinhead', 'small', 'medium', 'large', 'adult'];

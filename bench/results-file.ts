@@ -1,0 +1,47 @@
+import fs from 'node:fs';
+import path from 'node:path';
+
+export interface Figure {
+  id: string;
+  what: string;
+  value: number;
+  unit: string;
+  target: number | string;
+  baseline?: number;
+  ratio?: number;
+  pass: boolean;
+}
+
+const root = path.resolve(import.meta.dirname, '..');
+
+/** Writes bench/results/latest.json and appends the run to docs/benchmarks.md (the history). */
+export function recordFigures(figures: Figure[], command: string, notes: string[]) {
+  const dir = path.join(root, 'bench', 'results');
+  fs.mkdirSync(dir, { recursive: true });
+  fs.writeFileSync(path.join(dir, 'latest.json'), `${JSON.stringify(figures, null, 2)}\n`);
+  const history = path.join(root, 'docs', 'benchmarks.md');
+  if (!fs.existsSync(history)) {
+    fs.writeFileSync(history, '# Benchmarks\n\nEvery run of `npm run bench` appends its figures here (newest last). Targets are in the budgets document; medians over several runs on a shared 2-core machine.\n');
+  }
+  const rows = figures.map(
+    (f) => `| ${f.id} | ${f.what} | ${f.value} ${f.unit} | ${f.target} | ${f.baseline ?? ''} | ${f.ratio ?? ''} | ${f.pass ? 'pass' : '**FAIL**'} |`,
+  );
+  const block = [
+    '',
+    `## ${new Date().toISOString().slice(0, 16).replace('T', ' ')} UTC — \`${command}\``,
+    '',
+    '| id | what | value | target | baseline | ratio | result |',
+    '| --- | --- | --- | --- | --- | --- | --- |',
+    ...rows,
+    '',
+    ...notes.map((n) => `- ${n}`),
+    '',
+  ].join('\n');
+  fs.appendFileSync(history, block);
+}
+
+export function median(values: number[]): number {
+  const s = [...values].sort((a, b) => a - b);
+  const mid = Math.floor(s.length / 2);
+  return s.length % 2 ? s[mid]! : (s[mid - 1]! + s[mid]!) / 2;
+}

@@ -1,0 +1,46 @@
+// Runs the benchmarks named on the command line (all when none) against a fresh database.
+import pg from 'pg';
+import { connectDatabase } from '../server/db/client';
+import { migrateDatabase } from '../server/db/migrate';
+import { runP6 } from './p6-round-build';
+import { recordFigures, type Figure } from './results-file';
+
+const BENCHES: Record<string, (db: ReturnType<typeof connectDatabase>) => Promise<{ figures: Figure[]; notes: string[] }>> = {
+  P6: runP6,
+};
+
+const url = process.env.BENCH_DATABASE_URL;
+if (!url) throw new Error('BENCH_DATABASE_URL is not set: run `npm run bench`.');
+const wanted = process.argv.slice(2).map((a) => a.toUpperCase());
+const unknown = wanted.filter((id) => !BENCHES[id]);
+if (unknown.length) {
+  console.error(`Unknown benchmark ${unknown.join(', ')}. Known: ${Object.keys(BENCHES).join(', ')}.`);
+  process.exit(2);
+}
+
+// A fresh database each run, so figures do not depend on what an earlier run left behind.
+const name = new URL(url).pathname.slice(1);
+const admin = new URL(url);
+admin.pathname = '/postgres';
+const client = new pg.Client({ connectionString: admin.toString() });
+await client.connect();
+await client.query(`drop database if exists "${name}" with (force)`);
+await client.query(`create database "${name}"`);
+await client.end();
+
+const database = connectDatabase(url, 4);
+await migrateDatabase(database.db);
+const figures: Figure[] = [];
+const notes: string[] = [];
+try {
+  for (const id of wanted.length ? wanted : Object.keys(BENCHES)) {
+    console.log(`running ${id}…`);
+    const result = await BENCHES[id]!(database);
+    figures.push(...result.figures);
+    notes.push(...result.notes);
+    for (const f of result.figures) console.log(`${f.pass ? 'pass' : 'FAIL'} ${f.id}: ${f.value} ${f.unit} (target ${f.target}${f.ratio !== undefined ? `, ratio ${f.ratio}` : ''}) — ${f.what}`);
+  }
+} finally {
+  await database.close();
+}
+recordFigures(figures, `npm run bench${wanted.length ? ` -- ${wanted.join(' ')}` : ''}`, notes);

@@ -1,0 +1,56 @@
+import { z } from 'zod';
+import { EVENT_KINDS } from '../domain/event-kinds';
+import { uuid } from './common';
+
+const note = z.string().trim().max(2000, { message: 'Keep notes under 2,000 characters.' }).optional();
+const prey = { preyType: z.string().trim().min(1).max(40).optional(), preySize: z.string().trim().min(1).max(20).optional(), count: z.number().int().min(1).max(50).optional() };
+const empty = z.object({ note }).strict();
+
+/** Each event kind's payload: what the engine and the history need, nothing else. */
+export const EVENT_PAYLOADS = {
+  ate: z.object({ ...prey, note }).strict(),
+  refused: z.object({ ...prey, note }).strict(),
+  prey_left_in: z.object({ ...prey, note }).strict(),
+  prey_removed: empty,
+  watered: empty,
+  molted: z
+    .object({
+      sizeMm: z.number().positive({ message: 'The size must be more than 0 mm.' }).max(400, { message: 'No invertebrate we keep is over 400 mm across.' }).optional(),
+      exuviaeKept: z.boolean().optional(),
+      sexFromExuviae: z.enum(['female', 'male', 'unknown']).optional(),
+      maturing: z.boolean().optional(),
+      note,
+    })
+    .strict(),
+  premolt_seen: empty,
+  premolt_cleared: empty,
+  molting_now: empty,
+  sac_laid: empty,
+  sac_pulled: z.object({ eggCount: z.number().int().min(0).max(5000).optional(), note }).strict(),
+  paired: z.object({ maleId: uuid.optional(), outsideMale: z.string().trim().max(120).optional(), outcome: z.enum(['accepted', 'no_interest', 'incident']).optional(), note }).strict(),
+  rebuild_started: empty,
+  rebuild_ended: empty,
+  skipped: empty,
+  void: z.object({ targetId: uuid, note }).strict(),
+  note: z.object({ text: z.string().trim().min(1, { message: 'Write something in the note.' }).max(2000) }).strict(),
+  moved: z.object({ fromLocationId: uuid.nullable().optional(), toLocationId: uuid, note }).strict(),
+} satisfies Record<(typeof EVENT_KINDS)[number], z.ZodType>;
+
+export const eventKind = z.enum(EVENT_KINDS);
+
+/** One recorded fact as a device sends it; the id is made on the device (a UUID). */
+export const recordedEvent = z
+  .object({
+    id: uuid,
+    animalId: uuid,
+    kind: eventKind,
+    payload: z.record(z.string(), z.unknown()).default({}),
+    clientRecordedAt: z.iso.datetime({ offset: true, message: 'clientRecordedAt must be an ISO 8601 date-time.' }),
+  })
+  .superRefine((event, ctx) => {
+    const result = EVENT_PAYLOADS[event.kind].safeParse(event.payload);
+    if (!result.success) {
+      for (const issue of result.error.issues) ctx.addIssue({ code: 'custom', path: ['payload', ...issue.path.map(String)], message: issue.message });
+    }
+  });
+export type RecordedEvent = z.infer<typeof recordedEvent>;
