@@ -26,7 +26,8 @@ import {
 
 type Collection = NonNullable<Awaited<ReturnType<typeof findCollection>>>;
 
-function toEngineAnimal(row: AnimalRow, zone: string): EngineAnimal {
+/** `withAddedOn`: the join date only matters for an animal never fed, and costs a zone lookup. */
+function toEngineAnimal(row: AnimalRow, zone: string, withAddedOn = true): EngineAnimal {
   const a = row.animal;
   return {
     id: a.id,
@@ -46,7 +47,7 @@ function toEngineAnimal(row: AnimalRow, zone: string): EngineAnimal {
     preySize: a.preySize,
     preyCount: a.preyCount,
     doNotFeedUntil: a.doNotFeedUntil,
-    addedOn: localDateOf(a.createdAt, zone),
+    addedOn: withAddedOn ? localDateOf(a.createdAt, zone) : null,
   };
 }
 
@@ -77,10 +78,10 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
     const cutoff = before ? startOfLocalDate(before, c.timeZone) : null;
     const stale = rows.filter((r) => cutoff && r.lastEventAt && r.lastEventAt >= cutoff).map((r) => r.animal.id);
     const logs = await loadEventsOf(db, stale);
-    return rows.map((r) => ({
-      animal: toEngineAnimal(r, c.timeZone),
-      state: logs.has(r.animal.id) ? projectState(logs.get(r.animal.id)!, c.timeZone, before) : ((r.state as AnimalState | null) ?? EMPTY_STATE),
-    }));
+    return rows.map((r) => {
+      const state = logs.has(r.animal.id) ? projectState(logs.get(r.animal.id)!, c.timeZone, before) : ((r.state as AnimalState | null) ?? EMPTY_STATE);
+      return { animal: toEngineAnimal(r, c.timeZone, state.lastMeal === null), state };
+    });
   }
 
   async function outcomesByAnimal(c: Collection, date: LocalDate) {
