@@ -12,7 +12,12 @@ export async function listAnimals(db: Db, collectionId: string) {
     .orderBy(asc(locations.walkOrder), asc(animals.labelCode));
 }
 
-export async function updateAnimalCare(db: Db, collectionId: string, animalId: string, values: Partial<typeof animals.$inferInsert>) {
+export async function updateAnimalCare(
+  db: Db,
+  collectionId: string,
+  animalId: string,
+  values: Partial<typeof animals.$inferInsert>,
+) {
   const [row] = await db
     .update(animals)
     .set({ ...values, updatedAt: new Date() })

@@ -103,13 +103,14 @@ export async function upsertUrgentItem(db: Db, item: NewRoundItem) {
     .onConflictDoUpdate({ target: [roundItems.roundId, roundItems.animalId], set: { tasks: item.tasks, notes: item.notes, addedDuringDay: true } });
 }
 
-export async function loadRoundItems(db: Db, roundId: string) {
+/** A round's items with their animals; only some animals' items when `animalIds` is given. */
+export async function loadRoundItems(db: Db, roundId: string, animalIds?: string[]) {
   return db
     .select({ item: roundItems, animal: animals, location: locations })
     .from(roundItems)
     .innerJoin(animals, eq(animals.id, roundItems.animalId))
     .leftJoin(locations, eq(locations.id, animals.locationId))
-    .where(eq(roundItems.roundId, roundId))
+    .where(animalIds ? and(eq(roundItems.roundId, roundId), inArray(roundItems.animalId, animalIds)) : eq(roundItems.roundId, roundId))
     .orderBy(asc(roundItems.sortIndex));
 }
 

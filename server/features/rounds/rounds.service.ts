@@ -1,13 +1,41 @@
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
-import type { Caution } from '../../../shared/domain/animal-facts';
-import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
-import { EMPTY_STATE, projectState, type AnimalState } from '../../../shared/domain/rounds/animal-state';
-import { buildRound, decideAnimal, type EngineAnimal, type RoundItem, type RoundTask } from '../../../shared/domain/rounds/build-round';
-import { effectiveRules, type RoundRules, type RulesOverride } from '../../../shared/domain/rounds/rules';
-import { countsForProgress, doubleMealWarning, liveOutcomes, settlingOutcome, type DayOutcome } from '../../../shared/domain/rounds/settle';
-import { toLocationSummary } from '../../../shared/schemas/animals';
-import type { RoundItemView, RoundResponse, ScheduleResponse } from '../../../shared/schemas/rounds';
+import {
+  addDays,
+  localDateOf,
+  startOfLocalDate,
+  type LocalDate,
+} from '../../../shared/domain/local-dates';
+import {
+  EMPTY_STATE,
+  projectState,
+  type AnimalState,
+} from '../../../shared/domain/rounds/animal-state';
+import {
+  buildRound,
+  decideAnimal,
+  type EngineAnimal,
+  type RoundItem,
+  type RoundTask,
+} from '../../../shared/domain/rounds/build-round';
+import {
+  effectiveRules,
+  type RoundRules,
+  type RulesOverride,
+} from '../../../shared/domain/rounds/rules';
+import {
+  countsForProgress,
+  doubleMealWarning,
+  liveOutcomes,
+  settlingOutcome,
+  type DayOutcome,
+} from '../../../shared/domain/rounds/settle';
+import type {
+  RoundItemView,
+  RoundResponse,
+  ScheduleResponse,
+} from '../../../shared/schemas/rounds';
 import { HttpError } from '../../middleware/errors';
+import { toAnimalSummary } from '../animals/animal-summary';
 import { refoldStates } from './projection';
 import {
   claimRound,
@@ -28,36 +56,34 @@ type Collection = NonNullable<Awaited<ReturnType<typeof findCollection>>>;
 
 /** `withAddedOn`: the join date only matters for an animal never fed, and costs a zone lookup. */
 function toEngineAnimal(row: AnimalRow, zone: string, withAddedOn = true): EngineAnimal {
-  const a = row.animal;
   return {
-    id: a.id,
-    labelCode: a.labelCode,
-    name: a.name,
-    scientificName: a.scientificName,
-    group: a.group,
-    lifeStage: a.lifeStage,
-    sex: a.sex,
-    sizeMm: a.sizeMm,
-    status: a.status,
-    cautions: a.cautions as Caution[],
-    location: toLocationSummary(row.location),
-    hasWaterDish: a.hasWaterDish,
-    intervalDays: a.intervalDays,
-    preyType: a.preyType,
-    preySize: a.preySize,
-    preyCount: a.preyCount,
-    doNotFeedUntil: a.doNotFeedUntil,
-    addedOn: withAddedOn ? localDateOf(a.createdAt, zone) : null,
+    ...toAnimalSummary(row.animal, row.location),
+    addedOn: withAddedOn ? localDateOf(row.animal.createdAt, zone) : null,
   };
 }
 
 function animalView(a: EngineAnimal): RoundItemView['animal'] {
   const { id, labelCode, name, scientificName, group, lifeStage, sex, cautions, location } = a;
-  return { id, labelCode, name, scientificName, group, lifeStage, sex, cautions, location: location ?? null };
+  return {
+    id,
+    labelCode,
+    name,
+    scientificName,
+    group,
+    lifeStage,
+    sex,
+    cautions,
+    location: location ?? null,
+  };
 }
 
 function timeFormatter(zone: string) {
-  const f = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone: zone });
+  const f = new Intl.DateTimeFormat('en-GB', {
+    hour: '2-digit',
+    minute: '2-digit',
+    hourCycle: 'h23',
+    timeZone: zone,
+  });
   return (iso: string) => f.format(new Date(iso));
 }
 
@@ -76,16 +102,25 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
   async function engineInput(c: Collection, before?: LocalDate, animalIds?: string[]) {
     const rows = await loadAnimalsWithState(db, c.id, animalIds);
     const cutoff = before ? startOfLocalDate(before, c.timeZone) : null;
-    const stale = rows.filter((r) => cutoff && r.lastEventAt && r.lastEventAt >= cutoff).map((r) => r.animal.id);
+    const stale = rows
+      .filter((r) => cutoff && r.lastEventAt && r.lastEventAt >= cutoff)
+      .map((r) => r.animal.id);
     const logs = await loadEventsOf(db, stale);
     return rows.map((r) => {
-      const state = logs.has(r.animal.id) ? projectState(logs.get(r.animal.id)!, c.timeZone, before) : ((r.state as AnimalState | null) ?? EMPTY_STATE);
+      const state = logs.has(r.animal.id)
+        ? projectState(logs.get(r.animal.id)!, c.timeZone, before)
+        : ((r.state as AnimalState | null) ?? EMPTY_STATE);
       return { animal: toEngineAnimal(r, c.timeZone, state.lastMeal === null), state };
     });
   }
 
   async function outcomesByAnimal(c: Collection, date: LocalDate) {
-    const rows = await loadOutcomes(db, c.id, startOfLocalDate(date, c.timeZone), startOfLocalDate(addDays(date, 1), c.timeZone));
+    const rows = await loadOutcomes(
+      db,
+      c.id,
+      startOfLocalDate(date, c.timeZone),
+      startOfLocalDate(addDays(date, 1), c.timeZone),
+    );
     const map = new Map<string, DayOutcome[]>();
     for (const r of rows) {
       const payload = r.payload as { targetId?: unknown };
@@ -106,7 +141,13 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
     c: Collection,
     date: LocalDate,
     builtAt: Date | null,
-    items: { animal: EngineAnimal; tasks: RoundTask[]; notes: RoundItem['notes']; carriedOverDays: number; addedDuringDay: boolean }[],
+    items: {
+      animal: EngineAnimal;
+      tasks: RoundTask[];
+      notes: RoundItem['notes'];
+      carriedOverDays: number;
+      addedDuringDay: boolean;
+    }[],
     prepList: RoundResponse['prepList'],
     outcomes: Map<string, DayOutcome[]>,
   ): RoundResponse {
@@ -121,7 +162,12 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
           total += 1;
           if (settled) done += 1;
         }
-        return { ...t, done: settled ? { eventId: settled.eventId, kind: settled.kind, at: settled.at, by: settled.by } : null };
+        return {
+          ...t,
+          done: settled
+            ? { eventId: settled.eventId, kind: settled.kind, at: settled.at, by: settled.by }
+            : null,
+        };
       });
       const warning = doubleMealWarning(day, time);
       return {
@@ -134,7 +180,62 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
         warnings: warning ? [warning] : [],
       };
     });
-    return { date, timeZone: c.timeZone, builtAt: builtAt?.toISOString() ?? null, items: viewItems, prepList, progress: { done, total } };
+    return {
+      date,
+      timeZone: c.timeZone,
+      builtAt: builtAt?.toISOString() ?? null,
+      items: viewItems,
+      prepList,
+      progress: { done, total },
+    };
+  }
+
+  async function buildFor(c: Collection, date: LocalDate): Promise<{ created: boolean }> {
+    if (await findRound(db, c.id, date)) return { created: false };
+    const round = buildRound(await engineInput(c, date), rulesOf(c), date);
+    return db.transaction(async (tx) => {
+      const roundId = await claimRound(tx, c.id, date, round.prepList);
+      if (!roundId) return { created: false };
+      await insertRoundItems(
+        tx,
+        roundId,
+        round.items.map((item, i) => ({
+          animalId: item.animal.id,
+          sortIndex: i,
+          tasks: item.tasks,
+          notes: item.notes,
+          carriedOverDays: item.carriedOverDays,
+        })),
+      );
+      return { created: true };
+    });
+  }
+
+  async function roundFor(c: Collection, date: LocalDate): Promise<RoundResponse> {
+    let row = await findRound(db, c.id, date);
+    if (!row) {
+      await buildFor(c, date);
+      row = (await findRound(db, c.id, date))!;
+    }
+    const items = (await loadRoundItems(db, row.id)).map((r) => ({
+      animal: toEngineAnimal(
+        { animal: r.animal, location: r.location, state: null, lastEventAt: null },
+        c.timeZone,
+        false,
+      ),
+      tasks: r.item.tasks as RoundTask[],
+      notes: r.item.notes as RoundItem['notes'],
+      carriedOverDays: r.item.carriedOverDays,
+      addedDuringDay: r.item.addedDuringDay,
+    }));
+    return view(
+      c,
+      date,
+      row.builtAt,
+      items,
+      row.prepList as RoundResponse['prepList'],
+      await outcomesByAnimal(c, date),
+    );
   }
 
   const service = {
@@ -154,50 +255,17 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
      * job and a request) produce exactly one round.
      */
     async build(collectionId: string, date: LocalDate): Promise<{ created: boolean }> {
-      const c = await collectionOf(collectionId);
-      if (await findRound(db, c.id, date)) return { created: false };
-      const input = await engineInput(c, date);
-      const round = buildRound(input, rulesOf(c), date);
-      return db.transaction(async (tx) => {
-        const roundId = await claimRound(tx, c.id, date, round.prepList);
-        if (!roundId) return { created: false };
-        await insertRoundItems(
-          tx,
-          roundId,
-          round.items.map((item, i) => ({
-            animalId: item.animal.id,
-            sortIndex: i,
-            tasks: item.tasks,
-            notes: item.notes,
-            carriedOverDays: item.carriedOverDays,
-          })),
-        );
-        return { created: true };
-      });
+      return buildFor(await collectionOf(collectionId), date);
     },
 
     /** The round for a date as it stands: built items, settled by the day's outcomes. */
     async round(collectionId: string, date: LocalDate): Promise<RoundResponse> {
-      const c = await collectionOf(collectionId);
-      let row = await findRound(db, c.id, date);
-      if (!row) {
-        await service.build(c.id, date);
-        row = (await findRound(db, c.id, date))!;
-      }
-      const rows = await loadRoundItems(db, row.id);
-      const items = rows.map((r) => ({
-        animal: toEngineAnimal({ animal: r.animal, location: r.location, state: null, lastEventAt: null }, c.timeZone),
-        tasks: r.item.tasks as RoundTask[],
-        notes: r.item.notes as RoundItem['notes'],
-        carriedOverDays: r.item.carriedOverDays,
-        addedDuringDay: r.item.addedDuringDay,
-      }));
-      return view(c, date, row.builtAt, items, row.prepList as RoundResponse['prepList'], await outcomesByAnimal(c, date));
+      return roundFor(await collectionOf(collectionId), date);
     },
 
     async todayRound(collectionId: string) {
       const c = await collectionOf(collectionId);
-      return service.round(c.id, service.today(c));
+      return roundFor(c, service.today(c));
     },
 
     /** Tomorrow as things stand now (not materialised: today's outcomes still change it). */
@@ -205,16 +273,28 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
       const c = await collectionOf(collectionId);
       const date = addDays(service.today(c), 1);
       const round = buildRound(await engineInput(c), rulesOf(c), date);
-      return view(c, date, null, round.items.map((i) => ({ ...i, addedDuringDay: false })), round.prepList, new Map());
+      return view(
+        c,
+        date,
+        null,
+        round.items.map((i) => ({ ...i, addedDuringDay: false })),
+        round.prepList,
+        new Map(),
+      );
     },
 
     async prepList(collectionId: string, date: LocalDate) {
       const c = await collectionOf(collectionId);
       const today = service.today(c);
-      if (date === today) return (await service.round(c.id, date)).prepList;
+      if (date === today) return (await roundFor(c, date)).prepList;
       if (date === addDays(today, 1)) return (await service.tomorrowPreview(c.id)).prepList;
       const row = await findRound(db, c.id, date);
-      if (!row) throw new HttpError(404, 'no_round', 'There is no round for that date. Prep lists exist for past rounds, today and tomorrow.');
+      if (!row)
+        throw new HttpError(
+          404,
+          'no_round',
+          'There is no round for that date. Prep lists exist for past rounds, today and tomorrow.',
+        );
       return row.prepList as RoundResponse['prepList'];
     },
 
@@ -225,7 +305,14 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
       const [input] = await engineInput(c, date, [animalId]);
       if (!input) throw new HttpError(404, 'not_found', 'We could not find that animal.');
       const d = decideAnimal(input.animal, input.state, rulesOf(c), date);
-      return { date, onRound: d.tasks.length > 0, tasks: d.tasks, notes: d.notes, nextFeed: d.nextFeed, nextWater: d.nextWater };
+      return {
+        date,
+        onRound: d.tasks.length > 0,
+        tasks: d.tasks,
+        notes: d.notes,
+        nextFeed: d.nextFeed,
+        nextWater: d.nextWater,
+      };
     },
 
     /**
@@ -237,7 +324,9 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
       const date = service.today(c);
       const row = await findRound(db, c.id, date);
       if (!row || !animalIds.length) return;
-      const existing = new Map((await loadRoundItems(db, row.id)).map((r) => [r.animal.id, r.item]));
+      const existing = new Map(
+        (await loadRoundItems(db, row.id, animalIds)).map((r) => [r.animal.id, r.item]),
+      );
       const rules = rulesOf(c);
       for (const { animal, state } of await engineInput(c, undefined, animalIds)) {
         const d = decideAnimal(animal, state, rules, date);
@@ -246,7 +335,13 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
         const item = existing.get(animal.id);
         const planned = (item?.tasks as RoundTask[] | undefined) ?? [];
         if (!urgent || planned.some((t) => t.kind === 'remove_prey')) continue;
-        const added: RoundTask = { ...removal, reasons: [...removal.reasons, { code: 'remove_prey', text: 'Added during the day: remove it now.', dates: [date] }] };
+        const added: RoundTask = {
+          ...removal,
+          reasons: [
+            ...removal.reasons,
+            { code: 'remove_prey', text: 'Added during the day: remove it now.', dates: [date] },
+          ],
+        };
         await upsertUrgentItem(db, {
           roundId: row.id,
           animalId: animal.id,
@@ -275,7 +370,11 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
 
     async rules(collectionId: string) {
       const c = await collectionOf(collectionId);
-      return { rules: rulesOf(c), defaults: effectiveRules({}), overrides: (c.rules ?? {}) as RulesOverride };
+      return {
+        rules: rulesOf(c),
+        defaults: effectiveRules({}),
+        overrides: (c.rules ?? {}) as RulesOverride,
+      };
     },
 
     /** Replaces the collection's overrides; today's built round stays as it was built. */

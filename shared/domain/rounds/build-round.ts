@@ -1,6 +1,6 @@
 import type { AnimalGroup, AnimalStatus, Caution, LifeStage, Sex } from '../animal-facts';
 import { addDays, daysBetween, type LocalDate } from '../local-dates';
-import type { Place } from '../walk-order';
+import { compareKeys, naturalKey, shelfKey, type Place } from '../walk-order';
 import type { AnimalState } from './animal-state';
 import { feedingInterval, TINY_SLING_OFFER, type Offer, type RoundRules } from './rules';
 
@@ -127,24 +127,41 @@ function removalCause(
   state: AnimalState,
   flags: { premolt: boolean; possiblePremolt: boolean; inHold: boolean },
 ): string | null {
-  if (state.leaveAlone?.reason === 'molting') return 'it is molting: live prey can injure a molting animal';
+  if (state.leaveAlone?.reason === 'molting')
+    return 'it is molting: live prey can injure a molting animal';
   if (flags.premolt) return 'premolt: live prey can injure a molting animal';
   if (flags.possiblePremolt) return 'possible premolt: live prey can injure a molting animal';
   if (flags.inHold) return 'post-molt hold: the fangs are still soft';
   if (animal.lifeStage === 'sling') return 'slings are not left with live prey';
-  if (!isRoach(state.preyLeftIn?.preyType ?? null)) return 'uneaten live prey can stress or bite the animal';
+  if (!isRoach(state.preyLeftIn?.preyType ?? null))
+    return 'uneaten live prey can stress or bite the animal';
   if (animal.lifeStage !== 'adult') return 'only an adult may keep a roach in with it';
   return null;
 }
 
 /** Everything the engine decides about one animal on one local date. Pure. */
-export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: RoundRules, date: LocalDate): AnimalDecision {
-  const decision: AnimalDecision = { animal, tasks: [], notes: [], nextFeed: null, nextWater: null };
+export function decideAnimal(
+  animal: EngineAnimal,
+  state: AnimalState,
+  rules: RoundRules,
+  date: LocalDate,
+): AnimalDecision {
+  const decision: AnimalDecision = {
+    animal,
+    tasks: [],
+    notes: [],
+    nextFeed: null,
+    nextWater: null,
+  };
   const { tasks, notes } = decision;
 
   // R12: inactive animals are never on a round.
   if (animal.status !== 'active') {
-    notes.push({ code: 'inactive', text: `Not in the collection any more (${animal.status.replace('_', ' ')}): never on a round.`, dates: [] });
+    notes.push({
+      code: 'inactive',
+      text: `Not in the collection any more (${animal.status.replace('_', ' ')}): never on a round.`,
+      dates: [],
+    });
     return decision;
   }
 
@@ -163,11 +180,21 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
     if (cause) {
       tasks.push({
         kind: 'remove_prey',
-        reasons: [{ code: 'remove_prey', text: `Prey left in on ${shortDate(since)}: remove it (${cause}).`, dates: [since] }],
+        reasons: [
+          {
+            code: 'remove_prey',
+            text: `Prey left in on ${shortDate(since)}: remove it (${cause}).`,
+            dates: [since],
+          },
+        ],
         carriedOverDays: Math.max(0, daysBetween(addDays(since, 1), date)),
       });
     } else {
-      notes.push({ code: 'prey_may_stay', text: `A roach left in on ${shortDate(since)} may stay with an adult outside the molt cycle.`, dates: [since] });
+      notes.push({
+        code: 'prey_may_stay',
+        text: `A roach left in on ${shortDate(since)} may stay with an adult outside the molt cycle.`,
+        dates: [since],
+      });
     }
   }
 
@@ -194,7 +221,11 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
   // ---- feeding
   const blockers: Reason[] = [];
   if (premolt) {
-    blockers.push({ code: 'premolt', text: `Premolt seen on ${shortDate(state.premoltSince!)}: no food until it molts; water continues.`, dates: [state.premoltSince!] });
+    blockers.push({
+      code: 'premolt',
+      text: `Premolt seen on ${shortDate(state.premoltSince!)}: no food until it molts; water continues.`,
+      dates: [state.premoltSince!],
+    });
   }
   if (possiblePremolt) {
     blockers.push({
@@ -211,10 +242,18 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
     });
   }
   if (animal.doNotFeedUntil && date < animal.doNotFeedUntil) {
-    blockers.push({ code: 'do_not_feed', text: `Do not feed until ${shortDate(animal.doNotFeedUntil)} (keeper's setting).`, dates: [animal.doNotFeedUntil] });
+    blockers.push({
+      code: 'do_not_feed',
+      text: `Do not feed until ${shortDate(animal.doNotFeedUntil)} (keeper's setting).`,
+      dates: [animal.doNotFeedUntil],
+    });
   }
   if (state.preyLeftIn) {
-    blockers.push({ code: 'prey_inside', text: `Prey from ${shortDate(state.preyLeftIn.since)} is still inside: no new food.`, dates: [state.preyLeftIn.since] });
+    blockers.push({
+      code: 'prey_inside',
+      text: `Prey from ${shortDate(state.preyLeftIn.since)} is still inside: no new food.`,
+      dates: [state.preyLeftIn.since],
+    });
   }
 
   // R8 shortens the interval for meals that fall due inside the rebuild window; judging by the
@@ -222,20 +261,32 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
   const shortInterval = Math.max(1, Math.round(interval * rules.rebuildFactor));
   const rebuildUntil = state.rebuildSince ? addDays(state.rebuildSince, rules.rebuildDays) : null;
   const rebuilding =
-    !!rebuildUntil && (state.lastMeal ? addDays(state.lastMeal, shortInterval) < rebuildUntil : date < rebuildUntil);
+    !!rebuildUntil &&
+    (state.lastMeal ? addDays(state.lastMeal, shortInterval) < rebuildUntil : date < rebuildUntil);
   const effectiveInterval = rebuilding ? shortInterval : interval;
-  const refusedSinceMeal = state.refusalStreak > 0 && !!state.lastRefusal && (!state.lastMeal || state.lastRefusal >= state.lastMeal);
+  const refusedSinceMeal =
+    state.refusalStreak > 0 &&
+    !!state.lastRefusal &&
+    (!state.lastMeal || state.lastRefusal >= state.lastMeal);
 
   let due: LocalDate;
   let why: Reason;
   if (refusedSinceMeal) {
     const retry = rules.refusalRetryDays[stage];
     due = addDays(state.lastRefusal!, retry);
-    why = { code: 'due_refusal_retry', text: `Refused on ${shortDate(state.lastRefusal!)}: offer again after ${plural(retry, 'day')}.`, dates: [state.lastRefusal!] };
+    why = {
+      code: 'due_refusal_retry',
+      text: `Refused on ${shortDate(state.lastRefusal!)}: offer again after ${plural(retry, 'day')}.`,
+      dates: [state.lastRefusal!],
+    };
   } else if (state.lastMeal) {
     due = addDays(state.lastMeal, effectiveInterval);
     const since = daysBetween(state.lastMeal, date);
-    why = { code: 'due_interval', text: `Due: ${plural(since, 'day')} since last meal on ${shortDate(state.lastMeal)}.`, dates: [state.lastMeal] };
+    why = {
+      code: 'due_interval',
+      text: `Due: ${plural(since, 'day')} since last meal on ${shortDate(state.lastMeal)}.`,
+      dates: [state.lastMeal],
+    };
   } else {
     due = animal.addedOn && animal.addedOn < date ? animal.addedOn : date;
     why = { code: 'due_first_meal', text: 'No meal recorded yet.', dates: [] };
@@ -243,14 +294,22 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
   // After a molt, food resumes when the hold ends (for an animal never fed yet, too).
   if (holdEnd && state.lastMolt && (holdEnd > due || !state.lastMeal)) {
     due = holdEnd;
-    why = { code: 'due_after_hold', text: `Post-molt hold ended on ${shortDate(holdEnd)} (molted on ${shortDate(state.lastMolt)}): food can be offered again.`, dates: [holdEnd, state.lastMolt] };
+    why = {
+      code: 'due_after_hold',
+      text: `Post-molt hold ended on ${shortDate(holdEnd)} (molted on ${shortDate(state.lastMolt)}): food can be offered again.`,
+      dates: [holdEnd, state.lastMolt],
+    };
   }
   if (animal.doNotFeedUntil && animal.doNotFeedUntil > due) due = animal.doNotFeedUntil;
 
   // R10: never two meals too close together, whatever else says.
   const minGap = Math.min(interval, 2);
   if (state.lastMeal && daysBetween(state.lastMeal, date) < minGap) {
-    blockers.push({ code: 'no_double_meal', text: `Ate on ${shortDate(state.lastMeal)}: never two meals within ${plural(minGap, 'day')}.`, dates: [state.lastMeal] });
+    blockers.push({
+      code: 'no_double_meal',
+      text: `Ate on ${shortDate(state.lastMeal)}: never two meals within ${plural(minGap, 'day')}.`,
+      dates: [state.lastMeal],
+    });
     due = later(due, addDays(state.lastMeal, minGap));
   }
 
@@ -266,11 +325,17 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
   if (!premolt && !possiblePremolt) decision.nextFeed = due;
   if (blockers.length === 0 && due <= date) {
     // R9: carried over from the day it fell due, or from the day after a deliberate skip.
-    const countFrom = state.lastSkipped && state.lastSkipped >= due ? addDays(state.lastSkipped, 1) : due;
+    const countFrom =
+      state.lastSkipped && state.lastSkipped >= due ? addDays(state.lastSkipped, 1) : due;
     const carried = Math.max(0, daysBetween(countFrom, date));
     const reasons = [why];
     if (rebuildReason) reasons.push(rebuildReason);
-    if (carried > 0) reasons.push({ code: 'carried_over', text: `Carried over ${plural(carried, 'day')}: due on ${shortDate(countFrom)}.`, dates: [countFrom] });
+    if (carried > 0)
+      reasons.push({
+        code: 'carried_over',
+        text: `Carried over ${plural(carried, 'day')}: due on ${shortDate(countFrom)}.`,
+        dates: [countFrom],
+      });
     tasks.push({ kind: 'feed', offer: offerFor(animal, rules), reasons, carriedOverDays: carried });
   } else if (rebuildReason) {
     notes.push(rebuildReason);
@@ -286,9 +351,21 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
         kind: 'water',
         reasons: [
           state.lastWatered
-            ? { code: 'water_due', text: `Water every ${plural(rules.waterEveryDays, 'day')}: last topped up on ${shortDate(state.lastWatered)}.`, dates: [state.lastWatered] }
+            ? {
+                code: 'water_due',
+                text: `Water every ${plural(rules.waterEveryDays, 'day')}: last topped up on ${shortDate(state.lastWatered)}.`,
+                dates: [state.lastWatered],
+              }
             : { code: 'water_due', text: 'No watering recorded yet.', dates: [] },
-          ...(carried > 0 ? [{ code: 'carried_over' as const, text: `Carried over ${plural(carried, 'day')}: due on ${shortDate(dueWater)}.`, dates: [dueWater] }] : []),
+          ...(carried > 0
+            ? [
+                {
+                  code: 'carried_over' as const,
+                  text: `Carried over ${plural(carried, 'day')}: due on ${shortDate(dueWater)}.`,
+                  dates: [dueWater],
+                },
+              ]
+            : []),
         ],
         carriedOverDays: carried,
       });
@@ -314,26 +391,23 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
     }
   }
 
-  if (tasks.length === 0 && decision.nextFeed && decision.nextFeed > date && blockers.length === 0) {
-    notes.push({ code: 'not_due', text: `Not due: next meal on ${shortDate(decision.nextFeed)}.`, dates: [decision.nextFeed] });
+  if (
+    tasks.length === 0 &&
+    decision.nextFeed &&
+    decision.nextFeed > date &&
+    blockers.length === 0
+  ) {
+    notes.push({
+      code: 'not_due',
+      text: `Not due: next meal on ${shortDate(decision.nextFeed)}.`,
+      dates: [decision.nextFeed],
+    });
   }
   tasks.sort((a, b) => TASK_KINDS.indexOf(a.kind) - TASK_KINDS.indexOf(b.kind));
   return decision;
 }
 
 const collator = new Intl.Collator('en', { numeric: true, sensitivity: 'base' });
-
-/** A key that sorts with plain comparison like a natural sort: digit runs padded. */
-const naturalKeys = new Map<string, string>();
-function natural(s: string): string {
-  let k = naturalKeys.get(s);
-  if (k === undefined) {
-    k = s.toLowerCase().replace(/\d+/g, (d) => d.padStart(12, '0'));
-    if (naturalKeys.size > 100_000) naturalKeys.clear();
-    naturalKeys.set(s, k);
-  }
-  return k;
-}
 
 interface SortKeys {
   shelf: string;
@@ -344,17 +418,14 @@ function keysOf(item: RoundItem): SortKeys {
   let k = keyCache.get(item);
   if (!k) {
     const l = item.animal.location;
+    const code = naturalKey(item.animal.labelCode);
     k = l
-      ? {
-          shelf: `${String(l.walkOrder + 1e9).padStart(12, '0')}\u0000${natural(l.room)}\u0000${natural(l.rack)}\u0000${natural(l.shelf)}`,
-          position: `${natural(l.position)}\u0000${natural(item.animal.labelCode)}`,
-        }
-      : { shelf: '\uffff', position: natural(item.animal.labelCode) };
+      ? { shelf: shelfKey(l), position: `${naturalKey(l.position)}\u0000${code}` }
+      : { shelf: '\uffff', position: code };
     keyCache.set(item, k);
   }
   return k;
 }
-const cmp = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
 
 /**
  * R14 walk order: shelf by shelf (the keeper's own walk order, then room → rack → shelf by
@@ -364,10 +435,10 @@ const cmp = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
 export function compareItems(a: RoundItem, b: RoundItem): number {
   const ka = keysOf(a);
   const kb = keysOf(b);
-  const shelf = cmp(ka.shelf, kb.shelf);
+  const shelf = compareKeys(ka.shelf, kb.shelf);
   if (shelf) return shelf;
   const carried = Number(b.carriedOverDays > 0) - Number(a.carriedOverDays > 0);
-  return carried || cmp(ka.position, kb.position);
+  return carried || compareKeys(ka.position, kb.position);
 }
 
 const SIZE_ORDER = ['tiny', 'pinhead', 'small', 'medium', 'large', 'adult'];
@@ -379,15 +450,27 @@ export function prepList(items: readonly RoundItem[]): PrepLine[] {
     for (const task of item.tasks) {
       if (task.kind !== 'feed' || !task.offer) continue;
       const key = `${task.offer.preyType}|${task.offer.preySize}`;
-      const line = lines.get(key) ?? { preyType: task.offer.preyType, preySize: task.offer.preySize, countMin: 0, countMax: 0, animals: 0 };
+      const line = lines.get(key) ?? {
+        preyType: task.offer.preyType,
+        preySize: task.offer.preySize,
+        countMin: 0,
+        countMax: 0,
+        animals: 0,
+      };
       line.countMin += task.offer.countMin;
       line.countMax += task.offer.countMax;
       line.animals += 1;
       lines.set(key, line);
     }
   }
-  const rank = (size: string) => (SIZE_ORDER.includes(size) ? SIZE_ORDER.indexOf(size) : SIZE_ORDER.length);
-  return [...lines.values()].sort((a, b) => collator.compare(a.preyType, b.preyType) || rank(a.preySize) - rank(b.preySize) || collator.compare(a.preySize, b.preySize));
+  const rank = (size: string) =>
+    SIZE_ORDER.includes(size) ? SIZE_ORDER.indexOf(size) : SIZE_ORDER.length;
+  return [...lines.values()].sort(
+    (a, b) =>
+      collator.compare(a.preyType, b.preyType) ||
+      rank(a.preySize) - rank(b.preySize) ||
+      collator.compare(a.preySize, b.preySize),
+  );
 }
 
 /** The round for `date`: every animal with a task, in walk order, and the prep list. */
@@ -400,7 +483,12 @@ export function buildRound(
   for (const { animal, state } of animals) {
     const d = decideAnimal(animal, state, rules, date);
     if (d.tasks.length === 0) continue;
-    items.push({ animal, tasks: d.tasks, notes: d.notes, carriedOverDays: Math.max(...d.tasks.map((t) => t.carriedOverDays)) });
+    items.push({
+      animal,
+      tasks: d.tasks,
+      notes: d.notes,
+      carriedOverDays: Math.max(...d.tasks.map((t) => t.carriedOverDays)),
+    });
   }
   items.sort(compareItems);
   return { date, items, prepList: prepList(items) };

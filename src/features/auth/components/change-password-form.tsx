@@ -1,5 +1,4 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { changePasswordBody } from '#shared/schemas/auth';
@@ -7,31 +6,44 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
 import { useChangePassword } from '../api/change-password';
-import { applyServerErrors } from './form-errors';
+import { useServerProblem } from './form-errors';
 
 type Values = z.infer<typeof changePasswordBody>;
 
 export function ChangePasswordForm() {
   const change = useChangePassword();
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, setError, formState, reset } = useForm<Values>({ resolver: zodResolver(changePasswordBody) });
+  const { register, handleSubmit, setError, formState, reset } = useForm<Values>({
+    resolver: zodResolver(changePasswordBody),
+  });
+  const { problem, attempt } = useServerProblem(setError);
 
-  const submit = handleSubmit(async (values) => {
-    setProblem(null);
-    try {
+  const submit = handleSubmit((values) =>
+    attempt(async () => {
       await change.mutateAsync(values);
       reset();
-    } catch (err) {
-      setProblem(applyServerErrors(err, setError));
-    }
-  });
+    }),
+  );
 
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
       {problem && <Notice tone="error" title={problem} />}
-      {change.isSuccess && <Notice tone="ok" title="Password changed. Other devices were signed out." />}
-      <TextField label="Current password" type="password" autoComplete="current-password" error={formState.errors.currentPassword?.message} {...register('currentPassword')} />
-      <TextField label="New password" type="password" autoComplete="new-password" error={formState.errors.newPassword?.message} {...register('newPassword')} />
+      {change.isSuccess && (
+        <Notice tone="ok" title="Password changed. Other devices were signed out." />
+      )}
+      <TextField
+        label="Current password"
+        type="password"
+        autoComplete="current-password"
+        error={formState.errors.currentPassword?.message}
+        {...register('currentPassword')}
+      />
+      <TextField
+        label="New password"
+        type="password"
+        autoComplete="new-password"
+        error={formState.errors.newPassword?.message}
+        {...register('newPassword')}
+      />
       <Button type="submit" variant="secondary" busy={formState.isSubmitting}>
         Change password
       </Button>

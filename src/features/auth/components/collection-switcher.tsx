@@ -16,7 +16,10 @@ export function CollectionSwitcher({
     <fieldset className="flex flex-col gap-2">
       <legend className="mb-1 font-bold">Collection on this device</legend>
       {memberships.map((m) => (
-        <label key={m.collectionId} className="flex min-h-target cursor-pointer items-center gap-3 rounded-xl border-2 border-border bg-surface px-3">
+        <label
+          key={m.collectionId}
+          className="flex min-h-target cursor-pointer items-center gap-3 rounded-xl border-2 border-border bg-surface px-3"
+        >
           <input
             type="radio"
             name="collection"

@@ -1,8 +1,12 @@
+import { useCallback, useState } from 'react';
 import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
 import { ApiError } from '@/lib/api-client';
 
 /** Puts the server's field messages ("body.email") on the matching form fields; returns the rest. */
-export function applyServerErrors<T extends FieldValues>(error: unknown, setError: UseFormSetError<T>): string | null {
+export function applyServerErrors<T extends FieldValues>(
+  error: unknown,
+  setError: UseFormSetError<T>,
+): string | null {
   if (!(error instanceof ApiError)) return 'Something went wrong. Try again.';
   let placed = false;
   for (const issue of error.issues ?? []) {
@@ -13,4 +17,24 @@ export function applyServerErrors<T extends FieldValues>(error: unknown, setErro
     }
   }
   return placed ? null : error.message;
+}
+
+/**
+ * Runs a form's server call: field messages go onto the fields, anything else becomes the
+ * form's `problem` to show above it.
+ */
+export function useServerProblem<T extends FieldValues>(setError: UseFormSetError<T>) {
+  const [problem, setProblem] = useState<string | null>(null);
+  const attempt = useCallback(
+    async (work: () => Promise<unknown>) => {
+      setProblem(null);
+      try {
+        await work();
+      } catch (err) {
+        setProblem(applyServerErrors(err, setError));
+      }
+    },
+    [setError],
+  );
+  return { problem, attempt };
 }

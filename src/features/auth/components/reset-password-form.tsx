@@ -1,5 +1,4 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { newPassword } from '#shared/schemas/auth';
@@ -7,33 +6,47 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
 import { useResetPassword } from '../api/reset-password';
-import { applyServerErrors } from './form-errors';
+import { useServerProblem } from './form-errors';
 
 const form = z
   .object({ password: newPassword, repeat: z.string() })
-  .refine((v) => v.password === v.repeat, { message: 'The two passwords are not the same.', path: ['repeat'] });
+  .refine((v) => v.password === v.repeat, {
+    message: 'The two passwords are not the same.',
+    path: ['repeat'],
+  });
 type Values = z.infer<typeof form>;
 
 export function ResetPasswordForm({ token, onDone }: { token: string; onDone: () => void }) {
   const reset = useResetPassword();
-  const [problem, setProblem] = useState<string | null>(null);
-  const { register, handleSubmit, setError, formState } = useForm<Values>({ resolver: zodResolver(form) });
+  const { register, handleSubmit, setError, formState } = useForm<Values>({
+    resolver: zodResolver(form),
+  });
+  const { problem, attempt } = useServerProblem(setError);
 
-  const submit = handleSubmit(async ({ password }) => {
-    setProblem(null);
-    try {
+  const submit = handleSubmit(({ password }) =>
+    attempt(async () => {
       await reset.mutateAsync({ token, password });
       onDone();
-    } catch (err) {
-      setProblem(applyServerErrors(err, setError));
-    }
-  });
+    }),
+  );
 
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
       {problem && <Notice tone="error" title={problem} />}
-      <TextField label="New password" type="password" autoComplete="new-password" error={formState.errors.password?.message} {...register('password')} />
-      <TextField label="New password again" type="password" autoComplete="new-password" error={formState.errors.repeat?.message} {...register('repeat')} />
+      <TextField
+        label="New password"
+        type="password"
+        autoComplete="new-password"
+        error={formState.errors.password?.message}
+        {...register('password')}
+      />
+      <TextField
+        label="New password again"
+        type="password"
+        autoComplete="new-password"
+        error={formState.errors.repeat?.message}
+        {...register('repeat')}
+      />
       <Button type="submit" wide busy={formState.isSubmitting}>
         Save new password
       </Button>

@@ -1,5 +1,4 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { signUpBody } from '#shared/schemas/auth';
@@ -7,7 +6,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
 import { useSignUp } from '../api/sign-up';
-import { applyServerErrors } from './form-errors';
+import { useServerProblem } from './form-errors';
 
 type Input = z.input<typeof signUpBody>;
 type Output = z.output<typeof signUpBody>;
@@ -16,28 +15,37 @@ const deviceZone = Intl.DateTimeFormat().resolvedOptions().timeZone;
 
 export function SignUpForm({ onSignedUp }: { onSignedUp: () => void }) {
   const signUp = useSignUp();
-  const [problem, setProblem] = useState<string | null>(null);
   const { register, handleSubmit, setError, formState } = useForm<Input, unknown, Output>({
     resolver: zodResolver(signUpBody),
     defaultValues: { timeZone: deviceZone },
   });
+  const { problem, attempt } = useServerProblem(setError);
   const e = formState.errors;
 
-  const submit = handleSubmit(async (values) => {
-    setProblem(null);
-    try {
+  const submit = handleSubmit((values) =>
+    attempt(async () => {
       await signUp.mutateAsync(values);
       onSignedUp();
-    } catch (err) {
-      setProblem(applyServerErrors(err, setError));
-    }
-  });
+    }),
+  );
 
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
       {problem && <Notice tone="error" title={problem} />}
-      <TextField label="Your name" autoComplete="name" error={e.displayName?.message} {...register('displayName')} />
-      <TextField label="E-mail" type="email" autoComplete="email" inputMode="email" error={e.email?.message} {...register('email')} />
+      <TextField
+        label="Your name"
+        autoComplete="name"
+        error={e.displayName?.message}
+        {...register('displayName')}
+      />
+      <TextField
+        label="E-mail"
+        type="email"
+        autoComplete="email"
+        inputMode="email"
+        error={e.email?.message}
+        {...register('email')}
+      />
       <TextField
         label="Password"
         type="password"
@@ -46,7 +54,12 @@ export function SignUpForm({ onSignedUp }: { onSignedUp: () => void }) {
         error={e.password?.message}
         {...register('password')}
       />
-      <TextField label="Collection name" hint="For example: Spare room racks" error={e.collectionName?.message} {...register('collectionName')} />
+      <TextField
+        label="Collection name"
+        hint="For example: Spare room racks"
+        error={e.collectionName?.message}
+        {...register('collectionName')}
+      />
       <TextField
         label="Time zone"
         hint="Your rounds follow the calendar days of this zone."

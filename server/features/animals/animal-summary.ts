@@ -1,0 +1,31 @@
+import type { Caution } from '../../../shared/domain/animal-facts';
+import { toLocationSummary, type AnimalSummary } from '../../../shared/schemas/animals';
+import type { animals } from '../../db/schema/animals';
+import type { locations } from '../../db/schema/collections';
+
+/** A stored animal (and its place) as the API and the round engine see it. */
+export function toAnimalSummary(
+  a: typeof animals.$inferSelect,
+  l: typeof locations.$inferSelect | null,
+): AnimalSummary {
+  return {
+    id: a.id,
+    labelCode: a.labelCode,
+    name: a.name,
+    scientificName: a.scientificName,
+    commonName: a.commonName,
+    group: a.group,
+    lifeStage: a.lifeStage,
+    sex: a.sex,
+    sizeMm: a.sizeMm,
+    status: a.status,
+    cautions: a.cautions as Caution[],
+    location: toLocationSummary(l),
+    hasWaterDish: a.hasWaterDish,
+    intervalDays: a.intervalDays,
+    preyType: a.preyType,
+    preySize: a.preySize,
+    preyCount: a.preyCount,
+    doNotFeedUntil: a.doNotFeedUntil,
+  };
+}
