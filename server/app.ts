@@ -17,6 +17,7 @@ import { collectionsRoutes } from './features/collections/collections.routes';
 import { createCollectionsService } from './features/collections/collections.service';
 import { devRoutes } from './features/dev/dev.routes';
 import { createEventsService } from './features/events/events.service';
+import { eventsRoutes } from './features/events/events.routes';
 import { healthRoutes } from './features/health/health.routes';
 import { roundsRoutes } from './features/rounds/rounds.routes';
 import { createRoundsService } from './features/rounds/rounds.service';
@@ -138,7 +139,7 @@ export function createApp(options: AppOptions) {
 
   const publicUrl = (p: string) => `${options.publicUrl ?? env.PUBLIC_URL ?? `http://localhost:${env.PORT}`}${p}`;
   const auth = createAuthService({ db: database.db, mailer: options.mailer, now, bcryptCost: env.BCRYPT_COST, publicUrl });
-  const member = (min: Role) => requireMember(database.db, min, now);
+  const member = (min: Role, options?: { anyTime?: boolean }) => requireMember(database.db, min, now, options);
 
   api.use('/health', healthRoutes(database.pool));
   api.use('/auth', authRoutes(auth, { ...DEFAULT_AUTH_LIMITS, ...options.authLimits }, SESSION_COOKIE));
@@ -151,6 +152,8 @@ export function createApp(options: AppOptions) {
   const rounds = createRoundsService(database.db, now);
   api.use('/collections/:collectionId/animals', animalsRoutes(animals, member));
   api.use('/collections/:collectionId', roundsRoutes(rounds, animals, member));
+  const events = createEventsService(database.db, rounds, now);
+  api.use('/collections/:collectionId/events', eventsRoutes(events, member));
   api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db), member));
   api.use(apiNotFound);
   api.use(errorHandler);
@@ -161,7 +164,7 @@ export function createApp(options: AppOptions) {
 
   return {
     app,
-    services: { rounds, events: createEventsService(database.db, rounds, now) },
+    services: { rounds, events },
     async shutdown() {
       await new Promise<void>((resolve) => store.close ? (store.close(), resolve()) : resolve());
     },

@@ -20,3 +20,21 @@ export const EVENT_KINDS = [
   'moved',
 ] as const;
 export type EventKind = (typeof EVENT_KINDS)[number];
+
+/**
+ * What a helper covering feeds may record: the round's outcomes and notes, and undoing their
+ * own taps. Breeding records and moves stay with keepers.
+ */
+export const HELPER_EVENT_KINDS: readonly EventKind[] = [
+  'ate',
+  'refused',
+  'prey_left_in',
+  'prey_removed',
+  'watered',
+  'molted',
+  'premolt_seen',
+  'molting_now',
+  'skipped',
+  'note',
+  'void',
+];

@@ -2,8 +2,16 @@ import { z } from 'zod';
 import { EVENT_KINDS } from '../domain/event-kinds';
 import { uuid } from './common';
 
-const note = z.string().trim().max(2000, { message: 'Keep notes under 2,000 characters.' }).optional();
-const prey = { preyType: z.string().trim().min(1).max(40).optional(), preySize: z.string().trim().min(1).max(20).optional(), count: z.number().int().min(1).max(50).optional() };
+const note = z
+  .string()
+  .trim()
+  .max(2000, { message: 'Keep notes under 2,000 characters.' })
+  .optional();
+const prey = {
+  preyType: z.string().trim().min(1).max(40).optional(),
+  preySize: z.string().trim().min(1).max(20).optional(),
+  count: z.number().int().min(1).max(50).optional(),
+};
 const empty = z.object({ note }).strict();
 
 /** Each event kind's payload: what the engine and the history need, nothing else. */
@@ -15,7 +23,11 @@ export const EVENT_PAYLOADS = {
   watered: empty,
   molted: z
     .object({
-      sizeMm: z.number().positive({ message: 'The size must be more than 0 mm.' }).max(400, { message: 'No invertebrate we keep is over 400 mm across.' }).optional(),
+      sizeMm: z
+        .number()
+        .positive({ message: 'The size must be more than 0 mm.' })
+        .max(400, { message: 'No invertebrate we keep is over 400 mm across.' })
+        .optional(),
       exuviaeKept: z.boolean().optional(),
       sexFromExuviae: z.enum(['female', 'male', 'unknown']).optional(),
       maturing: z.boolean().optional(),
@@ -27,13 +39,26 @@ export const EVENT_PAYLOADS = {
   molting_now: empty,
   sac_laid: empty,
   sac_pulled: z.object({ eggCount: z.number().int().min(0).max(5000).optional(), note }).strict(),
-  paired: z.object({ maleId: uuid.optional(), outsideMale: z.string().trim().max(120).optional(), outcome: z.enum(['accepted', 'no_interest', 'incident']).optional(), note }).strict(),
+  paired: z
+    .object({
+      maleId: uuid.optional(),
+      outsideMale: z.string().trim().max(120).optional(),
+      outcome: z.enum(['accepted', 'no_interest', 'incident']).optional(),
+      note,
+    })
+    .strict(),
   rebuild_started: empty,
   rebuild_ended: empty,
   skipped: empty,
   void: z.object({ targetId: uuid, note }).strict(),
-  note: z.object({ text: z.string().trim().min(1, { message: 'Write something in the note.' }).max(2000) }).strict(),
-  moved: z.object({ fromLocationId: uuid.nullable().optional(), toLocationId: uuid, note }).strict(),
+  note: z
+    .object({
+      text: z.string().trim().min(1, { message: 'Write something in the note.' }).max(2000),
+    })
+    .strict(),
+  moved: z
+    .object({ fromLocationId: uuid.nullable().optional(), toLocationId: uuid, note })
+    .strict(),
 } satisfies Record<(typeof EVENT_KINDS)[number], z.ZodType>;
 
 export const eventKind = z.enum(EVENT_KINDS);
@@ -45,12 +70,79 @@ export const recordedEvent = z
     animalId: uuid,
     kind: eventKind,
     payload: z.record(z.string(), z.unknown()).default({}),
-    clientRecordedAt: z.iso.datetime({ offset: true, message: 'clientRecordedAt must be an ISO 8601 date-time.' }),
+    clientRecordedAt: z.iso.datetime({
+      offset: true,
+      message: 'clientRecordedAt must be an ISO 8601 date-time.',
+    }),
   })
   .superRefine((event, ctx) => {
     const result = EVENT_PAYLOADS[event.kind].safeParse(event.payload);
     if (!result.success) {
-      for (const issue of result.error.issues) ctx.addIssue({ code: 'custom', path: ['payload', ...issue.path.map(String)], message: issue.message });
+      for (const issue of result.error.issues)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['payload', ...issue.path.map(String)],
+          message: issue.message,
+        });
     }
   });
 export type RecordedEvent = z.infer<typeof recordedEvent>;
+
+/** The most events one sync request may carry; the client sends at most SYNC_BATCH_SIZE. */
+export const MAX_BATCH_EVENTS = 500;
+export const SYNC_BATCH_SIZE = 200;
+
+/**
+ * A sync request. Events are checked one by one on the server (a bad one is rejected on its
+ * own), so the envelope accepts any array and only counts it.
+ */
+export const eventBatchBody = z.object({
+  deviceId: z.string().trim().min(1).max(64, { message: 'The device id is too long.' }),
+  clientSentAt: z.iso.datetime({
+    offset: true,
+    message: 'clientSentAt must be an ISO 8601 date-time.',
+  }),
+  events: z.array(z.unknown()),
+});
+export type EventBatchBody = z.infer<typeof eventBatchBody>;
+
+export const EVENT_STATUSES = ['accepted', 'duplicate', 'rejected'] as const;
+export const REJECT_REASONS = [
+  'invalid',
+  'unknown_animal',
+  'outside_cover',
+  'not_for_helpers',
+  'target_unknown',
+  'bad_target',
+  'id_conflict',
+] as const;
+export type RejectReason = (typeof REJECT_REASONS)[number];
+
+export const eventResult = z.object({
+  id: z.string(),
+  status: z.enum(EVENT_STATUSES),
+  reason: z.enum(REJECT_REASONS).optional(),
+  message: z.string().optional(),
+});
+export type EventResult = z.infer<typeof eventResult>;
+
+export const eventBatchResponse = z.object({
+  serverReceivedAt: z.string(),
+  /** server_received_at − client_sent_at, the correction applied to every event's time. */
+  offsetMs: z.number(),
+  results: z.array(eventResult),
+});
+export type EventBatchResponse = z.infer<typeof eventBatchResponse>;
+
+export const historyEvent = z.object({
+  id: z.string(),
+  kind: eventKind,
+  at: z.string(),
+  by: z.string().nullable(),
+  payload: z.record(z.string(), z.unknown()),
+  flags: z.array(z.string()),
+  /** The id of the void that cancelled this event, if any. */
+  voidedBy: z.string().nullable(),
+});
+export type HistoryEvent = z.infer<typeof historyEvent>;
+export const historyResponse = z.object({ events: z.array(historyEvent) });

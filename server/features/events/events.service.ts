@@ -1,8 +1,28 @@
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
-import type { EventKind } from '../../../shared/domain/event-kinds';
+import { clockOffsetMs, effectiveTime } from '../../../shared/domain/clock';
+import { HELPER_EVENT_KINDS, type EventKind } from '../../../shared/domain/event-kinds';
+import { coverWindowState } from '../../../shared/domain/roles';
+import {
+  MAX_BATCH_EVENTS,
+  recordedEvent,
+  type EventBatchBody,
+  type EventBatchResponse,
+  type EventResult,
+  type HistoryEvent,
+  type RecordedEvent,
+} from '../../../shared/schemas/events';
+import { HttpError } from '../../middleware/errors';
+import { coverMessage } from '../../middleware/roles';
+import type { Membership } from '../collections/collections.repository';
 import { applyNewEvents } from '../rounds/projection';
 import type { RoundsService } from '../rounds/rounds.service';
-import { insertEventsOnce, type NewEvent } from './events.repository';
+import {
+  animalIdsInCollection,
+  insertEventsOnce,
+  recentEventsOf,
+  storedEvents,
+  type NewEvent,
+} from './events.repository';
 
 export interface IncomingEvent {
   id: string;
@@ -22,22 +42,219 @@ export interface IncomingEvent {
  * brings each animal's projected state up to date; then adds any urgent task to today's round.
  */
 export function createEventsService(db: NodePgDatabase, rounds: RoundsService, now: () => Date) {
-  return {
-    async ingest(collectionId: string, zone: string, incoming: IncomingEvent[]) {
-      const received = now();
-      const inserted = await db.transaction(async (tx) => {
-        const rows: NewEvent[] = incoming.map((e) => ({ ...e, collectionId, serverReceivedAt: received, flags: e.flags ?? [] }));
-        const ids = await insertEventsOnce(tx, rows);
-        const fresh = incoming
-          .filter((e) => ids.has(e.id))
-          .map((e) => ({ id: e.id, animalId: e.animalId, kind: e.kind, payload: e.payload, effectiveAt: e.effectiveAt.toISOString() }));
-        await applyNewEvents(tx, collectionId, zone, fresh);
-        return ids;
+  async function ingest(
+    collectionId: string,
+    zone: string,
+    incoming: IncomingEvent[],
+    received = now(),
+  ) {
+    const inserted = await db.transaction(async (tx) => {
+      const rows: NewEvent[] = incoming.map((e) => ({
+        ...e,
+        collectionId,
+        serverReceivedAt: received,
+        flags: e.flags ?? [],
+      }));
+      const ids = await insertEventsOnce(tx, rows);
+      const fresh = incoming
+        .filter((e) => ids.has(e.id))
+        .map((e) => ({
+          id: e.id,
+          animalId: e.animalId,
+          kind: e.kind,
+          payload: e.payload,
+          effectiveAt: e.effectiveAt.toISOString(),
+        }));
+      await applyNewEvents(tx, collectionId, zone, fresh);
+      return ids;
+    });
+    const touched = [...new Set(incoming.filter((e) => inserted.has(e.id)).map((e) => e.animalId))];
+    await rounds.addUrgentTasks(collectionId, touched);
+    return { inserted };
+  }
+
+  /**
+   * One sync request from a device: every event gets its own verdict, so one bad event never
+   * holds back the rest, and a re-sent event is reported as a duplicate, not stored again.
+   */
+  async function recordBatch(
+    member: Membership,
+    userId: string,
+    body: EventBatchBody,
+  ): Promise<EventBatchResponse> {
+    if (body.events.length > MAX_BATCH_EVENTS) {
+      throw new HttpError(
+        413,
+        'batch_too_large',
+        `Send at most ${MAX_BATCH_EVENTS} events at a time; this batch had ${body.events.length}.`,
+      );
+    }
+    const received = now();
+    const sentAt = new Date(body.clientSentAt);
+    // One verdict per event, in the order they were sent.
+    const results: EventResult[] = [];
+    const reject = (index: number, id: string, reason: EventResult['reason'], message: string) => {
+      results[index] = { id, status: 'rejected', reason, message };
+    };
+    const candidates: {
+      index: number;
+      event: RecordedEvent;
+      effectiveAt: Date;
+      flags: string[];
+    }[] = [];
+    const seen = new Set<string>();
+    body.events.forEach((raw, index) => {
+      const parsed = recordedEvent.safeParse(raw);
+      if (!parsed.success) {
+        const issue = parsed.error.issues[0]!;
+        const where = issue.path.length ? `${issue.path.join('.')}: ` : '';
+        reject(index, rawId(raw), 'invalid', `${where}${issue.message}`);
+        return;
+      }
+      const event = parsed.data;
+      if (seen.has(event.id)) {
+        results[index] = { id: event.id, status: 'duplicate' };
+        return;
+      }
+      seen.add(event.id);
+      candidates.push({
+        index,
+        event,
+        ...effectiveTime(new Date(event.clientRecordedAt), sentAt, received),
       });
-      const touched = [...new Set(incoming.filter((e) => inserted.has(e.id)).map((e) => e.animalId))];
-      await rounds.addUrgentTasks(collectionId, touched);
-      return { inserted };
-    },
-  };
+    });
+
+    const known = await animalIdsInCollection(db, member.collectionId, [
+      ...new Set(candidates.map((c) => c.event.animalId)),
+    ]);
+    const targetOf = (e: RecordedEvent) =>
+      e.kind === 'void' ? (e.payload.targetId as string) : null;
+    const stored = await storedEvents(db, [
+      ...seen,
+      ...candidates.map((c) => targetOf(c.event)).filter((t): t is string => !!t),
+    ]);
+    const helper = member.role === 'helper';
+    const accepted = new Map<
+      string,
+      { collectionId: string; animalId: string; recordedBy: string | null }
+    >();
+    const toInsert: IncomingEvent[] = [];
+    for (const { index, event, effectiveAt, flags } of candidates) {
+      const already = stored.get(event.id);
+      const targetId = targetOf(event);
+      const target = targetId ? (stored.get(targetId) ?? accepted.get(targetId)) : null;
+      if (already) {
+        if (already.collectionId === member.collectionId)
+          results[index] = { id: event.id, status: 'duplicate' };
+        else reject(index, event.id, 'id_conflict', 'This event id is already used elsewhere.');
+      } else if (!known.has(event.animalId)) {
+        reject(
+          index,
+          event.id,
+          'unknown_animal',
+          'This animal is not in this collection; it may have been removed.',
+        );
+      } else if (helper && !HELPER_EVENT_KINDS.includes(event.kind)) {
+        reject(
+          index,
+          event.id,
+          'not_for_helpers',
+          'Helpers record feeding, water, molts and notes; ask a keeper to record this.',
+        );
+      } else if (
+        helper &&
+        coverWindowState(effectiveAt, member.startsAt, member.endsAt) !== 'during'
+      ) {
+        reject(
+          index,
+          event.id,
+          'outside_cover',
+          `This was recorded outside your cover. ${coverMessage(member)}`,
+        );
+      } else if (targetId && !target) {
+        reject(index, event.id, 'target_unknown', 'The outcome this undoes was never saved.');
+      } else if (
+        target &&
+        (target.collectionId !== member.collectionId || target.animalId !== event.animalId)
+      ) {
+        reject(index, event.id, 'bad_target', 'This undoes an outcome of another animal.');
+      } else if (target && helper && target.recordedBy !== userId) {
+        reject(index, event.id, 'not_for_helpers', 'Helpers can undo only their own taps.');
+      } else {
+        accepted.set(event.id, {
+          collectionId: member.collectionId,
+          animalId: event.animalId,
+          recordedBy: userId,
+        });
+        toInsert.push({
+          id: event.id,
+          animalId: event.animalId,
+          kind: event.kind,
+          payload: event.payload,
+          recordedBy: userId,
+          deviceId: body.deviceId,
+          clientRecordedAt: new Date(event.clientRecordedAt),
+          clientSentAt: sentAt,
+          effectiveAt,
+          flags,
+        });
+        results[index] = { id: event.id, status: 'accepted' };
+      }
+    }
+
+    const { inserted } = toInsert.length
+      ? await ingest(member.collectionId, member.timeZone, toInsert, received)
+      : { inserted: new Set<string>() };
+    // Another request carrying the same ids may have committed first: theirs is the copy kept.
+    const lost = toInsert.filter((e) => !inserted.has(e.id)).map((e) => e.id);
+    if (lost.length) {
+      const winners = await storedEvents(db, lost);
+      for (const r of results) {
+        if (!lost.includes(r.id)) continue;
+        if (winners.get(r.id)?.collectionId === member.collectionId) r.status = 'duplicate';
+        else
+          Object.assign(r, {
+            status: 'rejected',
+            reason: 'id_conflict',
+            message: 'This event id is already used elsewhere.',
+          });
+      }
+    }
+    return {
+      serverReceivedAt: received.toISOString(),
+      offsetMs: clockOffsetMs(sentAt, received),
+      results,
+    };
+  }
+
+  /** An animal's recent facts for its history, each marked when a later void cancelled it. */
+  async function history(
+    collectionId: string,
+    animalId: string,
+    limit: number,
+  ): Promise<HistoryEvent[]> {
+    const rows = await recentEventsOf(db, collectionId, animalId, limit);
+    const voidedBy = new Map<string, string>();
+    for (const r of rows) {
+      const target = (r.payload as { targetId?: unknown }).targetId;
+      if (r.kind === 'void' && typeof target === 'string') voidedBy.set(target, r.id);
+    }
+    return rows.map((r) => ({
+      id: r.id,
+      kind: r.kind as EventKind,
+      at: r.effectiveAt.toISOString(),
+      by: r.by,
+      payload: r.payload as Record<string, unknown>,
+      flags: r.flags,
+      voidedBy: voidedBy.get(r.id) ?? null,
+    }));
+  }
+
+  return { ingest, recordBatch, history };
+}
+
+function rawId(raw: unknown): string {
+  const id = (raw as { id?: unknown } | null)?.id;
+  return typeof id === 'string' ? id.slice(0, 64) : '';
 }
 export type EventsService = ReturnType<typeof createEventsService>;

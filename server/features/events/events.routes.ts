@@ -1,0 +1,44 @@
+import { Router, type RequestHandler } from 'express';
+import { z } from 'zod';
+import type { Role } from '../../../shared/domain/roles';
+import { uuid } from '../../../shared/schemas/common';
+import { eventBatchBody, type EventBatchBody } from '../../../shared/schemas/events';
+import { currentUserId } from '../../middleware/auth';
+import { membershipOf } from '../../middleware/roles';
+import { input, validate } from '../../middleware/validate';
+import type { EventsService } from './events.service';
+
+const historyQuery = z.object({
+  animalId: uuid,
+  limit: z.coerce.number().int().min(1).max(200).default(50),
+});
+
+export function eventsRoutes(
+  service: EventsService,
+  member: (min: Role, options?: { anyTime?: boolean }) => RequestHandler,
+) {
+  const router = Router({ mergeParams: true });
+
+  // A helper may sync after the cover ends: each event is judged by the time it was recorded.
+  router.post(
+    '/',
+    member('helper', { anyTime: true }),
+    validate({ body: eventBatchBody }),
+    async (req, res) => {
+      res.json(
+        await service.recordBatch(
+          membershipOf(res),
+          currentUserId(req),
+          input<EventBatchBody>(res, 'body'),
+        ),
+      );
+    },
+  );
+
+  router.get('/', member('keeper'), validate({ query: historyQuery }), async (_req, res) => {
+    const { animalId, limit } = input<z.infer<typeof historyQuery>>(res, 'query');
+    res.json({ events: await service.history(membershipOf(res).collectionId, animalId, limit) });
+  });
+
+  return router;
+}
