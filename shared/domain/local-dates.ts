@@ -76,3 +76,14 @@ export function describeLocalDate(date: LocalDate, withYear = false): string {
   const weekday = WEEKDAYS[new Date(Date.UTC(y, m - 1, d)).getUTCDay()];
   return `${weekday} ${d} ${MONTHS[m - 1]}${withYear ? ` ${y}` : ''}`;
 }
+
+const clockFormats = new Map<string, Intl.DateTimeFormat>();
+/** An instant as 24-hour local time in the zone, e.g. "08:40". */
+export function clockTime(iso: string, zone: string): string {
+  let f = clockFormats.get(zone);
+  if (!f) {
+    f = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone: zone });
+    clockFormats.set(zone, f);
+  }
+  return f.format(new Date(iso));
+}

@@ -21,7 +21,10 @@ interface RequestOptions<T> {
 }
 
 /** The only fetch wrapper: JSON in and out, our CSRF header, typed errors, checked answers. */
-export async function apiRequest<T = void>(path: string, options: RequestOptions<T> = {}): Promise<T> {
+export async function apiRequest<T = void>(
+  path: string,
+  options: RequestOptions<T> = {},
+): Promise<T> {
   const { method = 'GET', body, schema, signal } = options;
   let res: Response;
   try {
@@ -38,7 +41,11 @@ export async function apiRequest<T = void>(path: string, options: RequestOptions
     });
   } catch (err) {
     if (signal?.aborted) throw err;
-    throw new ApiError(0, 'offline', 'No connection to Rackside right now. Check your signal and try again.');
+    throw new ApiError(
+      0,
+      'offline',
+      'No connection to Rackside right now. Check your signal and try again.',
+    );
   }
   if (res.status === 204) return undefined as T;
   const data: unknown = await res.json().catch(() => null);
@@ -48,7 +55,11 @@ export async function apiRequest<T = void>(path: string, options: RequestOptions
       const { code, message, issues } = parsed.data.error;
       throw new ApiError(res.status, code, message, issues);
     }
-    throw new ApiError(res.status, `http_${res.status}`, `Rackside answered with an error (${res.status}). Try again.`);
+    throw new ApiError(
+      res.status,
+      `http_${res.status}`,
+      `Rackside answered with an error (${res.status}). Try again.`,
+    );
   }
   return schema ? schema.parse(data) : (data as T);
 }

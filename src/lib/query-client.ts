@@ -7,7 +7,8 @@ export function createQueryClient() {
       queries: {
         staleTime: 30_000,
         // Retrying a refusal (signed out, not allowed, not found) cannot help.
-        retry: (count, error) => !(error instanceof ApiError && error.status >= 400 && error.status < 500) && count < 2,
+        retry: (count, error) =>
+          !(error instanceof ApiError && error.status >= 400 && error.status < 500) && count < 2,
       },
     },
   });

@@ -10,16 +10,24 @@ let ctx: TestContext;
 let owner: SignedUp;
 let animalId: string;
 
-const HOUR = 3_600_000;
-
 function tap(kind: string, at: Date, extra: Record<string, unknown> = {}) {
-  return { id: randomUUID(), animalId, kind, payload: {}, clientRecordedAt: at.toISOString(), ...extra };
+  return {
+    id: randomUUID(),
+    animalId,
+    kind,
+    payload: {},
+    clientRecordedAt: at.toISOString(),
+    ...extra,
+  };
 }
 function batch(list: unknown[], sentAt = new Date()) {
   return { deviceId: 'test-device', clientSentAt: sentAt.toISOString(), events: list };
 }
 const url = () => `/api/collections/${owner.collectionId}/events`;
-const storedIds = async (ids: string[]) => (await ctx.database.db.select().from(events).where(inArray(events.id, ids))).map((r) => r.id).sort();
+const storedIds = async (ids: string[]) =>
+  (await ctx.database.db.select().from(events).where(inArray(events.id, ids)))
+    .map((r) => r.id)
+    .sort();
 
 beforeAll(async () => {
   ctx = await createTestContext();
@@ -33,14 +41,24 @@ afterAll(async () => {
 
 describe('POST /collections/:id/events (sync)', () => {
   it('stores each event once; the same batch again is three duplicates', async () => {
-    const list = [tap('ate', new Date()), tap('watered', new Date()), tap('note', new Date(), { payload: { text: 'Webbed the door shut.' } })];
+    const list = [
+      tap('ate', new Date()),
+      tap('watered', new Date()),
+      tap('note', new Date(), { payload: { text: 'Webbed the door shut.' } }),
+    ];
     const first = await owner.agent.post(url()).send(batch(list)).expect(200);
-    expect(first.body.results.map((r: { status: string }) => r.status)).toEqual(['accepted', 'accepted', 'accepted']);
+    expect(first.body.results.map((r: { status: string }) => r.status)).toEqual([
+      'accepted',
+      'accepted',
+      'accepted',
+    ]);
     const again = await owner.agent.post(url()).send(batch(list)).expect(200);
     expect(again.body.results).toEqual(list.map((e) => ({ id: e.id, status: 'duplicate' })));
     expect(await storedIds(list.map((e) => e.id))).toEqual(list.map((e) => e.id).sort());
 
-    const round = await owner.agent.get(`/api/collections/${owner.collectionId}/rounds/today`).expect(200);
+    const round = await owner.agent
+      .get(`/api/collections/${owner.collectionId}/rounds/today`)
+      .expect(200);
     const item = round.body.items.find((i: { animal: { id: string } }) => i.animal.id === animalId);
     expect(item.outcomes.map((o: { kind: string; by: string }) => [o.kind, o.by])).toEqual(
       expect.arrayContaining([
@@ -52,8 +70,14 @@ describe('POST /collections/:id/events (sync)', () => {
 
   it('reports a repeated id inside one batch as a duplicate', async () => {
     const e = tap('watered', new Date());
-    const res = await owner.agent.post(url()).send(batch([e, e])).expect(200);
-    expect(res.body.results.map((r: { status: string }) => r.status)).toEqual(['accepted', 'duplicate']);
+    const res = await owner.agent
+      .post(url())
+      .send(batch([e, e]))
+      .expect(200);
+    expect(res.body.results.map((r: { status: string }) => r.status)).toEqual([
+      'accepted',
+      'duplicate',
+    ]);
   });
 
   it('rejects bad events one by one and keeps the good ones', async () => {
@@ -64,22 +88,41 @@ describe('POST /collections/:id/events (sync)', () => {
     const notOurs = tap('ate', new Date(), { animalId: theirAnimal.id });
     const orphanVoid = tap('void', new Date(), { payload: { targetId: randomUUID() } });
     const noKind = { ...tap('ate', new Date()), kind: 'danced' };
-    const res = await owner.agent.post(url()).send(batch([badPayload, good, notOurs, orphanVoid, noKind, 'not an event'])).expect(200);
+    const res = await owner.agent
+      .post(url())
+      .send(batch([badPayload, good, notOurs, orphanVoid, noKind, 'not an event']))
+      .expect(200);
     const byId = new Map(res.body.results.map((r: { id: string }) => [r.id, r]));
     expect(byId.get(good.id)).toEqual({ id: good.id, status: 'accepted' });
-    expect(byId.get(badPayload.id)).toMatchObject({ status: 'rejected', reason: 'invalid', message: 'payload.sizeMm: The size must be more than 0 mm.' });
+    expect(byId.get(badPayload.id)).toMatchObject({
+      status: 'rejected',
+      reason: 'invalid',
+      message: 'payload.sizeMm: The size must be more than 0 mm.',
+    });
     expect(byId.get(notOurs.id)).toMatchObject({ status: 'rejected', reason: 'unknown_animal' });
     expect(byId.get(orphanVoid.id)).toMatchObject({ status: 'rejected', reason: 'target_unknown' });
     expect(byId.get(noKind.id)).toMatchObject({ status: 'rejected', reason: 'invalid' });
-    expect(res.body.results.at(-1)).toMatchObject({ id: '', status: 'rejected', reason: 'invalid' });
-    expect(await storedIds([good.id, badPayload.id, notOurs.id, orphanVoid.id, noKind.id])).toEqual([good.id]);
+    expect(res.body.results.at(-1)).toMatchObject({
+      id: '',
+      status: 'rejected',
+      reason: 'invalid',
+    });
+    expect(await storedIds([good.id, badPayload.id, notOurs.id, orphanVoid.id, noKind.id])).toEqual(
+      [good.id],
+    );
   });
 
   it('accepts a void of an event in the same batch or already stored, and marks it in the history', async () => {
     const meal = tap('ate', new Date(Date.now() - 1000));
     const undo = tap('void', new Date(), { payload: { targetId: meal.id } });
-    const res = await owner.agent.post(url()).send(batch([meal, undo])).expect(200);
-    expect(res.body.results.map((r: { status: string }) => r.status)).toEqual(['accepted', 'accepted']);
+    const res = await owner.agent
+      .post(url())
+      .send(batch([meal, undo]))
+      .expect(200);
+    expect(res.body.results.map((r: { status: string }) => r.status)).toEqual([
+      'accepted',
+      'accepted',
+    ]);
     const history = await owner.agent.get(url()).query({ animalId }).expect(200);
     const entry = history.body.events.find((e: { id: string }) => e.id === meal.id);
     expect(entry).toMatchObject({ kind: 'ate', by: 'Test Keeper', voidedBy: undo.id });
@@ -91,7 +134,10 @@ describe('POST /collections/:id/events (sync)', () => {
     // The phone's clock runs 10 minutes slow: it thinks it is 14:50 when the server says 15:00.
     const phoneSent = new Date(serverNow.getTime() - 10 * 60_000);
     const e = tap('watered', new Date(phoneSent.getTime() - 20 * 60_000));
-    const res = await owner.agent.post(url()).send(batch([e], phoneSent)).expect(200);
+    const res = await owner.agent
+      .post(url())
+      .send(batch([e], phoneSent))
+      .expect(200);
     expect(res.body.offsetMs).toBe(600_000);
     const [row] = await ctx.database.db.select().from(events).where(eq(events.id, e.id));
     expect(row!.clientRecordedAt.toISOString()).toBe('2026-11-30T14:30:00.000Z');
@@ -114,8 +160,15 @@ describe('POST /collections/:id/events (sync)', () => {
     const res = await owner.agent.post(url()).send({ events: [] }).expect(422);
     expect(res.body.error.message).toBeTruthy();
     const stranger = await signUp(ctx);
-    await stranger.agent.post(url()).send(batch([tap('ate', new Date())])).expect(404);
-    await ctx.agent().post(url()).send(batch([tap('ate', new Date())])).expect(401);
+    await stranger.agent
+      .post(url())
+      .send(batch([tap('ate', new Date())]))
+      .expect(404);
+    await ctx
+      .agent()
+      .post(url())
+      .send(batch([tap('ate', new Date())]))
+      .expect(401);
   });
 });
 
@@ -126,7 +179,13 @@ describe('a helper syncing', () => {
 
   beforeAll(async () => {
     helper = await signUp(ctx);
-    await addMember(ctx.database.db, { collectionId: owner.collectionId, userId: helper.userId, role: 'helper', startsAt: coverStart, endsAt: coverEnd });
+    await addMember(ctx.database.db, {
+      collectionId: owner.collectionId,
+      userId: helper.userId,
+      role: 'helper',
+      startsAt: coverStart,
+      endsAt: coverEnd,
+    });
   });
 
   it('during the cover: feeding accepted, breeding records and keepers’ taps refused per event', async () => {
@@ -134,17 +193,30 @@ describe('a helper syncing', () => {
     const meal = tap('ate', new Date('2026-11-22T11:59:00Z'));
     const pairing = tap('paired', new Date('2026-11-22T11:59:00Z'));
     const ownerMeal = tap('ate', new Date('2026-11-22T11:00:00Z'));
-    await owner.agent.post(url()).send(batch([ownerMeal], new Date('2026-11-22T12:00:00Z'))).expect(200);
-    const undoOwner = tap('void', new Date('2026-11-22T11:59:30Z'), { payload: { targetId: ownerMeal.id } });
-    const res = await helper.agent.post(url()).send(batch([meal, pairing, undoOwner], new Date('2026-11-22T12:00:00Z'))).expect(200);
-    expect(res.body.results.map((r: { status: string; reason?: string }) => r.reason ?? r.status)).toEqual(['accepted', 'not_for_helpers', 'not_for_helpers']);
+    await owner.agent
+      .post(url())
+      .send(batch([ownerMeal], new Date('2026-11-22T12:00:00Z')))
+      .expect(200);
+    const undoOwner = tap('void', new Date('2026-11-22T11:59:30Z'), {
+      payload: { targetId: ownerMeal.id },
+    });
+    const res = await helper.agent
+      .post(url())
+      .send(batch([meal, pairing, undoOwner], new Date('2026-11-22T12:00:00Z')))
+      .expect(200);
+    expect(
+      res.body.results.map((r: { status: string; reason?: string }) => r.reason ?? r.status),
+    ).toEqual(['accepted', 'not_for_helpers', 'not_for_helpers']);
   });
 
   it('after the cover: taps made during it are saved, later ones are refused with the dates', async () => {
     ctx.setNow(new Date('2026-11-28T09:00:00Z'));
     const during = tap('watered', new Date('2026-11-26T18:00:00Z'));
     const after = tap('watered', new Date('2026-11-28T08:00:00Z'));
-    const res = await helper.agent.post(url()).send(batch([during, after], new Date('2026-11-28T09:00:00Z'))).expect(200);
+    const res = await helper.agent
+      .post(url())
+      .send(batch([during, after], new Date('2026-11-28T09:00:00Z')))
+      .expect(200);
     expect(res.body.results[0]).toEqual({ id: during.id, status: 'accepted' });
     expect(res.body.results[1]).toMatchObject({ status: 'rejected', reason: 'outside_cover' });
     expect(res.body.results[1].message).toMatch(/runs from Fri 20 Nov 2026 to Fri 27 Nov 2026/);

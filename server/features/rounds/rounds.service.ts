@@ -23,10 +23,7 @@ import {
   type RulesOverride,
 } from '../../../shared/domain/rounds/rules';
 import {
-  countsForProgress,
-  doubleMealWarning,
-  liveOutcomes,
-  settlingOutcome,
+  settleItem,
   type DayOutcome,
 } from '../../../shared/domain/rounds/settle';
 import type {
@@ -77,16 +74,6 @@ function animalView(a: EngineAnimal): RoundItemView['animal'] {
   };
 }
 
-function timeFormatter(zone: string) {
-  const f = new Intl.DateTimeFormat('en-GB', {
-    hour: '2-digit',
-    minute: '2-digit',
-    hourCycle: 'h23',
-    timeZone: zone,
-  });
-  return (iso: string) => f.format(new Date(iso));
-}
-
 export function createRoundsService(db: NodePgDatabase, now: () => Date) {
   async function collectionOf(collectionId: string): Promise<Collection> {
     const c = await findCollection(db, collectionId);
@@ -133,7 +120,6 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
       };
       map.set(r.animalId, [...(map.get(r.animalId) ?? []), outcome]);
     }
-    for (const [id, list] of map) map.set(id, liveOutcomes(list));
     return map;
   }
 
@@ -151,33 +137,20 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
     prepList: RoundResponse['prepList'],
     outcomes: Map<string, DayOutcome[]>,
   ): RoundResponse {
-    const time = timeFormatter(c.timeZone);
     let done = 0;
     let total = 0;
     const viewItems = items.map((item) => {
-      const day = outcomes.get(item.animal.id) ?? [];
-      const tasks = item.tasks.map((t) => {
-        const settled = settlingOutcome(t.kind, day);
-        if (countsForProgress(t.kind)) {
-          total += 1;
-          if (settled) done += 1;
-        }
-        return {
-          ...t,
-          done: settled
-            ? { eventId: settled.eventId, kind: settled.kind, at: settled.at, by: settled.by }
-            : null,
-        };
-      });
-      const warning = doubleMealWarning(day, time);
+      const settled = settleItem(item.tasks, outcomes.get(item.animal.id) ?? [], c.timeZone);
+      done += settled.done;
+      total += settled.total;
       return {
         animal: animalView(item.animal),
-        tasks,
+        tasks: settled.tasks,
         notes: item.notes,
         carriedOverDays: item.carriedOverDays,
         addedDuringDay: item.addedDuringDay,
-        outcomes: day.map(({ eventId, kind, at, by }) => ({ eventId, kind, at, by })),
-        warnings: warning ? [warning] : [],
+        outcomes: settled.outcomes,
+        warnings: settled.warnings,
       };
     });
     return {

@@ -1,4 +1,6 @@
+import type { RoundResponse } from '../../schemas/rounds';
 import type { EventKind } from '../event-kinds';
+import { clockTime } from '../local-dates';
 import type { TaskKind } from './build-round';
 
 /** Which of the day's outcomes settle which task (an outcome is a recorded event). */
@@ -43,4 +45,46 @@ export function doubleMealWarning(outcomes: readonly DayOutcome[], time: (iso: s
   const meals = outcomes.filter((o) => o.kind === 'ate');
   if (meals.length < 2) return null;
   return `Fed ${meals.length === 2 ? 'twice' : `${meals.length} times`} today: ${meals.map((m) => `${time(m.at)} ${m.by ?? 'someone'}`).join(', ')}.`;
+}
+
+/**
+ * A round item's tasks, warnings and progress given the day's outcomes. The server uses it to
+ * show a round; the phone uses it to show a tap at once, before anything is sent.
+ */
+export function settleItem<T extends { kind: TaskKind }>(tasks: readonly T[], outcomes: readonly DayOutcome[], zone: string) {
+  const day = liveOutcomes(outcomes);
+  let done = 0;
+  let total = 0;
+  const settled = tasks.map((t) => {
+    const by = settlingOutcome(t.kind, day);
+    if (countsForProgress(t.kind)) {
+      total += 1;
+      if (by) done += 1;
+    }
+    return { ...t, done: by ? { eventId: by.eventId, kind: by.kind, at: by.at, by: by.by } : null };
+  });
+  const warning = doubleMealWarning(day, (iso) => clockTime(iso, zone));
+  return {
+    tasks: settled,
+    outcomes: day.map(({ eventId, kind, at, by }) => ({ eventId, kind, at, by })),
+    warnings: warning ? [warning] : [],
+    done,
+    total,
+  };
+}
+
+/** The round with one more outcome for an animal (a void takes its target away). */
+export function withOutcome(round: RoundResponse, animalId: string, outcome: DayOutcome): RoundResponse {
+  const index = round.items.findIndex((i) => i.animal.id === animalId);
+  if (index < 0) return round;
+  const item = round.items[index]!;
+  const before = settleItem(item.tasks, item.outcomes, round.timeZone);
+  const after = settleItem(item.tasks, [...item.outcomes, outcome], round.timeZone);
+  const items = [...round.items];
+  items[index] = { ...item, tasks: after.tasks, outcomes: after.outcomes, warnings: after.warnings };
+  return {
+    ...round,
+    items,
+    progress: { done: round.progress.done - before.done + after.done, total: round.progress.total },
+  };
 }

@@ -1,0 +1,115 @@
+import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
+import type { MeResponse } from '#shared/schemas/auth';
+import type { RecordedEvent, RejectReason } from '#shared/schemas/events';
+import type { RoundResponse } from '#shared/schemas/rounds';
+
+export type RoundDay = 'today' | 'tomorrow';
+
+/** A round as the phone keeps it: the server's copy with the phone's unsent taps applied. */
+export interface CachedRound {
+  key: string;
+  userId: string;
+  collectionId: string;
+  day: RoundDay;
+  round: RoundResponse;
+  /** When the server's copy was fetched (ISO). */
+  fetchedAt: string;
+}
+
+/** A tap waiting to be sent. `seq` keeps the order taps were made in. */
+export interface OutboxEntry {
+  seq?: number;
+  userId: string;
+  collectionId: string;
+  /** Shown in the indicator and the needs-attention list without another lookup. */
+  animalName: string;
+  byName: string;
+  event: RecordedEvent;
+}
+
+/** A tap the server refused: kept and shown until the keeper dismisses it. */
+export interface AttentionEntry {
+  id: string;
+  userId: string;
+  collectionId: string;
+  animalName: string;
+  event: RecordedEvent;
+  /** The server's reason code, or `collection_refused` when the whole collection was. */
+  reason: RejectReason | 'collection_refused';
+  message: string;
+  refusedAt: string;
+}
+
+interface RacksideSchema extends DBSchema {
+  rounds: { key: string; value: CachedRound };
+  outbox: { key: number; value: OutboxEntry; indexes: { byEventId: string; byUser: string } };
+  attention: { key: string; value: AttentionEntry; indexes: { byUser: string } };
+  /** Small facts: the device id, the last signed-in person, storage persistence. */
+  meta: { key: string; value: unknown };
+}
+
+export type RacksideDb = IDBPDatabase<RacksideSchema>;
+export const DB_NAME = 'rackside';
+
+export function openRacksideDb(name = DB_NAME): Promise<RacksideDb> {
+  return openDB<RacksideSchema>(name, 1, {
+    upgrade(db) {
+      db.createObjectStore('rounds', { keyPath: 'key' });
+      const outbox = db.createObjectStore('outbox', { keyPath: 'seq', autoIncrement: true });
+      outbox.createIndex('byEventId', 'event.id', { unique: true });
+      outbox.createIndex('byUser', 'userId');
+      const attention = db.createObjectStore('attention', { keyPath: 'id' });
+      attention.createIndex('byUser', 'userId');
+      db.createObjectStore('meta');
+    },
+  });
+}
+
+export const roundKey = (userId: string, collectionId: string, day: RoundDay) =>
+  `${userId}|${collectionId}|${day}`;
+
+let shared: Promise<RacksideDb> | null = null;
+
+/**
+ * The page's one connection. Safari can drop it ("connection lost"): the connection is opened
+ * again and the work retried once (architecture notes, known browser traps).
+ */
+export async function withDb<T>(work: (db: RacksideDb) => Promise<T>): Promise<T> {
+  const open = () => {
+    shared ??= openRacksideDb().then((db) => {
+      db.addEventListener('close', () => (shared = null));
+      return db;
+    });
+    return shared;
+  };
+  try {
+    return await work(await open());
+  } catch (err) {
+    if (!isConnectionLost(err)) throw err;
+    shared = null;
+    return work(await open());
+  }
+}
+
+function isConnectionLost(err: unknown): boolean {
+  const e = err as { name?: string; message?: string } | null;
+  return (
+    e?.name === 'InvalidStateError' ||
+    e?.name === 'UnknownError' ||
+    /connection (is )?(lost|closing|closed)/i.test(e?.message ?? '')
+  );
+}
+
+/** The last `me` answer, so the app opens with no signal. */
+export const cachedMe = (db: RacksideDb) => db.get('meta', 'me') as Promise<MeResponse | undefined>;
+export const storeMe = (db: RacksideDb, me: MeResponse | null) =>
+  me ? db.put('meta', me, 'me') : db.delete('meta', 'me');
+
+/** A random id for this browser, made once, sent with every batch. */
+export async function deviceIdOf(db: RacksideDb): Promise<string> {
+  const known = (await db.get('meta', 'deviceId')) as string | undefined;
+  if (known) return known;
+  const id = crypto.randomUUID();
+  await db.put('meta', id, 'deviceId');
+  return id;
+}

@@ -1,0 +1,160 @@
+import 'fake-indexeddb/auto';
+import { randomUUID } from 'node:crypto';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
+import type { RecordedEvent } from '#shared/schemas/events';
+import { sampleRound } from '../../tests/fixtures/sample-round';
+import { openRacksideDb, type RacksideDb } from './db';
+import {
+  attentionOf,
+  cachedRound,
+  nextBatch,
+  recordTap,
+  settleBatch,
+  storeServerRound,
+  waitingTaps,
+} from './outbox';
+
+const USER = 'user-1';
+const COLLECTION = 'collection-1';
+const BRAMBLE = sampleRound().items[0]!.animal.id;
+let db: RacksideDb;
+
+const event = (kind: RecordedEvent['kind'], extra: Partial<RecordedEvent> = {}): RecordedEvent => ({
+  id: randomUUID(),
+  animalId: BRAMBLE,
+  kind,
+  payload: {},
+  clientRecordedAt: '2026-12-01T14:00:00.000Z',
+  ...extra,
+});
+const tap = (e: RecordedEvent, userId = USER) =>
+  recordTap(db, {
+    userId,
+    byName: 'Robin',
+    collectionId: COLLECTION,
+    animalName: 'Bramble',
+    event: e,
+  });
+
+beforeEach(async () => {
+  db = await openRacksideDb(`test-${randomUUID()}`);
+  await storeServerRound(db, USER, COLLECTION, 'today', sampleRound(), new Date());
+});
+afterEach(() => db.close());
+
+describe('a tap', () => {
+  it('writes the event to the outbox and its effect to the cached round together', async () => {
+    const e = event('ate');
+    const round = await tap(e);
+    expect(round!.items[0]!.tasks[0]!.done).toMatchObject({ eventId: e.id, by: 'Robin' });
+    expect((await cachedRound(db, USER, COLLECTION, 'today'))!.round.progress.done).toBe(1);
+    expect((await waitingTaps(db, USER)).map((w) => w.event.id)).toEqual([e.id]);
+  });
+
+  it('is atomic: when the outbox write fails, the round is left as it was', async () => {
+    const e = event('ate');
+    await tap(e);
+    // The same event id again breaks the outbox's unique index, so the transaction aborts.
+    await expect(tap({ ...e, kind: 'watered' })).rejects.toThrow();
+    const round = (await cachedRound(db, USER, COLLECTION, 'today'))!.round;
+    expect(round.items[0]!.tasks[1]!.done).toBeNull();
+    expect(round.progress.done).toBe(1);
+    expect(await waitingTaps(db, USER)).toHaveLength(1);
+  });
+
+  it('keeps other people’s taps on this phone apart', async () => {
+    await tap(event('ate'), 'someone-else');
+    await tap(event('watered'));
+    expect(await waitingTaps(db, USER)).toHaveLength(1);
+    expect(await nextBatch(db, 'someone-else', 10)).toHaveLength(1);
+  });
+});
+
+describe('settling a batch', () => {
+  it('removes only acknowledged taps and moves refused ones to needs-attention', async () => {
+    const [a, b, c, d] = [
+      event('ate'),
+      event('watered'),
+      event('note', { payload: { text: 'x' } }),
+      event('refused'),
+    ];
+    for (const e of [a, b, c, d]) await tap(e);
+    const sent = await nextBatch(db, USER, 10);
+    const counts = await settleBatch(
+      db,
+      sent,
+      [
+        { id: a.id, status: 'accepted' },
+        { id: b.id, status: 'duplicate' },
+        {
+          id: c.id,
+          status: 'rejected',
+          reason: 'outside_cover',
+          message: 'This was recorded outside your cover.',
+        },
+        // d got no verdict (e.g. a cut-off answer): it must stay queued.
+      ],
+      new Date('2026-12-01T15:00:00Z'),
+    );
+    expect(counts).toEqual({ acknowledged: 2, refused: 1 });
+    expect((await waitingTaps(db, USER)).map((w) => w.event.id)).toEqual([d.id]);
+    expect(await attentionOf(db, USER)).toEqual([
+      expect.objectContaining({
+        id: c.id,
+        reason: 'outside_cover',
+        message: 'This was recorded outside your cover.',
+        animalName: 'Bramble',
+      }),
+    ]);
+  });
+
+  it('ignores verdicts for ids it did not send', async () => {
+    const a = event('ate');
+    await tap(a);
+    const sent = await nextBatch(db, USER, 10);
+    expect(
+      await settleBatch(db, sent, [{ id: randomUUID(), status: 'accepted' }], new Date()),
+    ).toEqual({ acknowledged: 0, refused: 0 });
+    expect(await waitingTaps(db, USER)).toHaveLength(1);
+  });
+});
+
+describe('a fresh copy of the round from the server', () => {
+  it('keeps showing taps that have not been sent yet', async () => {
+    const a = event('ate');
+    await tap(a);
+    const stored = await storeServerRound(db, USER, COLLECTION, 'today', sampleRound(), new Date());
+    expect(stored.round.items[0]!.tasks[0]!.done?.eventId).toBe(a.id);
+    expect(stored.round.progress.done).toBe(1);
+  });
+
+  it('does not count a tap twice once the server has it', async () => {
+    const a = event('ate');
+    await tap(a);
+    const fromServer = sampleRound();
+    fromServer.items[0]!.outcomes = [
+      { eventId: a.id, kind: 'ate', at: a.clientRecordedAt, by: 'Robin' },
+    ];
+    fromServer.items[0]!.tasks[0]!.done = {
+      eventId: a.id,
+      kind: 'ate',
+      at: a.clientRecordedAt,
+      by: 'Robin',
+    };
+    fromServer.progress.done = 1;
+    const stored = await storeServerRound(db, USER, COLLECTION, 'today', fromServer, new Date());
+    expect(stored.round.items[0]!.outcomes).toHaveLength(1);
+    expect(stored.round.progress.done).toBe(1);
+  });
+
+  it('applies a waiting undo to an outcome the server already has', async () => {
+    const meal = event('ate');
+    const fromServer = sampleRound();
+    fromServer.items[0]!.outcomes = [
+      { eventId: meal.id, kind: 'ate', at: meal.clientRecordedAt, by: 'Robin' },
+    ];
+    await tap(event('void', { payload: { targetId: meal.id } }));
+    const stored = await storeServerRound(db, USER, COLLECTION, 'today', fromServer, new Date());
+    expect(stored.round.items[0]!.outcomes).toEqual([]);
+  });
+});

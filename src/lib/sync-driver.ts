@@ -1,0 +1,121 @@
+import { useSyncExternalStore } from 'react';
+import type { EventBatchBody } from '#shared/schemas/events';
+import { withDb } from './db';
+import {
+  backoffDelay,
+  createSyncEngine,
+  type SyncEngine,
+  type SyncStatus,
+  type SyncTransport,
+} from './sync';
+
+const REQUEST_TIMEOUT_MS = 20_000;
+/** A tap is sent shortly after, so a quick run of taps travels in one request. */
+const AFTER_TAP_MS = 1_500;
+
+/** POSTs a batch with our CSRF header; a timeout counts as no answer. */
+export const fetchTransport: SyncTransport = async (collectionId: string, body: EventBatchBody) => {
+  const res = await fetch(`/api/collections/${collectionId}/events`, {
+    method: 'POST',
+    credentials: 'same-origin',
+    headers: {
+      Accept: 'application/json',
+      'Content-Type': 'application/json',
+      'X-Rackside-Client': '1',
+    },
+    body: JSON.stringify(body),
+    signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS),
+  });
+  return { status: res.status, body: await res.json().catch(() => null) };
+};
+
+const IDLE: SyncStatus = {
+  phase: 'idle',
+  waiting: 0,
+  attention: 0,
+  progress: null,
+  lastSavedAt: null,
+  failures: 0,
+};
+
+let engine: SyncEngine | null = null;
+let current: SyncStatus = IDLE;
+const listeners = new Set<() => void>();
+let retryTimer: ReturnType<typeof setTimeout> | undefined;
+let afterSaved: (() => void) | undefined;
+
+function publish(status: SyncStatus) {
+  current = status;
+  for (const l of listeners) l();
+}
+
+async function flushNow() {
+  if (!engine) return;
+  clearTimeout(retryTimer);
+  const mine = engine;
+  const result = await mine.flush();
+  if (mine !== engine) return;
+  if (result.acknowledged || result.refused) afterSaved?.();
+  const { phase, failures } = mine.status();
+  // Signed out waits for a sign-in; anything else that failed tries again later.
+  if (!result.ok && phase !== 'signed_out')
+    retryTimer = setTimeout(() => void flushNow(), backoffDelay(failures));
+}
+
+const onOnline = () => void flushNow();
+const onVisible = () => {
+  if (document.visibilityState === 'visible') void flushNow();
+};
+
+/**
+ * Starts syncing for the signed-in person (the page drives sync: at start, when the signal
+ * returns, when the page is shown again, after taps, on "Sync now" and by a backoff timer).
+ * Returns a stop function.
+ */
+export function startSync(userId: string, onSaved: () => void): () => void {
+  stopSync();
+  afterSaved = onSaved;
+  engine = createSyncEngine({
+    db: () => withDb(async (d) => d),
+    userId,
+    send: fetchTransport,
+    onStatus: publish,
+  });
+  window.addEventListener('online', onOnline);
+  document.addEventListener('visibilitychange', onVisible);
+  void flushNow();
+  return stopSync;
+}
+
+function stopSync() {
+  clearTimeout(retryTimer);
+  window.removeEventListener('online', onOnline);
+  document.removeEventListener('visibilitychange', onVisible);
+  engine = null;
+  publish(IDLE);
+}
+
+/** After a tap: show the new count at once and send soon. */
+export function tapRecorded() {
+  void engine?.refresh();
+  clearTimeout(retryTimer);
+  retryTimer = setTimeout(
+    () => void flushNow(),
+    current.phase === 'offline' || current.phase === 'failing'
+      ? backoffDelay(current.failures)
+      : AFTER_TAP_MS,
+  );
+}
+
+export const syncNow = () => flushNow();
+export const refreshSyncCounts = () => void engine?.refresh();
+
+export function useSyncStatus(): SyncStatus {
+  return useSyncExternalStore(
+    (listener) => {
+      listeners.add(listener);
+      return () => listeners.delete(listener);
+    },
+    () => current,
+  );
+}

@@ -1,0 +1,192 @@
+// S1 (../shared/budgets.md): the real client outbox and sync engine (on fake-indexeddb) against
+// the real server and PostgreSQL, with faults injected between them. Whatever happens on the
+// wire, the database must end with exactly the events tapped: none lost, none doubled.
+import 'fake-indexeddb/auto';
+import { randomUUID } from 'node:crypto';
+import type { AddressInfo } from 'node:net';
+import { eq } from 'drizzle-orm';
+import fc from 'fast-check';
+import { afterAll, beforeAll, expect, it } from 'vitest';
+import { events } from '../../server/db/schema/animals';
+import type { RecordedEvent } from '../../shared/schemas/events';
+import { openRacksideDb } from '../../src/lib/db';
+import { attentionOf, recordTap, waitingTaps } from '../../src/lib/outbox';
+import { createSyncEngine, type SyncTransport } from '../../src/lib/sync';
+import { createAnimal, PASSWORD } from '../factories';
+import { createTestContext, type TestContext } from '../setup/test-app';
+
+const RUNS = 1000;
+const FAULTS = [
+  'none',
+  'drop_request',
+  'drop_response',
+  'server_error',
+  'timeout',
+  'duplicate',
+  'reorder',
+] as const;
+type Fault = (typeof FAULTS)[number];
+
+let ctx: TestContext;
+let server: ReturnType<TestContext['app']['listen']>;
+let base: string;
+let cookie: string;
+let userId: string;
+let collectionId: string;
+
+async function post(path: string, body: unknown) {
+  const res = await fetch(`${base}${path}`, {
+    method: 'POST',
+    headers: {
+      'Content-Type': 'application/json',
+      'X-Rackside-Client': '1',
+      ...(cookie ? { Cookie: cookie } : {}),
+    },
+    body: JSON.stringify(body),
+  });
+  return res;
+}
+
+beforeAll(async () => {
+  ctx = await createTestContext();
+  server = ctx.app.listen(0, '127.0.0.1');
+  await new Promise((resolve) => server.once('listening', resolve));
+  base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  const res = await post('/api/auth/sign-up', {
+    email: `s1-${randomUUID().slice(0, 8)}@example.test`,
+    password: PASSWORD,
+    displayName: 'Robin',
+    collectionName: 'S1',
+    timeZone: 'Europe/London',
+  });
+  cookie = res.headers.getSetCookie()[0]!.split(';')[0]!;
+  const body = (await res.json()) as {
+    user: { id: string };
+    memberships: { collectionId: string }[];
+  };
+  userId = body.user.id;
+  collectionId = body.memberships[0]!.collectionId;
+});
+afterAll(async () => {
+  await new Promise((resolve) => server.close(resolve));
+  await ctx.close();
+});
+
+/**
+ * A transport that misbehaves as the run says. Requests it lets go on "in the background"
+ * (timeouts, reordered copies) are kept so the check can wait for them to land.
+ */
+function faultyTransport(faults: Fault[], background: Promise<unknown>[]): SyncTransport {
+  let n = 0;
+  const deliver = async (collection: string, body: unknown) => {
+    const res = await post(`/api/collections/${collection}/events`, body);
+    return { status: res.status, body: await res.json().catch(() => null) };
+  };
+  return async (collection, body) => {
+    const fault = faults[n++ % faults.length]!;
+    switch (fault) {
+      case 'drop_request':
+        throw new TypeError('Failed to fetch');
+      case 'drop_response':
+        await deliver(collection, body); // committed on the server, answer lost on the way back
+        throw new TypeError('Failed to fetch');
+      case 'server_error':
+        return {
+          status: 500,
+          body: { error: { code: 'internal', message: 'Something went wrong on our side.' } },
+        };
+      case 'timeout':
+        background.push(deliver(collection, body)); // still on its way when the phone gives up
+        throw new DOMException('The operation timed out.', 'TimeoutError');
+      case 'duplicate':
+        await deliver(collection, body);
+        return deliver(collection, body);
+      case 'reorder':
+        // This copy arrives late, after requests sent after it; the phone saw no answer.
+        background.push(
+          new Promise((r) => setTimeout(r, 15)).then(() => deliver(collection, body)),
+        );
+        throw new TypeError('Failed to fetch');
+      default:
+        return deliver(collection, body);
+    }
+  };
+}
+
+const step = fc.oneof(
+  fc.record({
+    type: fc.constant('tap' as const),
+    kind: fc.constantFrom('ate', 'refused', 'prey_left_in', 'prey_removed', 'watered'),
+  }),
+  fc.record({ type: fc.constant('undo' as const) }),
+  fc.record({ type: fc.constant('sync' as const) }),
+);
+
+let run = 0;
+it(`S1: exactly once under dropped, failed, timed-out, duplicated and reordered requests (${RUNS} runs)`, async () => {
+  await fc.assert(
+    fc.asyncProperty(
+      fc.array(step, { minLength: 1, maxLength: 12 }),
+      fc.array(fc.constantFrom(...FAULTS), { minLength: 1, maxLength: 8 }),
+      fc.integer({ min: 1, max: 4 }),
+      async (steps, faults, batchSize) => {
+        run += 1;
+        const animal = await createAnimal(ctx.database.db, collectionId, {
+          labelCode: `S1-${run}`,
+        });
+        const db = await openRacksideDb(`s1-${randomUUID()}`);
+        const background: Promise<unknown>[] = [];
+        const engine = createSyncEngine({
+          db: async () => db,
+          userId,
+          send: faultyTransport(faults, background),
+          batchSize,
+        });
+        const tapped: string[] = [];
+        const tap = async (kind: RecordedEvent['kind'], payload: Record<string, unknown> = {}) => {
+          const event: RecordedEvent = {
+            id: randomUUID(),
+            animalId: animal.id,
+            kind,
+            payload,
+            clientRecordedAt: new Date().toISOString(),
+          };
+          await recordTap(db, {
+            userId,
+            byName: 'Robin',
+            collectionId,
+            animalName: animal.name,
+            event,
+          });
+          tapped.push(event.id);
+          return event;
+        };
+        const meals: string[] = [];
+        for (const s of steps) {
+          if (s.type === 'tap') meals.push((await tap(s.kind)).id);
+          else if (s.type === 'undo' && meals.length) await tap('void', { targetId: meals.pop()! });
+          else if (s.type === 'sync') await engine.flush();
+        }
+        // The signal comes back for good: the page keeps syncing until the queue is empty.
+        const healthy = createSyncEngine({
+          db: async () => db,
+          userId,
+          send: faultyTransport(['none'], background),
+          batchSize,
+        });
+        await healthy.flush();
+        await Promise.all(background);
+
+        const stored = await ctx.database.db
+          .select({ id: events.id })
+          .from(events)
+          .where(eq(events.animalId, animal.id));
+        expect(stored.map((r) => r.id).sort()).toEqual([...tapped].sort());
+        expect(await waitingTaps(db, userId)).toEqual([]);
+        expect(await attentionOf(db, userId)).toEqual([]);
+        db.close();
+      },
+    ),
+    { numRuns: RUNS },
+  );
+}, 600_000);
