@@ -2,20 +2,26 @@ import '@fontsource/nunito/latin-400.css';
 import '@fontsource/nunito/latin-700.css';
 import '@fontsource/nunito/latin-800.css';
 import './index.css';
-import { StrictMode } from 'react';
+import { lazy, StrictMode, Suspense } from 'react';
 import { createRoot } from 'react-dom/client';
 import { AppProvider } from './app/provider';
 import { AppRouter } from './app/router';
-import { UpdateBanner } from './features/app-update/components/update-banner';
 import { applyTheme, storedTheme } from './lib/theme';
 
 applyTheme(storedTheme());
+
+// The service worker's helper is not needed to draw the first screen.
+const UpdateBanner = lazy(() => import('./features/app-update/components/update-banner').then((m) => ({ default: m.UpdateBanner })));
 
 createRoot(document.getElementById('root')!).render(
   <StrictMode>
     <AppProvider>
       <AppRouter />
-      {import.meta.env.PROD && <UpdateBanner />}
+      {import.meta.env.PROD && (
+        <Suspense>
+          <UpdateBanner />
+        </Suspense>
+      )}
     </AppProvider>
   </StrictMode>,
 );

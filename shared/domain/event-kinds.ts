@@ -38,3 +38,25 @@ export const HELPER_EVENT_KINDS: readonly EventKind[] = [
   'note',
   'void',
 ];
+
+/** Plain words for each fact, as buttons and histories show them. */
+export const EVENT_WORDS: Record<EventKind, string> = {
+  ate: 'Ate',
+  refused: 'Refused',
+  prey_left_in: 'Prey left in',
+  prey_removed: 'Prey removed',
+  watered: 'Watered',
+  molted: 'Molted',
+  premolt_seen: 'Premolt seen',
+  premolt_cleared: 'Premolt over',
+  molting_now: 'Molting now',
+  sac_laid: 'Egg sac laid',
+  sac_pulled: 'Egg sac pulled',
+  paired: 'Paired',
+  rebuild_started: 'Rebuilding',
+  rebuild_ended: 'Rebuild over',
+  skipped: 'Skipped',
+  void: 'Undone',
+  note: 'Note',
+  moved: 'Moved',
+};

@@ -1,34 +1,27 @@
 import { createBrowserRouter, Navigate, RouterProvider } from 'react-router-dom';
-import { AnimalRoute } from './routes/animal';
-import { AnimalsRoute } from './routes/animals';
-import { DevMailboxRoute } from './routes/dev-mailbox';
-import { ForgotPasswordRoute } from './routes/forgot-password';
 import { NotFoundRoute } from './routes/not-found';
-import { ResetPasswordRoute } from './routes/reset-password';
-import { RulesRoute } from './routes/rules';
-import { SettingsRoute } from './routes/settings';
 import { Shell } from './routes/shell';
-import { SignInRoute } from './routes/sign-in';
-import { SignUpRoute } from './routes/sign-up';
 import { TodayRoute } from './routes/today';
-import { TomorrowRoute } from './routes/tomorrow';
 
+// Today is the route people open at the rack, so it ships in the first bundle; every other
+// screen (sign-in and its forms included) loads on first use and is precached for offline use.
 const router = createBrowserRouter([
-  { path: '/sign-in', element: <SignInRoute /> },
-  { path: '/sign-up', element: <SignUpRoute /> },
-  { path: '/forgot-password', element: <ForgotPasswordRoute /> },
-  { path: '/reset-password', element: <ResetPasswordRoute /> },
-  { path: '/dev/mailbox', element: <DevMailboxRoute /> },
+  { path: '/sign-in', lazy: () => import('./routes/sign-in').then((m) => ({ Component: m.SignInRoute })) },
+  { path: '/sign-up', lazy: () => import('./routes/sign-up').then((m) => ({ Component: m.SignUpRoute })) },
+  { path: '/forgot-password', lazy: () => import('./routes/forgot-password').then((m) => ({ Component: m.ForgotPasswordRoute })) },
+  { path: '/reset-password', lazy: () => import('./routes/reset-password').then((m) => ({ Component: m.ResetPasswordRoute })) },
+  { path: '/dev/mailbox', lazy: () => import('./routes/dev-mailbox').then((m) => ({ Component: m.DevMailboxRoute })) },
   {
     element: <Shell />,
     children: [
       { path: '/', element: <Navigate to="/today" replace /> },
       { path: '/today', element: <TodayRoute /> },
-      { path: '/tomorrow', element: <TomorrowRoute /> },
-      { path: '/animals', element: <AnimalsRoute /> },
-      { path: '/animals/:animalId', element: <AnimalRoute /> },
-      { path: '/settings/rules', element: <RulesRoute /> },
-      { path: '/settings', element: <SettingsRoute /> },
+      { path: '/tomorrow', lazy: () => import('./routes/tomorrow').then((m) => ({ Component: m.TomorrowRoute })) },
+      { path: '/animals', lazy: () => import('./routes/animals').then((m) => ({ Component: m.AnimalsRoute })) },
+      { path: '/animals/:animalId', lazy: () => import('./routes/animal').then((m) => ({ Component: m.AnimalRoute })) },
+      { path: '/attention', lazy: () => import('./routes/attention').then((m) => ({ Component: m.AttentionRoute })) },
+      { path: '/settings/rules', lazy: () => import('./routes/rules').then((m) => ({ Component: m.RulesRoute })) },
+      { path: '/settings', lazy: () => import('./routes/settings').then((m) => ({ Component: m.SettingsRoute })) },
     ],
   },
   { path: '*', element: <NotFoundRoute /> },

@@ -102,8 +102,10 @@ function isConnectionLost(err: unknown): boolean {
 
 /** The last `me` answer, so the app opens with no signal. */
 export const cachedMe = (db: RacksideDb) => db.get('meta', 'me') as Promise<MeResponse | undefined>;
-export const storeMe = (db: RacksideDb, me: MeResponse | null) =>
-  me ? db.put('meta', me, 'me') : db.delete('meta', 'me');
+export async function storeMe(db: RacksideDb, me: MeResponse | null): Promise<void> {
+  if (me) await db.put('meta', me, 'me');
+  else await db.delete('meta', 'me');
+}
 
 /** A random id for this browser, made once, sent with every batch. */
 export async function deviceIdOf(db: RacksideDb): Promise<string> {

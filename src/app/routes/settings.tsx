@@ -1,11 +1,12 @@
 import { Link, useNavigate } from 'react-router-dom';
-import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { SafetyNote } from '@/components/ui/safety-note';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { ChangePasswordForm } from '@/features/auth/components/change-password-form';
 import { CollectionSwitcher } from '@/features/auth/components/collection-switcher';
 import { ThemePicker } from '@/features/settings/components/theme-picker';
+import { SignOutButton } from '@/features/sync/components/sign-out-button';
+import { StorageStatus } from '@/features/sync/components/storage-status';
 import { useShell } from './shell';
 
 export function SettingsRoute() {
@@ -35,9 +36,8 @@ export function SettingsRoute() {
         <ChangePasswordForm />
       </section>
       {signOut.isError && <Notice tone="error" title={signOut.error.message} />}
-      <Button variant="danger" wide busy={signOut.isPending} onClick={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })}>
-        Sign out
-      </Button>
+      <StorageStatus />
+      <SignOutButton busy={signOut.isPending} onSignOut={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })} />
       <SafetyNote />
     </div>
   );

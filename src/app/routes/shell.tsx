@@ -1,3 +1,5 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect } from 'react';
 import { NavLink, Navigate, Outlet, useLocation, useOutletContext } from 'react-router-dom';
 import type { MeResponse, MembershipSummary } from '#shared/schemas/auth';
 import { DialIcon, RackIcon, RoundIcon, TomorrowIcon } from '@/components/ui/icons';
@@ -5,7 +7,9 @@ import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useMe } from '@/features/auth/api/get-me';
 import { useCurrentCollection } from '@/features/auth/hooks/use-current-collection';
+import { SyncIndicator } from '@/features/sync/components/sync-indicator';
 import { ApiError } from '@/lib/api-client';
+import { startSync } from '@/lib/sync-driver';
 
 export interface ShellContext {
   me: MeResponse;
@@ -52,6 +56,10 @@ export function Shell() {
   const location = useLocation();
   const membershipList = me.data?.memberships ?? [];
   const { current, choose } = useCurrentCollection(membershipList);
+  const queryClient = useQueryClient();
+  const userId = me.data?.user.id;
+  // The signed-in person's outbox syncs while the app is open; saved taps refresh the rounds.
+  useEffect(() => (userId ? startSync(userId, () => void queryClient.invalidateQueries({ queryKey: ['rounds'] })) : undefined), [userId, queryClient]);
 
   if (me.isPending) return <Loading />;
   if (me.error instanceof ApiError && me.error.status === 401) {
@@ -68,9 +76,12 @@ export function Shell() {
   return (
     <div className="min-h-dvh pb-24">
       <header className="print:hidden border-b-2 border-border bg-surface px-4 py-2">
-        <p className="mx-auto max-w-xl truncate text-sm font-bold text-muted">
-          Rackside · <span className="text-text">{current?.collectionName ?? 'No collection'}</span>
-        </p>
+        <div className="mx-auto flex max-w-xl flex-col gap-1">
+          <p className="truncate text-sm font-bold text-muted">
+            Rackside · <span className="text-text">{current?.collectionName ?? 'No collection'}</span>
+          </p>
+          <SyncIndicator />
+        </div>
       </header>
       <main className="mx-auto max-w-xl px-4 pt-3">
         <Outlet context={context} />

@@ -1,27 +1,86 @@
-import { describeLocalDate } from '#shared/domain/local-dates';
+import { useCallback, useMemo, useState } from 'react';
+import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
+import { clockTime, describeLocalDate, localDateOf } from '#shared/domain/local-dates';
+import type { RecordedEvent } from '#shared/schemas/events';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
-import { useTodayRound } from '@/features/rounds/api/get-today-round';
+import { useRound } from '@/features/rounds/api/get-round';
+import { useRecordOutcome } from '@/features/rounds/api/record-outcome';
+import { OutcomeButtons } from '@/features/rounds/components/outcome-buttons';
 import { ProgressBar } from '@/features/rounds/components/progress-bar';
+import { RoundFilters } from '@/features/rounds/components/round-filters';
 import { RoundList } from '@/features/rounds/components/round-list';
+import { RoundUnavailable } from '@/features/rounds/components/round-unavailable';
+import { UndoToast } from '@/features/rounds/components/undo-toast';
+import { filterItems, ROUND_FILTERS, type RoundFilter } from '@/features/rounds/filter-items';
+import { ApiError } from '@/lib/api-client';
 import { useShell } from './shell';
 
 export function TodayRoute() {
-  const { collection } = useShell();
+  const { me, collection } = useShell();
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
-  return <TodayRound collectionId={collection.collectionId} />;
+  return <TodayRound userId={me.user.id} myName={me.user.displayName} collectionId={collection.collectionId} />;
 }
 
-function TodayRound({ collectionId }: { collectionId: string }) {
-  const round = useTodayRound(collectionId);
-  if (round.isPending) return <Loading label="Loading today’s round…" />;
-  if (round.isError) return <Notice tone="error" title={round.error.message} />;
-  const r = round.data;
+interface LastTap {
+  event: RecordedEvent;
+  animal: { id: string; name: string; labelCode: string };
+}
+
+function TodayRound({ userId, myName, collectionId }: { userId: string; myName: string; collectionId: string }) {
+  const { local, server } = useRound(userId, collectionId, 'today');
+  const record = useRecordOutcome({ userId, byName: myName, collectionId });
+  const [filter, setFilter] = useState<RoundFilter>('all');
+  const [search, setSearch] = useState('');
+  const [last, setLast] = useState<LastTap | null>(null);
+  const closeToast = useCallback(() => setLast(null), []);
+  const items = local.data?.round.items;
+  const counts = useMemo(
+    () => Object.fromEntries(ROUND_FILTERS.map((f) => [f, items ? filterItems(items, f, '').length : 0])) as Record<RoundFilter, number>,
+    [items],
+  );
+
+  if (local.isPending || (!local.data && server.isPending)) return <Loading label="Loading today’s round…" />;
+  if (local.isError) return <Notice tone="error" title="This phone’s storage could not be opened, so the round cannot be kept offline." />;
+  if (!local.data) return <RoundUnavailable error={server.error} what="today’s round" />;
+
+  const { round, fetchedAt } = local.data;
+  const today = localDateOf(new Date(), round.timeZone);
+  const tap = (animal: LastTap['animal']) => async (kind: EventKind, payload?: Record<string, unknown>) => {
+    const event = await record(animal, kind, payload);
+    setLast({ event, animal });
+  };
+  const undo = (t: LastTap) => void record(t.animal, 'void', { targetId: t.event.id });
+
   return (
     <div className="flex flex-col gap-3">
-      <h1 className="text-3xl font-extrabold">Today · {describeLocalDate(r.date)}</h1>
-      <ProgressBar done={r.progress.done} total={r.progress.total} />
-      <RoundList items={r.items} />
+      <h1 className="text-3xl font-extrabold">Today · {describeLocalDate(round.date)}</h1>
+      {round.date < today && (
+        <Notice tone="warning" title={`This is the round for ${describeLocalDate(round.date)}.`}>
+          Today’s round comes with the next signal. Taps made now are still saved with their time.
+        </Notice>
+      )}
+      {server.isError && (
+        <p className="text-sm font-bold text-muted">
+          {server.error instanceof ApiError && server.error.status === 0 ? 'No signal' : server.error.message} · showing this phone’s copy from {clockTime(fetchedAt, round.timeZone)}
+        </p>
+      )}
+      <ProgressBar done={round.progress.done} total={round.progress.total} />
+      <RoundFilters filter={filter} onFilter={setFilter} search={search} onSearch={setSearch} counts={counts} />
+      <RoundList
+        items={filterItems(round.items, filter, search)}
+        timeZone={round.timeZone}
+        myName={myName}
+        empty={round.items.length ? 'Nothing here with this filter.' : 'Nothing is due. Enjoy the quiet.'}
+        actions={(item) => <OutcomeButtons item={item} onRecord={tap(item.animal)} />}
+      />
+      {last && (
+        <UndoToast
+          message={`${EVENT_WORDS[last.event.kind]} · ${last.animal.name} (${last.animal.labelCode})`}
+          onUndo={() => undo(last)}
+          onClose={closeToast}
+        />
+      )}
     </div>
   );
 }

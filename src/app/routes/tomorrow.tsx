@@ -2,23 +2,24 @@ import { describeLocalDate } from '#shared/domain/local-dates';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
-import { useTomorrowRound } from '@/features/rounds/api/get-tomorrow-round';
+import { useRound } from '@/features/rounds/api/get-round';
 import { PrepList } from '@/features/rounds/components/prep-list';
 import { RoundList } from '@/features/rounds/components/round-list';
+import { RoundUnavailable } from '@/features/rounds/components/round-unavailable';
 import { useShell } from './shell';
 
 export function TomorrowRoute() {
-  const { collection } = useShell();
+  const { me, collection } = useShell();
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
   if (collection.role === 'helper') return <Notice tone="info" title="Helpers see today’s round only." />;
-  return <Tomorrow collectionId={collection.collectionId} />;
+  return <Tomorrow userId={me.user.id} collectionId={collection.collectionId} />;
 }
 
-function Tomorrow({ collectionId }: { collectionId: string }) {
-  const round = useTomorrowRound(collectionId);
-  if (round.isPending) return <Loading label="Working out tomorrow…" />;
-  if (round.isError) return <Notice tone="error" title={round.error.message} />;
-  const r = round.data;
+function Tomorrow({ userId, collectionId }: { userId: string; collectionId: string }) {
+  const { local, server } = useRound(userId, collectionId, 'tomorrow');
+  if (local.isPending || (!local.data && server.isPending)) return <Loading label="Working out tomorrow…" />;
+  if (!local.data) return <RoundUnavailable error={server.error} what="tomorrow’s preview" />;
+  const r = local.data.round;
   return (
     <div className="flex flex-col gap-4">
       <h1 className="text-3xl font-extrabold">Tomorrow · {describeLocalDate(r.date)}</h1>
@@ -33,7 +34,7 @@ function Tomorrow({ collectionId }: { collectionId: string }) {
         </Button>
       </section>
       <div className="print:hidden">
-        <RoundList items={r.items} />
+        <RoundList items={r.items} timeZone={r.timeZone} />
       </div>
     </div>
   );

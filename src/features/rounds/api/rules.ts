@@ -22,7 +22,7 @@ export function useSaveRules(collectionId: string) {
     mutationFn: (overrides: RulesOverride) => putRules(collectionId, overrides),
     onSuccess: (data) => {
       queryClient.setQueryData(roundKeys.rules(collectionId), data);
-      void queryClient.invalidateQueries({ queryKey: roundKeys.tomorrow(collectionId) });
+      void queryClient.invalidateQueries({ queryKey: roundKeys.all(collectionId) });
     },
   });
 }

@@ -19,7 +19,7 @@ export function useSaveCare(collectionId: string, animalId: string) {
     mutationFn: (body: CareSettingsBody) => patchCare(collectionId, animalId, body),
     onSuccess: (data) => {
       queryClient.setQueryData(roundKeys.schedule(collectionId, animalId), data);
-      void queryClient.invalidateQueries({ queryKey: roundKeys.tomorrow(collectionId) });
+      void queryClient.invalidateQueries({ queryKey: roundKeys.all(collectionId) });
     },
   });
 }

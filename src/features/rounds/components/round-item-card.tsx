@@ -1,5 +1,8 @@
+import type { ReactNode } from 'react';
 import { SEX_LABEL, STAGE_LABEL } from '#shared/domain/animal-facts';
-import type { RoundItemView } from '#shared/schemas/rounds';
+import { EVENT_WORDS } from '#shared/domain/event-kinds';
+import { clockTime } from '#shared/domain/local-dates';
+import type { Outcome, RoundItemView } from '#shared/schemas/rounds';
 import { CautionBadges } from '@/components/ui/caution-badges';
 import { describeOffer, TASK_META } from './task-meta';
 
@@ -7,8 +10,28 @@ function placeCode(location: RoundItemView['animal']['location']) {
   return location ? `${location.rack}${location.shelf}-${location.position}` : 'No place';
 }
 
+interface Props {
+  item: RoundItemView;
+  timeZone: string;
+  /** The signed-in person: their own outcomes do not repeat their name. */
+  myName?: string;
+  /** Outcome buttons on today's round; none on a preview. */
+  children?: ReactNode;
+}
+
+function DoneBadge({ done, timeZone, myName }: { done: Outcome; timeZone: string; myName?: string }) {
+  const who = done.by && done.by !== myName ? ` by ${done.by}` : '';
+  return (
+    <span className="ml-2 inline-block rounded-md border-2 border-ok px-1.5 text-sm text-ok">
+      <span aria-hidden="true">✓ </span>
+      {EVENT_WORDS[done.kind]} {clockTime(done.at, timeZone)}
+      {who}
+    </span>
+  );
+}
+
 /** One animal on the round: what, where, how much and why, without opening anything. */
-export function RoundItemCard({ item }: { item: RoundItemView }) {
+export function RoundItemCard({ item, timeZone, myName, children }: Props) {
   const { animal } = item;
   return (
     <article aria-label={`${animal.name}, ${animal.labelCode}`} className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
@@ -43,15 +66,11 @@ export function RoundItemCard({ item }: { item: RoundItemView }) {
                   {word}
                   {task.offer && <span className="font-bold"> · {describeOffer(task.offer)}</span>}
                   {task.carriedOverDays > 0 && (
-                    <span className="ml-2 rounded-md border-2 border-accent px-1.5 text-sm text-accent">
+                    <span className="ml-2 inline-block rounded-md border-2 border-accent px-1.5 text-sm text-accent">
                       carried over {task.carriedOverDays} {task.carriedOverDays === 1 ? 'day' : 'days'}
                     </span>
                   )}
-                  {task.done && (
-                    <span className="ml-2 rounded-md border-2 border-ok px-1.5 text-sm text-ok">
-                      <span aria-hidden="true">✓ </span>done{task.done.by ? ` by ${task.done.by}` : ''}
-                    </span>
-                  )}
+                  {task.done && <DoneBadge done={task.done} timeZone={timeZone} myName={myName} />}
                 </p>
                 <ul className="text-sm text-muted">
                   {task.reasons.map((r) => (
@@ -73,6 +92,7 @@ export function RoundItemCard({ item }: { item: RoundItemView }) {
           ))}
         </ul>
       )}
+      {children}
     </article>
   );
 }

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { RoundItemCard } from './round-item-card';
 
@@ -7,7 +8,19 @@ function shelfOf(item: RoundItemView) {
 }
 
 /** Items in walk order, grouped by shelf with sticky headings. */
-export function RoundList({ items }: { items: RoundItemView[] }) {
+export function RoundList({
+  items,
+  timeZone,
+  myName,
+  actions,
+  empty = 'Nothing is due. Enjoy the quiet.',
+}: {
+  items: RoundItemView[];
+  timeZone: string;
+  myName?: string;
+  actions?: (item: RoundItemView) => ReactNode;
+  empty?: string;
+}) {
   const groups: [string, RoundItemView[]][] = [];
   for (const item of items) {
     const label = shelfOf(item);
@@ -15,14 +28,16 @@ export function RoundList({ items }: { items: RoundItemView[] }) {
     if (last && last[0] === label) last[1].push(item);
     else groups.push([label, [item]]);
   }
-  if (!items.length) return <p className="text-muted">Nothing is due. Enjoy the quiet.</p>;
+  if (!items.length) return <p className="text-muted">{empty}</p>;
   return (
     <div className="flex flex-col gap-4">
       {groups.map(([label, list], i) => (
         <section key={`${label}-${i}`} aria-label={label} className="flex flex-col gap-2">
           <h2 className="sticky top-0 z-10 bg-bg py-1 text-lg font-extrabold">{label}</h2>
           {list.map((item) => (
-            <RoundItemCard key={item.animal.id} item={item} />
+            <RoundItemCard key={item.animal.id} item={item} timeZone={timeZone} myName={myName}>
+              {actions?.(item)}
+            </RoundItemCard>
           ))}
         </section>
       ))}

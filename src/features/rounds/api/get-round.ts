@@ -1,0 +1,41 @@
+import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
+import { roundResponse } from '#shared/schemas/rounds';
+import { apiRequest } from '@/lib/api-client';
+import { withDb, type RoundDay } from '@/lib/db';
+import { cachedRound, storeServerRound } from '@/lib/outbox';
+import { roundKeys } from './keys';
+
+const REFRESH_EVERY_MS = 5 * 60_000;
+
+export const getRound = (collectionId: string, day: RoundDay) => apiRequest(`/collections/${collectionId}/rounds/${day}`, { schema: roundResponse });
+
+/** The phone's copy of a round: read from IndexedDB, so it opens with no signal at all. */
+export const localRoundQueryOptions = (userId: string, collectionId: string, day: RoundDay) =>
+  queryOptions({
+    queryKey: roundKeys.local(collectionId, day, userId),
+    queryFn: async () => (await withDb((db) => cachedRound(db, userId, collectionId, day))) ?? null,
+    staleTime: Infinity,
+    networkMode: 'always',
+  });
+
+/**
+ * A round, local first: the screen shows the phone's copy at once and a fetch of the server's
+ * copy refreshes it in the background (with this person's unsent taps kept on top).
+ */
+export function useRound(userId: string, collectionId: string, day: RoundDay) {
+  const queryClient = useQueryClient();
+  const local = useQuery(localRoundQueryOptions(userId, collectionId, day));
+  const server = useQuery({
+    queryKey: roundKeys.server(collectionId, day),
+    queryFn: async () => {
+      const round = await getRound(collectionId, day);
+      const cached = await withDb((db) => storeServerRound(db, userId, collectionId, day, round, new Date()));
+      queryClient.setQueryData(roundKeys.local(collectionId, day, userId), cached);
+      return cached.fetchedAt;
+    },
+    networkMode: 'always',
+    retry: false,
+    refetchInterval: REFRESH_EVERY_MS,
+  });
+  return { local, server };
+}

@@ -1,0 +1,36 @@
+import { useQueryClient } from '@tanstack/react-query';
+import { useCallback } from 'react';
+import type { EventKind } from '#shared/domain/event-kinds';
+import type { RecordedEvent } from '#shared/schemas/events';
+import { withDb, type CachedRound } from '@/lib/db';
+import { recordTap } from '@/lib/outbox';
+import { askToKeepStorageOnce } from '@/lib/storage';
+import { tapRecorded } from '@/lib/sync-driver';
+import { roundKeys } from './keys';
+
+export interface Recorder {
+  userId: string;
+  byName: string;
+  collectionId: string;
+}
+
+/**
+ * One tap: the event and its effect on today's round are written to the phone in one
+ * transaction and the screen updates from that write. Sending happens later, on its own.
+ */
+export function useRecordOutcome({ userId, byName, collectionId }: Recorder) {
+  const queryClient = useQueryClient();
+  return useCallback(
+    async (animal: { id: string; name: string }, kind: EventKind, payload: Record<string, unknown> = {}): Promise<RecordedEvent> => {
+      const event: RecordedEvent = { id: crypto.randomUUID(), animalId: animal.id, kind, payload, clientRecordedAt: new Date().toISOString() };
+      const round = await withDb((db) => recordTap(db, { userId, byName, collectionId, animalName: animal.name, event }));
+      if (round) {
+        queryClient.setQueryData<CachedRound | null>(roundKeys.local(collectionId, 'today', userId), (prev) => (prev ? { ...prev, round } : prev));
+      }
+      tapRecorded();
+      void askToKeepStorageOnce();
+      return event;
+    },
+    [queryClient, userId, byName, collectionId],
+  );
+}

@@ -1,0 +1,76 @@
+import { useId, useState } from 'react';
+import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
+import type { RoundItemView } from '#shared/schemas/rounds';
+import { Button } from '@/components/ui/button';
+
+export type RecordOutcome = (kind: EventKind, payload?: Record<string, unknown>) => void;
+
+/** The one-tap outcomes an item's tasks call for; the rest sit one step away under "More". */
+function mainOutcomes(item: RoundItemView): EventKind[] {
+  const kinds = new Set(item.tasks.map((t) => t.kind));
+  const preyInside = kinds.has('remove_prey') || item.outcomes.some((o) => o.kind === 'prey_left_in');
+  const list: EventKind[] = [];
+  if (kinds.has('feed')) list.push('ate', 'refused', 'prey_left_in');
+  if (preyInside) list.push('prey_removed');
+  if (kinds.has('water')) list.push('watered');
+  return list;
+}
+
+const MORE: EventKind[] = ['molted', 'premolt_seen', 'molting_now', 'skipped'];
+
+export function OutcomeButtons({ item, onRecord }: { item: RoundItemView; onRecord: RecordOutcome }) {
+  const [open, setOpen] = useState(false);
+  const [note, setNote] = useState('');
+  const panelId = useId();
+  const recorded = new Set(item.outcomes.map((o) => o.kind));
+  const main = mainOutcomes(item);
+  return (
+    <div className="flex flex-col gap-2">
+      <div className="grid grid-cols-2 gap-2 min-[400px]:grid-cols-3">
+        {main.map((kind) => (
+          <Button key={kind} variant={recorded.has(kind) ? 'primary' : 'secondary'} className="min-h-14 px-2 text-base" onClick={() => onRecord(kind)}>
+            {EVENT_WORDS[kind]}
+          </Button>
+        ))}
+        <Button variant="quiet" aria-expanded={open} aria-controls={panelId} className="min-h-14 px-2 text-base" onClick={() => setOpen((o) => !o)}>
+          {open ? 'Less' : 'More…'}
+        </Button>
+      </div>
+      {open && (
+        <div id={panelId} className="flex flex-col gap-2 rounded-xl border-2 border-border p-2">
+          <div className="grid grid-cols-2 gap-2">
+            {MORE.map((kind) => (
+              <Button key={kind} variant="secondary" className="min-h-14 px-2 text-base" onClick={() => onRecord(kind)}>
+                {EVENT_WORDS[kind]}
+              </Button>
+            ))}
+          </div>
+          <form
+            className="flex flex-col gap-2"
+            onSubmit={(e) => {
+              e.preventDefault();
+              if (!note.trim()) return;
+              onRecord('note', { text: note.trim() });
+              setNote('');
+            }}
+          >
+            <label htmlFor={`${panelId}-note`} className="font-bold">
+              Note for {item.animal.name}
+            </label>
+            <textarea
+              id={`${panelId}-note`}
+              value={note}
+              maxLength={2000}
+              rows={2}
+              onChange={(e) => setNote(e.target.value)}
+              className="rounded-xl border-2 border-border bg-surface p-2 text-lg text-text"
+            />
+            <Button type="submit" variant="secondary" disabled={!note.trim()}>
+              Save note
+            </Button>
+          </form>
+        </div>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,19 @@
+import { describe, expect, it } from 'vitest';
+import type { SyncStatus } from '@/lib/sync';
+import { describeSync } from './describe-sync';
+
+const base: SyncStatus = { phase: 'idle', waiting: 0, attention: 0, progress: null, lastSavedAt: null, failures: 0 };
+const now = new Date('2026-12-01T10:00:00Z');
+const words = (s: Partial<SyncStatus>) => describeSync({ ...base, ...s }, now).words;
+
+describe('the sync indicator’s words', () => {
+  it('says what the issue asks for in each state', () => {
+    expect(words({ phase: 'offline', waiting: 7, failures: 1 })).toBe('Offline · 7 waiting');
+    expect(words({ phase: 'saving', waiting: 7, progress: { sent: 2, total: 7 } })).toBe('Saving 7…');
+    expect(words({ lastSavedAt: '2026-12-01T09:58:00Z' })).toBe('All saved · 2 min ago');
+    expect(words({ attention: 3, waiting: 0 })).toBe('3 need attention');
+    expect(words({ attention: 1 })).toBe('1 needs attention');
+    expect(words({ phase: 'signed_out', waiting: 4 })).toBe('Sign in again to save 4 taps');
+    expect(words({ phase: 'failing', waiting: 2 })).toBe('Server trouble · 2 waiting');
+  });
+});
