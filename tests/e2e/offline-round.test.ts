@@ -120,6 +120,26 @@ describe('today’s round with no signal', () => {
       .from(events)
       .where(and(eq(events.recordedBy, partner), gte(events.serverReceivedAt, started)));
     expect(saved.map((e) => e.kind).sort()).toEqual(['refused', 'void']);
+
+    // Later, from the animal's history: the undone refusal is struck through, and an older
+    // fact can be undone too — again by a void.
+    await page.getByRole('link', { name: 'Animals' }).click();
+    await page.getByRole('link', { name: 'Tiger' }).click();
+    const history = page.getByRole('region', { name: 'History' });
+    await expect.poll(() => history.innerText()).toMatch(/Refused[\s\S]*undone/);
+    await expectAccessible(page, 'animal history');
+    await history.getByRole('button', { name: /^Undo / }).first().click();
+    const kinds = async () =>
+      (
+        await env.server.ctx.database.db
+          .select({ kind: events.kind })
+          .from(events)
+          .where(and(eq(events.recordedBy, partner), gte(events.serverReceivedAt, started)))
+      )
+        .map((e) => e.kind)
+        .sort();
+    await expect.poll(kinds, { timeout: 10_000 }).toEqual(['refused', 'void', 'void']);
+    await screenshot(page, 'offline-05-history');
     await context.close();
   });
 

@@ -3,12 +3,13 @@ import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useAnimalList } from '@/features/animals/api/list-animals';
 import { AnimalCard } from '@/features/animals/components/animal-card';
+import { AnimalHistory } from '@/features/rounds/components/animal-history';
 import { CareForm } from '@/features/rounds/components/care-form';
 import { SchedulePanel } from '@/features/rounds/components/schedule-panel';
 import { useShell } from './shell';
 
 export function AnimalRoute() {
-  const { collection } = useShell();
+  const { me, collection } = useShell();
   const { animalId = '' } = useParams();
   const list = useAnimalList(collection?.collectionId ?? '');
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
@@ -22,6 +23,7 @@ export function AnimalRoute() {
       <AnimalCard animal={animal} />
       <SchedulePanel collectionId={collection.collectionId} animalId={animal.id} />
       <CareForm key={animal.id} collectionId={collection.collectionId} animal={animal} />
+      <AnimalHistory recorder={{ userId: me.user.id, byName: me.user.displayName, collectionId: collection.collectionId }} animal={animal} />
     </div>
   );
 }

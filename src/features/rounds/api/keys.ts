@@ -7,5 +7,6 @@ export const roundKeys = {
   /** Fetching the server's copy into IndexedDB. */
   server: (collectionId: string, day: RoundDay) => [...roundKeys.all(collectionId), 'server', day] as const,
   rules: (collectionId: string) => [...roundKeys.all(collectionId), 'rules'] as const,
+  history: (collectionId: string, animalId: string) => [...roundKeys.all(collectionId), 'history', animalId] as const,
   schedule: (collectionId: string, animalId: string) => [...roundKeys.all(collectionId), 'schedule', animalId] as const,
 };
