@@ -2,10 +2,12 @@
 import pg from 'pg';
 import { connectDatabase } from '../server/db/client';
 import { migrateDatabase } from '../server/db/migrate';
+import { runP5 } from './p5-sync-flush';
 import { runP6 } from './p6-round-build';
 import { recordFigures, type Figure } from './results-file';
 
 const BENCHES: Record<string, (db: ReturnType<typeof connectDatabase>) => Promise<{ figures: Figure[]; notes: string[] }>> = {
+  P5: runP5,
   P6: runP6,
 };
 

@@ -2,12 +2,12 @@
 // database seeded with the demo, driven by Debian's Chromium through playwright-core.
 import fs from 'node:fs';
 import type { AddressInfo } from 'node:net';
-import os from 'node:os';
 import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, expect } from 'vitest';
 import { seedDemo } from '../../server/db/seed/demo';
+import { launchBrowser } from '../chromium';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
 export const distDir = path.resolve(import.meta.dirname, '../../dist');
@@ -37,24 +37,6 @@ export async function startServer(): Promise<E2eServer> {
       await ctx.close();
     },
   };
-}
-
-// Flags from the machine notes: headless, no sandbox as root, and no background traffic to a
-// network this machine does not have.
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
-
-export async function launchBrowser(): Promise<{ browser: Browser; userDataDir: string }> {
-  const userDataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-chromium-'));
-  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS });
-  return { browser, userDataDir };
 }
 
 /** A phone-sized page (360 × 740) that fails the test on any console error from the app. */

@@ -15,7 +15,7 @@ import { HttpError } from '../../middleware/errors';
 import { coverMessage } from '../../middleware/roles';
 import type { Membership } from '../collections/collections.repository';
 import { applyNewEvents } from '../rounds/projection';
-import type { RoundsService } from '../rounds/rounds.service';
+import { URGENT_TRIGGERS, type RoundsService } from '../rounds/rounds.service';
 import {
   animalIdsInCollection,
   insertEventsOnce,
@@ -68,7 +68,7 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
       await applyNewEvents(tx, collectionId, zone, fresh);
       return ids;
     });
-    const touched = [...new Set(incoming.filter((e) => inserted.has(e.id)).map((e) => e.animalId))];
+    const touched = [...new Set(incoming.filter((e) => inserted.has(e.id) && URGENT_TRIGGERS.includes(e.kind)).map((e) => e.animalId))];
     await rounds.addUrgentTasks(collectionId, touched);
     return { inserted };
   }
@@ -124,16 +124,17 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
       });
     });
 
-    const known = await animalIdsInCollection(db, member.collectionId, [
-      ...new Set(candidates.map((c) => c.event.animalId)),
-    ]);
     const targetOf = (e: RecordedEvent) =>
       e.kind === 'void' ? (e.payload.targetId as string) : null;
-    const stored = await storedEvents(db, [
-      ...seen,
-      ...candidates.map((c) => targetOf(c.event)).filter((t): t is string => !!t),
-    ]);
     const helper = member.role === 'helper';
+    // Which animals are ours, and which undo targets are stored. A helper's re-sent events are
+    // looked up first, so a tap saved during the cover stays a duplicate after it ends; for
+    // keepers the insert itself finds duplicates (ON CONFLICT), which saves a query per batch.
+    const targets = candidates.map((c) => targetOf(c.event)).filter((t): t is string => !!t);
+    const [known, stored] = await Promise.all([
+      animalIdsInCollection(db, member.collectionId, [...new Set(candidates.map((c) => c.event.animalId))]),
+      storedEvents(db, helper ? [...seen, ...targets] : targets),
+    ]);
     const accepted = new Map<
       string,
       { collectionId: string; animalId: string; recordedBy: string | null }

@@ -1,4 +1,4 @@
-import { eq, inArray } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { applyEvent, EMPTY_STATE, isInOrder, projectState, type AnimalState, type EngineEvent } from '../../../shared/domain/rounds/animal-state';
 import type { Db } from '../../db/client';
 import { animals } from '../../db/schema/animals';
@@ -23,7 +23,7 @@ export async function applyNewEvents(db: Db, collectionId: string, zone: string,
   const ids = [...byAnimal.keys()];
   if (!ids.length) return;
   const current = new Map(
-    (await db.select({ animalId: animalStates.animalId, state: animalStates.state }).from(animalStates).where(inArray(animalStates.animalId, ids)).for('update')).map(
+    (await db.select({ animalId: animalStates.animalId, state: animalStates.state }).from(animalStates).where(sql`${animalStates.animalId} = any(${sql.param(ids)}::uuid[])`).for('update')).map(
       (r) => [r.animalId, r.state as AnimalState],
     ),
   );

@@ -45,16 +45,16 @@ export async function loadEventsOf(db: Db, animalIds: string[]): Promise<Map<str
   return byAnimal;
 }
 
+/** Writes projected states, one statement per 1,000 animals over unnest()ed arrays. */
 export async function upsertStates(db: Db, collectionId: string, states: { animalId: string; state: AnimalState }[]) {
   for (let i = 0; i < states.length; i += 1000) {
     const chunk = states.slice(i, i + 1000);
-    await db
-      .insert(animalStates)
-      .values(chunk.map((s) => ({ animalId: s.animalId, collectionId, state: s.state, lastEventAt: s.state.lastEventAt ? new Date(s.state.lastEventAt) : null, updatedAt: new Date() })))
-      .onConflictDoUpdate({
-        target: animalStates.animalId,
-        set: { state: sql`excluded.state`, lastEventAt: sql`excluded.last_event_at`, updatedAt: sql`excluded.updated_at` },
-      });
+    await db.execute(sql`
+      insert into animal_states (animal_id, collection_id, state, last_event_at, updated_at)
+      select t.animal_id, ${collectionId}::uuid, t.state::jsonb, t.last_event_at, now()
+      from unnest(${sql.param(chunk.map((s) => s.animalId))}::uuid[], ${sql.param(chunk.map((s) => JSON.stringify(s.state)))}::text[],
+                  ${sql.param(chunk.map((s) => s.state.lastEventAt))}::timestamptz[]) as t(animal_id, state, last_event_at)
+      on conflict (animal_id) do update set state = excluded.state, last_event_at = excluded.last_event_at, updated_at = excluded.updated_at`);
   }
 }
 

@@ -74,6 +74,12 @@ function animalView(a: EngineAnimal): RoundItemView['animal'] {
   };
 }
 
+/**
+ * Facts that can make a task urgent during the day: prey left with an animal that is (or
+ * turns out to be) in premolt or molting must come out at once.
+ */
+export const URGENT_TRIGGERS: readonly string[] = ['prey_left_in', 'premolt_seen', 'molting_now', 'molted'];
+
 export function createRoundsService(db: NodePgDatabase, now: () => Date) {
   async function collectionOf(collectionId: string): Promise<Collection> {
     const c = await findCollection(db, collectionId);
@@ -293,10 +299,11 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
      * that is now molting or in premolt) are added to today's round with their reason.
      */
     async addUrgentTasks(collectionId: string, animalIds: string[]) {
+      if (!animalIds.length) return;
       const c = await collectionOf(collectionId);
       const date = service.today(c);
       const row = await findRound(db, c.id, date);
-      if (!row || !animalIds.length) return;
+      if (!row) return;
       const existing = new Map(
         (await loadRoundItems(db, row.id, animalIds)).map((r) => [r.animal.id, r.item]),
       );

@@ -1,7 +1,8 @@
 import { useCallback, useMemo, useState } from 'react';
-import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
+import { EVENT_WORDS } from '#shared/domain/event-kinds';
 import { clockTime, describeLocalDate, localDateOf } from '#shared/domain/local-dates';
 import type { RecordedEvent } from '#shared/schemas/events';
+import type { RoundItemView } from '#shared/schemas/rounds';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useRound } from '@/features/rounds/api/get-round';
@@ -34,6 +35,17 @@ function TodayRound({ userId, myName, collectionId }: { userId: string; myName: 
   const [search, setSearch] = useState('');
   const [last, setLast] = useState<LastTap | null>(null);
   const closeToast = useCallback(() => setLast(null), []);
+  const actions = useCallback(
+    (item: RoundItemView) => (
+      <OutcomeButtons
+        item={item}
+        onRecord={(kind, payload) => {
+          void record(item.animal, kind, payload).then((event) => setLast({ event, animal: item.animal }));
+        }}
+      />
+    ),
+    [record],
+  );
   const items = local.data?.round.items;
   const counts = useMemo(
     () => Object.fromEntries(ROUND_FILTERS.map((f) => [f, items ? filterItems(items, f, '').length : 0])) as Record<RoundFilter, number>,
@@ -46,10 +58,6 @@ function TodayRound({ userId, myName, collectionId }: { userId: string; myName: 
 
   const { round, fetchedAt } = local.data;
   const today = localDateOf(new Date(), round.timeZone);
-  const tap = (animal: LastTap['animal']) => async (kind: EventKind, payload?: Record<string, unknown>) => {
-    const event = await record(animal, kind, payload);
-    setLast({ event, animal });
-  };
   const undo = (t: LastTap) => void record(t.animal, 'void', { targetId: t.event.id });
 
   return (
@@ -72,7 +80,7 @@ function TodayRound({ userId, myName, collectionId }: { userId: string; myName: 
         timeZone={round.timeZone}
         myName={myName}
         empty={round.items.length ? 'Nothing here with this filter.' : 'Nothing is due. Enjoy the quiet.'}
-        actions={(item) => <OutcomeButtons item={item} onRecord={tap(item.animal)} />}
+        actions={actions}
       />
       {last && (
         <UndoToast

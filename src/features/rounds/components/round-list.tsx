@@ -1,4 +1,4 @@
-import type { ReactNode } from 'react';
+import { memo, type ReactNode } from 'react';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { RoundItemCard } from './round-item-card';
 
@@ -6,6 +6,15 @@ function shelfOf(item: RoundItemView) {
   const l = item.animal.location;
   return l ? `${l.room} · Rack ${l.rack} · Shelf ${l.shelf}` : 'Without a place';
 }
+
+// A tap changes one item; the other cards keep their props and skip rendering (P1 budget).
+const Card = memo(function Card({ item, timeZone, myName, actions }: { item: RoundItemView; timeZone: string; myName?: string; actions?: (item: RoundItemView) => ReactNode }) {
+  return (
+    <RoundItemCard item={item} timeZone={timeZone} myName={myName}>
+      {actions?.(item)}
+    </RoundItemCard>
+  );
+});
 
 /** Items in walk order, grouped by shelf with sticky headings. */
 export function RoundList({
@@ -18,6 +27,7 @@ export function RoundList({
   items: RoundItemView[];
   timeZone: string;
   myName?: string;
+  /** Keep it stable (useCallback) so untouched cards are not rendered again. */
   actions?: (item: RoundItemView) => ReactNode;
   empty?: string;
 }) {
@@ -35,9 +45,7 @@ export function RoundList({
         <section key={`${label}-${i}`} aria-label={label} className="flex flex-col gap-2">
           <h2 className="sticky top-0 z-10 bg-bg py-1 text-lg font-extrabold">{label}</h2>
           {list.map((item) => (
-            <RoundItemCard key={item.animal.id} item={item} timeZone={timeZone} myName={myName}>
-              {actions?.(item)}
-            </RoundItemCard>
+            <Card key={item.animal.id} item={item} timeZone={timeZone} myName={myName} actions={actions} />
           ))}
         </section>
       ))}
