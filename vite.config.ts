@@ -1,6 +1,7 @@
 import path from 'node:path';
 import tailwindcss from '@tailwindcss/vite';
 import react from '@vitejs/plugin-react';
+import type { Plugin } from 'vite';
 import { VitePWA } from 'vite-plugin-pwa';
 import { defineConfig } from 'vitest/config';
 import { PALETTES } from './src/styles/palette.ts';
@@ -10,11 +11,30 @@ const alias = {
   '#shared': path.resolve(import.meta.dirname, 'shared'),
 };
 
+/**
+ * Preloads the font weights the first screen uses, so the heading is not painted twice (once in
+ * a fallback face, again when the weight arrives) — that second paint was the offline LCP (P2).
+ */
+function preloadFirstScreenFonts(): Plugin {
+  return {
+    name: 'rackside-preload-fonts',
+    apply: 'build',
+    transformIndexHtml: {
+      order: 'post',
+      handler(_html, ctx) {
+        const files = Object.keys(ctx.bundle ?? {}).filter((f) => /nunito-latin-(400|700|800)-normal-[\w-]+\.woff2$/.test(f));
+        return files.map((f) => ({ tag: 'link', attrs: { rel: 'preload', as: 'font', type: 'font/woff2', href: `/${f}`, crossorigin: '' }, injectTo: 'head' as const }));
+      },
+    },
+  };
+}
+
 export default defineConfig({
   resolve: { alias },
   plugins: [
     react(),
     tailwindcss(),
+    preloadFirstScreenFonts(),
     VitePWA({
       registerType: 'prompt',
       injectRegister: false,

@@ -2,11 +2,17 @@
 import pg from 'pg';
 import { connectDatabase } from '../server/db/client';
 import { migrateDatabase } from '../server/db/migrate';
+import { runP1 } from './p1-tap-latency';
+import { runP2, runP3, runP4 } from './p2-p4-pages';
 import { runP5 } from './p5-sync-flush';
 import { runP6 } from './p6-round-build';
 import { recordFigures, type Figure } from './results-file';
 
 const BENCHES: Record<string, (db: ReturnType<typeof connectDatabase>) => Promise<{ figures: Figure[]; notes: string[] }>> = {
+  P1: runP1,
+  P2: runP2,
+  P3: runP3,
+  P4: runP4,
   P5: runP5,
   P6: runP6,
 };

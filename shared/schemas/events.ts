@@ -88,10 +88,6 @@ export const recordedEvent = z
   });
 export type RecordedEvent = z.infer<typeof recordedEvent>;
 
-/** The most events one sync request may carry; the client sends at most SYNC_BATCH_SIZE. */
-export const MAX_BATCH_EVENTS = 500;
-export const SYNC_BATCH_SIZE = 200;
-
 /**
  * A sync request. Events are checked one by one on the server (a bad one is rejected on its
  * own), so the envelope accepts any array and only counts it.

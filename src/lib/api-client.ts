@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import { errorBody } from '#shared/schemas/common';
+import type { ErrorBody } from '#shared/schemas/common';
 
 /** Every failed API call becomes one of these, with a message fit to show a person. */
 export class ApiError extends Error {
@@ -18,6 +18,16 @@ interface RequestOptions<T> {
   body?: unknown;
   schema?: z.ZodType<T>;
   signal?: AbortSignal;
+}
+
+/**
+ * Our error body, read without zod: the first screen ships without the schema library, which
+ * loads with the screens that need it (P2, P4).
+ */
+export function readErrorBody(data: unknown): ErrorBody['error'] | null {
+  const error = (data as { error?: unknown } | null)?.error as Partial<ErrorBody['error']> | undefined;
+  if (!error || typeof error.code !== 'string' || typeof error.message !== 'string') return null;
+  return { code: error.code, message: error.message, issues: Array.isArray(error.issues) ? error.issues : undefined };
 }
 
 /** The only fetch wrapper: JSON in and out, our CSRF header, typed errors, checked answers. */
@@ -50,11 +60,8 @@ export async function apiRequest<T = void>(
   if (res.status === 204) return undefined as T;
   const data: unknown = await res.json().catch(() => null);
   if (!res.ok) {
-    const parsed = errorBody.safeParse(data);
-    if (parsed.success) {
-      const { code, message, issues } = parsed.data.error;
-      throw new ApiError(res.status, code, message, issues);
-    }
+    const error = readErrorBody(data);
+    if (error) throw new ApiError(res.status, error.code, error.message, error.issues);
     throw new ApiError(
       res.status,
       `http_${res.status}`,

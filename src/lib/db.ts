@@ -5,7 +5,7 @@ import type { RoundResponse } from '#shared/schemas/rounds';
 
 export type RoundDay = 'today' | 'tomorrow';
 
-/** A round as the phone keeps it: the server's copy with the phone's unsent taps applied. */
+/** A round as the screen uses it: the server's copy with the phone's unsent taps applied. */
 export interface CachedRound {
   key: string;
   userId: string;
@@ -14,6 +14,31 @@ export interface CachedRound {
   round: RoundResponse;
   /** When the server's copy was fetched (ISO). */
   fetchedAt: string;
+}
+
+type RoundItem = RoundResponse['items'][number];
+
+/**
+ * How a round is stored: its header in `rounds` and each item as its own record in
+ * `roundItems`, so a tap reads and writes one small item, not the whole round (P1 budget).
+ */
+export interface StoredRound {
+  key: string;
+  userId: string;
+  collectionId: string;
+  day: RoundDay;
+  /** The round without its items; progress is counted from the items when read. */
+  header: Omit<RoundResponse, 'items'>;
+  /** Animal ids in walk order. */
+  order: string[];
+  fetchedAt: string;
+}
+export interface StoredRoundItem {
+  roundKey: string;
+  animalId: string;
+  /** The collection's zone, for the local times a tap shows ("Ate 08:40"). */
+  timeZone: string;
+  item: RoundItem;
 }
 
 /** A tap waiting to be sent. `seq` keeps the order taps were made in. */
@@ -41,7 +66,8 @@ export interface AttentionEntry {
 }
 
 interface RacksideSchema extends DBSchema {
-  rounds: { key: string; value: CachedRound };
+  rounds: { key: string; value: StoredRound };
+  roundItems: { key: [string, string]; value: StoredRoundItem; indexes: { byRound: string } };
   outbox: { key: number; value: OutboxEntry; indexes: { byEventId: string; byUser: string } };
   attention: { key: string; value: AttentionEntry; indexes: { byUser: string } };
   /** Small facts: the device id, the last signed-in person, storage persistence. */
@@ -55,6 +81,7 @@ export function openRacksideDb(name = DB_NAME): Promise<RacksideDb> {
   return openDB<RacksideSchema>(name, 1, {
     upgrade(db) {
       db.createObjectStore('rounds', { keyPath: 'key' });
+      db.createObjectStore('roundItems', { keyPath: ['roundKey', 'animalId'] }).createIndex('byRound', 'roundKey');
       const outbox = db.createObjectStore('outbox', { keyPath: 'seq', autoIncrement: true });
       outbox.createIndex('byEventId', 'event.id', { unique: true });
       outbox.createIndex('byUser', 'userId');

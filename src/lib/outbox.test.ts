@@ -45,8 +45,9 @@ afterEach(() => db.close());
 describe('a tap', () => {
   it('writes the event to the outbox and its effect to the cached round together', async () => {
     const e = event('ate');
-    const round = await tap(e);
-    expect(round!.items[0]!.tasks[0]!.done).toMatchObject({ eventId: e.id, by: 'Robin' });
+    const effect = await tap(e);
+    expect(effect!.item.tasks[0]!.done).toMatchObject({ eventId: e.id, by: 'Robin' });
+    expect(effect!.doneDelta).toBe(1);
     expect((await cachedRound(db, USER, COLLECTION, 'today'))!.round.progress.done).toBe(1);
     expect((await waitingTaps(db, USER)).map((w) => w.event.id)).toEqual([e.id]);
   });

@@ -1,4 +1,4 @@
-import { withOutcome, type DayOutcome } from '#shared/domain/rounds/settle';
+import { itemWithOutcome, progressOf, withOutcome, type DayOutcome } from '#shared/domain/rounds/settle';
 import type { EventResult, RecordedEvent } from '#shared/schemas/events';
 import type { RoundResponse } from '#shared/schemas/rounds';
 import {
@@ -34,35 +34,43 @@ function outcomeOf(event: RecordedEvent, by: string): DayOutcome {
   return { eventId: event.id, kind: event.kind, at: event.clientRecordedAt, by, voids: targetId };
 }
 
+/** What a tap changed on today's round: one item, and how many more tasks are done. */
+export interface TapEffect {
+  animalId: string;
+  item: RoundResponse['items'][number];
+  doneDelta: number;
+}
+
 /**
- * Records a tap: the event joins the outbox and today's cached round shows its effect, in ONE
- * IndexedDB transaction, so the two can never disagree. Nothing here waits on the network.
- * Returns the updated round (null when no round is cached, e.g. a tap from a scan).
+ * Records a tap: the event joins the outbox and today's cached round item shows its effect, in
+ * ONE IndexedDB transaction, so the two can never disagree. Nothing here waits on the network.
+ * Only the tapped item is read and written (progress is counted from the items when a round
+ * is read), which keeps a tap close to a bare put (P1).
+ * Returns the change (null when the animal is not on a cached round, e.g. a tap from a scan).
  */
-export async function recordTap(db: RacksideDb, tap: Tap): Promise<RoundResponse | null> {
-  const tx = db.transaction(['outbox', 'rounds'], 'readwrite');
+export async function recordTap(db: RacksideDb, tap: Tap): Promise<TapEffect | null> {
+  const tx = db.transaction(['outbox', 'roundItems'], 'readwrite');
   const done = completion(tx);
-  const rounds = tx.objectStore('rounds');
   const key = roundKey(tap.userId, tap.collectionId, 'today');
-  const [cached] = await Promise.all([
-    rounds.get(key),
-    tx
-      .objectStore('outbox')
-      .add({
-        userId: tap.userId,
-        collectionId: tap.collectionId,
-        animalName: tap.animalName,
-        byName: tap.byName,
-        event: tap.event,
-      }),
+  const [stored] = await Promise.all([
+    tx.objectStore('roundItems').get([key, tap.event.animalId]),
+    tx.objectStore('outbox').add({ userId: tap.userId, collectionId: tap.collectionId, animalName: tap.animalName, byName: tap.byName, event: tap.event }),
   ]);
-  let round: RoundResponse | null = null;
-  if (cached) {
-    round = withOutcome(cached.round, tap.event.animalId, outcomeOf(tap.event, tap.byName));
-    void rounds.put({ ...cached, round });
+  let effect: TapEffect | null = null;
+  if (stored) {
+    const { item, doneDelta } = itemWithOutcome(stored.item, outcomeOf(tap.event, tap.byName), stored.timeZone);
+    void tx.objectStore('roundItems').put({ ...stored, item });
+    effect = { animalId: tap.event.animalId, item, doneDelta };
   }
   await done;
-  return round;
+  return effect;
+}
+
+/** A cached round with one tap's effect applied (the screen's copy, no storage involved). */
+export function applyTapEffect(cached: CachedRound, effect: TapEffect): CachedRound {
+  const items = cached.round.items.map((i) => (i.animal.id === effect.animalId ? effect.item : i));
+  const progress = { ...cached.round.progress, done: cached.round.progress.done + effect.doneDelta };
+  return { ...cached, round: { ...cached.round, items, progress } };
 }
 
 /** The signed-in person's waiting taps, oldest first. Other people's taps on this phone stay put. */
@@ -71,16 +79,14 @@ export async function waitingTaps(db: RacksideDb, userId: string): Promise<Outbo
   return all.sort((a, b) => a.seq! - b.seq!);
 }
 
-/** The next batch to send: the oldest taps, all of one collection (one request per collection). */
-export async function nextBatch(
-  db: RacksideDb,
-  userId: string,
-  size: number,
-): Promise<OutboxEntry[]> {
-  const waiting = await waitingTaps(db, userId);
-  const first = waiting[0];
-  if (!first) return [];
-  return waiting.filter((e) => e.collectionId === first.collectionId).slice(0, size);
+/**
+ * The next batch to send: the oldest taps (an index keeps equal keys in primary-key order, so
+ * these are the first `size` by seq), all of one collection (one request per collection).
+ */
+export async function nextBatch(db: RacksideDb, userId: string, size: number): Promise<OutboxEntry[]> {
+  const oldest = await db.getAllFromIndex('outbox', 'byUser', userId, size);
+  const first = oldest[0];
+  return first ? oldest.filter((e) => e.collectionId === first.collectionId) : [];
 }
 
 /**
@@ -131,41 +137,38 @@ export const attentionOf = (db: RacksideDb, userId: string) =>
 export const dismissAttention = (db: RacksideDb, eventId: string) =>
   db.delete('attention', eventId);
 
+const itemsOf = (key: string) => IDBKeyRange.bound([key, ''], [key, '\uffff']);
+
 /**
  * Keeps the server's copy of a round, with this person's unsent taps applied on top so the
  * screen never loses a tap that is still on its way.
  */
-export async function storeServerRound(
-  db: RacksideDb,
-  userId: string,
-  collectionId: string,
-  day: RoundDay,
-  round: RoundResponse,
-  fetchedAt: Date,
-) {
-  const tx = db.transaction(['outbox', 'rounds'], 'readwrite');
+export async function storeServerRound(db: RacksideDb, userId: string, collectionId: string, day: RoundDay, round: RoundResponse, fetchedAt: Date): Promise<CachedRound> {
+  const tx = db.transaction(['outbox', 'rounds', 'roundItems'], 'readwrite');
   const done = completion(tx);
-  const waiting = (await tx.objectStore('outbox').index('byUser').getAll(userId))
-    .filter((e) => e.collectionId === collectionId)
-    .sort((a, b) => a.seq! - b.seq!);
+  const waiting = (await tx.objectStore('outbox').index('byUser').getAll(userId)).filter((e) => e.collectionId === collectionId).sort((a, b) => a.seq! - b.seq!);
   let merged = round;
   if (day === 'today') {
     const known = new Set(round.items.flatMap((i) => i.outcomes.map((o) => o.eventId)));
-    for (const e of waiting)
-      if (!known.has(e.event.id))
-        merged = withOutcome(merged, e.event.animalId, outcomeOf(e.event, e.byName));
+    for (const e of waiting) if (!known.has(e.event.id)) merged = withOutcome(merged, e.event.animalId, outcomeOf(e.event, e.byName));
   }
-  const cached: CachedRound = {
-    key: roundKey(userId, collectionId, day),
-    userId,
-    collectionId,
-    day,
-    round: merged,
-    fetchedAt: fetchedAt.toISOString(),
-  };
-  await Promise.all([tx.objectStore('rounds').put(cached), done]);
-  return cached;
+  const key = roundKey(userId, collectionId, day);
+  const { items, ...header } = merged;
+  const itemStore = tx.objectStore('roundItems');
+  const writes: Promise<unknown>[] = [itemStore.delete(itemsOf(key))];
+  for (const item of items) writes.push(itemStore.put({ roundKey: key, animalId: item.animal.id, timeZone: merged.timeZone, item }));
+  writes.push(tx.objectStore('rounds').put({ key, userId, collectionId, day, header, order: items.map((i) => i.animal.id), fetchedAt: fetchedAt.toISOString() }));
+  await Promise.all([...writes, done]);
+  return { key, userId, collectionId, day, round: merged, fetchedAt: fetchedAt.toISOString() };
 }
 
-export const cachedRound = (db: RacksideDb, userId: string, collectionId: string, day: RoundDay) =>
-  db.get('rounds', roundKey(userId, collectionId, day));
+/** The phone's copy of a round, put back together in walk order. */
+export async function cachedRound(db: RacksideDb, userId: string, collectionId: string, day: RoundDay): Promise<CachedRound | undefined> {
+  const key = roundKey(userId, collectionId, day);
+  const tx = db.transaction(['rounds', 'roundItems']);
+  const [stored, rows] = await Promise.all([tx.objectStore('rounds').get(key), tx.objectStore('roundItems').getAll(itemsOf(key))]);
+  if (!stored) return undefined;
+  const byAnimal = new Map(rows.map((r) => [r.animalId, r.item]));
+  const items = stored.order.map((id) => byAnimal.get(id)).filter((i) => i !== undefined);
+  return { key, userId, collectionId, day, round: { ...stored.header, items, progress: progressOf(items) }, fetchedAt: stored.fetchedAt };
+}

@@ -6,8 +6,11 @@ export type StorageState = 'kept' | 'may_be_cleared' | 'unsupported';
  * Asks the browser to keep our data (the outbox must survive storage pressure), once, after the
  * first real tap, when the request makes sense to the person. The answer is remembered.
  */
+let askedThisPage = false;
+
 export async function askToKeepStorageOnce(): Promise<void> {
-  if (!navigator.storage?.persist) return;
+  if (askedThisPage || !navigator.storage?.persist) return;
+  askedThisPage = true;
   const first = await withDb(async (db) => {
     if (await db.get('meta', 'persistAsked')) return false;
     await db.put('meta', true, 'persistAsked');

@@ -42,6 +42,16 @@ let engine: SyncEngine | null = null;
 let current: SyncStatus = IDLE;
 const listeners = new Set<() => void>();
 let retryTimer: ReturnType<typeof setTimeout> | undefined;
+let retryPending = false;
+
+function schedule(delayMs: number) {
+  retryPending = true;
+  retryTimer = setTimeout(() => {
+    retryPending = false;
+    void flushNow();
+  }, delayMs);
+}
+
 let afterSaved: (() => void) | undefined;
 
 function publish(status: SyncStatus) {
@@ -52,14 +62,14 @@ function publish(status: SyncStatus) {
 async function flushNow() {
   if (!engine) return;
   clearTimeout(retryTimer);
+  retryPending = false;
   const mine = engine;
   const result = await mine.flush();
   if (mine !== engine) return;
   if (result.acknowledged || result.refused) afterSaved?.();
   const { phase, failures } = mine.status();
   // Signed out waits for a sign-in; anything else that failed tries again later.
-  if (!result.ok && phase !== 'signed_out')
-    retryTimer = setTimeout(() => void flushNow(), backoffDelay(failures));
+  if (!result.ok && phase !== 'signed_out') schedule(backoffDelay(failures));
 }
 
 const onOnline = () => void flushNow();
@@ -89,22 +99,23 @@ export function startSync(userId: string, onSaved: () => void): () => void {
 
 function stopSync() {
   clearTimeout(retryTimer);
+  retryPending = false;
   window.removeEventListener('online', onOnline);
   document.removeEventListener('visibilitychange', onVisible);
   engine = null;
   publish(IDLE);
 }
 
-/** After a tap: show the new count at once and send soon. */
+/**
+ * After a tap: show the new count at once and send soon. While the server is out of reach the
+ * backoff timer already set is left alone, so a run of taps does not hammer storage or network.
+ */
 export function tapRecorded() {
-  void engine?.refresh();
+  engine?.noteTap();
+  const unreachable = current.phase === 'offline' || current.phase === 'failing';
+  if (unreachable && retryPending) return;
   clearTimeout(retryTimer);
-  retryTimer = setTimeout(
-    () => void flushNow(),
-    current.phase === 'offline' || current.phase === 'failing'
-      ? backoffDelay(current.failures)
-      : AFTER_TAP_MS,
-  );
+  schedule(unreachable ? backoffDelay(current.failures) : AFTER_TAP_MS);
 }
 
 export const syncNow = () => flushNow();

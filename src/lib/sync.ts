@@ -1,12 +1,8 @@
-import { errorBody } from '#shared/schemas/common';
-import {
-  eventBatchResponse,
-  SYNC_BATCH_SIZE,
-  type EventBatchBody,
-  type EventResult,
-} from '#shared/schemas/events';
+import { SYNC_BATCH_SIZE } from '#shared/domain/sync-limits';
+import type { EventBatchBody, EventResult } from '#shared/schemas/events';
+import { readErrorBody } from './api-client';
 import { deviceIdOf, type RacksideDb } from './db';
-import { attentionOf, nextBatch, settleBatch, waitingTaps } from './outbox';
+import { nextBatch, settleBatch } from './outbox';
 
 /** Sends one batch; throws when no answer came back (no signal, dropped, timed out). */
 export type SyncTransport = (
@@ -82,10 +78,10 @@ export function createSyncEngine({
 
   async function counts(d: RacksideDb) {
     const [waiting, attention] = await Promise.all([
-      waitingTaps(d, userId),
-      attentionOf(d, userId),
+      d.countFromIndex('outbox', 'byUser', userId),
+      d.countFromIndex('attention', 'byUser', userId),
     ]);
-    return { waiting: waiting.length, attention: attention.length };
+    return { waiting, attention };
   }
 
   async function run(): Promise<FlushResult> {
@@ -132,7 +128,7 @@ export function createSyncEngine({
         // The whole collection refused this person (cover over, removed): these taps can
         // never be saved as they are, so they are shown, not retried forever.
         const message =
-          errorBody.safeParse(answer.body).data?.error.message ??
+          readErrorBody(answer.body)?.message ??
           'This collection refused your taps.';
         results = batch.map((e) => ({
           id: e.event.id,
@@ -143,6 +139,8 @@ export function createSyncEngine({
         const settled = await settleBatch(d, batch, results, now(), 'collection_refused');
         result.refused += settled.refused;
       } else {
+        // The schema loads on the first answer, not with the first screen.
+        const { eventBatchResponse } = await import('#shared/schemas/events');
         const parsed = answer.status === 200 ? eventBatchResponse.safeParse(answer.body) : null;
         if (!parsed?.success) return fail('failing');
         results = parsed.data.results;
@@ -175,7 +173,11 @@ export function createSyncEngine({
       running ??= run().finally(() => (running = null));
       return running;
     },
-    /** Re-reads the counts after a tap or a dismissal without sending anything. */
+    /** A tap was queued: count it without reading storage (taps must stay cheap). */
+    noteTap() {
+      update({ waiting: status.waiting + 1 });
+    },
+    /** Re-reads the counts after a dismissal without sending anything. */
     async refresh() {
       update(await counts(await db()));
     },

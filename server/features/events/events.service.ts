@@ -2,8 +2,8 @@ import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { clockOffsetMs, effectiveTime } from '../../../shared/domain/clock';
 import { HELPER_EVENT_KINDS, type EventKind } from '../../../shared/domain/event-kinds';
 import { coverWindowState } from '../../../shared/domain/roles';
+import { MAX_BATCH_EVENTS } from '../../../shared/domain/sync-limits';
 import {
-  MAX_BATCH_EVENTS,
   recordedEvent,
   type EventBatchBody,
   type EventBatchResponse,

@@ -73,18 +73,38 @@ export function settleItem<T extends { kind: TaskKind }>(tasks: readonly T[], ou
   };
 }
 
+type RoundItem = RoundResponse['items'][number];
+
+/** One item with one more outcome, and how many more of its tasks are now done. */
+export function itemWithOutcome(item: RoundItem, outcome: DayOutcome, zone: string): { item: RoundItem; doneDelta: number } {
+  const before = settleItem(item.tasks, item.outcomes, zone);
+  const after = settleItem(item.tasks, [...item.outcomes, outcome], zone);
+  return {
+    item: { ...item, tasks: after.tasks, outcomes: after.outcomes, warnings: after.warnings },
+    doneDelta: after.done - before.done,
+  };
+}
+
 /** The round with one more outcome for an animal (a void takes its target away). */
 export function withOutcome(round: RoundResponse, animalId: string, outcome: DayOutcome): RoundResponse {
   const index = round.items.findIndex((i) => i.animal.id === animalId);
   if (index < 0) return round;
-  const item = round.items[index]!;
-  const before = settleItem(item.tasks, item.outcomes, round.timeZone);
-  const after = settleItem(item.tasks, [...item.outcomes, outcome], round.timeZone);
+  const { item, doneDelta } = itemWithOutcome(round.items[index]!, outcome, round.timeZone);
   const items = [...round.items];
-  items[index] = { ...item, tasks: after.tasks, outcomes: after.outcomes, warnings: after.warnings };
-  return {
-    ...round,
-    items,
-    progress: { done: round.progress.done - before.done + after.done, total: round.progress.total },
-  };
+  items[index] = item;
+  return { ...round, items, progress: { done: round.progress.done + doneDelta, total: round.progress.total } };
+}
+
+/** Done and total tasks of a round's items (the same count the server makes). */
+export function progressOf(items: readonly RoundItem[]): RoundResponse['progress'] {
+  let done = 0;
+  let total = 0;
+  for (const item of items) {
+    for (const t of item.tasks) {
+      if (!countsForProgress(t.kind)) continue;
+      total += 1;
+      if (t.done) done += 1;
+    }
+  }
+  return { done, total };
 }

@@ -1,26 +1,43 @@
-import { queryOptions, useQuery } from '@tanstack/react-query';
-import { meResponse, type MeResponse } from '#shared/schemas/auth';
+import { useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
+import type { MeResponse } from '#shared/schemas/auth';
 import { ApiError, apiRequest } from '@/lib/api-client';
 import { cachedMe, storeMe, withDb } from '@/lib/db';
 import { authKeys } from './keys';
 
-/**
- * Who is signed in. The last answer is kept on the phone so the app still opens with no
- * signal; a real "signed out" (401) forgets it.
- */
-export async function getMe(): Promise<MeResponse> {
+/** Who is signed in, from the server; the answer is kept on the phone for offline starts. */
+export async function fetchMe(): Promise<MeResponse> {
   try {
+    const { meResponse } = await import('#shared/schemas/auth');
     const me = await apiRequest('/auth/me', { schema: meResponse });
     await withDb((db) => storeMe(db, me)).catch(() => undefined);
     return me;
   } catch (err) {
-    if (err instanceof ApiError && err.status === 0) {
-      const known = await withDb(cachedMe).catch(() => undefined);
-      if (known) return known;
-    }
     if (err instanceof ApiError && err.status === 401) await withDb((db) => storeMe(db, null)).catch(() => undefined);
     throw err;
   }
 }
-export const meQueryOptions = () => queryOptions({ queryKey: authKeys.me(), queryFn: getMe, staleTime: 60_000, networkMode: 'always' });
-export const useMe = () => useQuery(meQueryOptions());
+
+/** Keeps the phone's copy of `me` in step with the server after a sign-in or sign-up. */
+export const rememberMe = (me: MeResponse) => withDb((db) => storeMe(db, me)).catch(() => undefined);
+
+/**
+ * Local first: the phone's copy answers at once (a back room may have a signal that never
+ * answers), and the server's answer replaces it in the background. A 401 from the server
+ * forgets the copy and asks again, which sends the person to sign in.
+ */
+async function loadMe(queryClient: QueryClient): Promise<MeResponse> {
+  const known = await withDb(cachedMe).catch(() => undefined);
+  if (!known) return fetchMe();
+  fetchMe().then(
+    (me) => queryClient.setQueryData(authKeys.me(), me),
+    (err) => {
+      if (err instanceof ApiError && err.status === 401) void queryClient.resetQueries({ queryKey: authKeys.me() });
+    },
+  );
+  return known;
+}
+
+export function useMe() {
+  const queryClient = useQueryClient();
+  return useQuery({ queryKey: authKeys.me(), queryFn: () => loadMe(queryClient), staleTime: 60_000, networkMode: 'always' });
+}

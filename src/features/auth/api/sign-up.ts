@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { meResponse, type SignUpBody } from '#shared/schemas/auth';
 import { apiRequest } from '@/lib/api-client';
+import { rememberMe } from './get-me';
 import { authKeys } from './keys';
 
 export const signUp = (body: SignUpBody) => apiRequest('/auth/sign-up', { method: 'POST', body, schema: meResponse });
@@ -9,7 +10,8 @@ export function useSignUp() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: signUp,
-    onSuccess: (me) => {
+    onSuccess: async (me) => {
+      await rememberMe(me);
       queryClient.clear();
       queryClient.setQueryData(authKeys.me(), me);
     },

@@ -1,5 +1,4 @@
 import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
-import { roundResponse } from '#shared/schemas/rounds';
 import { apiRequest } from '@/lib/api-client';
 import { withDb, type RoundDay } from '@/lib/db';
 import { cachedRound, storeServerRound } from '@/lib/outbox';
@@ -7,7 +6,11 @@ import { roundKeys } from './keys';
 
 const REFRESH_EVERY_MS = 5 * 60_000;
 
-export const getRound = (collectionId: string, day: RoundDay) => apiRequest(`/collections/${collectionId}/rounds/${day}`, { schema: roundResponse });
+/** The server's copy, checked against the shared schema (loaded here, not with the first screen). */
+export async function getRound(collectionId: string, day: RoundDay) {
+  const { roundResponse } = await import('#shared/schemas/rounds');
+  return apiRequest(`/collections/${collectionId}/rounds/${day}`, { schema: roundResponse });
+}
 
 /** The phone's copy of a round: read from IndexedDB, so it opens with no signal at all. */
 export const localRoundQueryOptions = (userId: string, collectionId: string, day: RoundDay) =>
@@ -16,6 +19,9 @@ export const localRoundQueryOptions = (userId: string, collectionId: string, day
     queryFn: async () => (await withDb((db) => cachedRound(db, userId, collectionId, day))) ?? null,
     staleTime: Infinity,
     networkMode: 'always',
+    // A tap replaces one item; deep-comparing the whole round on every tap would cost more
+    // than the tap itself (P1).
+    structuralSharing: false,
   });
 
 /**

@@ -1,0 +1,1 @@
+export function firstRouteJs(distDir: string): { files: { file: string; gzipBytes: number }[]; gzipBytes: number };
