@@ -6,9 +6,12 @@ import { lazy, StrictMode, Suspense } from 'react';
 import { createRoot } from 'react-dom/client';
 import { AppProvider } from './app/provider';
 import { AppRouter } from './app/router';
+import { withDb } from './lib/db';
 import { applyTheme, storedTheme } from './lib/theme';
 
 applyTheme(storedTheme());
+// Open the phone's database while React starts: the first screen reads from it (P2).
+void withDb(async () => undefined).catch(() => undefined);
 
 // The service worker's helper is not needed to draw the first screen.
 const UpdateBanner = lazy(() => import('./features/app-update/components/update-banner').then((m) => ({ default: m.UpdateBanner })));
