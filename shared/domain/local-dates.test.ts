@@ -4,7 +4,7 @@
 import fc from 'fast-check';
 import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
-import { addDays, daysBetween, describeLocalDate, localDateOf, startOfLocalDate } from './local-dates';
+import { addDays, clockTime, daysBetween, describeInstant, describeLocalDate, localDateOf, startOfLocalDate } from './local-dates';
 
 const ZONE = 'America/Toronto';
 
@@ -71,5 +71,13 @@ describe('calendar arithmetic', () => {
   it('describes dates for sentences', () => {
     expect(describeLocalDate('2026-12-11')).toBe('Fri 11 Dec');
     expect(describeLocalDate('2026-03-08', true)).toBe('Sun 8 Mar 2026');
+  });
+});
+
+describe('describeInstant', () => {
+  it('shows an instant in the collection’s zone', () => {
+    // 2026-12-01T13:40Z is 08:40 in Toronto (EST, UTC−5, IANA tz database).
+    expect(describeInstant('2026-12-01T13:40:00Z', 'America/Toronto')).toBe('Tue 1 Dec, 08:40');
+    expect(clockTime('2026-12-01T13:40:00Z', 'America/Toronto')).toBe('08:40');
   });
 });

@@ -87,3 +87,15 @@ export function clockTime(iso: string, zone: string): string {
   }
   return f.format(new Date(iso));
 }
+
+const instantFormats = new Map<string, Intl.DateTimeFormat>();
+/** An instant as "Tue 1 Dec, 08:40" in the zone (the device's own when none is given). */
+export function describeInstant(iso: string, zone?: string): string {
+  const key = zone ?? '';
+  let f = instantFormats.get(key);
+  if (!f) {
+    f = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone: zone });
+    instantFormats.set(key, f);
+  }
+  return f.format(new Date(iso));
+}

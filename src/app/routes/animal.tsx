@@ -23,7 +23,7 @@ export function AnimalRoute() {
       <AnimalCard animal={animal} />
       <SchedulePanel collectionId={collection.collectionId} animalId={animal.id} />
       <CareForm key={animal.id} collectionId={collection.collectionId} animal={animal} />
-      <AnimalHistory recorder={{ userId: me.user.id, byName: me.user.displayName, collectionId: collection.collectionId }} animal={animal} />
+      <AnimalHistory recorder={{ userId: me.user.id, byName: me.user.displayName, collectionId: collection.collectionId }} animal={animal} timeZone={collection.timeZone} />
     </div>
   );
 }

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { EVENT_WORDS } from '#shared/domain/event-kinds';
+import { describeInstant } from '#shared/domain/local-dates';
 import type { HistoryEvent } from '#shared/schemas/events';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -7,7 +8,6 @@ import { Loading } from '@/components/ui/spinner';
 import { useAnimalHistory } from '../api/animal-history';
 import { useRecordOutcome, type Recorder } from '../api/record-outcome';
 
-const when = (iso: string) => new Date(iso).toLocaleString(undefined, { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
 
 function detail(e: HistoryEvent): string | null {
   const p = e.payload as { text?: string; note?: string; sizeMm?: number };
@@ -18,7 +18,8 @@ function detail(e: HistoryEvent): string | null {
  * The animal's recent facts. A mistaken one is undone by recording a void, so the history
  * keeps both the mistake and its correction.
  */
-export function AnimalHistory({ recorder, animal }: { recorder: Recorder; animal: { id: string; name: string } }) {
+export function AnimalHistory({ recorder, animal, timeZone }: { recorder: Recorder; animal: { id: string; name: string }; timeZone: string }) {
+  const when = (iso: string) => describeInstant(iso, timeZone);
   const history = useAnimalHistory(recorder.collectionId, animal.id);
   const record = useRecordOutcome(recorder);
   const [undone, setUndone] = useState<Set<string>>(new Set());

@@ -1,5 +1,6 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { EVENT_WORDS } from '#shared/domain/event-kinds';
+import { describeInstant } from '#shared/domain/local-dates';
 import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/spinner';
 import { withDb } from '@/lib/db';
@@ -7,7 +8,6 @@ import { attentionOf, dismissAttention } from '@/lib/outbox';
 import { refreshSyncCounts } from '@/lib/sync-driver';
 
 const key = (userId: string) => ['sync', 'attention', userId] as const;
-const when = (iso: string) => new Date(iso).toLocaleString(undefined, { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
 
 /** Taps the server refused, with its reason, kept until the keeper has read them. */
 export function AttentionList({ userId }: { userId: string }) {
@@ -30,7 +30,7 @@ export function AttentionList({ userId }: { userId: string }) {
           <p className="text-lg font-extrabold">
             {EVENT_WORDS[a.event.kind]} · {a.animalName}
           </p>
-          <p className="text-sm text-muted">Tapped {when(a.event.clientRecordedAt)} · not saved</p>
+          <p className="text-sm text-muted">Tapped {describeInstant(a.event.clientRecordedAt)} · not saved</p>
           <p className="font-bold text-danger">{a.message}</p>
           <Button variant="secondary" onClick={() => dismiss.mutate(a.id)}>
             I have read this
