@@ -20,7 +20,13 @@ import { useShell } from './shell';
 export function TodayRoute() {
   const { me, collection } = useShell();
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
-  return <TodayRound userId={me.user.id} myName={me.user.displayName} collectionId={collection.collectionId} />;
+  // The heading needs only the collection's zone, so it paints before the round is read (P2).
+  return (
+    <div className="flex flex-col gap-3">
+      <h1 className="text-3xl font-extrabold">Today · {describeLocalDate(localDateOf(new Date(), collection.timeZone))}</h1>
+      <TodayRound userId={me.user.id} myName={me.user.displayName} collectionId={collection.collectionId} />
+    </div>
+  );
 }
 
 interface LastTap {
@@ -62,7 +68,6 @@ function TodayRound({ userId, myName, collectionId }: { userId: string; myName: 
 
   return (
     <div className="flex flex-col gap-3">
-      <h1 className="text-3xl font-extrabold">Today · {describeLocalDate(round.date)}</h1>
       {round.date < today && (
         <Notice tone="warning" title={`This is the round for ${describeLocalDate(round.date)}.`}>
           Today’s round comes with the next signal. Taps made now are still saved with their time.
