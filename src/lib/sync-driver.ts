@@ -4,6 +4,7 @@ import { withDb } from './db';
 import {
   backoffDelay,
   createSyncEngine,
+  IDLE_STATUS,
   type SyncEngine,
   type SyncStatus,
   type SyncTransport,
@@ -29,17 +30,9 @@ export const fetchTransport: SyncTransport = async (collectionId: string, body: 
   return { status: res.status, body: await res.json().catch(() => null) };
 };
 
-const IDLE: SyncStatus = {
-  phase: 'idle',
-  waiting: 0,
-  attention: 0,
-  progress: null,
-  lastSavedAt: null,
-  failures: 0,
-};
 
 let engine: SyncEngine | null = null;
-let current: SyncStatus = IDLE;
+let current: SyncStatus = IDLE_STATUS;
 const listeners = new Set<() => void>();
 let retryTimer: ReturnType<typeof setTimeout> | undefined;
 let retryPending = false;
@@ -103,7 +96,7 @@ function stopSync() {
   window.removeEventListener('online', onOnline);
   document.removeEventListener('visibilitychange', onVisible);
   engine = null;
-  publish(IDLE);
+  publish(IDLE_STATUS);
 }
 
 /**

@@ -28,6 +28,9 @@ export interface FlushResult {
   refused: number;
 }
 
+/** Nothing waiting, nothing known yet. */
+export const IDLE_STATUS: SyncStatus = { phase: 'idle', waiting: 0, attention: 0, progress: null, lastSavedAt: null, failures: 0 };
+
 const BASE_DELAY_MS = 2_000;
 const MAX_DELAY_MS = 5 * 60_000;
 
@@ -61,14 +64,7 @@ export function createSyncEngine({
   batchSize = SYNC_BATCH_SIZE,
   onStatus,
 }: EngineOptions) {
-  let status: SyncStatus = {
-    phase: 'idle',
-    waiting: 0,
-    attention: 0,
-    progress: null,
-    lastSavedAt: null,
-    failures: 0,
-  };
+  let status: SyncStatus = IDLE_STATUS;
   let running: Promise<FlushResult> | null = null;
 
   const update = (patch: Partial<SyncStatus>) => {

@@ -7,18 +7,11 @@ import { events } from '../../server/db/schema/animals';
 import { memberships } from '../../server/db/schema/collections';
 import { users } from '../../server/db/schema/users';
 import { demoCollectionId } from '../../server/db/seed/demo';
-import { DEMO_PASSWORD } from '../../server/db/seed/demo-people';
-import { expectAccessible, phonePage, screenshot, useE2e } from './support';
+import { expectAccessible, phonePage, screenshot, useE2e, signInAsDemo } from './support';
 
 const env = useE2e();
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${env.server.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/today');
-}
+const signIn = (page: Page, email: string) => signInAsDemo(page, env.server.baseUrl, email);
 
 /** Waits until the service worker controls the page, so a reload is served from its cache. */
 async function underServiceWorker(page: Page) {

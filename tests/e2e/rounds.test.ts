@@ -1,17 +1,10 @@
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../server/db/seed/demo-people';
-import { expectAccessible, phonePage, screenshot, useE2e } from './support';
+import { expectAccessible, phonePage, screenshot, useE2e, signInAsDemo } from './support';
 
 const env = useE2e();
 
-async function signIn(page: Page, email: string) {
-  await page.goto(`${env.server.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/today');
-}
+const signIn = (page: Page, email: string) => signInAsDemo(page, env.server.baseUrl, email);
 
 describe('the round screens at 360 × 740', () => {
   it('shows today with reasons, tomorrow with its prep list, the rules, and an animal’s schedule', async () => {

@@ -7,6 +7,7 @@ import AxeBuilder from '@axe-core/playwright';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, expect } from 'vitest';
 import { seedDemo } from '../../server/db/seed/demo';
+import { DEMO_PASSWORD } from '../../server/db/seed/demo-people';
 import { launchBrowser } from '../chromium';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
@@ -76,4 +77,13 @@ export function useE2e(): { readonly server: E2eServer; readonly browser: Browse
     await env.server?.close();
   });
   return env;
+}
+
+/** Signs a demo person in through the form and waits for Today. */
+export async function signInAsDemo(page: Page, baseUrl: string, email: string) {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL('**/today');
 }

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import type { SyncStatus } from '@/lib/sync';
+import { IDLE_STATUS, type SyncStatus } from '@/lib/sync';
 import { describeSync } from './describe-sync';
 
-const base: SyncStatus = { phase: 'idle', waiting: 0, attention: 0, progress: null, lastSavedAt: null, failures: 0 };
+const base = IDLE_STATUS;
 const now = new Date('2026-12-01T10:00:00Z');
 const words = (s: Partial<SyncStatus>) => describeSync({ ...base, ...s }, now).words;
 
