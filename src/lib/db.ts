@@ -27,8 +27,8 @@ export interface StoredRound {
   userId: string;
   collectionId: string;
   day: RoundDay;
-  /** The round without its items; progress is counted from the items when read. */
-  header: Omit<RoundResponse, 'items'>;
+  /** The round without its items, or its progress: that is counted from the items when read. */
+  header: Omit<RoundResponse, 'items' | 'progress'>;
   /** Animal ids in walk order. */
   order: string[];
   fetchedAt: string;

@@ -153,7 +153,7 @@ export async function storeServerRound(db: RacksideDb, userId: string, collectio
     for (const e of waiting) if (!known.has(e.event.id)) merged = withOutcome(merged, e.event.animalId, outcomeOf(e.event, e.byName));
   }
   const key = roundKey(userId, collectionId, day);
-  const { items, ...header } = merged;
+  const { items, progress: _counted, ...header } = merged;
   const itemStore = tx.objectStore('roundItems');
   const writes: Promise<unknown>[] = [itemStore.delete(itemsOf(key))];
   for (const item of items) writes.push(itemStore.put({ roundKey: key, animalId: item.animal.id, timeZone: merged.timeZone, item }));

@@ -23,6 +23,7 @@ import {
   type RulesOverride,
 } from '../../../shared/domain/rounds/rules';
 import {
+  progressOf,
   settleItem,
   type DayOutcome,
 } from '../../../shared/domain/rounds/settle';
@@ -143,12 +144,8 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
     prepList: RoundResponse['prepList'],
     outcomes: Map<string, DayOutcome[]>,
   ): RoundResponse {
-    let done = 0;
-    let total = 0;
     const viewItems = items.map((item) => {
       const settled = settleItem(item.tasks, outcomes.get(item.animal.id) ?? [], c.timeZone);
-      done += settled.done;
-      total += settled.total;
       return {
         animal: animalView(item.animal),
         tasks: settled.tasks,
@@ -165,7 +162,7 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
       builtAt: builtAt?.toISOString() ?? null,
       items: viewItems,
       prepList,
-      progress: { done, total },
+      progress: progressOf(viewItems),
     };
   }
 

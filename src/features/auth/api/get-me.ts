@@ -5,7 +5,7 @@ import { cachedMe, storeMe, withDb } from '@/lib/db';
 import { authKeys } from './keys';
 
 /** Who is signed in, from the server; the answer is kept on the phone for offline starts. */
-export async function fetchMe(): Promise<MeResponse> {
+async function fetchMe(): Promise<MeResponse> {
   try {
     const { meResponse } = await import('#shared/schemas/auth');
     const me = await apiRequest('/auth/me', { schema: meResponse });
