@@ -19,6 +19,8 @@ import { devRoutes } from './features/dev/dev.routes';
 import { eventsRoutes } from './features/events/events.routes';
 import { createEventsService } from './features/events/events.service';
 import { healthRoutes } from './features/health/health.routes';
+import { labelsRoutes } from './features/labels/labels.routes';
+import { createLabelsService } from './features/labels/labels.service';
 import { roundsRoutes } from './features/rounds/rounds.routes';
 import { createRoundsService } from './features/rounds/rounds.service';
 import { createLogger, type Logger } from './logger';
@@ -154,6 +156,7 @@ export function createApp(options: AppOptions) {
   api.use('/collections/:collectionId', roundsRoutes(rounds, animals, member));
   const events = createEventsService(database.db, rounds, now);
   api.use('/collections/:collectionId/events', eventsRoutes(events, member));
+  api.use('/collections/:collectionId', labelsRoutes(createLabelsService(database.db), member));
   api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db), member));
   api.use(apiNotFound);
   api.use(errorHandler);

@@ -40,7 +40,7 @@ export async function createAnimal(db: NodePgDatabase, collectionId: string, ove
     .insert(animals)
     .values({
       collectionId,
-      labelCode: `T-${randomUUID().slice(0, 4).toUpperCase().replace(/[01IO]/g, 'A')}`,
+      labelCode: `TS-${randomUUID().slice(0, 4).toUpperCase().replace(/[01IO]/g, 'A')}`,
       name: 'Test animal',
       scientificName: 'Tliltocatl albopilosus',
       group: 'tarantula',

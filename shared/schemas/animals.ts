@@ -41,6 +41,9 @@ export const animalSummary = z.object({
   preySize: z.string().nullable(),
   preyCount: z.number().nullable(),
   doNotFeedUntil: z.string().nullable(),
+  clutch: z.string().nullable(),
+  /** When the animal was added to the collection (ISO). */
+  addedAt: z.string(),
 });
 export type AnimalSummary = z.infer<typeof animalSummary>;
 

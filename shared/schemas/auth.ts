@@ -57,6 +57,8 @@ export const membershipSummary = z.object({
   collectionId: z.string(),
   collectionName: z.string(),
   timeZone: z.string(),
+  /** Printed in every label's QR: which collection a code belongs to. */
+  labelTag: z.string(),
   role: z.enum(ROLES),
   startsAt: z.string().nullable(),
   endsAt: z.string().nullable(),

@@ -54,6 +54,8 @@ export const animals = pgTable(
     statusDate: date('status_date'),
     acquiredOn: date('acquired_on'),
     source: text('source'),
+    // Slings potted up from one egg sac share a clutch name, so their labels print together.
+    clutch: text('clutch'),
     notes: text('notes'),
     // Per-animal rule overrides (same shape as collection rules, subset).
     settings: jsonb('settings').notNull().default({}),

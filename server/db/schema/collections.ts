@@ -18,6 +18,8 @@ export const collections = pgTable('collections', {
   id: uuid('id').primaryKey().defaultRandom(),
   name: text('name').notNull(),
   timeZone: text('time_zone').notNull(),
+  // Four characters on every label's QR that say which collection the code belongs to.
+  labelTag: text('label_tag').notNull().unique('collections_label_tag'),
   // Per-collection overrides of the round engine's defaults; absent keys use the defaults.
   rules: jsonb('rules').notNull().default({}),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),

@@ -8,6 +8,7 @@ import type { EventKind } from '../../../shared/domain/event-kinds';
 import { generateLabelCodes } from '../../../shared/domain/label-codes';
 import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
 import { hashPassword } from '../../features/auth/passwords';
+import { insertCollection } from '../../features/collections/collections.repository';
 import { refoldStates } from '../../features/rounds/projection';
 import { animals, events } from '../schema/animals';
 import { collections, locations, memberships } from '../schema/collections';
@@ -39,6 +40,8 @@ interface DemoAnimal {
   place: [rack: string, shelf: string, position: string];
   cautions?: Caution[];
   hasWaterDish?: boolean;
+  /** Slings from one egg sac share a clutch name. */
+  clutch?: string;
   /** What happened recently, driving today's round (see the scenario's "states"). */
   story?: 'two_refusals' | 'premolt' | 'molted_5_days' | 'sac_3_weeks' | 'paired_10_days' | 'prey_left_yesterday' | 'missed';
 }
@@ -81,6 +84,7 @@ function clutch(): DemoAnimal[] {
       sizeMm: 10 + (i % 5),
       place: ['C', tray, pot],
       cautions: ['urticating_hairs'],
+      clutch: 'H. formosus sac 1',
       story: i === 3 ? 'prey_left_yesterday' : i === 7 || i === 15 ? 'missed' : undefined,
     } satisfies DemoAnimal;
   });
@@ -214,11 +218,7 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
     const partnerId = idOf(DEMO_ACCOUNTS[1].email);
 
     // The demo flags adults after two refusals (the default is three): a collection's own rule.
-    const [collection] = await tx
-      .insert(collections)
-      .values({ ...DEMO_COLLECTION, rules: { refusalStreak: { adult: 2 } } })
-      .returning({ id: collections.id });
-    const collectionId = collection!.id;
+    const collectionId = await insertCollection(tx, { ...DEMO_COLLECTION, rules: { refusalStreak: { adult: 2 } } });
 
     // The helper covers 7 days from the Friday after today.
     const weekday = new Date(`${today}T12:00:00Z`).getUTCDay();
@@ -268,6 +268,7 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
           locationId: places.get(a.place.join('|'))!,
           hasWaterDish: a.hasWaterDish ?? false,
           cautions: a.cautions ?? [],
+          clutch: a.clutch ?? null,
           acquiredOn: addDays(today, -200 - Math.floor(random() * 300)),
           createdAt: startOfLocalDate(addDays(today, -61), zone),
         })),

@@ -27,5 +27,7 @@ export function toAnimalSummary(
     preySize: a.preySize,
     preyCount: a.preyCount,
     doNotFeedUntil: a.doNotFeedUntil,
+    clutch: a.clutch,
+    addedAt: a.createdAt.toISOString(),
   };
 }

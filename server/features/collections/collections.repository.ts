@@ -1,4 +1,6 @@
+import { randomInt } from 'node:crypto';
 import { and, asc, eq } from 'drizzle-orm';
+import { generateLabelTag } from '../../../shared/domain/labels/label-payload';
 import type { Db } from '../../db/client';
 import { collections, memberships } from '../../db/schema/collections';
 import { users } from '../../db/schema/users';
@@ -7,6 +9,7 @@ const membershipFields = {
   collectionId: collections.id,
   collectionName: collections.name,
   timeZone: collections.timeZone,
+  labelTag: collections.labelTag,
   role: memberships.role,
   startsAt: memberships.startsAt,
   endsAt: memberships.endsAt,
@@ -63,7 +66,16 @@ export async function deleteMembership(db: Db, collectionId: string, userId: str
   return removed.length > 0;
 }
 
-export async function insertCollection(db: Db, values: { name: string; timeZone: string }) {
-  const [row] = await db.insert(collections).values(values).returning({ id: collections.id });
-  return row!.id;
+const randomUnit = () => randomInt(2 ** 32) / 2 ** 32;
+
+/** A new collection with a label tag no other collection has (a clash just draws again). */
+export async function insertCollection(db: Db, values: { name: string; timeZone: string; rules?: unknown }) {
+  for (;;) {
+    const [row] = await db
+      .insert(collections)
+      .values({ ...values, labelTag: generateLabelTag(randomUnit) })
+      .onConflictDoNothing({ target: collections.labelTag })
+      .returning({ id: collections.id });
+    if (row) return row.id;
+  }
 }

@@ -1,12 +1,5 @@
 import { CAUTION_LABEL, type Caution } from '#shared/domain/animal-facts';
-import { EscapeIcon, FastIcon, HairsIcon, VenomIcon } from './icons';
-
-const ICON: Record<Caution, typeof VenomIcon> = {
-  potent_venom: VenomIcon,
-  urticating_hairs: HairsIcon,
-  fast_defensive: FastIcon,
-  escape_risk: EscapeIcon,
-};
+import { CautionIcon } from './icons';
 
 /** Each caution has its own symbol and word, not only a colour (design language). */
 export function CautionBadges({ cautions }: { cautions: readonly Caution[] }) {
@@ -14,10 +7,9 @@ export function CautionBadges({ cautions }: { cautions: readonly Caution[] }) {
   return (
     <ul aria-label="Cautions" className="flex flex-wrap gap-1.5">
       {cautions.map((c) => {
-        const Icon = ICON[c];
         return (
           <li key={c} className="inline-flex items-center gap-1 rounded-lg border-2 border-danger px-2 py-0.5 text-sm font-bold text-danger">
-            <Icon width={18} height={18} />
+            <CautionIcon caution={c} width={18} height={18} />
             {CAUTION_LABEL[c]}
           </li>
         );

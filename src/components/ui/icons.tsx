@@ -1,5 +1,7 @@
 // Rackside's own symbols: simple strokes that read at a glance and in greyscale.
 import type { SVGProps } from 'react';
+import type { Caution } from '#shared/domain/animal-facts';
+import { CAUTION_SYMBOL_PATHS } from '#shared/domain/caution-symbols';
 
 function Svg(props: SVGProps<SVGSVGElement>) {
   return (
@@ -36,42 +38,13 @@ export function DialIcon(props: SVGProps<SVGSVGElement>) {
   );
 }
 
-/** Potent venom: a pair of fangs. */
-export function VenomIcon(props: SVGProps<SVGSVGElement>) {
+/** A caution's own symbol (shared with printed labels). */
+export function CautionIcon({ caution, ...props }: SVGProps<SVGSVGElement> & { caution: Caution }) {
   return (
     <Svg {...props}>
-      <path d="M4 4h16" />
-      <path d="M7 4c0 6 1.5 11 4 15-3-1-5.5-5-5.5-10" />
-      <path d="M17 4c0 6-1.5 11-4 15 3-1 5.5-5 5.5-10" />
-    </Svg>
-  );
-}
-
-/** Urticating hairs: short bristles flying off a curve. */
-export function HairsIcon(props: SVGProps<SVGSVGElement>) {
-  return (
-    <Svg {...props}>
-      <path d="M4 19c4-1 7-4 8-9" />
-      <path d="M12 5l1-3M16 7l3-2M17 11l3 0M15 15l2 2M9 8L7 5" />
-    </Svg>
-  );
-}
-
-/** Fast or defensive: a zigzag dash. */
-export function FastIcon(props: SVGProps<SVGSVGElement>) {
-  return (
-    <Svg {...props}>
-      <path d="M13 2L5 13h6l-1 9 8-11h-6z" />
-    </Svg>
-  );
-}
-
-/** Escape risk: an arrow leaving a box. */
-export function EscapeIcon(props: SVGProps<SVGSVGElement>) {
-  return (
-    <Svg {...props}>
-      <path d="M10 4H4v16h16v-6" />
-      <path d="M13 11l8-8M15 3h6v6" />
+      {CAUTION_SYMBOL_PATHS[caution].map((d) => (
+        <path key={d} d={d} />
+      ))}
     </Svg>
   );
 }

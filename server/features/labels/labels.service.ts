@@ -1,0 +1,66 @@
+import { randomInt } from 'node:crypto';
+import { and, eq, inArray } from 'drizzle-orm';
+import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import { generateLabelCodes } from '../../../shared/domain/label-codes';
+import { labelContent, printProblem } from '../../../shared/domain/labels/label-content';
+import { sheetLayout } from '../../../shared/domain/labels/sheet-layout';
+import type { LabelPdfBody } from '../../../shared/schemas/labels';
+import { animals } from '../../db/schema/animals';
+import { HttpError } from '../../middleware/errors';
+import { renderLabelsPdf } from './labels.pdf';
+
+const UNIQUE_VIOLATION = '23505';
+const randomUnit = () => randomInt(2 ** 32) / 2 ** 32;
+
+export function createLabelsService(db: NodePgDatabase) {
+  return {
+    /** The PDF of label sheets for some of a collection's animals, in the order asked. */
+    async pdf(collectionId: string, labelTag: string, body: LabelPdfBody): Promise<Buffer> {
+      const ids = [...new Set(body.animalIds)];
+      const rows = await db
+        .select()
+        .from(animals)
+        .where(and(eq(animals.collectionId, collectionId), inArray(animals.id, ids)));
+      if (rows.length !== ids.length) {
+        throw new HttpError(404, 'not_found', 'Some of these animals are not in this collection. Reload the list and choose again.');
+      }
+      const byId = new Map(rows.map((r) => [r.id, r]));
+      const sheet = sheetLayout(body.sheet, body.size);
+      const labels = ids.map((id) => {
+        const a = byId.get(id)!;
+        return labelContent({ ...a, cautions: a.cautions as never }, labelTag, body.origin, body.size, body.fields);
+      });
+      const problem = printProblem(labels);
+      if (problem) throw new HttpError(422, 'label_too_small', problem);
+      if (body.start > sheet.perSheet) {
+        throw new HttpError(422, 'invalid', `This sheet has ${sheet.perSheet} positions; start at ${sheet.perSheet} or earlier.`);
+      }
+      return renderLabelsPdf(labels, sheet, body.start);
+    },
+
+    /**
+     * A new code for one animal (a lost or damaged label), same prefix. The old code stops
+     * working at once. Moving an animal never changes its code; only this does.
+     */
+    async relabel(collectionId: string, animalId: string): Promise<string> {
+      const [animal] = await db
+        .select({ labelCode: animals.labelCode })
+        .from(animals)
+        .where(and(eq(animals.collectionId, collectionId), eq(animals.id, animalId)));
+      if (!animal) throw new HttpError(404, 'not_found', 'We could not find that animal.');
+      const prefix = animal.labelCode.split('-')[0]!;
+      for (let attempt = 0; ; attempt++) {
+        const taken = new Set((await db.select({ c: animals.labelCode }).from(animals).where(eq(animals.collectionId, collectionId))).map((r) => r.c));
+        const [code] = generateLabelCodes(prefix, 1, randomUnit, taken);
+        try {
+          await db.update(animals).set({ labelCode: code!, updatedAt: new Date() }).where(eq(animals.id, animalId));
+          return code!;
+        } catch (err) {
+          // Someone took the same code a moment ago: draw again.
+          if ((err as { code?: string }).code !== UNIQUE_VIOLATION || attempt >= 3) throw err;
+        }
+      }
+    },
+  };
+}
+export type LabelsService = ReturnType<typeof createLabelsService>;

@@ -1,0 +1,19 @@
+import type { Caution } from './animal-facts';
+
+/**
+ * Rackside's own caution symbols as SVG path data on a 24 × 24 grid, stroked round at 2.2.
+ * One source for the screen (React icons) and for printed labels (HTML and PDF), so a label
+ * shows the same mark the round does.
+ */
+export const CAUTION_SYMBOL_PATHS: Record<Caution, readonly string[]> = {
+  // Two fangs under a bar.
+  potent_venom: ['M4 4h16', 'M7 4c0 6 1.5 11 4 15-3-1-5.5-5-5.5-10', 'M17 4c0 6-1.5 11-4 15 3-1 5.5-5 5.5-10'],
+  // Short bristles flying off a curve.
+  urticating_hairs: ['M4 19c4-1 7-4 8-9', 'M12 5l1-3M16 7l3-2M17 11l3 0M15 15l2 2M9 8L7 5'],
+  // A zigzag dash.
+  fast_defensive: ['M13 2L5 13h6l-1 9 8-11h-6z'],
+  // An arrow leaving a box.
+  escape_risk: ['M10 4H4v16h16v-6', 'M13 11l8-8M15 3h6v6'],
+};
+export const CAUTION_SYMBOL_GRID = 24;
+export const CAUTION_SYMBOL_STROKE = 2.2;

@@ -1,0 +1,61 @@
+import { describe, expect, it } from 'vitest';
+import { LABEL_FIELDS, labelLayout, MAX_SYMBOL_MM, MIN_MODULE_MM, type Box } from './label-layout';
+import { QUIET_ZONE_MODULES } from './qr-symbol';
+import { LABEL_SIZES, type LabelSizeId } from './sheet-layout';
+
+const overlaps = (a: Box, b: Box) =>
+  a.x < b.x + b.widthMm - 1e-9 && b.x < a.x + a.widthMm - 1e-9 && a.y < b.y + b.heightMm - 1e-9 && b.y < a.y + a.heightMm - 1e-9;
+
+// Versions 2 and 3 (25 and 29 modules) are what our label URLs reach (see qr-symbol.test.ts).
+const MODULES = [25, 29];
+
+describe('one label', () => {
+  for (const id of Object.keys(LABEL_SIZES) as LabelSizeId[]) {
+    for (const modules of MODULES) {
+      it(`${LABEL_SIZES[id].name}, ${modules} modules: quiet zone inside the label and free of text`, () => {
+        const size = LABEL_SIZES[id];
+        const l = labelLayout(size, modules, LABEL_FIELDS);
+        // ISO/IEC 18004:2015, 5.3.8: 4 modules of quiet zone on every side.
+        expect(l.quiet.widthMm).toBeCloseTo(l.symbol.widthMm + 2 * QUIET_ZONE_MODULES * l.moduleMm, 2);
+        expect(l.symbol.x - l.quiet.x).toBeCloseTo(QUIET_ZONE_MODULES * l.moduleMm, 2);
+        expect(l.quiet.x).toBeGreaterThanOrEqual(0);
+        expect(l.quiet.y).toBeGreaterThanOrEqual(0);
+        expect(l.quiet.x + l.quiet.widthMm).toBeLessThanOrEqual(size.widthMm + 1e-9);
+        expect(l.quiet.y + l.quiet.heightMm).toBeLessThanOrEqual(size.heightMm + 1e-9);
+        expect(overlaps(l.quiet, l.text)).toBe(false);
+        expect(l.text.x + l.text.widthMm).toBeLessThanOrEqual(size.widthMm + 1e-9);
+        expect(l.symbol.widthMm).toBeLessThanOrEqual(MAX_SYMBOL_MM);
+        expect(l.moduleMm).toBeCloseTo(l.symbol.widthMm / modules, 3);
+        // Every printed line stays inside the text box.
+        const last = l.lines.at(-1)!;
+        expect(last.y + last.sizeMm).toBeLessThanOrEqual(l.text.y + l.text.heightMm + 1e-9);
+        expect(l.lines[0]!.field).toBe('code');
+      });
+    }
+  }
+
+  it('prints a 25 mm symbol on 70 × 36 mm labels and the most text there', () => {
+    const l = labelLayout(LABEL_SIZES['wide-70x36'], 25, LABEL_FIELDS);
+    expect(l.symbol.widthMm).toBe(25);
+    expect(l.moduleMm).toBe(1);
+    expect(l.dropped).toEqual([]);
+    expect(l.lines.map((x) => x.field)).toEqual(['code', 'name', 'scientificName', 'stage', 'cautions']);
+  });
+
+  it('keeps only the code (and cautions beside it) on 25 mm squares and says what was left off', () => {
+    const l = labelLayout(LABEL_SIZES['square-25'], 25, LABEL_FIELDS);
+    expect(l.mode).toBe('stacked');
+    expect(l.lines.map((x) => x.field)).toEqual(['code']);
+    expect(l.cautionsBesideCode).toBe(true);
+    expect(l.dropped).toEqual(['name', 'scientificName', 'stage']);
+    expect(l.tooSmall).toBe(false);
+  });
+
+  it(`refuses a label whose modules would be under ${MIN_MODULE_MM} mm`, () => {
+    const l = labelLayout(LABEL_SIZES['square-19'], 25, ['name']);
+    expect(l.moduleMm).toBeLessThan(MIN_MODULE_MM);
+    expect(l.tooSmall).toBe(true);
+    // A version-4 payload (33 modules, a long server address) is too dense even for 25 mm squares.
+    expect(labelLayout(LABEL_SIZES['square-25'], 33, []).tooSmall).toBe(true);
+  });
+});
