@@ -95,19 +95,6 @@ export async function largestContentfulPaint(page: Page): Promise<number> {
   return lcp;
 }
 
-/** Waits until a service worker controls the page, so a new visit is served from its cache. */
-export async function underServiceWorker(page: Page) {
-  await page.evaluate(() => navigator.serviceWorker.ready);
-  await page.reload();
-  await page.waitForFunction(() => !!navigator.serviceWorker.controller, undefined, { timeout: 15_000 });
-}
-
-/** No network for the pages and the service worker (setOffline alone misses the latter). */
-export async function cutNetwork(context: BrowserContext) {
-  await context.setOffline(true);
-  await context.route('**/*', (route) => route.abort('internetdisconnected'));
-}
-
 export function percentile(values: number[], p: number): number {
   const s = [...values].sort((a, b) => a - b);
   return s[Math.min(s.length - 1, Math.ceil((p / 100) * s.length) - 1)]!;

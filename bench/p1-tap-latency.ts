@@ -3,9 +3,9 @@
 // same page. The screen only changes after the tap's transaction has committed (recordTap
 // awaits it), so "visibly updated" implies "committed".
 import type { Database } from '../server/db/client';
-import { launchBrowser } from '../tests/chromium';
+import { cutNetwork, launchBrowser } from '../tests/chromium';
 import { makeKeeper, signInCookie, startBenchApp, BENCH_PASSWORD } from './bench-app';
-import { cutNetwork, ensureBuilds, percentile, phoneContext, throttle } from './browser-setup';
+import { ensureBuilds, percentile, phoneContext, throttle } from './browser-setup';
 import { median, type Figure } from './results-file';
 
 const ITEMS = Number(process.env.P1_ITEMS ?? 150);

@@ -5,9 +5,9 @@ import { firstRouteJs } from '../scripts/first-route-size.mjs';
 import type { Database } from '../server/db/client';
 import { seedDemo } from '../server/db/seed/demo';
 import { DEMO_PASSWORD } from '../server/db/seed/demo-people';
-import { launchBrowser } from '../tests/chromium';
+import { cutNetwork, launchBrowser, underServiceWorker } from '../tests/chromium';
 import { distDir, startBenchApp } from './bench-app';
-import { cutNetwork, ensureBuilds, largestContentfulPaint, minimalDir, phoneContext, serveMinimalShell, throttle, underServiceWorker } from './browser-setup';
+import { ensureBuilds, largestContentfulPaint, minimalDir, phoneContext, serveMinimalShell, throttle } from './browser-setup';
 import { median, type Figure } from './results-file';
 
 const RUNS = 5;

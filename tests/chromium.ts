@@ -2,7 +2,7 @@
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 
 // Flags from the machine notes: headless, no sandbox as root, and no background traffic to a
 // network this machine does not have.
@@ -20,4 +20,25 @@ export async function launchBrowser(): Promise<{ browser: Browser; userDataDir: 
   const userDataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-chromium-'));
   const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS });
   return { browser, userDataDir };
+}
+
+/** Waits until a service worker controls the page, so a reload is served from its cache. */
+export async function underServiceWorker(page: Page) {
+  await page.evaluate(() => navigator.serviceWorker.ready);
+  await page.reload();
+  await page.waitForFunction(() => !!navigator.serviceWorker.controller, undefined, { timeout: 15_000 });
+}
+
+/**
+ * No network for the pages AND their service worker: `setOffline` alone does not stop requests
+ * the service worker makes, so every request that reaches the network is aborted too.
+ */
+export async function cutNetwork(context: BrowserContext) {
+  await context.setOffline(true);
+  await context.route('**/*', (route) => route.abort('internetdisconnected'));
+}
+
+export async function restoreNetwork(context: BrowserContext) {
+  await context.unroute('**/*');
+  await context.setOffline(false);
 }

@@ -19,6 +19,10 @@ const router = createBrowserRouter([
       { path: '/tomorrow', lazy: () => import('./routes/tomorrow').then((m) => ({ Component: m.TomorrowRoute })) },
       { path: '/animals', lazy: () => import('./routes/animals').then((m) => ({ Component: m.AnimalsRoute })) },
       { path: '/animals/:animalId', lazy: () => import('./routes/animal').then((m) => ({ Component: m.AnimalRoute })) },
+      { path: '/labels', lazy: () => import('./routes/labels').then((m) => ({ Component: m.LabelsRoute })) },
+      { path: '/scan', lazy: () => import('./routes/scan').then((m) => ({ Component: m.ScanRoute })) },
+      // What a label's QR opens, also from a phone's own camera app (matched in any case).
+      { path: '/l/:tag/:code', lazy: () => import('./routes/label-link').then((m) => ({ Component: m.LabelLinkRoute })) },
       { path: '/attention', lazy: () => import('./routes/attention').then((m) => ({ Component: m.AttentionRoute })) },
       { path: '/settings/rules', lazy: () => import('./routes/rules').then((m) => ({ Component: m.RulesRoute })) },
       { path: '/settings', lazy: () => import('./routes/settings').then((m) => ({ Component: m.SettingsRoute })) },

@@ -30,19 +30,15 @@ export function readErrorBody(data: unknown): ErrorBody['error'] | null {
   return { code: error.code, message: error.message, issues: Array.isArray(error.issues) ? error.issues : undefined };
 }
 
-/** The only fetch wrapper: JSON in and out, our CSRF header, typed errors, checked answers. */
-export async function apiRequest<T = void>(
-  path: string,
-  options: RequestOptions<T> = {},
-): Promise<T> {
-  const { method = 'GET', body, schema, signal } = options;
+/** The one place fetch is called: our CSRF header, typed errors for failures. */
+async function send(path: string, { method = 'GET', body, signal }: RequestOptions<unknown>, accept: string): Promise<Response> {
   let res: Response;
   try {
     res = await fetch(`/api${path}`, {
       method,
       credentials: 'same-origin',
       headers: {
-        Accept: 'application/json',
+        Accept: accept,
         'X-Rackside-Client': '1',
         ...(body === undefined ? {} : { 'Content-Type': 'application/json' }),
       },
@@ -57,10 +53,8 @@ export async function apiRequest<T = void>(
       'No connection to Rackside right now. Check your signal and try again.',
     );
   }
-  if (res.status === 204) return undefined as T;
-  const data: unknown = await res.json().catch(() => null);
   if (!res.ok) {
-    const error = readErrorBody(data);
+    const error = readErrorBody(await res.json().catch(() => null));
     if (error) throw new ApiError(res.status, error.code, error.message, error.issues);
     throw new ApiError(
       res.status,
@@ -68,5 +62,21 @@ export async function apiRequest<T = void>(
       `Rackside answered with an error (${res.status}). Try again.`,
     );
   }
-  return schema ? schema.parse(data) : (data as T);
+  return res;
+}
+
+/** JSON in and out, checked against a schema when one is given. */
+export async function apiRequest<T = void>(
+  path: string,
+  options: RequestOptions<T> = {},
+): Promise<T> {
+  const res = await send(path, options as RequestOptions<unknown>, 'application/json');
+  if (res.status === 204) return undefined as T;
+  const data: unknown = await res.json().catch(() => null);
+  return options.schema ? options.schema.parse(data) : (data as T);
+}
+
+/** A file the server makes (a PDF), as a Blob. */
+export async function apiDownload(path: string, options: Omit<RequestOptions<unknown>, 'schema'>, accept: string): Promise<Blob> {
+  return (await send(path, options, accept)).blob();
 }

@@ -1,4 +1,5 @@
 import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
+import type { AnimalSummary } from '#shared/schemas/animals';
 import type { MeResponse } from '#shared/schemas/auth';
 import type { RecordedEvent, RejectReason } from '#shared/schemas/events';
 import type { RoundResponse } from '#shared/schemas/rounds';
@@ -65,11 +66,19 @@ export interface AttentionEntry {
   refusedAt: string;
 }
 
+/** A collection's animals as last fetched: labels print and scans resolve with no signal. */
+export interface StoredDirectory {
+  collectionId: string;
+  animals: AnimalSummary[];
+  fetchedAt: string;
+}
+
 interface RacksideSchema extends DBSchema {
   rounds: { key: string; value: StoredRound };
   roundItems: { key: [string, string]; value: StoredRoundItem; indexes: { byRound: string } };
   outbox: { key: number; value: OutboxEntry; indexes: { byEventId: string; byUser: string } };
   attention: { key: string; value: AttentionEntry; indexes: { byUser: string } };
+  directory: { key: string; value: StoredDirectory };
   /** Small facts: the device id, the last signed-in person, storage persistence. */
   meta: { key: string; value: unknown };
 }
@@ -78,16 +87,20 @@ export type RacksideDb = IDBPDatabase<RacksideSchema>;
 export const DB_NAME = 'rackside';
 
 export function openRacksideDb(name = DB_NAME): Promise<RacksideDb> {
-  return openDB<RacksideSchema>(name, 1, {
-    upgrade(db) {
-      db.createObjectStore('rounds', { keyPath: 'key' });
-      db.createObjectStore('roundItems', { keyPath: ['roundKey', 'animalId'] }).createIndex('byRound', 'roundKey');
-      const outbox = db.createObjectStore('outbox', { keyPath: 'seq', autoIncrement: true });
-      outbox.createIndex('byEventId', 'event.id', { unique: true });
-      outbox.createIndex('byUser', 'userId');
-      const attention = db.createObjectStore('attention', { keyPath: 'id' });
-      attention.createIndex('byUser', 'userId');
-      db.createObjectStore('meta');
+  return openDB<RacksideSchema>(name, 2, {
+    // Each version adds to the one before, so a phone with queued taps upgrades without losing them.
+    upgrade(db, oldVersion) {
+      if (oldVersion < 1) {
+        db.createObjectStore('rounds', { keyPath: 'key' });
+        db.createObjectStore('roundItems', { keyPath: ['roundKey', 'animalId'] }).createIndex('byRound', 'roundKey');
+        const outbox = db.createObjectStore('outbox', { keyPath: 'seq', autoIncrement: true });
+        outbox.createIndex('byEventId', 'event.id', { unique: true });
+        outbox.createIndex('byUser', 'userId');
+        const attention = db.createObjectStore('attention', { keyPath: 'id' });
+        attention.createIndex('byUser', 'userId');
+        db.createObjectStore('meta');
+      }
+      if (oldVersion < 2) db.createObjectStore('directory', { keyPath: 'collectionId' });
     },
   });
 }

@@ -1,37 +1,18 @@
 // Issue 4's end-to-end check: a whole round with no network, a reload with no network, and
 // every tap saved exactly once when the network comes back.
 import { and, eq, gte } from 'drizzle-orm';
-import type { BrowserContext, Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { events } from '../../server/db/schema/animals';
 import { memberships } from '../../server/db/schema/collections';
 import { users } from '../../server/db/schema/users';
 import { demoCollectionId } from '../../server/db/seed/demo';
+import { cutNetwork, restoreNetwork, underServiceWorker } from '../chromium';
 import { expectAccessible, phonePage, screenshot, useE2e, signInAsDemo } from './support';
 
 const env = useE2e();
 
 const signIn = (page: Page, email: string) => signInAsDemo(page, env.server.baseUrl, email);
-
-/** Waits until the service worker controls the page, so a reload is served from its cache. */
-async function underServiceWorker(page: Page) {
-  await page.evaluate(() => navigator.serviceWorker.ready);
-  await page.reload();
-  await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller), { timeout: 15_000 }).toBe(true);
-}
-
-/**
- * No network for the page AND its service worker: `setOffline` alone does not stop requests
- * the service worker makes, so every request that reaches the network is aborted too.
- */
-async function cutNetwork(context: BrowserContext) {
-  await context.setOffline(true);
-  await context.route('**/*', (route) => route.abort('internetdisconnected'));
-}
-async function restoreNetwork(context: BrowserContext) {
-  await context.unroute('**/*');
-  await context.setOffline(false);
-}
 
 const syncStatus = (page: Page) => page.getByRole('status').filter({ hasText: /saved|waiting|Saving|attention/ }).first().innerText();
 const item = (page: Page, name: string) => page.getByRole('article', { name: new RegExp(`^${name},`) });

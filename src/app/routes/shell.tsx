@@ -2,9 +2,10 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
 import { NavLink, Navigate, Outlet, useLocation, useOutletContext } from 'react-router-dom';
 import type { MeResponse, MembershipSummary } from '#shared/schemas/auth';
-import { DialIcon, RackIcon, RoundIcon, TomorrowIcon } from '@/components/ui/icons';
+import { DialIcon, RackIcon, RoundIcon, ScanIcon, TomorrowIcon } from '@/components/ui/icons';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
+import { animalListQueryOptions } from '@/features/animals/api/list-animals';
 import { useMe } from '@/features/auth/api/get-me';
 import { useCurrentCollection } from '@/features/auth/hooks/use-current-collection';
 import { SyncIndicator } from '@/features/sync/components/sync-indicator';
@@ -23,6 +24,7 @@ export function useShell() {
 
 const NAV = [
   { to: '/today', label: 'Today', Icon: RoundIcon },
+  { to: '/scan', label: 'Scan', Icon: ScanIcon },
   { to: '/tomorrow', label: 'Tomorrow', Icon: TomorrowIcon },
   { to: '/animals', label: 'Animals', Icon: RackIcon },
   { to: '/settings', label: 'Settings', Icon: DialIcon },
@@ -50,6 +52,22 @@ function BottomNav() {
   );
 }
 
+const DIRECTORY_DELAY_MS = 3000;
+
+/**
+ * A keeper's phone keeps the collection's animal list, fetched a moment after the first screen
+ * so it never competes with it: scans and label printing then work with no signal.
+ */
+function useKeepAnimalListOffline(collection: MembershipSummary | null) {
+  const queryClient = useQueryClient();
+  const collectionId = collection && collection.role !== 'helper' ? collection.collectionId : null;
+  useEffect(() => {
+    if (!collectionId) return;
+    const timer = setTimeout(() => void queryClient.prefetchQuery(animalListQueryOptions(collectionId)), DIRECTORY_DELAY_MS);
+    return () => clearTimeout(timer);
+  }, [collectionId, queryClient]);
+}
+
 /** Everything behind sign-in: the header with the collection's name and the thumb-reach nav. */
 export function Shell() {
   const me = useMe();
@@ -60,6 +78,8 @@ export function Shell() {
   const userId = me.data?.user.id;
   // The signed-in person's outbox syncs while the app is open; saved taps refresh the rounds.
   useEffect(() => (userId ? startSync(userId, () => void queryClient.invalidateQueries({ queryKey: ['rounds'] })) : undefined), [userId, queryClient]);
+
+  useKeepAnimalListOffline(current);
 
   if (me.isPending) return <Loading />;
   if (me.error instanceof ApiError && me.error.status === 401) {

@@ -18,6 +18,16 @@ export function RoundIcon(props: SVGProps<SVGSVGElement>) {
   );
 }
 
+/** Scan: a viewfinder's corners around a dot. */
+export function ScanIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <path d="M3 8V3h5M16 3h5v5M21 16v5h-5M8 21H3v-5" />
+      <path d="M8 8h3v3H8zM13 13h3v3h-3zM13 8h3M8 16h3" />
+    </Svg>
+  );
+}
+
 /** Animals: three stacked enclosures. */
 export function RackIcon(props: SVGProps<SVGSVGElement>) {
   return (

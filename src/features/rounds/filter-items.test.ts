@@ -21,8 +21,9 @@ describe('filterItems', () => {
   });
 
   it('finds a label code however it is typed, or a name', () => {
-    expect(names(filterItems(round.items, 'all', 'c3m9'))).toEqual(['Dusty']);
-    expect(names(filterItems(round.items, 'all', ' C3 M9 '))).toEqual(['Dusty']);
+    expect(names(filterItems(round.items, 'all', 'nl-c3m'))).toEqual(['Dusty']);
+    expect(names(filterItems(round.items, 'all', ' N L - C3 M '))).toEqual(['Dusty']);
+    expect(names(filterItems(round.items, 'all', 'nlc3m'))).toEqual(['Dusty']);
     expect(names(filterItems(round.items, 'all', 'bram'))).toEqual(['Bramble']);
     expect(names(filterItems(round.items, 'all', 'albopilosus'))).toEqual(['Bramble', 'Dusty']);
     expect(names(filterItems(round.items, 'all', 'nobody'))).toEqual([]);

@@ -1,4 +1,4 @@
-import { normaliseLabelCode } from '#shared/domain/label-codes';
+import { codeKey } from '#shared/domain/labels/label-payload';
 import { countsForProgress } from '#shared/domain/rounds/settle';
 import type { RoundItemView } from '#shared/schemas/rounds';
 
@@ -14,8 +14,8 @@ export function isItemDone(item: RoundItemView): boolean {
 function matches(item: RoundItemView, search: string): boolean {
   const q = search.trim();
   if (!q) return true;
-  const code = normaliseLabelCode(q).replace(/-/g, '');
-  if (code && item.animal.labelCode.replace(/-/g, '').includes(code)) return true;
+  const code = codeKey(q);
+  if (code && codeKey(item.animal.labelCode).includes(code)) return true;
   const words = q.toLocaleLowerCase();
   return [item.animal.name, item.animal.scientificName].some((s) => s.toLocaleLowerCase().includes(words));
 }

@@ -12,7 +12,14 @@ function groupLabel(a: AnimalSummary): string {
 }
 
 /** The collection's animals in walk order, grouped by shelf, with a search box. */
-export function AnimalList({ collectionId, searchable = false }: { collectionId: string; searchable?: boolean }) {
+interface Props {
+  collectionId: string;
+  searchable?: boolean;
+  /** Tick boxes beside each animal, e.g. to print their labels. */
+  selection?: { chosen: ReadonlySet<string>; onToggle: (id: string) => void };
+}
+
+export function AnimalList({ collectionId, searchable = false, selection }: Props) {
   const animals = useAnimalList(collectionId);
   const [query, setQuery] = useState('');
   const deferred = useDeferredValue(query.trim().toLowerCase());
@@ -45,9 +52,21 @@ export function AnimalList({ collectionId, searchable = false }: { collectionId:
       {groups.map(([label, list]) => (
         <section key={label} aria-label={label} className="flex flex-col gap-2">
           <h2 className="sticky top-0 z-10 bg-bg py-1 text-lg font-extrabold">{label}</h2>
-          {list.map((a) => (
-            <AnimalCard key={a.id} animal={a} linked />
-          ))}
+          {list.map((a) =>
+            selection ? (
+              <div key={a.id} className="flex items-center gap-2">
+                <label className="flex min-h-target min-w-target cursor-pointer items-center justify-center has-[:focus-visible]:outline has-[:focus-visible]:outline-4">
+                  <input type="checkbox" checked={selection.chosen.has(a.id)} onChange={() => selection.onToggle(a.id)} className="size-6 accent-[var(--c-primary)]" />
+                  <span className="sr-only">Choose {a.name}</span>
+                </label>
+                <div className="min-w-0 flex-1">
+                  <AnimalCard animal={a} linked />
+                </div>
+              </div>
+            ) : (
+              <AnimalCard key={a.id} animal={a} linked />
+            ),
+          )}
         </section>
       ))}
     </div>

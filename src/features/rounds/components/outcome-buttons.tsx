@@ -5,8 +5,12 @@ import { Button } from '@/components/ui/button';
 
 export type RecordOutcome = (kind: EventKind, payload?: Record<string, unknown>) => void;
 
+/** Everything that can be recorded in one tap, for an animal that is not on today's round. */
+const ANY_DAY: EventKind[] = ['ate', 'refused', 'prey_left_in', 'prey_removed', 'watered'];
+
 /** The one-tap outcomes an item's tasks call for; the rest sit one step away under "More". */
 function mainOutcomes(item: RoundItemView): EventKind[] {
+  if (!item.tasks.length) return ANY_DAY;
   const kinds = new Set(item.tasks.map((t) => t.kind));
   const preyInside = kinds.has('remove_prey') || item.outcomes.some((o) => o.kind === 'prey_left_in');
   const list: EventKind[] = [];

@@ -1,4 +1,5 @@
 import { useId } from 'react';
+import { ChoiceGroup } from '@/components/ui/choice-group';
 import { FILTER_WORDS, ROUND_FILTERS, type RoundFilter } from '../filter-items';
 
 interface Props {
@@ -14,19 +15,20 @@ export function RoundFilters({ filter, onFilter, search, onSearch, counts }: Pro
   const searchId = useId();
   return (
     <div className="flex flex-col gap-2">
-      <fieldset className="grid grid-cols-4 gap-1">
-        <legend className="sr-only">Show</legend>
-        {ROUND_FILTERS.map((f) => (
-          <label
-            key={f}
-            className={`flex min-h-target cursor-pointer flex-col items-center justify-center rounded-xl border-2 text-sm font-bold leading-tight has-[:focus-visible]:outline has-[:focus-visible]:outline-4 ${filter === f ? 'border-text bg-text text-bg' : 'border-border bg-surface text-text'}`}
-          >
-            <input type="radio" name="round-filter" value={f} checked={filter === f} onChange={() => onFilter(f)} className="sr-only" />
+      <ChoiceGroup
+        legend="Show"
+        legendHidden
+        className="grid-cols-4"
+        value={filter}
+        options={ROUND_FILTERS}
+        onChange={onFilter}
+        render={(f) => (
+          <>
             {FILTER_WORDS[f]}
             <span className="font-normal">{counts[f]}</span>
-          </label>
-        ))}
-      </fieldset>
+          </>
+        )}
+      />
       <label htmlFor={searchId} className="sr-only">
         Find a label code or a name
       </label>

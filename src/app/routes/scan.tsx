@@ -1,0 +1,105 @@
+import { useCallback, useMemo, useState } from 'react';
+import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
+import { readLabel, type LabelReading } from '#shared/domain/labels/label-payload';
+import type { RecordedEvent } from '#shared/schemas/events';
+import type { RoundItemView } from '#shared/schemas/rounds';
+import { Notice } from '@/components/ui/notice';
+import { useAnimalList } from '@/features/animals/api/list-animals';
+import { useRound } from '@/features/rounds/api/get-round';
+import { useRecordOutcome } from '@/features/rounds/api/record-outcome';
+import { UndoToast } from '@/features/rounds/components/undo-toast';
+import { PhotoScan } from '@/features/scan/components/photo-scan';
+import { QrCamera } from '@/features/scan/components/qr-camera';
+import { TypeCodeForm } from '@/features/scan/components/type-code-form';
+import { resolveLabel } from '@/features/scan/resolve-label';
+import { LabelTargetPanel } from './label-target';
+import { useShell } from './shell';
+
+interface LastTap {
+  event: RecordedEvent;
+  animal: RoundItemView['animal'];
+}
+
+/** A short buzz where the phone can (Vibration API; not on iOS), so the keeper need not look. */
+const buzz = () => navigator.vibrate?.(60);
+
+export function ScanRoute() {
+  const { me, collection } = useShell();
+  if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
+  return <Scanner userId={me.user.id} myName={me.user.displayName} memberships={me.memberships} collection={collection} />;
+}
+
+type ShellCollection = NonNullable<ReturnType<typeof useShell>['collection']>;
+
+function Scanner({ userId, myName, memberships, collection }: { userId: string; myName: string; memberships: ShellCollection[]; collection: ShellCollection }) {
+  const { collectionId, timeZone } = collection;
+  const { local } = useRound(userId, collectionId, 'today');
+  const keeper = collection.role !== 'helper';
+  const directory = useAnimalList(collectionId, keeper);
+  const record = useRecordOutcome({ userId, byName: myName, collectionId });
+  const [reading, setReading] = useState<LabelReading | null>(null);
+  const [walkMode, setWalkMode] = useState(true);
+  const [last, setLast] = useState<LastTap | null>(null);
+  const closeToast = useCallback(() => setLast(null), []);
+
+  const target = useMemo(
+    () =>
+      reading &&
+      resolveLabel(reading, {
+        collection,
+        memberships,
+        roundItems: local.data?.round.items ?? [],
+        animals: keeper ? directory.data?.animals : null,
+      }),
+    [reading, collection, memberships, local.data, keeper, directory.data],
+  );
+
+  const onScan = useCallback((text: string) => {
+    buzz();
+    setReading(readLabel(text));
+  }, []);
+
+  const onRecord = (item: RoundItemView, kind: EventKind, payload?: Record<string, unknown>) => {
+    void record(item.animal, kind, payload).then((event) => {
+      buzz();
+      setLast({ event, animal: item.animal });
+      // Walk mode: one tap, then straight back to the camera for the next enclosure.
+      if (walkMode) setReading(null);
+    });
+  };
+
+  return (
+    <div className="flex flex-col gap-3">
+      <h1 className="text-3xl font-extrabold">Scan</h1>
+      <label className="flex min-h-target cursor-pointer items-center gap-3 font-bold">
+        <input type="checkbox" checked={walkMode} onChange={(e) => setWalkMode(e.target.checked)} className="size-6 accent-[var(--c-primary)]" />
+        Walk mode: back to the camera after each tap
+      </label>
+      {target && (
+        <section aria-label="Scanned label" className="flex flex-col gap-3">
+          <LabelTargetPanel
+            key={JSON.stringify(reading)}
+            target={target}
+            timeZone={timeZone}
+            myName={myName}
+            onRecord={onRecord}
+            onNext={() => setReading(null)}
+            nextWord="Scan next"
+          />
+        </section>
+      )}
+      <div className={target ? 'hidden' : 'flex flex-col gap-3'}>
+        <QrCamera active={!target} onScan={onScan} />
+        <TypeCodeForm onCode={(text) => setReading(readLabel(text))} />
+        <PhotoScan onScan={onScan} />
+      </div>
+      {last && (
+        <UndoToast
+          message={`${EVENT_WORDS[last.event.kind]} · ${last.animal.name} (${last.animal.labelCode})`}
+          onUndo={() => void record(last.animal, 'void', { targetId: last.event.id })}
+          onClose={closeToast}
+        />
+      )}
+    </div>
+  );
+}
