@@ -7,16 +7,16 @@ import path from 'node:path';
 import { and, eq, gte } from 'drizzle-orm';
 import { chromium, type Page } from 'playwright-core';
 import { afterAll, describe, expect, it } from 'vitest';
+import { events } from '../../server/db/schema/animals';
 import { labelContent } from '../../shared/domain/labels/label-content';
 import { LABEL_FIELDS } from '../../shared/domain/labels/label-layout';
 import { labelUrl } from '../../shared/domain/labels/label-payload';
 import { LABEL_SIZES, placeLabels, sheetLayout } from '../../shared/domain/labels/sheet-layout';
 import type { AnimalSummary } from '../../shared/schemas/animals';
 import type { RoundResponse } from '../../shared/schemas/rounds';
-import { events } from '../../server/db/schema/animals';
 import { CHROMIUM_ARGS, cutNetwork, restoreNetwork, underServiceWorker } from '../chromium';
-import { darkExtentMm, decodeQrIn, greyRegion, rasterisePdf, type GreyPage } from '../support/label-raster';
 import { writeLabelVideo } from '../support/fake-camera';
+import { darkExtentMm, decodeQrIn, greyRegion, rasterisePdf, type GreyPage } from '../support/label-raster';
 import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
 
 const env = useE2e();
@@ -88,8 +88,6 @@ describe('label sheets printed from the browser', () => {
     await screenshot(page, 'labels-02-preview');
 
     const pdf = await page.pdf({ preferCSSPageSize: true });
-    fs.mkdirSync('test-results', { recursive: true });
-    fs.writeFileSync('test-results/labels-print.pdf', pdf);
     const pages = rasterisePdf(pdf, DPI);
     expect(pages).toHaveLength(3);
     // Letter at 200 dpi: 8.5 in × 200 = 1700 px, 11 in × 200 = 2200 px.
@@ -112,6 +110,21 @@ describe('label sheets printed from the browser', () => {
     // Position 1 was used before: nothing is printed there.
     const used = sheetLayout('letter', SIZE).cells[0]!;
     expect(decodeQrIn(pages[0]!, { x: used.x, y: used.y, widthMm: SIZE.widthMm, heightMm: SIZE.heightMm })).toBeNull();
+
+    // A photo of one label, as html5-qrcode's file scan gets it from a phone's camera app.
+    await page.getByLabel('Show at true size (scroll sideways)').check();
+    const photographed = animals[3]!;
+    const photo = await page.locator(`[data-animal-id="${photographed.id}"]`).first().screenshot();
+    await page.getByRole('link', { name: 'Scan' }).click();
+    // This browser has no camera at all: the screen says so and offers the other ways in.
+    await expect.poll(() => page.getByText('No camera was found.').count(), { timeout: 10_000 }).toBe(1);
+    await expectAccessible(page, 'scan without a camera');
+    await screenshot(page, 'scan-00-no-camera');
+    await page.getByLabel('Scan a photo of a label').setInputFiles({ name: 'label.png', mimeType: 'image/png', buffer: photo });
+    await page
+      .getByRole('region', { name: 'Scanned label' })
+      .getByRole('article', { name: `${photographed.name}, ${photographed.labelCode}` })
+      .waitFor({ timeout: 10_000 });
     expect(consoleErrors).toEqual([]);
   });
 });

@@ -14,7 +14,7 @@ import { useShell } from './shell';
  * a tap, then back to today's round.
  */
 export function LabelLinkRoute() {
-  const { me, collection } = useShell();
+  const { me, collection, chooseCollection } = useShell();
   const { tag = '', code = '' } = useParams();
   const navigate = useNavigate();
   const collectionId = collection?.collectionId ?? '';
@@ -43,6 +43,7 @@ export function LabelLinkRoute() {
         myName={me.user.displayName}
         onRecord={(item, kind, payload) => void record(item.animal, kind, payload).then(() => navigate('/today'))}
         onNext={() => navigate('/today')}
+        onSwitchCollection={chooseCollection}
         nextWord="Back to today’s round"
       />
     </div>

@@ -15,10 +15,12 @@ interface Props {
   /** Back to scanning (or wherever the person came from). */
   onNext: () => void;
   nextWord: string;
+  /** Switches the app to another of the person's collections (a label from there). */
+  onSwitchCollection: (collectionId: string) => void;
 }
 
 /** What a scanned label opens: the item ready for one tap, or a plain reason why not. */
-export function LabelTargetPanel({ target, timeZone, myName, onRecord, onNext, nextWord }: Props) {
+export function LabelTargetPanel({ target, timeZone, myName, onRecord, onNext, nextWord, onSwitchCollection }: Props) {
   const [recordAnyway, setRecordAnyway] = useState(false);
   const next = (
     <Button variant="secondary" wide onClick={onNext}>
@@ -31,6 +33,11 @@ export function LabelTargetPanel({ target, timeZone, myName, onRecord, onNext, n
       <div className="flex flex-col gap-3">
         <Notice tone="warning" title={title}>
           <p>{body}</p>
+          {target.kind === 'other_collection' && target.collectionId && (
+            <Button className="mt-2" onClick={() => onSwitchCollection(target.collectionId!)}>
+              Switch to {target.collectionName}
+            </Button>
+          )}
         </Notice>
         {next}
       </div>

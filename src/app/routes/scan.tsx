@@ -1,6 +1,7 @@
 import { useCallback, useMemo, useState } from 'react';
 import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
 import { readLabel, type LabelReading } from '#shared/domain/labels/label-payload';
+import type { MembershipSummary } from '#shared/schemas/auth';
 import type { RecordedEvent } from '#shared/schemas/events';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { Notice } from '@/components/ui/notice';
@@ -24,14 +25,20 @@ interface LastTap {
 const buzz = () => navigator.vibrate?.(60);
 
 export function ScanRoute() {
-  const { me, collection } = useShell();
+  const { me, collection, chooseCollection } = useShell();
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
-  return <Scanner userId={me.user.id} myName={me.user.displayName} memberships={me.memberships} collection={collection} />;
+  return <Scanner userId={me.user.id} myName={me.user.displayName} memberships={me.memberships} collection={collection} chooseCollection={chooseCollection} />;
 }
 
-type ShellCollection = NonNullable<ReturnType<typeof useShell>['collection']>;
+interface ScannerProps {
+  userId: string;
+  myName: string;
+  memberships: MembershipSummary[];
+  collection: MembershipSummary;
+  chooseCollection: (collectionId: string) => void;
+}
 
-function Scanner({ userId, myName, memberships, collection }: { userId: string; myName: string; memberships: ShellCollection[]; collection: ShellCollection }) {
+function Scanner({ userId, myName, memberships, collection, chooseCollection }: ScannerProps) {
   const { collectionId, timeZone } = collection;
   const { local } = useRound(userId, collectionId, 'today');
   const keeper = collection.role !== 'helper';
@@ -84,6 +91,7 @@ function Scanner({ userId, myName, memberships, collection }: { userId: string; 
             myName={myName}
             onRecord={onRecord}
             onNext={() => setReading(null)}
+            onSwitchCollection={chooseCollection}
             nextWord="Scan next"
           />
         </section>

@@ -8,8 +8,8 @@ const juniper = sampleAnimal({ labelCode: 'NL-7K3' });
 const keeper: Parameters<typeof resolveLabel>[1] = {
   collection: { labelTag: 'ABCD' },
   memberships: [
-    { labelTag: 'ABCD', collectionName: 'Northlight Inverts' },
-    { labelTag: 'WXYZ', collectionName: 'Club loan animals' },
+    { labelTag: 'ABCD', collectionName: 'Northlight Inverts', collectionId: 'c1' },
+    { labelTag: 'WXYZ', collectionName: 'Club loan animals', collectionId: 'c2' },
   ],
   roundItems: round.items,
   animals: [juniper],
@@ -28,8 +28,8 @@ describe('resolving a scan or a typed code', () => {
   });
 
   it('names the other collection a label belongs to, when the person is in it', () => {
-    expect(resolve('HTTP://LOCALHOST:3000/L/WXYZ/NL-7K3')).toEqual({ kind: 'other_collection', collectionName: 'Club loan animals' });
-    expect(resolve('HTTP://LOCALHOST:3000/L/QQQQ/NL-7K3')).toEqual({ kind: 'other_collection', collectionName: null });
+    expect(resolve('HTTP://LOCALHOST:3000/L/WXYZ/NL-7K3')).toEqual({ kind: 'other_collection', collectionId: 'c2', collectionName: 'Club loan animals' });
+    expect(resolve('HTTP://LOCALHOST:3000/L/QQQQ/NL-7K3')).toEqual({ kind: 'other_collection', collectionId: null, collectionName: null });
   });
 
   it('says so for unknown codes, off-round animals for helpers, damaged and foreign codes', () => {
@@ -39,6 +39,6 @@ describe('resolving a scan or a typed code', () => {
     expect(resolve('NL-7KO')).toEqual({ kind: 'malformed' });
     expect(resolve('https://example.com/')).toEqual({ kind: 'foreign' });
     expect(targetMessage({ kind: 'foreign' }).title).toMatch(/not a Rackside label/);
-    expect(targetMessage({ kind: 'other_collection', collectionName: 'Club loan animals' }).title).toBe('This label belongs to Club loan animals.');
+    expect(targetMessage({ kind: 'other_collection', collectionId: 'c2', collectionName: 'Club loan animals' }).title).toBe('This label belongs to Club loan animals.');
   });
 });

@@ -8,7 +8,8 @@ export type LabelTarget =
   | { kind: 'on_round'; item: RoundItemView }
   /** In the collection but not on today's round: recorded only if the keeper says so. */
   | { kind: 'not_due'; item: RoundItemView }
-  | { kind: 'other_collection'; collectionName: string | null }
+  /** The person's own other collection (id and name), or one they are not in (nulls). */
+  | { kind: 'other_collection'; collectionId: string | null; collectionName: string | null }
   | { kind: 'unknown_code'; code: string }
   /** A helper sees only today's round, so an animal off it cannot be looked up. */
   | { kind: 'not_on_round'; code: string }
@@ -19,7 +20,7 @@ export type LabelTarget =
 
 interface Context {
   collection: Pick<MembershipSummary, 'labelTag'>;
-  memberships: readonly Pick<MembershipSummary, 'labelTag' | 'collectionName'>[];
+  memberships: readonly Pick<MembershipSummary, 'labelTag' | 'collectionName' | 'collectionId'>[];
   roundItems: readonly RoundItemView[];
   /** The collection's animals; null where the person may not list them (helpers); undefined
    * while this phone has no copy. */
@@ -44,7 +45,7 @@ export function resolveLabel(reading: LabelReading, ctx: Context): LabelTarget {
   if (reading.kind === 'malformed' || reading.kind === 'foreign') return reading;
   if (reading.kind === 'label' && reading.tag !== ctx.collection.labelTag) {
     const other = ctx.memberships.find((m) => m.labelTag === reading.tag);
-    return { kind: 'other_collection', collectionName: other?.collectionName ?? null };
+    return { kind: 'other_collection', collectionId: other?.collectionId ?? null, collectionName: other?.collectionName ?? null };
   }
   const key = codeKey(reading.code);
   const item = ctx.roundItems.find((i) => codeKey(i.animal.labelCode) === key);
@@ -60,7 +61,7 @@ export function targetMessage(target: Exclude<LabelTarget, { kind: 'on_round' | 
   switch (target.kind) {
     case 'other_collection':
       return target.collectionName
-        ? { title: `This label belongs to ${target.collectionName}.`, body: 'Switch collection in Settings to record for it.' }
+        ? { title: `This label belongs to ${target.collectionName}.`, body: 'Switch to that collection to record for it.' }
         : { title: 'This label belongs to another collection.', body: 'It was printed for a collection you are not part of.' }
     case 'unknown_code':
       return { title: `No animal here has the code ${target.code}.`, body: 'Check the code on the label. A label that was replaced by a new code no longer works.' };
