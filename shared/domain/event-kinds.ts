@@ -18,6 +18,8 @@ export const EVENT_KINDS = [
   'void',
   'note',
   'moved',
+  /** Retired (sold, deceased, rehomed, on loan) or back in the collection; payload says which. */
+  'status_changed',
 ] as const;
 export type EventKind = (typeof EVENT_KINDS)[number];
 
@@ -59,4 +61,5 @@ export const EVENT_WORDS: Record<EventKind, string> = {
   void: 'Undone',
   note: 'Note',
   moved: 'Moved',
+  status_changed: 'Status changed',
 };

@@ -28,3 +28,24 @@ export function generateLabelCodes(prefix: string, count: number, random: () => 
   }
   return codes;
 }
+
+/**
+ * The prefix for a collection's new codes: the one its codes already use most, else the
+ * initials of its name, then its other letters, from the label alphabet ("Kim’s spiders" → "KS").
+ */
+export function collectionPrefix(collectionName: string, existingCodes: readonly string[]): string {
+  const counts = new Map<string, number>();
+  for (const code of existingCodes) {
+    const prefix = code.split('-')[0]!;
+    counts.set(prefix, (counts.get(prefix) ?? 0) + 1);
+  }
+  const common = [...counts.entries()].sort((a, b) => b[1] - a[1])[0];
+  if (common && isLabelCode(`${common[0]}-222`)) return common[0];
+  const letters = normaliseLabelCode(collectionName.normalize('NFD').replace(/[^A-Za-z0-9\s]/g, ''));
+  const initials = collectionName
+    .split(/\s+/)
+    .map((w) => normaliseLabelCode(w.normalize('NFD').replace(/[^A-Za-z0-9]/g, '')).charAt(0))
+    .join('');
+  const usable = [...initials, ...letters].filter((c) => LABEL_ALPHABET.includes(c));
+  return [...new Set(usable)].slice(0, 2).join('').padEnd(2, 'X');
+}

@@ -6,6 +6,10 @@ import {
   LIFE_STAGES,
   SEXES,
 } from '../domain/animal-facts';
+import { isLabelCode, LABEL_ALPHABET, normaliseLabelCode } from '../domain/label-codes';
+import { checkScientificName } from '../domain/scientific-name';
+import { localDate } from './common';
+import { careSettingsBody } from './rules';
 
 export const locationSummary = z.object({
   id: z.string(),
@@ -41,11 +45,81 @@ export const animalSummary = z.object({
   preySize: z.string().nullable(),
   preyCount: z.number().nullable(),
   doNotFeedUntil: z.string().nullable(),
+  statusDate: z.string().nullable(),
+  acquiredOn: z.string().nullable(),
+  source: z.string().nullable(),
+  cautionNote: z.string().nullable(),
+  notes: z.string().nullable(),
   clutch: z.string().nullable(),
+  /** Changes whenever the photo does (ISO), so its URL does too; null without a photo. */
+  photoVersion: z.string().nullable(),
   /** When the animal was added to the collection (ISO). */
   addedAt: z.string(),
 });
 export type AnimalSummary = z.infer<typeof animalSummary>;
+
+/** The cautions' custom text, e.g. "Bolts upward when the lid opens". */
+export const CAUTION_NOTE_MAX = 200;
+
+const optionalText = (max: number, what: string) =>
+  z
+    .string()
+    .trim()
+    .max(max, { message: `${what} can be at most ${max} characters.` })
+    .transform((s) => (s === '' ? null : s))
+    .nullable();
+
+export const scientificName = z
+  .string()
+  .trim()
+  .max(120, { message: 'The scientific name can be at most 120 characters.' })
+  .superRefine((name, ctx) => {
+    const check = checkScientificName(name);
+    if (!check.ok) {
+      ctx.addIssue({ code: 'custom', message: check.suggestion ? `${check.problems[0]} Did you mean “${check.suggestion}”?` : check.problems[0]! });
+    }
+  });
+
+/** What a keeper enters for an animal; the label code is drawn when left empty. */
+export const animalInput = z.object({
+  labelCode: z
+    .string()
+    .trim()
+    .transform((s) => normaliseLabelCode(s))
+    .refine((s) => s === '' || isLabelCode(s), { message: `Label codes look like NL-7K3: 2–4 characters, a dash, 3–5 characters, from ${LABEL_ALPHABET}.` })
+    .optional(),
+  name: z.string().trim().min(1, { message: 'Give the animal a name or a short tag.' }).max(80, { message: 'Keep the name under 80 characters.' }),
+  scientificName,
+  commonName: optionalText(80, 'The common name'),
+  group: z.enum(ANIMAL_GROUPS, { message: 'Choose a group.' }),
+  lifeStage: z.enum(LIFE_STAGES, { message: 'Choose a life stage.' }),
+  sex: z.enum(SEXES, { message: 'Choose a sex (or unknown).' }),
+  sizeMm: z.number({ message: 'Give the size as a number.' }).positive({ message: 'The size must be above 0.' }).max(400, { message: 'That is larger than any invertebrate we know (400 mm at most).' }).nullable(),
+  acquiredOn: localDate.nullable(),
+  source: optionalText(200, 'The source'),
+  locationId: z.uuid({ message: 'Choose a place from the list.' }).nullable(),
+  cautions: z.array(z.enum(CAUTIONS)).max(CAUTIONS.length).refine((c) => new Set(c).size === c.length, { message: 'Each caution once.' }),
+  cautionNote: optionalText(CAUTION_NOTE_MAX, 'The caution note'),
+  notes: optionalText(4000, 'Notes'),
+  clutch: optionalText(80, 'The clutch name'),
+  care: careSettingsBody.required(),
+});
+export type AnimalInput = z.input<typeof animalInput>;
+export type AnimalValues = z.output<typeof animalInput>;
+
+export const RETIRED_STATUSES = ANIMAL_STATUSES.filter((s) => s !== 'active');
+export const retireBody = z.object({
+  status: z.enum(RETIRED_STATUSES as ['sold', 'deceased', 'rehomed', 'on_loan'], { message: 'Choose sold, deceased, rehomed or on loan.' }),
+  date: localDate,
+  note: optionalText(500, 'The note'),
+});
+export type RetireBody = z.input<typeof retireBody>;
+
+export const moveBody = z.object({
+  animalIds: z.array(z.uuid({ message: 'This id is not valid.' })).min(1, { message: 'Choose at least one animal.' }).max(5000),
+  locationId: z.uuid({ message: 'Choose a place from the list.' }),
+});
+export type MoveBody = z.infer<typeof moveBody>;
 
 export const animalListResponse = z.object({ animals: z.array(animalSummary) });
 export type AnimalListResponse = z.infer<typeof animalListResponse>;

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { EVENT_KINDS } from '../domain/event-kinds';
+import { ANIMAL_STATUSES } from '../domain/animal-facts';
+import { EVENT_KINDS, type EventKind } from '../domain/event-kinds';
 import { uuid } from './common';
 
 const note = z
@@ -59,7 +60,11 @@ export const EVENT_PAYLOADS = {
   moved: z
     .object({ fromLocationId: uuid.nullable().optional(), toLocationId: uuid, note })
     .strict(),
+  status_changed: z.object({ from: z.enum(ANIMAL_STATUSES), to: z.enum(ANIMAL_STATUSES), note }).strict(),
 } satisfies Record<(typeof EVENT_KINDS)[number], z.ZodType>;
+
+/** Facts the server records itself when an animal is moved or retired, never sent by a phone. */
+export const SERVER_EVENT_KINDS: readonly EventKind[] = ['moved', 'status_changed'];
 
 export const eventKind = z.enum(EVENT_KINDS);
 
@@ -76,6 +81,10 @@ export const recordedEvent = z
     }),
   })
   .superRefine((event, ctx) => {
+    if (SERVER_EVENT_KINDS.includes(event.kind)) {
+      ctx.addIssue({ code: 'custom', path: ['kind'], message: 'Moves and status changes are made on the animal’s page, not recorded as taps.' });
+      return;
+    }
     const result = EVENT_PAYLOADS[event.kind].safeParse(event.payload);
     if (!result.success) {
       for (const issue of result.error.issues)

@@ -1,5 +1,8 @@
 // A real app on a real, private PostgreSQL database for one test file.
 import { randomUUID } from 'node:crypto';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
 import pg from 'pg';
 import supertest from 'supertest';
 import { createApp, type AppOptions } from '../../server/app';
@@ -14,6 +17,8 @@ export interface TestContext {
   services: ReturnType<typeof createApp>['services'];
   database: Database;
   databaseUrl: string;
+  /** Where this app keeps uploaded photos. */
+  storageDir: string;
   mailbox: DevMailbox;
   /** Moves the app's clock (cover windows, token expiry); pass null for the real clock. */
   setNow(date: Date | null): void;
@@ -44,12 +49,15 @@ export async function createTestContext(options: Partial<Pick<AppOptions, 'authL
   const database = connectDatabase(databaseUrl, 5);
   const smtp = await startDevSmtp();
   const mailer = createSmtpMailer(smtp.url, 'Rackside tests <tests@rackside.invalid>');
+  // Each test file writes photos to its own folder, removed on close.
+  const storageDir = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-storage-'));
   const env = readEnv({
     NODE_ENV: 'test',
     DATABASE_URL: databaseUrl,
     SESSION_SECRET: 'test-secret-that-is-long-enough-for-sessions',
     DEMO_MODE: 'true',
     BCRYPT_COST: '10',
+    STORAGE_DIR: storageDir,
   });
   let fixed: Date | null = null;
   const { app, services, shutdown } = createApp({
@@ -67,6 +75,7 @@ export async function createTestContext(options: Partial<Pick<AppOptions, 'authL
     services,
     database,
     databaseUrl,
+    storageDir,
     mailbox: smtp.mailbox,
     setNow: (date) => {
       fixed = date;
@@ -78,6 +87,7 @@ export async function createTestContext(options: Partial<Pick<AppOptions, 'authL
       await smtp.stop();
       await database.close();
       await dropTestDatabase(name);
+      fs.rmSync(storageDir, { recursive: true, force: true });
     },
   };
 }

@@ -54,6 +54,9 @@ export const animals = pgTable(
     statusDate: date('status_date'),
     acquiredOn: date('acquired_on'),
     source: text('source'),
+    // The animal's photo: files named by this key in the storage folder (never by the upload's name).
+    photoKey: text('photo_key'),
+    photoUpdatedAt: timestamp('photo_updated_at', { withTimezone: true }),
     // Slings potted up from one egg sac share a clutch name, so their labels print together.
     clutch: text('clutch'),
     notes: text('notes'),

@@ -27,7 +27,13 @@ export function toAnimalSummary(
     preySize: a.preySize,
     preyCount: a.preyCount,
     doNotFeedUntil: a.doNotFeedUntil,
+    statusDate: a.statusDate,
+    acquiredOn: a.acquiredOn,
+    source: a.source,
+    cautionNote: a.cautionNote,
+    notes: a.notes,
     clutch: a.clutch,
+    photoVersion: a.photoUpdatedAt?.toISOString() ?? null,
     addedAt: a.createdAt.toISOString(),
   };
 }

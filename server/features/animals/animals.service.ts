@@ -1,12 +1,62 @@
+import { randomInt } from 'node:crypto';
+import { and, eq, inArray } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import { collectionPrefix, generateLabelCodes } from '../../../shared/domain/label-codes';
 import { compareLocations } from '../../../shared/domain/walk-order';
-import type { AnimalSummary } from '../../../shared/schemas/animals';
+import type { AnimalSummary, AnimalValues, MoveBody, RetireBody } from '../../../shared/schemas/animals';
 import type { CareSettingsBody } from '../../../shared/schemas/rules';
+import type { Db } from '../../db/client';
+import { animals } from '../../db/schema/animals';
 import { HttpError } from '../../middleware/errors';
+import { recordServerEvents } from './animal-events';
 import { toAnimalSummary } from './animal-summary';
-import { listAnimals, updateAnimalCare } from './animals.repository';
+import { codesInCollection, collectionName, listAnimals, locationInCollection, updateAnimalCare } from './animals.repository';
 
-export function createAnimalsService(db: NodePgDatabase) {
+const UNIQUE_VIOLATION = '23505';
+const randomUnit = () => randomInt(2 ** 32) / 2 ** 32;
+const notFound = () => new HttpError(404, 'not_found', 'We could not find that animal.');
+const codeTaken = (code: string) => new HttpError(409, 'code_taken', `Another animal already has the code ${code}. Leave the code empty to get a new one.`);
+
+/** The stored columns for what a keeper entered. */
+function columnsOf(v: AnimalValues) {
+  return {
+    name: v.name,
+    scientificName: v.scientificName,
+    commonName: v.commonName,
+    group: v.group,
+    lifeStage: v.lifeStage,
+    sex: v.sex,
+    sizeMm: v.sizeMm,
+    acquiredOn: v.acquiredOn,
+    source: v.source,
+    locationId: v.locationId,
+    cautions: v.cautions,
+    cautionNote: v.cautionNote,
+    notes: v.notes,
+    clutch: v.clutch,
+    ...v.care,
+  };
+}
+
+export function createAnimalsService(db: NodePgDatabase, now: () => Date = () => new Date()) {
+  async function checkLocation(tx: Db, collectionId: string, locationId: string | null) {
+    if (locationId && !(await locationInCollection(tx, collectionId, locationId))) {
+      throw new HttpError(422, 'invalid', 'That place is not in this collection. Choose one from the list.', [{ path: 'locationId', message: 'Choose a place from the list.' }]);
+    }
+  }
+
+  async function summaryOf(collectionId: string, animalId: string): Promise<AnimalSummary> {
+    const [row] = await listAnimals(db, collectionId, [animalId]);
+    if (!row) throw notFound();
+    return toAnimalSummary(row.animal, row.location);
+  }
+
+  /** Codes for new animals: the collection's usual prefix, never one already used. */
+  async function newCodes(tx: Db, collectionId: string, count: number): Promise<string[]> {
+    const taken = await codesInCollection(tx, collectionId);
+    return generateLabelCodes(collectionPrefix(await collectionName(tx, collectionId), taken), count, randomUnit, new Set(taken));
+  }
+
   return {
     async list(collectionId: string): Promise<AnimalSummary[]> {
       const rows = await listAnimals(db, collectionId);
@@ -17,11 +67,90 @@ export function createAnimalsService(db: NodePgDatabase) {
       );
     },
 
+    get: summaryOf,
+
+    async create(collectionId: string, values: AnimalValues): Promise<AnimalSummary> {
+      const id = await db.transaction(async (tx) => {
+        await checkLocation(tx, collectionId, values.locationId);
+        const labelCode = values.labelCode || (await newCodes(tx, collectionId, 1))[0]!;
+        try {
+          const [row] = await tx.insert(animals).values({ collectionId, labelCode, ...columnsOf(values) }).returning({ id: animals.id });
+          return row!.id;
+        } catch (err) {
+          if ((err as { code?: string }).code === UNIQUE_VIOLATION) throw codeTaken(labelCode);
+          throw err;
+        }
+      });
+      return summaryOf(collectionId, id);
+    },
+
+    /** Many animals at once (a CSV import): all or nothing, codes drawn for rows without one. */
+    async createMany(collectionId: string, rows: AnimalValues[]): Promise<number> {
+      return db.transaction(async (tx) => {
+        const locationIds = [...new Set(rows.map((r) => r.locationId).filter((l): l is string => !!l))];
+        for (const l of locationIds) await checkLocation(tx, collectionId, l);
+        const fresh = await newCodes(tx, collectionId, rows.filter((r) => !r.labelCode).length);
+        const values = rows.map((r) => ({ collectionId, labelCode: r.labelCode || fresh.pop()!, ...columnsOf(r) }));
+        try {
+          for (let i = 0; i < values.length; i += 500) await tx.insert(animals).values(values.slice(i, i + 500));
+        } catch (err) {
+          if ((err as { code?: string }).code === UNIQUE_VIOLATION) {
+            throw new HttpError(409, 'code_taken', 'Some label codes in the file are already used in this collection. Clear those codes to have new ones drawn.');
+          }
+          throw err;
+        }
+        return values.length;
+      });
+    },
+
+    /** An edit; a change of place is kept in the history as a move. The code changes only by re-labelling. */
+    async update(collectionId: string, animalId: string, userId: string, values: AnimalValues): Promise<AnimalSummary> {
+      await db.transaction(async (tx) => {
+        const [before] = await tx.select({ locationId: animals.locationId }).from(animals).where(and(eq(animals.collectionId, collectionId), eq(animals.id, animalId)));
+        if (!before) throw notFound();
+        await checkLocation(tx, collectionId, values.locationId);
+        await tx.update(animals).set({ ...columnsOf(values), updatedAt: now() }).where(eq(animals.id, animalId));
+        if (before.locationId !== values.locationId && values.locationId) {
+          await recordServerEvents(tx, [{ collectionId, animalId, kind: 'moved', payload: { fromLocationId: before.locationId, toLocationId: values.locationId }, recordedBy: userId }], now());
+        }
+      });
+      return summaryOf(collectionId, animalId);
+    },
+
+    /** Sold, deceased, rehomed or on loan: off the round from now on, history kept. */
+    async setStatus(collectionId: string, animalId: string, userId: string, body: { status: AnimalSummary['status']; date: string | null; note?: string | null }) {
+      await db.transaction(async (tx) => {
+        const [before] = await tx.select({ status: animals.status }).from(animals).where(and(eq(animals.collectionId, collectionId), eq(animals.id, animalId)));
+        if (!before) throw notFound();
+        if (before.status === body.status) throw new HttpError(409, 'unchanged', `The animal is already ${body.status.replace('_', ' ')}.`);
+        await tx.update(animals).set({ status: body.status, statusDate: body.date, updatedAt: now() }).where(eq(animals.id, animalId));
+        await recordServerEvents(tx, [{ collectionId, animalId, kind: 'status_changed', payload: { from: before.status, to: body.status, ...(body.note ? { note: body.note } : {}) }, recordedBy: userId }], now());
+      });
+      return summaryOf(collectionId, animalId);
+    },
+
+    retire(collectionId: string, animalId: string, userId: string, body: RetireBody) {
+      return this.setStatus(collectionId, animalId, userId, { status: body.status, date: body.date, note: body.note });
+    },
+
+    /** One animal or many to one place; each gets a "moved" fact in its history. */
+    async move(collectionId: string, userId: string, { animalIds, locationId }: MoveBody): Promise<number> {
+      const ids = [...new Set(animalIds)];
+      return db.transaction(async (tx) => {
+        await checkLocation(tx, collectionId, locationId);
+        const rows = await tx.select({ id: animals.id, locationId: animals.locationId }).from(animals).where(and(eq(animals.collectionId, collectionId), inArray(animals.id, ids)));
+        if (rows.length !== ids.length) throw new HttpError(404, 'not_found', 'Some of these animals are not in this collection. Reload and choose again.');
+        const moving = rows.filter((r) => r.locationId !== locationId);
+        if (!moving.length) return 0;
+        await tx.update(animals).set({ locationId, updatedAt: now() }).where(inArray(animals.id, moving.map((r) => r.id)));
+        await recordServerEvents(tx, moving.map((r) => ({ collectionId, animalId: r.id, kind: 'moved' as const, payload: { fromLocationId: r.locationId, toLocationId: locationId }, recordedBy: userId })), now());
+        return moving.length;
+      });
+    },
+
     /** The care settings the round engine honours for one animal (interval, offer, dish…). */
     async updateCare(collectionId: string, animalId: string, body: CareSettingsBody) {
-      if (!(await updateAnimalCare(db, collectionId, animalId, body))) {
-        throw new HttpError(404, 'not_found', 'We could not find that animal.');
-      }
+      if (!(await updateAnimalCare(db, collectionId, animalId, body))) throw notFound();
     },
   };
 }

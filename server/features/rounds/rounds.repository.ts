@@ -110,7 +110,8 @@ export async function loadRoundItems(db: Db, roundId: string, animalIds?: string
     .from(roundItems)
     .innerJoin(animals, eq(animals.id, roundItems.animalId))
     .leftJoin(locations, eq(locations.id, animals.locationId))
-    .where(animalIds ? and(eq(roundItems.roundId, roundId), inArray(roundItems.animalId, animalIds)) : eq(roundItems.roundId, roundId))
+    // An animal retired during the day leaves today's round at once.
+    .where(and(eq(roundItems.roundId, roundId), eq(animals.status, 'active'), animalIds ? inArray(roundItems.animalId, animalIds) : undefined))
     .orderBy(asc(roundItems.sortIndex));
 }
 

@@ -147,6 +147,7 @@ export function applyEvent(state: AnimalState, event: EngineEvent, zone: string)
       s.lastObserved = day;
       break;
     case 'moved':
+    case 'status_changed':
     case 'void':
       break;
   }

@@ -1,0 +1,73 @@
+import { randomUUID } from 'node:crypto';
+import fs from 'node:fs/promises';
+import path from 'node:path';
+import { and, eq } from 'drizzle-orm';
+import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import sharp from 'sharp';
+import { animals } from '../../db/schema/animals';
+import { HttpError } from '../../middleware/errors';
+import { imageTypeOf, isPlainFileName } from './image-type';
+
+export const MAX_PHOTO_BYTES = 10 * 1024 * 1024;
+export const PHOTO_SIZES = { full: 1600, thumb: 320 } as const;
+export type PhotoSize = keyof typeof PHOTO_SIZES;
+
+const notFound = () => new HttpError(404, 'not_found', 'We could not find that animal.');
+
+/**
+ * Photos live in the storage folder under the collection's id, named by a random key. Uploads
+ * are re-encoded as WebP at two sizes, which also drops the camera's metadata (GPS included).
+ */
+export function createPhotosService(db: NodePgDatabase, storageDir: string, now: () => Date) {
+  const folder = (collectionId: string) => path.join(storageDir, 'photos', collectionId);
+  const fileOf = (collectionId: string, key: string, size: PhotoSize) => path.join(folder(collectionId), `${key}-${size}.webp`);
+
+  async function keyOf(collectionId: string, animalId: string) {
+    const [row] = await db.select({ key: animals.photoKey }).from(animals).where(and(eq(animals.collectionId, collectionId), eq(animals.id, animalId)));
+    if (!row) throw notFound();
+    return row.key;
+  }
+
+  async function removeFiles(collectionId: string, key: string | null) {
+    if (!key) return;
+    await Promise.all(Object.keys(PHOTO_SIZES).map((s) => fs.rm(fileOf(collectionId, key, s as PhotoSize), { force: true })));
+  }
+
+  return {
+    async save(collectionId: string, animalId: string, file: { buffer: Buffer; originalname: string } | undefined) {
+      if (!file || file.buffer.length === 0) throw new HttpError(400, 'empty', 'Choose a photo to upload; the file was empty.');
+      if (!isPlainFileName(file.originalname)) throw new HttpError(400, 'bad_name', 'That file name is not allowed. Rename the photo and try again.');
+      if (!imageTypeOf(file.buffer)) throw new HttpError(415, 'not_an_image', 'Photos must be JPEG, PNG or WebP images.');
+      const previous = await keyOf(collectionId, animalId);
+      const key = randomUUID();
+      let images: Buffer[];
+      try {
+        images = await Promise.all(
+          Object.values(PHOTO_SIZES).map((px) => sharp(file.buffer, { failOn: 'error' }).rotate().resize(px, px, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer()),
+        );
+      } catch {
+        throw new HttpError(415, 'not_an_image', 'That image could not be read. It may be damaged; try another photo.');
+      }
+      await fs.mkdir(folder(collectionId), { recursive: true });
+      await Promise.all(Object.keys(PHOTO_SIZES).map((s, i) => fs.writeFile(fileOf(collectionId, key, s as PhotoSize), images[i]!)));
+      const at = now();
+      await db.update(animals).set({ photoKey: key, photoUpdatedAt: at }).where(eq(animals.id, animalId));
+      await removeFiles(collectionId, previous);
+      return { photoVersion: at.toISOString() };
+    },
+
+    /** The stored file's path, or a 404 when the animal has no photo. */
+    async file(collectionId: string, animalId: string, size: PhotoSize): Promise<string> {
+      const key = await keyOf(collectionId, animalId);
+      if (!key) throw new HttpError(404, 'no_photo', 'This animal has no photo yet.');
+      return fileOf(collectionId, key, size);
+    },
+
+    async remove(collectionId: string, animalId: string) {
+      const key = await keyOf(collectionId, animalId);
+      await db.update(animals).set({ photoKey: null, photoUpdatedAt: null }).where(eq(animals.id, animalId));
+      await removeFiles(collectionId, key);
+    },
+  };
+}
+export type PhotosService = ReturnType<typeof createPhotosService>;
