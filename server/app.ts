@@ -15,6 +15,8 @@ import { authRoutes, DEFAULT_AUTH_LIMITS, type AuthLimits } from './features/aut
 import { createAuthService } from './features/auth/auth.service';
 import { collectionsRoutes } from './features/collections/collections.routes';
 import { createCollectionsService } from './features/collections/collections.service';
+import { dataRoutes, LARGE_BODY_PATHS } from './features/data/data.routes';
+import { createDataService } from './features/data/data.service';
 import { devRoutes } from './features/dev/dev.routes';
 import { eventsRoutes } from './features/events/events.routes';
 import { createEventsService } from './features/events/events.service';
@@ -116,7 +118,8 @@ export function createApp(options: AppOptions) {
   });
 
   const api = express.Router();
-  api.use(express.json({ limit: '1mb' }));
+  // Imports and restores may be large: their routes parse them after the membership check.
+  api.use(express.json({ limit: '1mb', type: (req) => !LARGE_BODY_PATHS.test(req.url ?? '') && /json/i.test(req.headers['content-type'] ?? '') }));
   api.use(
     session({
       name: SESSION_COOKIE,
@@ -156,12 +159,14 @@ export function createApp(options: AppOptions) {
   api.use('/collections/:collectionId', requireUser);
   const animals = createAnimalsService(database.db, now);
   const rounds = createRoundsService(database.db, now);
+  const photos = createPhotosService(database.db, path.resolve(env.STORAGE_DIR), now);
+  api.use('/collections/:collectionId', dataRoutes(createDataService(database.db, { animals, rounds, photos }), member));
   api.use('/collections/:collectionId/animals', animalsRoutes(animals, member));
   api.use('/collections/:collectionId/locations', locationsRoutes(createLocationsService(database.db), member));
   api.use('/collections/:collectionId', roundsRoutes(rounds, animals, member));
   const events = createEventsService(database.db, rounds, now);
   api.use('/collections/:collectionId/events', eventsRoutes(events, member));
-  api.use('/collections/:collectionId', photosRoutes(createPhotosService(database.db, path.resolve(env.STORAGE_DIR), now), member));
+  api.use('/collections/:collectionId', photosRoutes(photos, member));
   api.use('/collections/:collectionId', labelsRoutes(createLabelsService(database.db), member));
   api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db), member));
   api.use(apiNotFound);

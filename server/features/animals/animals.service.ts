@@ -6,13 +6,13 @@ import { compareLocations } from '../../../shared/domain/walk-order';
 import type { AnimalSummary, AnimalValues, MoveBody, RetireBody } from '../../../shared/schemas/animals';
 import type { CareSettingsBody } from '../../../shared/schemas/rules';
 import type { Db } from '../../db/client';
+import { isUniqueViolation } from '../../db/errors';
 import { animals } from '../../db/schema/animals';
 import { HttpError } from '../../middleware/errors';
 import { recordServerEvents } from './animal-events';
 import { toAnimalSummary } from './animal-summary';
 import { codesInCollection, collectionName, listAnimals, locationInCollection, updateAnimalCare } from './animals.repository';
 
-const UNIQUE_VIOLATION = '23505';
 const randomUnit = () => randomInt(2 ** 32) / 2 ** 32;
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that animal.');
 const codeTaken = (code: string) => new HttpError(409, 'code_taken', `Another animal already has the code ${code}. Leave the code empty to get a new one.`);
@@ -77,7 +77,7 @@ export function createAnimalsService(db: NodePgDatabase, now: () => Date = () =>
           const [row] = await tx.insert(animals).values({ collectionId, labelCode, ...columnsOf(values) }).returning({ id: animals.id });
           return row!.id;
         } catch (err) {
-          if ((err as { code?: string }).code === UNIQUE_VIOLATION) throw codeTaken(labelCode);
+          if (isUniqueViolation(err)) throw codeTaken(labelCode);
           throw err;
         }
       });
@@ -85,8 +85,8 @@ export function createAnimalsService(db: NodePgDatabase, now: () => Date = () =>
     },
 
     /** Many animals at once (a CSV import): all or nothing, codes drawn for rows without one. */
-    async createMany(collectionId: string, rows: AnimalValues[]): Promise<number> {
-      return db.transaction(async (tx) => {
+    async createMany(collectionId: string, rows: AnimalValues[], outer?: Db): Promise<number> {
+      return (outer ?? db).transaction(async (tx) => {
         const locationIds = [...new Set(rows.map((r) => r.locationId).filter((l): l is string => !!l))];
         for (const l of locationIds) await checkLocation(tx, collectionId, l);
         const fresh = await newCodes(tx, collectionId, rows.filter((r) => !r.labelCode).length);
@@ -94,7 +94,7 @@ export function createAnimalsService(db: NodePgDatabase, now: () => Date = () =>
         try {
           for (let i = 0; i < values.length; i += 500) await tx.insert(animals).values(values.slice(i, i + 500));
         } catch (err) {
-          if ((err as { code?: string }).code === UNIQUE_VIOLATION) {
+          if (isUniqueViolation(err)) {
             throw new HttpError(409, 'code_taken', 'Some label codes in the file are already used in this collection. Clear those codes to have new ones drawn.');
           }
           throw err;

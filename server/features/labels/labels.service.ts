@@ -5,11 +5,11 @@ import { generateLabelCodes } from '../../../shared/domain/label-codes';
 import { labelContent, printProblem } from '../../../shared/domain/labels/label-content';
 import { sheetLayout } from '../../../shared/domain/labels/sheet-layout';
 import type { LabelPdfBody } from '../../../shared/schemas/labels';
+import { isUniqueViolation } from '../../db/errors';
 import { animals } from '../../db/schema/animals';
 import { HttpError } from '../../middleware/errors';
 import { renderLabelsPdf } from './labels.pdf';
 
-const UNIQUE_VIOLATION = '23505';
 const randomUnit = () => randomInt(2 ** 32) / 2 ** 32;
 
 export function createLabelsService(db: NodePgDatabase) {
@@ -57,7 +57,7 @@ export function createLabelsService(db: NodePgDatabase) {
           return code!;
         } catch (err) {
           // Someone took the same code a moment ago: draw again.
-          if ((err as { code?: string }).code !== UNIQUE_VIOLATION || attempt >= 3) throw err;
+          if (!isUniqueViolation(err) || attempt >= 3) throw err;
         }
       }
     },

@@ -2,11 +2,11 @@ import { and, asc, count, eq, inArray, sql } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { compareLocations } from '../../../shared/domain/walk-order';
 import type { LocationInput, LocationWithCount } from '../../../shared/schemas/locations';
+import { isUniqueViolation } from '../../db/errors';
 import { animals } from '../../db/schema/animals';
 import { locations } from '../../db/schema/collections';
 import { HttpError } from '../../middleware/errors';
 
-const UNIQUE_VIOLATION = '23505';
 const placeTaken = () => new HttpError(409, 'place_taken', 'That place already exists in this collection.');
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that place.');
 
@@ -36,7 +36,7 @@ export function createLocationsService(db: NodePgDatabase) {
         const [row] = await db.insert(locations).values({ collectionId, ...body, walkOrder: last + 1 }).returning();
         return row!;
       } catch (err) {
-        if ((err as { code?: string }).code === UNIQUE_VIOLATION) throw placeTaken();
+        if (isUniqueViolation(err)) throw placeTaken();
         throw err;
       }
     },
@@ -47,7 +47,7 @@ export function createLocationsService(db: NodePgDatabase) {
         if (!row) throw notFound();
         return row;
       } catch (err) {
-        if ((err as { code?: string }).code === UNIQUE_VIOLATION) throw placeTaken();
+        if (isUniqueViolation(err)) throw placeTaken();
         throw err;
       }
     },

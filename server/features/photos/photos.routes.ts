@@ -11,8 +11,9 @@ import { MAX_PHOTO_BYTES, type PhotoSize, type PhotosService } from './photos.se
 const animalParams = z.object({ collectionId: uuid, animalId: uuid });
 const photoQuery = z.object({ size: z.enum(['full', 'thumb']).default('full'), v: z.string().max(40).optional() });
 
-// Held in memory (10 MB at most), checked, re-encoded, and only then written to disk.
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_PHOTO_BYTES, files: 1, fields: 0, parts: 2 } });
+// Held in memory (10 MB at most), checked, re-encoded, and only then written to disk. The
+// name is kept whole (preservePath) so a name reaching into folders is refused, not trimmed.
+const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: MAX_PHOTO_BYTES, files: 1, fields: 0, parts: 2 }, preservePath: true });
 
 /** multer's own errors, in our words and status codes. */
 const uploadErrors: ErrorRequestHandler = (err, _req, _res, next) => {

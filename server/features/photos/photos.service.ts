@@ -56,6 +56,21 @@ export function createPhotosService(db: NodePgDatabase, storageDir: string, now:
       return { photoVersion: at.toISOString() };
     },
 
+    /** A photo from a backup: the full image kept byte for byte, the thumbnail made again. */
+    async restore(collectionId: string, animalId: string, webp: Buffer) {
+      const key = randomUUID();
+      let thumb: Buffer;
+      try {
+        thumb = await sharp(webp, { failOn: 'error' }).resize(PHOTO_SIZES.thumb, PHOTO_SIZES.thumb, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer();
+      } catch {
+        throw new HttpError(422, 'invalid', 'A photo in this backup could not be read.');
+      }
+      await fs.mkdir(folder(collectionId), { recursive: true });
+      await fs.writeFile(fileOf(collectionId, key, 'full'), webp);
+      await fs.writeFile(fileOf(collectionId, key, 'thumb'), thumb);
+      await db.update(animals).set({ photoKey: key, photoUpdatedAt: now() }).where(eq(animals.id, animalId));
+    },
+
     /** The stored file's path, or a 404 when the animal has no photo. */
     async file(collectionId: string, animalId: string, size: PhotoSize): Promise<string> {
       const key = await keyOf(collectionId, animalId);

@@ -1,0 +1,65 @@
+import { describe, expect, it } from 'vitest';
+import { sampleAnimal } from '../../../tests/fixtures/sample-round';
+import { ANIMAL_COLUMNS, animalToRow, guessColumn, rowToAnimal } from './animal-columns';
+import { readCsv, writeCsv } from './csv-file';
+
+const place = { id: 'l1', room: 'Spare room, north wall', rack: 'A', shelf: '1', position: '2', walkOrder: 1 };
+
+describe('the animal spreadsheet', () => {
+  it('round-trips an animal through CSV with commas, quotes, line breaks and non-ASCII', () => {
+    const animal = sampleAnimal({
+      name: 'Señora "Juniper", 2nd',
+      scientificName: 'Grammostola pulchra Mello-Leitão, 1921',
+      commonName: 'Brazilian black',
+      location: place,
+      cautions: ['urticating_hairs', 'escape_risk'],
+      cautionNote: 'Bolts up the lid',
+      notes: 'Line one\r\nLine two, with a comma',
+      sizeMm: 129.5,
+      intervalDays: 12,
+      preyType: 'roach',
+      preySize: 'large',
+      preyCount: 2,
+      clutch: 'Sac 1',
+      acquiredOn: '2025-03-01',
+      source: 'Expo, Hamilton',
+    });
+    const csv = writeCsv(ANIMAL_COLUMNS, [animalToRow(animal)]);
+    const table = readCsv(csv);
+    const cells = Object.fromEntries(table.headers.map((h, i) => [h, table.records[0]!.cells[i]!]));
+    const back = rowToAnimal(cells);
+    expect(back).toMatchObject({
+      ok: true,
+      value: {
+        labelCode: animal.labelCode,
+        name: animal.name,
+        scientificName: animal.scientificName,
+        place: { room: place.room, rack: 'A', shelf: '1', position: '2' },
+        cautions: ['urticating_hairs', 'escape_risk'],
+        notes: animal.notes,
+        sizeMm: 129.5,
+        care: { intervalDays: 12, preyType: 'roach', preySize: 'large', preyCount: 2, hasWaterDish: true, doNotFeedUntil: null },
+      },
+    });
+  });
+
+  it('matches the headers people write', () => {
+    expect(guessColumn('Scientific name')).toBe('scientific_name');
+    expect(guessColumn('Species')).toBe('scientific_name');
+    expect(guessColumn('Size (mm)')).toBe('size_mm');
+    expect(guessColumn('Label')).toBe('code');
+    expect(guessColumn('Tray')).toBe('shelf');
+    expect(guessColumn('Favourite colour')).toBeNull();
+  });
+
+  it('names the column of each problem in a row', () => {
+    const bad = rowToAnimal({ name: '', scientific_name: 'brachypelma hamorii', group: 'fish', stage: 'adult', size_mm: 'big', cautions: 'bites' });
+    expect(bad).toEqual({ ok: false, errors: ['Unknown caution “bites”: use potent_venom, urticating_hairs, fast_defensive, escape_risk.'] });
+    const worse = rowToAnimal({ name: '', scientific_name: 'brachypelma hamorii', group: 'fish', stage: 'adult', size_mm: 'big' });
+    expect(worse.ok).toBe(false);
+    if (!worse.ok) {
+      expect(worse.errors.map((e) => e.split(':')[0])).toEqual(['name', 'scientific_name', 'group', 'size_mm']);
+      expect(worse.errors[1]).toContain('Did you mean “Brachypelma hamorii”?');
+    }
+  });
+});
