@@ -106,6 +106,8 @@ export default defineConfig({
           fileParallelism: false,
           testTimeout: 120_000,
           hookTimeout: 120_000,
+          // A page that waits on the server or a lazy chunk can take more than poll's 1 s default.
+          expect: { poll: { timeout: 5_000 } },
         },
       },
     ],

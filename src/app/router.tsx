@@ -18,7 +18,11 @@ const router = createBrowserRouter([
       { path: '/today', element: <TodayRoute /> },
       { path: '/tomorrow', lazy: () => import('./routes/tomorrow').then((m) => ({ Component: m.TomorrowRoute })) },
       { path: '/animals', lazy: () => import('./routes/animals').then((m) => ({ Component: m.AnimalsRoute })) },
+      { path: '/animals/new', lazy: () => import('./routes/animal-edit').then((m) => ({ Component: m.AnimalEditRoute })) },
       { path: '/animals/:animalId', lazy: () => import('./routes/animal').then((m) => ({ Component: m.AnimalRoute })) },
+      { path: '/animals/:animalId/edit', lazy: () => import('./routes/animal-edit').then((m) => ({ Component: m.AnimalEditRoute })) },
+      { path: '/places', lazy: () => import('./routes/places').then((m) => ({ Component: m.PlacesRoute })) },
+      { path: '/import', lazy: () => import('./routes/import').then((m) => ({ Component: m.ImportRoute })) },
       { path: '/labels', lazy: () => import('./routes/labels').then((m) => ({ Component: m.LabelsRoute })) },
       { path: '/scan', lazy: () => import('./routes/scan').then((m) => ({ Component: m.ScanRoute })) },
       // What a label's QR opens, also from a phone's own camera app (matched in any case).

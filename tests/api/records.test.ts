@@ -185,7 +185,7 @@ describe('photos', () => {
     ];
     for (const [bytes, filename, status, message] of cases) {
       // `filepath` sends the name as given (form-data would otherwise keep only its last part).
-      const res = await owner.agent.put(url()).attach('photo', bytes, { filepath: filename, contentType: 'image/jpeg' });
+      const res = await owner.agent.put(url()).attach('photo', bytes, { filepath: filename, contentType: 'image/jpeg' } as unknown as { filename: string });
       expect(res.status, filename).toBe(status);
       expect(res.body.error.message, filename).toMatch(message);
     }
@@ -257,7 +257,7 @@ describe('full backup and restore', () => {
     pair(backup.locations, copy.locations);
     pair(backup.animals, copy.animals);
     // Events sharing a time come in id order, and ids are new: pair them by what they are.
-    const byWhat = (list: { effectiveAt: string; kind: string }[]) => [...list].sort((x, y) => `${x.effectiveAt}${x.kind}`.localeCompare(`${y.effectiveAt}${y.kind}`));
+    const byWhat = <T extends { id: string; effectiveAt: string; kind: string }>(list: T[]) => [...list].sort((x, y) => `${x.effectiveAt}${x.kind}`.localeCompare(`${y.effectiveAt}${y.kind}`));
     pair(byWhat(backup.events), byWhat(copy.events));
     copy.events = byWhat(copy.events);
     backup.events = byWhat(backup.events);

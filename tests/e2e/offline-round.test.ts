@@ -99,7 +99,7 @@ describe('today’s round with no signal', () => {
     // fact can be undone too — again by a void.
     await page.getByRole('link', { name: 'Animals' }).click();
     await page.getByRole('link', { name: 'Tiger' }).click();
-    const history = page.getByRole('region', { name: 'History' });
+    const history = page.getByRole('region', { name: 'Timeline' });
     await expect.poll(() => history.innerText()).toMatch(/Refused[\s\S]*undone/);
     await expectAccessible(page, 'animal history');
     await history.getByRole('button', { name: /^Undo / }).first().click();

@@ -10,7 +10,7 @@ import type { EventsService } from './events.service';
 
 const historyQuery = z.object({
   animalId: uuid,
-  limit: z.coerce.number().int().min(1).max(200).default(50),
+  limit: z.coerce.number().int().min(1).max(2000).default(50),
 });
 
 export function eventsRoutes(

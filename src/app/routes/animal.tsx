@@ -1,41 +1,87 @@
 import { useQueryClient } from '@tanstack/react-query';
-import { useParams } from 'react-router-dom';
+import { useState } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { localDateOf } from '#shared/domain/local-dates';
+import { formatSize } from '#shared/domain/units';
+import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
+import { useLocations, useMoveAnimals, useRetireAnimal } from '@/features/animals/api/animal-records';
 import { animalKeys, useAnimalList } from '@/features/animals/api/list-animals';
 import { AnimalCard } from '@/features/animals/components/animal-card';
+import { MovePanel } from '@/features/animals/components/move-panel';
+import { PhotoPanel } from '@/features/animals/components/photo-panel';
+import { RetirePanel, statusWord } from '@/features/animals/components/retire-panel';
 import { LabelPanel } from '@/features/labels/components/label-panel';
 import { roundKeys } from '@/features/rounds/api/keys';
 import { AnimalHistory } from '@/features/rounds/components/animal-history';
 import { CareForm } from '@/features/rounds/components/care-form';
 import { SchedulePanel } from '@/features/rounds/components/schedule-panel';
+import { useSizeUnit } from '@/lib/preferences';
 import { useShell } from './shell';
 
 export function AnimalRoute() {
   const { me, collection } = useShell();
   const { animalId = '' } = useParams();
-  const list = useAnimalList(collection?.collectionId ?? '');
+  const collectionId = collection?.collectionId ?? '';
+  const list = useAnimalList(collectionId);
+  const places = useLocations(collectionId);
+  const move = useMoveAnimals(collectionId);
+  const retire = useRetireAnimal(collectionId, animalId);
+  const [unit] = useSizeUnit();
+  const [panel, setPanel] = useState<'move' | 'retire' | null>(null);
   const queryClient = useQueryClient();
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
   if (list.isPending) return <Loading />;
   if (list.isError) return <Notice tone="error" title={list.error.message} />;
   const animal = list.data.animals.find((a) => a.id === animalId);
   if (!animal) return <Notice tone="error" title="We could not find that animal." />;
+  const kept = animal.status === 'active';
   return (
     <div className="flex flex-col gap-4">
       <h1 className="sr-only">{animal.name}</h1>
+      <PhotoPanel collectionId={collectionId} animal={animal} canChange />
       <AnimalCard animal={animal} />
-      <SchedulePanel collectionId={collection.collectionId} animalId={animal.id} />
+      <p className="text-muted">
+        {animal.commonName && `${animal.commonName} · `}Leg span {formatSize(animal.sizeMm, unit)}
+        {animal.acquiredOn && ` · acquired ${animal.acquiredOn}`}
+        {animal.source && ` from ${animal.source}`}
+        {animal.clutch && ` · clutch ${animal.clutch}`}
+      </p>
+      {animal.cautionNote && <Notice tone="warning" title={animal.cautionNote} />}
+      {!kept && <Notice tone="info" title={`${statusWord(animal)}${animal.statusDate ? ` on ${animal.statusDate}` : ''}: not on any round.`} />}
+      {animal.notes && <p className="whitespace-pre-line">{animal.notes}</p>}
+      <nav aria-label="Quick actions" className="grid grid-cols-2 gap-2">
+        <Link to={`/animals/${animal.id}/edit`} className="inline-flex min-h-target items-center justify-center rounded-xl border-2 border-primary bg-primary px-4 text-lg font-bold text-on-primary">
+          Edit
+        </Link>
+        <Button variant="secondary" onClick={() => setPanel(panel === 'move' ? null : 'move')}>
+          Move…
+        </Button>
+        {kept ? (
+          <Button variant="secondary" onClick={() => setPanel(panel === 'retire' ? null : 'retire')}>
+            Retire…
+          </Button>
+        ) : (
+          <Button variant="secondary" busy={retire.isPending} onClick={() => retire.mutate(null)}>
+            Back in the collection
+          </Button>
+        )}
+      </nav>
+      {panel === 'move' && <MovePanel what={animal.name} locations={places.data?.locations ?? []} onMove={(locationId) => move.mutateAsync({ animalIds: [animal.id], locationId }).then(() => setPanel(null))} onCancel={() => setPanel(null)} />}
+      {panel === 'retire' && <RetirePanel what={animal.name} today={localDateOf(new Date(), collection.timeZone)} onRetire={(body) => retire.mutateAsync(body).then(() => setPanel(null))} onCancel={() => setPanel(null)} />}
+      {retire.isError && <Notice tone="error" title={retire.error.message} />}
+      <SchedulePanel collectionId={collectionId} animalId={animal.id} />
       <LabelPanel
-        collectionId={collection.collectionId}
+        collectionId={collectionId}
         animal={animal}
         onRelabelled={() => {
-          void queryClient.invalidateQueries({ queryKey: animalKeys.all(collection.collectionId) });
-          void queryClient.invalidateQueries({ queryKey: roundKeys.all(collection.collectionId) });
+          void queryClient.invalidateQueries({ queryKey: animalKeys.all(collectionId) });
+          void queryClient.invalidateQueries({ queryKey: roundKeys.all(collectionId) });
         }}
       />
-      <CareForm key={animal.id} collectionId={collection.collectionId} animal={animal} />
-      <AnimalHistory recorder={{ userId: me.user.id, byName: me.user.displayName, collectionId: collection.collectionId }} animal={animal} timeZone={collection.timeZone} />
+      <CareForm key={animal.id} collectionId={collectionId} animal={animal} />
+      <AnimalHistory recorder={{ userId: me.user.id, byName: me.user.displayName, collectionId }} animal={animal} timeZone={collection.timeZone} />
     </div>
   );
 }

@@ -4,7 +4,9 @@ import { SafetyNote } from '@/components/ui/safety-note';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { ChangePasswordForm } from '@/features/auth/components/change-password-form';
 import { CollectionSwitcher } from '@/features/auth/components/collection-switcher';
+import { DataPanel } from '@/features/settings/components/data-panel';
 import { ThemePicker } from '@/features/settings/components/theme-picker';
+import { UnitPicker } from '@/features/settings/components/unit-picker';
 import { SignOutButton } from '@/features/sync/components/sign-out-button';
 import { StorageStatus } from '@/features/sync/components/storage-status';
 import { useShell } from './shell';
@@ -17,12 +19,14 @@ export function SettingsRoute() {
     <div className="flex flex-col gap-6">
       <h1 className="text-3xl font-extrabold">Settings</h1>
       <ThemePicker />
+      <UnitPicker />
       {collection && collection.role !== 'helper' && (
         <Link to="/settings/rules" className="flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold">
           Round rules
           <span aria-hidden="true">›</span>
         </Link>
       )}
+      {collection && collection.role !== 'helper' && <DataPanel collectionId={collection.collectionId} isOwner={collection.role === 'owner'} />}
       {me.memberships.length > 0 && (
         <CollectionSwitcher memberships={me.memberships} currentId={collection?.collectionId} onChoose={chooseCollection} />
       )}

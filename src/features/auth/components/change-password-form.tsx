@@ -5,8 +5,8 @@ import { changePasswordBody } from '#shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
+import { useServerProblem } from '@/lib/form-errors';
 import { useChangePassword } from '../api/change-password';
-import { useServerProblem } from './form-errors';
 
 type Values = z.infer<typeof changePasswordBody>;
 

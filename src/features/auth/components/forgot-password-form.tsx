@@ -5,8 +5,8 @@ import { resetRequestBody } from '#shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
+import { useServerProblem } from '@/lib/form-errors';
 import { useRequestReset } from '../api/request-reset';
-import { useServerProblem } from './form-errors';
 
 type Input = z.input<typeof resetRequestBody>;
 type Output = z.output<typeof resetRequestBody>;

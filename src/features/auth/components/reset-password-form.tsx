@@ -5,8 +5,8 @@ import { newPassword } from '#shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
+import { useServerProblem } from '@/lib/form-errors';
 import { useResetPassword } from '../api/reset-password';
-import { useServerProblem } from './form-errors';
 
 const form = z
   .object({ password: newPassword, repeat: z.string() })

@@ -5,9 +5,9 @@ import { signInBody } from '#shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
+import { useServerProblem } from '@/lib/form-errors';
 import { useDemoInfo } from '../api/get-demo-info';
 import { useSignIn } from '../api/sign-in';
-import { useServerProblem } from './form-errors';
 
 type Input = z.input<typeof signInBody>;
 type Output = z.output<typeof signInBody>;

@@ -5,8 +5,8 @@ import { signUpBody } from '#shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
+import { useServerProblem } from '@/lib/form-errors';
 import { useSignUp } from '../api/sign-up';
-import { useServerProblem } from './form-errors';
 
 type Input = z.input<typeof signUpBody>;
 type Output = z.output<typeof signUpBody>;

@@ -4,7 +4,7 @@ import { apiRequest } from '@/lib/api-client';
 import { roundKeys } from './keys';
 
 export const getAnimalHistory = (collectionId: string, animalId: string) =>
-  apiRequest(`/collections/${collectionId}/events?animalId=${encodeURIComponent(animalId)}&limit=50`, { schema: historyResponse });
+  apiRequest(`/collections/${collectionId}/events?animalId=${encodeURIComponent(animalId)}&limit=2000`, { schema: historyResponse });
 export const animalHistoryQueryOptions = (collectionId: string, animalId: string) =>
   queryOptions({ queryKey: roundKeys.history(collectionId, animalId), queryFn: () => getAnimalHistory(collectionId, animalId) });
 export const useAnimalHistory = (collectionId: string, animalId: string) => useQuery(animalHistoryQueryOptions(collectionId, animalId));

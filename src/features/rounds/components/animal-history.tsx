@@ -1,8 +1,9 @@
 import { useState } from 'react';
-import { EVENT_WORDS } from '#shared/domain/event-kinds';
+import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
 import { describeInstant } from '#shared/domain/local-dates';
-import type { HistoryEvent } from '#shared/schemas/events';
+import { SERVER_EVENT_KINDS, type HistoryEvent } from '#shared/schemas/events';
 import { Button } from '@/components/ui/button';
+import { ChoiceGroup } from '@/components/ui/choice-group';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useAnimalHistory } from '../api/animal-history';
@@ -10,9 +11,22 @@ import { useRecordOutcome, type Recorder } from '../api/record-outcome';
 
 
 function detail(e: HistoryEvent): string | null {
-  const p = e.payload as { text?: string; note?: string; sizeMm?: number };
-  return p.text ?? p.note ?? (p.sizeMm ? `${p.sizeMm} mm` : null);
+  const p = e.payload as { text?: string; note?: string; sizeMm?: number; to?: string };
+  const status = e.kind === 'status_changed' && p.to ? `now ${p.to.replace('_', ' ')}` : null;
+  return [status, p.text ?? p.note ?? (p.sizeMm ? `${p.sizeMm} mm` : null)].filter(Boolean).join(' · ') || null;
 }
+
+/** The timeline's filter: what kind of facts to show. */
+const KIND_GROUPS = {
+  all: null,
+  feeding: ['ate', 'refused', 'prey_left_in', 'prey_removed', 'skipped'],
+  molts: ['molted', 'premolt_seen', 'premolt_cleared', 'molting_now'],
+  water: ['watered'],
+  notes: ['note'],
+  moves: ['moved', 'status_changed'],
+} satisfies Record<string, EventKind[] | null>;
+type KindGroup = keyof typeof KIND_GROUPS;
+const GROUP_WORDS: Record<KindGroup, string> = { all: 'All', feeding: 'Feeding', molts: 'Molts', water: 'Water', notes: 'Notes', moves: 'Moves' };
 
 /**
  * The animal's recent facts. A mistaken one is undone by recording a void, so the history
@@ -23,17 +37,20 @@ export function AnimalHistory({ recorder, animal, timeZone }: { recorder: Record
   const history = useAnimalHistory(recorder.collectionId, animal.id);
   const record = useRecordOutcome(recorder);
   const [undone, setUndone] = useState<Set<string>>(new Set());
+  const [group, setGroup] = useState<KindGroup>('all');
+  const kinds: readonly EventKind[] | null = KIND_GROUPS[group];
   return (
     <section aria-labelledby="history-heading" className="flex flex-col gap-2">
       <h2 id="history-heading" className="text-xl font-extrabold">
-        History
+        Timeline
       </h2>
       {history.isPending && <Loading />}
       {history.isError && <Notice tone="error" title={history.error.message} />}
+      <ChoiceGroup legend="Show" legendHidden className="grid-cols-3" value={group} options={Object.keys(KIND_GROUPS) as KindGroup[]} onChange={setGroup} render={(g) => GROUP_WORDS[g]} />
       {history.data && !history.data.events.length && <p className="text-muted">Nothing recorded yet.</p>}
       <ul className="flex flex-col gap-2">
         {history.data?.events
-          .filter((e) => e.kind !== 'void')
+          .filter((e) => e.kind !== 'void' && (!kinds || kinds.includes(e.kind)))
           .map((e) => {
             const cancelled = !!e.voidedBy || undone.has(e.id);
             return (
@@ -49,7 +66,7 @@ export function AnimalHistory({ recorder, animal, timeZone }: { recorder: Record
                     {cancelled && ' · undone'}
                   </p>
                 </div>
-                {!cancelled && (
+                {!cancelled && !SERVER_EVENT_KINDS.includes(e.kind) && (
                   <Button
                     variant="secondary"
                     aria-label={`Undo ${EVENT_WORDS[e.kind]}, ${when(e.at)}`}

@@ -1,0 +1,23 @@
+import { Notice } from '@/components/ui/notice';
+import { Loading } from '@/components/ui/spinner';
+import { useAnimalList } from '@/features/animals/api/list-animals';
+import { CsvImport } from '@/features/animals/components/csv-import';
+import { useShell } from './shell';
+
+export function ImportRoute() {
+  const { collection } = useShell();
+  const keeper = !!collection && collection.role !== 'helper';
+  const list = useAnimalList(collection?.collectionId ?? '', keeper);
+  if (!collection || !keeper) return <Notice tone="info" title="Imports are for the collection’s keepers." />;
+  if (list.isPending) return <Loading />;
+  return (
+    <div className="flex flex-col gap-3">
+      <h1 className="text-3xl font-extrabold">Import animals</h1>
+      <p>
+        From a spreadsheet saved as CSV: one animal per row, a header row naming the columns. Places named in the file (room, rack, shelf, position) are added
+        when they are new.
+      </p>
+      <CsvImport collectionId={collection.collectionId} takenCodes={list.data?.animals.map((a) => a.labelCode) ?? []} />
+    </div>
+  );
+}

@@ -1,0 +1,205 @@
+import { useId, useMemo } from 'react';
+import { useForm, type FieldErrors, type Resolver } from 'react-hook-form';
+import { ANIMAL_GROUPS, CAUTION_LABEL, CAUTIONS, GROUP_LABEL, LIFE_STAGES, SEX_LABEL, SEXES, STAGE_LABEL } from '#shared/domain/animal-facts';
+import { checkScientificName } from '#shared/domain/scientific-name';
+import { sizeInUnit, sizeToMm, type SizeUnit } from '#shared/domain/units';
+import { animalInput, type AnimalSummary, type AnimalValues } from '#shared/schemas/animals';
+import type { LocationSummary } from '#shared/schemas/animals';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { SelectField } from '@/components/ui/select-field';
+import { TextField } from '@/components/ui/text-field';
+import { useServerProblem } from '@/lib/form-errors';
+
+/** The form as typed: text everywhere, turned into the shared schema's shape on submit. */
+interface FormValues {
+  labelCode: string;
+  name: string;
+  scientificName: string;
+  commonName: string;
+  group: string;
+  lifeStage: string;
+  sex: string;
+  size: string;
+  acquiredOn: string;
+  source: string;
+  locationId: string;
+  cautions: string[];
+  cautionNote: string;
+  notes: string;
+  clutch: string;
+  intervalDays: string;
+  preyType: string;
+  preySize: string;
+  preyCount: string;
+  hasWaterDish: boolean;
+  doNotFeedUntil: string;
+}
+
+const orNull = (v: string) => (v.trim() === '' ? null : v.trim());
+const numberOrNull = (v: string) => (v.trim() === '' ? null : Number(v.replace(',', '.')));
+
+function toInput(v: FormValues, unit: SizeUnit, sizeTouched: boolean, original: AnimalSummary | null) {
+  const size = numberOrNull(v.size);
+  return {
+    labelCode: v.labelCode,
+    name: v.name,
+    scientificName: v.scientificName,
+    commonName: v.commonName,
+    group: v.group,
+    lifeStage: v.lifeStage,
+    sex: v.sex,
+    // An unchanged size keeps its stored millimetres exactly, whatever unit is shown.
+    sizeMm: !sizeTouched && original ? original.sizeMm : size === null ? null : Number.isNaN(size) ? size : sizeToMm(size, unit),
+    acquiredOn: orNull(v.acquiredOn),
+    source: v.source,
+    locationId: orNull(v.locationId),
+    cautions: v.cautions,
+    cautionNote: v.cautionNote,
+    notes: v.notes,
+    clutch: v.clutch,
+    care: {
+      intervalDays: numberOrNull(v.intervalDays),
+      preyType: orNull(v.preyType),
+      preySize: orNull(v.preySize),
+      preyCount: numberOrNull(v.preyCount),
+      hasWaterDish: v.hasWaterDish,
+      doNotFeedUntil: orNull(v.doNotFeedUntil),
+    },
+  };
+}
+
+/** Schema paths as form fields ("care.intervalDays" is the "intervalDays" box). */
+const fieldOf = (path: string) => (path === 'sizeMm' ? 'size' : path.replace(/^care\./, '').split('.')[0]!);
+
+function fromAnimal(a: AnimalSummary | null, unit: SizeUnit): FormValues {
+  return {
+    labelCode: a?.labelCode ?? '',
+    name: a?.name ?? '',
+    scientificName: a?.scientificName ?? '',
+    commonName: a?.commonName ?? '',
+    group: a?.group ?? 'tarantula',
+    lifeStage: a?.lifeStage ?? 'sling',
+    sex: a?.sex ?? 'unknown',
+    size: a?.sizeMm == null ? '' : String(sizeInUnit(a.sizeMm, unit)),
+    acquiredOn: a?.acquiredOn ?? '',
+    source: a?.source ?? '',
+    locationId: a?.location?.id ?? '',
+    cautions: a?.cautions ?? [],
+    cautionNote: a?.cautionNote ?? '',
+    notes: a?.notes ?? '',
+    clutch: a?.clutch ?? '',
+    intervalDays: a?.intervalDays?.toString() ?? '',
+    preyType: a?.preyType ?? '',
+    preySize: a?.preySize ?? '',
+    preyCount: a?.preyCount?.toString() ?? '',
+    hasWaterDish: a?.hasWaterDish ?? false,
+    doNotFeedUntil: a?.doNotFeedUntil ?? '',
+  };
+}
+
+const placeName = (l: LocationSummary) => `${l.room} · ${l.rack}${l.shelf}-${l.position}`;
+
+interface Props {
+  animal: AnimalSummary | null;
+  locations: readonly LocationSummary[];
+  /** Names already used in the collection, offered as the keeper types. */
+  knownNames: readonly string[];
+  unit: SizeUnit;
+  onSave: (values: AnimalValues) => Promise<unknown>;
+  onCancel: () => void;
+}
+
+export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCancel }: Props) {
+  const listId = useId();
+  const initialSize = fromAnimal(animal, unit).size;
+  const resolver: Resolver<FormValues, unknown, AnimalValues> = async (values) => {
+    const touched = values.size !== initialSize;
+    const parsed = animalInput.safeParse(toInput(values, unit, touched, animal));
+    if (parsed.success) return { values: parsed.data, errors: {} };
+    const errors: Record<string, { type: string; message: string }> = {};
+    for (const issue of parsed.error.issues) errors[fieldOf(issue.path.join('.'))] ??= { type: 'schema', message: issue.message };
+    return { values: {}, errors: errors as FieldErrors<FormValues> };
+  };
+  const { register, handleSubmit, setError, setValue, watch, formState } = useForm<FormValues, unknown, AnimalValues>({ resolver, defaultValues: fromAnimal(animal, unit) });
+  const { problem, attempt } = useServerProblem(setError);
+  const e = formState.errors;
+  const scientific = watch('scientificName');
+  const check = useMemo(() => (scientific.trim() ? checkScientificName(scientific) : null), [scientific]);
+  const locationOptions = [{ value: '', label: 'No place yet' }, ...locations.map((l) => ({ value: l.id, label: placeName(l) }))];
+
+  return (
+    <form onSubmit={handleSubmit((values) => attempt(() => onSave(values)))} noValidate className="flex flex-col gap-4">
+      {problem && <Notice tone="error" title={problem} />}
+      <fieldset className="flex flex-col gap-3">
+        <legend className="mb-1 text-xl font-extrabold">What it is</legend>
+        {!animal && <TextField label="Label code" hint="Leave empty to get a new code, or type the code on an existing label." autoCapitalize="characters" error={e.labelCode?.message} {...register('labelCode')} />}
+        <TextField label="Name" error={e.name?.message} {...register('name')} />
+        <TextField label="Scientific name" hint="Genus and species, e.g. Tliltocatl albopilosus; author and year if you like." list={listId} autoComplete="off" spellCheck={false} error={e.scientificName?.message} {...register('scientificName')} />
+        <datalist id={listId}>
+          {knownNames.map((n) => (
+            <option key={n} value={n} />
+          ))}
+        </datalist>
+        {check && !check.ok && check.suggestion && (
+          <Button variant="secondary" onClick={() => setValue('scientificName', check.suggestion!, { shouldValidate: true })}>
+            Use “{check.suggestion}”
+          </Button>
+        )}
+        <TextField label="Common name" error={e.commonName?.message} {...register('commonName')} />
+        <div className="grid grid-cols-2 gap-2">
+          <SelectField label="Group" options={ANIMAL_GROUPS.map((g) => ({ value: g, label: GROUP_LABEL[g] }))} {...register('group')} />
+          <SelectField label="Life stage" options={LIFE_STAGES.map((s) => ({ value: s, label: STAGE_LABEL[s] }))} {...register('lifeStage')} />
+          <SelectField label="Sex" options={SEXES.map((s) => ({ value: s, label: SEX_LABEL[s] }))} {...register('sex')} />
+          <TextField label={`Leg span (${unit})`} inputMode="decimal" error={e.size?.message} {...register('size')} />
+        </div>
+        <TextField label="Clutch" hint="Slings from one egg sac share a clutch name." error={e.clutch?.message} {...register('clutch')} />
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-3">
+        <legend className="mb-1 text-xl font-extrabold">Where and from whom</legend>
+        <SelectField label="Place" options={locationOptions} {...register('locationId')} />
+        <div className="grid grid-cols-2 gap-2">
+          <TextField label="Acquired on" type="date" error={e.acquiredOn?.message} {...register('acquiredOn')} />
+          <TextField label="Source" error={e.source?.message} {...register('source')} />
+        </div>
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-2">
+        <legend className="mb-1 text-xl font-extrabold">Cautions</legend>
+        {CAUTIONS.map((c) => (
+          <label key={c} className="flex min-h-target cursor-pointer items-center gap-3 has-[:focus-visible]:outline has-[:focus-visible]:outline-4">
+            <input type="checkbox" value={c} className="size-6 accent-[var(--c-primary)]" {...register('cautions')} />
+            {CAUTION_LABEL[c]}
+          </label>
+        ))}
+        <TextField label="Other caution" hint="In your words, e.g. “Bolts up the lid”." error={e.cautionNote?.message} {...register('cautionNote')} />
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-3">
+        <legend className="mb-1 text-xl font-extrabold">Care</legend>
+        <div className="grid grid-cols-2 gap-2">
+          <TextField label="Feed every (days)" inputMode="numeric" hint="Empty: the round rules decide." error={e.intervalDays?.message} {...register('intervalDays')} />
+          <TextField label="Prey count" inputMode="numeric" error={e.preyCount?.message} {...register('preyCount')} />
+          <TextField label="Prey type" error={e.preyType?.message} {...register('preyType')} />
+          <TextField label="Prey size" error={e.preySize?.message} {...register('preySize')} />
+        </div>
+        <label className="flex min-h-target cursor-pointer items-center gap-3">
+          <input type="checkbox" className="size-6 accent-[var(--c-primary)]" {...register('hasWaterDish')} />
+          Has a water dish
+        </label>
+        <TextField label="Do not feed until" type="date" error={e.doNotFeedUntil?.message} {...register('doNotFeedUntil')} />
+      </fieldset>
+
+      <TextField label="Notes" error={e.notes?.message} {...register('notes')} />
+      <div className="flex flex-col gap-2">
+        <Button type="submit" busy={formState.isSubmitting}>
+          {animal ? 'Save changes' : 'Add animal'}
+        </Button>
+        <Button variant="secondary" onClick={onCancel}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,53 @@
+import { useState } from 'react';
+import { RETIRED_STATUSES, type AnimalSummary, type RetireBody } from '#shared/schemas/animals';
+import { Button } from '@/components/ui/button';
+import { Notice } from '@/components/ui/notice';
+import { SelectField } from '@/components/ui/select-field';
+import { TextField } from '@/components/ui/text-field';
+
+const WORDS: Record<string, string> = { sold: 'Sold', deceased: 'Deceased', rehomed: 'Rehomed', on_loan: 'On loan' };
+
+interface Props {
+  /** "this animal" or "12 animals", for the wording. */
+  what: string;
+  today: string;
+  onRetire: (body: RetireBody) => Promise<unknown>;
+  onCancel: () => void;
+}
+
+/** Sold, deceased, rehomed or on loan: off the round from now on, history kept. */
+export function RetirePanel({ what, today, onRetire, onCancel }: Props) {
+  const [status, setStatus] = useState<RetireBody['status']>('sold');
+  const [date, setDate] = useState(today);
+  const [note, setNote] = useState('');
+  const [state, setState] = useState<{ busy: boolean; error: string | null }>({ busy: false, error: null });
+  return (
+    <form
+      className="flex flex-col gap-3 rounded-2xl border-2 border-accent bg-surface p-3"
+      onSubmit={(e) => {
+        e.preventDefault();
+        setState({ busy: true, error: null });
+        onRetire({ status, date, note: note || null }).then(
+          () => setState({ busy: false, error: null }),
+          (err: Error) => setState({ busy: false, error: err.message }),
+        );
+      }}
+    >
+      <p className="font-bold">Retire {what}? It leaves the round; its history stays.</p>
+      <SelectField label="Why" value={status} onChange={(e) => setStatus(e.target.value as RetireBody['status'])} options={RETIRED_STATUSES.map((s) => ({ value: s, label: WORDS[s]! }))} />
+      <TextField label="Date" type="date" value={date} onChange={(e) => setDate(e.target.value)} />
+      <TextField label="Note" value={note} onChange={(e) => setNote(e.target.value)} />
+      {state.error && <Notice tone="error" title={state.error} />}
+      <div className="flex flex-wrap gap-2">
+        <Button type="submit" busy={state.busy}>
+          Retire
+        </Button>
+        <Button variant="secondary" onClick={onCancel}>
+          Cancel
+        </Button>
+      </div>
+    </form>
+  );
+}
+
+export const statusWord = (a: Pick<AnimalSummary, 'status'>) => WORDS[a.status] ?? 'Kept';
