@@ -6,6 +6,7 @@ import pino from 'pino';
 import { createApp } from '../server/app';
 import type { Database } from '../server/db/client';
 import { readEnv } from '../server/env';
+import { generateLabelTag } from '../shared/domain/labels/label-payload';
 
 export const distDir = path.resolve(import.meta.dirname, '..', 'dist');
 export const BENCH_PASSWORD = 'bench password 1234';
@@ -39,7 +40,7 @@ export async function makeKeeper(database: Database, animals: number, tag: strin
   const hash = await bcrypt.hash(BENCH_PASSWORD, 10);
   const email = `bench-${tag}-${Date.now()}@bench.test`;
   const user = await pool.query<{ id: string }>(`insert into users (email, password_hash, display_name) values ($1, $2, 'Bench keeper') returning id`, [email, hash]);
-  const collection = await pool.query<{ id: string }>(`insert into collections (name, time_zone) values ($1, 'America/Toronto') returning id`, [`Bench ${tag}`]);
+  const collection = await pool.query<{ id: string }>(`insert into collections (name, time_zone, label_tag) values ($1, 'America/Toronto', $2) returning id`, [`Bench ${tag}`, generateLabelTag(Math.random)]);
   const userId = user.rows[0]!.id;
   const collectionId = collection.rows[0]!.id;
   await pool.query(`insert into memberships (collection_id, user_id, role) values ($1, $2, 'owner')`, [collectionId, userId]);

@@ -7,6 +7,7 @@ import { rounds } from '../server/db/schema/rounds';
 import { refoldStates } from '../server/features/rounds/projection';
 import { loadAnimalsWithState } from '../server/features/rounds/rounds.repository';
 import { createRoundsService } from '../server/features/rounds/rounds.service';
+import { generateLabelTag } from '../shared/domain/labels/label-payload';
 import { addDays, localDateOf } from '../shared/domain/local-dates';
 import { buildRound } from '../shared/domain/rounds/build-round';
 import { DEFAULT_RULES } from '../shared/domain/rounds/rules';
@@ -17,7 +18,7 @@ const EVENTS_PER_ANIMAL = 100; // a year at one event every ~3.65 days
 
 async function makeCollection(database: Database, animals: number): Promise<string> {
   const { pool } = database;
-  const inserted = await pool.query<{ id: string }>(`insert into collections (name, time_zone) values ($1, $2) returning id`, [`Bench ${animals}`, ZONE]);
+  const inserted = await pool.query<{ id: string }>(`insert into collections (name, time_zone, label_tag) values ($1, $2, $3) returning id`, [`Bench ${animals}`, ZONE, generateLabelTag(Math.random)]);
   const id = inserted.rows[0]!.id;
   await pool.query(
     `insert into locations (collection_id, room, rack, shelf, position)

@@ -7,6 +7,7 @@ import { runP2, runP3, runP4 } from './p2-p4-pages';
 import { runP5 } from './p5-sync-flush';
 import { runP6 } from './p6-round-build';
 import { recordFigures, type Figure } from './results-file';
+import { runT1 } from './t1-table';
 
 const BENCHES: Record<string, (db: ReturnType<typeof connectDatabase>) => Promise<{ figures: Figure[]; notes: string[] }>> = {
   P1: runP1,
@@ -15,6 +16,7 @@ const BENCHES: Record<string, (db: ReturnType<typeof connectDatabase>) => Promis
   P4: runP4,
   P5: runP5,
   P6: runP6,
+  T1: runT1,
 };
 
 const url = process.env.BENCH_DATABASE_URL;

@@ -21,9 +21,9 @@ describe('the app shell at 360 × 740', () => {
     await expect.poll(() => page.getByRole('article', { name: /Juniper/ }).isVisible()).toBe(true);
     await expectAccessible(page, 'today');
     await screenshot(page, 'foundation-02-today-dark');
-    await page.getByRole('link', { name: 'Animals' }).click();
+    await page.getByRole('link', { name: 'Animals', exact: true }).click();
     await page.waitForURL('**/animals');
-    await expect.poll(() => page.getByRole('article').count()).toBe(42);
+    await expect.poll(() => page.getByText('42 of 42 animals').count()).toBe(1);
 
     await page.getByRole('link', { name: 'Settings' }).click();
     await page.waitForURL('**/settings');

@@ -88,7 +88,7 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
         header: 'Name',
         accessorFn: (a) => a.name,
         cell: ({ row }) => (
-          <Link to={`/animals/${row.original.id}`} className="inline-flex min-h-target items-center font-bold underline underline-offset-4">
+          <Link to={`/animals/${row.original.id}`} className="inline-flex min-h-target min-w-target items-center font-bold underline underline-offset-4">
             {row.original.name}
           </Link>
         ),
@@ -173,7 +173,7 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
                 </label>
                 <div className="min-w-0 flex-1">
                   <p className="flex items-center justify-between gap-2">
-                    <Link to={`/animals/${a.id}`} className="inline-flex min-h-target items-center truncate text-lg font-extrabold underline underline-offset-4">
+                    <Link to={`/animals/${a.id}`} className="inline-flex min-h-target min-w-target items-center truncate text-lg font-extrabold underline underline-offset-4">
                       {a.name}
                     </Link>
                     <span className="font-mono font-bold tracking-wider">{a.labelCode}</span>
