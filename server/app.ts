@@ -15,6 +15,9 @@ import { authRoutes, DEFAULT_AUTH_LIMITS, type AuthLimits } from './features/aut
 import { createAuthService } from './features/auth/auth.service';
 import { collectionsRoutes } from './features/collections/collections.routes';
 import { createCollectionsService } from './features/collections/collections.service';
+import { createCoverReportsService } from './features/cover/cover-reports.service';
+import { coverInviteRoutes, coverRoutes } from './features/cover/cover.routes';
+import { createCoverService } from './features/cover/cover.service';
 import { dataRoutes, LARGE_BODY_PATHS } from './features/data/data.routes';
 import { createDataService } from './features/data/data.service';
 import { devRoutes } from './features/dev/dev.routes';
@@ -35,6 +38,7 @@ import type { Mailer } from './mail/mailer';
 import { requireUser } from './middleware/auth';
 import { requireSameSiteWrite } from './middleware/csrf';
 import { apiNotFound, errorHandler, HttpError } from './middleware/errors';
+import { limiter } from './middleware/rate-limit';
 import { requireMember } from './middleware/roles';
 import { serveClient } from './static';
 
@@ -148,6 +152,7 @@ export function createApp(options: AppOptions) {
 
   const publicUrl = (p: string) => `${options.publicUrl ?? env.PUBLIC_URL ?? `http://localhost:${env.PORT}`}${p}`;
   const auth = createAuthService({ db: database.db, mailer: options.mailer, now, bcryptCost: env.BCRYPT_COST, publicUrl });
+  const cover = createCoverService(database.db, { mailer: options.mailer, now, bcryptCost: env.BCRYPT_COST, publicUrl });
   const member = (min: Role, options?: { anyTime?: boolean }) => requireMember(database.db, min, now, options);
 
   api.use('/health', healthRoutes(database.pool));
@@ -156,6 +161,7 @@ export function createApp(options: AppOptions) {
   api.get('/collections', requireUser, async (req, res) => {
     res.json({ memberships: (await auth.me(req.session.userId!)).memberships });
   });
+  api.use('/cover-invites', coverInviteRoutes(cover, auth, limiter({ windowMs: 15 * 60_000, limit: options.authLimits?.signInPerIp ?? DEFAULT_AUTH_LIMITS.signInPerIp })));
   api.use('/collections/:collectionId', requireUser);
   const animals = createAnimalsService(database.db, now);
   const rounds = createRoundsService(database.db, now);
@@ -167,6 +173,8 @@ export function createApp(options: AppOptions) {
   const events = createEventsService(database.db, rounds, now);
   api.use('/collections/:collectionId/events', eventsRoutes(events, member));
   api.use('/collections/:collectionId', photosRoutes(photos, member));
+  const coverReports = createCoverReportsService(database.db, { mailer: options.mailer, now, rounds, publicUrl });
+  api.use('/collections/:collectionId', coverRoutes(cover, coverReports, rounds, member));
   api.use('/collections/:collectionId', labelsRoutes(createLabelsService(database.db), member));
   api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db), member));
   api.use(apiNotFound);
@@ -178,7 +186,7 @@ export function createApp(options: AppOptions) {
 
   return {
     app,
-    services: { rounds, events },
+    services: { rounds, events, coverReports },
     async shutdown() {
       await new Promise<void>((resolve) => store.close ? (store.close(), resolve()) : resolve());
     },

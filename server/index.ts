@@ -19,7 +19,7 @@ if (!smtpUrl) {
 }
 const mailer = createSmtpMailer(smtpUrl, env.MAIL_FROM);
 const { app, services, shutdown } = createApp({ env, database, mailer, devMailbox: devSmtp?.mailbox, logger });
-const jobs = await startJobs({ databaseUrl: env.DATABASE_URL, rounds: services.rounds, logger });
+const jobs = await startJobs({ databaseUrl: env.DATABASE_URL, rounds: services.rounds, coverReports: services.coverReports, logger });
 
 const server = app.listen(env.PORT, env.HOST, () => {
   const shown = env.HOST === '0.0.0.0' ? 'localhost' : env.HOST;

@@ -232,7 +232,7 @@ describe('the job that builds rounds at local midnight', () => {
     const own = await createTestContext();
     const { startJobs, BUILD_DUE_ROUNDS } = await import('../../server/jobs/jobs');
     const { createLogger } = await import('../../server/logger');
-    const jobs = await startJobs({ databaseUrl: own.databaseUrl, rounds: own.services.rounds, logger: createLogger({ NODE_ENV: 'test' }) });
+    const jobs = await startJobs({ databaseUrl: own.databaseUrl, rounds: own.services.rounds, coverReports: own.services.coverReports, logger: createLogger({ NODE_ENV: 'test' }) });
     try {
       const keeper = await signUp(own);
       await createAnimal(own.database.db, keeper.collectionId);

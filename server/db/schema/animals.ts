@@ -97,3 +97,25 @@ export const events = pgTable(
     index('events_collection_time_idx').on(t.collectionId, t.effectiveAt),
   ],
 );
+
+/** Notes for whoever covers: about one animal, shown until a date; optionally "do not feed". */
+export const handoverNotes = pgTable(
+  'handover_notes',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    collectionId: uuid('collection_id')
+      .notNull()
+      .references(() => collections.id, { onDelete: 'cascade' }),
+    animalId: uuid('animal_id')
+      .notNull()
+      .references(() => animals.id, { onDelete: 'cascade' }),
+    text: text('text').notNull(),
+    // Local date, inclusive: the last day the note (and a "do not feed") applies.
+    until: date('until').notNull(),
+    doNotFeed: boolean('do_not_feed').notNull().default(false),
+    createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('handover_notes_collection_idx').on(t.collectionId, t.until)],
+);
+

@@ -1,4 +1,5 @@
 import {
+  date,
   index,
   integer,
   jsonb,
@@ -20,6 +21,8 @@ export const collections = pgTable('collections', {
   timeZone: text('time_zone').notNull(),
   // Four characters on every label's QR that say which collection the code belongs to.
   labelTag: text('label_tag').notNull().unique('collections_label_tag'),
+  // For whoever covers the feeds: where the feeders are, who to call, what to do if…
+  handoverNote: text('handover_note'),
   // Per-collection overrides of the round engine's defaults; absent keys use the defaults.
   rules: jsonb('rules').notNull().default({}),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
@@ -39,6 +42,8 @@ export const memberships = pgTable(
     // A helper's cover window; null for owners and keepers.
     startsAt: timestamp('starts_at', { withTimezone: true }),
     endsAt: timestamp('ends_at', { withTimezone: true }),
+    // A helper reads the safety page once per cover before their first round.
+    safetyAcknowledgedAt: timestamp('safety_acknowledged_at', { withTimezone: true }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [unique('memberships_collection_user').on(t.collectionId, t.userId), index('memberships_user_idx').on(t.userId)],
@@ -59,6 +64,7 @@ export const invites = pgTable(
     endsAt: timestamp('ends_at', { withTimezone: true }),
     expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
     acceptedAt: timestamp('accepted_at', { withTimezone: true }),
+    acceptedBy: uuid('accepted_by').references(() => users.id, { onDelete: 'set null' }),
     invitedBy: uuid('invited_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
@@ -80,4 +86,20 @@ export const locations = pgTable(
     walkOrder: integer('walk_order').notNull().default(0),
   },
   (t) => [unique('locations_place').on(t.collectionId, t.room, t.rack, t.shelf, t.position)],
+);
+
+/** One report per covered day, e-mailed to the owners and kept for the app. */
+export const coverReports = pgTable(
+  'cover_reports',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    collectionId: uuid('collection_id')
+      .notNull()
+      .references(() => collections.id, { onDelete: 'cascade' }),
+    localDate: date('local_date').notNull(),
+    subject: text('subject').notNull(),
+    body: text('body').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique('cover_reports_collection_day').on(t.collectionId, t.localDate)],
 );

@@ -1,5 +1,4 @@
 import { Router, type Request } from 'express';
-import { rateLimit, type Options } from 'express-rate-limit';
 import {
   changePasswordBody,
   resetBody,
@@ -10,7 +9,8 @@ import {
   type SignUpBody,
 } from '../../../shared/schemas/auth';
 import { currentUserId, requireUser } from '../../middleware/auth';
-import { HttpError } from '../../middleware/errors';
+import { limiter } from '../../middleware/rate-limit';
+import { startSession } from '../../middleware/session';
 import { input, validate } from '../../middleware/validate';
 import type { AuthService } from './auth.service';
 
@@ -31,26 +31,11 @@ export const DEFAULT_AUTH_LIMITS: AuthLimits = {
   resetPerEmail: 3,
 };
 
-function limiter(options: Partial<Options>) {
-  return rateLimit({
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, _res, next, opts) => {
-      const minutes = Math.ceil(opts.windowMs / 60_000);
-      next(new HttpError(429, 'rate_limited', `Too many attempts. Wait up to ${minutes} minutes and try again.`));
-    },
-    ...options,
-  });
-}
 
 /** Keyed on the e-mail in the body, so one account cannot be hammered from many addresses. */
 function byEmail(req: Request): string {
   const raw = (req.body as { email?: unknown } | undefined)?.email;
   return typeof raw === 'string' ? raw.trim().toLowerCase() : '';
-}
-
-function regenerate(req: Request) {
-  return new Promise<void>((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
 }
 
 function destroy(req: Request) {
@@ -69,13 +54,6 @@ export function authRoutes(auth: AuthService, limits: AuthLimits, cookieName: st
   });
   const resetIpLimit = limiter({ windowMs: 15 * 60_000, limit: limits.resetPerIp });
   const resetEmailLimit = limiter({ windowMs: 60 * 60_000, limit: limits.resetPerEmail, keyGenerator: byEmail });
-
-  async function startSession(req: Request, userId: string) {
-    // A fresh session id at every sign-in (OWASP ASVS 4.0.3 3.2.1): no session fixation.
-    await regenerate(req);
-    req.session.userId = userId;
-    req.session.signedInAt = Date.now();
-  }
 
   router.post('/sign-up', signInLimit, validate({ body: signUpBody }), async (req, res) => {
     const user = await auth.signUp(input<SignUpBody>(res, 'body'));

@@ -1,3 +1,4 @@
+import { and, eq, gte } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import {
   addDays,
@@ -32,6 +33,7 @@ import type {
   RoundResponse,
   ScheduleResponse,
 } from '../../../shared/schemas/rounds';
+import { handoverNotes } from '../../db/schema/animals';
 import { HttpError } from '../../middleware/errors';
 import { toAnimalSummary } from '../animals/animal-summary';
 import { refoldStates } from './projection';
@@ -100,11 +102,22 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
       .filter((r) => cutoff && r.lastEventAt && r.lastEventAt >= cutoff)
       .map((r) => r.animal.id);
     const logs = await loadEventsOf(db, stale);
+    // A handover note "do not feed during the cover" holds feeding through its last day.
+    const holds = new Map(
+      (await db
+        .select({ animalId: handoverNotes.animalId, until: handoverNotes.until })
+        .from(handoverNotes)
+        .where(and(eq(handoverNotes.collectionId, c.id), eq(handoverNotes.doNotFeed, true), gte(handoverNotes.until, before ?? localDateOf(now(), c.timeZone))))
+      ).map((h) => [h.animalId, addDays(h.until, 1)]),
+    );
     return rows.map((r) => {
       const state = logs.has(r.animal.id)
         ? projectState(logs.get(r.animal.id)!, c.timeZone, before)
         : ((r.state as AnimalState | null) ?? EMPTY_STATE);
-      return { animal: toEngineAnimal(r, c.timeZone, state.lastMeal === null), state };
+      const animal = toEngineAnimal(r, c.timeZone, state.lastMeal === null);
+      const hold = holds.get(r.animal.id);
+      if (hold && (!animal.doNotFeedUntil || hold > animal.doNotFeedUntil)) animal.doNotFeedUntil = hold;
+      return { animal, state };
     });
   }
 

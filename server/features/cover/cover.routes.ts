@@ -1,0 +1,93 @@
+import { Router, type RequestHandler } from 'express';
+import { z } from 'zod';
+import { localDateOf } from '../../../shared/domain/local-dates';
+import type { Role } from '../../../shared/domain/roles';
+import { uuid } from '../../../shared/schemas/common';
+import { acceptBody, coverBody, coverChangeBody, generalNoteBody, handoverNoteBody, inviteToken, type AcceptBody } from '../../../shared/schemas/cover';
+import { currentUserId } from '../../middleware/auth';
+import { membershipOf } from '../../middleware/roles';
+import { startSession } from '../../middleware/session';
+import { input, validate } from '../../middleware/validate';
+import type { AuthService } from '../auth/auth.service';
+import type { RoundsService } from '../rounds/rounds.service';
+import type { CoverReportsService } from './cover-reports.service';
+import type { CoverService } from './cover.service';
+
+const coverParams = z.object({ collectionId: uuid, coverId: uuid });
+const noteParams = z.object({ collectionId: uuid, noteId: uuid });
+
+type Member = (min: Role, options?: { anyTime?: boolean }) => RequestHandler;
+
+/** Owners arrange covers; keepers write handover notes; a helper reads their own cover. */
+export function coverRoutes(cover: CoverService, reports: CoverReportsService, rounds: RoundsService, member: Member) {
+  const router = Router({ mergeParams: true });
+  const collectionId = (res: Parameters<RequestHandler>[1]) => membershipOf(res).collectionId;
+
+  router.get('/covers', member('owner'), async (_req, res) => {
+    res.json({ covers: await cover.list(collectionId(res)) });
+  });
+  router.post('/covers', member('owner'), validate({ body: coverBody }), async (req, res) => {
+    res.status(201).json(await cover.create(collectionId(res), currentUserId(req), input(res, 'body')));
+  });
+  router.put('/covers/:coverId', member('owner'), validate({ params: coverParams, body: coverChangeBody }), async (_req, res) => {
+    await cover.change(collectionId(res), input<{ coverId: string }>(res, 'params').coverId, input(res, 'body'));
+    res.json({ covers: await cover.list(collectionId(res)) });
+  });
+  router.post('/covers/:coverId/end', member('owner'), validate({ params: coverParams }), async (_req, res) => {
+    await cover.end(collectionId(res), input<{ coverId: string }>(res, 'params').coverId);
+    res.json({ covers: await cover.list(collectionId(res)) });
+  });
+
+  router.get('/handover', member('keeper'), async (_req, res) => {
+    const m = membershipOf(res);
+    res.json({ generalNote: await cover.generalNote(m.collectionId), notes: await cover.notes(m.collectionId, localDateOf(new Date(), m.timeZone)) });
+  });
+  router.put('/handover/general', member('keeper'), validate({ body: generalNoteBody }), async (_req, res) => {
+    await cover.setGeneralNote(collectionId(res), input<{ text: string }>(res, 'body').text);
+    res.status(204).end();
+  });
+  router.post('/handover/notes', member('keeper'), validate({ body: handoverNoteBody }), async (req, res) => {
+    res.status(201).json(await cover.addNote(collectionId(res), currentUserId(req), input(res, 'body')));
+  });
+  router.delete('/handover/notes/:noteId', member('keeper'), validate({ params: noteParams }), async (_req, res) => {
+    await cover.removeNote(collectionId(res), input<{ noteId: string }>(res, 'params').noteId);
+    res.status(204).end();
+  });
+
+  router.get('/cover-reports', member('keeper'), async (_req, res) => {
+    res.json({ reports: await reports.list(collectionId(res)) });
+  });
+
+  // The helper's own cover: only while it runs (the membership check says when it does not).
+  router.get('/cover/mine', member('helper'), async (req, res) => {
+    const m = membershipOf(res);
+    if (m.role !== 'helper') return void res.status(404).json({ error: { code: 'not_found', message: 'You keep this collection; there is no cover to show.' } });
+    const round = await rounds.todayRound(m.collectionId);
+    res.json(await cover.helperView(m, currentUserId(req), round.items.map((i) => i.animal.id)));
+  });
+  router.post('/cover/mine/acknowledge', member('helper'), async (req, res) => {
+    await cover.acknowledgeSafety(collectionId(res), currentUserId(req));
+    res.status(204).end();
+  });
+  // Leaving works before, during and after the cover.
+  router.delete('/cover/mine', member('helper', { anyTime: true }), async (req, res) => {
+    await cover.leave(collectionId(res), currentUserId(req));
+    res.status(204).end();
+  });
+
+  return router;
+}
+
+/** The invite link, before and at acceptance: no collection membership yet. */
+export function coverInviteRoutes(cover: CoverService, auth: AuthService, limit: RequestHandler) {
+  const router = Router();
+  router.get('/preview', limit, validate({ query: z.object({ token: inviteToken }) }), async (_req, res) => {
+    res.json(await cover.preview(input<{ token: string }>(res, 'query').token));
+  });
+  router.post('/accept', limit, validate({ body: acceptBody }), async (req, res) => {
+    const { userId, collectionId } = await cover.accept(input<AcceptBody>(res, 'body'), req.session.userId ?? null);
+    await startSession(req, userId);
+    res.json({ collectionId, me: await auth.me(userId) });
+  });
+  return router;
+}

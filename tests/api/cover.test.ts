@@ -1,0 +1,257 @@
+import { randomUUID } from 'node:crypto';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { createAnimal, PASSWORD, signUp, type SignedUp } from '../factories';
+import { createTestContext, type TestContext } from '../setup/test-app';
+
+let ctx: TestContext;
+let owner: SignedUp;
+let other: SignedUp;
+let animalId: string;
+let otherAnimalId: string;
+
+const base = (who: SignedUp = owner) => `/api/collections/${who.collectionId}`;
+const tokenIn = (text: string) => /token=([A-Za-z0-9_-]+)/.exec(text)![1]!;
+
+// Instants around the cover, checked against ICU's time-zone data (Intl) rather than our own code:
+// America/Toronto is UTC−5 in winter.
+const zoneClock = (iso: string) =>
+  new Intl.DateTimeFormat('en-CA', { timeZone: 'America/Toronto', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', hourCycle: 'h23' }).format(new Date(iso));
+
+beforeAll(async () => {
+  ctx = await createTestContext();
+  owner = await signUp(ctx);
+  other = await signUp(ctx);
+  animalId = (await createAnimal(ctx.database.db, owner.collectionId, { name: 'Juniper', cautions: ['urticating_hairs'], hasWaterDish: true })).id;
+  otherAnimalId = (await createAnimal(ctx.database.db, other.collectionId, { name: 'Elsewhere' })).id;
+});
+afterEach(() => ctx.setNow(null));
+afterAll(async () => {
+  await ctx.close();
+});
+
+async function invite(email: string, firstDay: string, lastDay: string, message = 'Feeders are in the blue tub. Call me on 555-0100.') {
+  await owner.agent.post(`${base()}/covers`).send({ email, firstDay, lastDay, message }).expect(201);
+  const mail = await ctx.mailbox.waitFor((m) => m.to.includes(email) && m.subject.includes('cover the feeds'));
+  return { mail, token: tokenIn(mail.text) };
+}
+
+describe('a cover from invite to access', () => {
+  it('mails a single-use link that makes an account and a helper for exactly those days', async () => {
+    ctx.setNow(new Date('2026-12-08T15:00:00Z'));
+    const email = `sitter-${randomUUID().slice(0, 6)}@example.test`;
+    const { mail, token } = await invite(email, '2026-12-10', '2026-12-16');
+    expect(mail.text).toContain('from Thu 10 Dec 2026 to Wed 16 Dec 2026');
+    expect(mail.text).toContain('Feeders are in the blue tub.');
+    expect(mail.text).toContain('http://rackside.test/cover/accept?token=');
+
+    const sitter = ctx.agent();
+    const preview = await sitter.get(`/api/cover-invites/preview?token=${token}`).expect(200);
+    expect(preview.body).toMatchObject({ email, firstDay: '2026-12-10', lastDay: '2026-12-16', hasAccount: false });
+    expect((await sitter.post('/api/cover-invites/accept').send({ token })).status).toBe(422);
+    const accepted = await sitter.post('/api/cover-invites/accept').send({ token, account: { displayName: 'Sam', password: PASSWORD } }).expect(200);
+    const membership = accepted.body.me.memberships.find((m: { collectionId: string }) => m.collectionId === owner.collectionId);
+    // 00:00 in Toronto on the 10th to 00:00 on the 17th (EST, UTC−5).
+    expect(membership).toMatchObject({ role: 'helper', startsAt: '2026-12-10T05:00:00.000Z', endsAt: '2026-12-17T05:00:00.000Z' });
+    expect(zoneClock(membership.startsAt)).toBe('2026-12-10, 00:00');
+
+    // The link works once.
+    const again = await ctx.agent().post('/api/cover-invites/accept').send({ token, account: { displayName: 'Eve', password: PASSWORD } });
+    expect(again.status).toBe(400);
+    expect(again.body.error.message).toMatch(/already used/);
+
+    // Before the window: a plain message saying when the cover runs.
+    const early = await sitter.get(`${base()}/rounds/today`);
+    expect(early.status).toBe(403);
+    expect(early.body.error.message).toBe('Your cover for Test Collection runs from Thu 10 Dec 2026 to Wed 16 Dec 2026.');
+    ctx.setNow(new Date('2026-12-12T15:00:00Z'));
+    await sitter.get(`${base()}/rounds/today`).expect(200);
+    ctx.setNow(new Date('2026-12-17T05:00:00Z'));
+    expect((await sitter.get(`${base()}/rounds/today`)).body.error.message).toMatch(/runs from/);
+  });
+
+  it('refuses an expired link, and asks an existing account to sign in as the invited e-mail', async () => {
+    ctx.setNow(new Date('2026-12-01T15:00:00Z'));
+    const known = await signUp(ctx);
+    const { token } = await invite(known.email, '2026-12-20', '2026-12-27');
+    expect((await ctx.agent().post('/api/cover-invites/accept').send({ token })).status).toBe(401);
+    expect((await other.agent.post('/api/cover-invites/accept').send({ token })).body.error.message).toBe(`Sign in as ${known.email} to accept this cover.`);
+    // A week later the link has expired (INVITE_LIFETIME_MS).
+    ctx.setNow(new Date('2026-12-08T15:00:01Z'));
+    const late = await known.agent.post('/api/cover-invites/accept').send({ token });
+    expect(late.status).toBe(400);
+    expect(late.body.error.message).toMatch(/expired/);
+    expect((await ctx.agent().get('/api/cover-invites/preview?token=not-a-real-token-at-all-xx')).status).toBe(400);
+  });
+
+  it('lets the owner change and end a cover, and the helper leave one', async () => {
+    ctx.setNow(new Date('2026-12-02T15:00:00Z'));
+    const email = `friend-${randomUUID().slice(0, 6)}@example.test`;
+    const { token } = await invite(email, '2026-12-02', '2026-12-05');
+    const friend = ctx.agent();
+    await friend.post('/api/cover-invites/accept').send({ token, account: { displayName: 'Friend', password: PASSWORD } }).expect(200);
+    const list = (await owner.agent.get(`${base()}/covers`).expect(200)).body.covers;
+    const cover = list.find((c: { email: string }) => c.email === email);
+    expect(cover).toMatchObject({ state: 'running', helperName: 'Friend', firstDay: '2026-12-02', lastDay: '2026-12-05' });
+    await friend.get(`${base()}/cover/mine`).expect(200);
+    await owner.agent.put(`${base()}/covers/${cover.id}`).send({ firstDay: '2026-12-03', lastDay: '2026-12-05', message: '' }).expect(200);
+    expect((await friend.get(`${base()}/cover/mine`)).status).toBe(403);
+    await owner.agent.put(`${base()}/covers/${cover.id}`).send({ firstDay: '2026-12-02', lastDay: '2026-12-05', message: '' }).expect(200);
+    await owner.agent.post(`${base()}/covers/${cover.id}/end`).expect(200);
+    expect((await friend.get(`${base()}/cover/mine`)).status).toBe(403);
+    await friend.delete(`${base()}/cover/mine`).expect(204);
+    expect((await friend.get(`${base()}/cover/mine`)).status).toBe(404);
+  });
+});
+
+describe('what a helper may do, by route', () => {
+  it('matches the table before, during and after the window, and 404 for another collection', async () => {
+    ctx.setNow(new Date('2026-12-01T15:00:00Z'));
+    const email = `table-${randomUUID().slice(0, 6)}@example.test`;
+    const { token } = await invite(email, '2026-12-10', '2026-12-16');
+    const helper = ctx.agent();
+    await helper.post('/api/cover-invites/accept').send({ token, account: { displayName: 'Table', password: PASSWORD } }).expect(200);
+    const c = base();
+    const o = base(other);
+    const tap = () => ({ deviceId: 'd', clientSentAt: new Date('2026-12-12T15:00:00Z').toISOString(), events: [{ id: randomUUID(), animalId, kind: 'ate', payload: {}, clientRecordedAt: '2026-12-12T15:00:00Z' }] });
+    // [method, path, body, status during the cover]; before and after: 403 unless marked any-time.
+    const table: [string, string, unknown, number, ('any-time' | null)?][] = [
+      ['get', `${c}`, null, 200],
+      ['get', `${c}/rounds/today`, null, 200],
+      ['post', `${c}/events`, tap(), 200, 'any-time'],
+      ['get', `${c}/cover/mine`, null, 200],
+      ['post', `${c}/cover/mine/acknowledge`, {}, 204],
+      ['get', `${c}/animals/${animalId}/photo`, null, 404],
+      ['get', `${c}/rounds/tomorrow`, null, 403],
+      ['get', `${c}/prep-list?date=2026-12-12`, null, 403],
+      ['get', `${c}/animals/${animalId}/schedule`, null, 403],
+      ['patch', `${c}/animals/${animalId}/care`, { intervalDays: 5 }, 403],
+      ['get', `${c}/rules`, null, 403],
+      ['put', `${c}/rules`, {}, 403],
+      ['get', `${c}/events?animalId=${animalId}`, null, 403],
+      ['get', `${c}/animals`, null, 403],
+      ['post', `${c}/animals`, {}, 403],
+      ['get', `${c}/animals/${animalId}`, null, 403],
+      ['put', `${c}/animals/${animalId}`, {}, 403],
+      ['post', `${c}/animals/${animalId}/retire`, {}, 403],
+      ['post', `${c}/animals/${animalId}/reinstate`, {}, 403],
+      ['post', `${c}/animals/move`, {}, 403],
+      ['put', `${c}/animals/${animalId}/photo`, null, 403],
+      ['delete', `${c}/animals/${animalId}/photo`, null, 403],
+      ['post', `${c}/animals/${animalId}/relabel`, null, 403],
+      ['post', `${c}/labels/pdf`, {}, 403],
+      ['get', `${c}/locations`, null, 403],
+      ['post', `${c}/locations`, {}, 403],
+      ['put', `${c}/locations/order`, {}, 403],
+      ['get', `${c}/export/animals.csv`, null, 403],
+      ['get', `${c}/export/events.csv`, null, 403],
+      ['get', `${c}/backup`, null, 403],
+      ['post', `${c}/restore`, {}, 403],
+      ['post', `${c}/animals/import`, {}, 403],
+      ['get', `${c}/members`, null, 403],
+      ['post', `${c}/members`, {}, 403],
+      ['get', `${c}/covers`, null, 403],
+      ['post', `${c}/covers`, {}, 403],
+      ['get', `${c}/handover`, null, 403],
+      ['put', `${c}/handover/general`, {}, 403],
+      ['post', `${c}/handover/notes`, {}, 403],
+      ['get', `${c}/cover-reports`, null, 403],
+    ];
+    const call = (method: string, path: string, body: unknown) => {
+      const req = (helper as unknown as Record<string, (p: string) => { send(b: unknown): Promise<{ status: number }> } & Promise<{ status: number }>>)[method]!(path);
+      return body === null ? req : req.send(body);
+    };
+    const when = { before: '2026-12-05T15:00:00Z', during: '2026-12-12T15:00:00Z', after: '2026-12-20T15:00:00Z' } as const;
+    const seen: string[] = [];
+    for (const [phase, at] of Object.entries(when)) {
+      ctx.setNow(new Date(at));
+      for (const [method, path, body, during, anyTime] of table) {
+        const expected = phase === 'during' || anyTime ? during : 403;
+        const res = await call(method, path, body);
+        if (res.status !== expected) seen.push(`${phase} ${method.toUpperCase()} ${path}: ${res.status}, expected ${expected}`);
+        // The same route against another collection's ids: nothing to see.
+        const foreign = await call(method, path.replace(c, o).replace(animalId, otherAnimalId), body);
+        if (foreign.status !== 404) seen.push(`${phase} ${method.toUpperCase()} (other collection) ${path}: ${foreign.status}, expected 404`);
+      }
+    }
+    expect(seen).toEqual([]);
+  });
+});
+
+describe('handover notes and the helper’s view', () => {
+  it('shows the general note, per-animal notes until their date and 14 days of facts; "do not feed" holds the feed', async () => {
+    ctx.setNow(new Date('2026-12-01T15:00:00Z'));
+    await owner.agent.put(`${base()}/handover/general`).send({ text: 'Feeders: blue tub. Escape: close the door, check under the rack.' }).expect(204);
+    // A new animal is due its first meal today; a "do not feed" note until the 5th holds it.
+    const fresh = (await createAnimal(ctx.database.db, owner.collectionId, { name: 'Premolt' })).id;
+    const schedule = async () => (await owner.agent.get(`${base()}/animals/${fresh}/schedule`).expect(200)).body;
+    expect((await schedule()).tasks.map((t: { kind: string }) => t.kind)).toContain('feed');
+    await owner.agent.post(`${base()}/handover/notes`).send({ animalId: fresh, text: 'In premolt: no food, water only.', until: '2026-12-05', doNotFeed: true }).expect(201);
+    const held = await schedule();
+    expect(held.tasks.map((t: { kind: string }) => t.kind)).not.toContain('feed');
+    expect(held.nextFeed).toBe('2026-12-06');
+    expect((await owner.agent.post(`${base()}/handover/notes`).send({ animalId: otherAnimalId, text: 'x', until: '2026-12-05' })).status).toBe(404);
+
+    const email = `view-${randomUUID().slice(0, 6)}@example.test`;
+    const { token } = await invite(email, '2026-12-01', '2026-12-03');
+    const helper = ctx.agent();
+    await helper.post('/api/cover-invites/accept').send({ token, account: { displayName: 'Viewer', password: PASSWORD } }).expect(200);
+    await owner.agent.post(`${base()}/events`).send({ deviceId: 'd', clientSentAt: new Date().toISOString(), events: [{ id: randomUUID(), animalId, kind: 'watered', payload: {}, clientRecordedAt: '2026-12-01T14:00:00Z' }] }).expect(200);
+    const view = (await helper.get(`${base()}/cover/mine`).expect(200)).body;
+    expect(view).toMatchObject({ firstDay: '2026-12-01', lastDay: '2026-12-03', generalNote: 'Feeders: blue tub. Escape: close the door, check under the rack.', safetyAcknowledgedAt: null });
+    expect(view.recent[animalId]).toEqual(expect.arrayContaining([expect.objectContaining({ kind: 'watered', by: 'Test Keeper' })]));
+    await helper.post(`${base()}/cover/mine/acknowledge`).expect(204);
+    expect((await helper.get(`${base()}/cover/mine`)).body.safetyAcknowledgedAt).toBe('2026-12-01T15:00:00.000Z');
+  });
+});
+
+describe('the daily report', () => {
+  it('goes out when each covered day ends in Toronto, across the March 2027 clock change', async () => {
+    // DST starts Sunday 14 March 2027 at 02:00 in Toronto: that day has 23 hours.
+    expect(zoneClock('2027-03-14T04:59:00Z')).toBe('2027-03-13, 23:59');
+    expect(zoneClock('2027-03-14T05:00:00Z')).toBe('2027-03-14, 00:00');
+    expect(zoneClock('2027-03-15T03:59:00Z')).toBe('2027-03-14, 23:59');
+    expect(zoneClock('2027-03-15T04:00:00Z')).toBe('2027-03-15, 00:00');
+
+    const keeper = await signUp(ctx);
+    const spider = (await createAnimal(ctx.database.db, keeper.collectionId, { name: 'Ember' })).id;
+    // Due its first meal and never fed: the report says so.
+    await createAnimal(ctx.database.db, keeper.collectionId, { name: 'Tiger' });
+    ctx.setNow(new Date('2027-03-10T15:00:00Z'));
+    const email = `dst-${randomUUID().slice(0, 6)}@example.test`;
+    await keeper.agent.post(`/api/collections/${keeper.collectionId}/covers`).send({ email, firstDay: '2027-03-13', lastDay: '2027-03-14', message: '' }).expect(201);
+    const token = tokenIn((await ctx.mailbox.waitFor((m) => m.to.includes(email))).text);
+    const helper = ctx.agent();
+    await helper.post('/api/cover-invites/accept').send({ token, account: { displayName: 'Dana', password: PASSWORD } }).expect(200);
+
+    ctx.setNow(new Date('2027-03-13T16:00:00Z'));
+    const tap = (kind: string, at: string, payload = {}) => ({ id: randomUUID(), animalId: spider, kind, payload, clientRecordedAt: at });
+    await helper.post(`/api/collections/${keeper.collectionId}/events`).send({ deviceId: 'h', clientSentAt: '2027-03-13T16:00:00Z', events: [tap('ate', '2027-03-13T15:30:00Z'), tap('note', '2027-03-13T15:31:00Z', { text: 'Webbed over the water dish.' })] }).expect(200);
+
+    const reports = ctx.services.coverReports;
+    const mine = () => ctx.mailbox.messages.filter((m) => m.to.includes(keeper.email) && m.subject.includes('cover report'));
+    ctx.setNow(new Date('2027-03-14T04:59:00Z'));
+    expect(await reports.runDue()).toBe(0);
+    ctx.setNow(new Date('2027-03-14T05:00:00Z'));
+    expect(await reports.runDue()).toBe(1);
+    expect(await reports.runDue()).toBe(0); // once only
+    const first = await ctx.mailbox.waitFor((m) => m.to.includes(keeper.email) && m.subject.includes('Sat 13 Mar 2027'));
+    expect(first.text).toContain('Fed (1)');
+    expect(first.text).toContain('10:30 Ember');
+    expect(first.text).toContain('by Dana');
+    expect(first.text).toContain('Notes (1)');
+    expect(first.text).toContain('Webbed over the water dish.');
+    expect(first.text).toMatch(/Needs attention\n- Not done: Tiger \(TS-\w+\) — feed/);
+
+    // The 23-hour day ends at 04:00Z, not 05:00Z.
+    ctx.setNow(new Date('2027-03-15T03:59:00Z'));
+    expect(await reports.runDue()).toBe(0);
+    ctx.setNow(new Date('2027-03-15T04:00:00Z'));
+    expect(await reports.runDue()).toBe(1);
+    const last = await ctx.mailbox.waitFor((m) => m.to.includes(keeper.email) && m.subject.includes('Sun 14 Mar 2027 (last day)'));
+    expect(last.text).toContain('Nothing was recorded this day.');
+    expect(last.text).toMatch(/The cover is over: Sat 13 Mar 2027 to Sun 14 Mar 2027\.\n- Ate: 1\n- Note: 1/);
+    expect(mine()).toHaveLength(2);
+    const listed = (await keeper.agent.get(`/api/collections/${keeper.collectionId}/cover-reports`).expect(200)).body.reports;
+    expect(listed.map((r: { localDate: string }) => r.localDate)).toEqual(['2027-03-14', '2027-03-13']);
+  });
+});
