@@ -1,22 +1,12 @@
 import type { RequestHandler, Response } from 'express';
-import { describeLocalDate, localDateOf } from '../../shared/domain/local-dates';
-import { coverWindowState, roleAtLeast, type Role } from '../../shared/domain/roles';
+import { coverWindowMessage, coverWindowState, roleAtLeast, type Role } from '../../shared/domain/roles';
 import { uuid } from '../../shared/schemas/common';
 import type { Db } from '../db/client';
 import { findMembership, type Membership } from '../features/collections/collections.repository';
 import { currentUserId } from './auth';
 import { HttpError } from './errors';
 
-export function coverMessage(m: Membership): string {
-  const first = m.startsAt ? describeLocalDate(localDateOf(m.startsAt, m.timeZone), true) : null;
-  // endsAt is the first instant after the cover: the last covered day is the one before it.
-  const last = m.endsAt
-    ? describeLocalDate(localDateOf(new Date(m.endsAt.getTime() - 1), m.timeZone), true)
-    : null;
-  if (first && last) return `Your cover for ${m.collectionName} runs from ${first} to ${last}.`;
-  if (first) return `Your cover for ${m.collectionName} starts on ${first}.`;
-  return `Your cover for ${m.collectionName} ended on ${last}.`;
-}
+export const coverMessage = (m: Membership, now: Date) => coverWindowMessage(m, now);
 
 /**
  * The one membership check for /api/collections/:collectionId/…: a non-member learns nothing
@@ -40,7 +30,7 @@ export function requireMember(
       !options.anyTime &&
       coverWindowState(now(), membership.startsAt, membership.endsAt) !== 'during'
     ) {
-      throw new HttpError(403, 'cover_not_running', coverMessage(membership));
+      throw new HttpError(403, 'cover_not_running', coverMessage(membership, now()));
     }
     if (!roleAtLeast(membership.role, minimum)) {
       throw new HttpError(403, 'forbidden', 'Your role in this collection does not allow this.');

@@ -10,6 +10,7 @@ const router = createBrowserRouter([
   { path: '/sign-up', lazy: () => import('./routes/sign-up').then((m) => ({ Component: m.SignUpRoute })) },
   { path: '/forgot-password', lazy: () => import('./routes/forgot-password').then((m) => ({ Component: m.ForgotPasswordRoute })) },
   { path: '/reset-password', lazy: () => import('./routes/reset-password').then((m) => ({ Component: m.ResetPasswordRoute })) },
+  { path: '/cover/accept', lazy: () => import('./routes/cover-accept').then((m) => ({ Component: m.CoverAcceptRoute })) },
   { path: '/dev/mailbox', lazy: () => import('./routes/dev-mailbox').then((m) => ({ Component: m.DevMailboxRoute })) },
   {
     element: <Shell />,
@@ -21,6 +22,7 @@ const router = createBrowserRouter([
       { path: '/animals/new', lazy: () => import('./routes/animal-edit').then((m) => ({ Component: m.AnimalEditRoute })) },
       { path: '/animals/:animalId', lazy: () => import('./routes/animal').then((m) => ({ Component: m.AnimalRoute })) },
       { path: '/animals/:animalId/edit', lazy: () => import('./routes/animal-edit').then((m) => ({ Component: m.AnimalEditRoute })) },
+      { path: '/cover', lazy: () => import('./routes/cover').then((m) => ({ Component: m.CoverRoute })) },
       { path: '/places', lazy: () => import('./routes/places').then((m) => ({ Component: m.PlacesRoute })) },
       { path: '/import', lazy: () => import('./routes/import').then((m) => ({ Component: m.ImportRoute })) },
       { path: '/labels', lazy: () => import('./routes/labels').then((m) => ({ Component: m.LabelsRoute })) },

@@ -66,7 +66,7 @@ describe('a cover from invite to access', () => {
     ctx.setNow(new Date('2026-12-12T15:00:00Z'));
     await sitter.get(`${base()}/rounds/today`).expect(200);
     ctx.setNow(new Date('2026-12-17T05:00:00Z'));
-    expect((await sitter.get(`${base()}/rounds/today`)).body.error.message).toMatch(/runs from/);
+    expect((await sitter.get(`${base()}/rounds/today`)).body.error.message).toBe('Your cover for Test Collection ended on Wed 16 Dec 2026. Thank you!');
   });
 
   it('refuses an expired link, and asks an existing account to sign in as the invited e-mail', async () => {

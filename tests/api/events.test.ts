@@ -219,7 +219,7 @@ describe('a helper syncing', () => {
       .expect(200);
     expect(res.body.results[0]).toEqual({ id: during.id, status: 'accepted' });
     expect(res.body.results[1]).toMatchObject({ status: 'rejected', reason: 'outside_cover' });
-    expect(res.body.results[1].message).toMatch(/runs from Fri 20 Nov 2026 to Fri 27 Nov 2026/);
+    expect(res.body.results[1].message).toMatch(/recorded outside your cover\. Your cover for Test Collection ended on Fri 27 Nov 2026/);
     // Reading the round stays closed outside the cover.
     await helper.agent.get(`/api/collections/${owner.collectionId}/rounds/today`).expect(403);
     // and the history is for keepers only.

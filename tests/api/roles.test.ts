@@ -49,12 +49,15 @@ describe('membership check on /api/collections/:id', () => {
   });
 
   it('refuses a helper outside the cover window with 403 and says when the cover runs', async () => {
-    for (const when of [new Date('2026-12-10T04:59:59Z'), coverEnd]) {
+    for (const [when, message] of [
+      [new Date('2026-12-10T04:59:59Z'), 'Your cover for Test Collection runs from Thu 10 Dec 2026 to Wed 16 Dec 2026.'],
+      [coverEnd, 'Your cover for Test Collection ended on Wed 16 Dec 2026. Thank you!'],
+    ] as const) {
       ctx.setNow(when);
       const res = await helper.agent.get(`/api/collections/${owner.collectionId}`);
       expect(res.status).toBe(403);
       expect(res.body.error.code).toBe('cover_not_running');
-      expect(res.body.error.message).toBe('Your cover for Test Collection runs from Thu 10 Dec 2026 to Wed 16 Dec 2026.');
+      expect(res.body.error.message).toBe(message);
     }
     ctx.setNow(null);
   });

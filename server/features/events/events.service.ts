@@ -170,7 +170,7 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
           index,
           event.id,
           'outside_cover',
-          `This was recorded outside your cover. ${coverMessage(member)}`,
+          `This was recorded outside your cover. ${coverMessage(member, now())}`,
         );
       } else if (targetId && !target) {
         reject(index, event.id, 'target_unknown', 'The outcome this undoes was never saved.');

@@ -4,6 +4,7 @@ import { SafetyNote } from '@/components/ui/safety-note';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { ChangePasswordForm } from '@/features/auth/components/change-password-form';
 import { CollectionSwitcher } from '@/features/auth/components/collection-switcher';
+import { LeaveCover } from '@/features/cover/components/leave-cover';
 import { DataPanel } from '@/features/settings/components/data-panel';
 import { ThemePicker } from '@/features/settings/components/theme-picker';
 import { UnitPicker } from '@/features/settings/components/unit-picker';
@@ -20,6 +21,13 @@ export function SettingsRoute() {
       <h1 className="text-3xl font-extrabold">Settings</h1>
       <ThemePicker />
       <UnitPicker />
+      {collection && collection.role !== 'helper' && (
+        <Link to="/cover" className="flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold">
+          Cover for a helper
+          <span aria-hidden="true">›</span>
+        </Link>
+      )}
+      {collection?.role === 'helper' && <LeaveCover collectionId={collection.collectionId} onLeft={() => window.location.assign('/today')} />}
       {collection && collection.role !== 'helper' && (
         <Link to="/settings/rules" className="flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold">
           Round rules

@@ -1,6 +1,7 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
 import { NavLink, Navigate, Outlet, useLocation, useOutletContext } from 'react-router-dom';
+import { coverWindowMessage, coverWindowState } from '#shared/domain/roles';
 import type { MeResponse, MembershipSummary } from '#shared/schemas/auth';
 import { DialIcon, RackIcon, RoundIcon, ScanIcon, TomorrowIcon } from '@/components/ui/icons';
 import { Notice } from '@/components/ui/notice';
@@ -23,18 +24,19 @@ export function useShell() {
 }
 
 const NAV = [
-  { to: '/today', label: 'Today', Icon: RoundIcon },
-  { to: '/scan', label: 'Scan', Icon: ScanIcon },
-  { to: '/tomorrow', label: 'Tomorrow', Icon: TomorrowIcon },
-  { to: '/animals', label: 'Animals', Icon: RackIcon },
-  { to: '/settings', label: 'Settings', Icon: DialIcon },
+  { to: '/today', label: 'Today', Icon: RoundIcon, helper: true },
+  { to: '/scan', label: 'Scan', Icon: ScanIcon, helper: true },
+  { to: '/tomorrow', label: 'Tomorrow', Icon: TomorrowIcon, helper: false },
+  { to: '/animals', label: 'Animals', Icon: RackIcon, helper: false },
+  { to: '/settings', label: 'Settings', Icon: DialIcon, helper: true },
 ];
 
-function BottomNav() {
+/** A helper sees the round, the scanner and their settings; nothing of the collection's records. */
+function BottomNav({ helper }: { helper: boolean }) {
   return (
     <nav aria-label="Main" className="print:hidden fixed inset-x-0 bottom-0 z-20 border-t-2 border-border bg-surface pb-[env(safe-area-inset-bottom)]">
       <ul className="mx-auto flex max-w-xl">
-        {NAV.map(({ to, label, Icon }) => (
+        {NAV.filter((n) => n.helper || !helper).map(({ to, label, Icon }) => (
           <li key={to} className="flex-1">
             <NavLink
               to={to}
@@ -93,6 +95,10 @@ export function Shell() {
     );
   }
   const context: ShellContext = { me: me.data, collection: current, chooseCollection: choose };
+  const helper = current?.role === 'helper';
+  // Outside the cover a helper sees when it runs, on every screen but Settings (to leave it).
+  const outside =
+    helper && current && coverWindowState(new Date(), current.startsAt ? new Date(current.startsAt) : null, current.endsAt ? new Date(current.endsAt) : null) !== 'during' && location.pathname !== '/settings';
   return (
     <div className="min-h-dvh pb-24">
       <header className="print:hidden border-b-2 border-border bg-surface px-4 py-2">
@@ -104,9 +110,15 @@ export function Shell() {
         </div>
       </header>
       <main className="mx-auto max-w-xl px-4 pt-3">
-        <Outlet context={context} />
+        {outside && current ? (
+          <Notice tone="info" title={coverWindowMessage({ ...current, startsAt: current.startsAt ? new Date(current.startsAt) : null, endsAt: current.endsAt ? new Date(current.endsAt) : null }, new Date())}>
+            <p>Outside those days there is nothing to do here.</p>
+          </Notice>
+        ) : (
+          <Outlet context={context} />
+        )}
       </main>
-      <BottomNav />
+      <BottomNav helper={helper} />
     </div>
   );
 }

@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useState } from 'react';
+import { lazy, Suspense, useCallback, useMemo, useState, type ReactNode } from 'react';
 import { EVENT_WORDS } from '#shared/domain/event-kinds';
 import { clockTime, describeLocalDate, localDateOf } from '#shared/domain/local-dates';
 import type { RecordedEvent } from '#shared/schemas/events';
@@ -17,9 +17,19 @@ import { filterItems, ROUND_FILTERS, type RoundFilter } from '@/features/rounds/
 import { ApiError } from '@/lib/api-client';
 import { useShell } from './shell';
 
+// A helper's round adds the safety page, handover notes and cautions: loaded only for helpers.
+const HelperToday = lazy(() => import('./helper-today').then((m) => ({ default: m.HelperToday })));
+
 export function TodayRoute() {
   const { me, collection } = useShell();
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
+  if (collection.role === 'helper') {
+    return (
+      <Suspense fallback={<Loading />}>
+        <HelperToday />
+      </Suspense>
+    );
+  }
   // The heading needs only the collection's zone, so it paints before the round is read (P2).
   return (
     <div className="flex flex-col gap-3">
@@ -34,7 +44,15 @@ interface LastTap {
   animal: { id: string; name: string; labelCode: string };
 }
 
-function TodayRound({ userId, myName, collectionId }: { userId: string; myName: string; collectionId: string }) {
+interface TodayRoundProps {
+  userId: string;
+  myName: string;
+  collectionId: string;
+  /** More on each item, above its buttons (a helper's notes and cautions). */
+  extras?: (item: RoundItemView) => ReactNode;
+}
+
+export function TodayRound({ userId, myName, collectionId, extras }: TodayRoundProps) {
   const { local, server } = useRound(userId, collectionId, 'today');
   const record = useRecordOutcome({ userId, byName: myName, collectionId });
   const [filter, setFilter] = useState<RoundFilter>('all');
@@ -43,14 +61,17 @@ function TodayRound({ userId, myName, collectionId }: { userId: string; myName: 
   const closeToast = useCallback(() => setLast(null), []);
   const actions = useCallback(
     (item: RoundItemView) => (
-      <OutcomeButtons
-        item={item}
-        onRecord={(kind, payload) => {
-          void record(item.animal, kind, payload).then((event) => setLast({ event, animal: item.animal }));
-        }}
-      />
+      <>
+        {extras?.(item)}
+        <OutcomeButtons
+          item={item}
+          onRecord={(kind, payload) => {
+            void record(item.animal, kind, payload).then((event) => setLast({ event, animal: item.animal }));
+          }}
+        />
+      </>
     ),
-    [record],
+    [record, extras],
   );
   const items = local.data?.round.items;
   const counts = useMemo(

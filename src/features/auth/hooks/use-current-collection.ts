@@ -9,6 +9,12 @@ function subscribe(listener: () => void) {
   return () => listeners.delete(listener);
 }
 
+/** Makes a collection this device's current one (e.g. right after accepting a cover). */
+export function chooseCollectionOnDevice(collectionId: string) {
+  localStorage.setItem(KEY, collectionId);
+  for (const l of listeners) l();
+}
+
 /**
  * The collection this device is working in. Remembered per device; falls back to the first
  * collection the person owns, then to any they belong to.
@@ -17,9 +23,6 @@ export function useCurrentCollection(memberships: MembershipSummary[]) {
   const saved = useSyncExternalStore(subscribe, () => localStorage.getItem(KEY));
   const current =
     memberships.find((m) => m.collectionId === saved) ?? memberships.find((m) => m.role === 'owner') ?? memberships[0] ?? null;
-  const choose = useCallback((collectionId: string) => {
-    localStorage.setItem(KEY, collectionId);
-    for (const l of listeners) l();
-  }, []);
+  const choose = useCallback((collectionId: string) => chooseCollectionOnDevice(collectionId), []);
   return { current, choose };
 }
