@@ -125,7 +125,8 @@ describe('today’s round with no signal', () => {
     const now = Date.now();
     await db
       .update(memberships)
-      .set({ startsAt: new Date(now - 86_400_000), endsAt: new Date(now + 86_400_000) })
+      // The demo helper's cover runs now, and they have read the safety page already.
+      .set({ startsAt: new Date(now - 86_400_000), endsAt: new Date(now + 86_400_000), safetyAcknowledgedAt: new Date(now) })
       .where(eq(memberships.userId, helper));
 
     const phones = await Promise.all([phonePage(env.browser), phonePage(env.browser)]);

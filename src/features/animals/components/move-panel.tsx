@@ -3,28 +3,25 @@ import type { LocationSummary } from '#shared/schemas/animals';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { SelectField } from '@/components/ui/select-field';
+import { useAction } from '@/lib/use-action';
 
 /** Moves one animal or many to one place; each move is kept in the animal's history. */
 export function MovePanel({ what, locations, onMove, onCancel }: { what: string; locations: readonly LocationSummary[]; onMove: (locationId: string) => Promise<unknown>; onCancel: () => void }) {
   const [to, setTo] = useState(locations[0]?.id ?? '');
-  const [state, setState] = useState<{ busy: boolean; error: string | null }>({ busy: false, error: null });
+  const action = useAction();
   if (!locations.length) return <Notice tone="info" title="Add places first (Animals → Places)." />;
   return (
     <form
       className="flex flex-col gap-3 rounded-2xl border-2 border-border bg-surface p-3"
       onSubmit={(e) => {
         e.preventDefault();
-        setState({ busy: true, error: null });
-        onMove(to).then(
-          () => setState({ busy: false, error: null }),
-          (err: Error) => setState({ busy: false, error: err.message }),
-        );
+        action.run(() => onMove(to));
       }}
     >
       <SelectField label={`Move ${what} to`} value={to} onChange={(e) => setTo(e.target.value)} options={locations.map((l) => ({ value: l.id, label: `${l.room} · ${l.rack}${l.shelf}-${l.position}` }))} />
-      {state.error && <Notice tone="error" title={state.error} />}
+      {action.error && <Notice tone="error" title={action.error} />}
       <div className="flex flex-wrap gap-2">
-        <Button type="submit" busy={state.busy}>
+        <Button type="submit" busy={action.busy}>
           Move
         </Button>
         <Button variant="secondary" onClick={onCancel}>

@@ -4,6 +4,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
+import { useAction } from '@/lib/use-action';
 
 const WORDS: Record<string, string> = { sold: 'Sold', deceased: 'Deceased', rehomed: 'Rehomed', on_loan: 'On loan' };
 
@@ -20,26 +21,22 @@ export function RetirePanel({ what, today, onRetire, onCancel }: Props) {
   const [status, setStatus] = useState<RetireBody['status']>('sold');
   const [date, setDate] = useState(today);
   const [note, setNote] = useState('');
-  const [state, setState] = useState<{ busy: boolean; error: string | null }>({ busy: false, error: null });
+  const action = useAction();
   return (
     <form
       className="flex flex-col gap-3 rounded-2xl border-2 border-accent bg-surface p-3"
       onSubmit={(e) => {
         e.preventDefault();
-        setState({ busy: true, error: null });
-        onRetire({ status, date, note: note || null }).then(
-          () => setState({ busy: false, error: null }),
-          (err: Error) => setState({ busy: false, error: err.message }),
-        );
+        action.run(() => onRetire({ status, date, note: note || null }));
       }}
     >
       <p className="font-bold">Retire {what}? It leaves the round; its history stays.</p>
       <SelectField label="Why" value={status} onChange={(e) => setStatus(e.target.value as RetireBody['status'])} options={RETIRED_STATUSES.map((s) => ({ value: s, label: WORDS[s]! }))} />
       <TextField label="Date" type="date" value={date} onChange={(e) => setDate(e.target.value)} />
       <TextField label="Note" value={note} onChange={(e) => setNote(e.target.value)} />
-      {state.error && <Notice tone="error" title={state.error} />}
+      {action.error && <Notice tone="error" title={action.error} />}
       <div className="flex flex-wrap gap-2">
-        <Button type="submit" busy={state.busy}>
+        <Button type="submit" busy={action.busy}>
           Retire
         </Button>
         <Button variant="secondary" onClick={onCancel}>
