@@ -9,6 +9,7 @@ import {
   cachedRound,
   nextBatch,
   recordTap,
+  recordTaps,
   settleBatch,
   storeServerRound,
   waitingTaps,
@@ -157,5 +158,29 @@ describe('a fresh copy of the round from the server', () => {
     await tap(event('void', { payload: { targetId: meal.id } }));
     const stored = await storeServerRound(db, USER, COLLECTION, 'today', fromServer, new Date());
     expect(stored.round.items[0]!.outcomes).toEqual([]);
+  });
+});
+
+describe('a tray at once', () => {
+  const asTap = (e: RecordedEvent) => ({ userId: USER, byName: 'Robin', collectionId: COLLECTION, animalName: 'x', event: e });
+  const DUSTY = sampleRound().items[1]!.animal.id;
+
+  it('records every animal in one transaction and reports each item’s change', async () => {
+    const effects = await recordTaps(db, [asTap(event('ate')), asTap(event('refused', { animalId: DUSTY }))]);
+    expect(effects.map((e) => [e.animalId, e.doneDelta])).toEqual([
+      [BRAMBLE, 1],
+      [DUSTY, 1],
+    ]);
+    expect(await waitingTaps(db, USER)).toHaveLength(2);
+    expect((await cachedRound(db, USER, COLLECTION, 'today'))!.round.progress.done).toBe(2);
+  });
+
+  it('records nothing when one of them fails', async () => {
+    const ate = event('ate');
+    await tap(ate);
+    await expect(recordTaps(db, [asTap(event('refused', { animalId: DUSTY })), asTap({ ...ate, kind: 'watered' })])).rejects.toThrow();
+    expect((await waitingTaps(db, USER)).map((w) => w.event.id)).toEqual([ate.id]);
+    const dusty = (await cachedRound(db, USER, COLLECTION, 'today'))!.round.items[1]!;
+    expect(dusty.tasks[0]!.done).toBeNull();
   });
 });

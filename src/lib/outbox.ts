@@ -66,6 +66,31 @@ export async function recordTap(db: RacksideDb, tap: Tap): Promise<TapEffect | n
   return effect;
 }
 
+/**
+ * Several taps at once (a tray of slings: "all ate except …"): every event joins the outbox and
+ * every item shows its outcome in ONE transaction, so the tray is recorded whole or not at all.
+ */
+export async function recordTaps(db: RacksideDb, taps: readonly Tap[]): Promise<TapEffect[]> {
+  const tx = db.transaction(['outbox', 'roundItems'], 'readwrite');
+  const done = completion(tx);
+  const items = tx.objectStore('roundItems');
+  const effects = new Map<string, TapEffect>();
+  for (const tap of taps) {
+    const key = roundKey(tap.userId, tap.collectionId, 'today');
+    const [stored] = await Promise.all([
+      items.get([key, tap.event.animalId]),
+      tx.objectStore('outbox').add({ userId: tap.userId, collectionId: tap.collectionId, animalName: tap.animalName, byName: tap.byName, event: tap.event }),
+    ]);
+    if (!stored) continue;
+    const { item, doneDelta } = itemWithOutcome(stored.item, outcomeOf(tap.event, tap.byName), stored.timeZone);
+    await items.put({ ...stored, item });
+    const before = effects.get(tap.event.animalId);
+    effects.set(tap.event.animalId, { animalId: tap.event.animalId, item, doneDelta: (before?.doneDelta ?? 0) + doneDelta });
+  }
+  await done;
+  return [...effects.values()];
+}
+
 /** A cached round with one tap's effect applied (the screen's copy, no storage involved). */
 export function applyTapEffect(cached: CachedRound, effect: TapEffect): CachedRound {
   const items = cached.round.items.map((i) => (i.animal.id === effect.animalId ? effect.item : i));

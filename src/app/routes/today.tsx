@@ -6,12 +6,13 @@ import type { RoundItemView } from '#shared/schemas/rounds';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useRound } from '@/features/rounds/api/get-round';
-import { useRecordOutcome } from '@/features/rounds/api/record-outcome';
+import { useRecordMany, useRecordOutcome } from '@/features/rounds/api/record-outcome';
 import { OutcomeButtons } from '@/features/rounds/components/outcome-buttons';
 import { ProgressBar } from '@/features/rounds/components/progress-bar';
 import { RoundFilters } from '@/features/rounds/components/round-filters';
 import { RoundList } from '@/features/rounds/components/round-list';
 import { RoundUnavailable } from '@/features/rounds/components/round-unavailable';
+import { TrayAtOnce } from '@/features/rounds/components/tray-at-once';
 import { UndoToast } from '@/features/rounds/components/undo-toast';
 import { filterItems, ROUND_FILTERS, type RoundFilter } from '@/features/rounds/filter-items';
 import { ApiError } from '@/lib/api-client';
@@ -55,6 +56,11 @@ interface TodayRoundProps {
 export function TodayRound({ userId, myName, collectionId, extras }: TodayRoundProps) {
   const { local, server } = useRound(userId, collectionId, 'today');
   const record = useRecordOutcome({ userId, byName: myName, collectionId });
+  const recordMany = useRecordMany({ userId, byName: myName, collectionId });
+  const groupActions = useCallback(
+    (label: string, list: RoundItemView[]) => <TrayAtOnce key={label} label={label} items={list} onRecord={recordMany} />,
+    [recordMany],
+  );
   const [filter, setFilter] = useState<RoundFilter>('all');
   const [search, setSearch] = useState('');
   const [last, setLast] = useState<LastTap | null>(null);
@@ -107,6 +113,7 @@ export function TodayRound({ userId, myName, collectionId, extras }: TodayRoundP
         myName={myName}
         empty={round.items.length ? 'Nothing here with this filter.' : 'Nothing is due. Enjoy the quiet.'}
         actions={actions}
+        groupActions={filter === 'done' ? undefined : groupActions}
       />
       {last && (
         <UndoToast

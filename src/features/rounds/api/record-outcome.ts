@@ -3,7 +3,7 @@ import { useCallback } from 'react';
 import type { EventKind } from '#shared/domain/event-kinds';
 import type { RecordedEvent } from '#shared/schemas/events';
 import { withDb, type CachedRound } from '@/lib/db';
-import { applyTapEffect, recordTap } from '@/lib/outbox';
+import { applyTapEffect, recordTap, recordTaps } from '@/lib/outbox';
 import { askToKeepStorageOnce } from '@/lib/storage';
 import { tapRecorded } from '@/lib/sync-driver';
 import { roundKeys } from './keys';
@@ -33,6 +33,29 @@ export function useRecordOutcome({ userId, byName, collectionId }: Recorder) {
       tapRecorded();
       void askToKeepStorageOnce();
       return event;
+    },
+    [queryClient, userId, byName, collectionId],
+  );
+}
+
+/** Many outcomes in one go (a tray of slings), written in one transaction, sent later. */
+export function useRecordMany({ userId, byName, collectionId }: Recorder) {
+  const queryClient = useQueryClient();
+  return useCallback(
+    async (list: { animal: { id: string; name: string }; kind: EventKind }[]) => {
+      const at = new Date().toISOString();
+      const taps = list.map(({ animal, kind }) => ({
+        userId,
+        byName,
+        collectionId,
+        animalName: animal.name,
+        event: { id: crypto.randomUUID(), animalId: animal.id, kind, payload: {}, clientRecordedAt: at } satisfies RecordedEvent,
+      }));
+      const effects = await withDb((db) => recordTaps(db, taps));
+      queryClient.setQueryData<CachedRound | null>(roundKeys.local(collectionId, 'today', userId), (prev) => (prev ? effects.reduce(applyTapEffect, prev) : prev));
+      tapRecorded();
+      void askToKeepStorageOnce();
+      return taps.map((t) => t.event);
     },
     [queryClient, userId, byName, collectionId],
   );

@@ -22,6 +22,7 @@ export function RoundList({
   timeZone,
   myName,
   actions,
+  groupActions,
   empty = 'Nothing is due. Enjoy the quiet.',
 }: {
   items: RoundItemView[];
@@ -29,6 +30,8 @@ export function RoundList({
   myName?: string;
   /** Keep it stable (useCallback) so untouched cards are not rendered again. */
   actions?: (item: RoundItemView) => ReactNode;
+  /** Under each shelf's heading, e.g. a whole tray at once. */
+  groupActions?: (label: string, items: RoundItemView[]) => ReactNode;
   empty?: string;
 }) {
   const groups: [string, RoundItemView[]][] = [];
@@ -44,6 +47,7 @@ export function RoundList({
       {groups.map(([label, list], i) => (
         <section key={`${label}-${i}`} aria-label={label} className="flex flex-col gap-2">
           <h2 className="sticky top-0 z-10 bg-bg py-1 text-lg font-extrabold">{label}</h2>
+          {groupActions?.(label, list)}
           {list.map((item) => (
             <Card key={item.animal.id} item={item} timeZone={timeZone} myName={myName} actions={actions} />
           ))}
