@@ -13,6 +13,8 @@ import { animalsRoutes } from './features/animals/animals.routes';
 import { createAnimalsService } from './features/animals/animals.service';
 import { authRoutes, DEFAULT_AUTH_LIMITS, type AuthLimits } from './features/auth/auth.routes';
 import { createAuthService } from './features/auth/auth.service';
+import { breedingRoutes } from './features/breeding/breeding.routes';
+import { createBreedingService } from './features/breeding/breeding.service';
 import { collectionsRoutes } from './features/collections/collections.routes';
 import { createCollectionsService } from './features/collections/collections.service';
 import { createCoverReportsService } from './features/cover/cover-reports.service';
@@ -175,6 +177,7 @@ export function createApp(options: AppOptions) {
   api.use('/collections/:collectionId', photosRoutes(photos, member));
   const coverReports = createCoverReportsService(database.db, { mailer: options.mailer, now, rounds, publicUrl });
   api.use('/collections/:collectionId', coverRoutes(cover, coverReports, rounds, member));
+  api.use('/collections/:collectionId', breedingRoutes(createBreedingService(database.db, now), member));
   api.use('/collections/:collectionId', labelsRoutes(createLabelsService(database.db), member));
   api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db), member));
   api.use(apiNotFound);

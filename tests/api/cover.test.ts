@@ -155,6 +155,11 @@ describe('what a helper may do, by route', () => {
       ['put', `${c}/handover/general`, {}, 403],
       ['post', `${c}/handover/notes`, {}, 403],
       ['get', `${c}/cover-reports`, null, 403],
+      ['get', `${c}/egg-sacs`, null, 403],
+      ['post', `${c}/egg-sacs`, {}, 403],
+      ['patch', `${c}/egg-sacs/${animalId}`, {}, 403],
+      ['post', `${c}/egg-sacs/${animalId}/slings`, {}, 403],
+      ['put', `${c}/incubation`, {}, 403],
     ];
     const call = (method: string, path: string, body: unknown) => {
       const req = (helper as unknown as Record<string, (p: string) => { send(b: unknown): Promise<{ status: number }> } & Promise<{ status: number }>>)[method]!(path);

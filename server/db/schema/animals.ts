@@ -119,3 +119,30 @@ export const handoverNotes = pgTable(
   (t) => [index('handover_notes_collection_idx').on(t.collectionId, t.until)],
 );
 
+
+/** An egg sac: laid by a female, pulled or hatched later, and the slings that came of it. */
+export const eggSacs = pgTable(
+  'egg_sacs',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    collectionId: uuid('collection_id')
+      .notNull()
+      .references(() => collections.id, { onDelete: 'cascade' }),
+    femaleId: uuid('female_id')
+      .notNull()
+      .references(() => animals.id, { onDelete: 'cascade' }),
+    // The name its slings share as their clutch (and their labels' filter).
+    clutch: text('clutch').notNull(),
+    laidOn: date('laid_on').notNull(),
+    pulledOn: date('pulled_on'),
+    hatchedOn: date('hatched_on'),
+    eggCount: integer('egg_count'),
+    eggsWithLegs: integer('eggs_with_legs'),
+    slingCount: integer('sling_count'),
+    incubationMinDays: integer('incubation_min_days').notNull(),
+    incubationMaxDays: integer('incubation_max_days').notNull(),
+    notes: text('notes'),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('egg_sacs_collection_idx').on(t.collectionId, t.laidOn)],
+);

@@ -23,6 +23,10 @@ export const collections = pgTable('collections', {
   labelTag: text('label_tag').notNull().unique('collections_label_tag'),
   // For whoever covers the feeds: where the feeders are, who to call, what to do if…
   handoverNote: text('handover_note'),
+  // Egg sacs: the usual days from laying to pulling or hatching (common practice: about 6–8
+  // weeks, varying by species); each sac may have its own.
+  incubationMinDays: integer('incubation_min_days').notNull().default(42),
+  incubationMaxDays: integer('incubation_max_days').notNull().default(56),
   // Per-collection overrides of the round engine's defaults; absent keys use the defaults.
   rules: jsonb('rules').notNull().default({}),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),

@@ -23,6 +23,7 @@ import {
   storedEvents,
   type NewEvent,
 } from './events.repository';
+import { applyMoltFacts } from './molt-facts';
 
 export interface IncomingEvent {
   id: string;
@@ -66,6 +67,7 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
           effectiveAt: e.effectiveAt.toISOString(),
         }));
       await applyNewEvents(tx, collectionId, zone, fresh);
+      await applyMoltFacts(tx, collectionId, zone, [...new Set(fresh.filter((e) => e.kind === 'molted' || e.kind === 'void').map((e) => e.animalId))]);
       return ids;
     });
     const touched = [...new Set(incoming.filter((e) => inserted.has(e.id) && URGENT_TRIGGERS.includes(e.kind)).map((e) => e.animalId))];

@@ -1,0 +1,61 @@
+import { z } from 'zod';
+import { localDate, uuid } from './common';
+
+const days = z.number().int().min(7, { message: 'At least 7 days.' }).max(400, { message: 'At most 400 days.' });
+const count = (what: string) => z.number().int().min(0, { message: `${what} cannot be negative.` }).max(5000, { message: `${what}: 5,000 at most.` }).nullable();
+const notes = z.string().trim().max(2000, { message: 'Keep notes under 2,000 characters.' }).nullable();
+
+export const incubationBody = z
+  .object({ minDays: days, maxDays: days })
+  .refine((d) => d.maxDays >= d.minDays, { message: 'The longest wait cannot be shorter than the shortest.', path: ['maxDays'] });
+
+export const eggSacBody = z.object({
+  femaleId: uuid,
+  laidOn: localDate,
+  clutch: z.string().trim().max(80, { message: 'Keep the clutch name under 80 characters.' }).optional(),
+  incubation: incubationBody.optional(),
+  notes: notes.optional(),
+});
+export type EggSacBody = z.input<typeof eggSacBody>;
+
+export const eggSacChange = z.object({
+  pulledOn: localDate.nullable().optional(),
+  hatchedOn: localDate.nullable().optional(),
+  eggCount: count('Eggs').optional(),
+  eggsWithLegs: count('Eggs with legs').optional(),
+  slingCount: count('Slings').optional(),
+  incubation: incubationBody.optional(),
+  notes: notes.optional(),
+});
+export type EggSacChange = z.input<typeof eggSacChange>;
+
+export const MAX_SLINGS_AT_ONCE = 500;
+export const slingsBody = z.object({
+  count: z.number().int().min(1, { message: 'Create at least one sling.' }).max(MAX_SLINGS_AT_ONCE, { message: `At most ${MAX_SLINGS_AT_ONCE} at once.` }),
+  namePrefix: z.string().trim().min(1, { message: 'Give the slings a name to number, e.g. “Formosus”.' }).max(60),
+  room: z.string().trim().min(1, { message: 'Name the room.' }).max(40),
+  rack: z.string().trim().min(1, { message: 'Name the rack.' }).max(40),
+  shelf: z.string().trim().min(1, { message: 'Name the shelf or tray.' }).max(40),
+  firstPosition: z.number().int().min(1, { message: 'Positions start at 1.' }).max(10_000),
+});
+export type SlingsBody = z.input<typeof slingsBody>;
+
+export interface EggSacView {
+  id: string;
+  femaleId: string;
+  femaleName: string;
+  clutch: string;
+  laidOn: string;
+  pulledOn: string | null;
+  hatchedOn: string | null;
+  eggCount: number | null;
+  eggsWithLegs: number | null;
+  slingCount: number | null;
+  incubationMinDays: number;
+  incubationMaxDays: number;
+  /** When to expect to pull it or see it hatch: laid + the incubation window. */
+  expectedFrom: string;
+  expectedTo: string;
+  notes: string | null;
+  slingsCreated: number;
+}
