@@ -22,6 +22,7 @@ const router = createBrowserRouter([
       { path: '/animals/new', lazy: () => import('./routes/animal-edit').then((m) => ({ Component: m.AnimalEditRoute })) },
       { path: '/animals/:animalId', lazy: () => import('./routes/animal').then((m) => ({ Component: m.AnimalRoute })) },
       { path: '/animals/:animalId/edit', lazy: () => import('./routes/animal-edit').then((m) => ({ Component: m.AnimalEditRoute })) },
+      { path: '/breeding', lazy: () => import('./routes/breeding').then((m) => ({ Component: m.BreedingRoute })) },
       { path: '/cover', lazy: () => import('./routes/cover').then((m) => ({ Component: m.CoverRoute })) },
       { path: '/places', lazy: () => import('./routes/places').then((m) => ({ Component: m.PlacesRoute })) },
       { path: '/import', lazy: () => import('./routes/import').then((m) => ({ Component: m.ImportRoute })) },

@@ -12,8 +12,13 @@ import { AnimalCard } from '@/features/animals/components/animal-card';
 import { MovePanel } from '@/features/animals/components/move-panel';
 import { PhotoPanel } from '@/features/animals/components/photo-panel';
 import { RetirePanel, statusWord } from '@/features/animals/components/retire-panel';
+import { GrowthPanel } from '@/features/breeding/components/growth-panel';
+import { MoltForm } from '@/features/breeding/components/molt-form';
+import { PairingForm } from '@/features/breeding/components/pairing-form';
 import { LabelPanel } from '@/features/labels/components/label-panel';
+import { useAnimalHistory } from '@/features/rounds/api/animal-history';
 import { roundKeys } from '@/features/rounds/api/keys';
+import { useRecordOutcome } from '@/features/rounds/api/record-outcome';
 import { AnimalHistory } from '@/features/rounds/components/animal-history';
 import { CareForm } from '@/features/rounds/components/care-form';
 import { SchedulePanel } from '@/features/rounds/components/schedule-panel';
@@ -29,6 +34,8 @@ export function AnimalRoute() {
   const move = useMoveAnimals(collectionId);
   const retire = useRetireAnimal(collectionId, animalId);
   const [unit] = useSizeUnit();
+  const history = useAnimalHistory(collectionId, animalId);
+  const record = useRecordOutcome({ userId: me.user.id, byName: me.user.displayName, collectionId });
   const [panel, setPanel] = useState<'move' | 'retire' | null>(null);
   const queryClient = useQueryClient();
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
@@ -37,6 +44,7 @@ export function AnimalRoute() {
   const animal = list.data.animals.find((a) => a.id === animalId);
   if (!animal) return <Notice tone="error" title="We could not find that animal." />;
   const kept = animal.status === 'active';
+  const today = localDateOf(new Date(), collection.timeZone);
   return (
     <div className="flex flex-col gap-4">
       <h1 className="sr-only">{animal.name}</h1>
@@ -69,7 +77,7 @@ export function AnimalRoute() {
         )}
       </nav>
       {panel === 'move' && <MovePanel what={animal.name} locations={places.data?.locations ?? []} onMove={(locationId) => move.mutateAsync({ animalIds: [animal.id], locationId }).then(() => setPanel(null))} onCancel={() => setPanel(null)} />}
-      {panel === 'retire' && <RetirePanel what={animal.name} today={localDateOf(new Date(), collection.timeZone)} onRetire={(body) => retire.mutateAsync(body).then(() => setPanel(null))} onCancel={() => setPanel(null)} />}
+      {panel === 'retire' && <RetirePanel what={animal.name} today={today} onRetire={(body) => retire.mutateAsync(body).then(() => setPanel(null))} onCancel={() => setPanel(null)} />}
       {retire.isError && <Notice tone="error" title={retire.error.message} />}
       <SchedulePanel collectionId={collectionId} animalId={animal.id} />
       <LabelPanel
@@ -80,6 +88,16 @@ export function AnimalRoute() {
           void queryClient.invalidateQueries({ queryKey: roundKeys.all(collectionId) });
         }}
       />
+      <GrowthPanel events={history.data?.events ?? []} timeZone={collection.timeZone} unit={unit} />
+      <MoltForm today={today} timeZone={collection.timeZone} unit={unit} onRecord={(payload, at) => record(animal, 'molted', payload, at)} />
+      {animal.sex !== 'male' && animal.sex !== 'mature_male' && animal.lifeStage !== 'sling' && (
+        <PairingForm
+          today={today}
+          timeZone={collection.timeZone}
+          males={list.data.animals.filter((a) => a.status === 'active' && (a.sex === 'male' || a.sex === 'mature_male'))}
+          onRecord={(payload, at) => record(animal, 'paired', payload, at)}
+        />
+      )}
       <CareForm key={animal.id} collectionId={collectionId} animal={animal} />
       <AnimalHistory recorder={{ userId: me.user.id, byName: me.user.displayName, collectionId }} animal={animal} timeZone={collection.timeZone} />
     </div>

@@ -52,6 +52,9 @@ function Collection({ userId, collectionId, timeZone }: { userId: string; collec
         <Link to="/labels" className={linkClass}>
           Labels…
         </Link>
+        <Link to="/breeding" className={linkClass}>
+          Breeding
+        </Link>
       </div>
       {chosen.length > 0 && (
         <section aria-label="Chosen animals" className="sticky top-0 z-10 flex flex-col gap-2 rounded-2xl border-2 border-text bg-bg p-2">

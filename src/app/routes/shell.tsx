@@ -79,7 +79,11 @@ export function Shell() {
   const queryClient = useQueryClient();
   const userId = me.data?.user.id;
   // The signed-in person's outbox syncs while the app is open; saved taps refresh the rounds.
-  useEffect(() => (userId ? startSync(userId, () => void queryClient.invalidateQueries({ queryKey: ['rounds'] })) : undefined), [userId, queryClient]);
+  useEffect(() => (userId ? startSync(userId, () => {
+      void queryClient.invalidateQueries({ queryKey: ['rounds'] });
+      // A synced molt can change an animal's size and sex.
+      void queryClient.invalidateQueries({ queryKey: ['animals'] });
+    }) : undefined), [userId, queryClient]);
 
   useKeepAnimalListOffline(current);
 

@@ -21,9 +21,10 @@ export interface Recorder {
 export function useRecordOutcome({ userId, byName, collectionId }: Recorder) {
   const queryClient = useQueryClient();
   return useCallback(
-    async (animal: { id: string; name: string }, kind: EventKind, payload: Record<string, unknown> = {}): Promise<RecordedEvent> => {
+    async (animal: { id: string; name: string }, kind: EventKind, payload: Record<string, unknown> = {}, at?: Date): Promise<RecordedEvent> => {
       const started = performance.now();
-      const event: RecordedEvent = { id: crypto.randomUUID(), animalId: animal.id, kind, payload, clientRecordedAt: new Date().toISOString() };
+      // `at`: a fact recorded afterwards (a molt found this morning, entered tonight).
+      const event: RecordedEvent = { id: crypto.randomUUID(), animalId: animal.id, kind, payload, clientRecordedAt: (at ?? new Date()).toISOString() };
       const effect = await withDb((db) => recordTap(db, { userId, byName, collectionId, animalName: animal.name, event }));
       // User Timing, read by the P1 benchmark: how much of a tap is the IndexedDB commit.
       performance.measure('rackside:tap-committed', { start: started });

@@ -1,0 +1,51 @@
+// Issue 8's end-to-end check at 360 px: a molt with its size draws the growth chart; an egg sac
+// becomes a tray of slings, straight to their labels.
+import { describe, expect, it } from 'vitest';
+import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
+
+const env = useE2e();
+
+describe('growth and breeding at 360 px', () => {
+  it('records a molt and shows the chart; records a sac, pots up its slings and prints their labels', async () => {
+    const { page, consoleErrors } = await phonePage(env.browser);
+    await signInAsDemo(page, env.server.baseUrl, 'owner@northlight.test');
+    await page.getByRole('link', { name: 'Animals', exact: true }).click();
+    await page.getByLabel('Find').fill('Juniper');
+    await page.getByRole('link', { name: 'Juniper' }).click();
+
+    const molt = page.getByRole('form', { name: 'Record a molt' });
+    await molt.getByLabel('Size after (mm)').fill('136');
+    await molt.getByLabel('The exuviae shows').selectOption('female');
+    await molt.getByRole('button', { name: 'Record the molt' }).click();
+    await expect.poll(() => molt.getByText('Molt recorded.').count()).toBe(1);
+    // Once the molt is synced, the history has it and the chart draws it.
+    const chart = page.getByRole('img', { name: /Leg span after each molt: .*136 mm/ });
+    await expect.poll(() => chart.count(), { timeout: 20_000 }).toBe(1);
+    await expect.poll(() => page.getByText(/Leg span 136 mm/).count(), { timeout: 10_000 }).toBe(1);
+    await expectAccessible(page, 'animal with growth');
+    await chart.scrollIntoViewIfNeeded();
+    await screenshot(page, 'breeding-01-growth');
+
+    await page.getByRole('link', { name: 'Animals', exact: true }).click();
+    await page.getByRole('link', { name: 'Breeding' }).click();
+    const juniper = (await page.getByLabel('Female', { exact: true }).locator('option').allInnerTexts()).find((t) => t.startsWith('Juniper ('))!;
+    await page.getByLabel('Female', { exact: true }).selectOption({ label: juniper });
+    await page.getByLabel('Clutch name').fill('Juniper sac E2E');
+    await page.getByRole('button', { name: 'Record the sac' }).click();
+    const sac = page.getByRole('list', { name: 'Egg sacs' }).getByRole('listitem').filter({ hasText: 'Juniper sac E2E' });
+    await sac.waitFor();
+    await sac.getByRole('button', { name: 'Pot up slings…' }).click();
+    const pot = page.getByRole('form', { name: 'Pot up slings from Juniper sac E2E' });
+    await pot.getByLabel('How many').fill('12');
+    await pot.getByLabel('Room').fill('Sling room');
+    await pot.getByLabel('Rack').fill('S');
+    await pot.getByLabel('Tray or shelf').fill('T1');
+    await expectAccessible(page, 'breeding');
+    await screenshot(page, 'breeding-02-pot-up');
+    await pot.getByRole('button', { name: 'Create 12 slings' }).click();
+    await page.waitForURL('**/labels');
+    await expect.poll(() => page.getByText(/^12 labels on 1 sheet/).count(), { timeout: 10_000 }).toBe(1);
+    await screenshot(page, 'breeding-03-labels');
+    expect(consoleErrors).toEqual([]);
+  });
+});
