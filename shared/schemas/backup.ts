@@ -64,6 +64,8 @@ export const backupFile = z.object({
       serverReceivedAt: instant,
       effectiveAt: instant,
       flags: z.array(z.string()),
+      /** A molt's photo, base64 WebP, when there is one. */
+      photo: z.string().nullable().optional(),
     }),
   ),
 });

@@ -148,6 +148,8 @@ export const historyEvent = z.object({
   flags: z.array(z.string()),
   /** The id of the void that cancelled this event, if any. */
   voidedBy: z.string().nullable(),
+  /** Set when a photo goes with the fact (a molt's exuviae); changes with the photo. */
+  photoVersion: z.string().nullable(),
 });
 export type HistoryEvent = z.infer<typeof historyEvent>;
 export const historyResponse = z.object({ events: z.array(historyEvent) });

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
+import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { animals, events } from '../../server/db/schema/animals';
 import { locations } from '../../server/db/schema/collections';
@@ -51,6 +52,26 @@ describe('molts update the record', () => {
     expect(await animal(id)).toMatchObject({ sizeMm: 55, sex: 'mature_male' });
     await send(keeper, [{ id: randomUUID(), animalId: id, kind: 'void', payload: { targetId: maturing.id }, clientRecordedAt: '2026-11-20T15:05:00Z' }]);
     expect(await animal(id)).toMatchObject({ sizeMm: 48, sex: 'male' });
+  });
+});
+
+describe('molt photos', () => {
+  it('keeps a photo of a molt for the timeline, keepers only', async () => {
+    const id = (await createAnimal(ctx.database.db, keeper.collectionId, { name: 'Shedder' })).id;
+    const m = molt(id, '2026-11-01T15:00:00Z', { sizeMm: 30 });
+    const fed = { id: randomUUID(), animalId: id, kind: 'ate', payload: {}, clientRecordedAt: '2026-11-10T15:00:00Z' };
+    await send(keeper, [m, fed]);
+    const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#654' } }).png().toBuffer();
+    const url = (eventId: string) => `${base()}/animals/${id}/molts/${eventId}/photo`;
+    await keeper.agent.put(url(m.id)).attach('photo', png, { filename: 'exuviae.png' }).expect(204);
+    const history = (await keeper.agent.get(`${base()}/events?animalId=${id}`).expect(200)).body.events;
+    expect(history.find((e: { id: string }) => e.id === m.id).photoVersion).toBeTruthy();
+    expect(history.find((e: { id: string }) => e.id === fed.id).photoVersion).toBeNull();
+    const thumb = await keeper.agent.get(`${url(m.id)}?size=thumb`).expect(200);
+    expect(thumb.headers['content-type']).toBe('image/webp');
+    expect((await keeper.agent.put(url(fed.id)).attach('photo', png, { filename: 'x.png' })).status).toBe(404);
+    expect((await helper.agent.get(url(m.id))).status).toBe(403);
+    expect((await outsider.agent.get(url(m.id))).status).toBe(404);
   });
 });
 

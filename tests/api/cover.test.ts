@@ -160,6 +160,8 @@ describe('what a helper may do, by route', () => {
       ['patch', `${c}/egg-sacs/${animalId}`, {}, 403],
       ['post', `${c}/egg-sacs/${animalId}/slings`, {}, 403],
       ['put', `${c}/incubation`, {}, 403],
+      ['put', `${c}/animals/${animalId}/molts/${animalId}/photo`, null, 403],
+      ['get', `${c}/animals/${animalId}/molts/${animalId}/photo`, null, 403],
     ];
     const call = (method: string, path: string, body: unknown) => {
       const req = (helper as unknown as Record<string, (p: string) => { send(b: unknown): Promise<{ status: number }> } & Promise<{ status: number }>>)[method]!(path);

@@ -240,7 +240,10 @@ describe('full backup and restore', () => {
     await from.agent.post(`${base(from)}/animals`).send(animalBody({ name: 'Second', clutch: 'Sac 1' })).expect(201);
     const tap = { id: randomUUID(), animalId: a.id, kind: 'ate', payload: {}, clientRecordedAt: new Date().toISOString() };
     const undo = { id: randomUUID(), animalId: a.id, kind: 'void', payload: { targetId: tap.id }, clientRecordedAt: new Date().toISOString() };
-    await from.agent.post(`${base(from)}/events`).send({ deviceId: 'd', clientSentAt: new Date().toISOString(), events: [tap, undo] }).expect(200);
+    const molt = { id: randomUUID(), animalId: a.id, kind: 'molted', payload: { sizeMm: 131 }, clientRecordedAt: new Date().toISOString() };
+    await from.agent.post(`${base(from)}/events`).send({ deviceId: 'd', clientSentAt: new Date().toISOString(), events: [tap, undo, molt] }).expect(200);
+    const exuviae = await sharp({ create: { width: 30, height: 30, channels: 3, background: '#a85' } }).jpeg().toBuffer();
+    await from.agent.put(`${base(from)}/animals/${a.id}/molts/${molt.id}/photo`).attach('photo', exuviae, { filename: 'molt.jpg' }).expect(204);
     const png = await sharp({ create: { width: 40, height: 30, channels: 3, background: '#335' } }).png().toBuffer();
     await from.agent.put(`${base(from)}/animals/${a.id}/photo`).attach('photo', png, { filename: 'a.png' }).expect(200);
 
@@ -248,7 +251,7 @@ describe('full backup and restore', () => {
     expect(backup).toMatchObject({ format: 'rackside-backup', version: 1 });
     expect((await keeper.agent.post(`${base()}/restore`).send(backup)).status).toBe(403);
     const restored = await to.agent.post(`${base(to)}/restore`).send(backup).expect(201);
-    expect(restored.body).toEqual({ animals: 2, events: 2 });
+    expect(restored.body).toEqual({ animals: 2, events: 3 });
     const copy = (await to.agent.get(`${base(to)}/backup`).expect(200)).body;
 
     // Ids are new; everything else, undo targets included, is the same.
@@ -265,6 +268,7 @@ describe('full backup and restore', () => {
     expect({ ...back, exportedAt: null, collection: null }).toEqual({ ...backup, exportedAt: null, collection: null });
     expect(back.collection.rules).toEqual(backup.collection.rules);
     expect(copy.animals.find((x: { name: string }) => x.name === 'Juniper').photo).toBe(backup.animals.find((x: { name: string }) => x.name === 'Juniper').photo);
+    expect(backup.events.find((e: { kind: string }) => e.kind === 'molted').photo).toMatch(/^UklGR/); // "RIFF" in base64: WebP
 
     // A second restore finds the collection full; a file that is not a backup is refused.
     expect((await to.agent.post(`${base(to)}/restore`).send(backup)).status).toBe(409);

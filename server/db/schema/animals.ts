@@ -146,3 +146,15 @@ export const eggSacs = pgTable(
   },
   (t) => [index('egg_sacs_collection_idx').on(t.collectionId, t.laidOn)],
 );
+
+/** A photo of what an event recorded (a molt's exuviae, the sex shown on it). */
+export const eventPhotos = pgTable('event_photos', {
+  eventId: uuid('event_id')
+    .primaryKey()
+    .references(() => events.id, { onDelete: 'cascade' }),
+  collectionId: uuid('collection_id')
+    .notNull()
+    .references(() => collections.id, { onDelete: 'cascade' }),
+  photoKey: text('photo_key').notNull(),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+});

@@ -8,7 +8,7 @@ import { clockTime } from '../../../shared/domain/local-dates';
 import { BACKUP_FORMAT, BACKUP_VERSION, type BackupFile } from '../../../shared/schemas/backup';
 import type { AnimalImportValues } from '../../../shared/schemas/import';
 import type { Db } from '../../db/client';
-import { animals, events } from '../../db/schema/animals';
+import { animals, eventPhotos, events } from '../../db/schema/animals';
 import { collections, locations } from '../../db/schema/collections';
 import { users } from '../../db/schema/users';
 import { HttpError } from '../../middleware/errors';
@@ -87,6 +87,9 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
       const places = await db.select().from(locations).where(eq(locations.collectionId, collectionId)).orderBy(asc(locations.walkOrder));
       const kept = await db.select().from(animals).where(eq(animals.collectionId, collectionId)).orderBy(asc(animals.labelCode));
       const history = await db.select().from(events).where(eq(events.collectionId, collectionId)).orderBy(asc(events.effectiveAt), asc(events.id));
+      const moltPhotos = new Set((await db.select({ id: eventPhotos.eventId }).from(eventPhotos).where(eq(eventPhotos.collectionId, collectionId))).map((r) => r.id));
+      const moltPhotoOf = async (e: (typeof history)[number]) =>
+        moltPhotos.has(e.id) ? ((await fs.readFile(await deps.photos.moltFile(collectionId, e.animalId, e.id, 'full')).catch(() => null))?.toString('base64') ?? null) : null;
       const photoOf = async (a: (typeof kept)[number]) => (a.photoKey ? (await fs.readFile(await deps.photos.file(collectionId, a.id, 'full')).catch(() => null))?.toString('base64') ?? null : null);
       return {
         format: BACKUP_FORMAT,
@@ -126,7 +129,7 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
             photo: await photoOf(a),
           })),
         ),
-        events: history.map((e) => ({
+        events: await Promise.all(history.map(async (e) => ({
           id: e.id,
           animalId: e.animalId,
           kind: e.kind as BackupFile['events'][number]['kind'],
@@ -138,7 +141,8 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
           serverReceivedAt: e.serverReceivedAt.toISOString(),
           effectiveAt: e.effectiveAt.toISOString(),
           flags: e.flags,
-        })),
+          photo: await moltPhotoOf(e),
+        }))),
       };
     },
 
@@ -147,9 +151,9 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
      * original), and ids inside events (undo targets, places, partners) follow.
      */
     async restore(collectionId: string, file: BackupFile): Promise<{ animals: number; events: number }> {
-      for (const a of file.animals) {
-        if (a.photo !== null && imageTypeOf(Buffer.from(a.photo.slice(0, 24), 'base64')) !== 'webp') {
-          throw new HttpError(422, 'invalid', `The photo of ${a.name} in this backup is not a WebP image.`);
+      for (const { photo, what } of [...file.animals.map((a) => ({ photo: a.photo, what: a.name })), ...file.events.map((e) => ({ photo: e.photo ?? null, what: 'a molt' }))]) {
+        if (photo !== null && imageTypeOf(Buffer.from(photo.slice(0, 24), 'base64')) !== 'webp') {
+          throw new HttpError(422, 'invalid', `The photo of ${what} in this backup is not a WebP image.`);
         }
       }
       const result = await db.transaction(async (tx) => {
@@ -174,7 +178,7 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
         for (let i = 0; i < rows.length; i += 500) await tx.insert(animals).values(rows.slice(i, i + 500));
         for (const e of file.events) fresh(e.id);
         const known = new Set((await tx.select({ id: users.id }).from(users).where(inArray(users.id, [...new Set(file.events.flatMap((e) => (e.recordedBy ? [e.recordedBy] : [])))]))).map((u) => u.id));
-        const history = file.events.map((e) => ({
+        const history = file.events.map(({ photo: _photo, ...e }) => ({
           ...e,
           id: ids.get(e.id)!,
           collectionId,
@@ -193,6 +197,9 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
       });
       for (const a of file.animals) {
         if (a.photo) await deps.photos.restore(collectionId, result.ids.get(a.id)!, Buffer.from(a.photo, 'base64'));
+      }
+      for (const e of file.events) {
+        if (e.photo) await deps.photos.restoreMolt(collectionId, result.ids.get(e.id)!, Buffer.from(e.photo, 'base64'));
       }
       await deps.rounds.rebuildProjection(collectionId);
       return { animals: result.animals, events: result.events };

@@ -1,6 +1,6 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { animals, events } from '../../db/schema/animals';
+import { animals, eventPhotos, events } from '../../db/schema/animals';
 import { users } from '../../db/schema/users';
 
 export type NewEvent = typeof events.$inferInsert;
@@ -83,9 +83,11 @@ export async function recentEventsOf(
       payload: events.payload,
       flags: events.flags,
       by: users.displayName,
+      photo: eventPhotos.createdAt,
     })
     .from(events)
     .leftJoin(users, eq(users.id, events.recordedBy))
+    .leftJoin(eventPhotos, eq(eventPhotos.eventId, events.id))
     .where(and(eq(events.collectionId, collectionId), eq(events.animalId, animalId)))
     .orderBy(desc(events.effectiveAt), desc(events.id))
     .limit(limit);

@@ -250,6 +250,7 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
       payload: r.payload as Record<string, unknown>,
       flags: r.flags,
       voidedBy: voidedBy.get(r.id) ?? null,
+      photoVersion: r.photo?.toISOString() ?? null,
     }));
   }
 

@@ -41,6 +41,19 @@ export function photosRoutes(service: PhotosService, member: (min: Role) => Requ
     res.set('Cache-Control', 'private, max-age=86400').type('image/webp').sendFile(file);
   });
 
+  const moltParams = z.object({ collectionId: uuid, animalId: uuid, eventId: uuid });
+  const saveMolt: RequestHandler = async (req, res) => {
+    const { animalId, eventId } = input<{ animalId: string; eventId: string }>(res, 'params');
+    await service.saveMolt(collectionId(res), animalId, eventId, req.file);
+    res.status(204).end();
+  };
+  router.put('/animals/:animalId/molts/:eventId/photo', member('keeper'), validate({ params: moltParams }), upload.single('photo'), uploadErrors, saveMolt);
+  router.get('/animals/:animalId/molts/:eventId/photo', member('keeper'), validate({ params: moltParams, query: photoQuery }), async (_req, res) => {
+    const { animalId, eventId } = input<{ animalId: string; eventId: string }>(res, 'params');
+    const file = await service.moltFile(collectionId(res), animalId, eventId, input<{ size: PhotoSize }>(res, 'query').size);
+    res.set('Cache-Control', 'private, max-age=86400').type('image/webp').sendFile(file);
+  });
+
   router.delete('/animals/:animalId/photo', member('keeper'), validate({ params: animalParams }), async (_req, res) => {
     await service.remove(collectionId(res), input<{ animalId: string }>(res, 'params').animalId);
     res.status(204).end();

@@ -2,6 +2,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { AnimalSummary, AnimalValues, MoveBody, RetireBody } from '#shared/schemas/animals';
 import type { LocationInput, LocationWithCount } from '#shared/schemas/locations';
 import { apiRequest } from '@/lib/api-client';
+import { uploadPhoto } from '@/lib/upload-photo';
 import { animalKeys } from './list-animals';
 
 const locationKeys = { list: (collectionId: string) => ['locations', collectionId] as const };
@@ -65,23 +66,9 @@ export function useImportAnimals(collectionId: string) {
   });
 }
 
-/** Multipart upload (the one request that is not JSON), with our CSRF header. */
 export function useUploadPhoto(collectionId: string, animalId: string) {
   const refresh = useRefresh(collectionId);
-  return useMutation({
-    mutationFn: async (file: File) => {
-      const form = new FormData();
-      form.append('photo', file, file.name.replace(/[/\\]/g, '_') || 'photo.jpg');
-      let res: Response;
-      try {
-        res = await fetch(`/api/collections/${collectionId}/animals/${animalId}/photo`, { method: 'PUT', body: form, credentials: 'same-origin', headers: { 'X-Rackside-Client': '1' } });
-      } catch {
-        throw new Error('No connection to Rackside right now. The photo was not sent.');
-      }
-      if (!res.ok) throw new Error(((await res.json().catch(() => null)) as { error?: { message?: string } } | null)?.error?.message ?? 'The photo could not be saved.');
-    },
-    onSuccess: refresh,
-  });
+  return useMutation({ mutationFn: (file: File) => uploadPhoto(`/collections/${collectionId}/animals/${animalId}/photo`, file), onSuccess: refresh });
 }
 
 export function useLocations(collectionId: string) {

@@ -20,7 +20,7 @@ interface Props {
 function SacCard({ sac, today, collectionId, onSlings }: { sac: EggSacView; today: string; collectionId: string; onSlings: Props['onSlings'] }) {
   const change = useBreedingChanges(collectionId);
   const [open, setOpen] = useState<'update' | 'slings' | null>(null);
-  const [u, setU] = useState({ pulledOn: sac.pulledOn ?? '', hatchedOn: sac.hatchedOn ?? '', eggCount: sac.eggCount?.toString() ?? '', eggsWithLegs: sac.eggsWithLegs?.toString() ?? '', slingCount: sac.slingCount?.toString() ?? '' });
+  const [u, setU] = useState({ pulledOn: sac.pulledOn ?? '', hatchedOn: sac.hatchedOn ?? '', eggCount: sac.eggCount?.toString() ?? '', eggsWithLegs: sac.eggsWithLegs?.toString() ?? '', slingCount: sac.slingCount?.toString() ?? '', minDays: String(sac.incubationMinDays), maxDays: String(sac.incubationMaxDays) });
   const [s, setS] = useState({ count: String(sac.slingCount ?? sac.eggsWithLegs ?? 24), namePrefix: sac.femaleName, room: '', rack: '', shelf: '', firstPosition: '1' });
   const due = !sac.pulledOn && !sac.hatchedOn && today >= sac.expectedFrom;
   const error = change.change.error ?? change.slings.error;
@@ -52,7 +52,10 @@ function SacCard({ sac, today, collectionId, onSlings }: { sac: EggSacView; toda
           onSubmit={(e) => {
             e.preventDefault();
             change.change.mutate(
-              { sacId: sac.id, body: { pulledOn: u.pulledOn || null, hatchedOn: u.hatchedOn || null, eggCount: num(u.eggCount), eggsWithLegs: num(u.eggsWithLegs), slingCount: num(u.slingCount) } },
+              {
+                sacId: sac.id,
+                body: { pulledOn: u.pulledOn || null, hatchedOn: u.hatchedOn || null, eggCount: num(u.eggCount), eggsWithLegs: num(u.eggsWithLegs), slingCount: num(u.slingCount), incubation: { minDays: Number(u.minDays), maxDays: Number(u.maxDays) } },
+              },
               { onSuccess: () => setOpen(null) },
             );
           }}
@@ -62,6 +65,9 @@ function SacCard({ sac, today, collectionId, onSlings }: { sac: EggSacView; toda
           <TextField label="Eggs" inputMode="numeric" value={u.eggCount} onChange={(e) => setU((x) => ({ ...x, eggCount: e.target.value }))} />
           <TextField label="Eggs with legs" inputMode="numeric" value={u.eggsWithLegs} onChange={(e) => setU((x) => ({ ...x, eggsWithLegs: e.target.value }))} />
           <TextField label="Slings" inputMode="numeric" value={u.slingCount} onChange={(e) => setU((x) => ({ ...x, slingCount: e.target.value }))} />
+          <span />
+          <TextField label="Incubation from (days)" inputMode="numeric" value={u.minDays} onChange={(e) => setU((x) => ({ ...x, minDays: e.target.value }))} />
+          <TextField label="to (days)" inputMode="numeric" value={u.maxDays} onChange={(e) => setU((x) => ({ ...x, maxDays: e.target.value }))} />
           <Button type="submit" className="col-span-2" busy={change.change.isPending}>
             Save
           </Button>

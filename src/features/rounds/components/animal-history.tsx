@@ -1,3 +1,4 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
 import { describeInstant } from '#shared/domain/local-dates';
@@ -6,7 +7,9 @@ import { Button } from '@/components/ui/button';
 import { ChoiceGroup } from '@/components/ui/choice-group';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
+import { uploadPhoto } from '@/lib/upload-photo';
 import { useAnimalHistory } from '../api/animal-history';
+import { roundKeys } from '../api/keys';
 import { useRecordOutcome, type Recorder } from '../api/record-outcome';
 
 
@@ -27,6 +30,36 @@ const KIND_GROUPS = {
 } satisfies Record<string, EventKind[] | null>;
 type KindGroup = keyof typeof KIND_GROUPS;
 const GROUP_WORDS: Record<KindGroup, string> = { all: 'All', feeding: 'Feeding', molts: 'Molts', water: 'Water', notes: 'Notes', moves: 'Moves' };
+
+/** A molt's photo (the exuviae), and a way to add or change it. */
+function MoltPhoto({ collectionId, animalId, event }: { collectionId: string; animalId: string; event: HistoryEvent }) {
+  const queryClient = useQueryClient();
+  const url = `/api/collections/${collectionId}/animals/${animalId}/molts/${event.id}/photo`;
+  const upload = useMutation({
+    mutationFn: (file: File) => uploadPhoto(url.slice(4), file),
+    onSuccess: () => queryClient.invalidateQueries({ queryKey: roundKeys.history(collectionId, animalId) }),
+  });
+  return (
+    <div className="mt-1 flex items-center gap-2">
+      {event.photoVersion && <img src={`${url}?size=thumb&v=${encodeURIComponent(event.photoVersion)}`} alt="The molt’s exuviae" className="h-16 w-16 rounded-lg object-cover" />}
+      <label className="inline-flex min-h-target cursor-pointer items-center rounded-xl border-2 border-border px-3 font-bold has-[:focus-visible]:outline has-[:focus-visible]:outline-4">
+        {upload.isPending ? 'Sending…' : event.photoVersion ? 'Change photo' : 'Add photo'}
+        <input
+          type="file"
+          accept="image/jpeg,image/png,image/webp"
+          className="sr-only"
+          aria-label={`Photo of the molt on ${event.at.slice(0, 10)}`}
+          onChange={(ev) => {
+            const file = ev.target.files?.[0];
+            if (file) upload.mutate(file);
+            ev.target.value = '';
+          }}
+        />
+      </label>
+      {upload.isError && <span className="text-sm font-bold text-danger">{upload.error.message}</span>}
+    </div>
+  );
+}
 
 /**
  * The animal's recent facts. A mistaken one is undone by recording a void, so the history
@@ -65,6 +98,7 @@ export function AnimalHistory({ recorder, animal, timeZone }: { recorder: Record
                     {e.by && ` · ${e.by}`}
                     {cancelled && ' · undone'}
                   </p>
+                  {e.kind === 'molted' && !cancelled && <MoltPhoto collectionId={recorder.collectionId} animalId={animal.id} event={e} />}
                 </div>
                 {!cancelled && !SERVER_EVENT_KINDS.includes(e.kind) && (
                   <Button
