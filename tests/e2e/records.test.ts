@@ -78,6 +78,21 @@ describe('collection records at 360 px', () => {
     await expect.poll(() => photo.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBe(320);
     await expectAccessible(page, 'animal page');
     await screenshot(page, 'records-03-animal');
+
+    // Quick actions: move it, retire it (off the round, history kept), bring it back.
+    await page.getByRole('button', { name: 'Move…' }).click();
+    await page.getByLabel('Move Saffron to').selectOption({ index: 1 });
+    await page.getByRole('button', { name: 'Move', exact: true }).click();
+    await page.getByLabel('Move Saffron to').waitFor({ state: 'detached' });
+    await page.getByRole('button', { name: 'Retire…' }).click();
+    await page.getByLabel('Why').selectOption('rehomed');
+    await page.getByRole('button', { name: 'Retire', exact: true }).click();
+    await expect.poll(() => page.getByText(/Rehomed on \d{4}-\d{2}-\d{2}: not on any round\./).count()).toBe(1);
+    await page.getByRole('button', { name: 'Back in the collection' }).click();
+    await expect.poll(() => page.getByRole('button', { name: 'Retire…' }).count()).toBe(1);
+    const timeline = page.getByRole('region', { name: 'Timeline' });
+    await timeline.getByText('Moves', { exact: true }).click();
+    await expect.poll(() => timeline.getByText(/^Moved$|^Status changed/).count()).toBe(3);
     expect(consoleErrors).toEqual([]);
   });
 

@@ -76,8 +76,8 @@ export function AnimalRoute() {
           </Button>
         )}
       </nav>
-      {panel === 'move' && <MovePanel what={animal.name} locations={places.data?.locations ?? []} onMove={(locationId) => move.mutateAsync({ animalIds: [animal.id], locationId }).then(() => setPanel(null))} onCancel={() => setPanel(null)} />}
-      {panel === 'retire' && <RetirePanel what={animal.name} today={today} onRetire={(body) => retire.mutateAsync(body).then(() => setPanel(null))} onCancel={() => setPanel(null)} />}
+      {panel === 'move' && <MovePanel what={animal.name} locations={places.data?.locations ?? []} onMove={(locationId) => move.mutateAsync({ animalIds: [animal.id], locationId }).then(() => setPanel((p) => (p === 'move' ? null : p)))} onCancel={() => setPanel(null)} />}
+      {panel === 'retire' && <RetirePanel what={animal.name} today={today} onRetire={(body) => retire.mutateAsync(body).then(() => setPanel((p) => (p === 'retire' ? null : p)))} onCancel={() => setPanel(null)} />}
       {retire.isError && <Notice tone="error" title={retire.error.message} />}
       <SchedulePanel collectionId={collectionId} animalId={animal.id} />
       <LabelPanel

@@ -1,9 +1,9 @@
 import { useState } from 'react';
 import type { LocationSummary } from '#shared/schemas/animals';
-import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { SelectField } from '@/components/ui/select-field';
 import { useAction } from '@/lib/use-action';
+import { PanelActions } from './panel-actions';
 
 /** Moves one animal or many to one place; each move is kept in the animal's history. */
 export function MovePanel({ what, locations, onMove, onCancel }: { what: string; locations: readonly LocationSummary[]; onMove: (locationId: string) => Promise<unknown>; onCancel: () => void }) {
@@ -19,15 +19,7 @@ export function MovePanel({ what, locations, onMove, onCancel }: { what: string;
       }}
     >
       <SelectField label={`Move ${what} to`} value={to} onChange={(e) => setTo(e.target.value)} options={locations.map((l) => ({ value: l.id, label: `${l.room} · ${l.rack}${l.shelf}-${l.position}` }))} />
-      {action.error && <Notice tone="error" title={action.error} />}
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" busy={action.busy}>
-          Move
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <PanelActions word="Move" busy={action.busy} error={action.error} onCancel={onCancel} />
     </form>
   );
 }

@@ -1,10 +1,9 @@
 import { useState } from 'react';
 import { RETIRED_STATUSES, type AnimalSummary, type RetireBody } from '#shared/schemas/animals';
-import { Button } from '@/components/ui/button';
-import { Notice } from '@/components/ui/notice';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { useAction } from '@/lib/use-action';
+import { PanelActions } from './panel-actions';
 
 const WORDS: Record<string, string> = { sold: 'Sold', deceased: 'Deceased', rehomed: 'Rehomed', on_loan: 'On loan' };
 
@@ -34,15 +33,7 @@ export function RetirePanel({ what, today, onRetire, onCancel }: Props) {
       <SelectField label="Why" value={status} onChange={(e) => setStatus(e.target.value as RetireBody['status'])} options={RETIRED_STATUSES.map((s) => ({ value: s, label: WORDS[s]! }))} />
       <TextField label="Date" type="date" value={date} onChange={(e) => setDate(e.target.value)} />
       <TextField label="Note" value={note} onChange={(e) => setNote(e.target.value)} />
-      {action.error && <Notice tone="error" title={action.error} />}
-      <div className="flex flex-wrap gap-2">
-        <Button type="submit" busy={action.busy}>
-          Retire
-        </Button>
-        <Button variant="secondary" onClick={onCancel}>
-          Cancel
-        </Button>
-      </div>
+      <PanelActions word="Retire" busy={action.busy} error={action.error} onCancel={onCancel} />
     </form>
   );
 }
