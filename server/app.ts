@@ -42,6 +42,7 @@ import { requireSameSiteWrite } from './middleware/csrf';
 import { apiNotFound, errorHandler, HttpError } from './middleware/errors';
 import { limiter } from './middleware/rate-limit';
 import { requireMember } from './middleware/roles';
+import { redactUrl } from './redact-url';
 import { serveClient } from './static';
 
 /** Sessions for people signed in on their own phone for weeks (docs/decisions/003-sessions.md). */
@@ -112,6 +113,14 @@ export function createApp(options: AppOptions) {
         return id;
       },
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+      // Invite and reset links carry single-use tokens: they stay out of the logs.
+      serializers: {
+        req: (req: { url: string; query?: Record<string, unknown> }) => ({
+          ...req,
+          url: redactUrl(req.url),
+          ...(req.query?.token ? { query: { ...req.query, token: '[redacted]' } } : {}),
+        }),
+      },
     }),
   );
 
