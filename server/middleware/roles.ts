@@ -6,8 +6,6 @@ import { findMembership, type Membership } from '../features/collections/collect
 import { currentUserId } from './auth';
 import { HttpError } from './errors';
 
-export const coverMessage = (m: Membership, now: Date) => coverWindowMessage(m, now);
-
 /**
  * The one membership check for /api/collections/:collectionId/…: a non-member learns nothing
  * (404), a lower role is refused (403), and a helper only passes inside the cover window
@@ -30,7 +28,7 @@ export function requireMember(
       !options.anyTime &&
       coverWindowState(now(), membership.startsAt, membership.endsAt) !== 'during'
     ) {
-      throw new HttpError(403, 'cover_not_running', coverMessage(membership, now()));
+      throw new HttpError(403, 'cover_not_running', coverWindowMessage(membership, now()));
     }
     if (!roleAtLeast(membership.role, minimum)) {
       throw new HttpError(403, 'forbidden', 'Your role in this collection does not allow this.');

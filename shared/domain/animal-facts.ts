@@ -38,6 +38,14 @@ export const STAGE_LABEL: Record<LifeStage, string> = {
   adult: 'Adult',
 };
 
+export const STATUS_LABEL: Record<AnimalStatus, string> = {
+  active: 'Kept',
+  sold: 'Sold',
+  deceased: 'Deceased',
+  rehomed: 'Rehomed',
+  on_loan: 'On loan',
+};
+
 export const SEX_LABEL: Record<Sex, string> = {
   unknown: 'Sex unknown',
   female: 'Female',

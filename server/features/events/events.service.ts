@@ -1,7 +1,7 @@
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { clockOffsetMs, effectiveTime } from '../../../shared/domain/clock';
 import { HELPER_EVENT_KINDS, type EventKind } from '../../../shared/domain/event-kinds';
-import { coverWindowState } from '../../../shared/domain/roles';
+import { coverWindowMessage, coverWindowState } from '../../../shared/domain/roles';
 import { MAX_BATCH_EVENTS } from '../../../shared/domain/sync-limits';
 import {
   recordedEvent,
@@ -12,7 +12,6 @@ import {
   type RecordedEvent,
 } from '../../../shared/schemas/events';
 import { HttpError } from '../../middleware/errors';
-import { coverMessage } from '../../middleware/roles';
 import type { Membership } from '../collections/collections.repository';
 import { applyNewEvents } from '../rounds/projection';
 import { URGENT_TRIGGERS, type RoundsService } from '../rounds/rounds.service';
@@ -172,7 +171,7 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
           index,
           event.id,
           'outside_cover',
-          `This was recorded outside your cover. ${coverMessage(member, now())}`,
+          `This was recorded outside your cover. ${coverWindowMessage(member, now())}`,
         );
       } else if (targetId && !target) {
         reject(index, event.id, 'target_unknown', 'The outcome this undoes was never saved.');

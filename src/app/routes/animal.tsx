@@ -1,6 +1,7 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
+import { STATUS_LABEL } from '#shared/domain/animal-facts';
 import { localDateOf } from '#shared/domain/local-dates';
 import { formatSize } from '#shared/domain/units';
 import { Button } from '@/components/ui/button';
@@ -11,7 +12,7 @@ import { animalKeys, useAnimalList } from '@/features/animals/api/list-animals';
 import { AnimalCard } from '@/features/animals/components/animal-card';
 import { MovePanel } from '@/features/animals/components/move-panel';
 import { PhotoPanel } from '@/features/animals/components/photo-panel';
-import { RetirePanel, statusWord } from '@/features/animals/components/retire-panel';
+import { RetirePanel } from '@/features/animals/components/retire-panel';
 import { GrowthPanel } from '@/features/breeding/components/growth-panel';
 import { MoltForm } from '@/features/breeding/components/molt-form';
 import { PairingForm } from '@/features/breeding/components/pairing-form';
@@ -57,7 +58,7 @@ export function AnimalRoute() {
         {animal.clutch && ` · clutch ${animal.clutch}`}
       </p>
       {animal.cautionNote && <Notice tone="warning" title={animal.cautionNote} />}
-      {!kept && <Notice tone="info" title={`${statusWord(animal)}${animal.statusDate ? ` on ${animal.statusDate}` : ''}: not on any round.`} />}
+      {!kept && <Notice tone="info" title={`${STATUS_LABEL[animal.status]}${animal.statusDate ? ` on ${animal.statusDate}` : ''}: not on any round.`} />}
       {animal.notes && <p className="whitespace-pre-line">{animal.notes}</p>}
       <nav aria-label="Quick actions" className="grid grid-cols-2 gap-2">
         <Link to={`/animals/${animal.id}/edit`} className="inline-flex min-h-target items-center justify-center rounded-xl border-2 border-primary bg-primary px-4 text-lg font-bold text-on-primary">

@@ -2,7 +2,7 @@ import { flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type Col
 import { useWindowVirtualizer } from '@tanstack/react-virtual';
 import { memo, useEffect, useMemo, useState, useSyncExternalStore } from 'react';
 import { Link } from 'react-router-dom';
-import { ANIMAL_GROUPS, ANIMAL_STATUSES, CAUTION_LABEL, CAUTIONS, GROUP_LABEL, LIFE_STAGES, SEX_LABEL, STAGE_LABEL } from '#shared/domain/animal-facts';
+import { ANIMAL_GROUPS, ANIMAL_STATUSES, CAUTION_LABEL, CAUTIONS, GROUP_LABEL, LIFE_STAGES, SEX_LABEL, STAGE_LABEL, STATUS_LABEL } from '#shared/domain/animal-facts';
 import { formatSize, type SizeUnit } from '#shared/domain/units';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import { CautionIcon } from '@/components/ui/icons';
@@ -38,7 +38,6 @@ function useNarrow() {
   );
 }
 
-const STATUS_WORD: Record<string, string> = { active: 'Kept', sold: 'Sold', deceased: 'Deceased', rehomed: 'Rehomed', on_loan: 'On loan' };
 
 interface Props {
   animals: readonly AnimalSummary[];
@@ -100,7 +99,7 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
       { id: 'size', header: 'Leg span', accessorFn: (a) => a.sizeMm ?? -1, cell: ({ row }) => formatSize(row.original.sizeMm, unit) },
       { id: 'place', header: 'Place', accessorFn: (a) => (a.location ? `${a.location.walkOrder.toString().padStart(6, '0')}` : 'zzz'), cell: ({ row }) => placeCode(row.original.location) },
       { id: 'cautions', header: 'Cautions', enableSorting: false, cell: ({ row }) => <CautionMarks cautions={row.original.cautions} /> },
-      { id: 'status', header: 'Status', accessorFn: (a) => STATUS_WORD[a.status] },
+      { id: 'status', header: 'Status', accessorFn: (a) => STATUS_LABEL[a.status] },
       { id: 'added', header: 'Added', accessorFn: (a) => a.addedAt, cell: ({ row }) => added.format(new Date(row.original.addedAt)) },
     ],
     [unit, added],
@@ -139,7 +138,7 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
       <div className="grid grid-cols-2 gap-2 min-[640px]:grid-cols-4">
         <SelectField label="Stage" value={filters.stage} onChange={(e) => set({ stage: e.target.value as TableFilters['stage'] })} options={any('Any stage', LIFE_STAGES, (s) => STAGE_LABEL[s as keyof typeof STAGE_LABEL])} />
         <SelectField label="Group" value={filters.group} onChange={(e) => set({ group: e.target.value as TableFilters['group'] })} options={any('Any group', ANIMAL_GROUPS, (g) => GROUP_LABEL[g as keyof typeof GROUP_LABEL])} />
-        <SelectField label="Status" value={filters.status} onChange={(e) => set({ status: e.target.value as TableFilters['status'] })} options={[{ value: 'kept', label: 'Kept now' }, { value: '', label: 'All, retired too' }, ...ANIMAL_STATUSES.filter((s) => s !== 'active').map((s) => ({ value: s, label: STATUS_WORD[s]! }))]} />
+        <SelectField label="Status" value={filters.status} onChange={(e) => set({ status: e.target.value as TableFilters['status'] })} options={[{ value: 'kept', label: 'Kept now' }, { value: '', label: 'All, retired too' }, ...ANIMAL_STATUSES.filter((s) => s !== 'active').map((s) => ({ value: s, label: STATUS_LABEL[s] }))]} />
         <SelectField label="Rack" value={filters.rack} onChange={(e) => set({ rack: e.target.value })} options={any('Any rack', racks, (r) => `Rack ${r}`)} />
         <SelectField label="Caution" value={filters.caution} onChange={(e) => set({ caution: e.target.value as TableFilters['caution'] })} options={any('Any', CAUTIONS, (c) => CAUTION_LABEL[c as keyof typeof CAUTION_LABEL])} />
         <label className="flex min-h-target cursor-pointer items-center gap-3 self-end font-bold">
@@ -180,7 +179,7 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
                   </p>
                   <p className="text-sm text-muted">
                     <i lang="la">{a.scientificName}</i> · {STAGE_LABEL[a.lifeStage]} · <span className="font-bold text-text">{placeCode(a.location)}</span>
-                    {a.status !== 'active' && ` · ${STATUS_WORD[a.status]}`}
+                    {a.status !== 'active' && ` · ${STATUS_LABEL[a.status]}`}
                   </p>
                   <CautionMarks cautions={a.cautions} />
                 </div>

@@ -1,11 +1,10 @@
 import { useState } from 'react';
-import { RETIRED_STATUSES, type AnimalSummary, type RetireBody } from '#shared/schemas/animals';
+import { STATUS_LABEL } from '#shared/domain/animal-facts';
+import { RETIRED_STATUSES, type RetireBody } from '#shared/schemas/animals';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { useAction } from '@/lib/use-action';
 import { PanelActions } from './panel-actions';
-
-const WORDS: Record<string, string> = { sold: 'Sold', deceased: 'Deceased', rehomed: 'Rehomed', on_loan: 'On loan' };
 
 interface Props {
   /** "this animal" or "12 animals", for the wording. */
@@ -30,12 +29,10 @@ export function RetirePanel({ what, today, onRetire, onCancel }: Props) {
       }}
     >
       <p className="font-bold">Retire {what}? It leaves the round; its history stays.</p>
-      <SelectField label="Why" value={status} onChange={(e) => setStatus(e.target.value as RetireBody['status'])} options={RETIRED_STATUSES.map((s) => ({ value: s, label: WORDS[s]! }))} />
+      <SelectField label="Why" value={status} onChange={(e) => setStatus(e.target.value as RetireBody['status'])} options={RETIRED_STATUSES.map((s) => ({ value: s, label: STATUS_LABEL[s] }))} />
       <TextField label="Date" type="date" value={date} onChange={(e) => setDate(e.target.value)} />
       <TextField label="Note" value={note} onChange={(e) => setNote(e.target.value)} />
       <PanelActions word="Retire" busy={action.busy} error={action.error} onCancel={onCancel} />
     </form>
   );
 }
-
-export const statusWord = (a: Pick<AnimalSummary, 'status'>) => WORDS[a.status] ?? 'Kept';
