@@ -5,9 +5,10 @@ import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { afterAll, beforeAll, expect } from 'vitest';
+import { afterAll, beforeAll, beforeEach, expect } from 'vitest';
+import { localDateOf } from '../../shared/domain/local-dates';
 import { seedDemo } from '../../server/db/seed/demo';
-import { DEMO_PASSWORD } from '../../server/db/seed/demo-people';
+import { DEMO_COLLECTION, DEMO_PASSWORD } from '../../server/db/seed/demo-people';
 import { launchBrowser } from '../chromium';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
@@ -17,14 +18,19 @@ export const screenshotsDir = path.resolve(import.meta.dirname, '../../test-resu
 export interface E2eServer {
   ctx: TestContext;
   baseUrl: string;
+  /** Seeds the demo afresh when the collection's local day has turned since the last seed. */
+  reseedIfDayTurned(): Promise<void>;
   close(): Promise<void>;
 }
+
+const demoToday = () => localDateOf(new Date(), DEMO_COLLECTION.timeZone);
 
 export async function startServer(): Promise<E2eServer> {
   if (!fs.existsSync(path.join(distDir, 'index.html'))) throw new Error('No production build: run `vite build` first (npm test does).');
   let baseUrl = '';
   const ctx = await createTestContext({ distDir, publicUrl: undefined });
   await seedDemo(ctx.database.db, { bcryptCost: 10 });
+  let seededFor = demoToday();
   const server = await new Promise<import('node:http').Server>((resolve) => {
     const s = ctx.app.listen(0, '127.0.0.1', () => resolve(s));
   });
@@ -32,6 +38,13 @@ export async function startServer(): Promise<E2eServer> {
   return {
     ctx,
     baseUrl,
+    // The demo's round is relative to the day it was seeded; a run that crosses local midnight
+    // would otherwise find yesterday's fed animals gone from today's round.
+    async reseedIfDayTurned() {
+      if (demoToday() === seededFor) return;
+      await seedDemo(ctx.database.db, { bcryptCost: 10, reset: true });
+      seededFor = demoToday();
+    },
     async close() {
       server.closeAllConnections();
       await new Promise((r) => server.close(r));
@@ -72,6 +85,7 @@ export function useE2e(): { readonly server: E2eServer; readonly browser: Browse
     env.server = await startServer();
     ({ browser: env.browser } = await launchBrowser());
   });
+  beforeEach(() => env.server.reseedIfDayTurned());
   afterAll(async () => {
     await env.browser?.close();
     await env.server?.close();
