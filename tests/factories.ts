@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { animals } from '../server/db/schema/animals';
 import { memberships } from '../server/db/schema/collections';
+import type { AnimalInput } from '../shared/schemas/animals';
 import type { TestContext } from './setup/test-app';
 
 export const PASSWORD = 'correct horse battery';
@@ -56,3 +57,23 @@ export function sessionCookie(res: { headers: Record<string, unknown> }): string
   const cookies = (res.headers['set-cookie'] as string[] | undefined) ?? [];
   return cookies.find((c) => c.startsWith('rackside.sid='))?.split(';')[0];
 }
+
+/** A complete, valid animal form as the edit page sends it. */
+export const animalBody = (overrides: Partial<AnimalInput> = {}): AnimalInput => ({
+  name: 'Juniper',
+  scientificName: 'Tliltocatl albopilosus (Valerio, 1980)',
+  commonName: 'Curly hair',
+  group: 'tarantula',
+  lifeStage: 'adult',
+  sex: 'female',
+  sizeMm: 130,
+  acquiredOn: '2025-05-01',
+  source: 'Expo',
+  locationId: null,
+  cautions: ['urticating_hairs'],
+  cautionNote: 'Flicks hairs when the lid opens',
+  notes: null,
+  clutch: null,
+  care: { intervalDays: 12, preyType: 'cricket', preySize: 'large', preyCount: 2, hasWaterDish: true, doNotFeedUntil: null },
+  ...overrides,
+});

@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { rowToAnimal } from '../../shared/domain/csv/animal-columns';
 import { readCsv } from '../../shared/domain/csv/csv-file';
 import type { AnimalInput } from '../../shared/schemas/animals';
-import { addMember, signUp, type SignedUp } from '../factories';
+import { addMember, animalBody, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
 let ctx: TestContext;
@@ -16,24 +16,6 @@ let helper: SignedUp;
 let outsider: SignedUp;
 
 const base = (who: SignedUp = owner) => `/api/collections/${who.collectionId}`;
-const animalBody = (overrides: Partial<AnimalInput> = {}): AnimalInput => ({
-  name: 'Juniper',
-  scientificName: 'Tliltocatl albopilosus (Valerio, 1980)',
-  commonName: 'Curly hair',
-  group: 'tarantula',
-  lifeStage: 'adult',
-  sex: 'female',
-  sizeMm: 130,
-  acquiredOn: '2025-05-01',
-  source: 'Expo',
-  locationId: null,
-  cautions: ['urticating_hairs'],
-  cautionNote: 'Flicks hairs when the lid opens',
-  notes: null,
-  clutch: null,
-  care: { intervalDays: 12, preyType: 'cricket', preySize: 'large', preyCount: 2, hasWaterDish: true, doNotFeedUntil: null },
-  ...overrides,
-});
 const filesIn = (dir: string): string[] =>
   fs.existsSync(dir) ? fs.readdirSync(dir, { withFileTypes: true }).flatMap((d) => (d.isDirectory() ? filesIn(path.join(dir, d.name)) : [d.name])) : [];
 

@@ -5,6 +5,7 @@ import type { Role } from '../../../shared/domain/roles';
 import { uuid } from '../../../shared/schemas/common';
 import { acceptBody, coverBody, coverChangeBody, generalNoteBody, handoverNoteBody, inviteToken, type AcceptBody } from '../../../shared/schemas/cover';
 import { currentUserId } from '../../middleware/auth';
+import { HttpError } from '../../middleware/errors';
 import { membershipOf } from '../../middleware/roles';
 import { startSession } from '../../middleware/session';
 import { input, validate } from '../../middleware/validate';
@@ -17,6 +18,12 @@ const coverParams = z.object({ collectionId: uuid, coverId: uuid });
 const noteParams = z.object({ collectionId: uuid, noteId: uuid });
 
 type Member = (min: Role, options?: { anyTime?: boolean }) => RequestHandler;
+
+// A keeper or owner has no cover of their own to read, acknowledge or leave.
+const onlyHelpers: RequestHandler = (_req, res, next) => {
+  if (membershipOf(res).role !== 'helper') return next(new HttpError(404, 'not_found', 'You keep this collection; there is no cover of yours here.'));
+  next();
+};
 
 /** Owners arrange covers; keepers write handover notes; a helper reads their own cover. */
 export function coverRoutes(cover: CoverService, reports: CoverReportsService, rounds: RoundsService, member: Member) {
@@ -59,18 +66,17 @@ export function coverRoutes(cover: CoverService, reports: CoverReportsService, r
   });
 
   // The helper's own cover: only while it runs (the membership check says when it does not).
-  router.get('/cover/mine', member('helper'), async (req, res) => {
+  router.get('/cover/mine', member('helper'), onlyHelpers, async (req, res) => {
     const m = membershipOf(res);
-    if (m.role !== 'helper') return void res.status(404).json({ error: { code: 'not_found', message: 'You keep this collection; there is no cover to show.' } });
     const round = await rounds.todayRound(m.collectionId);
     res.json(await cover.helperView(m, currentUserId(req), round.items.map((i) => i.animal.id)));
   });
-  router.post('/cover/mine/acknowledge', member('helper'), async (req, res) => {
+  router.post('/cover/mine/acknowledge', member('helper'), onlyHelpers, async (req, res) => {
     await cover.acknowledgeSafety(collectionId(res), currentUserId(req));
     res.status(204).end();
   });
   // Leaving works before, during and after the cover.
-  router.delete('/cover/mine', member('helper', { anyTime: true }), async (req, res) => {
+  router.delete('/cover/mine', member('helper', { anyTime: true }), onlyHelpers, async (req, res) => {
     await cover.leave(collectionId(res), currentUserId(req));
     res.status(204).end();
   });
