@@ -1,5 +1,6 @@
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
+import { fieldLabel, isGenericMessage } from '../../shared/schemas/messages';
 import { HttpError, zodIssues } from './errors';
 
 interface Shapes {
@@ -25,7 +26,9 @@ export function validate(shapes: Shapes): RequestHandler {
     }
     if (issues.length) {
       const first = issues[0]!;
-      const message = issues.length === 1 ? first.message : `${first.message} (and ${issues.length - 1} more)`;
+      // "This is required." alone does not say what is; the one-line message names the field.
+      const lead = isGenericMessage(first.message) && first.path ? `${fieldLabel(first.path)}: ${first.message}` : first.message;
+      const message = issues.length === 1 ? lead : `${lead} (and ${issues.length - 1} more)`;
       return next(new HttpError(422, 'invalid', message, issues));
     }
     res.locals.input = parsed;

@@ -77,7 +77,7 @@ export const recordedEvent = z
     payload: z.record(z.string(), z.unknown()).default({}),
     clientRecordedAt: z.iso.datetime({
       offset: true,
-      message: 'clientRecordedAt must be an ISO 8601 date-time.',
+      message: 'The time of the tap (clientRecordedAt) must be an ISO 8601 date-time.',
     }),
   })
   .superRefine((event, ctx) => {
@@ -105,7 +105,7 @@ export const eventBatchBody = z.object({
   deviceId: z.string().trim().min(1).max(64, { message: 'The device id is too long.' }),
   clientSentAt: z.iso.datetime({
     offset: true,
-    message: 'clientSentAt must be an ISO 8601 date-time.',
+    message: 'The time the phone sent this (clientSentAt) must be an ISO 8601 date-time.',
   }),
   events: z.array(z.unknown()),
 });

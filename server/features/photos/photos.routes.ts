@@ -21,6 +21,8 @@ const uploadErrors: ErrorRequestHandler = (err, _req, _res, next) => {
     if (err.code === 'LIMIT_FILE_SIZE') return next(new HttpError(413, 'too_large', `Photos can be at most ${MAX_PHOTO_BYTES / 1024 / 1024} MB.`));
     return next(new HttpError(400, 'bad_upload', 'Send one photo in the field “photo”.'));
   }
+  // Anything else here came from reading the multipart body (busboy): a malformed upload.
+  if (!(err instanceof HttpError)) return next(new HttpError(400, 'bad_upload', 'The upload could not be read. Send one photo in the field “photo”.'));
   next(err);
 };
 
