@@ -40,7 +40,7 @@ import type { Mailer } from './mail/mailer';
 import { requireUser } from './middleware/auth';
 import { requireSameSiteWrite } from './middleware/csrf';
 import { apiNotFound, errorHandler, HttpError } from './middleware/errors';
-import { limiter } from './middleware/rate-limit';
+import { createLimiter } from './middleware/rate-limit';
 import { requireMember } from './middleware/roles';
 import { redactUrl } from './redact-url';
 import { serveClient } from './static';
@@ -167,12 +167,13 @@ export function createApp(options: AppOptions) {
   const member = (min: Role, options?: { anyTime?: boolean }) => requireMember(database.db, min, now, options);
 
   api.use('/health', healthRoutes(database.pool));
-  api.use('/auth', authRoutes(auth, { ...DEFAULT_AUTH_LIMITS, ...options.authLimits }, SESSION_COOKIE));
+  const limiter = createLimiter(database.pool);
+  api.use('/auth', authRoutes(auth, { ...DEFAULT_AUTH_LIMITS, ...options.authLimits }, SESSION_COOKIE, limiter));
   if (env.DEMO_MODE) api.use('/dev', devRoutes(options.devMailbox));
   api.get('/collections', requireUser, async (req, res) => {
     res.json({ memberships: (await auth.me(req.session.userId!)).memberships });
   });
-  api.use('/cover-invites', coverInviteRoutes(cover, auth, limiter({ windowMs: 15 * 60_000, limit: options.authLimits?.signInPerIp ?? DEFAULT_AUTH_LIMITS.signInPerIp })));
+  api.use('/cover-invites', coverInviteRoutes(cover, auth, limiter('invite-ip', { windowMs: 15 * 60_000, limit: options.authLimits?.signInPerIp ?? DEFAULT_AUTH_LIMITS.signInPerIp })));
   api.use('/collections/:collectionId', requireUser);
   const animals = createAnimalsService(database.db, now);
   const rounds = createRoundsService(database.db, now);

@@ -1,3 +1,4 @@
+import pg from 'pg';
 import PgBoss from 'pg-boss';
 import type { CoverReportsService } from '../features/cover/cover-reports.service';
 import type { RoundsService } from '../features/rounds/rounds.service';
@@ -14,24 +15,42 @@ export const SEND_COVER_REPORTS = 'send-cover-reports';
 export async function startJobs(options: { databaseUrl: string; rounds: RoundsService; coverReports: CoverReportsService; logger: Logger; cron?: string }) {
   const boss = new PgBoss({ connectionString: options.databaseUrl, schema: 'pgboss', max: 4 });
   boss.on('error', (err) => options.logger.error({ err }, 'job queue error'));
-  await boss.start();
-  await boss.createQueue(BUILD_DUE_ROUNDS);
-  // Every five minutes: each collection's round is ready within minutes of its local midnight.
-  await boss.schedule(BUILD_DUE_ROUNDS, options.cron ?? '*/5 * * * *', {}, { tz: 'UTC' });
-  await boss.work(BUILD_DUE_ROUNDS, async () => {
-    const built = await options.rounds.buildDueRounds();
-    if (built.length) options.logger.info({ collections: built.length }, 'built the day’s rounds');
+  // Processes starting together would deadlock creating the same queues (seen in
+  // tests/api/production.test.ts): one at a time sets them up, under an advisory lock.
+  await oneAtATime(options.databaseUrl, async () => {
+    await boss.start();
+    await boss.createQueue(BUILD_DUE_ROUNDS);
+    await boss.createQueue(SEND_COVER_REPORTS);
+    // Every five minutes: each collection's round is ready within minutes of its local midnight.
+    await boss.schedule(BUILD_DUE_ROUNDS, options.cron ?? '*/5 * * * *', {}, { tz: 'UTC' });
+    // Cover reports: every ten minutes, so each covered day's report goes out shortly after
+    // the day ends in the collection's zone.
+    await boss.schedule(SEND_COVER_REPORTS, '*/10 * * * *', {}, { tz: 'UTC' });
   });
-  // Cover reports: every ten minutes, so each covered day's report goes out shortly after the
-  // day ends in the collection's zone.
-  await boss.createQueue(SEND_COVER_REPORTS);
-  await boss.schedule(SEND_COVER_REPORTS, '*/10 * * * *', {}, { tz: 'UTC' });
-  await boss.work(SEND_COVER_REPORTS, async () => {
+  await boss.work(BUILD_DUE_ROUNDS, async ([job]) => {
+    const built = await options.rounds.buildDueRounds();
+    options.logger.info({ queue: BUILD_DUE_ROUNDS, jobId: job?.id, collections: built.length }, 'job done');
+  });
+  await boss.work(SEND_COVER_REPORTS, async ([job]) => {
     const sent = await options.coverReports.runDue();
-    if (sent) options.logger.info({ reports: sent }, 'sent cover reports');
+    options.logger.info({ queue: SEND_COVER_REPORTS, jobId: job?.id, reports: sent }, 'job done');
   });
   return {
     boss,
     stop: () => boss.stop({ graceful: true, wait: true, timeout: 10_000 }),
   };
+}
+
+const SETUP_LOCK = 7_205_118; // any constant shared by every Rackside process
+
+async function oneAtATime(databaseUrl: string, work: () => Promise<void>) {
+  const client = new pg.Client({ connectionString: databaseUrl });
+  await client.connect();
+  try {
+    await client.query('select pg_advisory_lock($1)', [SETUP_LOCK]);
+    await work();
+  } finally {
+    await client.query('select pg_advisory_unlock($1)', [SETUP_LOCK]).catch(() => undefined);
+    await client.end();
+  }
 }

@@ -1,4 +1,4 @@
-import { index, json, pgTable, text, timestamp, uuid, varchar } from 'drizzle-orm/pg-core';
+import { index, integer, json, pgTable, text, timestamp, uuid, varchar } from 'drizzle-orm/pg-core';
 
 export const users = pgTable('users', {
   id: uuid('id').primaryKey().defaultRandom(),
@@ -34,4 +34,18 @@ export const sessions = pgTable(
     expire: timestamp('expire', { precision: 6 }).notNull(),
   },
   (t) => [index('sessions_expire_idx').on(t.expire)],
+);
+
+/**
+ * Rate-limit counters shared by every server process (express-rate-limit's store): a limit
+ * holds across processes behind a load balancer. `key` carries the limit's own prefix.
+ */
+export const rateLimits = pgTable(
+  'rate_limits',
+  {
+    key: text('key').primaryKey(),
+    hits: integer('hits').notNull(),
+    resetAt: timestamp('reset_at', { withTimezone: true }).notNull(),
+  },
+  (t) => [index('rate_limits_reset_idx').on(t.resetAt)],
 );

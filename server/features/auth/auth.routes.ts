@@ -9,7 +9,7 @@ import {
   type SignUpBody,
 } from '../../../shared/schemas/auth';
 import { currentUserId, requireUser } from '../../middleware/auth';
-import { limiter } from '../../middleware/rate-limit';
+import type { Limiter } from '../../middleware/rate-limit';
 import { startSession } from '../../middleware/session';
 import { input, validate } from '../../middleware/validate';
 import type { AuthService } from './auth.service';
@@ -42,18 +42,18 @@ function destroy(req: Request) {
   return new Promise<void>((resolve, reject) => req.session.destroy((err) => (err ? reject(err) : resolve())));
 }
 
-export function authRoutes(auth: AuthService, limits: AuthLimits, cookieName: string) {
+export function authRoutes(auth: AuthService, limits: AuthLimits, cookieName: string, limiter: Limiter) {
   const router = Router();
 
-  const signInLimit = limiter({ windowMs: 15 * 60_000, limit: limits.signInPerIp });
-  const accountLimit = limiter({
+  const signInLimit = limiter('sign-in-ip', { windowMs: 15 * 60_000, limit: limits.signInPerIp });
+  const accountLimit = limiter('sign-in-account', {
     windowMs: 60 * 60_000,
     limit: limits.failedSignInPerAccount,
     keyGenerator: byEmail,
     skipSuccessfulRequests: true,
   });
-  const resetIpLimit = limiter({ windowMs: 15 * 60_000, limit: limits.resetPerIp });
-  const resetEmailLimit = limiter({ windowMs: 60 * 60_000, limit: limits.resetPerEmail, keyGenerator: byEmail });
+  const resetIpLimit = limiter('reset-ip', { windowMs: 15 * 60_000, limit: limits.resetPerIp });
+  const resetEmailLimit = limiter('reset-email', { windowMs: 60 * 60_000, limit: limits.resetPerEmail, keyGenerator: byEmail });
 
   router.post('/sign-up', signInLimit, validate({ body: signUpBody }), async (req, res) => {
     const user = await auth.signUp(input<SignUpBody>(res, 'body'));

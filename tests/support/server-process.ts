@@ -1,0 +1,89 @@
+// A real Rackside server in its own process (tsx server/index.ts), as production runs it: for
+// the tests that kill it, restart PostgreSQL under it, or run two of it side by side.
+import { spawn, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+
+const repoRoot = path.resolve(import.meta.dirname, '../..');
+
+export async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer();
+    s.once('error', reject);
+    s.listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as net.AddressInfo;
+      s.close(() => resolve(port));
+    });
+  });
+}
+
+export interface ServerProcess {
+  url: string;
+  port: number;
+  child: ChildProcess;
+  /** Every line the process wrote (pino JSON lines in production). */
+  lines: string[];
+  /** Structured log records (the JSON lines). */
+  records(): Record<string, unknown>[];
+  kill(signal?: NodeJS.Signals): Promise<void>;
+}
+
+export async function startServerProcess(options: { databaseUrl: string; port?: number; env?: Record<string, string> }): Promise<ServerProcess> {
+  const port = options.port ?? (await freePort());
+  const storage = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-proc-'));
+  // node itself with tsx's loader (not the tsx wrapper), so a signal reaches the server directly.
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    cwd: repoRoot,
+    env: {
+      PATH: process.env.PATH ?? '',
+      NODE_ENV: 'production',
+      HOST: '127.0.0.1',
+      PORT: String(port),
+      DATABASE_URL: options.databaseUrl,
+      SESSION_SECRET: 'a-production-like-secret-of-forty-characters',
+      BCRYPT_COST: '10',
+      STORAGE_DIR: storage,
+      LOG_LEVEL: 'info',
+      ...options.env,
+    },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  const lines: string[] = [];
+  const collect = (chunk: Buffer) => lines.push(...chunk.toString().split('\n').filter(Boolean));
+  child.stdout!.on('data', collect);
+  child.stderr!.on('data', collect);
+  const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
+  const url = `http://127.0.0.1:${port}`;
+  const deadline = Date.now() + 30_000;
+  for (;;) {
+    if (child.exitCode !== null) throw new Error(`server exited (${child.exitCode}):\n${lines.join('\n')}`);
+    try {
+      if ((await fetch(`${url}/api/health`)).ok) break;
+    } catch {
+      // not listening yet
+    }
+    if (Date.now() > deadline) throw new Error(`server did not start:\n${lines.join('\n')}`);
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  return {
+    url,
+    port,
+    child,
+    lines,
+    records: () =>
+      lines.flatMap((l) => {
+        try {
+          return [JSON.parse(l) as Record<string, unknown>];
+        } catch {
+          return [];
+        }
+      }),
+    async kill(signal = 'SIGTERM') {
+      if (child.exitCode === null && child.signalCode === null) child.kill(signal);
+      await exited;
+      fs.rmSync(storage, { recursive: true, force: true });
+    },
+  };
+}
