@@ -13,8 +13,11 @@ export interface Database {
 
 export function connectDatabase(url: string, max = 10): Database {
   const pool = new pg.Pool({ connectionString: url, max });
-  // A dropped idle connection (e.g. PostgreSQL restarting) must not crash the process.
+  // A dropped connection (e.g. PostgreSQL restarting) must not crash the process: the pool
+  // reports idle clients' errors, and a client in use reports its own, which would otherwise
+  // be an unhandled 'error' event. The query that meets the broken client fails instead (503).
   pool.on('error', () => {});
+  pool.on('connect', (client) => client.on('error', () => {}));
   const db = drizzle(pool);
   return { pool, db, close: () => pool.end() };
 }

@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
 import type { ErrorBody } from '../../shared/schemas/common';
+import { isDatabaseUnavailable } from '../db/errors';
 
 /** An error a service throws on purpose: its status and message reach the client. */
 export class HttpError extends Error {
@@ -48,6 +49,12 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   } else if (typeof parserError.status === 'number' && parserError.status >= 400 && parserError.status < 500) {
     status = parserError.status;
     body = { error: { code: 'bad_request', message: 'The request could not be read.' } };
+  } else if (isDatabaseUnavailable(err)) {
+    // PostgreSQL is restarting or out of reach: say so, so phones keep their taps and retry.
+    status = 503;
+    res.setHeader('Retry-After', '5');
+    body = { error: { code: 'unavailable', message: 'Rackside cannot reach its database just now. Nothing is lost: try again in a moment.' } };
+    req.log?.warn({ err }, 'database unavailable');
   } else {
     req.log?.error({ err }, 'unhandled error');
   }
