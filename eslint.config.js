@@ -7,7 +7,7 @@ import tseslint from 'typescript-eslint';
 const FEATURES = ['animals', 'app-update', 'auth', 'dev-mailbox', 'settings', 'rounds', 'scan', 'labels', 'cover', 'breeding'];
 
 export default tseslint.config(
-  { ignores: ['dist', 'node_modules', '.data', 'test-results', 'drizzle', 'coverage', 'bench/.minimal-dist'] },
+  { ignores: ['dist', 'node_modules', '.data', 'test-results', 'drizzle', 'coverage', 'bench/.minimal-dist', 'dist-server'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

@@ -6,6 +6,7 @@ import { runP1 } from './p1-tap-latency';
 import { runP2, runP3, runP4 } from './p2-p4-pages';
 import { runP5 } from './p5-sync-flush';
 import { runP6 } from './p6-round-build';
+import { runP7 } from './p7-load';
 import { recordFigures, type Figure } from './results-file';
 import { runT1 } from './t1-table';
 
@@ -16,6 +17,7 @@ const BENCHES: Record<string, (db: ReturnType<typeof connectDatabase>) => Promis
   P4: runP4,
   P5: runP5,
   P6: runP6,
+  P7: runP7,
   T1: runT1,
 };
 

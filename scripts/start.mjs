@@ -23,9 +23,11 @@ if (env.DEMO_MODE === 'true') runTs('server/db/cli.ts', ['seed', '--if-empty'], 
 
 say('Building the app…');
 run(path.join(repoRoot, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], { env });
+runTs('scripts/build-server.ts', [], env);
 say(`Ready to serve after ${((Date.now() - began) / 1000).toFixed(1)} s of set-up.`);
 
-const server = spawn(path.join(repoRoot, 'node_modules', '.bin', 'tsx'), ['server/index.ts'], {
+// The bundled server (scripts/build-server.ts), run by node itself; source maps for stack traces.
+const server = spawn(process.execPath, ['--enable-source-maps', path.join(repoRoot, 'dist-server', 'index.mjs')], {
   cwd: repoRoot,
   env,
   stdio: 'inherit',

@@ -1,6 +1,5 @@
 import { randomUUID } from 'node:crypto';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import connectPgSimple from 'connect-pg-simple';
 import express, { type RequestHandler } from 'express';
 import session from 'express-session';
@@ -43,14 +42,17 @@ import { apiNotFound, errorHandler, HttpError } from './middleware/errors';
 import { createLimiter } from './middleware/rate-limit';
 import { requireMember } from './middleware/roles';
 import { redactUrl } from './redact-url';
+import { repoRoot } from './repo-root';
 import { serveClient } from './static';
 
 /** Sessions for people signed in on their own phone for weeks (docs/decisions/003-sessions.md). */
 export const SESSION_IDLE_MS = 30 * 24 * 60 * 60 * 1000;
 export const SESSION_ABSOLUTE_MS = 90 * 24 * 60 * 60 * 1000;
 export const SESSION_COOKIE = 'rackside.sid';
+/** How often a request may push a session's idle expiry forward in the database. */
+export const SESSION_TOUCH_EVERY_MS = 10 * 60 * 1000;
 
-const defaultDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../dist');
+const defaultDist = path.join(repoRoot(), 'dist');
 
 export interface AppOptions {
   env: Env;
@@ -125,7 +127,19 @@ export function createApp(options: AppOptions) {
   );
 
   const PgStore = connectPgSimple(session);
-  const store = new PgStore({
+  // A rolling session would be written back on every request (an UPDATE per round read);
+  // its 30-day idle expiry only needs refreshing now and then (P7, decision 010).
+  class ThrottledTouchStore extends PgStore {
+    private readonly touchedAt = new Map<string, number>();
+    override touch(sid: string, sess: session.SessionData, done?: (err?: unknown) => void) {
+      const at = Date.now();
+      if (at - (this.touchedAt.get(sid) ?? 0) < SESSION_TOUCH_EVERY_MS) return done?.();
+      if (this.touchedAt.size > 50_000) this.touchedAt.clear();
+      this.touchedAt.set(sid, at);
+      super.touch(sid, sess, done);
+    }
+  }
+  const store = new ThrottledTouchStore({
     pool: database.pool,
     tableName: 'sessions',
     createTableIfMissing: false,

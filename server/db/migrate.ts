@@ -1,9 +1,9 @@
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { migrate } from 'drizzle-orm/node-postgres/migrator';
+import { repoRoot } from '../repo-root';
 import type { Db } from './client';
 
-const migrationsFolder = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../drizzle');
+const migrationsFolder = path.join(repoRoot(), 'drizzle');
 
 export async function migrateDatabase(db: Db): Promise<void> {
   await migrate(db, { migrationsFolder });

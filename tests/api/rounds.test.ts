@@ -250,3 +250,66 @@ describe('the job that builds rounds at local midnight', () => {
     }
   });
 });
+
+describe('today’s round served from the cache', () => {
+  it('answers 304 while unchanged, and a new round after a tap or a change made by another process', async () => {
+    const owner = await signIn('owner@northlight.test');
+    const url = `/api/collections/${demoId}/rounds/today`;
+    const first = await owner.get(url).expect(200);
+    const etag = first.headers.etag as string;
+    expect(first.headers['cache-control']).toBe('private, no-cache');
+    // RFC 9110 §13.1.2: a matching If-None-Match on a GET is answered 304 Not Modified.
+    await owner.get(url).set('If-None-Match', etag).expect(304);
+
+    const item = first.body.items.find((i: { animal: { name: string } }) => i.animal.name === 'Verdi');
+    await owner
+      .post(`/api/collections/${demoId}/events`)
+      .send({ deviceId: 'cache', clientSentAt: new Date().toISOString(), events: [{ id: randomUUID(), animalId: item.animal.id, kind: 'watered', payload: {}, clientRecordedAt: new Date().toISOString() }] })
+      .expect(200);
+    const afterTap = await owner.get(url).set('If-None-Match', etag).expect(200);
+    expect(afterTap.headers.etag).not.toBe(etag);
+    const verdi = afterTap.body.items.find((i: { animal: { id: string } }) => i.animal.id === item.animal.id);
+    expect(verdi.outcomes.map((o: { kind: string }) => o.kind)).toContain('watered');
+
+    // Another server process renames the animal straight in the database: the triggers move the
+    // counters, so this process's cached round is not served again.
+    await ctx.database.db.update(animals).set({ name: 'Verdi the Second' }).where(eq(animals.id, item.animal.id));
+    const afterRename = await owner.get(url).set('If-None-Match', afterTap.headers.etag as string).expect(200);
+    expect(afterRename.body.items.some((i: { animal: { name: string } }) => i.animal.name === 'Verdi the Second')).toBe(true);
+    await ctx.database.db.update(animals).set({ name: 'Verdi' }).where(eq(animals.id, item.animal.id));
+  });
+
+  it('sends the same round gzipped to a client that accepts it', async () => {
+    const owner = await signIn('owner@northlight.test');
+    const url = `/api/collections/${demoId}/rounds/today`;
+    const plain = await owner.get(url).set('Accept-Encoding', 'identity').expect(200);
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    // supertest inflates gzip itself: the header says what came over the wire.
+    const zipped = await owner.get(url).set('Accept-Encoding', 'gzip').expect(200);
+    expect(zipped.headers['content-encoding']).toBe('gzip');
+    expect(zipped.headers.vary).toMatch(/Accept-Encoding/);
+    expect(zipped.body).toEqual(plain.body);
+  });
+});
+
+describe('the cached round’s JSON', () => {
+  it('is exactly the round the service builds, after taps settle some items and not others', async () => {
+    const owner = await signIn('owner@northlight.test');
+    const url = `/api/collections/${demoId}/rounds/today`;
+    const before = await owner.get(url).expect(200);
+    const [a, b] = before.body.items as { animal: { id: string } }[];
+    await owner
+      .post(`/api/collections/${demoId}/events`)
+      .send({
+        deviceId: 'json',
+        clientSentAt: new Date().toISOString(),
+        events: [
+          { id: randomUUID(), animalId: a!.animal.id, kind: 'refused', payload: {}, clientRecordedAt: new Date().toISOString() },
+          { id: randomUUID(), animalId: b!.animal.id, kind: 'watered', payload: {}, clientRecordedAt: new Date().toISOString() },
+        ],
+      })
+      .expect(200);
+    const served = await owner.get(url).expect(200);
+    expect(served.body).toEqual(JSON.parse(JSON.stringify(await ctx.services.rounds.todayRound(demoId))));
+  });
+});

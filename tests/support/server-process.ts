@@ -5,8 +5,33 @@ import fs from 'node:fs';
 import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
+import { buildServer } from '../../scripts/build-server';
 
 const repoRoot = path.resolve(import.meta.dirname, '../..');
+
+// Built from the current source once per test process (about 0.1 s), in a folder of its own:
+// test files run in parallel processes.
+let bundled: Promise<string> | undefined;
+const bundleOnce = () => {
+  if (!bundled) {
+    const parent = path.join(repoRoot, 'dist-server');
+    // Test workers end without an exit hook running: sweep the folders of finished ones.
+    for (const old of fs.existsSync(parent) ? fs.readdirSync(parent).filter((d) => d.startsWith('test-')) : []) {
+      if (!isRunning(Number(old.slice(5)))) fs.rmSync(path.join(parent, old), { recursive: true, force: true });
+    }
+    bundled = buildServer(path.join(parent, `test-${process.pid}`, 'index.mjs'));
+  }
+  return bundled;
+};
+
+function isRunning(pid: number): boolean {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+}
 
 export async function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
@@ -30,11 +55,12 @@ export interface ServerProcess {
   kill(signal?: NodeJS.Signals): Promise<void>;
 }
 
-export async function startServerProcess(options: { databaseUrl: string; port?: number; env?: Record<string, string> }): Promise<ServerProcess> {
+export async function startServerProcess(options: { databaseUrl: string; port?: number; env?: Record<string, string>; /** Drop stdout (a load test's request logs). */ quiet?: boolean; /** e.g. --cpu-prof */ nodeArgs?: string[] }): Promise<ServerProcess> {
   const port = options.port ?? (await freePort());
   const storage = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-proc-'));
-  // node itself with tsx's loader (not the tsx wrapper), so a signal reaches the server directly.
-  const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  // The production bundle, run by node itself, so a signal reaches the server directly.
+  const bundle = await bundleOnce();
+  const child = spawn(process.execPath, [...(options.nodeArgs ?? []), '--enable-source-maps', bundle], {
     cwd: repoRoot,
     env: {
       PATH: process.env.PATH ?? '',
@@ -48,11 +74,11 @@ export async function startServerProcess(options: { databaseUrl: string; port?: 
       LOG_LEVEL: 'info',
       ...options.env,
     },
-    stdio: ['ignore', 'pipe', 'pipe'],
+    stdio: ['ignore', options.quiet ? 'ignore' : 'pipe', 'pipe'],
   });
   const lines: string[] = [];
   const collect = (chunk: Buffer) => lines.push(...chunk.toString().split('\n').filter(Boolean));
-  child.stdout!.on('data', collect);
+  child.stdout?.on('data', collect);
   child.stderr!.on('data', collect);
   const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
   const url = `http://127.0.0.1:${port}`;

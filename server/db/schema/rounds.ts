@@ -1,4 +1,4 @@
-import { boolean, date, index, integer, jsonb, pgTable, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { bigint, boolean, date, index, integer, jsonb, pgTable, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 import { animals } from './animals';
 import { collections } from './collections';
 
@@ -56,3 +56,16 @@ export const roundItems = pgTable(
   },
   (t) => [unique('round_items_round_animal').on(t.roundId, t.animalId), index('round_items_round_idx').on(t.roundId, t.sortIndex)],
 );
+
+/**
+ * Change counters per collection, bumped by triggers (migration 0008) whenever a table that
+ * today's round is drawn from changes: `records` for animals, places, rounds and notes,
+ * `events` for the event log and the names of who recorded them. A server process compares
+ * them with its cached round, so a cache can never serve a round older than the database.
+ * No foreign key: the triggers also fire while a collection is being deleted.
+ */
+export const collectionRevisions = pgTable('collection_revisions', {
+  collectionId: uuid('collection_id').primaryKey(),
+  records: bigint('records', { mode: 'number' }).notNull().default(0),
+  events: bigint('events', { mode: 'number' }).notNull().default(0),
+});

@@ -1,8 +1,9 @@
 import { randomInt } from 'node:crypto';
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import { generateLabelTag } from '../../../shared/domain/labels/label-payload';
 import type { Db } from '../../db/client';
 import { collections, memberships } from '../../db/schema/collections';
+import { collectionRevisions } from '../../db/schema/rounds';
 import { users } from '../../db/schema/users';
 
 const membershipFields = {
@@ -15,11 +16,22 @@ const membershipFields = {
   endsAt: memberships.endsAt,
 };
 
+/**
+ * One member's membership, with the collection's change counters read in the same query: a
+ * cached round is checked against them with no further round trip (P7).
+ */
 export async function findMembership(db: Db, collectionId: string, userId: string) {
   const rows = await db
-    .select(membershipFields)
+    .select({
+      ...membershipFields,
+      revision: {
+        records: sql<number>`coalesce(${collectionRevisions.records}, 0)`.mapWith(Number),
+        events: sql<number>`coalesce(${collectionRevisions.events}, 0)`.mapWith(Number),
+      },
+    })
     .from(memberships)
     .innerJoin(collections, eq(collections.id, memberships.collectionId))
+    .leftJoin(collectionRevisions, eq(collectionRevisions.collectionId, memberships.collectionId))
     .where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, userId)))
     .limit(1);
   return rows[0] ?? null;

@@ -8,7 +8,6 @@ import type { LabelPdfBody } from '../../../shared/schemas/labels';
 import { isUniqueViolation } from '../../db/errors';
 import { animals } from '../../db/schema/animals';
 import { HttpError } from '../../middleware/errors';
-import { renderLabelsPdf } from './labels.pdf';
 
 const randomUnit = () => randomInt(2 ** 32) / 2 ** 32;
 
@@ -35,6 +34,8 @@ export function createLabelsService(db: NodePgDatabase) {
       if (body.start > sheet.perSheet) {
         throw new HttpError(422, 'invalid', `This sheet has ${sheet.perSheet} positions; start at ${sheet.perSheet} or earlier.`);
       }
+      // pdfkit (~28 MB resident) loads on the first PDF, not with the server.
+      const { renderLabelsPdf } = await import('./labels.pdf');
       return renderLabelsPdf(labels, sheet, body.start);
     },
 

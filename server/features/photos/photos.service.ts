@@ -3,10 +3,12 @@ import fs from 'node:fs/promises';
 import path from 'node:path';
 import { and, eq } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
-import sharp from 'sharp';
 import { animals, eventPhotos, events } from '../../db/schema/animals';
 import { HttpError } from '../../middleware/errors';
 import { imageTypeOf, isPlainFileName } from './image-type';
+
+// sharp and libvips (~28 MB resident) load with the first photo, not with the server.
+const loadSharp = async () => (await import('sharp')).default;
 
 export const MAX_PHOTO_BYTES = 10 * 1024 * 1024;
 export const PHOTO_SIZES = { full: 1600, thumb: 320 } as const;
@@ -42,7 +44,7 @@ export function createPhotosService(db: NodePgDatabase, storageDir: string, now:
     let images: Buffer[];
     try {
       images = await Promise.all(
-        Object.values(PHOTO_SIZES).map((px) => sharp(file.buffer, { failOn: 'error' }).rotate().resize(px, px, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer()),
+        Object.values(PHOTO_SIZES).map(async (px) => (await loadSharp())(file.buffer, { failOn: 'error' }).rotate().resize(px, px, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer()),
       );
     } catch {
       throw new HttpError(415, 'not_an_image', 'That image could not be read. It may be damaged; try another photo.');
@@ -67,7 +69,7 @@ export function createPhotosService(db: NodePgDatabase, storageDir: string, now:
     const key = randomUUID();
     let thumb: Buffer;
     try {
-      thumb = await sharp(webp, { failOn: 'error' }).resize(PHOTO_SIZES.thumb, PHOTO_SIZES.thumb, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer();
+      thumb = await (await loadSharp())(webp, { failOn: 'error' }).resize(PHOTO_SIZES.thumb, PHOTO_SIZES.thumb, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer();
     } catch {
       throw new HttpError(422, 'invalid', 'A photo in this backup could not be read.');
     }

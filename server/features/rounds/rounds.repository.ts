@@ -4,7 +4,7 @@ import type { AnimalState, EngineEvent } from '../../../shared/domain/rounds/ani
 import type { Db } from '../../db/client';
 import { animals, events } from '../../db/schema/animals';
 import { collections, locations } from '../../db/schema/collections';
-import { animalStates, roundItems, rounds } from '../../db/schema/rounds';
+import { animalStates, collectionRevisions, roundItems, rounds } from '../../db/schema/rounds';
 import { users } from '../../db/schema/users';
 
 export async function findCollection(db: Db, collectionId: string) {
@@ -103,6 +103,12 @@ export async function upsertUrgentItem(db: Db, item: NewRoundItem) {
     .onConflictDoUpdate({ target: [roundItems.roundId, roundItems.animalId], set: { tasks: item.tasks, notes: item.notes, addedDuringDay: true } });
 }
 
+/** The collection's change counters (kept by triggers; zero before its first change). */
+export async function findRevision(db: Db, collectionId: string): Promise<{ records: number; events: number }> {
+  const [row] = await db.select({ records: collectionRevisions.records, events: collectionRevisions.events }).from(collectionRevisions).where(eq(collectionRevisions.collectionId, collectionId));
+  return row ?? { records: 0, events: 0 };
+}
+
 /** A round's items with their animals; only some animals' items when `animalIds` is given. */
 export async function loadRoundItems(db: Db, roundId: string, animalIds?: string[]) {
   return db
@@ -115,13 +121,16 @@ export async function loadRoundItems(db: Db, roundId: string, animalIds?: string
     .orderBy(asc(roundItems.sortIndex));
 }
 
-/** A collection's events in [from, to) with who recorded them: the day's outcomes. */
+/**
+ * A collection's events in [from, to) with who recorded them: the day's outcomes. Plain SQL
+ * with only the fields a round shows (not the whole payload): it runs whenever a tap lands.
+ */
 export async function loadOutcomes(db: Db, collectionId: string, from: Date, to: Date) {
-  return db
-    .select({ id: events.id, animalId: events.animalId, kind: events.kind, effectiveAt: events.effectiveAt, payload: events.payload, by: users.displayName })
-    .from(events)
-    .leftJoin(users, eq(users.id, events.recordedBy))
-    .where(and(eq(events.collectionId, collectionId), gte(events.effectiveAt, from), lt(events.effectiveAt, to)));
+  const { rows } = await db.execute<{ id: string; animal_id: string; kind: string; effective_at: Date; target_id: string | null; by: string | null }>(sql`
+    select e.id, e.animal_id, e.kind, e.effective_at, e.payload ->> 'targetId' as target_id, u.display_name as by
+    from ${events} e left join ${users} u on u.id = e.recorded_by
+    where e.collection_id = ${collectionId} and e.effective_at >= ${from.toISOString()} and e.effective_at < ${to.toISOString()}`);
+  return rows.map((r) => ({ id: r.id, animalId: r.animal_id, kind: r.kind, effectiveAt: new Date(r.effective_at), targetId: r.target_id, by: r.by }));
 }
 
 /** Each collection with the date of its newest built round (null when none). */

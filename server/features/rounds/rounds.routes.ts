@@ -16,8 +16,20 @@ export function roundsRoutes(rounds: RoundsService, animals: AnimalsService, mem
   const collectionId = (res: Parameters<RequestHandler>[1]) => membershipOf(res).collectionId;
 
   // Helpers may read today's round during their cover; everything else is for keepers.
-  router.get('/rounds/today', member('helper'), async (_req, res) => {
-    res.json(await rounds.todayRound(collectionId(res)));
+  router.get('/rounds/today', member('helper'), async (req, res) => {
+    const m = membershipOf(res);
+    const round = await rounds.todayRoundSerialised(m.collectionId, m.revision);
+    // Always revalidated (the round changes with every tap), answered 304 while unchanged.
+    res.setHeader('Cache-Control', 'private, no-cache');
+    res.setHeader('ETag', round.etag);
+    res.vary('Accept-Encoding');
+    res.type('application/json');
+    if (req.fresh) return void res.status(304).end();
+    if (req.acceptsEncodings('gzip', 'identity') === 'gzip') {
+      res.setHeader('Content-Encoding', 'gzip');
+      return void res.send(round.gzip());
+    }
+    res.send(round.json);
   });
 
   router.get('/rounds/tomorrow', member('keeper'), async (_req, res) => {

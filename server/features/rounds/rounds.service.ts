@@ -37,10 +37,12 @@ import { handoverNotes } from '../../db/schema/animals';
 import { HttpError } from '../../middleware/errors';
 import { toAnimalSummary } from '../animals/animal-summary';
 import { refoldStates } from './projection';
+import { LatestByKey, serialiseRound, type SerialisedRound } from './round-cache';
 import {
   claimRound,
   collectionsWithLatestRound,
   findCollection,
+  findRevision,
   findRound,
   insertRoundItems,
   updateCollectionRules,
@@ -53,6 +55,7 @@ import {
 } from './rounds.repository';
 
 type Collection = NonNullable<Awaited<ReturnType<typeof findCollection>>>;
+type Revision = Awaited<ReturnType<typeof findRevision>>;
 
 /** `withAddedOn`: the join date only matters for an animal never fed, and costs a zone lookup. */
 function toEngineAnimal(row: AnimalRow, zone: string, withAddedOn = true): EngineAnimal {
@@ -130,45 +133,50 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
     );
     const map = new Map<string, DayOutcome[]>();
     for (const r of rows) {
-      const payload = r.payload as { targetId?: unknown };
       const outcome: DayOutcome = {
         eventId: r.id,
         kind: r.kind as DayOutcome['kind'],
         at: r.effectiveAt.toISOString(),
         by: r.by,
-        voids: typeof payload.targetId === 'string' ? payload.targetId : null,
+        voids: r.targetId,
       };
-      map.set(r.animalId, [...(map.get(r.animalId) ?? []), outcome]);
+      const list = map.get(r.animalId);
+      if (list) list.push(outcome);
+      else map.set(r.animalId, [outcome]);
     }
     return map;
+  }
+
+  type ViewInput = {
+    animal: EngineAnimal;
+    tasks: RoundTask[];
+    notes: RoundItem['notes'];
+    carriedOverDays: number;
+    addedDuringDay: boolean;
+  };
+
+  function viewItem(c: Collection, item: ViewInput, outcomes: DayOutcome[]): RoundItemView {
+    const settled = settleItem(item.tasks, outcomes, c.timeZone);
+    return {
+      animal: animalView(item.animal),
+      tasks: settled.tasks,
+      notes: item.notes,
+      carriedOverDays: item.carriedOverDays,
+      addedDuringDay: item.addedDuringDay,
+      outcomes: settled.outcomes,
+      warnings: settled.warnings,
+    };
   }
 
   function view(
     c: Collection,
     date: LocalDate,
     builtAt: Date | null,
-    items: {
-      animal: EngineAnimal;
-      tasks: RoundTask[];
-      notes: RoundItem['notes'];
-      carriedOverDays: number;
-      addedDuringDay: boolean;
-    }[],
+    items: ViewInput[],
     prepList: RoundResponse['prepList'],
     outcomes: Map<string, DayOutcome[]>,
   ): RoundResponse {
-    const viewItems = items.map((item) => {
-      const settled = settleItem(item.tasks, outcomes.get(item.animal.id) ?? [], c.timeZone);
-      return {
-        animal: animalView(item.animal),
-        tasks: settled.tasks,
-        notes: item.notes,
-        carriedOverDays: item.carriedOverDays,
-        addedDuringDay: item.addedDuringDay,
-        outcomes: settled.outcomes,
-        warnings: settled.warnings,
-      };
-    });
+    const viewItems = items.map((item) => viewItem(c, item, outcomes.get(item.animal.id) ?? []));
     return {
       date,
       timeZone: c.timeZone,
@@ -177,6 +185,28 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
       prepList,
       progress: progressOf(viewItems),
     };
+  }
+
+  // Each built item's view and its JSON, kept while its outcomes (and who recorded them) stand:
+  // after a tap only the tapped animals' items are settled and serialised again.
+  const itemJson = new WeakMap<ViewInput, { signature: string; view: RoundItemView; json: string }>();
+
+  /** The same JSON as `JSON.stringify(view(...))`, reusing unchanged items' text. */
+  function viewJson(c: Collection, date: LocalDate, part: Awaited<ReturnType<typeof builtPart>>, outcomes: Map<string, DayOutcome[]>): string {
+    const entries = part.items.map((item) => {
+      const own = outcomes.get(item.animal.id) ?? [];
+      const signature = own.map((o) => `${o.eventId}:${o.by ?? ''}`).join(',');
+      let entry = itemJson.get(item);
+      if (entry?.signature !== signature) {
+        const v = viewItem(c, item, own);
+        entry = { signature, view: v, json: JSON.stringify(v) };
+        itemJson.set(item, entry);
+      }
+      return entry;
+    });
+    const head = { date, timeZone: c.timeZone, builtAt: part.builtAt?.toISOString() ?? null };
+    const tail = { prepList: part.prepList, progress: progressOf(entries.map((e) => e.view)) };
+    return `${JSON.stringify(head).slice(0, -1)},"items":[${entries.map((e) => e.json).join(',')}],${JSON.stringify(tail).slice(1)}`;
   }
 
   async function buildFor(c: Collection, date: LocalDate): Promise<{ created: boolean }> {
@@ -200,7 +230,8 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
     });
   }
 
-  async function roundFor(c: Collection, date: LocalDate): Promise<RoundResponse> {
+  /** The built part of a day's round (built now if need be): what changes with the records. */
+  async function builtPart(c: Collection, date: LocalDate) {
     let row = await findRound(db, c.id, date);
     if (!row) {
       await buildFor(c, date);
@@ -217,15 +248,20 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
       carriedOverDays: r.item.carriedOverDays,
       addedDuringDay: r.item.addedDuringDay,
     }));
-    return view(
-      c,
-      date,
-      row.builtAt,
-      items,
-      row.prepList as RoundResponse['prepList'],
-      await outcomesByAnimal(c, date),
-    );
+    return { builtAt: row.builtAt, prepList: row.prepList as RoundResponse['prepList'], items };
   }
+
+  async function roundFor(c: Collection, date: LocalDate): Promise<RoundResponse> {
+    const part = await builtPart(c, date);
+    return view(c, date, part.builtAt, part.items, part.prepList, await outcomesByAnimal(c, date));
+  }
+
+  // Today's round per collection, kept while the collection's change counters stand still:
+  // the built part across new events, the serialised whole until anything changes.
+  const builtParts = new LatestByKey<Awaited<ReturnType<typeof builtPart>>>(500);
+  const serialised = new LatestByKey<SerialisedRound>(500);
+  // Settings and time zone change only with the records counter.
+  const collectionCache = new LatestByKey<Collection>(500);
 
   const service = {
     today(c: { timeZone: string }): LocalDate {
@@ -250,6 +286,21 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
     /** The round for a date as it stands: built items, settled by the day's outcomes. */
     async round(collectionId: string, date: LocalDate): Promise<RoundResponse> {
       return roundFor(await collectionOf(collectionId), date);
+    },
+
+    /** Today's round as JSON bytes with an ETag, shared by every request until it changes. */
+    async todayRoundSerialised(collectionId: string, counters?: Revision): Promise<SerialisedRound> {
+      // The counters first (the membership check read them already): whatever is loaded after
+      // them is at least as new as they say.
+      const revision = counters ?? (await findRevision(db, collectionId));
+      const c = await collectionCache.get(collectionId, String(revision.records), () => collectionOf(collectionId));
+      const date = service.today(c);
+      const partKey = `${date}|${revision.records}`;
+      const key = `${collectionId}|${partKey}|${revision.events}`;
+      return serialised.get(collectionId, key, async () => {
+        const part = await builtParts.get(collectionId, partKey, () => builtPart(c, date));
+        return serialiseRound(key, viewJson(c, date, part, await outcomesByAnimal(c, date)));
+      });
     },
 
     async todayRound(collectionId: string) {
