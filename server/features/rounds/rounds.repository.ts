@@ -1,4 +1,4 @@
-import { and, asc, eq, gte, inArray, lt, sql } from 'drizzle-orm';
+import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import type { LocalDate } from '../../../shared/domain/local-dates';
 import type { AnimalState, EngineEvent } from '../../../shared/domain/rounds/animal-state';
 import type { Db } from '../../db/client';
