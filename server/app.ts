@@ -132,7 +132,7 @@ export function createApp(options: AppOptions) {
   class ThrottledTouchStore extends PgStore {
     private readonly touchedAt = new Map<string, number>();
     override touch(sid: string, sess: session.SessionData, done?: (err?: unknown) => void) {
-      const at = Date.now();
+      const at = now().getTime();
       if (at - (this.touchedAt.get(sid) ?? 0) < SESSION_TOUCH_EVERY_MS) return done?.();
       if (this.touchedAt.size > 50_000) this.touchedAt.clear();
       this.touchedAt.set(sid, at);

@@ -5,7 +5,8 @@ import { timeZone } from './common';
 
 /** bcrypt reads at most 72 bytes (OWASP Password Storage Cheat Sheet, "bcrypt"). */
 export const PASSWORD_MAX_BYTES = 72;
-export const PASSWORD_MIN_CHARS = 8;
+// OWASP ASVS 4.0.3 2.1.1: at least 12 characters.
+export const PASSWORD_MIN_CHARS = 12;
 
 export const email = z
   .string()

@@ -8,6 +8,7 @@ import { readCsv } from '../../shared/domain/csv/csv-file';
 import type { AnimalInput } from '../../shared/schemas/animals';
 import { addMember, animalBody, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
+import { withOriginalIds } from '../support/backup-compare';
 
 let ctx: TestContext;
 let owner: SignedUp;
@@ -237,16 +238,7 @@ describe('full backup and restore', () => {
     const copy = (await to.agent.get(`${base(to)}/backup`).expect(200)).body;
 
     // Ids are new; everything else, undo targets included, is the same.
-    const ids = new Map<string, string>();
-    const pair = (x: { id: string }[], y: { id: string }[]) => x.forEach((v, i) => ids.set(y[i]!.id, v.id));
-    pair(backup.locations, copy.locations);
-    pair(backup.animals, copy.animals);
-    // Events sharing a time come in id order, and ids are new: pair them by what they are.
-    const byWhat = <T extends { id: string; effectiveAt: string; kind: string }>(list: T[]) => [...list].sort((x, y) => `${x.effectiveAt}${x.kind}`.localeCompare(`${y.effectiveAt}${y.kind}`));
-    pair(byWhat(backup.events), byWhat(copy.events));
-    copy.events = byWhat(copy.events);
-    backup.events = byWhat(backup.events);
-    const back = JSON.parse(JSON.stringify(copy, (_k, v) => (typeof v === 'string' && ids.has(v) ? ids.get(v) : v)));
+    const back = withOriginalIds(backup, copy);
     expect({ ...back, exportedAt: null, collection: null }).toEqual({ ...backup, exportedAt: null, collection: null });
     expect(back.collection.rules).toEqual(backup.collection.rules);
     expect(copy.animals.find((x: { name: string }) => x.name === 'Juniper').photo).toBe(backup.animals.find((x: { name: string }) => x.name === 'Juniper').photo);

@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
-import { signUpBody } from '#shared/schemas/auth';
+import { PASSWORD_MIN_CHARS, signUpBody } from '#shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
@@ -50,7 +50,7 @@ export function SignUpForm({ onSignedUp }: { onSignedUp: () => void }) {
         label="Password"
         type="password"
         autoComplete="new-password"
-        hint="At least 8 characters. A few words you will remember work well."
+        hint={`At least ${PASSWORD_MIN_CHARS} characters. A few words you will remember work well.`}
         error={e.password?.message}
         {...register('password')}
       />
