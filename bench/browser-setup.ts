@@ -4,6 +4,7 @@ import { execFileSync } from 'node:child_process';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import react from '@vitejs/plugin-react';
+import compression from 'compression';
 import express from 'express';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { build } from 'vite';
@@ -44,6 +45,8 @@ export async function ensureBuilds() {
 /** Serves the minimal shell the way our server serves the app (sw.js and pages uncached). */
 export async function serveMinimalShell() {
   const app = express();
+  // Compressed like the app itself, so the comparison is of the apps, not of the servers.
+  app.use(compression());
   app.use(
     express.static(minimalDir, {
       setHeaders: (res, file) => {

@@ -1,5 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import path from 'node:path';
+import compression from 'compression';
 import connectPgSimple from 'connect-pg-simple';
 import express, { type RequestHandler } from 'express';
 import session from 'express-session';
@@ -102,6 +103,9 @@ export function createApp(options: AppOptions) {
       crossOriginEmbedderPolicy: false,
     }),
   );
+  // gzip for the app's JavaScript, CSS and JSON: a first visit over a slow mobile link moves
+  // about a third of the bytes (P3). Today's round arrives already gzipped from its cache.
+  app.use(compression());
   app.use((_req, res, next) => {
     res.setHeader('Permissions-Policy', 'camera=(self), microphone=(), geolocation=()');
     next();

@@ -1,6 +1,6 @@
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { PASSWORD, sessionCookie, signUp } from '../factories';
+import { createAnimal, PASSWORD, sessionCookie, signUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
 let ctx: TestContext;
@@ -16,6 +16,16 @@ describe('API basics', () => {
     const res = await supertest(ctx.app).get('/api/health').expect(200);
     expect(res.body).toMatchObject({ status: 'ok', database: 'up' });
     expect(res.headers['x-request-id']).toMatch(/^[0-9a-f-]{36}$/);
+  });
+
+  it('gzips responses for clients that accept it (RFC 9110 §8.4.1)', async () => {
+    const who = await signUp(ctx);
+    for (let i = 0; i < 30; i++) await createAnimal(ctx.database.db, who.collectionId, { name: `Gzip ${i}` });
+    const zipped = await who.agent.get(`/api/collections/${who.collectionId}/animals`).set('Accept-Encoding', 'gzip').expect(200);
+    expect(zipped.headers['content-encoding']).toBe('gzip');
+    expect(zipped.body.animals).toHaveLength(30);
+    const plain = await who.agent.get(`/api/collections/${who.collectionId}/animals`).set('Accept-Encoding', 'identity').expect(200);
+    expect(plain.headers['content-encoding']).toBeUndefined();
   });
 
   it('answers an unknown /api route with JSON 404', async () => {
