@@ -14,11 +14,17 @@ export interface Figure {
 
 const root = path.resolve(import.meta.dirname, '..');
 
-/** Writes bench/results/latest.json and appends the run to docs/benchmarks.md (the history). */
+/** Updates bench/results/latest.json and appends the run to docs/benchmarks.md (the history). */
 export function recordFigures(figures: Figure[], command: string, notes: string[]) {
   const dir = path.join(root, 'bench', 'results');
   fs.mkdirSync(dir, { recursive: true });
-  fs.writeFileSync(path.join(dir, 'latest.json'), `${JSON.stringify(figures, null, 2)}\n`);
+  // The newest figures of every benchmark: this run's replace those with the same ids, the
+  // others stay from their own latest run.
+  const file = path.join(dir, 'latest.json');
+  const ran = new Set(figures.map((f) => f.id));
+  const kept = fs.existsSync(file) ? (JSON.parse(fs.readFileSync(file, 'utf8')) as Figure[]).filter((f) => !ran.has(f.id)) : [];
+  const all = [...kept, ...figures].sort((a, b) => a.id.localeCompare(b.id, 'en', { numeric: true }));
+  fs.writeFileSync(file, `${JSON.stringify(all, null, 2)}\n`);
   const history = path.join(root, 'docs', 'benchmarks.md');
   if (!fs.existsSync(history)) {
     fs.writeFileSync(history, '# Benchmarks\n\nEvery run of `npm run bench` appends its figures here (newest last). Targets are in the budgets document; medians over several runs on a shared 2-core machine.\n');
