@@ -2,6 +2,7 @@
 import { spawn } from 'node:child_process';
 import path from 'node:path';
 import { localSessionSecret } from './lib/secrets.mjs';
+import { SERVER_NODE_FLAGS } from './lib/server-flags.mjs';
 import { ensureNodeModules, prepareDatabase, repoRoot, run, runTs, say, stopCluster } from './lib/setup.mjs';
 
 const began = Date.now();
@@ -26,8 +27,8 @@ run(path.join(repoRoot, 'node_modules', '.bin', 'vite'), ['build', '--logLevel',
 runTs('scripts/build-server.ts', [], env);
 say(`Ready to serve after ${((Date.now() - began) / 1000).toFixed(1)} s of set-up.`);
 
-// The bundled server (scripts/build-server.ts), run by node itself; source maps for stack traces.
-const server = spawn(process.execPath, ['--enable-source-maps', path.join(repoRoot, 'dist-server', 'index.mjs')], {
+// The bundled server (scripts/build-server.ts), run by node itself.
+const server = spawn(process.execPath, [...SERVER_NODE_FLAGS, path.join(repoRoot, 'dist-server', 'index.mjs')], {
   cwd: repoRoot,
   env,
   stdio: 'inherit',

@@ -6,6 +6,7 @@ import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { buildServer } from '../../scripts/build-server';
+import { SERVER_NODE_FLAGS } from '../../scripts/lib/server-flags.mjs';
 
 const repoRoot = path.resolve(import.meta.dirname, '../..');
 
@@ -60,7 +61,7 @@ export async function startServerProcess(options: { databaseUrl: string; port?: 
   const storage = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-proc-'));
   // The production bundle, run by node itself, so a signal reaches the server directly.
   const bundle = await bundleOnce();
-  const child = spawn(process.execPath, [...(options.nodeArgs ?? []), '--enable-source-maps', bundle], {
+  const child = spawn(process.execPath, [...(options.nodeArgs ?? []), ...SERVER_NODE_FLAGS, bundle], {
     cwd: repoRoot,
     env: {
       PATH: process.env.PATH ?? '',

@@ -258,8 +258,10 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
 
   // Today's round per collection, kept while the collection's change counters stand still:
   // the built part across new events, the serialised whole until anything changes.
-  const builtParts = new LatestByKey<Awaited<ReturnType<typeof builtPart>>>(500);
-  const serialised = new LatestByKey<SerialisedRound>(500);
+  // At most 32 collections each (a 500-animal round is ~2 MB with its parts and JSON), well
+  // within the server's 160 MB heap (scripts/lib/server-flags.mjs); others are rebuilt on use.
+  const builtParts = new LatestByKey<Awaited<ReturnType<typeof builtPart>>>(32);
+  const serialised = new LatestByKey<SerialisedRound>(32);
   // Settings and time zone change only with the records counter.
   const collectionCache = new LatestByKey<Collection>(500);
 
