@@ -15,6 +15,13 @@ describe('the app shell at 360 × 740', () => {
 
     await page.getByLabel('E-mail').fill('owner@northlight.test');
     await page.getByLabel('Password').fill(DEMO_PASSWORD);
+    // The typed password can be checked before signing in (OWASP ASVS 4.0.3 2.1.12).
+    await page.getByRole('button', { name: 'Show password' }).click();
+    expect(await page.getByLabel('Password').getAttribute('type')).toBe('text');
+    expect(await page.getByRole('button', { name: 'Hide password' }).getAttribute('aria-pressed')).toBe('true');
+    await screenshot(page, 'foundation-01b-password-shown');
+    await page.getByRole('button', { name: 'Hide password' }).click();
+    expect(await page.getByLabel('Password').getAttribute('type')).toBe('password');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL('**/today');
     await expect.poll(() => page.getByText('Northlight Inverts').first().isVisible()).toBe(true);

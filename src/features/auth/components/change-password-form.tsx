@@ -4,7 +4,7 @@ import type { z } from 'zod';
 import { changePasswordBody } from '#shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { TextField } from '@/components/ui/text-field';
+import { PasswordField } from '@/components/ui/password-field';
 import { useServerProblem } from '@/lib/form-errors';
 import { useChangePassword } from '../api/change-password';
 
@@ -30,16 +30,14 @@ export function ChangePasswordForm() {
       {change.isSuccess && (
         <Notice tone="ok" title="Password changed. Other devices were signed out." />
       )}
-      <TextField
+      <PasswordField
         label="Current password"
-        type="password"
         autoComplete="current-password"
         error={formState.errors.currentPassword?.message}
         {...register('currentPassword')}
       />
-      <TextField
+      <PasswordField
         label="New password"
-        type="password"
         autoComplete="new-password"
         error={formState.errors.newPassword?.message}
         {...register('newPassword')}

@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { newPassword } from '#shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { TextField } from '@/components/ui/text-field';
+import { PasswordField } from '@/components/ui/password-field';
 import { useServerProblem } from '@/lib/form-errors';
 import { useResetPassword } from '../api/reset-password';
 
@@ -33,16 +33,14 @@ export function ResetPasswordForm({ token, onDone }: { token: string; onDone: ()
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
       {problem && <Notice tone="error" title={problem} />}
-      <TextField
+      <PasswordField
         label="New password"
-        type="password"
         autoComplete="new-password"
         error={formState.errors.password?.message}
         {...register('password')}
       />
-      <TextField
+      <PasswordField
         label="New password again"
-        type="password"
         autoComplete="new-password"
         error={formState.errors.repeat?.message}
         {...register('repeat')}

@@ -4,6 +4,7 @@ import type { z } from 'zod';
 import { signInBody } from '#shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
+import { PasswordField } from '@/components/ui/password-field';
 import { TextField } from '@/components/ui/text-field';
 import { useServerProblem } from '@/lib/form-errors';
 import { useDemoInfo } from '../api/get-demo-info';
@@ -40,9 +41,8 @@ export function SignInForm({ onSignedIn }: { onSignedIn: () => void }) {
         error={formState.errors.email?.message}
         {...register('email')}
       />
-      <TextField
+      <PasswordField
         label="Password"
-        type="password"
         autoComplete="current-password"
         error={formState.errors.password?.message}
         {...register('password')}

@@ -4,6 +4,7 @@ import type { z } from 'zod';
 import { PASSWORD_MIN_CHARS, signUpBody } from '#shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
+import { PasswordField } from '@/components/ui/password-field';
 import { TextField } from '@/components/ui/text-field';
 import { useServerProblem } from '@/lib/form-errors';
 import { useSignUp } from '../api/sign-up';
@@ -46,9 +47,8 @@ export function SignUpForm({ onSignedUp }: { onSignedUp: () => void }) {
         error={e.email?.message}
         {...register('email')}
       />
-      <TextField
+      <PasswordField
         label="Password"
-        type="password"
         autoComplete="new-password"
         hint={`At least ${PASSWORD_MIN_CHARS} characters. A few words you will remember work well.`}
         error={e.password?.message}

@@ -3,6 +3,7 @@ import { Link } from 'react-router-dom';
 import { PASSWORD_MIN_CHARS, type MeResponse } from '#shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
+import { PasswordField } from '@/components/ui/password-field';
 import { Loading } from '@/components/ui/spinner';
 import { TextField } from '@/components/ui/text-field';
 import { ApiError } from '@/lib/api-client';
@@ -65,7 +66,7 @@ export function AcceptInvite({ token, me, onAccepted }: Props) {
         >
           <p>Make your account: it works only for these days in this collection.</p>
           <TextField label="Your name" autoComplete="name" value={account.displayName} onChange={(e) => setAccount((a) => ({ ...a, displayName: e.target.value }))} />
-          <TextField label="Password" type="password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN_CHARS} characters. A few words you will remember work well.`} value={account.password} onChange={(e) => setAccount((a) => ({ ...a, password: e.target.value }))} />
+          <PasswordField label="Password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN_CHARS} characters. A few words you will remember work well.`} value={account.password} onChange={(e) => setAccount((a) => ({ ...a, password: e.target.value }))} />
           <Button type="submit" busy={state.busy}>
             Accept the cover
           </Button>
