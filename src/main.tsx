@@ -8,8 +8,6 @@ import { AppProvider } from './app/provider';
 import { AppRouter } from './app/router';
 import { withDb } from './lib/db';
 import { applyTheme, storedTheme } from './lib/theme';
-// Plain-language messages for the shared schemas' built-in checks, in every form.
-import '../shared/schemas/messages';
 
 applyTheme(storedTheme());
 // Open the phone's database while React starts: the first screen reads from it (P2).

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { ANIMAL_GROUPS, ANIMAL_STATUSES, LIFE_STAGES, SEXES } from '../domain/animal-facts';
 import { EVENT_KINDS } from '../domain/event-kinds';
+import './messages';
 
 export const BACKUP_FORMAT = 'rackside-backup';
 export const BACKUP_VERSION = 1;

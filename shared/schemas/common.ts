@@ -1,5 +1,8 @@
 import { z } from 'zod';
 import { isIanaTimeZone } from '../domain/time-zone';
+// Plain-language messages for zod's built-in checks, set up wherever the schemas are loaded
+// (not in the client's first chunk, which ships without zod: P2, P4).
+import './messages';
 
 export const uuid = z.uuid({ message: 'This id is not valid.' });
 
