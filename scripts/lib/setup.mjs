@@ -57,7 +57,7 @@ function aptInstall(packages, why) {
 }
 
 /** The folder holding pg_ctl and initdb: on PATH, or Debian's versioned folder. */
-function findPostgresBin() {
+export function findPostgresBin() {
   if (commandExists('pg_ctl') && commandExists('initdb')) {
     return path.dirname(execFileSync('sh', ['-c', 'command -v pg_ctl']).toString().trim());
   }
@@ -106,7 +106,7 @@ function clusterRoot() {
   return path.join('/var/lib/rackside', tag);
 }
 
-function asPostgres(cmd, args) {
+export function asPostgres(cmd, args) {
   const full = isRoot ? ['runuser', ['-u', 'postgres', '--', cmd, ...args]] : [cmd, args];
   // cwd '/': the postgres user may not be allowed into the caller's folder.
   const result = spawnSync(full[0], full[1], { encoding: 'utf8', cwd: '/' });

@@ -7,15 +7,16 @@ import os from 'node:os';
 import path from 'node:path';
 import { buildServer } from '../../scripts/build-server';
 import { SERVER_NODE_FLAGS } from '../../scripts/lib/server-flags.mjs';
+import { repoRoot } from '../../server/repo-root';
 
-const repoRoot = path.resolve(import.meta.dirname, '../..');
+const root = repoRoot();
 
 // Built from the current source once per test process (about 0.1 s), in a folder of its own:
 // test files run in parallel processes.
 let bundled: Promise<string> | undefined;
 const bundleOnce = () => {
   if (!bundled) {
-    const parent = path.join(repoRoot, 'dist-server');
+    const parent = path.join(root, 'dist-server');
     // Test workers end without an exit hook running: sweep the folders of finished ones.
     for (const old of fs.existsSync(parent) ? fs.readdirSync(parent).filter((d) => d.startsWith('test-')) : []) {
       if (!isRunning(Number(old.slice(5)))) fs.rmSync(path.join(parent, old), { recursive: true, force: true });
@@ -62,7 +63,7 @@ export async function startServerProcess(options: { databaseUrl: string; port?: 
   // The production bundle, run by node itself, so a signal reaches the server directly.
   const bundle = await bundleOnce();
   const child = spawn(process.execPath, [...(options.nodeArgs ?? []), ...SERVER_NODE_FLAGS, bundle], {
-    cwd: repoRoot,
+    cwd: root,
     env: {
       PATH: process.env.PATH ?? '',
       NODE_ENV: 'production',

@@ -4,7 +4,7 @@ import type { AnimalState, EngineEvent } from '../../../shared/domain/rounds/ani
 import type { Db } from '../../db/client';
 import { animals, events } from '../../db/schema/animals';
 import { collections, locations } from '../../db/schema/collections';
-import { animalStates, collectionRevisions, roundItems, rounds } from '../../db/schema/rounds';
+import { animalStates, roundItems, rounds } from '../../db/schema/rounds';
 import { users } from '../../db/schema/users';
 
 export async function findCollection(db: Db, collectionId: string) {
@@ -101,12 +101,6 @@ export async function upsertUrgentItem(db: Db, item: NewRoundItem) {
     .insert(roundItems)
     .values(item)
     .onConflictDoUpdate({ target: [roundItems.roundId, roundItems.animalId], set: { tasks: item.tasks, notes: item.notes, addedDuringDay: true } });
-}
-
-/** The collection's change counters (kept by triggers; zero before its first change). */
-export async function findRevision(db: Db, collectionId: string): Promise<{ records: number; events: number }> {
-  const [row] = await db.select({ records: collectionRevisions.records, events: collectionRevisions.events }).from(collectionRevisions).where(eq(collectionRevisions.collectionId, collectionId));
-  return row ?? { records: 0, events: 0 };
 }
 
 /** A round's items with their animals; only some animals' items when `animalIds` is given. */

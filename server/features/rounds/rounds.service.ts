@@ -42,7 +42,6 @@ import {
   claimRound,
   collectionsWithLatestRound,
   findCollection,
-  findRevision,
   findRound,
   insertRoundItems,
   updateCollectionRules,
@@ -55,7 +54,6 @@ import {
 } from './rounds.repository';
 
 type Collection = NonNullable<Awaited<ReturnType<typeof findCollection>>>;
-type Revision = Awaited<ReturnType<typeof findRevision>>;
 
 /** `withAddedOn`: the join date only matters for an animal never fed, and costs a zone lookup. */
 function toEngineAnimal(row: AnimalRow, zone: string, withAddedOn = true): EngineAnimal {
@@ -291,10 +289,9 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
     },
 
     /** Today's round as JSON bytes with an ETag, shared by every request until it changes. */
-    async todayRoundSerialised(collectionId: string, counters?: Revision): Promise<SerialisedRound> {
-      // The counters first (the membership check read them already): whatever is loaded after
+    async todayRoundSerialised(collectionId: string, revision: { records: number; events: number }): Promise<SerialisedRound> {
+      // The counters come first (the membership check read them): whatever is loaded after
       // them is at least as new as they say.
-      const revision = counters ?? (await findRevision(db, collectionId));
       const c = await collectionCache.get(collectionId, String(revision.records), () => collectionOf(collectionId));
       const date = service.today(c);
       const partKey = `${date}|${revision.records}`;
