@@ -47,6 +47,19 @@ export type ReasonCode =
   | 'inactive'
   | 'not_due';
 
+/**
+ * Reasons that withhold food (R4, R3, R5, R11, handover and keeper holds): when one of them
+ * starts during the day, that day's open feed task is withdrawn with the reason in its place
+ * (R18). "No double meal" and "prey inside" are not holds: they settle, they do not forbid.
+ */
+export const FEED_HOLD_CODES: ReadonlySet<ReasonCode> = new Set<ReasonCode>([
+  'premolt',
+  'possible_premolt',
+  'post_molt_hold',
+  'do_not_feed',
+  'leave_alone',
+]);
+
 /** Why a task is on the round, or why food is held back: a code, a sentence, its dates. */
 export interface Reason {
   code: ReasonCode;
