@@ -50,8 +50,8 @@ describe('animals: create, edit, retire, move', () => {
   it('refuses bad input field by field with a readable message', async () => {
     const cases: [Partial<AnimalInput> | Record<string, unknown>, RegExp][] = [
       [{ name: '' }, /Give the animal a name/],
-      [{ scientificName: 'brachypelma hamorii' }, /Did you mean “Brachypelma hamorii”\?/],
-      [{ scientificName: 'Brachypelma' }, /two parts/],
+      [{ scientificName: 'monocentropus balfouri' }, /Did you mean “Monocentropus balfouri”\?/],
+      [{ scientificName: 'Monocentropus' }, /two parts/],
       [{ sizeMm: 0 }, /above 0/],
       [{ sizeMm: 900 }, /400 mm at most/],
       [{ group: 'fish' }, /Choose a group/],

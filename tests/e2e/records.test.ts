@@ -19,7 +19,7 @@ function spreadsheet(): { file: string; badLines: number[] } {
     const row: Record<string, string> = Object.fromEntries(ANIMAL_COLUMNS.map((c) => [c, '']));
     Object.assign(row, {
       name: `Import ${String(i + 1).padStart(3, '0')}`,
-      scientific_name: 'Neoholothele incei (F. O. Pickard-Cambridge, 1899)',
+      scientific_name: 'Kochiana brunnipes (C. L. Koch, 1842)',
       group: 'tarantula',
       stage: 'sling',
       size_mm: String(8 + (i % 10)),
@@ -32,7 +32,7 @@ function spreadsheet(): { file: string; badLines: number[] } {
     });
     return row;
   });
-  rows[49]!.scientific_name = 'neoholothele incei';
+  rows[49]!.scientific_name = 'kochiana brunnipes';
   rows[119]!.stage = 'teenager';
   rows[179]!.size_mm = 'big';
   const file = path.join(tmp, 'collection.csv');
@@ -107,7 +107,7 @@ describe('collection records at 360 px', () => {
     expect(await problems.count()).toBe(3);
     const texts = await problems.allInnerTexts();
     expect(texts.map((t) => Number(/^Line (\d+):/.exec(t)?.[1]))).toEqual(badLines);
-    expect(texts[0]).toContain('Did you mean “Neoholothele incei”?');
+    expect(texts[0]).toContain('Did you mean “Kochiana brunnipes”?');
     expect(texts[1]).toMatch(/^Line 121: stage:/);
     expect(texts[2]).toMatch(/^Line 181: size_mm:/);
     await expectAccessible(page, 'import');

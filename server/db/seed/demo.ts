@@ -67,7 +67,7 @@ const JUVENILES: DemoAnimal[] = [
   { name: 'Ruby', scientificName: 'Tliltocatl vagans', commonName: 'Mexican red rump', group: 'tarantula', lifeStage: 'subadult', sex: 'female', sizeMm: 95, place: ['B', '2', '2'], cautions: ['urticating_hairs'], hasWaterDish: true },
   { name: 'Stripes', scientificName: 'Nhandu chromatus', commonName: 'Brazilian red and white', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 60, place: ['B', '2', '3'], cautions: ['urticating_hairs', 'fast_defensive'] },
   { name: 'Pebble', scientificName: 'Cyriocosmus elegans', commonName: 'Trinidad dwarf tiger', group: 'tarantula', lifeStage: 'sling', sex: 'unknown', sizeMm: 12, place: ['B', '3', '4'] },
-  { name: 'Flicker', scientificName: 'Neoholothele incei', commonName: 'Trinidad olive', group: 'tarantula', lifeStage: 'sling', sex: 'unknown', sizeMm: 15, place: ['B', '3', '5'], cautions: ['fast_defensive'] },
+  { name: 'Flicker', scientificName: 'Kochiana brunnipes', commonName: 'Brazilian dwarf beauty', group: 'tarantula', lifeStage: 'sling', sex: 'unknown', sizeMm: 15, place: ['B', '3', '5'] },
 ];
 
 function clutch(): DemoAnimal[] {

@@ -53,13 +53,13 @@ describe('the animal spreadsheet', () => {
   });
 
   it('names the column of each problem in a row', () => {
-    const bad = rowToAnimal({ name: '', scientific_name: 'brachypelma hamorii', group: 'fish', stage: 'adult', size_mm: 'big', cautions: 'bites' });
+    const bad = rowToAnimal({ name: '', scientific_name: 'monocentropus balfouri', group: 'fish', stage: 'adult', size_mm: 'big', cautions: 'bites' });
     expect(bad).toEqual({ ok: false, errors: ['Unknown caution “bites”: use potent_venom, urticating_hairs, fast_defensive, escape_risk.'] });
-    const worse = rowToAnimal({ name: '', scientific_name: 'brachypelma hamorii', group: 'fish', stage: 'adult', size_mm: 'big' });
+    const worse = rowToAnimal({ name: '', scientific_name: 'monocentropus balfouri', group: 'fish', stage: 'adult', size_mm: 'big' });
     expect(worse.ok).toBe(false);
     if (!worse.ok) {
       expect(worse.errors.map((e) => e.split(':')[0])).toEqual(['name', 'scientific_name', 'group', 'size_mm']);
-      expect(worse.errors[1]).toContain('Did you mean “Brachypelma hamorii”?');
+      expect(worse.errors[1]).toContain('Did you mean “Monocentropus balfouri”?');
     }
   });
 });
