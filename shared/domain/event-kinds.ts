@@ -63,3 +63,6 @@ export const EVENT_WORDS: Record<EventKind, string> = {
   moved: 'Moved',
   status_changed: 'Status changed',
 };
+
+/** The flag on a meal recorded while the round engine withheld food (R18): shown to the owner. */
+export const FED_WHILE_HELD = 'fed_while_held';

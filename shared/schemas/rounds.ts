@@ -22,6 +22,10 @@ export const roundTask = z.object({
   carriedOverDays: z.number(),
   /** The outcome that settled this task today, if any. */
   done: outcome.nullable(),
+  /** Withdrawn by a hold that began during the day (R18): the reason shown in its place. */
+  withdrawn: reason.nullable().optional(),
+  /** The server's own withdrawal (a handover note, a keeper's hold, a late fact). */
+  serverWithdrawn: reason.nullable().optional(),
 });
 export type RoundTaskView = z.infer<typeof roundTask>;
 
@@ -46,6 +50,8 @@ export const roundItem = z.object({
   outcomes: z.array(outcome),
   /** Plain-language warnings, e.g. two meals recorded on the same day by two people. */
   warnings: z.array(z.string()),
+  /** Days of post-molt hold for this animal, so a molt tapped offline shows its end date. */
+  postMoltHoldDays: z.number().int().optional(),
 });
 export type RoundItemView = z.infer<typeof roundItem>;
 
@@ -66,7 +72,7 @@ export type RoundResponse = z.infer<typeof roundResponse>;
 export const scheduleResponse = z.object({
   date: z.string(),
   onRound: z.boolean(),
-  tasks: z.array(roundTask.omit({ done: true })),
+  tasks: z.array(roundTask.omit({ done: true, withdrawn: true, serverWithdrawn: true })),
   notes: z.array(reason),
   nextFeed: z.string().nullable(),
   nextWater: z.string().nullable(),

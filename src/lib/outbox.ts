@@ -39,6 +39,8 @@ export interface TapEffect {
   animalId: string;
   item: RoundResponse['items'][number];
   doneDelta: number;
+  /** A hold that began with this tap withdraws tasks: fewer left to do (R18). */
+  totalDelta: number;
 }
 
 /**
@@ -58,9 +60,9 @@ export async function recordTap(db: RacksideDb, tap: Tap): Promise<TapEffect | n
   ]);
   let effect: TapEffect | null = null;
   if (stored) {
-    const { item, doneDelta } = itemWithOutcome(stored.item, outcomeOf(tap.event, tap.byName), stored.timeZone);
+    const { item, doneDelta, totalDelta } = itemWithOutcome(stored.item, outcomeOf(tap.event, tap.byName), stored.timeZone);
     void tx.objectStore('roundItems').put({ ...stored, item });
-    effect = { animalId: tap.event.animalId, item, doneDelta };
+    effect = { animalId: tap.event.animalId, item, doneDelta, totalDelta };
   }
   await done;
   return effect;
@@ -82,10 +84,15 @@ export async function recordTaps(db: RacksideDb, taps: readonly Tap[]): Promise<
       tx.objectStore('outbox').add({ userId: tap.userId, collectionId: tap.collectionId, animalName: tap.animalName, byName: tap.byName, event: tap.event }),
     ]);
     if (!stored) continue;
-    const { item, doneDelta } = itemWithOutcome(stored.item, outcomeOf(tap.event, tap.byName), stored.timeZone);
+    const { item, doneDelta, totalDelta } = itemWithOutcome(stored.item, outcomeOf(tap.event, tap.byName), stored.timeZone);
     await items.put({ ...stored, item });
     const before = effects.get(tap.event.animalId);
-    effects.set(tap.event.animalId, { animalId: tap.event.animalId, item, doneDelta: (before?.doneDelta ?? 0) + doneDelta });
+    effects.set(tap.event.animalId, {
+      animalId: tap.event.animalId,
+      item,
+      doneDelta: (before?.doneDelta ?? 0) + doneDelta,
+      totalDelta: (before?.totalDelta ?? 0) + totalDelta,
+    });
   }
   await done;
   return [...effects.values()];
@@ -94,7 +101,7 @@ export async function recordTaps(db: RacksideDb, taps: readonly Tap[]): Promise<
 /** A cached round with one tap's effect applied (the screen's copy, no storage involved). */
 export function applyTapEffect(cached: CachedRound, effect: TapEffect): CachedRound {
   const items = cached.round.items.map((i) => (i.animal.id === effect.animalId ? effect.item : i));
-  const progress = { ...cached.round.progress, done: cached.round.progress.done + effect.doneDelta };
+  const progress = { done: cached.round.progress.done + effect.doneDelta, total: cached.round.progress.total + effect.totalDelta };
   return { ...cached, round: { ...cached.round, items, progress } };
 }
 

@@ -54,10 +54,15 @@ export function coverRoutes(cover: CoverService, reports: CoverReportsService, r
     res.status(204).end();
   });
   router.post('/handover/notes', member('keeper'), validate({ body: handoverNoteBody }), async (req, res) => {
-    res.status(201).json(await cover.addNote(collectionId(res), currentUserId(req), input(res, 'body')));
+    const body = input<{ animalId: string; text: string; until: string; doNotFeed: boolean }>(res, 'body');
+    const created = await cover.addNote(collectionId(res), currentUserId(req), body);
+    // A do-not-feed note withdraws today's open feed task at once (R18).
+    if (body.doNotFeed) await rounds.reconcileToday(collectionId(res), [body.animalId]);
+    res.status(201).json(created);
   });
   router.delete('/handover/notes/:noteId', member('keeper'), validate({ params: noteParams }), async (_req, res) => {
-    await cover.removeNote(collectionId(res), input<{ noteId: string }>(res, 'params').noteId);
+    const animalId = await cover.removeNote(collectionId(res), input<{ noteId: string }>(res, 'params').noteId);
+    await rounds.reconcileToday(collectionId(res), [animalId]);
     res.status(204).end();
   });
 

@@ -219,8 +219,9 @@ export function createCoverService(db: NodePgDatabase, deps: Deps) {
     },
 
     async removeNote(collectionId: string, noteId: string) {
-      const deleted = await db.delete(handoverNotes).where(and(eq(handoverNotes.id, noteId), eq(handoverNotes.collectionId, collectionId))).returning({ id: handoverNotes.id });
+      const deleted = await db.delete(handoverNotes).where(and(eq(handoverNotes.id, noteId), eq(handoverNotes.collectionId, collectionId))).returning({ animalId: handoverNotes.animalId });
       if (!deleted.length) throw new HttpError(404, 'not_found', 'We could not find that note.');
+      return deleted[0]!.animalId;
     },
 
     async setGeneralNote(collectionId: string, text: string) {

@@ -1,6 +1,7 @@
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { clockOffsetMs, effectiveTime } from '../../../shared/domain/clock';
-import { HELPER_EVENT_KINDS, type EventKind } from '../../../shared/domain/event-kinds';
+import { FED_WHILE_HELD, HELPER_EVENT_KINDS, type EventKind } from '../../../shared/domain/event-kinds';
+import { localDateOf } from '../../../shared/domain/local-dates';
 import { coverWindowMessage, coverWindowState } from '../../../shared/domain/roles';
 import { MAX_BATCH_EVENTS } from '../../../shared/domain/sync-limits';
 import {
@@ -14,7 +15,7 @@ import {
 import { HttpError } from '../../middleware/errors';
 import type { Membership } from '../collections/collections.repository';
 import { applyNewEvents } from '../rounds/projection';
-import { URGENT_TRIGGERS, type RoundsService } from '../rounds/rounds.service';
+import { SAME_DAY_TRIGGERS, type RoundsService } from '../rounds/rounds.service';
 import {
   animalIdsInCollection,
   insertEventsOnce,
@@ -69,9 +70,26 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
       await applyMoltFacts(tx, collectionId, zone, [...new Set(fresh.filter((e) => e.kind === 'molted' || e.kind === 'void').map((e) => e.animalId))]);
       return ids;
     });
-    const touched = [...new Set(incoming.filter((e) => inserted.has(e.id) && URGENT_TRIGGERS.includes(e.kind)).map((e) => e.animalId))];
-    await rounds.addUrgentTasks(collectionId, touched);
+    const touched = [...new Set(incoming.filter((e) => inserted.has(e.id) && SAME_DAY_TRIGGERS.includes(e.kind)).map((e) => e.animalId))];
+    await rounds.reconcileToday(collectionId, touched);
     return { inserted };
+  }
+
+  /**
+   * A meal recorded while the engine withholds food (a molt hold, premolt, a do-not-feed note…)
+   * is stored — it happened — but flagged for the owner (R18). Judged before the batch lands.
+   */
+  async function flagMealsWhileHeld(member: Membership, list: IncomingEvent[]) {
+    const meals = list.filter((e) => e.kind === 'ate');
+    const byDate = new Map<string, IncomingEvent[]>();
+    for (const e of meals) {
+      const date = localDateOf(e.effectiveAt, member.timeZone);
+      byDate.set(date, [...(byDate.get(date) ?? []), e]);
+    }
+    for (const [date, group] of byDate) {
+      const holds = await rounds.feedHolds(member.collectionId, [...new Set(group.map((e) => e.animalId))], date);
+      for (const e of group) if (holds.has(e.animalId)) e.flags = [...(e.flags ?? []), FED_WHILE_HELD];
+    }
   }
 
   /**
@@ -204,6 +222,7 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
       }
     }
 
+    await flagMealsWhileHeld(member, toInsert);
     const { inserted } = toInsert.length
       ? await ingest(member.collectionId, member.timeZone, toInsert, received)
       : { inserted: new Set<string>() };

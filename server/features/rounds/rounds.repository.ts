@@ -103,6 +103,11 @@ export async function upsertUrgentItem(db: Db, item: NewRoundItem) {
     .onConflictDoUpdate({ target: [roundItems.roundId, roundItems.animalId], set: { tasks: item.tasks, notes: item.notes, addedDuringDay: true } });
 }
 
+/** A day's item with tasks changed during the day (a hold withdrew some, R18). */
+export async function updateItemTasks(db: Db, itemId: string, tasks: unknown) {
+  await db.update(roundItems).set({ tasks }).where(eq(roundItems.id, itemId));
+}
+
 /** A round's items with their animals; only some animals' items when `animalIds` is given. */
 export async function loadRoundItems(db: Db, roundId: string, animalIds?: string[]) {
   return db
@@ -119,11 +124,12 @@ export async function loadRoundItems(db: Db, roundId: string, animalIds?: string
  * A collection's events in [from, to) with who recorded them: the day's outcomes. Plain SQL
  * with only the fields a round shows (not the whole payload): it runs whenever a tap lands.
  */
-export async function loadOutcomes(db: Db, collectionId: string, from: Date, to: Date) {
+export async function loadOutcomes(db: Db, collectionId: string, from: Date, to: Date, animalIds?: string[]) {
   const { rows } = await db.execute<{ id: string; animal_id: string; kind: string; effective_at: Date; target_id: string | null; by: string | null }>(sql`
     select e.id, e.animal_id, e.kind, e.effective_at, e.payload ->> 'targetId' as target_id, u.display_name as by
     from ${events} e left join ${users} u on u.id = e.recorded_by
-    where e.collection_id = ${collectionId} and e.effective_at >= ${from.toISOString()} and e.effective_at < ${to.toISOString()}`);
+    where e.collection_id = ${collectionId} and e.effective_at >= ${from.toISOString()} and e.effective_at < ${to.toISOString()}
+      ${animalIds ? sql`and e.animal_id in (${sql.join(animalIds.map((id) => sql`${id}::uuid`), sql`, `)})` : sql``}`);
   return rows.map((r) => ({ id: r.id, animalId: r.animal_id, kind: r.kind, effectiveAt: new Date(r.effective_at), targetId: r.target_id, by: r.by }));
 }
 

@@ -47,6 +47,8 @@ export function roundsRoutes(rounds: RoundsService, animals: AnimalsService, mem
   router.patch('/animals/:animalId/care', member('keeper'), validate({ params: animalParams, body: careSettingsBody }), async (_req, res) => {
     const { animalId } = input<{ animalId: string }>(res, 'params');
     await animals.updateCare(collectionId(res), animalId, input<CareSettingsBody>(res, 'body'));
+    // A keeper's hold set or lifted today changes today's feed task at once (R18).
+    await rounds.reconcileToday(collectionId(res), [animalId]);
     res.json(await rounds.schedule(collectionId(res), animalId));
   });
 

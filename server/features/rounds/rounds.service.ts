@@ -14,7 +14,10 @@ import {
 import {
   buildRound,
   decideAnimal,
+  FEED_HOLD_CODES,
+  type AnimalDecision,
   type EngineAnimal,
+  type Reason,
   type RoundItem,
   type RoundTask,
 } from '../../../shared/domain/rounds/build-round';
@@ -23,9 +26,12 @@ import {
   type RoundRules,
   type RulesOverride,
 } from '../../../shared/domain/rounds/rules';
+import { postMoltHoldDaysOf } from '../../../shared/domain/rounds/same-day';
 import {
+  liveOutcomes,
   progressOf,
   settleItem,
+  settlingOutcome,
   type DayOutcome,
 } from '../../../shared/domain/rounds/settle';
 import type {
@@ -49,6 +55,7 @@ import {
   loadEventsOf,
   loadOutcomes,
   loadRoundItems,
+  updateItemTasks,
   upsertUrgentItem,
   type AnimalRow,
 } from './rounds.repository';
@@ -79,10 +86,17 @@ function animalView(a: EngineAnimal): RoundItemView['animal'] {
 }
 
 /**
- * Facts that can make a task urgent during the day: prey left with an animal that is (or
- * turns out to be) in premolt or molting must come out at once.
+ * Facts that change today's round during the day: prey left with an animal that is (or turns
+ * out to be) in premolt or molting must come out at once, and a hold that begins withdraws the
+ * open feed task (R18); an undo may lift one.
  */
-export const URGENT_TRIGGERS: readonly string[] = ['prey_left_in', 'premolt_seen', 'molting_now', 'molted'];
+export const SAME_DAY_TRIGGERS: readonly string[] = ['prey_left_in', 'premolt_seen', 'molting_now', 'molted', 'sac_laid', 'sac_pulled', 'premolt_cleared', 'void'];
+
+/** The first reason the engine withholds food from an animal today, if any. */
+function holdOf(d: AnimalDecision): Reason | null {
+  const leaveAlone = d.tasks.find((t) => t.kind === 'leave_alone')?.reasons[0];
+  return leaveAlone ?? d.notes.find((n) => FEED_HOLD_CODES.has(n.code)) ?? null;
+}
 
 export function createRoundsService(db: NodePgDatabase, now: () => Date) {
   async function collectionOf(collectionId: string): Promise<Collection> {
@@ -117,17 +131,21 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
         : ((r.state as AnimalState | null) ?? EMPTY_STATE);
       const animal = toEngineAnimal(r, c.timeZone, state.lastMeal === null);
       const hold = holds.get(r.animal.id);
-      if (hold && (!animal.doNotFeedUntil || hold > animal.doNotFeedUntil)) animal.doNotFeedUntil = hold;
+      if (hold && (!animal.doNotFeedUntil || hold > animal.doNotFeedUntil)) {
+        animal.doNotFeedUntil = hold;
+        animal.doNotFeedBy = 'handover';
+      }
       return { animal, state };
     });
   }
 
-  async function outcomesByAnimal(c: Collection, date: LocalDate) {
+  async function outcomesByAnimal(c: Collection, date: LocalDate, animalIds?: string[]) {
     const rows = await loadOutcomes(
       db,
       c.id,
       startOfLocalDate(date, c.timeZone),
       startOfLocalDate(addDays(date, 1), c.timeZone),
+      animalIds,
     );
     const map = new Map<string, DayOutcome[]>();
     for (const r of rows) {
@@ -151,10 +169,11 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
     notes: RoundItem['notes'];
     carriedOverDays: number;
     addedDuringDay: boolean;
+    postMoltHoldDays: number;
   };
 
   function viewItem(c: Collection, item: ViewInput, outcomes: DayOutcome[]): RoundItemView {
-    const settled = settleItem(item.tasks, outcomes, c.timeZone);
+    const settled = settleItem(item.tasks, outcomes, c.timeZone, item.postMoltHoldDays);
     return {
       animal: animalView(item.animal),
       tasks: settled.tasks,
@@ -163,6 +182,7 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
       addedDuringDay: item.addedDuringDay,
       outcomes: settled.outcomes,
       warnings: settled.warnings,
+      postMoltHoldDays: item.postMoltHoldDays,
     };
   }
 
@@ -235,17 +255,22 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
       await buildFor(c, date);
       row = (await findRound(db, c.id, date))!;
     }
-    const items = (await loadRoundItems(db, row.id)).map((r) => ({
-      animal: toEngineAnimal(
+    const rules = rulesOf(c);
+    const items = (await loadRoundItems(db, row.id)).map((r) => {
+      const animal = toEngineAnimal(
         { animal: r.animal, location: r.location, state: null, lastEventAt: null },
         c.timeZone,
         false,
-      ),
-      tasks: r.item.tasks as RoundTask[],
-      notes: r.item.notes as RoundItem['notes'],
-      carriedOverDays: r.item.carriedOverDays,
-      addedDuringDay: r.item.addedDuringDay,
-    }));
+      );
+      return {
+        animal,
+        tasks: r.item.tasks as RoundTask[],
+        notes: r.item.notes as RoundItem['notes'],
+        carriedOverDays: r.item.carriedOverDays,
+        addedDuringDay: r.item.addedDuringDay,
+        postMoltHoldDays: postMoltHoldDaysOf(rules, animal),
+      };
+    });
     return { builtAt: row.builtAt, prepList: row.prepList as RoundResponse['prepList'], items };
   }
 
@@ -311,12 +336,13 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
     async tomorrowPreview(collectionId: string): Promise<RoundResponse> {
       const c = await collectionOf(collectionId);
       const date = addDays(service.today(c), 1);
-      const round = buildRound(await engineInput(c), rulesOf(c), date);
+      const rules = rulesOf(c);
+      const round = buildRound(await engineInput(c), rules, date);
       return view(
         c,
         date,
         null,
-        round.items.map((i) => ({ ...i, addedDuringDay: false })),
+        round.items.map((i) => ({ ...i, addedDuringDay: false, postMoltHoldDays: postMoltHoldDaysOf(rules, i.animal) })),
         round.prepList,
         new Map(),
       );
@@ -337,16 +363,22 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
       return row.prepList as RoundResponse['prepList'];
     },
 
-    /** Why an animal is (or is not) on today's round, with its next due dates. */
+    /**
+     * Why an animal is (or is not) on today's round, with its next due dates — from the same
+     * state the engine keeps, including today's facts (a meal or a molt recorded this morning),
+     * so the animal's page never contradicts the round.
+     */
     async schedule(collectionId: string, animalId: string): Promise<ScheduleResponse> {
       const c = await collectionOf(collectionId);
       const date = service.today(c);
-      const [input] = await engineInput(c, date, [animalId]);
+      const [input] = await engineInput(c, undefined, [animalId]);
       if (!input) throw new HttpError(404, 'not_found', 'We could not find that animal.');
       const d = decideAnimal(input.animal, input.state, rulesOf(c), date);
+      const row = await findRound(db, c.id, date);
+      const [item] = row ? await loadRoundItems(db, row.id, [animalId]) : [];
       return {
         date,
-        onRound: d.tasks.length > 0,
+        onRound: item ? true : d.tasks.length > 0,
         tasks: d.tasks,
         notes: d.notes,
         nextFeed: d.nextFeed,
@@ -355,10 +387,13 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
     },
 
     /**
-     * After new events: urgent removals the day's round did not plan (prey left in with an animal
-     * that is now molting or in premolt) are added to today's round with their reason.
+     * After new facts or holds during the day, today's built round is brought in line without
+     * reshuffling it (R18): a hold that now applies withdraws the open feed task (and, for an
+     * animal to be left alone, its water) with the reason in its place; a hold that was lifted
+     * gives the task back; prey left with an animal now molting or in premolt is added as an
+     * urgent removal. No new feed task is added mid-day.
      */
-    async addUrgentTasks(collectionId: string, animalIds: string[]) {
+    async reconcileToday(collectionId: string, animalIds: string[]) {
       if (!animalIds.length) return;
       const c = await collectionOf(collectionId);
       const date = service.today(c);
@@ -367,31 +402,56 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
       const existing = new Map(
         (await loadRoundItems(db, row.id, animalIds)).map((r) => [r.animal.id, r.item]),
       );
+      const settled = await outcomesByAnimal(c, date, animalIds);
       const rules = rulesOf(c);
       for (const { animal, state } of await engineInput(c, undefined, animalIds)) {
         const d = decideAnimal(animal, state, rules, date);
-        const removal = d.tasks.find((t) => t.kind === 'remove_prey');
-        const urgent = removal && (state.leaveAlone || state.premoltSince);
         const item = existing.get(animal.id);
         const planned = (item?.tasks as RoundTask[] | undefined) ?? [];
-        if (!urgent || planned.some((t) => t.kind === 'remove_prey')) continue;
-        const added: RoundTask = {
-          ...removal,
-          reasons: [
-            ...removal.reasons,
-            { code: 'remove_prey', text: 'Added during the day: remove it now.', dates: [date] },
-          ],
-        };
-        await upsertUrgentItem(db, {
-          roundId: row.id,
-          animalId: animal.id,
-          sortIndex: item?.sortIndex ?? -1,
-          tasks: [added, ...planned],
-          notes: item?.notes ?? d.notes,
-          carriedOverDays: item?.carriedOverDays ?? 0,
-          addedDuringDay: true,
+        const hold = holdOf(d);
+        const outcomes = liveOutcomes(settled.get(animal.id) ?? []);
+        const leaveAlone = d.tasks.some((t) => t.kind === 'leave_alone') && !d.tasks.some((t) => t.kind === 'water');
+        let changed = false;
+        const tasks = planned.map((t) => {
+          const heldKind = t.kind === 'feed' || (t.kind === 'water' && leaveAlone);
+          const wanted = heldKind && hold && !settlingOutcome(t.kind, outcomes) ? hold : null;
+          if ((t.serverWithdrawn ?? null)?.text === wanted?.text) return t;
+          changed = true;
+          return { ...t, serverWithdrawn: wanted };
         });
+        const removal = d.tasks.find((t) => t.kind === 'remove_prey');
+        const urgent = removal && (state.leaveAlone || state.premoltSince) && !planned.some((t) => t.kind === 'remove_prey');
+        if (urgent) {
+          tasks.unshift({
+            ...removal,
+            reasons: [...removal.reasons, { code: 'remove_prey', text: 'Added during the day: remove it now.', dates: [date] }],
+          });
+          await upsertUrgentItem(db, {
+            roundId: row.id,
+            animalId: animal.id,
+            sortIndex: item?.sortIndex ?? -1,
+            tasks,
+            notes: item?.notes ?? d.notes,
+            carriedOverDays: item?.carriedOverDays ?? 0,
+            addedDuringDay: true,
+          });
+        } else if (item && changed) {
+          await updateItemTasks(db, item.id, tasks);
+        }
       }
+    },
+
+    /** Whether food is withheld from these animals on a date, and why (a meal then is flagged). */
+    async feedHolds(collectionId: string, animalIds: string[], date: LocalDate): Promise<Map<string, Reason>> {
+      const holds = new Map<string, Reason>();
+      if (!animalIds.length) return holds;
+      const c = await collectionOf(collectionId);
+      const rules = rulesOf(c);
+      for (const { animal, state } of await engineInput(c, undefined, animalIds)) {
+        const hold = holdOf(decideAnimal(animal, state, rules, date));
+        if (hold) holds.set(animal.id, hold);
+      }
+      return holds;
     },
 
     /**

@@ -22,6 +22,8 @@ export interface EngineAnimal {
   preySize: string | null;
   preyCount: number | null;
   doNotFeedUntil: LocalDate | null;
+  /** Where the hold comes from: a handover note names its last day, a keeper's setting its first fed day. */
+  doNotFeedBy?: 'keeper' | 'handover';
   /** The date the animal joined the collection in Rackside: a first meal is due from then. */
   addedOn: LocalDate | null;
 }
@@ -75,6 +77,8 @@ export interface RoundTask {
   reasons: Reason[];
   offer?: Offer;
   carriedOverDays: number;
+  /** Set on a stored round when a hold began during the day (R18). */
+  serverWithdrawn?: Reason | null;
 }
 
 export interface AnimalDecision {
@@ -257,7 +261,10 @@ export function decideAnimal(
   if (animal.doNotFeedUntil && date < animal.doNotFeedUntil) {
     blockers.push({
       code: 'do_not_feed',
-      text: `Do not feed until ${shortDate(animal.doNotFeedUntil)} (keeper's setting).`,
+      text:
+        animal.doNotFeedBy === 'handover'
+          ? `Handover note: do not feed through ${shortDate(addDays(animal.doNotFeedUntil, -1))}.`
+          : `Do not feed until ${shortDate(animal.doNotFeedUntil)} (keeper's setting).`,
       dates: [animal.doNotFeedUntil],
     });
   }

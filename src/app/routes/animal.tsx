@@ -1,4 +1,4 @@
-import { useQueryClient } from '@tanstack/react-query';
+import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { STATUS_LABEL } from '#shared/domain/animal-facts';
@@ -18,12 +18,14 @@ import { MoltForm } from '@/features/breeding/components/molt-form';
 import { PairingForm } from '@/features/breeding/components/pairing-form';
 import { LabelPanel } from '@/features/labels/components/label-panel';
 import { useAnimalHistory } from '@/features/rounds/api/animal-history';
+import { localRoundQueryOptions } from '@/features/rounds/api/get-round';
 import { roundKeys } from '@/features/rounds/api/keys';
 import { useRecordOutcome } from '@/features/rounds/api/record-outcome';
 import { AnimalHistory } from '@/features/rounds/components/animal-history';
 import { CareForm } from '@/features/rounds/components/care-form';
 import { SchedulePanel } from '@/features/rounds/components/schedule-panel';
 import { useSizeUnit } from '@/lib/preferences';
+import { useSyncStatus } from '@/lib/sync-driver';
 import { useShell } from './shell';
 
 export function AnimalRoute() {
@@ -39,6 +41,8 @@ export function AnimalRoute() {
   const record = useRecordOutcome({ userId: me.user.id, byName: me.user.displayName, collectionId });
   const [panel, setPanel] = useState<'move' | 'retire' | null>(null);
   const queryClient = useQueryClient();
+  const localToday = useQuery(localRoundQueryOptions(me.user.id, collectionId, 'today'));
+  const sync = useSyncStatus();
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
   if (list.isPending) return <Loading />;
   if (list.isError) return <Notice tone="error" title={list.error.message} />;
@@ -46,6 +50,7 @@ export function AnimalRoute() {
   if (!animal) return <Notice tone="error" title="We could not find that animal." />;
   const kept = animal.status === 'active';
   const today = localDateOf(new Date(), collection.timeZone);
+  const todayItem = localToday.data?.round.date === today ? localToday.data.round.items.find((i) => i.animal.id === animal.id) : undefined;
   return (
     <div className="flex flex-col gap-4">
       <h1 className="sr-only">{animal.name}</h1>
@@ -80,7 +85,13 @@ export function AnimalRoute() {
       {panel === 'move' && <MovePanel what={animal.name} locations={places.data?.locations ?? []} onMove={(locationId) => move.mutateAsync({ animalIds: [animal.id], locationId }).then(() => setPanel((p) => (p === 'move' ? null : p)))} onCancel={() => setPanel(null)} />}
       {panel === 'retire' && <RetirePanel what={animal.name} today={today} onRetire={(body) => retire.mutateAsync(body).then(() => setPanel((p) => (p === 'retire' ? null : p)))} onCancel={() => setPanel(null)} />}
       {retire.isError && <Notice tone="error" title={retire.error.message} />}
-      <SchedulePanel collectionId={collectionId} animalId={animal.id} />
+      <SchedulePanel
+        collectionId={collectionId}
+        animalId={animal.id}
+        item={todayItem}
+        timeZone={collection.timeZone}
+        waiting={sync.waiting > 0}
+      />
       <LabelPanel
         collectionId={collectionId}
         animal={animal}

@@ -127,3 +127,13 @@ export function TomorrowIcon(props: SVGProps<SVGSVGElement>) {
     </Svg>
   );
 }
+
+/** Held: an open hand raised, "stop" (a withdrawn task, food withheld). */
+export function HoldIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <path d="M7 12V6.5a1.5 1.5 0 013 0V11M10 10.5V5a1.5 1.5 0 013 0v5.5M13 10.5V6a1.5 1.5 0 013 0v6" />
+      <path d="M16 12V9.5a1.5 1.5 0 013 0V15a6 6 0 01-6 6h-1a6 6 0 01-5-2.7L4.5 14.5a1.5 1.5 0 012.5-1.7L7 13" />
+    </Svg>
+  );
+}

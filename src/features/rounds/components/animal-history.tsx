@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
-import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
+import { EVENT_WORDS, FED_WHILE_HELD, type EventKind } from '#shared/domain/event-kinds';
 import { describeInstant } from '#shared/domain/local-dates';
 import { SERVER_EVENT_KINDS, type HistoryEvent } from '#shared/schemas/events';
 import { Button } from '@/components/ui/button';
@@ -98,6 +98,11 @@ export function AnimalHistory({ recorder, animal, timeZone }: { recorder: Record
                     {e.by && ` · ${e.by}`}
                     {cancelled && ' · undone'}
                   </p>
+                  {e.flags.includes(FED_WHILE_HELD) && !cancelled && (
+                    <p className="font-bold text-danger">
+                      <span aria-hidden="true">! </span>Fed while food was held back
+                    </p>
+                  )}
                   {e.kind === 'molted' && !cancelled && <MoltPhoto collectionId={recorder.collectionId} animalId={animal.id} event={e} />}
                 </div>
                 {!cancelled && !SERVER_EVENT_KINDS.includes(e.kind) && (

@@ -1,5 +1,6 @@
 import { useId, useState } from 'react';
 import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
+import { feedHoldOf } from '#shared/domain/rounds/item-status';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { Button } from '@/components/ui/button';
 
@@ -9,9 +10,10 @@ export type RecordOutcome = (kind: EventKind, payload?: Record<string, unknown>)
 const ANY_DAY: EventKind[] = ['ate', 'refused', 'prey_left_in', 'prey_removed', 'watered'];
 
 /** The one-tap outcomes an item's tasks call for; the rest sit one step away under "More". */
-function mainOutcomes(item: RoundItemView): EventKind[] {
-  if (!item.tasks.length) return ANY_DAY;
-  const kinds = new Set(item.tasks.map((t) => t.kind));
+function mainOutcomes(item: RoundItemView, held: boolean): EventKind[] {
+  if (!item.tasks.length) return held ? ANY_DAY.filter((k) => k !== 'ate') : ANY_DAY;
+  // A task a hold withdrew offers no buttons: there is nothing to do for it today.
+  const kinds = new Set(item.tasks.filter((t) => !t.withdrawn).map((t) => t.kind));
   const preyInside = kinds.has('remove_prey') || item.outcomes.some((o) => o.kind === 'prey_left_in');
   const list: EventKind[] = [];
   if (kinds.has('feed')) list.push('ate', 'refused', 'prey_left_in');
@@ -22,17 +24,56 @@ function mainOutcomes(item: RoundItemView): EventKind[] {
 
 const MORE: EventKind[] = ['molted', 'premolt_seen', 'molting_now', 'skipped'];
 
+/**
+ * Feeding a held animal (a molt hold, premolt, a do-not-feed note…) takes a deliberate second
+ * step that says why it is held (R18); the meal is then recorded, and the server flags it.
+ */
+function HeldMealConfirm({ reason, onConfirm, onCancel }: { reason: string; onConfirm: () => void; onCancel: () => void }) {
+  return (
+    <div role="alertdialog" aria-label="Food is held back" className="flex flex-col gap-2 rounded-xl border-2 border-danger p-2">
+      <p className="font-extrabold text-danger">Food is held back for this animal.</p>
+      <p className="font-bold">{reason}</p>
+      <p className="text-sm">Record a meal anyway only if it really ate. The owner will see it flagged.</p>
+      <div className="grid grid-cols-2 gap-2">
+        <Button variant="danger" className="min-h-14 px-2 text-base" onClick={onConfirm}>
+          It ate anyway
+        </Button>
+        <Button variant="secondary" className="min-h-14 px-2 text-base" onClick={onCancel}>
+          Cancel
+        </Button>
+      </div>
+    </div>
+  );
+}
+
 export function OutcomeButtons({ item, onRecord }: { item: RoundItemView; onRecord: RecordOutcome }) {
   const [open, setOpen] = useState(false);
+  const [confirming, setConfirming] = useState(false);
   const [note, setNote] = useState('');
   const panelId = useId();
   const recorded = new Set(item.outcomes.map((o) => o.kind));
-  const main = mainOutcomes(item);
+  const hold = feedHoldOf(item);
+  const main = mainOutcomes(item, !!hold);
+  const more = hold ? (['ate', ...MORE] as EventKind[]) : MORE;
+  const tap = (kind: EventKind) => {
+    if (kind === 'ate' && hold) setConfirming(true);
+    else onRecord(kind);
+  };
   return (
     <div className="flex flex-col gap-2">
+      {confirming && hold && (
+        <HeldMealConfirm
+          reason={hold.text}
+          onConfirm={() => {
+            setConfirming(false);
+            onRecord('ate');
+          }}
+          onCancel={() => setConfirming(false)}
+        />
+      )}
       <div className="grid grid-cols-2 gap-2 min-[400px]:grid-cols-3">
         {main.map((kind) => (
-          <Button key={kind} variant={recorded.has(kind) ? 'primary' : 'secondary'} className="min-h-14 px-2 text-base" onClick={() => onRecord(kind)}>
+          <Button key={kind} variant={recorded.has(kind) ? 'primary' : 'secondary'} className="min-h-14 px-2 text-base" onClick={() => tap(kind)}>
             {EVENT_WORDS[kind]}
           </Button>
         ))}
@@ -43,9 +84,9 @@ export function OutcomeButtons({ item, onRecord }: { item: RoundItemView; onReco
       {open && (
         <div id={panelId} className="flex flex-col gap-2 rounded-xl border-2 border-border p-2">
           <div className="grid grid-cols-2 gap-2">
-            {MORE.map((kind) => (
-              <Button key={kind} variant="secondary" className="min-h-14 px-2 text-base" onClick={() => onRecord(kind)}>
-                {EVENT_WORDS[kind]}
+            {more.map((kind) => (
+              <Button key={kind} variant="secondary" className="min-h-14 px-2 text-base" onClick={() => tap(kind)}>
+                {kind === 'ate' ? 'Ate anyway…' : EVENT_WORDS[kind]}
               </Button>
             ))}
           </div>

@@ -2,8 +2,10 @@ import type { ReactNode } from 'react';
 import { SEX_LABEL, STAGE_LABEL } from '#shared/domain/animal-facts';
 import { EVENT_WORDS } from '#shared/domain/event-kinds';
 import { clockTime } from '#shared/domain/local-dates';
+import { currentNotes } from '#shared/domain/rounds/item-status';
 import type { Outcome, RoundItemView } from '#shared/schemas/rounds';
 import { CautionBadges } from '@/components/ui/caution-badges';
+import { HoldIcon } from '@/components/ui/icons';
 import { describeOffer, TASK_META } from './task-meta';
 
 function placeCode(location: RoundItemView['animal']['location']) {
@@ -30,9 +32,25 @@ function DoneBadge({ done, timeZone, myName }: { done: Outcome; timeZone: string
   );
 }
 
+/** A task a hold took off today's round (R18): struck through, with the reason in its place. */
+function WithdrawnTask({ word, reason }: { word: string; reason: string }) {
+  return (
+    <li className="flex gap-2 rounded-lg border-2 border-danger p-2">
+      <HoldIcon className="shrink-0 text-danger" />
+      <div className="flex-1">
+        <p className="font-extrabold">
+          <s>{word}</s> <span className="text-danger">· withdrawn</span>
+        </p>
+        <p className="font-bold">{reason}</p>
+      </div>
+    </li>
+  );
+}
+
 /** One animal on the round: what, where, how much and why, without opening anything. */
 export function RoundItemCard({ item, timeZone, myName, children }: Props) {
   const { animal } = item;
+  const notes = currentNotes(item);
   return (
     <article aria-label={`${animal.name}, ${animal.labelCode}`} className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
       <header className="flex items-start justify-between gap-2">
@@ -58,6 +76,7 @@ export function RoundItemCard({ item, timeZone, myName, children }: Props) {
       <ul className="flex flex-col gap-2">
         {item.tasks.map((task) => {
           const { word, Icon } = TASK_META[task.kind];
+          if (task.withdrawn) return <WithdrawnTask key={task.kind} word={word} reason={task.withdrawn.text} />;
           return (
             <li key={task.kind} className="flex gap-2">
               <Icon className={task.kind === 'leave_alone' || task.kind === 'remove_prey' ? 'shrink-0 text-danger' : 'shrink-0 text-text'} />
@@ -82,9 +101,9 @@ export function RoundItemCard({ item, timeZone, myName, children }: Props) {
           );
         })}
       </ul>
-      {item.notes.length > 0 && (
+      {notes.length > 0 && (
         <ul className="border-t-2 border-border pt-2 text-sm">
-          {item.notes.map((n) => (
+          {notes.map((n) => (
             <li key={n.code + n.text}>
               <span aria-hidden="true">ℹ </span>
               {n.text}

@@ -1,22 +1,52 @@
+import { EVENT_WORDS } from '#shared/domain/event-kinds';
+import { clockTime } from '#shared/domain/local-dates';
 import { shortDate } from '#shared/domain/rounds/build-round';
+import { currentNotes } from '#shared/domain/rounds/item-status';
+import type { RoundItemView } from '#shared/schemas/rounds';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useSchedule } from '../api/schedule';
 import { describeOffer, TASK_META } from './task-meta';
 
-/** Why this animal is (or is not) on today's round, and when it is next due. */
-export function SchedulePanel({ collectionId, animalId }: { collectionId: string; animalId: string }) {
+/** Today's item as the round shows it now: each task done, withdrawn or still to do. */
+function TodayTasks({ item, timeZone }: { item: RoundItemView; timeZone: string }) {
+  return (
+    <ul className="flex flex-col gap-1">
+      {item.tasks.map((t) => (
+        <li key={t.kind}>
+          <span className="font-extrabold">{t.withdrawn ? <s>{TASK_META[t.kind].word}</s> : TASK_META[t.kind].word}</span>
+          {t.offer && !t.withdrawn && ` · ${describeOffer(t.offer)}`}
+          {t.done && <span className="font-bold text-ok"> · ✓ {EVENT_WORDS[t.done.kind]} {clockTime(t.done.at, timeZone)}</span>}
+          <ul className="text-sm text-muted">
+            {(t.withdrawn ? [t.withdrawn] : t.reasons).map((r) => (
+              <li key={r.text}>{r.text}</li>
+            ))}
+          </ul>
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+/**
+ * Why this animal is (or is not) on today's round, and when it is next due. `item` is the
+ * phone's copy of its round item, taps included, so this agrees with the round even before a
+ * tap has been sent; the next dates come from the server and refresh after each sync.
+ */
+export function SchedulePanel({ collectionId, animalId, item, timeZone, waiting }: { collectionId: string; animalId: string; item?: RoundItemView; timeZone: string; waiting: boolean }) {
   const schedule = useSchedule(collectionId, animalId);
   if (schedule.isPending) return <Loading label="Working out the schedule…" />;
   if (schedule.isError) return <Notice tone="error" title={schedule.error.message} />;
   const s = schedule.data;
+  const notes = item ? currentNotes(item) : s.notes;
   return (
     <section aria-labelledby="schedule-heading" className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
       <h2 id="schedule-heading" className="text-xl font-extrabold">
         Schedule
       </h2>
-      <p className="font-bold">{s.onRound ? 'On today’s round:' : 'Not on today’s round.'}</p>
-      {s.tasks.length > 0 && (
+      <p className="font-bold">{item || s.onRound ? 'On today’s round:' : 'Not on today’s round.'}</p>
+      {item && <TodayTasks item={item} timeZone={timeZone} />}
+      {!item && s.tasks.length > 0 && (
         <ul className="flex flex-col gap-1">
           {s.tasks.map((t) => (
             <li key={t.kind}>
@@ -31,9 +61,9 @@ export function SchedulePanel({ collectionId, animalId }: { collectionId: string
           ))}
         </ul>
       )}
-      {s.notes.length > 0 && (
+      {notes.length > 0 && (
         <ul className="text-sm">
-          {s.notes.map((n) => (
+          {notes.map((n) => (
             <li key={n.text}>
               <span aria-hidden="true">ℹ </span>
               {n.text}
@@ -47,6 +77,7 @@ export function SchedulePanel({ collectionId, animalId }: { collectionId: string
         <dt className="text-muted">Next water</dt>
         <dd className="font-bold">{s.nextWater ? shortDate(s.nextWater) : 'no water dish'}</dd>
       </dl>
+      {waiting && <p className="text-sm text-muted">Taps on this phone are still waiting to be sent: the next dates update after the next sync.</p>}
     </section>
   );
 }
