@@ -68,3 +68,28 @@ export function mealIntervals(meals: readonly LocalDate[]) {
   const median = ordered.length === 0 ? null : ordered.length % 2 ? ordered[mid]! : (ordered[mid - 1]! + ordered[mid]!) / 2;
   return { gaps, median };
 }
+
+interface MoltEventLike {
+  id: string;
+  kind: string;
+  payload: Record<string, unknown>;
+  /** ISO instant: later details win. */
+  at: string;
+}
+
+/**
+ * A molt and the details added to it later are one record: each molted event comes back with
+ * its later details laid over its own payload (the latest detail wins), details events dropped.
+ * Pass live events only (nothing undone by a void).
+ */
+export function mergeMoltDetails<E extends MoltEventLike>(events: readonly E[]): E[] {
+  const details = new Map<string, Record<string, unknown>>();
+  const added = events.filter((e) => e.kind === 'molt_details').sort((a, b) => a.at.localeCompare(b.at));
+  for (const e of added) {
+    const { targetId, ...rest } = e.payload;
+    if (typeof targetId === 'string') details.set(targetId, { ...details.get(targetId), ...rest });
+  }
+  return events
+    .filter((e) => e.kind !== 'molt_details')
+    .map((e) => (e.kind === 'molted' && details.has(e.id) ? { ...e, payload: { ...e.payload, ...details.get(e.id) } } : e));
+}

@@ -15,6 +15,19 @@ const prey = {
 };
 const empty = z.object({ note }).strict();
 
+/** What a molt showed: given with the tap, or added to the same molt later (molt_details). */
+const moltFacts = {
+  sizeMm: z
+    .number()
+    .positive({ message: 'The size must be more than 0 mm.' })
+    .max(400, { message: 'No invertebrate we keep is over 400 mm across.' })
+    .optional(),
+  exuviaeKept: z.boolean().optional(),
+  sexFromExuviae: z.enum(['female', 'male', 'unknown']).optional(),
+  maturing: z.boolean().optional(),
+  note,
+};
+
 /** Each event kind's payload: what the engine and the history need, nothing else. */
 export const EVENT_PAYLOADS = {
   ate: z.object({ ...prey, note }).strict(),
@@ -22,19 +35,8 @@ export const EVENT_PAYLOADS = {
   prey_left_in: z.object({ ...prey, note }).strict(),
   prey_removed: empty,
   watered: empty,
-  molted: z
-    .object({
-      sizeMm: z
-        .number()
-        .positive({ message: 'The size must be more than 0 mm.' })
-        .max(400, { message: 'No invertebrate we keep is over 400 mm across.' })
-        .optional(),
-      exuviaeKept: z.boolean().optional(),
-      sexFromExuviae: z.enum(['female', 'male', 'unknown']).optional(),
-      maturing: z.boolean().optional(),
-      note,
-    })
-    .strict(),
+  molted: z.object(moltFacts).strict(),
+  molt_details: z.object({ targetId: uuid, ...moltFacts }).strict(),
   premolt_seen: empty,
   premolt_cleared: empty,
   molting_now: empty,

@@ -37,13 +37,18 @@ async function todayItem(animalId: string): Promise<Item | undefined> {
   return res.body.items.find((i: Item) => i.animal.id === animalId);
 }
 
-async function sync(animalId: string, kind: string, recordedAt: Date, payload: Record<string, unknown> = {}) {
+async function send(animalId: string, kind: string, recordedAt: Date, payload: Record<string, unknown> = {}) {
   const id = randomUUID();
   const res = await owner.agent
     .post(`/api/collections/${owner.collectionId}/events`)
     .send({ deviceId: 'phone', clientSentAt: at(10).toISOString(), events: [{ id, animalId, kind, payload, clientRecordedAt: recordedAt.toISOString() }] })
     .expect(200);
-  expect(res.body.results[0].status).toBe('accepted');
+  return { id, result: res.body.results[0] as { status: string; message?: string } };
+}
+
+async function sync(animalId: string, kind: string, recordedAt: Date, payload: Record<string, unknown> = {}) {
+  const { id, result } = await send(animalId, kind, recordedAt, payload);
+  expect(result.status).toBe('accepted');
   return id;
 }
 
@@ -111,5 +116,32 @@ describe('same-day holds on the server round', () => {
     // Adult interval 12 days (R1): 2 Dec + 12 = 14 Dec.
     expect(schedule.body.nextFeed).toBe('2026-12-14');
     expect(localDateOf(at(10), ZONE)).toBe(DAY);
+  });
+});
+
+describe('one molt, one record', () => {
+  it('details added later complete the same molt; a second molt on the same day is refused', async () => {
+    const animal = await dueAdult();
+    const molt = await sync(animal.id, 'molted', at(9));
+    await sync(animal.id, 'molt_details', at(9.5), { targetId: molt, sizeMm: 71, sexFromExuviae: 'female' });
+    const second = await send(animal.id, 'molted', at(9.75), { sizeMm: 72 });
+    expect(second.result.status).toBe('rejected');
+    expect(second.result.message).toBe('A molt is already recorded for this animal on 2 Dec. Add its size or sex to that molt instead of recording a second one.');
+    const history = await owner.agent.get(`/api/collections/${owner.collectionId}/events?animalId=${animal.id}`).expect(200);
+    const molts = history.body.events.filter((e: { kind: string }) => e.kind === 'molted');
+    expect(molts).toHaveLength(1);
+    expect(molts[0].payload).toMatchObject({ sizeMm: 71, sexFromExuviae: 'female' });
+    // The animal's record follows the completed molt.
+    const list = await owner.agent.get(`/api/collections/${owner.collectionId}/animals`).expect(200);
+    expect(list.body.animals.find((a: { id: string }) => a.id === animal.id)).toMatchObject({ sizeMm: 71 });
+  });
+
+  it('a molt on another day is its own record, and details must point at a molt', async () => {
+    const animal = await dueAdult();
+    await sync(animal.id, 'molted', at(12, addDays(DAY, -40)));
+    await sync(animal.id, 'molted', at(9));
+    const meal = await sync(animal.id, 'watered', at(9.2));
+    const wrong = await send(animal.id, 'molt_details', at(9.5), { targetId: meal, sizeMm: 50 });
+    expect(wrong.result).toMatchObject({ status: 'rejected', message: 'Molt details belong to a molt; this points at another kind of fact.' });
   });
 });

@@ -55,17 +55,30 @@ export async function animalIdsInCollection(
 /** Stored events by id, with what a duplicate or void check needs. */
 export async function storedEvents(db: Db, ids: string[]) {
   if (!ids.length)
-    return new Map<string, { collectionId: string; animalId: string; recordedBy: string | null }>();
+    return new Map<string, { collectionId: string; animalId: string; kind: string; recordedBy: string | null }>();
   const rows = await db
     .select({
       id: events.id,
       collectionId: events.collectionId,
       animalId: events.animalId,
+      kind: events.kind,
       recordedBy: events.recordedBy,
     })
     .from(events)
     .where(sql`${events.id} = any(${list(ids)}::uuid[])`);
   return new Map(rows.map((r) => [r.id, r]));
+}
+
+/** When each of these animals molted, molts undone by a void left out. */
+export async function liveMoltTimes(db: Db, animalIds: string[]): Promise<Map<string, Date[]>> {
+  const byAnimal = new Map<string, Date[]>(animalIds.map((id) => [id, []]));
+  if (!animalIds.length) return byAnimal;
+  const { rows } = await db.execute<{ animal_id: string; effective_at: Date }>(sql`
+    select m.animal_id, m.effective_at from ${events} m
+    where m.kind = 'molted' and m.animal_id = any(${list(animalIds)}::uuid[])
+      and not exists (select 1 from ${events} v where v.kind = 'void' and v.animal_id = m.animal_id and v.payload ->> 'targetId' = m.id::text)`);
+  for (const r of rows) byAnimal.get(r.animal_id)?.push(new Date(r.effective_at));
+  return byAnimal;
 }
 
 /** An animal's newest events first, with who recorded them. */

@@ -1,7 +1,9 @@
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { clockOffsetMs, effectiveTime } from '../../../shared/domain/clock';
 import { FED_WHILE_HELD, HELPER_EVENT_KINDS, type EventKind } from '../../../shared/domain/event-kinds';
+import { mergeMoltDetails } from '../../../shared/domain/growth';
 import { localDateOf } from '../../../shared/domain/local-dates';
+import { shortDate } from '../../../shared/domain/rounds/build-round';
 import { coverWindowMessage, coverWindowState } from '../../../shared/domain/roles';
 import { MAX_BATCH_EVENTS } from '../../../shared/domain/sync-limits';
 import {
@@ -19,6 +21,7 @@ import { SAME_DAY_TRIGGERS, type RoundsService } from '../rounds/rounds.service'
 import {
   animalIdsInCollection,
   insertEventsOnce,
+  liveMoltTimes,
   recentEventsOf,
   storedEvents,
   type NewEvent,
@@ -67,7 +70,7 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
           effectiveAt: e.effectiveAt.toISOString(),
         }));
       await applyNewEvents(tx, collectionId, zone, fresh);
-      await applyMoltFacts(tx, collectionId, zone, [...new Set(fresh.filter((e) => e.kind === 'molted' || e.kind === 'void').map((e) => e.animalId))]);
+      await applyMoltFacts(tx, collectionId, zone, [...new Set(fresh.filter((e) => e.kind === 'molted' || e.kind === 'molt_details' || e.kind === 'void').map((e) => e.animalId))]);
       return ids;
     });
     const touched = [...new Set(incoming.filter((e) => inserted.has(e.id) && SAME_DAY_TRIGGERS.includes(e.kind)).map((e) => e.animalId))];
@@ -144,7 +147,7 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
     });
 
     const targetOf = (e: RecordedEvent) =>
-      e.kind === 'void' ? (e.payload.targetId as string) : null;
+      e.kind === 'void' || e.kind === 'molt_details' ? (e.payload.targetId as string) : null;
     const helper = member.role === 'helper';
     // Which animals are ours, and which undo targets are stored. A helper's re-sent events are
     // looked up first, so a tap saved during the cover stays a duplicate after it ends; for
@@ -156,8 +159,11 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
     ]);
     const accepted = new Map<
       string,
-      { collectionId: string; animalId: string; recordedBy: string | null }
+      { collectionId: string; animalId: string; kind: string; recordedBy: string | null }
     >();
+    // One molt per animal per local day: a second is refused, its details go on the first.
+    const moltTimes = await liveMoltTimes(db, [...new Set(candidates.filter((c) => c.event.kind === 'molted').map((c) => c.event.animalId))]);
+    const moltDays = (animalId: string) => new Set((moltTimes.get(animalId) ?? []).map((t) => localDateOf(t, member.timeZone)));
     const toInsert: IncomingEvent[] = [];
     for (const { index, event, effectiveAt, flags } of candidates) {
       const already = stored.get(event.id);
@@ -192,7 +198,16 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
           `This was recorded outside your cover. ${coverWindowMessage(member, now())}`,
         );
       } else if (targetId && !target) {
-        reject(index, event.id, 'target_unknown', 'The outcome this undoes was never saved.');
+        reject(index, event.id, 'target_unknown', event.kind === 'void' ? 'The outcome this undoes was never saved.' : 'The molt these details belong to was never saved.');
+      } else if (event.kind === 'molt_details' && target && target.kind !== 'molted') {
+        reject(index, event.id, 'bad_target', 'Molt details belong to a molt; this points at another kind of fact.');
+      } else if (event.kind === 'molted' && moltDays(event.animalId).has(localDateOf(effectiveAt, member.timeZone))) {
+        reject(
+          index,
+          event.id,
+          'invalid',
+          `A molt is already recorded for this animal on ${shortDate(localDateOf(effectiveAt, member.timeZone))}. Add its size or sex to that molt instead of recording a second one.`,
+        );
       } else if (
         target &&
         (target.collectionId !== member.collectionId || target.animalId !== event.animalId)
@@ -204,8 +219,10 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
         accepted.set(event.id, {
           collectionId: member.collectionId,
           animalId: event.animalId,
+          kind: event.kind,
           recordedBy: userId,
         });
+        if (event.kind === 'molted') moltTimes.get(event.animalId)?.push(effectiveAt);
         toInsert.push({
           id: event.id,
           animalId: event.animalId,
@@ -260,12 +277,20 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
       const target = (r.payload as { targetId?: unknown }).targetId;
       if (r.kind === 'void' && typeof target === 'string') voidedBy.set(target, r.id);
     }
+    // A molt shows the details added to it later: one molt, one record (growth reads these).
+    const merged = new Map(
+      mergeMoltDetails(
+        rows
+          .filter((r) => (r.kind === 'molted' || r.kind === 'molt_details') && !voidedBy.has(r.id))
+          .map((r) => ({ id: r.id, kind: r.kind, payload: r.payload as Record<string, unknown>, at: r.effectiveAt.toISOString() })),
+      ).map((m) => [m.id, m.payload]),
+    );
     return rows.map((r) => ({
       id: r.id,
       kind: r.kind as EventKind,
       at: r.effectiveAt.toISOString(),
       by: r.by,
-      payload: r.payload as Record<string, unknown>,
+      payload: merged.get(r.id) ?? (r.payload as Record<string, unknown>),
       flags: r.flags,
       voidedBy: voidedBy.get(r.id) ?? null,
       photoVersion: r.photo?.toISOString() ?? null,

@@ -146,6 +146,7 @@ export function applyEvent(state: AnimalState, event: EngineEvent, zone: string)
     case 'note':
       s.lastObserved = day;
       break;
+    case 'molt_details':
     case 'moved':
     case 'status_changed':
     case 'void':

@@ -40,6 +40,7 @@ export function AnimalRoute() {
   const history = useAnimalHistory(collectionId, animalId);
   const record = useRecordOutcome({ userId: me.user.id, byName: me.user.displayName, collectionId });
   const [panel, setPanel] = useState<'move' | 'retire' | null>(null);
+  const [recentMolts, setRecentMolts] = useState<{ eventId: string; date: string }[]>([]);
   const queryClient = useQueryClient();
   const localToday = useQuery(localRoundQueryOptions(me.user.id, collectionId, 'today'));
   const sync = useSyncStatus();
@@ -51,6 +52,13 @@ export function AnimalRoute() {
   const kept = animal.status === 'active';
   const today = localDateOf(new Date(), collection.timeZone);
   const todayItem = localToday.data?.round.date === today ? localToday.data.round.items.find((i) => i.animal.id === animal.id) : undefined;
+  // Molts already on record (the server's, today's taps on this phone, this page's own), so a
+  // second molt on one day completes the first instead.
+  const molts = [
+    ...(history.data?.events ?? []).filter((e) => e.kind === 'molted' && !e.voidedBy).map((e) => ({ eventId: e.id, date: localDateOf(new Date(e.at), collection.timeZone) })),
+    ...(todayItem?.outcomes ?? []).filter((o) => o.kind === 'molted').map((o) => ({ eventId: o.eventId, date: today })),
+    ...recentMolts,
+  ];
   return (
     <div className="flex flex-col gap-4">
       <h1 className="sr-only">{animal.name}</h1>
@@ -101,7 +109,16 @@ export function AnimalRoute() {
         }}
       />
       <GrowthPanel events={history.data?.events ?? []} timeZone={collection.timeZone} unit={unit} />
-      <MoltForm today={today} timeZone={collection.timeZone} unit={unit} onRecord={(payload, at) => record(animal, 'molted', payload, at)} />
+      <MoltForm
+        today={today}
+        timeZone={collection.timeZone}
+        unit={unit}
+        molts={molts}
+        onRecord={async (payload, at, completes) => {
+          const event = await record(animal, completes ? 'molt_details' : 'molted', completes ? { targetId: completes, ...payload } : payload, at);
+          if (!completes) setRecentMolts((m) => [...m, { eventId: event.id, date: localDateOf(at, collection.timeZone) }]);
+        }}
+      />
       {animal.sex !== 'male' && animal.sex !== 'mature_male' && animal.lifeStage !== 'sling' && (
         <PairingForm
           today={today}

@@ -5,6 +5,7 @@ import type { RecordedEvent } from '#shared/schemas/events';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
+import { MoltForm } from '@/features/breeding/components/molt-form';
 import { useRound } from '@/features/rounds/api/get-round';
 import { useRecordMany, useRecordOutcome } from '@/features/rounds/api/record-outcome';
 import { OutcomeButtons } from '@/features/rounds/components/outcome-buttons';
@@ -16,6 +17,7 @@ import { TrayAtOnce } from '@/features/rounds/components/tray-at-once';
 import { UndoToast } from '@/features/rounds/components/undo-toast';
 import { filterItems, ROUND_FILTERS, type RoundFilter } from '@/features/rounds/filter-items';
 import { ApiError } from '@/lib/api-client';
+import { useSizeUnit } from '@/lib/preferences';
 import { useShell } from './shell';
 
 // A helper's round adds the safety page, handover notes and cautions: loaded only for helpers.
@@ -55,6 +57,8 @@ interface TodayRoundProps {
 
 export function TodayRound({ userId, myName, collectionId, extras }: TodayRoundProps) {
   const { local, server } = useRound(userId, collectionId, 'today');
+  const [unit] = useSizeUnit();
+  const timeZone = local.data?.round.timeZone ?? 'UTC';
   const record = useRecordOutcome({ userId, byName: myName, collectionId });
   const recordMany = useRecordMany({ userId, byName: myName, collectionId });
   const groupActions = useCallback(
@@ -74,10 +78,20 @@ export function TodayRound({ userId, myName, collectionId, extras }: TodayRoundP
           onRecord={(kind, payload) => {
             void record(item.animal, kind, payload).then((event) => setLast({ event, animal: item.animal }));
           }}
+          moltDetails={(moltId) => (
+            <MoltForm
+              compact
+              today={localDateOf(new Date(), timeZone)}
+              timeZone={timeZone}
+              unit={unit}
+              molts={[{ eventId: moltId, date: localDateOf(new Date(), timeZone) }]}
+              onRecord={(payload, at, completes) => record(item.animal, 'molt_details', { targetId: completes ?? moltId, ...payload }, at)}
+            />
+          )}
         />
       </>
     ),
-    [record, extras],
+    [record, extras, timeZone, unit],
   );
   const items = local.data?.round.items;
   const counts = useMemo(

@@ -1,5 +1,6 @@
-import { useState } from 'react';
+import { useId, useState } from 'react';
 import { startOfLocalDate } from '#shared/domain/local-dates';
+import { shortDate } from '#shared/domain/rounds/build-round';
 import { sizeToMm, type SizeUnit } from '#shared/domain/units';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -10,19 +11,31 @@ interface Props {
   today: string;
   timeZone: string;
   unit: SizeUnit;
-  /** Records the "molted" fact (through the phone's outbox, so offline too). */
-  onRecord: (payload: Record<string, unknown>, at: Date) => Promise<unknown>;
+  /** The animal's molts already recorded: a molt on one of these days is completed, not doubled. */
+  molts: readonly { eventId: string; date: string }[];
+  /**
+   * Records the "molted" fact, or with `completes` the details of that molt (through the phone's
+   * outbox, so offline too).
+   */
+  onRecord: (payload: Record<string, unknown>, at: Date, completes?: string) => Promise<unknown>;
+  /** On a round card right after the tap: today's molt only, no date to choose. */
+  compact?: boolean;
 }
 
-/** A molt with what it showed: the size after it, the exuviae's sex, a maturing molt. */
-export function MoltForm({ today, timeZone, unit, onRecord }: Props) {
+/**
+ * A molt with what it showed: the size after it, the exuviae's sex, a maturing molt. One molt is
+ * one record: on a day that already has a molt, the form completes that molt.
+ */
+export function MoltForm({ today, timeZone, unit, molts, onRecord, compact = false }: Props) {
   const [v, setV] = useState({ date: today, size: '', kept: true, sex: 'unknown', maturing: false, note: '' });
+  const existing = molts.find((m) => m.date === v.date);
+  const headingId = useId();
   const [state, setState] = useState<{ busy: boolean; error: string | null; saved: boolean }>({ busy: false, error: null, saved: false });
   const size = v.size.trim() === '' ? null : Number(v.size.replace(',', '.'));
   const sizeError = size !== null && !(size > 0) ? 'Give the size as a number above 0.' : undefined;
   return (
     <form
-      aria-labelledby="molt-heading"
+      aria-labelledby={headingId}
       className="flex flex-col gap-2 rounded-2xl border-2 border-border p-3"
       onSubmit={(e) => {
         e.preventDefault();
@@ -31,17 +44,18 @@ export function MoltForm({ today, timeZone, unit, onRecord }: Props) {
         const at = v.date === today ? new Date() : new Date(startOfLocalDate(v.date, timeZone).getTime() + 12 * 3_600_000);
         const payload: Record<string, unknown> = { exuviaeKept: v.kept, sexFromExuviae: v.sex, ...(v.maturing ? { maturing: true } : {}), ...(size !== null ? { sizeMm: sizeToMm(size, unit) } : {}), ...(v.note.trim() ? { note: v.note.trim() } : {}) };
         setState({ busy: true, error: null, saved: false });
-        onRecord(payload, at).then(
+        onRecord(payload, at, existing?.eventId).then(
           () => (setState({ busy: false, error: null, saved: true }), setV((x) => ({ ...x, size: '', note: '', maturing: false }))),
           (err: Error) => setState({ busy: false, error: err.message, saved: false }),
         );
       }}
     >
-      <h2 id="molt-heading" className="text-xl font-extrabold">
-        Record a molt
+      <h2 id={headingId} className="text-xl font-extrabold">
+        {existing ? `Complete the molt of ${shortDate(existing.date)}` : 'Record a molt'}
       </h2>
+      {compact && <p className="text-sm">Add what you can now, or later on the animal’s page — a photo of the exuviae too, once this molt has synced.</p>}
       <div className="grid grid-cols-2 gap-2">
-        <TextField label="Molted on" type="date" max={today} value={v.date} onChange={(e) => setV((x) => ({ ...x, date: e.target.value }))} />
+        {!compact && <TextField label="Molted on" type="date" max={today} value={v.date} onChange={(e) => setV((x) => ({ ...x, date: e.target.value }))} />}
         <TextField label={`Size after (${unit})`} inputMode="decimal" value={v.size} error={sizeError} onChange={(e) => setV((x) => ({ ...x, size: e.target.value }))} />
       </div>
       <SelectField label="The exuviae shows" value={v.sex} onChange={(e) => setV((x) => ({ ...x, sex: e.target.value }))} options={[{ value: 'unknown', label: 'Not sexed' }, { value: 'female', label: 'Female' }, { value: 'male', label: 'Male' }]} />
@@ -55,9 +69,9 @@ export function MoltForm({ today, timeZone, unit, onRecord }: Props) {
       </label>
       <TextField label="Note" value={v.note} onChange={(e) => setV((x) => ({ ...x, note: e.target.value }))} />
       {state.error && <Notice tone="error" title={state.error} />}
-      {state.saved && <Notice tone="ok" title="Molt recorded." />}
+      {state.saved && <Notice tone="ok" title={existing ? 'Molt details saved.' : 'Molt recorded.'} />}
       <Button type="submit" busy={state.busy}>
-        Record the molt
+        {existing ? 'Save the molt’s details' : 'Record the molt'}
       </Button>
     </form>
   );

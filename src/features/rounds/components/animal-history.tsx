@@ -23,7 +23,7 @@ function detail(e: HistoryEvent): string | null {
 const KIND_GROUPS = {
   all: null,
   feeding: ['ate', 'refused', 'prey_left_in', 'prey_removed', 'skipped'],
-  molts: ['molted', 'premolt_seen', 'premolt_cleared', 'molting_now'],
+  molts: ['molted', 'molt_details', 'premolt_seen', 'premolt_cleared', 'molting_now'],
   water: ['watered'],
   notes: ['note'],
   moves: ['moved', 'status_changed'],

@@ -1,4 +1,4 @@
-import { useId, useState } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
 import { feedHoldOf } from '#shared/domain/rounds/item-status';
 import type { RoundItemView } from '#shared/schemas/rounds';
@@ -46,7 +46,14 @@ function HeldMealConfirm({ reason, onConfirm, onCancel }: { reason: string; onCo
   );
 }
 
-export function OutcomeButtons({ item, onRecord }: { item: RoundItemView; onRecord: RecordOutcome }) {
+interface Props {
+  item: RoundItemView;
+  onRecord: RecordOutcome;
+  /** After Molted: a prompt to complete that same molt with its size, sex and photo. */
+  moltDetails?: (moltEventId: string) => ReactNode;
+}
+
+export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
   const [open, setOpen] = useState(false);
   const [confirming, setConfirming] = useState(false);
   const [note, setNote] = useState('');
@@ -59,8 +66,11 @@ export function OutcomeButtons({ item, onRecord }: { item: RoundItemView; onReco
     if (kind === 'ate' && hold) setConfirming(true);
     else onRecord(kind);
   };
+  const molt = item.outcomes.find((o) => o.kind === 'molted');
+  const detailed = item.outcomes.some((o) => o.kind === 'molt_details');
   return (
     <div className="flex flex-col gap-2">
+      {molt && !detailed && moltDetails?.(molt.eventId)}
       {confirming && hold && (
         <HeldMealConfirm
           reason={hold.text}
