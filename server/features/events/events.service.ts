@@ -1,4 +1,5 @@
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import { breedingRefusal } from '../../../shared/domain/breeding';
 import { clockOffsetMs, effectiveTime } from '../../../shared/domain/clock';
 import { HELPER_EVENT_KINDS, type EventKind } from '../../../shared/domain/event-kinds';
 import { coverWindowMessage, coverWindowState } from '../../../shared/domain/roles';
@@ -17,6 +18,7 @@ import { applyNewEvents } from '../rounds/projection';
 import { URGENT_TRIGGERS, type RoundsService } from '../rounds/rounds.service';
 import {
   animalIdsInCollection,
+  breedersAmong,
   insertEventsOnce,
   recentEventsOf,
   storedEvents,
@@ -132,10 +134,17 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
     // looked up first, so a tap saved during the cover stays a duplicate after it ends; for
     // keepers the insert itself finds duplicates (ON CONFLICT), which saves a query per batch.
     const targets = candidates.map((c) => targetOf(c.event)).filter((t): t is string => !!t);
-    const [known, stored] = await Promise.all([
+    // A pairing is only for a female of a group that breeds (breedingModeOf).
+    const paired = [...new Set(candidates.filter((c) => c.event.kind === 'paired').map((c) => c.event.animalId))];
+    const [known, stored, breeders] = await Promise.all([
       animalIdsInCollection(db, member.collectionId, [...new Set(candidates.map((c) => c.event.animalId))]),
       storedEvents(db, helper ? [...seen, ...targets] : targets),
+      breedersAmong(db, member.collectionId, paired),
     ]);
+    const pairingRefusal = (e: RecordedEvent) => {
+      const animal = e.kind === 'paired' ? breeders.get(e.animalId) : undefined;
+      return animal ? breedingRefusal(animal) : null;
+    };
     const accepted = new Map<
       string,
       { collectionId: string; animalId: string; recordedBy: string | null }
@@ -173,6 +182,8 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
           'outside_cover',
           `This was recorded outside your cover. ${coverWindowMessage(member, now())}`,
         );
+      } else if (pairingRefusal(event)) {
+        reject(index, event.id, 'invalid', `A pairing is not recorded: ${pairingRefusal(event)}`);
       } else if (targetId && !target) {
         reject(index, event.id, 'target_unknown', 'The outcome this undoes was never saved.');
       } else if (
