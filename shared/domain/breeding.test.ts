@@ -1,7 +1,7 @@
 // Breeding follows the group: the care-profile table's "breeding" column of the husbandry rules.
 import { describe, expect, it } from 'vitest';
 import { ANIMAL_GROUPS } from './animal-facts';
-import { breedingModeOf, breedingRefusal, canBreed } from './breeding';
+import { breedingDatesProblem, breedingFacts, breedingModeOf, breedingRefusal, canBreed, isOpenRecord, type BreedingDates } from './breeding';
 
 describe('breedingModeOf', () => {
   it('gives tarantulas and true spiders a guarded egg sac on the collection’s own window (common practice, no published source)', () => {
@@ -47,5 +47,38 @@ describe('who may have a pairing or a sac, case or brood', () => {
   it('refuses a beetle and an "other" animal, whatever the sex', () => {
     expect(breedingRefusal({ ...she, group: 'beetle' })).toMatch(/eggs in the substrate/);
     expect(breedingRefusal({ ...she, group: 'other' })).toMatch(/tarantulas, true spiders, scorpions, centipedes and mantids/);
+  });
+});
+
+describe('the facts a record’s dates stand for (R8, R11 as amended)', () => {
+  const sac: BreedingDates = { kind: 'egg_sac', laidOn: '2026-10-01', pulledOn: null, hatchedOn: null, dispersedOn: null };
+  it('a sac: laid, then pulled — or hatched with her when never pulled', () => {
+    expect(breedingFacts(sac)).toEqual([{ kind: 'sac_laid', date: '2026-10-01' }]);
+    expect(breedingFacts({ ...sac, hatchedOn: '2026-11-20' })).toEqual([{ kind: 'sac_laid', date: '2026-10-01' }, { kind: 'sac_hatched', date: '2026-11-20' }]);
+    // Pulled and later hatched in the incubator: the pull is what ended her guarding.
+    expect(breedingFacts({ ...sac, pulledOn: '2026-11-12', hatchedOn: '2026-11-20' })).toEqual([{ kind: 'sac_laid', date: '2026-10-01' }, { kind: 'sac_pulled', date: '2026-11-12' }]);
+  });
+  it('an egg case: laid only (she does not guard it); a brood: begun, then dispersed', () => {
+    expect(breedingFacts({ ...sac, kind: 'egg_case', hatchedOn: '2026-11-20' })).toEqual([{ kind: 'case_laid', date: '2026-10-01' }]);
+    expect(breedingFacts({ ...sac, kind: 'brood', dispersedOn: '2026-10-15' })).toEqual([{ kind: 'brood_started', date: '2026-10-01' }, { kind: 'brood_dispersed', date: '2026-10-15' }]);
+  });
+  it('is open until pulled or hatched (sac), hatched (case), dispersed (brood)', () => {
+    expect(isOpenRecord(sac)).toBe(true);
+    expect(isOpenRecord({ ...sac, hatchedOn: '2026-11-20' })).toBe(false);
+    expect(isOpenRecord({ ...sac, kind: 'egg_case', pulledOn: '2026-11-20' })).toBe(true);
+    expect(isOpenRecord({ ...sac, kind: 'brood', hatchedOn: '2026-10-20' })).toBe(true);
+    expect(isOpenRecord({ ...sac, kind: 'brood', dispersedOn: '2026-10-20' })).toBe(false);
+  });
+  it('refuses dates after today, before the laying, and end dates the kind does not have', () => {
+    const words = breedingModeOf('tarantula').words;
+    const today = '2026-11-20';
+    expect(breedingDatesProblem(sac, today, words)).toBeNull();
+    expect(breedingDatesProblem({ ...sac, laidOn: '2026-11-21' }, today, words)).toBe('Laid on: the date cannot be after today.');
+    expect(breedingDatesProblem({ ...sac, pulledOn: '2026-09-30' }, today, words)).toBe('Pulled on: the date cannot be before it was laid (2026-10-01).');
+    expect(breedingDatesProblem({ ...sac, dispersedOn: '2026-10-30' }, today, words)).toBe('Only a brood disperses: record when the egg sac was pulled or hatched.');
+    const brood = breedingModeOf('scorpion').words;
+    expect(breedingDatesProblem({ ...sac, kind: 'brood', pulledOn: '2026-10-30' }, today, brood)).toBe('A brood is not pulled: record when it dispersed.');
+    expect(breedingDatesProblem({ ...sac, kind: 'brood', dispersedOn: '2026-09-30' }, today, brood)).toBe('Dispersed on: the date cannot be before it was born (2026-10-01).');
+    expect(breedingDatesProblem({ ...sac, kind: 'egg_case', pulledOn: '2026-10-30' }, today, breedingModeOf('mantis').words)).toBe('An egg case is not pulled: record when it hatched.');
   });
 });

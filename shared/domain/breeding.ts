@@ -31,12 +31,14 @@ export interface BreedingMode {
     startedOn: string;
     /** What is counted when it is recorded ("Eggs", "Scorplings"), or null: nothing to count yet. */
     count: string | null;
+    /** Her young, potted up one per pot ("slings", "nymphs", "scorplings"). */
+    young: string;
   };
   /** Why nothing is recorded for this group (a sentence), when `record` is null. */
   noRecord: string | null;
 }
 
-const SAC_WORDS = { record: 'Egg sac', recordLower: 'egg sac', startedOn: 'Laid on', count: 'Eggs' };
+const SAC_WORDS = { record: 'Egg sac', recordLower: 'egg sac', startedOn: 'Laid on', count: 'Eggs', young: 'slings' };
 
 const MODES: Record<AnimalGroup, BreedingMode> = {
   // Egg sac, guarded by the female until pulled or hatched. The window is the collection's own
@@ -49,7 +51,7 @@ const MODES: Record<AnimalGroup, BreedingMode> = {
     record: 'egg_case',
     guarded: false,
     window: { minDays: 28, maxDays: 56 },
-    words: { record: 'Egg case', recordLower: 'egg case', startedOn: 'Laid on', count: null },
+    words: { record: 'Egg case', recordLower: 'egg case', startedOn: 'Laid on', count: null, young: 'nymphs' },
     noRecord: null,
   },
   // Live birth: the scorplings ride on her back until their first molt, then disperse (about
@@ -59,7 +61,7 @@ const MODES: Record<AnimalGroup, BreedingMode> = {
     record: 'brood',
     guarded: true,
     window: { minDays: 7, maxDays: 21 },
-    words: { record: 'Brood', recordLower: 'brood', startedOn: 'Born on', count: 'Scorplings' },
+    words: { record: 'Brood', recordLower: 'brood', startedOn: 'Born on', count: 'Scorplings', young: 'scorplings' },
     noRecord: null,
   },
   // She curls round her eggs, then the hatchlings, until they disperse (several weeks, from memory).
@@ -68,7 +70,7 @@ const MODES: Record<AnimalGroup, BreedingMode> = {
     record: 'brood',
     guarded: true,
     window: { minDays: 28, maxDays: 56 },
-    words: { record: 'Brood', recordLower: 'brood', startedOn: 'Eggs laid on', count: 'Eggs' },
+    words: { record: 'Brood', recordLower: 'brood', startedOn: 'Eggs laid on', count: 'Eggs', young: 'young' },
     noRecord: null,
   },
   beetle: {
@@ -76,7 +78,7 @@ const MODES: Record<AnimalGroup, BreedingMode> = {
     record: null,
     guarded: false,
     window: null,
-    words: { record: 'Eggs in substrate', recordLower: 'eggs in substrate', startedOn: 'Laid on', count: null },
+    words: { record: 'Eggs in substrate', recordLower: 'eggs in substrate', startedOn: 'Laid on', count: null, young: 'larvae' },
     noRecord: 'Beetles lay their eggs in the substrate: there is no egg sac, egg case or brood to record.',
   },
   other: {
@@ -84,7 +86,7 @@ const MODES: Record<AnimalGroup, BreedingMode> = {
     record: null,
     guarded: false,
     window: null,
-    words: { record: 'None', recordLower: 'none', startedOn: 'Laid on', count: null },
+    words: { record: 'None', recordLower: 'none', startedOn: 'Laid on', count: null, young: 'young' },
     noRecord: 'Breeding records are kept for tarantulas, true spiders, scorpions, centipedes and mantids.',
   },
 };
@@ -157,4 +159,11 @@ export function breedingDatesProblem(record: BreedingDates, today: LocalDate, wo
     if (date < record.laidOn) return `${what} on: the date cannot be before it was ${record.kind === 'brood' && words.startedOn === 'Born on' ? 'born' : 'laid'} (${record.laidOn}).`;
   }
   return null;
+}
+
+/** Still running: a sac not yet pulled or hatched, a case not hatched, a brood not dispersed. */
+export function isOpenRecord(record: BreedingDates): boolean {
+  if (record.kind === 'egg_sac') return !record.pulledOn && !record.hatchedOn;
+  if (record.kind === 'egg_case') return !record.hatchedOn;
+  return !record.dispersedOn;
 }

@@ -295,7 +295,7 @@ describe('a female with a sac or brood', () => {
     ctx.setNow(NOW);
     const male = await createAnimal(ctx.database.db, keeper.collectionId, { name: 'Dart', sex: 'male' });
     const juvenile = await createAnimal(ctx.database.db, keeper.collectionId, { name: 'Pip', sex: 'unknown', lifeStage: 'juvenile' });
-    const beetle = await createAnimal(ctx.database.db, keeper.collectionId, { name: 'Stag', sex: 'female', group: 'beetle', scientificName: 'Dorcus titanus' });
+    const beetle = await createAnimal(ctx.database.db, keeper.collectionId, { name: 'Stag', sex: 'female', group: 'beetle', scientificName: 'Coleoptera sp.' });
     const female = await createAnimal(ctx.database.db, keeper.collectionId, { name: 'Willing', sex: 'female' });
     const expected: [typeof male, string][] = [
       [male, "Dart is recorded as a male. Change the sex on the animal's page if that is wrong."],
@@ -316,7 +316,7 @@ describe('a female with a sac or brood', () => {
 
   it('records a scorpion’s brood (birth date, scorplings; left alone until it disperses) and a mantis’s egg case', async () => {
     ctx.setNow(NOW);
-    const scorpion = await createAnimal(ctx.database.db, keeper.collectionId, { name: 'Empress', sex: 'female', group: 'scorpion', scientificName: 'Pandinus imperator', hasWaterDish: true });
+    const scorpion = await createAnimal(ctx.database.db, keeper.collectionId, { name: 'Empress', sex: 'female', group: 'scorpion', scientificName: 'Heterometrus spinifer', hasWaterDish: true });
     const brood = (await keeper.agent.post(`${base()}/egg-sacs`).send({ femaleId: scorpion.id, laidOn: '2026-11-05', slingCount: 28 }).expect(201)).body;
     // Scorplings disperse after their first molt, about 1–3 weeks (from memory): 12–26 Nov.
     expect(brood).toMatchObject({ kind: 'brood', femaleGroup: 'scorpion', clutch: 'Empress brood 2026-11-05', slingCount: 28, expectedFrom: '2026-11-12', expectedTo: '2026-11-26' });
@@ -330,10 +330,10 @@ describe('a female with a sac or brood', () => {
     expect(await stateOf(scorpion.id)).toMatchObject({ leaveAlone: null, rebuildSince: '2026-11-18', rebuildReason: 'brood_dispersed' });
     expect((await schedule(keeper, scorpion.id)).tasks.map((t) => t.kind)).toContain('feed');
 
-    const mantis = await createAnimal(ctx.database.db, keeper.collectionId, { name: 'Orchid', sex: 'female', group: 'mantis', scientificName: 'Hymenopus coronatus' });
+    const mantis = await createAnimal(ctx.database.db, keeper.collectionId, { name: 'Hook', sex: 'female', group: 'mantis', scientificName: 'Hierodula membranacea' });
     const ootheca = (await keeper.agent.post(`${base()}/egg-sacs`).send({ femaleId: mantis.id, laidOn: '2026-11-02' }).expect(201)).body;
     // An egg case incubates about 4–8 weeks (common practice, no published source): 30 Nov – 28 Dec.
-    expect(ootheca).toMatchObject({ kind: 'egg_case', femaleGroup: 'mantis', clutch: 'Orchid case 2026-11-02', expectedFrom: '2026-11-30', expectedTo: '2026-12-28' });
+    expect(ootheca).toMatchObject({ kind: 'egg_case', femaleGroup: 'mantis', clutch: 'Hook case 2026-11-02', expectedFrom: '2026-11-30', expectedTo: '2026-12-28' });
     expect(await liveFacts(mantis.id)).toEqual(['case_laid@2026-11-02T17:00:00.000Z']);
     // A mantis does not guard her ootheca: she stays on the round.
     expect((await stateOf(mantis.id)).leaveAlone).toBeNull();

@@ -68,7 +68,7 @@ describe('R11 amended: a female guarding a sac or brood is left alone, but her d
     expect(kinds(decide(female(), [ev('molting_now', '2026-03-19')]).tasks)).toEqual(['leave_alone']);
   });
   it('leaves a scorpion carrying her brood alone, with the same quiet water', () => {
-    const d = decide(female({ group: 'scorpion', scientificName: 'Pandinus imperator' }), [ev('brood_started', '2026-03-10')]);
+    const d = decide(female({ group: 'scorpion', scientificName: 'Heterometrus spinifer' }), [ev('brood_started', '2026-03-10')]);
     expect(kinds(d.tasks)).toEqual(['leave_alone', 'water']);
     expect(d.tasks[0]!.reasons[0]!.text).toBe('Guarding her brood since 10 Mar: leave alone — no food, no disturbance.');
   });

@@ -2,6 +2,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { STATUS_LABEL } from '#shared/domain/animal-facts';
+import { canBreed } from '#shared/domain/breeding';
 import { localDateOf } from '#shared/domain/local-dates';
 import { formatSize } from '#shared/domain/units';
 import { Button } from '@/components/ui/button';
@@ -91,11 +92,11 @@ export function AnimalRoute() {
       />
       <GrowthPanel events={history.data?.events ?? []} timeZone={collection.timeZone} unit={unit} />
       <MoltForm today={today} timeZone={collection.timeZone} unit={unit} onRecord={(payload, at) => record(animal, 'molted', payload, at)} />
-      {animal.sex !== 'male' && animal.sex !== 'mature_male' && animal.lifeStage !== 'sling' && (
+      {kept && canBreed(animal) && (
         <PairingForm
           today={today}
           timeZone={collection.timeZone}
-          males={list.data.animals.filter((a) => a.status === 'active' && (a.sex === 'male' || a.sex === 'mature_male'))}
+          males={list.data.animals.filter((a) => a.status === 'active' && a.group === animal.group && (a.sex === 'male' || a.sex === 'mature_male'))}
           onRecord={(payload, at) => record(animal, 'paired', payload, at)}
         />
       )}
