@@ -12,6 +12,7 @@ import { labelUrl } from '../../shared/domain/labels/label-payload';
 import { LABEL_SIZES, placeLabels, sheetLayout } from '../../shared/domain/labels/sheet-layout';
 import { projectState, type AnimalState, type EngineEvent } from '../../shared/domain/rounds/animal-state';
 import type { AnimalSummary } from '../../shared/schemas/animals';
+import type { EggSacView } from '../../shared/schemas/breeding';
 import { addMember, createAnimal, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 import { decodeQrIn, rasterisePdf } from '../support/label-raster';
@@ -312,6 +313,26 @@ describe('a female with a sac or brood', () => {
     expect(res.body.results.map((r: { message?: string }) => r.message ?? null)).toEqual([...expected.map(([, m]) => `A pairing is not recorded: ${m}`), null]);
     expect(await liveFacts(male.id)).toEqual([]);
     expect(await stateOf(female.id)).toMatchObject({ rebuildReason: 'paired', rebuildSince: '2026-11-20' });
+  });
+
+  it('goes out in the backup and comes back: the records, and their facts still naming them', async () => {
+    ctx.setNow(NOW);
+    const from = await signUp(ctx);
+    const mother = await createAnimal(ctx.database.db, from.collectionId, { name: 'Carrier', sex: 'female', group: 'scorpion', scientificName: 'Heterometrus spinifer' });
+    await from.agent.post(`${base(from)}/egg-sacs`).send({ femaleId: mother.id, laidOn: '2026-11-05', slingCount: 19, clutch: 'Carrier brood' }).expect(201);
+    const backup = (await from.agent.get(`${base(from)}/backup`).expect(200)).body;
+    expect(backup.eggSacs).toHaveLength(1);
+    const to = await signUp(ctx);
+    await to.agent.post(`${base(to)}/restore`).send(backup).expect(201);
+    const [copy] = (await to.agent.get(`${base(to)}/egg-sacs`).expect(200)).body.sacs as EggSacView[];
+    expect(copy).toMatchObject({ kind: 'brood', clutch: 'Carrier brood', laidOn: '2026-11-05', slingCount: 19, femaleName: 'Carrier' });
+    // Its fact names the copy, so a date changed in the copy corrects the copy's facts.
+    await to.agent.patch(`${base(to)}/egg-sacs/${copy!.id}`).send({ laidOn: '2026-11-04' }).expect(200);
+    expect(await liveFacts(copy!.femaleId)).toEqual(['brood_started@2026-11-04T17:00:00.000Z']);
+    // A backup made before sacs were kept still restores.
+    const { eggSacs: _none, ...older } = backup;
+    const third = await signUp(ctx);
+    await third.agent.post(`${base(third)}/restore`).send(older).expect(201);
   });
 
   it('records a scorpion’s brood (birth date, scorplings; left alone until it disperses) and a mantis’s egg case', async () => {
