@@ -205,7 +205,7 @@ export function createApp(options: AppOptions) {
   api.use('/collections/:collectionId', photosRoutes(photos, member));
   const coverReports = createCoverReportsService(database.db, { mailer: options.mailer, now, rounds, publicUrl });
   api.use('/collections/:collectionId', coverRoutes(cover, coverReports, rounds, member));
-  api.use('/collections/:collectionId', breedingRoutes(createBreedingService(database.db, now), member));
+  api.use('/collections/:collectionId', breedingRoutes(createBreedingService(database.db, now, (id, animalIds) => rounds.reconcileToday(id, animalIds)), member));
   api.use('/collections/:collectionId', labelsRoutes(createLabelsService(database.db), member));
   api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db), member));
   api.use(apiNotFound);

@@ -13,6 +13,13 @@ export const EVENT_KINDS = [
   'molting_now',
   'sac_laid',
   'sac_pulled',
+  /** The sac hatched with the female (no pull): her guarding ends and her rebuild starts. */
+  'sac_hatched',
+  /** A mantis egg case (ootheca): recorded on the female, who does not guard it. */
+  'case_laid',
+  /** A brood (scorplings on her back, or eggs a centipede curls round): she is left alone. */
+  'brood_started',
+  'brood_dispersed',
   'paired',
   'rebuild_started',
   'rebuild_ended',
@@ -58,6 +65,10 @@ export const EVENT_WORDS: Record<EventKind, string> = {
   molting_now: 'Molting now',
   sac_laid: 'Egg sac laid',
   sac_pulled: 'Egg sac pulled',
+  sac_hatched: 'Egg sac hatched',
+  case_laid: 'Egg case laid',
+  brood_started: 'Brood began',
+  brood_dispersed: 'Brood dispersed',
   paired: 'Paired',
   rebuild_started: 'Rebuilding',
   rebuild_ended: 'Rebuild over',

@@ -4,7 +4,7 @@
 import fc from 'fast-check';
 import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
-import { addDays, clockTime, daysBetween, describeInstant, describeLocalDate, localDateOf, startOfLocalDate } from './local-dates';
+import { addDays, clockTime, daysBetween, describeInstant, describeLocalDate, instantOfKeeperDate, localDateOf, startOfLocalDate } from './local-dates';
 
 const ZONE = 'America/Toronto';
 
@@ -79,5 +79,20 @@ describe('describeInstant', () => {
     // 2026-12-01T13:40Z is 08:40 in Toronto (EST, UTC−5, IANA tz database).
     expect(describeInstant('2026-12-01T13:40:00Z', 'America/Toronto')).toBe('Tue 1 Dec, 08:40');
     expect(clockTime('2026-12-01T13:40:00Z', 'America/Toronto')).toBe('08:40');
+  });
+});
+
+describe('instantOfKeeperDate', () => {
+  const now = new Date('2026-11-02T15:30:00Z'); // 10:30 EST on 2 Nov in Toronto
+  it('is the moment of typing when the date is today there', () => {
+    expect(instantOfKeeperDate('2026-11-02', ZONE, now)).toBe(now);
+  });
+  it('is noon local on an earlier date, on either side of the DST change (cross-checked with luxon)', () => {
+    for (const date of ['2026-11-01', '2026-10-31', '2026-03-08', '2026-03-07']) {
+      const expected = DateTime.fromISO(`${date}T12:00`, { zone: ZONE }).toUTC().toISO({ suppressMilliseconds: false });
+      expect(instantOfKeeperDate(date, ZONE, now).toISOString()).toBe(expected);
+      expect(localDateOf(instantOfKeeperDate(date, ZONE, now), ZONE)).toBe(date);
+    }
+    expect(instantOfKeeperDate('2026-11-01', ZONE, now).toISOString()).toBe('2026-11-01T17:00:00.000Z'); // EST, UTC−5 by noon
   });
 });

@@ -99,3 +99,14 @@ export function describeInstant(iso: string, zone?: string): string {
   }
   return f.format(new Date(iso));
 }
+
+/**
+ * The instant to record for a date the keeper gives ("pulled on 3 Mar"): the moment of typing
+ * when it is today there, else noon that day in the zone — mid-day, so the fact falls on that
+ * date whatever the daylight-saving change, and after anything done that morning.
+ */
+export function instantOfKeeperDate(date: LocalDate, zone: string, now: Date): Date {
+  if (localDateOf(now, zone) === date) return now;
+  const [y, m, d] = parts(date);
+  return new Date(new TZDate(y, m - 1, d, 12, 0, 0, zone).getTime());
+}

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { ANIMAL_GROUPS, ANIMAL_STATUSES, LIFE_STAGES, SEXES } from '../domain/animal-facts';
+import { BREEDING_RECORDS } from '../domain/breeding';
 import { EVENT_KINDS } from '../domain/event-kinds';
 import './messages';
 
@@ -52,6 +53,28 @@ export const backupFile = z.object({
       photo: z.string().nullable(),
     }),
   ),
+  /** Egg sacs, egg cases and broods (files made before they were kept have none). */
+  eggSacs: z
+    .array(
+      z.object({
+        id,
+        femaleId: id,
+        kind: z.enum(BREEDING_RECORDS),
+        clutch: z.string(),
+        laidOn: date.unwrap(),
+        pulledOn: date,
+        hatchedOn: date,
+        dispersedOn: date,
+        eggCount: z.number().int().nullable(),
+        eggsWithLegs: z.number().int().nullable(),
+        slingCount: z.number().int().nullable(),
+        incubationMinDays: z.number().int(),
+        incubationMaxDays: z.number().int(),
+        notes: z.string().nullable(),
+        createdAt: instant,
+      }),
+    )
+    .default([]),
   events: z.array(
     z.object({
       id,

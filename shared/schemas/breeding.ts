@@ -1,4 +1,6 @@
 import { z } from 'zod';
+import type { AnimalGroup } from '../domain/animal-facts';
+import type { BreedingRecordKind } from '../domain/breeding';
 import { localDate, uuid } from './common';
 
 const days = z.number().int().min(7, { message: 'At least 7 days.' }).max(400, { message: 'At most 400 days.' });
@@ -9,18 +11,26 @@ export const incubationBody = z
   .object({ minDays: days, maxDays: days })
   .refine((d) => d.maxDays >= d.minDays, { message: 'The longest wait cannot be shorter than the shortest.', path: ['maxDays'] });
 
+/**
+ * A sac, egg case or brood: which one follows the female's group (`breedingModeOf`). `laidOn`
+ * is the day it was laid, or a scorpion's brood was born; a brood's young count as slings.
+ */
 export const eggSacBody = z.object({
   femaleId: uuid,
   laidOn: localDate,
   clutch: z.string().trim().max(80, { message: 'Keep the clutch name under 80 characters.' }).optional(),
   incubation: incubationBody.optional(),
+  eggCount: count('Eggs').optional(),
+  slingCount: count('Young').optional(),
   notes: notes.optional(),
 });
 export type EggSacBody = z.input<typeof eggSacBody>;
 
 export const eggSacChange = z.object({
+  laidOn: localDate.optional(),
   pulledOn: localDate.nullable().optional(),
   hatchedOn: localDate.nullable().optional(),
+  dispersedOn: localDate.nullable().optional(),
   eggCount: count('Eggs').optional(),
   eggsWithLegs: count('Eggs with legs').optional(),
   slingCount: count('Slings').optional(),
@@ -42,18 +52,22 @@ export type SlingsBody = z.input<typeof slingsBody>;
 
 export interface EggSacView {
   id: string;
+  /** Egg sac, egg case or brood: after the female's group. */
+  kind: BreedingRecordKind;
   femaleId: string;
   femaleName: string;
+  femaleGroup: AnimalGroup;
   clutch: string;
   laidOn: string;
   pulledOn: string | null;
   hatchedOn: string | null;
+  dispersedOn: string | null;
   eggCount: number | null;
   eggsWithLegs: number | null;
   slingCount: number | null;
   incubationMinDays: number;
   incubationMaxDays: number;
-  /** When to expect to pull it or see it hatch: laid + the incubation window. */
+  /** When to expect to pull it, see it hatch or the brood disperse: laid + the window. */
   expectedFrom: string;
   expectedTo: string;
   notes: string | null;

@@ -19,6 +19,13 @@ describe('recorded events', () => {
     const v = recordedEvent.safeParse({ ...base, kind: 'void', payload: {} });
     expect(v.error!.issues[0]!.path).toEqual(['payload', 'targetId']);
   });
+  it('refuses breeding facts sent as taps: the sac, case or brood record on the Breeding page is their truth', () => {
+    for (const kind of ['sac_laid', 'sac_pulled', 'sac_hatched', 'case_laid', 'brood_started', 'brood_dispersed']) {
+      const r = recordedEvent.safeParse({ ...base, kind, payload: {} });
+      expect(r.success).toBe(false);
+      expect(r.error!.issues[0]!.message).toMatch(/Breeding page/);
+    }
+  });
   it('needs a client id that is a UUID and a time with its offset (RFC 3339)', () => {
     expect(recordedEvent.safeParse({ ...base, id: 'not-a-uuid', kind: 'ate' }).success).toBe(false);
     expect(recordedEvent.safeParse({ ...base, clientRecordedAt: 'yesterday', kind: 'ate' }).success).toBe(false);

@@ -14,6 +14,8 @@ const prey = {
   count: z.number().int().min(1).max(50).optional(),
 };
 const empty = z.object({ note }).strict();
+/** Facts written from a breeding record (`egg_sacs`): its id, so editing its dates finds them. */
+const breedingRecord = z.object({ sacId: uuid.optional(), note }).strict();
 
 /** What a molt showed: given with the tap, or added to the same molt later (molt_details). */
 const moltFacts = {
@@ -40,8 +42,12 @@ export const EVENT_PAYLOADS = {
   premolt_seen: empty,
   premolt_cleared: empty,
   molting_now: empty,
-  sac_laid: empty,
-  sac_pulled: z.object({ eggCount: z.number().int().min(0).max(5000).optional(), note }).strict(),
+  sac_laid: breedingRecord,
+  sac_pulled: breedingRecord.extend({ eggCount: z.number().int().min(0).max(5000).optional() }).strict(),
+  sac_hatched: breedingRecord,
+  case_laid: breedingRecord,
+  brood_started: breedingRecord.extend({ count: z.number().int().min(0).max(5000).optional() }).strict(),
+  brood_dispersed: breedingRecord,
   paired: z
     .object({
       maleId: uuid.optional(),
@@ -65,8 +71,12 @@ export const EVENT_PAYLOADS = {
   status_changed: z.object({ from: z.enum(ANIMAL_STATUSES), to: z.enum(ANIMAL_STATUSES), note }).strict(),
 } satisfies Record<(typeof EVENT_KINDS)[number], z.ZodType>;
 
-/** Facts the server records itself when an animal is moved or retired, never sent by a phone. */
-export const SERVER_EVENT_KINDS: readonly EventKind[] = ['moved', 'status_changed'];
+/**
+ * Facts the server records itself, never sent by a phone: moves and status changes, and the
+ * breeding facts written from a sac, case or brood record (its dates are the truth for them).
+ */
+export const SERVER_EVENT_KINDS: readonly EventKind[] = ['moved', 'status_changed', 'sac_laid', 'sac_pulled', 'sac_hatched', 'case_laid', 'brood_started', 'brood_dispersed'];
+const BREEDING_RECORD_KINDS: readonly EventKind[] = ['sac_laid', 'sac_pulled', 'sac_hatched', 'case_laid', 'brood_started', 'brood_dispersed'];
 
 export const eventKind = z.enum(EVENT_KINDS);
 
@@ -84,7 +94,10 @@ export const recordedEvent = z
   })
   .superRefine((event, ctx) => {
     if (SERVER_EVENT_KINDS.includes(event.kind)) {
-      ctx.addIssue({ code: 'custom', path: ['kind'], message: 'Moves and status changes are made on the animal’s page, not recorded as taps.' });
+      const message = BREEDING_RECORD_KINDS.includes(event.kind)
+        ? 'Egg sacs, egg cases and broods are recorded on the Breeding page, not as taps.'
+        : 'Moves and status changes are made on the animal’s page, not recorded as taps.';
+      ctx.addIssue({ code: 'custom', path: ['kind'], message });
       return;
     }
     const result = EVENT_PAYLOADS[event.kind].safeParse(event.payload);

@@ -3,6 +3,7 @@
 // meal recorded while food is withheld is stored but flagged. The holds are common practice, no
 // published source: live prey can injure a molting or freshly molted spider.
 import { randomUUID } from 'node:crypto';
+import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { addDays, localDateOf, startOfLocalDate } from '../../shared/domain/local-dates';
 import { createAnimal, signUp, type SignedUp } from '../factories';
@@ -96,6 +97,13 @@ describe('same-day holds on the server round', () => {
     const animal = await dueAdult();
     await owner.agent.patch(`/api/collections/${owner.collectionId}/animals/${animal.id}/care`).send({ doNotFeedUntil: '2026-12-05' }).expect(200);
     expect(feedOf(await todayItem(animal.id)).withdrawn?.text).toBe('Do not feed until 5 Dec (keeper\'s setting).');
+  });
+
+  it('an egg sac recorded today on the breeding page withdraws her feed task (R11, R18)', async () => {
+    const animal = await dueAdult();
+    await ctx.database.db.execute(sql`update animals set sex = 'female' where id = ${animal.id}`);
+    await owner.agent.post(`/api/collections/${owner.collectionId}/egg-sacs`).send({ femaleId: animal.id, laidOn: DAY }).expect(201);
+    expect(feedOf(await todayItem(animal.id)).withdrawn?.code).toBe('leave_alone');
   });
 
   it('a meal recorded while held is stored, flagged for the owner and warned about on the round', async () => {

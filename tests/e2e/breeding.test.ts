@@ -1,5 +1,6 @@
 // Issue 8's end-to-end check at 360 px: a molt with its size draws the growth chart; an egg sac
-// becomes a tray of slings, straight to their labels.
+// becomes a tray of slings, straight to their labels. Breeding follows the group: the female
+// picker lists only females of groups that have a sac, case or brood, and its words follow hers.
 import { describe, expect, it } from 'vitest';
 import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
 
@@ -46,6 +47,36 @@ describe('growth and breeding at 360 px', () => {
     await page.waitForURL('**/labels');
     await expect.poll(() => page.getByText(/^12 labels on 1 sheet/).count(), { timeout: 10_000 }).toBe(1);
     await screenshot(page, 'breeding-03-labels');
+    expect(consoleErrors).toEqual([]);
+  });
+
+  it('offers only females that can breed, and records a scorpion’s brood in its own words', async () => {
+    const { page, consoleErrors } = await phonePage(env.browser);
+    await signInAsDemo(page, env.server.baseUrl, 'owner@northlight.test');
+    await page.getByRole('link', { name: 'Animals', exact: true }).click();
+    await page.getByRole('link', { name: 'Breeding' }).click();
+    const picker = page.getByLabel('Female', { exact: true });
+    await picker.waitFor();
+    const options = await picker.locator('option').allInnerTexts();
+    // The demo's mature male, its centipede and juveniles of unknown sex, and its slings are not offered.
+    for (const name of ['Blue Jay', 'Rattler', 'Verdi', 'Tiger', 'Pebble']) expect(options.some((o) => o.startsWith(`${name} (`))).toBe(false);
+    expect(options.some((o) => o.startsWith('Juniper ('))).toBe(true);
+    const form = page.getByRole('form', { name: /^Record / });
+    expect(await form.getByRole('heading').innerText()).toBe('Record an egg sac');
+
+    await picker.selectOption({ label: options.find((o) => o.endsWith('· Scorpion'))! });
+    expect(await form.getByRole('heading').innerText()).toBe('Record a brood');
+    await form.getByLabel('Scorplings').fill('31');
+    await form.getByLabel('Clutch name').fill('Scorplings E2E');
+    await form.getByRole('button', { name: 'Record the brood' }).click();
+    const brood = page.getByRole('list', { name: /Egg sacs/ }).getByRole('listitem').filter({ hasText: 'Scorplings E2E' });
+    await brood.waitFor();
+    expect(await brood.innerText()).toMatch(/Brood[\s\S]*Born on [\d-]+ · disperses about[\s\S]*Scorplings 31/);
+    await brood.getByRole('button', { name: 'Update…' }).click();
+    expect(await brood.getByLabel('Dispersed on').count()).toBe(1);
+    expect(await brood.getByLabel('Pulled on').count()).toBe(0);
+    await expectAccessible(page, 'breeding by group');
+    await screenshot(page, 'breeding-04-scorpion-brood');
     expect(consoleErrors).toEqual([]);
   });
 });

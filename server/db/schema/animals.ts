@@ -18,6 +18,7 @@ import {
   LIFE_STAGES,
   SEXES,
 } from '../../../shared/domain/animal-facts';
+import { BREEDING_RECORDS } from '../../../shared/domain/breeding';
 import { collections, locations } from './collections';
 import { users } from './users';
 
@@ -25,6 +26,7 @@ export const groupEnum = pgEnum('animal_group', ANIMAL_GROUPS);
 export const stageEnum = pgEnum('life_stage', LIFE_STAGES);
 export const sexEnum = pgEnum('animal_sex', SEXES);
 export const statusEnum = pgEnum('animal_status', ANIMAL_STATUSES);
+export const breedingRecordEnum = pgEnum('breeding_record', BREEDING_RECORDS);
 
 export const animals = pgTable(
   'animals',
@@ -120,7 +122,10 @@ export const handoverNotes = pgTable(
 );
 
 
-/** An egg sac: laid by a female, pulled or hatched later, and the slings that came of it. */
+/**
+ * An egg sac (or a mantis's egg case, or a scorpion's or centipede's brood — `kind`, after the
+ * female's group): laid or born, pulled, hatched or dispersed later, and the young of it.
+ */
 export const eggSacs = pgTable(
   'egg_sacs',
   {
@@ -131,11 +136,14 @@ export const eggSacs = pgTable(
     femaleId: uuid('female_id')
       .notNull()
       .references(() => animals.id, { onDelete: 'cascade' }),
+    kind: breedingRecordEnum('kind').notNull().default('egg_sac'),
     // The name its slings share as their clutch (and their labels' filter).
     clutch: text('clutch').notNull(),
     laidOn: date('laid_on').notNull(),
     pulledOn: date('pulled_on'),
     hatchedOn: date('hatched_on'),
+    // A brood: the day the young left her back (or her coils); her guarding ends then.
+    dispersedOn: date('dispersed_on'),
     eggCount: integer('egg_count'),
     eggsWithLegs: integer('eggs_with_legs'),
     slingCount: integer('sling_count'),

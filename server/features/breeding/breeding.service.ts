@@ -1,12 +1,15 @@
-import { and, asc, count, eq, inArray } from 'drizzle-orm';
+import { and, asc, eq, inArray } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import { breedingDatesProblem, breedingFacts, breedingModeOf, breedingRefusal, BREEDING_FACT_KINDS, RECORD_SHORT, type BreedingDates } from '../../../shared/domain/breeding';
 import { collectionPrefix, LABEL_ALPHABET } from '../../../shared/domain/label-codes';
-import { addDays, type LocalDate } from '../../../shared/domain/local-dates';
-import type { EggSacView } from '../../../shared/schemas/breeding';
+import { addDays, instantOfKeeperDate, localDateOf } from '../../../shared/domain/local-dates';
+import type { EggSacBody, EggSacChange, EggSacView } from '../../../shared/schemas/breeding';
+import type { Db } from '../../db/client';
 import { animals, eggSacs } from '../../db/schema/animals';
-import { collections, locations } from '../../db/schema/collections';
+import { locations } from '../../db/schema/collections';
 import { HttpError } from '../../middleware/errors';
 import { recordServerEvents } from '../animals/animal-events';
+import { findAnimal, findCollection, findSac, insertSac, liveBreedingFacts, listSacs, sacCountOf, setIncubation, updateSac, type EggSacRow } from './breeding.repository';
 
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that egg sac.');
 
@@ -29,21 +32,23 @@ export function sequentialCodes(prefix: string, count: number, taken: ReadonlySe
   throw new HttpError(409, 'codes_exhausted', 'No run of free label codes is long enough; create fewer slings at once.');
 }
 
-export function createBreedingService(db: NodePgDatabase, now: () => Date) {
-  async function collectionOf(collectionId: string) {
-    const [c] = await db.select().from(collections).where(eq(collections.id, collectionId));
-    return c!;
-  }
-
-  function view(row: typeof eggSacs.$inferSelect, femaleName: string, slingsCreated: number): EggSacView {
+/**
+ * `afterFacts`: today's round is brought in line once a record's facts are written (a sac laid
+ * today withdraws the female's open feed task at once, R18).
+ */
+export function createBreedingService(db: NodePgDatabase, now: () => Date, afterFacts: (collectionId: string, animalIds: string[]) => Promise<void> = async () => {}) {
+  function view(row: EggSacRow, female: { name: string; group: EggSacView['femaleGroup'] }, slingsCreated: number): EggSacView {
     return {
       id: row.id,
+      kind: row.kind,
       femaleId: row.femaleId,
-      femaleName,
+      femaleName: female.name,
+      femaleGroup: female.group,
       clutch: row.clutch,
       laidOn: row.laidOn,
       pulledOn: row.pulledOn,
       hatchedOn: row.hatchedOn,
+      dispersedOn: row.dispersedOn,
       eggCount: row.eggCount,
       eggsWithLegs: row.eggsWithLegs,
       slingCount: row.slingCount,
@@ -57,69 +62,107 @@ export function createBreedingService(db: NodePgDatabase, now: () => Date) {
   }
 
   async function sacOf(collectionId: string, sacId: string) {
-    const [row] = await db.select().from(eggSacs).where(and(eq(eggSacs.id, sacId), eq(eggSacs.collectionId, collectionId)));
+    const row = await findSac(db, collectionId, sacId);
     if (!row) throw notFound();
     return row;
   }
 
+  function checkDates(record: BreedingDates, group: EggSacView['femaleGroup'], zone: string) {
+    const problem = breedingDatesProblem(record, localDateOf(now(), zone), breedingModeOf(group).words);
+    if (problem) throw new HttpError(422, 'invalid', problem);
+  }
+
+  /**
+   * Brings the female's history in line with the record's dates: each fact the dates stand for
+   * is on her history once, effective on the keeper's date (noon there, or now when it is
+   * today); a fact whose date changed or went is voided and written again — events are never
+   * edited. The projection follows in the same transaction (a void or a past date re-folds).
+   */
+  async function syncFacts(tx: Db, record: EggSacRow, zone: string, userId: string) {
+    const wanted = breedingFacts(record);
+    const facts = await liveBreedingFacts(tx, record.femaleId, BREEDING_FACT_KINDS);
+    // Facts written before records were named in them belong to this record when she has no other.
+    const adopt = facts.some((f) => f.sacId === null) && (await sacCountOf(tx, record.femaleId)) === 1;
+    const mine = facts.filter((f) => f.sacId === record.id || (adopt && f.sacId === null));
+    const kept = new Set<string>();
+    const missing = wanted.filter((w) => {
+      const match = mine.find((f) => !kept.has(f.id) && f.kind === w.kind && localDateOf(f.effectiveAt, zone) === w.date);
+      if (match) kept.add(match.id);
+      return !match;
+    });
+    const stale = mine.filter((f) => !kept.has(f.id));
+    const at = now();
+    const base = { collectionId: record.collectionId, animalId: record.femaleId, recordedBy: userId };
+    await recordServerEvents(
+      tx,
+      [
+        ...stale.map((f) => ({ ...base, kind: 'void' as const, payload: { targetId: f.id, note: 'The record’s date changed.' } })),
+        ...missing.map((w) => ({ ...base, kind: w.kind, payload: { sacId: record.id }, effectiveAt: instantOfKeeperDate(w.date, zone, at) })),
+      ],
+      at,
+    );
+  }
+
   return {
     async list(collectionId: string): Promise<EggSacView[]> {
-      const rows = await db
-        .select({ sac: eggSacs, female: animals.name })
-        .from(eggSacs)
-        .innerJoin(animals, eq(animals.id, eggSacs.femaleId))
-        .where(eq(eggSacs.collectionId, collectionId))
-        .orderBy(asc(eggSacs.laidOn));
-      const clutches = rows.map((r) => r.sac.clutch);
-      const made = clutches.length
-        ? await db.select({ clutch: animals.clutch, n: count() }).from(animals).where(and(eq(animals.collectionId, collectionId), inArray(animals.clutch, clutches))).groupBy(animals.clutch)
-        : [];
-      const byClutch = new Map(made.map((m) => [m.clutch, m.n]));
-      return rows.map((r) => view(r.sac, r.female, byClutch.get(r.sac.clutch) ?? 0));
+      return (await listSacs(db, collectionId)).map((r) => view(r.sac, { name: r.female, group: r.group }, r.slingsCreated));
     },
 
     async setIncubation(collectionId: string, minDays: number, maxDays: number) {
-      await db.update(collections).set({ incubationMinDays: minDays, incubationMaxDays: maxDays }).where(eq(collections.id, collectionId));
+      await setIncubation(db, collectionId, minDays, maxDays);
     },
 
-    /** A sac laid: the female guards it (left alone on the round) until it is pulled. */
-    async create(collectionId: string, userId: string, body: { femaleId: string; laidOn: LocalDate; clutch?: string; incubation?: { minDays: number; maxDays: number }; notes?: string | null }) {
-      const c = await collectionOf(collectionId);
-      const [female] = await db.select().from(animals).where(and(eq(animals.id, body.femaleId), eq(animals.collectionId, collectionId)));
+    /**
+     * A sac, egg case or brood — whichever the female's group has — laid (or born) on the
+     * keeper's date. Only females of groups that have one: a male, an animal whose sex is not
+     * known, a beetle are refused with the reason. A sac or brood leaves her alone (R11).
+     */
+    async create(collectionId: string, userId: string, body: EggSacBody) {
+      const c = await findCollection(db, collectionId);
+      const female = await findAnimal(db, collectionId, body.femaleId);
       if (!female) throw new HttpError(404, 'not_found', 'We could not find that animal.');
-      if (female.sex === 'male' || female.sex === 'mature_male') throw new HttpError(422, 'invalid', `${female.name} is recorded as a male. Change the sex on the animal's page if that is wrong.`);
-      const [row] = await db.transaction(async (tx) => {
-        const inserted = await tx
-          .insert(eggSacs)
-          .values({
-            collectionId,
-            femaleId: female.id,
-            clutch: body.clutch || `${female.name} sac ${body.laidOn}`,
-            laidOn: body.laidOn,
-            incubationMinDays: body.incubation?.minDays ?? c.incubationMinDays,
-            incubationMaxDays: body.incubation?.maxDays ?? c.incubationMaxDays,
-            notes: body.notes ?? null,
-          })
-          .returning();
-        await recordServerEvents(tx, [{ collectionId, animalId: female.id, kind: 'sac_laid', payload: {}, recordedBy: userId }], now());
+      const refusal = breedingRefusal(female);
+      if (refusal) throw new HttpError(422, 'invalid', refusal);
+      const mode = breedingModeOf(female.group);
+      const kind = mode.record!;
+      checkDates({ kind, laidOn: body.laidOn, pulledOn: null, hatchedOn: null, dispersedOn: null }, female.group, c.timeZone);
+      const window = body.incubation ?? mode.window ?? { minDays: c.incubationMinDays, maxDays: c.incubationMaxDays };
+      const row = await db.transaction(async (tx) => {
+        const inserted = await insertSac(tx, {
+          collectionId,
+          femaleId: female.id,
+          kind,
+          clutch: body.clutch || `${female.name} ${RECORD_SHORT[kind]} ${body.laidOn}`,
+          laidOn: body.laidOn,
+          eggCount: body.eggCount ?? null,
+          slingCount: body.slingCount ?? null,
+          incubationMinDays: window.minDays,
+          incubationMaxDays: window.maxDays,
+          notes: body.notes ?? null,
+        });
+        await syncFacts(tx, inserted, c.timeZone, userId);
         return inserted;
       });
-      return view(row!, female.name, 0);
+      await afterFacts(collectionId, [female.id]);
+      return view(row, female, 0);
     },
 
-    /** Pulling the sac starts the female's rebuild (rule R8) through a "sac pulled" fact. */
-    async change(collectionId: string, userId: string, sacId: string, body: { pulledOn?: string | null; hatchedOn?: string | null; eggCount?: number | null; eggsWithLegs?: number | null; slingCount?: number | null; incubation?: { minDays: number; maxDays: number }; notes?: string | null }) {
+    /**
+     * New dates or counts. Pulling a sac — or its hatching with her when it was never pulled —
+     * and a brood's dispersal end her guarding and start her rebuild (R8), from those dates.
+     */
+    async change(collectionId: string, userId: string, sacId: string, body: EggSacChange) {
       const sac = await sacOf(collectionId, sacId);
+      const c = await findCollection(db, collectionId);
+      const female = (await findAnimal(db, collectionId, sac.femaleId))!;
       const { incubation, ...rest } = body;
+      checkDates({ ...sac, ...rest }, female.group, c.timeZone);
       await db.transaction(async (tx) => {
-        await tx
-          .update(eggSacs)
-          .set({ ...rest, ...(incubation ? { incubationMinDays: incubation.minDays, incubationMaxDays: incubation.maxDays } : {}) })
-          .where(eq(eggSacs.id, sac.id));
-        if (body.pulledOn && !sac.pulledOn) {
-          await recordServerEvents(tx, [{ collectionId, animalId: sac.femaleId, kind: 'sac_pulled', payload: body.eggCount ? { eggCount: body.eggCount } : {}, recordedBy: userId }], now());
-        }
+        const values = { ...rest, ...(incubation ? { incubationMinDays: incubation.minDays, incubationMaxDays: incubation.maxDays } : {}) };
+        const updated = Object.keys(values).length ? await updateSac(tx, sac.id, values) : sac;
+        await syncFacts(tx, updated, c.timeZone, userId);
       });
+      await afterFacts(collectionId, [female.id]);
     },
 
     /**
@@ -128,7 +171,7 @@ export function createBreedingService(db: NodePgDatabase, now: () => Date) {
      */
     async createSlings(collectionId: string, sacId: string, body: { count: number; namePrefix: string; room: string; rack: string; shelf: string; firstPosition: number }): Promise<string[]> {
       const sac = await sacOf(collectionId, sacId);
-      const c = await collectionOf(collectionId);
+      const c = await findCollection(db, collectionId);
       return db.transaction(async (tx) => {
         const [female] = await tx.select().from(animals).where(eq(animals.id, sac.femaleId));
         const taken = new Set((await tx.select({ code: animals.labelCode }).from(animals).where(eq(animals.collectionId, collectionId))).map((r) => r.code));
@@ -162,8 +205,8 @@ export function createBreedingService(db: NodePgDatabase, now: () => Date) {
           locationId: place.get(position)!,
           cautions: female!.cautions,
           clutch: sac.clutch,
-          acquiredOn: sac.hatchedOn ?? sac.pulledOn ?? sac.laidOn,
-          source: `Own breeding: ${female!.name}, sac laid ${sac.laidOn}`,
+          acquiredOn: sac.dispersedOn ?? sac.hatchedOn ?? sac.pulledOn ?? sac.laidOn,
+          source: `Own breeding: ${female!.name}, ${RECORD_SHORT[sac.kind]} ${breedingModeOf(female!.group).words.startedOn.toLowerCase()} ${sac.laidOn}`,
         }));
         const ids: string[] = [];
         for (let i = 0; i < rows.length; i += 250) ids.push(...(await tx.insert(animals).values(rows.slice(i, i + 250)).returning({ id: animals.id })).map((r) => r.id));

@@ -8,7 +8,7 @@ import { clockTime } from '../../../shared/domain/local-dates';
 import { BACKUP_FORMAT, BACKUP_VERSION, type BackupFile } from '../../../shared/schemas/backup';
 import type { AnimalImportValues } from '../../../shared/schemas/import';
 import type { Db } from '../../db/client';
-import { animals, eventPhotos, events } from '../../db/schema/animals';
+import { animals, eggSacs, eventPhotos, events } from '../../db/schema/animals';
 import { collections, locations } from '../../db/schema/collections';
 import { users } from '../../db/schema/users';
 import { HttpError } from '../../middleware/errors';
@@ -87,6 +87,7 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
       const places = await db.select().from(locations).where(eq(locations.collectionId, collectionId)).orderBy(asc(locations.walkOrder));
       const kept = await db.select().from(animals).where(eq(animals.collectionId, collectionId)).orderBy(asc(animals.labelCode));
       const history = await db.select().from(events).where(eq(events.collectionId, collectionId)).orderBy(asc(events.effectiveAt), asc(events.id));
+      const sacs = await db.select().from(eggSacs).where(eq(eggSacs.collectionId, collectionId)).orderBy(asc(eggSacs.laidOn), asc(eggSacs.createdAt), asc(eggSacs.clutch));
       const moltPhotos = new Set((await db.select({ id: eventPhotos.eventId }).from(eventPhotos).where(eq(eventPhotos.collectionId, collectionId))).map((r) => r.id));
       const moltPhotoOf = async (e: (typeof history)[number]) =>
         moltPhotos.has(e.id) ? ((await fs.readFile(await deps.photos.moltFile(collectionId, e.animalId, e.id, 'full')).catch(() => null))?.toString('base64') ?? null) : null;
@@ -129,6 +130,7 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
             photo: await photoOf(a),
           })),
         ),
+        eggSacs: sacs.map(({ collectionId: _c, createdAt, ...sac }) => ({ ...sac, createdAt: createdAt.toISOString() })),
         events: await Promise.all(history.map(async (e) => ({
           id: e.id,
           animalId: e.animalId,
@@ -176,6 +178,8 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
           updatedAt: new Date(updatedAt),
         }));
         for (let i = 0; i < rows.length; i += 500) await tx.insert(animals).values(rows.slice(i, i + 500));
+        if (file.eggSacs.some((sac) => !ids.has(sac.femaleId))) throw new HttpError(422, 'invalid', 'The backup has egg sacs for animals it does not contain.');
+        if (file.eggSacs.length) await tx.insert(eggSacs).values(file.eggSacs.map((sac) => ({ ...sac, id: fresh(sac.id), collectionId, femaleId: ids.get(sac.femaleId)!, createdAt: new Date(sac.createdAt) })));
         for (const e of file.events) fresh(e.id);
         const known = new Set((await tx.select({ id: users.id }).from(users).where(inArray(users.id, [...new Set(file.events.flatMap((e) => (e.recordedBy ? [e.recordedBy] : [])))]))).map((u) => u.id));
         const history = file.events.map(({ photo: _photo, ...e }) => ({

@@ -52,6 +52,16 @@ export async function animalIdsInCollection(
   return new Set(rows.map((r) => r.id));
 }
 
+/** What deciding whether an animal may breed needs (name, sex, group), by id. */
+export async function breedersAmong(db: Db, collectionId: string, ids: string[]) {
+  if (!ids.length) return new Map<string, { name: string; sex: (typeof animals.$inferSelect)['sex']; group: (typeof animals.$inferSelect)['group'] }>();
+  const rows = await db
+    .select({ id: animals.id, name: animals.name, sex: animals.sex, group: animals.group })
+    .from(animals)
+    .where(and(eq(animals.collectionId, collectionId), sql`${animals.id} = any(${list(ids)}::uuid[])`));
+  return new Map(rows.map(({ id, ...r }) => [id, r]));
+}
+
 /** Stored events by id, with what a duplicate or void check needs. */
 export async function storedEvents(db: Db, ids: string[]) {
   if (!ids.length)

@@ -1,10 +1,11 @@
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import { breedingRefusal } from '../../../shared/domain/breeding';
 import { clockOffsetMs, effectiveTime } from '../../../shared/domain/clock';
 import { FED_WHILE_HELD, HELPER_EVENT_KINDS, type EventKind } from '../../../shared/domain/event-kinds';
 import { mergeMoltDetails } from '../../../shared/domain/growth';
 import { localDateOf } from '../../../shared/domain/local-dates';
-import { shortDate } from '../../../shared/domain/rounds/build-round';
 import { coverWindowMessage, coverWindowState } from '../../../shared/domain/roles';
+import { shortDate } from '../../../shared/domain/rounds/build-round';
 import { MAX_BATCH_EVENTS } from '../../../shared/domain/sync-limits';
 import {
   recordedEvent,
@@ -20,6 +21,7 @@ import { applyNewEvents } from '../rounds/projection';
 import { SAME_DAY_TRIGGERS, type RoundsService } from '../rounds/rounds.service';
 import {
   animalIdsInCollection,
+  breedersAmong,
   insertEventsOnce,
   liveMoltTimes,
   recentEventsOf,
@@ -153,10 +155,17 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
     // looked up first, so a tap saved during the cover stays a duplicate after it ends; for
     // keepers the insert itself finds duplicates (ON CONFLICT), which saves a query per batch.
     const targets = candidates.map((c) => targetOf(c.event)).filter((t): t is string => !!t);
-    const [known, stored] = await Promise.all([
+    // A pairing is only for a female of a group that breeds (breedingModeOf).
+    const paired = [...new Set(candidates.filter((c) => c.event.kind === 'paired').map((c) => c.event.animalId))];
+    const [known, stored, breeders] = await Promise.all([
       animalIdsInCollection(db, member.collectionId, [...new Set(candidates.map((c) => c.event.animalId))]),
       storedEvents(db, helper ? [...seen, ...targets] : targets),
+      breedersAmong(db, member.collectionId, paired),
     ]);
+    const pairingRefusal = (e: RecordedEvent) => {
+      const animal = e.kind === 'paired' ? breeders.get(e.animalId) : undefined;
+      return animal ? breedingRefusal(animal) : null;
+    };
     const accepted = new Map<
       string,
       { collectionId: string; animalId: string; kind: string; recordedBy: string | null }
@@ -197,6 +206,8 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
           'outside_cover',
           `This was recorded outside your cover. ${coverWindowMessage(member, now())}`,
         );
+      } else if (pairingRefusal(event)) {
+        reject(index, event.id, 'invalid', `A pairing is not recorded: ${pairingRefusal(event)}`);
       } else if (targetId && !target) {
         reject(index, event.id, 'target_unknown', event.kind === 'void' ? 'The outcome this undoes was never saved.' : 'The molt these details belong to was never saved.');
       } else if (event.kind === 'molt_details' && target && target.kind !== 'molted') {

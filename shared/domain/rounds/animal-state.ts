@@ -23,13 +23,13 @@ export interface AnimalState {
   lastMolt: LocalDate | null;
   /** Premolt seen by the keeper (R4), until a molt, a meal or premolt-cleared. */
   premoltSince: LocalDate | null;
-  /** Molting now / guarding a sac (R11), until the next outcome. */
-  leaveAlone: { reason: 'molting' | 'guarding_sac'; since: LocalDate } | null;
+  /** Molting now / guarding a sac or a brood (R11), until the next outcome. */
+  leaveAlone: { reason: 'molting' | 'guarding_sac' | 'guarding_brood'; since: LocalDate } | null;
   preyLeftIn: { since: LocalDate; preyType: string | null } | null;
   lastWatered: LocalDate | null;
   /** R8: fed more often from this date (for as long as the rules say). */
   rebuildSince: LocalDate | null;
-  rebuildReason: 'sac_pulled' | 'paired' | 'keeper' | null;
+  rebuildReason: 'sac_pulled' | 'sac_hatched' | 'brood_dispersed' | 'paired' | 'keeper' | null;
   /** The last time the keeper looked at the animal without feeding it (check tasks). */
   lastObserved: LocalDate | null;
   lastSkipped: LocalDate | null;
@@ -57,7 +57,7 @@ export const EMPTY_STATE: AnimalState = {
 
 /** Events that end a leave-alone period ("until the next outcome", R11). */
 const ENDS_LEAVE_ALONE: ReadonlySet<EventKind> = new Set([
-  'ate', 'refused', 'molted', 'sac_pulled', 'premolt_cleared',
+  'ate', 'refused', 'molted', 'sac_pulled', 'sac_hatched', 'brood_dispersed', 'premolt_cleared',
 ]);
 
 /** Events in the order the engine folds them: by effective instant, then id (stable). */
@@ -124,8 +124,17 @@ export function applyEvent(state: AnimalState, event: EngineEvent, zone: string)
       s.leaveAlone = { reason: 'guarding_sac', since: day };
       break;
     case 'sac_pulled':
+    case 'sac_hatched':
+    case 'brood_dispersed':
+      // R8: her rebuild starts when she stops guarding — pulled, hatched with her, or dispersed.
       s.rebuildSince = day;
-      s.rebuildReason = 'sac_pulled';
+      s.rebuildReason = event.kind;
+      break;
+    case 'brood_started':
+      s.leaveAlone = { reason: 'guarding_brood', since: day };
+      break;
+    case 'case_laid':
+      // Common practice, no published source: a mantis does not guard her ootheca.
       break;
     case 'paired':
       // Common practice, no published source: a paired female is fed up for the sac to come.

@@ -10,7 +10,7 @@ import { DEFAULT_RULES } from './rules';
 
 const ZONE = 'America/Toronto';
 const TODAY = '2026-11-02'; // the day after the autumn DST change: histories cross it
-const KINDS: EventKind[] = ['ate', 'ate', 'ate', 'refused', 'refused', 'prey_left_in', 'prey_removed', 'watered', 'molted', 'premolt_seen', 'premolt_cleared', 'molting_now', 'sac_laid', 'sac_pulled', 'paired', 'skipped', 'note'];
+const KINDS: EventKind[] = ['ate', 'ate', 'ate', 'refused', 'refused', 'prey_left_in', 'prey_removed', 'watered', 'molted', 'premolt_seen', 'premolt_cleared', 'molting_now', 'sac_laid', 'sac_pulled', 'sac_hatched', 'case_laid', 'brood_started', 'brood_dispersed', 'paired', 'skipped', 'note'];
 
 const animalArb = (i: number) =>
   fc.record({
@@ -87,7 +87,9 @@ describe('round engine properties', () => {
           const holdEnd = state.lastMolt ? addDays(state.lastMolt, DEFAULT_RULES.postMoltHoldDays[item.animal.lifeStage]) : null;
           if (holdEnd && TODAY < holdEnd) expect(feeds).toBe(false);
           if (state.premoltSince) expect(feeds).toBe(false);
-          if (state.leaveAlone) expect(item.tasks.every((t) => t.kind === 'leave_alone' || t.kind === 'remove_prey')).toBe(true);
+          // R11 amended: a guarding female's dish is still topped up quietly; a molting animal gets nothing.
+          const quietWater = (t: { kind: string }) => t.kind === 'water' && state.leaveAlone!.reason !== 'molting';
+          if (state.leaveAlone) expect(item.tasks.every((t) => t.kind === 'leave_alone' || t.kind === 'remove_prey' || quietWater(t))).toBe(true);
         }
       }),
       { numRuns: 300 },

@@ -156,6 +156,34 @@ function removalCause(
   return null;
 }
 
+const LEAVE_ALONE_WORDS: Record<NonNullable<AnimalState['leaveAlone']>['reason'], string> = {
+  molting: 'Molting',
+  guarding_sac: 'Guarding an egg sac',
+  guarding_brood: 'Guarding her brood',
+};
+
+/** R11 amended: a guarding female's dish, topped up quietly when due (R7's days). */
+function quietWater(decision: AnimalDecision, state: AnimalState, rules: RoundRules, date: LocalDate) {
+  if (!decision.animal.hasWaterDish) return;
+  const due = state.lastWatered ? addDays(state.lastWatered, rules.waterEveryDays) : date;
+  decision.nextWater = due;
+  if (due > date) return;
+  const last = state.lastWatered ? `last topped up on ${shortDate(state.lastWatered)}` : 'no watering recorded yet';
+  decision.tasks.push({
+    kind: 'water',
+    reasons: [{ code: 'water_due', text: `Water (${last}): top up quietly, do not disturb her.`, dates: state.lastWatered ? [state.lastWatered] : [] }],
+    carriedOverDays: state.lastWatered ? Math.max(0, daysBetween(due, date)) : 0,
+  });
+}
+
+const REBUILD_WORDS: Record<NonNullable<AnimalState['rebuildReason']>, string> = {
+  sac_pulled: 'Rebuilding after the egg sac was pulled on',
+  sac_hatched: 'Rebuilding after the egg sac hatched on',
+  brood_dispersed: 'Rebuilding after her brood dispersed on',
+  paired: 'Conditioning after pairing on',
+  keeper: 'Rebuilding since',
+};
+
 /** Everything the engine decides about one animal on one local date. Pure. */
 export function decideAnimal(
   animal: EngineAnimal,
@@ -215,23 +243,16 @@ export function decideAnimal(
     }
   }
 
-  // R11: molting now or guarding a sac: nothing else, not even water.
+  // R11: molting now: nothing else, not even water. Guarding a sac or brood (R11 amended):
+  // no food, no disturbance, but a dish is topped up quietly when due.
   if (state.leaveAlone) {
     const { reason, since } = state.leaveAlone;
     tasks.push({
       kind: 'leave_alone',
-      reasons: [
-        {
-          code: 'leave_alone',
-          text:
-            reason === 'molting'
-              ? `Molting since ${shortDate(since)}: leave alone — no food, no disturbance.`
-              : `Guarding an egg sac since ${shortDate(since)}: leave alone — no food, no disturbance.`,
-          dates: [since],
-        },
-      ],
+      reasons: [{ code: 'leave_alone', text: `${LEAVE_ALONE_WORDS[reason]} since ${shortDate(since)}: leave alone — no food, no disturbance.`, dates: [since] }],
       carriedOverDays: 0,
     });
+    if (reason !== 'molting') quietWater(decision, state, rules, date);
     return decision;
   }
 
@@ -337,7 +358,7 @@ export function decideAnimal(
   const rebuildReason: Reason | null = rebuilding
     ? {
         code: 'rebuild',
-        text: `${state.rebuildReason === 'sac_pulled' ? `Rebuilding after the egg sac was pulled on ${shortDate(state.rebuildSince!)}` : state.rebuildReason === 'paired' ? `Conditioning after pairing on ${shortDate(state.rebuildSince!)}` : `Rebuilding since ${shortDate(state.rebuildSince!)}`}: fed every ${plural(effectiveInterval, 'day')} instead of ${interval} until ${shortDate(rebuildUntil!)}.`,
+        text: `${REBUILD_WORDS[state.rebuildReason ?? 'keeper']} ${shortDate(state.rebuildSince!)}: fed every ${plural(effectiveInterval, 'day')} instead of ${interval} until ${shortDate(rebuildUntil!)}.`,
         dates: [state.rebuildSince!, rebuildUntil!],
       }
     : null;

@@ -2,6 +2,7 @@ import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { STATUS_LABEL } from '#shared/domain/animal-facts';
+import { canBreed } from '#shared/domain/breeding';
 import { localDateOf } from '#shared/domain/local-dates';
 import { formatSize } from '#shared/domain/units';
 import { Button } from '@/components/ui/button';
@@ -119,11 +120,11 @@ export function AnimalRoute() {
           if (!completes) setRecentMolts((m) => [...m, { eventId: event.id, date: localDateOf(at, collection.timeZone) }]);
         }}
       />
-      {animal.sex !== 'male' && animal.sex !== 'mature_male' && animal.lifeStage !== 'sling' && (
+      {kept && canBreed(animal) && (
         <PairingForm
           today={today}
           timeZone={collection.timeZone}
-          males={list.data.animals.filter((a) => a.status === 'active' && (a.sex === 'male' || a.sex === 'mature_male'))}
+          males={list.data.animals.filter((a) => a.status === 'active' && a.group === animal.group && (a.sex === 'male' || a.sex === 'mature_male'))}
           onRecord={(payload, at) => record(animal, 'paired', payload, at)}
         />
       )}

@@ -1,5 +1,6 @@
 import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
+import { canBreed } from '#shared/domain/breeding';
 import { localDateOf } from '#shared/domain/local-dates';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -27,7 +28,8 @@ export function BreedingRoute() {
   if (list.isPending) return <Loading />;
   if (list.isError) return <Notice tone="error" title={list.error.message} />;
   const today = localDateOf(new Date(), collection.timeZone);
-  const females = list.data.animals.filter((a) => a.status === 'active' && (a.sex === 'female' || (a.sex === 'unknown' && a.lifeStage !== 'sling')));
+  // Only females of groups that have a sac, case or brood: never a male or an unsexed juvenile.
+  const females = list.data.animals.filter((a) => a.status === 'active' && canBreed(a));
   return (
     <div className="flex flex-col gap-6">
       <h1 className="text-3xl font-extrabold">Breeding and insights</h1>
@@ -39,8 +41,8 @@ export function BreedingRoute() {
           change.incubation.mutate({ minDays: Number(incubation.minDays), maxDays: Number(incubation.maxDays) });
         }}
       >
-        <p className="col-span-2 font-extrabold">Usual incubation for new sacs</p>
-        <p className="col-span-2 text-sm text-muted">Common practice is about 6–8 weeks from laying to pulling or hatching; it varies by species, so set what your species need.</p>
+        <p className="col-span-2 font-extrabold">Usual incubation for new egg sacs</p>
+        <p className="col-span-2 text-sm text-muted">Common practice is about 6–8 weeks from laying to pulling or hatching; it varies by species, so set what your species need. Egg cases (about 4–8 weeks) and broods (until they disperse) have their own windows, changed on each record.</p>
         <TextField label="Shortest (days)" inputMode="numeric" value={incubation.minDays} onChange={(e) => setIncubation((w) => ({ ...w, minDays: e.target.value }))} />
         <TextField label="Longest (days)" inputMode="numeric" value={incubation.maxDays} onChange={(e) => setIncubation((w) => ({ ...w, maxDays: e.target.value }))} />
         {change.incubation.isError && <Notice tone="error" title={change.incubation.error.message} />}

@@ -1,4 +1,5 @@
 import { GROUP_LABEL, STAGE_LABEL, type AnimalGroup, type LifeStage } from '#shared/domain/animal-facts';
+import { breedingModeOf, isOpenRecord } from '#shared/domain/breeding';
 import { isOverdue, isPossiblePremolt } from '#shared/domain/rounds/item-status';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import type { EggSacView } from '#shared/schemas/breeding';
@@ -57,7 +58,7 @@ export function Insights({ animals, round, sacs, today }: { animals: readonly An
       <Bars title="By group" rows={count(Object.keys(GROUP_LABEL) as AnimalGroup[], (a) => a.group, GROUP_LABEL)} />
       <List title="Possible premolts" empty="None today." items={round.filter(isPossiblePremolt).map(name)} />
       <List title="Females rebuilding" empty="None." items={round.filter((i) => hasReason(i, 'rebuild')).map(name)} />
-      <List title="Egg sacs due" empty="No sac is due." items={sacs.filter((s) => !s.pulledOn && !s.hatchedOn && today >= s.expectedFrom).map((s) => `${s.clutch} (${s.femaleName}), expected ${s.expectedFrom} to ${s.expectedTo}`)} />
+      <List title="Sacs, egg cases and broods due" empty="Nothing is due." items={sacs.filter((s) => isOpenRecord(s) && today >= s.expectedFrom).map((s) => `${breedingModeOf(s.femaleGroup).words.record}: ${s.clutch} (${s.femaleName}), expected ${s.expectedFrom} to ${s.expectedTo}`)} />
       <List title="Overdue" empty="Nothing is carried over." items={round.filter(isOverdue).map((i) => `${name(i)}, ${i.carriedOverDays} days`)} />
     </div>
   );

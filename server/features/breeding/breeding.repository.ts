@@ -1,0 +1,76 @@
+import { and, asc, count, eq, inArray, sql } from 'drizzle-orm';
+import type { EventKind } from '../../../shared/domain/event-kinds';
+import type { Db } from '../../db/client';
+import { animals, eggSacs, events } from '../../db/schema/animals';
+import { collections } from '../../db/schema/collections';
+
+export type EggSacRow = typeof eggSacs.$inferSelect;
+
+export async function findCollection(db: Db, collectionId: string) {
+  const [c] = await db.select().from(collections).where(eq(collections.id, collectionId));
+  return c!;
+}
+
+export async function findAnimal(db: Db, collectionId: string, animalId: string) {
+  const [a] = await db.select().from(animals).where(and(eq(animals.id, animalId), eq(animals.collectionId, collectionId)));
+  return a ?? null;
+}
+
+export async function findSac(db: Db, collectionId: string, sacId: string) {
+  const [row] = await db.select().from(eggSacs).where(and(eq(eggSacs.id, sacId), eq(eggSacs.collectionId, collectionId)));
+  return row ?? null;
+}
+
+/** A collection's records with their female, oldest first, and how many young each potted up. */
+export async function listSacs(db: Db, collectionId: string) {
+  const rows = await db
+    .select({ sac: eggSacs, female: animals.name, group: animals.group })
+    .from(eggSacs)
+    .innerJoin(animals, eq(animals.id, eggSacs.femaleId))
+    .where(eq(eggSacs.collectionId, collectionId))
+    .orderBy(asc(eggSacs.laidOn));
+  const clutches = rows.map((r) => r.sac.clutch);
+  const made = clutches.length
+    ? await db.select({ clutch: animals.clutch, n: count() }).from(animals).where(and(eq(animals.collectionId, collectionId), inArray(animals.clutch, clutches))).groupBy(animals.clutch)
+    : [];
+  const byClutch = new Map(made.map((m) => [m.clutch, m.n]));
+  return rows.map((r) => ({ ...r, slingsCreated: byClutch.get(r.sac.clutch) ?? 0 }));
+}
+
+export async function insertSac(db: Db, values: typeof eggSacs.$inferInsert) {
+  const [row] = await db.insert(eggSacs).values(values).returning();
+  return row!;
+}
+
+export async function updateSac(db: Db, sacId: string, values: Partial<typeof eggSacs.$inferInsert>) {
+  const [row] = await db.update(eggSacs).set(values).where(eq(eggSacs.id, sacId)).returning();
+  return row!;
+}
+
+export async function setIncubation(db: Db, collectionId: string, minDays: number, maxDays: number) {
+  await db.update(collections).set({ incubationMinDays: minDays, incubationMaxDays: maxDays }).where(eq(collections.id, collectionId));
+}
+
+export async function sacCountOf(db: Db, femaleId: string) {
+  const [{ n } = { n: 0 }] = await db.select({ n: count() }).from(eggSacs).where(eq(eggSacs.femaleId, femaleId));
+  return n;
+}
+
+/**
+ * A female's breeding facts of these kinds that no void has cancelled, with the record each
+ * was written for (null for facts written before records were named in them).
+ */
+export async function liveBreedingFacts(db: Db, femaleId: string, kinds: readonly EventKind[]) {
+  const rows = await db
+    .select({ id: events.id, kind: events.kind, effectiveAt: events.effectiveAt, sacId: sql<string | null>`${events.payload}->>'sacId'` })
+    .from(events)
+    .where(
+      and(
+        eq(events.animalId, femaleId),
+        sql`${events.kind} = any(${sql.param([...kinds])}::text[])`,
+        sql`not exists (select 1 from events v where v.animal_id = ${events.animalId} and v.kind = 'void' and v.payload->>'targetId' = ${events.id}::text)`,
+      ),
+    )
+    .orderBy(asc(events.effectiveAt), asc(events.id));
+  return rows.map((r) => ({ ...r, kind: r.kind as EventKind }));
+}
