@@ -61,7 +61,8 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
   const recorded = new Set(item.outcomes.map((o) => o.kind));
   const hold = feedHoldOf(item);
   const main = mainOutcomes(item, !!hold);
-  const more = hold ? (['ate', ...MORE] as EventKind[]) : MORE;
+  // One molt a day: once it is recorded, its details are completed instead.
+  const more = (hold ? (['ate', ...MORE] as EventKind[]) : MORE).filter((k) => k !== 'molted' || !recorded.has('molted'));
   const tap = (kind: EventKind) => {
     if (kind === 'ate' && hold) setConfirming(true);
     else onRecord(kind);

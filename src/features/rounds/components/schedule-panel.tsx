@@ -35,18 +35,18 @@ function TodayTasks({ item, timeZone }: { item: RoundItemView; timeZone: string 
  */
 export function SchedulePanel({ collectionId, animalId, item, timeZone, waiting }: { collectionId: string; animalId: string; item?: RoundItemView; timeZone: string; waiting: boolean }) {
   const schedule = useSchedule(collectionId, animalId);
-  if (schedule.isPending) return <Loading label="Working out the schedule…" />;
-  if (schedule.isError) return <Notice tone="error" title={schedule.error.message} />;
+  if (schedule.isPending && !item) return <Loading label="Working out the schedule…" />;
+  if (schedule.isError && !item) return <Notice tone="error" title={schedule.error.message} />;
   const s = schedule.data;
-  const notes = item ? currentNotes(item) : s.notes;
+  const notes = item ? currentNotes(item) : (s?.notes ?? []);
   return (
     <section aria-labelledby="schedule-heading" className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
       <h2 id="schedule-heading" className="text-xl font-extrabold">
         Schedule
       </h2>
-      <p className="font-bold">{item || s.onRound ? 'On today’s round:' : 'Not on today’s round.'}</p>
+      <p className="font-bold">{item || s?.onRound ? 'On today’s round:' : 'Not on today’s round.'}</p>
       {item && <TodayTasks item={item} timeZone={timeZone} />}
-      {!item && s.tasks.length > 0 && (
+      {!item && s && s.tasks.length > 0 && (
         <ul className="flex flex-col gap-1">
           {s.tasks.map((t) => (
             <li key={t.kind}>
@@ -71,12 +71,16 @@ export function SchedulePanel({ collectionId, animalId, item, timeZone, waiting 
           ))}
         </ul>
       )}
-      <dl className="grid grid-cols-2 gap-x-3 text-sm">
-        <dt className="text-muted">Next meal</dt>
-        <dd className="font-bold">{s.nextFeed ? shortDate(s.nextFeed) : 'held back (see above)'}</dd>
-        <dt className="text-muted">Next water</dt>
-        <dd className="font-bold">{s.nextWater ? shortDate(s.nextWater) : 'no water dish'}</dd>
-      </dl>
+      {s ? (
+        <dl className="grid grid-cols-2 gap-x-3 text-sm">
+          <dt className="text-muted">Next meal</dt>
+          <dd className="font-bold">{s.nextFeed ? shortDate(s.nextFeed) : 'held back (see above)'}</dd>
+          <dt className="text-muted">Next water</dt>
+          <dd className="font-bold">{s.nextWater ? shortDate(s.nextWater) : 'no water dish'}</dd>
+        </dl>
+      ) : (
+        <p className="text-sm text-muted">The next meal and water dates come with the next signal.</p>
+      )}
       {waiting && <p className="text-sm text-muted">Taps on this phone are still waiting to be sent: the next dates update after the next sync.</p>}
     </section>
   );
