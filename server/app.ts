@@ -182,7 +182,7 @@ export function createApp(options: AppOptions) {
   api.use('/health', healthRoutes(database.pool));
   const limiter = createLimiter(database.pool);
   api.use('/auth', authRoutes(auth, { ...DEFAULT_AUTH_LIMITS, ...options.authLimits }, SESSION_COOKIE, limiter));
-  if (env.DEMO_MODE) api.use('/dev', devRoutes(options.devMailbox));
+  if (env.DEMO_MODE) api.use('/dev', devRoutes(options.devMailbox, auth, { mountMailbox: env.NODE_ENV !== 'production' }));
   api.get('/collections', requireUser, async (req, res) => {
     res.json({ memberships: (await auth.me(req.session.userId!)).memberships });
   });
