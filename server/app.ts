@@ -198,7 +198,7 @@ export function createApp(options: AppOptions) {
   const events = createEventsService(database.db, rounds, now);
   api.use('/collections/:collectionId/events', eventsRoutes(events, member));
   api.use('/collections/:collectionId', photosRoutes(photos, member));
-  const coverReports = createCoverReportsService(database.db, { mailer: options.mailer, now, rounds, publicUrl });
+  const coverReports = createCoverReportsService(database.db, { mailer: options.mailer, now, rounds, publicUrl, logger });
   api.use('/collections/:collectionId', coverRoutes(cover, coverReports, rounds, member));
   api.use('/collections/:collectionId', breedingRoutes(createBreedingService(database.db, now), member));
   api.use('/collections/:collectionId', labelsRoutes(createLabelsService(database.db), member));
