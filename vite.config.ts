@@ -66,9 +66,7 @@ export default defineConfig({
     }),
   ],
   server: {
-    // xfwd: the API sees who the proxy forwarded for, so a phone reaching a `--host` dev server
-    // is not taken for this machine (the dev mailbox answers loopback only).
-    proxy: { '/api': { target: `http://127.0.0.1:${process.env.API_PORT ?? 3001}`, xfwd: true } },
+    proxy: { '/api': `http://127.0.0.1:${process.env.API_PORT ?? 3001}` },
   },
   build: {
     sourcemap: false,
