@@ -12,7 +12,7 @@ export const distDir = path.resolve(import.meta.dirname, '..', 'dist');
 export const BENCH_PASSWORD = 'bench password 1234';
 
 export async function startBenchApp(database: Database) {
-  const env = readEnv({ NODE_ENV: 'production', DATABASE_URL: 'postgres://unused', SESSION_SECRET: 'bench-secret-that-is-long-enough-for-sessions', BCRYPT_COST: '10' });
+  const env = readEnv({ NODE_ENV: 'production', DATABASE_URL: 'postgres://unused', SESSION_SECRET: 'bench-secret-that-is-long-enough-for-sessions', BCRYPT_COST: '10', SMTP_URL: 'smtp://unused.invalid', PUBLIC_URL: 'http://127.0.0.1' });
   const { app, shutdown } = createApp({
     env,
     database,

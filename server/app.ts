@@ -34,6 +34,7 @@ import { photosRoutes } from './features/photos/photos.routes';
 import { createPhotosService } from './features/photos/photos.service';
 import { roundsRoutes } from './features/rounds/rounds.routes';
 import { createRoundsService } from './features/rounds/rounds.service';
+import { redactError, redactRequest, redactResponse } from './log-redaction';
 import { createLogger, type Logger } from './logger';
 import type { DevMailbox } from './mail/dev-smtp';
 import type { Mailer } from './mail/mailer';
@@ -42,7 +43,6 @@ import { requireSameSiteWrite } from './middleware/csrf';
 import { apiNotFound, errorHandler, HttpError } from './middleware/errors';
 import { createLimiter } from './middleware/rate-limit';
 import { requireMember } from './middleware/roles';
-import { redactUrl } from './redact-url';
 import { repoRoot } from './repo-root';
 import { serveClient } from './static';
 
@@ -119,14 +119,9 @@ export function createApp(options: AppOptions) {
         return id;
       },
       autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
-      // Invite and reset links carry single-use tokens: they stay out of the logs.
-      serializers: {
-        req: (req: { url: string; query?: Record<string, unknown> }) => ({
-          ...req,
-          url: redactUrl(req.url),
-          ...(req.query?.token ? { query: { ...req.query, token: '[redacted]' } } : {}),
-        }),
-      },
+      // No credential in a log line: the session cookie (sent and set), authorisation headers,
+      // the single-use tokens of invite and reset links, a database error's parameter values.
+      serializers: { req: redactRequest, res: redactResponse, err: redactError },
     }),
   );
 
@@ -187,7 +182,7 @@ export function createApp(options: AppOptions) {
   api.use('/health', healthRoutes(database.pool));
   const limiter = createLimiter(database.pool);
   api.use('/auth', authRoutes(auth, { ...DEFAULT_AUTH_LIMITS, ...options.authLimits }, SESSION_COOKIE, limiter));
-  if (env.DEMO_MODE) api.use('/dev', devRoutes(options.devMailbox));
+  if (env.DEMO_MODE) api.use('/dev', devRoutes(options.devMailbox, auth, { mountMailbox: env.NODE_ENV !== 'production' }));
   api.get('/collections', requireUser, async (req, res) => {
     res.json({ memberships: (await auth.me(req.session.userId!)).memberships });
   });
@@ -203,7 +198,7 @@ export function createApp(options: AppOptions) {
   const events = createEventsService(database.db, rounds, now);
   api.use('/collections/:collectionId/events', eventsRoutes(events, member));
   api.use('/collections/:collectionId', photosRoutes(photos, member));
-  const coverReports = createCoverReportsService(database.db, { mailer: options.mailer, now, rounds, publicUrl });
+  const coverReports = createCoverReportsService(database.db, { mailer: options.mailer, now, rounds, publicUrl, logger });
   api.use('/collections/:collectionId', coverRoutes(cover, coverReports, rounds, member));
   api.use('/collections/:collectionId', breedingRoutes(createBreedingService(database.db, now, (id, animalIds) => rounds.reconcileToday(id, animalIds)), member));
   api.use('/collections/:collectionId', labelsRoutes(createLabelsService(database.db), member));

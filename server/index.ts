@@ -1,20 +1,29 @@
 import { createApp } from './app';
 import { connectDatabase } from './db/client';
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './db/seed/demo-people';
-import { readEnv } from './env';
+import { readEnv, type Env } from './env';
 import { startJobs } from './jobs/jobs';
 import { createLogger } from './logger';
-import { startDevSmtp, type DevSmtp } from './mail/dev-smtp';
+import type { DevSmtp } from './mail/dev-smtp';
 import { createSmtpMailer } from './mail/mailer';
 
-const env = readEnv();
+let env: Env;
+try {
+  env = readEnv();
+} catch (err) {
+  // A configuration mistake is the operator's to fix: say what, with no stack trace.
+  console.error((err as Error).message);
+  process.exit(1);
+}
 const logger = createLogger(env);
 const database = connectDatabase(env.DATABASE_URL, 20);
 
+// The local SMTP fake (and the packages it needs) loads only when no SMTP_URL is given, which
+// production never allows (server/env.ts).
 let devSmtp: DevSmtp | undefined;
 let smtpUrl = env.SMTP_URL;
 if (!smtpUrl) {
-  devSmtp = await startDevSmtp();
+  devSmtp = await (await import('./mail/dev-smtp')).startDevSmtp();
   smtpUrl = devSmtp.url;
 }
 const mailer = createSmtpMailer(smtpUrl, env.MAIL_FROM);

@@ -84,7 +84,10 @@ export function ensureChromium() {
   const wanted = [];
   if (!fs.existsSync('/usr/bin/chromium')) wanted.push('chromium');
   if (!commandExists('pdftoppm')) wanted.push('poppler-utils');
-  if (wanted.length) aptInstall(wanted, 'the browser and PDF tools the end-to-end tests use');
+  // tests/support/remote-host.ts: another host in a network namespace, reached with curl.
+  if (!commandExists('ip')) wanted.push('iproute2');
+  if (!commandExists('curl')) wanted.push('curl');
+  if (wanted.length) aptInstall(wanted, 'the browser, PDF and network tools the tests use');
 }
 
 // ---------------------------------------------------------------- private cluster

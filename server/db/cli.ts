@@ -1,10 +1,17 @@
 // Database chores for the npm scripts: `migrate`, `seed [--reset|--if-empty]`.
-import { readEnv } from '../env';
+import { readEnv, type Env } from '../env';
 import { connectDatabase } from './client';
 import { migrateDatabase } from './migrate';
 import { DEMO_PASSWORD, seedDemo } from './seed/demo';
 
-const env = readEnv();
+let env: Env;
+try {
+  env = readEnv();
+} catch (err) {
+  // As the server does (server/index.ts): the configuration problem, without a stack trace.
+  console.error((err as Error).message);
+  process.exit(1);
+}
 const database = connectDatabase(env.DATABASE_URL, 4);
 const [command, ...flags] = process.argv.slice(2);
 try {

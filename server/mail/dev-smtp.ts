@@ -1,6 +1,4 @@
 import { randomUUID } from 'node:crypto';
-import { simpleParser } from 'mailparser';
-import { SMTPServer } from 'smtp-server';
 
 export interface StoredMail {
   id: string;
@@ -46,8 +44,12 @@ export interface DevSmtp {
   stop(): Promise<void>;
 }
 
-/** A loopback SMTP server that keeps what it receives: e-mail without a mail provider. */
+/**
+ * A loopback SMTP server that keeps what it receives: e-mail without a mail provider. Its
+ * packages are imported here, not at the top, so a server given SMTP_URL never loads them.
+ */
 export async function startDevSmtp(): Promise<DevSmtp> {
+  const [{ simpleParser }, { SMTPServer }] = await Promise.all([import('mailparser'), import('smtp-server')]);
   const mailbox = new DevMailbox();
   const server = new SMTPServer({
     authOptional: true,

@@ -8,6 +8,7 @@ export interface OutgoingMail {
 }
 
 export interface Mailer {
+  /** Rejects unless the SMTP server accepted the message: callers may retry. */
   send(mail: OutgoingMail): Promise<void>;
   close(): void;
 }
@@ -24,8 +25,11 @@ export function createSmtpMailer(smtpUrl: string, from: string): Mailer {
     auth: url.username ? { user: decodeURIComponent(url.username), pass: decodeURIComponent(url.password) } : undefined,
   });
   return {
+    /** Resolves once the SMTP server has accepted the message for every recipient. */
     async send(mail) {
-      await transport.sendMail({ from, ...mail });
+      const info = await transport.sendMail({ from, ...mail });
+      // nodemailer resolves when at least one recipient was accepted (RFC 5321, 3.3).
+      if (info.rejected.length) throw new Error(`The mail server refused ${info.rejected.length} recipient(s): ${info.response}`);
     },
     close: () => transport.close(),
   };

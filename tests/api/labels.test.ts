@@ -6,7 +6,7 @@ import { isLabelTag, labelUrl } from '../../shared/domain/labels/label-payload';
 import { LABEL_SIZES, placeLabels, sheetLayout } from '../../shared/domain/labels/sheet-layout';
 import { addMember, createAnimal, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
-import { decodeQrIn, darkExtentMm, rasterisePdf } from '../support/label-raster';
+import { darkPixelsAround, decodeQrIn, measureQrIn, rasterisePdf } from '../support/label-raster';
 
 let ctx: TestContext;
 let owner: SignedUp;
@@ -77,12 +77,16 @@ describe('POST /collections/:id/labels/pdf', () => {
       const content = labelContent({ ...rows.body.animals.find((a: { id: string }) => a.id === id) }, tag, ORIGIN, sheet.label, LABEL_FIELDS);
       const quiet = { ...content.layout.quiet, x: cell.x + content.layout.quiet.x, y: cell.y + content.layout.quiet.y };
       expect(decodeQrIn(pages[place.sheet]!, quiet)).toBe(labelUrl(ORIGIN, tag, codeOf.get(id)!));
-      if (i === 0) {
-        // The symbol is drawn at the size the layout says: 25 mm ± 0.5 (one pixel is 0.127 mm).
-        const printed = darkExtentMm(pages[0]!, quiet);
-        expect(Math.abs(printed.widthMm - 25)).toBeLessThanOrEqual(0.5);
-        expect(Math.abs(printed.heightMm - 25)).toBeLessThanOrEqual(0.5);
-      }
+      // The symbol is drawn at the size the layout says, measured from its finder patterns:
+      // 25 mm ± 0.5 (one pixel is 0.127 mm), and modules × module size agrees.
+      const printed = measureQrIn(pages[place.sheet]!, quiet)!;
+      expect(printed.modules).toBe(content.symbol.size);
+      expect(Math.abs(printed.widthMm - 25)).toBeLessThanOrEqual(0.5);
+      expect(Math.abs(printed.heightMm - 25)).toBeLessThanOrEqual(0.5);
+      expect(Math.abs(printed.moduleMm * printed.modules - printed.widthMm)).toBeLessThanOrEqual(0.5);
+      // Nothing else is printed on the quiet zone: not the code's first glyph, not a cut line.
+      const symbol = { ...content.layout.symbol, x: cell.x + content.layout.symbol.x, y: cell.y + content.layout.symbol.y };
+      expect(darkPixelsAround(pages[place.sheet]!, quiet, symbol)).toBe(0);
     });
     // The used cells 1–4 on page 1 are left blank.
     const firstCell = sheet.cells[0]!;

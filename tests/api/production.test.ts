@@ -57,6 +57,11 @@ describe('two server processes, one database, behind an HTTPS proxy', () => {
     expect((await call(b, 'GET', '/api/auth/me', undefined, cookie)).status).toBe(200);
     expect((await call(b, 'POST', '/api/auth/sign-out', undefined, cookie)).status).toBe(204);
     expect((await call(a, 'GET', '/api/auth/me', undefined, cookie)).status).toBe(401);
+    // Both processes logged these requests (JSON lines on stdout), but never the cookie.
+    const logged = servers.flatMap((s) => s.lines).join('\n');
+    expect(logged).toContain('/api/auth/me');
+    expect(logged).not.toContain(cookie.slice('rackside.sid='.length));
+    expect(logged).not.toContain(decodeURIComponent(cookie.slice('rackside.sid='.length)));
   });
 
   it('holds a rate limit across both: failed sign-ins to one account counted together', async () => {

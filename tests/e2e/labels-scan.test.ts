@@ -16,7 +16,7 @@ import type { AnimalSummary } from '../../shared/schemas/animals';
 import type { RoundResponse } from '../../shared/schemas/rounds';
 import { CHROMIUM_ARGS, cutNetwork, restoreNetwork, underServiceWorker } from '../chromium';
 import { writeLabelVideo } from '../support/fake-camera';
-import { darkExtentMm, decodeQrIn, greyRegion, rasterisePdf, type GreyPage } from '../support/label-raster';
+import { decodeQrIn, greyRegion, markedColumns, measureQrIn, rasterisePdf, type GreyPage } from '../support/label-raster';
 import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
 
 const env = useE2e();
@@ -102,11 +102,19 @@ describe('label sheets printed from the browser', () => {
     });
     expect(decoded).toEqual(animals.map((a) => labelUrl(env.server.baseUrl, tag, a.labelCode)));
 
-    // ISO/IEC 18004 symbols are square; this one is laid out at 25 mm and must print at 25 ± 0.5 mm.
+    // ISO/IEC 18004 symbols are square; this one is laid out at 25 mm and must print at 25 ± 0.5 mm,
+    // measured from its finder patterns.
     const first = quietBoxOf(printed, 0, 2);
-    const size = darkExtentMm(first.page, first.box);
+    const size = measureQrIn(first.page, first.box)!;
     expect(Math.abs(size.widthMm - 25)).toBeLessThanOrEqual(0.5);
     expect(Math.abs(size.heightMm - 25)).toBeLessThanOrEqual(0.5);
+    // The first row's cut line is printed above it as fully as below it (it was once clipped):
+    // the dashed line runs 0.5 mm outside the label, so look in the 1 mm band beyond each edge.
+    const { cell } = first;
+    const above = markedColumns(first.page, { x: cell.x, y: cell.y - 1, widthMm: SIZE.widthMm, heightMm: 1 });
+    const below = markedColumns(first.page, { x: cell.x, y: cell.y + SIZE.heightMm, widthMm: SIZE.widthMm, heightMm: 1 });
+    expect(below).toBeGreaterThan(0.3 * (SIZE.widthMm / 25.4) * DPI);
+    expect(Math.abs(above - below)).toBeLessThanOrEqual(0.05 * below);
     // Position 1 was used before: nothing is printed there.
     const used = sheetLayout('letter', SIZE).cells[0]!;
     expect(decodeQrIn(pages[0]!, { x: used.x, y: used.y, widthMm: SIZE.widthMm, heightMm: SIZE.heightMm })).toBeNull();

@@ -43,7 +43,7 @@ export async function dropTestDatabase(name: string): Promise<void> {
   await admin.end();
 }
 
-export async function createTestContext(options: Partial<Pick<AppOptions, 'authLimits' | 'distDir' | 'publicUrl'>> = {}): Promise<TestContext> {
+export async function createTestContext(options: Partial<Pick<AppOptions, 'authLimits' | 'distDir' | 'publicUrl' | 'logger'>> = {}): Promise<TestContext> {
   const name = await createTestDatabase();
   const databaseUrl = testDatabaseUrl(name);
   const database = connectDatabase(databaseUrl, 5);
@@ -69,6 +69,7 @@ export async function createTestContext(options: Partial<Pick<AppOptions, 'authL
     publicUrl: options.publicUrl ?? 'http://rackside.test',
     authLimits: { signInPerIp: 10_000, resetPerIp: 10_000, resetPerEmail: 10_000, ...options.authLimits },
     distDir: options.distDir ?? '/nonexistent',
+    logger: options.logger,
   });
   return {
     app,

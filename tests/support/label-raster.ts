@@ -83,23 +83,88 @@ export function decodeQrIn(page: GreyPage, box: BoxMm): string | null {
   return jsQR(rgba, w, h, { inversionAttempts: 'dontInvert' })?.data ?? null;
 }
 
-/** The size of the dark marks inside `box`, in mm: a QR symbol's printed width and height. */
-export function darkExtentMm(page: GreyPage, box: BoxMm): { widthMm: number; heightMm: number } {
-  const x0 = px(page, box.x);
-  const y0 = px(page, box.y);
-  let [minX, minY, maxX, maxY] = [Infinity, Infinity, -Infinity, -Infinity];
-  for (let y = y0; y < y0 + px(page, box.heightMm); y++) {
-    for (let x = x0; x < x0 + px(page, box.widthMm); x++) {
-      if (page.grey[y * page.width + x]! < 128) {
-        minX = Math.min(minX, x);
-        maxX = Math.max(maxX, x);
-        minY = Math.min(minY, y);
-        maxY = Math.max(maxY, y);
+export interface MeasuredSymbol {
+  text: string;
+  /** Modules per side, from the decoded version: 4·version + 17 (ISO/IEC 18004:2015, 5.3.1). */
+  modules: number;
+  /** Outer edge to outer edge of the finder patterns: the symbol's printed size. */
+  widthMm: number;
+  heightMm: number;
+  /** One module, from the top-left finder pattern's own width (7 modules, ISO/IEC 18004:2015, 6.3.3). */
+  moduleMm: number;
+}
+
+const dark = (page: GreyPage, x: number, y: number) => x >= 0 && y >= 0 && x < page.width && y < page.height && page.grey[y * page.width + x]! < 128;
+
+/**
+ * From a finder pattern's centre, the first light pixel past its outer dark ring along one
+ * direction: the centre's 3 × 3 dark block, a light ring, then the dark ring (1:1:3:1:1 across,
+ * ISO/IEC 18004:2015, 6.3.3). The separator and the quiet zone beyond it are light.
+ */
+function finderEdge(page: GreyPage, centre: { x: number; y: number }, dx: number, dy: number): number {
+  let x = Math.round(centre.x);
+  let y = Math.round(centre.y);
+  for (const wantDark of [false, true, false]) {
+    for (let steps = 0; dark(page, x, y) !== wantDark; steps++) {
+      if (steps > page.dpi) throw new Error('no finder pattern edge within an inch');
+      x += dx;
+      y += dy;
+    }
+  }
+  return dx ? x : y;
+}
+
+/**
+ * The one QR symbol inside `box`, measured by its finder patterns: jsQR finds their centres,
+ * then each is followed outward to its outer edge. Text or marks beside the symbol (even in
+ * the quiet zone) do not change the measurement, unlike the extent of all dark pixels.
+ */
+export function measureQrIn(page: GreyPage, box: BoxMm): MeasuredSymbol | null {
+  const pad = px(page, 3);
+  const { rgba, w, h } = crop(page, box, pad);
+  const found = jsQR(rgba, w, h, { inversionAttempts: 'dontInvert' });
+  if (!found) return null;
+  const onPage = (p: { x: number; y: number }) => ({ x: p.x - pad + px(page, box.x), y: p.y - pad + px(page, box.y) });
+  const topLeft = onPage(found.location.topLeftFinderPattern);
+  const topRight = onPage(found.location.topRightFinderPattern);
+  const bottomLeft = onPage(found.location.bottomLeftFinderPattern);
+  // Edges are the first light pixel outside: the symbol spans [left, right) in pixels.
+  const left = finderEdge(page, topLeft, -1, 0) + 1;
+  const right = finderEdge(page, topRight, 1, 0);
+  const top = finderEdge(page, topLeft, 0, -1) + 1;
+  const bottom = finderEdge(page, bottomLeft, 0, 1);
+  const finderRight = finderEdge(page, topLeft, 1, 0);
+  const toMm = (n: number) => (n / page.dpi) * 25.4;
+  return { text: found.data, modules: 4 * found.version + 17, widthMm: toMm(right - left), heightMm: toMm(bottom - top), moduleMm: toMm(finderRight - left) / 7 };
+}
+
+/**
+ * Dark pixels inside `outer` but outside `inner` (mm from the page's corner): marks on a quiet
+ * zone. One pixel round `inner` is left out, for its edge's anti-aliasing.
+ */
+export function darkPixelsAround(page: GreyPage, outer: BoxMm, inner: BoxMm): number {
+  const within = (b: BoxMm, x: number, y: number) => x >= px(page, b.x) - 1 && x <= px(page, b.x + b.widthMm) && y >= px(page, b.y) - 1 && y <= px(page, b.y + b.heightMm);
+  let count = 0;
+  for (let y = px(page, outer.y); y < px(page, outer.y + outer.heightMm); y++) {
+    for (let x = px(page, outer.x); x < px(page, outer.x + outer.widthMm); x++) {
+      if (dark(page, x, y) && !within(inner, x, y)) count++;
+    }
+  }
+  return count;
+}
+
+/** How many pixel columns of `band` hold any mark (grey or darker): how much of a line printed there. */
+export function markedColumns(page: GreyPage, band: BoxMm, lighterThan = 230): number {
+  let count = 0;
+  for (let x = px(page, band.x); x < px(page, band.x + band.widthMm); x++) {
+    for (let y = px(page, band.y); y < px(page, band.y + band.heightMm); y++) {
+      if (page.grey[y * page.width + x]! < lighterThan) {
+        count++;
+        break;
       }
     }
   }
-  const toMm = (n: number) => (n / page.dpi) * 25.4;
-  return { widthMm: toMm(maxX - minX + 1), heightMm: toMm(maxY - minY + 1) };
+  return count;
 }
 
 /** Grey pixels of a region, for feeding a fake camera. */

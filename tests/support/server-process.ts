@@ -7,6 +7,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { buildServer } from '../../scripts/build-server';
 import { SERVER_NODE_FLAGS } from '../../scripts/lib/server-flags.mjs';
+import { startDevSmtp } from '../../server/mail/dev-smtp';
 import { repoRoot } from '../../server/repo-root';
 
 const root = repoRoot();
@@ -14,7 +15,8 @@ const root = repoRoot();
 // Built from the current source once per test process (about 0.1 s), in a folder of its own:
 // test files run in parallel processes.
 let bundled: Promise<string> | undefined;
-const bundleOnce = () => {
+/** The production bundle (dist-server/…/index.mjs) built from the current source. */
+export const bundleOnce = () => {
   if (!bundled) {
     const parent = path.join(root, 'dist-server');
     // Test workers end without an exit hook running: sweep the folders of finished ones.
@@ -62,6 +64,9 @@ export async function startServerProcess(options: { databaseUrl: string; port?: 
   const storage = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-proc-'));
   // The production bundle, run by node itself, so a signal reaches the server directly.
   const bundle = await bundleOnce();
+  // Production needs a mail server (server/env.ts): a loopback SMTP sink in this process, unless
+  // the caller gives SMTP_URL (an empty one means none).
+  const smtp = options.env && 'SMTP_URL' in options.env ? undefined : await startDevSmtp();
   const child = spawn(process.execPath, [...(options.nodeArgs ?? []), ...SERVER_NODE_FLAGS, bundle], {
     cwd: root,
     env: {
@@ -74,6 +79,8 @@ export async function startServerProcess(options: { databaseUrl: string; port?: 
       BCRYPT_COST: '10',
       STORAGE_DIR: storage,
       LOG_LEVEL: 'info',
+      PUBLIC_URL: `http://127.0.0.1:${port}`,
+      ...(smtp ? { SMTP_URL: smtp.url } : {}),
       ...options.env,
     },
     stdio: ['ignore', options.quiet ? 'ignore' : 'pipe', 'pipe'],
@@ -83,6 +90,7 @@ export async function startServerProcess(options: { databaseUrl: string; port?: 
   child.stdout?.on('data', collect);
   child.stderr!.on('data', collect);
   const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
+  void exited.then(() => smtp?.stop());
   const url = `http://127.0.0.1:${port}`;
   const deadline = Date.now() + 30_000;
   for (;;) {

@@ -104,6 +104,10 @@ export const coverReports = pgTable(
     subject: text('subject').notNull(),
     body: text('body').notNull(),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    /** When the mail server accepted it for every owner; until then each run retries it. */
+    sentAt: timestamp('sent_at', { withTimezone: true }),
+    /** Owners it was already accepted for, so a retry after a partial failure sends no duplicate. */
+    sentTo: text('sent_to').array().notNull().default([]),
   },
   (t) => [unique('cover_reports_collection_day').on(t.collectionId, t.localDate)],
 );

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, gte, inArray, isNotNull, lt, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, isNotNull, lt, sql } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { EVENT_WORDS, type EventKind } from '../../../shared/domain/event-kinds';
 import { addDays, clockTime, describeLocalDate, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
@@ -8,17 +8,26 @@ import { animals, events } from '../../db/schema/animals';
 import { collections, coverReports, memberships } from '../../db/schema/collections';
 import { animalStates } from '../../db/schema/rounds';
 import { users } from '../../db/schema/users';
+import type { Logger } from '../../logger';
 import type { Mailer } from '../../mail/mailer';
 import type { RoundsService } from '../rounds/rounds.service';
+import { unsentReports, withUnsentReport } from './cover-reports.repository';
 
 /** Reports are made for days that ended in the last three days (a server that was down catches up). */
 const CATCH_UP_DAYS = 3;
+/**
+ * A report the mail server did not accept is tried again on every run (every ten minutes,
+ * server/jobs/jobs.ts) for a week; after that it is only in the app. A week outlasts a mail
+ * provider's outage or a mistyped SMTP_URL fixed after a weekend.
+ */
+const RETRY_DAYS = 7;
 
 interface Deps {
   mailer: Mailer;
   now: () => Date;
   rounds: RoundsService;
   publicUrl: (path: string) => string;
+  logger?: Logger;
 }
 
 export interface CoverReportView {
@@ -108,8 +117,52 @@ export function createCoverReportsService(db: NodePgDatabase, deps: Deps) {
     return { subject, body };
   }
 
+  /** Writes each covered day's report once it has ended; true for the (collection, day) this run made. */
+  async function make(c: Collection, day: LocalDate, cover: { firstDay: LocalDate; lastDay: LocalDate }, now: Date): Promise<boolean> {
+    // Claimed and written in one transaction: a failed build leaves no empty claim behind, and
+    // another process claiming the same day waits on the unique key, then finds it taken.
+    return db.transaction(async (tx) => {
+      // Made "now" on the app's clock, which also bounds its retries (deliver).
+      const claimed = await tx.insert(coverReports).values({ collectionId: c.id, localDate: day, subject: '', body: '', createdAt: now }).onConflictDoNothing().returning({ id: coverReports.id });
+      if (!claimed.length) return false;
+      await tx.update(coverReports).set(await build(c, day, cover)).where(eq(coverReports.id, claimed[0]!.id));
+      return true;
+    });
+  }
+
+  /** E-mails every report not yet accepted by the mail server; the number now sent. */
+  async function deliver(now: Date): Promise<number> {
+    let sent = 0;
+    for (const { id } of await unsentReports(db, new Date(now.getTime() - RETRY_DAYS * 86_400_000))) {
+      const done = await withUnsentReport(
+        db,
+        id,
+        async (report, owners) => {
+          const sentTo = new Set(report.sentTo);
+          for (const to of owners.filter((o) => !sentTo.has(o))) {
+            try {
+              await deps.mailer.send({ to, subject: report.subject, text: report.body });
+              sentTo.add(to);
+            } catch (err) {
+              deps.logger?.warn({ err, reportId: report.id, collectionId: report.collectionId }, 'cover report not accepted by the mail server; retried on the next run');
+              return { sentTo: [...sentTo], done: false };
+            }
+          }
+          return { sentTo: [...sentTo], done: true };
+        },
+        now,
+      );
+      if (done) sent += 1;
+    }
+    return sent;
+  }
+
   return {
-    /** Reports for every covered day that has ended; safe to run as often as wanted. */
+    /**
+     * Makes a report for every covered day that has ended, then e-mails every report the mail
+     * server has not yet accepted (this run's and earlier failures). Safe to run as often as
+     * wanted; returns how many reports were sent.
+     */
     async runDue(): Promise<number> {
       const now = deps.now();
       const earliest = new Date(now.getTime() - (CATCH_UP_DAYS + 1) * 86_400_000);
@@ -118,7 +171,6 @@ export function createCoverReportsService(db: NodePgDatabase, deps: Deps) {
         .from(memberships)
         .innerJoin(collections, eq(collections.id, memberships.collectionId))
         .where(and(eq(memberships.role, 'helper'), isNotNull(memberships.startsAt), isNotNull(memberships.endsAt), lt(memberships.startsAt, now), sql`${memberships.endsAt} > ${earliest}`));
-      let sent = 0;
       for (const { c, startsAt, endsAt } of covers) {
         const firstDay = localDateOf(startsAt!, c.timeZone);
         const lastDay = localDateOf(new Date(endsAt!.getTime() - 1), c.timeZone);
@@ -126,20 +178,15 @@ export function createCoverReportsService(db: NodePgDatabase, deps: Deps) {
           const dayEnd = startOfLocalDate(addDays(day, 1), c.timeZone);
           if (dayEnd > now || dayEnd < earliest) continue;
           // A cover ended early reports its last (partial) day as its last day.
-          const claimed = await db.insert(coverReports).values({ collectionId: c.id, localDate: day, subject: '', body: '' }).onConflictDoNothing().returning({ id: coverReports.id });
-          if (!claimed.length) continue;
-          const report = await build(c, day, { firstDay, lastDay });
-          await db.update(coverReports).set(report).where(eq(coverReports.id, claimed[0]!.id));
-          const owners = await db
-            .select({ email: users.email })
-            .from(memberships)
-            .innerJoin(users, eq(users.id, memberships.userId))
-            .where(and(eq(memberships.collectionId, c.id), inArray(memberships.role, ['owner'])));
-          for (const o of owners) await deps.mailer.send({ to: o.email, subject: report.subject, text: report.body });
-          sent += 1;
+          try {
+            await make(c, day, { firstDay, lastDay }, now);
+          } catch (err) {
+            // One collection's failure does not hold back the others' reports; the next run retries it.
+            deps.logger?.error({ err, collectionId: c.id, localDate: day }, 'cover report could not be made');
+          }
         }
       }
-      return sent;
+      return deliver(now);
     },
 
     async list(collectionId: string): Promise<CoverReportView[]> {

@@ -2,7 +2,7 @@ import PDFDocument from 'pdfkit';
 import { CAUTION_SYMBOL_GRID, CAUTION_SYMBOL_PATHS, CAUTION_SYMBOL_STROKE } from '../../../shared/domain/caution-symbols';
 import type { LabelContent } from '../../../shared/domain/labels/label-content';
 import { qrPath } from '../../../shared/domain/labels/qr-symbol';
-import { placeLabels, RULER_LENGTH_MM, type SheetLayout } from '../../../shared/domain/labels/sheet-layout';
+import { CUT_LINE_OFFSET_MM, CUT_LINE_WIDTH_MM, placeLabels, RULER_LENGTH_MM, type SheetLayout } from '../../../shared/domain/labels/sheet-layout';
 
 /** PDF user space is 1/72 in (ISO 32000-1, 8.3.2.3); 1 in = 25.4 mm. */
 const PT_PER_MM = 72 / 25.4;
@@ -105,10 +105,10 @@ export function renderLabelsPdf(labels: readonly LabelContent[], sheet: SheetLay
     // A faint cut line just outside the label, in the gap, never on the QR's quiet zone.
     doc
       .save()
-      .lineWidth(0.3)
+      .lineWidth(pt(CUT_LINE_WIDTH_MM))
       .strokeColor('#9a9a9a')
       .dash(1.5, { space: 1.5 })
-      .roundedRect(pt(cell.x - 0.5), pt(cell.y - 0.5), pt(sheet.label.widthMm + 1), pt(sheet.label.heightMm + 1), pt(1))
+      .roundedRect(pt(cell.x - CUT_LINE_OFFSET_MM), pt(cell.y - CUT_LINE_OFFSET_MM), pt(sheet.label.widthMm + 2 * CUT_LINE_OFFSET_MM), pt(sheet.label.heightMm + 2 * CUT_LINE_OFFSET_MM), pt(1))
       .stroke()
       .restore();
     drawSymbol(doc, label, cell.x, cell.y);

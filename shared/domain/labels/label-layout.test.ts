@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { LABEL_FIELDS, labelLayout, MAX_SYMBOL_MM, MIN_MODULE_MM, type Box } from './label-layout';
+import { LABEL_FIELDS, labelLayout, MAX_SYMBOL_MM, MIN_MODULE_MM, TEXT_GAP_MM, type Box } from './label-layout';
 import { QUIET_ZONE_MODULES } from './qr-symbol';
 import { LABEL_SIZES, type LabelSizeId } from './sheet-layout';
 
@@ -23,6 +23,9 @@ describe('one label', () => {
         expect(l.quiet.x + l.quiet.widthMm).toBeLessThanOrEqual(size.widthMm + 1e-9);
         expect(l.quiet.y + l.quiet.heightMm).toBeLessThanOrEqual(size.heightMm + 1e-9);
         expect(overlaps(l.quiet, l.text)).toBe(false);
+        // The text keeps a clear gap from the quiet zone, beside it (wide) or under it (stacked).
+        const gap = l.mode === 'wide' ? l.text.x - (l.quiet.x + l.quiet.widthMm) : l.text.y - (l.quiet.y + l.quiet.heightMm);
+        expect(gap).toBeGreaterThanOrEqual(TEXT_GAP_MM - 1e-9);
         expect(l.text.x + l.text.widthMm).toBeLessThanOrEqual(size.widthMm + 1e-9);
         expect(l.symbol.widthMm).toBeLessThanOrEqual(MAX_SYMBOL_MM);
         expect(l.moduleMm).toBeCloseTo(l.symbol.widthMm / modules, 3);

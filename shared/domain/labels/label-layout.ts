@@ -9,6 +9,12 @@ export const MAX_SYMBOL_MM = 25;
 const PAD_MM = 1.2;
 /** Smallest text we print: about 6 pt, still readable at a shelf (from memory). */
 const MIN_TEXT_MM = 2.2;
+/**
+ * Clear space between the quiet zone and the text box: a glyph's side bearing or an italic
+ * overhang must not reach into the quiet zone, and a scanner or a ruler measuring the symbol
+ * must not meet text at its edge (common practice, no published source).
+ */
+export const TEXT_GAP_MM = 1;
 
 export const LABEL_FIELDS = ['name', 'scientificName', 'stage', 'cautions'] as const;
 export type LabelField = (typeof LABEL_FIELDS)[number];
@@ -82,7 +88,13 @@ export function labelLayout(size: LabelSize, modules: number, fields: readonly L
     ? { x: 0, y: (h - side) / 2 - quietMm, widthMm: side + 2 * quietMm, heightMm: side + 2 * quietMm }
     : { x: (w - side) / 2 - quietMm, y: 0, widthMm: side + 2 * quietMm, heightMm: side + 2 * quietMm };
   const symbol = { x: quiet.x + quietMm, y: quiet.y + quietMm, widthMm: side, heightMm: side };
-  if (wide) text = { ...text, x: quiet.x + quiet.widthMm };
+  if (wide) {
+    const x = quiet.x + quiet.widthMm + TEXT_GAP_MM;
+    text = { ...text, x, widthMm: w - x - PAD_MM };
+  } else {
+    const y = Math.max(text.y, quiet.y + quiet.heightMm + TEXT_GAP_MM);
+    text = { ...text, y, heightMm: h - y - PAD_MM * 0.5 };
+  }
 
   const codeSize = wide ? Math.min(6, h * 0.2) : Math.min(5, text.heightMm * 0.7);
   const lineSize = Math.max(MIN_TEXT_MM, Math.min(3.5, codeSize * 0.55));

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
+  CUT_LINE_OFFSET_MM,
+  CUT_LINE_WIDTH_MM,
   LABEL_GAP_MM,
   LABEL_SIZES,
   placeLabels,
@@ -71,6 +73,27 @@ describe('labels per sheet', () => {
         if (layout.cols > 1) expect(b!.x - a!.x - size.widthMm).toBeCloseTo(LABEL_GAP_MM, 9);
         expect(layout.ruler.y).toBeGreaterThan(layout.cells.at(-1)!.y + size.heightMm);
         expect(layout.ruler.y).toBeLessThan(page.heightMm - PRINT_MARGIN_MM);
+      }
+    }
+  });
+
+  it('leaves room in the browser print for every cut line, also round a grid that fills the printable area', () => {
+    // 93.5 mm: two across fill A4's 190 mm exactly, so the outer cut lines lie outside the printable area.
+    const sizes = [...Object.values(LABEL_SIZES), { widthMm: 93.5, heightMm: 40 }];
+    for (const sheet of Object.keys(SHEETS) as SheetId[]) {
+      for (const size of sizes) {
+        const { cells, printArea, page } = sheetLayout(sheet, size);
+        const reach = CUT_LINE_OFFSET_MM + CUT_LINE_WIDTH_MM;
+        for (const cell of cells) {
+          expect(cell.x - reach).toBeGreaterThanOrEqual(printArea.x - 1e-9);
+          expect(cell.y - reach).toBeGreaterThanOrEqual(printArea.y - 1e-9);
+          expect(cell.x + size.widthMm + reach).toBeLessThanOrEqual(printArea.x + printArea.widthMm + 1e-9);
+          expect(cell.y + size.heightMm + reach).toBeLessThanOrEqual(printArea.y + printArea.heightMm + 1e-9);
+        }
+        // Still well inside what office printers reach (4–6 mm from the edge), centred on the page.
+        expect(printArea.x).toBeGreaterThanOrEqual(6);
+        expect(printArea.x + printArea.widthMm).toBeCloseTo(page.widthMm - printArea.x, 9);
+        expect(printArea.y + printArea.heightMm).toBeCloseTo(page.heightMm - printArea.y, 9);
       }
     }
   });

@@ -14,6 +14,14 @@ export const SHEET_IDS = Object.keys(SHEETS) as SheetId[];
 export const PRINT_MARGIN_MM = 10;
 /** Room between labels for scissors or a cutter. */
 export const LABEL_GAP_MM = 3;
+/** The dashed cut line round each label runs this far outside it, in the gap, and is this wide. */
+export const CUT_LINE_OFFSET_MM = 0.5;
+export const CUT_LINE_WIDTH_MM = 0.2;
+/**
+ * The browser print draws into a box this much larger than the printable area on every side:
+ * the cut lines of the outer labels lie outside the printable area and would be clipped there.
+ */
+export const PRINT_BLEED_MM = 1;
 /** The strip at the foot of each sheet that holds the 50 mm scale ruler. */
 export const RULER_STRIP_MM = 10;
 export const RULER_LENGTH_MM = 50;
@@ -38,6 +46,8 @@ export interface SheetLayout {
   page: { widthMm: number; heightMm: number };
   /** The printable area inside the margins. */
   printable: { x: number; y: number; widthMm: number; heightMm: number };
+  /** What the browser print draws into: the printable area and PRINT_BLEED_MM round it. */
+  printArea: { x: number; y: number; widthMm: number; heightMm: number };
   cols: number;
   rows: number;
   perSheet: number;
@@ -71,6 +81,12 @@ export function sheetLayout(sheetId: SheetId, label: LabelSize): SheetLayout {
   return {
     page: { widthMm: sheet.widthMm, heightMm: sheet.heightMm },
     printable,
+    printArea: {
+      x: printable.x - PRINT_BLEED_MM,
+      y: printable.y - PRINT_BLEED_MM,
+      widthMm: printable.widthMm + 2 * PRINT_BLEED_MM,
+      heightMm: printable.heightMm + 2 * PRINT_BLEED_MM,
+    },
     cols,
     rows,
     perSheet: cols * rows,

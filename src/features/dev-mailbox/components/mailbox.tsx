@@ -1,6 +1,7 @@
 import { Fragment } from 'react';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
+import { ApiError } from '@/lib/api-client';
 import { useMail, type DevMail } from '../api/list-mail';
 
 /** Shows a message's text with its links clickable (they point back into this app). */
@@ -36,10 +37,16 @@ function Message({ mail }: { mail: DevMail }) {
 export function Mailbox() {
   const mail = useMail();
   if (mail.isPending) return <Loading label="Opening the mailbox…" />;
-  if (mail.isError) return <Notice tone="info" title="The local mailbox is only there in demo and development mode." />;
-  if (!mail.data.messages.length) return <Notice tone="info" title="No e-mail yet. Messages the app sends appear here." />;
+  if (mail.isError) {
+    // From another device the server says who may read it (a signed-in owner, their own mail).
+    const refused = mail.error instanceof ApiError && (mail.error.status === 401 || mail.error.status === 403);
+    return <Notice tone="info" title={refused ? mail.error.message : 'The local mailbox is only there in demo and development mode.'} />;
+  }
+  const mine = mail.data.scope === 'mine';
+  if (!mail.data.messages.length) return <Notice tone="info" title={mine ? 'No e-mail to you yet.' : 'No e-mail yet. Messages the app sends appear here.'} />;
   return (
     <div className="flex flex-col gap-3">
+      {mine && <Notice tone="info" title="From this device you see only the e-mail sent to you. The computer running Rackside shows all of it." />}
       {mail.data.messages.map((m) => (
         <Message key={m.id} mail={m} />
       ))}

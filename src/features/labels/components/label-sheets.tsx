@@ -1,6 +1,6 @@
 import type { CSSProperties } from 'react';
 import type { LabelContent } from '#shared/domain/labels/label-content';
-import { placeLabels, RULER_LENGTH_MM, type SheetLayout } from '#shared/domain/labels/sheet-layout';
+import { CUT_LINE_OFFSET_MM, CUT_LINE_WIDTH_MM, placeLabels, RULER_LENGTH_MM, type SheetLayout } from '#shared/domain/labels/sheet-layout';
 import { PrintedLabel } from './printed-label';
 
 const mm = (n: number) => `${n}mm`;
@@ -8,9 +8,9 @@ const mm = (n: number) => `${n}mm`;
 /** 50 mm with millimetre ticks: measured on the printout, it shows the print was not scaled. */
 function Ruler({ sheet, page, pages }: { sheet: SheetLayout; page: number; pages: number }) {
   const { lengthMm } = sheet.ruler;
-  // Relative to the printable area, like the labels.
-  const x = sheet.ruler.x - sheet.printable.x;
-  const y = sheet.ruler.y - sheet.printable.y;
+  // Relative to the print area, like the labels.
+  const x = sheet.ruler.x - sheet.printArea.x;
+  const y = sheet.ruler.y - sheet.printArea.y;
   const ticks = Array.from({ length: RULER_LENGTH_MM + 1 }, (_, i) => i);
   return (
     <div style={{ position: 'absolute', left: mm(x), top: mm(y - 3), width: mm(sheet.printable.widthMm), height: mm(5) }}>
@@ -37,18 +37,21 @@ interface Props {
 
 /**
  * The sheets at true size in CSS millimetres (CSS Values 4: 1in = 25.4mm = 96px). Positions
- * are from the page's corner; `@page` margins are subtracted so print and PDF match.
+ * are from the page's corner; the `@page` margins (the print area's corner) are subtracted so
+ * print and PDF match. The print area reaches past the printable one so that the clipping
+ * below leaves the outer labels' cut lines whole.
  */
 export function LabelSheets({ labels, sheet, start, showUsedCells = false }: Props) {
   const places = placeLabels(labels.length, start, sheet.perSheet);
   const pages = (places.at(-1)?.sheet ?? 0) + 1;
   const byPage: { label: LabelContent; cell: number }[][] = Array.from({ length: pages }, () => []);
   labels.forEach((label, i) => byPage[places[i]!.sheet]!.push({ label, cell: places[i]!.cell }));
-  const { x: ox, y: oy } = sheet.printable;
+  const { x: ox, y: oy } = sheet.printArea;
   const page: CSSProperties = {
     position: 'relative',
-    width: mm(sheet.printable.widthMm),
-    height: mm(sheet.printable.heightMm - 0.5),
+    width: mm(sheet.printArea.widthMm),
+    // A hair under the page box, so rounding never spills a sheet onto a second page.
+    height: mm(sheet.printArea.heightMm - 0.5),
     overflow: 'hidden',
     // Without containment Chromium paginates the clipped, absolutely placed labels as if they
     // still took room, and prints a blank page after the last sheet.
@@ -82,8 +85,8 @@ export function LabelSheets({ labels, sheet, start, showUsedCells = false }: Pro
                   width: mm(sheet.label.widthMm),
                   height: mm(sheet.label.heightMm),
                   // The cut line sits just outside the label, in the gap, never on the quiet zone.
-                  outline: '0.2mm dashed #9a9a9a',
-                  outlineOffset: '0.5mm',
+                  outline: `${mm(CUT_LINE_WIDTH_MM)} dashed #9a9a9a`,
+                  outlineOffset: mm(CUT_LINE_OFFSET_MM),
                   borderRadius: '1mm',
                 }}
               >

@@ -2,7 +2,7 @@ import { useEffect, useMemo, useState } from 'react';
 import { createPortal } from 'react-dom';
 import { labelContent, printProblem } from '#shared/domain/labels/label-content';
 import { LABEL_FIELD_WORDS } from '#shared/domain/labels/label-layout';
-import { CUSTOM_SIZE_LIMITS, sheetCount, sheetLayout, SHEETS } from '#shared/domain/labels/sheet-layout';
+import { CUSTOM_SIZE_LIMITS, PRINT_BLEED_MM, PRINT_MARGIN_MM, sheetCount, sheetLayout, SHEETS } from '#shared/domain/labels/sheet-layout';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -63,7 +63,8 @@ export function LabelsWorkbench({ collectionId, labelTag, timeZone, animals, pre
   const canPrint = labels.length > 0 && !problem && startValid && !!sheet;
   const dropped = labels[0]?.layout.dropped ?? [];
   const pages = sheet ? sheetCount(labels.length, settings.start, perSheet) : 0;
-  const [fitRef, fitScale] = useFitScale(SHEETS[settings.sheet].widthMm - 20);
+  // The sheet as drawn: the print area, a little wider than the printable one.
+  const [fitRef, fitScale] = useFitScale(SHEETS[settings.sheet].widthMm - 2 * (PRINT_MARGIN_MM - PRINT_BLEED_MM));
 
   const printPdf = async () => {
     setPdf({ busy: true, error: null });
@@ -128,7 +129,7 @@ export function LabelsWorkbench({ collectionId, labelTag, timeZone, animals, pre
         createPortal(
           <div id="print-labels">
             {/* CSS Paged Media 3, 7.1: the sheet's size and margins go to the printer. */}
-            <style>{`@page { size: ${SHEETS[settings.sheet].widthMm}mm ${SHEETS[settings.sheet].heightMm}mm; margin: ${sheet.printable.y}mm ${sheet.printable.x}mm; }`}</style>
+            <style>{`@page { size: ${SHEETS[settings.sheet].widthMm}mm ${SHEETS[settings.sheet].heightMm}mm; margin: ${sheet.printArea.y}mm ${sheet.printArea.x}mm; }`}</style>
             <LabelSheets labels={labels} sheet={sheet} start={settings.start} />
           </div>,
           document.body,
