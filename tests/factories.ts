@@ -1,7 +1,8 @@
-import { randomUUID } from 'node:crypto';
+import { randomInt, randomUUID } from 'node:crypto';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { animals } from '../server/db/schema/animals';
 import { memberships } from '../server/db/schema/collections';
+import { LABEL_ALPHABET } from '../shared/domain/label-codes';
 import type { AnimalInput } from '../shared/schemas/animals';
 import type { TestContext } from './setup/test-app';
 
@@ -41,7 +42,8 @@ export async function createAnimal(db: NodePgDatabase, collectionId: string, ove
     .insert(animals)
     .values({
       collectionId,
-      labelCode: `TS-${randomUUID().slice(0, 4).toUpperCase().replace(/[01IO]/g, 'A')}`,
+      // Five characters of the label alphabet (32^5 codes): no collisions within a test file.
+      labelCode: `TS-${Array.from({ length: 5 }, () => LABEL_ALPHABET[randomInt(LABEL_ALPHABET.length)]).join('')}`,
       name: 'Test animal',
       scientificName: 'Tliltocatl albopilosus',
       group: 'tarantula',
