@@ -7,6 +7,7 @@ import type { AnimalGroup, Caution, LifeStage, Sex } from '../../../shared/domai
 import type { EventKind } from '../../../shared/domain/event-kinds';
 import { generateLabelCodes } from '../../../shared/domain/label-codes';
 import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
+import { DEFAULT_RULES, feedingInterval } from '../../../shared/domain/rounds/rules';
 import { hashPassword } from '../../features/auth/passwords';
 import { insertCollection } from '../../features/collections/collections.repository';
 import { refoldStates } from '../../features/rounds/projection';
@@ -90,9 +91,8 @@ function clutch(): DemoAnimal[] {
   });
 }
 
-// Demo history uses the round engine's default intervals (husbandry rules R1).
-const INTERVAL: Record<LifeStage, number> = { sling: 3, juvenile: 6, subadult: 9, adult: 12 };
-const GROUP_INTERVAL: Partial<Record<AnimalGroup, number>> = { centipede: 7, scorpion: 10, mantis: 4 };
+// Demo history follows the round engine's own defaults (docs/care-rules.md): its intervals (R1)
+// and post-molt holds (R5), so the history obeys the rules it demonstrates.
 const OFFER: Record<LifeStage, { preyType: string; preySize: string; count: number }> = {
   sling: { preyType: 'fruit-fly larvae', preySize: 'tiny', count: 1 },
   juvenile: { preyType: 'cricket', preySize: 'small', count: 1 },
@@ -109,8 +109,9 @@ interface SeedEvent {
 }
 
 /** The history of one animal over the last `days` days, ending yesterday or today. */
-function historyFor(animal: DemoAnimal, today: LocalDate, random: () => number): SeedEvent[] {
-  const interval = GROUP_INTERVAL[animal.group] ?? INTERVAL[animal.lifeStage];
+export function historyFor(animal: DemoAnimal, today: LocalDate, random: () => number): SeedEvent[] {
+  const interval = feedingInterval(DEFAULT_RULES, { ...animal, intervalDays: null });
+  const hold = DEFAULT_RULES.postMoltHoldDays[animal.lifeStage];
   const offer = OFFER[animal.lifeStage];
   const out: SeedEvent[] = [];
   const at = (offset: number): LocalDate => addDays(today, offset);
@@ -132,7 +133,15 @@ function historyFor(animal: DemoAnimal, today: LocalDate, random: () => number):
   const stopAt = storyStart[animal.story ?? 'none'];
   let offset = -60 + Math.floor(random() * interval);
   const lastRoutine = animal.story === 'missed' ? -interval - 1 : stopAt - 1;
+  // A molt somewhere in the middle of the history for growing animals, to fill the charts; no
+  // meal is offered from a week before it (premolt) until its hold ends (R4, R5).
+  const grows = animal.lifeStage !== 'adult' && animal.story !== 'molted_5_days' && animal.story !== 'premolt';
+  const moltAt = grows ? -35 - Math.floor(random() * 10) : null;
   while (offset <= lastRoutine && offset < 0) {
+    if (moltAt !== null && offset > moltAt - 7 && offset < moltAt + hold) {
+      offset = moltAt + hold;
+      continue;
+    }
     const refused = random() < 0.08;
     out.push({ kind: refused ? 'refused' : 'ate', day: at(offset), minute: minute(), by: by(), payload: refused ? {} : { ...offer } });
     offset += refused ? Math.max(2, Math.round(interval / 2)) : interval;
@@ -142,10 +151,7 @@ function historyFor(animal: DemoAnimal, today: LocalDate, random: () => number):
     const last = animal.story === 'premolt' || animal.story === 'molted_5_days' ? -3 : -1 - Math.floor(random() * 3);
     for (let d = last; d >= -60; d -= 3) out.push({ kind: 'watered', day: at(d), minute: minute(), by: by() });
   }
-  // A molt somewhere in the middle of the history for growing animals, to fill the charts.
-  if (animal.lifeStage !== 'adult' && animal.story !== 'molted_5_days' && animal.story !== 'premolt') {
-    out.push({ kind: 'molted', day: at(-35 - Math.floor(random() * 10)), minute: minute(), by: by(), payload: { sizeMm: animal.sizeMm } });
-  }
+  if (moltAt !== null) out.push({ kind: 'molted', day: at(moltAt), minute: minute(), by: by(), payload: { sizeMm: animal.sizeMm } });
 
   switch (animal.story) {
     case 'two_refusals':
