@@ -53,14 +53,19 @@ export interface OutboxEntry {
   event: RecordedEvent;
 }
 
-/** A tap the server refused: kept and shown until the keeper dismisses it. */
+/** A tap the server refused: kept and shown until the person sends it again or discards it. */
 export interface AttentionEntry {
   id: string;
   userId: string;
   collectionId: string;
   animalName: string;
+  /** Who tapped, for the round when the tap is sent again (absent in entries made before). */
+  byName?: string;
   event: RecordedEvent;
-  /** The server's reason code, or `collection_refused` when the whole collection was. */
+  /**
+   * The server's reason code. `collection_refused` only in entries an earlier version made when
+   * a whole batch was answered 403/404; such answers now keep the taps waiting instead.
+   */
   reason: RejectReason | 'collection_refused';
   message: string;
   refusedAt: string;
