@@ -152,6 +152,23 @@ export async function storeMe(db: RacksideDb, me: MeResponse | null): Promise<vo
   else await db.delete('meta', 'me');
 }
 
+/** Facts about this browser, not about anyone's collection: they outlive a sign-out. */
+const DEVICE_META_KEYS = new Set(['deviceId', 'persistAsked']);
+
+/**
+ * At sign-out: forgets every collection the phone cached — rounds and their items, animal
+ * lists, the helper's cover copy and the last `me` — so the next person on this phone sees
+ * none of it offline. Waiting taps and refused ones stay: they belong to their author, are
+ * sent (or shown) at that person's next sign-in, and nobody else can read them in the app.
+ */
+export async function clearCachedCollections(db: RacksideDb): Promise<void> {
+  const tx = db.transaction(['rounds', 'roundItems', 'directory', 'meta'], 'readwrite');
+  const meta = tx.objectStore('meta');
+  const work: Promise<unknown>[] = [tx.objectStore('rounds').clear(), tx.objectStore('roundItems').clear(), tx.objectStore('directory').clear()];
+  for (const key of await meta.getAllKeys()) if (!DEVICE_META_KEYS.has(String(key))) work.push(meta.delete(key));
+  await Promise.all([...work, tx.done]);
+}
+
 /** A random id for this browser, made once, sent with every batch. */
 export async function deviceIdOf(db: RacksideDb): Promise<string> {
   const known = (await db.get('meta', 'deviceId')) as string | undefined;

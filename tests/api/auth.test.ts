@@ -119,8 +119,9 @@ describe('passwords', () => {
 
 describe('password reset by e-mail', () => {
   async function requestLink(email: string): Promise<string> {
+    const earlier = new Set(ctx.mailbox.messages);
     await ctx.agent().post('/api/auth/reset-request').send({ email }).expect(202);
-    const mail = await ctx.mailbox.waitFor((m) => m.to.includes(email) && m.subject.includes('Reset'));
+    const mail = await ctx.mailbox.waitFor((m) => !earlier.has(m) && m.to.includes(email) && m.subject.includes('Reset'));
     const link = /https?:\/\/\S+reset-password\?token=([\w-]+)/.exec(mail.text);
     expect(link).not.toBeNull();
     return link![1]!;
@@ -155,6 +156,26 @@ describe('password reset by e-mail', () => {
     } finally {
       ctx.setNow(null);
     }
+  });
+
+  it('refuses a link asked for before a password change, once the password has changed', async () => {
+    const { agent, email } = await signUp(ctx);
+    const token = await requestLink(email);
+    await agent.post('/api/auth/password').send({ currentPassword: PASSWORD, newPassword: 'changed after asking' }).expect(204);
+    const res = await ctx.agent().post('/api/auth/reset').send({ token, password: 'the attacker picks' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/expired or was already used/);
+    await ctx.agent().post('/api/auth/sign-in').send({ email, password: 'changed after asking' }).expect(200);
+  });
+
+  it('refuses every other outstanding link once one reset the password', async () => {
+    const { email } = await signUp(ctx);
+    const first = await requestLink(email);
+    const second = await requestLink(email);
+    expect(second).not.toBe(first);
+    await ctx.agent().post('/api/auth/reset').send({ token: second, password: 'reset with the second' }).expect(204);
+    expect((await ctx.agent().post('/api/auth/reset').send({ token: first, password: 'reset with the first' })).status).toBe(400);
+    await ctx.agent().post('/api/auth/sign-in').send({ email, password: 'reset with the second' }).expect(200);
   });
 
   it('answers the same for an unknown e-mail, and sends nothing', async () => {

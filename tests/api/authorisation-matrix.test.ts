@@ -191,7 +191,7 @@ async function putPhoto(path: string) {
 async function reopenCover(f: Fixture) {
   const db = ctx.database.db;
   const [row] = await db.select().from(memberships).where(and(eq(memberships.userId, f.helperId), eq(memberships.collectionId, owner.collectionId)));
-  if (row) await db.update(memberships).set(COVER).where(eq(memberships.id, row.id));
+  if (row) await db.update(memberships).set({ ...COVER, writesClosedAt: null }).where(eq(memberships.id, row.id));
   else await addMember(db, { collectionId: owner.collectionId, userId: f.helperId, role: 'helper', ...COVER });
 }
 

@@ -35,6 +35,11 @@ export async function consumePasswordReset(db: Db, tokenHash: string, now: Date)
   return row?.userId ?? null;
 }
 
+/** Every outstanding reset link of a user stops working (after a password change or reset). */
+export async function revokePasswordResets(db: Db, userId: string, now: Date) {
+  await db.update(passwordResets).set({ usedAt: now }).where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
+}
+
 /** Signs a user out everywhere (after a password reset or change), except one session. */
 export async function deleteSessionsOfUser(db: Db, userId: string, keepSid?: string) {
   await db

@@ -11,6 +11,7 @@ import {
   findUserById,
   insertPasswordReset,
   insertUser,
+  revokePasswordResets,
   updatePasswordHash,
 } from './auth.repository';
 import { burnComparison, hashPassword, verifyPassword } from './passwords';
@@ -82,8 +83,13 @@ export function createAuthService(deps: AuthDeps) {
           { path: 'body.currentPassword', message: 'Your current password is not right.' },
         ]);
       }
-      await updatePasswordHash(db, userId, await hashPassword(newPassword, deps.bcryptCost), deps.now());
-      await deleteSessionsOfUser(db, userId, keepSid);
+      const passwordHash = await hashPassword(newPassword, deps.bcryptCost);
+      // A reset link asked for earlier (perhaps by someone else) must not undo this change.
+      await db.transaction(async (tx) => {
+        await updatePasswordHash(tx, userId, passwordHash, deps.now());
+        await revokePasswordResets(tx, userId, deps.now());
+        await deleteSessionsOfUser(tx, userId, keepSid);
+      });
     },
 
     /** Always succeeds from the caller's point of view: whether the e-mail exists stays private. */
@@ -119,8 +125,12 @@ export function createAuthService(deps: AuthDeps) {
       if (!userId) {
         throw new HttpError(400, 'reset_link_invalid', 'This reset link has expired or was already used. Ask for a new one.');
       }
-      await updatePasswordHash(db, userId, await hashPassword(password, deps.bcryptCost), now);
-      await deleteSessionsOfUser(db, userId);
+      const passwordHash = await hashPassword(password, deps.bcryptCost);
+      await db.transaction(async (tx) => {
+        await updatePasswordHash(tx, userId, passwordHash, now);
+        await revokePasswordResets(tx, userId, now);
+        await deleteSessionsOfUser(tx, userId);
+      });
     },
   };
 }

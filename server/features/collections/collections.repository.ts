@@ -24,6 +24,7 @@ export async function findMembership(db: Db, collectionId: string, userId: strin
   const rows = await db
     .select({
       ...membershipFields,
+      writesClosedAt: memberships.writesClosedAt,
       revision: {
         records: sql<number>`coalesce(${collectionRevisions.records}, 0)`.mapWith(Number),
         events: sql<number>`coalesce(${collectionRevisions.events}, 0)`.mapWith(Number),

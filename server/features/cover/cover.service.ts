@@ -120,7 +120,7 @@ export function createCoverService(db: NodePgDatabase, deps: Deps) {
       }));
     },
 
-    /** New days or message; the helper's access follows at once. */
+    /** New days or message; the helper's access follows at once (a cover ended early reopens). */
     async change(collectionId: string, coverId: string, body: { firstDay: LocalDate; lastDay: LocalDate; message: string }) {
       const c = await collectionOf(collectionId);
       const invite = await inviteOf(collectionId, coverId);
@@ -128,19 +128,23 @@ export function createCoverService(db: NodePgDatabase, deps: Deps) {
       await db.transaction(async (tx) => {
         await tx.update(invites).set({ startsAt, endsAt, message: body.message || null }).where(eq(invites.id, invite.id));
         if (invite.acceptedBy) {
-          await tx.update(memberships).set({ startsAt, endsAt }).where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, invite.acceptedBy), eq(memberships.role, 'helper')));
+          await tx.update(memberships).set({ startsAt, endsAt, writesClosedAt: null }).where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, invite.acceptedBy), eq(memberships.role, 'helper')));
         }
       });
     },
 
-    /** Ends a cover now: the helper's access stops with the next request. */
+    /**
+     * Ends a cover now: the helper's access stops with the next request, writes included — no
+     * grace for taps still on their phone (an early end is a decision, not a calendar). The
+     * membership stays, so those taps still get a verdict ("refused") instead of waiting forever.
+     */
     async end(collectionId: string, coverId: string) {
       const invite = await inviteOf(collectionId, coverId);
       const now = deps.now();
       await db.transaction(async (tx) => {
         await tx.update(invites).set({ endsAt: now, expiresAt: now }).where(eq(invites.id, invite.id));
         if (invite.acceptedBy) {
-          await tx.update(memberships).set({ endsAt: now }).where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, invite.acceptedBy), eq(memberships.role, 'helper')));
+          await tx.update(memberships).set({ endsAt: now, writesClosedAt: now }).where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, invite.acceptedBy), eq(memberships.role, 'helper')));
         }
       });
     },
@@ -188,7 +192,7 @@ export function createCoverService(db: NodePgDatabase, deps: Deps) {
         await tx
           .insert(memberships)
           .values({ collectionId: invite.collectionId, userId, role: 'helper', startsAt: invite.startsAt, endsAt: invite.endsAt })
-          .onConflictDoUpdate({ target: [memberships.collectionId, memberships.userId], set: { startsAt: invite.startsAt, endsAt: invite.endsAt, safetyAcknowledgedAt: null } });
+          .onConflictDoUpdate({ target: [memberships.collectionId, memberships.userId], set: { startsAt: invite.startsAt, endsAt: invite.endsAt, writesClosedAt: null, safetyAcknowledgedAt: null } });
         return { userId, collectionId: invite.collectionId };
       });
     },

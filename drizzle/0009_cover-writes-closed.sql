@@ -1,0 +1,1 @@
+ALTER TABLE "memberships" ADD COLUMN "writes_closed_at" timestamp with time zone;
