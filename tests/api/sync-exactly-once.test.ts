@@ -14,7 +14,7 @@ import type { RecordedEvent } from '../../shared/schemas/events';
 import { openRacksideDb } from '../../src/lib/db';
 import { attentionOf, recordTap, waitingTaps } from '../../src/lib/outbox';
 import { createSyncEngine, type SyncTransport } from '../../src/lib/sync';
-import { createAnimal, PASSWORD } from '../factories';
+import { createAnimal, PASSWORD, signUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
 const RUNS = 1000;
@@ -58,20 +58,11 @@ beforeAll(async () => {
   server = ctx.app.listen(0, '127.0.0.1');
   await new Promise((resolve) => server.once('listening', resolve));
   base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-  const res = await post('/api/auth/sign-up', {
-    email: `s1-${randomUUID().slice(0, 8)}@example.test`,
-    password: PASSWORD,
-    displayName: 'Robin',
-    collectionName: 'S1',
-    timeZone: 'Europe/London',
-  });
+  const keeper = await signUp(ctx);
+  const res = await post('/api/auth/sign-in', { email: keeper.email, password: PASSWORD });
   cookie = res.headers.getSetCookie()[0]!.split(';')[0]!;
-  const body = (await res.json()) as {
-    user: { id: string };
-    memberships: { collectionId: string }[];
-  };
-  userId = body.user.id;
-  collectionId = body.memberships[0]!.collectionId;
+  userId = keeper.userId;
+  collectionId = keeper.collectionId;
 });
 afterAll(async () => {
   await new Promise((resolve) => server.close(resolve));

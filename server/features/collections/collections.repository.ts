@@ -64,6 +64,20 @@ export async function listMembers(db: Db, collectionId: string) {
     .orderBy(asc(users.displayName));
 }
 
+/**
+ * The role the account with this e-mail holds in a collection, if any — one query whether or
+ * not such an account exists, so an invite takes the same time for both.
+ */
+export async function roleOfEmail(db: Db, collectionId: string, email: string) {
+  const [row] = await db
+    .select({ role: memberships.role })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.collectionId, collectionId), eq(users.email, email)))
+    .limit(1);
+  return row?.role ?? null;
+}
+
 export async function insertMembership(
   db: Db,
   values: { collectionId: string; userId: string; role: 'owner' | 'keeper' | 'helper'; startsAt?: Date | null; endsAt?: Date | null },

@@ -5,6 +5,8 @@ import { useSignOut } from '@/features/auth/api/sign-out';
 import { ChangePasswordForm } from '@/features/auth/components/change-password-form';
 import { CollectionSwitcher } from '@/features/auth/components/collection-switcher';
 import { LeaveCover } from '@/features/cover/components/leave-cover';
+import { LeaveCollection } from '@/features/members/components/leave-collection';
+import { MembersPanel } from '@/features/members/components/members-panel';
 import { DataPanel } from '@/features/settings/components/data-panel';
 import { ThemePicker } from '@/features/settings/components/theme-picker';
 import { UnitPicker } from '@/features/settings/components/unit-picker';
@@ -35,6 +37,8 @@ export function SettingsRoute() {
         </Link>
       )}
       {collection && collection.role !== 'helper' && <DataPanel collectionId={collection.collectionId} isOwner={collection.role === 'owner'} />}
+      {collection?.role === 'owner' && <MembersPanel collectionId={collection.collectionId} ownUserId={me.user.id} />}
+      {collection?.role === 'keeper' && <LeaveCollection collectionId={collection.collectionId} collectionName={collection.collectionName} onLeft={() => window.location.assign('/today')} />}
       {me.memberships.length > 0 && (
         <CollectionSwitcher memberships={me.memberships} currentId={collection?.collectionId} onChoose={chooseCollection} />
       )}

@@ -1,0 +1,20 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { meResponse, type SignUpFinishBody } from '#shared/schemas/auth';
+import { apiRequest } from '@/lib/api-client';
+import { rememberMe } from './get-me';
+import { authKeys } from './keys';
+
+/** The sign-up link's page: makes the account and its collection, and signs in. */
+export const finishSignUp = (body: SignUpFinishBody) => apiRequest('/auth/sign-up/finish', { method: 'POST', body, schema: meResponse });
+
+export function useFinishSignUp() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: finishSignUp,
+    onSuccess: async (me) => {
+      await rememberMe(me);
+      queryClient.clear();
+      queryClient.setQueryData(authKeys.me(), me);
+    },
+  });
+}
