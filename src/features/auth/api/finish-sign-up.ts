@@ -11,9 +11,12 @@ export function useFinishSignUp() {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: finishSignUp,
-    onSuccess: async (me) => {
+    onSuccess: async (me, body) => {
       await rememberMe(me);
-      queryClient.clear();
+      // Whatever an earlier person left in the cache goes; the link's own look-up stays, or
+      // its page would ask again for a link that is now used (and be told so).
+      const link = JSON.stringify(authKeys.signUpLink(body.token));
+      queryClient.removeQueries({ predicate: (q) => JSON.stringify(q.queryKey) !== link });
       queryClient.setQueryData(authKeys.me(), me);
     },
   });

@@ -5,7 +5,7 @@ import { useSyncStatus } from '@/lib/sync-driver';
 import { useLeaveCollection } from '../api/leave-collection';
 
 /** A keeper may step out of a collection they were invited to; the owner can invite them again. */
-export function LeaveCollection({ collectionId, collectionName, onLeft }: { collectionId: string; collectionName: string; onLeft: () => void }) {
+export function LeaveCollection({ collectionId, collectionName, onLeft }: { collectionId: string; collectionName: string; onLeft: () => void | Promise<void> }) {
   const [sure, setSure] = useState(false);
   const leave = useLeaveCollection(collectionId, onLeft);
   const { waiting } = useSyncStatus();
