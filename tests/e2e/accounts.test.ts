@@ -16,7 +16,7 @@ describe('accounts and members', () => {
     await page.goto(`${env.server.baseUrl}/sign-up`);
     await page.getByLabel('E-mail').fill(email);
     await page.getByRole('button', { name: 'Send me a sign-up link' }).click();
-    await expect.poll(() => page.getByText(`Check your e-mail: we have sent a message to ${email} to go on.`, { exact: false }).count()).toBe(1);
+    await expect.poll(() => page.getByText(`Check your e-mail: we have sent a message to ${email} with the next step.`, { exact: false }).count()).toBe(1);
     await expectAccessible(page, 'sign-up sent');
     await screenshot(page, 'accounts-01-sign-up-sent');
 

@@ -70,7 +70,7 @@ export function authRoutes(auth: AuthService, limits: AuthLimits, cookieName: st
   router.post('/sign-up', signInLimit, signUpEmailLimit, validate({ body: signUpBody }), (_req, res) => {
     const { email } = input<SignUpBody>(res, 'body');
     auth.startSignUp(email);
-    res.status(202).json({ message: `Check your e-mail: we have sent a message to ${email} to go on. It works for 24 hours.` });
+    res.status(202).json({ message: `Check your e-mail: we have sent a message to ${email} with the next step.` });
   });
 
   router.get('/sign-up/preview', signInLimit, validate({ query: z.object({ token: signUpToken }) }), async (_req, res) => {

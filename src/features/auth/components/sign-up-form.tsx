@@ -24,7 +24,7 @@ export function SignUpForm() {
   if (start.data) {
     return (
       <Notice tone="ok" title={start.data.message}>
-        <p>Open the link in that e-mail on this phone to choose your name, your password and your collection. Nothing there? Look in the spam folder, or try again in a few minutes.</p>
+        <p>Open it on this phone and follow its link. Nothing there after a few minutes? Look in the spam folder, or try again.</p>
       </Notice>
     );
   }
