@@ -6,20 +6,22 @@ import pino from 'pino';
 import { createApp } from '../server/app';
 import type { Database } from '../server/db/client';
 import { readEnv } from '../server/env';
+import type { Mailer } from '../server/mail/mailer';
 import { generateLabelTag } from '../shared/domain/labels/label-payload';
 
 export const distDir = path.resolve(import.meta.dirname, '..', 'dist');
 export const BENCH_PASSWORD = 'bench password 1234';
 
-export async function startBenchApp(database: Database) {
-  const env = readEnv({ NODE_ENV: 'production', DATABASE_URL: 'postgres://unused', SESSION_SECRET: 'bench-secret-that-is-long-enough-for-sessions', BCRYPT_COST: '10', SMTP_URL: 'smtp://unused.invalid', PUBLIC_URL: 'http://127.0.0.1' });
+/** The app with every rate limit out of the way; `mailer` and `bcryptCost` as a benchmark needs. */
+export async function startBenchApp(database: Database, options: { mailer?: Mailer; bcryptCost?: number } = {}) {
+  const env = readEnv({ NODE_ENV: 'production', DATABASE_URL: 'postgres://unused', SESSION_SECRET: 'bench-secret-that-is-long-enough-for-sessions', BCRYPT_COST: String(options.bcryptCost ?? 10), SMTP_URL: 'smtp://unused.invalid', PUBLIC_URL: 'http://127.0.0.1' });
   const { app, shutdown } = createApp({
     env,
     database,
-    mailer: { send: async () => undefined, close: () => undefined },
+    mailer: options.mailer ?? { send: async () => undefined, close: () => undefined },
     distDir,
     logger: pino({ level: 'silent' }),
-    authLimits: { signInPerIp: 1_000_000, resetPerIp: 1_000_000, resetPerEmail: 1_000_000 },
+    authLimits: { signInPerIp: 1_000_000, failedSignInPerAccount: 1_000_000, resetPerIp: 1_000_000, resetPerEmail: 1_000_000, signUpPerEmail: 1_000_000, invitesPerCollection: 1_000_000 },
   });
   const server = await new Promise<import('node:http').Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));

@@ -8,6 +8,7 @@ import { runP5 } from './p5-sync-flush';
 import { runP6 } from './p6-round-build';
 import { runP7 } from './p7-load';
 import { recordFigures, type Figure } from './results-file';
+import { runS6Timing } from './s6-timing';
 import { runT1 } from './t1-table';
 
 const BENCHES: Record<string, (db: ReturnType<typeof connectDatabase>) => Promise<{ figures: Figure[]; notes: string[] }>> = {
@@ -19,6 +20,7 @@ const BENCHES: Record<string, (db: ReturnType<typeof connectDatabase>) => Promis
   P6: runP6,
   P7: runP7,
   T1: runT1,
+  'S6-TIMING': runS6Timing,
 };
 
 const url = process.env.BENCH_DATABASE_URL;

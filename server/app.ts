@@ -7,6 +7,7 @@ import session from 'express-session';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 import type { Role } from '../shared/domain/roles';
+import { createBackground } from './background';
 import type { Database } from './db/client';
 import type { Env } from './env';
 import { animalsRoutes } from './features/animals/animals.routes';
@@ -175,13 +176,24 @@ export function createApp(options: AppOptions) {
   api.use(requireSameSiteWrite);
 
   const publicUrl = (p: string) => `${options.publicUrl ?? env.PUBLIC_URL ?? `http://localhost:${env.PORT}`}${p}`;
-  const auth = createAuthService({ db: database.db, mailer: options.mailer, now, bcryptCost: env.BCRYPT_COST, publicUrl });
-  const cover = createCoverService(database.db, { mailer: options.mailer, now, bcryptCost: env.BCRYPT_COST, publicUrl });
+  const background = createBackground(logger);
+  const auth = createAuthService({ db: database.db, mailer: options.mailer, now, bcryptCost: env.BCRYPT_COST, publicUrl, background });
+  const cover = createCoverService(database.db, { mailer: options.mailer, now, bcryptCost: env.BCRYPT_COST, publicUrl, background });
   const member = (min: Role, options?: { anyTime?: boolean }) => requireMember(database.db, min, now, options);
 
   api.use('/health', healthRoutes(database.pool));
   const limiter = createLimiter(database.pool);
-  api.use('/auth', authRoutes(auth, { ...DEFAULT_AUTH_LIMITS, ...options.authLimits }, SESSION_COOKIE, limiter));
+  const limits = { ...DEFAULT_AUTH_LIMITS, ...options.authLimits };
+  api.use('/auth', authRoutes(auth, limits, SESSION_COOKIE, limiter));
+  // Cover and keeper invites share one daily budget per collection; refused requests (a bad
+  // body, someone already a member) do not use it up.
+  const inviteLimit = limiter('collection-invites', {
+    windowMs: 24 * 60 * 60_000,
+    limit: limits.invitesPerCollection,
+    keyGenerator: (req) => String(req.params.collectionId),
+    skipFailedRequests: true,
+    handler: (_req, _res, next) => next(new HttpError(429, 'rate_limited', `This collection has sent ${limits.invitesPerCollection} invites today. More can go tomorrow.`)),
+  });
   if (env.DEMO_MODE) api.use('/dev', devRoutes(options.devMailbox, auth, { mountMailbox: env.NODE_ENV !== 'production' }));
   api.get('/collections', requireUser, async (req, res) => {
     res.json({ memberships: (await auth.me(req.session.userId!)).memberships });
@@ -199,10 +211,10 @@ export function createApp(options: AppOptions) {
   api.use('/collections/:collectionId/events', eventsRoutes(events, member));
   api.use('/collections/:collectionId', photosRoutes(photos, member));
   const coverReports = createCoverReportsService(database.db, { mailer: options.mailer, now, rounds, publicUrl, logger });
-  api.use('/collections/:collectionId', coverRoutes(cover, coverReports, rounds, member));
+  api.use('/collections/:collectionId', coverRoutes(cover, coverReports, rounds, member, inviteLimit));
   api.use('/collections/:collectionId', breedingRoutes(createBreedingService(database.db, now, (id, animalIds) => rounds.reconcileToday(id, animalIds)), member));
   api.use('/collections/:collectionId', labelsRoutes(createLabelsService(database.db), member));
-  api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db), member));
+  api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db, { mailer: options.mailer, now, publicUrl, background }), member, inviteLimit));
   api.use(apiNotFound);
   api.use(errorHandler);
   app.use('/api', api);
@@ -212,8 +224,10 @@ export function createApp(options: AppOptions) {
 
   return {
     app,
-    services: { rounds, events, coverReports },
+    services: { rounds, events, coverReports, background },
     async shutdown() {
+      // Mail a request started goes out before the database and the mailer close.
+      await background.drain();
       await new Promise<void>((resolve) => store.close ? (store.close(), resolve()) : resolve());
     },
   };

@@ -1,8 +1,11 @@
 import { randomInt, randomUUID } from 'node:crypto';
+import bcrypt from 'bcryptjs';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { animals } from '../server/db/schema/animals';
-import { memberships } from '../server/db/schema/collections';
+import { collections, memberships } from '../server/db/schema/collections';
+import { users } from '../server/db/schema/users';
 import { LABEL_ALPHABET } from '../shared/domain/label-codes';
+import { generateLabelTag } from '../shared/domain/labels/label-payload';
 import type { AnimalInput } from '../shared/schemas/animals';
 import type { TestContext } from './setup/test-app';
 
@@ -15,12 +18,16 @@ export interface SignedUp {
   collectionId: string;
 }
 
-/** Signs a new person up through the API (so they own a fresh collection) and keeps them signed in. */
+/**
+ * Signs a new person up through the API as a phone would — the e-mail, then the link it
+ * receives — so they own a fresh collection, and keeps them signed in.
+ */
 export async function signUp(ctx: TestContext, overrides: Partial<{ email: string; password: string; timeZone: string }> = {}): Promise<SignedUp> {
   const agent = ctx.agent();
   const email = overrides.email ?? `keeper-${randomUUID().slice(0, 8)}@example.test`;
-  const res = await agent.post('/api/auth/sign-up').send({
-    email,
+  const token = await signUpLink(ctx, email);
+  const res = await agent.post('/api/auth/sign-up/finish').send({
+    token,
     password: overrides.password ?? PASSWORD,
     displayName: 'Test Keeper',
     collectionName: 'Test Collection',
@@ -28,6 +35,30 @@ export async function signUp(ctx: TestContext, overrides: Partial<{ email: strin
   });
   if (res.status !== 201) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
   return { agent, userId: res.body.user.id, email, collectionId: res.body.memberships[0].collectionId };
+}
+
+/** Starts a sign-up for an address without an account and returns the token its e-mail carries. */
+export async function signUpLink(ctx: TestContext, email: string): Promise<string> {
+  const earlier = new Set(ctx.mailbox.messages);
+  const res = await ctx.agent().post('/api/auth/sign-up').send({ email });
+  if (res.status !== 202) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
+  const mail = await ctx.mailbox.waitFor((m) => !earlier.has(m) && m.to.includes(email.toLowerCase()) && m.subject.startsWith('Finish making'));
+  return /sign-up\/finish\?token=([\w-]+)/.exec(mail.text)![1]!;
+}
+
+/**
+ * An owner with a collection written straight to the database, for tests that drive a server
+ * in its own process (no test mailbox there): sign in with PASSWORD to get a session.
+ */
+export async function insertOwner(db: NodePgDatabase, overrides: Partial<{ email: string; timeZone: string }> = {}) {
+  const email = overrides.email ?? `owner-${randomUUID().slice(0, 8)}@example.test`;
+  const [user] = await db.insert(users).values({ email, displayName: 'Test Keeper', passwordHash: await bcrypt.hash(PASSWORD, 10) }).returning();
+  const [collection] = await db
+    .insert(collections)
+    .values({ name: 'Test Collection', timeZone: overrides.timeZone ?? 'America/Toronto', labelTag: generateLabelTag(Math.random) })
+    .returning();
+  await db.insert(memberships).values({ collectionId: collection!.id, userId: user!.id, role: 'owner' });
+  return { email, userId: user!.id, collectionId: collection!.id };
 }
 
 export async function addMember(

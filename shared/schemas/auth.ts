@@ -28,8 +28,17 @@ const existingPassword = z
   .min(1, { message: 'Enter your password.' })
   .max(1024, { message: 'That password is too long.' });
 
-export const signUpBody = z.object({
-  email,
+/**
+ * Sign-up starts with the e-mail alone: the answer is the same whether or not it has an
+ * account, and the rest is chosen from the link the e-mail carries.
+ */
+export const signUpBody = z.object({ email });
+export type SignUpBody = z.infer<typeof signUpBody>;
+
+export const signUpToken = z.string().min(20, { message: 'This sign-up link is not valid.' }).max(200, { message: 'This sign-up link is not valid.' });
+
+/** What the sign-up link's page asks for. */
+export const accountDetails = z.object({
   password: newPassword,
   displayName: z.string().trim().min(1, { message: 'Tell us what to call you.' }).max(80),
   collectionName: z
@@ -39,7 +48,11 @@ export const signUpBody = z.object({
     .max(80, { message: 'Keep the collection name under 80 characters.' }),
   timeZone,
 });
-export type SignUpBody = z.infer<typeof signUpBody>;
+export const signUpFinishBody = accountDetails.extend({ token: signUpToken });
+export type SignUpFinishBody = z.infer<typeof signUpFinishBody>;
+
+export const signUpStartedResponse = z.object({ message: z.string() });
+export const signUpPreviewResponse = z.object({ email: z.string() });
 
 export const signInBody = z.object({ email, password: existingPassword });
 export type SignInBody = z.infer<typeof signInBody>;

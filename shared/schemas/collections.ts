@@ -19,9 +19,12 @@ export const memberResponse = z.object({
   startsAt: z.string().nullable(),
   endsAt: z.string().nullable(),
 });
-export const memberListResponse = z.object({ members: z.array(memberResponse) });
-export type MemberListResponse = z.infer<typeof memberListResponse>;
 
-/** Owners add existing accounts as keepers here; helpers arrive through a cover invite. */
-export const addMemberBody = z.object({ email, role: z.enum(['keeper']) });
+export const pendingInvite = z.object({ id: z.string(), email: z.string(), sentAt: z.string(), expiresAt: z.string() });
+export const membersResponse = z.object({ members: z.array(memberResponse), invites: z.array(pendingInvite) });
+export type MembersResponse = z.infer<typeof membersResponse>;
+
+/** Owners invite keepers by e-mail here (they join by accepting); helpers through a cover invite. */
+export const addMemberBody = z.object({ email, role: z.enum(['keeper']).default('keeper') });
+export const inviteSentResponse = z.object({ message: z.string() });
 export const memberParams = z.object({ collectionId: uuid, userId: uuid });

@@ -74,11 +74,16 @@ export interface HelperCoverView {
   recent: Record<string, { kind: string; at: string; by: string | null }[]>;
 }
 
+/** An invite link's page: a cover for a helper, or an invite to keep the collection. */
 export interface InvitePreview {
+  role: 'helper' | 'keeper';
   collectionName: string;
+  /** The name of whoever sent the invite. */
+  invitedBy: string | null;
   email: string;
-  firstDay: string;
-  lastDay: string;
+  /** The cover's days; null for a keeper's invite. */
+  firstDay: string | null;
+  lastDay: string | null;
   message: string | null;
   hasAccount: boolean;
 }

@@ -8,9 +8,12 @@ import { TodayRoute } from './routes/today';
 const router = createBrowserRouter([
   { path: '/sign-in', lazy: () => import('./routes/sign-in').then((m) => ({ Component: m.SignInRoute })) },
   { path: '/sign-up', lazy: () => import('./routes/sign-up').then((m) => ({ Component: m.SignUpRoute })) },
+  { path: '/sign-up/finish', lazy: () => import('./routes/sign-up-finish').then((m) => ({ Component: m.SignUpFinishRoute })) },
   { path: '/forgot-password', lazy: () => import('./routes/forgot-password').then((m) => ({ Component: m.ForgotPasswordRoute })) },
   { path: '/reset-password', lazy: () => import('./routes/reset-password').then((m) => ({ Component: m.ResetPasswordRoute })) },
   { path: '/cover/accept', lazy: () => import('./routes/cover-accept').then((m) => ({ Component: m.CoverAcceptRoute })) },
+  // A keeper's invite: the same page, which reads the invite's kind from the server.
+  { path: '/join', lazy: () => import('./routes/cover-accept').then((m) => ({ Component: m.CoverAcceptRoute })) },
   { path: '/dev/mailbox', lazy: () => import('./routes/dev-mailbox').then((m) => ({ Component: m.DevMailboxRoute })) },
   {
     element: <Shell />,

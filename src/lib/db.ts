@@ -53,14 +53,19 @@ export interface OutboxEntry {
   event: RecordedEvent;
 }
 
-/** A tap the server refused: kept and shown until the keeper dismisses it. */
+/** A tap the server refused: kept and shown until the person sends it again or discards it. */
 export interface AttentionEntry {
   id: string;
   userId: string;
   collectionId: string;
   animalName: string;
+  /** Who tapped, for the round when the tap is sent again (absent in entries made before). */
+  byName?: string;
   event: RecordedEvent;
-  /** The server's reason code, or `collection_refused` when the whole collection was. */
+  /**
+   * The server's reason code. `collection_refused` only in entries an earlier version made when
+   * a whole batch was answered 403/404; such answers now keep the taps waiting instead.
+   */
   reason: RejectReason | 'collection_refused';
   message: string;
   refusedAt: string;
@@ -145,6 +150,23 @@ export const cachedMe = (db: RacksideDb) => db.get('meta', 'me') as Promise<MeRe
 export async function storeMe(db: RacksideDb, me: MeResponse | null): Promise<void> {
   if (me) await db.put('meta', me, 'me');
   else await db.delete('meta', 'me');
+}
+
+/** Facts about this browser, not about anyone's collection: they outlive a sign-out. */
+const DEVICE_META_KEYS = new Set(['deviceId', 'persistAsked']);
+
+/**
+ * At sign-out: forgets every collection the phone cached — rounds and their items, animal
+ * lists, the helper's cover copy and the last `me` — so the next person on this phone sees
+ * none of it offline. Waiting taps and refused ones stay: they belong to their author, are
+ * sent (or shown) at that person's next sign-in, and nobody else can read them in the app.
+ */
+export async function clearCachedCollections(db: RacksideDb): Promise<void> {
+  const tx = db.transaction(['rounds', 'roundItems', 'directory', 'meta'], 'readwrite');
+  const meta = tx.objectStore('meta');
+  const work: Promise<unknown>[] = [tx.objectStore('rounds').clear(), tx.objectStore('roundItems').clear(), tx.objectStore('directory').clear()];
+  for (const key of await meta.getAllKeys()) if (!DEVICE_META_KEYS.has(String(key))) work.push(meta.delete(key));
+  await Promise.all([...work, tx.done]);
 }
 
 /** A random id for this browser, made once, sent with every batch. */

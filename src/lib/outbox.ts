@@ -130,7 +130,6 @@ export async function settleBatch(
   sent: OutboxEntry[],
   results: EventResult[],
   now: Date,
-  reasonOverride?: AttentionEntry['reason'],
 ) {
   const byId = new Map(sent.map((e) => [e.event.id, e]));
   const tx = db.transaction(['outbox', 'attention'], 'readwrite');
@@ -152,8 +151,9 @@ export async function settleBatch(
         userId: entry.userId,
         collectionId: entry.collectionId,
         animalName: entry.animalName,
+        byName: entry.byName,
         event: entry.event,
-        reason: reasonOverride ?? r.reason ?? 'invalid',
+        reason: r.reason ?? 'invalid',
         message: r.message ?? 'The server refused this tap.',
         refusedAt: now.toISOString(),
       };
@@ -166,7 +166,30 @@ export async function settleBatch(
 
 export const attentionOf = (db: RacksideDb, userId: string) =>
   db.getAllFromIndex('attention', 'byUser', userId);
-export const dismissAttention = (db: RacksideDb, eventId: string) =>
+
+/**
+ * "Send again": the refused tap goes back to the outbox with the same event id, so the server
+ * still stores it at most once, and leaves the attention list in the same transaction.
+ * Returns false when it was no longer there (sent again or discarded on another tab).
+ */
+export async function resendAttention(db: RacksideDb, eventId: string): Promise<boolean> {
+  const tx = db.transaction(['attention', 'outbox'], 'readwrite');
+  const done = completion(tx);
+  const attention = tx.objectStore('attention');
+  const outbox = tx.objectStore('outbox');
+  const [entry, queued] = await Promise.all([attention.get(eventId), outbox.index('byEventId').getKey(eventId)]);
+  if (entry) {
+    if (queued === undefined) {
+      void outbox.add({ userId: entry.userId, collectionId: entry.collectionId, animalName: entry.animalName, byName: entry.byName ?? '', event: entry.event });
+    }
+    void attention.delete(eventId);
+  }
+  await done;
+  return !!entry;
+}
+
+/** "Discard" (after the person confirmed): the refused tap is dropped for good. */
+export const discardAttention = (db: RacksideDb, eventId: string) =>
   db.delete('attention', eventId);
 
 const itemsOf = (key: string) => IDBKeyRange.bound([key, ''], [key, '\uffff']);

@@ -1,5 +1,5 @@
 import { SYNC_BATCH_SIZE } from '#shared/domain/sync-limits';
-import type { EventBatchBody, EventResult } from '#shared/schemas/events';
+import type { EventBatchBody } from '#shared/schemas/events';
 import { readErrorBody } from './api-client';
 import { deviceIdOf, type RacksideDb } from './db';
 import { nextBatch, settleBatch } from './outbox';
@@ -20,6 +20,8 @@ export interface SyncStatus {
   progress: { sent: number; total: number } | null;
   lastSavedAt: string | null;
   failures: number;
+  /** Why taps are still waiting after the last try, in plain words; null when nothing failed. */
+  reason: string | null;
 }
 
 export interface FlushResult {
@@ -29,7 +31,7 @@ export interface FlushResult {
 }
 
 /** Nothing waiting, nothing known yet. */
-export const IDLE_STATUS: SyncStatus = { phase: 'idle', waiting: 0, attention: 0, progress: null, lastSavedAt: null, failures: 0 };
+export const IDLE_STATUS: SyncStatus = { phase: 'idle', waiting: 0, attention: 0, progress: null, lastSavedAt: null, failures: 0, reason: null };
 
 const BASE_DELAY_MS = 2_000;
 const MAX_DELAY_MS = 5 * 60_000;
@@ -52,9 +54,26 @@ interface EngineOptions {
   onStatus?: (status: SyncStatus) => void;
 }
 
+const NO_ANSWER = 'No answer from Rackside: no signal, or the server cannot be reached.';
+
 /**
- * Empties one person's outbox through the server. Only taps the server acknowledged leave the
- * outbox; refused ones move to "needs attention"; anything else stays for the next try.
+ * Why an answer without verdicts left the taps waiting. Such an answer says nothing about the
+ * taps themselves — a proxy's HTML 404 during a deploy, a CSRF 403 after a proxy rewrote the
+ * Host, a 5xx — so the words describe the trouble, never the taps.
+ */
+export function waitingReason(status: number, body: unknown): string {
+  if (status >= 500) return `Rackside’s server had a problem (error ${status}).`;
+  const said = readErrorBody(body)?.message;
+  return said
+    ? `The server did not take the taps (error ${status}): ${said}`
+    : `The server did not take the taps (error ${status}).`;
+}
+
+/**
+ * Empties one person's outbox through the server. A tap leaves the outbox only with the
+ * server's verdict on that very tap: accepted or duplicate taps are done, rejected ones move to
+ * "needs attention". Any answer without verdicts (network failure, 401, 403, 404, 5xx, an
+ * unreadable body) keeps the whole batch for the next try, however often it happens.
  */
 export function createSyncEngine({
   db,
@@ -86,17 +105,18 @@ export function createSyncEngine({
     const start = await counts(d);
     const result: FlushResult = { ok: true, acknowledged: 0, refused: 0 };
     if (!start.waiting) {
-      update({ ...start, phase: 'idle', progress: null, failures: 0 });
+      update({ ...start, phase: 'idle', progress: null, failures: 0, reason: null });
       return result;
     }
     update({ ...start, phase: 'saving', progress: { sent: 0, total: start.waiting } });
     let size = batchSize;
-    const fail = async (phase: SyncPhase) => {
+    const fail = async (phase: SyncPhase, reason: string) => {
       update({
         ...(await counts(d)),
         phase,
         progress: null,
         failures: phase === 'signed_out' ? status.failures : status.failures + 1,
+        reason,
       });
       return { ...result, ok: false };
     };
@@ -112,40 +132,23 @@ export function createSyncEngine({
           events: batch.map((e) => e.event),
         });
       } catch {
-        return fail('offline');
+        return fail('offline', NO_ANSWER);
       }
-      if (answer.status === 401) return fail('signed_out');
+      if (answer.status === 401) return fail('signed_out', 'Your sign-in has ended on this phone.');
       if (answer.status === 413 && size > 1) {
         size = Math.max(1, Math.floor(size / 2));
         continue;
       }
-      let results: EventResult[];
-      if (answer.status === 403 || answer.status === 404) {
-        // The whole collection refused this person (cover over, removed): these taps can
-        // never be saved as they are, so they are shown, not retried forever.
-        const message =
-          readErrorBody(answer.body)?.message ??
-          'This collection refused your taps.';
-        results = batch.map((e) => ({
-          id: e.event.id,
-          status: 'rejected',
-          reason: 'invalid',
-          message,
-        }));
-        const settled = await settleBatch(d, batch, results, now(), 'collection_refused');
-        result.refused += settled.refused;
-      } else {
-        // The schema loads on the first answer, not with the first screen.
-        const { eventBatchResponse } = await import('#shared/schemas/events');
-        const parsed = answer.status === 200 ? eventBatchResponse.safeParse(answer.body) : null;
-        if (!parsed?.success) return fail('failing');
-        results = parsed.data.results;
-        const settled = await settleBatch(d, batch, results, now());
-        result.acknowledged += settled.acknowledged;
-        result.refused += settled.refused;
-        // A well-formed answer that settled none of what was sent would loop forever.
-        if (!settled.acknowledged && !settled.refused) return fail('failing');
-      }
+      if (answer.status !== 200) return fail('failing', waitingReason(answer.status, answer.body));
+      // The schema loads on the first answer, not with the first screen.
+      const { eventBatchResponse } = await import('#shared/schemas/events');
+      const parsed = eventBatchResponse.safeParse(answer.body);
+      if (!parsed.success) return fail('failing', 'The server’s answer could not be read.');
+      const settled = await settleBatch(d, batch, parsed.data.results, now());
+      result.acknowledged += settled.acknowledged;
+      result.refused += settled.refused;
+      // A well-formed answer that settled none of what was sent would loop forever.
+      if (!settled.acknowledged && !settled.refused) return fail('failing', 'The server answered without a word on these taps.');
       update({
         progress: {
           sent: result.acknowledged + result.refused,
@@ -158,6 +161,7 @@ export function createSyncEngine({
       phase: 'idle',
       progress: null,
       failures: 0,
+      reason: null,
       lastSavedAt: now().toISOString(),
     });
     return result;
@@ -173,7 +177,7 @@ export function createSyncEngine({
     noteTap() {
       update({ waiting: status.waiting + 1 });
     },
-    /** Re-reads the counts after a dismissal without sending anything. */
+    /** Re-reads the counts after a change to the lists without sending anything. */
     async refresh() {
       update(await counts(await db()));
     },

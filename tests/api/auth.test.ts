@@ -1,7 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { passwordResets, users } from '../../server/db/schema/users';
-import { PASSWORD, sessionCookie, signUp } from '../factories';
+import { PASSWORD, sessionCookie, signUp, signUpLink } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
 let ctx: TestContext;
@@ -21,18 +21,23 @@ describe('sign-up, sign-in and sign-out', () => {
     expect(me.body.memberships[0]).toMatchObject({ role: 'owner', collectionName: 'Test Collection', timeZone: 'America/Toronto' });
   });
 
-  it('refuses a second account with the same e-mail, in any letter case', async () => {
+  it('makes no second account for a known e-mail, in any letter case: its owner is told instead', async () => {
     const { email } = await signUp(ctx);
-    const res = await ctx.agent().post('/api/auth/sign-up').send({
-      email: email.toUpperCase(), password: PASSWORD, displayName: 'X', collectionName: 'Y', timeZone: 'America/Toronto',
-    });
-    expect(res.status).toBe(409);
-    expect(res.body.error.message).toMatch(/already exists/);
+    const earlier = new Set(ctx.mailbox.messages);
+    const res = await ctx.agent().post('/api/auth/sign-up').send({ email: email.toUpperCase() });
+    expect(res.status).toBe(202);
+    const mail = await ctx.mailbox.waitFor((m) => !earlier.has(m) && m.to.includes(email));
+    expect(mail.subject).toBe('You already have a Rackside account');
+    expect(mail.text).toContain('http://rackside.test/sign-in');
+    expect(mail.text).toContain('http://rackside.test/forgot-password');
+    expect(mail.text).not.toMatch(/token=/);
+    expect(await ctx.database.db.select().from(users).where(eq(users.email, email))).toHaveLength(1);
   });
 
   it('refuses an unknown time zone with a readable message', async () => {
-    const res = await ctx.agent().post('/api/auth/sign-up').send({
-      email: 'tz@example.test', password: PASSWORD, displayName: 'X', collectionName: 'Y', timeZone: 'Mars/Olympus',
+    const token = await signUpLink(ctx, `tz-${Date.now()}@example.test`);
+    const res = await ctx.agent().post('/api/auth/sign-up/finish').send({
+      token, password: PASSWORD, displayName: 'X', collectionName: 'Y', timeZone: 'Mars/Olympus',
     });
     expect(res.status).toBe(422);
     expect(res.body.error.issues).toContainEqual({ path: 'body.timeZone', message: 'Choose a time zone such as America/Toronto.' });
@@ -98,8 +103,9 @@ describe('passwords', () => {
     expect(Buffer.byteLength(seventyTwo, 'utf8')).toBe(72);
     const ok = await signUp(ctx, { password: seventyTwo });
     await ctx.agent().post('/api/auth/sign-in').send({ email: ok.email, password: seventyTwo }).expect(200);
-    const refused = await ctx.agent().post('/api/auth/sign-up').send({
-      email: 'long@example.test', password: seventyThree, displayName: 'X', collectionName: 'Y', timeZone: 'America/Toronto',
+    const token = await signUpLink(ctx, `long-${Date.now()}@example.test`);
+    const refused = await ctx.agent().post('/api/auth/sign-up/finish').send({
+      token, password: seventyThree, displayName: 'X', collectionName: 'Y', timeZone: 'America/Toronto',
     });
     expect(refused.status).toBe(422);
     expect(refused.body.error.message).toMatch(/at most 72 bytes/);
@@ -119,8 +125,9 @@ describe('passwords', () => {
 
 describe('password reset by e-mail', () => {
   async function requestLink(email: string): Promise<string> {
+    const earlier = new Set(ctx.mailbox.messages);
     await ctx.agent().post('/api/auth/reset-request').send({ email }).expect(202);
-    const mail = await ctx.mailbox.waitFor((m) => m.to.includes(email) && m.subject.includes('Reset'));
+    const mail = await ctx.mailbox.waitFor((m) => !earlier.has(m) && m.to.includes(email) && m.subject.includes('Reset'));
     const link = /https?:\/\/\S+reset-password\?token=([\w-]+)/.exec(mail.text);
     expect(link).not.toBeNull();
     return link![1]!;
@@ -155,6 +162,26 @@ describe('password reset by e-mail', () => {
     } finally {
       ctx.setNow(null);
     }
+  });
+
+  it('refuses a link asked for before a password change, once the password has changed', async () => {
+    const { agent, email } = await signUp(ctx);
+    const token = await requestLink(email);
+    await agent.post('/api/auth/password').send({ currentPassword: PASSWORD, newPassword: 'changed after asking' }).expect(204);
+    const res = await ctx.agent().post('/api/auth/reset').send({ token, password: 'the attacker picks' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.message).toMatch(/expired or was already used/);
+    await ctx.agent().post('/api/auth/sign-in').send({ email, password: 'changed after asking' }).expect(200);
+  });
+
+  it('refuses every other outstanding link once one reset the password', async () => {
+    const { email } = await signUp(ctx);
+    const first = await requestLink(email);
+    const second = await requestLink(email);
+    expect(second).not.toBe(first);
+    await ctx.agent().post('/api/auth/reset').send({ token: second, password: 'reset with the second' }).expect(204);
+    expect((await ctx.agent().post('/api/auth/reset').send({ token: first, password: 'reset with the first' })).status).toBe(400);
+    await ctx.agent().post('/api/auth/sign-in').send({ email, password: 'reset with the second' }).expect(200);
   });
 
   it('answers the same for an unknown e-mail, and sends nothing', async () => {

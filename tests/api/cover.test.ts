@@ -103,6 +103,39 @@ describe('a cover from invite to access', () => {
   });
 });
 
+describe('ending a cover early', () => {
+  it('ends the helper’s write access at once: taps still on their phone are refused, not kept for a grace', async () => {
+    ctx.setNow(new Date('2026-12-02T15:00:00Z'));
+    const email = `early-${randomUUID().slice(0, 6)}@example.test`;
+    const { token } = await invite(email, '2026-12-02', '2026-12-09');
+    const helper = ctx.agent();
+    await helper.post('/api/cover-invites/accept').send({ token, account: { displayName: 'Early', password: PASSWORD } }).expect(200);
+    const tapAt = (iso: string) => ({ id: randomUUID(), animalId, kind: 'watered', payload: {}, clientRecordedAt: iso });
+    const sync = (events: unknown[], sentAt: string) => helper.post(`${base()}/events`).send({ deviceId: 'early', clientSentAt: sentAt, events }).expect(200);
+
+    ctx.setNow(new Date('2026-12-04T15:00:00Z'));
+    const before = tapAt('2026-12-04T14:00:00.000Z');
+    expect((await sync([before], '2026-12-04T15:00:00.000Z')).body.results[0].status).toBe('accepted');
+    const cover = (await owner.agent.get(`${base()}/covers`).expect(200)).body.covers.find((c: { email: string }) => c.email === email);
+    await owner.agent.post(`${base()}/covers/${cover.id}/end`).expect(200);
+
+    // A minute later the phone delivers a tap made before the end: no grace after an early end.
+    ctx.setNow(new Date('2026-12-04T15:01:00Z'));
+    const offline = tapAt('2026-12-04T14:30:00.000Z');
+    const res = await sync([offline, before], '2026-12-04T15:01:00.000Z');
+    expect(res.body.results[0]).toMatchObject({ status: 'rejected', reason: 'outside_cover' });
+    expect(res.body.results[0].message).toBe('Your cover for Test Collection was ended on Fri 4 Dec 2026; taps that had not reached Rackside by then cannot be saved. Tell the keeper what you did.');
+    // What was saved before the end stays saved: the phone hears "duplicate", never a refusal.
+    expect(res.body.results[1]).toEqual({ id: before.id, status: 'duplicate' });
+    expect((await helper.get(`${base()}/rounds/today`)).status).toBe(403);
+
+    // New days from the owner are a new grant: writes open again inside them.
+    await owner.agent.put(`${base()}/covers/${cover.id}`).send({ firstDay: '2026-12-04', lastDay: '2026-12-09', message: '' }).expect(200);
+    const reopened = tapAt('2026-12-04T15:00:30.000Z');
+    expect((await sync([reopened], '2026-12-04T15:01:00.000Z')).body.results[0].status).toBe('accepted');
+  });
+});
+
 // What a helper may call before, during and after the window: tests/api/authorisation-matrix.test.ts.
 
 describe('handover notes and the helper’s view', () => {

@@ -225,4 +225,43 @@ describe('a helper syncing', () => {
     // and the history is for keepers only.
     await helper.agent.get(url()).query({ animalId }).expect(403);
   });
+
+  // The grace is HELPER_SYNC_GRACE_HOURS (48 h) after the cover's end, by the server's clock.
+  it('inside the grace, taps made during the cover are stored; from 48 h after the end they are not', async () => {
+    const made = new Date('2026-11-26T18:00:00Z');
+    const lastSecond = new Date(coverEnd.getTime() + 48 * 3_600_000 - 1_000);
+    ctx.setNow(lastSecond);
+    const justInTime = tap('watered', made);
+    const ok = await helper.agent.post(url()).send(batch([justInTime], lastSecond)).expect(200);
+    expect(ok.body.results).toEqual([{ id: justInTime.id, status: 'accepted' }]);
+
+    const graceOver = new Date(coverEnd.getTime() + 48 * 3_600_000);
+    ctx.setNow(graceOver);
+    const late = tap('watered', made);
+    const refused = await helper.agent.post(url()).send(batch([late], graceOver)).expect(200);
+    expect(refused.body.results[0]).toMatchObject({ id: late.id, status: 'rejected', reason: 'outside_cover' });
+    expect(refused.body.results[0].message).toBe(
+      'This reached Rackside more than 48 hours after your cover for Test Collection ended on Fri 27 Nov 2026, so it cannot be saved. Tell the keeper what you did.',
+    );
+    expect(await storedIds([justInTime.id, late.id])).toEqual([justInTime.id]);
+    // A tap stored inside the grace is still a duplicate when the phone sends it again later.
+    const again = await helper.agent.post(url()).send(batch([justInTime], graceOver)).expect(200);
+    expect(again.body.results).toEqual([{ id: justInTime.id, status: 'duplicate' }]);
+  });
+
+  it('an ex-helper’s backdated taps are refused weeks later, however the phone’s clocks are set', async () => {
+    ctx.setNow(new Date('2026-12-20T09:00:00Z'));
+    const insideCover = new Date('2026-11-26T18:00:00Z');
+    // The tap dated inside the cover, sent with the true time: its corrected time is in the cover.
+    const backdated = tap('ate', insideCover);
+    // Both clocks set back, as if the phone still thought it was November.
+    const wholeClock = tap('ate', insideCover);
+    const first = await helper.agent.post(url()).send(batch([backdated], new Date('2026-12-20T09:00:00Z'))).expect(200);
+    const second = await helper.agent.post(url()).send(batch([wholeClock], new Date('2026-11-26T18:05:00Z'))).expect(200);
+    for (const res of [first, second]) {
+      expect(res.body.results[0]).toMatchObject({ status: 'rejected', reason: 'outside_cover' });
+      expect(res.body.results[0].message).toMatch(/more than 48 hours after your cover/);
+    }
+    expect(await storedIds([backdated.id, wholeClock.id])).toEqual([]);
+  });
 });

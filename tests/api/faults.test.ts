@@ -6,7 +6,7 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, describe, expect, it } from 'vitest';
 import { connectDatabase } from '../../server/db/client';
 import { migrateDatabase } from '../../server/db/migrate';
-import { createAnimal } from '../factories';
+import { createAnimal, insertOwner, PASSWORD } from '../factories';
 import { testDatabaseUrl } from '../setup/database-urls';
 import { createTestDatabase, dropTestDatabase } from '../setup/test-app';
 import { startServerProcess, type ServerProcess } from '../support/server-process';
@@ -26,18 +26,14 @@ interface Keeper {
 const headers = (cookie?: string) => ({ 'Content-Type': 'application/json', 'X-Rackside-Client': '1', ...(cookie ? { Cookie: cookie } : {}) });
 
 async function keeperWithAnimals(server: ServerProcess, databaseUrl: string, count: number): Promise<Keeper> {
-  const res = await fetch(`${server.url}/api/auth/sign-up`, {
-    method: 'POST',
-    headers: headers(),
-    body: JSON.stringify({ email: `fault-${randomUUID().slice(0, 8)}@example.test`, password: 'correct horse battery', displayName: 'Fault', collectionName: 'Faults', timeZone: 'America/Toronto' }),
-  });
-  expect(res.status).toBe(201);
-  const body = (await res.json()) as { memberships: { collectionId: string }[] };
   const database = connectDatabase(databaseUrl, 1);
+  const owner = await insertOwner(database.db);
   const animalIds: string[] = [];
-  for (let i = 0; i < count; i++) animalIds.push((await createAnimal(database.db, body.memberships[0]!.collectionId, { name: `Fault ${i}` })).id);
+  for (let i = 0; i < count; i++) animalIds.push((await createAnimal(database.db, owner.collectionId, { name: `Fault ${i}` })).id);
   await database.close();
-  return { cookie: res.headers.get('set-cookie')!.split(';')[0]!, collectionId: body.memberships[0]!.collectionId, animalIds };
+  const res = await fetch(`${server.url}/api/auth/sign-in`, { method: 'POST', headers: headers(), body: JSON.stringify({ email: owner.email, password: PASSWORD }) });
+  expect(res.status).toBe(200);
+  return { cookie: res.headers.get('set-cookie')!.split(';')[0]!, collectionId: owner.collectionId, animalIds };
 }
 
 interface Burst {

@@ -80,9 +80,13 @@ describe('membership check on /api/collections/:id', () => {
     expect((await keeper.agent.get(`/api/collections/${owner.collectionId}/members`)).status).toBe(403);
     expect((await keeper.agent.delete(`/api/collections/${owner.collectionId}/members/${helper.userId}`)).status).toBe(403);
 
-    const added = await owner.agent.post(`/api/collections/${owner.collectionId}/members`).send({ email: newcomer.email, role: 'keeper' });
-    expect(added.status).toBe(201);
-    expect(added.body.members.map((m: { email: string }) => m.email)).toContain(newcomer.email);
+    // An invite, not an addition: nothing changes for the newcomer until they accept it.
+    const invited = await owner.agent.post(`/api/collections/${owner.collectionId}/members`).send({ email: newcomer.email, role: 'keeper' });
+    expect(invited.status).toBe(202);
+    expect((await newcomer.agent.get(`/api/collections/${owner.collectionId}`)).status).toBe(404);
+    const mail = await ctx.mailbox.waitFor((m) => m.to.includes(newcomer.email) && m.subject.includes('invites you to keep'));
+    const token = /join\?token=([\w-]+)/.exec(mail.text)![1]!;
+    await newcomer.agent.post('/api/cover-invites/accept').send({ token }).expect(200);
     await newcomer.agent.get(`/api/collections/${owner.collectionId}/animals`).expect(200);
     await owner.agent.delete(`/api/collections/${owner.collectionId}/members/${newcomer.userId}`).expect(204);
     expect((await newcomer.agent.get(`/api/collections/${owner.collectionId}`)).status).toBe(404);

@@ -4,7 +4,7 @@ import { randomUUID } from 'node:crypto';
 import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SESSION_ABSOLUTE_MS, SESSION_TOUCH_EVERY_MS } from '../../server/app';
-import { PASSWORD, sessionCookie, signUp } from '../factories';
+import { PASSWORD, sessionCookie, signUp, signUpLink } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
 let ctx: TestContext;
@@ -27,7 +27,8 @@ describe('session ids and expiry', () => {
   it('makes session ids of at least 128 random bits (ASVS 3.2.2, 3.2.4)', async () => {
     const sids = new Set<string>();
     for (let i = 0; i < 5; i++) {
-      const res = await ctx.agent().post('/api/auth/sign-up').send({ email: `sid-${randomUUID().slice(0, 8)}@example.test`, password: PASSWORD, displayName: 'S', collectionName: 'S', timeZone: 'UTC' });
+      const token = await signUpLink(ctx, `sid-${randomUUID().slice(0, 8)}@example.test`);
+      const res = await ctx.agent().post('/api/auth/sign-up/finish').send({ token, password: PASSWORD, displayName: 'S', collectionName: 'S', timeZone: 'UTC' });
       const sid = sidOf(sessionCookie(res)!);
       // express-session draws 24 bytes from the CSPRNG (uid-safe): 32 base64url characters.
       expect(sid).toMatch(/^[A-Za-z0-9_-]{32}$/);
@@ -79,7 +80,8 @@ describe('session ids and expiry', () => {
 
 describe('passwords and resets', () => {
   it('asks for at least 12 characters (ASVS 2.1.1)', async () => {
-    const res = await ctx.agent().post('/api/auth/sign-up').send({ email: `short-${randomUUID().slice(0, 8)}@example.test`, password: 'eleven char', displayName: 'S', collectionName: 'S', timeZone: 'UTC' });
+    const token = await signUpLink(ctx, `short-${randomUUID().slice(0, 8)}@example.test`);
+    const res = await ctx.agent().post('/api/auth/sign-up/finish').send({ token, password: 'eleven char', displayName: 'S', collectionName: 'S', timeZone: 'UTC' });
     expect(res.status).toBe(422);
     expect(res.body.error.message).toBe('Password: Use at least 12 characters.');
   });

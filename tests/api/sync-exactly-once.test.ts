@@ -1,6 +1,8 @@
 // S1 (../shared/budgets.md): the real client outbox and sync engine (on fake-indexeddb) against
-// the real server and PostgreSQL, with faults injected between them. Whatever happens on the
-// wire, the database must end with exactly the events tapped: none lost, none doubled.
+// the real server and PostgreSQL, with faults injected between them — a CSRF 403 after a proxy
+// changed the Host and a proxy's HTML 404 among them. Whatever happens on the wire, the
+// database must end with exactly the events tapped (none lost, none doubled) and no tap is
+// left in needs-attention, since no event was ever refused.
 import 'fake-indexeddb/auto';
 import { randomUUID } from 'node:crypto';
 import type { AddressInfo } from 'node:net';
@@ -12,7 +14,7 @@ import type { RecordedEvent } from '../../shared/schemas/events';
 import { openRacksideDb } from '../../src/lib/db';
 import { attentionOf, recordTap, waitingTaps } from '../../src/lib/outbox';
 import { createSyncEngine, type SyncTransport } from '../../src/lib/sync';
-import { createAnimal, PASSWORD } from '../factories';
+import { createAnimal, PASSWORD, signUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
 const RUNS = 1000;
@@ -24,6 +26,9 @@ const FAULTS = [
   'timeout',
   'duplicate',
   'reorder',
+  'csrf_403',
+  'proxy_404',
+  'proxy_404_after_commit',
 ] as const;
 type Fault = (typeof FAULTS)[number];
 
@@ -34,13 +39,14 @@ let cookie: string;
 let userId: string;
 let collectionId: string;
 
-async function post(path: string, body: unknown) {
+async function post(path: string, body: unknown, extraHeaders: Record<string, string> = {}) {
   const res = await fetch(`${base}${path}`, {
     method: 'POST',
     headers: {
       'Content-Type': 'application/json',
       'X-Rackside-Client': '1',
       ...(cookie ? { Cookie: cookie } : {}),
+      ...extraHeaders,
     },
     body: JSON.stringify(body),
   });
@@ -52,20 +58,11 @@ beforeAll(async () => {
   server = ctx.app.listen(0, '127.0.0.1');
   await new Promise((resolve) => server.once('listening', resolve));
   base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
-  const res = await post('/api/auth/sign-up', {
-    email: `s1-${randomUUID().slice(0, 8)}@example.test`,
-    password: PASSWORD,
-    displayName: 'Robin',
-    collectionName: 'S1',
-    timeZone: 'Europe/London',
-  });
+  const keeper = await signUp(ctx);
+  const res = await post('/api/auth/sign-in', { email: keeper.email, password: PASSWORD });
   cookie = res.headers.getSetCookie()[0]!.split(';')[0]!;
-  const body = (await res.json()) as {
-    user: { id: string };
-    memberships: { collectionId: string }[];
-  };
-  userId = body.user.id;
-  collectionId = body.memberships[0]!.collectionId;
+  userId = keeper.userId;
+  collectionId = keeper.collectionId;
 });
 afterAll(async () => {
   await new Promise((resolve) => server.close(resolve));
@@ -101,6 +98,18 @@ function faultyTransport(faults: Fault[], background: Promise<unknown>[]): SyncT
       case 'duplicate':
         await deliver(collection, body);
         return deliver(collection, body);
+      case 'csrf_403': {
+        // A proxy that rewrote the Host: the page's Origin no longer matches and the real
+        // CSRF check answers 403 with no verdicts.
+        const res = await post(`/api/collections/${collection}/events`, body, { Origin: 'https://rackside.example' });
+        expect(res.status).toBe(403);
+        return { status: res.status, body: await res.json().catch(() => null) };
+      }
+      case 'proxy_404_after_commit':
+        await deliver(collection, body);
+        return { status: 404, body: null }; // the proxy's HTML page, unreadable as JSON
+      case 'proxy_404':
+        return { status: 404, body: null };
       case 'reorder':
         // This copy arrives late, after requests sent after it; the phone saw no answer.
         background.push(

@@ -67,7 +67,7 @@ export async function createTestContext(options: Partial<Pick<AppOptions, 'authL
     devMailbox: smtp.mailbox,
     now: () => fixed ?? new Date(),
     publicUrl: options.publicUrl ?? 'http://rackside.test',
-    authLimits: { signInPerIp: 10_000, resetPerIp: 10_000, resetPerEmail: 10_000, ...options.authLimits },
+    authLimits: { signInPerIp: 10_000, resetPerIp: 10_000, resetPerEmail: 10_000, signUpPerEmail: 10_000, invitesPerCollection: 10_000, ...options.authLimits },
     distDir: options.distDir ?? '/nonexistent',
     logger: options.logger,
   });

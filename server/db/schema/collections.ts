@@ -46,6 +46,9 @@ export const memberships = pgTable(
     // A helper's cover window; null for owners and keepers.
     startsAt: timestamp('starts_at', { withTimezone: true }),
     endsAt: timestamp('ends_at', { withTimezone: true }),
+    // Set when the owner ends a cover early: from this instant nothing the helper sends is
+    // stored, not even taps made before it (no grace, unlike a cover that runs its course).
+    writesClosedAt: timestamp('writes_closed_at', { withTimezone: true }),
     // A helper reads the safety page once per cover before their first round.
     safetyAcknowledgedAt: timestamp('safety_acknowledged_at', { withTimezone: true }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),

@@ -25,6 +25,24 @@ export const passwordResets = pgTable(
   (t) => [index('password_resets_user_idx').on(t.userId)],
 );
 
+/**
+ * A sign-up link: proof that whoever finishes the account reads this mailbox. Made only for
+ * an address without an account; the account's name, password and collection are chosen when
+ * the link is opened, so nobody can pre-set the password of someone else's address.
+ */
+export const signUpTokens = pgTable(
+  'sign_up_tokens',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    email: text('email').notNull(),
+    // SHA-256 of the token, as for password resets.
+    tokenHash: text('token_hash').notNull().unique(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+);
+
 /** The table connect-pg-simple reads and writes; its shape is that package's. */
 export const sessions = pgTable(
   'sessions',

@@ -1,6 +1,6 @@
 import { and, eq, gt, isNull, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
-import { passwordResets, sessions, users } from '../../db/schema/users';
+import { passwordResets, sessions, signUpTokens, users } from '../../db/schema/users';
 
 export async function findUserByEmail(db: Db, email: string) {
   const [row] = await db.select().from(users).where(eq(users.email, email)).limit(1);
@@ -33,6 +33,35 @@ export async function consumePasswordReset(db: Db, tokenHash: string, now: Date)
     .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, now)))
     .returning({ userId: passwordResets.userId });
   return row?.userId ?? null;
+}
+
+export async function insertSignUpToken(db: Db, values: { email: string; tokenHash: string; expiresAt: Date }) {
+  await db.insert(signUpTokens).values(values);
+}
+
+/** The address a live sign-up link was sent to, without using it up. */
+export async function findSignUpToken(db: Db, tokenHash: string, now: Date) {
+  const [row] = await db
+    .select({ email: signUpTokens.email })
+    .from(signUpTokens)
+    .where(and(eq(signUpTokens.tokenHash, tokenHash), isNull(signUpTokens.usedAt), gt(signUpTokens.expiresAt, now)))
+    .limit(1);
+  return row?.email ?? null;
+}
+
+/** Marks a live sign-up link used and returns its address — atomically, so it works once. */
+export async function consumeSignUpToken(db: Db, tokenHash: string, now: Date) {
+  const [row] = await db
+    .update(signUpTokens)
+    .set({ usedAt: now })
+    .where(and(eq(signUpTokens.tokenHash, tokenHash), isNull(signUpTokens.usedAt), gt(signUpTokens.expiresAt, now)))
+    .returning({ email: signUpTokens.email });
+  return row?.email ?? null;
+}
+
+/** Every outstanding reset link of a user stops working (after a password change or reset). */
+export async function revokePasswordResets(db: Db, userId: string, now: Date) {
+  await db.update(passwordResets).set({ usedAt: now }).where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
 }
 
 /** Signs a user out everywhere (after a password reset or change), except one session. */

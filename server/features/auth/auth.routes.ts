@@ -1,12 +1,16 @@
 import { Router, type Request } from 'express';
+import { z } from 'zod';
 import {
   changePasswordBody,
   resetBody,
   resetRequestBody,
   signInBody,
   signUpBody,
+  signUpFinishBody,
+  signUpToken,
   type SignInBody,
   type SignUpBody,
+  type SignUpFinishBody,
 } from '../../../shared/schemas/auth';
 import { currentUserId, requireUser } from '../../middleware/auth';
 import type { Limiter } from '../../middleware/rate-limit';
@@ -22,6 +26,10 @@ export interface AuthLimits {
   /** Password-reset requests per IP per 15 minutes and per e-mail per hour. */
   resetPerIp: number;
   resetPerEmail: number;
+  /** Sign-up e-mails per address per hour: nobody's mailbox is flooded from our sign-up page. */
+  signUpPerEmail: number;
+  /** Invites (cover and keeper) a collection may send per day: each mails the owner's words to any address. */
+  invitesPerCollection: number;
 }
 
 export const DEFAULT_AUTH_LIMITS: AuthLimits = {
@@ -29,6 +37,8 @@ export const DEFAULT_AUTH_LIMITS: AuthLimits = {
   failedSignInPerAccount: 20,
   resetPerIp: 10,
   resetPerEmail: 3,
+  signUpPerEmail: 3,
+  invitesPerCollection: 20,
 };
 
 
@@ -54,9 +64,21 @@ export function authRoutes(auth: AuthService, limits: AuthLimits, cookieName: st
   });
   const resetIpLimit = limiter('reset-ip', { windowMs: 15 * 60_000, limit: limits.resetPerIp });
   const resetEmailLimit = limiter('reset-email', { windowMs: 60 * 60_000, limit: limits.resetPerEmail, keyGenerator: byEmail });
+  const signUpEmailLimit = limiter('sign-up-email', { windowMs: 60 * 60_000, limit: limits.signUpPerEmail, keyGenerator: byEmail });
 
-  router.post('/sign-up', signInLimit, validate({ body: signUpBody }), async (req, res) => {
-    const user = await auth.signUp(input<SignUpBody>(res, 'body'));
+  // The same answer for an address with or without an account (decision 012): the e-mail says which.
+  router.post('/sign-up', signInLimit, signUpEmailLimit, validate({ body: signUpBody }), (_req, res) => {
+    const { email } = input<SignUpBody>(res, 'body');
+    auth.startSignUp(email);
+    res.status(202).json({ message: `Check your e-mail: we have sent a message to ${email} with the next step.` });
+  });
+
+  router.get('/sign-up/preview', signInLimit, validate({ query: z.object({ token: signUpToken }) }), async (_req, res) => {
+    res.json(await auth.previewSignUp(input<{ token: string }>(res, 'query').token));
+  });
+
+  router.post('/sign-up/finish', signInLimit, validate({ body: signUpFinishBody }), async (req, res) => {
+    const user = await auth.finishSignUp(input<SignUpFinishBody>(res, 'body'));
     await startSession(req, user.id);
     res.status(201).json(await auth.me(user.id));
   });
@@ -84,8 +106,8 @@ export function authRoutes(auth: AuthService, limits: AuthLimits, cookieName: st
     res.status(204).end();
   });
 
-  router.post('/reset-request', resetIpLimit, resetEmailLimit, validate({ body: resetRequestBody }), async (req, res) => {
-    await auth.requestReset(input<{ email: string }>(res, 'body').email);
+  router.post('/reset-request', resetIpLimit, resetEmailLimit, validate({ body: resetRequestBody }), (_req, res) => {
+    auth.requestReset(input<{ email: string }>(res, 'body').email);
     res.status(202).json({ message: 'If an account uses that e-mail, a reset link is on its way. It works for one hour.' });
   });
 

@@ -24,6 +24,7 @@ export async function findMembership(db: Db, collectionId: string, userId: strin
   const rows = await db
     .select({
       ...membershipFields,
+      writesClosedAt: memberships.writesClosedAt,
       revision: {
         records: sql<number>`coalesce(${collectionRevisions.records}, 0)`.mapWith(Number),
         events: sql<number>`coalesce(${collectionRevisions.events}, 0)`.mapWith(Number),
@@ -61,6 +62,20 @@ export async function listMembers(db: Db, collectionId: string) {
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(eq(memberships.collectionId, collectionId))
     .orderBy(asc(users.displayName));
+}
+
+/**
+ * The role the account with this e-mail holds in a collection, if any — one query whether or
+ * not such an account exists, so an invite takes the same time for both.
+ */
+export async function roleOfEmail(db: Db, collectionId: string, email: string) {
+  const [row] = await db
+    .select({ role: memberships.role })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.collectionId, collectionId), eq(users.email, email)))
+    .limit(1);
+  return row?.role ?? null;
 }
 
 export async function insertMembership(

@@ -6,7 +6,8 @@ import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';
 import type { CollectionsService } from './collections.service';
 
-export function collectionsRoutes(service: CollectionsService, member: (min: Role) => RequestHandler) {
+/** `inviteLimit` counts invites per collection; it runs after the membership and body checks. */
+export function collectionsRoutes(service: CollectionsService, member: (min: Role) => RequestHandler, inviteLimit: RequestHandler) {
   const router = Router({ mergeParams: true });
 
   router.get('/', member('helper'), (_req, res) => {
@@ -15,12 +16,19 @@ export function collectionsRoutes(service: CollectionsService, member: (min: Rol
   });
 
   router.get('/members', member('owner'), async (_req, res) => {
-    res.json({ members: await service.members(membershipOf(res).collectionId) });
+    res.json(await service.members(membershipOf(res).collectionId));
   });
 
-  router.post('/members', member('owner'), validate({ body: addMemberBody }), async (_req, res) => {
-    await service.addKeeper(membershipOf(res).collectionId, input<{ email: string }>(res, 'body').email);
-    res.status(201).json({ members: await service.members(membershipOf(res).collectionId) });
+  // An invite, never an addition: the person joins by accepting it (decision 012).
+  router.post('/members', member('owner'), validate({ body: addMemberBody }), inviteLimit, async (req, res) => {
+    res.status(202).json(await service.inviteKeeper(membershipOf(res).collectionId, currentUserId(req), input<{ email: string }>(res, 'body').email));
+  });
+
+  // A keeper may leave; helpers leave their cover at /cover/mine.
+  router.delete('/membership', member('keeper'), async (req, res) => {
+    const m = membershipOf(res);
+    await service.leave(m.collectionId, currentUserId(req), m.role);
+    res.status(204).end();
   });
 
   router.delete('/members/:userId', member('owner'), validate({ params: memberParams }), async (req, res) => {

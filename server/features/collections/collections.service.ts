@@ -1,25 +1,68 @@
+import { and, asc, eq, gt, isNull } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import type { Background } from '../../background';
+import { collections, invites } from '../../db/schema/collections';
+import { users } from '../../db/schema/users';
+import type { Mailer } from '../../mail/mailer';
 import { HttpError } from '../../middleware/errors';
-import { findUserByEmail } from '../auth/auth.repository';
-import { deleteMembership, findMembership, insertMembership, listMembers } from './collections.repository';
+import { INVITE_LIFETIME_MS, newInviteToken } from '../cover/invite-token';
+import { deleteMembership, listMembers, roleOfEmail } from './collections.repository';
 
-export function createCollectionsService(db: NodePgDatabase) {
+interface Deps {
+  mailer: Mailer;
+  now: () => Date;
+  publicUrl: (path: string) => string;
+  background: Background;
+}
+
+export function createCollectionsService(db: NodePgDatabase, deps: Deps) {
   return {
+    /** The members, and the keeper invites still waiting for an answer. */
     async members(collectionId: string) {
       const rows = await listMembers(db, collectionId);
-      return rows.map((m) => ({ ...m, startsAt: m.startsAt?.toISOString() ?? null, endsAt: m.endsAt?.toISOString() ?? null }));
+      const waiting = await db
+        .select({ id: invites.id, email: invites.email, sentAt: invites.createdAt, expiresAt: invites.expiresAt })
+        .from(invites)
+        .where(and(eq(invites.collectionId, collectionId), eq(invites.role, 'keeper'), isNull(invites.acceptedAt), gt(invites.expiresAt, deps.now())))
+        .orderBy(asc(invites.createdAt));
+      return {
+        members: rows.map((m) => ({ ...m, startsAt: m.startsAt?.toISOString() ?? null, endsAt: m.endsAt?.toISOString() ?? null })),
+        invites: waiting.map((i) => ({ id: i.id, email: i.email, sentAt: i.sentAt.toISOString(), expiresAt: i.expiresAt.toISOString() })),
+      };
     },
 
-    /** Adds an existing account as a keeper; helpers join through a cover invite instead. */
-    async addKeeper(collectionId: string, email: string) {
-      const user = await findUserByEmail(db, email);
-      if (!user) {
-        throw new HttpError(404, 'no_account', 'Nobody has a Rackside account with that e-mail yet. Ask them to sign up first.');
-      }
-      if (await findMembership(db, collectionId, user.id)) {
-        throw new HttpError(409, 'already_member', 'That person is already a member of this collection.');
-      }
-      await insertMembership(db, { collectionId, userId: user.id, role: 'keeper' });
+    /**
+     * Invites someone to keep the collection: they join only by accepting the e-mailed link,
+     * never by being added. The same work and answer whether or not the address has an
+     * account (docs/decisions/012-same-answer-for-every-email.md); the e-mail goes after the answer.
+     */
+    async inviteKeeper(collectionId: string, invitedBy: string, email: string) {
+      const role = await roleOfEmail(db, collectionId, email);
+      // The owner can see the member list anyway: this tells them nothing new.
+      if (role === 'keeper' || role === 'owner') throw new HttpError(409, 'already_member', 'That person is already a member of this collection.');
+      const { token, tokenHash } = newInviteToken();
+      await db.insert(invites).values({ collectionId, email, role: 'keeper', tokenHash, expiresAt: new Date(deps.now().getTime() + INVITE_LIFETIME_MS), invitedBy });
+      deps.background.run('keeper invite mail', async () => {
+        const [c] = await db.select({ name: collections.name }).from(collections).where(eq(collections.id, collectionId));
+        const [inviter] = await db.select({ name: users.displayName }).from(users).where(eq(users.id, invitedBy));
+        const from = inviter?.name ?? 'A keeper';
+        await deps.mailer.send({
+          to: email,
+          subject: `${from} invites you to keep ${c?.name ?? 'a collection'} on Rackside`,
+          text: [
+            'Hello,',
+            '',
+            `${from} invites you to keep the collection ${c?.name ?? ''} with them on Rackside: its feeding rounds, its animals' records and their labels.`,
+            '',
+            'Open this link to accept (it works once, within a week):',
+            '',
+            deps.publicUrl(`/join?token=${token}`),
+            '',
+            `If you do not know ${from}, ignore this e-mail: nothing happens unless you accept.`,
+          ].join('\n'),
+        });
+      });
+      return { message: `We have e-mailed an invite to ${email}. They join when they accept it.` };
     },
 
     async removeMember(collectionId: string, userId: string, actingUserId: string) {
@@ -29,6 +72,12 @@ export function createCollectionsService(db: NodePgDatabase) {
       if (!(await deleteMembership(db, collectionId, userId))) {
         throw new HttpError(404, 'not_found', 'That person is not a member of this collection.');
       }
+    },
+
+    /** A keeper steps out of someone else's collection; the owner stays with their own. */
+    async leave(collectionId: string, userId: string, role: string) {
+      if (role === 'owner') throw new HttpError(409, 'owner_stays', 'An owner cannot leave their own collection.');
+      await deleteMembership(db, collectionId, userId);
     },
   };
 }

@@ -25,15 +25,18 @@ const onlyHelpers: RequestHandler = (_req, res, next) => {
   next();
 };
 
-/** Owners arrange covers; keepers write handover notes; a helper reads their own cover. */
-export function coverRoutes(cover: CoverService, reports: CoverReportsService, rounds: RoundsService, member: Member) {
+/**
+ * Owners arrange covers; keepers write handover notes; a helper reads their own cover.
+ * `inviteLimit` counts the invites a collection sends (each mails the owner's words anywhere).
+ */
+export function coverRoutes(cover: CoverService, reports: CoverReportsService, rounds: RoundsService, member: Member, inviteLimit: RequestHandler) {
   const router = Router({ mergeParams: true });
   const collectionId = (res: Parameters<RequestHandler>[1]) => membershipOf(res).collectionId;
 
   router.get('/covers', member('owner'), async (_req, res) => {
     res.json({ covers: await cover.list(collectionId(res)) });
   });
-  router.post('/covers', member('owner'), validate({ body: coverBody }), async (req, res) => {
+  router.post('/covers', member('owner'), validate({ body: coverBody }), inviteLimit, async (req, res) => {
     res.status(201).json(await cover.create(collectionId(res), currentUserId(req), input(res, 'body')));
   });
   router.put('/covers/:coverId', member('owner'), validate({ params: coverParams, body: coverChangeBody }), async (_req, res) => {

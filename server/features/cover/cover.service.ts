@@ -1,9 +1,9 @@
-import { createHash, randomBytes } from 'node:crypto';
 import { and, desc, eq, gte, inArray, isNull, sql } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { addDays, describeLocalDate, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
 import { coverWindowState } from '../../../shared/domain/roles';
 import type { AcceptBody, CoverState, CoverSummary, HandoverNote, HelperCoverView, InvitePreview } from '../../../shared/schemas/cover';
+import type { Background } from '../../background';
 import { animals, events, handoverNotes } from '../../db/schema/animals';
 import { collections, invites, memberships } from '../../db/schema/collections';
 import { users } from '../../db/schema/users';
@@ -11,13 +11,11 @@ import type { Mailer } from '../../mail/mailer';
 import { HttpError } from '../../middleware/errors';
 import { findUserByEmail, insertUser } from '../auth/auth.repository';
 import { hashPassword } from '../auth/passwords';
-import type { Membership } from '../collections/collections.repository';
+import { roleOfEmail, type Membership } from '../collections/collections.repository';
+import { hashInviteToken, INVITE_LIFETIME_MS, newInviteToken } from './invite-token';
 
-/** An invite link works for a week at most, and never after the cover has ended. */
-export const INVITE_LIFETIME_MS = 7 * 24 * 60 * 60 * 1000;
 const RECENT_DAYS = 14;
 
-const hashToken = (token: string) => createHash('sha256').update(token).digest('hex');
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that cover.');
 
 interface Deps {
@@ -25,6 +23,7 @@ interface Deps {
   now: () => Date;
   bcryptCost: number;
   publicUrl: (path: string) => string;
+  background: Background;
 }
 
 export function createCoverService(db: NodePgDatabase, deps: Deps) {
@@ -78,24 +77,27 @@ export function createCoverService(db: NodePgDatabase, deps: Deps) {
   }
 
   return {
-    /** The owner names a helper and the days; an e-mail carries a single-use link. */
+    /**
+     * The owner names a helper and the days; an e-mail carries a single-use link. The same
+     * work and answer whether or not the address has an account (decision 012); the e-mail
+     * goes after the answer.
+     */
     async create(collectionId: string, invitedBy: string, body: { email: string; firstDay: LocalDate; lastDay: LocalDate; message: string }) {
       const c = await collectionOf(collectionId);
-      const existing = await findUserByEmail(db, body.email);
-      if (existing) {
-        const [m] = await db.select({ role: memberships.role }).from(memberships).where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, existing.id)));
-        if (m && m.role !== 'helper') throw new HttpError(409, 'already_member', 'That person already keeps this collection with you; no cover is needed.');
-      }
+      const role = await roleOfEmail(db, collectionId, body.email);
+      if (role && role !== 'helper') throw new HttpError(409, 'already_member', 'That person already keeps this collection with you; no cover is needed.');
       const { startsAt, endsAt } = coverWindow(body.firstDay, body.lastDay, c.timeZone);
       if (endsAt <= deps.now()) throw new HttpError(422, 'invalid', 'That cover would already be over. Choose days from today on.', [{ path: 'lastDay', message: 'Choose days from today on.' }]);
-      const token = randomBytes(32).toString('base64url');
+      const { token, tokenHash } = newInviteToken();
       const expiresAt = new Date(Math.min(deps.now().getTime() + INVITE_LIFETIME_MS, endsAt.getTime()));
       const [row] = await db
         .insert(invites)
-        .values({ collectionId, email: body.email, role: 'helper', tokenHash: hashToken(token), message: body.message || null, startsAt, endsAt, expiresAt, invitedBy })
+        .values({ collectionId, email: body.email, role: 'helper', tokenHash, message: body.message || null, startsAt, endsAt, expiresAt, invitedBy })
         .returning({ id: invites.id });
-      const [inviter] = await db.select({ name: users.displayName }).from(users).where(eq(users.id, invitedBy));
-      await mailInvite(body.email, token, c, inviter?.name ?? 'A keeper', body, body.message || null);
+      deps.background.run('cover invite mail', async () => {
+        const [inviter] = await db.select({ name: users.displayName }).from(users).where(eq(users.id, invitedBy));
+        await mailInvite(body.email, token, c, inviter?.name ?? 'A keeper', body, body.message || null);
+      });
       return { id: row!.id };
     },
 
@@ -120,7 +122,7 @@ export function createCoverService(db: NodePgDatabase, deps: Deps) {
       }));
     },
 
-    /** New days or message; the helper's access follows at once. */
+    /** New days or message; the helper's access follows at once (a cover ended early reopens). */
     async change(collectionId: string, coverId: string, body: { firstDay: LocalDate; lastDay: LocalDate; message: string }) {
       const c = await collectionOf(collectionId);
       const invite = await inviteOf(collectionId, coverId);
@@ -128,32 +130,46 @@ export function createCoverService(db: NodePgDatabase, deps: Deps) {
       await db.transaction(async (tx) => {
         await tx.update(invites).set({ startsAt, endsAt, message: body.message || null }).where(eq(invites.id, invite.id));
         if (invite.acceptedBy) {
-          await tx.update(memberships).set({ startsAt, endsAt }).where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, invite.acceptedBy), eq(memberships.role, 'helper')));
+          await tx.update(memberships).set({ startsAt, endsAt, writesClosedAt: null }).where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, invite.acceptedBy), eq(memberships.role, 'helper')));
         }
       });
     },
 
-    /** Ends a cover now: the helper's access stops with the next request. */
+    /**
+     * Ends a cover now: the helper's access stops with the next request, writes included — no
+     * grace for taps still on their phone (an early end is a decision, not a calendar). The
+     * membership stays, so those taps still get a verdict ("refused") instead of waiting forever.
+     */
     async end(collectionId: string, coverId: string) {
       const invite = await inviteOf(collectionId, coverId);
       const now = deps.now();
       await db.transaction(async (tx) => {
         await tx.update(invites).set({ endsAt: now, expiresAt: now }).where(eq(invites.id, invite.id));
         if (invite.acceptedBy) {
-          await tx.update(memberships).set({ endsAt: now }).where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, invite.acceptedBy), eq(memberships.role, 'helper')));
+          await tx.update(memberships).set({ endsAt: now, writesClosedAt: now }).where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, invite.acceptedBy), eq(memberships.role, 'helper')));
         }
       });
     },
 
-    /** What the accept page shows before anyone signs in. */
+    /** What the accept page shows before anyone signs in (the link's holder reads the mailbox). */
     async preview(token: string): Promise<InvitePreview> {
       const invite = await this.usableInvite(token);
       const c = await collectionOf(invite.collectionId);
-      return { collectionName: c.name, email: invite.email, ...daysOf(invite.startsAt!, invite.endsAt!, c.timeZone), message: invite.message, hasAccount: !!(await findUserByEmail(db, invite.email)) };
+      const [inviter] = invite.invitedBy ? await db.select({ name: users.displayName }).from(users).where(eq(users.id, invite.invitedBy)) : [];
+      const days = invite.startsAt && invite.endsAt ? daysOf(invite.startsAt, invite.endsAt, c.timeZone) : { firstDay: null, lastDay: null };
+      return {
+        role: invite.role === 'keeper' ? 'keeper' : 'helper',
+        collectionName: c.name,
+        invitedBy: inviter?.name ?? null,
+        email: invite.email,
+        ...days,
+        message: invite.message,
+        hasAccount: !!(await findUserByEmail(db, invite.email)),
+      };
     },
 
     async usableInvite(token: string) {
-      const [invite] = await db.select().from(invites).where(eq(invites.tokenHash, hashToken(token)));
+      const [invite] = await db.select().from(invites).where(eq(invites.tokenHash, hashInviteToken(token)));
       if (!invite) throw new HttpError(400, 'invite_invalid', 'This invite link is not valid. Ask the keeper to send a new one.');
       if (invite.acceptedAt) throw new HttpError(400, 'invite_used', 'This invite link was already used. Sign in to see your cover.');
       if (invite.expiresAt <= deps.now()) throw new HttpError(400, 'invite_expired', 'This invite link has expired. Ask the keeper to send a new one.');
@@ -161,18 +177,19 @@ export function createCoverService(db: NodePgDatabase, deps: Deps) {
     },
 
     /**
-     * Accepting joins the collection as a helper for exactly the cover's days. Someone new gets
-     * an account; someone with an account must be signed in as the invited e-mail.
-     * Returns the user to sign in (the route starts the session).
+     * Accepting is the only way into someone else's collection: as a helper for exactly the
+     * cover's days, or as a keeper. Someone new gets an account; someone with an account must
+     * be signed in as the invited e-mail. Returns the user to sign in (the route starts the session).
      */
     async accept(body: AcceptBody, signedInUserId: string | null): Promise<{ userId: string; collectionId: string }> {
       return db.transaction(async (tx) => {
         const invite = await this.usableInvite(body.token);
+        const keeper = invite.role === 'keeper';
         const existing = await findUserByEmail(tx, invite.email);
         let userId: string;
         if (existing) {
           if (signedInUserId !== existing.id) {
-            throw new HttpError(401, 'sign_in_first', `Sign in as ${invite.email} to accept this cover.`);
+            throw new HttpError(401, 'sign_in_first', `Sign in as ${invite.email} to accept this ${keeper ? 'invite' : 'cover'}.`);
           }
           userId = existing.id;
         } else {
@@ -181,14 +198,18 @@ export function createCoverService(db: NodePgDatabase, deps: Deps) {
           userId = (await insertUser(tx, { email: invite.email, displayName: body.account.displayName, passwordHash })).id;
         }
         const [current] = await tx.select({ role: memberships.role }).from(memberships).where(and(eq(memberships.collectionId, invite.collectionId), eq(memberships.userId, userId)));
-        if (current && current.role !== 'helper') throw new HttpError(409, 'already_member', 'You already keep this collection; no cover is needed.');
+        if (current && current.role !== 'helper') throw new HttpError(409, 'already_member', keeper ? 'You already keep this collection.' : 'You already keep this collection; no cover is needed.');
         // Claimed once: a second use of the same link finds it accepted.
         const claimed = await tx.update(invites).set({ acceptedAt: deps.now(), acceptedBy: userId }).where(and(eq(invites.id, invite.id), isNull(invites.acceptedAt))).returning({ id: invites.id });
-        if (!claimed.length) throw new HttpError(400, 'invite_used', 'This invite link was already used. Sign in to see your cover.');
+        if (!claimed.length) throw new HttpError(400, 'invite_used', 'This invite link was already used. Sign in to see your collection.');
+        // A keeper has no window; a helper who becomes a keeper loses theirs.
+        const grant = keeper
+          ? { role: 'keeper' as const, startsAt: null, endsAt: null }
+          : { role: 'helper' as const, startsAt: invite.startsAt, endsAt: invite.endsAt };
         await tx
           .insert(memberships)
-          .values({ collectionId: invite.collectionId, userId, role: 'helper', startsAt: invite.startsAt, endsAt: invite.endsAt })
-          .onConflictDoUpdate({ target: [memberships.collectionId, memberships.userId], set: { startsAt: invite.startsAt, endsAt: invite.endsAt, safetyAcknowledgedAt: null } });
+          .values({ collectionId: invite.collectionId, userId, ...grant })
+          .onConflictDoUpdate({ target: [memberships.collectionId, memberships.userId], set: { ...grant, writesClosedAt: null, safetyAcknowledgedAt: null } });
         return { userId, collectionId: invite.collectionId };
       });
     },

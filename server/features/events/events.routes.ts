@@ -19,7 +19,9 @@ export function eventsRoutes(
 ) {
   const router = Router({ mergeParams: true });
 
-  // A helper may sync after the cover ends: each event is judged by the time it was recorded.
+  // A helper may sync after the cover ends, so the taps of a phone that was offline get their
+  // verdicts: up to the grace after the end, those made during the cover are stored
+  // (shared/domain/helper-writes.ts); later, or after an owner ended it, each is refused.
   router.post(
     '/',
     member('helper', { anyTime: true }),

@@ -3,8 +3,9 @@ import { breedingRefusal } from '../../../shared/domain/breeding';
 import { clockOffsetMs, effectiveTime } from '../../../shared/domain/clock';
 import { FED_WHILE_HELD, HELPER_EVENT_KINDS, type EventKind } from '../../../shared/domain/event-kinds';
 import { mergeMoltDetails } from '../../../shared/domain/growth';
-import { localDateOf } from '../../../shared/domain/local-dates';
-import { coverWindowMessage, coverWindowState } from '../../../shared/domain/roles';
+import { HELPER_SYNC_GRACE_HOURS, judgeHelperWrite } from '../../../shared/domain/helper-writes';
+import { describeLocalDate, localDateOf } from '../../../shared/domain/local-dates';
+import { coverWindowMessage } from '../../../shared/domain/roles';
 import { shortDate } from '../../../shared/domain/rounds/build-round';
 import { MAX_BATCH_EVENTS } from '../../../shared/domain/sync-limits';
 import {
@@ -148,6 +149,16 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
       });
     });
 
+    // Helpers' writes are judged by the server's clock first (helper-writes.ts): the phone's
+    // clocks only place an event inside the cover, they never extend it.
+    const helperRefusal = (m: Membership, verdict: ReturnType<typeof judgeHelperWrite>) => {
+      const day = (at: Date | null) => (at ? describeLocalDate(localDateOf(at, m.timeZone), true) : '');
+      if (verdict === 'closed_by_owner')
+        return `Your cover for ${m.collectionName} was ended on ${day(m.writesClosedAt)}; taps that had not reached Rackside by then cannot be saved. Tell the keeper what you did.`;
+      if (verdict === 'too_late')
+        return `This reached Rackside more than ${HELPER_SYNC_GRACE_HOURS} hours after your cover for ${m.collectionName} ended on ${day(m.endsAt && new Date(m.endsAt.getTime() - 1))}, so it cannot be saved. Tell the keeper what you did.`;
+      return `This was recorded outside your cover. ${coverWindowMessage(m, received)}`;
+    };
     const targetOf = (e: RecordedEvent) =>
       e.kind === 'void' || e.kind === 'molt_details' ? (e.payload.targetId as string) : null;
     const helper = member.role === 'helper';
@@ -175,6 +186,7 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
     const moltDays = (animalId: string) => new Set((moltTimes.get(animalId) ?? []).map((t) => localDateOf(t, member.timeZone)));
     const toInsert: IncomingEvent[] = [];
     for (const { index, event, effectiveAt, flags } of candidates) {
+      const helperVerdict = helper ? judgeHelperWrite(member, effectiveAt, received) : 'ok';
       const already = stored.get(event.id);
       const targetId = targetOf(event);
       const target = targetId ? (stored.get(targetId) ?? accepted.get(targetId)) : null;
@@ -196,16 +208,8 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
           'not_for_helpers',
           'Helpers record feeding, water, molts and notes; ask a keeper to record this.',
         );
-      } else if (
-        helper &&
-        coverWindowState(effectiveAt, member.startsAt, member.endsAt) !== 'during'
-      ) {
-        reject(
-          index,
-          event.id,
-          'outside_cover',
-          `This was recorded outside your cover. ${coverWindowMessage(member, now())}`,
-        );
+      } else if (helperVerdict !== 'ok') {
+        reject(index, event.id, 'outside_cover', helperRefusal(member, helperVerdict));
       } else if (pairingRefusal(event)) {
         reject(index, event.id, 'invalid', `A pairing is not recorded: ${pairingRefusal(event)}`);
       } else if (targetId && !target) {

@@ -6,7 +6,9 @@ export function AttentionRoute() {
   return (
     <div className="flex flex-col gap-3">
       <h1 className="text-3xl font-extrabold">Needs attention</h1>
-      <p>These taps were refused by Rackside and are not in the records. Record them again if they still apply, or tell a keeper.</p>
+      <p>
+        Rackside refused these taps, so they are not in the records. Send one again once what stopped it has changed, or discard it if it no longer applies.
+      </p>
       <AttentionList userId={me.user.id} />
     </div>
   );

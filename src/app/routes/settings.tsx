@@ -1,10 +1,14 @@
 import { Link, useNavigate } from 'react-router-dom';
 import { Notice } from '@/components/ui/notice';
 import { SafetyNote } from '@/components/ui/safety-note';
+import { rememberMe } from '@/features/auth/api/get-me';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { ChangePasswordForm } from '@/features/auth/components/change-password-form';
 import { CollectionSwitcher } from '@/features/auth/components/collection-switcher';
+import { chooseCollectionOnDevice } from '@/features/auth/hooks/use-current-collection';
 import { LeaveCover } from '@/features/cover/components/leave-cover';
+import { LeaveCollection } from '@/features/members/components/leave-collection';
+import { MembersPanel } from '@/features/members/components/members-panel';
 import { DataPanel } from '@/features/settings/components/data-panel';
 import { ThemePicker } from '@/features/settings/components/theme-picker';
 import { UnitPicker } from '@/features/settings/components/unit-picker';
@@ -35,6 +39,21 @@ export function SettingsRoute() {
         </Link>
       )}
       {collection && collection.role !== 'helper' && <DataPanel collectionId={collection.collectionId} isOwner={collection.role === 'owner'} />}
+      {collection?.role === 'owner' && <MembersPanel collectionId={collection.collectionId} ownUserId={me.user.id} />}
+      {collection?.role === 'keeper' && (
+        <LeaveCollection
+          collectionId={collection.collectionId}
+          collectionName={collection.collectionName}
+          onLeft={async () => {
+            // The phone's copy of `me` opens the app first: it must not offer the collection just left.
+            const others = me.memberships.filter((m) => m.collectionId !== collection.collectionId);
+            await rememberMe({ ...me, memberships: others });
+            const next = others.find((m) => m.role === 'owner') ?? others[0];
+            if (next) chooseCollectionOnDevice(next.collectionId);
+            window.location.assign('/today');
+          }}
+        />
+      )}
       {me.memberships.length > 0 && (
         <CollectionSwitcher memberships={me.memberships} currentId={collection?.collectionId} onChoose={chooseCollection} />
       )}

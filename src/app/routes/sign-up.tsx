@@ -1,13 +1,12 @@
-import { Link, useNavigate } from 'react-router-dom';
+import { Link } from 'react-router-dom';
 import { PublicPage } from '@/components/ui/public-page';
 import { SignUpForm } from '@/features/auth/components/sign-up-form';
 
 export function SignUpRoute() {
-  const navigate = useNavigate();
   return (
     <PublicPage title="Create your account">
       <p className="text-muted">You will own a new collection. You can invite a partner or a helper later.</p>
-      <SignUpForm onSignedUp={() => navigate('/today', { replace: true })} />
+      <SignUpForm />
       <Link className="inline-flex min-h-target items-center font-bold underline underline-offset-4" to="/sign-in">
         I already have an account
       </Link>

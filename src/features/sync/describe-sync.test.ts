@@ -16,4 +16,12 @@ describe('the sync indicator’s words', () => {
     expect(words({ phase: 'signed_out', waiting: 4 })).toBe('Sign in again to save 4 taps');
     expect(words({ phase: 'failing', waiting: 2 })).toBe('Server trouble · 2 waiting');
   });
+
+  it('says why taps are waiting after an answer without verdicts, and that they stay', () => {
+    const text = describeSync({ ...base, phase: 'failing', waiting: 3, failures: 2, reason: 'The server did not take the taps (error 404).' }, now);
+    expect(text.words).toBe('Server trouble · 3 waiting');
+    expect(text.detail).toBe('The server did not take the taps (error 404). Your taps stay on this phone and are sent again by themselves.');
+    expect(describeSync({ ...base, phase: 'offline', waiting: 3, reason: 'No answer' }, now).detail).toBeNull();
+    expect(describeSync({ ...base, lastSavedAt: '2026-12-01T09:58:00Z' }, now).detail).toBeNull();
+  });
 });

@@ -1,11 +1,14 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
-import { storeMe, withDb } from '@/lib/db';
+import { clearCachedCollections, withDb } from '@/lib/db';
 
-/** Signs out; the person's waiting taps stay on the phone, kept for their next sign-in. */
+/**
+ * Signs out and forgets the collections cached on this phone (rounds, animal lists, `me`). The
+ * person's waiting taps stay, kept for their next sign-in (the button warns about them first).
+ */
 export async function signOut() {
   await apiRequest('/auth/sign-out', { method: 'POST' });
-  await withDb((db) => storeMe(db, null));
+  await withDb(clearCachedCollections);
 }
 
 export function useSignOut() {

@@ -1,19 +1,8 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { meResponse, type SignUpBody } from '#shared/schemas/auth';
+import { useMutation } from '@tanstack/react-query';
+import { signUpStartedResponse, type SignUpBody } from '#shared/schemas/auth';
 import { apiRequest } from '@/lib/api-client';
-import { rememberMe } from './get-me';
-import { authKeys } from './keys';
 
-export const signUp = (body: SignUpBody) => apiRequest('/auth/sign-up', { method: 'POST', body, schema: meResponse });
+/** The first step: the server e-mails a link (or, for a known address, a note to its owner). */
+export const startSignUp = (body: SignUpBody) => apiRequest('/auth/sign-up', { method: 'POST', body, schema: signUpStartedResponse });
 
-export function useSignUp() {
-  const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: signUp,
-    onSuccess: async (me) => {
-      await rememberMe(me);
-      queryClient.clear();
-      queryClient.setQueryData(authKeys.me(), me);
-    },
-  });
-}
+export const useStartSignUp = () => useMutation({ mutationFn: startSignUp });

@@ -16,7 +16,7 @@ interface Props {
   onAccepted: (me: MeResponse, collectionId: string) => void;
 }
 
-/** The invite link's page: who asks, which days, and one step to accept. */
+/** The invite link's page: who asks, for what (a cover's days, or keeping), and one step to accept. */
 export function AcceptInvite({ token, me, onAccepted }: Props) {
   const preview = useInvitePreview(token);
   const [account, setAccount] = useState({ displayName: '', password: '' });
@@ -35,23 +35,36 @@ export function AcceptInvite({ token, me, onAccepted }: Props) {
       setState({ busy: false, error: issues || (err as Error).message });
     }
   };
+  const keeper = p.role === 'keeper';
+  const action = keeper ? 'Accept the invite' : 'Accept the cover';
   return (
     <div className="flex flex-col gap-4">
-      <h2 className="text-2xl font-extrabold">Cover the feeds at {p.collectionName}</h2>
-      <p>
-        From <span className="font-bold">{p.firstDay}</span> to <span className="font-bold">{p.lastDay}</span>, for {p.email}.
-      </p>
+      {keeper ? (
+        <>
+          <h2 className="text-2xl font-extrabold">Keep {p.collectionName}</h2>
+          <p>
+            {p.invitedBy ?? 'Its owner'} invites {p.email} to keep this collection with them: its rounds, its animals’ records and their labels.
+          </p>
+        </>
+      ) : (
+        <>
+          <h2 className="text-2xl font-extrabold">Cover the feeds at {p.collectionName}</h2>
+          <p>
+            From <span className="font-bold">{p.firstDay}</span> to <span className="font-bold">{p.lastDay}</span>, for {p.email}.
+          </p>
+        </>
+      )}
       {p.message && <p className="whitespace-pre-line rounded-xl border-2 border-border p-2">{p.message}</p>}
       {state.error && <Notice tone="error" title={state.error} />}
       {p.hasAccount ? (
         signedInAsInvited ? (
           <Button busy={state.busy} onClick={() => void accept(false)}>
-            Accept the cover
+            {action}
           </Button>
         ) : (
           <>
             <p>You already have a Rackside account with this e-mail. Sign in as {p.email}, then come back to this link.</p>
-            <Link to="/sign-in" state={{ from: `/cover/accept?token=${token}` }} className="inline-flex min-h-target items-center justify-center rounded-xl border-2 border-primary bg-primary px-4 text-lg font-bold text-on-primary">
+            <Link to="/sign-in" state={{ from: `${keeper ? '/join' : '/cover/accept'}?token=${token}` }} className="inline-flex min-h-target items-center justify-center rounded-xl border-2 border-primary bg-primary px-4 text-lg font-bold text-on-primary">
               Sign in
             </Link>
           </>
@@ -64,11 +77,11 @@ export function AcceptInvite({ token, me, onAccepted }: Props) {
             void accept(true);
           }}
         >
-          <p>Make your account: it works only for these days in this collection.</p>
+          <p>{keeper ? 'Make your account to join this collection.' : 'Make your account: it works only for these days in this collection.'}</p>
           <TextField label="Your name" autoComplete="name" value={account.displayName} onChange={(e) => setAccount((a) => ({ ...a, displayName: e.target.value }))} />
           <PasswordField label="Password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN_CHARS} characters. A few words you will remember work well.`} value={account.password} onChange={(e) => setAccount((a) => ({ ...a, password: e.target.value }))} />
           <Button type="submit" busy={state.busy}>
-            Accept the cover
+            {action}
           </Button>
         </form>
       )}

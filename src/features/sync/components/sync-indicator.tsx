@@ -16,6 +16,7 @@ export function SyncIndicator() {
           <span aria-hidden="true">{text.symbol} </span>
           {text.words}
         </p>
+        {text.detail && <p className="text-xs text-muted">{text.detail}</p>}
         {busy && status.progress && (
           <div role="progressbar" aria-label="Saving taps" aria-valuemin={0} aria-valuemax={status.progress.total} aria-valuenow={status.progress.sent} className="mt-1 h-2 overflow-hidden rounded-full border border-border">
             <div className="h-full bg-primary" style={{ width: `${Math.round((status.progress.sent / Math.max(1, status.progress.total)) * 100)}%` }} />

@@ -1,0 +1,3 @@
+export const memberKeys = {
+  list: (collectionId: string) => ['members', collectionId] as const,
+};
