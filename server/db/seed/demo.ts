@@ -5,13 +5,14 @@ import { eq, inArray } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import type { AnimalGroup, Caution, LifeStage, Sex } from '../../../shared/domain/animal-facts';
 import type { EventKind } from '../../../shared/domain/event-kinds';
+import { breedingFacts, breedingModeOf, type BreedingRecordKind } from '../../../shared/domain/breeding';
 import { generateLabelCodes } from '../../../shared/domain/label-codes';
 import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
 import { DEFAULT_RULES, feedingInterval } from '../../../shared/domain/rounds/rules';
 import { hashPassword } from '../../features/auth/passwords';
 import { insertCollection } from '../../features/collections/collections.repository';
 import { refoldStates } from '../../features/rounds/projection';
-import { animals, events } from '../schema/animals';
+import { animals, eggSacs, events } from '../schema/animals';
 import { collections, locations, memberships } from '../schema/collections';
 import { users } from '../schema/users';
 import { DEMO_ACCOUNTS, DEMO_COLLECTION, DEMO_PASSWORD } from './demo-people';
@@ -44,20 +45,31 @@ interface DemoAnimal {
   /** Slings from one egg sac share a clutch name. */
   clutch?: string;
   /** What happened recently, driving today's round (see the scenario's "states"). */
-  story?: 'two_refusals' | 'premolt' | 'molted_5_days' | 'sac_3_weeks' | 'paired_10_days' | 'prey_left_yesterday' | 'missed';
+  story?: 'two_refusals' | 'premolt' | 'molted_5_days' | 'sac_3_weeks' | 'paired_10_days' | 'prey_left_yesterday' | 'missed' | 'guarding_sac' | 'brood_on_back' | 'egg_case';
 }
+
+/**
+ * The demo's breeding records (sac, egg case, brood), as days before today. Their facts go on
+ * each female's history from the record's own dates, as the breeding page writes them.
+ */
+const BREEDING: Partial<Record<NonNullable<DemoAnimal['story']>, { kind: BreedingRecordKind; laid: number; pulled?: number; eggs?: number; young?: number; note: string }>> = {
+  sac_3_weeks: { kind: 'egg_sac', laid: -21, pulled: -20, eggs: 140, note: 'Pulled for incubation.' },
+  guarding_sac: { kind: 'egg_sac', laid: -4, note: 'Sac laid in the hide; she is guarding it.' },
+  brood_on_back: { kind: 'brood', laid: -5, young: 23, note: 'Scorplings white and riding on her back.' },
+  egg_case: { kind: 'egg_case', laid: -10, note: 'Ootheca on the lid mesh.' },
+};
 
 const ADULTS: DemoAnimal[] = [
   { name: 'Juniper', scientificName: 'Tliltocatl albopilosus', commonName: 'Curly hair tarantula', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 130, place: ['A', '1', '1'], cautions: ['urticating_hairs'], hasWaterDish: true, story: 'sac_3_weeks' },
-  { name: 'Pepper', scientificName: 'Grammostola pulchra', commonName: 'Brazilian black', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 150, place: ['A', '1', '2'], cautions: ['urticating_hairs'], hasWaterDish: true },
+  { name: 'Pepper', scientificName: 'Grammostola pulchra', commonName: 'Brazilian black', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 150, place: ['A', '1', '2'], cautions: ['urticating_hairs'], hasWaterDish: true, story: 'guarding_sac' },
   { name: 'Dusty', scientificName: 'Aphonopelma chalcodes', commonName: 'Desert blonde', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 125, place: ['A', '1', '3'], cautions: ['urticating_hairs'], hasWaterDish: true, story: 'missed' },
   { name: 'Bramble', scientificName: 'Acanthoscurria geniculata', commonName: 'Whitebanded tarantula', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 170, place: ['A', '1', '4'], cautions: ['urticating_hairs', 'fast_defensive'], hasWaterDish: true, story: 'two_refusals' },
   { name: 'Indigo', scientificName: 'Monocentropus balfouri', commonName: 'Socotra Island blue baboon', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 120, place: ['A', '2', '1'], cautions: ['potent_venom', 'fast_defensive'], hasWaterDish: true, story: 'paired_10_days' },
   { name: 'Blue Jay', scientificName: 'Monocentropus balfouri', commonName: 'Socotra Island blue baboon', group: 'tarantula', lifeStage: 'adult', sex: 'mature_male', sizeMm: 110, place: ['A', '2', '2'], cautions: ['potent_venom', 'fast_defensive'], hasWaterDish: true },
   { name: 'Ember', scientificName: 'Omothymus schioedtei', commonName: 'Malaysian earth tiger', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 180, place: ['A', '2', '3'], cautions: ['potent_venom', 'fast_defensive', 'escape_risk'], hasWaterDish: true, story: 'missed' },
   { name: 'Rattler', scientificName: 'Scolopendra heros', commonName: 'Giant desert centipede', group: 'centipede', lifeStage: 'adult', sex: 'unknown', sizeMm: 160, place: ['A', '3', '1'], cautions: ['potent_venom', 'fast_defensive', 'escape_risk'], hasWaterDish: true },
-  { name: 'Pinch', scientificName: 'Heterometrus spinifer', commonName: 'Giant forest scorpion', group: 'scorpion', lifeStage: 'adult', sex: 'female', sizeMm: 110, place: ['A', '3', '2'], hasWaterDish: true },
-  { name: 'Mantra', scientificName: 'Hierodula membranacea', commonName: 'Giant Asian mantis', group: 'mantis', lifeStage: 'adult', sex: 'female', sizeMm: 90, place: ['A', '3', '3'] },
+  { name: 'Pinch', scientificName: 'Heterometrus spinifer', commonName: 'Giant forest scorpion', group: 'scorpion', lifeStage: 'adult', sex: 'female', sizeMm: 110, place: ['A', '3', '2'], hasWaterDish: true, story: 'brood_on_back' },
+  { name: 'Mantra', scientificName: 'Hierodula membranacea', commonName: 'Giant Asian mantis', group: 'mantis', lifeStage: 'adult', sex: 'female', sizeMm: 90, place: ['A', '3', '3'], story: 'egg_case' },
 ];
 
 const JUVENILES: DemoAnimal[] = [
@@ -129,6 +141,9 @@ export function historyFor(animal: DemoAnimal, today: LocalDate, random: () => n
     paired_10_days: -12,
     prey_left_yesterday: -4,
     missed: -1,
+    guarding_sac: -4,
+    brood_on_back: -5,
+    egg_case: -10,
   };
   const stopAt = storyStart[animal.story ?? 'none'];
   let offset = -60 + Math.floor(random() * interval);
@@ -168,9 +183,12 @@ export function historyFor(animal: DemoAnimal, today: LocalDate, random: () => n
       out.push({ kind: 'molted', day: at(-5), minute: 7 * 60 + 40, by: 'owner', payload: { sizeMm: animal.sizeMm, exuviaeKept: true } });
       break;
     case 'sac_3_weeks':
-      out.push({ kind: 'sac_laid', day: at(-21), minute: minute(), by: 'owner' });
-      out.push({ kind: 'sac_pulled', day: at(-20), minute: minute(), by: 'owner', payload: { note: 'Pulled for incubation.' } });
+      // The sac itself is a breeding record (BREEDING): laid 21 days ago, pulled the next day.
       out.push({ kind: 'ate', day: at(-6), minute: minute(), by: 'owner', payload: { ...offer } });
+      break;
+    case 'egg_case':
+      // A mantis feeds on through her egg case: a meal two days ago, so she is not due today.
+      out.push({ kind: 'ate', day: at(-2), minute: minute(), by: 'owner', payload: { ...offer } });
       break;
     case 'paired_10_days':
       out.push({ kind: 'ate', day: at(-12), minute: minute(), by: 'owner', payload: { ...offer } });
@@ -299,6 +317,34 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
         };
       }),
     );
+    // Breeding records, with their facts dated as the keeper gave them (noon that day).
+    const ownerOf = { recordedBy: ownerId, deviceId: 'demo-seed' };
+    for (const [i, a] of roster.entries()) {
+      const plan = a.story ? BREEDING[a.story] : undefined;
+      if (!plan) continue;
+      const femaleId = insertedAnimals[i]!.id;
+      const window = breedingModeOf(a.group).window ?? { minDays: 42, maxDays: 56 };
+      const [record] = await tx
+        .insert(eggSacs)
+        .values({
+          collectionId,
+          femaleId,
+          kind: plan.kind,
+          clutch: `${a.name} ${plan.kind === 'egg_sac' ? 'sac' : plan.kind === 'brood' ? 'brood' : 'case'} ${addDays(today, plan.laid)}`,
+          laidOn: addDays(today, plan.laid),
+          pulledOn: plan.pulled !== undefined ? addDays(today, plan.pulled) : null,
+          eggCount: plan.eggs ?? null,
+          slingCount: plan.young ?? null,
+          incubationMinDays: window.minDays,
+          incubationMaxDays: window.maxDays,
+          notes: plan.note,
+        })
+        .returning();
+      for (const fact of breedingFacts(record!)) {
+        const at = new Date(startOfLocalDate(fact.date, zone).getTime() + 12 * 3_600_000);
+        rows.push({ id: randomUUID(), collectionId, animalId: femaleId, kind: fact.kind, payload: { sacId: record!.id }, ...ownerOf, clientRecordedAt: at, clientSentAt: at, serverReceivedAt: at, effectiveAt: at });
+      }
+    }
     for (let i = 0; i < rows.length; i += 500) await tx.insert(events).values(rows.slice(i, i + 500));
     await refoldStates(tx, collectionId, zone);
     return { created: true, animals: roster.length, events: rows.length, collectionId, today };
