@@ -36,11 +36,13 @@ export async function addMember(
   await db.insert(memberships).values(values);
 }
 
+/** An animal in the collection for a month (past its settling period, R16), unless `createdAt` says otherwise. */
 export async function createAnimal(db: NodePgDatabase, collectionId: string, overrides: Partial<typeof animals.$inferInsert> = {}) {
   const [row] = await db
     .insert(animals)
     .values({
       collectionId,
+      createdAt: new Date(Date.now() - 30 * 86_400_000),
       labelCode: `TS-${randomUUID().slice(0, 4).toUpperCase().replace(/[01IO]/g, 'A')}`,
       name: 'Test animal',
       scientificName: 'Tliltocatl albopilosus',

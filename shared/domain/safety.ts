@@ -24,6 +24,10 @@ export const CAUTION_GUIDANCE: Record<Caution, { title: string; text: string }> 
     title: 'Escape risk — check the lid',
     text: 'It climbs or squeezes through gaps. Open only as far as you need and check the lid is shut and latched before you move on.',
   },
+  sting: {
+    title: 'Sting — keep your hands out',
+    text: 'It can sting with its tail, and the venom of some species needs medical care. Work only with long tongs, never reach in, and close the lid before you look away.',
+  },
 };
 
 /** Always on the helper's safety page, whatever the collection holds. */

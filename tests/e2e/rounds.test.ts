@@ -39,7 +39,7 @@ describe('the round screens at 360 × 740', () => {
     await screenshot(page, 'rounds-03-rules');
     await page.getByLabel('Adult (days)', { exact: true }).first().fill('-4');
     await page.getByRole('button', { name: 'Save rules' }).click();
-    await expect.poll(() => page.getByText('The adult interval must be at least 1 day.').isVisible()).toBe(true);
+    await expect.poll(() => page.getByText('The tarantula adult interval must be at least 1 day.').isVisible()).toBe(true);
     await page.getByLabel('Adult (days)', { exact: true }).first().fill('10');
     await page.getByRole('button', { name: 'Save rules' }).click();
     await expect.poll(() => page.getByText(/Rules saved/).isVisible()).toBe(true);

@@ -15,6 +15,7 @@ import {
 import {
   ANIMAL_GROUPS,
   ANIMAL_STATUSES,
+  DIETS,
   LIFE_STAGES,
   SEXES,
 } from '../../../shared/domain/animal-facts';
@@ -25,6 +26,7 @@ export const groupEnum = pgEnum('animal_group', ANIMAL_GROUPS);
 export const stageEnum = pgEnum('life_stage', LIFE_STAGES);
 export const sexEnum = pgEnum('animal_sex', SEXES);
 export const statusEnum = pgEnum('animal_status', ANIMAL_STATUSES);
+export const dietEnum = pgEnum('animal_diet', DIETS);
 
 export const animals = pgTable(
   'animals',
@@ -46,6 +48,8 @@ export const animals = pgTable(
     preyType: text('prey_type'),
     preySize: text('prey_size'),
     preyCount: integer('prey_count'),
+    // What a stage fed "by diet" eats (beetle adults, other); null: the group's usual diet.
+    diet: dietEnum('diet'),
     intervalDays: integer('interval_days'),
     doNotFeedUntil: date('do_not_feed_until'),
     cautions: text('cautions').array().notNull().default([]),
