@@ -148,6 +148,8 @@ export type RetireBody = z.input<typeof retireBody>;
 export const moveBody = z.object({
   animalIds: z.array(z.uuid({ message: 'This id is not valid.' })).min(1, { message: 'Choose at least one animal.' }).max(5000),
   locationId: z.uuid({ message: 'Choose a place from the list.' }),
+  /** Into a new enclosure (not just a new place on the rack): starts a settling period (R16). */
+  rehoused: z.boolean({ message: 'Say yes or no: a new enclosure?' }).optional(),
 });
 export type MoveBody = z.infer<typeof moveBody>;
 

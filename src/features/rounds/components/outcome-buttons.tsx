@@ -8,16 +8,29 @@ export type RecordOutcome = (kind: EventKind, payload?: Record<string, unknown>)
 /** Everything that can be recorded in one tap, for an animal that is not on today's round. */
 const ANY_DAY: EventKind[] = ['ate', 'refused', 'prey_left_in', 'prey_removed', 'watered'];
 
+interface Outcome {
+  kind: EventKind;
+  word: string;
+  payload?: Record<string, unknown>;
+}
+const outcome = (kind: EventKind): Outcome => ({ kind, word: EVENT_WORDS[kind] });
+
+/** A larva's substrate check is done by looking and topping up: one tap writes that note. */
+const SUBSTRATE_CHECKED: Outcome = { kind: 'note', word: 'Checked', payload: { text: 'Checked the food substrate and topped it up.' } };
+
 /** The one-tap outcomes an item's tasks call for; the rest sit one step away under "More". */
-function mainOutcomes(item: RoundItemView): EventKind[] {
-  if (!item.tasks.length) return ANY_DAY;
+function mainOutcomes(item: RoundItemView): Outcome[] {
+  if (!item.tasks.length) return ANY_DAY.map(outcome);
   const kinds = new Set(item.tasks.map((t) => t.kind));
+  const codes = new Set(item.tasks.flatMap((t) => t.reasons.map((r) => r.code)));
   const preyInside = kinds.has('remove_prey') || item.outcomes.some((o) => o.kind === 'prey_left_in');
   const list: EventKind[] = [];
   if (kinds.has('feed')) list.push('ate', 'refused', 'prey_left_in');
+  // A roach allowed to stay is checked (R20): it may be gone — eaten — or taken out.
+  else if (codes.has('check_prey')) list.push('ate');
   if (preyInside) list.push('prey_removed');
   if (kinds.has('water')) list.push('watered');
-  return list;
+  return [...list.map(outcome), ...(codes.has('check_substrate') ? [SUBSTRATE_CHECKED] : [])];
 }
 
 const MORE: EventKind[] = ['molted', 'premolt_seen', 'molting_now', 'skipped'];
@@ -26,14 +39,14 @@ export function OutcomeButtons({ item, onRecord }: { item: RoundItemView; onReco
   const [open, setOpen] = useState(false);
   const [note, setNote] = useState('');
   const panelId = useId();
-  const recorded = new Set(item.outcomes.map((o) => o.kind));
+  const recorded = new Set<EventKind>(item.outcomes.map((o) => o.kind));
   const main = mainOutcomes(item);
   return (
     <div className="flex flex-col gap-2">
       <div className="grid grid-cols-2 gap-2 min-[400px]:grid-cols-3">
-        {main.map((kind) => (
-          <Button key={kind} variant={recorded.has(kind) ? 'primary' : 'secondary'} className="min-h-14 px-2 text-base" onClick={() => onRecord(kind)}>
-            {EVENT_WORDS[kind]}
+        {main.map(({ kind, word, payload }) => (
+          <Button key={word} variant={recorded.has(kind) ? 'primary' : 'secondary'} className="min-h-14 px-2 text-base" onClick={() => onRecord(kind, payload)}>
+            {word}
           </Button>
         ))}
         <Button variant="quiet" aria-expanded={open} aria-controls={panelId} className="min-h-14 px-2 text-base" onClick={() => setOpen((o) => !o)}>
