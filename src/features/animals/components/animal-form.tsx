@@ -1,6 +1,6 @@
 import { useId, useMemo } from 'react';
 import { useForm, type FieldErrors, type Resolver } from 'react-hook-form';
-import { ANIMAL_GROUPS, CAUTION_LABEL, CAUTIONS, DIET_LABEL, DIETS, GROUP_LABEL, SEX_LABEL, SEXES, stageLabel, stagesOf, type AnimalGroup, type Caution } from '#shared/domain/animal-facts';
+import { ANIMAL_GROUPS, CAUTION_LABEL, CAUTIONS, DIET_LABEL, DIETS, GROUP_LABEL, SEX_LABEL, SEXES, STAGE_LABEL, stageLabel, stagesOf, type AnimalGroup, type Caution, type LifeStage } from '#shared/domain/animal-facts';
 import { presetFor } from '#shared/domain/genus-presets';
 import { GROUP_CARE } from '#shared/domain/rounds/care-profiles';
 import { checkScientificName } from '#shared/domain/scientific-name';
@@ -141,8 +141,7 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
   const preset = useMemo(() => presetFor(scientific), [scientific]);
   const presetDiffers = !!preset && (preset.group !== group || preset.cautions.some((c) => !cautions.includes(c)));
   function changeGroup(next: AnimalGroup, previous: AnimalGroup) {
-    const stage = watch('lifeStage');
-    if (!stagesOf(next).includes(stage as never)) setValue('lifeStage', firstFedStage(next));
+    if (!stagesOf(next).includes(watch('lifeStage') as LifeStage)) setValue('lifeStage', firstFedStage(next));
     // A new animal starts with its group's usual cautions and water (§ Care profiles).
     if (!animal) {
       const dropped = new Set<string>(GROUP_CARE[previous].newAnimalCautions);
@@ -150,6 +149,12 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
       setValue('hasWaterDish', GROUP_CARE[next].newAnimalHasDish);
     }
   }
+  // A stage saved before stages were checked against the group stays visible, so its error makes sense.
+  const stage = watch('lifeStage') as LifeStage;
+  const stageOptions = [
+    ...stagesOf(group).map((s) => ({ value: s, label: stageLabel(group, s) })),
+    ...(stagesOf(group).includes(stage) ? [] : [{ value: stage, label: `${STAGE_LABEL[stage]} (not a ${GROUP_LABEL[group].toLowerCase()} stage)` }]),
+  ];
   const locationOptions = [{ value: '', label: 'No place yet' }, ...locations.map((l) => ({ value: l.id, label: placeName(l) }))];
 
   return (
@@ -194,7 +199,7 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
         <TextField label="Common name" error={e.commonName?.message} {...register('commonName')} />
         <div className="grid grid-cols-2 gap-2">
           <SelectField label="Group" options={ANIMAL_GROUPS.map((g) => ({ value: g, label: GROUP_LABEL[g] }))} {...register('group', { onChange: (e: React.ChangeEvent<HTMLSelectElement>) => changeGroup(e.target.value as AnimalGroup, group) })} />
-          <SelectField label="Life stage" options={stagesOf(group).map((s) => ({ value: s, label: stageLabel(group, s) }))} {...register('lifeStage')} />
+          <SelectField label="Life stage" options={stageOptions} error={e.lifeStage?.message} {...register('lifeStage')} />
           <SelectField label="Sex" options={SEXES.map((s) => ({ value: s, label: SEX_LABEL[s] }))} {...register('sex')} />
           <TextField
             label={group === 'tarantula' || group === 'true_spider' ? `Leg span (${unit})` : `Body length (${unit})`}
