@@ -3,6 +3,7 @@
 // that is written beside the test as "common practice, no published source"; "from memory" marks
 // values the team wrote down without a document. Per-group profiles: care-profiles.test.ts.
 import { describe, expect, it } from 'vitest';
+import { engineAnimal, eventOn } from '../../../tests/fixtures/engine-animal';
 import type { EventKind } from '../event-kinds';
 import { startOfLocalDate } from '../local-dates';
 import { projectState, type EngineEvent } from './animal-state';
@@ -12,36 +13,8 @@ import { DEFAULT_RULES, effectiveRules } from './rules';
 const ZONE = 'America/Toronto';
 const TODAY = '2026-03-20';
 
-let seq = 0;
-function animal(overrides: Partial<EngineAnimal> = {}): EngineAnimal {
-  seq += 1;
-  return {
-    id: `animal-${seq}`,
-    labelCode: `NL-${String(seq).padStart(3, '2')}`,
-    name: `Animal ${seq}`,
-    scientificName: 'Tliltocatl albopilosus',
-    group: 'tarantula',
-    lifeStage: 'adult',
-    sex: 'female',
-    sizeMm: 120,
-    status: 'active',
-    cautions: [],
-    location: { id: `loc-${seq}`, room: 'Spare room', rack: 'A', shelf: '1', position: String(seq), walkOrder: 0 },
-    hasWaterDish: false,
-    intervalDays: null,
-    preyType: null,
-    preySize: null,
-    preyCount: null,
-    doNotFeedUntil: null,
-    addedOn: null,
-    ...overrides,
-  };
-}
-
-/** An event at 19:00 local time on `date`. */
-function ev(kind: EventKind, date: string, payload: Record<string, unknown> = {}, id = `${kind}-${date}-${seq++}`): EngineEvent {
-  return { id, kind, effectiveAt: new Date(startOfLocalDate(date, ZONE).getTime() + 19 * 3600_000).toISOString(), payload };
-}
+const animal = engineAnimal;
+const ev = (kind: EventKind, date: string, payload: Record<string, unknown> = {}, id?: string) => eventOn(kind, date, ZONE, payload, id);
 
 function decide(a: EngineAnimal, events: EngineEvent[], date = TODAY, rules = DEFAULT_RULES) {
   return decideAnimal(a, projectState(events, ZONE), rules, date);

@@ -2,9 +2,9 @@
 // § Diets). Every value is common practice with no published source, or from memory, as the
 // comment beside the check says; none is taken from a husbandry manual yet.
 import { describe, expect, it } from 'vitest';
+import { engineAnimal, eventOn } from '../../../tests/fixtures/engine-animal';
 import { GROUP_STAGES, stageLabel, stagesOf, type AnimalGroup } from '../animal-facts';
 import type { EventKind } from '../event-kinds';
-import { startOfLocalDate } from '../local-dates';
 import { projectState, type EngineEvent } from './animal-state';
 import { decideAnimal, FEED_HOLD_CODES, type EngineAnimal, type RoundTask } from './build-round';
 import { canMolt, DEFAULT_PROFILES, foodOf, GROUP_CARE } from './care-profiles';
@@ -12,42 +12,12 @@ import { DEFAULT_RULES, effectiveRules } from './rules';
 
 const ZONE = 'America/Toronto';
 const TODAY = '2026-03-20';
-let seq = 0;
-
-function animal(overrides: Partial<EngineAnimal> = {}): EngineAnimal {
-  seq += 1;
-  return {
-    id: `a-${seq}`,
-    labelCode: `NL-${seq}`,
-    name: `A${seq}`,
-    scientificName: 'Hierodula membranacea',
-    group: 'tarantula',
-    lifeStage: 'adult',
-    sex: 'female',
-    sizeMm: 100,
-    status: 'active',
-    cautions: [],
-    location: null,
-    hasWaterDish: false,
-    intervalDays: null,
-    preyType: null,
-    preySize: null,
-    preyCount: null,
-    diet: null,
-    doNotFeedUntil: null,
-    addedOn: null,
-    ...overrides,
-  };
-}
-
-function ev(kind: EventKind, date: string, payload: Record<string, unknown> = {}): EngineEvent {
-  seq += 1;
-  return { id: `e-${seq}`, kind, effectiveAt: new Date(startOfLocalDate(date, ZONE).getTime() + 19 * 3600_000).toISOString(), payload };
-}
+const animal = engineAnimal;
+const ev = (kind: EventKind, date: string, payload: Record<string, unknown> = {}) => eventOn(kind, date, ZONE, payload);
 const decide = (a: EngineAnimal, events: EngineEvent[], date = TODAY, rules = DEFAULT_RULES) => decideAnimal(a, projectState(events, ZONE), rules, date);
 const kinds = (tasks: RoundTask[]) => tasks.map((t) => t.kind);
 const codes = (d: ReturnType<typeof decide>) => [...d.tasks.flatMap((t) => t.reasons.map((r) => r.code)), ...d.notes.map((n) => n.code)];
-const daysAfter = (n: number) => `2026-03-${String(20 - n).padStart(2, '0')}`;
+const daysBefore = (n: number) => `2026-03-${String(20 - n).padStart(2, '0')}`;
 
 describe('stages by group (§ Stages)', () => {
   it('names each group’s stages in its own words', () => {
@@ -95,8 +65,8 @@ describe('true spider (§ Care profiles › True spider; common practice: spider
     ['juvenile', 4],
     ['adult', 6],
   ] as const)('feeds a %s every %i days', (stage, days) => {
-    expect(decide(animal({ group: 'true_spider', lifeStage: stage, sizeMm: 20 }), [ev('ate', daysAfter(days))]).tasks.some((t) => t.kind === 'feed')).toBe(true);
-    expect(decide(animal({ group: 'true_spider', lifeStage: stage, sizeMm: 20 }), [ev('ate', daysAfter(days - 1))]).tasks.some((t) => t.kind === 'feed')).toBe(false);
+    expect(decide(animal({ group: 'true_spider', lifeStage: stage, sizeMm: 20 }), [ev('ate', daysBefore(days))]).tasks.some((t) => t.kind === 'feed')).toBe(true);
+    expect(decide(animal({ group: 'true_spider', lifeStage: stage, sizeMm: 20 }), [ev('ate', daysBefore(days - 1))]).tasks.some((t) => t.kind === 'feed')).toBe(false);
   });
   it('holds a spiderling 2 days after a molt and an adult 5', () => {
     expect(decide(animal({ group: 'true_spider', lifeStage: 'sling', sizeMm: 8 }), [ev('molted', '2026-03-19')]).nextFeed).toBe('2026-03-21');
@@ -115,8 +85,8 @@ describe('true spider (§ Care profiles › True spider; common practice: spider
 
 describe('centipede (§ Care profiles › Centipede; common practice: juvenile 5, adult 7–10 days, ~5 days after surfacing from the molt chamber)', () => {
   it('feeds a juvenile every 5 days and an adult every 7; holds 5 days after a molt', () => {
-    expect(decide(animal({ group: 'centipede', lifeStage: 'juvenile' }), [ev('ate', daysAfter(5))]).nextFeed).toBe(TODAY);
-    expect(decide(animal({ group: 'centipede' }), [ev('ate', daysAfter(7))]).nextFeed).toBe(TODAY);
+    expect(decide(animal({ group: 'centipede', lifeStage: 'juvenile' }), [ev('ate', daysBefore(5))]).nextFeed).toBe(TODAY);
+    expect(decide(animal({ group: 'centipede' }), [ev('ate', daysBefore(7))]).nextFeed).toBe(TODAY);
     expect(decide(animal({ group: 'centipede' }), [ev('ate', '2026-03-01'), ev('molted', '2026-03-18')]).nextFeed).toBe('2026-03-23');
   });
   it('keeps a dish and part of the substrate damp; without a dish, moistens the substrate every 3 days', () => {
@@ -143,8 +113,8 @@ describe('scorpion (§ Care profiles › Scorpion; common practice: juvenile 5�
     expect(d.notes[0]).toMatchObject({ code: 'on_mother', text: 'Scorpling on its mother’s back: not fed until its first molt and it leaves her.' });
   });
   it('feeds a juvenile every 6 days and an adult every 10; holds an adult 10 days after its final molt', () => {
-    expect(decide(animal({ group: 'scorpion', lifeStage: 'juvenile', sizeMm: 30 }), [ev('ate', daysAfter(6))]).nextFeed).toBe(TODAY);
-    expect(decide(animal({ group: 'scorpion' }), [ev('ate', daysAfter(10))]).nextFeed).toBe(TODAY);
+    expect(decide(animal({ group: 'scorpion', lifeStage: 'juvenile', sizeMm: 30 }), [ev('ate', daysBefore(6))]).nextFeed).toBe(TODAY);
+    expect(decide(animal({ group: 'scorpion' }), [ev('ate', daysBefore(10))]).nextFeed).toBe(TODAY);
     expect(decide(animal({ group: 'scorpion' }), [ev('molted', '2026-03-12')]).nextFeed).toBe('2026-03-22');
   });
   it('mists a scorpion without a dish every 4 days; adults do not molt again (R17); a new one gets the sting caution', () => {
@@ -165,7 +135,7 @@ describe('mantis (§ Care profiles › Mantis; common practice: L1–L3 every 1�
     ['subadult', 3],
     ['adult', 4],
   ] as const)('feeds a %s every %i days', (stage, days) => {
-    expect(decide(animal({ group: 'mantis', lifeStage: stage, sizeMm: 30 }), [ev('ate', daysAfter(days))]).nextFeed).toBe(TODAY);
+    expect(decide(animal({ group: 'mantis', lifeStage: stage, sizeMm: 30 }), [ev('ate', daysBefore(days))]).nextFeed).toBe(TODAY);
   });
   it('holds an L1–L3 nymph 1 day after a molt and an L4+ nymph 2', () => {
     expect(decide(nymph(), [ev('molted', '2026-03-19')]).nextFeed).toBe(TODAY);
@@ -220,13 +190,13 @@ describe('beetle (§ Care profiles › Beetle; common practice: larva substrate 
 describe('other (§ Care profiles › Other, § Diets; common practice, from memory)', () => {
   it('decides the food task by the diet setting: live prey every 7 days, plant food every 3, leaf litter every 7', () => {
     expect(foodOf({ group: 'other', lifeStage: 'adult' })).toBe('prey');
-    expect(decide(animal({ group: 'other' }), [ev('ate', daysAfter(7))]).tasks[0]!.offer!.preyType).toBe('cricket');
-    const plant = decide(animal({ group: 'other', diet: 'plant' }), [ev('ate', daysAfter(3))]);
+    expect(decide(animal({ group: 'other' }), [ev('ate', daysBefore(7))]).tasks[0]!.offer!.preyType).toBe('cricket');
+    const plant = decide(animal({ group: 'other', diet: 'plant' }), [ev('ate', daysBefore(3))]);
     expect(plant.tasks[0]!.offer!.preyType).toBe('plant food');
-    const litter = decide(animal({ group: 'other', diet: 'detritus' }), [ev('ate', daysAfter(6))]);
+    const litter = decide(animal({ group: 'other', diet: 'detritus' }), [ev('ate', daysBefore(6))]);
     expect(litter.tasks).toEqual([]);
     expect(litter.nextFeed).toBe('2026-03-21');
-    expect(decide(animal({ group: 'other', diet: 'detritus' }), [ev('ate', daysAfter(7))]).tasks[0]!.offer).toMatchObject({ preyType: 'leaf litter', preySize: 'handful' });
+    expect(decide(animal({ group: 'other', diet: 'detritus' }), [ev('ate', daysBefore(7))]).tasks[0]!.offer).toMatchObject({ preyType: 'leaf litter', preySize: 'handful' });
   });
   it('gets no water task without a dish unless the collection sets one, and leaves a pupa alone', () => {
     expect(decide(animal({ group: 'other' }), [ev('ate', '2026-03-19')]).tasks).toEqual([]);
@@ -235,7 +205,7 @@ describe('other (§ Care profiles › Other, § Diets; common practice, from mem
     expect(kinds(decide(animal({ group: 'other', lifeStage: 'pupa' }), []).tasks)).toEqual(['leave_alone']);
   });
   it('follows an animal’s own interval for any food', () => {
-    expect(decide(animal({ group: 'other', diet: 'plant', intervalDays: 5 }), [ev('ate', daysAfter(4))]).tasks).toEqual([]);
-    expect(decide(animal({ group: 'beetle', lifeStage: 'larva', intervalDays: 14 }), [ev('note', daysAfter(14), { text: 'ok' })]).tasks[0]!.kind).toBe('check');
+    expect(decide(animal({ group: 'other', diet: 'plant', intervalDays: 5 }), [ev('ate', daysBefore(4))]).tasks).toEqual([]);
+    expect(decide(animal({ group: 'beetle', lifeStage: 'larva', intervalDays: 14 }), [ev('note', daysBefore(14), { text: 'ok' })]).tasks[0]!.kind).toBe('check');
   });
 });
