@@ -68,11 +68,13 @@ export async function addMember(
   await db.insert(memberships).values(values);
 }
 
+/** An animal in the collection for a month (past its settling period, R16), unless `createdAt` says otherwise. */
 export async function createAnimal(db: NodePgDatabase, collectionId: string, overrides: Partial<typeof animals.$inferInsert> = {}) {
   const [row] = await db
     .insert(animals)
     .values({
       collectionId,
+      createdAt: new Date(Date.now() - 30 * 86_400_000),
       // Five characters of the label alphabet (32^5 codes): no collisions within a test file.
       labelCode: `TS-${Array.from({ length: 5 }, () => LABEL_ALPHABET[randomInt(LABEL_ALPHABET.length)]).join('')}`,
       name: 'Test animal',

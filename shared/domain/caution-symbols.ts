@@ -14,6 +14,8 @@ export const CAUTION_SYMBOL_PATHS: Record<Caution, readonly string[]> = {
   fast_defensive: ['M13 2L5 13h6l-1 9 8-11h-6z'],
   // An arrow leaving a box.
   escape_risk: ['M10 4H4v16h16v-6', 'M13 11l8-8M15 3h6v6'],
+  // A tail curling up and over, ending in a barb.
+  sting: ['M4 21c8 0 13-4 13-11 0-3-2-6-5-6', 'M12 4l-2 4 4 0z'],
 };
 export const CAUTION_SYMBOL_GRID = 24;
 export const CAUTION_SYMBOL_STROKE = 2.2;

@@ -24,6 +24,10 @@ export const CAUTION_GUIDANCE: Record<Caution, { title: string; text: string }> 
     title: 'Escape risk — check the lid',
     text: 'It climbs or squeezes through gaps. Open only as far as you need and check the lid is shut and latched before you move on.',
   },
+  sting: {
+    title: 'Sting — keep your hands out',
+    text: 'It can sting with its tail, and the venom of some species needs medical care. Work only with long tongs, never reach in, and close the lid before you look away.',
+  },
 };
 
 /** Always on the helper's safety page, whatever the collection holds. */
@@ -39,7 +43,7 @@ export const GENERAL_SAFETY = [
 export const TASK_HOW: Record<TaskKind, string> = {
   feed: 'Hold the prey with long tongs by its back end, head towards the animal, and let it go a short way in front of it. Do not put your hand in. Close the lid. If it is not eaten, record “Prey left in”: the round tells you when to take it out (by the next day for slings and molting animals).',
   remove_prey: 'Take out the uneaten prey with tongs, even if it is dead. Live prey left with a molting animal can injure it.',
-  water: 'Top up the water dish with clean water to just below the rim (the round asks every few days). Do not pour over the animal.',
-  check: 'Look without disturbing: note anything odd (a molt, a web-closed burrow, a mat of silk) and record it.',
-  leave_alone: 'Do not open the enclosure or feed: it is molting or guarding eggs. Just look, and note anything odd.',
+  water: 'Top up the water dish with clean water to just below the rim (the round asks every few days). Do not pour over the animal. With no dish, do what the task says: pour a little water into one corner of the substrate, or mist the enclosure wall lightly — never the animal.',
+  check: 'Look without disturbing: note anything odd (a molt, a web-closed burrow, a mat of silk) and record it. For a beetle larva, check the food substrate is moist and not used up, top it up, and tap “Checked”.',
+  leave_alone: 'Do not open the enclosure or feed: it is molting, guarding eggs or young, or a pupa. Just look, and note anything odd.',
 };

@@ -3,13 +3,20 @@ import {
   ANIMAL_GROUPS,
   ANIMAL_STATUSES,
   CAUTIONS,
+  DIETS,
+  GROUP_LABEL,
   LIFE_STAGES,
   SEXES,
+  stageFitsGroup,
+  stageLabel,
+  stagesOf,
+  type AnimalGroup,
+  type LifeStage,
 } from '../domain/animal-facts';
 import { isLabelCode, LABEL_ALPHABET, normaliseLabelCode } from '../domain/label-codes';
 import { checkScientificName } from '../domain/scientific-name';
 import { localDate } from './common';
-import { careSettingsBody } from './rules';
+import { careSettingsBody, dietSetting } from './rules';
 
 export const locationSummary = z.object({
   id: z.string(),
@@ -44,6 +51,7 @@ export const animalSummary = z.object({
   preyType: z.string().nullable(),
   preySize: z.string().nullable(),
   preyCount: z.number().nullable(),
+  diet: z.enum(DIETS).nullable(),
   doNotFeedUntil: z.string().nullable(),
   statusDate: z.string().nullable(),
   acquiredOn: z.string().nullable(),
@@ -80,8 +88,27 @@ export const scientificName = z
     }
   });
 
-/** What a keeper enters for an animal; the label code is drawn when left empty. */
-export const animalInput = z.object({
+/**
+ * "A mantis has no larva stage: choose Nymph L1–L3, …" — or null when the stage fits the group
+ * (docs/care-rules.md § Stages).
+ */
+export function stageProblem(group: AnimalGroup, stage: LifeStage): string | null {
+  if (stageFitsGroup(group, stage)) return null;
+  const choices = stagesOf(group).map((s) => stageLabel(group, s));
+  return `${GROUP_LABEL[group]}: there is no “${stageLabel(group, stage)}” stage. Choose ${choices.slice(0, -1).join(', ')} or ${choices.at(-1)}.`;
+}
+
+/** Checks that the life stage is one the group has; added to every schema built from the fields. */
+export function checkStageFitsGroup(value: { group: AnimalGroup; lifeStage: LifeStage }, ctx: z.RefinementCtx) {
+  const problem = stageProblem(value.group, value.lifeStage);
+  if (problem) ctx.addIssue({ code: 'custom', message: problem, path: ['lifeStage'] });
+}
+
+/**
+ * An animal's fields without the cross-field checks, for schemas built from them (the CSV row);
+ * add `checkStageFitsGroup` to any schema made from it.
+ */
+export const animalFields = z.object({
   labelCode: z
     .string()
     .trim()
@@ -102,8 +129,11 @@ export const animalInput = z.object({
   cautionNote: optionalText(CAUTION_NOTE_MAX, 'The caution note'),
   notes: optionalText(4000, 'Notes'),
   clutch: optionalText(80, 'The clutch name'),
-  care: careSettingsBody.required(),
+  care: careSettingsBody.required().extend({ diet: dietSetting.default(null) }),
 });
+
+/** What a keeper enters for an animal; the label code is drawn when left empty. */
+export const animalInput = animalFields.superRefine(checkStageFitsGroup);
 export type AnimalInput = z.input<typeof animalInput>;
 export type AnimalValues = z.output<typeof animalInput>;
 
@@ -118,6 +148,8 @@ export type RetireBody = z.input<typeof retireBody>;
 export const moveBody = z.object({
   animalIds: z.array(z.uuid({ message: 'This id is not valid.' })).min(1, { message: 'Choose at least one animal.' }).max(5000),
   locationId: z.uuid({ message: 'Choose a place from the list.' }),
+  /** Into a new enclosure (not just a new place on the rack): starts a settling period (R16). */
+  rehoused: z.boolean({ message: 'Say yes or no: a new enclosure?' }).optional(),
 });
 export type MoveBody = z.infer<typeof moveBody>;
 

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { ANIMAL_GROUPS, ANIMAL_STATUSES, LIFE_STAGES, SEXES } from '../domain/animal-facts';
+import { ANIMAL_GROUPS, ANIMAL_STATUSES, DIETS, LIFE_STAGES, SEXES } from '../domain/animal-facts';
 import { BREEDING_RECORDS } from '../domain/breeding';
 import { EVENT_KINDS } from '../domain/event-kinds';
 import './messages';
@@ -37,6 +37,8 @@ export const backupFile = z.object({
       preyType: z.string().nullable(),
       preySize: z.string().nullable(),
       preyCount: z.number().int().nullable(),
+      // Added with care profiles: backups made before it have no diet (the group's usual).
+      diet: z.enum(DIETS).nullable().default(null),
       intervalDays: z.number().int().nullable(),
       doNotFeedUntil: date,
       cautions: z.array(z.string()),

@@ -66,7 +66,7 @@ export const EVENT_PAYLOADS = {
     })
     .strict(),
   moved: z
-    .object({ fromLocationId: uuid.nullable().optional(), toLocationId: uuid, note })
+    .object({ fromLocationId: uuid.nullable().optional(), toLocationId: uuid, rehoused: z.boolean().optional(), note })
     .strict(),
   status_changed: z.object({ from: z.enum(ANIMAL_STATUSES), to: z.enum(ANIMAL_STATUSES), note }).strict(),
 } satisfies Record<(typeof EVENT_KINDS)[number], z.ZodType>;

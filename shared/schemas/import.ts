@@ -1,9 +1,9 @@
 import { z } from 'zod';
-import { animalInput } from './animals';
+import { animalFields, checkStageFitsGroup } from './animals';
 import { locationInput } from './locations';
 
 /** One animal from a spreadsheet: what a form takes, with its place by name instead of by id. */
-export const animalImportRow = animalInput.omit({ locationId: true }).extend({ place: locationInput.nullable() });
+export const animalImportRow = animalFields.omit({ locationId: true }).extend({ place: locationInput.nullable() }).superRefine(checkStageFitsGroup);
 export type AnimalImportRow = z.input<typeof animalImportRow>;
 export type AnimalImportValues = z.output<typeof animalImportRow>;
 

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { LIFE_STAGES } from '../domain/animal-facts';
+import { ANIMAL_GROUPS, DIETS, stageLabel, type AnimalGroup, type LifeStage } from '../domain/animal-facts';
+import { DEFAULT_PROFILES, HYDRATIONS } from '../domain/rounds/care-profiles';
 import { localDate } from './common';
 
 const days = (min: number, max: number, what: string) =>
@@ -9,47 +10,119 @@ const days = (min: number, max: number, what: string) =>
     .min(min, { message: `${what} must be at least ${min} day${min === 1 ? '' : 's'}.` })
     .max(max, { message: `${what} can be at most ${max} days.` });
 
-const byStage = (schema: (stage: string) => z.ZodType<number>) =>
-  z.object(Object.fromEntries(LIFE_STAGES.map((s) => [s, schema(s).optional()]))).strict();
+const GROUP_WORD: Record<AnimalGroup, string> = {
+  tarantula: 'tarantula',
+  true_spider: 'true spider',
+  centipede: 'centipede',
+  scorpion: 'scorpion',
+  mantis: 'mantis',
+  beetle: 'beetle',
+  other: 'other',
+};
 
-const offer = z
+export const offerSchema = z
   .object({
-    preyType: z.string().trim().min(1, { message: 'Name the prey.' }).max(40),
-    preySize: z.string().trim().min(1, { message: 'Give a prey size.' }).max(20),
-    countMin: z.number().int().min(1, { message: 'Offer at least one.' }).max(20),
-    countMax: z.number().int().min(1).max(20, { message: 'At most 20 at a time.' }),
+    preyType: z.string().trim().min(1, { message: 'Name the prey.' }).max(40, { message: 'Keep the prey name under 40 characters.' }),
+    preySize: z.string().trim().min(1, { message: 'Give a prey size.' }).max(20, { message: 'Keep the size under 20 characters.' }),
+    countMin: z.number({ message: 'Give a number.' }).int({ message: 'Give a whole number.' }).min(1, { message: 'Offer at least one.' }).max(20, { message: 'At most 20 at a time.' }),
+    countMax: z.number({ message: 'Give a number.' }).int({ message: 'Give a whole number.' }).min(1, { message: 'Offer at least one.' }).max(20, { message: 'At most 20 at a time.' }),
   })
   .refine((o) => o.countMin <= o.countMax, { message: 'The smallest count cannot be larger than the largest.', path: ['countMax'] });
+
+/** The numbers of one fed stage of one group (docs/care-rules.md § Care profiles). */
+function stageOverride(group: AnimalGroup, stage: LifeStage) {
+  const label = stageLabel(group, stage);
+  const name = `The ${GROUP_WORD[group]} ${label.charAt(0).toLowerCase()}${label.slice(1)}`;
+  return z
+    .object({
+      feedEveryDays: days(1, 90, `${name} interval`),
+      refusalRetryDays: days(1, 60, `${name} retry wait`),
+      refusalStreak: z
+        .number({ message: `${name} refusal streak must be a number.` })
+        .int({ message: `${name} refusal streak must be a whole number.` })
+        .min(1, { message: `${name} refusal streak must be at least 1.` })
+        .max(10, { message: `${name} refusal streak can be at most 10.` }),
+      postMoltHoldDays: days(0, 60, `${name} post-molt hold`),
+      offer: offerSchema,
+    })
+    .partial()
+    .strict();
+}
+
+/** One group's profile: only the stages that group feeds can be changed. */
+function profileOverride(group: AnimalGroup) {
+  const stages = Object.keys(DEFAULT_PROFILES[group].stages) as LifeStage[];
+  const word = GROUP_WORD[group];
+  return z
+    .object({
+      stages: z.object(Object.fromEntries(stages.map((s) => [s, stageOverride(group, s).optional()]))).strict(),
+      hydration: z.enum(HYDRATIONS, { message: 'Choose moisten, mist or none.' }),
+      hydrateEveryDays: days(1, 30, `Watering ${word}s without a dish`),
+      hydrateBelowMm: z
+        .number({ message: 'Give the size in mm, or leave it empty for every size.' })
+        .min(1, { message: 'The size must be at least 1 mm.' })
+        .max(400, { message: 'The size can be at most 400 mm.' })
+        .nullable(),
+    })
+    .partial()
+    .strict();
+}
+
+/** R19: one size of one feeder the collection keeps. */
+export const feederSchema = z
+  .object({
+    preyType: z.string().trim().min(1, { message: 'Name the prey.' }).max(40, { message: 'Keep the prey name under 40 characters.' }),
+    preySize: z.string().trim().min(1, { message: 'Give a size name.' }).max(20, { message: 'Keep the size under 20 characters.' }),
+    lengthMm: z
+      .number({ message: 'Give the length in mm.' })
+      .positive({ message: 'The length must be more than 0 mm.' })
+      .max(200, { message: 'The length can be at most 200 mm.' }),
+  })
+  .strict();
+
+const feeders = z
+  .array(feederSchema)
+  .max(60, { message: 'Keep the catalogue to 60 sizes at most.' })
+  .superRefine((list, ctx) => {
+    const seen = new Set<string>();
+    list.forEach((f, i) => {
+      const key = `${f.preyType.toLowerCase()}|${f.preySize.toLowerCase()}`;
+      if (seen.has(key)) ctx.addIssue({ code: 'custom', message: `“${f.preySize} ${f.preyType}” is in the catalogue twice.`, path: [i, 'preySize'] });
+      seen.add(key);
+    });
+  });
 
 /** A collection's changes to the default rules; every key optional, every value bounded. */
 export const rulesOverride = z
   .object({
-    intervalDays: byStage((s) => days(1, 90, `The ${s} interval`)),
-    groupIntervalDays: z
+    profiles: z.object(Object.fromEntries(ANIMAL_GROUPS.map((g) => [g, profileOverride(g).optional()]))).strict(),
+    premoltCheckDays: days(1, 30, 'The premolt check'),
+    waterEveryDays: days(1, 30, 'Watering'),
+    rebuildFactor: z.number({ message: 'The rebuild factor must be a number.' }).min(0.1, { message: 'The rebuild factor must be at least 0.1.' }).max(1, { message: 'The rebuild factor can be at most 1 (no change).' }),
+    rebuildDays: days(0, 365, 'The rebuild period'),
+    settlingDays: days(0, 30, 'The settling period'),
+    preyStayCheckDays: days(1, 14, 'The check on prey left in'),
+    dietEveryDays: z
       .object({
-        centipede: days(1, 90, 'The centipede interval').optional(),
-        scorpion: days(1, 90, 'The scorpion interval').optional(),
-        mantis: days(1, 90, 'The mantis interval').optional(),
-        true_spider: days(1, 90, 'The true spider interval').optional(),
-        beetle: days(1, 90, 'The beetle interval').optional(),
-        other: days(1, 90, 'The interval').optional(),
+        fruit_jelly: days(1, 30, 'Replacing fruit or jelly').optional(),
+        plant: days(1, 30, 'Replacing plant food').optional(),
+        detritus: days(1, 60, 'Adding leaf litter').optional(),
       })
       .strict(),
-    refusalRetryDays: byStage((s) => days(1, 60, `The ${s} retry wait`)),
-    refusalStreak: byStage((s) =>
-      z.number().int().min(1, { message: `The ${s} refusal streak must be at least 1.` }).max(10, { message: `The ${s} refusal streak can be at most 10.` }),
-    ),
-    premoltCheckDays: days(1, 30, 'The premolt check'),
-    postMoltHoldDays: byStage((s) => days(0, 60, `The ${s} post-molt hold`)),
-    waterEveryDays: days(1, 30, 'Watering'),
-    rebuildFactor: z.number().min(0.1, { message: 'The rebuild factor must be at least 0.1.' }).max(1, { message: 'The rebuild factor can be at most 1 (no change).' }),
-    rebuildDays: days(0, 365, 'The rebuild period'),
-    offers: z.object(Object.fromEntries(LIFE_STAGES.map((s) => [s, offer.optional()]))).strict(),
-    tinySlingMm: z.number().min(1).max(100),
+    substrateCheckDays: days(1, 120, 'The larva substrate check'),
+    spanToBody: z
+      .number({ message: 'The body share of the leg span must be a number.' })
+      .min(0.2, { message: 'The body share of the leg span must be at least 0.2.' })
+      .max(0.6, { message: 'The body share of the leg span can be at most 0.6.' }),
+    tinySlingMm: z.number({ message: 'The tiny sling size must be a number.' }).min(1, { message: 'The tiny sling size must be at least 1 mm.' }).max(100, { message: 'The tiny sling size can be at most 100 mm.' }),
+    feeders,
   })
   .partial()
   .strict();
 export type RulesOverrideBody = z.infer<typeof rulesOverride>;
+
+/** What an animal fed "by diet" eats (beetle adults, other invertebrates); null: its group's usual. */
+export const dietSetting = z.enum(DIETS, { message: 'Choose live prey, fruit or jelly, plant food or leaf litter.' }).nullable();
 
 /** Per-animal care settings the engine honours; null clears a setting. */
 export const careSettingsBody = z
@@ -58,6 +131,7 @@ export const careSettingsBody = z
     preyType: z.string().trim().min(1).max(40).nullable(),
     preySize: z.string().trim().min(1).max(20).nullable(),
     preyCount: z.number().int().min(1, { message: 'Offer at least one.' }).max(20, { message: 'At most 20 at a time.' }).nullable(),
+    diet: dietSetting,
     hasWaterDish: z.boolean(),
     doNotFeedUntil: localDate.nullable(),
   })

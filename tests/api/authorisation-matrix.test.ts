@@ -91,7 +91,7 @@ const TABLE: Record<string, Row> = {
   'GET /api/collections/:collectionId/animals/:animalId/schedule': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/animals/${f.animalId}/schedule` }) },
   'PATCH /api/collections/:collectionId/animals/:animalId/care': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/animals/${f.animalId}/care`, body: { intervalDays: -1 } }) },
   'GET /api/collections/:collectionId/rules': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/rules` }) },
-  'PUT /api/collections/:collectionId/rules': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/rules`, body: { refusalStreak: { adult: -1 } } }) },
+  'PUT /api/collections/:collectionId/rules': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/rules`, body: { profiles: { tarantula: { stages: { adult: { refusalStreak: -1 } } } } } }) },
 
   'POST /api/collections/:collectionId/events': { access: 'helper-any-time', allowed: 422, call: (f) => ({ path: `${f.c}/events`, body: {} }) },
   'GET /api/collections/:collectionId/events': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/events?animalId=${f.animalId}` }) },

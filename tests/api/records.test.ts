@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { rowToAnimal } from '../../shared/domain/csv/animal-columns';
 import { readCsv } from '../../shared/domain/csv/csv-file';
 import type { AnimalInput } from '../../shared/schemas/animals';
-import { addMember, animalBody, signUp, type SignedUp } from '../factories';
+import { addMember, animalBody, createAnimal, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 import { withOriginalIds } from '../support/backup-compare';
 
@@ -60,6 +60,8 @@ describe('animals: create, edit, retire, move', () => {
       [{ cautions: ['bites'] }, /./],
       [{ locationId: 'nope' }, /Choose a place/],
       [{ care: { intervalDays: 0 } }, /./],
+      // docs/care-rules.md § Stages: the stage must be one the group has.
+      [{ group: 'mantis', lifeStage: 'larva' }, /Mantis: there is no “Larva” stage\. Choose Nymph L1–L3, Nymph L4\+, Subadult or Adult\./],
     ];
     for (const [change, message] of cases) {
       const res = await owner.agent.post(`${base()}/animals`).send({ ...animalBody(), ...change });
@@ -86,6 +88,37 @@ describe('animals: create, edit, retire, move', () => {
     const history = await owner.agent.get(`${base()}/events?animalId=${a.id}`).expect(200);
     expect(history.body.events.filter((e: { kind: string }) => e.kind === 'moved')).toHaveLength(2);
     expect((await owner.agent.post(`${base()}/animals/move`).send({ animalIds: [randomUUID()], locationId: shelfB })).status).toBe(404);
+  });
+
+  it('takes the new stages and a diet, and a rehouse in the same place starts settling (docs/care-rules.md § Stages, § Diets, § R16)', async () => {
+    const care = { ...animalBody().care, diet: 'live_prey' as const };
+    const slug = (await owner.agent.post(`${base()}/animals`).send(animalBody({ name: 'Slug', scientificName: 'Arion ater', group: 'other', lifeStage: 'adult', cautions: [], care })).expect(201)).body;
+    expect(slug).toMatchObject({ group: 'other', lifeStage: 'adult', diet: 'live_prey' });
+    await owner.agent.patch(`${base()}/animals/${slug.id}/care`).send({ diet: 'plant' }).expect(200);
+    const pupa = (await owner.agent.post(`${base()}/animals`).send(animalBody({ name: 'Pupa', scientificName: 'Arion ater', group: 'other', lifeStage: 'pupa', cautions: [] })).expect(201)).body;
+    expect((await owner.agent.get(`${base()}/animals/${pupa.id}/schedule`).expect(200)).body.tasks[0].reasons[0].code).toBe('pupa');
+    const list = await owner.agent.get(`${base()}/animals`).expect(200);
+    expect(list.body.animals.find((a: { id: string }) => a.id === slug.id).diet).toBe('plant');
+
+    // Joined a month ago and due; rehoused into a new enclosure in the same place, it settles.
+    const shelf = await place(owner, 'R');
+    const juniper = await createAnimal(ctx.database.db, owner.collectionId, { name: 'Rehoused', locationId: shelf });
+    const before = (await owner.agent.get(`${base()}/animals/${juniper.id}/schedule`).expect(200)).body;
+    expect(before.tasks.map((t: { kind: string }) => t.kind)).toContain('feed');
+    expect((await owner.agent.post(`${base()}/animals/move`).send({ animalIds: [juniper.id], locationId: shelf })).body.moved).toBe(0); // same place: nothing to record
+    expect((await owner.agent.post(`${base()}/animals/move`).send({ animalIds: [juniper.id], locationId: shelf, rehoused: true })).body.moved).toBe(1);
+    // The schedule is the round's view, as of the start of a day (today's facts reach it via the
+    // same-day path): tomorrow it shows the settling period.
+    ctx.setNow(new Date(Date.now() + 86_400_000));
+    try {
+      const after = (await owner.agent.get(`${base()}/animals/${juniper.id}/schedule`).expect(200)).body;
+      expect(after.tasks.map((t: { kind: string }) => t.kind)).not.toContain('feed');
+      expect(after.notes[0].text).toMatch(/^Settling in after a move to a new enclosure on /);
+    } finally {
+      ctx.setNow(null);
+    }
+    const history = await owner.agent.get(`${base()}/events?animalId=${juniper.id}`).expect(200);
+    expect(history.body.events[0]).toMatchObject({ kind: 'moved', payload: { rehoused: true } });
   });
 
   it('retires an animal off the round, keeps its history, and can bring it back', async () => {

@@ -130,17 +130,20 @@ describe('rules and care settings', () => {
     const partner = await signIn('partner@northlight.test');
     const base = `/api/collections/${demoId}`;
     const rules = await partner.get(`${base}/rules`).expect(200);
-    expect(rules.body.rules.refusalStreak.adult).toBe(2);
-    expect(rules.body.defaults.refusalStreak.adult).toBe(3);
-    const bad = await partner.put(`${base}/rules`).send({ intervalDays: { adult: -3 } });
+    // The demo stores its change in the shape used before care profiles: read as the tarantula's.
+    expect(rules.body.rules.profiles.tarantula.stages.adult.refusalStreak).toBe(2);
+    expect(rules.body.defaults.profiles.tarantula.stages.adult.refusalStreak).toBe(3);
+    const interval = (days: number) => ({ profiles: { tarantula: { stages: { adult: { feedEveryDays: days } } } } });
+    const bad = await partner.put(`${base}/rules`).send(interval(-3));
     expect(bad.status).toBe(422);
-    expect(bad.body.error.message).toBe('The adult interval must be at least 1 day.');
-    expect((await partner.put(`${base}/rules`).send({ intervalDays: { adult: 400 } })).body.error.message).toBe('The adult interval can be at most 90 days.');
+    expect(bad.body.error.message).toBe('The tarantula adult interval must be at least 1 day.');
+    expect((await partner.put(`${base}/rules`).send(interval(400))).body.error.message).toBe('The tarantula adult interval can be at most 90 days.');
     const [goliath] = await ctx.database.db.select().from(animals).where(eq(animals.name, 'Goliath Jr'));
-    await partner.put(`${base}/rules`).send({ refusalStreak: { adult: 2 }, postMoltHoldDays: { subadult: 3 } }).expect(200);
+    const streak = { adult: { refusalStreak: 2 } };
+    await partner.put(`${base}/rules`).send({ profiles: { tarantula: { stages: { ...streak, subadult: { postMoltHoldDays: 3 } } } } }).expect(200);
     const schedule = await partner.get(`${base}/animals/${goliath!.id}/schedule`).expect(200);
     expect(schedule.body.notes.map((n: { code: string }) => n.code)).not.toContain('post_molt_hold');
-    await partner.put(`${base}/rules`).send({ refusalStreak: { adult: 2 } }).expect(200);
+    await partner.put(`${base}/rules`).send({ profiles: { tarantula: { stages: streak } } }).expect(200);
   });
 
   it('honours an animal’s own "do not feed until" date and interval', async () => {

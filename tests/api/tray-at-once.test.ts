@@ -4,7 +4,7 @@ import 'fake-indexeddb/auto';
 import { randomUUID } from 'node:crypto';
 import { and, eq, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { events } from '../../server/db/schema/animals';
+import { animals, events } from '../../server/db/schema/animals';
 import type { RecordedEvent } from '../../shared/schemas/events';
 import type { RoundResponse } from '../../shared/schemas/rounds';
 import { openRacksideDb } from '../../src/lib/db';
@@ -36,6 +36,8 @@ describe('a tray at once', () => {
         .expect(201);
       ids.push(sling.body.id);
     }
+    // Potted up a week ago: past their settling period (docs/care-rules.md § R16), all due today.
+    await ctx.database.db.update(animals).set({ createdAt: new Date(Date.now() - 7 * 86_400_000) }).where(inArray(animals.id, ids));
     const round = (await keeper.agent.get(`${base}/rounds/today`).expect(200)).body as RoundResponse;
     const tray = round.items.filter((i) => ids.includes(i.animal.id));
     expect(tray).toHaveLength(24);

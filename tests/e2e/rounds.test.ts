@@ -39,10 +39,13 @@ describe('the round screens at 360 × 740', () => {
     await screenshot(page, 'rounds-03-rules');
     await page.getByLabel('Adult (days)', { exact: true }).first().fill('-4');
     await page.getByRole('button', { name: 'Save rules' }).click();
-    await expect.poll(() => page.getByText('The adult interval must be at least 1 day.').isVisible()).toBe(true);
+    await expect.poll(() => page.getByText('The tarantula adult interval must be at least 1 day.').isVisible()).toBe(true);
     await page.getByLabel('Adult (days)', { exact: true }).first().fill('10');
     await page.getByRole('button', { name: 'Save rules' }).click();
     await expect.poll(() => page.getByText(/Rules saved/).isVisible()).toBe(true);
+    // Each group has its own profile, under its own stage names (docs/care-rules.md § Care profiles).
+    await page.getByLabel('Care profile of').selectOption('mantis');
+    expect(await page.getByLabel('Nymph L1–L3 (days)', { exact: true }).first().inputValue()).toBe('2');
 
     await page.getByRole('link', { name: 'Animals' }).click();
     await page.getByRole('link', { name: 'Goliath Jr' }).click();

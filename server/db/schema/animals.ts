@@ -15,6 +15,7 @@ import {
 import {
   ANIMAL_GROUPS,
   ANIMAL_STATUSES,
+  DIETS,
   LIFE_STAGES,
   SEXES,
 } from '../../../shared/domain/animal-facts';
@@ -27,6 +28,7 @@ export const stageEnum = pgEnum('life_stage', LIFE_STAGES);
 export const sexEnum = pgEnum('animal_sex', SEXES);
 export const statusEnum = pgEnum('animal_status', ANIMAL_STATUSES);
 export const breedingRecordEnum = pgEnum('breeding_record', BREEDING_RECORDS);
+export const dietEnum = pgEnum('animal_diet', DIETS);
 
 export const animals = pgTable(
   'animals',
@@ -48,6 +50,8 @@ export const animals = pgTable(
     preyType: text('prey_type'),
     preySize: text('prey_size'),
     preyCount: integer('prey_count'),
+    // What a stage fed "by diet" eats (beetle adults, other); null: the group's usual diet.
+    diet: dietEnum('diet'),
     intervalDays: integer('interval_days'),
     doNotFeedUntil: date('do_not_feed_until'),
     cautions: text('cautions').array().notNull().default([]),

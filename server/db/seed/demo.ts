@@ -4,11 +4,11 @@ import { randomUUID } from 'node:crypto';
 import { eq, inArray } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import type { AnimalGroup, Caution, LifeStage, Sex } from '../../../shared/domain/animal-facts';
-import type { EventKind } from '../../../shared/domain/event-kinds';
 import { breedingFacts, breedingModeOf, type BreedingRecordKind } from '../../../shared/domain/breeding';
+import type { EventKind } from '../../../shared/domain/event-kinds';
 import { generateLabelCodes } from '../../../shared/domain/label-codes';
 import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
-import { DEFAULT_RULES, feedingInterval } from '../../../shared/domain/rounds/rules';
+import { DEFAULT_RULES, feedingInterval, postMoltHoldDays } from '../../../shared/domain/rounds/rules';
 import { hashPassword } from '../../features/auth/passwords';
 import { insertCollection } from '../../features/collections/collections.repository';
 import { refoldStates } from '../../features/rounds/projection';
@@ -105,7 +105,7 @@ function clutch(): DemoAnimal[] {
 
 // Demo history follows the round engine's own defaults (docs/care-rules.md): its intervals (R1)
 // and post-molt holds (R5), so the history obeys the rules it demonstrates.
-const OFFER: Record<LifeStage, { preyType: string; preySize: string; count: number }> = {
+const OFFER: Partial<Record<LifeStage, { preyType: string; preySize: string; count: number }>> = {
   sling: { preyType: 'fruit-fly larvae', preySize: 'tiny', count: 1 },
   juvenile: { preyType: 'cricket', preySize: 'small', count: 1 },
   subadult: { preyType: 'roach nymph', preySize: 'medium', count: 2 },
@@ -123,8 +123,8 @@ interface SeedEvent {
 /** The history of one animal over the last `days` days, ending yesterday or today. */
 export function historyFor(animal: DemoAnimal, today: LocalDate, random: () => number): SeedEvent[] {
   const interval = feedingInterval(DEFAULT_RULES, { ...animal, intervalDays: null });
-  const hold = DEFAULT_RULES.postMoltHoldDays[animal.lifeStage];
-  const offer = OFFER[animal.lifeStage];
+  const hold = postMoltHoldDays(DEFAULT_RULES, animal);
+  const offer = OFFER[animal.lifeStage] ?? OFFER.adult!;
   const out: SeedEvent[] = [];
   const at = (offset: number): LocalDate => addDays(today, offset);
   const by = (): 'owner' | 'partner' => (random() < 0.75 ? 'owner' : 'partner');
@@ -161,7 +161,8 @@ export function historyFor(animal: DemoAnimal, today: LocalDate, random: () => n
     out.push({ kind: refused ? 'refused' : 'ate', day: at(offset), minute: minute(), by: by(), payload: refused ? {} : { ...offer } });
     offset += refused ? Math.max(2, Math.round(interval / 2)) : interval;
   }
-  if (animal.hasWaterDish) {
+  // Dishes topped up, and dish-less slings' substrate moistened (both recorded as watering).
+  if (animal.hasWaterDish || animal.lifeStage === 'sling') {
     // Animals whose story must show on today's round were last watered three days ago.
     const last = animal.story === 'premolt' || animal.story === 'molted_5_days' ? -3 : -1 - Math.floor(random() * 3);
     for (let d = last; d >= -60; d -= 3) out.push({ kind: 'watered', day: at(d), minute: minute(), by: by() });
@@ -242,7 +243,7 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
     const partnerId = idOf(DEMO_ACCOUNTS[1].email);
 
     // The demo flags adults after two refusals (the default is three): a collection's own rule.
-    const collectionId = await insertCollection(tx, { ...DEMO_COLLECTION, rules: { refusalStreak: { adult: 2 } } });
+    const collectionId = await insertCollection(tx, { ...DEMO_COLLECTION, rules: { profiles: { tarantula: { stages: { adult: { refusalStreak: 2 } } } } } });
 
     // The helper covers 7 days from the Friday after today.
     const weekday = new Date(`${today}T12:00:00Z`).getUTCDay();

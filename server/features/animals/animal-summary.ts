@@ -26,6 +26,7 @@ export function toAnimalSummary(
     preyType: a.preyType,
     preySize: a.preySize,
     preyCount: a.preyCount,
+    diet: a.diet,
     doNotFeedUntil: a.doNotFeedUntil,
     statusDate: a.statusDate,
     acquiredOn: a.acquiredOn,

@@ -133,17 +133,20 @@ export function createAnimalsService(db: NodePgDatabase, now: () => Date = () =>
       return this.setStatus(collectionId, animalId, userId, { status: body.status, date: body.date, note: body.note });
     },
 
-    /** One animal or many to one place; each gets a "moved" fact in its history. */
-    async move(collectionId: string, userId: string, { animalIds, locationId }: MoveBody): Promise<number> {
+    /**
+     * One animal or many to one place; each gets a "moved" fact in its history. A rehouse into
+     * a new enclosure is recorded even in the same place: it starts settling (R16).
+     */
+    async move(collectionId: string, userId: string, { animalIds, locationId, rehoused }: MoveBody): Promise<number> {
       const ids = [...new Set(animalIds)];
       return db.transaction(async (tx) => {
         await checkLocation(tx, collectionId, locationId);
         const rows = await tx.select({ id: animals.id, locationId: animals.locationId }).from(animals).where(and(eq(animals.collectionId, collectionId), inArray(animals.id, ids)));
         if (rows.length !== ids.length) throw new HttpError(404, 'not_found', 'Some of these animals are not in this collection. Reload and choose again.');
-        const moving = rows.filter((r) => r.locationId !== locationId);
+        const moving = rehoused ? rows : rows.filter((r) => r.locationId !== locationId);
         if (!moving.length) return 0;
         await tx.update(animals).set({ locationId, updatedAt: now() }).where(inArray(animals.id, moving.map((r) => r.id)));
-        await recordServerEvents(tx, moving.map((r) => ({ collectionId, animalId: r.id, kind: 'moved' as const, payload: { fromLocationId: r.locationId, toLocationId: locationId }, recordedBy: userId })), now());
+        await recordServerEvents(tx, moving.map((r) => ({ collectionId, animalId: r.id, kind: 'moved' as const, payload: { fromLocationId: r.locationId, toLocationId: locationId, ...(rehoused ? { rehoused: true } : {}) }, recordedBy: userId })), now());
         return moving.length;
       });
     },

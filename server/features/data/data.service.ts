@@ -114,6 +114,7 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
             preyType: a.preyType,
             preySize: a.preySize,
             preyCount: a.preyCount,
+            diet: a.diet,
             intervalDays: a.intervalDays,
             doNotFeedUntil: a.doNotFeedUntil,
             cautions: a.cautions,

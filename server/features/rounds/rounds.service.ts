@@ -23,10 +23,10 @@ import {
 } from '../../../shared/domain/rounds/build-round';
 import {
   effectiveRules,
+  postMoltHoldDays,
   type RoundRules,
   type RulesOverride,
 } from '../../../shared/domain/rounds/rules';
-import { postMoltHoldDaysOf } from '../../../shared/domain/rounds/same-day';
 import {
   liveOutcomes,
   progressOf,
@@ -268,7 +268,7 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
         notes: r.item.notes as RoundItem['notes'],
         carriedOverDays: r.item.carriedOverDays,
         addedDuringDay: r.item.addedDuringDay,
-        postMoltHoldDays: postMoltHoldDaysOf(rules, animal),
+        postMoltHoldDays: postMoltHoldDays(rules, animal),
       };
     });
     return { builtAt: row.builtAt, prepList: row.prepList as RoundResponse['prepList'], items };
@@ -342,7 +342,7 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
         c,
         date,
         null,
-        round.items.map((i) => ({ ...i, addedDuringDay: false, postMoltHoldDays: postMoltHoldDaysOf(rules, i.animal) })),
+        round.items.map((i) => ({ ...i, addedDuringDay: false, postMoltHoldDays: postMoltHoldDays(rules, i.animal) })),
         round.prepList,
         new Map(),
       );

@@ -1,4 +1,4 @@
-import { SEX_LABEL, STAGE_LABEL, type Caution, type LifeStage, type Sex } from '../animal-facts';
+import { SEX_LABEL, STAGE_LABEL, stageLabel, type AnimalGroup, type Caution, type LifeStage, type Sex } from '../animal-facts';
 import { labelLayout, type LabelField, type LabelLayout } from './label-layout';
 import { labelUrl } from './label-payload';
 import { makeQrSymbol, type QrSymbol } from './qr-symbol';
@@ -10,6 +10,8 @@ export interface LabelAnimal {
   name: string;
   scientificName: string;
   lifeStage: LifeStage;
+  /** Names the stage in the group's words ("Nymph L1–L3"); the generic name without it. */
+  group?: AnimalGroup;
   sex: Sex;
   cautions: readonly Caution[];
 }
@@ -30,13 +32,14 @@ export interface LabelContent {
 export function labelContent(animal: LabelAnimal, tag: string, origin: string, size: LabelSize, fields: readonly LabelField[]): LabelContent {
   const url = labelUrl(origin, tag, animal.labelCode);
   const symbol = makeQrSymbol(url);
+  const stage = animal.group ? stageLabel(animal.group, animal.lifeStage) : STAGE_LABEL[animal.lifeStage];
   return {
     animalId: animal.id,
     code: animal.labelCode,
     url,
     name: animal.name,
     scientificName: animal.scientificName,
-    stage: animal.sex === 'unknown' ? STAGE_LABEL[animal.lifeStage] : `${STAGE_LABEL[animal.lifeStage]} · ${SEX_LABEL[animal.sex]}`,
+    stage: animal.sex === 'unknown' ? stage : `${stage} · ${SEX_LABEL[animal.sex]}`,
     cautions: animal.cautions,
     symbol,
     layout: labelLayout(size, symbol.size, fields),

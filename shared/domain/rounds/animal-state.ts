@@ -33,6 +33,11 @@ export interface AnimalState {
   /** The last time the keeper looked at the animal without feeding it (check tasks). */
   lastObserved: LocalDate | null;
   lastSkipped: LocalDate | null;
+  /**
+   * R16: rehoused into a new enclosure on this day (a move with `rehoused`), until a meal.
+   * Projections stored before this field existed lack it: read it as `?? null`.
+   */
+  rehousedOn: LocalDate | null;
   /** Instant of the latest event folded in, to tell whether a new event is in order. */
   lastEventAt: string | null;
   lastEventId: string | null;
@@ -51,6 +56,7 @@ export const EMPTY_STATE: AnimalState = {
   rebuildReason: null,
   lastObserved: null,
   lastSkipped: null,
+  rehousedOn: null,
   lastEventAt: null,
   lastEventId: null,
 };
@@ -83,6 +89,7 @@ export function applyEvent(state: AnimalState, event: EngineEvent, zone: string)
       s.refusalStreak = 0;
       s.premoltSince = null;
       s.preyLeftIn = null; // it ate what was offered
+      s.rehousedOn = null; // eating: settled in (R16)
       break;
     case 'refused':
       s.refusalStreak += 1;
@@ -157,6 +164,9 @@ export function applyEvent(state: AnimalState, event: EngineEvent, zone: string)
       break;
     case 'molt_details':
     case 'moved':
+      // A new enclosure, not just a new place on the rack, starts a settling period (R16).
+      if (payload.rehoused === true) s.rehousedOn = day;
+      break;
     case 'status_changed':
     case 'void':
       break;

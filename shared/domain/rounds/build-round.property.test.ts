@@ -1,23 +1,28 @@
 // Properties of the round engine over generated collections and histories (fast-check).
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ANIMAL_GROUPS, LIFE_STAGES } from '../animal-facts';
+import { ANIMAL_GROUPS, DIETS, SEXES, stagesOf } from '../animal-facts';
 import type { EventKind } from '../event-kinds';
 import { addDays, startOfLocalDate } from '../local-dates';
 import { projectState, type EngineEvent } from './animal-state';
-import { buildRound, decideAnimal, type EngineAnimal } from './build-round';
-import { DEFAULT_RULES } from './rules';
+import { buildRound, decideAnimal, FEED_HOLD_CODES, type EngineAnimal } from './build-round';
+import { foodOf } from './care-profiles';
+import { DEFAULT_RULES, postMoltHoldDays } from './rules';
 
 const ZONE = 'America/Toronto';
 const TODAY = '2026-11-02'; // the day after the autumn DST change: histories cross it
-const KINDS: EventKind[] = ['ate', 'ate', 'ate', 'refused', 'refused', 'prey_left_in', 'prey_removed', 'watered', 'molted', 'premolt_seen', 'premolt_cleared', 'molting_now', 'sac_laid', 'sac_pulled', 'sac_hatched', 'case_laid', 'brood_started', 'brood_dispersed', 'paired', 'skipped', 'note'];
+const KINDS: EventKind[] = ['ate', 'ate', 'ate', 'refused', 'refused', 'prey_left_in', 'prey_removed', 'watered', 'molted', 'premolt_seen', 'premolt_cleared', 'molting_now', 'sac_laid', 'sac_pulled', 'sac_hatched', 'case_laid', 'brood_started', 'brood_dispersed', 'paired', 'skipped', 'note', 'moved'];
 
 const animalArb = (i: number) =>
   fc.record({
-    lifeStage: fc.constantFrom(...LIFE_STAGES),
-    group: fc.constantFrom(...ANIMAL_GROUPS),
+    // Any group, in a stage that group has (docs/care-rules.md § Stages).
+    groupAndStage: fc.constantFrom(...ANIMAL_GROUPS).chain((group) => fc.tuple(fc.constant(group), fc.constantFrom(...stagesOf(group)))),
+    sex: fc.constantFrom(...SEXES),
+    diet: fc.option(fc.constantFrom(...DIETS)),
     hasWaterDish: fc.boolean(),
-    sizeMm: fc.integer({ min: 5, max: 200 }),
+    sizeMm: fc.option(fc.integer({ min: 5, max: 200 }), { freq: 5 }),
+    doNotFeedUntil: fc.option(fc.integer({ min: -3, max: 5 }).map((d) => addDays(TODAY, d)), { freq: 3 }),
+    addedDaysAgo: fc.integer({ min: 0, max: 70 }),
     rack: fc.constantFrom('A', 'B', 'C'),
     shelf: fc.integer({ min: 1, max: 12 }),
     position: fc.integer({ min: 1, max: 12 }),
@@ -27,9 +32,9 @@ const animalArb = (i: number) =>
       labelCode: `NL-${i}`,
       name: `A${i}`,
       scientificName: 'Tliltocatl albopilosus',
-      group: r.group,
-      lifeStage: r.lifeStage,
-      sex: 'female',
+      group: r.groupAndStage[0],
+      lifeStage: r.groupAndStage[1],
+      sex: r.sex,
       sizeMm: r.sizeMm,
       status: 'active',
       cautions: [],
@@ -39,8 +44,9 @@ const animalArb = (i: number) =>
       preyType: null,
       preySize: null,
       preyCount: null,
-      doNotFeedUntil: null,
-      addedOn: '2026-09-01',
+      diet: r.diet,
+      doNotFeedUntil: r.doNotFeedUntil,
+      addedOn: addDays(TODAY, -r.addedDaysAgo),
     }),
   );
 
@@ -51,6 +57,7 @@ const historyArb = (animalIndex: number) =>
       daysAgo: fc.integer({ min: 1, max: 60 }),
       minute: fc.integer({ min: 0, max: 1439 }),
       prey: fc.constantFrom('cricket', 'roach nymph', 'mealworm'),
+      rehoused: fc.boolean(),
     }),
     { maxLength: 25 },
   ).map((list) =>
@@ -59,7 +66,7 @@ const historyArb = (animalIndex: number) =>
         id: `e${animalIndex}-${j}`,
         kind: e.kind,
         effectiveAt: new Date(startOfLocalDate(addDays(TODAY, -e.daysAgo), ZONE).getTime() + e.minute * 60_000).toISOString(),
-        payload: e.kind === 'prey_left_in' ? { preyType: e.prey } : {},
+        payload: e.kind === 'prey_left_in' ? { preyType: e.prey } : e.kind === 'moved' ? { toLocationId: 'l', rehoused: e.rehoused } : {},
       }),
     ),
   );
@@ -77,19 +84,33 @@ function build(collection: [EngineAnimal, EngineEvent[]][], date = TODAY) {
 }
 
 describe('round engine properties', () => {
-  it('never offers food during a post-molt hold, premolt, molting-now or leave-alone', () => {
+  it('never offers food while a hold applies (R4, R5, R11, R16, do-not-feed, stages not fed), for any group and state', () => {
     fc.assert(
       fc.property(collectionArb, (collection) => {
-        for (const item of build(collection).items) {
-          const events = collection.find(([a]) => a.id === item.animal.id)![1];
+        for (const [animal, events] of collection) {
           const state = projectState(events, ZONE);
-          const feeds = item.tasks.some((t) => t.kind === 'feed');
-          const holdEnd = state.lastMolt ? addDays(state.lastMolt, DEFAULT_RULES.postMoltHoldDays[item.animal.lifeStage]) : null;
-          if (holdEnd && TODAY < holdEnd) expect(feeds).toBe(false);
-          if (state.premoltSince) expect(feeds).toBe(false);
+          const d = decideAnimal(animal, state, DEFAULT_RULES, TODAY);
+          const feeds = d.tasks.some((t) => t.kind === 'feed');
+          // Each hold worked out here from the state, independently of the engine's reasons.
+          const holdDays = postMoltHoldDays(DEFAULT_RULES, animal);
+          const holdEnd = state.lastMolt && holdDays > 0 ? addDays(state.lastMolt, holdDays) : null;
+          const settleFrom = [state.rehousedOn, state.lastMeal ? null : animal.addedOn].filter((x): x is string => !!x).sort().at(-1);
+          const holds = {
+            postMolt: !!holdEnd && TODAY < holdEnd,
+            premolt: state.premoltSince !== null,
+            leaveAlone: state.leaveAlone !== null,
+            doNotFeed: !!animal.doNotFeedUntil && TODAY < animal.doNotFeedUntil,
+            settling: !!settleFrom && TODAY < addDays(settleFrom, DEFAULT_RULES.settlingDays),
+            notFed: foodOf(animal) === 'none' || foodOf(animal) === 'substrate',
+          };
+          for (const [hold, applies] of Object.entries(holds)) if (applies) expect(feeds, `${hold} for ${animal.group} ${animal.lifeStage}`).toBe(false);
           // R11 amended: a guarding female's dish is still topped up quietly; a molting animal gets nothing.
           const quietWater = (t: { kind: string }) => t.kind === 'water' && state.leaveAlone!.reason !== 'molting';
-          if (state.leaveAlone) expect(item.tasks.every((t) => t.kind === 'leave_alone' || t.kind === 'remove_prey' || quietWater(t))).toBe(true);
+          if (state.leaveAlone) expect(d.tasks.every((t) => t.kind === 'leave_alone' || t.kind === 'remove_prey' || quietWater(t))).toBe(true);
+          // Whatever the engine names as a hold (the set R18 withdraws by) comes with no feed task.
+          if ([...d.notes, ...d.tasks.flatMap((t) => t.reasons)].some((r) => FEED_HOLD_CODES.has(r.code))) expect(feeds).toBe(false);
+          // R17: a mature male is never flagged as possible premolt.
+          if (animal.sex === 'mature_male') expect(d.notes.some((n) => n.code === 'possible_premolt')).toBe(false);
         }
       }),
       { numRuns: 300 },

@@ -1,7 +1,9 @@
-// Worked cases for each rule of the round engine (husbandry rules R1–R15).
+// Worked cases for each rule of the round engine (docs/care-rules.md § R1–R20).
 // Sources: where the rules say "common practice", no zoo, lab or university source was found;
-// that is written beside the test as "common practice, no published source".
+// that is written beside the test as "common practice, no published source"; "from memory" marks
+// values the team wrote down without a document. Per-group profiles: care-profiles.test.ts.
 import { describe, expect, it } from 'vitest';
+import { engineAnimal, eventOn } from '../../../tests/fixtures/engine-animal';
 import type { EventKind } from '../event-kinds';
 import { startOfLocalDate } from '../local-dates';
 import { projectState, type EngineEvent } from './animal-state';
@@ -11,36 +13,8 @@ import { DEFAULT_RULES, effectiveRules } from './rules';
 const ZONE = 'America/Toronto';
 const TODAY = '2026-03-20';
 
-let seq = 0;
-function animal(overrides: Partial<EngineAnimal> = {}): EngineAnimal {
-  seq += 1;
-  return {
-    id: `animal-${seq}`,
-    labelCode: `NL-${String(seq).padStart(3, '2')}`,
-    name: `Animal ${seq}`,
-    scientificName: 'Tliltocatl albopilosus',
-    group: 'tarantula',
-    lifeStage: 'adult',
-    sex: 'female',
-    sizeMm: 120,
-    status: 'active',
-    cautions: [],
-    location: { id: `loc-${seq}`, room: 'Spare room', rack: 'A', shelf: '1', position: String(seq), walkOrder: 0 },
-    hasWaterDish: false,
-    intervalDays: null,
-    preyType: null,
-    preySize: null,
-    preyCount: null,
-    doNotFeedUntil: null,
-    addedOn: null,
-    ...overrides,
-  };
-}
-
-/** An event at 19:00 local time on `date`. */
-function ev(kind: EventKind, date: string, payload: Record<string, unknown> = {}, id = `${kind}-${date}-${seq++}`): EngineEvent {
-  return { id, kind, effectiveAt: new Date(startOfLocalDate(date, ZONE).getTime() + 19 * 3600_000).toISOString(), payload };
-}
+const animal = engineAnimal;
+const ev = (kind: EventKind, date: string, payload: Record<string, unknown> = {}, id?: string) => eventOn(kind, date, ZONE, payload, id);
 
 function decide(a: EngineAnimal, events: EngineEvent[], date = TODAY, rules = DEFAULT_RULES) {
   return decideAnimal(a, projectState(events, ZONE), rules, date);
@@ -75,8 +49,8 @@ describe('R1 interval by life stage (common practice, no published source; pet-c
     expect(decide(animal(), []).tasks[0]!.reasons[0]!.text).toBe('No meal recorded yet.');
   });
   it('honours a collection’s own interval', () => {
-    const rules = effectiveRules({ intervalDays: { adult: 7 } });
-    expect(rules.intervalDays.juvenile).toBe(6);
+    const rules = effectiveRules({ profiles: { tarantula: { stages: { adult: { feedEveryDays: 7 } } } } });
+    expect(rules.profiles.tarantula.stages.juvenile!.feedEveryDays).toBe(6); // the rest stays default
     expect(decide(animal(), [ev('ate', '2026-03-13')], TODAY, rules).nextFeed).toBe('2026-03-20');
   });
 });
@@ -114,7 +88,7 @@ describe('R3 refusal streak → possible premolt (common practice, no published 
     expect(decide(juvenile, [...events, ev('ate', '2026-03-14')]).notes.map((n) => n.code)).not.toContain('possible_premolt');
   });
   it('follows a collection that flags adults after 2 refusals', () => {
-    const rules = effectiveRules({ refusalStreak: { adult: 2 } });
+    const rules = effectiveRules({ profiles: { tarantula: { stages: { adult: { refusalStreak: 2 } } } } });
     const d = decide(animal(), [ev('ate', '2026-02-20'), ev('refused', '2026-03-06'), ev('refused', '2026-03-13')], TODAY, rules);
     expect(d.notes[0]!.text).toBe('2 refusals in a row (last on 13 Mar): possible premolt, so no food is offered.');
   });
@@ -157,7 +131,8 @@ describe('R6 prey left in (common practice, no published source)', () => {
   it('removes prey from a sling first thing, and a removed prey counts as a refusal', () => {
     const sling = animal({ lifeStage: 'sling', sizeMm: 12 });
     const d = decide(sling, [ev('ate', '2026-03-15'), ev('prey_left_in', '2026-03-19', { preyType: 'fruit-fly larvae' })]);
-    expect(kinds(d.tasks)).toEqual(['remove_prey']);
+    // R7: a sling without a dish also has its substrate moistened (added with care profiles).
+    expect(kinds(d.tasks)).toEqual(['remove_prey', 'water']);
     expect(d.tasks[0]!.reasons[0]!.text).toMatch(/slings are not left with live prey/);
     const after = decide(sling, [ev('ate', '2026-03-15'), ev('prey_left_in', '2026-03-19'), ev('prey_removed', '2026-03-20')], '2026-03-22');
     expect(after.tasks[0]!.reasons[0]!.code).toBe('due_refusal_retry');
@@ -168,12 +143,24 @@ describe('R6 prey left in (common practice, no published source)', () => {
   });
 });
 
-describe('R7 water (common practice, no published source; a dish from about 7.5 cm leg span)', () => {
-  it('tops up a dish every 3 days; animals without a dish never get a water task', () => {
+describe('R7 water (common practice, no published source; a dish from about 7.5 cm leg span and the 4-day moistening are from memory)', () => {
+  it('tops up a dish every 3 days', () => {
     const withDish = animal({ hasWaterDish: true });
     expect(kinds(decide(withDish, [ev('ate', '2026-03-19'), ev('watered', '2026-03-17')]).tasks)).toEqual(['water']);
     expect(decide(withDish, [ev('ate', '2026-03-19'), ev('watered', '2026-03-18')]).tasks).toEqual([]);
-    expect(decide(animal({ lifeStage: 'sling', sizeMm: 12 }), [ev('ate', '2026-03-19')]).tasks).toEqual([]);
+    expect(decide(withDish, [ev('ate', '2026-03-19'), ev('watered', '2026-03-17')]).tasks[0]!.reasons[0]!.text).toBe('Water every 3 days: last topped up on 17 Mar.');
+  });
+  it('gives a tarantula sling without a dish "moisten the substrate" every 4 days instead (a dish is a drowning risk)', () => {
+    const sling = animal({ lifeStage: 'sling', sizeMm: 12 });
+    const d = decide(sling, [ev('ate', '2026-03-19'), ev('watered', '2026-03-16')]);
+    expect(kinds(d.tasks)).toEqual(['water']); // kind "water": settled by Watered
+    expect(d.tasks[0]!.reasons[0]).toMatchObject({ code: 'moisten_substrate', text: 'No dish at this size: moisten part of the substrate every 4 days (last on 16 Mar).' });
+    expect(decide(sling, [ev('ate', '2026-03-19'), ev('watered', '2026-03-17')]).tasks).toEqual([]);
+    expect(decide(sling, [ev('ate', '2026-03-19'), ev('watered', '2026-03-17')]).nextWater).toBe('2026-03-21');
+  });
+  it('leaves a tarantula of 7.5 cm or more without a dish alone (an arid keeper’s choice)', () => {
+    expect(decide(animal({ sizeMm: 75 }), [ev('ate', '2026-03-19')]).tasks).toEqual([]);
+    expect(kinds(decide(animal({ sizeMm: 74 }), [ev('ate', '2026-03-19')]).tasks)).toEqual(['water']);
   });
 });
 
@@ -216,13 +203,14 @@ describe('R10 no double meal', () => {
   it('never schedules food for an animal that ate within min(interval, 2) days, even after an off-schedule meal', () => {
     // A collection that retries slings the next day; a helper fed in the morning, the owner's
     // offer in the evening was refused: the retry would fall tomorrow, R10 holds it back.
-    const rules = effectiveRules({ refusalRetryDays: { sling: 1 } });
+    const rules = effectiveRules({ profiles: { tarantula: { stages: { sling: { refusalRetryDays: 1 } } } } });
     const sling = animal({ lifeStage: 'sling', sizeMm: 10 });
     const morning = { ...ev('ate', '2026-03-19'), effectiveAt: new Date(startOfLocalDate('2026-03-19', ZONE).getTime() + 8 * 3600_000).toISOString() };
     const d = decide(sling, [morning, ev('refused', '2026-03-19')], TODAY, rules);
-    expect(d.tasks).toEqual([]);
+    expect(kinds(d.tasks)).toEqual(['water']); // moisten the substrate (R7), no food
+    expect(d.notes.map((n) => n.code)).toContain('no_double_meal');
     expect(d.notes.map((n) => n.text)).toContain('Ate on 19 Mar: never two meals within 2 days.');
-    expect(kinds(decide(sling, [morning, ev('refused', '2026-03-19')], '2026-03-21', rules).tasks)).toEqual(['feed']);
+    expect(kinds(decide(sling, [morning, ev('refused', '2026-03-19')], '2026-03-21', rules).tasks)).toEqual(['feed', 'water']);
   });
 });
 
@@ -289,6 +277,76 @@ describe('R15 prep list', () => {
       { preyType: 'cricket', preySize: 'large', countMin: 2, countMax: 6, animals: 2 },
       { preyType: 'fruit-fly larvae', preySize: 'tiny', countMin: 2, countMax: 2, animals: 2 },
     ]);
+  });
+});
+
+describe('R16 settling (common practice, no published source; 3 days from memory)', () => {
+  it('holds food for 3 days after an animal joins the collection, then its first meal is due', () => {
+    const arrival = animal({ addedOn: '2026-03-18', hasWaterDish: true });
+    const d = decide(arrival, []);
+    expect(kinds(d.tasks)).toEqual(['water']); // water continues while settling
+    expect(d.notes[0]).toMatchObject({ code: 'settling', text: 'Settling in since it joined the collection on 18 Mar: no food until 21 Mar.' });
+    expect(d.nextFeed).toBe('2026-03-21');
+    const due = decide(arrival, [], '2026-03-21');
+    expect(due.tasks[0]).toMatchObject({ kind: 'feed', carriedOverDays: 0 }); // counted from the end of settling
+    expect(due.tasks[0]!.reasons[0]!.text).toBe('No meal recorded yet.');
+  });
+  it('settles slings potted up today the same way (they are added on the day they are potted)', () => {
+    const potted = animal({ lifeStage: 'sling', sizeMm: 12, addedOn: TODAY });
+    expect(decide(potted, []).notes.map((n) => n.code)).toContain('settling');
+    expect(decide(potted, []).tasks.some((t) => t.kind === 'feed')).toBe(false);
+  });
+  it('starts settling after a rehouse into a new enclosure, not after a move on the rack', () => {
+    const a = animal();
+    const history = [ev('ate', '2026-02-20')];
+    const rehoused = decide(a, [...history, ev('moved', '2026-03-19', { toLocationId: 'x', rehoused: true })]);
+    expect(rehoused.tasks).toEqual([]);
+    expect(rehoused.notes[0]!.text).toBe('Settling in after a move to a new enclosure on 19 Mar: no food until 22 Mar.');
+    expect(decide(a, [...history, ev('moved', '2026-03-19', { toLocationId: 'x' })]).tasks[0]!.kind).toBe('feed');
+    // Over on the third day: the overdue meal is due again, counted from then.
+    const after = decide(a, [...history, ev('moved', '2026-03-19', { toLocationId: 'x', rehoused: true })], '2026-03-23');
+    expect(after.tasks[0]).toMatchObject({ kind: 'feed', carriedOverDays: 1 });
+  });
+  it('ends when the animal eats, and follows a collection’s own period (0 turns it off)', () => {
+    expect(decide(animal({ addedOn: '2026-03-19' }), [ev('ate', '2026-03-19')], TODAY).notes.map((n) => n.code)).not.toContain('settling');
+    expect(kinds(decide(animal({ addedOn: '2026-03-19' }), [], TODAY, effectiveRules({ settlingDays: 0 })).tasks)).toEqual(['feed']);
+    expect(decide(animal({ addedOn: '2026-03-15' }), [], TODAY, effectiveRules({ settlingDays: 7 })).notes[0]!.code).toBe('settling');
+  });
+});
+
+describe('R17 mature males and adults that no longer molt (common practice; which adults molt: arthropod biology, from memory)', () => {
+  it('never flags a mature male’s refusals as premolt, and says refusing is normal', () => {
+    const male = animal({ sex: 'mature_male' });
+    const refusals = [ev('ate', '2026-02-01'), ev('refused', '2026-02-20'), ev('refused', '2026-02-27'), ev('refused', '2026-03-06'), ev('refused', '2026-03-13')];
+    const d = decide(male, refusals);
+    expect(d.notes.map((n) => n.code)).not.toContain('possible_premolt');
+    expect(d.notes.map((n) => n.text)).toContain('Mature male: refusing food is normal, and he will not molt again.');
+    expect(d.tasks[0]!.reasons[0]!.code).toBe('due_refusal_retry'); // offered again 7 days on, as R2 says
+    expect(d.tasks.some((t) => t.kind === 'check')).toBe(false); // no premolt check either
+    // A female with the same history is flagged (R3), so the difference is the sex.
+    expect(decide(animal(), refusals).notes.map((n) => n.code)).toContain('possible_premolt');
+  });
+  it('honours a premolt the keeper marks by hand even on a mature male (R4)', () => {
+    expect(decide(animal({ sex: 'mature_male' }), [ev('premolt_seen', '2026-03-18')]).notes.map((n) => n.code)).toContain('premolt');
+  });
+});
+
+describe('R20 prey allowed to stay (common practice, no published source; 2 days from memory)', () => {
+  it('lets an adult keep a roach for 2 days, then puts a "check or remove" task on the round', () => {
+    const events = [ev('ate', '2026-03-01'), ev('prey_left_in', '2026-03-18', { preyType: 'roach' })];
+    const note = decide(animal(), events, '2026-03-19');
+    expect(note.tasks).toEqual([]);
+    expect(note.notes[0]!.text).toBe('A roach left in on 18 Mar may stay with an adult outside the molt cycle: check on it on 20 Mar.');
+    const check = decide(animal(), events, '2026-03-20');
+    expect(check.tasks).toHaveLength(1);
+    expect(check.tasks[0]).toMatchObject({ kind: 'remove_prey', carriedOverDays: 0 });
+    expect(check.tasks[0]!.reasons[0]).toMatchObject({ code: 'check_prey', dates: ['2026-03-18', '2026-03-20'] });
+    expect(decide(animal(), events, '2026-03-22').tasks[0]!.carriedOverDays).toBe(2); // stays until done (R9)
+    expect(decide(animal(), [...events, ev('ate', '2026-03-20')], '2026-03-21').tasks).toEqual([]); // found eaten
+  });
+  it('follows a collection’s own check-by period', () => {
+    const events = [ev('ate', '2026-03-01'), ev('prey_left_in', '2026-03-18', { preyType: 'roach' })];
+    expect(decide(animal(), events, '2026-03-20', effectiveRules({ preyStayCheckDays: 4 })).tasks).toEqual([]);
   });
 });
 

@@ -1,8 +1,13 @@
-import type { AnimalGroup, AnimalStatus, Caution, LifeStage, Sex } from '../animal-facts';
+import type { AnimalGroup, AnimalStatus, Caution, Diet, LifeStage, Sex } from '../animal-facts';
 import { addDays, daysBetween, type LocalDate } from '../local-dates';
 import { compareKeys, naturalKey, shelfKey, type Place } from '../walk-order';
 import type { AnimalState } from './animal-state';
-import { feedingInterval, TINY_SLING_OFFER, type Offer, type RoundRules } from './rules';
+import { canMolt, DIET_FOOD, foodOf, GROUP_CARE, type Food } from './care-profiles';
+import { feederLength, type Feeder } from './feeders';
+import { offerFor } from './offer';
+import { feedingInterval, postMoltHoldDays, stageCare, type Offer, type RoundRules } from './rules';
+
+export { offerFor } from './offer';
 
 export interface EngineAnimal {
   id: string;
@@ -21,10 +26,15 @@ export interface EngineAnimal {
   preyType: string | null;
   preySize: string | null;
   preyCount: number | null;
+  /** What a stage fed "by diet" eats (beetle adults, other); null: the group's usual diet. */
+  diet?: Diet | null;
   doNotFeedUntil: LocalDate | null;
   /** Where the hold comes from: a handover note names its last day, a keeper's setting its first fed day. */
   doNotFeedBy?: 'keeper' | 'handover';
-  /** The date the animal joined the collection in Rackside: a first meal is due from then. */
+  /**
+   * The date the animal joined the collection in Rackside (arrival or potting up): a settling
+   * period (R16), then a first meal. Only given for an animal never fed.
+   */
   addedOn: LocalDate | null;
 }
 
@@ -39,20 +49,32 @@ export type ReasonCode =
   | 'premolt'
   | 'possible_premolt'
   | 'check_premolt'
+  | 'check_substrate'
   | 'do_not_feed'
+  | 'settling'
+  | 'not_feeding_yet'
+  | 'on_mother'
+  | 'pupa'
   | 'no_double_meal'
   | 'prey_inside'
   | 'remove_prey'
   | 'prey_may_stay'
+  | 'check_prey'
   | 'water_due'
+  | 'moisten_substrate'
+  | 'mist_due'
   | 'leave_alone'
+  | 'mature_male'
+  | 'no_more_molts'
+  | 'hanging_room'
   | 'inactive'
   | 'not_due';
 
 /**
- * Reasons that withhold food (R4, R3, R5, R11, handover and keeper holds): when one of them
- * starts during the day, that day's open feed task is withdrawn with the reason in its place
- * (R18). "No double meal" and "prey inside" are not holds: they settle, they do not forbid.
+ * Reasons that withhold food (R4, R3, R5, R11, R16, handover and keeper holds, stages that are
+ * not fed): when one of them starts during the day, that day's open feed task is withdrawn with
+ * the reason in its place (R18). "No double meal" and "prey inside" are not holds: they settle,
+ * they do not forbid.
  */
 export const FEED_HOLD_CODES: ReadonlySet<ReasonCode> = new Set<ReasonCode>([
   'premolt',
@@ -60,6 +82,10 @@ export const FEED_HOLD_CODES: ReadonlySet<ReasonCode> = new Set<ReasonCode>([
   'post_molt_hold',
   'do_not_feed',
   'leave_alone',
+  'settling',
+  'not_feeding_yet',
+  'on_mother',
+  'pupa',
 ]);
 
 /** Why a task is on the round, or why food is held back: a code, a sentence, its dates. */
@@ -84,7 +110,7 @@ export interface RoundTask {
 export interface AnimalDecision {
   animal: EngineAnimal;
   tasks: RoundTask[];
-  /** Context that is not a task: holds, flags, "prey may stay". */
+  /** Context that is not a task: holds, flags, "prey may stay", care notes. */
   notes: Reason[];
   nextFeed: LocalDate | null;
   nextWater: LocalDate | null;
@@ -119,61 +145,188 @@ export function shortDate(date: LocalDate): string {
 
 const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? '' : 's'}`;
 const later = (a: LocalDate, b: LocalDate) => (a > b ? a : b);
+const latest = (...dates: (LocalDate | null | undefined)[]): LocalDate | null =>
+  dates.reduce<LocalDate | null>((best, d) => (d && (!best || d > best) ? d : best), null);
+const carriedFrom = (due: LocalDate, date: LocalDate) => Math.max(0, daysBetween(due, date));
+
+/** A keeper's hold names the first day food may be offered; a handover note its last held day. */
+function doNotFeedText(animal: EngineAnimal): string {
+  const until = animal.doNotFeedUntil!;
+  return animal.doNotFeedBy === 'handover'
+    ? `Handover note: do not feed through ${shortDate(addDays(until, -1))}.`
+    : `Do not feed until ${shortDate(until)} (keeper's setting).`;
+}
 
 function isRoach(preyType: string | null): boolean {
   return !!preyType && /roach/i.test(preyType);
 }
 
-/** R13: the animal's own offer, else the stage default (tiny slings get the tiniest prey). */
-export function offerFor(animal: EngineAnimal, rules: RoundRules): Offer {
-  const base =
-    animal.lifeStage === 'sling' && animal.sizeMm !== null && animal.sizeMm < rules.tinySlingMm
-      ? TINY_SLING_OFFER
-      : rules.offers[animal.lifeStage];
-  return {
-    preyType: animal.preyType ?? base.preyType,
-    preySize: animal.preySize ?? base.preySize,
-    countMin: animal.preyCount ?? base.countMin,
-    countMax: animal.preyCount ?? base.countMax,
-  };
+/** Everything one decision needs, worked out once (docs/care-rules.md names each rule). */
+interface Situation {
+  animal: EngineAnimal;
+  state: AnimalState;
+  rules: RoundRules;
+  date: LocalDate;
+  /** § Care profiles: what the animal eats at its stage. */
+  food: Food;
+  /** R5: the end of the post-molt hold, when a molt is recorded and the stage has a hold. */
+  holdEnd: LocalDate | null;
+  inHold: boolean;
+  /** R4: premolt seen by the keeper. */
+  premolt: boolean;
+  /** R3 and R17: enough refusals in a row, for an animal that can still molt. */
+  possiblePremolt: boolean;
 }
 
-/** Why uneaten prey must come out (R4, R6, R11), or null when it may stay. */
-function removalCause(
-  animal: EngineAnimal,
-  state: AnimalState,
-  flags: { premolt: boolean; possiblePremolt: boolean; inHold: boolean },
-): string | null {
-  if (state.leaveAlone?.reason === 'molting')
-    return 'it is molting: live prey can injure a molting animal';
-  if (flags.premolt) return 'premolt: live prey can injure a molting animal';
-  if (flags.possiblePremolt) return 'possible premolt: live prey can injure a molting animal';
-  if (flags.inHold) return 'post-molt hold: the fangs are still soft';
+function situationOf(animal: EngineAnimal, state: AnimalState, rules: RoundRules, date: LocalDate): Situation {
+  const food = foodOf(animal);
+  const holdDays = postMoltHoldDays(rules, animal);
+  const holdEnd = state.lastMolt && holdDays > 0 ? addDays(state.lastMolt, holdDays) : null;
+  const premolt = state.premoltSince !== null;
+  const possiblePremolt =
+    food === 'prey' && canMolt(animal) && !premolt && state.refusalStreak >= stageCare(rules, animal).refusalStreak;
+  return { animal, state, rules, date, food, holdEnd, inHold: !!holdEnd && date < holdEnd, premolt, possiblePremolt };
+}
+
+/** Why uneaten prey must come out (R4, R6, R11), or null when it may stay (R6, R20). */
+function removalCause(s: Situation): string | null {
+  const { animal, state } = s;
+  if (state.leaveAlone?.reason === 'molting') return 'it is molting: live prey can injure a molting animal';
+  if (s.premolt) return 'premolt: live prey can injure a molting animal';
+  if (s.possiblePremolt) return 'possible premolt: live prey can injure a molting animal';
+  if (s.inHold) return 'post-molt hold: the fangs are still soft';
+  if (s.food === 'none') return 'it does not eat at this stage';
   if (animal.lifeStage === 'sling') return 'slings are not left with live prey';
-  if (!isRoach(state.preyLeftIn?.preyType ?? null))
-    return 'uneaten live prey can stress or bite the animal';
+  if (!isRoach(state.preyLeftIn?.preyType ?? null)) return 'uneaten live prey can stress or bite the animal';
   if (animal.lifeStage !== 'adult') return 'only an adult may keep a roach in with it';
   return null;
 }
 
-const LEAVE_ALONE_WORDS: Record<NonNullable<AnimalState['leaveAlone']>['reason'], string> = {
-  molting: 'Molting',
-  guarding_sac: 'Guarding an egg sac',
-  guarding_brood: 'Guarding her brood',
-};
-
-/** R11 amended: a guarding female's dish, topped up quietly when due (R7's days). */
-function quietWater(decision: AnimalDecision, state: AnimalState, rules: RoundRules, date: LocalDate) {
-  if (!decision.animal.hasWaterDish) return;
-  const due = state.lastWatered ? addDays(state.lastWatered, rules.waterEveryDays) : date;
-  decision.nextWater = due;
-  if (due > date) return;
-  const last = state.lastWatered ? `last topped up on ${shortDate(state.lastWatered)}` : 'no watering recorded yet';
-  decision.tasks.push({
-    kind: 'water',
-    reasons: [{ code: 'water_due', text: `Water (${last}): top up quietly, do not disturb her.`, dates: state.lastWatered ? [state.lastWatered] : [] }],
-    carriedOverDays: state.lastWatered ? Math.max(0, daysBetween(due, date)) : 0,
+/** R4, R6, R11, R20: live prey still inside — out it comes, or it may stay and is checked. */
+function decidePreyInside(d: AnimalDecision, s: Situation) {
+  const inside = s.state.preyLeftIn;
+  // Fruit, plant food and leaf litter stay in by design; a larva's food is its substrate.
+  if (!inside || (s.food !== 'prey' && s.food !== 'none')) return;
+  const { since } = inside;
+  const cause = removalCause(s);
+  if (cause) {
+    d.tasks.push({
+      kind: 'remove_prey',
+      reasons: [{ code: 'remove_prey', text: `Prey left in on ${shortDate(since)}: remove it (${cause}).`, dates: [since] }],
+      carriedOverDays: carriedFrom(addDays(since, 1), s.date),
+    });
+    return;
+  }
+  const checkOn = addDays(since, s.rules.preyStayCheckDays);
+  if (s.date < checkOn) {
+    d.notes.push({
+      code: 'prey_may_stay',
+      text: `A roach left in on ${shortDate(since)} may stay with an adult outside the molt cycle: check on it on ${shortDate(checkOn)}.`,
+      dates: [since, checkOn],
+    });
+    return;
+  }
+  d.tasks.push({
+    kind: 'remove_prey',
+    reasons: [
+      {
+        code: 'check_prey',
+        text: `A roach left in on ${shortDate(since)} was allowed to stay: check it now — record Ate if it is gone, or take it out.`,
+        dates: [since, checkOn],
+      },
+    ],
+    carriedOverDays: carriedFrom(checkOn, s.date),
   });
+}
+
+/** What a female guarding eggs or young is doing, in her group's words (R11). */
+function guardingWords(group: AnimalGroup): string {
+  if (group === 'centipede') return 'Brooding her eggs';
+  if (group === 'scorpion') return 'Carrying her brood';
+  return 'Guarding an egg sac';
+}
+
+/** R11 and § Care profiles (pupa): left alone — no food, no water, no disturbance. */
+function leaveAloneReason(s: Situation): Reason | null {
+  const { state, animal } = s;
+  if (state.leaveAlone) {
+    const { reason, since } = state.leaveAlone;
+    const what = reason === 'molting' ? 'Molting' : guardingWords(animal.group);
+    return { code: 'leave_alone', text: `${what} since ${shortDate(since)}: leave alone — no food, no disturbance.`, dates: [since] };
+  }
+  if (animal.lifeStage === 'pupa' && s.food === 'none')
+    return { code: 'pupa', text: 'Pupa: leave it alone in its chamber — no food, no digging, until the adult comes out.', dates: [] };
+  return null;
+}
+
+/** § Stages: first instars and scorplings on the mother are not fed (R16's sibling rule). */
+function notFedReason(s: Situation): Reason | null {
+  if (s.food !== 'none') return null;
+  if (s.animal.group === 'scorpion')
+    return { code: 'on_mother', text: 'Scorpling on its mother’s back: not fed until its first molt and it leaves her.', dates: [] };
+  return { code: 'not_feeding_yet', text: 'First instar: it lives on its yolk and does not eat until its next molt — no food yet.', dates: [] };
+}
+
+/** R16: settling in after arrival, potting up or a rehouse. Null when not settling. */
+function settlingOf(s: Situation): { since: LocalDate; until: LocalDate; rehoused: boolean } | null {
+  const rehousedOn = s.state.rehousedOn ?? null;
+  // The join date only counts for an animal never fed: a meal means it has settled.
+  const arrived = s.state.lastMeal ? null : s.animal.addedOn;
+  const since = latest(rehousedOn, arrived);
+  if (!since || s.rules.settlingDays <= 0) return null;
+  return { since, until: addDays(since, s.rules.settlingDays), rehoused: since === rehousedOn };
+}
+
+/** Everything that withholds food today (R3, R4, R5, R16, keeper and handover holds, R6). */
+function feedBlockers(s: Situation): Reason[] {
+  const { state, animal, date } = s;
+  const blockers: Reason[] = [];
+  if (s.premolt) {
+    blockers.push({
+      code: 'premolt',
+      text: `Premolt seen on ${shortDate(state.premoltSince!)}: no food until it molts; water continues.`,
+      dates: [state.premoltSince!],
+    });
+  }
+  if (s.possiblePremolt) {
+    blockers.push({
+      code: 'possible_premolt',
+      text: `${state.refusalStreak} refusals in a row (last on ${shortDate(state.lastRefusal!)}): possible premolt, so no food is offered.`,
+      dates: [state.lastRefusal!],
+    });
+  }
+  if (s.inHold) {
+    blockers.push({
+      code: 'post_molt_hold',
+      text: `Post-molt hold until ${shortDate(s.holdEnd!)} (molted on ${shortDate(state.lastMolt!)}): no food while the fangs harden.`,
+      dates: [s.holdEnd!, state.lastMolt!],
+    });
+  }
+  const settling = settlingOf(s);
+  if (settling && date < settling.until) {
+    blockers.push({
+      code: 'settling',
+      text: settling.rehoused
+        ? `Settling in after a move to a new enclosure on ${shortDate(settling.since)}: no food until ${shortDate(settling.until)}.`
+        : `Settling in since it joined the collection on ${shortDate(settling.since)}: no food until ${shortDate(settling.until)}.`,
+      dates: [settling.until, settling.since],
+    });
+  }
+  if (animal.doNotFeedUntil && date < animal.doNotFeedUntil) {
+    blockers.push({
+      code: 'do_not_feed',
+      text: doNotFeedText(animal),
+      dates: [animal.doNotFeedUntil],
+    });
+  }
+  if (state.preyLeftIn && s.food === 'prey') {
+    blockers.push({
+      code: 'prey_inside',
+      text: `Prey from ${shortDate(state.preyLeftIn.since)} is still inside: no new food.`,
+      dates: [state.preyLeftIn.since],
+    });
+  }
+  return blockers;
 }
 
 const REBUILD_WORDS: Record<NonNullable<AnimalState['rebuildReason']>, string> = {
@@ -184,164 +337,68 @@ const REBUILD_WORDS: Record<NonNullable<AnimalState['rebuildReason']>, string> =
   keeper: 'Rebuilding since',
 };
 
-/** Everything the engine decides about one animal on one local date. Pure. */
-export function decideAnimal(
-  animal: EngineAnimal,
-  state: AnimalState,
-  rules: RoundRules,
-  date: LocalDate,
-): AnimalDecision {
-  const decision: AnimalDecision = {
-    animal,
-    tasks: [],
-    notes: [],
-    nextFeed: null,
-    nextWater: null,
-  };
-  const { tasks, notes } = decision;
-
-  // R12: inactive animals are never on a round.
-  if (animal.status !== 'active') {
-    notes.push({
-      code: 'inactive',
-      text: `Not in the collection any more (${animal.status.replace('_', ' ')}): never on a round.`,
-      dates: [],
-    });
-    return decision;
-  }
-
-  const stage = animal.lifeStage;
-  const interval = feedingInterval(rules, animal);
-  const holdEnd = state.lastMolt ? addDays(state.lastMolt, rules.postMoltHoldDays[stage]) : null;
-  const inHold = !!holdEnd && date < holdEnd;
-  const premolt = state.premoltSince !== null;
-  const possiblePremolt = !premolt && state.refusalStreak >= rules.refusalStreak[stage];
-  const flags = { premolt, possiblePremolt, inHold };
-
-  // R4, R6, R11: prey still inside.
-  if (state.preyLeftIn) {
-    const since = state.preyLeftIn.since;
-    const cause = removalCause(animal, state, flags);
-    if (cause) {
-      tasks.push({
-        kind: 'remove_prey',
-        reasons: [
-          {
-            code: 'remove_prey',
-            text: `Prey left in on ${shortDate(since)}: remove it (${cause}).`,
-            dates: [since],
-          },
-        ],
-        carriedOverDays: Math.max(0, daysBetween(addDays(since, 1), date)),
-      });
-    } else {
-      notes.push({
-        code: 'prey_may_stay',
-        text: `A roach left in on ${shortDate(since)} may stay with an adult outside the molt cycle.`,
-        dates: [since],
-      });
-    }
-  }
-
-  // R11: molting now: nothing else, not even water. Guarding a sac or brood (R11 amended):
-  // no food, no disturbance, but a dish is topped up quietly when due.
-  if (state.leaveAlone) {
-    const { reason, since } = state.leaveAlone;
-    tasks.push({
-      kind: 'leave_alone',
-      reasons: [{ code: 'leave_alone', text: `${LEAVE_ALONE_WORDS[reason]} since ${shortDate(since)}: leave alone — no food, no disturbance.`, dates: [since] }],
-      carriedOverDays: 0,
-    });
-    if (reason !== 'molting') quietWater(decision, state, rules, date);
-    return decision;
-  }
-
-  // ---- feeding
-  const blockers: Reason[] = [];
-  if (premolt) {
-    blockers.push({
-      code: 'premolt',
-      text: `Premolt seen on ${shortDate(state.premoltSince!)}: no food until it molts; water continues.`,
-      dates: [state.premoltSince!],
-    });
-  }
-  if (possiblePremolt) {
-    blockers.push({
-      code: 'possible_premolt',
-      text: `${state.refusalStreak} refusals in a row (last on ${shortDate(state.lastRefusal!)}): possible premolt, so no food is offered.`,
-      dates: [state.lastRefusal!],
-    });
-  }
-  if (inHold) {
-    blockers.push({
-      code: 'post_molt_hold',
-      text: `Post-molt hold until ${shortDate(holdEnd!)} (molted on ${shortDate(state.lastMolt!)}): no food while the fangs harden.`,
-      dates: [holdEnd!, state.lastMolt!],
-    });
-  }
-  if (animal.doNotFeedUntil && date < animal.doNotFeedUntil) {
-    blockers.push({
-      code: 'do_not_feed',
-      text:
-        animal.doNotFeedBy === 'handover'
-          ? `Handover note: do not feed through ${shortDate(addDays(animal.doNotFeedUntil, -1))}.`
-          : `Do not feed until ${shortDate(animal.doNotFeedUntil)} (keeper's setting).`,
-      dates: [animal.doNotFeedUntil],
-    });
-  }
-  if (state.preyLeftIn) {
-    blockers.push({
-      code: 'prey_inside',
-      text: `Prey from ${shortDate(state.preyLeftIn.since)} is still inside: no new food.`,
-      dates: [state.preyLeftIn.since],
-    });
-  }
-
-  // R8 shortens the interval for meals that fall due inside the rebuild window; judging by the
-  // due date (not today) keeps an overdue meal's due date stable when the window closes.
+/** R8: the shorter interval of a rebuilding female, when it applies to the next meal. */
+function rebuildOf(s: Situation, interval: number) {
+  const { state, rules, date } = s;
   const shortInterval = Math.max(1, Math.round(interval * rules.rebuildFactor));
-  const rebuildUntil = state.rebuildSince ? addDays(state.rebuildSince, rules.rebuildDays) : null;
-  const rebuilding =
-    !!rebuildUntil &&
-    (state.lastMeal ? addDays(state.lastMeal, shortInterval) < rebuildUntil : date < rebuildUntil);
-  const effectiveInterval = rebuilding ? shortInterval : interval;
+  const until = state.rebuildSince ? addDays(state.rebuildSince, rules.rebuildDays) : null;
+  // Judged by the due date (not today): an overdue meal's due date stays put when the window closes.
+  const active = !!until && (state.lastMeal ? addDays(state.lastMeal, shortInterval) < until : date < until);
+  if (!active) return null;
+  const since = shortDate(state.rebuildSince!);
+  const what = `${REBUILD_WORDS[state.rebuildReason ?? 'keeper']} ${since}`;
+  const reason: Reason = {
+    code: 'rebuild',
+    text: `${what}: fed every ${plural(shortInterval, 'day')} instead of ${interval} until ${shortDate(until!)}.`,
+    dates: [state.rebuildSince!, until!],
+  };
+  return { interval: shortInterval, reason };
+}
+
+/** R1, R2, R5, R16, R10: when food is next due, and why. */
+function feedDue(s: Situation, interval: number, blockers: Reason[]): { due: LocalDate; why: Reason } {
+  const { state, animal, date } = s;
+  const live = s.food === 'prey';
+  // For fruit, plant food and litter a refusal still means the food was put in: it counts.
+  const served = live ? state.lastMeal : latest(state.lastMeal, state.lastRefusal);
   const refusedSinceMeal =
-    state.refusalStreak > 0 &&
-    !!state.lastRefusal &&
-    (!state.lastMeal || state.lastRefusal >= state.lastMeal);
+    live && state.refusalStreak > 0 && !!state.lastRefusal && (!state.lastMeal || state.lastRefusal >= state.lastMeal);
 
   let due: LocalDate;
   let why: Reason;
   if (refusedSinceMeal) {
-    const retry = rules.refusalRetryDays[stage];
+    const retry = stageCare(s.rules, animal).refusalRetryDays;
     due = addDays(state.lastRefusal!, retry);
     why = {
       code: 'due_refusal_retry',
       text: `Refused on ${shortDate(state.lastRefusal!)}: offer again after ${plural(retry, 'day')}.`,
       dates: [state.lastRefusal!],
     };
-  } else if (state.lastMeal) {
-    due = addDays(state.lastMeal, effectiveInterval);
-    const since = daysBetween(state.lastMeal, date);
-    why = {
-      code: 'due_interval',
-      text: `Due: ${plural(since, 'day')} since last meal on ${shortDate(state.lastMeal)}.`,
-      dates: [state.lastMeal],
-    };
+  } else if (served) {
+    due = addDays(served, interval);
+    why = live
+      ? { code: 'due_interval', text: `Due: ${plural(daysBetween(served, date), 'day')} since last meal on ${shortDate(served)}.`, dates: [served] }
+      : {
+          code: 'due_interval',
+          text: `Due: fresh ${DIET_FOOD[s.food as keyof typeof DIET_FOOD].preyType} every ${plural(interval, 'day')} (last on ${shortDate(served)}).`,
+          dates: [served],
+        };
   } else {
     due = animal.addedOn && animal.addedOn < date ? animal.addedOn : date;
     why = { code: 'due_first_meal', text: 'No meal recorded yet.', dates: [] };
   }
   // After a molt, food resumes when the hold ends (for an animal never fed yet, too).
-  if (holdEnd && state.lastMolt && (holdEnd > due || !state.lastMeal)) {
-    due = holdEnd;
+  if (s.holdEnd && state.lastMolt && (s.holdEnd > due || !state.lastMeal)) {
+    due = s.holdEnd;
     why = {
       code: 'due_after_hold',
-      text: `Post-molt hold ended on ${shortDate(holdEnd)} (molted on ${shortDate(state.lastMolt)}): food can be offered again.`,
-      dates: [holdEnd, state.lastMolt],
+      text: `Post-molt hold ended on ${shortDate(s.holdEnd)} (molted on ${shortDate(state.lastMolt)}): food can be offered again.`,
+      dates: [s.holdEnd, state.lastMolt],
     };
   }
-  if (animal.doNotFeedUntil && animal.doNotFeedUntil > due) due = animal.doNotFeedUntil;
+  const settling = settlingOf(s);
+  if (settling) due = later(due, settling.until);
+  if (animal.doNotFeedUntil) due = later(due, animal.doNotFeedUntil);
 
   // R10: never two meals too close together, whatever else says.
   const minGap = Math.min(interval, 2);
@@ -353,99 +410,212 @@ export function decideAnimal(
     });
     due = later(due, addDays(state.lastMeal, minGap));
   }
+  return { due, why };
+}
 
-  notes.push(...blockers);
-  const rebuildReason: Reason | null = rebuilding
-    ? {
-        code: 'rebuild',
-        text: `${REBUILD_WORDS[state.rebuildReason ?? 'keeper']} ${shortDate(state.rebuildSince!)}: fed every ${plural(effectiveInterval, 'day')} instead of ${interval} until ${shortDate(rebuildUntil!)}.`,
-        dates: [state.rebuildSince!, rebuildUntil!],
-      }
-    : null;
+/** R1–R5, R8–R10, R13, R16, R19: the feed task, or the notes saying why there is none. */
+function decideFeed(d: AnimalDecision, s: Situation) {
+  const { animal, state, rules, date } = s;
+  const interval = feedingInterval(rules, animal);
+  const blockers = feedBlockers(s);
+  const rebuild = s.food === 'prey' ? rebuildOf(s, interval) : null;
+  const { due, why } = feedDue(s, rebuild?.interval ?? interval, blockers);
 
-  if (!premolt && !possiblePremolt) decision.nextFeed = due;
+  d.notes.push(...blockers);
+  if (!s.premolt && !s.possiblePremolt) d.nextFeed = due;
   if (blockers.length === 0 && due <= date) {
     // R9: carried over from the day it fell due, or from the day after a deliberate skip.
-    const countFrom =
-      state.lastSkipped && state.lastSkipped >= due ? addDays(state.lastSkipped, 1) : due;
-    const carried = Math.max(0, daysBetween(countFrom, date));
+    const countFrom = state.lastSkipped && state.lastSkipped >= due ? addDays(state.lastSkipped, 1) : due;
+    const carried = carriedFrom(countFrom, date);
     const reasons = [why];
-    if (rebuildReason) reasons.push(rebuildReason);
+    if (rebuild) reasons.push(rebuild.reason);
     if (carried > 0)
-      reasons.push({
-        code: 'carried_over',
-        text: `Carried over ${plural(carried, 'day')}: due on ${shortDate(countFrom)}.`,
-        dates: [countFrom],
-      });
-    tasks.push({ kind: 'feed', offer: offerFor(animal, rules), reasons, carriedOverDays: carried });
-  } else if (rebuildReason) {
-    notes.push(rebuildReason);
+      reasons.push({ code: 'carried_over', text: `Carried over ${plural(carried, 'day')}: due on ${shortDate(countFrom)}.`, dates: [countFrom] });
+    d.tasks.push({ kind: 'feed', offer: offerFor(animal, rules), reasons, carriedOverDays: carried });
+  } else if (rebuild) {
+    d.notes.push(rebuild.reason);
   }
+  return blockers;
+}
 
-  // ---- water (R7): dishes only; small slings have none and drink from damp substrate and prey.
+/** § Care profiles (beetle larva): no live prey; its food substrate is checked and topped up. */
+function decideSubstrate(d: AnimalDecision, s: Situation) {
+  const { animal, state, rules, date } = s;
+  const every = feedingInterval(rules, animal);
+  const last = latest(state.lastObserved, state.lastMeal);
+  const due = last ? addDays(last, every) : animal.addedOn ? addDays(animal.addedOn, every) : date;
+  d.nextFeed = animal.doNotFeedUntil ? later(due, animal.doNotFeedUntil) : due;
+  if (animal.doNotFeedUntil && date < animal.doNotFeedUntil) {
+    d.notes.push({ code: 'do_not_feed', text: doNotFeedText(animal), dates: [animal.doNotFeedUntil] });
+    return;
+  }
+  if (due > date) return;
+  d.tasks.push({
+    kind: 'check',
+    reasons: [
+      {
+        code: 'check_substrate',
+        text: last
+          ? `Larva: check its food substrate and top it up — every ${plural(every, 'day')}, last on ${shortDate(last)}.`
+          : 'Larva: check its food substrate and top it up (no check recorded yet).',
+        dates: last ? [last] : [],
+      },
+    ],
+    carriedOverDays: carriedFrom(due, date),
+  });
+}
+
+/** R7 and § Care profiles: how the animal gets water — a dish, moist substrate, misting, none. */
+function waterPlan(s: Situation): { every: number; code: ReasonCode; first: string; since: (last: string) => string } | null {
+  const { animal, rules } = s;
   if (animal.hasWaterDish) {
-    const dueWater = state.lastWatered ? addDays(state.lastWatered, rules.waterEveryDays) : date;
-    decision.nextWater = dueWater;
-    if (dueWater <= date) {
-      const carried = state.lastWatered ? Math.max(0, daysBetween(dueWater, date)) : 0;
-      tasks.push({
-        kind: 'water',
-        reasons: [
-          state.lastWatered
-            ? {
-                code: 'water_due',
-                text: `Water every ${plural(rules.waterEveryDays, 'day')}: last topped up on ${shortDate(state.lastWatered)}.`,
-                dates: [state.lastWatered],
-              }
-            : { code: 'water_due', text: 'No watering recorded yet.', dates: [] },
-          ...(carried > 0
-            ? [
-                {
-                  code: 'carried_over' as const,
-                  text: `Carried over ${plural(carried, 'day')}: due on ${shortDate(dueWater)}.`,
-                  dates: [dueWater],
-                },
-              ]
-            : []),
-        ],
-        carriedOverDays: carried,
-      });
-    }
+    const damp = GROUP_CARE[animal.group].dampSubstrate ? ' Keep part of the substrate damp too.' : '';
+    return {
+      every: rules.waterEveryDays,
+      code: 'water_due',
+      first: `No watering recorded yet.${damp}`,
+      since: (last) => `Water every ${plural(rules.waterEveryDays, 'day')}: last topped up on ${last}.${damp}`,
+    };
   }
-
-  // ---- check (R3): a look every N days while a possible premolt is flagged.
-  if (possiblePremolt) {
-    const since = later(state.lastRefusal!, state.lastObserved ?? state.lastRefusal!);
-    const dueCheck = addDays(since, rules.premoltCheckDays);
-    if (dueCheck <= date) {
-      tasks.push({
-        kind: 'check',
-        reasons: [
-          {
-            code: 'check_premolt',
-            text: `Possible premolt since ${shortDate(state.lastRefusal!)}: look for a dark, shiny abdomen, a molt mat or a fresh molt.`,
-            dates: [state.lastRefusal!],
-          },
-        ],
-        carriedOverDays: Math.max(0, daysBetween(dueCheck, date)),
-      });
-    }
+  const profile = rules.profiles[animal.group];
+  if (profile.hydration === 'none') return null;
+  const below = profile.hydrateBelowMm;
+  if (below !== null && !(animal.sizeMm !== null ? animal.sizeMm < below : animal.lifeStage === 'sling')) return null;
+  const every = profile.hydrateEveryDays;
+  const noDish = below !== null ? 'No dish at this size' : 'No dish';
+  if (profile.hydration === 'moisten') {
+    return {
+      every,
+      code: 'moisten_substrate',
+      first: `${noDish}: moisten part of the substrate (no watering recorded yet).`,
+      since: (last) => `${noDish}: moisten part of the substrate every ${plural(every, 'day')} (last on ${last}).`,
+    };
   }
+  return {
+    every,
+    code: 'mist_due',
+    first: `${noDish}: mist lightly — it drinks the droplets (no misting recorded yet).`,
+    since: (last) => `${noDish}: mist lightly every ${plural(every, 'day')} — it drinks the droplets (last on ${last}).`,
+  };
+}
 
-  if (
-    tasks.length === 0 &&
-    decision.nextFeed &&
-    decision.nextFeed > date &&
-    blockers.length === 0
-  ) {
+/** R7: the water task when due; none for stages that are not fed or live in their food. */
+function decideWater(d: AnimalDecision, s: Situation) {
+  if (s.food === 'none' || s.food === 'substrate') return;
+  const plan = waterPlan(s);
+  if (!plan) return;
+  const { lastWatered } = s.state;
+  const dueWater = lastWatered ? addDays(lastWatered, plan.every) : s.date;
+  d.nextWater = dueWater;
+  if (dueWater > s.date) return;
+  const carried = lastWatered ? carriedFrom(dueWater, s.date) : 0;
+  const reasons: Reason[] = [
+    lastWatered ? { code: plan.code, text: plan.since(shortDate(lastWatered)), dates: [lastWatered] } : { code: plan.code, text: plan.first, dates: [] },
+  ];
+  if (carried > 0) reasons.push({ code: 'carried_over', text: `Carried over ${plural(carried, 'day')}: due on ${shortDate(dueWater)}.`, dates: [dueWater] });
+  d.tasks.push({ kind: 'water', reasons, carriedOverDays: carried });
+}
+
+/** R3: a look every N days while a possible premolt is flagged. */
+function decidePremoltCheck(d: AnimalDecision, s: Situation) {
+  if (!s.possiblePremolt) return;
+  const { state, rules, date } = s;
+  const since = later(state.lastRefusal!, state.lastObserved ?? state.lastRefusal!);
+  const dueCheck = addDays(since, rules.premoltCheckDays);
+  if (dueCheck > date) return;
+  d.tasks.push({
+    kind: 'check',
+    reasons: [
+      {
+        code: 'check_premolt',
+        text: `Possible premolt since ${shortDate(state.lastRefusal!)}: look for a dark, shiny abdomen, a molt mat or a fresh molt.`,
+        dates: [state.lastRefusal!],
+      },
+    ],
+    carriedOverDays: carriedFrom(dueCheck, date),
+  });
+}
+
+const GROUP_WORD: Record<AnimalGroup, string> = {
+  tarantula: 'tarantula',
+  true_spider: 'spider',
+  centipede: 'centipede',
+  scorpion: 'scorpion',
+  mantis: 'mantis',
+  beetle: 'beetle',
+  other: 'animal',
+};
+
+/** R17 and § Care profiles: plain words about an animal's kind that the round should carry. */
+function careNotes(s: Situation): Reason[] {
+  const { animal, state } = s;
+  const notes: Reason[] = [];
+  if (animal.sex === 'mature_male') {
+    notes.push({ code: 'mature_male', text: 'Mature male: refusing food is normal, and he will not molt again.', dates: [] });
+  } else if (!canMolt(animal) && s.food === 'prey' && state.refusalStreak > 0) {
+    notes.push({ code: 'no_more_molts', text: `Adult ${GROUP_WORD[animal.group]}: adults do not molt, so refusals do not mean premolt.`, dates: [] });
+  }
+  if (animal.group === 'mantis' && canMolt(animal)) {
     notes.push({
-      code: 'not_due',
-      text: `Not due: next meal on ${shortDate(decision.nextFeed)}.`,
-      dates: [decision.nextFeed],
+      code: 'hanging_room',
+      text: 'Needs hanging room to molt: clear height of about three times its body length, and no disturbance while it hangs.',
+      dates: [],
     });
   }
-  tasks.sort((a, b) => TASK_KINDS.indexOf(a.kind) - TASK_KINDS.indexOf(b.kind));
-  return decision;
+  return notes;
+}
+
+/** R11 amended: a guarding female's dish, topped up quietly when due (R7's days). */
+function quietWater(d: AnimalDecision, state: AnimalState, rules: RoundRules, date: LocalDate) {
+  if (!d.animal.hasWaterDish) return;
+  const due = state.lastWatered ? addDays(state.lastWatered, rules.waterEveryDays) : date;
+  d.nextWater = due;
+  if (due > date) return;
+  const last = state.lastWatered ? `last topped up on ${shortDate(state.lastWatered)}` : 'no watering recorded yet';
+  d.tasks.push({
+    kind: 'water',
+    reasons: [{ code: 'water_due', text: `Water (${last}): top up quietly, do not disturb her.`, dates: state.lastWatered ? [state.lastWatered] : [] }],
+    carriedOverDays: state.lastWatered ? carriedFrom(due, date) : 0,
+  });
+}
+
+/** Everything the engine decides about one animal on one local date. Pure. */
+export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: RoundRules, date: LocalDate): AnimalDecision {
+  const d: AnimalDecision = { animal, tasks: [], notes: [], nextFeed: null, nextWater: null };
+
+  // R12: inactive animals are never on a round.
+  if (animal.status !== 'active') {
+    d.notes.push({ code: 'inactive', text: `Not in the collection any more (${animal.status.replace('_', ' ')}): never on a round.`, dates: [] });
+    return d;
+  }
+  const s = situationOf(animal, state, rules, date);
+  decidePreyInside(d, s);
+
+  // R11 (molting) and pupae: nothing else, not even water. Guarding a sac or brood (R11
+  // amended): no food, no disturbance, but a dish is topped up quietly when due.
+  const leaveAlone = leaveAloneReason(s);
+  if (leaveAlone) {
+    d.tasks.push({ kind: 'leave_alone', reasons: [leaveAlone], carriedOverDays: 0 });
+    if (state.leaveAlone && state.leaveAlone.reason !== 'molting') quietWater(d, state, rules, date);
+    return d;
+  }
+  // Stages that are not fed: a note, no task.
+  const notFed = notFedReason(s);
+  if (notFed) {
+    d.notes.push(notFed);
+    return d;
+  }
+
+  const blockers = s.food === 'substrate' ? (decideSubstrate(d, s), []) : decideFeed(d, s);
+  decideWater(d, s);
+  decidePremoltCheck(d, s);
+  d.notes.push(...careNotes(s));
+
+  if (d.tasks.length === 0 && d.nextFeed && d.nextFeed > date && blockers.length === 0) {
+    d.notes.push({ code: 'not_due', text: `Not due: next meal on ${shortDate(d.nextFeed)}.`, dates: [d.nextFeed] });
+  }
+  d.tasks.sort((a, b) => TASK_KINDS.indexOf(a.kind) - TASK_KINDS.indexOf(b.kind));
+  return d;
 }
 
 const collator = new Intl.Collator('en', { numeric: true, sensitivity: 'base' });
@@ -484,8 +654,11 @@ export function compareItems(a: RoundItem, b: RoundItem): number {
 
 const SIZE_ORDER = ['tiny', 'pinhead', 'small', 'medium', 'large', 'adult'];
 
-/** R15: feed tasks summed by prey type and size — what to pull from the feeder tubs. */
-export function prepList(items: readonly RoundItem[]): PrepLine[] {
+/**
+ * R15: feed tasks summed by prey type and size — what to pull from the feeder tubs. Sizes sort
+ * by their length in the collection's feeder catalogue, else by the usual size words.
+ */
+export function prepList(items: readonly RoundItem[], feeders: readonly Feeder[] = []): PrepLine[] {
   const lines = new Map<string, PrepLine>();
   for (const item of items) {
     for (const task of item.tasks) {
@@ -504,12 +677,13 @@ export function prepList(items: readonly RoundItem[]): PrepLine[] {
       lines.set(key, line);
     }
   }
-  const rank = (size: string) =>
-    SIZE_ORDER.includes(size) ? SIZE_ORDER.indexOf(size) : SIZE_ORDER.length;
+  const rank = (line: PrepLine) =>
+    feederLength(feeders, line.preyType, line.preySize) ??
+    (SIZE_ORDER.includes(line.preySize) ? SIZE_ORDER.indexOf(line.preySize) : Number.MAX_SAFE_INTEGER);
   return [...lines.values()].sort(
     (a, b) =>
       collator.compare(a.preyType, b.preyType) ||
-      rank(a.preySize) - rank(b.preySize) ||
+      rank(a) - rank(b) ||
       collator.compare(a.preySize, b.preySize),
   );
 }
@@ -532,5 +706,5 @@ export function buildRound(
     });
   }
   items.sort(compareItems);
-  return { date, items, prepList: prepList(items) };
+  return { date, items, prepList: prepList(items, rules.feeders) };
 }

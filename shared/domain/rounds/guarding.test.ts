@@ -70,11 +70,13 @@ describe('R11 amended: a female guarding a sac or brood is left alone, but her d
   it('leaves a scorpion carrying her brood alone, with the same quiet water', () => {
     const d = decide(female({ group: 'scorpion', scientificName: 'Heterometrus spinifer' }), [ev('brood_started', '2026-03-10')]);
     expect(kinds(d.tasks)).toEqual(['leave_alone', 'water']);
-    expect(d.tasks[0]!.reasons[0]!.text).toBe('Guarding her brood since 10 Mar: leave alone — no food, no disturbance.');
+    expect(d.tasks[0]!.reasons[0]!.text).toBe('Carrying her brood since 10 Mar: leave alone — no food, no disturbance.');
   });
   it('does not leave a mantis alone for her egg case: mantids do not guard an ootheca', () => {
     const d = decide(female({ group: 'mantis', scientificName: 'Hierodula membranacea', hasWaterDish: false }), [ev('ate', '2026-03-10'), ev('case_laid', '2026-03-12')]);
-    expect(kinds(d.tasks)).toEqual(['feed']);
+    // Fed as usual (and misted: a mantis has no dish, § Care profiles › Mantis); never left alone.
+    expect(kinds(d.tasks)).toContain('feed');
+    expect(kinds(d.tasks)).not.toContain('leave_alone');
   });
 });
 

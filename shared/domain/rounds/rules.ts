@@ -1,84 +1,151 @@
-import type { AnimalGroup, LifeStage } from '../animal-facts';
+import type { AnimalGroup, Diet, LifeStage } from '../animal-facts';
+import { DEFAULT_PROFILES, foodOf, type CareAnimal, type CareProfile, type Offer, type StageCare } from './care-profiles';
+import { DEFAULT_FEEDERS, type Feeder } from './feeders';
+
+export type { Offer } from './care-profiles';
 
 /**
- * The round engine's rules (husbandry rules R1–R15). Every number here is a default a
- * collection can change; sources are in ../shared husbandry-rules and in rules.test.ts.
+ * The round engine's rules: husbandry rules R1–R20 and the care profiles by group and stage.
+ * Every number is a default a collection can change; each is defined, with its source, in
+ * docs/care-rules.md (the section is named beside it).
  */
-export interface Offer {
-  preyType: string;
-  preySize: string;
-  countMin: number;
-  countMax: number;
-}
-
-export type ByStage<T> = Record<LifeStage, T>;
-
 export interface RoundRules {
-  /** R1: feed again N days after the last meal, by life stage. */
-  intervalDays: ByStage<number>;
-  /** R1: groups that are not spiders have their own interval (adults and young alike). */
-  groupIntervalDays: Partial<Record<AnimalGroup, number>>;
-  /** R2: after a refusal, offer again after this many days. */
-  refusalRetryDays: ByStage<number>;
-  /** R3: this many refusals in a row flag a possible premolt. */
-  refusalStreak: ByStage<number>;
-  /** R3: while flagged, a "check" task every N days. */
+  /** § Care profiles: intervals, refusals, holds, offers and hydration by group and stage. */
+  profiles: Record<AnimalGroup, CareProfile>;
+  /** R3: while a possible premolt is flagged, a "check" task every N days. */
   premoltCheckDays: number;
-  /** R5: no food for this many days after a molt. */
-  postMoltHoldDays: ByStage<number>;
   /** R7: water dishes topped up every N days. */
   waterEveryDays: number;
   /** R8: a female rebuilding after a sac or conditioned for pairing: interval × factor … */
   rebuildFactor: number;
   /** R8: … for this many days. */
   rebuildDays: number;
-  /** R13: what to offer when the animal has no setting of its own. */
-  offers: ByStage<Offer>;
-  /** R13: slings smaller than this (mm leg span) get the tiniest prey. */
+  /** R16: no food for this many days after arrival, a rehouse or potting up. */
+  settlingDays: number;
+  /** R20: prey allowed to stay in gets a "check or remove" task this many days later. */
+  preyStayCheckDays: number;
+  /** § Diets: fruit or jelly, plant food and leaf litter are replaced this often. */
+  dietEveryDays: Record<Exclude<Diet, 'live_prey'>, number>;
+  /** § Care profiles (beetle): a larva's food substrate is checked and topped up this often. */
+  substrateCheckDays: number;
+  /** R19: a spider's body length is about this share of its diagonal leg span. */
+  spanToBody: number;
+  /** R13: tarantula slings smaller than this (mm leg span) get the tiniest prey type. */
   tinySlingMm: number;
+  /** R19: the feeders the collection keeps, with their typical body lengths. */
+  feeders: Feeder[];
 }
 
 export const DEFAULT_RULES: RoundRules = {
-  intervalDays: { sling: 3, juvenile: 6, subadult: 9, adult: 12 },
-  groupIntervalDays: { centipede: 7, scorpion: 10, mantis: 4 },
-  refusalRetryDays: { sling: 2, juvenile: 3, subadult: 4, adult: 7 },
-  refusalStreak: { sling: 2, juvenile: 2, subadult: 3, adult: 3 },
+  profiles: DEFAULT_PROFILES,
   premoltCheckDays: 7,
-  postMoltHoldDays: { sling: 4, juvenile: 7, subadult: 10, adult: 14 },
   waterEveryDays: 3,
   rebuildFactor: 0.5,
   rebuildDays: 56,
-  offers: {
-    sling: { preyType: 'cricket', preySize: 'pinhead', countMin: 1, countMax: 1 },
-    juvenile: { preyType: 'cricket', preySize: 'small', countMin: 1, countMax: 2 },
-    subadult: { preyType: 'cricket', preySize: 'medium', countMin: 1, countMax: 2 },
-    adult: { preyType: 'cricket', preySize: 'large', countMin: 1, countMax: 3 },
-  },
+  settlingDays: 3,
+  preyStayCheckDays: 2,
+  dietEveryDays: { fruit_jelly: 3, plant: 3, detritus: 7 },
+  substrateCheckDays: 28,
+  spanToBody: 0.33,
   tinySlingMm: 15,
+  feeders: DEFAULT_FEEDERS,
 };
 
 /** The tiniest slings get fruit-fly larvae: prey no larger than the animal's body (R13). */
 export const TINY_SLING_OFFER: Offer = { preyType: 'fruit-fly larvae', preySize: 'tiny', countMin: 1, countMax: 1 };
 
-export type RulesOverride = {
-  [K in keyof RoundRules]?: RoundRules[K] extends Record<string, unknown> ? Partial<RoundRules[K]> : RoundRules[K];
-};
+/** Every key optional, all the way down; lists (the feeder catalogue) are replaced whole. */
+export type DeepPartial<T> = T extends readonly unknown[]
+  ? T
+  : T extends object
+    ? { [K in keyof T]?: DeepPartial<T[K]> }
+    : T;
 
-/** A collection's stored overrides laid over the defaults, key by key. */
-export function effectiveRules(override: RulesOverride | null | undefined): RoundRules {
-  const rules = structuredClone(DEFAULT_RULES) as unknown as Record<string, unknown>;
-  for (const [key, value] of Object.entries(override ?? {})) {
-    if (value === undefined) continue;
-    const base = rules[key];
-    rules[key] = base && typeof base === 'object' && typeof value === 'object' ? { ...base, ...value } : value;
-  }
-  return rules as unknown as RoundRules;
+/**
+ * Keys of overrides saved before care profiles existed: stage tables that meant tarantulas
+ * (and every group without an interval of its own), and one interval per group.
+ */
+type StageTable<T> = Partial<Record<LifeStage, T>>;
+interface LegacyOverride {
+  intervalDays?: StageTable<number>;
+  refusalRetryDays?: StageTable<number>;
+  refusalStreak?: StageTable<number>;
+  postMoltHoldDays?: StageTable<number>;
+  offers?: StageTable<Offer>;
+  groupIntervalDays?: Partial<Record<AnimalGroup, number>>;
 }
 
-/** R1 interval for one animal: its own setting, else its group's, else its stage's. */
-export function feedingInterval(
-  rules: RoundRules,
-  animal: { group: AnimalGroup; lifeStage: LifeStage; intervalDays?: number | null },
-): number {
-  return animal.intervalDays ?? rules.groupIntervalDays[animal.group] ?? rules.intervalDays[animal.lifeStage];
+export type RulesOverride = DeepPartial<RoundRules> & LegacyOverride;
+
+const LEGACY_STAGE_KEYS = {
+  intervalDays: 'feedEveryDays',
+  refusalRetryDays: 'refusalRetryDays',
+  refusalStreak: 'refusalStreak',
+  postMoltHoldDays: 'postMoltHoldDays',
+  offers: 'offer',
+} as const satisfies Record<string, keyof StageCare>;
+
+/** An override saved before care profiles, in today's shape: its stage tables are the tarantula's. */
+export function upgradeOverride(override: RulesOverride): DeepPartial<RoundRules> {
+  const { intervalDays, refusalRetryDays, refusalStreak, postMoltHoldDays, offers, groupIntervalDays, ...rest } = override;
+  const legacy = { intervalDays, refusalRetryDays, refusalStreak, postMoltHoldDays, offers };
+  if (Object.values(legacy).every((v) => v === undefined) && !groupIntervalDays) return rest;
+  const profiles: Record<string, { stages: Record<string, Record<string, unknown>> }> = {};
+  const stageOf = (group: string, s: string) => {
+    const p = (profiles[group] ??= { stages: {} });
+    return (p.stages[s] ??= {});
+  };
+  for (const [key, field] of Object.entries(LEGACY_STAGE_KEYS)) {
+    for (const [s, value] of Object.entries(legacy[key as keyof typeof legacy] ?? {})) stageOf('tarantula', s)[field] = value;
+  }
+  for (const [group, days] of Object.entries(groupIntervalDays ?? {})) {
+    for (const s of Object.keys(DEFAULT_PROFILES[group as AnimalGroup]?.stages ?? {})) stageOf(group, s).feedEveryDays = days;
+  }
+  return mergeDeep({ profiles } as DeepPartial<RoundRules>, rest);
+}
+
+function isPlainObject(v: unknown): v is Record<string, unknown> {
+  return typeof v === 'object' && v !== null && !Array.isArray(v);
+}
+
+/** `over` laid on `base`, object by object; lists and numbers are replaced. */
+function mergeDeep<T>(base: T, over: unknown): T {
+  if (!isPlainObject(base) || !isPlainObject(over)) return (over === undefined ? base : over) as T;
+  const out: Record<string, unknown> = { ...base };
+  for (const [key, value] of Object.entries(over)) {
+    if (value === undefined) continue;
+    out[key] = key in out ? mergeDeep(out[key], value) : value;
+  }
+  return out as T;
+}
+
+/** A collection's stored overrides laid over the defaults, key by key, at every depth. */
+export function effectiveRules(override: RulesOverride | null | undefined): RoundRules {
+  return mergeDeep(structuredClone(DEFAULT_RULES), upgradeOverride(override ?? {}));
+}
+
+/**
+ * The numbers for an animal's stage. A stage the group does not have (records made before
+ * stages were checked against the group) uses the group's adult numbers.
+ */
+export function stageCare(rules: RoundRules, animal: { group: AnimalGroup; lifeStage: LifeStage }): StageCare {
+  const stages = rules.profiles[animal.group].stages;
+  return stages[animal.lifeStage] ?? stages.adult ?? Object.values(stages)[0] ?? rules.profiles.tarantula.stages.adult!;
+}
+
+/**
+ * R1 interval for one animal: its own setting, else its profile's for its stage and food
+ * (live prey, a diet's replacement interval, or a larva's substrate check).
+ */
+export function feedingInterval(rules: RoundRules, animal: CareAnimal & { intervalDays?: number | null }): number {
+  if (animal.intervalDays) return animal.intervalDays;
+  const food = foodOf(animal);
+  if (food === 'substrate') return rules.substrateCheckDays;
+  if (food === 'fruit_jelly' || food === 'plant' || food === 'detritus') return rules.dietEveryDays[food];
+  return stageCare(rules, animal).feedEveryDays;
+}
+
+/** R5: the post-molt hold of an animal's stage, in days. */
+export function postMoltHoldDays(rules: RoundRules, animal: { group: AnimalGroup; lifeStage: LifeStage }): number {
+  return stageCare(rules, animal).postMoltHoldDays;
 }

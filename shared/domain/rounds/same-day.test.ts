@@ -10,8 +10,7 @@ import { addDays, startOfLocalDate } from '../local-dates';
 import { projectState, type EngineEvent } from './animal-state';
 import { decideAnimal, FEED_HOLD_CODES, type EngineAnimal } from './build-round';
 import { feedHoldOf, isOverdue, isPossiblePremolt } from './item-status';
-import { DEFAULT_RULES } from './rules';
-import { postMoltHoldDaysOf } from './same-day';
+import { DEFAULT_RULES, postMoltHoldDays } from './rules';
 import { itemWithOutcome, progressOf, settleItem, type DayOutcome } from './settle';
 
 const ZONE = 'America/Toronto';
@@ -134,7 +133,7 @@ describe('same-day holds, property', () => {
           planned.tasks,
           todays.map((e) => ({ eventId: e.id, kind: e.kind, at: e.effectiveAt, by: null })),
           ZONE,
-          postMoltHoldDaysOf(DEFAULT_RULES, a),
+          postMoltHoldDays(DEFAULT_RULES, a),
         );
         // What the engine says now, with the day's facts folded in.
         const now = decideAnimal(a, projectState([...past, ...todays], ZONE), DEFAULT_RULES, DAY);

@@ -1,8 +1,6 @@
-import type { LifeStage } from '../animal-facts';
 import type { EventKind } from '../event-kinds';
 import { addDays, clockTime, localDateOf } from '../local-dates';
 import { shortDate, type Reason, type TaskKind } from './build-round';
-import type { RoundRules } from './rules';
 
 /**
  * R18 (docs/care-rules.md, "Same-day holds"): a fact recorded during the day that starts a hold
@@ -66,7 +64,3 @@ export function sameDayHold(outcomes: readonly HoldOutcome[], zone: string, post
   return null;
 }
 
-/** R5: how long this animal is held after a molt, so the phone can date a hold it starts. */
-export function postMoltHoldDaysOf(rules: RoundRules, animal: { lifeStage: LifeStage }): number {
-  return rules.postMoltHoldDays[animal.lifeStage];
-}

@@ -66,7 +66,8 @@ export function AnimalRoute() {
       <PhotoPanel collectionId={collectionId} animal={animal} canChange />
       <AnimalCard animal={animal} />
       <p className="text-muted">
-        {animal.commonName && `${animal.commonName} · `}Leg span {formatSize(animal.sizeMm, unit)}
+        {animal.commonName && `${animal.commonName} · `}
+        {animal.group === 'tarantula' || animal.group === 'true_spider' ? 'Leg span' : 'Body length'} {formatSize(animal.sizeMm, unit)}
         {animal.acquiredOn && ` · acquired ${animal.acquiredOn}`}
         {animal.source && ` from ${animal.source}`}
         {animal.clutch && ` · clutch ${animal.clutch}`}
@@ -91,7 +92,7 @@ export function AnimalRoute() {
           </Button>
         )}
       </nav>
-      {panel === 'move' && <MovePanel what={animal.name} locations={places.data?.locations ?? []} onMove={(locationId) => move.mutateAsync({ animalIds: [animal.id], locationId }).then(() => setPanel((p) => (p === 'move' ? null : p)))} onCancel={() => setPanel(null)} />}
+      {panel === 'move' && <MovePanel what={animal.name} locations={places.data?.locations ?? []} current={animal.location?.id} onMove={(locationId, rehoused) => move.mutateAsync({ animalIds: [animal.id], locationId, rehoused }).then(() => setPanel((p) => (p === 'move' ? null : p)))} onCancel={() => setPanel(null)} />}
       {panel === 'retire' && <RetirePanel what={animal.name} today={today} onRetire={(body) => retire.mutateAsync(body).then(() => setPanel((p) => (p === 'retire' ? null : p)))} onCancel={() => setPanel(null)} />}
       {retire.isError && <Notice tone="error" title={retire.error.message} />}
       <SchedulePanel

@@ -70,7 +70,7 @@ function Collection({ userId, collectionId, timeZone }: { userId: string; collec
               Retire…
             </Button>
           </div>
-          {panel === 'move' && <MovePanel what={what} locations={places.data?.locations ?? []} onMove={(locationId) => move.mutateAsync({ animalIds: chosen, locationId }).then(() => setPanel(null))} onCancel={() => setPanel(null)} />}
+          {panel === 'move' && <MovePanel what={what} locations={places.data?.locations ?? []} onMove={(locationId, rehoused) => move.mutateAsync({ animalIds: chosen, locationId, rehoused }).then(() => setPanel(null))} onCancel={() => setPanel(null)} />}
           {panel === 'retire' && (
             <RetirePanel what={what} today={localDateOf(new Date(), timeZone)} onRetire={(body) => retire.mutateAsync({ animalIds: chosen, body }).then(() => setPanel(null))} onCancel={() => setPanel(null)} />
           )}

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { SEX_LABEL, STAGE_LABEL } from '#shared/domain/animal-facts';
+import { SEX_LABEL, stageLabel } from '#shared/domain/animal-facts';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import { CautionBadges } from '@/components/ui/caution-badges';
 
@@ -25,7 +25,7 @@ export function AnimalCard({ animal, linked = false }: { animal: AnimalSummary; 
       <p className="text-muted">
         <i lang="la">{animal.scientificName}</i>
         {' · '}
-        {STAGE_LABEL[animal.lifeStage]} · {SEX_LABEL[animal.sex]}
+        {stageLabel(animal.group, animal.lifeStage)} · {SEX_LABEL[animal.sex]}
         {' · '}
         <span className="font-bold text-text">{placeCode(animal.location)}</span>
       </p>

@@ -1,6 +1,8 @@
 import { useId, useMemo } from 'react';
 import { useForm, type FieldErrors, type Resolver } from 'react-hook-form';
-import { ANIMAL_GROUPS, CAUTION_LABEL, CAUTIONS, GROUP_LABEL, LIFE_STAGES, SEX_LABEL, SEXES, STAGE_LABEL } from '#shared/domain/animal-facts';
+import { ANIMAL_GROUPS, CAUTION_LABEL, CAUTIONS, DIET_LABEL, DIETS, GROUP_LABEL, SEX_LABEL, SEXES, STAGE_LABEL, stageLabel, stagesOf, type AnimalGroup, type Caution, type LifeStage } from '#shared/domain/animal-facts';
+import { presetFor } from '#shared/domain/genus-presets';
+import { GROUP_CARE } from '#shared/domain/rounds/care-profiles';
 import { checkScientificName } from '#shared/domain/scientific-name';
 import { sizeInUnit, sizeToMm, type SizeUnit } from '#shared/domain/units';
 import { animalInput, type AnimalSummary, type AnimalValues } from '#shared/schemas/animals';
@@ -32,6 +34,7 @@ interface FormValues {
   preyType: string;
   preySize: string;
   preyCount: string;
+  diet: string;
   hasWaterDish: boolean;
   doNotFeedUntil: string;
 }
@@ -63,6 +66,7 @@ function toInput(v: FormValues, unit: SizeUnit, sizeTouched: boolean, original: 
       preyType: orNull(v.preyType),
       preySize: orNull(v.preySize),
       preyCount: numberOrNull(v.preyCount),
+      diet: orNull(v.diet),
       hasWaterDish: v.hasWaterDish,
       doNotFeedUntil: orNull(v.doNotFeedUntil),
     },
@@ -93,12 +97,17 @@ function fromAnimal(a: AnimalSummary | null, unit: SizeUnit): FormValues {
     preyType: a?.preyType ?? '',
     preySize: a?.preySize ?? '',
     preyCount: a?.preyCount?.toString() ?? '',
+    diet: a?.diet ?? '',
     hasWaterDish: a?.hasWaterDish ?? false,
     doNotFeedUntil: a?.doNotFeedUntil ?? '',
   };
 }
 
 const placeName = (l: LocationSummary) => `${l.room} · ${l.rack}${l.shelf}-${l.position}`;
+
+/** The stage to switch to when the chosen one does not fit a new group: its first stage that eats. */
+const firstFedStage = (group: AnimalGroup) => stagesOf(group).find((s) => GROUP_CARE[group].food[s] !== 'none') ?? stagesOf(group)[0]!;
+const hasDiet = (group: AnimalGroup) => Object.values(GROUP_CARE[group].food).includes('diet');
 
 interface Props {
   animal: AnimalSummary | null;
@@ -126,6 +135,26 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
   const e = formState.errors;
   const scientific = watch('scientificName');
   const check = useMemo(() => (scientific.trim() ? checkScientificName(scientific) : null), [scientific]);
+  const group = watch('group') as AnimalGroup;
+  const cautions = watch('cautions') as Caution[];
+  // docs/care-rules.md § Genus presets: offered when the genus is known and differs, never forced.
+  const preset = useMemo(() => presetFor(scientific), [scientific]);
+  const presetDiffers = !!preset && (preset.group !== group || preset.cautions.some((c) => !cautions.includes(c)));
+  function changeGroup(next: AnimalGroup, previous: AnimalGroup) {
+    if (!stagesOf(next).includes(watch('lifeStage') as LifeStage)) setValue('lifeStage', firstFedStage(next));
+    // A new animal starts with its group's usual cautions and water (§ Care profiles).
+    if (!animal) {
+      const dropped = new Set<string>(GROUP_CARE[previous].newAnimalCautions);
+      setValue('cautions', [...new Set([...cautions.filter((c) => !dropped.has(c)), ...GROUP_CARE[next].newAnimalCautions])]);
+      setValue('hasWaterDish', GROUP_CARE[next].newAnimalHasDish);
+    }
+  }
+  // A stage saved before stages were checked against the group stays visible, so its error makes sense.
+  const stage = watch('lifeStage') as LifeStage;
+  const stageOptions = [
+    ...stagesOf(group).map((s) => ({ value: s, label: stageLabel(group, s) })),
+    ...(stagesOf(group).includes(stage) ? [] : [{ value: stage, label: `${STAGE_LABEL[stage]} (not a ${GROUP_LABEL[group].toLowerCase()} stage)` }]),
+  ];
   const locationOptions = [{ value: '', label: 'No place yet' }, ...locations.map((l) => ({ value: l.id, label: placeName(l) }))];
 
   return (
@@ -146,12 +175,38 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
             Use “{check.suggestion}”
           </Button>
         )}
+        {preset && presetDiffers && (
+          <Notice tone="info" title={`${preset.genus}: ${preset.note}.`}>
+            <p className="text-sm">
+              Usually {GROUP_LABEL[preset.group].toLowerCase()}
+              {preset.cautions.length ? `, with ${preset.cautions.map((c) => CAUTION_LABEL[c].toLowerCase()).join(', ')}` : ''}. Source: {preset.source}.
+            </p>
+            <Button
+              variant="secondary"
+              className="mt-2"
+              onClick={() => {
+                if (preset.group !== group) {
+                  changeGroup(preset.group, group);
+                  setValue('group', preset.group);
+                }
+                setValue('cautions', [...new Set([...(watch('cautions') as Caution[]), ...preset.cautions])]);
+              }}
+            >
+              Use these
+            </Button>
+          </Notice>
+        )}
         <TextField label="Common name" error={e.commonName?.message} {...register('commonName')} />
         <div className="grid grid-cols-2 gap-2">
-          <SelectField label="Group" options={ANIMAL_GROUPS.map((g) => ({ value: g, label: GROUP_LABEL[g] }))} {...register('group')} />
-          <SelectField label="Life stage" options={LIFE_STAGES.map((s) => ({ value: s, label: STAGE_LABEL[s] }))} {...register('lifeStage')} />
+          <SelectField label="Group" options={ANIMAL_GROUPS.map((g) => ({ value: g, label: GROUP_LABEL[g] }))} {...register('group', { onChange: (e: React.ChangeEvent<HTMLSelectElement>) => changeGroup(e.target.value as AnimalGroup, group) })} />
+          <SelectField label="Life stage" options={stageOptions} error={e.lifeStage?.message} {...register('lifeStage')} />
           <SelectField label="Sex" options={SEXES.map((s) => ({ value: s, label: SEX_LABEL[s] }))} {...register('sex')} />
-          <TextField label={`Leg span (${unit})`} inputMode="decimal" error={e.size?.message} {...register('size')} />
+          <TextField
+            label={group === 'tarantula' || group === 'true_spider' ? `Leg span (${unit})` : `Body length (${unit})`}
+            inputMode="decimal"
+            error={e.size?.message}
+            {...register('size')}
+          />
         </div>
         <TextField label="Clutch" hint="Slings from one egg sac share a clutch name." error={e.clutch?.message} {...register('clutch')} />
       </fieldset>
@@ -184,6 +239,13 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
           <TextField label="Prey type" error={e.preyType?.message} {...register('preyType')} />
           <TextField label="Prey size" error={e.preySize?.message} {...register('preySize')} />
         </div>
+        {hasDiet(group) && (
+          <SelectField
+            label="Diet"
+            options={[{ value: '', label: `Usual: ${DIET_LABEL[GROUP_CARE[group].defaultDiet].toLowerCase()}` }, ...DIETS.map((d) => ({ value: d, label: DIET_LABEL[d] }))]}
+            {...register('diet')}
+          />
+        )}
         <label className="flex min-h-target cursor-pointer items-center gap-3">
           <input type="checkbox" className="size-6 accent-[var(--c-primary)]" {...register('hasWaterDish')} />
           Has a water dish

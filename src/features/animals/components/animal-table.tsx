@@ -2,7 +2,7 @@ import { flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type Col
 import { useWindowVirtualizer } from '@tanstack/react-virtual';
 import { memo, useEffect, useMemo, useState, useSyncExternalStore } from 'react';
 import { Link } from 'react-router-dom';
-import { ANIMAL_GROUPS, ANIMAL_STATUSES, CAUTION_LABEL, CAUTIONS, GROUP_LABEL, LIFE_STAGES, SEX_LABEL, STAGE_LABEL, STATUS_LABEL } from '#shared/domain/animal-facts';
+import { ANIMAL_GROUPS, ANIMAL_STATUSES, CAUTION_LABEL, CAUTIONS, GROUP_LABEL, LIFE_STAGES, SEX_LABEL, STAGE_LABEL, stageLabel, STATUS_LABEL } from '#shared/domain/animal-facts';
 import { formatSize, type SizeUnit } from '#shared/domain/units';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import { CautionIcon } from '@/components/ui/icons';
@@ -94,7 +94,7 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
       },
       { id: 'species', header: 'Species', accessorFn: (a) => a.scientificName, cell: ({ getValue }) => <i lang="la">{getValue<string>()}</i> },
       { id: 'commonName', header: 'Common name', accessorFn: (a) => a.commonName ?? '' },
-      { id: 'stage', header: 'Stage', accessorFn: (a) => LIFE_STAGES.indexOf(a.lifeStage), cell: ({ row }) => STAGE_LABEL[row.original.lifeStage] },
+      { id: 'stage', header: 'Stage', accessorFn: (a) => LIFE_STAGES.indexOf(a.lifeStage), cell: ({ row }) => stageLabel(row.original.group, row.original.lifeStage) },
       { id: 'sex', header: 'Sex', accessorFn: (a) => SEX_LABEL[a.sex] },
       { id: 'size', header: 'Leg span', accessorFn: (a) => a.sizeMm ?? -1, cell: ({ row }) => formatSize(row.original.sizeMm, unit) },
       { id: 'place', header: 'Place', accessorFn: (a) => (a.location ? `${a.location.walkOrder.toString().padStart(6, '0')}` : 'zzz'), cell: ({ row }) => placeCode(row.original.location) },
@@ -178,7 +178,7 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
                     <span className="font-mono font-bold tracking-wider">{a.labelCode}</span>
                   </p>
                   <p className="text-sm text-muted">
-                    <i lang="la">{a.scientificName}</i> · {STAGE_LABEL[a.lifeStage]} · <span className="font-bold text-text">{placeCode(a.location)}</span>
+                    <i lang="la">{a.scientificName}</i> · {stageLabel(a.group, a.lifeStage)} · <span className="font-bold text-text">{placeCode(a.location)}</span>
                     {a.status !== 'active' && ` · ${STATUS_LABEL[a.status]}`}
                   </p>
                   <CautionMarks cautions={a.cautions} />

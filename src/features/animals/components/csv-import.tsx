@@ -1,4 +1,5 @@
 import { useMemo, useState } from 'react';
+import { stageLabel } from '#shared/domain/animal-facts';
 import { guessColumn, IMPORT_COLUMNS, REQUIRED_COLUMNS, rowToAnimal, type AnimalColumn } from '#shared/domain/csv/animal-columns';
 import { readCsv, type CsvTable } from '#shared/domain/csv/csv-file';
 import { codeKey } from '#shared/domain/labels/label-payload';
@@ -103,7 +104,7 @@ export function CsvImport({ collectionId, takenCodes }: Props) {
                 <ul aria-label="Preview" className="flex flex-col gap-1 text-sm">
                   {valid.slice(0, 5).map((v, i) => (
                     <li key={i}>
-                      <span className="font-bold">{v.name}</span> · <i lang="la">{v.scientificName}</i> · {v.lifeStage}
+                      <span className="font-bold">{v.name}</span> · <i lang="la">{v.scientificName}</i> · {stageLabel(v.group, v.lifeStage)}
                       {v.place && ` · ${v.place.rack}${v.place.shelf}-${v.place.position}`}
                     </li>
                   ))}

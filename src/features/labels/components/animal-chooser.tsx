@@ -1,5 +1,5 @@
 import { useMemo, useState } from 'react';
-import { STAGE_LABEL } from '#shared/domain/animal-facts';
+import { stageLabel } from '#shared/domain/animal-facts';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/select-field';
@@ -55,7 +55,7 @@ export function AnimalChooser({ animals, timeZone, chosen, onChange }: Props) {
               <input type="checkbox" checked={chosen.has(a.id)} onChange={() => toggle(a.id)} className="size-6 shrink-0 accent-[var(--c-primary)]" />
               <span className="font-mono font-bold tracking-wider">{a.labelCode}</span>
               <span className="truncate">
-                {a.name} <span className="text-sm text-muted">· {STAGE_LABEL[a.lifeStage]}</span>
+                {a.name} <span className="text-sm text-muted">· {stageLabel(a.group, a.lifeStage)}</span>
               </span>
             </label>
           </li>

@@ -14,9 +14,10 @@ import { useRecordOutcome, type Recorder } from '../api/record-outcome';
 
 
 function detail(e: HistoryEvent): string | null {
-  const p = e.payload as { text?: string; note?: string; sizeMm?: number; to?: string };
+  const p = e.payload as { text?: string; note?: string; sizeMm?: number; to?: string; rehoused?: boolean };
   const status = e.kind === 'status_changed' && p.to ? `now ${p.to.replace('_', ' ')}` : null;
-  return [status, p.text ?? p.note ?? (p.sizeMm ? `${p.sizeMm} mm` : null)].filter(Boolean).join(' · ') || null;
+  const rehoused = e.kind === 'moved' && p.rehoused ? 'into a new enclosure' : null;
+  return [status, rehoused, p.text ?? p.note ?? (p.sizeMm ? `${p.sizeMm} mm` : null)].filter(Boolean).join(' · ') || null;
 }
 
 /** The timeline's filter: what kind of facts to show. */

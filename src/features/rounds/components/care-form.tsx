@@ -1,8 +1,11 @@
 import { useState } from 'react';
+import { DIET_LABEL, DIETS } from '#shared/domain/animal-facts';
+import { GROUP_CARE } from '#shared/domain/rounds/care-profiles';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import { careSettingsBody, type CareSettingsBody } from '#shared/schemas/rules';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
+import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { useSaveCare } from '../api/schedule';
 
@@ -17,11 +20,13 @@ export function CareForm({ collectionId, animal }: { collectionId: string; anima
     preyType: animal.preyType?.toString() ?? '',
     preySize: animal.preySize?.toString() ?? '',
     preyCount: animal.preyCount?.toString() ?? '',
+    diet: animal.diet ?? '',
     doNotFeedUntil: animal.doNotFeedUntil?.toString() ?? '',
     hasWaterDish: animal.hasWaterDish,
   });
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const set = (key: keyof typeof values) => (e: React.ChangeEvent<HTMLInputElement>) =>
+  const byDiet = Object.values(GROUP_CARE[animal.group].food).includes('diet');
+  const set = (key: keyof typeof values) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) =>
     setValues((v) => ({ ...v, [key]: e.target.type === 'checkbox' ? e.target.checked : e.target.value }));
 
   function submit(e: React.FormEvent) {
@@ -31,6 +36,7 @@ export function CareForm({ collectionId, animal }: { collectionId: string; anima
       preyType: textOrNull(values.preyType),
       preySize: textOrNull(values.preySize),
       preyCount: numberOrNull(values.preyCount),
+      diet: textOrNull(values.diet),
       doNotFeedUntil: textOrNull(values.doNotFeedUntil),
       hasWaterDish: values.hasWaterDish,
     };
@@ -53,6 +59,14 @@ export function CareForm({ collectionId, animal }: { collectionId: string; anima
       <TextField label="Prey" placeholder="e.g. roach" value={values.preyType} onChange={set('preyType')} error={errors.preyType} />
       <TextField label="Prey size" placeholder="e.g. medium" value={values.preySize} onChange={set('preySize')} error={errors.preySize} />
       <TextField label="How many" inputMode="numeric" value={values.preyCount} onChange={set('preyCount')} error={errors.preyCount} />
+      {byDiet && (
+        <SelectField
+          label="Diet"
+          value={values.diet}
+          onChange={set('diet')}
+          options={[{ value: '', label: `Usual: ${DIET_LABEL[GROUP_CARE[animal.group].defaultDiet].toLowerCase()}` }, ...DIETS.map((d) => ({ value: d, label: DIET_LABEL[d] }))]}
+        />
+      )}
       <TextField label="Do not feed until" type="date" value={values.doNotFeedUntil} onChange={set('doNotFeedUntil')} error={errors.doNotFeedUntil} />
       <label className="flex min-h-target items-center gap-3 font-bold">
         <input type="checkbox" className="h-6 w-6 accent-[var(--c-primary)]" checked={values.hasWaterDish} onChange={set('hasWaterDish')} />

@@ -9,17 +9,31 @@ export type RecordOutcome = (kind: EventKind, payload?: Record<string, unknown>)
 /** Everything that can be recorded in one tap, for an animal that is not on today's round. */
 const ANY_DAY: EventKind[] = ['ate', 'refused', 'prey_left_in', 'prey_removed', 'watered'];
 
+interface Outcome {
+  kind: EventKind;
+  word: string;
+  payload?: Record<string, unknown>;
+}
+const outcome = (kind: EventKind): Outcome => ({ kind, word: EVENT_WORDS[kind] });
+
+/** A larva's substrate check is done by looking and topping up: one tap writes that note. */
+const SUBSTRATE_CHECKED: Outcome = { kind: 'note', word: 'Checked', payload: { text: 'Checked the food substrate and topped it up.' } };
+
 /** The one-tap outcomes an item's tasks call for; the rest sit one step away under "More". */
-function mainOutcomes(item: RoundItemView, held: boolean): EventKind[] {
-  if (!item.tasks.length) return held ? ANY_DAY.filter((k) => k !== 'ate') : ANY_DAY;
+function mainOutcomes(item: RoundItemView, held: boolean): Outcome[] {
+  if (!item.tasks.length) return (held ? ANY_DAY.filter((k) => k !== 'ate') : ANY_DAY).map(outcome);
   // A task a hold withdrew offers no buttons: there is nothing to do for it today.
-  const kinds = new Set(item.tasks.filter((t) => !t.withdrawn).map((t) => t.kind));
+  const open = item.tasks.filter((t) => !t.withdrawn);
+  const kinds = new Set(open.map((t) => t.kind));
+  const codes = new Set(open.flatMap((t) => t.reasons.map((r) => r.code)));
   const preyInside = kinds.has('remove_prey') || item.outcomes.some((o) => o.kind === 'prey_left_in');
   const list: EventKind[] = [];
   if (kinds.has('feed')) list.push('ate', 'refused', 'prey_left_in');
+  // A roach allowed to stay is checked (R20): it may be gone — eaten — or taken out.
+  else if (codes.has('check_prey')) list.push('ate');
   if (preyInside) list.push('prey_removed');
   if (kinds.has('water')) list.push('watered');
-  return list;
+  return [...list.map(outcome), ...(codes.has('check_substrate') ? [SUBSTRATE_CHECKED] : [])];
 }
 
 const MORE: EventKind[] = ['molted', 'premolt_seen', 'molting_now', 'skipped'];
@@ -58,14 +72,14 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
   const [confirming, setConfirming] = useState(false);
   const [note, setNote] = useState('');
   const panelId = useId();
-  const recorded = new Set(item.outcomes.map((o) => o.kind));
+  const recorded = new Set<EventKind>(item.outcomes.map((o) => o.kind));
   const hold = feedHoldOf(item);
   const main = mainOutcomes(item, !!hold);
   // One molt a day: once it is recorded, its details are completed instead.
   const more = (hold ? (['ate', ...MORE] as EventKind[]) : MORE).filter((k) => k !== 'molted' || !recorded.has('molted'));
-  const tap = (kind: EventKind) => {
+  const tap = (kind: EventKind, payload?: Record<string, unknown>) => {
     if (kind === 'ate' && hold) setConfirming(true);
-    else onRecord(kind);
+    else onRecord(kind, payload);
   };
   const molt = item.outcomes.find((o) => o.kind === 'molted');
   const detailed = item.outcomes.some((o) => o.kind === 'molt_details');
@@ -83,9 +97,9 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
         />
       )}
       <div className="grid grid-cols-2 gap-2 min-[400px]:grid-cols-3">
-        {main.map((kind) => (
-          <Button key={kind} variant={recorded.has(kind) ? 'primary' : 'secondary'} className="min-h-14 px-2 text-base" onClick={() => tap(kind)}>
-            {EVENT_WORDS[kind]}
+        {main.map(({ kind, word, payload }) => (
+          <Button key={word} variant={recorded.has(kind) ? 'primary' : 'secondary'} className="min-h-14 px-2 text-base" onClick={() => tap(kind, payload)}>
+            {word}
           </Button>
         ))}
         <Button variant="quiet" aria-expanded={open} aria-controls={panelId} className="min-h-14 px-2 text-base" onClick={() => setOpen((o) => !o)}>

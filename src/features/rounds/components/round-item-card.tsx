@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { SEX_LABEL, STAGE_LABEL } from '#shared/domain/animal-facts';
+import { SEX_LABEL, stageLabel } from '#shared/domain/animal-facts';
 import { EVENT_WORDS } from '#shared/domain/event-kinds';
 import { clockTime } from '#shared/domain/local-dates';
 import { currentNotes } from '#shared/domain/rounds/item-status';
@@ -57,7 +57,7 @@ export function RoundItemCard({ item, timeZone, myName, children }: Props) {
         <div>
           <h3 className="text-xl font-extrabold leading-tight">{animal.name}</h3>
           <p className="text-sm text-muted">
-            <i lang="la">{animal.scientificName}</i> · {STAGE_LABEL[animal.lifeStage]} · {SEX_LABEL[animal.sex]}
+            <i lang="la">{animal.scientificName}</i> · {stageLabel(animal.group, animal.lifeStage)} · {SEX_LABEL[animal.sex]}
           </p>
         </div>
         <div className="flex flex-col items-end gap-1">

@@ -1,76 +1,83 @@
 import { useState } from 'react';
-import { LIFE_STAGES, STAGE_LABEL, type LifeStage } from '#shared/domain/animal-facts';
-import type { Offer, RoundRules, RulesOverride } from '#shared/domain/rounds/rules';
+import { ANIMAL_GROUPS, GROUP_LABEL, stageLabel, type AnimalGroup } from '#shared/domain/animal-facts';
+import type { RulesOverride } from '#shared/domain/rounds/rules';
 import { rulesOverride } from '#shared/schemas/rules';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
+import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { useSaveRules, type RulesResponse } from '../api/rules';
+import {
+  DIET_KEYS,
+  feederRows,
+  fedStages,
+  groupOfPath,
+  isTextField,
+  offerPath,
+  profilePath,
+  SINGLE_KEYS,
+  stagePath,
+  toDraft,
+  toOverrides,
+  withoutFeeder,
+  type Draft,
+  type SingleKey,
+  type StageNumberKey,
+} from '../rules-draft';
 
-type StageKey = 'intervalDays' | 'refusalRetryDays' | 'refusalStreak' | 'postMoltHoldDays';
-type SingleKey = 'premoltCheckDays' | 'waterEveryDays' | 'rebuildFactor' | 'rebuildDays';
-
-const STAGE_RULES: { key: StageKey; title: string; explain: string; unit: string }[] = [
-  { key: 'intervalDays', title: 'Feeding interval', explain: 'Feed again this many days after the last meal.', unit: 'days' },
+const STAGE_RULES: { key: StageNumberKey; title: string; explain: string; unit: string }[] = [
+  { key: 'feedEveryDays', title: 'Feeding interval', explain: 'Feed again this many days after the last meal.', unit: 'days' },
   { key: 'refusalRetryDays', title: 'After a refusal', explain: 'Offer food again this many days after a refusal.', unit: 'days' },
   {
     key: 'refusalStreak',
     title: 'Refusals in a row',
-    explain: 'This many refusals in a row flag a possible premolt: food stops and a check goes on the round.',
+    explain: 'This many refusals in a row flag a possible premolt: food stops and a check goes on the round. Never for mature males or adults that no longer molt.',
     unit: 'refusals',
   },
-  { key: 'postMoltHoldDays', title: 'Post-molt hold', explain: 'No food for this many days after a molt, while the fangs harden.', unit: 'days' },
+  { key: 'postMoltHoldDays', title: 'Post-molt hold', explain: 'No food for this many days after a molt, while the fangs or mouthparts harden.', unit: 'days' },
 ];
 
-const SINGLE_RULES: { key: SingleKey; title: string; explain: string }[] = [
-  { key: 'premoltCheckDays', title: 'Premolt check (days)', explain: 'While a possible premolt is flagged, look at the animal this often.' },
-  { key: 'waterEveryDays', title: 'Water every (days)', explain: 'Top up water dishes this often. Small slings have no dish.' },
-  { key: 'rebuildFactor', title: 'Rebuild factor', explain: 'After an egg sac is pulled or a pairing, the interval is multiplied by this (0.5 = twice as often).' },
-  { key: 'rebuildDays', title: 'Rebuild period (days)', explain: 'How long the shorter interval lasts.' },
+const SINGLE_RULES: Record<SingleKey, { title: string; explain: string }> = {
+  settlingDays: { title: 'Settling (days)', explain: 'No food for this many days after an animal joins the collection, is potted up or is rehoused. 0 turns it off.' },
+  preyStayCheckDays: { title: 'Check prey left in (days)', explain: 'A roach allowed to stay with an adult is checked this many days later.' },
+  premoltCheckDays: { title: 'Premolt check (days)', explain: 'While a possible premolt is flagged, look at the animal this often.' },
+  waterEveryDays: { title: 'Water dishes every (days)', explain: 'Top up water dishes this often.' },
+  rebuildFactor: { title: 'Rebuild factor', explain: 'After an egg sac is pulled or a pairing, the interval is multiplied by this (0.5 = twice as often).' },
+  rebuildDays: { title: 'Rebuild period (days)', explain: 'How long the shorter interval lasts.' },
+  substrateCheckDays: { title: 'Larva substrate check (days)', explain: 'Beetle larvae: check and top up their food substrate this often.' },
+  spanToBody: { title: 'Body share of leg span', explain: 'A spider’s body is about this share of its leg span; prey is no longer than the body.' },
+  tinySlingMm: { title: 'Tiny sling (mm)', explain: 'Tarantula slings smaller than this get fruit-fly larvae.' },
+};
+
+const DIET_WORDS: Record<(typeof DIET_KEYS)[number], string> = {
+  fruit_jelly: 'Fruit or jelly (days)',
+  plant: 'Plant food (days)',
+  detritus: 'Leaf litter (days)',
+};
+
+const HYDRATION_OPTIONS = [
+  { value: 'moisten', label: 'Moisten the substrate' },
+  { value: 'mist', label: 'Mist' },
+  { value: 'none', label: 'Nothing' },
 ];
 
-const GROUPS = ['centipede', 'scorpion', 'mantis'] as const;
-
-type Draft = Record<string, string>;
-
-function toDraft(r: RoundRules): Draft {
-  const d: Draft = {};
-  for (const { key } of STAGE_RULES) for (const s of LIFE_STAGES) d[`${key}.${s}`] = String(r[key][s]);
-  for (const { key } of SINGLE_RULES) d[key] = String(r[key]);
-  for (const g of GROUPS) d[`groupIntervalDays.${g}`] = String(r.groupIntervalDays[g] ?? '');
-  for (const s of LIFE_STAGES) for (const f of ['preyType', 'preySize', 'countMin', 'countMax'] as const) d[`offers.${s}.${f}`] = String(r.offers[s][f]);
-  return d;
-}
-
-/** Only what differs from the defaults is stored: a later change of default still reaches us. */
-function toOverrides(d: Draft, defaults: RoundRules): RulesOverride {
-  const out: Record<string, unknown> = {};
-  const num = (k: string) => (d[k]!.trim() === '' ? NaN : Number(d[k]));
-  for (const { key } of STAGE_RULES) {
-    const changed = Object.fromEntries(LIFE_STAGES.filter((s) => num(`${key}.${s}`) !== defaults[key][s]).map((s) => [s, num(`${key}.${s}`)]));
-    if (Object.keys(changed).length) out[key] = changed;
-  }
-  for (const { key } of SINGLE_RULES) if (num(key) !== defaults[key]) out[key] = num(key);
-  const groups = Object.fromEntries(GROUPS.filter((g) => num(`groupIntervalDays.${g}`) !== defaults.groupIntervalDays[g]).map((g) => [g, num(`groupIntervalDays.${g}`)]));
-  if (Object.keys(groups).length) out.groupIntervalDays = groups;
-  const offers: Partial<Record<LifeStage, Offer>> = {};
-  for (const s of LIFE_STAGES) {
-    const o: Offer = {
-      preyType: d[`offers.${s}.preyType`]!.trim(),
-      preySize: d[`offers.${s}.preySize`]!.trim(),
-      countMin: num(`offers.${s}.countMin`),
-      countMax: num(`offers.${s}.countMax`),
-    };
-    if (JSON.stringify(o) !== JSON.stringify(defaults.offers[s])) offers[s] = o;
-  }
-  if (Object.keys(offers).length) out.offers = offers;
-  return out as RulesOverride;
+function Box({ title, explain, children }: { title: string; explain?: string; children: React.ReactNode }) {
+  return (
+    <fieldset className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
+      <legend className="px-1 text-lg font-extrabold">{title}</legend>
+      {explain && <p className="text-sm text-muted">{explain}</p>}
+      {children}
+    </fieldset>
+  );
 }
 
 export function RulesForm({ collectionId, data }: { collectionId: string; data: RulesResponse }) {
   const save = useSaveRules(collectionId);
   const [draft, setDraft] = useState<Draft>(() => toDraft(data.rules));
   const [errors, setErrors] = useState<Record<string, string>>({});
+  const [group, setGroup] = useState<AnimalGroup>('tarantula');
+  const defaults = toDraft(data.defaults);
+  const set = (key: string, value: string) => setDraft((d) => ({ ...d, [key]: value }));
   const field = (key: string, label: string, extra: { hint?: string; numeric?: boolean } = {}) => (
     <TextField
       key={key}
@@ -79,70 +86,94 @@ export function RulesForm({ collectionId, data }: { collectionId: string; data: 
       inputMode={extra.numeric === false ? 'text' : 'decimal'}
       value={draft[key] ?? ''}
       error={errors[key]}
-      onChange={(e) => setDraft((d) => ({ ...d, [key]: e.target.value }))}
+      onChange={(e) => set(key, e.target.value)}
     />
   );
 
   function submit(e: React.FormEvent) {
     e.preventDefault();
-    const overrides = toOverrides(draft, data.defaults);
-    const parsed = rulesOverride.safeParse(overrides);
+    const parsed = rulesOverride.safeParse(toOverrides(draft, data.defaults));
     if (!parsed.success) {
-      setErrors(
-        Object.fromEntries(
-          parsed.error.issues.map((i) => {
-            const key = i.path.join('.');
-            const raw = draft[key];
-            const textual = /\.(preyType|preySize)$/.test(key);
-            const notANumber = !textual && raw !== undefined && (raw.trim() === '' || Number.isNaN(Number(raw)));
-            return [key, notANumber ? 'Enter a number.' : i.message];
-          }),
-        ),
+      const found = Object.fromEntries(
+        parsed.error.issues.map((i) => {
+          const key = i.path.join('.');
+          const raw = draft[key];
+          const notANumber = !isTextField(key) && raw !== undefined && (raw.trim() === '' || Number.isNaN(Number(raw.replace(',', '.'))));
+          return [key, notANumber ? 'Enter a number.' : i.message];
+        }),
       );
+      setErrors(found);
+      const first = Object.keys(found).map(groupOfPath).find((g) => g !== null);
+      if (first && !Object.keys(found).some((k) => groupOfPath(k) === group)) setGroup(first);
       return;
     }
     setErrors({});
     save.mutate(parsed.data as RulesOverride);
   }
 
+  const stages = fedStages(data.defaults, group);
   const problems = Object.keys(errors).length;
+  const rows = feederRows(draft);
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-5">
+      <p className="text-sm text-muted">
+        What each value means, and where it comes from, is in the care rules (docs/care-rules.md). An animal’s own care settings come first.
+      </p>
+      <SelectField label="Care profile of" value={group} onChange={(e) => setGroup(e.target.value as AnimalGroup)} options={ANIMAL_GROUPS.map((g) => ({ value: g, label: GROUP_LABEL[g] }))} />
       {STAGE_RULES.map(({ key, title, explain, unit }) => (
-        <fieldset key={key} className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
-          <legend className="px-1 text-lg font-extrabold">{title}</legend>
-          <p className="text-sm text-muted">{explain}</p>
+        <Box key={key} title={title} explain={explain}>
           <div className="grid grid-cols-2 gap-3">
-            {LIFE_STAGES.map((s) => field(`${key}.${s}`, `${STAGE_LABEL[s]} (${unit})`, { hint: `Default ${data.defaults[key][s]}` }))}
+            {stages.map((s) => field(stagePath(group, s, key), `${stageLabel(group, s)} (${unit})`, { hint: `Default ${defaults[stagePath(group, s, key)]}` }))}
           </div>
-        </fieldset>
+        </Box>
       ))}
-      <fieldset className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
-        <legend className="px-1 text-lg font-extrabold">Other groups</legend>
-        <p className="text-sm text-muted">Centipedes, scorpions and mantids have their own feeding interval (days), whatever their stage.</p>
-        <div className="grid grid-cols-2 gap-3">
-          {GROUPS.map((g) => field(`groupIntervalDays.${g}`, g[0]!.toUpperCase() + g.slice(1), { hint: `Default ${data.defaults.groupIntervalDays[g]}` }))}
-        </div>
-      </fieldset>
-      {SINGLE_RULES.map(({ key, title, explain }) => (
-        <fieldset key={key} className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
-          <legend className="px-1 text-lg font-extrabold">{title}</legend>
-          {field(key, title, { hint: `${explain} Default ${data.defaults[key]}.` })}
-        </fieldset>
-      ))}
-      <fieldset className="flex flex-col gap-3 rounded-2xl border-2 border-border bg-surface p-3">
-        <legend className="px-1 text-lg font-extrabold">What to offer</legend>
-        <p className="text-sm text-muted">Prey no larger than the animal’s body. An animal’s own setting comes first.</p>
-        {LIFE_STAGES.map((s) => (
+      <Box title="What to offer" explain="Prey no longer than the animal’s body: with a size on record, the size comes from the feeder catalogue below; these sizes are for animals without one.">
+        {stages.map((s) => (
           <div key={s} className="grid grid-cols-2 gap-3">
-            <p className="col-span-2 font-bold">{STAGE_LABEL[s]}</p>
-            {field(`offers.${s}.preyType`, 'Prey', { numeric: false })}
-            {field(`offers.${s}.preySize`, 'Size', { numeric: false })}
-            {field(`offers.${s}.countMin`, 'At least')}
-            {field(`offers.${s}.countMax`, 'At most')}
+            <p className="col-span-2 font-bold">{stageLabel(group, s)}</p>
+            {field(offerPath(group, s, 'preyType'), 'Prey', { numeric: false })}
+            {field(offerPath(group, s, 'preySize'), 'Size', { numeric: false })}
+            {field(offerPath(group, s, 'countMin'), 'At least')}
+            {field(offerPath(group, s, 'countMax'), 'At most')}
           </div>
         ))}
-      </fieldset>
+      </Box>
+      <Box title="Water without a dish" explain="Animals with a dish get the dish topped up. Without one, this group gets:">
+        <SelectField label="Task" value={draft[profilePath(group, 'hydration')]} onChange={(e) => set(profilePath(group, 'hydration'), e.target.value)} options={HYDRATION_OPTIONS} />
+        <div className="grid grid-cols-2 gap-3">
+          {field(profilePath(group, 'hydrateEveryDays'), 'Every (days)', { hint: `Default ${defaults[profilePath(group, 'hydrateEveryDays')]}` })}
+          {field(profilePath(group, 'hydrateBelowMm'), 'Only below (mm)', { hint: 'Empty: every size.' })}
+        </div>
+      </Box>
+
+      <h2 className="text-2xl font-extrabold">Every group</h2>
+      {SINGLE_KEYS.map((key) => (
+        <Box key={key} title={SINGLE_RULES[key].title}>
+          {field(key, SINGLE_RULES[key].title, { hint: `${SINGLE_RULES[key].explain} Default ${defaults[key]}.` })}
+        </Box>
+      ))}
+      <Box title="Diets" explain="Beetle adults and other animals fed by diet: how often their food is replaced.">
+        <div className="grid grid-cols-2 gap-3">{DIET_KEYS.map((k) => field(`dietEveryDays.${k}`, DIET_WORDS[k], { hint: `Default ${defaults[`dietEveryDays.${k}`]}` }))}</div>
+      </Box>
+      <Box title="Feeder catalogue" explain="The feeders you keep and their usual body length. Offers pick the largest size no longer than the animal’s body.">
+        {Array.from({ length: rows }, (_, i) => (
+          <div key={i} className="grid grid-cols-2 items-end gap-3 border-b-2 border-border pb-3">
+            {field(`feeders.${i}.preyType`, `Feeder ${i + 1}: prey`, { numeric: false })}
+            {field(`feeders.${i}.preySize`, `Feeder ${i + 1}: size`, { numeric: false })}
+            {field(`feeders.${i}.lengthMm`, `Feeder ${i + 1}: length (mm)`)}
+            <Button type="button" variant="quiet" onClick={() => setDraft((d) => withoutFeeder(d, i))}>
+              Remove feeder {i + 1}
+            </Button>
+          </div>
+        ))}
+        <Button
+          type="button"
+          variant="secondary"
+          onClick={() => setDraft((d) => ({ ...d, [`feeders.${rows}.preyType`]: '', [`feeders.${rows}.preySize`]: '', [`feeders.${rows}.lengthMm`]: '' }))}
+        >
+          Add a feeder size
+        </Button>
+      </Box>
       {problems > 0 && <Notice tone="error" title={`${problems} ${problems === 1 ? 'field needs' : 'fields need'} attention.`} />}
       {save.isError && <Notice tone="error" title={save.error.message} />}
       {save.isSuccess && <Notice tone="ok" title="Rules saved. Tomorrow’s round follows them; today’s stays as it was built." />}
