@@ -157,7 +157,9 @@ export function historyFor(animal: DemoAnimal, today: LocalDate, random: () => n
       offset = moltAt + hold;
       continue;
     }
-    const refused = random() < 0.08;
+    // Never two refusals in a row here: that flags a possible premolt (R3), and no meal follows.
+    const roll = random() < 0.08;
+    const refused = roll && out.at(-1)?.kind !== 'refused';
     out.push({ kind: refused ? 'refused' : 'ate', day: at(offset), minute: minute(), by: by(), payload: refused ? {} : { ...offer } });
     offset += refused ? Math.max(2, Math.round(interval / 2)) : interval;
   }
@@ -295,7 +297,8 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
           cautions: a.cautions ?? [],
           clutch: a.clutch ?? null,
           acquiredOn: addDays(today, -200 - Math.floor(random() * 300)),
-          createdAt: startOfLocalDate(addDays(today, -61), zone),
+          // In Rackside since before the history begins, and settled in (R16) by then.
+          createdAt: startOfLocalDate(addDays(today, -65), zone),
         })),
       )
       .returning({ id: animals.id });
