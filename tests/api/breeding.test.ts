@@ -345,7 +345,7 @@ describe('a female with a sac or brood', () => {
     expect((await stateOf(scorpion.id)).leaveAlone).toEqual({ reason: 'guarding_brood', since: '2026-11-05' });
     const guarded = await schedule(keeper, scorpion.id);
     expect(guarded.tasks.map((t) => t.kind)).toEqual(['leave_alone', 'water']);
-    expect(guarded.tasks[0]!.reasons[0]!.text).toBe('Guarding her brood since 5 Nov: leave alone — no food, no disturbance.');
+    expect(guarded.tasks[0]!.reasons[0]!.text).toBe('Carrying her brood since 5 Nov: leave alone — no food, no disturbance.');
     expect((await keeper.agent.patch(`${base()}/egg-sacs/${brood.id}`).send({ pulledOn: '2026-11-18' }).expect(422)).body.error.message).toBe('A brood is not pulled: record when it dispersed.');
     await keeper.agent.patch(`${base()}/egg-sacs/${brood.id}`).send({ dispersedOn: '2026-11-18' }).expect(200);
     expect(await stateOf(scorpion.id)).toMatchObject({ leaveAlone: null, rebuildSince: '2026-11-18', rebuildReason: 'brood_dispersed' });
@@ -358,7 +358,8 @@ describe('a female with a sac or brood', () => {
     expect(await liveFacts(mantis.id)).toEqual(['case_laid@2026-11-02T17:00:00.000Z']);
     // A mantis does not guard her ootheca: she stays on the round.
     expect((await stateOf(mantis.id)).leaveAlone).toBeNull();
-    expect((await schedule(keeper, mantis.id)).tasks.map((t) => t.kind)).toEqual(['feed']);
+    // Fed (and misted: no dish for a mantis, docs/care-rules.md § Mantis), never left alone.
+    expect((await schedule(keeper, mantis.id)).tasks.map((t) => t.kind)).toEqual(['feed', 'water']);
     const listed = (await keeper.agent.get(`${base()}/egg-sacs`).expect(200)).body.sacs as { id: string; kind: string }[];
     expect(listed.filter((s) => s.id === brood.id || s.id === ootheca.id).map((s) => s.kind).sort()).toEqual(['brood', 'egg_case']);
   });
