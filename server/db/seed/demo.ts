@@ -68,7 +68,7 @@ const ADULTS: DemoAnimal[] = [
   { name: 'Blue Jay', scientificName: 'Monocentropus balfouri', commonName: 'Socotra Island blue baboon', group: 'tarantula', lifeStage: 'adult', sex: 'mature_male', sizeMm: 110, place: ['A', '2', '2'], cautions: ['potent_venom', 'fast_defensive'], hasWaterDish: true },
   { name: 'Ember', scientificName: 'Omothymus schioedtei', commonName: 'Malaysian earth tiger', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 180, place: ['A', '2', '3'], cautions: ['potent_venom', 'fast_defensive', 'escape_risk'], hasWaterDish: true, story: 'missed' },
   { name: 'Rattler', scientificName: 'Scolopendra heros', commonName: 'Giant desert centipede', group: 'centipede', lifeStage: 'adult', sex: 'unknown', sizeMm: 160, place: ['A', '3', '1'], cautions: ['potent_venom', 'fast_defensive', 'escape_risk'], hasWaterDish: true },
-  { name: 'Pinch', scientificName: 'Heterometrus spinifer', commonName: 'Giant forest scorpion', group: 'scorpion', lifeStage: 'adult', sex: 'female', sizeMm: 110, place: ['A', '3', '2'], hasWaterDish: true, story: 'brood_on_back' },
+  { name: 'Pinch', scientificName: 'Heterometrus spinifer', commonName: 'Giant forest scorpion', group: 'scorpion', lifeStage: 'adult', sex: 'female', sizeMm: 110, place: ['A', '3', '2'], cautions: ['sting'], hasWaterDish: true, story: 'brood_on_back' },
   { name: 'Mantra', scientificName: 'Hierodula membranacea', commonName: 'Giant Asian mantis', group: 'mantis', lifeStage: 'adult', sex: 'female', sizeMm: 90, place: ['A', '3', '3'], story: 'egg_case' },
 ];
 
@@ -163,8 +163,9 @@ export function historyFor(animal: DemoAnimal, today: LocalDate, random: () => n
     out.push({ kind: refused ? 'refused' : 'ate', day: at(offset), minute: minute(), by: by(), payload: refused ? {} : { ...offer } });
     offset += refused ? Math.max(2, Math.round(interval / 2)) : interval;
   }
-  // Dishes topped up, and dish-less slings' substrate moistened (both recorded as watering).
-  if (animal.hasWaterDish || animal.lifeStage === 'sling') {
+  // Dishes topped up, dish-less slings' substrate moistened and the mantis misted (all recorded
+  // as watering).
+  if (animal.hasWaterDish || animal.lifeStage === 'sling' || animal.group === 'mantis') {
     // Animals whose story must show on today's round were last watered three days ago.
     const last = animal.story === 'premolt' || animal.story === 'molted_5_days' ? -3 : -1 - Math.floor(random() * 3);
     for (let d = last; d >= -60; d -= 3) out.push({ kind: 'watered', day: at(d), minute: minute(), by: by() });
