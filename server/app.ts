@@ -196,7 +196,7 @@ export function createApp(options: AppOptions) {
   const animals = createAnimalsService(database.db, now);
   const rounds = createRoundsService(database.db, now);
   const photos = createPhotosService(database.db, path.resolve(env.STORAGE_DIR), now);
-  api.use('/collections/:collectionId', dataRoutes(createDataService(database.db, { animals, rounds, photos }), member));
+  api.use('/collections/:collectionId', dataRoutes(createDataService(database.db, { animals, photos, now }), member));
   api.use('/collections/:collectionId/animals', animalsRoutes(animals, member));
   api.use('/collections/:collectionId/locations', locationsRoutes(createLocationsService(database.db), member));
   api.use('/collections/:collectionId', roundsRoutes(rounds, animals, member));

@@ -1,73 +1,104 @@
 import { z } from 'zod';
-import { ANIMAL_GROUPS, ANIMAL_STATUSES, LIFE_STAGES, SEXES } from '../domain/animal-facts';
-import { EVENT_KINDS } from '../domain/event-kinds';
+import { ANIMAL_STATUSES } from '../domain/animal-facts';
+import { animalInput } from './animals';
+import { signUpBody } from './auth';
+import { localDate, timeZone, uuid } from './common';
+import { EVENT_PAYLOADS, eventBatchBody, eventKind } from './events';
+import { locationInput } from './locations';
+import { careSettingsBody, rulesOverride } from './rules';
 import './messages';
 
 export const BACKUP_FORMAT = 'rackside-backup';
 export const BACKUP_VERSION = 1;
 
-const id = z.uuid();
-const instant = z.iso.datetime({ offset: true });
-const date = z.string().regex(/^\d{4}-\d{2}-\d{2}$/).nullable();
-
 /**
- * A whole collection in one JSON file: its places, animals (photos inline, base64 WebP) and
- * every event, ids as they were. Accounts are not in it: people belong to a server.
+ * The largest backup a restore reads. The file is read as a stream and spooled to disk, so the
+ * server's memory does not grow with it (the largest single value, a photo, is what counts);
+ * the cap bounds the disk a restore borrows and how long its transaction stays open
+ * (docs/decisions/011-backup-and-restore-at-scale.md).
  */
-export const backupFile = z.object({
+export const MAX_RESTORE_BYTES = 512 * 1024 * 1024;
+/** A stored photo is at most 10 MiB (the upload limit): 13,981,016 characters of base64. */
+export const MAX_BACKUP_PHOTO_CHARS = 14_000_000;
+/** The walk-order screen handles at most this many places (walkOrderBody). */
+export const MAX_BACKUP_PLACES = 20_000;
+
+const instant = z.iso.datetime({ offset: true, message: 'Give a date and time such as 2026-12-02T09:30:00Z.' });
+
+const photo = z
+  .string()
+  .max(MAX_BACKUP_PHOTO_CHARS, { message: 'This photo is larger than any Rackside keeps (10 MB).' })
+  .regex(/^[A-Za-z0-9+/]*={0,2}$/, { message: 'This photo is not written as base64 text.' })
+  .nullable();
+
+/*
+ * A backup is one JSON object whose members come in this order: format, version, exportedAt,
+ * collection, locations, animals, events (the order the server writes them; a restore reads
+ * places before the animals in them, and animals before their history). Every record is
+ * checked with the schemas the API uses for the same thing, so a restore can store nothing
+ * the app itself would refuse.
+ */
+
+export const backupHeader = {
   format: z.literal(BACKUP_FORMAT, { message: 'This is not a Rackside backup file.' }),
   version: z.literal(BACKUP_VERSION, { message: `This backup was made by another version of Rackside (this one reads version ${BACKUP_VERSION}).` }),
   exportedAt: instant,
-  collection: z.object({ name: z.string(), timeZone: z.string(), rules: z.record(z.string(), z.unknown()) }),
-  locations: z.array(z.object({ id, room: z.string(), rack: z.string(), shelf: z.string(), position: z.string(), walkOrder: z.number().int() })),
-  animals: z.array(
-    z.object({
-      id,
-      labelCode: z.string(),
-      name: z.string(),
-      scientificName: z.string(),
-      commonName: z.string().nullable(),
-      group: z.enum(ANIMAL_GROUPS),
-      lifeStage: z.enum(LIFE_STAGES),
-      sex: z.enum(SEXES),
-      sizeMm: z.number().nullable(),
-      locationId: id.nullable(),
-      hasWaterDish: z.boolean(),
-      preyType: z.string().nullable(),
-      preySize: z.string().nullable(),
-      preyCount: z.number().int().nullable(),
-      intervalDays: z.number().int().nullable(),
-      doNotFeedUntil: date,
-      cautions: z.array(z.string()),
-      cautionNote: z.string().nullable(),
-      status: z.enum(ANIMAL_STATUSES),
-      statusDate: date,
-      acquiredOn: date,
-      source: z.string().nullable(),
-      clutch: z.string().nullable(),
-      notes: z.string().nullable(),
-      settings: z.record(z.string(), z.unknown()),
-      createdAt: instant,
-      updatedAt: instant,
-      photo: z.string().nullable(),
-    }),
-  ),
-  events: z.array(
-    z.object({
-      id,
-      animalId: id,
-      kind: z.enum(EVENT_KINDS),
-      payload: z.record(z.string(), z.unknown()),
-      recordedBy: id.nullable(),
-      deviceId: z.string().nullable(),
-      clientRecordedAt: instant,
-      clientSentAt: instant.nullable(),
-      serverReceivedAt: instant,
-      effectiveAt: instant,
-      flags: z.array(z.string()),
-      /** A molt's photo, base64 WebP, when there is one. */
-      photo: z.string().nullable().optional(),
-    }),
-  ),
+};
+
+export const backupCollection = z.object({
+  name: signUpBody.shape.collectionName,
+  timeZone,
+  rules: rulesOverride,
 });
-export type BackupFile = z.infer<typeof backupFile>;
+
+export const backupPlace = locationInput.extend({
+  id: uuid,
+  walkOrder: z.number().int().min(0, { message: 'The walk order cannot be below 0.' }).max(1_000_000_000),
+});
+export type BackupPlace = z.input<typeof backupPlace>;
+
+const { labelCode, care: _care, ...entered } = animalInput.shape;
+const care = careSettingsBody.required().shape;
+
+export const backupAnimal = z.object({
+  id: uuid,
+  labelCode: labelCode.unwrap().refine((code) => code !== '', { message: 'Every animal in a backup needs its label code.' }),
+  ...entered,
+  ...care,
+  status: z.enum(ANIMAL_STATUSES, { message: 'Choose kept, sold, deceased, rehomed or on loan.' }),
+  statusDate: localDate.nullable(),
+  // Per-animal rule overrides: the same shape as a collection's.
+  settings: rulesOverride,
+  createdAt: instant,
+  updatedAt: instant,
+  photo,
+});
+export type BackupAnimal = z.input<typeof backupAnimal>;
+
+export const backupEvent = z
+  .object({
+    id: uuid,
+    animalId: uuid,
+    kind: eventKind,
+    payload: z.record(z.string(), z.unknown()),
+    recordedBy: uuid.nullable(),
+    deviceId: eventBatchBody.shape.deviceId.nullable(),
+    clientRecordedAt: instant,
+    clientSentAt: instant.nullable(),
+    serverReceivedAt: instant,
+    effectiveAt: instant,
+    // Marks the server adds (clock corrections and the like): short words, stored as a list.
+    flags: z.array(z.string().regex(/^[a-z_]{1,40}$/, { message: 'A flag is a short word such as clock_corrected.' })).max(10),
+    /** A molt's photo, base64 WebP, when there is one. */
+    photo: photo.optional(),
+  })
+  .superRefine((event, ctx) => {
+    // The payload as the API checks it for the same kind (server-made moves and status
+    // changes included: a backup holds those too).
+    const result = EVENT_PAYLOADS[event.kind].safeParse(event.payload);
+    if (!result.success) {
+      for (const issue of result.error.issues) ctx.addIssue({ code: 'custom', path: ['payload', ...issue.path.map(String)], message: issue.message });
+    }
+    if (event.photo && event.kind !== 'molted') ctx.addIssue({ code: 'custom', path: ['photo'], message: 'Only a molt can have a photo.' });
+  });
+export type BackupEvent = z.input<typeof backupEvent>;
