@@ -207,7 +207,7 @@ export function createApp(options: AppOptions) {
   api.use('/collections/:collectionId', coverRoutes(cover, coverReports, rounds, member));
   api.use('/collections/:collectionId', breedingRoutes(createBreedingService(database.db, now), member));
   api.use('/collections/:collectionId', labelsRoutes(createLabelsService(database.db), member));
-  api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db), member));
+  api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db, { removeFiles: photos.removeCollection }), member));
   api.use(apiNotFound);
   api.use(errorHandler);
   app.use('/api', api);

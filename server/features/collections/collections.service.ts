@@ -1,9 +1,9 @@
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { HttpError } from '../../middleware/errors';
 import { findUserByEmail } from '../auth/auth.repository';
-import { deleteMembership, findMembership, insertMembership, listMembers } from './collections.repository';
+import { deleteCollectionRows, deleteMembership, findMembership, insertMembership, listMembers } from './collections.repository';
 
-export function createCollectionsService(db: NodePgDatabase) {
+export function createCollectionsService(db: NodePgDatabase, deps: { removeFiles(collectionId: string): Promise<void> }) {
   return {
     async members(collectionId: string) {
       const rows = await listMembers(db, collectionId);
@@ -20,6 +20,18 @@ export function createCollectionsService(db: NodePgDatabase) {
         throw new HttpError(409, 'already_member', 'That person is already a member of this collection.');
       }
       await insertMembership(db, { collectionId, userId: user.id, role: 'keeper' });
+    },
+
+    /**
+     * Removes the collection for everyone: its rows first (one transaction), then its photo
+     * files. The typed name guards against deleting the wrong collection by a slip.
+     */
+    async deleteCollection(collectionId: string, name: string, confirmName: string) {
+      if (confirmName.normalize('NFC') !== name.trim().normalize('NFC')) {
+        throw new HttpError(422, 'invalid', `Type the collection’s name exactly as it is shown (“${name}”) to delete it.`, [{ path: 'body.confirmName', message: 'This is not the collection’s name.' }]);
+      }
+      await deleteCollectionRows(db, collectionId);
+      await deps.removeFiles(collectionId);
     },
 
     async removeMember(collectionId: string, userId: string, actingUserId: string) {

@@ -15,7 +15,7 @@ const BACKSLASH = 0x5c;
 const MAX_SCALAR = 64;
 
 export const tooLarge = (maxBytes: number) =>
-  new HttpError(413, 'too_large', `This backup is larger than Rackside restores (${Math.round(maxBytes / 1024 / 1024)} MB at most).`);
+  new HttpError(413, 'too_large', `This backup is larger than Rackside restores (${maxBytes >= 1024 * 1024 ? `${Math.round(maxBytes / 1024 / 1024)} MB` : `${Math.ceil(maxBytes / 1024)} KB`} at most).`);
 
 const notABackup = (why: string) => new HttpError(422, 'invalid', `This file is not a Rackside backup: ${why}`);
 
