@@ -166,6 +166,8 @@ describe('a photo write that fails', () => {
     const db = ctx.database.db;
     const photos = createPhotosService(db, ctx.storageDir, () => new Date());
     let writes = 0;
+    let first: Promise<string> | undefined;
+    let writtenBeforeFailure: string[] = [];
     // The disk fills up at the second photo: the first is already on disk, in the workspace.
     const failing: PhotosService = {
       ...photos,
@@ -174,11 +176,10 @@ describe('a photo write that fails', () => {
         return {
           ...workspace,
           async stagePhoto(webp: Buffer) {
-            if (++writes === 2) {
-              expect(filesUnder(path.join(ctx.storageDir, 'restoring')).filter((f) => f.endsWith('.webp'))).toHaveLength(2);
-              throw Object.assign(new Error('ENOSPC: no space left on device, write'), { code: 'ENOSPC' });
-            }
-            return workspace.stagePhoto(webp);
+            if (++writes === 1) return (first = workspace.stagePhoto(webp));
+            await first;
+            writtenBeforeFailure = filesUnder(path.join(ctx.storageDir, 'restoring')).filter((f) => f.endsWith('.webp'));
+            throw Object.assign(new Error('ENOSPC: no space left on device, write'), { code: 'ENOSPC' });
           },
         };
       },
@@ -189,6 +190,7 @@ describe('a photo write that fails', () => {
     expect(error).toBeInstanceOf(HttpError);
     expect(error).toMatchObject({ status: 503, message: 'The server could not store the photos of this backup, so nothing was restored. Try again later.' });
     expect(writes).toBe(2);
+    expect(writtenBeforeFailure).toHaveLength(2);
     expect(await leftBehind(to.collectionId)).toEqual(NOTHING);
 
     // With room on the disk again, the same backup restores into the same collection.

@@ -9,9 +9,7 @@ const SINGLE = ['format', 'version', 'exportedAt', 'collection'] as const;
 export type BackupRecord =
   | { kind: 'single'; key: (typeof SINGLE)[number]; value: unknown }
   /** One element of a list, numbered from 0 within its list. */
-  | { kind: 'item'; list: BackupList; index: number; value: unknown }
-  /** A list has been read to its end. */
-  | { kind: 'list-end'; list: BackupList };
+  | { kind: 'item'; list: BackupList; index: number; value: unknown };
 
 const badJson = (err: Error) => {
   const at = /position "(\d+)"/.exec(err.message)?.[1];
@@ -25,7 +23,9 @@ const badJson = (err: Error) => {
  */
 export async function* readBackup(file: string): AsyncGenerator<BackupRecord> {
   const parser = new JSONParser({
-    paths: [...SINGLE.map((k) => `$.${k}`), ...BACKUP_LISTS.flatMap((l) => [`$.${l}`, `$.${l}.*`])],
+    // Only the lists' elements, never the lists: a path for a list would make the parser keep
+    // every element until the list closes, to hand it over whole.
+    paths: [...SINGLE.map((k) => `$.${k}`), ...BACKUP_LISTS.map((l) => `$.${l}.*`)],
     keepStack: false,
     stringBufferSize: 64 * 1024,
   });
@@ -34,12 +34,7 @@ export async function* readBackup(file: string): AsyncGenerator<BackupRecord> {
   const state: { failure: HttpError | null } = { failure: null };
   parser.onValue = ({ value, key, parent, stack }) => {
     if (stack.length === 1) {
-      // A top-level member: one of ours, or a list that has just closed.
-      const list = BACKUP_LISTS.find((l) => l === key);
-      if (list) {
-        if (!Array.isArray(value)) state.failure ??= new HttpError(422, 'invalid', `This file is not a Rackside backup: “${list}” should be a list.`);
-        else ready.push({ kind: 'list-end', list });
-      } else ready.push({ kind: 'single', key: key as (typeof SINGLE)[number], value });
+      ready.push({ kind: 'single', key: key as (typeof SINGLE)[number], value });
       return;
     }
     const list = stack[1]?.key as BackupList;

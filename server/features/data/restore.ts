@@ -1,4 +1,4 @@
-import { createHmac, randomBytes } from 'node:crypto';
+import { hash, randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import type { Readable } from 'node:stream';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
@@ -63,8 +63,14 @@ export async function restoreBackup(db: NodePgDatabase, options: RestoreOptions,
       await repo.lockCollection(tx, collectionId);
       await refuseUnlessEmpty(tx, collectionId);
       const loader = createLoader(tx, collectionId, workspace, options.now());
-      for await (const record of readBackup(workspace.uploadFile)) await loader.take(record);
-      return loader.finish();
+      try {
+        for await (const record of readBackup(workspace.uploadFile)) await loader.take(record);
+        return await loader.finish();
+      } catch (err) {
+        // Nothing may still be writing when the transaction rolls back and the workspace goes.
+        await loader.settle();
+        throw err;
+      }
     });
     await workspace.commit(collectionId);
     return counts;
@@ -124,11 +130,14 @@ function spool(source: Readable, file: string, guard: (chunk: Uint8Array) => voi
   });
 }
 
-/** New ids for a restored copy, derived from the old ones with a key of this restore's own: no table of them is kept. */
+/**
+ * New ids for a restored copy, derived from the old ones and a salt of this restore's own: the
+ * same old id always gives the same new one, so no table of them is kept in memory.
+ */
 function idMapper() {
-  const key = randomBytes(32);
+  const salt = randomBytes(16).toString('hex');
   return (old: string) => {
-    const h = createHmac('sha256', key).update(old.toLowerCase()).digest();
+    const h = hash('sha256', salt + old.toLowerCase(), 'buffer');
     // RFC 9562 layout (version 4, variant 10): the bits of a random UUID.
     h[6] = (h[6]! & 0x0f) | 0x40;
     h[8] = (h[8]! & 0x3f) | 0x80;
@@ -184,17 +193,25 @@ type PlaceRow = typeof locations.$inferInsert;
 type AnimalRow = typeof animals.$inferInsert;
 type EventRow = typeof events.$inferInsert;
 type EventPhotoRow = typeof eventPhotos.$inferInsert;
+/** A photo being written aside while reading goes on: its key once it is on disk. */
+type Staging = { key: Promise<string> };
+/** Photos decoded and written at once, beside the reading (each holds its image in memory). */
+const PHOTOS_IN_FLIGHT = 2;
 
 function createLoader(tx: Db, collectionId: string, workspace: RestoreWorkspace, now: Date) {
   const newId = idMapper();
   const places = new Set<string>();
   const singles = new Map<string, unknown>();
-  const listsRead = new Set<BackupList>();
   const counts = { locations: 0, animals: 0, events: 0 };
   const problems: Problem[] = [];
   let stage = -1;
   let rules: RulesOverrideBody = {};
-  let pending = { places: [] as PlaceRow[], animals: [] as AnimalRow[], events: [] as EventRow[], photos: [] as EventPhotoRow[] };
+  const emptyBatch = () => ({ places: [] as PlaceRow[], animals: [] as { row: AnimalRow; photo: Staging | null }[], events: [] as EventRow[], photos: [] as { row: EventPhotoRow; photo: Staging }[] });
+  let pending = emptyBatch();
+  // One batch is written while the next is read: PostgreSQL and the parser work side by side.
+  // Failures surface when the write is next waited for; until then they are marked handled.
+  let writing: Promise<void> = Promise.resolve();
+  const staging = new Set<Promise<unknown>>();
 
   const problem = (found: Problem[]) => {
     problems.push(...found);
@@ -211,6 +228,19 @@ function createLoader(tx: Db, collectionId: string, workspace: RestoreWorkspace,
     }
   }
 
+  /** Starts writing a photo aside, once fewer than PHOTOS_IN_FLIGHT are being written. */
+  async function startPhoto(base64: string, where: string): Promise<Staging> {
+    while (staging.size >= PHOTOS_IN_FLIGHT) await Promise.race(staging);
+    const key = stagePhoto(base64, where);
+    const done: Promise<boolean> = key.then(
+      () => staging.delete(done),
+      () => staging.delete(done),
+    );
+    staging.add(done);
+    key.catch(() => undefined);
+    return { key };
+  }
+
   /** A place the file lists (by its old id): moves and animals point at it. */
   const mapPlace = (old: string | null | undefined) => (old && places.has(old.toLowerCase()) ? newId(old) : null);
 
@@ -222,19 +252,28 @@ function createLoader(tx: Db, collectionId: string, workspace: RestoreWorkspace,
     return out;
   }
 
+  /** Hands the pending rows to the writer, once the batch before them is written. */
   async function flush() {
     const batch = pending;
-    pending = { places: [], animals: [], events: [], photos: [] };
+    pending = emptyBatch();
+    await writing;
+    writing = write(batch);
+    writing.catch(() => undefined);
+  }
+
+  async function write(batch: ReturnType<typeof emptyBatch>) {
+    for (const a of batch.animals) if (a.photo) a.row.photoKey = await a.photo.key;
+    for (const p of batch.photos) p.row.photoKey = await p.photo.key;
     await asDataProblem(async () => {
       await repo.insertPlaces(tx, batch.places);
-      await repo.insertAnimals(tx, batch.animals);
+      await repo.insertAnimals(tx, batch.animals.map((a) => a.row));
       if (batch.events.length) {
         // People belong to a server: someone this server does not know is recorded as nobody.
         const known = await repo.existingUserIds(tx, [...new Set(batch.events.flatMap((e) => (e.recordedBy ? [e.recordedBy] : [])))]);
         for (const e of batch.events) if (e.recordedBy && !known.has(e.recordedBy)) e.recordedBy = null;
         await repo.insertEvents(tx, batch.events);
       }
-      await repo.insertEventPhotos(tx, batch.photos);
+      await repo.insertEventPhotos(tx, batch.photos.map((p) => p.row));
     });
   }
 
@@ -278,24 +317,15 @@ function createLoader(tx: Db, collectionId: string, workspace: RestoreWorkspace,
       if (!result.success) return problem(problemsOf(where, prefix, result.error));
       if (problems.length) return;
       const { id, locationId, photo, createdAt, updatedAt, ...fields } = result.data;
-      const photoKey = photo ? await stagePhoto(photo, where) : null;
-      pending.animals.push({
-        ...fields,
-        id: newId(id),
-        collectionId,
-        locationId: mapPlace(locationId),
-        photoKey,
-        photoUpdatedAt: photoKey ? now : null,
-        createdAt: new Date(createdAt),
-        updatedAt: new Date(updatedAt),
-      });
+      const row = { ...fields, id: newId(id), collectionId, locationId: mapPlace(locationId), photoKey: null, photoUpdatedAt: photo ? now : null, createdAt: new Date(createdAt), updatedAt: new Date(updatedAt) };
+      pending.animals.push({ row, photo: photo ? await startPhoto(photo, where) : null });
     } else {
       const result = backupEvent.safeParse(value);
       if (!result.success) return problem(problemsOf(where, prefix, result.error));
       if (problems.length) return;
       const { id, animalId, payload, photo, clientRecordedAt, clientSentAt, serverReceivedAt, effectiveAt, ...fields } = result.data;
       const eventId = newId(id);
-      if (photo) pending.photos.push({ eventId, collectionId, photoKey: await stagePhoto(photo, where) });
+      if (photo) pending.photos.push({ row: { eventId, collectionId, photoKey: '' }, photo: await startPhoto(photo, where) });
       pending.events.push({
         ...fields,
         id: eventId,
@@ -338,8 +368,12 @@ function createLoader(tx: Db, collectionId: string, workspace: RestoreWorkspace,
   return {
     async take(record: BackupRecord) {
       if (record.kind === 'single') await takeSingle(record.key, record.value);
-      else if (record.kind === 'list-end') listsRead.add(record.list);
       else await takeItem(record.list, record.index, record.value);
+    },
+
+    /** Waits for whatever is still being written, failed or not. */
+    async settle() {
+      await Promise.allSettled([writing, ...staging]);
     },
 
     async finish() {
@@ -347,11 +381,9 @@ function createLoader(tx: Db, collectionId: string, workspace: RestoreWorkspace,
       for (const key of ['version', 'exportedAt', 'collection'] as const) {
         if (!singles.has(key)) problems.push({ path: key, message: `The backup has no “${key}”: it is incomplete or damaged.` });
       }
-      for (const list of BACKUP_LISTS) {
-        if (!listsRead.has(list)) problems.push({ path: list, message: `The backup has no list of ${WHAT[list].toLowerCase()}s (“${list}”): it is incomplete or damaged.` });
-      }
       if (problems.length) throw refusal(problems.slice(0, MAX_PROBLEMS));
       await flush();
+      await writing;
       const stray = await repo.findStrayUndo(tx, collectionId);
       if (stray) throw new HttpError(422, 'invalid', `An undo in the history of ${stray.code} refers to an entry this backup does not contain.`);
       const longest = await repo.findAnimalWithMoreEvents(tx, collectionId, MAX_EVENTS_PER_ANIMAL);
