@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { ANIMAL_STATUSES } from '../domain/animal-facts';
+import { MAX_BACKUP_PHOTO_CHARS } from '../domain/backup-limits';
 import { animalInput } from './animals';
 import { signUpBody } from './auth';
 import { localDate, timeZone, uuid } from './common';
@@ -10,18 +11,6 @@ import './messages';
 
 export const BACKUP_FORMAT = 'rackside-backup';
 export const BACKUP_VERSION = 1;
-
-/**
- * The largest backup a restore reads. The file is read as a stream and spooled to disk, so the
- * server's memory does not grow with it (the largest single value, a photo, is what counts);
- * the cap bounds the disk a restore borrows and how long its transaction stays open
- * (docs/decisions/011-backup-and-restore-at-scale.md).
- */
-export const MAX_RESTORE_BYTES = 512 * 1024 * 1024;
-/** A stored photo is at most 10 MiB (the upload limit): 13,981,016 characters of base64. */
-export const MAX_BACKUP_PHOTO_CHARS = 14_000_000;
-/** The walk-order screen handles at most this many places (walkOrderBody). */
-export const MAX_BACKUP_PLACES = 20_000;
 
 const instant = z.iso.datetime({ offset: true, message: 'Give a date and time such as 2026-12-02T09:30:00Z.' });
 

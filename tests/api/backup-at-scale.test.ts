@@ -15,7 +15,7 @@ import { connectDatabase } from '../../server/db/client';
 import { migrateDatabase } from '../../server/db/migrate';
 import { readBackup } from '../../server/features/data/backup-reader';
 import { LABEL_ALPHABET } from '../../shared/domain/label-codes';
-import { MAX_RESTORE_BYTES } from '../../shared/schemas/backup';
+import { MAX_RESTORE_BYTES } from '../../shared/domain/backup-limits';
 import { testDatabaseUrl } from '../setup/database-urls';
 import { createTestDatabase, dropTestDatabase } from '../setup/test-app';
 import { startServerProcess, type ServerProcess } from '../support/server-process';
@@ -169,8 +169,9 @@ describe('a 150 MB backup against the 160 MB heap', () => {
 
     // Figures for docs/decisions/011: resident memory of the whole process, heap and libvips.
     console.info(`150 MB restore: RSS before ${before.nowMb} MB, peak after restore ${afterRestore.peakMb} MB, peak after backup ${afterBackup.peakMb} MB`);
-    expect(afterBackup.peakMb).toBeLessThan(400);
-  }, 600_000);
+    // Measured ~270 MB after the restore and ~300 MB after the backup (decision 011); a runaway shows here.
+    expect(afterBackup.peakMb).toBeLessThan(350);
+  }, 300_000);
 
   it('refuses a declared body over the limit before reading it (413, a sentence)', async () => {
     const answer = await new Promise<{ status: number; body: string }>((resolve, reject) => {

@@ -63,14 +63,21 @@ export async function animalsPage(db: Db, collectionId: string, afterCode: strin
 
 /**
  * Events oldest first, with a molt photo's key. The cursor is the time as PostgreSQL wrote it
- * (microseconds kept), so a page never repeats or skips an event that shares a millisecond.
+ * (microseconds kept), so a page never repeats or skips an event that shares a millisecond. The
+ * plain `>=` on the time lets the (collection, time) index start at the cursor: the row
+ * comparison alone made every page read the collection's history from its beginning.
  */
 export async function eventsPage(db: Db, collectionId: string, after: { at: string; id: string } | null, limit: number) {
   return db
     .select({ e: events, photoKey: eventPhotos.photoKey, cursor: sql<string>`${events.effectiveAt}::text` })
     .from(events)
     .leftJoin(eventPhotos, eq(eventPhotos.eventId, events.id))
-    .where(and(eq(events.collectionId, collectionId), after ? sql`(${events.effectiveAt}, ${events.id}) > (${after.at}::timestamptz, ${after.id}::uuid)` : undefined))
+    .where(
+      and(
+        eq(events.collectionId, collectionId),
+        after ? sql`${events.effectiveAt} >= ${after.at}::timestamptz and (${events.effectiveAt}, ${events.id}) > (${after.at}::timestamptz, ${after.id}::uuid)` : undefined,
+      ),
+    )
     .orderBy(asc(events.effectiveAt), asc(events.id))
     .limit(limit);
 }

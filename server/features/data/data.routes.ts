@@ -22,21 +22,24 @@ const download = (res: Response, type: string, name: string) =>
 function responseSink(res: Response, name: string): BackupSink {
   return {
     async write(text) {
-      if (!res.headersSent) download(res.status(200), 'application/json', name);
+      // no-transform: sent as it is, not gzipped on the way. Most of a large backup is photos,
+      // which do not compress; it spares the CPU, and 'drain' comes straight from the socket.
+      if (!res.headersSent) download(res.status(200), 'application/json', name).set('Cache-Control', 'no-store, no-transform');
       if (res.destroyed) throw new Error('The client closed the connection.');
       if (res.write(text)) return;
       await new Promise<void>((resolve, reject) => {
+        let settled = false;
         const done = (err?: Error) => {
+          if (settled) return;
+          settled = true;
           clearTimeout(timer);
-          res.off('drain', onDrain);
           res.off('close', onClose);
           if (err) reject(err);
           else resolve();
         };
-        const onDrain = () => done();
         const onClose = () => done(new Error('The client closed the connection.'));
         const timer = setTimeout(() => done(new Error('The client stopped reading.')), STALLED_MS);
-        res.on('drain', onDrain);
+        res.once('drain', () => done());
         res.on('close', onClose);
       });
     },

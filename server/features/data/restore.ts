@@ -3,16 +3,8 @@ import fs from 'node:fs';
 import type { Readable } from 'node:stream';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import type { z } from 'zod';
-import {
-  backupAnimal,
-  backupCollection,
-  backupEvent,
-  backupHeader,
-  backupPlace,
-  MAX_BACKUP_PHOTO_CHARS,
-  MAX_BACKUP_PLACES,
-  MAX_RESTORE_BYTES,
-} from '../../../shared/schemas/backup';
+import { MAX_BACKUP_PHOTO_CHARS, MAX_BACKUP_PLACES, MAX_RESTORE_BYTES } from '../../../shared/domain/backup-limits';
+import { backupAnimal, backupCollection, backupEvent, backupHeader, backupPlace } from '../../../shared/schemas/backup';
 import { fieldLabel, isGenericMessage } from '../../../shared/schemas/messages';
 import type { RulesOverrideBody } from '../../../shared/schemas/rules';
 import type { Db } from '../../db/client';

@@ -8,7 +8,13 @@ import { HttpError } from '../../middleware/errors';
 import { imageTypeOf, isPlainFileName } from './image-type';
 
 // sharp and libvips (~28 MB resident) load with the first photo, not with the server.
-const loadSharp = async () => (await import('sharp')).default;
+const loadSharp = async () => {
+  const sharp = (await import('sharp')).default;
+  // Each photo is decoded once: libvips' operation cache (up to 50 MB by default) would only
+  // hold memory, which a restore of many photos turns into resident size (decision 011).
+  sharp.cache(false);
+  return sharp;
+};
 
 export const MAX_PHOTO_BYTES = 10 * 1024 * 1024;
 export const PHOTO_SIZES = { full: 1600, thumb: 320 } as const;
