@@ -1,8 +1,8 @@
 // One account must not be able to take a server down with a large backup: a 150 MB backup
 // (75 photos of about 1 MB and 150,000 history entries, made here and streamed as it is made)
 // restores into the production server process, heap capped at 160 MB
-// (scripts/lib/server-flags.mjs), and the collection then downloads as a backup again; the
-// process lives on. A declared body over the limit is refused before it is read.
+// (scripts/lib/server-flags.mjs), and the collection then downloads as a backup and as a
+// history CSV; the process lives on. A declared body over the limit is refused before it is read.
 import fs from 'node:fs';
 import http from 'node:http';
 import os from 'node:os';
@@ -156,6 +156,12 @@ describe('a 150 MB backup against the 160 MB heap', () => {
     expect(download.status).toBe(200);
     const file = path.join(work, 'backup.json');
     await pipeline(Readable.fromWeb(download.body as import('node:stream/web').ReadableStream), fs.createWriteStream(file));
+    // The history as CSV streams too: one record per event after the header.
+    const csv = await fetch(`${server.url}/api/collections/${collectionId}/export/events.csv`, { headers: { Cookie: cookie } });
+    expect(csv.status).toBe(200);
+    let lineBreaks = 0;
+    for await (const chunk of csv.body as unknown as AsyncIterable<Uint8Array>) for (const b of chunk) if (b === 0x0a) lineBreaks++;
+    expect(lineBreaks).toBe(restored.events);
     const afterBackup = memoryOf(pid);
     expect(server.child.exitCode).toBeNull();
     const counts = { animals: 0, events: 0, photos: 0 };

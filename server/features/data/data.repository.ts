@@ -27,16 +27,26 @@ export async function placeIdsFor(tx: Db, collectionId: string, wanted: Place[])
   return { idOf: (p) => ids.get(placeKey(p))! };
 }
 
-/** Every event with its animal and who recorded it, oldest first (the events CSV). */
-export async function eventsWithNames(db: Db, collectionId: string) {
+/** A page of events with their animal and who recorded it, oldest first (the events CSV). */
+export async function eventsWithNamesPage(db: Db, collectionId: string, after: { at: string; id: string } | null, limit: number) {
   return db
-    .select({ e: events, code: animals.labelCode, name: animals.name, by: users.displayName })
+    .select({ e: events, code: animals.labelCode, name: animals.name, by: users.displayName, cursor: sql<string>`${events.effectiveAt}::text` })
     .from(events)
     .innerJoin(animals, eq(animals.id, events.animalId))
     .leftJoin(users, eq(users.id, events.recordedBy))
-    .where(eq(events.collectionId, collectionId))
-    .orderBy(asc(events.effectiveAt), asc(events.id));
+    .where(and(eq(events.collectionId, collectionId), after ? afterCursor(after) : undefined))
+    .orderBy(asc(events.effectiveAt), asc(events.id))
+    .limit(limit);
 }
+
+/**
+ * Events after a page's last one. The cursor is the time as PostgreSQL wrote it (microseconds
+ * kept), so a page never repeats or skips an event that shares a millisecond. The plain `>=` on
+ * the time lets the (collection, time) index start at the cursor: the row comparison alone made
+ * every page read the collection's history from its beginning.
+ */
+const afterCursor = (after: { at: string; id: string }) =>
+  sql`${events.effectiveAt} >= ${after.at}::timestamptz and (${events.effectiveAt}, ${events.id}) > (${after.at}::timestamptz, ${after.id}::uuid)`;
 
 // --- Backup: pages in a stable order, each resuming after the last row of the one before.
 
@@ -61,23 +71,13 @@ export async function animalsPage(db: Db, collectionId: string, afterCode: strin
     .limit(limit);
 }
 
-/**
- * Events oldest first, with a molt photo's key. The cursor is the time as PostgreSQL wrote it
- * (microseconds kept), so a page never repeats or skips an event that shares a millisecond. The
- * plain `>=` on the time lets the (collection, time) index start at the cursor: the row
- * comparison alone made every page read the collection's history from its beginning.
- */
+/** Events oldest first, with a molt photo's key, a page at a time (see afterCursor). */
 export async function eventsPage(db: Db, collectionId: string, after: { at: string; id: string } | null, limit: number) {
   return db
     .select({ e: events, photoKey: eventPhotos.photoKey, cursor: sql<string>`${events.effectiveAt}::text` })
     .from(events)
     .leftJoin(eventPhotos, eq(eventPhotos.eventId, events.id))
-    .where(
-      and(
-        eq(events.collectionId, collectionId),
-        after ? sql`${events.effectiveAt} >= ${after.at}::timestamptz and (${events.effectiveAt}, ${events.id}) > (${after.at}::timestamptz, ${after.id}::uuid)` : undefined,
-      ),
-    )
+    .where(and(eq(events.collectionId, collectionId), after ? afterCursor(after) : undefined))
     .orderBy(asc(events.effectiveAt), asc(events.id))
     .limit(limit);
 }

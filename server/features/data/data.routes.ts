@@ -1,4 +1,4 @@
-import express, { Router, type RequestHandler, type Response } from 'express';
+import express, { Router, type Request, type RequestHandler, type Response } from 'express';
 import type { Role } from '../../../shared/domain/roles';
 import { animalImportBody } from '../../../shared/schemas/import';
 import type { AnimalImportValues } from '../../../shared/schemas/import';
@@ -18,13 +18,16 @@ const STALLED_MS = 60_000;
 const download = (res: Response, type: string, name: string) =>
   res.type(type).set('Content-Disposition', `attachment; filename="${name}"`).set('Cache-Control', 'no-store');
 
-/** The response as a backup sink: headers on the first write, then each write waits for room. */
-function responseSink(res: Response, name: string): BackupSink {
+/**
+ * The response as a sink for a long download: headers on the first write, then each write
+ * waits for room. no-transform: sent as it is, not gzipped on the way (most of a large backup
+ * is photos, which do not compress; it spares the shared CPU, and 'drain' comes straight from
+ * the socket, where the compression middleware would leave listeners behind).
+ */
+function responseSink(res: Response, type: string, name: string): BackupSink {
   return {
     async write(text) {
-      // no-transform: sent as it is, not gzipped on the way. Most of a large backup is photos,
-      // which do not compress; it spares the CPU, and 'drain' comes straight from the socket.
-      if (!res.headersSent) download(res.status(200), 'application/json', name).set('Cache-Control', 'no-store, no-transform');
+      if (!res.headersSent) download(res.status(200), type, name).set('Cache-Control', 'no-store, no-transform');
       if (res.destroyed) throw new Error('The client closed the connection.');
       if (res.write(text)) return;
       await new Promise<void>((resolve, reject) => {
@@ -62,8 +65,19 @@ export function dataRoutes(service: DataService, member: (min: Role) => RequestH
     download(res, 'text/csv; charset=utf-8', `rackside-animals-${day()}.csv`).send(await service.animalsCsv(collectionId(res)));
   });
 
-  router.get('/export/events.csv', member('keeper'), async (_req, res) => {
-    download(res, 'text/csv; charset=utf-8', `rackside-events-${day()}.csv`).send(await service.eventsCsv(collectionId(res)));
+  /** Runs a long download; an error after its first byte can only cut it short. */
+  const streamed = (req: Request, res: Response, work: (sink: BackupSink) => Promise<void>, type: string, name: string) =>
+    work(responseSink(res, type, name)).then(
+      () => void res.end(),
+      (err: unknown) => {
+        if (!res.headersSent) withRetryAfter(res, err);
+        req.log?.warn({ err }, 'download cut short');
+        res.destroy();
+      },
+    );
+
+  router.get('/export/events.csv', member('keeper'), async (req, res) => {
+    await streamed(req, res, (sink) => service.eventsCsv(collectionId(res), sink), 'text/csv; charset=utf-8', `rackside-events-${day()}.csv`);
   });
 
   router.post('/animals/import', member('keeper'), largeJson('20mb'), validate({ body: animalImportBody }), async (_req, res) => {
@@ -74,14 +88,7 @@ export function dataRoutes(service: DataService, member: (min: Role) => RequestH
   // Streamed out as it is read; an error once the download has begun can only cut it short
   // (an unfinished JSON file, which a restore refuses), never pass for a whole backup.
   router.get('/backup', member('keeper'), async (req, res) => {
-    try {
-      await service.backup(collectionId(res), responseSink(res, `rackside-backup-${day()}.json`));
-      res.end();
-    } catch (err) {
-      if (!res.headersSent) withRetryAfter(res, err);
-      req.log?.warn({ err }, 'backup cut short');
-      res.destroy();
-    }
+    await streamed(req, res, (sink) => service.backup(collectionId(res), sink), 'application/json', `rackside-backup-${day()}.json`);
   });
 
   // Restoring fills a collection, so only its owner may. The body is read as a stream by the

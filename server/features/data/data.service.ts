@@ -1,18 +1,20 @@
 import type { Readable } from 'node:stream';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { ANIMAL_COLUMNS, animalToRow } from '../../../shared/domain/csv/animal-columns';
-import { writeCsv } from '../../../shared/domain/csv/csv-file';
+import { writeCsv, writeCsvRecords } from '../../../shared/domain/csv/csv-file';
 import { clockTime } from '../../../shared/domain/local-dates';
 import type { AnimalImportValues } from '../../../shared/schemas/import';
 import type { AnimalsService } from '../animals/animals.service';
 import type { PhotosService } from '../photos/photos.service';
 import { writeBackup, type BackupSink } from './backup-writer';
-import { eventsWithNames, findCollection, placeIdsFor } from './data.repository';
+import { eventsWithNamesPage, findCollection, placeIdsFor } from './data.repository';
 import { restoreBackup } from './restore';
 import { createWorkSlots } from './work-slots';
 
 export const EVENT_COLUMNS = ['event_id', 'when_utc', 'local_date', 'local_time', 'animal_code', 'animal_name', 'what', 'details', 'recorded_by', 'flags'] as const;
 
+/** Events per page of the events CSV. */
+const CSV_PAGE = 2000;
 /** Backups and restores running at once in one process (each holds a database connection). */
 const HEAVY_WORK_SLOTS = 2;
 
@@ -25,26 +27,39 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
       return writeCsv(ANIMAL_COLUMNS, (await deps.animals.list(collectionId)).map(animalToRow));
     },
 
-    /** Every event, oldest first, with local date and time in the collection's zone. */
-    async eventsCsv(collectionId: string): Promise<string> {
+    /**
+     * Every event, oldest first, with local date and time in the collection's zone: written a
+     * page at a time, as the backup is, so a long history never sits in memory whole.
+     */
+    async eventsCsv(collectionId: string, sink: BackupSink): Promise<void> {
       const c = (await findCollection(db, collectionId))!;
-      const rows = await eventsWithNames(db, collectionId);
       const local = new Intl.DateTimeFormat('en-CA', { timeZone: c.timeZone, year: 'numeric', month: '2-digit', day: '2-digit' });
-      return writeCsv(
-        EVENT_COLUMNS,
-        rows.map(({ e, code, name, by }) => ({
-          event_id: e.id,
-          when_utc: e.effectiveAt.toISOString(),
-          local_date: local.format(e.effectiveAt),
-          local_time: clockTime(e.effectiveAt.toISOString(), c.timeZone),
-          animal_code: code,
-          animal_name: name,
-          what: e.kind,
-          details: Object.keys(e.payload as object).length ? JSON.stringify(e.payload) : '',
-          recorded_by: by ?? '',
-          flags: e.flags.join(';'),
-        })),
-      );
+      // The header alone ends in CRLF; records follow it one CRLF apart, as writeCsv joins them.
+      const header = writeCsv(EVENT_COLUMNS, []);
+      await sink.write(header.slice(0, -2));
+      let any = false;
+      for (let after: { at: string; id: string } | null = null; ; ) {
+        const page = await eventsWithNamesPage(db, collectionId, after, CSV_PAGE);
+        if (page.length) {
+          const rows = page.map(({ e, code, name, by }) => ({
+            event_id: e.id,
+            when_utc: e.effectiveAt.toISOString(),
+            local_date: local.format(e.effectiveAt),
+            local_time: clockTime(e.effectiveAt.toISOString(), c.timeZone),
+            animal_code: code,
+            animal_name: name,
+            what: e.kind,
+            details: Object.keys(e.payload as object).length ? JSON.stringify(e.payload) : '',
+            recorded_by: by ?? '',
+            flags: e.flags.join(';'),
+          }));
+          await sink.write(`\r\n${writeCsvRecords(EVENT_COLUMNS, rows)}`);
+          any = true;
+        }
+        if (page.length < CSV_PAGE) return any ? undefined : sink.write('\r\n');
+        const last = page.at(-1)!;
+        after = { at: last.cursor, id: last.e.id };
+      }
     },
 
     /** Rows already checked by the import screen and again by the API schema; all or nothing. */
