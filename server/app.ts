@@ -203,7 +203,7 @@ export function createApp(options: AppOptions) {
   const animals = createAnimalsService(database.db, now);
   const rounds = createRoundsService(database.db, now);
   const photos = createPhotosService(database.db, path.resolve(env.STORAGE_DIR), now);
-  api.use('/collections/:collectionId', dataRoutes(createDataService(database.db, { animals, rounds, photos }), member));
+  api.use('/collections/:collectionId', dataRoutes(createDataService(database.db, { animals, photos, now }), member));
   api.use('/collections/:collectionId/animals', animalsRoutes(animals, member));
   api.use('/collections/:collectionId/locations', locationsRoutes(createLocationsService(database.db), member));
   api.use('/collections/:collectionId', roundsRoutes(rounds, animals, member));
@@ -214,7 +214,7 @@ export function createApp(options: AppOptions) {
   api.use('/collections/:collectionId', coverRoutes(cover, coverReports, rounds, member, inviteLimit));
   api.use('/collections/:collectionId', breedingRoutes(createBreedingService(database.db, now, (id, animalIds) => rounds.reconcileToday(id, animalIds)), member));
   api.use('/collections/:collectionId', labelsRoutes(createLabelsService(database.db), member));
-  api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db, { mailer: options.mailer, now, publicUrl, background }), member, inviteLimit));
+  api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db, { mailer: options.mailer, now, publicUrl, background, removeFiles: photos.removeCollection }), member, inviteLimit));
   api.use(apiNotFound);
   api.use(errorHandler);
   app.use('/api', api);

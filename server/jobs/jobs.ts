@@ -28,8 +28,7 @@ export async function startJobs(options: { databaseUrl: string; rounds: RoundsSe
     await boss.schedule(SEND_COVER_REPORTS, '*/10 * * * *', {}, { tz: 'UTC' });
   });
   await boss.work(BUILD_DUE_ROUNDS, async ([job]) => {
-    const built = await options.rounds.buildDueRounds();
-    options.logger.info({ queue: BUILD_DUE_ROUNDS, jobId: job?.id, collections: built.length }, 'job done');
+    await buildDueRoundsJob(options.rounds, options.logger, job?.id);
   });
   await boss.work(SEND_COVER_REPORTS, async ([job]) => {
     const sent = await options.coverReports.runDue();
@@ -39,6 +38,17 @@ export async function startJobs(options: { databaseUrl: string; rounds: RoundsSe
     boss,
     stop: () => boss.stop({ graceful: true, wait: true, timeout: 10_000 }),
   };
+}
+
+/** The round job's work: a collection whose round cannot be built is logged with its id, and the rest are built. */
+export async function buildDueRoundsJob(rounds: Pick<RoundsService, 'buildDueRounds'>, logger: Logger, jobId?: string) {
+  let failed = 0;
+  const built = await rounds.buildDueRounds((collectionId, err) => {
+    failed++;
+    logger.error({ err, queue: BUILD_DUE_ROUNDS, jobId, collectionId }, 'round build failed for one collection');
+  });
+  logger.info({ queue: BUILD_DUE_ROUNDS, jobId, collections: built.length, failed }, 'job done');
+  return { built, failed };
 }
 
 const SETUP_LOCK = 7_205_118; // any constant shared by every Rackside process

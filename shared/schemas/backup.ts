@@ -1,98 +1,116 @@
 import { z } from 'zod';
-import { ANIMAL_GROUPS, ANIMAL_STATUSES, DIETS, LIFE_STAGES, SEXES } from '../domain/animal-facts';
+import { ANIMAL_STATUSES } from '../domain/animal-facts';
+import { MAX_BACKUP_PHOTO_CHARS } from '../domain/backup-limits';
 import { BREEDING_RECORDS } from '../domain/breeding';
-import { EVENT_KINDS } from '../domain/event-kinds';
+import { animalInput } from './animals';
+import { accountDetails } from './auth';
+import { localDate, timeZone, uuid } from './common';
+import { EVENT_PAYLOADS, eventBatchBody, eventKind } from './events';
+import { locationInput } from './locations';
+import { careSettingsBody, dietSetting, rulesOverride } from './rules';
 import './messages';
 
 export const BACKUP_FORMAT = 'rackside-backup';
 export const BACKUP_VERSION = 1;
 
-const id = z.uuid();
-const instant = z.iso.datetime({ offset: true });
-const date = z.string().regex(/^\d{4}-\d{2}-\d{2}$/).nullable();
+const instant = z.iso.datetime({ offset: true, message: 'Give a date and time such as 2026-12-02T09:30:00Z.' });
 
-/**
- * A whole collection in one JSON file: its places, animals (photos inline, base64 WebP) and
- * every event, ids as they were. Accounts are not in it: people belong to a server.
+const photo = z
+  .string()
+  .max(MAX_BACKUP_PHOTO_CHARS, { message: 'This photo is larger than any Rackside keeps (10 MB).' })
+  .regex(/^[A-Za-z0-9+/]*={0,2}$/, { message: 'This photo is not written as base64 text.' })
+  .nullable();
+
+/*
+ * A backup is one JSON object whose members come in this order: format, version, exportedAt,
+ * collection, locations, animals, eggSacs, events (the order the server writes them; a restore
+ * reads places before the animals in them, animals before their sacs and their history). Every record is
+ * checked with the schemas the API uses for the same thing, so a restore can store nothing
+ * the app itself would refuse.
  */
-export const backupFile = z.object({
+
+export const backupHeader = {
   format: z.literal(BACKUP_FORMAT, { message: 'This is not a Rackside backup file.' }),
   version: z.literal(BACKUP_VERSION, { message: `This backup was made by another version of Rackside (this one reads version ${BACKUP_VERSION}).` }),
   exportedAt: instant,
-  collection: z.object({ name: z.string(), timeZone: z.string(), rules: z.record(z.string(), z.unknown()) }),
-  locations: z.array(z.object({ id, room: z.string(), rack: z.string(), shelf: z.string(), position: z.string(), walkOrder: z.number().int() })),
-  animals: z.array(
-    z.object({
-      id,
-      labelCode: z.string(),
-      name: z.string(),
-      scientificName: z.string(),
-      commonName: z.string().nullable(),
-      group: z.enum(ANIMAL_GROUPS),
-      lifeStage: z.enum(LIFE_STAGES),
-      sex: z.enum(SEXES),
-      sizeMm: z.number().nullable(),
-      locationId: id.nullable(),
-      hasWaterDish: z.boolean(),
-      preyType: z.string().nullable(),
-      preySize: z.string().nullable(),
-      preyCount: z.number().int().nullable(),
-      // Added with care profiles: backups made before it have no diet (the group's usual).
-      diet: z.enum(DIETS).nullable().default(null),
-      intervalDays: z.number().int().nullable(),
-      doNotFeedUntil: date,
-      cautions: z.array(z.string()),
-      cautionNote: z.string().nullable(),
-      status: z.enum(ANIMAL_STATUSES),
-      statusDate: date,
-      acquiredOn: date,
-      source: z.string().nullable(),
-      clutch: z.string().nullable(),
-      notes: z.string().nullable(),
-      settings: z.record(z.string(), z.unknown()),
-      createdAt: instant,
-      updatedAt: instant,
-      photo: z.string().nullable(),
-    }),
-  ),
-  /** Egg sacs, egg cases and broods (files made before they were kept have none). */
-  eggSacs: z
-    .array(
-      z.object({
-        id,
-        femaleId: id,
-        kind: z.enum(BREEDING_RECORDS),
-        clutch: z.string(),
-        laidOn: date.unwrap(),
-        pulledOn: date,
-        hatchedOn: date,
-        dispersedOn: date,
-        eggCount: z.number().int().nullable(),
-        eggsWithLegs: z.number().int().nullable(),
-        slingCount: z.number().int().nullable(),
-        incubationMinDays: z.number().int(),
-        incubationMaxDays: z.number().int(),
-        notes: z.string().nullable(),
-        createdAt: instant,
-      }),
-    )
-    .default([]),
-  events: z.array(
-    z.object({
-      id,
-      animalId: id,
-      kind: z.enum(EVENT_KINDS),
-      payload: z.record(z.string(), z.unknown()),
-      recordedBy: id.nullable(),
-      deviceId: z.string().nullable(),
-      clientRecordedAt: instant,
-      clientSentAt: instant.nullable(),
-      serverReceivedAt: instant,
-      effectiveAt: instant,
-      flags: z.array(z.string()),
-      /** A molt's photo, base64 WebP, when there is one. */
-      photo: z.string().nullable().optional(),
-    }),
-  ),
+};
+
+export const backupCollection = z.object({
+  name: accountDetails.shape.collectionName,
+  timeZone,
+  rules: rulesOverride,
 });
-export type BackupFile = z.infer<typeof backupFile>;
+
+export const backupPlace = locationInput.extend({
+  id: uuid,
+  walkOrder: z.number().int().min(0, { message: 'The walk order cannot be below 0.' }).max(1_000_000_000),
+});
+export type BackupPlace = z.input<typeof backupPlace>;
+
+const { labelCode, care: _care, ...entered } = animalInput.shape;
+const care = careSettingsBody.required().shape;
+
+export const backupAnimal = z.object({
+  id: uuid,
+  labelCode: labelCode.unwrap().refine((code) => code !== '', { message: 'Every animal in a backup needs its label code.' }),
+  ...entered,
+  ...care,
+  // Added with care profiles: backups made before it have no diet (the group's usual).
+  diet: dietSetting.default(null),
+  status: z.enum(ANIMAL_STATUSES, { message: 'Choose kept, sold, deceased, rehomed or on loan.' }),
+  statusDate: localDate.nullable(),
+  // Per-animal rule overrides: the same shape as a collection's.
+  settings: rulesOverride,
+  createdAt: instant,
+  updatedAt: instant,
+  photo,
+});
+export type BackupAnimal = z.input<typeof backupAnimal>;
+
+/** An egg sac, egg case or brood (files made before they were kept have none). */
+export const backupEggSac = z.object({
+  id: uuid,
+  femaleId: uuid,
+  kind: z.enum(BREEDING_RECORDS, { message: 'Choose an egg sac, an egg case or a brood.' }),
+  clutch: z.string().trim().min(1, { message: 'Every record needs its clutch name.' }).max(80, { message: 'Keep the clutch name under 80 characters.' }),
+  laidOn: localDate,
+  pulledOn: localDate.nullable(),
+  hatchedOn: localDate.nullable(),
+  dispersedOn: localDate.nullable(),
+  eggCount: z.number().int().min(0).max(5000).nullable(),
+  eggsWithLegs: z.number().int().min(0).max(5000).nullable(),
+  slingCount: z.number().int().min(0).max(5000).nullable(),
+  incubationMinDays: z.number().int().min(1).max(365),
+  incubationMaxDays: z.number().int().min(1).max(365),
+  notes: z.string().max(2000).nullable(),
+  createdAt: instant,
+});
+export type BackupEggSac = z.input<typeof backupEggSac>;
+
+export const backupEvent = z
+  .object({
+    id: uuid,
+    animalId: uuid,
+    kind: eventKind,
+    payload: z.record(z.string(), z.unknown()),
+    recordedBy: uuid.nullable(),
+    deviceId: eventBatchBody.shape.deviceId.nullable(),
+    clientRecordedAt: instant,
+    clientSentAt: instant.nullable(),
+    serverReceivedAt: instant,
+    effectiveAt: instant,
+    // Marks the server adds (clock corrections and the like): short words, stored as a list.
+    flags: z.array(z.string().regex(/^[a-z_]{1,40}$/, { message: 'A flag is a short word such as clock_corrected.' })).max(10),
+    /** A molt's photo, base64 WebP, when there is one. */
+    photo: photo.optional(),
+  })
+  .superRefine((event, ctx) => {
+    // The payload as the API checks it for the same kind (server-made moves and status
+    // changes included: a backup holds those too).
+    const result = EVENT_PAYLOADS[event.kind].safeParse(event.payload);
+    if (!result.success) {
+      for (const issue of result.error.issues) ctx.addIssue({ code: 'custom', path: ['payload', ...issue.path.map(String)], message: issue.message });
+    }
+    if (event.photo && event.kind !== 'molted') ctx.addIssue({ code: 'custom', path: ['photo'], message: 'Only a molt can have a photo.' });
+  });
+export type BackupEvent = z.input<typeof backupEvent>;

@@ -28,3 +28,9 @@ export type MembersResponse = z.infer<typeof membersResponse>;
 export const addMemberBody = z.object({ email, role: z.enum(['keeper']).default('keeper') });
 export const inviteSentResponse = z.object({ message: z.string() });
 export const memberParams = z.object({ collectionId: uuid, userId: uuid });
+
+/** Deleting a collection is confirmed by typing its name, as the settings screen asks. */
+export const deleteCollectionBody = z.object({
+  confirmName: z.string({ message: 'Type the collection’s name to confirm.' }).trim().min(1, { message: 'Type the collection’s name to confirm.' }).max(200, { message: 'That is not the collection’s name.' }),
+});
+export type DeleteCollectionBody = z.infer<typeof deleteCollectionBody>;

@@ -15,6 +15,7 @@ export class ApiError extends Error {
 
 interface RequestOptions<T> {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
+  /** Sent as JSON; a Blob (a chosen file) is sent as it is, streamed by the browser. */
   body?: unknown;
   schema?: z.ZodType<T>;
   signal?: AbortSignal;
@@ -42,7 +43,7 @@ async function send(path: string, { method = 'GET', body, signal }: RequestOptio
         'X-Rackside-Client': '1',
         ...(body === undefined ? {} : { 'Content-Type': 'application/json' }),
       },
-      body: body === undefined ? undefined : JSON.stringify(body),
+      body: body === undefined ? undefined : body instanceof Blob ? body : JSON.stringify(body),
       signal,
     });
   } catch (err) {

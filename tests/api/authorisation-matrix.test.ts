@@ -79,6 +79,8 @@ const TABLE: Record<string, Row> = {
   'POST /api/cover-invites/accept': { access: 'public', allowed: 422, call: () => ({ path: '/api/cover-invites/accept', body: {} }) },
 
   'GET /api/collections/:collectionId': { access: 'helper', allowed: 200, call: (f) => ({ path: f.c }) },
+  // The wrong name typed: refused (422) before anything is deleted.
+  'DELETE /api/collections/:collectionId': { access: 'owner', allowed: 422, call: (f) => ({ path: f.c, body: { confirmName: 'Not its name' } }) },
   'GET /api/collections/:collectionId/members': { access: 'owner', allowed: 200, call: (f) => ({ path: `${f.c}/members` }) },
   'POST /api/collections/:collectionId/members': { access: 'owner', allowed: 422, call: (f) => ({ path: `${f.c}/members`, body: {} }) },
   'DELETE /api/collections/:collectionId/members/:userId': { access: 'owner', allowed: 204, call: async (f) => ({ path: `${f.c}/members/${await f.newMember()}` }) },
@@ -125,7 +127,8 @@ const TABLE: Record<string, Row> = {
   'GET /api/collections/:collectionId/export/events.csv': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/export/events.csv` }) },
   'POST /api/collections/:collectionId/animals/import': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/animals/import`, body: {} }) },
   'GET /api/collections/:collectionId/backup': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/backup` }) },
-  'POST /api/collections/:collectionId/restore': { access: 'owner', allowed: 422, call: (f) => ({ path: `${f.c}/restore`, body: {} }) },
+  // The collection has animals: refused (409) before the upload is read.
+  'POST /api/collections/:collectionId/restore': { access: 'owner', allowed: 409, call: (f) => ({ path: `${f.c}/restore`, body: {} }) },
   'POST /api/collections/:collectionId/labels/pdf': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/labels/pdf`, body: {} }) },
 
   'GET /api/collections/:collectionId/covers': { access: 'owner', allowed: 200, call: (f) => ({ path: `${f.c}/covers` }) },
@@ -342,6 +345,8 @@ describe('ids from another collection, inside your own', () => {
       ['GET', { path: `${c}/animals/${a}/molts/${moltId}/photo` }],
       ['PUT', { path: `${c}/animals/${a}/molts/${moltId}/photo`, file: jpeg }],
       ['PUT', { path: `${c}/animals/${mine}/molts/${moltId}/photo`, file: jpeg }],
+      // Their collection itself, with its name typed right: not found, and still there.
+      ['DELETE', { path: o, body: { confirmName: 'Test Collection' } }],
       ['PATCH', { path: `${c}/locations/${place!.id}`, body: place4 }],
       ['DELETE', { path: `${c}/locations/${place!.id}` }],
       ['POST', { path: `${c}/handover/notes`, body: { animalId: a, text: 'Sneaky', until: '2026-12-31' } }],

@@ -93,6 +93,18 @@ export async function deleteMembership(db: Db, collectionId: string, userId: str
   return removed.length > 0;
 }
 
+/**
+ * The collection and everything in it: its rows cascade (memberships, invites, places, animals,
+ * events, rounds, notes, sacs, reports). Its change counters have no foreign key (the triggers
+ * bump them while the cascade runs), so they go last, in the same transaction.
+ */
+export async function deleteCollectionRows(db: Db, collectionId: string) {
+  await db.transaction(async (tx) => {
+    await tx.delete(collections).where(eq(collections.id, collectionId));
+    await tx.delete(collectionRevisions).where(eq(collectionRevisions.collectionId, collectionId));
+  });
+}
+
 const randomUnit = () => randomInt(2 ** 32) / 2 ** 32;
 
 /** A new collection with a label tag no other collection has (a clash just draws again). */

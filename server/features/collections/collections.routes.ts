@@ -1,6 +1,6 @@
 import { Router, type RequestHandler } from 'express';
 import type { Role } from '../../../shared/domain/roles';
-import { addMemberBody, memberParams } from '../../../shared/schemas/collections';
+import { addMemberBody, deleteCollectionBody, memberParams, type DeleteCollectionBody } from '../../../shared/schemas/collections';
 import { currentUserId } from '../../middleware/auth';
 import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';
@@ -13,6 +13,13 @@ export function collectionsRoutes(service: CollectionsService, member: (min: Rol
   router.get('/', member('helper'), (_req, res) => {
     const m = membershipOf(res);
     res.json({ id: m.collectionId, name: m.collectionName, timeZone: m.timeZone, role: m.role });
+  });
+
+  // Only an owner, and only with the collection's name typed out (the app offers the backup first).
+  router.delete('/', member('owner'), validate({ body: deleteCollectionBody }), async (_req, res) => {
+    const m = membershipOf(res);
+    await service.deleteCollection(m.collectionId, m.collectionName, input<DeleteCollectionBody>(res, 'body').confirmName);
+    res.status(204).end();
   });
 
   router.get('/members', member('owner'), async (_req, res) => {

@@ -6,13 +6,15 @@ import { users } from '../../db/schema/users';
 import type { Mailer } from '../../mail/mailer';
 import { HttpError } from '../../middleware/errors';
 import { INVITE_LIFETIME_MS, newInviteToken } from '../cover/invite-token';
-import { deleteMembership, listMembers, roleOfEmail } from './collections.repository';
+import { deleteCollectionRows, deleteMembership, listMembers, roleOfEmail } from './collections.repository';
 
 interface Deps {
   mailer: Mailer;
   now: () => Date;
   publicUrl: (path: string) => string;
   background: Background;
+  /** Removes a collection's photo files once its rows are gone. */
+  removeFiles(collectionId: string): Promise<void>;
 }
 
 export function createCollectionsService(db: NodePgDatabase, deps: Deps) {
@@ -63,6 +65,18 @@ export function createCollectionsService(db: NodePgDatabase, deps: Deps) {
         });
       });
       return { message: `We have e-mailed an invite to ${email}. They join when they accept it.` };
+    },
+
+    /**
+     * Removes the collection for everyone: its rows first (one transaction), then its photo
+     * files. The typed name guards against deleting the wrong collection by a slip.
+     */
+    async deleteCollection(collectionId: string, name: string, confirmName: string) {
+      if (confirmName.normalize('NFC') !== name.trim().normalize('NFC')) {
+        throw new HttpError(422, 'invalid', `Type the collection’s name exactly as it is shown (“${name}”) to delete it.`, [{ path: 'body.confirmName', message: 'This is not the collection’s name.' }]);
+      }
+      await deleteCollectionRows(db, collectionId);
+      await deps.removeFiles(collectionId);
     },
 
     async removeMember(collectionId: string, userId: string, actingUserId: string) {

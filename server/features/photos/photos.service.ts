@@ -8,13 +8,58 @@ import { HttpError } from '../../middleware/errors';
 import { imageTypeOf, isPlainFileName } from './image-type';
 
 // sharp and libvips (~28 MB resident) load with the first photo, not with the server.
-const loadSharp = async () => (await import('sharp')).default;
+const loadSharp = async () => {
+  const sharp = (await import('sharp')).default;
+  // Each photo is decoded once: libvips' operation cache (up to 50 MB by default) would only
+  // hold memory, which a restore of many photos turns into resident size (decision 011).
+  sharp.cache(false);
+  return sharp;
+};
 
 export const MAX_PHOTO_BYTES = 10 * 1024 * 1024;
 export const PHOTO_SIZES = { full: 1600, thumb: 320 } as const;
 export type PhotoSize = keyof typeof PHOTO_SIZES;
 
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that animal.');
+
+export interface RestoreWorkspace {
+  /** Where the uploaded backup is spooled. */
+  readonly uploadFile: string;
+  /** Checks a backup's photo and writes it aside (full image as given, thumbnail made again); returns its new key. */
+  stagePhoto(webp: Buffer): Promise<string>;
+  /** After the restore's commit: the staged photos move into the collection's folder. */
+  commit(collectionId: string): Promise<void>;
+  /** Removes the workspace and whatever is still in it. */
+  discard(): Promise<void>;
+}
+
+/** A workspace left by a process that died mid-restore is removed a day later. */
+const STALE_WORKSPACE_MS = 24 * 60 * 60 * 1000;
+
+async function sweepOldWorkspaces(parent: string) {
+  const entries = await fs.readdir(parent).catch(() => [] as string[]);
+  for (const name of entries) {
+    const full = path.join(parent, name);
+    const stat = await fs.stat(full).catch(() => null);
+    if (stat && Date.now() - stat.mtimeMs > STALE_WORKSPACE_MS) await fs.rm(full, { recursive: true, force: true });
+  }
+}
+
+/**
+ * A backup's photo is the full image as this server stored it: WebP, at most 1600 px a side.
+ * Anything else is refused before libvips decodes it (a huge canvas would cost memory).
+ */
+async function restoredThumbnail(webp: Buffer): Promise<Buffer> {
+  if (imageTypeOf(webp) !== 'webp') throw new HttpError(422, 'invalid', 'This photo is not a WebP image.');
+  try {
+    const image = (await loadSharp())(webp, { failOn: 'error', limitInputPixels: PHOTO_SIZES.full * PHOTO_SIZES.full });
+    const { width = 0, height = 0 } = await image.metadata();
+    if (!width || !height || Math.max(width, height) > PHOTO_SIZES.full) throw new Error('too large');
+    return await image.resize(PHOTO_SIZES.thumb, PHOTO_SIZES.thumb, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer();
+  } catch {
+    throw new HttpError(422, 'invalid', `This photo could not be read, or is larger than the ${PHOTO_SIZES.full} px a side Rackside keeps.`);
+  }
+}
 
 /**
  * Photos live in the storage folder under the collection's id, named by a random key. Uploads
@@ -64,21 +109,6 @@ export function createPhotosService(db: NodePgDatabase, storageDir: string, now:
     return row;
   }
 
-  /** A backup's photo: the full image kept byte for byte, the thumbnail made again. */
-  async function restoreFiles(collectionId: string, webp: Buffer) {
-    const key = randomUUID();
-    let thumb: Buffer;
-    try {
-      thumb = await (await loadSharp())(webp, { failOn: 'error' }).resize(PHOTO_SIZES.thumb, PHOTO_SIZES.thumb, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer();
-    } catch {
-      throw new HttpError(422, 'invalid', 'A photo in this backup could not be read.');
-    }
-    await fs.mkdir(folder(collectionId), { recursive: true });
-    await fs.writeFile(fileOf(collectionId, key, 'full'), webp);
-    await fs.writeFile(fileOf(collectionId, key, 'thumb'), thumb);
-    return key;
-  }
-
   return {
     async save(collectionId: string, animalId: string, file: { buffer: Buffer; originalname: string } | undefined) {
       const previous = await keyOf(collectionId, animalId);
@@ -103,17 +133,50 @@ export function createPhotosService(db: NodePgDatabase, storageDir: string, now:
       return fileOf(collectionId, molt.key, size);
     },
 
-    /** A photo from a backup: the full image kept byte for byte, the thumbnail made again. */
-    async restore(collectionId: string, animalId: string, webp: Buffer) {
-      const key = await restoreFiles(collectionId, webp);
-      await db.update(animals).set({ photoKey: key, photoUpdatedAt: now() }).where(eq(animals.id, animalId));
+    /** A stored photo's full image for a backup, or null when its file is missing. */
+    async readFull(collectionId: string, key: string): Promise<Buffer | null> {
+      return fs.readFile(fileOf(collectionId, key, 'full')).catch(() => null);
     },
 
-    async restoreMolt(collectionId: string, eventId: string, webp: Buffer) {
-      const key = await restoreFiles(collectionId, webp);
-      await db.insert(eventPhotos).values({ eventId, collectionId, photoKey: key });
+    /**
+     * A folder of its own for one restore, beside the photos (same disk, so staged photos move
+     * into place with a rename): the upload is spooled there and the backup's photos written
+     * there until the restore's transaction has committed.
+     */
+    async openRestoreWorkspace(): Promise<RestoreWorkspace> {
+      const parent = path.join(storageDir, 'restoring');
+      await sweepOldWorkspaces(parent);
+      const dir = path.join(parent, randomUUID());
+      await fs.mkdir(dir, { recursive: true });
+      const staged: string[] = [];
+      const stagedFile = (key: string, size: PhotoSize) => path.join(dir, `${key}-${size}.webp`);
+      return {
+        uploadFile: path.join(dir, 'upload.json'),
+        async stagePhoto(webp: Buffer) {
+          const thumb = await restoredThumbnail(webp);
+          const key = randomUUID();
+          staged.push(key);
+          await fs.writeFile(stagedFile(key, 'full'), webp);
+          await fs.writeFile(stagedFile(key, 'thumb'), thumb);
+          return key;
+        },
+        async commit(collectionId: string) {
+          await fs.mkdir(folder(collectionId), { recursive: true });
+          for (const key of staged) {
+            for (const size of Object.keys(PHOTO_SIZES) as PhotoSize[]) await fs.rename(stagedFile(key, size), fileOf(collectionId, key, size));
+          }
+          staged.length = 0;
+        },
+        async discard() {
+          await fs.rm(dir, { recursive: true, force: true });
+        },
+      };
     },
 
+    /** Every photo of a collection, when the collection itself is deleted. */
+    async removeCollection(collectionId: string) {
+      await fs.rm(folder(collectionId), { recursive: true, force: true });
+    },
 
     /** The stored file's path, or a 404 when the animal has no photo. */
     async file(collectionId: string, animalId: string, size: PhotoSize): Promise<string> {

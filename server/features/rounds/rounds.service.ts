@@ -458,13 +458,22 @@ export function createRoundsService(db: NodePgDatabase, now: () => Date) {
      * The scheduled job: every collection whose local day has begun without a round gets it
      * built. Runs every few minutes, so "shortly after local midnight" in every zone, DST too.
      */
-    async buildDueRounds(): Promise<string[]> {
+    async buildDueRounds(onFailure?: (collectionId: string, err: unknown) => void): Promise<string[]> {
       const built: string[] = [];
+      const failed: unknown[] = [];
       for (const c of await collectionsWithLatestRound(db)) {
-        const today = localDateOf(now(), c.timeZone);
-        if (c.latest && c.latest >= today) continue;
-        if ((await service.build(c.id, today)).created) built.push(c.id);
+        // One collection's bad data (a broken rule, a zone that no longer exists) must not
+        // keep every collection after it without a round: it is reported and the job goes on.
+        try {
+          const today = localDateOf(now(), c.timeZone);
+          if (c.latest && c.latest >= today) continue;
+          if ((await service.build(c.id, today)).created) built.push(c.id);
+        } catch (err) {
+          if (onFailure) onFailure(c.id, err);
+          else failed.push(err);
+        }
       }
+      if (failed.length) throw new AggregateError(failed, `${failed.length} collection(s) could not have their round built.`);
       return built;
     },
 

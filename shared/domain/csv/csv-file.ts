@@ -10,6 +10,11 @@ export function writeCsv(fields: readonly string[], rows: readonly Record<string
   return Papa.unparse({ fields: [...fields], data: rows.map((r) => fields.map((f) => r[f] ?? '')) }, { newline: '\r\n', escapeFormulae: true });
 }
 
+/** Records only, no header: a long file written a page at a time (join pages with CRLF). */
+export function writeCsvRecords(fields: readonly string[], rows: readonly Record<string, string>[]): string {
+  return Papa.unparse({ fields: [...fields], data: rows.map((r) => fields.map((f) => r[f] ?? '')) }, { newline: '\r\n', escapeFormulae: true, header: false });
+}
+
 export interface CsvRecord {
   /** The line the record starts on in the file (1 is the header), as a text editor counts. */
   line: number;

@@ -1,7 +1,9 @@
+import { useQueryClient } from '@tanstack/react-query';
 import { Link, useNavigate } from 'react-router-dom';
 import { Notice } from '@/components/ui/notice';
 import { SafetyNote } from '@/components/ui/safety-note';
 import { rememberMe } from '@/features/auth/api/get-me';
+import { authKeys } from '@/features/auth/api/keys';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { ChangePasswordForm } from '@/features/auth/components/change-password-form';
 import { CollectionSwitcher } from '@/features/auth/components/collection-switcher';
@@ -10,6 +12,7 @@ import { LeaveCover } from '@/features/cover/components/leave-cover';
 import { LeaveCollection } from '@/features/members/components/leave-collection';
 import { MembersPanel } from '@/features/members/components/members-panel';
 import { DataPanel } from '@/features/settings/components/data-panel';
+import { DeleteCollection } from '@/features/settings/components/delete-collection';
 import { ThemePicker } from '@/features/settings/components/theme-picker';
 import { UnitPicker } from '@/features/settings/components/unit-picker';
 import { SignOutButton } from '@/features/sync/components/sign-out-button';
@@ -20,6 +23,18 @@ export function SettingsRoute() {
   const { me, collection, chooseCollection } = useShell();
   const signOut = useSignOut();
   const navigate = useNavigate();
+  const queryClient = useQueryClient();
+  // The collection is gone: the person's list of collections is read again, and the app falls
+  // back to another one of theirs (or says they have none).
+  const onDeleted = async () => {
+    // As after leaving: the phone's copy of `me` must not offer the deleted collection.
+    const others = me.memberships.filter((m) => m.collectionId !== collection?.collectionId);
+    await rememberMe({ ...me, memberships: others });
+    const next = others.find((m) => m.role === 'owner') ?? others[0];
+    if (next) chooseCollectionOnDevice(next.collectionId);
+    void queryClient.invalidateQueries({ queryKey: authKeys.me() });
+    navigate('/today', { replace: true });
+  };
   return (
     <div className="flex flex-col gap-6">
       <h1 className="text-3xl font-extrabold">Settings</h1>
@@ -54,6 +69,7 @@ export function SettingsRoute() {
           }}
         />
       )}
+      {collection?.role === 'owner' && <DeleteCollection key={collection.collectionId} collectionId={collection.collectionId} collectionName={collection.collectionName} onDeleted={onDeleted} />}
       {me.memberships.length > 0 && (
         <CollectionSwitcher memberships={me.memberships} currentId={collection?.collectionId} onChoose={chooseCollection} />
       )}

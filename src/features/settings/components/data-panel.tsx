@@ -1,5 +1,6 @@
 import { useMutation } from '@tanstack/react-query';
 import { useId } from 'react';
+import { MAX_RESTORE_BYTES } from '#shared/domain/backup-limits';
 import { Notice } from '@/components/ui/notice';
 import { apiRequest } from '@/lib/api-client';
 
@@ -10,14 +11,11 @@ export function DataPanel({ collectionId, isOwner }: { collectionId: string; isO
   const fileId = useId();
   const base = `/api/collections/${collectionId}`;
   const restore = useMutation({
+    // The file goes up as it is, streamed: a phone never holds a large backup in memory, and
+    // the server checks it record by record.
     mutationFn: async (file: File) => {
-      let body: unknown;
-      try {
-        body = JSON.parse(await file.text());
-      } catch {
-        throw new Error('That file is not a Rackside backup (it is not JSON).');
-      }
-      return apiRequest<{ animals: number; events: number }>(`/collections/${collectionId}/restore`, { method: 'POST', body });
+      if (file.size > MAX_RESTORE_BYTES) throw new Error(`This backup is larger than Rackside restores (${MAX_RESTORE_BYTES / 1024 / 1024} MB at most).`);
+      return apiRequest<{ animals: number; events: number }>(`/collections/${collectionId}/restore`, { method: 'POST', body: file });
     },
   });
   return (

@@ -1,0 +1,145 @@
+import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import { BACKUP_FORMAT, BACKUP_VERSION } from '../../../shared/schemas/backup';
+import type { PhotosService } from '../photos/photos.service';
+import * as repo from './data.repository';
+
+/** Where a backup goes: a write resolves once the reader has room for more. */
+export interface BackupSink {
+  write(text: string): Promise<void>;
+}
+
+const PAGE = { places: 500, animals: 200, events: 1000 };
+/** Text gathered before it is handed to the sink: few writes, little memory. */
+const CHUNK_CHARS = 256 * 1024;
+
+/**
+ * The whole collection as one JSON document, written piece by piece: places, animals and
+ * events are read a page at a time and each photo is read, encoded and written on its own, so
+ * memory stays small however large the collection. One read-only REPEATABLE READ transaction
+ * makes every page part of the same snapshot (no event without its animal). Each record sits on
+ * its own line; the members come in the order a restore reads them (shared/schemas/backup.ts).
+ */
+export async function writeBackup(db: NodePgDatabase, photos: PhotosService, collectionId: string, exportedAt: Date, sink: BackupSink) {
+  let buffer: string[] = [];
+  let buffered = 0;
+  const emit = async (text: string) => {
+    buffer.push(text);
+    buffered += text.length;
+    if (buffered >= CHUNK_CHARS) await flush();
+  };
+  const flush = async () => {
+    if (!buffered) return;
+    const text = buffer.join('');
+    buffer = [];
+    buffered = 0;
+    await sink.write(text);
+  };
+  /** A record whose photo (base64) is appended as its last member, never held twice. */
+  const withPhoto = async (record: object, photo: Buffer | null) => {
+    const head = JSON.stringify(record).slice(0, -1);
+    if (!photo) return emit(`${head},"photo":null}`);
+    await emit(`${head},"photo":"`);
+    await flush();
+    await sink.write(photo.toString('base64'));
+    await emit('"}');
+  };
+  const J = JSON.stringify;
+
+  await db.transaction(
+    async (tx) => {
+      const c = (await repo.findCollection(tx, collectionId))!;
+      await emit(`{"format":${J(BACKUP_FORMAT)},"version":${BACKUP_VERSION},"exportedAt":${J(exportedAt.toISOString())},\n`);
+      await emit(`"collection":${J({ name: c.name, timeZone: c.timeZone, rules: c.rules })},\n"locations":[`);
+
+      let first = true;
+      const separator = () => {
+        const s = first ? '\n' : ',\n';
+        first = false;
+        return s;
+      };
+      for (let after: Parameters<typeof repo.placesPage>[2] = null; ; ) {
+        const page = await repo.placesPage(tx, collectionId, after, PAGE.places);
+        for (const { id, room, rack, shelf, position, walkOrder } of page) await emit(separator() + J({ id, room, rack, shelf, position, walkOrder }));
+        if (page.length < PAGE.places) break;
+        after = page.at(-1)!;
+      }
+
+      await emit('],\n"animals":[');
+      first = true;
+      for (let after: string | null = null; ; ) {
+        const page = await repo.animalsPage(tx, collectionId, after, PAGE.animals);
+        for (const a of page) {
+          await emit(separator());
+          const record = {
+            id: a.id,
+            labelCode: a.labelCode,
+            name: a.name,
+            scientificName: a.scientificName,
+            commonName: a.commonName,
+            group: a.group,
+            lifeStage: a.lifeStage,
+            sex: a.sex,
+            sizeMm: a.sizeMm,
+            locationId: a.locationId,
+            hasWaterDish: a.hasWaterDish,
+            preyType: a.preyType,
+            preySize: a.preySize,
+            preyCount: a.preyCount,
+            diet: a.diet,
+            intervalDays: a.intervalDays,
+            doNotFeedUntil: a.doNotFeedUntil,
+            cautions: a.cautions,
+            cautionNote: a.cautionNote,
+            status: a.status,
+            statusDate: a.statusDate,
+            acquiredOn: a.acquiredOn,
+            source: a.source,
+            clutch: a.clutch,
+            notes: a.notes,
+            settings: a.settings,
+            createdAt: a.createdAt.toISOString(),
+            updatedAt: a.updatedAt.toISOString(),
+          };
+          await withPhoto(record, a.photoKey ? await photos.readFull(collectionId, a.photoKey) : null);
+        }
+        if (page.length < PAGE.animals) break;
+        after = page.at(-1)!.labelCode;
+      }
+
+      await emit('],\n"eggSacs":[');
+      first = true;
+      for (const { collectionId: _c, createdAt, ...sac } of await repo.sacsOf(tx, collectionId)) {
+        await emit(separator() + J({ ...sac, createdAt: createdAt.toISOString() }));
+      }
+
+      await emit('],\n"events":[');
+      first = true;
+      for (let after: { at: string; id: string } | null = null; ; ) {
+        const page = await repo.eventsPage(tx, collectionId, after, PAGE.events);
+        for (const { e, photoKey } of page) {
+          await emit(separator());
+          const record = {
+            id: e.id,
+            animalId: e.animalId,
+            kind: e.kind,
+            payload: e.payload,
+            recordedBy: e.recordedBy,
+            deviceId: e.deviceId,
+            clientRecordedAt: e.clientRecordedAt.toISOString(),
+            clientSentAt: e.clientSentAt?.toISOString() ?? null,
+            serverReceivedAt: e.serverReceivedAt.toISOString(),
+            effectiveAt: e.effectiveAt.toISOString(),
+            flags: e.flags,
+          };
+          await withPhoto(record, photoKey ? await photos.readFull(collectionId, photoKey) : null);
+        }
+        if (page.length < PAGE.events) break;
+        const last = page.at(-1)!;
+        after = { at: last.cursor, id: last.e.id };
+      }
+      await emit('\n]}\n');
+      await flush();
+    },
+    { isolationLevel: 'repeatable read', accessMode: 'read only' },
+  );
+}

@@ -1,0 +1,185 @@
+import { and, asc, count, eq, gt, sql } from 'drizzle-orm';
+import type { Db } from '../../db/client';
+import { animals, eggSacs, eventPhotos, events } from '../../db/schema/animals';
+import { collections, locations } from '../../db/schema/collections';
+import { users } from '../../db/schema/users';
+
+type Place = { room: string; rack: string; shelf: string; position: string };
+const placeKey = (p: Place) => [p.room, p.rack, p.shelf, p.position].join('\u0000');
+const list = (values: unknown[]) => sql.param(values);
+
+export async function findCollection(db: Db, collectionId: string) {
+  const [c] = await db.select().from(collections).where(eq(collections.id, collectionId));
+  return c ?? null;
+}
+
+/** Locations by place, created where the rows name a place the collection does not have yet. */
+export async function placeIdsFor(tx: Db, collectionId: string, wanted: Place[]): Promise<{ idOf(p: Place): string }> {
+  const unique = new Map(wanted.map((p) => [placeKey(p), p]));
+  const known = await tx.select().from(locations).where(eq(locations.collectionId, collectionId));
+  const ids = new Map(known.map((l) => [placeKey(l), l.id]));
+  const missing = [...unique.entries()].filter(([k]) => !ids.has(k)).map(([, p]) => p);
+  if (missing.length) {
+    const last = known.reduce((m, l) => Math.max(m, l.walkOrder), 0);
+    const created = await tx.insert(locations).values(missing.map((p, i) => ({ collectionId, ...p, walkOrder: last + i + 1 }))).returning();
+    for (const l of created) ids.set(placeKey(l), l.id);
+  }
+  return { idOf: (p) => ids.get(placeKey(p))! };
+}
+
+/** A page of events with their animal and who recorded it, oldest first (the events CSV). */
+export async function eventsWithNamesPage(db: Db, collectionId: string, after: { at: string; id: string } | null, limit: number) {
+  return db
+    .select({ e: events, code: animals.labelCode, name: animals.name, by: users.displayName, cursor: sql<string>`${events.effectiveAt}::text` })
+    .from(events)
+    .innerJoin(animals, eq(animals.id, events.animalId))
+    .leftJoin(users, eq(users.id, events.recordedBy))
+    .where(and(eq(events.collectionId, collectionId), after ? afterCursor(after) : undefined))
+    .orderBy(asc(events.effectiveAt), asc(events.id))
+    .limit(limit);
+}
+
+/**
+ * Events after a page's last one. The cursor is the time as PostgreSQL wrote it (microseconds
+ * kept), so a page never repeats or skips an event that shares a millisecond. The plain `>=` on
+ * the time lets the (collection, time) index start at the cursor: the row comparison alone made
+ * every page read the collection's history from its beginning.
+ */
+const afterCursor = (after: { at: string; id: string }) =>
+  sql`${events.effectiveAt} >= ${after.at}::timestamptz and (${events.effectiveAt}, ${events.id}) > (${after.at}::timestamptz, ${after.id}::uuid)`;
+
+// --- Backup: pages in a stable order, each resuming after the last row of the one before.
+
+/** Walk order, ties by the place itself (unique in a collection), so the order is total. */
+export async function placesPage(db: Db, collectionId: string, after: Place & { walkOrder: number } | null, limit: number) {
+  const { walkOrder, room, rack, shelf, position } = locations;
+  return db
+    .select()
+    .from(locations)
+    .where(and(eq(locations.collectionId, collectionId), after ? sql`(${walkOrder}, ${room}, ${rack}, ${shelf}, ${position}) > (${after.walkOrder}, ${after.room}, ${after.rack}, ${after.shelf}, ${after.position})` : undefined))
+    .orderBy(asc(walkOrder), asc(room), asc(rack), asc(shelf), asc(position))
+    .limit(limit);
+}
+
+/** Label codes are unique within a collection, so they order the pages on their own. */
+export async function animalsPage(db: Db, collectionId: string, afterCode: string | null, limit: number) {
+  return db
+    .select()
+    .from(animals)
+    .where(and(eq(animals.collectionId, collectionId), afterCode === null ? undefined : gt(animals.labelCode, afterCode)))
+    .orderBy(asc(animals.labelCode))
+    .limit(limit);
+}
+
+/** Events oldest first, with a molt photo's key, a page at a time (see afterCursor). */
+export async function eventsPage(db: Db, collectionId: string, after: { at: string; id: string } | null, limit: number) {
+  return db
+    .select({ e: events, photoKey: eventPhotos.photoKey, cursor: sql<string>`${events.effectiveAt}::text` })
+    .from(events)
+    .leftJoin(eventPhotos, eq(eventPhotos.eventId, events.id))
+    .where(and(eq(events.collectionId, collectionId), after ? afterCursor(after) : undefined))
+    .orderBy(asc(events.effectiveAt), asc(events.id))
+    .limit(limit);
+}
+
+// --- Restore: one transaction writes everything or nothing.
+
+/** Animals and places of a collection (a restore needs both at zero). */
+export async function recordCounts(db: Db, collectionId: string) {
+  const [{ n: animalCount } = { n: 0 }] = await db.select({ n: count() }).from(animals).where(eq(animals.collectionId, collectionId));
+  const [{ n: placeCount } = { n: 0 }] = await db.select({ n: count() }).from(locations).where(eq(locations.collectionId, collectionId));
+  return { animals: animalCount, places: placeCount };
+}
+
+/**
+ * Holds the collection row until the transaction ends, so two restores into one collection
+ * wait for each other. NO KEY UPDATE leaves other writers (which only take KEY SHARE through
+ * their foreign keys) alone.
+ */
+export async function lockCollection(tx: Db, collectionId: string) {
+  await tx.execute(sql`select id from collections where id = ${collectionId} for no key update`);
+}
+
+export async function insertPlaces(tx: Db, rows: (typeof locations.$inferInsert)[]) {
+  if (rows.length) await tx.insert(locations).values(rows);
+}
+
+/** A collection's egg sacs, egg cases and broods (a handful per female: one read). */
+export async function sacsOf(db: Db, collectionId: string) {
+  return db.select().from(eggSacs).where(eq(eggSacs.collectionId, collectionId)).orderBy(asc(eggSacs.laidOn), asc(eggSacs.createdAt), asc(eggSacs.clutch));
+}
+
+export async function insertSacs(tx: Db, rows: (typeof eggSacs.$inferInsert)[]) {
+  if (rows.length) await tx.insert(eggSacs).values(rows);
+}
+
+export async function insertAnimals(tx: Db, rows: (typeof animals.$inferInsert)[]) {
+  if (rows.length) await tx.insert(animals).values(rows);
+}
+
+/** One statement over unnest()ed column arrays, as the sync path does; a repeated id fails. */
+export async function insertEvents(tx: Db, rows: (typeof events.$inferInsert)[]) {
+  if (!rows.length) return;
+  const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
+  await tx.execute(sql`
+    insert into events (id, collection_id, animal_id, kind, payload, recorded_by, device_id,
+                        client_recorded_at, client_sent_at, server_received_at, effective_at, flags)
+    select t.id, t.collection_id, t.animal_id, t.kind, t.payload::jsonb, t.recorded_by, t.device_id,
+           t.client_recorded_at, t.client_sent_at, t.server_received_at, t.effective_at,
+           coalesce(string_to_array(nullif(t.flags, ''), ','), '{}')
+    from unnest(
+      ${list(rows.map((r) => r.id))}::uuid[], ${list(rows.map((r) => r.collectionId))}::uuid[],
+      ${list(rows.map((r) => r.animalId))}::uuid[], ${list(rows.map((r) => r.kind))}::text[],
+      ${list(rows.map((r) => JSON.stringify(r.payload ?? {})))}::text[], ${list(rows.map((r) => r.recordedBy ?? null))}::uuid[],
+      ${list(rows.map((r) => r.deviceId ?? null))}::text[], ${list(rows.map((r) => iso(r.clientRecordedAt)))}::timestamptz[],
+      ${list(rows.map((r) => iso(r.clientSentAt)))}::timestamptz[], ${list(rows.map((r) => iso(r.serverReceivedAt)))}::timestamptz[],
+      ${list(rows.map((r) => iso(r.effectiveAt)))}::timestamptz[], ${list(rows.map((r) => (r.flags ?? []).join(',')))}::text[]
+    ) as t(id, collection_id, animal_id, kind, payload, recorded_by, device_id,
+           client_recorded_at, client_sent_at, server_received_at, effective_at, flags)`);
+}
+
+export async function insertEventPhotos(tx: Db, rows: (typeof eventPhotos.$inferInsert)[]) {
+  if (rows.length) await tx.insert(eventPhotos).values(rows);
+}
+
+/** Of these ids, the accounts this server has (a backup may come from another server). */
+export async function existingUserIds(tx: Db, ids: string[]): Promise<Set<string>> {
+  if (!ids.length) return new Set();
+  const rows = await tx.select({ id: users.id }).from(users).where(sql`${users.id} = any(${list(ids)}::uuid[])`);
+  return new Set(rows.map((r) => r.id));
+}
+
+/** An undo whose target is not a fact about the same animal in this collection, if any. */
+export async function findStrayUndo(tx: Db, collectionId: string) {
+  const rows = await tx.execute<{ code: string }>(sql`
+    select a.label_code as code from events v
+    join animals a on a.id = v.animal_id
+    where v.collection_id = ${collectionId} and v.kind = 'void'
+      and not exists (select 1 from events t where t.id = (v.payload->>'targetId')::uuid
+                      and t.collection_id = v.collection_id and t.animal_id = v.animal_id)
+    limit 1`);
+  return rows.rows[0] ?? null;
+}
+
+/** The animal with the longest history, when it is longer than `limit`. */
+export async function findAnimalWithMoreEvents(tx: Db, collectionId: string, limit: number) {
+  const rows = await tx.execute<{ code: string; n: string }>(sql`
+    select a.label_code as code, count(*) as n from events e join animals a on a.id = e.animal_id
+    where e.collection_id = ${collectionId}
+    group by a.label_code having count(*) > ${limit} order by count(*) desc limit 1`);
+  const row = rows.rows[0];
+  return row ? { code: row.code, events: Number(row.n) } : null;
+}
+
+/** A page of the collection's animals with how many events each has, by id. */
+export async function animalEventCounts(tx: Db, collectionId: string, afterId: string | null, limit: number) {
+  const rows = await tx.execute<{ id: string; n: string }>(sql`
+    select a.id, (select count(*) from events e where e.animal_id = a.id) as n from animals a
+    where a.collection_id = ${collectionId} ${afterId ? sql`and a.id > ${afterId}::uuid` : sql``}
+    order by a.id limit ${limit}`);
+  return rows.rows.map((r) => ({ id: r.id, events: Number(r.n) }));
+}
+
+export async function setCollectionRules(tx: Db, collectionId: string, rules: unknown) {
+  await tx.update(collections).set({ rules }).where(eq(collections.id, collectionId));
+}

@@ -1,0 +1,396 @@
+import { hash, randomBytes } from 'node:crypto';
+import fs from 'node:fs';
+import type { Readable } from 'node:stream';
+import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import type { z } from 'zod';
+import { MAX_BACKUP_PHOTO_CHARS, MAX_BACKUP_PLACES, MAX_RESTORE_BYTES } from '../../../shared/domain/backup-limits';
+import { backupAnimal, backupCollection, backupEggSac, backupEvent, backupHeader, backupPlace } from '../../../shared/schemas/backup';
+import { fieldLabel, isGenericMessage } from '../../../shared/schemas/messages';
+import type { RulesOverrideBody } from '../../../shared/schemas/rules';
+import type { Db } from '../../db/client';
+import type { animals, eggSacs, eventPhotos, events } from '../../db/schema/animals';
+import type { locations } from '../../db/schema/collections';
+import { HttpError } from '../../middleware/errors';
+import type { PhotosService, RestoreWorkspace } from '../photos/photos.service';
+import { refoldStates } from '../rounds/projection';
+import { BACKUP_LISTS, readBackup, type BackupList, type BackupRecord } from './backup-reader';
+import * as repo from './data.repository';
+import { createJsonGuard, tooLarge } from './json-guard';
+
+/** The longest history one animal may bring: its projection is folded with all of it in memory. */
+export const MAX_EVENTS_PER_ANIMAL = 20_000;
+/** Events folded into the projection at once after a restore (a few MB of heap). */
+const REFOLD_EVENTS = 20_000;
+const BATCH: Record<BackupList, number> = { locations: 500, animals: 200, eggSacs: 200, events: 1000 };
+/** Problems reported at once; a file with more is surely not worth reading further. */
+const MAX_PROBLEMS = 5;
+const WHAT: Record<BackupList, string> = { locations: 'Place', animals: 'Animal', eggSacs: 'Egg sac, case or brood', events: 'History entry' };
+
+type Problem = { path: string; message: string };
+
+export interface RestoreOptions {
+  photos: PhotosService;
+  now: () => Date;
+  /** MAX_RESTORE_BYTES unless a test wants a smaller file to be too large. */
+  maxBytes?: number;
+}
+
+/**
+ * Restores a backup into an empty collection, all or nothing. The upload is spooled to disk
+ * (so a slow phone never holds a database transaction open), then read record by record in
+ * one transaction: every record checked with the API's own schemas, photos written aside,
+ * rows inserted in batches. Only after the commit do the photos move into place; on any
+ * failure the transaction rolls back and the workspace, photos included, is removed.
+ */
+export async function restoreBackup(db: NodePgDatabase, options: RestoreOptions, collectionId: string, source: Readable, declaredBytes?: number) {
+  const maxBytes = options.maxBytes ?? MAX_RESTORE_BYTES;
+  const guard = createJsonGuard({ maxBytes, maxString: MAX_BACKUP_PHOTO_CHARS + 16, maxDepth: 12 });
+  // A declared length over the limit is refused before a byte is read.
+  if (declaredBytes !== undefined && declaredBytes > maxBytes) throw tooLarge(maxBytes);
+  await refuseUnlessEmpty(db, collectionId);
+  const workspace = await options.photos.openRestoreWorkspace();
+  try {
+    await spool(source, workspace.uploadFile, guard);
+    const counts = await db.transaction(async (tx) => {
+      await repo.lockCollection(tx, collectionId);
+      await refuseUnlessEmpty(tx, collectionId);
+      const loader = createLoader(tx, collectionId, workspace, options.now());
+      try {
+        for await (const record of readBackup(workspace.uploadFile)) await loader.take(record);
+        return await loader.finish();
+      } catch (err) {
+        // Nothing may still be writing when the transaction rolls back and the workspace goes.
+        await loader.settle();
+        throw err;
+      }
+    });
+    await workspace.commit(collectionId);
+    return counts;
+  } finally {
+    await workspace.discard();
+  }
+}
+
+async function refuseUnlessEmpty(db: Db, collectionId: string) {
+  const n = await repo.recordCounts(db, collectionId);
+  if (n.animals > 0 || n.places > 0) throw new HttpError(409, 'not_empty', 'Restore into an empty collection: this one already has animals or places.');
+}
+
+/**
+ * Copies the upload to a file through the guard. When the guard refuses it, the rest of the
+ * upload is read and dropped rather than the connection cut, so the client gets our answer.
+ */
+function spool(source: Readable, file: string, guard: (chunk: Uint8Array) => void): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const out = fs.createWriteStream(file);
+    let settled = false;
+    let ended = false;
+    const fail = (err: unknown) => {
+      if (settled) return;
+      settled = true;
+      source.off('data', onData);
+      source.resume();
+      out.destroy();
+      reject(err);
+    };
+    const onData = (chunk: Buffer) => {
+      try {
+        guard(chunk);
+      } catch (err) {
+        return fail(err);
+      }
+      if (!out.write(chunk)) {
+        source.pause();
+        out.once('drain', () => source.resume());
+      }
+    };
+    const interrupted = () => fail(new HttpError(400, 'aborted', 'The upload stopped before the end of the file, so nothing was restored.'));
+    out.on('error', fail);
+    source.on('data', onData);
+    source.on('error', interrupted);
+    source.on('close', () => {
+      if (!ended) interrupted();
+    });
+    source.on('end', () => {
+      ended = true;
+      out.end(() => {
+        if (settled) return;
+        settled = true;
+        resolve();
+      });
+    });
+  });
+}
+
+/**
+ * New ids for a restored copy, derived from the old ones and a salt of this restore's own: the
+ * same old id always gives the same new one, so no table of them is kept in memory.
+ */
+function idMapper() {
+  const salt = randomBytes(16).toString('hex');
+  return (old: string) => {
+    const h = hash('sha256', salt + old.toLowerCase(), 'buffer');
+    // RFC 9562 layout (version 4, variant 10): the bits of a random UUID.
+    h[6] = (h[6]! & 0x0f) | 0x40;
+    h[8] = (h[8]! & 0x3f) | 0x80;
+    const x = h.subarray(0, 16).toString('hex');
+    return `${x.slice(0, 8)}-${x.slice(8, 12)}-${x.slice(12, 16)}-${x.slice(16, 20)}-${x.slice(20)}`;
+  };
+}
+
+function problemsOf(where: string, prefix: string, error: z.ZodError): Problem[] {
+  return error.issues.map((issue) => {
+    const path = [prefix, ...issue.path.map(String)].join('.');
+    const field = issue.path.length && isGenericMessage(issue.message) ? `${fieldLabel(issue.path.map(String).join('.'))}: ` : '';
+    return { path, message: `${where}: ${field}${issue.message}` };
+  });
+}
+
+function refusal(problems: Problem[]): HttpError {
+  const first = problems[0]!.message;
+  return new HttpError(422, 'invalid', problems.length === 1 ? first : `${first} (and ${problems.length - 1} more)`, problems);
+}
+
+/** A database refusal of the backup's own data, in words; null for anything else. */
+function dataProblem(err: unknown): HttpError | null {
+  const e = ((err as { cause?: unknown }).cause ?? err) as { code?: string; constraint?: string; detail?: string };
+  const values = /\)=\((.*)\)/.exec(e.detail ?? '')?.[1] ?? '';
+  const refuse = (message: string) => new HttpError(422, 'invalid', message);
+  if (e.code === '23505') {
+    if (e.constraint === 'animals_collection_label') return refuse(`Two animals in this backup have the label code ${values.split(', ').pop()}: each animal needs its own.`);
+    if (e.constraint === 'locations_place') return refuse(`Two places in this backup are the same room, rack, shelf and position (${values.split(', ').slice(1).join(' · ')}): each may be listed once.`);
+    if (e.constraint === 'animals_pkey') return refuse('This backup lists the same animal twice.');
+    if (e.constraint === 'locations_pkey') return refuse('This backup lists the same place twice.');
+    if (e.constraint === 'events_pkey') return refuse('This backup lists the same history entry twice.');
+    return refuse('This backup lists something twice.');
+  }
+  if (e.code === '23503') {
+    if (e.constraint === 'events_animal_id_animals_id_fk') return refuse('This backup has history for an animal it does not contain.');
+    return refuse('This backup refers to something it does not contain.');
+  }
+  // Invalid text, a number out of range, a string too long for its column.
+  if (e.code && /^22/.test(e.code)) return refuse('This backup holds a value Rackside cannot store.');
+  return null;
+}
+
+async function asDataProblem<T>(work: () => Promise<T>): Promise<T> {
+  try {
+    return await work();
+  } catch (err) {
+    throw dataProblem(err) ?? err;
+  }
+}
+
+type PlaceRow = typeof locations.$inferInsert;
+type AnimalRow = typeof animals.$inferInsert;
+type EventRow = typeof events.$inferInsert;
+type SacRow = typeof eggSacs.$inferInsert;
+type EventPhotoRow = typeof eventPhotos.$inferInsert;
+/** A photo being written aside while reading goes on: its key once it is on disk. */
+type Staging = { key: Promise<string> };
+/** Photos decoded and written at once, beside the reading (each holds its image in memory). */
+const PHOTOS_IN_FLIGHT = 2;
+
+function createLoader(tx: Db, collectionId: string, workspace: RestoreWorkspace, now: Date) {
+  const newId = idMapper();
+  const places = new Set<string>();
+  const singles = new Map<string, unknown>();
+  const counts = { locations: 0, animals: 0, eggSacs: 0, events: 0 };
+  const problems: Problem[] = [];
+  let stage = -1;
+  let rules: RulesOverrideBody = {};
+  const emptyBatch = () => ({ places: [] as PlaceRow[], animals: [] as { row: AnimalRow; photo: Staging | null }[], sacs: [] as SacRow[], events: [] as EventRow[], photos: [] as { row: EventPhotoRow; photo: Staging }[] });
+  let pending = emptyBatch();
+  // One batch is written while the next is read: PostgreSQL and the parser work side by side.
+  // Failures surface when the write is next waited for; until then they are marked handled.
+  let writing: Promise<void> = Promise.resolve();
+  const staging = new Set<Promise<unknown>>();
+
+  const problem = (found: Problem[]) => {
+    problems.push(...found);
+    if (problems.length >= MAX_PROBLEMS) throw refusal(problems.slice(0, MAX_PROBLEMS));
+  };
+
+  async function stagePhoto(base64: string, where: string): Promise<string> {
+    try {
+      return await workspace.stagePhoto(Buffer.from(base64, 'base64'));
+    } catch (err) {
+      if (err instanceof HttpError) throw new HttpError(err.status, err.code, `${where}: ${err.message}`);
+      // The disk refused (full, read-only…): nothing is kept, and the same file can be tried again.
+      throw new HttpError(503, 'storage_failed', 'The server could not store the photos of this backup, so nothing was restored. Try again later.');
+    }
+  }
+
+  /** Starts writing a photo aside, once fewer than PHOTOS_IN_FLIGHT are being written. */
+  async function startPhoto(base64: string, where: string): Promise<Staging> {
+    while (staging.size >= PHOTOS_IN_FLIGHT) await Promise.race(staging);
+    const key = stagePhoto(base64, where);
+    const done: Promise<boolean> = key.then(
+      () => staging.delete(done),
+      () => staging.delete(done),
+    );
+    staging.add(done);
+    key.catch(() => undefined);
+    return { key };
+  }
+
+  /** A place the file lists (by its old id): moves and animals point at it. */
+  const mapPlace = (old: string | null | undefined) => (old && places.has(old.toLowerCase()) ? newId(old) : null);
+
+  function remapPayload(payload: Record<string, unknown>) {
+    const out = { ...payload };
+    for (const key of ['targetId', 'maleId', 'sacId']) if (typeof out[key] === 'string') out[key] = newId(out[key]);
+    // A move to a place deleted since keeps the id it had, as the original does.
+    for (const key of ['fromLocationId', 'toLocationId']) if (typeof out[key] === 'string') out[key] = mapPlace(out[key]) ?? out[key];
+    return out;
+  }
+
+  /** Hands the pending rows to the writer, once the batch before them is written. */
+  async function flush() {
+    const batch = pending;
+    pending = emptyBatch();
+    await writing;
+    writing = write(batch);
+    writing.catch(() => undefined);
+  }
+
+  async function write(batch: ReturnType<typeof emptyBatch>) {
+    for (const a of batch.animals) if (a.photo) a.row.photoKey = await a.photo.key;
+    for (const p of batch.photos) p.row.photoKey = await p.photo.key;
+    await asDataProblem(async () => {
+      await repo.insertPlaces(tx, batch.places);
+      await repo.insertAnimals(tx, batch.animals.map((a) => a.row));
+      await repo.insertSacs(tx, batch.sacs);
+      if (batch.events.length) {
+        // People belong to a server: someone this server does not know is recorded as nobody.
+        const known = await repo.existingUserIds(tx, [...new Set(batch.events.flatMap((e) => (e.recordedBy ? [e.recordedBy] : [])))]);
+        for (const e of batch.events) if (e.recordedBy && !known.has(e.recordedBy)) e.recordedBy = null;
+        await repo.insertEvents(tx, batch.events);
+      }
+      await repo.insertEventPhotos(tx, batch.photos.map((p) => p.row));
+    });
+  }
+
+  async function takeSingle(key: string, value: unknown) {
+    singles.set(key, value);
+    if (key === 'format' || key === 'version') {
+      const result = backupHeader[key].safeParse(value);
+      // Not a backup of ours at all: there is nothing more worth saying.
+      if (!result.success) throw new HttpError(422, 'invalid', result.error.issues[0]!.message);
+    } else if (key === 'exportedAt') {
+      const result = backupHeader.exportedAt.safeParse(value);
+      if (!result.success) problem(problemsOf('The backup’s date', 'exportedAt', result.error));
+    } else if (key === 'collection') {
+      const result = backupCollection.safeParse(value);
+      if (result.success) rules = result.data.rules;
+      else problem(problemsOf('The collection', 'collection', result.error));
+    }
+  }
+
+  async function takeItem(list: BackupList, index: number, value: unknown) {
+    const order = BACKUP_LISTS.indexOf(list);
+    if (order < stage) throw new HttpError(422, 'invalid', 'This backup lists places, animals and history out of order (places come first, then animals, then history).');
+    if (order > stage) {
+      if (!problems.length) await flush();
+      stage = order;
+    }
+    counts[list]++;
+    const labelCode = list === 'animals' ? (value as { labelCode?: unknown } | null)?.labelCode : undefined;
+    const where = `${WHAT[list]} ${index + 1}${typeof labelCode === 'string' ? ` (${labelCode.slice(0, 20)})` : ''}`;
+    const prefix = `${list}.${index}`;
+
+    if (list === 'locations') {
+      const result = backupPlace.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (places.size >= MAX_BACKUP_PLACES) throw new HttpError(422, 'invalid', `This backup has more than ${MAX_BACKUP_PLACES.toLocaleString('en')} places, more than a collection can have.`);
+      const { id, ...place } = result.data;
+      places.add(id.toLowerCase());
+      if (!problems.length) pending.places.push({ ...place, id: newId(id), collectionId });
+    } else if (list === 'animals') {
+      const result = backupAnimal.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { id, locationId, photo, createdAt, updatedAt, ...fields } = result.data;
+      const row = { ...fields, id: newId(id), collectionId, locationId: mapPlace(locationId), photoKey: null, photoUpdatedAt: photo ? now : null, createdAt: new Date(createdAt), updatedAt: new Date(updatedAt) };
+      pending.animals.push({ row, photo: photo ? await startPhoto(photo, where) : null });
+    } else if (list === 'eggSacs') {
+      const result = backupEggSac.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { id, femaleId, createdAt, ...fields } = result.data;
+      pending.sacs.push({ ...fields, id: newId(id), femaleId: newId(femaleId), collectionId, createdAt: new Date(createdAt) });
+    } else {
+      const result = backupEvent.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { id, animalId, payload, photo, clientRecordedAt, clientSentAt, serverReceivedAt, effectiveAt, ...fields } = result.data;
+      const eventId = newId(id);
+      if (photo) pending.photos.push({ row: { eventId, collectionId, photoKey: '' }, photo: await startPhoto(photo, where) });
+      pending.events.push({
+        ...fields,
+        id: eventId,
+        collectionId,
+        animalId: newId(animalId),
+        payload: remapPayload(payload),
+        clientRecordedAt: new Date(clientRecordedAt),
+        clientSentAt: clientSentAt ? new Date(clientSentAt) : null,
+        serverReceivedAt: new Date(serverReceivedAt),
+        effectiveAt: new Date(effectiveAt),
+      });
+    }
+    const size = { locations: pending.places.length, animals: pending.animals.length, eggSacs: pending.sacs.length, events: pending.events.length }[list];
+    if (size >= BATCH[list]) await flush();
+  }
+
+  /** The projection the round is built from, folded a bounded number of events at a time. */
+  async function refold() {
+    const c = await repo.findCollection(tx, collectionId);
+    let after: string | null = null;
+    for (;;) {
+      const page = await repo.animalEventCounts(tx, collectionId, after, 500);
+      if (!page.length) return;
+      let ids: string[] = [];
+      let n = 0;
+      for (const a of page) {
+        if (ids.length && n + a.events > REFOLD_EVENTS) {
+          await refoldStates(tx, collectionId, c!.timeZone, ids);
+          ids = [];
+          n = 0;
+        }
+        ids.push(a.id);
+        n += a.events;
+      }
+      await refoldStates(tx, collectionId, c!.timeZone, ids);
+      after = page.at(-1)!.id;
+    }
+  }
+
+  return {
+    async take(record: BackupRecord) {
+      if (record.kind === 'single') await takeSingle(record.key, record.value);
+      else await takeItem(record.list, record.index, record.value);
+    },
+
+    /** Waits for whatever is still being written, failed or not. */
+    async settle() {
+      await Promise.allSettled([writing, ...staging]);
+    },
+
+    async finish() {
+      if (!singles.has('format')) throw new HttpError(422, 'invalid', 'This is not a Rackside backup file.');
+      for (const key of ['version', 'exportedAt', 'collection'] as const) {
+        if (!singles.has(key)) problems.push({ path: key, message: `The backup has no “${key}”: it is incomplete or damaged.` });
+      }
+      if (problems.length) throw refusal(problems.slice(0, MAX_PROBLEMS));
+      await flush();
+      await writing;
+      const stray = await repo.findStrayUndo(tx, collectionId);
+      if (stray) throw new HttpError(422, 'invalid', `An undo in the history of ${stray.code} refers to an entry this backup does not contain.`);
+      const longest = await repo.findAnimalWithMoreEvents(tx, collectionId, MAX_EVENTS_PER_ANIMAL);
+      if (longest) throw new HttpError(422, 'invalid', `${longest.code} has ${longest.events.toLocaleString('en')} history entries in this backup; Rackside keeps at most ${MAX_EVENTS_PER_ANIMAL.toLocaleString('en')} per animal.`);
+      await repo.setCollectionRules(tx, collectionId, rules);
+      await refold();
+      return { animals: counts.animals, events: counts.events };
+    },
+  };
+}
