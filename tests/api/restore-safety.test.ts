@@ -85,9 +85,9 @@ afterAll(async () => {
 describe('a poisoned backup is refused and leaves nothing behind', () => {
   it('rules the rules screen would refuse: an interval of 0 days', async () => {
     const file = copy();
-    file.collection.rules = { intervalDays: { adult: 0 } };
+    file.collection.rules = { profiles: { tarantula: { stages: { adult: { feedEveryDays: 0 } } } } };
     const error = await refused(file);
-    expect(error.message).toBe('The collection: The adult interval must be at least 1 day.');
+    expect(error.message).toBe('The collection: The tarantula adult interval must be at least 1 day.');
   });
 
   it('a caution the app does not know (the helper’s round could not show it)', async () => {
