@@ -18,7 +18,9 @@ describe('growth and breeding at 360 px', () => {
     await molt.getByLabel('Size after (mm)').fill('136');
     await molt.getByLabel('The exuviae shows').selectOption('female');
     await molt.getByRole('button', { name: 'Record the molt' }).click();
-    await expect.poll(() => molt.getByText('Molt recorded.').count()).toBe(1);
+    // Once recorded, the form completes that same molt (one molt, one record) and says so.
+    await expect.poll(() => page.getByText('Molt recorded.').count()).toBe(1);
+    expect(await page.getByRole('form', { name: /^Complete the molt of / }).count()).toBe(1);
     // Once the molt is synced, the history has it and the chart draws it.
     const chart = page.getByRole('img', { name: /Leg span after each molt: .*136 mm/ });
     await expect.poll(() => chart.count(), { timeout: 20_000 }).toBe(1);

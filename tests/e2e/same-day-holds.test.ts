@@ -17,10 +17,12 @@ const ZONE = 'America/Toronto';
 const item = (page: Page, name: string) => page.getByRole('article', { name: new RegExp(`^${name},`) });
 const syncStatus = (page: Page) => page.getByRole('status').filter({ hasText: /saved|waiting|Saving|attention/ }).first().innerText();
 
-/** The animal's page, opened from its address (offline, the service worker serves the app). */
+/** The animal's page, reached through the app as a keeper would (offline: the phone's copy). */
 async function openAnimal(page: Page, name: string) {
-  const [row] = await env.server.ctx.database.db.select({ id: animals.id }).from(animals).where(eq(animals.name, name));
-  await page.goto(`${env.server.baseUrl}/animals/${row!.id}`);
+  await page.getByRole('link', { name: 'Animals', exact: true }).click();
+  await page.getByRole('heading', { name: 'Animals', level: 1 }).waitFor();
+  await page.getByLabel('Find').fill(name);
+  await page.getByRole('link', { name: new RegExp(`^${name}\\b`) }).first().click();
 }
 
 describe('a hold that begins during the day', () => {
@@ -28,7 +30,12 @@ describe('a hold that begins during the day', () => {
     const { context, page, consoleErrors } = await phonePage(env.browser);
     await signInAsDemo(page, env.server.baseUrl, 'owner@northlight.test');
     await underServiceWorker(page);
-    // Dusty is a carried-over juvenile due for food in the demo.
+    // The phone keeps its copy of the animal list once it has loaded it (a few seconds after
+    // start): open the list once while online, as a keeper's phone would have.
+    await page.getByRole('link', { name: 'Animals', exact: true }).click();
+    await page.getByLabel('Find').waitFor();
+    await page.getByRole('link', { name: 'Today', exact: true }).click();
+    // Dusty is an adult carried over from yesterday, due for food in the demo.
     const dusty = item(page, 'Dusty');
     await dusty.waitFor();
     expect(await dusty.innerText()).toMatch(/Feed ·/);

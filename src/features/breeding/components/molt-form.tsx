@@ -30,7 +30,7 @@ export function MoltForm({ today, timeZone, unit, molts, onRecord, compact = fal
   const [v, setV] = useState({ date: today, size: '', kept: true, sex: 'unknown', maturing: false, note: '' });
   const existing = molts.find((m) => m.date === v.date);
   const headingId = useId();
-  const [state, setState] = useState<{ busy: boolean; error: string | null; saved: boolean }>({ busy: false, error: null, saved: false });
+  const [state, setState] = useState<{ busy: boolean; error: string | null; saved: string | null }>({ busy: false, error: null, saved: null });
   const size = v.size.trim() === '' ? null : Number(v.size.replace(',', '.'));
   const sizeError = size !== null && !(size > 0) ? 'Give the size as a number above 0.' : undefined;
   return (
@@ -43,10 +43,12 @@ export function MoltForm({ today, timeZone, unit, molts, onRecord, compact = fal
         // A past day is stored at noon there; today at the moment it is recorded.
         const at = v.date === today ? new Date() : new Date(startOfLocalDate(v.date, timeZone).getTime() + 12 * 3_600_000);
         const payload: Record<string, unknown> = { exuviaeKept: v.kept, sexFromExuviae: v.sex, ...(v.maturing ? { maturing: true } : {}), ...(size !== null ? { sizeMm: sizeToMm(size, unit) } : {}), ...(v.note.trim() ? { note: v.note.trim() } : {}) };
-        setState({ busy: true, error: null, saved: false });
+        setState({ busy: true, error: null, saved: null });
+        // Said as it was when sent: once saved, the day's molt exists and the form would complete it.
+        const saved = existing ? 'Molt details saved.' : 'Molt recorded.';
         onRecord(payload, at, existing?.eventId).then(
-          () => (setState({ busy: false, error: null, saved: true }), setV((x) => ({ ...x, size: '', note: '', maturing: false }))),
-          (err: Error) => setState({ busy: false, error: err.message, saved: false }),
+          () => (setState({ busy: false, error: null, saved }), setV((x) => ({ ...x, size: '', note: '', maturing: false }))),
+          (err: Error) => setState({ busy: false, error: err.message, saved: null }),
         );
       }}
     >
@@ -69,7 +71,7 @@ export function MoltForm({ today, timeZone, unit, molts, onRecord, compact = fal
       </label>
       <TextField label="Note" value={v.note} onChange={(e) => setV((x) => ({ ...x, note: e.target.value }))} />
       {state.error && <Notice tone="error" title={state.error} />}
-      {state.saved && <Notice tone="ok" title={existing ? 'Molt details saved.' : 'Molt recorded.'} />}
+      {state.saved && <Notice tone="ok" title={state.saved} />}
       <Button type="submit" busy={state.busy}>
         {existing ? 'Save the molt’s details' : 'Record the molt'}
       </Button>
