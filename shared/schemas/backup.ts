@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { ANIMAL_STATUSES } from '../domain/animal-facts';
 import { MAX_BACKUP_PHOTO_CHARS } from '../domain/backup-limits';
 import { BREEDING_RECORDS } from '../domain/breeding';
+import { upgradeOverride, type RulesOverride } from '../domain/rounds/rules';
 import { animalInput } from './animals';
 import { accountDetails } from './auth';
 import { localDate, timeZone, uuid } from './common';
@@ -38,7 +39,8 @@ export const backupHeader = {
 export const backupCollection = z.object({
   name: accountDetails.shape.collectionName,
   timeZone,
-  rules: rulesOverride,
+  // A backup made before care profiles holds rules in the older shape: read as the app reads them.
+  rules: z.preprocess((rules) => (rules && typeof rules === 'object' ? upgradeOverride(rules as RulesOverride) : rules), rulesOverride),
 });
 
 export const backupPlace = locationInput.extend({

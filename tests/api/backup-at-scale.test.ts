@@ -16,6 +16,7 @@ import { migrateDatabase } from '../../server/db/migrate';
 import { readBackup } from '../../server/features/data/backup-reader';
 import { MAX_RESTORE_BYTES } from '../../shared/domain/backup-limits';
 import { LABEL_ALPHABET } from '../../shared/domain/label-codes';
+import { insertOwner, PASSWORD } from '../factories';
 import { testDatabaseUrl } from '../setup/database-urls';
 import { createTestDatabase, dropTestDatabase } from '../setup/test-app';
 import { startServerProcess, type ServerProcess } from '../support/server-process';
@@ -104,16 +105,18 @@ beforeAll(async () => {
   const databaseUrl = testDatabaseUrl(name);
   const database = connectDatabase(databaseUrl, 1);
   await migrateDatabase(database.db);
+  // Sign-up goes through an e-mailed link: the owner is written straight to the database.
+  const owner = await insertOwner(database.db);
   await database.close();
   server = await startServerProcess({ databaseUrl, quiet: true });
-  const res = await fetch(`${server.url}/api/auth/sign-up`, {
+  const res = await fetch(`${server.url}/api/auth/sign-in`, {
     method: 'POST',
     headers: HEADERS,
-    body: JSON.stringify({ email: `scale-${Date.now()}@example.test`, password: 'correct horse battery', displayName: 'Scale', collectionName: 'Scale', timeZone: 'America/Toronto' }),
+    body: JSON.stringify({ email: owner.email, password: PASSWORD }),
   });
-  expect(res.status).toBe(201);
+  expect(res.status).toBe(200);
   cookie = res.headers.get('set-cookie')!.split(';')[0]!;
-  collectionId = ((await res.json()) as { memberships: { collectionId: string }[] }).memberships[0]!.collectionId;
+  collectionId = owner.collectionId;
 }, 60_000);
 
 afterAll(async () => {
