@@ -27,6 +27,7 @@ const vitest = (project) => [
 const stages = [
   ['typecheck', bin('tsc'), ['-p', 'tsconfig.json', '--noEmit']],
   ['lint', bin('eslint'), ['.', '--max-warnings=0']],
+  ['references', process.execPath, ['scripts/check-references.mjs']],
   ['unit', ...vitest('unit')],
   ['api', ...vitest('api')],
   // The production build, as users get it (NODE_ENV=test would give React's development build).

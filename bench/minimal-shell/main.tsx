@@ -1,4 +1,4 @@
-// The baseline for P2 and P3 (../shared/budgets.md): the least a React + router + query + PWA
+// The baseline for P2 and P3 (docs/benchmarks.md, Budgets): the least a React + router + query + PWA
 // app can be, measured the same way as Rackside.
 import { QueryClient, QueryClientProvider, useQuery } from '@tanstack/react-query';
 import { StrictMode } from 'react';

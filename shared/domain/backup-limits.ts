@@ -2,7 +2,7 @@
  * The largest backup a restore reads. The file is read as a stream and spooled to disk, so the
  * server's memory does not grow with it (the largest single value, a photo, is what counts);
  * the cap bounds the disk a restore borrows and how long its transaction stays open
- * (docs/decisions/011-backup-and-restore-at-scale.md). Kept apart from the schemas so the app
+ * (docs/decisions/014-backup-and-restore-at-scale.md). Kept apart from the schemas so the app
  * can check a file's size without loading zod.
  */
 export const MAX_RESTORE_BYTES = 512 * 1024 * 1024;

@@ -176,9 +176,9 @@ describe('a 150 MB backup against the 160 MB heap', () => {
     expect(counts).toEqual({ animals: ANIMALS, events: restored.events, photos: WITH_PHOTO });
     expect(fs.statSync(file).size).toBeGreaterThan(TARGET_BYTES * 0.9);
 
-    // Figures for docs/decisions/011: resident memory of the whole process, heap and libvips.
+    // Figures for docs/decisions/014-backup-and-restore-at-scale.md: resident memory of the whole process, heap and libvips.
     console.info(`150 MB restore: RSS before ${before.nowMb} MB, peak after restore ${afterRestore.peakMb} MB, peak after backup ${afterBackup.peakMb} MB`);
-    // Measured ~270 MB after the restore and ~300 MB after the backup (decision 011); a runaway shows here.
+    // Measured ~270 MB after the restore and ~300 MB after the backup (decision 014); a runaway shows here.
     expect(afterBackup.peakMb).toBeLessThan(350);
   }, 300_000);
 

@@ -1,4 +1,4 @@
-// S1 (../shared/budgets.md): the real client outbox and sync engine (on fake-indexeddb) against
+// S1 (docs/benchmarks.md, Budgets): the real client outbox and sync engine (on fake-indexeddb) against
 // the real server and PostgreSQL, with faults injected between them — a CSRF 403 after a proxy
 // changed the Host and a proxy's HTML 404 among them. Whatever happens on the wire, the
 // database must end with exactly the events tapped (none lost, none doubled) and no tap is

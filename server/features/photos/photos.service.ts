@@ -11,7 +11,7 @@ import { imageTypeOf, isPlainFileName } from './image-type';
 const loadSharp = async () => {
   const sharp = (await import('sharp')).default;
   // Each photo is decoded once: libvips' operation cache (up to 50 MB by default) would only
-  // hold memory, which a restore of many photos turns into resident size (decision 011).
+  // hold memory, which a restore of many photos turns into resident size (decision 014).
   sharp.cache(false);
   return sharp;
 };
