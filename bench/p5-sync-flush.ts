@@ -4,8 +4,8 @@
 import 'fake-indexeddb/auto';
 import { randomUUID } from 'node:crypto';
 import { performance } from 'node:perf_hooks';
+import { findMembership } from '../server/access/memberships';
 import type { Database } from '../server/db/client';
-import { findMembership } from '../server/features/collections/collections.repository';
 import { createEventsService } from '../server/features/events/events.service';
 import { createRoundsService } from '../server/features/rounds/rounds.service';
 import { SYNC_BATCH_SIZE } from '../shared/domain/sync-limits';

@@ -1,8 +1,8 @@
 import type { RequestHandler, Response } from 'express';
 import { coverWindowMessage, coverWindowState, roleAtLeast, type Role } from '../../shared/domain/roles';
 import { uuid } from '../../shared/schemas/common';
+import { findMembership, type Membership } from '../access/memberships';
 import type { Db } from '../db/client';
-import { findMembership, type Membership } from '../features/collections/collections.repository';
 import { currentUserId } from './auth';
 import { HttpError } from './errors';
 

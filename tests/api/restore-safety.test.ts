@@ -9,6 +9,7 @@ import { Readable } from 'node:stream';
 import { eq, sql } from 'drizzle-orm';
 import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { findMembership } from '../../server/access/memberships';
 import { collections } from '../../server/db/schema/collections';
 import { createAnimalsService } from '../../server/features/animals/animals.service';
 import { createDataService } from '../../server/features/data/data.service';
@@ -30,6 +31,8 @@ interface Backup {
   [key: string]: unknown;
 }
 
+/** The collection as the membership check hands it to the service. */
+const collectionOf = async (who: SignedUp) => (await findMembership(ctx.database.db, who.collectionId, who.userId))!;
 const base = (who: SignedUp) => `/api/collections/${who.collectionId}`;
 const copy = (): Backup => structuredClone(backup);
 const filesUnder = (dir: string): string[] => (fs.existsSync(dir) ? (fs.readdirSync(dir, { recursive: true }) as string[]).filter((f) => fs.statSync(path.join(dir, f)).isFile()) : []);
@@ -186,7 +189,7 @@ describe('a photo write that fails', () => {
     };
     const animals = createAnimalsService(db);
     const stream = () => Readable.from([Buffer.from(JSON.stringify(backup))]);
-    const error = await createDataService(db, { animals, photos: failing }).restore(to.collectionId, stream()).catch((e: unknown) => e);
+    const error = await createDataService(db, { animals, photos: failing }).restore(await collectionOf(to), stream()).catch((e: unknown) => e);
     expect(error).toBeInstanceOf(HttpError);
     expect(error).toMatchObject({ status: 503, message: 'The server could not store the photos of this backup, so nothing was restored. Try again later.' });
     expect(writes).toBe(2);
@@ -194,7 +197,7 @@ describe('a photo write that fails', () => {
     expect(await leftBehind(to.collectionId)).toEqual(NOTHING);
 
     // With room on the disk again, the same backup restores into the same collection.
-    expect(await createDataService(db, { animals, photos }).restore(to.collectionId, stream())).toEqual({ animals: 2, events: 3 });
+    expect(await createDataService(db, { animals, photos }).restore(await collectionOf(to), stream())).toEqual({ animals: 2, events: 3 });
     const after = await leftBehind(to.collectionId);
     expect(after.rows).toEqual({ locations: 2, animals: 2, events: 3, event_photos: 1, animal_states: 2 });
     expect(after.photoFiles).toHaveLength(4);
@@ -207,9 +210,9 @@ describe('a photo write that fails', () => {
     const photos = createPhotosService(db, ctx.storageDir, () => new Date());
     const small = createDataService(db, { animals: createAnimalsService(db), photos, maxRestoreBytes: 1024 });
     const chunks = [Buffer.from(JSON.stringify(backup))];
-    const error = await small.restore(to.collectionId, Readable.from(chunks)).catch((e: unknown) => e);
+    const error = await small.restore(await collectionOf(to), Readable.from(chunks)).catch((e: unknown) => e);
     expect(error).toMatchObject({ status: 413, message: 'This backup is larger than Rackside restores (1 KB at most).' });
-    const declared = await small.restore(to.collectionId, Readable.from(chunks), 2048).catch((e: unknown) => e);
+    const declared = await small.restore(await collectionOf(to), Readable.from(chunks), 2048).catch((e: unknown) => e);
     expect(declared).toMatchObject({ status: 413 });
     expect(await leftBehind(to.collectionId)).toEqual(NOTHING);
   });

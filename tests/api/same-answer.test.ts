@@ -7,9 +7,9 @@ import { randomUUID } from 'node:crypto';
 import { and, eq } from 'drizzle-orm';
 import type { Response } from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { decoyHash } from '../../server/access/passwords';
 import { memberships } from '../../server/db/schema/collections';
 import { passwordResets, signUpTokens, users } from '../../server/db/schema/users';
-import { decoyHash } from '../../server/features/auth/passwords';
 import { PASSWORD, signUp, signUpLink, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 

@@ -1,12 +1,11 @@
 import type { Caution } from '../../../shared/domain/animal-facts';
 import { toLocationSummary, type AnimalSummary } from '../../../shared/schemas/animals';
-import type { animals } from '../../db/schema/animals';
-import type { locations } from '../../db/schema/collections';
+import type { AnimalRow, LocationRow } from './animals.repository';
 
 /** A stored animal (and its place) as the API and the round engine see it. */
 export function toAnimalSummary(
-  a: typeof animals.$inferSelect,
-  l: typeof locations.$inferSelect | null,
+  a: AnimalRow,
+  l: LocationRow | null,
 ): AnimalSummary {
   return {
     id: a.id,

@@ -21,7 +21,7 @@ export function animalsRoutes(service: AnimalsService, member: (min: Role) => Re
   });
 
   router.post('/', member('keeper'), validate({ body: animalInput }), async (_req, res) => {
-    res.status(201).json(await service.create(collectionId(res), input<AnimalValues>(res, 'body')));
+    res.status(201).json(await service.create(membershipOf(res), input<AnimalValues>(res, 'body')));
   });
 
   router.post('/move', member('keeper'), validate({ body: moveBody }), async (req, res) => {

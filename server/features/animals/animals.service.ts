@@ -1,17 +1,26 @@
 import { randomInt } from 'node:crypto';
-import { and, eq, inArray } from 'drizzle-orm';
-import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { collectionPrefix, generateLabelCodes } from '../../../shared/domain/label-codes';
 import { compareLocations } from '../../../shared/domain/walk-order';
 import type { AnimalSummary, AnimalValues, MoveBody, RetireBody } from '../../../shared/schemas/animals';
 import type { CareSettingsBody } from '../../../shared/schemas/rules';
+import type { MemberCollection } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { isUniqueViolation } from '../../db/errors';
-import { animals } from '../../db/schema/animals';
 import { HttpError } from '../../middleware/errors';
 import { recordServerEvents } from './animal-events';
 import { toAnimalSummary } from './animal-summary';
-import { codesInCollection, collectionName, listAnimals, locationInCollection, updateAnimalCare } from './animals.repository';
+import {
+  codesInCollection,
+  findPlaceAndStatus,
+  insertAnimal,
+  insertAnimals,
+  listAnimals,
+  locationInCollection,
+  moveAnimals,
+  placesOfAnimals,
+  updateAnimal,
+  updateAnimalCare,
+} from './animals.repository';
 
 const randomUnit = () => randomInt(2 ** 32) / 2 ** 32;
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that animal.');
@@ -38,7 +47,7 @@ function columnsOf(v: AnimalValues) {
   };
 }
 
-export function createAnimalsService(db: NodePgDatabase, now: () => Date = () => new Date()) {
+export function createAnimalsService(db: Db, now: () => Date = () => new Date()) {
   async function checkLocation(tx: Db, collectionId: string, locationId: string | null) {
     if (locationId && !(await locationInCollection(tx, collectionId, locationId))) {
       throw new HttpError(422, 'invalid', 'That place is not in this collection. Choose one from the list.', [{ path: 'locationId', message: 'Choose a place from the list.' }]);
@@ -52,9 +61,9 @@ export function createAnimalsService(db: NodePgDatabase, now: () => Date = () =>
   }
 
   /** Codes for new animals: the collection's usual prefix, never one already used. */
-  async function newCodes(tx: Db, collectionId: string, count: number): Promise<string[]> {
-    const taken = await codesInCollection(tx, collectionId);
-    return generateLabelCodes(collectionPrefix(await collectionName(tx, collectionId), taken), count, randomUnit, new Set(taken));
+  async function newCodes(tx: Db, c: MemberCollection, count: number): Promise<string[]> {
+    const taken = await codesInCollection(tx, c.collectionId);
+    return generateLabelCodes(collectionPrefix(c.collectionName, taken), count, randomUnit, new Set(taken));
   }
 
   return {
@@ -69,13 +78,13 @@ export function createAnimalsService(db: NodePgDatabase, now: () => Date = () =>
 
     get: summaryOf,
 
-    async create(collectionId: string, values: AnimalValues): Promise<AnimalSummary> {
+    async create(c: MemberCollection, values: AnimalValues): Promise<AnimalSummary> {
+      const { collectionId } = c;
       const id = await db.transaction(async (tx) => {
         await checkLocation(tx, collectionId, values.locationId);
-        const labelCode = values.labelCode || (await newCodes(tx, collectionId, 1))[0]!;
+        const labelCode = values.labelCode || (await newCodes(tx, c, 1))[0]!;
         try {
-          const [row] = await tx.insert(animals).values({ collectionId, labelCode, ...columnsOf(values) }).returning({ id: animals.id });
-          return row!.id;
+          return await insertAnimal(tx, { collectionId, labelCode, ...columnsOf(values) });
         } catch (err) {
           if (isUniqueViolation(err)) throw codeTaken(labelCode);
           throw err;
@@ -85,14 +94,15 @@ export function createAnimalsService(db: NodePgDatabase, now: () => Date = () =>
     },
 
     /** Many animals at once (a CSV import): all or nothing, codes drawn for rows without one. */
-    async createMany(collectionId: string, rows: AnimalValues[], outer?: Db): Promise<number> {
+    async createMany(c: MemberCollection, rows: AnimalValues[], outer?: Db): Promise<number> {
+      const { collectionId } = c;
       return (outer ?? db).transaction(async (tx) => {
         const locationIds = [...new Set(rows.map((r) => r.locationId).filter((l): l is string => !!l))];
         for (const l of locationIds) await checkLocation(tx, collectionId, l);
-        const fresh = await newCodes(tx, collectionId, rows.filter((r) => !r.labelCode).length);
+        const fresh = await newCodes(tx, c, rows.filter((r) => !r.labelCode).length);
         const values = rows.map((r) => ({ collectionId, labelCode: r.labelCode || fresh.pop()!, ...columnsOf(r) }));
         try {
-          for (let i = 0; i < values.length; i += 500) await tx.insert(animals).values(values.slice(i, i + 500));
+          await insertAnimals(tx, values);
         } catch (err) {
           if (isUniqueViolation(err)) {
             throw new HttpError(409, 'code_taken', 'Some label codes in the file are already used in this collection. Clear those codes to have new ones drawn.');
@@ -106,10 +116,10 @@ export function createAnimalsService(db: NodePgDatabase, now: () => Date = () =>
     /** An edit; a change of place is kept in the history as a move. The code changes only by re-labelling. */
     async update(collectionId: string, animalId: string, userId: string, values: AnimalValues): Promise<AnimalSummary> {
       await db.transaction(async (tx) => {
-        const [before] = await tx.select({ locationId: animals.locationId }).from(animals).where(and(eq(animals.collectionId, collectionId), eq(animals.id, animalId)));
+        const before = await findPlaceAndStatus(tx, collectionId, animalId);
         if (!before) throw notFound();
         await checkLocation(tx, collectionId, values.locationId);
-        await tx.update(animals).set({ ...columnsOf(values), updatedAt: now() }).where(eq(animals.id, animalId));
+        await updateAnimal(tx, animalId, { ...columnsOf(values), updatedAt: now() });
         if (before.locationId !== values.locationId && values.locationId) {
           await recordServerEvents(tx, [{ collectionId, animalId, kind: 'moved', payload: { fromLocationId: before.locationId, toLocationId: values.locationId }, recordedBy: userId }], now());
         }
@@ -120,10 +130,10 @@ export function createAnimalsService(db: NodePgDatabase, now: () => Date = () =>
     /** Sold, deceased, rehomed or on loan: off the round from now on, history kept. */
     async setStatus(collectionId: string, animalId: string, userId: string, body: { status: AnimalSummary['status']; date: string | null; note?: string | null }) {
       await db.transaction(async (tx) => {
-        const [before] = await tx.select({ status: animals.status }).from(animals).where(and(eq(animals.collectionId, collectionId), eq(animals.id, animalId)));
+        const before = await findPlaceAndStatus(tx, collectionId, animalId);
         if (!before) throw notFound();
         if (before.status === body.status) throw new HttpError(409, 'unchanged', `The animal is already ${body.status.replace('_', ' ')}.`);
-        await tx.update(animals).set({ status: body.status, statusDate: body.date, updatedAt: now() }).where(eq(animals.id, animalId));
+        await updateAnimal(tx, animalId, { status: body.status, statusDate: body.date, updatedAt: now() });
         await recordServerEvents(tx, [{ collectionId, animalId, kind: 'status_changed', payload: { from: before.status, to: body.status, ...(body.note ? { note: body.note } : {}) }, recordedBy: userId }], now());
       });
       return summaryOf(collectionId, animalId);
@@ -141,11 +151,11 @@ export function createAnimalsService(db: NodePgDatabase, now: () => Date = () =>
       const ids = [...new Set(animalIds)];
       return db.transaction(async (tx) => {
         await checkLocation(tx, collectionId, locationId);
-        const rows = await tx.select({ id: animals.id, locationId: animals.locationId }).from(animals).where(and(eq(animals.collectionId, collectionId), inArray(animals.id, ids)));
+        const rows = await placesOfAnimals(tx, collectionId, ids);
         if (rows.length !== ids.length) throw new HttpError(404, 'not_found', 'Some of these animals are not in this collection. Reload and choose again.');
         const moving = rehoused ? rows : rows.filter((r) => r.locationId !== locationId);
         if (!moving.length) return 0;
-        await tx.update(animals).set({ locationId, updatedAt: now() }).where(inArray(animals.id, moving.map((r) => r.id)));
+        await moveAnimals(tx, moving.map((r) => r.id), locationId, now());
         await recordServerEvents(tx, moving.map((r) => ({ collectionId, animalId: r.id, kind: 'moved' as const, payload: { fromLocationId: r.locationId, toLocationId: locationId, ...(rehoused ? { rehoused: true } : {}) }, recordedBy: userId })), now());
         return moving.length;
       });

@@ -2,21 +2,6 @@ import { and, eq, gt, isNull, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { passwordResets, sessions, signUpTokens, users } from '../../db/schema/users';
 
-export async function findUserByEmail(db: Db, email: string) {
-  const [row] = await db.select().from(users).where(eq(users.email, email)).limit(1);
-  return row ?? null;
-}
-
-export async function findUserById(db: Db, id: string) {
-  const [row] = await db.select().from(users).where(eq(users.id, id)).limit(1);
-  return row ?? null;
-}
-
-export async function insertUser(db: Db, values: { email: string; displayName: string; passwordHash: string }) {
-  const [row] = await db.insert(users).values(values).returning();
-  return row!;
-}
-
 export async function updatePasswordHash(db: Db, userId: string, passwordHash: string, at: Date) {
   await db.update(users).set({ passwordHash, passwordChangedAt: at }).where(eq(users.id, userId));
 }

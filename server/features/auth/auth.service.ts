@@ -1,32 +1,31 @@
 import { createHash, randomBytes } from 'node:crypto';
-import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import type { SignUpFinishBody } from '../../../shared/schemas/auth';
+import { insertCollection } from '../../access/collections';
+import { insertMembership, listMembershipsOfUser } from '../../access/memberships';
+import { burnComparison, decoyHash, hashPassword, verifyPassword } from '../../access/passwords';
+import { findUserByEmail, findUserById, insertUser } from '../../access/users';
 import type { Background } from '../../background';
+import type { Db } from '../../db/client';
 import { isUniqueViolation } from '../../db/errors';
 import type { Mailer } from '../../mail/mailer';
 import { HttpError } from '../../middleware/errors';
-import { insertCollection, insertMembership, listMembershipsOfUser } from '../collections/collections.repository';
 import {
   consumePasswordReset,
   consumeSignUpToken,
   deleteSessionsOfUser,
   findSignUpToken,
-  findUserByEmail,
-  findUserById,
   insertPasswordReset,
   insertSignUpToken,
-  insertUser,
   revokePasswordResets,
   updatePasswordHash,
 } from './auth.repository';
-import { burnComparison, decoyHash, hashPassword, verifyPassword } from './passwords';
 
 export const RESET_TOKEN_LIFETIME_MS = 60 * 60 * 1000;
 /** A sign-up link works for a day (common practice, no published source). */
 export const SIGN_UP_LINK_LIFETIME_MS = 24 * 60 * 60 * 1000;
 
 export interface AuthDeps {
-  db: NodePgDatabase;
+  db: Db;
   mailer: Mailer;
   now: () => Date;
   bcryptCost: number;

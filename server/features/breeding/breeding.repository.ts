@@ -2,12 +2,14 @@ import { and, asc, count, eq, inArray, sql } from 'drizzle-orm';
 import type { EventKind } from '../../../shared/domain/event-kinds';
 import type { Db } from '../../db/client';
 import { animals, eggSacs, events } from '../../db/schema/animals';
-import { collections } from '../../db/schema/collections';
+import { collections, locations } from '../../db/schema/collections';
 
 export type EggSacRow = typeof eggSacs.$inferSelect;
+type NewAnimal = typeof animals.$inferInsert;
 
-export async function findCollection(db: Db, collectionId: string) {
-  const [c] = await db.select().from(collections).where(eq(collections.id, collectionId));
+/** The collection's usual incubation window, for records of groups without their own. */
+export async function incubationDefaults(db: Db, collectionId: string) {
+  const [c] = await db.select({ minDays: collections.incubationMinDays, maxDays: collections.incubationMaxDays }).from(collections).where(eq(collections.id, collectionId));
   return c!;
 }
 
@@ -45,6 +47,42 @@ export async function insertSac(db: Db, values: typeof eggSacs.$inferInsert) {
 export async function updateSac(db: Db, sacId: string, values: Partial<typeof eggSacs.$inferInsert>) {
   const [row] = await db.update(eggSacs).set(values).where(eq(eggSacs.id, sacId)).returning();
   return row!;
+}
+
+/** Marks how many young a record produced, when the keeper had not counted them. */
+export async function setSlingCount(db: Db, sacId: string, count: number) {
+  await db.update(eggSacs).set({ slingCount: count }).where(eq(eggSacs.id, sacId));
+}
+
+export async function codesInCollection(db: Db, collectionId: string) {
+  return (await db.select({ code: animals.labelCode }).from(animals).where(eq(animals.collectionId, collectionId))).map((r) => r.code);
+}
+
+/** The ids of these positions on one shelf that exist already, by position. */
+export async function placesOnShelf(db: Db, collectionId: string, shelf: { room: string; rack: string; shelf: string }, positions: string[]) {
+  return db
+    .select({ id: locations.id, position: locations.position })
+    .from(locations)
+    .where(and(eq(locations.collectionId, collectionId), eq(locations.room, shelf.room), eq(locations.rack, shelf.rack), eq(locations.shelf, shelf.shelf), inArray(locations.position, positions)));
+}
+
+/** New positions on one shelf at the end of the walk, in the order given. */
+export async function insertPlacesOnShelf(db: Db, collectionId: string, shelf: { room: string; rack: string; shelf: string }, positions: string[]) {
+  const [{ last } = { last: 0 }] = await db
+    .select({ last: sql<number>`coalesce(max(${locations.walkOrder}), 0)::int` })
+    .from(locations)
+    .where(eq(locations.collectionId, collectionId));
+  return db
+    .insert(locations)
+    .values(positions.map((position, i) => ({ collectionId, ...shelf, position, walkOrder: last + i + 1 })))
+    .returning({ id: locations.id, position: locations.position });
+}
+
+/** Many animals, 250 rows a statement; their ids in the order given. */
+export async function insertAnimalsReturningIds(db: Db, rows: NewAnimal[]) {
+  const ids: string[] = [];
+  for (let i = 0; i < rows.length; i += 250) ids.push(...(await db.insert(animals).values(rows.slice(i, i + 250)).returning({ id: animals.id })).map((r) => r.id));
+  return ids;
 }
 
 export async function setIncubation(db: Db, collectionId: string, minDays: number, maxDays: number) {

@@ -19,14 +19,14 @@ export function breedingRoutes(service: BreedingService, member: (min: Role) => 
     res.json({ sacs: await service.list(collectionId(res)) });
   });
   router.post('/egg-sacs', member('keeper'), validate({ body: eggSacBody }), async (req, res) => {
-    res.status(201).json(await service.create(collectionId(res), currentUserId(req), input(res, 'body')));
+    res.status(201).json(await service.create(membershipOf(res), currentUserId(req), input(res, 'body')));
   });
   router.patch('/egg-sacs/:sacId', member('keeper'), validate({ params: sacParams, body: eggSacChange }), async (req, res) => {
-    await service.change(collectionId(res), currentUserId(req), input<{ sacId: string }>(res, 'params').sacId, input(res, 'body'));
+    await service.change(membershipOf(res), currentUserId(req), input<{ sacId: string }>(res, 'params').sacId, input(res, 'body'));
     res.json({ sacs: await service.list(collectionId(res)) });
   });
   router.post('/egg-sacs/:sacId/slings', member('keeper'), validate({ params: sacParams, body: slingsBody }), async (_req, res) => {
-    const ids = await service.createSlings(collectionId(res), input<{ sacId: string }>(res, 'params').sacId, input<SlingsBody>(res, 'body'));
+    const ids = await service.createSlings(membershipOf(res), input<{ sacId: string }>(res, 'params').sacId, input<SlingsBody>(res, 'body'));
     res.status(201).json({ animalIds: ids });
   });
   router.put('/incubation', member('keeper'), validate({ body: incubationBody }), async (_req, res) => {

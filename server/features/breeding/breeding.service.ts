@@ -1,15 +1,28 @@
-import { and, asc, eq, inArray } from 'drizzle-orm';
-import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { breedingDatesProblem, breedingFacts, breedingModeOf, breedingRefusal, BREEDING_FACT_KINDS, RECORD_SHORT, type BreedingDates } from '../../../shared/domain/breeding';
 import { collectionPrefix, LABEL_ALPHABET } from '../../../shared/domain/label-codes';
 import { addDays, instantOfKeeperDate, localDateOf } from '../../../shared/domain/local-dates';
 import type { EggSacBody, EggSacChange, EggSacView } from '../../../shared/schemas/breeding';
+import type { MemberCollection } from '../../access/memberships';
 import type { Db } from '../../db/client';
-import { animals, eggSacs } from '../../db/schema/animals';
-import { locations } from '../../db/schema/collections';
 import { HttpError } from '../../middleware/errors';
 import { recordServerEvents } from '../animals/animal-events';
-import { findAnimal, findCollection, findSac, insertSac, liveBreedingFacts, listSacs, sacCountOf, setIncubation, updateSac, type EggSacRow } from './breeding.repository';
+import {
+  codesInCollection,
+  findAnimal,
+  findSac,
+  incubationDefaults,
+  insertAnimalsReturningIds,
+  insertPlacesOnShelf,
+  insertSac,
+  liveBreedingFacts,
+  listSacs,
+  placesOnShelf,
+  sacCountOf,
+  setIncubation,
+  setSlingCount,
+  updateSac,
+  type EggSacRow,
+} from './breeding.repository';
 
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that egg sac.');
 
@@ -36,7 +49,7 @@ export function sequentialCodes(prefix: string, count: number, taken: ReadonlySe
  * `afterFacts`: today's round is brought in line once a record's facts are written (a sac laid
  * today withdraws the female's open feed task at once, R18).
  */
-export function createBreedingService(db: NodePgDatabase, now: () => Date, afterFacts: (collectionId: string, animalIds: string[]) => Promise<void> = async () => {}) {
+export function createBreedingService(db: Db, now: () => Date, afterFacts: (collectionId: string, animalIds: string[]) => Promise<void> = async () => {}) {
   function view(row: EggSacRow, female: { name: string; group: EggSacView['femaleGroup'] }, slingsCreated: number): EggSacView {
     return {
       id: row.id,
@@ -117,8 +130,8 @@ export function createBreedingService(db: NodePgDatabase, now: () => Date, after
      * keeper's date. Only females of groups that have one: a male, an animal whose sex is not
      * known, a beetle are refused with the reason. A sac or brood leaves her alone (R11).
      */
-    async create(collectionId: string, userId: string, body: EggSacBody) {
-      const c = await findCollection(db, collectionId);
+    async create(c: MemberCollection, userId: string, body: EggSacBody) {
+      const { collectionId } = c;
       const female = await findAnimal(db, collectionId, body.femaleId);
       if (!female) throw new HttpError(404, 'not_found', 'We could not find that animal.');
       const refusal = breedingRefusal(female);
@@ -126,7 +139,7 @@ export function createBreedingService(db: NodePgDatabase, now: () => Date, after
       const mode = breedingModeOf(female.group);
       const kind = mode.record!;
       checkDates({ kind, laidOn: body.laidOn, pulledOn: null, hatchedOn: null, dispersedOn: null }, female.group, c.timeZone);
-      const window = body.incubation ?? mode.window ?? { minDays: c.incubationMinDays, maxDays: c.incubationMaxDays };
+      const window = body.incubation ?? mode.window ?? (await incubationDefaults(db, collectionId));
       const row = await db.transaction(async (tx) => {
         const inserted = await insertSac(tx, {
           collectionId,
@@ -151,9 +164,9 @@ export function createBreedingService(db: NodePgDatabase, now: () => Date, after
      * New dates or counts. Pulling a sac — or its hatching with her when it was never pulled —
      * and a brood's dispersal end her guarding and start her rebuild (R8), from those dates.
      */
-    async change(collectionId: string, userId: string, sacId: string, body: EggSacChange) {
+    async change(c: MemberCollection, userId: string, sacId: string, body: EggSacChange) {
+      const { collectionId } = c;
       const sac = await sacOf(collectionId, sacId);
-      const c = await findCollection(db, collectionId);
       const female = (await findAnimal(db, collectionId, sac.femaleId))!;
       const { incubation, ...rest } = body;
       checkDates({ ...sac, ...rest }, female.group, c.timeZone);
@@ -169,48 +182,37 @@ export function createBreedingService(db: NodePgDatabase, now: () => Date, after
      * The clutch potted up: `count` slings in one transaction — all or none — numbered in
      * sequence, codes in sequence, one place each along the tray from `firstPosition`.
      */
-    async createSlings(collectionId: string, sacId: string, body: { count: number; namePrefix: string; room: string; rack: string; shelf: string; firstPosition: number }): Promise<string[]> {
+    async createSlings(c: MemberCollection, sacId: string, body: { count: number; namePrefix: string; room: string; rack: string; shelf: string; firstPosition: number }): Promise<string[]> {
+      const { collectionId } = c;
       const sac = await sacOf(collectionId, sacId);
-      const c = await findCollection(db, collectionId);
       return db.transaction(async (tx) => {
-        const [female] = await tx.select().from(animals).where(eq(animals.id, sac.femaleId));
-        const taken = new Set((await tx.select({ code: animals.labelCode }).from(animals).where(eq(animals.collectionId, collectionId))).map((r) => r.code));
-        const prefix = collectionPrefix(c.name, [...taken]);
+        const female = (await findAnimal(tx, collectionId, sac.femaleId))!;
+        const taken = new Set(await codesInCollection(tx, collectionId));
+        const prefix = collectionPrefix(c.collectionName, [...taken]);
         const codes = sequentialCodes(prefix, body.count, taken, Math.floor(Math.random() * 1000));
         const positions = Array.from({ length: body.count }, (_, i) => String(body.firstPosition + i));
-        const existing = await tx
-          .select({ id: locations.id, position: locations.position })
-          .from(locations)
-          .where(and(eq(locations.collectionId, collectionId), eq(locations.room, body.room), eq(locations.rack, body.rack), eq(locations.shelf, body.shelf), inArray(locations.position, positions)));
-        const place = new Map(existing.map((l) => [l.position, l.id]));
+        const shelf = { room: body.room, rack: body.rack, shelf: body.shelf };
+        const place = new Map((await placesOnShelf(tx, collectionId, shelf, positions)).map((l) => [l.position, l.id]));
         const missing = positions.filter((p) => !place.has(p));
-        if (missing.length) {
-          const [{ last } = { last: 0 }] = await tx.select({ last: locations.walkOrder }).from(locations).where(eq(locations.collectionId, collectionId)).orderBy(asc(locations.walkOrder)).then((r) => [{ last: r.at(-1)?.last ?? 0 }]);
-          const made = await tx
-            .insert(locations)
-            .values(missing.map((position, i) => ({ collectionId, room: body.room, rack: body.rack, shelf: body.shelf, position, walkOrder: last + i + 1 })))
-            .returning({ id: locations.id, position: locations.position });
-          for (const l of made) place.set(l.position, l.id);
-        }
+        if (missing.length) for (const l of await insertPlacesOnShelf(tx, collectionId, shelf, missing)) place.set(l.position, l.id);
         const width = String(body.firstPosition + body.count - 1).length;
         const rows = positions.map((position, i) => ({
           collectionId,
           labelCode: codes[i]!,
           name: `${body.namePrefix} ${String(i + 1).padStart(Math.max(2, width), '0')}`,
-          scientificName: female!.scientificName,
-          commonName: female!.commonName,
-          group: female!.group,
+          scientificName: female.scientificName,
+          commonName: female.commonName,
+          group: female.group,
           lifeStage: 'sling' as const,
           sex: 'unknown' as const,
           locationId: place.get(position)!,
-          cautions: female!.cautions,
+          cautions: female.cautions,
           clutch: sac.clutch,
           acquiredOn: sac.dispersedOn ?? sac.hatchedOn ?? sac.pulledOn ?? sac.laidOn,
-          source: `Own breeding: ${female!.name}, ${RECORD_SHORT[sac.kind]} ${breedingModeOf(female!.group).words.startedOn.toLowerCase()} ${sac.laidOn}`,
+          source: `Own breeding: ${female.name}, ${RECORD_SHORT[sac.kind]} ${breedingModeOf(female.group).words.startedOn.toLowerCase()} ${sac.laidOn}`,
         }));
-        const ids: string[] = [];
-        for (let i = 0; i < rows.length; i += 250) ids.push(...(await tx.insert(animals).values(rows.slice(i, i + 250)).returning({ id: animals.id })).map((r) => r.id));
-        if (sac.slingCount === null) await tx.update(eggSacs).set({ slingCount: body.count }).where(eq(eggSacs.id, sac.id));
+        const ids = await insertAnimalsReturningIds(tx, rows);
+        if (sac.slingCount === null) await setSlingCount(tx, sac.id, body.count);
         return ids;
       });
     },

@@ -17,8 +17,7 @@ export function collectionsRoutes(service: CollectionsService, member: (min: Rol
 
   // Only an owner, and only with the collection's name typed out (the app offers the backup first).
   router.delete('/', member('owner'), validate({ body: deleteCollectionBody }), async (_req, res) => {
-    const m = membershipOf(res);
-    await service.deleteCollection(m.collectionId, m.collectionName, input<DeleteCollectionBody>(res, 'body').confirmName);
+    await service.deleteCollection(membershipOf(res), input<DeleteCollectionBody>(res, 'body').confirmName);
     res.status(204).end();
   });
 
@@ -28,7 +27,7 @@ export function collectionsRoutes(service: CollectionsService, member: (min: Rol
 
   // An invite, never an addition: the person joins by accepting it (decision 012).
   router.post('/members', member('owner'), validate({ body: addMemberBody }), inviteLimit, async (req, res) => {
-    res.status(202).json(await service.inviteKeeper(membershipOf(res).collectionId, currentUserId(req), input<{ email: string }>(res, 'body').email));
+    res.status(202).json(await service.inviteKeeper(membershipOf(res), currentUserId(req), input<{ email: string }>(res, 'body').email));
   });
 
   // A keeper may leave; helpers leave their cover at /cover/mine.

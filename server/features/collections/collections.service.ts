@@ -1,12 +1,11 @@
-import { and, asc, eq, gt, isNull } from 'drizzle-orm';
-import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import { INVITE_LIFETIME_MS, newInviteToken } from '../../access/invite-token';
+import { roleOfEmail, type MemberCollection } from '../../access/memberships';
+import { displayNameOf } from '../../access/users';
 import type { Background } from '../../background';
-import { collections, invites } from '../../db/schema/collections';
-import { users } from '../../db/schema/users';
+import type { Db } from '../../db/client';
 import type { Mailer } from '../../mail/mailer';
 import { HttpError } from '../../middleware/errors';
-import { INVITE_LIFETIME_MS, newInviteToken } from '../cover/invite-token';
-import { deleteCollectionRows, deleteMembership, listMembers, roleOfEmail } from './collections.repository';
+import { deleteCollectionRows, deleteMembership, insertKeeperInvite, listMembers, listOpenKeeperInvites } from './collections.repository';
 
 interface Deps {
   mailer: Mailer;
@@ -17,16 +16,12 @@ interface Deps {
   removeFiles(collectionId: string): Promise<void>;
 }
 
-export function createCollectionsService(db: NodePgDatabase, deps: Deps) {
+export function createCollectionsService(db: Db, deps: Deps) {
   return {
     /** The members, and the keeper invites still waiting for an answer. */
     async members(collectionId: string) {
       const rows = await listMembers(db, collectionId);
-      const waiting = await db
-        .select({ id: invites.id, email: invites.email, sentAt: invites.createdAt, expiresAt: invites.expiresAt })
-        .from(invites)
-        .where(and(eq(invites.collectionId, collectionId), eq(invites.role, 'keeper'), isNull(invites.acceptedAt), gt(invites.expiresAt, deps.now())))
-        .orderBy(asc(invites.createdAt));
+      const waiting = await listOpenKeeperInvites(db, collectionId, deps.now());
       return {
         members: rows.map((m) => ({ ...m, startsAt: m.startsAt?.toISOString() ?? null, endsAt: m.endsAt?.toISOString() ?? null })),
         invites: waiting.map((i) => ({ id: i.id, email: i.email, sentAt: i.sentAt.toISOString(), expiresAt: i.expiresAt.toISOString() })),
@@ -38,23 +33,21 @@ export function createCollectionsService(db: NodePgDatabase, deps: Deps) {
      * never by being added. The same work and answer whether or not the address has an
      * account (docs/decisions/012-same-answer-for-every-email.md); the e-mail goes after the answer.
      */
-    async inviteKeeper(collectionId: string, invitedBy: string, email: string) {
-      const role = await roleOfEmail(db, collectionId, email);
+    async inviteKeeper(c: MemberCollection, invitedBy: string, email: string) {
+      const role = await roleOfEmail(db, c.collectionId, email);
       // The owner can see the member list anyway: this tells them nothing new.
       if (role === 'keeper' || role === 'owner') throw new HttpError(409, 'already_member', 'That person is already a member of this collection.');
       const { token, tokenHash } = newInviteToken();
-      await db.insert(invites).values({ collectionId, email, role: 'keeper', tokenHash, expiresAt: new Date(deps.now().getTime() + INVITE_LIFETIME_MS), invitedBy });
+      await insertKeeperInvite(db, { collectionId: c.collectionId, email, tokenHash, expiresAt: new Date(deps.now().getTime() + INVITE_LIFETIME_MS), invitedBy });
       deps.background.run('keeper invite mail', async () => {
-        const [c] = await db.select({ name: collections.name }).from(collections).where(eq(collections.id, collectionId));
-        const [inviter] = await db.select({ name: users.displayName }).from(users).where(eq(users.id, invitedBy));
-        const from = inviter?.name ?? 'A keeper';
+        const from = (await displayNameOf(db, invitedBy)) ?? 'A keeper';
         await deps.mailer.send({
           to: email,
-          subject: `${from} invites you to keep ${c?.name ?? 'a collection'} on Rackside`,
+          subject: `${from} invites you to keep ${c.collectionName} on Rackside`,
           text: [
             'Hello,',
             '',
-            `${from} invites you to keep the collection ${c?.name ?? ''} with them on Rackside: its feeding rounds, its animals' records and their labels.`,
+            `${from} invites you to keep the collection ${c.collectionName} with them on Rackside: its feeding rounds, its animals' records and their labels.`,
             '',
             'Open this link to accept (it works once, within a week):',
             '',
@@ -71,12 +64,13 @@ export function createCollectionsService(db: NodePgDatabase, deps: Deps) {
      * Removes the collection for everyone: its rows first (one transaction), then its photo
      * files. The typed name guards against deleting the wrong collection by a slip.
      */
-    async deleteCollection(collectionId: string, name: string, confirmName: string) {
+    async deleteCollection(c: MemberCollection, confirmName: string) {
+      const name = c.collectionName;
       if (confirmName.normalize('NFC') !== name.trim().normalize('NFC')) {
         throw new HttpError(422, 'invalid', `Type the collection’s name exactly as it is shown (“${name}”) to delete it.`, [{ path: 'body.confirmName', message: 'This is not the collection’s name.' }]);
       }
-      await deleteCollectionRows(db, collectionId);
-      await deps.removeFiles(collectionId);
+      await deleteCollectionRows(db, c.collectionId);
+      await deps.removeFiles(c.collectionId);
     },
 
     async removeMember(collectionId: string, userId: string, actingUserId: string) {

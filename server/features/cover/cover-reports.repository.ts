@@ -1,6 +1,9 @@
-import { and, asc, eq, gte, inArray, isNull, ne } from 'drizzle-orm';
-import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
-import { coverReports, memberships } from '../../db/schema/collections';
+import { and, asc, desc, eq, gte, inArray, isNotNull, isNull, lt, ne, sql } from 'drizzle-orm';
+import type { LocalDate } from '../../../shared/domain/local-dates';
+import type { Db } from '../../db/client';
+import { animals, events } from '../../db/schema/animals';
+import { collections, coverReports, memberships } from '../../db/schema/collections';
+import { animalStates } from '../../db/schema/rounds';
 import { users } from '../../db/schema/users';
 
 export interface UnsentReport {
@@ -11,8 +14,62 @@ export interface UnsentReport {
   sentTo: string[];
 }
 
+/** The collection a report is about, as the report needs it. */
+export interface ReportCollection {
+  id: string;
+  name: string;
+  timeZone: string;
+}
+
+/** Helpers' covers that began before `now` and ended after `endedAfter`, with their collection. */
+export async function coversSince(db: Db, now: Date, endedAfter: Date) {
+  return db
+    .select({ c: { id: collections.id, name: collections.name, timeZone: collections.timeZone }, startsAt: memberships.startsAt, endsAt: memberships.endsAt })
+    .from(memberships)
+    .innerJoin(collections, eq(collections.id, memberships.collectionId))
+    .where(and(eq(memberships.role, 'helper'), isNotNull(memberships.startsAt), isNotNull(memberships.endsAt), lt(memberships.startsAt, now), sql`${memberships.endsAt} > ${endedAfter}`));
+}
+
+/** A collection's events in [from, to), oldest first, with their animal and who recorded them. */
+export async function eventsBetween(db: Db, collectionId: string, from: Date, to: Date) {
+  return db
+    .select({ id: events.id, kind: events.kind, payload: events.payload, at: events.effectiveAt, animal: animals.name, code: animals.labelCode, by: users.displayName })
+    .from(events)
+    .innerJoin(animals, eq(animals.id, events.animalId))
+    .leftJoin(users, eq(users.id, events.recordedBy))
+    .where(and(eq(events.collectionId, collectionId), gte(events.effectiveAt, from), lt(events.effectiveAt, to)))
+    .orderBy(asc(events.effectiveAt));
+}
+
+/** Every active animal's projected state, with its name and code. */
+export async function activeAnimalStates(db: Db, collectionId: string) {
+  return db
+    .select({ name: animals.name, code: animals.labelCode, state: animalStates.state })
+    .from(animalStates)
+    .innerJoin(animals, eq(animals.id, animalStates.animalId))
+    .where(and(eq(animalStates.collectionId, collectionId), eq(animals.status, 'active')));
+}
+
+/**
+ * Claims the (collection, day) report with an empty row; its id, or null when another run has
+ * it already. Another process claiming the same day waits on the unique key, then finds it taken.
+ */
+export async function claimReport(db: Db, collectionId: string, day: LocalDate, createdAt: Date) {
+  const claimed = await db.insert(coverReports).values({ collectionId, localDate: day, subject: '', body: '', createdAt }).onConflictDoNothing().returning({ id: coverReports.id });
+  return claimed[0]?.id ?? null;
+}
+
+export async function writeReport(db: Db, id: string, report: { subject: string; body: string }) {
+  await db.update(coverReports).set(report).where(eq(coverReports.id, id));
+}
+
+/** A collection's latest reports (the last 60 days at most), newest first. */
+export async function latestReports(db: Db, collectionId: string) {
+  return db.select().from(coverReports).where(eq(coverReports.collectionId, collectionId)).orderBy(desc(coverReports.localDate)).limit(60);
+}
+
 /** Reports made (subject written) but not yet accepted by the mail server for every owner. */
-export async function unsentReports(db: NodePgDatabase, madeSince: Date): Promise<{ id: string }[]> {
+export async function unsentReports(db: Db, madeSince: Date): Promise<{ id: string }[]> {
   return db
     .select({ id: coverReports.id })
     .from(coverReports)
@@ -27,7 +84,7 @@ export async function unsentReports(db: NodePgDatabase, madeSince: Date): Promis
  * already, or another process holds it.
  */
 export async function withUnsentReport(
-  db: NodePgDatabase,
+  db: Db,
   id: string,
   send: (report: UnsentReport, owners: string[]) => Promise<{ sentTo: string[]; done: boolean }>,
   now: Date,

@@ -1,6 +1,5 @@
 import { Router, type RequestHandler } from 'express';
 import { z } from 'zod';
-import { localDateOf } from '../../../shared/domain/local-dates';
 import type { Role } from '../../../shared/domain/roles';
 import { uuid } from '../../../shared/schemas/common';
 import { acceptBody, coverBody, coverChangeBody, generalNoteBody, handoverNoteBody, inviteToken, type AcceptBody } from '../../../shared/schemas/cover';
@@ -34,37 +33,36 @@ export function coverRoutes(cover: CoverService, reports: CoverReportsService, r
   const collectionId = (res: Parameters<RequestHandler>[1]) => membershipOf(res).collectionId;
 
   router.get('/covers', member('owner'), async (_req, res) => {
-    res.json({ covers: await cover.list(collectionId(res)) });
+    res.json({ covers: await cover.covers.list(membershipOf(res)) });
   });
   router.post('/covers', member('owner'), validate({ body: coverBody }), inviteLimit, async (req, res) => {
-    res.status(201).json(await cover.create(collectionId(res), currentUserId(req), input(res, 'body')));
+    res.status(201).json(await cover.covers.create(membershipOf(res), currentUserId(req), input(res, 'body')));
   });
   router.put('/covers/:coverId', member('owner'), validate({ params: coverParams, body: coverChangeBody }), async (_req, res) => {
-    await cover.change(collectionId(res), input<{ coverId: string }>(res, 'params').coverId, input(res, 'body'));
-    res.json({ covers: await cover.list(collectionId(res)) });
+    await cover.covers.change(membershipOf(res), input<{ coverId: string }>(res, 'params').coverId, input(res, 'body'));
+    res.json({ covers: await cover.covers.list(membershipOf(res)) });
   });
   router.post('/covers/:coverId/end', member('owner'), validate({ params: coverParams }), async (_req, res) => {
-    await cover.end(collectionId(res), input<{ coverId: string }>(res, 'params').coverId);
-    res.json({ covers: await cover.list(collectionId(res)) });
+    await cover.covers.end(collectionId(res), input<{ coverId: string }>(res, 'params').coverId);
+    res.json({ covers: await cover.covers.list(membershipOf(res)) });
   });
 
   router.get('/handover', member('keeper'), async (_req, res) => {
-    const m = membershipOf(res);
-    res.json({ generalNote: await cover.generalNote(m.collectionId), notes: await cover.notes(m.collectionId, localDateOf(new Date(), m.timeZone)) });
+    res.json(await cover.handover.current(membershipOf(res)));
   });
   router.put('/handover/general', member('keeper'), validate({ body: generalNoteBody }), async (_req, res) => {
-    await cover.setGeneralNote(collectionId(res), input<{ text: string }>(res, 'body').text);
+    await cover.handover.setGeneralNote(collectionId(res), input<{ text: string }>(res, 'body').text);
     res.status(204).end();
   });
   router.post('/handover/notes', member('keeper'), validate({ body: handoverNoteBody }), async (req, res) => {
     const body = input<{ animalId: string; text: string; until: string; doNotFeed: boolean }>(res, 'body');
-    const created = await cover.addNote(collectionId(res), currentUserId(req), body);
+    const created = await cover.handover.add(collectionId(res), currentUserId(req), body);
     // A do-not-feed note withdraws today's open feed task at once (R18).
     if (body.doNotFeed) await rounds.reconcileToday(collectionId(res), [body.animalId]);
     res.status(201).json(created);
   });
   router.delete('/handover/notes/:noteId', member('keeper'), validate({ params: noteParams }), async (_req, res) => {
-    const animalId = await cover.removeNote(collectionId(res), input<{ noteId: string }>(res, 'params').noteId);
+    const animalId = await cover.handover.remove(collectionId(res), input<{ noteId: string }>(res, 'params').noteId);
     await rounds.reconcileToday(collectionId(res), [animalId]);
     res.status(204).end();
   });
@@ -77,15 +75,15 @@ export function coverRoutes(cover: CoverService, reports: CoverReportsService, r
   router.get('/cover/mine', member('helper'), onlyHelpers, async (req, res) => {
     const m = membershipOf(res);
     const round = await rounds.todayRound(m.collectionId);
-    res.json(await cover.helperView(m, currentUserId(req), round.items.map((i) => i.animal.id)));
+    res.json(await cover.helper.view(m, currentUserId(req), round.items.map((i) => i.animal.id)));
   });
   router.post('/cover/mine/acknowledge', member('helper'), onlyHelpers, async (req, res) => {
-    await cover.acknowledgeSafety(collectionId(res), currentUserId(req));
+    await cover.helper.acknowledgeSafety(collectionId(res), currentUserId(req));
     res.status(204).end();
   });
   // Leaving works before, during and after the cover.
   router.delete('/cover/mine', member('helper', { anyTime: true }), onlyHelpers, async (req, res) => {
-    await cover.leave(collectionId(res), currentUserId(req));
+    await cover.helper.leave(collectionId(res), currentUserId(req));
     res.status(204).end();
   });
 
@@ -96,10 +94,10 @@ export function coverRoutes(cover: CoverService, reports: CoverReportsService, r
 export function coverInviteRoutes(cover: CoverService, auth: AuthService, limit: RequestHandler) {
   const router = Router();
   router.get('/preview', limit, validate({ query: z.object({ token: inviteToken }) }), async (_req, res) => {
-    res.json(await cover.preview(input<{ token: string }>(res, 'query').token));
+    res.json(await cover.invites.preview(input<{ token: string }>(res, 'query').token));
   });
   router.post('/accept', limit, validate({ body: acceptBody }), async (req, res) => {
-    const { userId, collectionId } = await cover.accept(input<AcceptBody>(res, 'body'), req.session.userId ?? null);
+    const { userId, collectionId } = await cover.invites.accept(input<AcceptBody>(res, 'body'), req.session.userId ?? null);
     await startSession(req, userId);
     res.json({ collectionId, me: await auth.me(userId) });
   });

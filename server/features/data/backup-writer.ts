@@ -1,5 +1,6 @@
-import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { BACKUP_FORMAT, BACKUP_VERSION } from '../../../shared/schemas/backup';
+import type { MemberCollection } from '../../access/memberships';
+import type { Database } from '../../db/client';
 import type { PhotosService } from '../photos/photos.service';
 import * as repo from './data.repository';
 
@@ -15,11 +16,13 @@ const CHUNK_CHARS = 256 * 1024;
 /**
  * The whole collection as one JSON document, written piece by piece: places, animals and
  * events are read a page at a time and each photo is read, encoded and written on its own, so
- * memory stays small however large the collection. One read-only REPEATABLE READ transaction
- * makes every page part of the same snapshot (no event without its animal). Each record sits on
- * its own line; the members come in the order a restore reads them (shared/schemas/backup.ts).
+ * memory stays small however large the collection. One snapshot (repo.inSnapshot) holds every
+ * page (no event without its animal); the name and zone are the ones the membership check
+ * read. Each record sits on its own line; the members come in the order a restore reads them
+ * (shared/schemas/backup.ts).
  */
-export async function writeBackup(db: NodePgDatabase, photos: PhotosService, collectionId: string, exportedAt: Date, sink: BackupSink) {
+export async function writeBackup(db: Database['db'], photos: PhotosService, c: MemberCollection, exportedAt: Date, sink: BackupSink) {
+  const { collectionId } = c;
   let buffer: string[] = [];
   let buffered = 0;
   const emit = async (text: string) => {
@@ -45,101 +48,98 @@ export async function writeBackup(db: NodePgDatabase, photos: PhotosService, col
   };
   const J = JSON.stringify;
 
-  await db.transaction(
-    async (tx) => {
-      const c = (await repo.findCollection(tx, collectionId))!;
-      await emit(`{"format":${J(BACKUP_FORMAT)},"version":${BACKUP_VERSION},"exportedAt":${J(exportedAt.toISOString())},\n`);
-      await emit(`"collection":${J({ name: c.name, timeZone: c.timeZone, rules: c.rules })},\n"locations":[`);
+  await repo.inSnapshot(db, async (tx) => {
+    const rules = await repo.rulesOf(tx, collectionId);
+    await emit(`{"format":${J(BACKUP_FORMAT)},"version":${BACKUP_VERSION},"exportedAt":${J(exportedAt.toISOString())},\n`);
+    await emit(`"collection":${J({ name: c.collectionName, timeZone: c.timeZone, rules })},\n"locations":[`);
 
-      let first = true;
-      const separator = () => {
-        const s = first ? '\n' : ',\n';
-        first = false;
-        return s;
-      };
-      for (let after: Parameters<typeof repo.placesPage>[2] = null; ; ) {
-        const page = await repo.placesPage(tx, collectionId, after, PAGE.places);
-        for (const { id, room, rack, shelf, position, walkOrder } of page) await emit(separator() + J({ id, room, rack, shelf, position, walkOrder }));
-        if (page.length < PAGE.places) break;
-        after = page.at(-1)!;
-      }
+    let first = true;
+    const separator = () => {
+      const s = first ? '\n' : ',\n';
+      first = false;
+      return s;
+    };
+    for (let after: Parameters<typeof repo.placesPage>[2] = null; ; ) {
+      const page = await repo.placesPage(tx, collectionId, after, PAGE.places);
+      for (const { id, room, rack, shelf, position, walkOrder } of page) await emit(separator() + J({ id, room, rack, shelf, position, walkOrder }));
+      if (page.length < PAGE.places) break;
+      after = page.at(-1)!;
+    }
 
-      await emit('],\n"animals":[');
-      first = true;
-      for (let after: string | null = null; ; ) {
-        const page = await repo.animalsPage(tx, collectionId, after, PAGE.animals);
-        for (const a of page) {
-          await emit(separator());
-          const record = {
-            id: a.id,
-            labelCode: a.labelCode,
-            name: a.name,
-            scientificName: a.scientificName,
-            commonName: a.commonName,
-            group: a.group,
-            lifeStage: a.lifeStage,
-            sex: a.sex,
-            sizeMm: a.sizeMm,
-            locationId: a.locationId,
-            hasWaterDish: a.hasWaterDish,
-            preyType: a.preyType,
-            preySize: a.preySize,
-            preyCount: a.preyCount,
-            diet: a.diet,
-            intervalDays: a.intervalDays,
-            doNotFeedUntil: a.doNotFeedUntil,
-            cautions: a.cautions,
-            cautionNote: a.cautionNote,
-            status: a.status,
-            statusDate: a.statusDate,
-            acquiredOn: a.acquiredOn,
-            source: a.source,
-            clutch: a.clutch,
-            notes: a.notes,
-            settings: a.settings,
-            createdAt: a.createdAt.toISOString(),
-            updatedAt: a.updatedAt.toISOString(),
-          };
-          await withPhoto(record, a.photoKey ? await photos.readFull(collectionId, a.photoKey) : null);
-        }
-        if (page.length < PAGE.animals) break;
-        after = page.at(-1)!.labelCode;
+    await emit('],\n"animals":[');
+    first = true;
+    for (let after: string | null = null; ; ) {
+      const page = await repo.animalsPage(tx, collectionId, after, PAGE.animals);
+      for (const a of page) {
+        await emit(separator());
+        const record = {
+          id: a.id,
+          labelCode: a.labelCode,
+          name: a.name,
+          scientificName: a.scientificName,
+          commonName: a.commonName,
+          group: a.group,
+          lifeStage: a.lifeStage,
+          sex: a.sex,
+          sizeMm: a.sizeMm,
+          locationId: a.locationId,
+          hasWaterDish: a.hasWaterDish,
+          preyType: a.preyType,
+          preySize: a.preySize,
+          preyCount: a.preyCount,
+          diet: a.diet,
+          intervalDays: a.intervalDays,
+          doNotFeedUntil: a.doNotFeedUntil,
+          cautions: a.cautions,
+          cautionNote: a.cautionNote,
+          status: a.status,
+          statusDate: a.statusDate,
+          acquiredOn: a.acquiredOn,
+          source: a.source,
+          clutch: a.clutch,
+          notes: a.notes,
+          settings: a.settings,
+          createdAt: a.createdAt.toISOString(),
+          updatedAt: a.updatedAt.toISOString(),
+        };
+        await withPhoto(record, a.photoKey ? await photos.readFull(collectionId, a.photoKey) : null);
       }
+      if (page.length < PAGE.animals) break;
+      after = page.at(-1)!.labelCode;
+    }
 
-      await emit('],\n"eggSacs":[');
-      first = true;
-      for (const { collectionId: _c, createdAt, ...sac } of await repo.sacsOf(tx, collectionId)) {
-        await emit(separator() + J({ ...sac, createdAt: createdAt.toISOString() }));
-      }
+    await emit('],\n"eggSacs":[');
+    first = true;
+    for (const { collectionId: _c, createdAt, ...sac } of await repo.sacsOf(tx, collectionId)) {
+      await emit(separator() + J({ ...sac, createdAt: createdAt.toISOString() }));
+    }
 
-      await emit('],\n"events":[');
-      first = true;
-      for (let after: { at: string; id: string } | null = null; ; ) {
-        const page = await repo.eventsPage(tx, collectionId, after, PAGE.events);
-        for (const { e, photoKey } of page) {
-          await emit(separator());
-          const record = {
-            id: e.id,
-            animalId: e.animalId,
-            kind: e.kind,
-            payload: e.payload,
-            recordedBy: e.recordedBy,
-            deviceId: e.deviceId,
-            clientRecordedAt: e.clientRecordedAt.toISOString(),
-            clientSentAt: e.clientSentAt?.toISOString() ?? null,
-            serverReceivedAt: e.serverReceivedAt.toISOString(),
-            effectiveAt: e.effectiveAt.toISOString(),
-            flags: e.flags,
-          };
-          await withPhoto(record, photoKey ? await photos.readFull(collectionId, photoKey) : null);
-        }
-        if (page.length < PAGE.events) break;
-        const last = page.at(-1)!;
-        after = { at: last.cursor, id: last.e.id };
+    await emit('],\n"events":[');
+    first = true;
+    for (let after: { at: string; id: string } | null = null; ; ) {
+      const page = await repo.eventsPage(tx, collectionId, after, PAGE.events);
+      for (const { e, photoKey } of page) {
+        await emit(separator());
+        const record = {
+          id: e.id,
+          animalId: e.animalId,
+          kind: e.kind,
+          payload: e.payload,
+          recordedBy: e.recordedBy,
+          deviceId: e.deviceId,
+          clientRecordedAt: e.clientRecordedAt.toISOString(),
+          clientSentAt: e.clientSentAt?.toISOString() ?? null,
+          serverReceivedAt: e.serverReceivedAt.toISOString(),
+          effectiveAt: e.effectiveAt.toISOString(),
+          flags: e.flags,
+        };
+        await withPhoto(record, photoKey ? await photos.readFull(collectionId, photoKey) : null);
       }
-      await emit('\n]}\n');
-      await flush();
-    },
-    { isolationLevel: 'repeatable read', accessMode: 'read only' },
-  );
+      if (page.length < PAGE.events) break;
+      const last = page.at(-1)!;
+      after = { at: last.cursor, id: last.e.id };
+    }
+    await emit('\n]}\n');
+    await flush();
+  });
 }

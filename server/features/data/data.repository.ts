@@ -1,16 +1,31 @@
 import { and, asc, count, eq, gt, sql } from 'drizzle-orm';
-import type { Db } from '../../db/client';
+import type { Database, Db } from '../../db/client';
 import { animals, eggSacs, eventPhotos, events } from '../../db/schema/animals';
 import { collections, locations } from '../../db/schema/collections';
 import { users } from '../../db/schema/users';
+
+export type NewPlace = typeof locations.$inferInsert;
+export type NewAnimal = typeof animals.$inferInsert;
+export type NewEvent = typeof events.$inferInsert;
+export type NewEggSac = typeof eggSacs.$inferInsert;
+export type NewEventPhoto = typeof eventPhotos.$inferInsert;
 
 type Place = { room: string; rack: string; shelf: string; position: string };
 const placeKey = (p: Place) => [p.room, p.rack, p.shelf, p.position].join('\u0000');
 const list = (values: unknown[]) => sql.param(values);
 
-export async function findCollection(db: Db, collectionId: string) {
-  const [c] = await db.select().from(collections).where(eq(collections.id, collectionId));
-  return c ?? null;
+/** A collection's own round rules (its overrides of the defaults). */
+export async function rulesOf(db: Db, collectionId: string) {
+  const [c] = await db.select({ rules: collections.rules }).from(collections).where(eq(collections.id, collectionId));
+  return c?.rules ?? null;
+}
+
+/**
+ * Runs `work` in one read-only REPEATABLE READ transaction: every read in it sees the same
+ * snapshot, however long it takes (a backup's pages never see an event without its animal).
+ */
+export function inSnapshot<T>(db: Database['db'], work: (tx: Db) => Promise<T>): Promise<T> {
+  return db.transaction(work, { isolationLevel: 'repeatable read', accessMode: 'read only' });
 }
 
 /** Locations by place, created where the rows name a place the collection does not have yet. */
@@ -100,7 +115,7 @@ export async function lockCollection(tx: Db, collectionId: string) {
   await tx.execute(sql`select id from collections where id = ${collectionId} for no key update`);
 }
 
-export async function insertPlaces(tx: Db, rows: (typeof locations.$inferInsert)[]) {
+export async function insertPlaces(tx: Db, rows: NewPlace[]) {
   if (rows.length) await tx.insert(locations).values(rows);
 }
 
@@ -109,16 +124,16 @@ export async function sacsOf(db: Db, collectionId: string) {
   return db.select().from(eggSacs).where(eq(eggSacs.collectionId, collectionId)).orderBy(asc(eggSacs.laidOn), asc(eggSacs.createdAt), asc(eggSacs.clutch));
 }
 
-export async function insertSacs(tx: Db, rows: (typeof eggSacs.$inferInsert)[]) {
+export async function insertSacs(tx: Db, rows: NewEggSac[]) {
   if (rows.length) await tx.insert(eggSacs).values(rows);
 }
 
-export async function insertAnimals(tx: Db, rows: (typeof animals.$inferInsert)[]) {
+export async function insertAnimals(tx: Db, rows: NewAnimal[]) {
   if (rows.length) await tx.insert(animals).values(rows);
 }
 
 /** One statement over unnest()ed column arrays, as the sync path does; a repeated id fails. */
-export async function insertEvents(tx: Db, rows: (typeof events.$inferInsert)[]) {
+export async function insertEvents(tx: Db, rows: NewEvent[]) {
   if (!rows.length) return;
   const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
   await tx.execute(sql`
@@ -138,7 +153,7 @@ export async function insertEvents(tx: Db, rows: (typeof events.$inferInsert)[])
            client_recorded_at, client_sent_at, server_received_at, effective_at, flags)`);
 }
 
-export async function insertEventPhotos(tx: Db, rows: (typeof eventPhotos.$inferInsert)[]) {
+export async function insertEventPhotos(tx: Db, rows: NewEventPhoto[]) {
   if (rows.length) await tx.insert(eventPhotos).values(rows);
 }
 

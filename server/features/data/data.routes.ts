@@ -77,18 +77,18 @@ export function dataRoutes(service: DataService, member: (min: Role) => RequestH
     );
 
   router.get('/export/events.csv', member('keeper'), async (req, res) => {
-    await streamed(req, res, (sink) => service.eventsCsv(collectionId(res), sink), 'text/csv; charset=utf-8', `rackside-events-${day()}.csv`);
+    await streamed(req, res, (sink) => service.eventsCsv(membershipOf(res), sink), 'text/csv; charset=utf-8', `rackside-events-${day()}.csv`);
   });
 
   router.post('/animals/import', member('keeper'), largeJson('20mb'), validate({ body: animalImportBody }), async (_req, res) => {
     const { rows } = input<{ rows: AnimalImportValues[] }>(res, 'body');
-    res.status(201).json({ imported: await service.importAnimals(collectionId(res), rows) });
+    res.status(201).json({ imported: await service.importAnimals(membershipOf(res), rows) });
   });
 
   // Streamed out as it is read; an error once the download has begun can only cut it short
   // (an unfinished JSON file, which a restore refuses), never pass for a whole backup.
   router.get('/backup', member('keeper'), async (req, res) => {
-    await streamed(req, res, (sink) => service.backup(collectionId(res), sink), 'application/json', `rackside-backup-${day()}.json`);
+    await streamed(req, res, (sink) => service.backup(membershipOf(res), sink), 'application/json', `rackside-backup-${day()}.json`);
   });
 
   // Restoring fills a collection, so only its owner may. The body is read as a stream by the
@@ -96,7 +96,7 @@ export function dataRoutes(service: DataService, member: (min: Role) => RequestH
   router.post('/restore', member('owner'), async (req, res) => {
     const declared = Number(req.headers['content-length']);
     try {
-      res.status(201).json(await service.restore(collectionId(res), req, Number.isFinite(declared) ? declared : undefined));
+      res.status(201).json(await service.restore(membershipOf(res), req, Number.isFinite(declared) ? declared : undefined));
     } catch (err) {
       withRetryAfter(res, err);
     }

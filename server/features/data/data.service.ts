@@ -1,13 +1,14 @@
 import type { Readable } from 'node:stream';
-import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { ANIMAL_COLUMNS, animalToRow } from '../../../shared/domain/csv/animal-columns';
 import { writeCsv, writeCsvRecords } from '../../../shared/domain/csv/csv-file';
 import { clockTime } from '../../../shared/domain/local-dates';
 import type { AnimalImportValues } from '../../../shared/schemas/import';
+import type { MemberCollection } from '../../access/memberships';
+import type { Database } from '../../db/client';
 import type { AnimalsService } from '../animals/animals.service';
 import type { PhotosService } from '../photos/photos.service';
 import { writeBackup, type BackupSink } from './backup-writer';
-import { eventsWithNamesPage, findCollection, placeIdsFor } from './data.repository';
+import { eventsWithNamesPage, placeIdsFor } from './data.repository';
 import { restoreBackup } from './restore';
 import { createWorkSlots } from './work-slots';
 
@@ -18,7 +19,7 @@ const CSV_PAGE = 2000;
 /** Backups and restores running at once in one process (each holds a database connection). */
 const HEAVY_WORK_SLOTS = 2;
 
-export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsService; photos: PhotosService; now?: () => Date; maxRestoreBytes?: number }) {
+export function createDataService(db: Database['db'], deps: { animals: AnimalsService; photos: PhotosService; now?: () => Date; maxRestoreBytes?: number }) {
   const now = deps.now ?? (() => new Date());
   const inSlot = createWorkSlots(HEAVY_WORK_SLOTS);
 
@@ -31,8 +32,8 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
      * Every event, oldest first, with local date and time in the collection's zone: written a
      * page at a time, as the backup is, so a long history never sits in memory whole.
      */
-    async eventsCsv(collectionId: string, sink: BackupSink): Promise<void> {
-      const c = (await findCollection(db, collectionId))!;
+    async eventsCsv(c: MemberCollection, sink: BackupSink): Promise<void> {
+      const { collectionId } = c;
       const local = new Intl.DateTimeFormat('en-CA', { timeZone: c.timeZone, year: 'numeric', month: '2-digit', day: '2-digit' });
       // The header alone ends in CRLF; records follow it one CRLF apart, as writeCsv joins them.
       const header = writeCsv(EVENT_COLUMNS, []);
@@ -63,21 +64,21 @@ export function createDataService(db: NodePgDatabase, deps: { animals: AnimalsSe
     },
 
     /** Rows already checked by the import screen and again by the API schema; all or nothing. */
-    async importAnimals(collectionId: string, rows: AnimalImportValues[]): Promise<number> {
+    async importAnimals(c: MemberCollection, rows: AnimalImportValues[]): Promise<number> {
       return db.transaction(async (tx) => {
-        const places = await placeIdsFor(tx, collectionId, rows.flatMap((r) => (r.place ? [r.place] : [])));
-        return deps.animals.createMany(collectionId, rows.map(({ place, ...r }) => ({ ...r, locationId: place ? places.idOf(place) : null })), tx);
+        const places = await placeIdsFor(tx, c.collectionId, rows.flatMap((r) => (r.place ? [r.place] : [])));
+        return deps.animals.createMany(c, rows.map(({ place, ...r }) => ({ ...r, locationId: place ? places.idOf(place) : null })), tx);
       });
     },
 
     /** The collection as a backup, written to the sink piece by piece (backup-writer.ts). */
-    backup(collectionId: string, sink: BackupSink): Promise<void> {
-      return inSlot(() => writeBackup(db, deps.photos, collectionId, now(), sink));
+    backup(c: MemberCollection, sink: BackupSink): Promise<void> {
+      return inSlot(() => writeBackup(db, deps.photos, c, now(), sink));
     },
 
     /** A backup read from a stream into this empty collection, all or nothing (restore.ts). */
-    restore(collectionId: string, source: Readable, declaredBytes?: number): Promise<{ animals: number; events: number }> {
-      return inSlot(() => restoreBackup(db, { photos: deps.photos, now, maxBytes: deps.maxRestoreBytes }, collectionId, source, declaredBytes));
+    restore(c: MemberCollection, source: Readable, declaredBytes?: number): Promise<{ animals: number; events: number }> {
+      return inSlot(() => restoreBackup(db, { photos: deps.photos, now, maxBytes: deps.maxRestoreBytes }, c, source, declaredBytes));
     },
   };
 }

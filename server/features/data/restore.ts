@@ -1,15 +1,13 @@
 import { hash, randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import type { Readable } from 'node:stream';
-import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import type { z } from 'zod';
 import { MAX_BACKUP_PHOTO_CHARS, MAX_BACKUP_PLACES, MAX_RESTORE_BYTES } from '../../../shared/domain/backup-limits';
 import { backupAnimal, backupCollection, backupEggSac, backupEvent, backupHeader, backupPlace } from '../../../shared/schemas/backup';
 import { fieldLabel, isGenericMessage } from '../../../shared/schemas/messages';
 import type { RulesOverrideBody } from '../../../shared/schemas/rules';
+import type { MemberCollection } from '../../access/memberships';
 import type { Db } from '../../db/client';
-import type { animals, eggSacs, eventPhotos, events } from '../../db/schema/animals';
-import type { locations } from '../../db/schema/collections';
 import { HttpError } from '../../middleware/errors';
 import type { PhotosService, RestoreWorkspace } from '../photos/photos.service';
 import { refoldStates } from '../rounds/projection';
@@ -42,7 +40,8 @@ export interface RestoreOptions {
  * rows inserted in batches. Only after the commit do the photos move into place; on any
  * failure the transaction rolls back and the workspace, photos included, is removed.
  */
-export async function restoreBackup(db: NodePgDatabase, options: RestoreOptions, collectionId: string, source: Readable, declaredBytes?: number) {
+export async function restoreBackup(db: Db, options: RestoreOptions, c: MemberCollection, source: Readable, declaredBytes?: number) {
+  const { collectionId } = c;
   const maxBytes = options.maxBytes ?? MAX_RESTORE_BYTES;
   const guard = createJsonGuard({ maxBytes, maxString: MAX_BACKUP_PHOTO_CHARS + 16, maxDepth: 12 });
   // A declared length over the limit is refused before a byte is read.
@@ -54,7 +53,7 @@ export async function restoreBackup(db: NodePgDatabase, options: RestoreOptions,
     const counts = await db.transaction(async (tx) => {
       await repo.lockCollection(tx, collectionId);
       await refuseUnlessEmpty(tx, collectionId);
-      const loader = createLoader(tx, collectionId, workspace, options.now());
+      const loader = createLoader(tx, c, workspace, options.now());
       try {
         for await (const record of readBackup(workspace.uploadFile)) await loader.take(record);
         return await loader.finish();
@@ -181,17 +180,18 @@ async function asDataProblem<T>(work: () => Promise<T>): Promise<T> {
   }
 }
 
-type PlaceRow = typeof locations.$inferInsert;
-type AnimalRow = typeof animals.$inferInsert;
-type EventRow = typeof events.$inferInsert;
-type SacRow = typeof eggSacs.$inferInsert;
-type EventPhotoRow = typeof eventPhotos.$inferInsert;
+type PlaceRow = repo.NewPlace;
+type AnimalRow = repo.NewAnimal;
+type EventRow = repo.NewEvent;
+type SacRow = repo.NewEggSac;
+type EventPhotoRow = repo.NewEventPhoto;
 /** A photo being written aside while reading goes on: its key once it is on disk. */
 type Staging = { key: Promise<string> };
 /** Photos decoded and written at once, beside the reading (each holds its image in memory). */
 const PHOTOS_IN_FLIGHT = 2;
 
-function createLoader(tx: Db, collectionId: string, workspace: RestoreWorkspace, now: Date) {
+function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, now: Date) {
+  const { collectionId } = c;
   const newId = idMapper();
   const places = new Set<string>();
   const singles = new Map<string, unknown>();
@@ -344,7 +344,6 @@ function createLoader(tx: Db, collectionId: string, workspace: RestoreWorkspace,
 
   /** The projection the round is built from, folded a bounded number of events at a time. */
   async function refold() {
-    const c = await repo.findCollection(tx, collectionId);
     let after: string | null = null;
     for (;;) {
       const page = await repo.animalEventCounts(tx, collectionId, after, 500);
@@ -353,14 +352,14 @@ function createLoader(tx: Db, collectionId: string, workspace: RestoreWorkspace,
       let n = 0;
       for (const a of page) {
         if (ids.length && n + a.events > REFOLD_EVENTS) {
-          await refoldStates(tx, collectionId, c!.timeZone, ids);
+          await refoldStates(tx, collectionId, c.timeZone, ids);
           ids = [];
           n = 0;
         }
         ids.push(a.id);
         n += a.events;
       }
-      await refoldStates(tx, collectionId, c!.timeZone, ids);
+      await refoldStates(tx, collectionId, c.timeZone, ids);
       after = page.at(-1)!.id;
     }
   }

@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import type pg from 'pg';
+import { pingDatabase } from './health.repository';
 
 /** Liveness plus a database ping, so a load balancer sees when PostgreSQL is away. */
 export function healthRoutes(pool: pg.Pool) {
@@ -7,10 +8,7 @@ export function healthRoutes(pool: pg.Pool) {
   router.get('/', async (_req, res) => {
     const started = Date.now();
     try {
-      await Promise.race([
-        pool.query('select 1'),
-        new Promise((_, reject) => setTimeout(() => reject(new Error('timeout')), 2000)),
-      ]);
+      await pingDatabase(pool, 2000);
       res.json({ status: 'ok', database: 'up', databaseMs: Date.now() - started });
     } catch {
       res.status(503).json({ status: 'degraded', database: 'down' });

@@ -1,25 +1,21 @@
 import { randomInt } from 'node:crypto';
-import { and, eq, inArray } from 'drizzle-orm';
-import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
 import { generateLabelCodes } from '../../../shared/domain/label-codes';
 import { labelContent, printProblem } from '../../../shared/domain/labels/label-content';
 import { sheetLayout } from '../../../shared/domain/labels/sheet-layout';
 import type { LabelPdfBody } from '../../../shared/schemas/labels';
+import type { Db } from '../../db/client';
 import { isUniqueViolation } from '../../db/errors';
-import { animals } from '../../db/schema/animals';
 import { HttpError } from '../../middleware/errors';
+import { animalsByIds, codesInCollection, labelCodeOf, setLabelCode } from './labels.repository';
 
 const randomUnit = () => randomInt(2 ** 32) / 2 ** 32;
 
-export function createLabelsService(db: NodePgDatabase) {
+export function createLabelsService(db: Db) {
   return {
     /** The PDF of label sheets for some of a collection's animals, in the order asked. */
     async pdf(collectionId: string, labelTag: string, body: LabelPdfBody): Promise<Buffer> {
       const ids = [...new Set(body.animalIds)];
-      const rows = await db
-        .select()
-        .from(animals)
-        .where(and(eq(animals.collectionId, collectionId), inArray(animals.id, ids)));
+      const rows = await animalsByIds(db, collectionId, ids);
       if (rows.length !== ids.length) {
         throw new HttpError(404, 'not_found', 'Some of these animals are not in this collection. Reload the list and choose again.');
       }
@@ -44,17 +40,14 @@ export function createLabelsService(db: NodePgDatabase) {
      * working at once. Moving an animal never changes its code; only this does.
      */
     async relabel(collectionId: string, animalId: string): Promise<string> {
-      const [animal] = await db
-        .select({ labelCode: animals.labelCode })
-        .from(animals)
-        .where(and(eq(animals.collectionId, collectionId), eq(animals.id, animalId)));
-      if (!animal) throw new HttpError(404, 'not_found', 'We could not find that animal.');
-      const prefix = animal.labelCode.split('-')[0]!;
+      const current = await labelCodeOf(db, collectionId, animalId);
+      if (current === null) throw new HttpError(404, 'not_found', 'We could not find that animal.');
+      const prefix = current.split('-')[0]!;
       for (let attempt = 0; ; attempt++) {
-        const taken = new Set((await db.select({ c: animals.labelCode }).from(animals).where(eq(animals.collectionId, collectionId))).map((r) => r.c));
+        const taken = new Set(await codesInCollection(db, collectionId));
         const [code] = generateLabelCodes(prefix, 1, randomUnit, taken);
         try {
-          await db.update(animals).set({ labelCode: code!, updatedAt: new Date() }).where(eq(animals.id, animalId));
+          await setLabelCode(db, animalId, code!, new Date());
           return code!;
         } catch (err) {
           // Someone took the same code a moment ago: draw again.

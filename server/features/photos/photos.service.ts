@@ -1,11 +1,10 @@
 import { randomUUID } from 'node:crypto';
 import fs from 'node:fs/promises';
 import path from 'node:path';
-import { and, eq } from 'drizzle-orm';
-import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
-import { animals, eventPhotos, events } from '../../db/schema/animals';
+import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
 import { imageTypeOf, isPlainFileName } from './image-type';
+import { animalPhotoKey, findMolt, setAnimalPhoto, setMoltPhoto } from './photos.repository';
 
 // sharp and libvips (~28 MB resident) load with the first photo, not with the server.
 const loadSharp = async () => {
@@ -65,14 +64,14 @@ async function restoredThumbnail(webp: Buffer): Promise<Buffer> {
  * Photos live in the storage folder under the collection's id, named by a random key. Uploads
  * are re-encoded as WebP at two sizes, which also drops the camera's metadata (GPS included).
  */
-export function createPhotosService(db: NodePgDatabase, storageDir: string, now: () => Date) {
+export function createPhotosService(db: Db, storageDir: string, now: () => Date) {
   const folder = (collectionId: string) => path.join(storageDir, 'photos', collectionId);
   const fileOf = (collectionId: string, key: string, size: PhotoSize) => path.join(folder(collectionId), `${key}-${size}.webp`);
 
   async function keyOf(collectionId: string, animalId: string) {
-    const [row] = await db.select({ key: animals.photoKey }).from(animals).where(and(eq(animals.collectionId, collectionId), eq(animals.id, animalId)));
-    if (!row) throw notFound();
-    return row.key;
+    const key = await animalPhotoKey(db, collectionId, animalId);
+    if (key === undefined) throw notFound();
+    return key;
   }
 
   async function removeFiles(collectionId: string, key: string | null) {
@@ -100,11 +99,7 @@ export function createPhotosService(db: NodePgDatabase, storageDir: string, now:
   }
 
   async function moltOf(collectionId: string, animalId: string, eventId: string) {
-    const [row] = await db
-      .select({ id: events.id, key: eventPhotos.photoKey })
-      .from(events)
-      .leftJoin(eventPhotos, eq(eventPhotos.eventId, events.id))
-      .where(and(eq(events.id, eventId), eq(events.animalId, animalId), eq(events.collectionId, collectionId), eq(events.kind, 'molted')));
+    const row = await findMolt(db, collectionId, animalId, eventId);
     if (!row) throw new HttpError(404, 'not_found', 'We could not find that molt. If you recorded it offline, let it sync first.');
     return row;
   }
@@ -114,7 +109,7 @@ export function createPhotosService(db: NodePgDatabase, storageDir: string, now:
       const previous = await keyOf(collectionId, animalId);
       const key = await store(collectionId, file);
       const at = now();
-      await db.update(animals).set({ photoKey: key, photoUpdatedAt: at }).where(eq(animals.id, animalId));
+      await setAnimalPhoto(db, animalId, key, at);
       await removeFiles(collectionId, previous);
       return { photoVersion: at.toISOString() };
     },
@@ -123,7 +118,7 @@ export function createPhotosService(db: NodePgDatabase, storageDir: string, now:
     async saveMolt(collectionId: string, animalId: string, eventId: string, file: { buffer: Buffer; originalname: string } | undefined) {
       const molt = await moltOf(collectionId, animalId, eventId);
       const key = await store(collectionId, file);
-      await db.insert(eventPhotos).values({ eventId, collectionId, photoKey: key }).onConflictDoUpdate({ target: eventPhotos.eventId, set: { photoKey: key, createdAt: now() } });
+      await setMoltPhoto(db, collectionId, eventId, key, now());
       await removeFiles(collectionId, molt.key);
     },
 
@@ -187,7 +182,7 @@ export function createPhotosService(db: NodePgDatabase, storageDir: string, now:
 
     async remove(collectionId: string, animalId: string) {
       const key = await keyOf(collectionId, animalId);
-      await db.update(animals).set({ photoKey: null, photoUpdatedAt: null }).where(eq(animals.id, animalId));
+      await setAnimalPhoto(db, animalId, null, null);
       await removeFiles(collectionId, key);
     },
   };

@@ -1,0 +1,83 @@
+import { and, asc, eq, sql } from 'drizzle-orm';
+import type { Db } from '../db/client';
+import { collections, memberships } from '../db/schema/collections';
+import { collectionRevisions } from '../db/schema/rounds';
+import { users } from '../db/schema/users';
+
+const membershipFields = {
+  collectionId: collections.id,
+  collectionName: collections.name,
+  timeZone: collections.timeZone,
+  labelTag: collections.labelTag,
+  role: memberships.role,
+  startsAt: memberships.startsAt,
+  endsAt: memberships.endsAt,
+};
+
+/**
+ * One member's membership, with the collection's change counters read in the same query: a
+ * cached round is checked against them with no further round trip (P7).
+ */
+export async function findMembership(db: Db, collectionId: string, userId: string) {
+  const rows = await db
+    .select({
+      ...membershipFields,
+      writesClosedAt: memberships.writesClosedAt,
+      revision: {
+        records: sql<number>`coalesce(${collectionRevisions.records}, 0)`.mapWith(Number),
+        events: sql<number>`coalesce(${collectionRevisions.events}, 0)`.mapWith(Number),
+      },
+    })
+    .from(memberships)
+    .innerJoin(collections, eq(collections.id, memberships.collectionId))
+    .leftJoin(collectionRevisions, eq(collectionRevisions.collectionId, memberships.collectionId))
+    .where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, userId)))
+    .limit(1);
+  return rows[0] ?? null;
+}
+export type Membership = NonNullable<Awaited<ReturnType<typeof findMembership>>>;
+
+/**
+ * The collection as the membership check loaded it: what a service needs to know about the
+ * collection of the request (its id, name and zone) without reading it again.
+ */
+export type MemberCollection = Pick<Membership, 'collectionId' | 'collectionName' | 'timeZone'>;
+
+export async function listMembershipsOfUser(db: Db, userId: string) {
+  return db
+    .select(membershipFields)
+    .from(memberships)
+    .innerJoin(collections, eq(collections.id, memberships.collectionId))
+    .where(eq(memberships.userId, userId))
+    .orderBy(asc(collections.name));
+}
+
+/**
+ * The role the account with this e-mail holds in a collection, if any — one query whether or
+ * not such an account exists, so an invite takes the same time for both.
+ */
+export async function roleOfEmail(db: Db, collectionId: string, email: string) {
+  const [row] = await db
+    .select({ role: memberships.role })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.collectionId, collectionId), eq(users.email, email)))
+    .limit(1);
+  return row?.role ?? null;
+}
+
+/** The role a user holds in a collection, if any. */
+export async function roleOfUser(db: Db, collectionId: string, userId: string) {
+  const [row] = await db
+    .select({ role: memberships.role })
+    .from(memberships)
+    .where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, userId)));
+  return row?.role ?? null;
+}
+
+export async function insertMembership(
+  db: Db,
+  values: { collectionId: string; userId: string; role: 'owner' | 'keeper' | 'helper'; startsAt?: Date | null; endsAt?: Date | null },
+) {
+  await db.insert(memberships).values(values);
+}
