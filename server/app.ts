@@ -30,7 +30,7 @@ import { createLocationsService } from './features/locations/locations.service';
 import { photosRoutes } from './features/photos/photos.routes';
 import { createPhotosService } from './features/photos/photos.service';
 import { roundsRoutes } from './features/rounds/rounds.routes';
-import { createRoundsService } from './features/rounds/rounds.service';
+import { createRoundsService, SAME_DAY_TRIGGERS } from './features/rounds/rounds.service';
 import { createLogger, type Logger } from './logger';
 import type { DevMailbox } from './mail/dev-smtp';
 import type { Mailer } from './mail/mailer';
@@ -115,7 +115,13 @@ export function createApp(options: AppOptions) {
   api.use('/collections/:collectionId/animals', animalsRoutes(animals, member));
   api.use('/collections/:collectionId/locations', locationsRoutes(createLocationsService(database.db), member));
   api.use('/collections/:collectionId', roundsRoutes(rounds, animals, member));
-  const events = createEventsService(database.db, rounds, now);
+  const events = createEventsService(database.db, {
+    now,
+    feedHolds: rounds.feedHolds,
+    // Facts that start or lift a hold, or leave prey with a molting animal, change today's
+    // round at once (R18): the events feature knows nothing of rounds.
+    onRecorded: [(c, recorded) => rounds.reconcileToday(c.collectionId, [...new Set(recorded.filter((e) => SAME_DAY_TRIGGERS.includes(e.kind)).map((e) => e.animalId))])],
+  });
   api.use('/collections/:collectionId/events', eventsRoutes(events, member));
   api.use('/collections/:collectionId', photosRoutes(photos, member));
   const coverReports = createCoverReportsService(database.db, { mailer: options.mailer, now, rounds, publicUrl, logger });

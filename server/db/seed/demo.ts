@@ -11,8 +11,9 @@ import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../..
 import { DEFAULT_RULES, feedingInterval, postMoltHoldDays } from '../../../shared/domain/rounds/rules';
 import { hashPassword } from '../../features/auth/passwords';
 import { insertCollection } from '../../features/collections/collections.repository';
-import { refoldStates } from '../../features/rounds/projection';
-import { animals, eggSacs, events } from '../schema/animals';
+import { refoldStates } from '../../features/events/projection';
+import { recordEvents } from '../../features/events/record-events';
+import { animals, eggSacs } from '../schema/animals';
 import { collections, locations, memberships } from '../schema/collections';
 import { users } from '../schema/users';
 import { DEMO_ACCOUNTS, DEMO_COLLECTION, DEMO_PASSWORD } from './demo-people';
@@ -350,7 +351,7 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
         rows.push({ id: randomUUID(), collectionId, animalId: femaleId, kind: fact.kind, payload: { sacId: record!.id }, ...ownerOf, clientRecordedAt: at, clientSentAt: at, serverReceivedAt: at, effectiveAt: at });
       }
     }
-    for (let i = 0; i < rows.length; i += 500) await tx.insert(events).values(rows.slice(i, i + 500));
+    await recordEvents(tx, { collectionId }, rows, { from: 'history' });
     await refoldStates(tx, collectionId, zone);
     return { created: true, animals: roster.length, events: rows.length, collectionId, today };
   });

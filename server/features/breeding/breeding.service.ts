@@ -8,7 +8,7 @@ import type { Db } from '../../db/client';
 import { animals, eggSacs } from '../../db/schema/animals';
 import { locations } from '../../db/schema/collections';
 import { HttpError } from '../../middleware/errors';
-import { recordServerEvents } from '../animals/animal-events';
+import { recordEvents } from '../events/record-events';
 import { findAnimal, findCollection, findSac, insertSac, liveBreedingFacts, listSacs, sacCountOf, setIncubation, updateSac, type EggSacRow } from './breeding.repository';
 
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that egg sac.');
@@ -93,13 +93,14 @@ export function createBreedingService(db: NodePgDatabase, now: () => Date, after
     const stale = mine.filter((f) => !kept.has(f.id));
     const at = now();
     const base = { collectionId: record.collectionId, animalId: record.femaleId, recordedBy: userId };
-    await recordServerEvents(
+    await recordEvents(
       tx,
+      { collectionId: record.collectionId, timeZone: zone },
       [
         ...stale.map((f) => ({ ...base, kind: 'void' as const, payload: { targetId: f.id, note: 'The record’s date changed.' } })),
         ...missing.map((w) => ({ ...base, kind: w.kind, payload: { sacId: record.id }, effectiveAt: instantOfKeeperDate(w.date, zone, at) })),
       ],
-      at,
+      { from: 'server', at },
     );
   }
 

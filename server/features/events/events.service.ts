@@ -3,71 +3,35 @@ import { clockOffsetMs } from '../../../shared/domain/clock';
 import { FED_WHILE_HELD, type EventKind } from '../../../shared/domain/event-kinds';
 import { factsToLoad, judgeBatch, screenBatch, settleLostRaces } from '../../../shared/domain/event-verdicts';
 import { mergeMoltDetails } from '../../../shared/domain/growth';
-import { localDateOf } from '../../../shared/domain/local-dates';
+import { localDateOf, type LocalDate } from '../../../shared/domain/local-dates';
 import { MAX_BATCH_EVENTS } from '../../../shared/domain/sync-limits';
 import type { EventBatchBody, EventBatchResponse, HistoryEvent } from '../../../shared/schemas/events';
 import { HttpError } from '../../middleware/errors';
 import type { Membership } from '../collections/collections.repository';
-import { applyNewEvents } from '../rounds/projection';
-import { SAME_DAY_TRIGGERS, type RoundsService } from '../rounds/rounds.service';
-import {
-  animalIdsInCollection,
-  breedersAmong,
-  insertEventsOnce,
-  liveMoltTimes,
-  recentEventsOf,
-  storedEvents,
-  type NewEvent,
-} from './events.repository';
-import { applyMoltFacts } from './molt-facts';
+import { animalIdsInCollection, breedersAmong, liveMoltTimes, recentEventsOf, storedEvents } from './events.repository';
+import { recordEvents, type DeviceEvent, type EventCollection } from './record-events';
 
-export interface IncomingEvent {
-  id: string;
-  animalId: string;
-  kind: EventKind;
-  payload: Record<string, unknown>;
-  recordedBy: string | null;
-  deviceId: string | null;
-  clientRecordedAt: Date;
-  clientSentAt: Date | null;
-  effectiveAt: Date;
-  flags?: string[];
+export type OnRecorded = (collection: EventCollection, recorded: { animalId: string; kind: EventKind }[]) => Promise<void>;
+
+export interface EventsServiceOptions {
+  now: () => Date;
+  /** Whether food is withheld from these animals on a date, and why: a meal then is flagged. */
+  feedHolds: (collectionId: string, animalIds: string[], date: LocalDate) => Promise<ReadonlyMap<string, unknown>>;
+  /** Run in order after each device batch is committed. */
+  onRecorded?: readonly OnRecorded[];
 }
 
 /**
- * Stores facts exactly once (the client's id is the key) and, in the same transaction,
- * brings each animal's projected state up to date; then adds any urgent task to today's round.
+ * Phones' taps: each judged on its own (shared/domain/event-verdicts.ts), stored exactly once
+ * (the client's id is the key) through `recordEvents`, then handed to the `onRecorded` hooks.
  */
-export function createEventsService(db: NodePgDatabase, rounds: RoundsService, now: () => Date) {
-  async function ingest(
-    collectionId: string,
-    zone: string,
-    incoming: IncomingEvent[],
-    received = now(),
-  ) {
-    const inserted = await db.transaction(async (tx) => {
-      const rows: NewEvent[] = incoming.map((e) => ({
-        ...e,
-        collectionId,
-        serverReceivedAt: received,
-        flags: e.flags ?? [],
-      }));
-      const ids = await insertEventsOnce(tx, rows);
-      const fresh = incoming
-        .filter((e) => ids.has(e.id))
-        .map((e) => ({
-          id: e.id,
-          animalId: e.animalId,
-          kind: e.kind,
-          payload: e.payload,
-          effectiveAt: e.effectiveAt.toISOString(),
-        }));
-      await applyNewEvents(tx, collectionId, zone, fresh);
-      await applyMoltFacts(tx, collectionId, zone, [...new Set(fresh.filter((e) => e.kind === 'molted' || e.kind === 'molt_details' || e.kind === 'void').map((e) => e.animalId))]);
-      return ids;
-    });
-    const touched = [...new Set(incoming.filter((e) => inserted.has(e.id) && SAME_DAY_TRIGGERS.includes(e.kind)).map((e) => e.animalId))];
-    await rounds.reconcileToday(collectionId, touched);
+export function createEventsService(db: NodePgDatabase, { now, feedHolds, onRecorded = [] }: EventsServiceOptions) {
+  /** Stores judged taps in one transaction, then runs the hooks on the ones that are new. */
+  async function ingest(collectionId: string, zone: string, incoming: DeviceEvent[], received = now()) {
+    const collection = { collectionId, timeZone: zone };
+    const inserted = await db.transaction((tx) => recordEvents(tx, collection, incoming, { from: 'device', receivedAt: received }));
+    const recorded = incoming.filter((e) => inserted.has(e.id)).map(({ animalId, kind }) => ({ animalId, kind }));
+    for (const hook of onRecorded) await hook(collection, recorded);
     return { inserted };
   }
 
@@ -75,15 +39,14 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
    * A meal recorded while the engine withholds food (a molt hold, premolt, a do-not-feed note…)
    * is stored — it happened — but flagged for the owner (R18). Judged before the batch lands.
    */
-  async function flagMealsWhileHeld(member: Membership, list: IncomingEvent[]) {
-    const meals = list.filter((e) => e.kind === 'ate');
-    const byDate = new Map<string, IncomingEvent[]>();
-    for (const e of meals) {
+  async function flagMealsWhileHeld(member: Membership, list: DeviceEvent[]) {
+    const byDate = new Map<string, DeviceEvent[]>();
+    for (const e of list.filter((e) => e.kind === 'ate')) {
       const date = localDateOf(e.effectiveAt, member.timeZone);
       byDate.set(date, [...(byDate.get(date) ?? []), e]);
     }
     for (const [date, group] of byDate) {
-      const holds = await rounds.feedHolds(member.collectionId, [...new Set(group.map((e) => e.animalId))], date);
+      const holds = await feedHolds(member.collectionId, [...new Set(group.map((e) => e.animalId))], date);
       for (const e of group) if (holds.has(e.animalId)) e.flags = [...(e.flags ?? []), FED_WHILE_HELD];
     }
   }
@@ -104,7 +67,7 @@ export function createEventsService(db: NodePgDatabase, rounds: RoundsService, n
       liveMoltTimes(db, wanted.moltingIds),
     ]);
     const { results, accepted } = judgeBatch(screened, { ...member, userId }, { animals, stored, breeders, moltTimes }, received);
-    const toInsert: IncomingEvent[] = accepted.map(({ event, effectiveAt, flags }) => ({
+    const toInsert: DeviceEvent[] = accepted.map(({ event, effectiveAt, flags }) => ({
       id: event.id,
       animalId: event.animalId,
       kind: event.kind,

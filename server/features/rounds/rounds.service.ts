@@ -42,7 +42,8 @@ import type {
 import { handoverNotes } from '../../db/schema/animals';
 import { HttpError } from '../../middleware/errors';
 import { toAnimalSummary } from '../animals/animal-summary';
-import { refoldStates } from './projection';
+import { refoldStates } from '../events/projection';
+import { loadEventsOf } from '../events/projection.repository';
 import { LatestByKey, serialiseRound, type SerialisedRound } from './round-cache';
 import {
   claimRound,
@@ -52,7 +53,6 @@ import {
   insertRoundItems,
   updateCollectionRules,
   loadAnimalsWithState,
-  loadEventsOf,
   loadOutcomes,
   loadRoundItems,
   updateItemTasks,
