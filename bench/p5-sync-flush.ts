@@ -7,7 +7,8 @@ import { performance } from 'node:perf_hooks';
 import type { Database } from '../server/db/client';
 import { findMembership } from '../server/features/collections/collections.repository';
 import { createEventsService } from '../server/features/events/events.service';
-import { createRoundsService, SAME_DAY_TRIGGERS } from '../server/features/rounds/rounds.service';
+import { createRoundsService } from '../server/features/rounds/rounds.service';
+import { animalsToReconcile } from '../server/features/rounds/urgent-tasks';
 import { SYNC_BATCH_SIZE } from '../shared/domain/sync-limits';
 import type { RecordedEvent } from '../shared/schemas/events';
 import { openRacksideDb } from '../src/lib/db';
@@ -58,7 +59,7 @@ export async function runP5(database: Database): Promise<{ figures: Figure[]; no
     const service = createEventsService(database.db, {
       now: () => new Date(),
       feedHolds: rounds.feedHolds,
-      onRecorded: [(c, recorded) => rounds.reconcileToday(c.collectionId, [...new Set(recorded.filter((e) => SAME_DAY_TRIGGERS.includes(e.kind)).map((e) => e.animalId))])],
+      onRecorded: [(c, recorded) => rounds.reconcileToday(c.collectionId, animalsToReconcile(recorded))],
     });
     const member = (await findMembership(database.db, keeper.collectionId, keeper.userId))!;
     const flushMs: number[] = [];

@@ -29,8 +29,10 @@ import { locationsRoutes } from './features/locations/locations.routes';
 import { createLocationsService } from './features/locations/locations.service';
 import { photosRoutes } from './features/photos/photos.routes';
 import { createPhotosService } from './features/photos/photos.service';
-import { roundsRoutes } from './features/rounds/rounds.routes';
-import { createRoundsService, SAME_DAY_TRIGGERS } from './features/rounds/rounds.service';
+import { animalScheduleRoutes, prepListRoutes, roundsRoutes } from './features/rounds/rounds.routes';
+import { createRoundsService } from './features/rounds/rounds.service';
+import { rulesRoutes } from './features/rounds/rules.routes';
+import { animalsToReconcile } from './features/rounds/urgent-tasks';
 import { createLogger, type Logger } from './logger';
 import type { DevMailbox } from './mail/dev-smtp';
 import type { Mailer } from './mail/mailer';
@@ -107,28 +109,45 @@ export function createApp(options: AppOptions) {
   if (env.DEMO_MODE) api.use('/dev', devRoutes(options.devMailbox, auth, { mountMailbox: env.NODE_ENV !== 'production' }));
   api.use('/collections', myCollectionsRoutes(auth));
   api.use('/cover-invites', coverInviteRoutes(cover, auth, limiter('invite-ip', { windowMs: 15 * 60_000, limit: options.authLimits?.signInPerIp ?? DEFAULT_AUTH_LIMITS.signInPerIp })));
-  api.use('/collections/:collectionId', requireUser);
+
   const animals = createAnimalsService(database.db, now);
   const rounds = createRoundsService(database.db, now);
-  const photos = createPhotosService(database.db, path.resolve(env.STORAGE_DIR), now);
-  api.use('/collections/:collectionId', dataRoutes(createDataService(database.db, { animals, photos, now }), member));
-  api.use('/collections/:collectionId/animals', animalsRoutes(animals, member));
-  api.use('/collections/:collectionId/locations', locationsRoutes(createLocationsService(database.db), member));
-  api.use('/collections/:collectionId', roundsRoutes(rounds, animals, member));
   const events = createEventsService(database.db, {
     now,
     feedHolds: rounds.feedHolds,
     // Facts that start or lift a hold, or leave prey with a molting animal, change today's
     // round at once (R18): the events feature knows nothing of rounds.
-    onRecorded: [(c, recorded) => rounds.reconcileToday(c.collectionId, [...new Set(recorded.filter((e) => SAME_DAY_TRIGGERS.includes(e.kind)).map((e) => e.animalId))])],
+    onRecorded: [(c, recorded) => rounds.reconcileToday(c.collectionId, animalsToReconcile(recorded))],
   });
-  api.use('/collections/:collectionId/events', eventsRoutes(events, member));
-  api.use('/collections/:collectionId', photosRoutes(photos, member));
+  const photos = createPhotosService(database.db, path.resolve(env.STORAGE_DIR), now);
   const coverReports = createCoverReportsService(database.db, { mailer: options.mailer, now, rounds, publicUrl, logger });
-  api.use('/collections/:collectionId', coverRoutes(cover, coverReports, rounds, member, inviteLimit));
-  api.use('/collections/:collectionId', breedingRoutes(createBreedingService(database.db, now, (id, animalIds) => rounds.reconcileToday(id, animalIds)), member));
-  api.use('/collections/:collectionId', labelsRoutes(createLabelsService(database.db), member));
-  api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db, { mailer: options.mailer, now, publicUrl, background, removeFiles: photos.removeCollection }), member, inviteLimit));
+  // A breeding record's facts may start or end a hold today (R18).
+  const breeding = createBreedingService(database.db, now, (id, animalIds) => rounds.reconcileToday(id, animalIds));
+  const collections = createCollectionsService(database.db, { mailer: options.mailer, now, publicUrl, background, removeFiles: photos.removeCollection });
+
+  // Everything under a collection: signed in first, then each route's own membership check.
+  const collection = (p = '') => `/collections/:collectionId${p}`;
+  api.use(collection(), requireUser);
+  // Routers that serve several paths of their own under the collection:
+  //   data: /export/animals.csv, /export/events.csv, /animals/import, /backup, /restore
+  api.use(collection(), dataRoutes(createDataService(database.db, { animals, photos, now }), member));
+  api.use(collection('/animals'), animalsRoutes(animals, member));
+  api.use(collection('/animals/:animalId'), animalScheduleRoutes(rounds, animals.updateCare, member));
+  api.use(collection('/locations'), locationsRoutes(createLocationsService(database.db), member));
+  api.use(collection('/rounds'), roundsRoutes(rounds, member));
+  api.use(collection('/prep-list'), prepListRoutes(rounds, member));
+  api.use(collection('/rules'), rulesRoutes(rounds, member));
+  api.use(collection('/events'), eventsRoutes(events, member));
+  //   photos: /animals/:animalId/photo, /animals/:animalId/molts/:eventId/photo
+  api.use(collection(), photosRoutes(photos, member));
+  //   cover: /covers…, /handover…, /cover-reports, /cover/mine…
+  api.use(collection(), coverRoutes(cover, coverReports, rounds, member, inviteLimit));
+  //   breeding: /egg-sacs…, /incubation
+  api.use(collection(), breedingRoutes(breeding, member));
+  //   labels: /labels/pdf, /animals/:animalId/relabel
+  api.use(collection(), labelsRoutes(createLabelsService(database.db), member));
+  //   collections: the collection itself (/), /members…, /membership
+  api.use(collection(), collectionsRoutes(collections, member, inviteLimit));
   api.use(apiNotFound);
   api.use(errorHandler);
   app.use('/api', api);

@@ -1,7 +1,7 @@
-import { and, asc, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, eq, gte, inArray, sql } from 'drizzle-orm';
 import type { LocalDate } from '../../../shared/domain/local-dates';
 import type { Db } from '../../db/client';
-import { animals, events } from '../../db/schema/animals';
+import { animals, events, handoverNotes } from '../../db/schema/animals';
 import { collections, locations } from '../../db/schema/collections';
 import { animalStates, roundItems, rounds } from '../../db/schema/rounds';
 import { users } from '../../db/schema/users';
@@ -10,6 +10,8 @@ export async function findCollection(db: Db, collectionId: string) {
   const [row] = await db.select().from(collections).where(eq(collections.id, collectionId)).limit(1);
   return row ?? null;
 }
+/** A collection as the round reads it: its zone, rules and feeders. */
+export type RoundCollection = NonNullable<Awaited<ReturnType<typeof findCollection>>>;
 
 export async function updateCollectionRules(db: Db, collectionId: string, rules: unknown) {
   await db.update(collections).set({ rules }).where(eq(collections.id, collectionId));
@@ -25,6 +27,14 @@ export async function loadAnimalsWithState(db: Db, collectionId: string, animalI
     .where(animalIds ? and(eq(animals.collectionId, collectionId), inArray(animals.id, animalIds)) : eq(animals.collectionId, collectionId));
 }
 export type AnimalRow = Awaited<ReturnType<typeof loadAnimalsWithState>>[number];
+
+/** Handover notes saying "do not feed" that still run on or after `from`: each animal's last held day. */
+export async function doNotFeedNotes(db: Db, collectionId: string, from: LocalDate) {
+  return db
+    .select({ animalId: handoverNotes.animalId, until: handoverNotes.until })
+    .from(handoverNotes)
+    .where(and(eq(handoverNotes.collectionId, collectionId), eq(handoverNotes.doNotFeed, true), gte(handoverNotes.until, from)));
+}
 
 export async function findRound(db: Db, collectionId: string, date: LocalDate) {
   const [row] = await db.select().from(rounds).where(and(eq(rounds.collectionId, collectionId), eq(rounds.localDate, date))).limit(1);
