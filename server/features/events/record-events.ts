@@ -39,7 +39,7 @@ export interface ServerFact {
 }
 
 /** An event kept as it was: from a backup, or the demo's invented history. */
-export type HistoryEvent = Omit<NewEvent, 'collectionId'>;
+export type KeptEvent = Omit<NewEvent, 'collectionId'>;
 
 export type DeviceSource = { from: 'device'; receivedAt: Date };
 export type ServerSource = { from: 'server'; at: Date };
@@ -57,16 +57,16 @@ export type HistorySource = { from: 'history' };
  */
 export async function recordEvents(db: Db, collection: EventCollection, events: DeviceEvent[], source: DeviceSource): Promise<Set<string>>;
 export async function recordEvents(db: Db, collection: EventCollection, events: ServerFact[], source: ServerSource): Promise<Set<string>>;
-export async function recordEvents(db: Db, collection: Pick<EventCollection, 'collectionId'>, events: HistoryEvent[], source: HistorySource): Promise<Set<string>>;
+export async function recordEvents(db: Db, collection: Pick<EventCollection, 'collectionId'>, events: KeptEvent[], source: HistorySource): Promise<Set<string>>;
 export async function recordEvents(
   db: Db,
   collection: EventCollection | Pick<EventCollection, 'collectionId'>,
-  events: (DeviceEvent | ServerFact | HistoryEvent)[],
+  events: (DeviceEvent | ServerFact | KeptEvent)[],
   source: DeviceSource | ServerSource | HistorySource,
 ): Promise<Set<string>> {
   if (!events.length) return new Set();
   const { collectionId } = collection;
-  if (source.from === 'history') return insertEvents(db, (events as HistoryEvent[]).map((e) => ({ ...e, collectionId })), 'fail');
+  if (source.from === 'history') return insertEvents(db, (events as KeptEvent[]).map((e) => ({ ...e, collectionId })), 'fail');
   const { timeZone } = collection as EventCollection;
 
   const rows: NewEvent[] =
