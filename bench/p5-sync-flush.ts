@@ -8,6 +8,7 @@ import { findMembership } from '../server/access/memberships';
 import type { Database } from '../server/db/client';
 import { createEventsService } from '../server/features/events/events.service';
 import { createRoundsService } from '../server/features/rounds/rounds.service';
+import { animalsToReconcile } from '../server/features/rounds/urgent-tasks';
 import { SYNC_BATCH_SIZE } from '../shared/domain/sync-limits';
 import type { RecordedEvent } from '../shared/schemas/events';
 import { openRacksideDb } from '../src/lib/db';
@@ -53,8 +54,13 @@ export async function runP5(database: Database): Promise<{ figures: Figure[]; no
     await send(keeper.collectionId, { deviceId: 'bench', clientSentAt: new Date().toISOString(), events: taps(keeper.animalIds, 200) });
 
     // The ingestion service on its own (no HTTP, session or JSON), to show where time goes.
+    // Wired as server/app.ts wires it: meals checked against holds, today's round reconciled.
     const rounds = createRoundsService(database.db, () => new Date());
-    const service = createEventsService(database.db, rounds, () => new Date());
+    const service = createEventsService(database.db, {
+      now: () => new Date(),
+      feedHolds: rounds.feedHolds,
+      onRecorded: [(c, recorded) => rounds.reconcileToday(c.collectionId, animalsToReconcile(recorded))],
+    });
     const member = (await findMembership(database.db, keeper.collectionId, keeper.userId))!;
     const flushMs: number[] = [];
     const serverMs: number[] = [];

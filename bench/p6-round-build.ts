@@ -4,7 +4,7 @@ import { performance } from 'node:perf_hooks';
 import { eq, sql } from 'drizzle-orm';
 import type { Database } from '../server/db/client';
 import { rounds } from '../server/db/schema/rounds';
-import { refoldStates } from '../server/features/rounds/projection';
+import { refoldStates } from '../server/features/events/projection';
 import { loadAnimalsWithState } from '../server/features/rounds/rounds.repository';
 import { createRoundsService } from '../server/features/rounds/rounds.service';
 import { generateLabelTag } from '../shared/domain/labels/label-payload';

@@ -1,11 +1,6 @@
-import { randomUUID } from 'node:crypto';
 import path from 'node:path';
 import compression from 'compression';
-import connectPgSimple from 'connect-pg-simple';
-import express, { type RequestHandler } from 'express';
-import session from 'express-session';
-import helmet from 'helmet';
-import { pinoHttp } from 'pino-http';
+import express from 'express';
 import type { Role } from '../shared/domain/roles';
 import { createBackground } from './background';
 import type { Database } from './db/client';
@@ -18,6 +13,7 @@ import { breedingRoutes } from './features/breeding/breeding.routes';
 import { createBreedingService } from './features/breeding/breeding.service';
 import { collectionsRoutes } from './features/collections/collections.routes';
 import { createCollectionsService } from './features/collections/collections.service';
+import { myCollectionsRoutes } from './features/collections/my-collections.routes';
 import { createCoverReportsService } from './features/cover/cover-reports.service';
 import { coverInviteRoutes, coverRoutes } from './features/cover/cover.routes';
 import { createCoverService } from './features/cover/cover.service';
@@ -33,9 +29,10 @@ import { locationsRoutes } from './features/locations/locations.routes';
 import { createLocationsService } from './features/locations/locations.service';
 import { photosRoutes } from './features/photos/photos.routes';
 import { createPhotosService } from './features/photos/photos.service';
-import { roundsRoutes } from './features/rounds/rounds.routes';
+import { animalScheduleRoutes, prepListRoutes, roundsRoutes } from './features/rounds/rounds.routes';
 import { createRoundsService } from './features/rounds/rounds.service';
-import { redactError, redactRequest, redactResponse } from './log-redaction';
+import { rulesRoutes } from './features/rounds/rules.routes';
+import { animalsToReconcile } from './features/rounds/urgent-tasks';
 import { createLogger, type Logger } from './logger';
 import type { DevMailbox } from './mail/dev-smtp';
 import type { Mailer } from './mail/mailer';
@@ -45,14 +42,10 @@ import { apiNotFound, errorHandler, HttpError } from './middleware/errors';
 import { createLimiter } from './middleware/rate-limit';
 import { requireMember } from './middleware/roles';
 import { repoRoot } from './repo-root';
+import { requestLog } from './request-log';
+import { securityHeaders } from './security-headers';
+import { createSessionStore, SESSION_COOKIE, sessions } from './sessions';
 import { serveClient } from './static';
-
-/** Sessions for people signed in on their own phone for weeks (docs/decisions/003-sessions.md). */
-export const SESSION_IDLE_MS = 30 * 24 * 60 * 60 * 1000;
-export const SESSION_ABSOLUTE_MS = 90 * 24 * 60 * 60 * 1000;
-export const SESSION_COOKIE = 'rackside.sid';
-/** How often a request may push a session's idle expiry forward in the database. */
-export const SESSION_TOUCH_EVERY_MS = 10 * 60 * 1000;
 
 const defaultDist = path.join(repoRoot(), 'dist');
 
@@ -80,99 +73,18 @@ export function createApp(options: AppOptions) {
     app.set('trust proxy', Number.isInteger(n) ? n : env.TRUST_PROXY);
   }
 
-  app.use(
-    helmet({
-      contentSecurityPolicy: {
-        useDefaults: false,
-        directives: {
-          defaultSrc: ["'self'"],
-          scriptSrc: ["'self'"],
-          // html5-qrcode and React set inline style attributes.
-          styleSrc: ["'self'", "'unsafe-inline'"],
-          imgSrc: ["'self'", 'data:', 'blob:'],
-          mediaSrc: ["'self'", 'blob:'],
-          fontSrc: ["'self'"],
-          connectSrc: ["'self'"],
-          workerSrc: ["'self'"],
-          manifestSrc: ["'self'"],
-          objectSrc: ["'none'"],
-          baseUri: ["'self'"],
-          formAction: ["'self'"],
-          frameAncestors: ["'none'"],
-        },
-      },
-      crossOriginEmbedderPolicy: false,
-    }),
-  );
+  app.use(securityHeaders());
   // gzip for the app's JavaScript, CSS and JSON: a first visit over a slow mobile link moves
   // about a third of the bytes (P3). Today's round arrives already gzipped from its cache.
   app.use(compression());
-  app.use((_req, res, next) => {
-    res.setHeader('Permissions-Policy', 'camera=(self), microphone=(), geolocation=()');
-    next();
-  });
-  app.use(
-    pinoHttp({
-      logger,
-      genReqId: (req, res) => {
-        const id = randomUUID();
-        res.setHeader('X-Request-Id', id);
-        return id;
-      },
-      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
-      // No credential in a log line: the session cookie (sent and set), authorisation headers,
-      // the single-use tokens of invite and reset links, a database error's parameter values.
-      serializers: { req: redactRequest, res: redactResponse, err: redactError },
-    }),
-  );
+  app.use(requestLog(logger));
 
-  const PgStore = connectPgSimple(session);
-  // A rolling session would be written back on every request (an UPDATE per round read);
-  // its 30-day idle expiry only needs refreshing now and then (P7, decision 010).
-  class ThrottledTouchStore extends PgStore {
-    private readonly touchedAt = new Map<string, number>();
-    override touch(sid: string, sess: session.SessionData, done?: (err?: unknown) => void) {
-      const at = now().getTime();
-      if (at - (this.touchedAt.get(sid) ?? 0) < SESSION_TOUCH_EVERY_MS) return done?.();
-      if (this.touchedAt.size > 50_000) this.touchedAt.clear();
-      this.touchedAt.set(sid, at);
-      super.touch(sid, sess, done);
-    }
-  }
-  const store = new ThrottledTouchStore({
-    pool: database.pool,
-    tableName: 'sessions',
-    createTableIfMissing: false,
-    pruneSessionInterval: env.NODE_ENV === 'test' ? false : 15 * 60,
-  });
+  const store = createSessionStore(database.pool, env, now);
 
   const api = express.Router();
   // Imports and restores may be large: their routes parse them after the membership check.
   api.use(express.json({ limit: '1mb', type: (req) => !LARGE_BODY_PATHS.test(req.url ?? '') && /json/i.test(req.headers['content-type'] ?? '') }));
-  api.use(
-    session({
-      name: SESSION_COOKIE,
-      secret: env.SESSION_SECRET,
-      store,
-      resave: false,
-      saveUninitialized: false,
-      rolling: true,
-      cookie: {
-        httpOnly: true,
-        sameSite: 'lax',
-        secure: env.COOKIE_SECURE === 'auto' ? 'auto' : env.COOKIE_SECURE === 'true',
-        maxAge: SESSION_IDLE_MS,
-      },
-    }),
-  );
-  const absoluteTimeout: RequestHandler = (req, _res, next) => {
-    const began = req.session.signedInAt;
-    if (req.session.userId && (!began || Date.now() - began > SESSION_ABSOLUTE_MS)) {
-      return req.session.destroy(() => next(new HttpError(401, 'session_expired', 'Your sign-in has expired. Please sign in again.')));
-    }
-    next();
-  };
-  api.use(absoluteTimeout);
+  api.use(sessions(env, store));
   api.use(requireSameSiteWrite);
 
   const publicUrl = (p: string) => `${options.publicUrl ?? env.PUBLIC_URL ?? `http://localhost:${env.PORT}`}${p}`;
@@ -195,26 +107,47 @@ export function createApp(options: AppOptions) {
     handler: (_req, _res, next) => next(new HttpError(429, 'rate_limited', `This collection has sent ${limits.invitesPerCollection} invites today. More can go tomorrow.`)),
   });
   if (env.DEMO_MODE) api.use('/dev', devRoutes(options.devMailbox, auth, { mountMailbox: env.NODE_ENV !== 'production' }));
-  api.get('/collections', requireUser, async (req, res) => {
-    res.json({ memberships: (await auth.me(req.session.userId!)).memberships });
-  });
+  api.use('/collections', myCollectionsRoutes(auth));
   api.use('/cover-invites', coverInviteRoutes(cover, auth, limiter('invite-ip', { windowMs: 15 * 60_000, limit: options.authLimits?.signInPerIp ?? DEFAULT_AUTH_LIMITS.signInPerIp })));
-  api.use('/collections/:collectionId', requireUser);
+
   const animals = createAnimalsService(database.db, now);
   const rounds = createRoundsService(database.db, now);
+  const events = createEventsService(database.db, {
+    now,
+    feedHolds: rounds.feedHolds,
+    // Facts that start or lift a hold, or leave prey with a molting animal, change today's
+    // round at once (R18): the events feature knows nothing of rounds.
+    onRecorded: [(c, recorded) => rounds.reconcileToday(c.collectionId, animalsToReconcile(recorded))],
+  });
   const photos = createPhotosService(database.db, path.resolve(env.STORAGE_DIR), now);
-  api.use('/collections/:collectionId', dataRoutes(createDataService(database.db, { animals, photos, now }), member));
-  api.use('/collections/:collectionId/animals', animalsRoutes(animals, member));
-  api.use('/collections/:collectionId/locations', locationsRoutes(createLocationsService(database.db), member));
-  api.use('/collections/:collectionId', roundsRoutes(rounds, animals, member));
-  const events = createEventsService(database.db, rounds, now);
-  api.use('/collections/:collectionId/events', eventsRoutes(events, member));
-  api.use('/collections/:collectionId', photosRoutes(photos, member));
   const coverReports = createCoverReportsService(database.db, { mailer: options.mailer, now, rounds, publicUrl, logger });
-  api.use('/collections/:collectionId', coverRoutes(cover, coverReports, rounds, member, inviteLimit));
-  api.use('/collections/:collectionId', breedingRoutes(createBreedingService(database.db, now, (id, animalIds) => rounds.reconcileToday(id, animalIds)), member));
-  api.use('/collections/:collectionId', labelsRoutes(createLabelsService(database.db), member));
-  api.use('/collections/:collectionId', collectionsRoutes(createCollectionsService(database.db, { mailer: options.mailer, now, publicUrl, background, removeFiles: photos.removeCollection }), member, inviteLimit));
+  // A breeding record's facts may start or end a hold today (R18).
+  const breeding = createBreedingService(database.db, now, (id, animalIds) => rounds.reconcileToday(id, animalIds));
+  const collections = createCollectionsService(database.db, { mailer: options.mailer, now, publicUrl, background, removeFiles: photos.removeCollection });
+
+  // Everything under a collection: signed in first, then each route's own membership check.
+  const collection = (p = '') => `/collections/:collectionId${p}`;
+  api.use(collection(), requireUser);
+  // Routers that serve several paths of their own under the collection:
+  //   data: /export/animals.csv, /export/events.csv, /animals/import, /backup, /restore
+  api.use(collection(), dataRoutes(createDataService(database.db, { animals, photos, now }), member));
+  api.use(collection('/animals'), animalsRoutes(animals, member));
+  api.use(collection('/animals/:animalId'), animalScheduleRoutes(rounds, animals.updateCare, member));
+  api.use(collection('/locations'), locationsRoutes(createLocationsService(database.db), member));
+  api.use(collection('/rounds'), roundsRoutes(rounds, member));
+  api.use(collection('/prep-list'), prepListRoutes(rounds, member));
+  api.use(collection('/rules'), rulesRoutes(rounds, member));
+  api.use(collection('/events'), eventsRoutes(events, member));
+  //   photos: /animals/:animalId/photo, /animals/:animalId/molts/:eventId/photo
+  api.use(collection(), photosRoutes(photos, member));
+  //   cover: /covers…, /handover…, /cover-reports, /cover/mine…
+  api.use(collection(), coverRoutes(cover, coverReports, rounds, member, inviteLimit));
+  //   breeding: /egg-sacs…, /incubation
+  api.use(collection(), breedingRoutes(breeding, member));
+  //   labels: /labels/pdf, /animals/:animalId/relabel
+  api.use(collection(), labelsRoutes(createLabelsService(database.db), member));
+  //   collections: the collection itself (/), /members…, /membership
+  api.use(collection(), collectionsRoutes(collections, member, inviteLimit));
   api.use(apiNotFound);
   api.use(errorHandler);
   app.use('/api', api);

@@ -3,7 +3,7 @@
 import { randomUUID } from 'node:crypto';
 import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { SESSION_ABSOLUTE_MS, SESSION_TOUCH_EVERY_MS } from '../../server/app';
+import { SESSION_ABSOLUTE_MS, SESSION_TOUCH_EVERY_MS } from '../../server/sessions';
 import { PASSWORD, sessionCookie, signUp, signUpLink } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 

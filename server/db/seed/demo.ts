@@ -8,13 +8,13 @@ import { breedingFacts, breedingModeOf, type BreedingRecordKind } from '../../..
 import type { EventKind } from '../../../shared/domain/event-kinds';
 import { generateLabelCodes } from '../../../shared/domain/label-codes';
 import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
-import { projectState, type EngineEvent } from '../../../shared/domain/rounds/animal-state';
 import { DEFAULT_RULES, feedingInterval, postMoltHoldDays } from '../../../shared/domain/rounds/rules';
 import { insertCollection } from '../../access/collections';
 import { hashPassword } from '../../access/passwords';
-import { animals, eggSacs, events } from '../schema/animals';
+import { refoldStates } from '../../features/events/projection';
+import { recordEvents } from '../../features/events/record-events';
+import { animals, eggSacs } from '../schema/animals';
 import { collections, locations, memberships } from '../schema/collections';
-import { animalStates } from '../schema/rounds';
 import { users } from '../schema/users';
 import { DEMO_ACCOUNTS, DEMO_COLLECTION, DEMO_PASSWORD } from './demo-people';
 
@@ -210,19 +210,6 @@ export function historyFor(animal: DemoAnimal, today: LocalDate, random: () => n
   return out;
 }
 
-/**
- * The round engine's state of each animal, folded from its whole history with the engine's own
- * projection (as a refold after a restore does): the seed holds every event it wrote.
- */
-function projectedStates(collectionId: string, animalRows: { id: string }[], history: { id: string; animalId: string; kind: EventKind; payload: Record<string, unknown>; effectiveAt: Date }[], zone: string) {
-  const logs = new Map<string, EngineEvent[]>(animalRows.map((a) => [a.id, []]));
-  for (const e of history) logs.get(e.animalId)!.push({ id: e.id, kind: e.kind, effectiveAt: e.effectiveAt.toISOString(), payload: e.payload });
-  return [...logs].map(([animalId, log]) => {
-    const state = projectState(log, zone);
-    return { animalId, collectionId, state, lastEventAt: state.lastEventAt ? new Date(state.lastEventAt) : null };
-  });
-}
-
 export interface SeedOptions {
   reset?: boolean;
   ifEmpty?: boolean;
@@ -364,8 +351,8 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
         rows.push({ id: randomUUID(), collectionId, animalId: femaleId, kind: fact.kind, payload: { sacId: record!.id }, ...ownerOf, clientRecordedAt: at, clientSentAt: at, serverReceivedAt: at, effectiveAt: at });
       }
     }
-    for (let i = 0; i < rows.length; i += 500) await tx.insert(events).values(rows.slice(i, i + 500));
-    await tx.insert(animalStates).values(projectedStates(collectionId, insertedAnimals, rows, zone));
+    await recordEvents(tx, { collectionId }, rows, { from: 'history' });
+    await refoldStates(tx, collectionId, zone);
     return { created: true, animals: roster.length, events: rows.length, collectionId, today };
   });
 }

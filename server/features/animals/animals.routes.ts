@@ -25,7 +25,7 @@ export function animalsRoutes(service: AnimalsService, member: (min: Role) => Re
   });
 
   router.post('/move', member('keeper'), validate({ body: moveBody }), async (req, res) => {
-    res.json({ moved: await service.move(collectionId(res), currentUserId(req), input<MoveBody>(res, 'body')) });
+    res.json({ moved: await service.move(membershipOf(res), currentUserId(req), input<MoveBody>(res, 'body')) });
   });
 
   router.get('/:animalId', member('keeper'), validate({ params: animalParams }), async (_req, res) => {
@@ -34,18 +34,18 @@ export function animalsRoutes(service: AnimalsService, member: (min: Role) => Re
 
   router.put('/:animalId', member('keeper'), validate({ params: animalParams, body: animalInput }), async (req, res) => {
     const { animalId } = input<{ animalId: string }>(res, 'params');
-    res.json(await service.update(collectionId(res), animalId, currentUserId(req), input<AnimalValues>(res, 'body')));
+    res.json(await service.update(membershipOf(res), animalId, currentUserId(req), input<AnimalValues>(res, 'body')));
   });
 
   router.post('/:animalId/retire', member('keeper'), validate({ params: animalParams, body: retireBody }), async (req, res) => {
     const { animalId } = input<{ animalId: string }>(res, 'params');
-    res.json(await service.retire(collectionId(res), animalId, currentUserId(req), input(res, 'body')));
+    res.json(await service.retire(membershipOf(res), animalId, currentUserId(req), input(res, 'body')));
   });
 
   router.post('/:animalId/reinstate', member('keeper'), validate({ params: animalParams, body: reinstateBody }), async (req, res) => {
     const { animalId } = input<{ animalId: string }>(res, 'params');
     const { note } = input<{ note?: string }>(res, 'body');
-    res.json(await service.setStatus(collectionId(res), animalId, currentUserId(req), { status: 'active', date: null, note }));
+    res.json(await service.setStatus(membershipOf(res), animalId, currentUserId(req), { status: 'active', date: null, note }));
   });
 
   return router;

@@ -7,7 +7,7 @@ import type { MemberCollection } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { isUniqueViolation } from '../../db/errors';
 import { HttpError } from '../../middleware/errors';
-import { recordServerEvents } from './animal-events';
+import { recordEvents, type EventCollection } from '../events/record-events';
 import { toAnimalSummary } from './animal-summary';
 import {
   codesInCollection,
@@ -114,40 +114,43 @@ export function createAnimalsService(db: Db, now: () => Date = () => new Date())
     },
 
     /** An edit; a change of place is kept in the history as a move. The code changes only by re-labelling. */
-    async update(collectionId: string, animalId: string, userId: string, values: AnimalValues): Promise<AnimalSummary> {
+    async update(collection: EventCollection, animalId: string, userId: string, values: AnimalValues): Promise<AnimalSummary> {
+      const { collectionId } = collection;
       await db.transaction(async (tx) => {
         const before = await findPlaceAndStatus(tx, collectionId, animalId);
         if (!before) throw notFound();
         await checkLocation(tx, collectionId, values.locationId);
         await updateAnimal(tx, animalId, { ...columnsOf(values), updatedAt: now() });
         if (before.locationId !== values.locationId && values.locationId) {
-          await recordServerEvents(tx, [{ collectionId, animalId, kind: 'moved', payload: { fromLocationId: before.locationId, toLocationId: values.locationId }, recordedBy: userId }], now());
+          await recordEvents(tx, collection, [{ animalId, kind: 'moved', payload: { fromLocationId: before.locationId, toLocationId: values.locationId }, recordedBy: userId }], { from: 'server', at: now() });
         }
       });
       return summaryOf(collectionId, animalId);
     },
 
     /** Sold, deceased, rehomed or on loan: off the round from now on, history kept. */
-    async setStatus(collectionId: string, animalId: string, userId: string, body: { status: AnimalSummary['status']; date: string | null; note?: string | null }) {
+    async setStatus(collection: EventCollection, animalId: string, userId: string, body: { status: AnimalSummary['status']; date: string | null; note?: string | null }) {
+      const { collectionId } = collection;
       await db.transaction(async (tx) => {
         const before = await findPlaceAndStatus(tx, collectionId, animalId);
         if (!before) throw notFound();
         if (before.status === body.status) throw new HttpError(409, 'unchanged', `The animal is already ${body.status.replace('_', ' ')}.`);
         await updateAnimal(tx, animalId, { status: body.status, statusDate: body.date, updatedAt: now() });
-        await recordServerEvents(tx, [{ collectionId, animalId, kind: 'status_changed', payload: { from: before.status, to: body.status, ...(body.note ? { note: body.note } : {}) }, recordedBy: userId }], now());
+        await recordEvents(tx, collection, [{ animalId, kind: 'status_changed', payload: { from: before.status, to: body.status, ...(body.note ? { note: body.note } : {}) }, recordedBy: userId }], { from: 'server', at: now() });
       });
       return summaryOf(collectionId, animalId);
     },
 
-    retire(collectionId: string, animalId: string, userId: string, body: RetireBody) {
-      return this.setStatus(collectionId, animalId, userId, { status: body.status, date: body.date, note: body.note });
+    retire(collection: EventCollection, animalId: string, userId: string, body: RetireBody) {
+      return this.setStatus(collection, animalId, userId, { status: body.status, date: body.date, note: body.note });
     },
 
     /**
      * One animal or many to one place; each gets a "moved" fact in its history. A rehouse into
      * a new enclosure is recorded even in the same place: it starts settling (R16).
      */
-    async move(collectionId: string, userId: string, { animalIds, locationId, rehoused }: MoveBody): Promise<number> {
+    async move(collection: EventCollection, userId: string, { animalIds, locationId, rehoused }: MoveBody): Promise<number> {
+      const { collectionId } = collection;
       const ids = [...new Set(animalIds)];
       return db.transaction(async (tx) => {
         await checkLocation(tx, collectionId, locationId);
@@ -156,7 +159,7 @@ export function createAnimalsService(db: Db, now: () => Date = () => new Date())
         const moving = rehoused ? rows : rows.filter((r) => r.locationId !== locationId);
         if (!moving.length) return 0;
         await moveAnimals(tx, moving.map((r) => r.id), locationId, now());
-        await recordServerEvents(tx, moving.map((r) => ({ collectionId, animalId: r.id, kind: 'moved' as const, payload: { fromLocationId: r.locationId, toLocationId: locationId, ...(rehoused ? { rehoused: true } : {}) }, recordedBy: userId })), now());
+        await recordEvents(tx, collection, moving.map((r) => ({ animalId: r.id, kind: 'moved' as const, payload: { fromLocationId: r.locationId, toLocationId: locationId, ...(rehoused ? { rehoused: true } : {}) }, recordedBy: userId })), { from: 'server', at: now() });
         return moving.length;
       });
     },

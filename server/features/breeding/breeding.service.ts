@@ -5,7 +5,7 @@ import type { EggSacBody, EggSacChange, EggSacView } from '../../../shared/schem
 import type { MemberCollection } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
-import { recordServerEvents } from '../animals/animal-events';
+import { recordEvents } from '../events/record-events';
 import {
   codesInCollection,
   findAnimal,
@@ -106,13 +106,14 @@ export function createBreedingService(db: Db, now: () => Date, afterFacts: (coll
     const stale = mine.filter((f) => !kept.has(f.id));
     const at = now();
     const base = { collectionId: record.collectionId, animalId: record.femaleId, recordedBy: userId };
-    await recordServerEvents(
+    await recordEvents(
       tx,
+      { collectionId: record.collectionId, timeZone: zone },
       [
         ...stale.map((f) => ({ ...base, kind: 'void' as const, payload: { targetId: f.id, note: 'The record’s date changed.' } })),
         ...missing.map((w) => ({ ...base, kind: w.kind, payload: { sacId: record.id }, effectiveAt: instantOfKeeperDate(w.date, zone, at) })),
       ],
-      at,
+      { from: 'server', at },
     );
   }
 

@@ -6,7 +6,6 @@ import { users } from '../../db/schema/users';
 
 // Kept for events.service, which still imports the type from here: remove once it imports
 // it from server/access/memberships (the events rewrite does).
-export type { Membership } from '../../access/memberships';
 
 export async function listMembers(db: Db, collectionId: string) {
   return db

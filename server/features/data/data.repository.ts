@@ -132,27 +132,6 @@ export async function insertAnimals(tx: Db, rows: NewAnimal[]) {
   if (rows.length) await tx.insert(animals).values(rows);
 }
 
-/** One statement over unnest()ed column arrays, as the sync path does; a repeated id fails. */
-export async function insertEvents(tx: Db, rows: NewEvent[]) {
-  if (!rows.length) return;
-  const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
-  await tx.execute(sql`
-    insert into events (id, collection_id, animal_id, kind, payload, recorded_by, device_id,
-                        client_recorded_at, client_sent_at, server_received_at, effective_at, flags)
-    select t.id, t.collection_id, t.animal_id, t.kind, t.payload::jsonb, t.recorded_by, t.device_id,
-           t.client_recorded_at, t.client_sent_at, t.server_received_at, t.effective_at,
-           coalesce(string_to_array(nullif(t.flags, ''), ','), '{}')
-    from unnest(
-      ${list(rows.map((r) => r.id))}::uuid[], ${list(rows.map((r) => r.collectionId))}::uuid[],
-      ${list(rows.map((r) => r.animalId))}::uuid[], ${list(rows.map((r) => r.kind))}::text[],
-      ${list(rows.map((r) => JSON.stringify(r.payload ?? {})))}::text[], ${list(rows.map((r) => r.recordedBy ?? null))}::uuid[],
-      ${list(rows.map((r) => r.deviceId ?? null))}::text[], ${list(rows.map((r) => iso(r.clientRecordedAt)))}::timestamptz[],
-      ${list(rows.map((r) => iso(r.clientSentAt)))}::timestamptz[], ${list(rows.map((r) => iso(r.serverReceivedAt)))}::timestamptz[],
-      ${list(rows.map((r) => iso(r.effectiveAt)))}::timestamptz[], ${list(rows.map((r) => (r.flags ?? []).join(',')))}::text[]
-    ) as t(id, collection_id, animal_id, kind, payload, recorded_by, device_id,
-           client_recorded_at, client_sent_at, server_received_at, effective_at, flags)`);
-}
-
 export async function insertEventPhotos(tx: Db, rows: NewEventPhoto[]) {
   if (rows.length) await tx.insert(eventPhotos).values(rows);
 }

@@ -9,8 +9,9 @@ import type { RulesOverrideBody } from '../../../shared/schemas/rules';
 import type { MemberCollection } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
+import { refoldStates } from '../events/projection';
+import { recordEvents } from '../events/record-events';
 import type { PhotosService, RestoreWorkspace } from '../photos/photos.service';
-import { refoldStates } from '../rounds/projection';
 import { BACKUP_LISTS, readBackup, type BackupList, type BackupRecord } from './backup-reader';
 import * as repo from './data.repository';
 import { createJsonGuard, tooLarge } from './json-guard';
@@ -265,7 +266,7 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
         // People belong to a server: someone this server does not know is recorded as nobody.
         const known = await repo.existingUserIds(tx, [...new Set(batch.events.flatMap((e) => (e.recordedBy ? [e.recordedBy] : [])))]);
         for (const e of batch.events) if (e.recordedBy && !known.has(e.recordedBy)) e.recordedBy = null;
-        await repo.insertEvents(tx, batch.events);
+        await recordEvents(tx, { collectionId }, batch.events, { from: 'history' });
       }
       await repo.insertEventPhotos(tx, batch.photos.map((p) => p.row));
     });

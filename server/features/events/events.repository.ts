@@ -1,4 +1,4 @@
-import { and, desc, eq, sql } from 'drizzle-orm';
+import { and, desc, eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { animals, eventPhotos, events } from '../../db/schema/animals';
 import { users } from '../../db/schema/users';
@@ -8,10 +8,12 @@ export type NewEvent = typeof events.$inferInsert;
 const list = (values: unknown[]) => sql.param(values);
 
 /**
- * Inserts events keyed by their client-made ids; a re-sent id is left as it was. One
- * statement over unnest()ed column arrays: a dozen parameters instead of thousands (P5).
+ * Inserts events in one statement per 1,000 over unnest()ed column arrays: a dozen parameters
+ * instead of thousands (P5). `ifStored: 'skip'` leaves a re-sent id as it was (the ids of
+ * phones' taps are their key) and returns only the ids inserted now; `'fail'` makes a repeated
+ * id an error (a backup listing an entry twice).
  */
-export async function insertEventsOnce(db: Db, rows: NewEvent[]): Promise<Set<string>> {
+export async function insertEvents(db: Db, rows: NewEvent[], ifStored: 'skip' | 'fail'): Promise<Set<string>> {
   const inserted = new Set<string>();
   for (let i = 0; i < rows.length; i += 1000) {
     const chunk = rows.slice(i, i + 1000);
@@ -21,7 +23,7 @@ export async function insertEventsOnce(db: Db, rows: NewEvent[]): Promise<Set<st
                           client_recorded_at, client_sent_at, server_received_at, effective_at, flags)
       select t.id, t.collection_id, t.animal_id, t.kind, t.payload::jsonb, t.recorded_by, t.device_id,
              t.client_recorded_at, t.client_sent_at, t.server_received_at, t.effective_at,
-             string_to_array(t.flags, ',')
+             coalesce(string_to_array(nullif(t.flags, ''), ','), '{}')
       from unnest(
         ${list(chunk.map((r) => r.id))}::uuid[], ${list(chunk.map((r) => r.collectionId))}::uuid[],
         ${list(chunk.map((r) => r.animalId))}::uuid[], ${list(chunk.map((r) => r.kind))}::text[],
@@ -31,7 +33,7 @@ export async function insertEventsOnce(db: Db, rows: NewEvent[]): Promise<Set<st
         ${list(chunk.map((r) => iso(r.effectiveAt)))}::timestamptz[], ${list(chunk.map((r) => (r.flags ?? []).join(',')))}::text[]
       ) as t(id, collection_id, animal_id, kind, payload, recorded_by, device_id,
              client_recorded_at, client_sent_at, server_received_at, effective_at, flags)
-      on conflict (id) do nothing
+      ${ifStored === 'skip' ? sql`on conflict (id) do nothing` : sql``}
       returning id`);
     for (const r of result.rows) inserted.add(r.id);
   }
@@ -114,4 +116,20 @@ export async function recentEventsOf(
     .where(and(eq(events.collectionId, collectionId), eq(events.animalId, animalId)))
     .orderBy(desc(events.effectiveAt), desc(events.id))
     .limit(limit);
+}
+
+/** These animals' molts, molt details and voids: what their size and sex follow. */
+export async function moltRecordsOf(db: Db, collectionId: string, animalIds: string[]) {
+  return db
+    .select({ id: events.id, animalId: events.animalId, kind: events.kind, payload: events.payload, at: events.effectiveAt })
+    .from(events)
+    .where(and(eq(events.collectionId, collectionId), inArray(events.animalId, animalIds), inArray(events.kind, ['molted', 'molt_details', 'void'])));
+}
+
+export async function sexesOf(db: Db, animalIds: string[]) {
+  return db.select({ id: animals.id, sex: animals.sex }).from(animals).where(inArray(animals.id, animalIds));
+}
+
+export async function setSexAndSize(db: Db, animalId: string, values: { sex: (typeof animals.$inferSelect)['sex']; sizeMm?: number }) {
+  await db.update(animals).set(values).where(eq(animals.id, animalId));
 }

@@ -4,6 +4,10 @@
 // entry is never newer than its key claims and never served after the data changed.
 import { createHash } from 'node:crypto';
 import { gzipSync } from 'node:zlib';
+import type { LocalDate } from '../../../shared/domain/local-dates';
+import { progressOf, type DayOutcome } from '../../../shared/domain/rounds/settle';
+import type { RoundItemView } from '../../../shared/schemas/rounds';
+import { viewItem, type BuiltPart, type ViewInput } from './round-view';
 
 export interface SerialisedRound {
   etag: string;
@@ -47,4 +51,29 @@ export class LatestByKey<T> {
     while (this.entries.size > this.maxOwners) this.entries.delete(this.entries.keys().next().value!);
     return value;
   }
+}
+
+/**
+ * The same JSON as `JSON.stringify(roundView(...))`, each item's text kept while its outcomes
+ * (and who recorded them) stand: after a tap only the tapped animals' items are settled and
+ * serialised again. Items are remembered by identity, so a cached built part keeps them warm.
+ */
+export function createRoundJson() {
+  const itemJson = new WeakMap<ViewInput, { signature: string; view: RoundItemView; json: string }>();
+  return (zone: string, date: LocalDate, part: BuiltPart, outcomes: Map<string, DayOutcome[]>): string => {
+    const entries = part.items.map((item) => {
+      const own = outcomes.get(item.animal.id) ?? [];
+      const signature = own.map((o) => `${o.eventId}:${o.by ?? ''}`).join(',');
+      let entry = itemJson.get(item);
+      if (entry?.signature !== signature) {
+        const v = viewItem(zone, item, own);
+        entry = { signature, view: v, json: JSON.stringify(v) };
+        itemJson.set(item, entry);
+      }
+      return entry;
+    });
+    const head = { date, timeZone: zone, builtAt: part.builtAt?.toISOString() ?? null };
+    const tail = { prepList: part.prepList, progress: progressOf(entries.map((e) => e.view)) };
+    return `${JSON.stringify(head).slice(0, -1)},"items":[${entries.map((e) => e.json).join(',')}],${JSON.stringify(tail).slice(1)}`;
+  };
 }

@@ -1,8 +1,7 @@
-import { and, asc, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, eq, gte, inArray, sql } from 'drizzle-orm';
 import type { LocalDate } from '../../../shared/domain/local-dates';
-import type { AnimalState, EngineEvent } from '../../../shared/domain/rounds/animal-state';
 import type { Db } from '../../db/client';
-import { animals, events } from '../../db/schema/animals';
+import { animals, events, handoverNotes } from '../../db/schema/animals';
 import { collections, locations } from '../../db/schema/collections';
 import { animalStates, roundItems, rounds } from '../../db/schema/rounds';
 import { users } from '../../db/schema/users';
@@ -11,6 +10,8 @@ export async function findCollection(db: Db, collectionId: string) {
   const [row] = await db.select().from(collections).where(eq(collections.id, collectionId)).limit(1);
   return row ?? null;
 }
+/** A collection as the round reads it: its zone, rules and feeders. */
+export type RoundCollection = NonNullable<Awaited<ReturnType<typeof findCollection>>>;
 
 export async function updateCollectionRules(db: Db, collectionId: string, rules: unknown) {
   await db.update(collections).set({ rules }).where(eq(collections.id, collectionId));
@@ -27,35 +28,12 @@ export async function loadAnimalsWithState(db: Db, collectionId: string, animalI
 }
 export type AnimalRow = Awaited<ReturnType<typeof loadAnimalsWithState>>[number];
 
-export async function loadEventsOf(db: Db, animalIds: string[]): Promise<Map<string, EngineEvent[]>> {
-  const byAnimal = new Map<string, EngineEvent[]>(animalIds.map((id) => [id, []]));
-  if (!animalIds.length) return byAnimal;
-  const rows = await db
-    .select({ id: events.id, animalId: events.animalId, kind: events.kind, effectiveAt: events.effectiveAt, payload: events.payload })
-    .from(events)
-    .where(inArray(events.animalId, animalIds));
-  for (const r of rows) {
-    byAnimal.get(r.animalId)!.push({
-      id: r.id,
-      kind: r.kind as EngineEvent['kind'],
-      effectiveAt: r.effectiveAt.toISOString(),
-      payload: r.payload as Record<string, unknown>,
-    });
-  }
-  return byAnimal;
-}
-
-/** Writes projected states, one statement per 1,000 animals over unnest()ed arrays. */
-export async function upsertStates(db: Db, collectionId: string, states: { animalId: string; state: AnimalState }[]) {
-  for (let i = 0; i < states.length; i += 1000) {
-    const chunk = states.slice(i, i + 1000);
-    await db.execute(sql`
-      insert into animal_states (animal_id, collection_id, state, last_event_at, updated_at)
-      select t.animal_id, ${collectionId}::uuid, t.state::jsonb, t.last_event_at, now()
-      from unnest(${sql.param(chunk.map((s) => s.animalId))}::uuid[], ${sql.param(chunk.map((s) => JSON.stringify(s.state)))}::text[],
-                  ${sql.param(chunk.map((s) => s.state.lastEventAt))}::timestamptz[]) as t(animal_id, state, last_event_at)
-      on conflict (animal_id) do update set state = excluded.state, last_event_at = excluded.last_event_at, updated_at = excluded.updated_at`);
-  }
+/** Handover notes saying "do not feed" that still run on or after `from`: each animal's last held day. */
+export async function doNotFeedNotes(db: Db, collectionId: string, from: LocalDate) {
+  return db
+    .select({ animalId: handoverNotes.animalId, until: handoverNotes.until })
+    .from(handoverNotes)
+    .where(and(eq(handoverNotes.collectionId, collectionId), eq(handoverNotes.doNotFeed, true), gte(handoverNotes.until, from)));
 }
 
 export async function findRound(db: Db, collectionId: string, date: LocalDate) {

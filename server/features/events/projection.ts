@@ -1,13 +1,12 @@
-import { eq, sql } from 'drizzle-orm';
+// The projection the round engine reads (animal_states): each animal's log folded into its
+// state, kept in step with the log in the same transaction as every write to it.
 import { applyEvent, EMPTY_STATE, isInOrder, projectState, type AnimalState, type EngineEvent } from '../../../shared/domain/rounds/animal-state';
 import type { Db } from '../../db/client';
-import { animals } from '../../db/schema/animals';
-import { animalStates } from '../../db/schema/rounds';
-import { loadEventsOf, upsertStates } from './rounds.repository';
+import { animalIdsOf, loadEventsOf, lockStates, upsertStates } from './projection.repository';
 
 /** Re-folds animals' states from the whole event log (all of a collection's when no ids). */
 export async function refoldStates(db: Db, collectionId: string, zone: string, animalIds?: string[]) {
-  const ids = animalIds ?? (await db.select({ id: animals.id }).from(animals).where(eq(animals.collectionId, collectionId))).map((r) => r.id);
+  const ids = animalIds ?? (await animalIdsOf(db, collectionId));
   const logs = await loadEventsOf(db, ids);
   await upsertStates(db, collectionId, ids.map((id) => ({ animalId: id, state: projectState(logs.get(id) ?? [], zone) })));
 }
@@ -22,11 +21,7 @@ export async function applyNewEvents(db: Db, collectionId: string, zone: string,
   for (const e of fresh) byAnimal.set(e.animalId, [...(byAnimal.get(e.animalId) ?? []), e]);
   const ids = [...byAnimal.keys()];
   if (!ids.length) return;
-  const current = new Map(
-    (await db.select({ animalId: animalStates.animalId, state: animalStates.state }).from(animalStates).where(sql`${animalStates.animalId} = any(${sql.param(ids)}::uuid[])`).for('update')).map(
-      (r) => [r.animalId, r.state as AnimalState],
-    ),
-  );
+  const current = await lockStates(db, ids);
   const refold: string[] = [];
   const updated: { animalId: string; state: AnimalState }[] = [];
   for (const [animalId, list] of byAnimal) {

@@ -1,0 +1,96 @@
+// The one way into the event log. Phones' taps, the facts the server records itself (moves,
+// status changes, breeding records) and whole histories (a restore, the demo seed) are stored
+// here, so every fact reaches the projection and the animal's record the same way.
+import { randomUUID } from 'node:crypto';
+import type { EventKind } from '../../../shared/domain/event-kinds';
+import type { Db } from '../../db/client';
+import { insertEvents, type NewEvent } from './events.repository';
+import { MOLT_FACT_KINDS, applyMoltFacts } from './molt-facts';
+import { applyNewEvents } from './projection';
+
+/** The collection the events belong to, as the request's membership carries it. */
+export interface EventCollection {
+  collectionId: string;
+  timeZone: string;
+}
+
+/** A tap made on a phone, already judged (shared/domain/event-verdicts.ts). */
+export interface DeviceEvent {
+  id: string;
+  animalId: string;
+  kind: EventKind;
+  payload: Record<string, unknown>;
+  recordedBy: string | null;
+  deviceId: string | null;
+  clientRecordedAt: Date;
+  clientSentAt: Date | null;
+  effectiveAt: Date;
+  flags?: string[];
+}
+
+/** A fact the server records itself; without `effectiveAt` it happened when it is recorded. */
+export interface ServerFact {
+  animalId: string;
+  kind: EventKind;
+  payload: Record<string, unknown>;
+  recordedBy: string | null;
+  /** A date the keeper gave ("pulled on 3 Mar"). */
+  effectiveAt?: Date;
+}
+
+/** An event kept as it was: from a backup, or the demo's invented history. */
+export type KeptEvent = Omit<NewEvent, 'collectionId'>;
+
+export type DeviceSource = { from: 'device'; receivedAt: Date };
+export type ServerSource = { from: 'server'; at: Date };
+/**
+ * A whole history at once. Its events are stored as they are, a repeated id refused, and the
+ * projection is left to the caller, who re-folds once at the end (`refoldStates`): folding
+ * event by event would re-read a long log for every late or undone entry.
+ */
+export type HistorySource = { from: 'history' };
+
+/**
+ * Stores events in the caller's transaction and brings the projection and the animals' size
+ * and sex (molt facts) up to date with the ones that are new. Returns the ids stored now: a
+ * phone's re-sent tap is already there and is left as it was.
+ */
+export async function recordEvents(db: Db, collection: EventCollection, events: DeviceEvent[], source: DeviceSource): Promise<Set<string>>;
+export async function recordEvents(db: Db, collection: EventCollection, events: ServerFact[], source: ServerSource): Promise<Set<string>>;
+export async function recordEvents(db: Db, collection: Pick<EventCollection, 'collectionId'>, events: KeptEvent[], source: HistorySource): Promise<Set<string>>;
+export async function recordEvents(
+  db: Db,
+  collection: EventCollection | Pick<EventCollection, 'collectionId'>,
+  events: (DeviceEvent | ServerFact | KeptEvent)[],
+  source: DeviceSource | ServerSource | HistorySource,
+): Promise<Set<string>> {
+  if (!events.length) return new Set();
+  const { collectionId } = collection;
+  if (source.from === 'history') return insertEvents(db, (events as KeptEvent[]).map((e) => ({ ...e, collectionId })), 'fail');
+  const { timeZone } = collection as EventCollection;
+
+  const rows: NewEvent[] =
+    source.from === 'device'
+      ? (events as DeviceEvent[]).map((e) => ({ ...e, collectionId, serverReceivedAt: source.receivedAt, flags: e.flags ?? [] }))
+      : (events as ServerFact[]).map((e) => ({
+          ...e,
+          id: randomUUID(),
+          collectionId,
+          // Stamped with the server's clock: there is no phone whose clock could be wrong.
+          deviceId: 'server',
+          clientRecordedAt: source.at,
+          clientSentAt: source.at,
+          serverReceivedAt: source.at,
+          effectiveAt: e.effectiveAt ?? source.at,
+        }));
+  const stored = await insertEvents(db, rows, 'skip');
+  const fresh = rows.filter((r) => stored.has(r.id));
+  await applyNewEvents(
+    db,
+    collectionId,
+    timeZone,
+    fresh.map((e) => ({ id: e.id, animalId: e.animalId, kind: e.kind as EventKind, payload: e.payload as Record<string, unknown>, effectiveAt: e.effectiveAt.toISOString() })),
+  );
+  await applyMoltFacts(db, collectionId, timeZone, [...new Set(fresh.filter((e) => MOLT_FACT_KINDS.includes(e.kind)).map((e) => e.animalId))]);
+  return stored;
+}

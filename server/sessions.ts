@@ -1,0 +1,80 @@
+// Sessions for people signed in on their own phone for weeks (docs/decisions/003-sessions.md),
+// kept in PostgreSQL so every server process knows them.
+import connectPgSimple from 'connect-pg-simple';
+import type { RequestHandler } from 'express';
+import session from 'express-session';
+import type pg from 'pg';
+import type { Env } from './env';
+import { HttpError } from './middleware/errors';
+
+export const SESSION_IDLE_MS = 30 * 24 * 60 * 60 * 1000;
+export const SESSION_ABSOLUTE_MS = 90 * 24 * 60 * 60 * 1000;
+export const SESSION_COOKIE = 'rackside.sid';
+/** How often a request may push a session's idle expiry forward in the database. */
+export const SESSION_TOUCH_EVERY_MS = 10 * 60 * 1000;
+
+const PgStore = connectPgSimple(session);
+
+/**
+ * A rolling session would be written back on every request (an UPDATE per round read); its
+ * 30-day idle expiry only needs refreshing now and then (P7, decision 010).
+ */
+class ThrottledTouchStore extends PgStore {
+  private readonly touchedAt = new Map<string, number>();
+
+  constructor(
+    options: ConstructorParameters<typeof PgStore>[0],
+    private readonly now: () => Date,
+  ) {
+    super(options);
+  }
+
+  override touch(sid: string, sess: session.SessionData, done?: (err?: unknown) => void) {
+    const at = this.now().getTime();
+    if (at - (this.touchedAt.get(sid) ?? 0) < SESSION_TOUCH_EVERY_MS) return done?.();
+    if (this.touchedAt.size > 50_000) this.touchedAt.clear();
+    this.touchedAt.set(sid, at);
+    super.touch(sid, sess, done);
+  }
+}
+
+export function createSessionStore(pool: pg.Pool, env: Env, now: () => Date) {
+  return new ThrottledTouchStore(
+    {
+      pool,
+      tableName: 'sessions',
+      createTableIfMissing: false,
+      pruneSessionInterval: env.NODE_ENV === 'test' ? false : 15 * 60,
+    },
+    now,
+  );
+}
+export type SessionStore = ReturnType<typeof createSessionStore>;
+
+/** The session cookie, then the absolute timeout: a sign-in ends 90 days after it began. */
+export function sessions(env: Env, store: SessionStore): RequestHandler[] {
+  const absoluteTimeout: RequestHandler = (req, _res, next) => {
+    const began = req.session.signedInAt;
+    if (req.session.userId && (!began || Date.now() - began > SESSION_ABSOLUTE_MS)) {
+      return req.session.destroy(() => next(new HttpError(401, 'session_expired', 'Your sign-in has expired. Please sign in again.')));
+    }
+    next();
+  };
+  return [
+    session({
+      name: SESSION_COOKIE,
+      secret: env.SESSION_SECRET,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: env.COOKIE_SECURE === 'auto' ? 'auto' : env.COOKIE_SECURE === 'true',
+        maxAge: SESSION_IDLE_MS,
+      },
+    }),
+    absoluteTimeout,
+  ];
+}
