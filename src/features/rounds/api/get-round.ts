@@ -1,7 +1,7 @@
 import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
 import { withDb, type RoundDay } from '@/lib/db';
-import { cachedRound, storeServerRound } from '@/lib/outbox';
+import { cachedRound, storeServerRound } from '@/lib/round-cache';
 import { roundKeys } from './keys';
 
 const REFRESH_EVERY_MS = 5 * 60_000;
