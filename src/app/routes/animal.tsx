@@ -1,4 +1,4 @@
-import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { STATUS_LABEL } from '#shared/domain/animal-facts';
@@ -9,7 +9,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useLocations, useMoveAnimals, useRetireAnimal } from '@/features/animals/api/animal-records';
-import { animalKeys, useAnimalList } from '@/features/animals/api/list-animals';
+import { useAnimalList } from '@/features/animals/api/list-animals';
 import { AnimalCard } from '@/features/animals/components/animal-card';
 import { MovePanel } from '@/features/animals/components/move-panel';
 import { PhotoPanel } from '@/features/animals/components/photo-panel';
@@ -20,7 +20,6 @@ import { PairingForm } from '@/features/breeding/components/pairing-form';
 import { LabelPanel } from '@/features/labels/components/label-panel';
 import { useAnimalHistory } from '@/features/rounds/api/animal-history';
 import { localRoundQueryOptions } from '@/features/rounds/api/get-round';
-import { roundKeys } from '@/features/rounds/api/keys';
 import { useRecordOutcome } from '@/features/rounds/api/record-outcome';
 import { AnimalHistory } from '@/features/rounds/components/animal-history';
 import { CareForm } from '@/features/rounds/components/care-form';
@@ -42,7 +41,6 @@ export function AnimalRoute() {
   const record = useRecordOutcome({ userId: me.user.id, byName: me.user.displayName, collectionId });
   const [panel, setPanel] = useState<'move' | 'retire' | null>(null);
   const [recentMolts, setRecentMolts] = useState<{ eventId: string; date: string }[]>([]);
-  const queryClient = useQueryClient();
   const localToday = useQuery(localRoundQueryOptions(me.user.id, collectionId, 'today'));
   const sync = useSyncStatus();
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
@@ -102,14 +100,7 @@ export function AnimalRoute() {
         timeZone={collection.timeZone}
         waiting={sync.waiting > 0}
       />
-      <LabelPanel
-        collectionId={collectionId}
-        animal={animal}
-        onRelabelled={() => {
-          void queryClient.invalidateQueries({ queryKey: animalKeys.all(collectionId) });
-          void queryClient.invalidateQueries({ queryKey: roundKeys.all(collectionId) });
-        }}
-      />
+      <LabelPanel collectionId={collectionId} animal={animal} />
       <GrowthPanel events={history.data?.events ?? []} timeZone={collection.timeZone} unit={unit} />
       <MoltForm
         today={today}

@@ -11,6 +11,7 @@ import { useMe } from '@/features/auth/api/get-me';
 import { useCurrentCollection } from '@/features/auth/hooks/use-current-collection';
 import { SyncIndicator } from '@/features/sync/components/sync-indicator';
 import { ApiError } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 import { startSync } from '@/lib/sync-driver';
 
 export interface ShellContext {
@@ -80,9 +81,9 @@ export function Shell() {
   const userId = me.data?.user.id;
   // The signed-in person's outbox syncs while the app is open; saved taps refresh the rounds.
   useEffect(() => (userId ? startSync(userId, () => {
-      void queryClient.invalidateQueries({ queryKey: ['rounds'] });
+      void queryClient.invalidateQueries({ queryKey: queryKeys.rounds.everywhere() });
       // A synced molt can change an animal's size and sex.
-      void queryClient.invalidateQueries({ queryKey: ['animals'] });
+      void queryClient.invalidateQueries({ queryKey: queryKeys.animals.everywhere() });
     }) : undefined), [userId, queryClient]);
 
   useKeepAnimalListOffline(current);
