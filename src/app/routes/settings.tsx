@@ -1,5 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, useNavigate } from 'react-router-dom';
+import { useShell } from '@/app/layout/use-shell';
 import { Notice } from '@/components/ui/notice';
 import { SafetyNote } from '@/components/ui/safety-note';
 import { rememberMe } from '@/features/auth/api/get-me';
@@ -17,7 +18,6 @@ import { UnitPicker } from '@/features/settings/components/unit-picker';
 import { SignOutButton } from '@/features/sync/components/sign-out-button';
 import { StorageStatus } from '@/features/sync/components/storage-status';
 import { queryKeys } from '@/lib/query-keys';
-import { useShell } from './shell';
 
 export function SettingsRoute() {
   const { me, collection, chooseCollection } = useShell();

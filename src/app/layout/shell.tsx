@@ -1,8 +1,8 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
-import { NavLink, Navigate, Outlet, useLocation, useOutletContext } from 'react-router-dom';
+import { NavLink, Navigate, Outlet, useLocation } from 'react-router-dom';
 import { coverWindowMessage, coverWindowState } from '#shared/domain/roles';
-import type { MeResponse, MembershipSummary } from '#shared/schemas/auth';
+import type { MembershipSummary } from '#shared/schemas/auth';
 import { DialIcon, RackIcon, RoundIcon, ScanIcon, TomorrowIcon } from '@/components/ui/icons';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
@@ -13,16 +13,7 @@ import { SyncIndicator } from '@/features/sync/components/sync-indicator';
 import { ApiError } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import { startSync } from '@/lib/sync-driver';
-
-export interface ShellContext {
-  me: MeResponse;
-  collection: MembershipSummary | null;
-  chooseCollection: (id: string) => void;
-}
-
-export function useShell() {
-  return useOutletContext<ShellContext>();
-}
+import type { ShellContext } from './use-shell';
 
 const NAV = [
   { to: '/today', label: 'Today', Icon: RoundIcon, helper: true },
