@@ -92,7 +92,7 @@ export function AnimalRoute() {
       />
       <LabelPanel collectionId={collectionId} animal={animal} />
       <GrowthPanel events={history.data?.events ?? []} timeZone={collection.timeZone} unit={unit} />
-      <AnimalMolts key={animal.id} recorder={recorder} animal={animal} timeZone={collection.timeZone} unit={unit} />
+      <AnimalMolts key={`molts-${animal.id}`} recorder={recorder} animal={animal} timeZone={collection.timeZone} unit={unit} />
       <AnimalPairing recorder={recorder} female={animal} animals={list.data.animals} timeZone={collection.timeZone} />
       <CareForm key={animal.id} collectionId={collectionId} animal={animal} />
       <AnimalHistory recorder={recorder} animal={animal} timeZone={collection.timeZone} />
