@@ -155,3 +155,6 @@ export type MoveBody = z.infer<typeof moveBody>;
 
 export const animalListResponse = z.object({ animals: z.array(animalSummary) });
 export type AnimalListResponse = z.infer<typeof animalListResponse>;
+export const moveResponse = z.object({ moved: z.number().int() });
+/** A new photo's version, which its URL carries. */
+export const photoSavedResponse = z.object({ photoVersion: z.string() });

@@ -53,6 +53,8 @@ export type SignUpFinishBody = z.infer<typeof signUpFinishBody>;
 
 export const signUpStartedResponse = z.object({ message: z.string() });
 export const signUpPreviewResponse = z.object({ email: z.string() });
+/** The same words for every address (decision 012). */
+export const resetRequestedResponse = z.object({ message: z.string() });
 
 export const signInBody = z.object({ email, password: existingPassword });
 export type SignInBody = z.infer<typeof signInBody>;

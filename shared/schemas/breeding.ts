@@ -1,6 +1,6 @@
 import { z } from 'zod';
-import type { AnimalGroup } from '../domain/animal-facts';
-import type { BreedingRecordKind } from '../domain/breeding';
+import { ANIMAL_GROUPS } from '../domain/animal-facts';
+import { BREEDING_RECORDS } from '../domain/breeding';
 import { localDate, uuid } from './common';
 
 const days = z.number().int().min(7, { message: 'At least 7 days.' }).max(400, { message: 'At most 400 days.' });
@@ -50,26 +50,29 @@ export const slingsBody = z.object({
 });
 export type SlingsBody = z.input<typeof slingsBody>;
 
-export interface EggSacView {
-  id: string;
+export const eggSacView = z.object({
+  id: z.string(),
   /** Egg sac, egg case or brood: after the female's group. */
-  kind: BreedingRecordKind;
-  femaleId: string;
-  femaleName: string;
-  femaleGroup: AnimalGroup;
-  clutch: string;
-  laidOn: string;
-  pulledOn: string | null;
-  hatchedOn: string | null;
-  dispersedOn: string | null;
-  eggCount: number | null;
-  eggsWithLegs: number | null;
-  slingCount: number | null;
-  incubationMinDays: number;
-  incubationMaxDays: number;
+  kind: z.enum(BREEDING_RECORDS),
+  femaleId: z.string(),
+  femaleName: z.string(),
+  femaleGroup: z.enum(ANIMAL_GROUPS),
+  clutch: z.string(),
+  laidOn: z.string(),
+  pulledOn: z.string().nullable(),
+  hatchedOn: z.string().nullable(),
+  dispersedOn: z.string().nullable(),
+  eggCount: z.number().nullable(),
+  eggsWithLegs: z.number().nullable(),
+  slingCount: z.number().nullable(),
+  incubationMinDays: z.number(),
+  incubationMaxDays: z.number(),
   /** When to expect to pull it, see it hatch or the brood disperse: laid + the window. */
-  expectedFrom: string;
-  expectedTo: string;
-  notes: string | null;
-  slingsCreated: number;
-}
+  expectedFrom: z.string(),
+  expectedTo: z.string(),
+  notes: z.string().nullable(),
+  slingsCreated: z.number(),
+});
+export type EggSacView = z.infer<typeof eggSacView>;
+export const eggSacListResponse = z.object({ sacs: z.array(eggSacView) });
+export const slingsCreatedResponse = z.object({ animalIds: z.array(z.string()) });

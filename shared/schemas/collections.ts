@@ -34,3 +34,6 @@ export const deleteCollectionBody = z.object({
   confirmName: z.string({ message: 'Type the collection’s name to confirm.' }).trim().min(1, { message: 'Type the collection’s name to confirm.' }).max(200, { message: 'That is not the collection’s name.' }),
 });
 export type DeleteCollectionBody = z.infer<typeof deleteCollectionBody>;
+
+/** What restoring a backup brought into the collection. */
+export const restoreResponse = z.object({ animals: z.number().int(), events: z.number().int() });

@@ -34,3 +34,9 @@ export const errorBody = z.object({
 export type ErrorBody = z.infer<typeof errorBody>;
 
 export const collectionParams = z.object({ collectionId: uuid });
+
+/** A 204 answer: no body, read by the client as `undefined`. */
+export const noContent = z.undefined();
+
+/** A record made by a POST that answers with its new id only. */
+export const createdResponse = z.object({ id: z.string() });

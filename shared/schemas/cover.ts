@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { email, newPassword } from './auth';
+import { email, meResponse, newPassword } from './auth';
 import { localDate, uuid } from './common';
 
 /** The longest cover one invite gives (common practice: a holiday; longer needs a keeper). */
@@ -40,50 +40,64 @@ export const generalNoteBody = z.object({ text: z.string().trim().max(4000, { me
 export const COVER_STATES = ['invited', 'upcoming', 'running', 'ended'] as const;
 export type CoverState = (typeof COVER_STATES)[number];
 
-export interface CoverSummary {
-  id: string;
-  email: string;
-  helperName: string | null;
-  firstDay: string;
-  lastDay: string;
-  message: string | null;
-  state: CoverState;
-  inviteExpired: boolean;
-  safetyAcknowledgedAt: string | null;
-}
+export const coverSummary = z.object({
+  id: z.string(),
+  email: z.string(),
+  helperName: z.string().nullable(),
+  firstDay: z.string(),
+  lastDay: z.string(),
+  message: z.string().nullable(),
+  state: z.enum(COVER_STATES),
+  inviteExpired: z.boolean(),
+  safetyAcknowledgedAt: z.string().nullable(),
+});
+export type CoverSummary = z.infer<typeof coverSummary>;
+export const coverListResponse = z.object({ covers: z.array(coverSummary) });
 
-export interface HandoverNote {
-  id: string;
-  animalId: string;
-  animalName: string;
-  text: string;
-  until: string;
-  doNotFeed: boolean;
-}
+export const handoverNote = z.object({
+  id: z.string(),
+  animalId: z.string(),
+  animalName: z.string(),
+  text: z.string(),
+  until: z.string(),
+  doNotFeed: z.boolean(),
+});
+export type HandoverNote = z.infer<typeof handoverNote>;
+export const handoverResponse = z.object({ generalNote: z.string().nullable(), notes: z.array(handoverNote) });
 
 /** What a helper's phone keeps for the cover: enough to do the round with no signal. */
-export interface HelperCoverView {
-  collectionName: string;
-  firstDay: string;
-  lastDay: string;
-  message: string | null;
-  safetyAcknowledgedAt: string | null;
-  generalNote: string | null;
-  notes: HandoverNote[];
+export const helperCoverView = z.object({
+  collectionName: z.string(),
+  firstDay: z.string(),
+  lastDay: z.string(),
+  message: z.string().nullable(),
+  safetyAcknowledgedAt: z.string().nullable(),
+  generalNote: z.string().nullable(),
+  notes: z.array(handoverNote),
   /** The last 14 days of each round animal's facts, newest first. */
-  recent: Record<string, { kind: string; at: string; by: string | null }[]>;
-}
+  recent: z.record(z.string(), z.array(z.object({ kind: z.string(), at: z.string(), by: z.string().nullable() }))),
+});
+export type HelperCoverView = z.infer<typeof helperCoverView>;
 
 /** An invite link's page: a cover for a helper, or an invite to keep the collection. */
-export interface InvitePreview {
-  role: 'helper' | 'keeper';
-  collectionName: string;
+export const invitePreview = z.object({
+  role: z.enum(['helper', 'keeper']),
+  collectionName: z.string(),
   /** The name of whoever sent the invite. */
-  invitedBy: string | null;
-  email: string;
+  invitedBy: z.string().nullable(),
+  email: z.string(),
   /** The cover's days; null for a keeper's invite. */
-  firstDay: string | null;
-  lastDay: string | null;
-  message: string | null;
-  hasAccount: boolean;
-}
+  firstDay: z.string().nullable(),
+  lastDay: z.string().nullable(),
+  message: z.string().nullable(),
+  hasAccount: z.boolean(),
+});
+export type InvitePreview = z.infer<typeof invitePreview>;
+
+/** Accepting signs the person in: the collection to open, and who they now are. */
+export const acceptResponse = z.object({ collectionId: z.string(), me: meResponse });
+
+/** The daily reports e-mailed to the owners during a cover, kept for the app. */
+export const coverReportsResponse = z.object({
+  reports: z.array(z.object({ localDate: z.string(), subject: z.string(), body: z.string(), createdAt: z.string() })),
+});

@@ -11,3 +11,4 @@ export const MAX_IMPORT_ROWS = 5000;
 export const animalImportBody = z.object({
   rows: z.array(animalImportRow).min(1, { message: 'There are no rows to import.' }).max(MAX_IMPORT_ROWS, { message: `Import at most ${MAX_IMPORT_ROWS} animals at a time.` }),
 });
+export const importResponse = z.object({ imported: z.number().int() });

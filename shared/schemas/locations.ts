@@ -27,3 +27,5 @@ export const locationListResponse = z.object({
   locations: z.array(locationSummary.extend({ animals: z.number().int() })),
 });
 export type LocationWithCount = z.infer<typeof locationListResponse>['locations'][number];
+/** A place as created or renamed. */
+export const locationResponse = locationSummary;

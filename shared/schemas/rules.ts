@@ -1,6 +1,7 @@
 import { z } from 'zod';
-import { ANIMAL_GROUPS, DIETS, stageLabel, type AnimalGroup, type LifeStage } from '../domain/animal-facts';
+import { ANIMAL_GROUPS, DIETS, LIFE_STAGES, stageLabel, type AnimalGroup, type LifeStage } from '../domain/animal-facts';
 import { DEFAULT_PROFILES, HYDRATIONS } from '../domain/rounds/care-profiles';
+import type { RoundRules, RulesOverride } from '../domain/rounds/rules';
 import { localDate } from './common';
 
 const days = (min: number, max: number, what: string) =>
@@ -138,3 +139,39 @@ export const careSettingsBody = z
   .partial()
   .strict();
 export type CareSettingsBody = z.infer<typeof careSettingsBody>;
+
+/** A collection's rules in full, as the server works them out (the answer, not a body: no bounds). */
+const offerShown = z.object({ preyType: z.string(), preySize: z.string(), countMin: z.number(), countMax: z.number() });
+const roundRules: z.ZodType<RoundRules> = z.object({
+  profiles: z.record(
+    z.enum(ANIMAL_GROUPS),
+    z.object({
+      stages: z.partialRecord(
+        z.enum(LIFE_STAGES),
+        z.object({ feedEveryDays: z.number(), refusalRetryDays: z.number(), refusalStreak: z.number(), postMoltHoldDays: z.number(), offer: offerShown }),
+      ),
+      hydration: z.enum(HYDRATIONS),
+      hydrateEveryDays: z.number(),
+      hydrateBelowMm: z.number().nullable(),
+    }),
+  ),
+  premoltCheckDays: z.number(),
+  waterEveryDays: z.number(),
+  rebuildFactor: z.number(),
+  rebuildDays: z.number(),
+  settlingDays: z.number(),
+  preyStayCheckDays: z.number(),
+  dietEveryDays: z.object({ fruit_jelly: z.number(), plant: z.number(), detritus: z.number() }),
+  substrateCheckDays: z.number(),
+  spanToBody: z.number(),
+  tinySlingMm: z.number(),
+  feeders: z.array(z.object({ preyType: z.string(), preySize: z.string(), lengthMm: z.number() })),
+});
+
+export const rulesResponse = z.object({
+  rules: roundRules,
+  defaults: roundRules,
+  /** As stored: overrides saved before care profiles keep their older keys (`upgradeOverride`). */
+  overrides: z.custom<RulesOverride>((v) => typeof v === 'object' && v !== null && !Array.isArray(v)),
+});
+export type RulesResponse = z.infer<typeof rulesResponse>;

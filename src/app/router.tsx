@@ -1,6 +1,6 @@
 import { createBrowserRouter, Navigate, RouterProvider } from 'react-router-dom';
+import { Shell } from './layout/shell';
 import { NotFoundRoute } from './routes/not-found';
-import { Shell } from './routes/shell';
 import { TodayRoute } from './routes/today';
 
 // Today is the route people open at the rack, so it ships in the first bundle; every other

@@ -8,18 +8,31 @@ export class ApiError extends Error {
     readonly code: string,
     message: string,
     readonly issues?: { path: string; message: string }[],
+    options?: ErrorOptions,
   ) {
-    super(message);
+    super(message, options);
   }
 }
 
-interface RequestOptions<T> {
+export interface RequestOptions {
   method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
-  /** Sent as JSON; a Blob (a chosen file) is sent as it is, streamed by the browser. */
+  /**
+   * Sent as JSON; a Blob (a chosen file) goes as it is, streamed by the browser, and FormData
+   * (a photo) as multipart with the browser's own Content-Type.
+   */
   body?: unknown;
-  schema?: z.ZodType<T>;
   signal?: AbortSignal;
 }
+
+/**
+ * A shared response schema (`shared/schemas`). Named by type only: zod loads with the screens
+ * that need it, never with the first one (P2, P4), so the first screen's calls import theirs.
+ */
+export type ResponseSchema<T> = z.ZodType<T>;
+
+const OFFLINE = 'No connection to Rackside right now. Check your signal and try again.';
+/** The usual cause is an app older than its server (a phone that kept last week's copy). */
+const UNREADABLE = 'Rackside sent an answer this app could not read. Reload the page, then try again.';
 
 /**
  * Our error body, read without zod: the first screen ships without the schema library, which
@@ -31,53 +44,61 @@ export function readErrorBody(data: unknown): ErrorBody['error'] | null {
   return { code: error.code, message: error.message, issues: Array.isArray(error.issues) ? error.issues : undefined };
 }
 
-/** The one place fetch is called: our CSRF header, typed errors for failures. */
-async function send(path: string, { method = 'GET', body, signal }: RequestOptions<unknown>, accept: string): Promise<Response> {
-  let res: Response;
+/** The one place fetch is called: our CSRF header, and no answer at all as an `offline` error. */
+async function send(path: string, { method = 'GET', body, signal }: RequestOptions, accept: string): Promise<Response> {
+  const multipart = body instanceof FormData;
   try {
-    res = await fetch(`/api${path}`, {
+    return await fetch(`/api${path}`, {
       method,
       credentials: 'same-origin',
       headers: {
         Accept: accept,
         'X-Rackside-Client': '1',
-        ...(body === undefined ? {} : { 'Content-Type': 'application/json' }),
+        ...(body === undefined || multipart ? {} : { 'Content-Type': 'application/json' }),
       },
-      body: body === undefined ? undefined : body instanceof Blob ? body : JSON.stringify(body),
+      body: body === undefined ? undefined : multipart || body instanceof Blob ? body : JSON.stringify(body),
       signal,
     });
   } catch (err) {
+    // The caller's own abort or timeout is theirs to read; anything else is no answer.
     if (signal?.aborted) throw err;
-    throw new ApiError(
-      0,
-      'offline',
-      'No connection to Rackside right now. Check your signal and try again.',
-    );
+    throw new ApiError(0, 'offline', OFFLINE);
   }
-  if (!res.ok) {
-    const error = readErrorBody(await res.json().catch(() => null));
-    if (error) throw new ApiError(res.status, error.code, error.message, error.issues);
-    throw new ApiError(
-      res.status,
-      `http_${res.status}`,
-      `Rackside answered with an error (${res.status}). Try again.`,
-    );
-  }
-  return res;
 }
 
-/** JSON in and out, checked against a schema when one is given. */
-export async function apiRequest<T = void>(
-  path: string,
-  options: RequestOptions<T> = {},
-): Promise<T> {
-  const res = await send(path, options as RequestOptions<unknown>, 'application/json');
-  if (res.status === 204) return undefined as T;
-  const data: unknown = await res.json().catch(() => null);
-  return options.schema ? options.schema.parse(data) : (data as T);
+/** A failed answer in words: the server's own error body, or a sentence with the status. */
+export async function failureOf(res: Response): Promise<ApiError> {
+  const error = readErrorBody(await res.json().catch(() => null));
+  if (error) return new ApiError(res.status, error.code, error.message, error.issues);
+  return new ApiError(res.status, `http_${res.status}`, `Rackside answered with an error (${res.status}). Try again.`);
 }
 
-/** A file the server makes (a PDF), as a Blob. */
-export async function apiDownload(path: string, options: Omit<RequestOptions<unknown>, 'schema'>, accept: string): Promise<Blob> {
-  return (await send(path, options, accept)).blob();
+/**
+ * JSON mode: the answer checked against its shared schema (204 answers are checked as
+ * `undefined`). A failure status throws the server's words; an answer that does not match the
+ * schema throws `bad_response`, so a screen shows a sentence rather than breaking on bad data.
+ */
+export async function apiRequest<T>(path: string, options: RequestOptions & { schema: ResponseSchema<T> }): Promise<T> {
+  const res = await send(path, options, 'application/json');
+  if (!res.ok) throw await failureOf(res);
+  let data: unknown;
+  if (res.status !== 204) {
+    try {
+      data = await res.json();
+    } catch (err) {
+      throw new ApiError(res.status, 'bad_response', UNREADABLE, undefined, { cause: err });
+    }
+  }
+  const checked = options.schema.safeParse(data);
+  if (!checked.success) throw new ApiError(res.status, 'bad_response', UNREADABLE, undefined, { cause: checked.error });
+  return checked.data;
+}
+
+/**
+ * Raw mode: the Response whatever its status, for callers that read the status themselves
+ * (the sync engine keeps a batch unless the server gave a verdict on each tap) or a body that
+ * is not JSON (a PDF). Throws only when no answer came, or when the caller's signal aborted.
+ */
+export function apiRaw(path: string, options: RequestOptions & { accept?: string } = {}): Promise<Response> {
+  return send(path, options, options.accept ?? 'application/json');
 }

@@ -78,7 +78,7 @@ export interface StoredDirectory {
   fetchedAt: string;
 }
 
-interface RacksideSchema extends DBSchema {
+export interface RacksideSchema extends DBSchema {
   rounds: { key: string; value: StoredRound };
   roundItems: { key: [string, string]; value: StoredRoundItem; indexes: { byRound: string } };
   outbox: { key: number; value: OutboxEntry; indexes: { byEventId: string; byUser: string } };
@@ -110,8 +110,15 @@ export function openRacksideDb(name = DB_NAME): Promise<RacksideDb> {
   });
 }
 
-export const roundKey = (userId: string, collectionId: string, day: RoundDay) =>
-  `${userId}|${collectionId}|${day}`;
+/**
+ * A transaction's completion promise, marked as handled: when one request fails first, the
+ * abort that follows must not surface again as an unhandled rejection.
+ */
+export function transactionDone(tx: { done: Promise<void> }): Promise<void> {
+  const done = tx.done;
+  done.catch(() => undefined);
+  return done;
+}
 
 let shared: Promise<RacksideDb> | null = null;
 

@@ -4,16 +4,8 @@ import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { RecordedEvent } from '#shared/schemas/events';
 import { sampleRound } from '../../tests/fixtures/sample-round';
 import { openRacksideDb, type RacksideDb } from './db';
-import {
-  attentionOf,
-  cachedRound,
-  nextBatch,
-  recordTap,
-  recordTaps,
-  settleBatch,
-  storeServerRound,
-  waitingTaps,
-} from './outbox';
+import { attentionOf, nextBatch, recordTap, recordTaps, settleBatch, waitingTaps } from './outbox';
+import { cachedRound, storeServerRound } from './round-cache';
 
 const USER = 'user-1';
 const COLLECTION = 'collection-1';
@@ -118,46 +110,6 @@ describe('settling a batch', () => {
       await settleBatch(db, sent, [{ id: randomUUID(), status: 'accepted' }], new Date()),
     ).toEqual({ acknowledged: 0, refused: 0 });
     expect(await waitingTaps(db, USER)).toHaveLength(1);
-  });
-});
-
-describe('a fresh copy of the round from the server', () => {
-  it('keeps showing taps that have not been sent yet', async () => {
-    const a = event('ate');
-    await tap(a);
-    const stored = await storeServerRound(db, USER, COLLECTION, 'today', sampleRound(), new Date());
-    expect(stored.round.items[0]!.tasks[0]!.done?.eventId).toBe(a.id);
-    expect(stored.round.progress.done).toBe(1);
-  });
-
-  it('does not count a tap twice once the server has it', async () => {
-    const a = event('ate');
-    await tap(a);
-    const fromServer = sampleRound();
-    fromServer.items[0]!.outcomes = [
-      { eventId: a.id, kind: 'ate', at: a.clientRecordedAt, by: 'Robin' },
-    ];
-    fromServer.items[0]!.tasks[0]!.done = {
-      eventId: a.id,
-      kind: 'ate',
-      at: a.clientRecordedAt,
-      by: 'Robin',
-    };
-    fromServer.progress.done = 1;
-    const stored = await storeServerRound(db, USER, COLLECTION, 'today', fromServer, new Date());
-    expect(stored.round.items[0]!.outcomes).toHaveLength(1);
-    expect(stored.round.progress.done).toBe(1);
-  });
-
-  it('applies a waiting undo to an outcome the server already has', async () => {
-    const meal = event('ate');
-    const fromServer = sampleRound();
-    fromServer.items[0]!.outcomes = [
-      { eventId: meal.id, kind: 'ate', at: meal.clientRecordedAt, by: 'Robin' },
-    ];
-    await tap(event('void', { payload: { targetId: meal.id } }));
-    const stored = await storeServerRound(db, USER, COLLECTION, 'today', fromServer, new Date());
-    expect(stored.round.items[0]!.outcomes).toEqual([]);
   });
 });
 

@@ -1,5 +1,6 @@
 import { useSyncExternalStore } from 'react';
 import type { EventBatchBody } from '#shared/schemas/events';
+import { apiRaw } from './api-client';
 import { withDb } from './db';
 import {
   backoffDelay,
@@ -14,22 +15,14 @@ const REQUEST_TIMEOUT_MS = 20_000;
 /** A tap is sent shortly after, so a quick run of taps travels in one request. */
 const AFTER_TAP_MS = 1_500;
 
-/** POSTs a batch with our CSRF header; a timeout counts as no answer. */
+/**
+ * POSTs a batch through the API client's raw mode: the engine reads every status itself (only
+ * per-event verdicts settle taps). No answer, or none within the timeout, throws.
+ */
 export const fetchTransport: SyncTransport = async (collectionId: string, body: EventBatchBody) => {
-  const res = await fetch(`/api/collections/${collectionId}/events`, {
-    method: 'POST',
-    credentials: 'same-origin',
-    headers: {
-      Accept: 'application/json',
-      'Content-Type': 'application/json',
-      'X-Rackside-Client': '1',
-    },
-    body: JSON.stringify(body),
-    signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS),
-  });
+  const res = await apiRaw(`/collections/${collectionId}/events`, { method: 'POST', body, signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS) });
   return { status: res.status, body: await res.json().catch(() => null) };
 };
-
 
 let engine: SyncEngine | null = null;
 let current: SyncStatus = IDLE_STATUS;

@@ -1,12 +1,13 @@
-/** Multipart upload of one photo (the one request that is not JSON), with our CSRF header. */
-export async function uploadPhoto(path: string, file: File): Promise<void> {
+import { ApiError, apiRequest, type ResponseSchema } from './api-client';
+
+/** One photo as multipart (the one request that is not JSON), answered as `schema` says. */
+export async function uploadPhoto<T>(path: string, file: File, schema: ResponseSchema<T>): Promise<T> {
   const form = new FormData();
   form.append('photo', file, file.name.replace(/[/\\]/g, '_') || 'photo.jpg');
-  let res: Response;
   try {
-    res = await fetch(`/api${path}`, { method: 'PUT', body: form, credentials: 'same-origin', headers: { 'X-Rackside-Client': '1' } });
-  } catch {
-    throw new Error('No connection to Rackside right now. The photo was not sent.');
+    return await apiRequest(path, { method: 'PUT', body: form, schema });
+  } catch (err) {
+    if (err instanceof ApiError && err.status === 0) throw new ApiError(0, 'offline', 'No connection to Rackside right now. The photo was not sent.');
+    throw err;
   }
-  if (!res.ok) throw new Error(((await res.json().catch(() => null)) as { error?: { message?: string } } | null)?.error?.message ?? 'The photo could not be saved.');
 }

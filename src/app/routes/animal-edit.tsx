@@ -1,12 +1,12 @@
 import { useMemo } from 'react';
 import { useNavigate, useParams } from 'react-router-dom';
+import { useShell } from '@/app/layout/use-shell';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useLocations, useSaveAnimal } from '@/features/animals/api/animal-records';
 import { useAnimalList } from '@/features/animals/api/list-animals';
 import { AnimalForm } from '@/features/animals/components/animal-form';
 import { useSizeUnit } from '@/lib/preferences';
-import { useShell } from './shell';
 
 /** /animals/new and /animals/:animalId/edit: the same form. */
 export function AnimalEditRoute() {

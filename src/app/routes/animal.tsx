@@ -1,33 +1,30 @@
-import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { STATUS_LABEL } from '#shared/domain/animal-facts';
-import { canBreed } from '#shared/domain/breeding';
 import { localDateOf } from '#shared/domain/local-dates';
 import { formatSize } from '#shared/domain/units';
+import { useShell } from '@/app/layout/use-shell';
+import { AnimalMolts } from '@/app/panels/animal-molts';
+import { AnimalPairing } from '@/app/panels/animal-pairing';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useLocations, useMoveAnimals, useRetireAnimal } from '@/features/animals/api/animal-records';
-import { animalKeys, useAnimalList } from '@/features/animals/api/list-animals';
+import { useAnimalList } from '@/features/animals/api/list-animals';
 import { AnimalCard } from '@/features/animals/components/animal-card';
 import { MovePanel } from '@/features/animals/components/move-panel';
 import { PhotoPanel } from '@/features/animals/components/photo-panel';
 import { RetirePanel } from '@/features/animals/components/retire-panel';
 import { GrowthPanel } from '@/features/breeding/components/growth-panel';
-import { MoltForm } from '@/features/breeding/components/molt-form';
-import { PairingForm } from '@/features/breeding/components/pairing-form';
 import { LabelPanel } from '@/features/labels/components/label-panel';
 import { useAnimalHistory } from '@/features/rounds/api/animal-history';
 import { localRoundQueryOptions } from '@/features/rounds/api/get-round';
-import { roundKeys } from '@/features/rounds/api/keys';
-import { useRecordOutcome } from '@/features/rounds/api/record-outcome';
 import { AnimalHistory } from '@/features/rounds/components/animal-history';
 import { CareForm } from '@/features/rounds/components/care-form';
 import { SchedulePanel } from '@/features/rounds/components/schedule-panel';
 import { useSizeUnit } from '@/lib/preferences';
 import { useSyncStatus } from '@/lib/sync-driver';
-import { useShell } from './shell';
 
 export function AnimalRoute() {
   const { me, collection } = useShell();
@@ -39,10 +36,8 @@ export function AnimalRoute() {
   const retire = useRetireAnimal(collectionId, animalId);
   const [unit] = useSizeUnit();
   const history = useAnimalHistory(collectionId, animalId);
-  const record = useRecordOutcome({ userId: me.user.id, byName: me.user.displayName, collectionId });
+  const recorder = { userId: me.user.id, byName: me.user.displayName, collectionId };
   const [panel, setPanel] = useState<'move' | 'retire' | null>(null);
-  const [recentMolts, setRecentMolts] = useState<{ eventId: string; date: string }[]>([]);
-  const queryClient = useQueryClient();
   const localToday = useQuery(localRoundQueryOptions(me.user.id, collectionId, 'today'));
   const sync = useSyncStatus();
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
@@ -53,13 +48,6 @@ export function AnimalRoute() {
   const kept = animal.status === 'active';
   const today = localDateOf(new Date(), collection.timeZone);
   const todayItem = localToday.data?.round.date === today ? localToday.data.round.items.find((i) => i.animal.id === animal.id) : undefined;
-  // Molts already on record (the server's, today's taps on this phone, this page's own), so a
-  // second molt on one day completes the first instead.
-  const molts = [
-    ...(history.data?.events ?? []).filter((e) => e.kind === 'molted' && !e.voidedBy).map((e) => ({ eventId: e.id, date: localDateOf(new Date(e.at), collection.timeZone) })),
-    ...(todayItem?.outcomes ?? []).filter((o) => o.kind === 'molted').map((o) => ({ eventId: o.eventId, date: today })),
-    ...recentMolts,
-  ];
   return (
     <div className="flex flex-col gap-4">
       <h1 className="sr-only">{animal.name}</h1>
@@ -102,35 +90,12 @@ export function AnimalRoute() {
         timeZone={collection.timeZone}
         waiting={sync.waiting > 0}
       />
-      <LabelPanel
-        collectionId={collectionId}
-        animal={animal}
-        onRelabelled={() => {
-          void queryClient.invalidateQueries({ queryKey: animalKeys.all(collectionId) });
-          void queryClient.invalidateQueries({ queryKey: roundKeys.all(collectionId) });
-        }}
-      />
+      <LabelPanel collectionId={collectionId} animal={animal} />
       <GrowthPanel events={history.data?.events ?? []} timeZone={collection.timeZone} unit={unit} />
-      <MoltForm
-        today={today}
-        timeZone={collection.timeZone}
-        unit={unit}
-        molts={molts}
-        onRecord={async (payload, at, completes) => {
-          const event = await record(animal, completes ? 'molt_details' : 'molted', completes ? { targetId: completes, ...payload } : payload, at);
-          if (!completes) setRecentMolts((m) => [...m, { eventId: event.id, date: localDateOf(at, collection.timeZone) }]);
-        }}
-      />
-      {kept && canBreed(animal) && (
-        <PairingForm
-          today={today}
-          timeZone={collection.timeZone}
-          males={list.data.animals.filter((a) => a.status === 'active' && a.group === animal.group && (a.sex === 'male' || a.sex === 'mature_male'))}
-          onRecord={(payload, at) => record(animal, 'paired', payload, at)}
-        />
-      )}
+      <AnimalMolts key={`molts-${animal.id}`} recorder={recorder} animal={animal} timeZone={collection.timeZone} unit={unit} />
+      <AnimalPairing recorder={recorder} female={animal} animals={list.data.animals} timeZone={collection.timeZone} />
       <CareForm key={animal.id} collectionId={collectionId} animal={animal} />
-      <AnimalHistory recorder={{ userId: me.user.id, byName: me.user.displayName, collectionId }} animal={animal} timeZone={collection.timeZone} />
+      <AnimalHistory recorder={recorder} animal={animal} timeZone={collection.timeZone} />
     </div>
   );
 }

@@ -1,6 +1,7 @@
 import { useCallback, useMemo, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { localDateOf } from '#shared/domain/local-dates';
+import { useShell } from '@/app/layout/use-shell';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
@@ -11,7 +12,6 @@ import { MovePanel } from '@/features/animals/components/move-panel';
 import { RetirePanel } from '@/features/animals/components/retire-panel';
 import { useRound } from '@/features/rounds/api/get-round';
 import { useSizeUnit } from '@/lib/preferences';
-import { useShell } from './shell';
 
 const linkClass = 'inline-flex min-h-target items-center rounded-xl border-2 border-border px-4 text-lg font-bold';
 

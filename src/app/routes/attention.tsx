@@ -1,5 +1,5 @@
+import { useShell } from '@/app/layout/use-shell';
 import { AttentionList } from '@/features/sync/components/attention-list';
-import { useShell } from './shell';
 
 export function AttentionRoute() {
   const { me } = useShell();

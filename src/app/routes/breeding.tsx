@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { canBreed } from '#shared/domain/breeding';
 import { localDateOf } from '#shared/domain/local-dates';
+import { useShell } from '@/app/layout/use-shell';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
@@ -11,7 +12,6 @@ import { useBreedingChanges, useEggSacs } from '@/features/breeding/api/breeding
 import { Insights } from '@/features/breeding/components/insights';
 import { SacsManager } from '@/features/breeding/components/sacs-manager';
 import { useRound } from '@/features/rounds/api/get-round';
-import { useShell } from './shell';
 
 /** Egg sacs, slings and the collection at a glance. */
 export function BreedingRoute() {

@@ -1,10 +1,10 @@
 import { localDateOf } from '#shared/domain/local-dates';
+import { useShell } from '@/app/layout/use-shell';
 import { Notice } from '@/components/ui/notice';
 import { useAnimalList } from '@/features/animals/api/list-animals';
 import { CoverManager } from '@/features/cover/components/cover-manager';
 import { HandoverEditor } from '@/features/cover/components/handover-editor';
 import { ReportsList } from '@/features/cover/components/reports-list';
-import { useShell } from './shell';
 
 /** Arranging cover: the owner invites helpers; keepers write handover notes; both read the reports. */
 export function CoverRoute() {

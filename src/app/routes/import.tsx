@@ -1,8 +1,8 @@
+import { useShell } from '@/app/layout/use-shell';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useAnimalList } from '@/features/animals/api/list-animals';
 import { CsvImport } from '@/features/animals/components/csv-import';
-import { useShell } from './shell';
 
 export function ImportRoute() {
   const { collection } = useShell();

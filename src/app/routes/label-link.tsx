@@ -1,13 +1,13 @@
 import { useMemo } from 'react';
 import { useNavigate, useParams } from 'react-router-dom';
 import { readLabel, labelUrl } from '#shared/domain/labels/label-payload';
+import { useShell } from '@/app/layout/use-shell';
+import { LabelTargetPanel } from '@/app/panels/label-target-panel';
 import { Loading } from '@/components/ui/spinner';
 import { useAnimalList } from '@/features/animals/api/list-animals';
 import { useRound } from '@/features/rounds/api/get-round';
 import { useRecordOutcome } from '@/features/rounds/api/record-outcome';
 import { resolveLabel } from '@/features/scan/resolve-label';
-import { LabelTargetPanel } from './label-target';
-import { useShell } from './shell';
 
 /**
  * Where a label's URL lands when a phone's own camera app opens it: the same item, ready for

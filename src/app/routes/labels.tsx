@@ -1,10 +1,10 @@
 import { useLocation } from 'react-router-dom';
 import { clockTime } from '#shared/domain/local-dates';
+import { useShell } from '@/app/layout/use-shell';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useAnimalList } from '@/features/animals/api/list-animals';
 import { LabelsWorkbench } from '@/features/labels/components/labels-workbench';
-import { useShell } from './shell';
 
 export function LabelsRoute() {
   const { collection } = useShell();

@@ -1,6 +1,6 @@
+import { useShell } from '@/app/layout/use-shell';
 import { Notice } from '@/components/ui/notice';
 import { PlacesManager } from '@/features/animals/components/places-manager';
-import { useShell } from './shell';
 
 export function PlacesRoute() {
   const { collection } = useShell();

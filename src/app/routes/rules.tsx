@@ -1,8 +1,8 @@
+import { useShell } from '@/app/layout/use-shell';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useRules } from '@/features/rounds/api/rules';
 import { RulesForm } from '@/features/rounds/components/rules-form';
-import { useShell } from './shell';
 
 export function RulesRoute() {
   const { collection } = useShell();

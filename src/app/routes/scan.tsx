@@ -4,6 +4,8 @@ import { readLabel, type LabelReading } from '#shared/domain/labels/label-payloa
 import type { MembershipSummary } from '#shared/schemas/auth';
 import type { RecordedEvent } from '#shared/schemas/events';
 import type { RoundItemView } from '#shared/schemas/rounds';
+import { useShell } from '@/app/layout/use-shell';
+import { LabelTargetPanel } from '@/app/panels/label-target-panel';
 import { Notice } from '@/components/ui/notice';
 import { useAnimalList } from '@/features/animals/api/list-animals';
 import { useRound } from '@/features/rounds/api/get-round';
@@ -13,8 +15,6 @@ import { PhotoScan } from '@/features/scan/components/photo-scan';
 import { QrCamera } from '@/features/scan/components/qr-camera';
 import { TypeCodeForm } from '@/features/scan/components/type-code-form';
 import { resolveLabel } from '@/features/scan/resolve-label';
-import { LabelTargetPanel } from './label-target';
-import { useShell } from './shell';
 
 interface LastTap {
   event: RecordedEvent;

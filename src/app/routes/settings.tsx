@@ -1,9 +1,9 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { Link, useNavigate } from 'react-router-dom';
+import { useShell } from '@/app/layout/use-shell';
 import { Notice } from '@/components/ui/notice';
 import { SafetyNote } from '@/components/ui/safety-note';
 import { rememberMe } from '@/features/auth/api/get-me';
-import { authKeys } from '@/features/auth/api/keys';
 import { useSignOut } from '@/features/auth/api/sign-out';
 import { ChangePasswordForm } from '@/features/auth/components/change-password-form';
 import { CollectionSwitcher } from '@/features/auth/components/collection-switcher';
@@ -17,7 +17,7 @@ import { ThemePicker } from '@/features/settings/components/theme-picker';
 import { UnitPicker } from '@/features/settings/components/unit-picker';
 import { SignOutButton } from '@/features/sync/components/sign-out-button';
 import { StorageStatus } from '@/features/sync/components/storage-status';
-import { useShell } from './shell';
+import { queryKeys } from '@/lib/query-keys';
 
 export function SettingsRoute() {
   const { me, collection, chooseCollection } = useShell();
@@ -32,7 +32,7 @@ export function SettingsRoute() {
     await rememberMe({ ...me, memberships: others });
     const next = others.find((m) => m.role === 'owner') ?? others[0];
     if (next) chooseCollectionOnDevice(next.collectionId);
-    void queryClient.invalidateQueries({ queryKey: authKeys.me() });
+    void queryClient.invalidateQueries({ queryKey: queryKeys.auth.me() });
     navigate('/today', { replace: true });
   };
   return (

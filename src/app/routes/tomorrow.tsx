@@ -1,4 +1,5 @@
 import { describeLocalDate } from '#shared/domain/local-dates';
+import { useShell } from '@/app/layout/use-shell';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
@@ -6,7 +7,6 @@ import { useRound } from '@/features/rounds/api/get-round';
 import { PrepList } from '@/features/rounds/components/prep-list';
 import { RoundList } from '@/features/rounds/components/round-list';
 import { RoundUnavailable } from '@/features/rounds/components/round-unavailable';
-import { useShell } from './shell';
 
 export function TomorrowRoute() {
   const { me, collection } = useShell();

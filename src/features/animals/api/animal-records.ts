@@ -1,20 +1,20 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { AnimalSummary, AnimalValues, MoveBody, RetireBody } from '#shared/schemas/animals';
-import type { LocationInput, LocationWithCount } from '#shared/schemas/locations';
+import { animalSummary, moveResponse, photoSavedResponse, type AnimalValues, type MoveBody, type RetireBody } from '#shared/schemas/animals';
+import { noContent } from '#shared/schemas/common';
+import { importResponse } from '#shared/schemas/import';
+import { locationListResponse, locationResponse, type LocationInput } from '#shared/schemas/locations';
 import { apiRequest } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 import { uploadPhoto } from '@/lib/upload-photo';
-import { animalKeys } from './list-animals';
-
-const locationKeys = { list: (collectionId: string) => ['locations', collectionId] as const };
 
 /** After any change to the records, the lists (and the rounds built from them) are read again. */
 function useRefresh(collectionId: string) {
   const queryClient = useQueryClient();
   return () =>
     Promise.all([
-      queryClient.invalidateQueries({ queryKey: animalKeys.all(collectionId) }),
-      queryClient.invalidateQueries({ queryKey: locationKeys.list(collectionId) }),
-      queryClient.invalidateQueries({ queryKey: ['rounds', collectionId] }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.animals.all(collectionId) }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.locations.list(collectionId) }),
+      queryClient.invalidateQueries({ queryKey: queryKeys.rounds.all(collectionId) }),
     ]);
 }
 
@@ -22,9 +22,10 @@ export function useSaveAnimal(collectionId: string, animalId?: string) {
   const refresh = useRefresh(collectionId);
   return useMutation({
     mutationFn: (values: AnimalValues) =>
-      apiRequest<AnimalSummary>(animalId ? `/collections/${collectionId}/animals/${animalId}` : `/collections/${collectionId}/animals`, {
+      apiRequest(animalId ? `/collections/${collectionId}/animals/${animalId}` : `/collections/${collectionId}/animals`, {
         method: animalId ? 'PUT' : 'POST',
         body: values,
+        schema: animalSummary,
       }),
     onSuccess: refresh,
   });
@@ -34,7 +35,7 @@ export function useRetireAnimal(collectionId: string, animalId: string) {
   const refresh = useRefresh(collectionId);
   return useMutation({
     mutationFn: (body: RetireBody | null) =>
-      apiRequest<AnimalSummary>(`/collections/${collectionId}/animals/${animalId}/${body ? 'retire' : 'reinstate'}`, { method: 'POST', body: body ?? {} }),
+      apiRequest(`/collections/${collectionId}/animals/${animalId}/${body ? 'retire' : 'reinstate'}`, { method: 'POST', body: body ?? {}, schema: animalSummary }),
     onSuccess: refresh,
   });
 }
@@ -44,7 +45,7 @@ export function useRetireAllAnimals(collectionId: string) {
   const refresh = useRefresh(collectionId);
   return useMutation({
     mutationFn: async ({ animalIds, body }: { animalIds: string[]; body: RetireBody }) => {
-      for (const id of animalIds) await apiRequest(`/collections/${collectionId}/animals/${id}/retire`, { method: 'POST', body });
+      for (const id of animalIds) await apiRequest(`/collections/${collectionId}/animals/${id}/retire`, { method: 'POST', body, schema: animalSummary });
     },
     onSuccess: refresh,
   });
@@ -53,7 +54,7 @@ export function useRetireAllAnimals(collectionId: string) {
 export function useMoveAnimals(collectionId: string) {
   const refresh = useRefresh(collectionId);
   return useMutation({
-    mutationFn: (body: MoveBody) => apiRequest<{ moved: number }>(`/collections/${collectionId}/animals/move`, { method: 'POST', body }),
+    mutationFn: (body: MoveBody) => apiRequest(`/collections/${collectionId}/animals/move`, { method: 'POST', body, schema: moveResponse }),
     onSuccess: refresh,
   });
 }
@@ -61,20 +62,23 @@ export function useMoveAnimals(collectionId: string) {
 export function useImportAnimals(collectionId: string) {
   const refresh = useRefresh(collectionId);
   return useMutation({
-    mutationFn: (rows: unknown[]) => apiRequest<{ imported: number }>(`/collections/${collectionId}/animals/import`, { method: 'POST', body: { rows } }),
+    mutationFn: (rows: unknown[]) => apiRequest(`/collections/${collectionId}/animals/import`, { method: 'POST', body: { rows }, schema: importResponse }),
     onSuccess: refresh,
   });
 }
 
 export function useUploadPhoto(collectionId: string, animalId: string) {
   const refresh = useRefresh(collectionId);
-  return useMutation({ mutationFn: (file: File) => uploadPhoto(`/collections/${collectionId}/animals/${animalId}/photo`, file), onSuccess: refresh });
+  return useMutation({
+    mutationFn: (file: File) => uploadPhoto(`/collections/${collectionId}/animals/${animalId}/photo`, file, photoSavedResponse),
+    onSuccess: refresh,
+  });
 }
 
 export function useLocations(collectionId: string) {
   return useQuery({
-    queryKey: locationKeys.list(collectionId),
-    queryFn: () => apiRequest<{ locations: LocationWithCount[] }>(`/collections/${collectionId}/locations`),
+    queryKey: queryKeys.locations.list(collectionId),
+    queryFn: () => apiRequest(`/collections/${collectionId}/locations`, { schema: locationListResponse }),
   });
 }
 
@@ -82,8 +86,11 @@ export function useLocationChanges(collectionId: string) {
   const refresh = useRefresh(collectionId);
   const base = `/collections/${collectionId}/locations`;
   return {
-    create: useMutation({ mutationFn: (body: LocationInput) => apiRequest(base, { method: 'POST', body }), onSuccess: refresh }),
-    reorder: useMutation({ mutationFn: (locationIds: string[]) => apiRequest(`${base}/order`, { method: 'PUT', body: { locationIds } }), onSuccess: refresh }),
-    remove: useMutation({ mutationFn: (locationId: string) => apiRequest(`${base}/${locationId}`, { method: 'DELETE' }), onSuccess: refresh }),
+    create: useMutation({ mutationFn: (body: LocationInput) => apiRequest(base, { method: 'POST', body, schema: locationResponse }), onSuccess: refresh }),
+    reorder: useMutation({
+      mutationFn: (locationIds: string[]) => apiRequest(`${base}/order`, { method: 'PUT', body: { locationIds }, schema: locationListResponse }),
+      onSuccess: refresh,
+    }),
+    remove: useMutation({ mutationFn: (locationId: string) => apiRequest(`${base}/${locationId}`, { method: 'DELETE', schema: noContent }), onSuccess: refresh }),
   };
 }

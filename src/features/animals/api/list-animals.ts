@@ -3,11 +3,7 @@ import type { AnimalSummary } from '#shared/schemas/animals';
 import { ApiError, apiRequest } from '@/lib/api-client';
 import { withDb } from '@/lib/db';
 import { cachedDirectory, storeDirectory } from '@/lib/directory';
-
-export const animalKeys = {
-  all: (collectionId: string) => ['animals', collectionId] as const,
-  list: (collectionId: string) => [...animalKeys.all(collectionId), 'list'] as const,
-};
+import { queryKeys } from '@/lib/query-keys';
 
 export interface AnimalDirectory {
   animals: AnimalSummary[];
@@ -35,6 +31,6 @@ export async function loadAnimals(collectionId: string): Promise<AnimalDirectory
 }
 
 export const animalListQueryOptions = (collectionId: string) =>
-  queryOptions({ queryKey: animalKeys.list(collectionId), queryFn: () => loadAnimals(collectionId), networkMode: 'always' });
+  queryOptions({ queryKey: queryKeys.animals.list(collectionId), queryFn: () => loadAnimals(collectionId), networkMode: 'always' });
 
 export const useAnimalList = (collectionId: string, enabled = true) => useQuery({ ...animalListQueryOptions(collectionId), enabled });

@@ -2,7 +2,7 @@ import { useQuery, useQueryClient, type QueryClient } from '@tanstack/react-quer
 import type { MeResponse } from '#shared/schemas/auth';
 import { ApiError, apiRequest } from '@/lib/api-client';
 import { cachedMe, storeMe, withDb } from '@/lib/db';
-import { authKeys } from './keys';
+import { queryKeys } from '@/lib/query-keys';
 
 /** Who is signed in, from the server; the answer is kept on the phone for offline starts. */
 async function fetchMe(): Promise<MeResponse> {
@@ -29,9 +29,9 @@ async function loadMe(queryClient: QueryClient): Promise<MeResponse> {
   const known = await withDb(cachedMe).catch(() => undefined);
   if (!known) return fetchMe();
   fetchMe().then(
-    (me) => queryClient.setQueryData(authKeys.me(), me),
+    (me) => queryClient.setQueryData(queryKeys.auth.me(), me),
     (err) => {
-      if (err instanceof ApiError && err.status === 401) void queryClient.resetQueries({ queryKey: authKeys.me() });
+      if (err instanceof ApiError && err.status === 401) void queryClient.resetQueries({ queryKey: queryKeys.auth.me() });
     },
   );
   return known;
@@ -39,5 +39,5 @@ async function loadMe(queryClient: QueryClient): Promise<MeResponse> {
 
 export function useMe() {
   const queryClient = useQueryClient();
-  return useQuery({ queryKey: authKeys.me(), queryFn: () => loadMe(queryClient), staleTime: 60_000, networkMode: 'always' });
+  return useQuery({ queryKey: queryKeys.auth.me(), queryFn: () => loadMe(queryClient), staleTime: 60_000, networkMode: 'always' });
 }

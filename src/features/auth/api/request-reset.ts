@@ -1,7 +1,6 @@
 import { useMutation } from '@tanstack/react-query';
-import { z } from 'zod';
+import { resetRequestedResponse } from '#shared/schemas/auth';
 import { apiRequest } from '@/lib/api-client';
 
-export const requestReset = (email: string) =>
-  apiRequest('/auth/reset-request', { method: 'POST', body: { email }, schema: z.object({ message: z.string() }) });
+export const requestReset = (email: string) => apiRequest('/auth/reset-request', { method: 'POST', body: { email }, schema: resetRequestedResponse });
 export const useRequestReset = () => useMutation({ mutationFn: requestReset });

@@ -1,8 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { meResponse, type SignInBody } from '#shared/schemas/auth';
 import { apiRequest } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 import { rememberMe } from './get-me';
-import { authKeys } from './keys';
 
 export const signIn = (body: SignInBody) => apiRequest('/auth/sign-in', { method: 'POST', body, schema: meResponse });
 
@@ -13,7 +13,7 @@ export function useSignIn() {
     onSuccess: async (me) => {
       await rememberMe(me);
       queryClient.clear();
-      queryClient.setQueryData(authKeys.me(), me);
+      queryClient.setQueryData(queryKeys.auth.me(), me);
     },
   });
 }

@@ -4,7 +4,8 @@ import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { RecordedEvent } from '#shared/schemas/events';
 import { deviceIdOf, storeMe, withDb, type RacksideDb } from '@/lib/db';
 import { storeDirectory } from '@/lib/directory';
-import { attentionOf, recordTap, settleBatch, storeServerRound, waitingTaps } from '@/lib/outbox';
+import { attentionOf, recordTap, settleBatch, waitingTaps } from '@/lib/outbox';
+import { storeServerRound } from '@/lib/round-cache';
 import { sampleRound } from '../../../../tests/fixtures/sample-round';
 import { signOut } from './sign-out';
 

@@ -1,4 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { noContent } from '#shared/schemas/common';
 import { apiRequest } from '@/lib/api-client';
 import { clearCachedCollections, withDb } from '@/lib/db';
 
@@ -7,7 +8,7 @@ import { clearCachedCollections, withDb } from '@/lib/db';
  * person's waiting taps stay, kept for their next sign-in (the button warns about them first).
  */
 export async function signOut() {
-  await apiRequest('/auth/sign-out', { method: 'POST' });
+  await apiRequest('/auth/sign-out', { method: 'POST', schema: noContent });
   await withDb(clearCachedCollections);
 }
 

@@ -1,10 +1,11 @@
 import type { LabelPdfBody } from '#shared/schemas/labels';
-import { apiDownload } from '@/lib/api-client';
+import { apiRaw, failureOf } from '@/lib/api-client';
 
 /** Asks the server for the PDF and hands it to the browser as a download. */
 export async function downloadLabelsPdf(collectionId: string, body: LabelPdfBody): Promise<void> {
-  const blob = await apiDownload(`/collections/${collectionId}/labels/pdf`, { method: 'POST', body }, 'application/pdf');
-  const url = URL.createObjectURL(blob);
+  const res = await apiRaw(`/collections/${collectionId}/labels/pdf`, { method: 'POST', body, accept: 'application/pdf' });
+  if (!res.ok) throw await failureOf(res);
+  const url = URL.createObjectURL(await res.blob());
   const a = document.createElement('a');
   a.href = url;
   a.download = `rackside-labels-${new Date().toISOString().slice(0, 10)}.pdf`;

@@ -1,28 +1,18 @@
-import { useMutation } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
-import { relabelResponse } from '#shared/schemas/labels';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
-import { apiRequest } from '@/lib/api-client';
+import { useRelabel } from '../api/relabel';
 
 interface Props {
   collectionId: string;
   animal: { id: string; name: string; labelCode: string };
-  /** Called with the new code once the server has it (the route refreshes its lists). */
-  onRelabelled: (labelCode: string) => void;
 }
 
 /** The animal's label: print it again, or give it a new code when the old label is lost or damaged. */
-export function LabelPanel({ collectionId, animal, onRelabelled }: Props) {
+export function LabelPanel({ collectionId, animal }: Props) {
   const [confirming, setConfirming] = useState(false);
-  const relabel = useMutation({
-    mutationFn: () => apiRequest(`/collections/${collectionId}/animals/${animal.id}/relabel`, { method: 'POST', schema: relabelResponse }),
-    onSuccess: ({ labelCode }) => {
-      setConfirming(false);
-      onRelabelled(labelCode);
-    },
-  });
+  const relabel = useRelabel(collectionId, animal.id, () => setConfirming(false));
   return (
     <section aria-labelledby="label-heading" className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
       <h2 id="label-heading" className="text-xl font-extrabold">

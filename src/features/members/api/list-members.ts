@@ -1,12 +1,12 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { membersResponse } from '#shared/schemas/collections';
 import { apiRequest } from '@/lib/api-client';
-import { memberKeys } from './keys';
+import { queryKeys } from '@/lib/query-keys';
 
 /** The collection's members and the keeper invites still unanswered (owners only). */
 export const listMembers = (collectionId: string) => apiRequest(`/collections/${collectionId}/members`, { schema: membersResponse });
 
 export const membersQueryOptions = (collectionId: string) =>
-  queryOptions({ queryKey: memberKeys.list(collectionId), queryFn: () => listMembers(collectionId) });
+  queryOptions({ queryKey: queryKeys.members.list(collectionId), queryFn: () => listMembers(collectionId) });
 
 export const useMembers = (collectionId: string) => useQuery(membersQueryOptions(collectionId));

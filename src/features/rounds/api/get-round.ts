@@ -1,8 +1,8 @@
 import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
 import { withDb, type RoundDay } from '@/lib/db';
-import { cachedRound, storeServerRound } from '@/lib/outbox';
-import { roundKeys } from './keys';
+import { queryKeys } from '@/lib/query-keys';
+import { cachedRound, storeServerRound } from '@/lib/round-cache';
 
 const REFRESH_EVERY_MS = 5 * 60_000;
 
@@ -15,7 +15,7 @@ export async function getRound(collectionId: string, day: RoundDay) {
 /** The phone's copy of a round: read from IndexedDB, so it opens with no signal at all. */
 export const localRoundQueryOptions = (userId: string, collectionId: string, day: RoundDay) =>
   queryOptions({
-    queryKey: roundKeys.local(collectionId, day, userId),
+    queryKey: queryKeys.rounds.local(collectionId, day, userId),
     queryFn: async () => (await withDb((db) => cachedRound(db, userId, collectionId, day))) ?? null,
     staleTime: Infinity,
     networkMode: 'always',
@@ -32,11 +32,11 @@ export function useRound(userId: string, collectionId: string, day: RoundDay) {
   const queryClient = useQueryClient();
   const local = useQuery(localRoundQueryOptions(userId, collectionId, day));
   const server = useQuery({
-    queryKey: roundKeys.server(collectionId, day),
+    queryKey: queryKeys.rounds.server(collectionId, day),
     queryFn: async () => {
       const round = await getRound(collectionId, day);
       const cached = await withDb((db) => storeServerRound(db, userId, collectionId, day, round, new Date()));
-      queryClient.setQueryData(roundKeys.local(collectionId, day, userId), cached);
+      queryClient.setQueryData(queryKeys.rounds.local(collectionId, day, userId), cached);
       return cached.fetchedAt;
     },
     networkMode: 'always',

@@ -3,10 +3,11 @@ import { useCallback } from 'react';
 import type { EventKind } from '#shared/domain/event-kinds';
 import type { RecordedEvent } from '#shared/schemas/events';
 import { withDb, type CachedRound } from '@/lib/db';
-import { applyTapEffect, recordTap, recordTaps } from '@/lib/outbox';
+import { recordTap, recordTaps } from '@/lib/outbox';
+import { queryKeys } from '@/lib/query-keys';
+import { applyTapEffect } from '@/lib/round-cache';
 import { askToKeepStorageOnce } from '@/lib/storage';
 import { tapRecorded } from '@/lib/sync-driver';
-import { roundKeys } from './keys';
 
 export interface Recorder {
   userId: string;
@@ -29,7 +30,7 @@ export function useRecordOutcome({ userId, byName, collectionId }: Recorder) {
       // User Timing, read by the P1 benchmark: how much of a tap is the IndexedDB commit.
       performance.measure('rackside:tap-committed', { start: started });
       if (effect) {
-        queryClient.setQueryData<CachedRound | null>(roundKeys.local(collectionId, 'today', userId), (prev) => (prev ? applyTapEffect(prev, effect) : prev));
+        queryClient.setQueryData<CachedRound | null>(queryKeys.rounds.local(collectionId, 'today', userId), (prev) => (prev ? applyTapEffect(prev, effect) : prev));
       }
       tapRecorded();
       void askToKeepStorageOnce();
@@ -53,7 +54,7 @@ export function useRecordMany({ userId, byName, collectionId }: Recorder) {
         event: { id: crypto.randomUUID(), animalId: animal.id, kind, payload: {}, clientRecordedAt: at } satisfies RecordedEvent,
       }));
       const effects = await withDb((db) => recordTaps(db, taps));
-      queryClient.setQueryData<CachedRound | null>(roundKeys.local(collectionId, 'today', userId), (prev) => (prev ? effects.reduce(applyTapEffect, prev) : prev));
+      queryClient.setQueryData<CachedRound | null>(queryKeys.rounds.local(collectionId, 'today', userId), (prev) => (prev ? effects.reduce(applyTapEffect, prev) : prev));
       tapRecorded();
       void askToKeepStorageOnce();
       return taps.map((t) => t.event);

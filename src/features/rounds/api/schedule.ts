@@ -2,12 +2,12 @@ import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/r
 import { scheduleResponse } from '#shared/schemas/rounds';
 import type { CareSettingsBody } from '#shared/schemas/rules';
 import { apiRequest } from '@/lib/api-client';
-import { roundKeys } from './keys';
+import { queryKeys } from '@/lib/query-keys';
 
 export const getSchedule = (collectionId: string, animalId: string) =>
   apiRequest(`/collections/${collectionId}/animals/${animalId}/schedule`, { schema: scheduleResponse });
 export const scheduleQueryOptions = (collectionId: string, animalId: string) =>
-  queryOptions({ queryKey: roundKeys.schedule(collectionId, animalId), queryFn: () => getSchedule(collectionId, animalId) });
+  queryOptions({ queryKey: queryKeys.rounds.schedule(collectionId, animalId), queryFn: () => getSchedule(collectionId, animalId) });
 export const useSchedule = (collectionId: string, animalId: string) => useQuery(scheduleQueryOptions(collectionId, animalId));
 
 export const patchCare = (collectionId: string, animalId: string, body: CareSettingsBody) =>
@@ -18,8 +18,8 @@ export function useSaveCare(collectionId: string, animalId: string) {
   return useMutation({
     mutationFn: (body: CareSettingsBody) => patchCare(collectionId, animalId, body),
     onSuccess: (data) => {
-      queryClient.setQueryData(roundKeys.schedule(collectionId, animalId), data);
-      void queryClient.invalidateQueries({ queryKey: roundKeys.all(collectionId) });
+      queryClient.setQueryData(queryKeys.rounds.schedule(collectionId, animalId), data);
+      void queryClient.invalidateQueries({ queryKey: queryKeys.rounds.all(collectionId) });
     },
   });
 }

@@ -1,4 +1,3 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { useState } from 'react';
 import { EVENT_WORDS, FED_WHILE_HELD, type EventKind } from '#shared/domain/event-kinds';
 import { describeInstant } from '#shared/domain/local-dates';
@@ -7,10 +6,9 @@ import { Button } from '@/components/ui/button';
 import { ChoiceGroup } from '@/components/ui/choice-group';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
-import { uploadPhoto } from '@/lib/upload-photo';
 import { useAnimalHistory } from '../api/animal-history';
-import { roundKeys } from '../api/keys';
 import { useRecordOutcome, type Recorder } from '../api/record-outcome';
+import { useUploadMoltPhoto } from '../api/upload-molt-photo';
 
 
 function detail(e: HistoryEvent): string | null {
@@ -34,12 +32,8 @@ const GROUP_WORDS: Record<KindGroup, string> = { all: 'All', feeding: 'Feeding',
 
 /** A molt's photo (the exuviae), and a way to add or change it. */
 function MoltPhoto({ collectionId, animalId, event }: { collectionId: string; animalId: string; event: HistoryEvent }) {
-  const queryClient = useQueryClient();
   const url = `/api/collections/${collectionId}/animals/${animalId}/molts/${event.id}/photo`;
-  const upload = useMutation({
-    mutationFn: (file: File) => uploadPhoto(url.slice(4), file),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: roundKeys.history(collectionId, animalId) }),
-  });
+  const upload = useUploadMoltPhoto(collectionId, animalId, event.id);
   return (
     <div className="mt-1 flex items-center gap-2">
       {event.photoVersion && <img src={`${url}?size=thumb&v=${encodeURIComponent(event.photoVersion)}`} alt="The molt’s exuviae" className="h-16 w-16 rounded-lg object-cover" />}

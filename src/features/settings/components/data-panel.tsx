@@ -1,8 +1,6 @@
-import { useMutation } from '@tanstack/react-query';
 import { useId } from 'react';
-import { MAX_RESTORE_BYTES } from '#shared/domain/backup-limits';
 import { Notice } from '@/components/ui/notice';
-import { apiRequest } from '@/lib/api-client';
+import { useRestoreBackup } from '../api/restore-backup';
 
 const linkClass = 'flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold';
 
@@ -10,14 +8,7 @@ const linkClass = 'flex min-h-target items-center justify-between rounded-xl bor
 export function DataPanel({ collectionId, isOwner }: { collectionId: string; isOwner: boolean }) {
   const fileId = useId();
   const base = `/api/collections/${collectionId}`;
-  const restore = useMutation({
-    // The file goes up as it is, streamed: a phone never holds a large backup in memory, and
-    // the server checks it record by record.
-    mutationFn: async (file: File) => {
-      if (file.size > MAX_RESTORE_BYTES) throw new Error(`This backup is larger than Rackside restores (${MAX_RESTORE_BYTES / 1024 / 1024} MB at most).`);
-      return apiRequest<{ animals: number; events: number }>(`/collections/${collectionId}/restore`, { method: 'POST', body: file });
-    },
-  });
+  const restore = useRestoreBackup(collectionId);
   return (
     <section aria-labelledby="data-heading" className="flex flex-col gap-2">
       <h2 id="data-heading" className="text-xl font-extrabold">

@@ -6,9 +6,8 @@ import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/spinner';
 import { withDb, type AttentionEntry } from '@/lib/db';
 import { attentionOf, discardAttention, resendAttention } from '@/lib/outbox';
+import { queryKeys } from '@/lib/query-keys';
 import { refreshSyncCounts, syncNow } from '@/lib/sync-driver';
-
-const key = (userId: string) => ['sync', 'attention', userId] as const;
 
 /**
  * Taps the server refused, with its reason. Each stays until the person sends it again (same
@@ -16,10 +15,10 @@ const key = (userId: string) => ['sync', 'attention', userId] as const;
  */
 export function AttentionList({ userId }: { userId: string }) {
   const queryClient = useQueryClient();
-  const list = useQuery({ queryKey: key(userId), queryFn: () => withDb((db) => attentionOf(db, userId)), networkMode: 'always' });
+  const list = useQuery({ queryKey: queryKeys.sync.attention(userId), queryFn: () => withDb((db) => attentionOf(db, userId)), networkMode: 'always' });
   const changed = () => {
     refreshSyncCounts();
-    return queryClient.invalidateQueries({ queryKey: key(userId) });
+    return queryClient.invalidateQueries({ queryKey: queryKeys.sync.attention(userId) });
   };
   const resend = useMutation({
     mutationFn: (id: string) => withDb((db) => resendAttention(db, id)),

@@ -1,4 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
+import { queryKeys } from '@/lib/query-keys';
 import { storageState } from '@/lib/storage';
 
 const WORDS = {
@@ -9,7 +10,7 @@ const WORDS = {
 
 /** Whether the browser granted persistent storage (asked after the first real tap). */
 export function StorageStatus() {
-  const state = useQuery({ queryKey: ['storage', 'persisted'], queryFn: storageState, networkMode: 'always' });
+  const state = useQuery({ queryKey: queryKeys.storage.persisted(), queryFn: storageState, networkMode: 'always' });
   return (
     <section aria-labelledby="storage-heading" className="flex flex-col gap-1">
       <h2 id="storage-heading" className="text-xl font-extrabold">

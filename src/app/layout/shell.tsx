@@ -1,8 +1,8 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
-import { NavLink, Navigate, Outlet, useLocation, useOutletContext } from 'react-router-dom';
+import { NavLink, Navigate, Outlet, useLocation } from 'react-router-dom';
 import { coverWindowMessage, coverWindowState } from '#shared/domain/roles';
-import type { MeResponse, MembershipSummary } from '#shared/schemas/auth';
+import type { MembershipSummary } from '#shared/schemas/auth';
 import { DialIcon, RackIcon, RoundIcon, ScanIcon, TomorrowIcon } from '@/components/ui/icons';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
@@ -11,17 +11,9 @@ import { useMe } from '@/features/auth/api/get-me';
 import { useCurrentCollection } from '@/features/auth/hooks/use-current-collection';
 import { SyncIndicator } from '@/features/sync/components/sync-indicator';
 import { ApiError } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
 import { startSync } from '@/lib/sync-driver';
-
-export interface ShellContext {
-  me: MeResponse;
-  collection: MembershipSummary | null;
-  chooseCollection: (id: string) => void;
-}
-
-export function useShell() {
-  return useOutletContext<ShellContext>();
-}
+import type { ShellContext } from './use-shell';
 
 const NAV = [
   { to: '/today', label: 'Today', Icon: RoundIcon, helper: true },
@@ -80,9 +72,9 @@ export function Shell() {
   const userId = me.data?.user.id;
   // The signed-in person's outbox syncs while the app is open; saved taps refresh the rounds.
   useEffect(() => (userId ? startSync(userId, () => {
-      void queryClient.invalidateQueries({ queryKey: ['rounds'] });
+      void queryClient.invalidateQueries({ queryKey: queryKeys.rounds.everywhere() });
       // A synced molt can change an animal's size and sex.
-      void queryClient.invalidateQueries({ queryKey: ['animals'] });
+      void queryClient.invalidateQueries({ queryKey: queryKeys.animals.everywhere() });
     }) : undefined), [userId, queryClient]);
 
   useKeepAnimalListOffline(current);

@@ -19,7 +19,7 @@ interface Props {
   onSwitchCollection: (collectionId: string) => void;
 }
 
-/** What a scanned label opens: the item ready for one tap, or a plain reason why not. */
+/** What a scanned label opens (scan + rounds): the item ready for one tap, or a plain reason why not. */
 export function LabelTargetPanel({ target, timeZone, myName, onRecord, onNext, nextWord, onSwitchCollection }: Props) {
   const [recordAnyway, setRecordAnyway] = useState(false);
   const next = (

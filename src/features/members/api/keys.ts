@@ -1,3 +1,0 @@
-export const memberKeys = {
-  list: (collectionId: string) => ['members', collectionId] as const,
-};

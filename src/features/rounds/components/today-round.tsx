@@ -1,0 +1,125 @@
+import { useCallback, useMemo, useState, type ReactNode } from 'react';
+import { EVENT_WORDS } from '#shared/domain/event-kinds';
+import { clockTime, describeLocalDate, localDateOf } from '#shared/domain/local-dates';
+import type { RecordedEvent } from '#shared/schemas/events';
+import type { RoundItemView } from '#shared/schemas/rounds';
+import { Notice } from '@/components/ui/notice';
+import { Loading } from '@/components/ui/spinner';
+import { ApiError } from '@/lib/api-client';
+import { useRound } from '../api/get-round';
+import { useRecordMany, useRecordOutcome } from '../api/record-outcome';
+import { filterItems, ROUND_FILTERS, type RoundFilter } from '../filter-items';
+import { OutcomeButtons } from './outcome-buttons';
+import { ProgressBar } from './progress-bar';
+import { RoundFilters } from './round-filters';
+import { RoundList } from './round-list';
+import { RoundUnavailable } from './round-unavailable';
+import { TrayAtOnce } from './tray-at-once';
+import { UndoToast } from './undo-toast';
+
+interface LastTap {
+  event: RecordedEvent;
+  animal: { id: string; name: string; labelCode: string };
+}
+
+/** What the round offers a form for a molt just tapped (the form itself comes from outside). */
+export interface MoltDetailsSlot {
+  moltId: string;
+  timeZone: string;
+  /** Records the molt's details, or completes `completes` (an earlier molt of the same day). */
+  onRecord: (payload: Record<string, unknown>, at: Date, completes?: string) => Promise<unknown>;
+}
+
+export interface TodayRoundProps {
+  userId: string;
+  myName: string;
+  collectionId: string;
+  /** More on each item, above its buttons (a helper's notes and cautions). */
+  extras?: (item: RoundItemView) => ReactNode;
+  /** The details form under a molt just tapped; keep it stable (useCallback), as `extras`. */
+  moltDetails?: (slot: MoltDetailsSlot) => ReactNode;
+}
+
+/** Today's round at the rack: the phone's copy, one-tap outcomes, filters, trays and undo. */
+export function TodayRound({ userId, myName, collectionId, extras, moltDetails }: TodayRoundProps) {
+  const { local, server } = useRound(userId, collectionId, 'today');
+  const timeZone = local.data?.round.timeZone ?? 'UTC';
+  const record = useRecordOutcome({ userId, byName: myName, collectionId });
+  const recordMany = useRecordMany({ userId, byName: myName, collectionId });
+  const groupActions = useCallback(
+    (label: string, list: RoundItemView[]) => <TrayAtOnce key={label} label={label} items={list} onRecord={recordMany} />,
+    [recordMany],
+  );
+  const [filter, setFilter] = useState<RoundFilter>('all');
+  const [search, setSearch] = useState('');
+  const [last, setLast] = useState<LastTap | null>(null);
+  const closeToast = useCallback(() => setLast(null), []);
+  const actions = useCallback(
+    (item: RoundItemView) => (
+      <>
+        {extras?.(item)}
+        <OutcomeButtons
+          item={item}
+          onRecord={(kind, payload) => {
+            void record(item.animal, kind, payload).then((event) => setLast({ event, animal: item.animal }));
+          }}
+          moltDetails={
+            moltDetails &&
+            ((moltId) =>
+              moltDetails({
+                moltId,
+                timeZone,
+                onRecord: (payload, at, completes) => record(item.animal, 'molt_details', { targetId: completes ?? moltId, ...payload }, at),
+              }))
+          }
+        />
+      </>
+    ),
+    [record, extras, moltDetails, timeZone],
+  );
+  const items = local.data?.round.items;
+  const counts = useMemo(
+    () => Object.fromEntries(ROUND_FILTERS.map((f) => [f, items ? filterItems(items, f, '').length : 0])) as Record<RoundFilter, number>,
+    [items],
+  );
+
+  if (local.isPending || (!local.data && server.isPending)) return <Loading label="Loading today’s round…" />;
+  if (local.isError) return <Notice tone="error" title="This phone’s storage could not be opened, so the round cannot be kept offline." />;
+  if (!local.data) return <RoundUnavailable error={server.error} what="today’s round" />;
+
+  const { round, fetchedAt } = local.data;
+  const today = localDateOf(new Date(), round.timeZone);
+  const undo = (t: LastTap) => void record(t.animal, 'void', { targetId: t.event.id });
+
+  return (
+    <div className="flex flex-col gap-3">
+      {round.date < today && (
+        <Notice tone="warning" title={`This is the round for ${describeLocalDate(round.date)}.`}>
+          Today’s round comes with the next signal. Taps made now are still saved with their time.
+        </Notice>
+      )}
+      {server.isError && (
+        <p className="text-sm font-bold text-muted">
+          {server.error instanceof ApiError && server.error.status === 0 ? 'No signal' : server.error.message} · showing this phone’s copy from {clockTime(fetchedAt, round.timeZone)}
+        </p>
+      )}
+      <ProgressBar done={round.progress.done} total={round.progress.total} />
+      <RoundFilters filter={filter} onFilter={setFilter} search={search} onSearch={setSearch} counts={counts} />
+      <RoundList
+        items={filterItems(round.items, filter, search)}
+        timeZone={round.timeZone}
+        myName={myName}
+        empty={round.items.length ? 'Nothing here with this filter.' : 'Nothing is due. Enjoy the quiet.'}
+        actions={actions}
+        groupActions={filter === 'done' ? undefined : groupActions}
+      />
+      {last && (
+        <UndoToast
+          message={`${EVENT_WORDS[last.event.kind]} · ${last.animal.name} (${last.animal.labelCode})`}
+          onUndo={() => undo(last)}
+          onClose={closeToast}
+        />
+      )}
+    </div>
+  );
+}

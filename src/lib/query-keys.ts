@@ -1,0 +1,55 @@
+import type { RoundDay } from './db';
+
+/**
+ * Every TanStack Query key the app uses, in one place: a key that is read in one file and
+ * invalidated in another must be spelt the same, and the prefixes below are what invalidation
+ * matches on (`rounds.all(c)` also refreshes that collection's rules, history and schedules).
+ */
+export const queryKeys = {
+  auth: {
+    me: () => ['auth', 'me'] as const,
+    demo: () => ['auth', 'demo'] as const,
+    signUpLink: (token: string) => ['auth', 'sign-up-link', token] as const,
+  },
+  animals: {
+    /** Every collection's lists: a sync can change animals anywhere. */
+    everywhere: () => ['animals'] as const,
+    all: (collectionId: string) => ['animals', collectionId] as const,
+    list: (collectionId: string) => ['animals', collectionId, 'list'] as const,
+  },
+  locations: {
+    list: (collectionId: string) => ['locations', collectionId] as const,
+  },
+  rounds: {
+    /** Every collection's rounds: saved taps refresh them all. */
+    everywhere: () => ['rounds'] as const,
+    all: (collectionId: string) => ['rounds', collectionId] as const,
+    /** The phone's copy (IndexedDB), what the screen shows. */
+    local: (collectionId: string, day: RoundDay, userId: string) => ['rounds', collectionId, 'local', day, userId] as const,
+    /** Fetching the server's copy into IndexedDB. */
+    server: (collectionId: string, day: RoundDay) => ['rounds', collectionId, 'server', day] as const,
+    rules: (collectionId: string) => ['rounds', collectionId, 'rules'] as const,
+    history: (collectionId: string, animalId: string) => ['rounds', collectionId, 'history', animalId] as const,
+    schedule: (collectionId: string, animalId: string) => ['rounds', collectionId, 'schedule', animalId] as const,
+  },
+  breeding: {
+    sacs: (collectionId: string) => ['breeding', collectionId, 'sacs'] as const,
+  },
+  cover: {
+    covers: (collectionId: string) => ['cover', collectionId, 'covers'] as const,
+    handover: (collectionId: string) => ['cover', collectionId, 'handover'] as const,
+    reports: (collectionId: string) => ['cover', collectionId, 'reports'] as const,
+    mine: (collectionId: string, userId: string) => ['cover', collectionId, 'mine', userId] as const,
+    invite: (token: string) => ['cover-invite', token] as const,
+  },
+  members: {
+    list: (collectionId: string) => ['members', collectionId] as const,
+  },
+  devMail: () => ['dev', 'mail'] as const,
+  sync: {
+    attention: (userId: string) => ['sync', 'attention', userId] as const,
+  },
+  storage: {
+    persisted: () => ['storage', 'persisted'] as const,
+  },
+};
