@@ -1,0 +1,30 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
+import type { z } from 'zod';
+import { EVENT_PAYLOADS } from '#shared/schemas/events';
+import { Button } from '@/components/ui/button';
+import { TextAreaField } from '@/components/ui/text-area-field';
+
+const noteForm = EVENT_PAYLOADS.note;
+type Input = z.input<typeof noteForm>;
+type Output = z.output<typeof noteForm>;
+
+/** A note about one animal from its round card, written to the outbox like a tap. */
+export function NoteForm({ animalName, onNote }: { animalName: string; onNote: (payload: Output) => void }) {
+  const { register, handleSubmit, reset, watch, formState } = useForm<Input, unknown, Output>({
+    resolver: zodResolver(noteForm),
+    defaultValues: { text: '' },
+  });
+  const submit = handleSubmit((payload) => {
+    onNote(payload);
+    reset();
+  });
+  return (
+    <form className="flex flex-col gap-2" onSubmit={submit}>
+      <TextAreaField label={`Note for ${animalName}`} maxLength={2000} rows={2} error={formState.errors.text?.message} {...register('text')} />
+      <Button type="submit" variant="secondary" disabled={!watch('text').trim()}>
+        Save note
+      </Button>
+    </form>
+  );
+}
