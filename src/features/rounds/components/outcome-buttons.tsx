@@ -75,6 +75,7 @@ interface Props {
 export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
   const [open, setOpen] = useState(false);
   const [confirming, setConfirming] = useState(false);
+  const [noteDraft, setNoteDraft] = useState('');
   const panelId = useId();
   const recorded = new Set<EventKind>(item.outcomes.map((o) => o.kind));
   const hold = feedHoldOf(item);
@@ -120,7 +121,7 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
             ))}
           </div>
           <Suspense fallback={<Loading />}>
-            <NoteForm animalName={item.animal.name} onNote={(payload) => onRecord('note', payload)} />
+            <NoteForm animalName={item.animal.name} draft={noteDraft} onDraft={setNoteDraft} onNote={(payload) => onRecord('note', payload)} />
           </Suspense>
         </div>
       )}

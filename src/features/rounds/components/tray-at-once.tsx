@@ -3,6 +3,7 @@ import type { EventKind } from '#shared/domain/event-kinds';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { Button } from '@/components/ui/button';
 import { Loading } from '@/components/ui/spinner';
+import type { Choice } from './tray-form';
 
 // The form loads when first opened, from the service worker's cache when offline, so the
 // round's first bundle stays small (P4).
@@ -23,6 +24,7 @@ interface Props {
  */
 export function TrayAtOnce({ label, items, onRecord }: Props) {
   const [open, setOpen] = useState(false);
+  const [picks, setPicks] = useState<Record<string, Choice>>({});
   const list = unfed(items);
   if (list.length < 2) return null;
   return (
@@ -33,7 +35,14 @@ export function TrayAtOnce({ label, items, onRecord }: Props) {
         </Button>
       ) : (
         <Suspense fallback={<Loading />}>
-          <TrayForm label={label} list={list} onRecord={onRecord} onClose={() => setOpen(false)} />
+          <TrayForm
+            label={label}
+            list={list}
+            picks={picks}
+            onPick={(id, choice) => setPicks((p) => ({ ...p, [id]: choice }))}
+            onRecord={(chosen) => onRecord(chosen).finally(() => setPicks({}))}
+            onClose={() => setOpen(false)}
+          />
         </Suspense>
       )}
     </div>

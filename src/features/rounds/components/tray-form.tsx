@@ -3,7 +3,7 @@ import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { Button } from '@/components/ui/button';
 
-type Choice = EventKind | 'none';
+export type Choice = EventKind | 'none';
 const CHOICES: Choice[] = ['ate', 'refused', 'prey_left_in', 'skipped', 'none'];
 const WORD = (c: Choice) => (c === 'none' ? 'Not now' : EVENT_WORDS[c]);
 
@@ -11,6 +11,9 @@ interface Props {
   label: string;
   /** The shelf's animals still waiting to be fed. */
   list: readonly RoundItemView[];
+  /** The choices changed so far, kept by the shelf while the form is closed with Cancel. */
+  picks: Record<string, Choice>;
+  onPick: (animalId: string, choice: Choice) => void;
   onRecord: (list: { animal: RoundItemView['animal']; kind: EventKind }[]) => Promise<unknown>;
   onClose: () => void;
 }
@@ -19,9 +22,9 @@ interface Props {
  * "All ate, except …": one choice per animal, every one starting at Ate. Nothing here can be
  * typed wrong (each choice comes from the list), so the form has no schema to check.
  */
-export function TrayForm({ label, list, onRecord, onClose }: Props) {
+export function TrayForm({ label, list, picks: kept, onPick, onRecord, onClose }: Props) {
   const { register, handleSubmit, watch, formState } = useForm<{ picks: Record<string, Choice> }>({
-    defaultValues: { picks: Object.fromEntries(list.map((i) => [i.animal.id, 'ate'])) },
+    defaultValues: { picks: Object.fromEntries(list.map((i) => [i.animal.id, kept[i.animal.id] ?? 'ate'])) },
   });
   const picks = watch('picks');
   const choice = (id: string): Choice => picks[id] ?? 'ate';
@@ -37,7 +40,7 @@ export function TrayForm({ label, list, onRecord, onClose }: Props) {
             <label htmlFor={`tray-${i.animal.id}`} className="min-w-0 flex-1 truncate">
               <span className="font-bold">{i.animal.name}</span> <span className="font-mono text-sm">{i.animal.labelCode}</span>
             </label>
-            <select id={`tray-${i.animal.id}`} className="min-h-target rounded-xl border-2 border-border bg-surface px-2 text-base text-text" {...register(`picks.${i.animal.id}`)}>
+            <select id={`tray-${i.animal.id}`} className="min-h-target rounded-xl border-2 border-border bg-surface px-2 text-base text-text" {...register(`picks.${i.animal.id}`, { onChange: (e: React.ChangeEvent<HTMLSelectElement>) => onPick(i.animal.id, e.target.value as Choice) })}>
               {CHOICES.map((c) => (
                 <option key={c} value={c}>
                   {WORD(c)}
