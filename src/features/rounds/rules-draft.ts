@@ -55,17 +55,32 @@ export function feederRows(d: Draft): number {
   return n;
 }
 
-/** The draft without catalogue row `index` (later rows move up). */
-export function withoutFeeder(d: Draft, index: number): Draft {
-  const rows = feederRows(d);
-  const next: Draft = Object.fromEntries(Object.entries(d).filter(([k]) => !k.startsWith('feeders.')));
-  let j = 0;
-  for (let i = 0; i < rows; i++) {
-    if (i === index) continue;
-    for (const k of ['preyType', 'preySize', 'lengthMm']) next[`feeders.${j}.${k}`] = d[`feeders.${i}.${k}`]!;
-    j += 1;
+/**
+ * The draft as the form holds it: nested by its paths (`feeders.0.preyType` is the first row of
+ * the `feeders` list), the shape react-hook-form keeps field values in.
+ */
+export function nestDraft(d: Draft): Record<string, unknown> {
+  const root: Record<string, unknown> = {};
+  for (const [path, value] of Object.entries(d)) {
+    const keys = path.split('.');
+    let node = root;
+    keys.forEach((key, i) => {
+      if (i === keys.length - 1) node[key] = value;
+      else node = (node[key] ??= /^\d+$/.test(keys[i + 1]!) ? [] : {}) as Record<string, unknown>;
+    });
   }
-  return next;
+  return root;
+}
+
+/** The form's nested values back as one text per rule path. */
+export function flattenDraft(values: Record<string, unknown>, prefix = ''): Draft {
+  const d: Draft = {};
+  for (const [key, value] of Object.entries(values)) {
+    const path = prefix ? `${prefix}.${key}` : key;
+    if (value !== null && typeof value === 'object') Object.assign(d, flattenDraft(value as Record<string, unknown>, path));
+    else d[path] = String(value ?? '');
+  }
+  return d;
 }
 
 const num = (v: string | undefined) => (v === undefined || v.trim() === '' ? NaN : Number(v.replace(',', '.')));

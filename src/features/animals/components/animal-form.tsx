@@ -1,11 +1,13 @@
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useId, useMemo } from 'react';
-import { useForm, type FieldErrors, type Resolver } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
 import { ANIMAL_GROUPS, CAUTION_LABEL, CAUTIONS, DIET_LABEL, DIETS, GROUP_LABEL, SEX_LABEL, SEXES, STAGE_LABEL, stageLabel, stagesOf, type AnimalGroup, type Caution, type LifeStage } from '#shared/domain/animal-facts';
 import { presetFor } from '#shared/domain/genus-presets';
 import { GROUP_CARE } from '#shared/domain/rounds/care-profiles';
 import { checkScientificName } from '#shared/domain/scientific-name';
 import { sizeInUnit, sizeToMm, type SizeUnit } from '#shared/domain/units';
-import { animalInput, type AnimalSummary, type AnimalValues } from '#shared/schemas/animals';
+import { animalFields, checkStageFitsGroup, type AnimalSummary, type AnimalValues } from '#shared/schemas/animals';
 import type { LocationSummary } from '#shared/schemas/animals';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -13,68 +15,51 @@ import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { useServerProblem } from '@/lib/form-errors';
 
-/** The form as typed: text everywhere, turned into the shared schema's shape on submit. */
-interface FormValues {
-  labelCode: string;
-  name: string;
-  scientificName: string;
-  commonName: string;
-  group: string;
-  lifeStage: string;
-  sex: string;
-  size: string;
-  acquiredOn: string;
-  source: string;
-  locationId: string;
-  cautions: string[];
-  cautionNote: string;
-  notes: string;
-  clutch: string;
-  intervalDays: string;
-  preyType: string;
-  preySize: string;
-  preyCount: string;
-  diet: string;
-  hasWaterDish: boolean;
-  doNotFeedUntil: string;
-}
-
 const orNull = (v: string) => (v.trim() === '' ? null : v.trim());
 const numberOrNull = (v: string) => (v.trim() === '' ? null : Number(v.replace(',', '.')));
 
-function toInput(v: FormValues, unit: SizeUnit, sizeTouched: boolean, original: AnimalSummary | null) {
-  const size = numberOrNull(v.size);
-  return {
-    labelCode: v.labelCode,
-    name: v.name,
-    scientificName: v.scientificName,
-    commonName: v.commonName,
-    group: v.group,
-    lifeStage: v.lifeStage,
-    sex: v.sex,
-    // An unchanged size keeps its stored millimetres exactly, whatever unit is shown.
-    sizeMm: !sizeTouched && original ? original.sizeMm : size === null ? null : Number.isNaN(size) ? size : sizeToMm(size, unit),
-    acquiredOn: orNull(v.acquiredOn),
-    source: v.source,
-    locationId: orNull(v.locationId),
-    cautions: v.cautions,
-    cautionNote: v.cautionNote,
-    notes: v.notes,
-    clutch: v.clutch,
-    care: {
-      intervalDays: numberOrNull(v.intervalDays),
-      preyType: orNull(v.preyType),
-      preySize: orNull(v.preySize),
-      preyCount: numberOrNull(v.preyCount),
-      diet: orNull(v.diet),
-      hasWaterDish: v.hasWaterDish,
-      doNotFeedUntil: orNull(v.doNotFeedUntil),
-    },
-  };
-}
+const fields = animalFields.shape;
+const care = fields.care.shape;
 
-/** Schema paths as form fields ("care.intervalDays" is the "intervalDays" box). */
-const fieldOf = (path: string) => (path === 'sizeMm' ? 'size' : path.replace(/^care\./, '').split('.')[0]!);
+/**
+ * The form as typed (text in every box, the size in the keeper's unit, care settings beside the
+ * rest), each box checked by the animal's own rule in `animalFields` and turned into the API's
+ * shape; `original` is the animal being edited, whose size it shows as `shownSize`.
+ */
+function animalForm(unit: SizeUnit, original: AnimalSummary | null, shownSize: string) {
+  return animalFields
+    .omit({ sizeMm: true, acquiredOn: true, locationId: true, care: true })
+    .extend({
+      size: z
+        .string()
+        .transform((v) => {
+          // An unchanged size keeps its stored millimetres exactly, whatever unit is shown.
+          if (original && v === shownSize) return original.sizeMm;
+          const size = numberOrNull(v);
+          return size === null || Number.isNaN(size) ? size : sizeToMm(size, unit);
+        })
+        .pipe(fields.sizeMm),
+      acquiredOn: z.string().transform(orNull).pipe(fields.acquiredOn),
+      locationId: z.string().transform(orNull).pipe(fields.locationId),
+      intervalDays: z.string().transform(numberOrNull).pipe(care.intervalDays),
+      preyType: z.string().transform(orNull).pipe(care.preyType),
+      preySize: z.string().transform(orNull).pipe(care.preySize),
+      preyCount: z.string().transform(numberOrNull).pipe(care.preyCount),
+      diet: z
+        .string()
+        .transform((v): string | null | undefined => orNull(v))
+        .pipe(care.diet),
+      hasWaterDish: care.hasWaterDish,
+      doNotFeedUntil: z.string().transform(orNull).pipe(care.doNotFeedUntil),
+    })
+    .superRefine(checkStageFitsGroup)
+    .transform(({ size, intervalDays, preyType, preySize, preyCount, diet, hasWaterDish, doNotFeedUntil, ...rest }): AnimalValues => ({
+      ...rest,
+      sizeMm: size,
+      care: { intervalDays, preyType, preySize, preyCount, diet, hasWaterDish, doNotFeedUntil },
+    }));
+}
+type FormValues = z.input<ReturnType<typeof animalForm>>;
 
 function fromAnimal(a: AnimalSummary | null, unit: SizeUnit): FormValues {
   return {
@@ -121,16 +106,11 @@ interface Props {
 
 export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCancel }: Props) {
   const listId = useId();
-  const initialSize = fromAnimal(animal, unit).size;
-  const resolver: Resolver<FormValues, unknown, AnimalValues> = async (values) => {
-    const touched = values.size !== initialSize;
-    const parsed = animalInput.safeParse(toInput(values, unit, touched, animal));
-    if (parsed.success) return { values: parsed.data, errors: {} };
-    const errors: Record<string, { type: string; message: string }> = {};
-    for (const issue of parsed.error.issues) errors[fieldOf(issue.path.join('.'))] ??= { type: 'schema', message: issue.message };
-    return { values: {}, errors: errors as FieldErrors<FormValues> };
-  };
-  const { register, handleSubmit, setError, setValue, watch, formState } = useForm<FormValues, unknown, AnimalValues>({ resolver, defaultValues: fromAnimal(animal, unit) });
+  const defaults = fromAnimal(animal, unit);
+  const { register, handleSubmit, setError, setValue, watch, formState } = useForm<FormValues, unknown, AnimalValues>({
+    resolver: zodResolver(animalForm(unit, animal, defaults.size)),
+    defaultValues: defaults,
+  });
   const { problem, attempt } = useServerProblem(setError);
   const e = formState.errors;
   const scientific = watch('scientificName');

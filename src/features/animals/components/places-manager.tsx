@@ -1,17 +1,23 @@
-import { useState } from 'react';
-import type { LocationWithCount } from '#shared/schemas/locations';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm } from 'react-hook-form';
+import { locationInput, type LocationInput, type LocationWithCount } from '#shared/schemas/locations';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { TextField } from '@/components/ui/text-field';
+import { useServerProblem } from '@/lib/form-errors';
 import { useLocationChanges, useLocations } from '../api/animal-records';
 
 /** Rooms, racks, shelves and positions, in the order the keeper walks them. */
 export function PlacesManager({ collectionId }: { collectionId: string }) {
   const places = useLocations(collectionId);
   const change = useLocationChanges(collectionId);
-  const [draft, setDraft] = useState({ room: '', rack: '', shelf: '', position: '' });
-  const error = change.create.error ?? change.reorder.error ?? change.remove.error;
+  const { register, handleSubmit, setError, setValue, formState } = useForm<LocationInput>({
+    resolver: zodResolver(locationInput),
+    defaultValues: { room: '', rack: '', shelf: '', position: '' },
+  });
+  const { problem, attempt } = useServerProblem(setError);
+  const error = problem ?? (change.reorder.error ?? change.remove.error)?.message;
   if (places.isPending) return <Loading label="Loading places…" />;
   if (places.isError) return <Notice tone="error" title={places.error.message} />;
   const list = places.data.locations;
@@ -24,19 +30,22 @@ export function PlacesManager({ collectionId }: { collectionId: string }) {
 
   return (
     <div className="flex flex-col gap-4">
-      {error && <Notice tone="error" title={error.message} />}
+      {error && <Notice tone="error" title={error} />}
       <form
         className="grid grid-cols-2 gap-2 rounded-2xl border-2 border-border p-3"
-        onSubmit={(e) => {
-          e.preventDefault();
-          change.create.mutate(draft, { onSuccess: () => setDraft((d) => ({ ...d, position: '' })) });
-        }}
+        onSubmit={handleSubmit((place) =>
+          attempt(async () => {
+            await change.create.mutateAsync(place);
+            // The next place is usually the next position on the same shelf.
+            setValue('position', '');
+          }),
+        )}
       >
         <p className="col-span-2 font-extrabold">Add a place</p>
         {(['room', 'rack', 'shelf', 'position'] as const).map((k) => (
-          <TextField key={k} label={{ room: 'Room', rack: 'Rack', shelf: 'Shelf or tray', position: 'Position' }[k]} value={draft[k]} onChange={(e) => setDraft((d) => ({ ...d, [k]: e.target.value }))} />
+          <TextField key={k} label={{ room: 'Room', rack: 'Rack', shelf: 'Shelf or tray', position: 'Position' }[k]} error={formState.errors[k]?.message} {...register(k)} />
         ))}
-        <Button type="submit" className="col-span-2" busy={change.create.isPending}>
+        <Button type="submit" className="col-span-2" busy={formState.isSubmitting}>
           Add place
         </Button>
       </form>

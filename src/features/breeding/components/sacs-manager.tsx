@@ -1,15 +1,19 @@
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { z } from 'zod';
 import { GROUP_LABEL, type AnimalGroup } from '#shared/domain/animal-facts';
 import { breedingModeOf, isOpenRecord, type BreedingMode, type BreedingRecordKind } from '#shared/domain/breeding';
-import type { EggSacChange, EggSacView } from '#shared/schemas/breeding';
+import { eggSacBody, type EggSacView } from '#shared/schemas/breeding';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { SelectField } from '@/components/ui/select-field';
 import { Loading } from '@/components/ui/spinner';
 import { TextField } from '@/components/ui/text-field';
+import { useServerProblem } from '@/lib/form-errors';
 import { useBreedingChanges, useEggSacs } from '../api/breeding-api';
-
-const num = (v: string) => (v.trim() === '' ? null : Number(v));
+import { PotUpForm } from './pot-up-form';
+import { SacUpdateForm } from './sac-update-form';
 
 /** A female who can have a sac, case or brood (the route lists only those: `canBreed`). */
 interface Female {
@@ -64,20 +68,10 @@ function countLine(sac: EggSacView, mode: BreedingMode) {
 const capitalise = (w: string) => w.charAt(0).toUpperCase() + w.slice(1);
 
 function SacCard({ sac, today, collectionId, onSlings }: { sac: EggSacView; today: string; collectionId: string; onSlings: Props['onSlings'] }) {
-  const change = useBreedingChanges(collectionId);
   const mode = breedingModeOf(sac.femaleGroup);
   const [open, setOpen] = useState<'update' | 'slings' | null>(null);
-  const [u, setU] = useState({ laidOn: sac.laidOn, pulledOn: sac.pulledOn ?? '', hatchedOn: sac.hatchedOn ?? '', dispersedOn: sac.dispersedOn ?? '', eggCount: sac.eggCount?.toString() ?? '', eggsWithLegs: sac.eggsWithLegs?.toString() ?? '', slingCount: sac.slingCount?.toString() ?? '', minDays: String(sac.incubationMinDays), maxDays: String(sac.incubationMaxDays) });
-  const [s, setS] = useState({ count: String(sac.slingCount ?? sac.eggsWithLegs ?? 24), namePrefix: sac.femaleName, room: '', rack: '', shelf: '', firstPosition: '1' });
   const due = isOpenRecord(sac) && today >= sac.expectedFrom;
-  const error = change.change.error ?? change.slings.error;
   const young = mode.words.young;
-  const kindBody = (): EggSacChange => {
-    const d = (v: string) => v || null;
-    if (sac.kind === 'egg_sac') return { pulledOn: d(u.pulledOn), hatchedOn: d(u.hatchedOn), eggCount: num(u.eggCount), eggsWithLegs: num(u.eggsWithLegs), slingCount: num(u.slingCount) };
-    if (sac.kind === 'egg_case') return { hatchedOn: d(u.hatchedOn), slingCount: num(u.slingCount) };
-    return { dispersedOn: d(u.dispersedOn), slingCount: num(u.slingCount), ...(mode.words.count === 'Eggs' ? { hatchedOn: d(u.hatchedOn), eggCount: num(u.eggCount) } : {}) };
-  };
   return (
     <li className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
       <p className="font-extrabold">
@@ -95,54 +89,8 @@ function SacCard({ sac, today, collectionId, onSlings }: { sac: EggSacView; toda
           Pot up {young}…
         </Button>
       </div>
-      {open === 'update' && (
-        <form
-          aria-label={`Update ${sac.clutch}`}
-          className="grid grid-cols-2 gap-2"
-          onSubmit={(e) => {
-            e.preventDefault();
-            change.change.mutate({ sacId: sac.id, body: { laidOn: u.laidOn, ...kindBody(), incubation: { minDays: Number(u.minDays), maxDays: Number(u.maxDays) } } }, { onSuccess: () => setOpen(null) });
-          }}
-        >
-          <TextField label={mode.words.startedOn} type="date" max={today} value={u.laidOn} onChange={(e) => setU((x) => ({ ...x, laidOn: e.target.value }))} />
-          {sac.kind === 'egg_sac' && <TextField label="Pulled on" type="date" max={today} value={u.pulledOn} onChange={(e) => setU((x) => ({ ...x, pulledOn: e.target.value }))} />}
-          {(sac.kind !== 'brood' || mode.words.count === 'Eggs') && <TextField label="Hatched on" type="date" max={today} value={u.hatchedOn} onChange={(e) => setU((x) => ({ ...x, hatchedOn: e.target.value }))} />}
-          {sac.kind === 'brood' && <TextField label="Dispersed on" type="date" max={today} value={u.dispersedOn} onChange={(e) => setU((x) => ({ ...x, dispersedOn: e.target.value }))} />}
-          {(sac.kind === 'egg_sac' || mode.words.count === 'Eggs') && <TextField label="Eggs" inputMode="numeric" value={u.eggCount} onChange={(e) => setU((x) => ({ ...x, eggCount: e.target.value }))} />}
-          {sac.kind === 'egg_sac' && <TextField label="Eggs with legs" inputMode="numeric" value={u.eggsWithLegs} onChange={(e) => setU((x) => ({ ...x, eggsWithLegs: e.target.value }))} />}
-          <TextField label={capitalise(young)} inputMode="numeric" value={u.slingCount} onChange={(e) => setU((x) => ({ ...x, slingCount: e.target.value }))} />
-          <TextField label={sac.kind === 'brood' ? 'Dispersal from (days)' : 'Incubation from (days)'} inputMode="numeric" value={u.minDays} onChange={(e) => setU((x) => ({ ...x, minDays: e.target.value }))} />
-          <TextField label="to (days)" inputMode="numeric" value={u.maxDays} onChange={(e) => setU((x) => ({ ...x, maxDays: e.target.value }))} />
-          <Button type="submit" className="col-span-2" busy={change.change.isPending}>
-            Save
-          </Button>
-        </form>
-      )}
-      {open === 'slings' && (
-        <form
-          aria-label={`Pot up ${young} from ${sac.clutch}`}
-          className="grid grid-cols-2 gap-2"
-          onSubmit={(e) => {
-            e.preventDefault();
-            change.slings.mutate(
-              { sacId: sac.id, body: { count: Number(s.count), namePrefix: s.namePrefix, room: s.room, rack: s.rack, shelf: s.shelf, firstPosition: Number(s.firstPosition) } },
-              { onSuccess: (r) => onSlings(r.animalIds) },
-            );
-          }}
-        >
-          <TextField label="How many" inputMode="numeric" value={s.count} onChange={(e) => setS((x) => ({ ...x, count: e.target.value }))} />
-          <TextField label="Names start with" value={s.namePrefix} onChange={(e) => setS((x) => ({ ...x, namePrefix: e.target.value }))} />
-          <TextField label="Room" value={s.room} onChange={(e) => setS((x) => ({ ...x, room: e.target.value }))} />
-          <TextField label="Rack" value={s.rack} onChange={(e) => setS((x) => ({ ...x, rack: e.target.value }))} />
-          <TextField label="Tray or shelf" value={s.shelf} onChange={(e) => setS((x) => ({ ...x, shelf: e.target.value }))} />
-          <TextField label="First position" inputMode="numeric" value={s.firstPosition} onChange={(e) => setS((x) => ({ ...x, firstPosition: e.target.value }))} />
-          <p className="col-span-2 text-sm text-muted">One record per pot, numbered in order, codes in sequence, all at once or none. Then print their labels.</p>
-          <Button type="submit" className="col-span-2" busy={change.slings.isPending}>
-            Create {s.count} {young}
-          </Button>
-        </form>
-      )}
-      {error && <Notice tone="error" title={(error as { issues?: { message: string }[] }).issues?.[0]?.message ?? error.message} />}
+      {open === 'update' && <SacUpdateForm sac={sac} mode={mode} today={today} collectionId={collectionId} youngLabel={capitalise(young)} onSaved={() => setOpen(null)} />}
+      {open === 'slings' && <PotUpForm sac={sac} collectionId={collectionId} young={young} onSlings={onSlings} />}
     </li>
   );
 }
@@ -150,48 +98,74 @@ function SacCard({ sac, today, collectionId, onSlings }: { sac: EggSacView; toda
 /** Egg sacs, egg cases and broods from laying (or birth) to potting up, after each female's group. */
 export function SacsManager({ collectionId, today, females, onSlings }: Props) {
   const sacs = useEggSacs(collectionId);
-  const change = useBreedingChanges(collectionId);
-  const [draft, setDraft] = useState({ femaleId: females[0]?.id ?? '', laidOn: today, clutch: '', count: '' });
-  const female = females.find((f) => f.id === draft.femaleId) ?? females[0];
-  const mode = breedingModeOf(female?.group ?? 'tarantula');
-  const kind = mode.record ?? 'egg_sac';
-  const countField = kind === 'brood' && mode.words.count === 'Scorplings' ? 'slingCount' : 'eggCount';
   return (
     <div className="flex flex-col gap-4">
-      <form
-        aria-labelledby="new-sac-heading"
-        className="flex flex-col gap-2 rounded-2xl border-2 border-border p-3"
-        onSubmit={(e) => {
-          e.preventDefault();
-          if (!female) return;
-          change.create.mutate(
-            { femaleId: female.id, laidOn: draft.laidOn, clutch: draft.clutch || undefined, ...(mode.words.count && draft.count.trim() ? { [countField]: num(draft.count) } : {}) },
-            { onSuccess: () => setDraft((d) => ({ ...d, clutch: '', count: '' })) },
-          );
-        }}
-      >
-        <h2 id="new-sac-heading" className="text-xl font-extrabold">
-          Record {A[kind]}
-        </h2>
-        {females.length ? (
-          <SelectField label="Female" value={female?.id ?? ''} onChange={(e) => setDraft((d) => ({ ...d, femaleId: e.target.value }))} options={females.map((f) => ({ value: f.id, label: `${f.name} (${f.labelCode})${f.group === 'tarantula' ? '' : ` · ${GROUP_LABEL[f.group]}`}` }))} />
-        ) : (
-          <Notice tone="info" title="No female to choose yet. Sacs, egg cases and broods are recorded for animals recorded as female: tarantulas, true spiders, mantids, scorpions and centipedes." />
-        )}
-        <TextField label={mode.words.startedOn} type="date" max={today} value={draft.laidOn} onChange={(e) => setDraft((d) => ({ ...d, laidOn: e.target.value }))} />
-        {mode.words.count && kind === 'brood' && <TextField label={mode.words.count} inputMode="numeric" value={draft.count} onChange={(e) => setDraft((d) => ({ ...d, count: e.target.value }))} />}
-        <TextField label="Clutch name" hint={`Its ${mode.words.young} share it. Empty: the female's name and the date.`} value={draft.clutch} onChange={(e) => setDraft((d) => ({ ...d, clutch: e.target.value }))} />
-        <p className="text-sm text-muted">{howSheIsTreated(mode)}</p>
-        {change.create.isError && <Notice tone="error" title={change.create.error.message} />}
-        <Button type="submit" disabled={!female} busy={change.create.isPending}>
-          Record {THE[kind]}
-        </Button>
-      </form>
+      <NewRecordForm collectionId={collectionId} today={today} females={females} />
       {sacs.isPending && <Loading />}
       {sacs.isError && <Notice tone="error" title={sacs.error.message} />}
       <ul aria-label="Egg sacs, egg cases and broods" className="flex flex-col gap-2">
         {sacs.data?.sacs.map((sac) => <SacCard key={sac.id} sac={sac} today={today} collectionId={collectionId} onSlings={onSlings} />)}
       </ul>
     </div>
+  );
+}
+
+/** The new record's fields, the count checked by the rule of the field it is sent as. */
+const newRecordForm = (countField: 'eggCount' | 'slingCount') =>
+  eggSacBody.pick({ femaleId: true, laidOn: true, clutch: true }).extend({
+    count: z
+      .string()
+      .transform((v): number | null | undefined => (v.trim() === '' ? undefined : Number(v)))
+      .pipe(eggSacBody.shape[countField]),
+  });
+type NewRecordInput = z.input<ReturnType<typeof newRecordForm>>;
+type NewRecordOutput = z.output<ReturnType<typeof newRecordForm>>;
+
+/** The chosen female (the first while none is), her group's way of breeding and where its count goes. */
+function recordFor(females: readonly Female[], femaleId: string) {
+  const female = females.find((f) => f.id === femaleId) ?? females[0];
+  const mode = breedingModeOf(female?.group ?? 'tarantula');
+  const kind = mode.record ?? 'egg_sac';
+  const countField = kind === 'brood' && mode.words.count === 'Scorplings' ? ('slingCount' as const) : ('eggCount' as const);
+  return { female, mode, kind, countField };
+}
+
+/** A new sac, egg case or brood: its words and what is counted follow the chosen female's group. */
+function NewRecordForm({ collectionId, today, females }: Omit<Props, 'onSlings'>) {
+  const { create } = useBreedingChanges(collectionId);
+  const { register, handleSubmit, setError, setValue, watch, formState } = useForm<NewRecordInput, unknown, NewRecordOutput>({
+    resolver: (values, context, options) => zodResolver(newRecordForm(recordFor(females, values.femaleId).countField))(values, context, options),
+    defaultValues: { femaleId: females[0]?.id ?? '', laidOn: today, clutch: '', count: '' },
+  });
+  const { female, mode, kind, countField } = recordFor(females, watch('femaleId'));
+  const { problem, attempt } = useServerProblem(setError);
+  const e = formState.errors;
+  const submit = handleSubmit((v) =>
+    attempt(async () => {
+      if (!female) return;
+      await create.mutateAsync({ femaleId: female.id, laidOn: v.laidOn, clutch: v.clutch || undefined, ...(mode.words.count && v.count !== undefined ? { [countField]: v.count } : {}) });
+      setValue('clutch', '');
+      setValue('count', '');
+    }),
+  );
+  return (
+    <form aria-labelledby="new-sac-heading" className="flex flex-col gap-2 rounded-2xl border-2 border-border p-3" onSubmit={submit}>
+      <h2 id="new-sac-heading" className="text-xl font-extrabold">
+        Record {A[kind]}
+      </h2>
+      {females.length ? (
+        <SelectField label="Female" error={e.femaleId?.message} options={females.map((f) => ({ value: f.id, label: `${f.name} (${f.labelCode})${f.group === 'tarantula' ? '' : ` · ${GROUP_LABEL[f.group]}`}` }))} {...register('femaleId')} />
+      ) : (
+        <Notice tone="info" title="No female to choose yet. Sacs, egg cases and broods are recorded for animals recorded as female: tarantulas, true spiders, mantids, scorpions and centipedes." />
+      )}
+      <TextField label={mode.words.startedOn} type="date" max={today} error={e.laidOn?.message} {...register('laidOn')} />
+      {mode.words.count && kind === 'brood' && <TextField label={mode.words.count} inputMode="numeric" error={e.count?.message} {...register('count')} />}
+      <TextField label="Clutch name" hint={`Its ${mode.words.young} share it. Empty: the female's name and the date.`} error={e.clutch?.message} {...register('clutch')} />
+      <p className="text-sm text-muted">{howSheIsTreated(mode)}</p>
+      {problem && <Notice tone="error" title={problem} />}
+      <Button type="submit" disabled={!female} busy={formState.isSubmitting}>
+        Record {THE[kind]}
+      </Button>
+    </form>
   );
 }

@@ -1,12 +1,17 @@
+import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
+import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
+import type { z } from 'zod';
 import { PASSWORD_MIN_CHARS, type MeResponse } from '#shared/schemas/auth';
+import { acceptBody } from '#shared/schemas/cover';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { PasswordField } from '@/components/ui/password-field';
 import { Loading } from '@/components/ui/spinner';
 import { TextField } from '@/components/ui/text-field';
 import { ApiError } from '@/lib/api-client';
+import { useServerProblem } from '@/lib/form-errors';
 import { acceptInvite, useInvitePreview } from '../api/cover-api';
 
 interface Props {
@@ -16,25 +21,40 @@ interface Props {
   onAccepted: (me: MeResponse, collectionId: string) => void;
 }
 
+/** The account a newcomer makes with the invite, named by the body's paths. */
+const accountForm = acceptBody.pick({ account: true }).required();
+type Input = z.input<typeof accountForm>;
+type Output = z.output<typeof accountForm>;
+
 /** The invite link's page: who asks, for what (a cover's days, or keeping), and one step to accept. */
 export function AcceptInvite({ token, me, onAccepted }: Props) {
   const preview = useInvitePreview(token);
-  const [account, setAccount] = useState({ displayName: '', password: '' });
-  const [state, setState] = useState<{ busy: boolean; error: string | null }>({ busy: false, error: null });
+  const { register, handleSubmit, setError, formState } = useForm<Input, unknown, Output>({
+    resolver: zodResolver(accountForm),
+    defaultValues: { account: { displayName: '', password: '' } },
+  });
+  const { problem, attempt } = useServerProblem(setError);
+  const [tap, setTap] = useState<{ busy: boolean; error: string | null }>({ busy: false, error: null });
   if (preview.isPending) return <Loading />;
   if (preview.isError) return <Notice tone="error" title={preview.error.message} />;
   const p = preview.data;
   const signedInAsInvited = me?.user.email === p.email;
-  const accept = async (withAccount: boolean) => {
-    setState({ busy: true, error: null });
+  const accept = async (account?: Output['account']) => {
+    const result = await acceptInvite({ token, account });
+    onAccepted(result.me, result.collectionId);
+  };
+  // Signed in already: one tap, no fields, so the server's words are all there is to show.
+  const acceptSignedIn = async () => {
+    setTap({ busy: true, error: null });
     try {
-      const result = await acceptInvite({ token, account: withAccount ? account : undefined });
-      onAccepted(result.me, result.collectionId);
+      await accept();
     } catch (err) {
       const issues = err instanceof ApiError ? err.issues?.map((i) => i.message).join(' ') : null;
-      setState({ busy: false, error: issues || (err as Error).message });
+      setTap({ busy: false, error: issues || (err as Error).message });
     }
   };
+  const submit = handleSubmit(({ account }) => attempt(() => accept(account)));
+  const error = tap.error ?? problem;
   const keeper = p.role === 'keeper';
   const action = keeper ? 'Accept the invite' : 'Accept the cover';
   return (
@@ -55,10 +75,10 @@ export function AcceptInvite({ token, me, onAccepted }: Props) {
         </>
       )}
       {p.message && <p className="whitespace-pre-line rounded-xl border-2 border-border p-2">{p.message}</p>}
-      {state.error && <Notice tone="error" title={state.error} />}
+      {error && <Notice tone="error" title={error} />}
       {p.hasAccount ? (
         signedInAsInvited ? (
-          <Button busy={state.busy} onClick={() => void accept(false)}>
+          <Button busy={tap.busy} onClick={() => void acceptSignedIn()}>
             {action}
           </Button>
         ) : (
@@ -70,17 +90,11 @@ export function AcceptInvite({ token, me, onAccepted }: Props) {
           </>
         )
       ) : (
-        <form
-          className="flex flex-col gap-3"
-          onSubmit={(e) => {
-            e.preventDefault();
-            void accept(true);
-          }}
-        >
+        <form className="flex flex-col gap-3" onSubmit={submit}>
           <p>{keeper ? 'Make your account to join this collection.' : 'Make your account: it works only for these days in this collection.'}</p>
-          <TextField label="Your name" autoComplete="name" value={account.displayName} onChange={(e) => setAccount((a) => ({ ...a, displayName: e.target.value }))} />
-          <PasswordField label="Password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN_CHARS} characters. A few words you will remember work well.`} value={account.password} onChange={(e) => setAccount((a) => ({ ...a, password: e.target.value }))} />
-          <Button type="submit" busy={state.busy}>
+          <TextField label="Your name" autoComplete="name" error={formState.errors.account?.displayName?.message} {...register('account.displayName')} />
+          <PasswordField label="Password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN_CHARS} characters. A few words you will remember work well.`} error={formState.errors.account?.password?.message} {...register('account.password')} />
+          <Button type="submit" busy={formState.isSubmitting}>
             {action}
           </Button>
         </form>

@@ -1,8 +1,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { z } from 'zod';
-import { email } from '#shared/schemas/auth';
+import type { z } from 'zod';
+import { addMemberBody } from '#shared/schemas/collections';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
@@ -12,7 +12,8 @@ import { useInviteMember } from '../api/invite-member';
 import { useMembers } from '../api/list-members';
 import { useRemoveMember } from '../api/remove-member';
 
-const inviteForm = z.object({ email });
+/** The invite's e-mail; the role is always keeper here. */
+const inviteForm = addMemberBody.pick({ email: true });
 type Input = z.input<typeof inviteForm>;
 type Output = z.output<typeof inviteForm>;
 

@@ -1,8 +1,13 @@
-import { useId, useState, type ReactNode } from 'react';
+import { lazy, Suspense, useId, useState, type ReactNode } from 'react';
 import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
 import { feedHoldOf } from '#shared/domain/rounds/item-status';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { Button } from '@/components/ui/button';
+import { Loading } from '@/components/ui/spinner';
+
+// The note form (and its checks) loads when "More…" is first opened, from the service worker's
+// cache when offline, so the round's first bundle stays small (P4).
+const NoteForm = lazy(() => import('./note-form').then((m) => ({ default: m.NoteForm })));
 
 export type RecordOutcome = (kind: EventKind, payload?: Record<string, unknown>) => void;
 
@@ -70,7 +75,7 @@ interface Props {
 export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
   const [open, setOpen] = useState(false);
   const [confirming, setConfirming] = useState(false);
-  const [note, setNote] = useState('');
+  const [noteDraft, setNoteDraft] = useState('');
   const panelId = useId();
   const recorded = new Set<EventKind>(item.outcomes.map((o) => o.kind));
   const hold = feedHoldOf(item);
@@ -115,30 +120,9 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
               </Button>
             ))}
           </div>
-          <form
-            className="flex flex-col gap-2"
-            onSubmit={(e) => {
-              e.preventDefault();
-              if (!note.trim()) return;
-              onRecord('note', { text: note.trim() });
-              setNote('');
-            }}
-          >
-            <label htmlFor={`${panelId}-note`} className="font-bold">
-              Note for {item.animal.name}
-            </label>
-            <textarea
-              id={`${panelId}-note`}
-              value={note}
-              maxLength={2000}
-              rows={2}
-              onChange={(e) => setNote(e.target.value)}
-              className="rounded-xl border-2 border-border bg-surface p-2 text-lg text-text"
-            />
-            <Button type="submit" variant="secondary" disabled={!note.trim()}>
-              Save note
-            </Button>
-          </form>
+          <Suspense fallback={<Loading />}>
+            <NoteForm animalName={item.animal.name} draft={noteDraft} onDraft={setNoteDraft} onNote={(payload) => onRecord('note', payload)} />
+          </Suspense>
         </div>
       )}
     </div>

@@ -1,26 +1,29 @@
-import { useState } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useMemo, useState } from 'react';
+import { get, useFieldArray, useForm, type FieldError, type FieldErrors, type FieldValues, type Resolver } from 'react-hook-form';
+import { z } from 'zod';
 import { ANIMAL_GROUPS, GROUP_LABEL, stageLabel, type AnimalGroup } from '#shared/domain/animal-facts';
-import type { RulesOverride } from '#shared/domain/rounds/rules';
-import { rulesOverride } from '#shared/schemas/rules';
+import type { RoundRules, RulesOverride } from '#shared/domain/rounds/rules';
+import { rulesOverride, type RulesOverrideBody } from '#shared/schemas/rules';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
+import { useServerProblem } from '@/lib/form-errors';
 import { useSaveRules, type RulesResponse } from '../api/rules';
 import {
   DIET_KEYS,
-  feederRows,
   fedStages,
+  flattenDraft,
   groupOfPath,
   isTextField,
+  nestDraft,
   offerPath,
   profilePath,
   SINGLE_KEYS,
   stagePath,
   toDraft,
   toOverrides,
-  withoutFeeder,
-  type Draft,
   type SingleKey,
   type StageNumberKey,
 } from '../rules-draft';
@@ -71,49 +74,72 @@ function Box({ title, explain, children }: { title: string; explain?: string; ch
   );
 }
 
+/** The paths of the fields that carry a message, e.g. `profiles.mantis.hydrateEveryDays`. */
+function errorPaths(errors: FieldErrors, prefix = ''): string[] {
+  return Object.entries(errors).flatMap(([key, value]) => {
+    const path = prefix ? `${prefix}.${key}` : key;
+    if (!value || typeof value !== 'object') return [];
+    return typeof (value as FieldError).message === 'string' ? [path] : errorPaths(value as FieldErrors, path);
+  });
+}
+
+const notANumber = (raw: string | undefined) => raw !== undefined && (raw.trim() === '' || Number.isNaN(Number(raw.replace(',', '.'))));
+
+/**
+ * The form's text turned into the overrides the API stores and checked by the API's own schema;
+ * a box that holds no number then says so plainly instead of naming the bound it misses.
+ */
+function rulesResolver(defaults: RoundRules): Resolver<FieldValues, unknown, RulesOverrideBody> {
+  const check = zodResolver(
+    z
+      .custom<FieldValues>()
+      .transform((values) => toOverrides(flattenDraft(values), defaults))
+      .pipe(rulesOverride),
+  );
+  return async (values, context, options) => {
+    const result = await check(values, context, options);
+    const draft = flattenDraft(values);
+    for (const path of errorPaths(result.errors)) {
+      if (!isTextField(path) && notANumber(draft[path])) (get(result.errors, path) as FieldError).message = 'Enter a number.';
+    }
+    return result;
+  };
+}
+
 export function RulesForm({ collectionId, data }: { collectionId: string; data: RulesResponse }) {
   const save = useSaveRules(collectionId);
-  const [draft, setDraft] = useState<Draft>(() => toDraft(data.rules));
-  const [errors, setErrors] = useState<Record<string, string>>({});
+  const resolver = useMemo(() => rulesResolver(data.defaults), [data.defaults]);
+  const { register, control, handleSubmit, reset, setError, formState } = useForm<FieldValues, unknown, RulesOverrideBody>({
+    resolver,
+    defaultValues: nestDraft(toDraft(data.rules)),
+  });
+  const feeders = useFieldArray({ control, name: 'feeders' });
+  const { problem, attempt } = useServerProblem(setError);
   const [group, setGroup] = useState<AnimalGroup>('tarantula');
   const defaults = toDraft(data.defaults);
-  const set = (key: string, value: string) => setDraft((d) => ({ ...d, [key]: value }));
   const field = (key: string, label: string, extra: { hint?: string; numeric?: boolean } = {}) => (
     <TextField
       key={key}
       label={label}
       hint={extra.hint}
       inputMode={extra.numeric === false ? 'text' : 'decimal'}
-      value={draft[key] ?? ''}
-      error={errors[key]}
-      onChange={(e) => set(key, e.target.value)}
+      error={(get(formState.errors, key) as FieldError | undefined)?.message}
+      {...register(key)}
     />
   );
 
-  function submit(e: React.FormEvent) {
-    e.preventDefault();
-    const parsed = rulesOverride.safeParse(toOverrides(draft, data.defaults));
-    if (!parsed.success) {
-      const found = Object.fromEntries(
-        parsed.error.issues.map((i) => {
-          const key = i.path.join('.');
-          const raw = draft[key];
-          const notANumber = !isTextField(key) && raw !== undefined && (raw.trim() === '' || Number.isNaN(Number(raw.replace(',', '.'))));
-          return [key, notANumber ? 'Enter a number.' : i.message];
-        }),
-      );
-      setErrors(found);
-      const first = Object.keys(found).map(groupOfPath).find((g) => g !== null);
-      if (first && !Object.keys(found).some((k) => groupOfPath(k) === group)) setGroup(first);
-      return;
-    }
-    setErrors({});
-    save.mutate(parsed.data as RulesOverride);
-  }
+  const submit = handleSubmit(
+    (overrides) => attempt(() => save.mutateAsync(overrides as RulesOverride)),
+    (errors) => {
+      // Show a group whose field needs attention when the one on screen has none.
+      const paths = errorPaths(errors);
+      const first = paths.map(groupOfPath).find((g) => g !== null);
+      if (first && !paths.some((p) => groupOfPath(p) === group)) setGroup(first);
+    },
+  );
 
   const stages = fedStages(data.defaults, group);
-  const problems = Object.keys(errors).length;
-  const rows = feederRows(draft);
+  const problems = errorPaths(formState.errors).length;
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-5">
       <p className="text-sm text-muted">
@@ -139,7 +165,7 @@ export function RulesForm({ collectionId, data }: { collectionId: string; data: 
         ))}
       </Box>
       <Box title="Water without a dish" explain="Animals with a dish get the dish topped up. Without one, this group gets:">
-        <SelectField label="Task" value={draft[profilePath(group, 'hydration')]} onChange={(e) => set(profilePath(group, 'hydration'), e.target.value)} options={HYDRATION_OPTIONS} />
+        <SelectField key={group} label="Task" options={HYDRATION_OPTIONS} {...register(profilePath(group, 'hydration'))} />
         <div className="grid grid-cols-2 gap-3">
           {field(profilePath(group, 'hydrateEveryDays'), 'Every (days)', { hint: `Default ${defaults[profilePath(group, 'hydrateEveryDays')]}` })}
           {field(profilePath(group, 'hydrateBelowMm'), 'Only below (mm)', { hint: 'Empty: every size.' })}
@@ -156,32 +182,28 @@ export function RulesForm({ collectionId, data }: { collectionId: string; data: 
         <div className="grid grid-cols-2 gap-3">{DIET_KEYS.map((k) => field(`dietEveryDays.${k}`, DIET_WORDS[k], { hint: `Default ${defaults[`dietEveryDays.${k}`]}` }))}</div>
       </Box>
       <Box title="Feeder catalogue" explain="The feeders you keep and their usual body length. Offers pick the largest size no longer than the animal’s body.">
-        {Array.from({ length: rows }, (_, i) => (
-          <div key={i} className="grid grid-cols-2 items-end gap-3 border-b-2 border-border pb-3">
+        {feeders.fields.map((row, i) => (
+          <div key={row.id} className="grid grid-cols-2 items-end gap-3 border-b-2 border-border pb-3">
             {field(`feeders.${i}.preyType`, `Feeder ${i + 1}: prey`, { numeric: false })}
             {field(`feeders.${i}.preySize`, `Feeder ${i + 1}: size`, { numeric: false })}
             {field(`feeders.${i}.lengthMm`, `Feeder ${i + 1}: length (mm)`)}
-            <Button type="button" variant="quiet" onClick={() => setDraft((d) => withoutFeeder(d, i))}>
+            <Button type="button" variant="quiet" onClick={() => feeders.remove(i)}>
               Remove feeder {i + 1}
             </Button>
           </div>
         ))}
-        <Button
-          type="button"
-          variant="secondary"
-          onClick={() => setDraft((d) => ({ ...d, [`feeders.${rows}.preyType`]: '', [`feeders.${rows}.preySize`]: '', [`feeders.${rows}.lengthMm`]: '' }))}
-        >
+        <Button type="button" variant="secondary" onClick={() => feeders.append({ preyType: '', preySize: '', lengthMm: '' }, { shouldFocus: false })}>
           Add a feeder size
         </Button>
       </Box>
       {problems > 0 && <Notice tone="error" title={`${problems} ${problems === 1 ? 'field needs' : 'fields need'} attention.`} />}
-      {save.isError && <Notice tone="error" title={save.error.message} />}
+      {problem && <Notice tone="error" title={problem} />}
       {save.isSuccess && <Notice tone="ok" title="Rules saved. Tomorrow’s round follows them; today’s stays as it was built." />}
       <div className="sticky bottom-20 flex gap-3 bg-bg py-2">
-        <Button type="button" variant="secondary" onClick={() => setDraft(toDraft(data.defaults))}>
+        <Button type="button" variant="secondary" onClick={() => reset(nestDraft(toDraft(data.defaults)))}>
           Use defaults
         </Button>
-        <Button type="submit" wide busy={save.isPending}>
+        <Button type="submit" wide busy={formState.isSubmitting}>
           Save rules
         </Button>
       </div>

@@ -1,35 +1,35 @@
-import { useId, useState } from 'react';
+import { useId } from 'react';
+import { useForm } from 'react-hook-form';
 import { Button } from '@/components/ui/button';
 
-/** The label's code typed by hand, in any case and with any spaces, when the camera cannot help. */
+/**
+ * The label's code typed by hand, in any case and with any spaces, when the camera cannot help.
+ * Whatever is typed is read as a label would be, so there is no schema to check it against.
+ */
 export function TypeCodeForm({ onCode }: { onCode: (text: string) => void }) {
   const id = useId();
-  const [code, setCode] = useState('');
+  const { register, handleSubmit, reset, watch } = useForm({ defaultValues: { code: '' } });
+  const submit = handleSubmit(({ code }) => {
+    onCode(code);
+    reset();
+  });
   return (
-    <form
-      className="flex items-end gap-2"
-      onSubmit={(e) => {
-        e.preventDefault();
-        onCode(code);
-        setCode('');
-      }}
-    >
+    <form className="flex items-end gap-2" onSubmit={submit}>
       <div className="flex flex-1 flex-col gap-1">
         <label htmlFor={id} className="font-bold">
           Type the code
         </label>
         <input
           id={id}
-          value={code}
-          onChange={(e) => setCode(e.target.value)}
           placeholder="NL-7K3"
           autoCapitalize="characters"
           autoComplete="off"
           spellCheck={false}
           className="min-h-target w-full rounded-xl border-2 border-border bg-surface px-3 font-mono text-lg uppercase tracking-wider text-text placeholder:normal-case placeholder:text-muted"
+          {...register('code')}
         />
       </div>
-      <Button type="submit" disabled={!code.trim()}>
+      <Button type="submit" disabled={!watch('code').trim()}>
         Open
       </Button>
     </form>
