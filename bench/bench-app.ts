@@ -3,11 +3,11 @@ import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import bcrypt from 'bcryptjs';
 import pino from 'pino';
+import { generateLabelTag } from '#shared/domain/labels/label-payload';
 import { createApp } from '../server/app';
 import type { Database } from '../server/db/client';
 import { readEnv } from '../server/env';
 import type { Mailer } from '../server/mail/mailer';
-import { generateLabelTag } from '../shared/domain/labels/label-payload';
 
 export const distDir = path.resolve(import.meta.dirname, '..', 'dist');
 export const BENCH_PASSWORD = 'bench password 1234';

@@ -2,9 +2,9 @@
 // JavaScript), each against a minimal React + router + query + PWA shell measured the same way.
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { firstRouteJs } from '../scripts/first-route-size.mjs';
+import { DEMO_PASSWORD } from '../server/access/demo-people';
 import type { Database } from '../server/db/client';
-import { seedDemo } from '../server/db/seed/demo';
-import { DEMO_PASSWORD } from '../server/db/seed/demo-people';
+import { seedDemo } from '../server/seed/demo';
 import { cutNetwork, launchBrowser, underServiceWorker } from '../tests/chromium';
 import { distDir, startBenchApp } from './bench-app';
 import { ensureBuilds, largestContentfulPaint, minimalDir, phoneContext, serveMinimalShell, throttle } from './browser-setup';

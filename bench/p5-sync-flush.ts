@@ -4,13 +4,13 @@
 import 'fake-indexeddb/auto';
 import { randomUUID } from 'node:crypto';
 import { performance } from 'node:perf_hooks';
+import { SYNC_BATCH_SIZE } from '#shared/domain/sync-limits';
+import type { RecordedEvent } from '#shared/schemas/events';
 import { findMembership } from '../server/access/memberships';
 import type { Database } from '../server/db/client';
 import { createEventsService } from '../server/features/events/events.service';
 import { createRoundsService } from '../server/features/rounds/rounds.service';
 import { animalsToReconcile } from '../server/features/rounds/urgent-tasks';
-import { SYNC_BATCH_SIZE } from '../shared/domain/sync-limits';
-import type { RecordedEvent } from '../shared/schemas/events';
 import { openRacksideDb } from '../src/lib/db';
 import { recordTap, waitingTaps } from '../src/lib/outbox';
 import { createSyncEngine, type SyncTransport } from '../src/lib/sync';

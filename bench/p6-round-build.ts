@@ -2,15 +2,15 @@
 // (~1M events), and for 20,000 animals (should grow linearly: ≤ 2.2 × the 10,000 figure).
 import { performance } from 'node:perf_hooks';
 import { eq, sql } from 'drizzle-orm';
+import { generateLabelTag } from '#shared/domain/labels/label-payload';
+import { addDays, localDateOf } from '#shared/domain/local-dates';
+import { buildRound } from '#shared/domain/rounds/build-round';
+import { DEFAULT_RULES } from '#shared/domain/rounds/rules';
 import type { Database } from '../server/db/client';
 import { rounds } from '../server/db/schema/rounds';
 import { refoldStates } from '../server/features/events/projection';
 import { loadAnimalsWithState } from '../server/features/rounds/rounds.repository';
 import { createRoundsService } from '../server/features/rounds/rounds.service';
-import { generateLabelTag } from '../shared/domain/labels/label-payload';
-import { addDays, localDateOf } from '../shared/domain/local-dates';
-import { buildRound } from '../shared/domain/rounds/build-round';
-import { DEFAULT_RULES } from '../shared/domain/rounds/rules';
 import { median, type Figure } from './results-file';
 
 const ZONE = 'America/Toronto';

@@ -12,10 +12,10 @@ if (command === 'stop') {
 ensureNodeModules();
 const { databaseUrl } = await prepareDatabase();
 const env = { ...process.env, DATABASE_URL: databaseUrl, SESSION_SECRET: process.env.SESSION_SECRET ?? localSessionSecret() };
-if (command === 'migrate') runTs('server/db/cli.ts', ['migrate'], env);
+if (command === 'migrate') runTs('server/cli.ts', ['migrate'], env);
 else if (command === 'seed') {
-  runTs('server/db/cli.ts', ['migrate'], env);
-  runTs('server/db/cli.ts', ['seed', ...rest], env);
+  runTs('server/cli.ts', ['migrate'], env);
+  runTs('server/cli.ts', ['seed', ...rest], env);
 } else {
   say('Usage: node scripts/db.mjs migrate | seed [--reset] | stop');
   process.exit(2);

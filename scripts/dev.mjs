@@ -14,8 +14,8 @@ const env = {
   PORT: process.env.API_PORT ?? '3001',
   PUBLIC_URL: process.env.PUBLIC_URL ?? 'http://localhost:5173',
 };
-runTs('server/db/cli.ts', ['migrate'], env);
-runTs('server/db/cli.ts', ['seed', '--if-empty'], env);
+runTs('server/cli.ts', ['migrate'], env);
+runTs('server/cli.ts', ['seed', '--if-empty'], env);
 
 const bin = (name) => path.join(repoRoot, 'node_modules', '.bin', name);
 // Detached groups so Ctrl-C takes every child with it (vite leaves children otherwise).

@@ -19,8 +19,8 @@ const env = {
 };
 
 say('Applying database migrations…');
-runTs('server/db/cli.ts', ['migrate'], env);
-if (env.DEMO_MODE === 'true') runTs('server/db/cli.ts', ['seed', '--if-empty'], env);
+runTs('server/cli.ts', ['migrate'], env);
+if (env.DEMO_MODE === 'true') runTs('server/cli.ts', ['seed', '--if-empty'], env);
 
 say('Building the app…');
 run(path.join(repoRoot, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], { env });

@@ -1,7 +1,7 @@
 import path from 'node:path';
 import compression from 'compression';
 import express from 'express';
-import type { Role } from '../shared/domain/roles';
+import type { Role } from '#shared/domain/roles';
 import { createBackground } from './background';
 import type { Database } from './db/client';
 import type { Env } from './env';

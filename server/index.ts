@@ -1,6 +1,6 @@
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './access/demo-people';
 import { createApp } from './app';
 import { connectDatabase } from './db/client';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './db/seed/demo-people';
 import { readEnv, type Env } from './env';
 import { startJobs } from './jobs/jobs';
 import { createLogger } from './logger';

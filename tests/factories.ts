@@ -1,12 +1,12 @@
 import { randomInt, randomUUID } from 'node:crypto';
 import bcrypt from 'bcryptjs';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
+import { LABEL_ALPHABET } from '#shared/domain/label-codes';
+import { generateLabelTag } from '#shared/domain/labels/label-payload';
+import type { AnimalInput } from '#shared/schemas/animals';
 import { animals } from '../server/db/schema/animals';
 import { collections, memberships } from '../server/db/schema/collections';
 import { users } from '../server/db/schema/users';
-import { LABEL_ALPHABET } from '../shared/domain/label-codes';
-import { generateLabelTag } from '../shared/domain/labels/label-payload';
-import type { AnimalInput } from '../shared/schemas/animals';
 import type { TestContext } from './setup/test-app';
 
 export const PASSWORD = 'correct horse battery';

@@ -1,5 +1,5 @@
 import { randomInt } from 'node:crypto';
-import { generateLabelTag } from '../../shared/domain/labels/label-payload';
+import { generateLabelTag } from '#shared/domain/labels/label-payload';
 import type { Db } from '../db/client';
 import { collections } from '../db/schema/collections';
 

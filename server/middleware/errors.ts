@@ -1,6 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
-import type { ErrorBody } from '../../shared/schemas/common';
+import type { ErrorBody } from '#shared/schemas/common';
 import { isDatabaseUnavailable } from '../db/errors';
 
 /** An error a service throws on purpose: its status and message reach the client. */

@@ -1,6 +1,6 @@
 import type { RequestHandler, Response } from 'express';
-import { coverWindowMessage, coverWindowState, roleAtLeast, type Role } from '../../shared/domain/roles';
-import { uuid } from '../../shared/schemas/common';
+import { coverWindowMessage, coverWindowState, roleAtLeast, type Role } from '#shared/domain/roles';
+import { uuid } from '#shared/schemas/common';
 import { findMembership, type Membership } from '../access/memberships';
 import type { Db } from '../db/client';
 import { currentUserId } from './auth';

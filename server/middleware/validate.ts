@@ -1,6 +1,6 @@
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
-import { fieldLabel, isGenericMessage } from '../../shared/schemas/messages';
+import { fieldLabel, isGenericMessage } from '#shared/schemas/messages';
 import { HttpError, zodIssues } from './errors';
 
 interface Shapes {

@@ -2,10 +2,10 @@
 // juveniles, a clutch of slings, refusals, molts, a sac, a pairing, covers — goes out as CSV
 // (RFC 4180) and as a backup, and comes back into an empty collection unchanged.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { demoCollectionId, seedDemo } from '../../server/db/seed/demo';
-import { DEMO_PASSWORD } from '../../server/db/seed/demo-people';
-import { rowToAnimal } from '../../shared/domain/csv/animal-columns';
-import { readCsv } from '../../shared/domain/csv/csv-file';
+import { rowToAnimal } from '#shared/domain/csv/animal-columns';
+import { readCsv } from '#shared/domain/csv/csv-file';
+import { DEMO_PASSWORD } from '../../server/access/demo-people';
+import { demoCollectionId, seedDemo } from '../../server/seed/demo';
 import { signUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 import { withOriginalIds } from '../support/backup-compare';

@@ -4,14 +4,14 @@
 // mantis egg case). The rules themselves are common practice, no published source.
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { localDateOf } from '#shared/domain/local-dates';
+import { projectState, type EngineEvent } from '#shared/domain/rounds/animal-state';
+import { decideAnimal, FEED_HOLD_CODES, type EngineAnimal } from '#shared/domain/rounds/build-round';
+import { effectiveRules, type RulesOverride } from '#shared/domain/rounds/rules';
 import { animals, eggSacs, events } from '../../server/db/schema/animals';
 import { collections } from '../../server/db/schema/collections';
-import { demoCollectionId, seedDemo } from '../../server/db/seed/demo';
 import { toAnimalSummary } from '../../server/features/animals/animal-summary';
-import { localDateOf } from '../../shared/domain/local-dates';
-import { projectState, type EngineEvent } from '../../shared/domain/rounds/animal-state';
-import { decideAnimal, FEED_HOLD_CODES, type EngineAnimal } from '../../shared/domain/rounds/build-round';
-import { effectiveRules, type RulesOverride } from '../../shared/domain/rounds/rules';
+import { demoCollectionId, seedDemo } from '../../server/seed/demo';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
 const ZONE = 'America/Toronto';
@@ -61,7 +61,7 @@ describe('the demo collection', () => {
     expect(records.map((r) => `${r.kind}:${nameOf(r.femaleId)}`).sort()).toEqual(['brood:Pinch', 'egg_case:Mantra', 'egg_sac:Juniper', 'egg_sac:Pepper']);
 
     const owner = ctx.agent();
-    await owner.post('/api/auth/sign-in').send({ email: 'owner@northlight.test', password: (await import('../../server/db/seed/demo-people')).DEMO_PASSWORD }).expect(200);
+    await owner.post('/api/auth/sign-in').send({ email: 'owner@northlight.test', password: (await import('../../server/access/demo-people')).DEMO_PASSWORD }).expect(200);
     const round = (await owner.get(`/api/collections/${demoId}/rounds/today`).expect(200)).body;
     type Item = { animal: { name: string }; tasks: { kind: string; reasons: { text: string }[] }[]; notes: { code: string }[] };
     const item = (name: string) => round.items.find((i: Item) => i.animal.name === name) as Item | undefined;

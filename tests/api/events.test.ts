@@ -1,8 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { eq, inArray } from 'drizzle-orm';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { MAX_BATCH_EVENTS } from '#shared/domain/sync-limits';
 import { events } from '../../server/db/schema/animals';
-import { MAX_BATCH_EVENTS } from '../../shared/domain/sync-limits';
 import { addMember, createAnimal, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 

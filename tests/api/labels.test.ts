@@ -1,9 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { isLabelCode } from '../../shared/domain/label-codes';
-import { labelContent } from '../../shared/domain/labels/label-content';
-import { LABEL_FIELDS } from '../../shared/domain/labels/label-layout';
-import { isLabelTag, labelUrl } from '../../shared/domain/labels/label-payload';
-import { LABEL_SIZES, placeLabels, sheetLayout } from '../../shared/domain/labels/sheet-layout';
+import { isLabelCode } from '#shared/domain/label-codes';
+import { labelContent } from '#shared/domain/labels/label-content';
+import { LABEL_FIELDS } from '#shared/domain/labels/label-layout';
+import { isLabelTag, labelUrl } from '#shared/domain/labels/label-payload';
+import { LABEL_SIZES, placeLabels, sheetLayout } from '#shared/domain/labels/sheet-layout';
 import { addMember, createAnimal, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 import { darkPixelsAround, decodeQrIn, measureQrIn, rasterisePdf } from '../support/label-raster';

@@ -2,13 +2,13 @@ import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { addDays, localDateOf, startOfLocalDate } from '#shared/domain/local-dates';
+import { projectState } from '#shared/domain/rounds/animal-state';
+import { DEMO_PASSWORD } from '../../server/access/demo-people';
 import { animals, events } from '../../server/db/schema/animals';
 import { animalStates, rounds as roundsTable } from '../../server/db/schema/rounds';
 import { users } from '../../server/db/schema/users';
-import { demoCollectionId, seedDemo } from '../../server/db/seed/demo';
-import { DEMO_PASSWORD } from '../../server/db/seed/demo-people';
-import { addDays, localDateOf, startOfLocalDate } from '../../shared/domain/local-dates';
-import { projectState } from '../../shared/domain/rounds/animal-state';
+import { demoCollectionId, seedDemo } from '../../server/seed/demo';
 import { createAnimal, signUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 

@@ -5,7 +5,7 @@
 import { randomUUID } from 'node:crypto';
 import { sql } from 'drizzle-orm';
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from 'vitest';
-import { addDays, localDateOf, startOfLocalDate } from '../../shared/domain/local-dates';
+import { addDays, localDateOf, startOfLocalDate } from '#shared/domain/local-dates';
 import { createAnimal, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 

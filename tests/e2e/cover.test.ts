@@ -3,9 +3,9 @@
 // the owner's daily report lists it; outside the cover the helper sees when it runs.
 import { and, eq, gte } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
+import { addDays, localDateOf, startOfLocalDate } from '#shared/domain/local-dates';
 import { events } from '../../server/db/schema/animals';
 import { users } from '../../server/db/schema/users';
-import { addDays, localDateOf, startOfLocalDate } from '../../shared/domain/local-dates';
 import { cutNetwork, restoreNetwork, underServiceWorker } from '../chromium';
 import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
 

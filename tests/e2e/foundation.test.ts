@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD } from '../../server/db/seed/demo-people';
+import { DEMO_PASSWORD } from '../../server/access/demo-people';
 import { expectAccessible, phonePage, screenshot, useE2e } from './support';
 
 const env = useE2e();

@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { events } from '../../server/db/schema/animals';
 import { memberships } from '../../server/db/schema/collections';
 import { users } from '../../server/db/schema/users';
-import { demoCollectionId } from '../../server/db/seed/demo';
+import { demoCollectionId } from '../../server/seed/demo';
 import { cutNetwork, restoreNetwork, underServiceWorker } from '../chromium';
 import { expectAccessible, phonePage, screenshot, useE2e, signInAsDemo } from './support';
 

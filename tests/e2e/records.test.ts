@@ -5,8 +5,8 @@ import os from 'node:os';
 import path from 'node:path';
 import sharp from 'sharp';
 import { afterAll, describe, expect, it } from 'vitest';
-import { ANIMAL_COLUMNS } from '../../shared/domain/csv/animal-columns';
-import { writeCsv } from '../../shared/domain/csv/csv-file';
+import { ANIMAL_COLUMNS } from '#shared/domain/csv/animal-columns';
+import { writeCsv } from '#shared/domain/csv/csv-file';
 import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
 
 const env = useE2e();

@@ -4,11 +4,11 @@
 import { eq } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
+import { addDays, localDateOf } from '#shared/domain/local-dates';
 import { animals } from '../../server/db/schema/animals';
 import { memberships } from '../../server/db/schema/collections';
 import { users } from '../../server/db/schema/users';
-import { demoCollectionId } from '../../server/db/seed/demo';
-import { addDays, localDateOf } from '../../shared/domain/local-dates';
+import { demoCollectionId } from '../../server/seed/demo';
 import { cutNetwork, restoreNetwork, underServiceWorker } from '../chromium';
 import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
 

@@ -6,9 +6,9 @@ import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, beforeEach, expect } from 'vitest';
-import { seedDemo } from '../../server/db/seed/demo';
-import { DEMO_COLLECTION, DEMO_PASSWORD } from '../../server/db/seed/demo-people';
-import { localDateOf } from '../../shared/domain/local-dates';
+import { localDateOf } from '#shared/domain/local-dates';
+import { DEMO_COLLECTION, DEMO_PASSWORD } from '../../server/access/demo-people';
+import { seedDemo } from '../../server/seed/demo';
 import { launchBrowser } from '../chromium';
 import { createTestContext, type TestContext } from '../setup/test-app';
 

@@ -18,8 +18,8 @@ import {
   DIETS,
   LIFE_STAGES,
   SEXES,
-} from '../../../shared/domain/animal-facts';
-import { BREEDING_RECORDS } from '../../../shared/domain/breeding';
+} from '#shared/domain/animal-facts';
+import { BREEDING_RECORDS } from '#shared/domain/breeding';
 import { collections, locations } from './collections';
 import { users } from './users';
 

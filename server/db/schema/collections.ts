@@ -10,7 +10,7 @@ import {
   unique,
   uuid,
 } from 'drizzle-orm/pg-core';
-import { ROLES } from '../../../shared/domain/roles';
+import { ROLES } from '#shared/domain/roles';
 import { users } from './users';
 
 export const roleEnum = pgEnum('member_role', ROLES);

@@ -1,5 +1,5 @@
-import type { Caution } from '../../../shared/domain/animal-facts';
-import { toLocationSummary, type AnimalSummary } from '../../../shared/schemas/animals';
+import type { Caution } from '#shared/domain/animal-facts';
+import { toLocationSummary, type AnimalSummary } from '#shared/schemas/animals';
 import type { AnimalRow, LocationRow } from './animals.repository';
 
 /** A stored animal (and its place) as the API and the round engine see it. */

@@ -1,8 +1,8 @@
 import { Router, type RequestHandler } from 'express';
 import { z } from 'zod';
-import type { Role } from '../../../shared/domain/roles';
-import { animalInput, moveBody, retireBody, type AnimalValues, type MoveBody } from '../../../shared/schemas/animals';
-import { uuid } from '../../../shared/schemas/common';
+import type { Role } from '#shared/domain/roles';
+import { animalInput, moveBody, retireBody, type AnimalValues, type MoveBody } from '#shared/schemas/animals';
+import { uuid } from '#shared/schemas/common';
 import { currentUserId } from '../../middleware/auth';
 import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';

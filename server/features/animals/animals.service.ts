@@ -1,8 +1,8 @@
 import { randomInt } from 'node:crypto';
-import { collectionPrefix, generateLabelCodes } from '../../../shared/domain/label-codes';
-import { compareLocations } from '../../../shared/domain/walk-order';
-import type { AnimalSummary, AnimalValues, MoveBody, RetireBody } from '../../../shared/schemas/animals';
-import type { CareSettingsBody } from '../../../shared/schemas/rules';
+import { collectionPrefix, generateLabelCodes } from '#shared/domain/label-codes';
+import { compareLocations } from '#shared/domain/walk-order';
+import type { AnimalSummary, AnimalValues, MoveBody, RetireBody } from '#shared/schemas/animals';
+import type { CareSettingsBody } from '#shared/schemas/rules';
 import type { MemberCollection } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { isUniqueViolation } from '../../db/errors';

@@ -11,7 +11,7 @@ import {
   type SignInBody,
   type SignUpBody,
   type SignUpFinishBody,
-} from '../../../shared/schemas/auth';
+} from '#shared/schemas/auth';
 import { currentUserId, requireUser } from '../../middleware/auth';
 import type { Limiter } from '../../middleware/rate-limit';
 import { startSession } from '../../middleware/session';

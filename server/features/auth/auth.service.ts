@@ -1,5 +1,5 @@
 import { createHash, randomBytes } from 'node:crypto';
-import type { SignUpFinishBody } from '../../../shared/schemas/auth';
+import type { SignUpFinishBody } from '#shared/schemas/auth';
 import { insertCollection } from '../../access/collections';
 import { insertMembership, listMembershipsOfUser } from '../../access/memberships';
 import { burnComparison, decoyHash, hashPassword, verifyPassword } from '../../access/passwords';

@@ -1,5 +1,5 @@
 import { and, asc, count, eq, inArray, sql } from 'drizzle-orm';
-import type { EventKind } from '../../../shared/domain/event-kinds';
+import type { EventKind } from '#shared/domain/event-kinds';
 import type { Db } from '../../db/client';
 import { animals, eggSacs, events } from '../../db/schema/animals';
 import { collections, locations } from '../../db/schema/collections';

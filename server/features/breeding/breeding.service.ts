@@ -1,7 +1,7 @@
-import { breedingDatesProblem, breedingFacts, breedingModeOf, breedingRefusal, BREEDING_FACT_KINDS, RECORD_SHORT, type BreedingDates } from '../../../shared/domain/breeding';
-import { collectionPrefix, LABEL_ALPHABET } from '../../../shared/domain/label-codes';
-import { addDays, instantOfKeeperDate, localDateOf } from '../../../shared/domain/local-dates';
-import type { EggSacBody, EggSacChange, EggSacView } from '../../../shared/schemas/breeding';
+import { breedingDatesProblem, breedingFacts, breedingModeOf, breedingRefusal, BREEDING_FACT_KINDS, RECORD_SHORT, type BreedingDates } from '#shared/domain/breeding';
+import { collectionPrefix, LABEL_ALPHABET } from '#shared/domain/label-codes';
+import { addDays, instantOfKeeperDate, localDateOf } from '#shared/domain/local-dates';
+import type { EggSacBody, EggSacChange, EggSacView } from '#shared/schemas/breeding';
 import type { MemberCollection } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';

@@ -1,6 +1,6 @@
 import { Router, type RequestHandler } from 'express';
-import type { Role } from '../../../shared/domain/roles';
-import { addMemberBody, deleteCollectionBody, memberParams, type DeleteCollectionBody } from '../../../shared/schemas/collections';
+import type { Role } from '#shared/domain/roles';
+import { addMemberBody, deleteCollectionBody, memberParams, type DeleteCollectionBody } from '#shared/schemas/collections';
 import { currentUserId } from '../../middleware/auth';
 import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';

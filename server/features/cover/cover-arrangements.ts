@@ -1,5 +1,5 @@
-import { describeLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
-import type { CoverSummary } from '../../../shared/schemas/cover';
+import { describeLocalDate, type LocalDate } from '#shared/domain/local-dates';
+import type { CoverSummary } from '#shared/schemas/cover';
 import { INVITE_LIFETIME_MS, newInviteToken } from '../../access/invite-token';
 import { roleOfEmail, type MemberCollection } from '../../access/memberships';
 import { displayNameOf } from '../../access/users';

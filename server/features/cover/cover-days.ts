@@ -1,6 +1,6 @@
-import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
-import { coverWindowState } from '../../../shared/domain/roles';
-import type { CoverState } from '../../../shared/schemas/cover';
+import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '#shared/domain/local-dates';
+import { coverWindowState } from '#shared/domain/roles';
+import type { CoverState } from '#shared/schemas/cover';
 
 /** The instants a cover of these local days runs between, in the collection's zone. */
 export const coverWindow = (firstDay: LocalDate, lastDay: LocalDate, zone: string) => ({

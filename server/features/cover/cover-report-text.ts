@@ -1,7 +1,7 @@
-import { EVENT_WORDS, type EventKind } from '../../../shared/domain/event-kinds';
-import { addDays, clockTime, describeLocalDate, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
-import type { AnimalState } from '../../../shared/domain/rounds/animal-state';
-import { countsForProgress } from '../../../shared/domain/rounds/settle';
+import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
+import { addDays, clockTime, describeLocalDate, startOfLocalDate, type LocalDate } from '#shared/domain/local-dates';
+import type { AnimalState } from '#shared/domain/rounds/animal-state';
+import { countsForProgress } from '#shared/domain/rounds/settle';
 import type { Db } from '../../db/client';
 import type { RoundsService } from '../rounds/rounds.service';
 import { activeAnimalStates, eventsBetween, type ReportCollection } from './cover-reports.repository';

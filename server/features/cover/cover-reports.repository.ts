@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, gte, inArray, isNotNull, isNull, lt, ne, sql } from 'drizzle-orm';
-import type { LocalDate } from '../../../shared/domain/local-dates';
+import type { LocalDate } from '#shared/domain/local-dates';
 import type { Db } from '../../db/client';
 import { animals, events } from '../../db/schema/animals';
 import { collections, coverReports, memberships } from '../../db/schema/collections';

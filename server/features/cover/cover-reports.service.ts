@@ -1,4 +1,4 @@
-import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
+import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '#shared/domain/local-dates';
 import type { Db } from '../../db/client';
 import type { Logger } from '../../logger';
 import type { Mailer } from '../../mail/mailer';

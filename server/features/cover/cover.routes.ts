@@ -1,8 +1,8 @@
 import { Router, type RequestHandler } from 'express';
 import { z } from 'zod';
-import type { Role } from '../../../shared/domain/roles';
-import { uuid } from '../../../shared/schemas/common';
-import { acceptBody, coverBody, coverChangeBody, generalNoteBody, handoverNoteBody, inviteToken, type AcceptBody } from '../../../shared/schemas/cover';
+import type { Role } from '#shared/domain/roles';
+import { uuid } from '#shared/schemas/common';
+import { acceptBody, coverBody, coverChangeBody, generalNoteBody, handoverNoteBody, inviteToken, type AcceptBody } from '#shared/schemas/cover';
 import { currentUserId } from '../../middleware/auth';
 import { HttpError } from '../../middleware/errors';
 import { membershipOf } from '../../middleware/roles';

@@ -1,5 +1,5 @@
 import { and, eq, gte } from 'drizzle-orm';
-import type { LocalDate } from '../../../shared/domain/local-dates';
+import type { LocalDate } from '#shared/domain/local-dates';
 import type { Db } from '../../db/client';
 import { animals, handoverNotes } from '../../db/schema/animals';
 import { collections } from '../../db/schema/collections';

@@ -1,5 +1,5 @@
-import { localDateOf, type LocalDate } from '../../../shared/domain/local-dates';
-import type { HandoverNote } from '../../../shared/schemas/cover';
+import { localDateOf, type LocalDate } from '#shared/domain/local-dates';
+import type { HandoverNote } from '#shared/schemas/cover';
 import type { MemberCollection } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';

@@ -1,5 +1,5 @@
-import { addDays, localDateOf, startOfLocalDate } from '../../../shared/domain/local-dates';
-import type { HelperCoverView } from '../../../shared/schemas/cover';
+import { addDays, localDateOf, startOfLocalDate } from '#shared/domain/local-dates';
+import type { HelperCoverView } from '#shared/schemas/cover';
 import type { Membership } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { daysOf } from './cover-days';

@@ -1,4 +1,4 @@
-import type { AcceptBody, InvitePreview } from '../../../shared/schemas/cover';
+import type { AcceptBody, InvitePreview } from '#shared/schemas/cover';
 import { hashInviteToken } from '../../access/invite-token';
 import { roleOfUser } from '../../access/memberships';
 import { hashPassword } from '../../access/passwords';

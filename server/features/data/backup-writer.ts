@@ -1,4 +1,4 @@
-import { BACKUP_FORMAT, BACKUP_VERSION } from '../../../shared/schemas/backup';
+import { BACKUP_FORMAT, BACKUP_VERSION } from '#shared/schemas/backup';
 import type { MemberCollection } from '../../access/memberships';
 import type { Database } from '../../db/client';
 import type { PhotosService } from '../photos/photos.service';

@@ -1,7 +1,7 @@
 import express, { Router, type Request, type RequestHandler, type Response } from 'express';
-import type { Role } from '../../../shared/domain/roles';
-import { animalImportBody } from '../../../shared/schemas/import';
-import type { AnimalImportValues } from '../../../shared/schemas/import';
+import type { Role } from '#shared/domain/roles';
+import { animalImportBody } from '#shared/schemas/import';
+import type { AnimalImportValues } from '#shared/schemas/import';
 import { HttpError } from '../../middleware/errors';
 import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';

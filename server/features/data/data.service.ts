@@ -1,8 +1,8 @@
 import type { Readable } from 'node:stream';
-import { ANIMAL_COLUMNS, animalToRow } from '../../../shared/domain/csv/animal-columns';
-import { writeCsv, writeCsvRecords } from '../../../shared/domain/csv/csv-file';
-import { clockTime } from '../../../shared/domain/local-dates';
-import type { AnimalImportValues } from '../../../shared/schemas/import';
+import { ANIMAL_COLUMNS, animalToRow } from '#shared/domain/csv/animal-columns';
+import { writeCsv, writeCsvRecords } from '#shared/domain/csv/csv-file';
+import { clockTime } from '#shared/domain/local-dates';
+import type { AnimalImportValues } from '#shared/schemas/import';
 import type { MemberCollection } from '../../access/memberships';
 import type { Database } from '../../db/client';
 import type { AnimalsService } from '../animals/animals.service';

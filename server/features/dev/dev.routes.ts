@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../db/seed/demo-people';
+import { DEMO_ACCOUNTS, DEMO_PASSWORD } from '../../access/demo-people';
 import type { DevMailbox } from '../../mail/dev-smtp';
 import { HttpError } from '../../middleware/errors';
 import { fromLoopback } from '../../middleware/loopback';

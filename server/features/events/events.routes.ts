@@ -1,8 +1,8 @@
 import { Router, type RequestHandler } from 'express';
 import { z } from 'zod';
-import type { Role } from '../../../shared/domain/roles';
-import { uuid } from '../../../shared/schemas/common';
-import { eventBatchBody, type EventBatchBody } from '../../../shared/schemas/events';
+import type { Role } from '#shared/domain/roles';
+import { uuid } from '#shared/schemas/common';
+import { eventBatchBody, type EventBatchBody } from '#shared/schemas/events';
 import { currentUserId } from '../../middleware/auth';
 import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';

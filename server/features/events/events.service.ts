@@ -1,10 +1,10 @@
-import { clockOffsetMs } from '../../../shared/domain/clock';
-import { FED_WHILE_HELD, type EventKind } from '../../../shared/domain/event-kinds';
-import { factsToLoad, judgeBatch, screenBatch, settleLostRaces } from '../../../shared/domain/event-verdicts';
-import { mergeMoltDetails } from '../../../shared/domain/growth';
-import { localDateOf, type LocalDate } from '../../../shared/domain/local-dates';
-import { MAX_BATCH_EVENTS } from '../../../shared/domain/sync-limits';
-import type { EventBatchBody, EventBatchResponse, HistoryEvent } from '../../../shared/schemas/events';
+import { clockOffsetMs } from '#shared/domain/clock';
+import { FED_WHILE_HELD, type EventKind } from '#shared/domain/event-kinds';
+import { factsToLoad, judgeBatch, screenBatch, settleLostRaces } from '#shared/domain/event-verdicts';
+import { mergeMoltDetails } from '#shared/domain/growth';
+import { localDateOf, type LocalDate } from '#shared/domain/local-dates';
+import { MAX_BATCH_EVENTS } from '#shared/domain/sync-limits';
+import type { EventBatchBody, EventBatchResponse, HistoryEvent } from '#shared/schemas/events';
 import type { Membership } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';

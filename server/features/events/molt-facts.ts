@@ -1,5 +1,5 @@
-import { mergeMoltDetails, sexFromMolts, type MoltFact } from '../../../shared/domain/growth';
-import { localDateOf } from '../../../shared/domain/local-dates';
+import { mergeMoltDetails, sexFromMolts, type MoltFact } from '#shared/domain/growth';
+import { localDateOf } from '#shared/domain/local-dates';
 import type { Db } from '../../db/client';
 import { moltRecordsOf, setSexAndSize, sexesOf } from './events.repository';
 

@@ -1,5 +1,5 @@
 import { eq, inArray, sql } from 'drizzle-orm';
-import type { AnimalState, EngineEvent } from '../../../shared/domain/rounds/animal-state';
+import type { AnimalState, EngineEvent } from '#shared/domain/rounds/animal-state';
 import type { Db } from '../../db/client';
 import { animals, events } from '../../db/schema/animals';
 import { animalStates } from '../../db/schema/rounds';

@@ -1,8 +1,11 @@
 // The projection the round engine reads (animal_states): each animal's log folded into its
 // state, kept in step with the log in the same transaction as every write to it.
-import { applyEvent, EMPTY_STATE, isInOrder, projectState, type AnimalState, type EngineEvent } from '../../../shared/domain/rounds/animal-state';
+import { applyEvent, EMPTY_STATE, isInOrder, projectState, type AnimalState, type EngineEvent } from '#shared/domain/rounds/animal-state';
 import type { Db } from '../../db/client';
 import { animalIdsOf, loadEventsOf, lockStates, upsertStates } from './projection.repository';
+
+/** Each animal's whole log in effective order, for a reader whose stored state is out of date. */
+export const eventLogsOf = (db: Db, animalIds: string[]): Promise<Map<string, EngineEvent[]>> => loadEventsOf(db, animalIds);
 
 /** Re-folds animals' states from the whole event log (all of a collection's when no ids). */
 export async function refoldStates(db: Db, collectionId: string, zone: string, animalIds?: string[]) {

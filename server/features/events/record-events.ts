@@ -2,7 +2,7 @@
 // status changes, breeding records) and whole histories (a restore, the demo seed) are stored
 // here, so every fact reaches the projection and the animal's record the same way.
 import { randomUUID } from 'node:crypto';
-import type { EventKind } from '../../../shared/domain/event-kinds';
+import type { EventKind } from '#shared/domain/event-kinds';
 import type { Db } from '../../db/client';
 import { insertEvents, type NewEvent } from './events.repository';
 import { MOLT_FACT_KINDS, applyMoltFacts } from './molt-facts';

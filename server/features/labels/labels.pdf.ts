@@ -1,8 +1,8 @@
 import PDFDocument from 'pdfkit';
-import { CAUTION_SYMBOL_GRID, CAUTION_SYMBOL_PATHS, CAUTION_SYMBOL_STROKE } from '../../../shared/domain/caution-symbols';
-import type { LabelContent } from '../../../shared/domain/labels/label-content';
-import { qrPath } from '../../../shared/domain/labels/qr-symbol';
-import { CUT_LINE_OFFSET_MM, CUT_LINE_WIDTH_MM, placeLabels, RULER_LENGTH_MM, type SheetLayout } from '../../../shared/domain/labels/sheet-layout';
+import { CAUTION_SYMBOL_GRID, CAUTION_SYMBOL_PATHS, CAUTION_SYMBOL_STROKE } from '#shared/domain/caution-symbols';
+import type { LabelContent } from '#shared/domain/labels/label-content';
+import { qrPath } from '#shared/domain/labels/qr-symbol';
+import { CUT_LINE_OFFSET_MM, CUT_LINE_WIDTH_MM, placeLabels, RULER_LENGTH_MM, type SheetLayout } from '#shared/domain/labels/sheet-layout';
 
 /** PDF user space is 1/72 in (ISO 32000-1, 8.3.2.3); 1 in = 25.4 mm. */
 const PT_PER_MM = 72 / 25.4;

@@ -1,8 +1,8 @@
 import { Router, type RequestHandler } from 'express';
 import { z } from 'zod';
-import type { Role } from '../../../shared/domain/roles';
-import { uuid } from '../../../shared/schemas/common';
-import { labelPdfBody, type LabelPdfBody } from '../../../shared/schemas/labels';
+import type { Role } from '#shared/domain/roles';
+import { uuid } from '#shared/schemas/common';
+import { labelPdfBody, type LabelPdfBody } from '#shared/schemas/labels';
 import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';
 import type { LabelsService } from './labels.service';

@@ -1,8 +1,8 @@
 import { randomInt } from 'node:crypto';
-import { generateLabelCodes } from '../../../shared/domain/label-codes';
-import { labelContent, printProblem } from '../../../shared/domain/labels/label-content';
-import { sheetLayout } from '../../../shared/domain/labels/sheet-layout';
-import type { LabelPdfBody } from '../../../shared/schemas/labels';
+import { generateLabelCodes } from '#shared/domain/label-codes';
+import { labelContent, printProblem } from '#shared/domain/labels/label-content';
+import { sheetLayout } from '#shared/domain/labels/sheet-layout';
+import type { LabelPdfBody } from '#shared/schemas/labels';
 import type { Db } from '../../db/client';
 import { isUniqueViolation } from '../../db/errors';
 import { HttpError } from '../../middleware/errors';

@@ -1,8 +1,8 @@
 import { Router, type RequestHandler } from 'express';
 import { z } from 'zod';
-import type { Role } from '../../../shared/domain/roles';
-import { uuid } from '../../../shared/schemas/common';
-import { locationInput, walkOrderBody, type LocationInput } from '../../../shared/schemas/locations';
+import type { Role } from '#shared/domain/roles';
+import { uuid } from '#shared/schemas/common';
+import { locationInput, walkOrderBody, type LocationInput } from '#shared/schemas/locations';
 import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';
 import type { LocationsService } from './locations.service';

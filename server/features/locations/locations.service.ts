@@ -1,5 +1,5 @@
-import { compareLocations } from '../../../shared/domain/walk-order';
-import type { LocationInput, LocationWithCount } from '../../../shared/schemas/locations';
+import { compareLocations } from '#shared/domain/walk-order';
+import type { LocationInput, LocationWithCount } from '#shared/schemas/locations';
 import type { Db } from '../../db/client';
 import { isUniqueViolation } from '../../db/errors';
 import { HttpError } from '../../middleware/errors';

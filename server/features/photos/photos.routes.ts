@@ -1,8 +1,8 @@
 import { Router, type ErrorRequestHandler, type RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
-import type { Role } from '../../../shared/domain/roles';
-import { uuid } from '../../../shared/schemas/common';
+import type { Role } from '#shared/domain/roles';
+import { uuid } from '#shared/schemas/common';
 import { HttpError } from '../../middleware/errors';
 import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';

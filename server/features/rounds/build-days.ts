@@ -1,9 +1,9 @@
 // Each day's round is built once and stored: by the scheduled job shortly after local
 // midnight, or by the first request of the day, whichever comes first.
-import { localDateOf, type LocalDate } from '../../../shared/domain/local-dates';
-import { buildRound, type RoundItem, type RoundTask } from '../../../shared/domain/rounds/build-round';
-import { postMoltHoldDays } from '../../../shared/domain/rounds/rules';
-import type { RoundResponse } from '../../../shared/schemas/rounds';
+import { localDateOf, type LocalDate } from '#shared/domain/local-dates';
+import { buildRound, type RoundItem, type RoundTask } from '#shared/domain/rounds/build-round';
+import { postMoltHoldDays } from '#shared/domain/rounds/rules';
+import type { RoundResponse } from '#shared/schemas/rounds';
 import type { Db } from '../../db/client';
 import { rulesOf, toEngineAnimal, type RoundInput } from './round-input';
 import type { BuiltPart } from './round-view';

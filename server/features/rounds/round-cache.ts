@@ -4,9 +4,9 @@
 // entry is never newer than its key claims and never served after the data changed.
 import { createHash } from 'node:crypto';
 import { gzipSync } from 'node:zlib';
-import type { LocalDate } from '../../../shared/domain/local-dates';
-import { progressOf, type DayOutcome } from '../../../shared/domain/rounds/settle';
-import type { RoundItemView } from '../../../shared/schemas/rounds';
+import type { LocalDate } from '#shared/domain/local-dates';
+import { progressOf, type DayOutcome } from '#shared/domain/rounds/settle';
+import type { RoundItemView } from '#shared/schemas/rounds';
 import { viewItem, type BuiltPart, type ViewInput } from './round-view';
 
 export interface SerialisedRound {

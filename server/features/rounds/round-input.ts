@@ -1,14 +1,14 @@
 // What the round engine decides from: the collection (zone, rules), each animal with its
 // projected state and holds, and the day's outcomes.
-import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
-import { EMPTY_STATE, projectState, type AnimalState } from '../../../shared/domain/rounds/animal-state';
-import type { EngineAnimal } from '../../../shared/domain/rounds/build-round';
-import { effectiveRules, type RoundRules, type RulesOverride } from '../../../shared/domain/rounds/rules';
-import type { DayOutcome } from '../../../shared/domain/rounds/settle';
+import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '#shared/domain/local-dates';
+import { EMPTY_STATE, projectState, type AnimalState } from '#shared/domain/rounds/animal-state';
+import type { EngineAnimal } from '#shared/domain/rounds/build-round';
+import { effectiveRules, type RoundRules, type RulesOverride } from '#shared/domain/rounds/rules';
+import type { DayOutcome } from '#shared/domain/rounds/settle';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
 import { toAnimalSummary } from '../animals/animal-summary';
-import { loadEventsOf } from '../events/projection.repository';
+import { eventLogsOf } from '../events/projection';
 import { doNotFeedNotes, findCollection, loadAnimalsWithState, loadOutcomes, type AnimalRow, type RoundCollection } from './rounds.repository';
 
 export const rulesOf = (c: RoundCollection): RoundRules => effectiveRules(c.rules as RulesOverride);
@@ -36,7 +36,7 @@ export function createRoundInput(db: Db, now: () => Date) {
     const rows = await loadAnimalsWithState(db, c.id, animalIds);
     const cutoff = before ? startOfLocalDate(before, c.timeZone) : null;
     const stale = rows.filter((r) => cutoff && r.lastEventAt && r.lastEventAt >= cutoff).map((r) => r.animal.id);
-    const logs = await loadEventsOf(db, stale);
+    const logs = await eventLogsOf(db, stale);
     // A handover note "do not feed during the cover" holds feeding through its last day.
     const holds = new Map(
       (await doNotFeedNotes(db, c.id, before ?? localDateOf(now(), c.timeZone))).map((h) => [h.animalId, addDays(h.until, 1)]),

@@ -1,8 +1,8 @@
 // A round as the API answers it: each built item settled by the day's outcomes (pure).
-import type { LocalDate } from '../../../shared/domain/local-dates';
-import type { EngineAnimal, RoundItem, RoundTask } from '../../../shared/domain/rounds/build-round';
-import { progressOf, settleItem, type DayOutcome } from '../../../shared/domain/rounds/settle';
-import type { RoundItemView, RoundResponse } from '../../../shared/schemas/rounds';
+import type { LocalDate } from '#shared/domain/local-dates';
+import type { EngineAnimal, RoundItem, RoundTask } from '#shared/domain/rounds/build-round';
+import { progressOf, settleItem, type DayOutcome } from '#shared/domain/rounds/settle';
+import type { RoundItemView, RoundResponse } from '#shared/schemas/rounds';
 
 /** One item as built (stored, or worked out for tomorrow), before the day's outcomes. */
 export type ViewInput = {

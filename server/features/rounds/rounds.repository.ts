@@ -1,5 +1,5 @@
 import { and, asc, eq, gte, inArray, sql } from 'drizzle-orm';
-import type { LocalDate } from '../../../shared/domain/local-dates';
+import type { LocalDate } from '#shared/domain/local-dates';
 import type { Db } from '../../db/client';
 import { animals, events, handoverNotes } from '../../db/schema/animals';
 import { collections, locations } from '../../db/schema/collections';

@@ -1,8 +1,8 @@
 import { Router, type RequestHandler } from 'express';
 import { z } from 'zod';
-import type { Role } from '../../../shared/domain/roles';
-import { localDate, uuid } from '../../../shared/schemas/common';
-import { careSettingsBody, type CareSettingsBody } from '../../../shared/schemas/rules';
+import type { Role } from '#shared/domain/roles';
+import { localDate, uuid } from '#shared/schemas/common';
+import { careSettingsBody, type CareSettingsBody } from '#shared/schemas/rules';
 import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';
 import type { RoundsService } from './rounds.service';

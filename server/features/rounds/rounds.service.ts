@@ -1,7 +1,7 @@
-import { addDays, localDateOf, type LocalDate } from '../../../shared/domain/local-dates';
-import { buildRound, decideAnimal } from '../../../shared/domain/rounds/build-round';
-import { postMoltHoldDays } from '../../../shared/domain/rounds/rules';
-import type { RoundResponse, ScheduleResponse } from '../../../shared/schemas/rounds';
+import { addDays, localDateOf, type LocalDate } from '#shared/domain/local-dates';
+import { buildRound, decideAnimal } from '#shared/domain/rounds/build-round';
+import { postMoltHoldDays } from '#shared/domain/rounds/rules';
+import type { RoundResponse, ScheduleResponse } from '#shared/schemas/rounds';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
 import { createRoundBuilder } from './build-days';

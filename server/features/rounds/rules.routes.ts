@@ -1,7 +1,7 @@
 import { Router, type RequestHandler } from 'express';
-import type { Role } from '../../../shared/domain/roles';
-import type { RulesOverride } from '../../../shared/domain/rounds/rules';
-import { rulesOverride } from '../../../shared/schemas/rules';
+import type { Role } from '#shared/domain/roles';
+import type { RulesOverride } from '#shared/domain/rounds/rules';
+import { rulesOverride } from '#shared/schemas/rules';
 import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';
 import type { RoundsService } from './rounds.service';

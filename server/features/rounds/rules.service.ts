@@ -1,4 +1,4 @@
-import { effectiveRules, type RulesOverride } from '../../../shared/domain/rounds/rules';
+import { effectiveRules, type RulesOverride } from '#shared/domain/rounds/rules';
 import type { Db } from '../../db/client';
 import { rulesOf, type RoundInput } from './round-input';
 import { updateCollectionRules } from './rounds.repository';

@@ -1,9 +1,9 @@
 // Today's round during the day (R18): facts and holds that arrive after it was built withdraw
 // feed tasks, give them back, or add an urgent prey removal, at once.
-import type { EventKind } from '../../../shared/domain/event-kinds';
-import { localDateOf, type LocalDate } from '../../../shared/domain/local-dates';
-import { decideAnimal, type Reason, type RoundTask } from '../../../shared/domain/rounds/build-round';
-import { feedHoldIn, reconcileTasks } from '../../../shared/domain/rounds/reconcile-day';
+import type { EventKind } from '#shared/domain/event-kinds';
+import { localDateOf, type LocalDate } from '#shared/domain/local-dates';
+import { decideAnimal, type Reason, type RoundTask } from '#shared/domain/rounds/build-round';
+import { feedHoldIn, reconcileTasks } from '#shared/domain/rounds/reconcile-day';
 import type { Db } from '../../db/client';
 import { rulesOf, type RoundInput } from './round-input';
 import { findRound, loadRoundItems, updateItemTasks, upsertUrgentItem } from './rounds.repository';

@@ -3,20 +3,20 @@
 import { randomUUID } from 'node:crypto';
 import { eq, inArray } from 'drizzle-orm';
 import type { NodePgDatabase } from 'drizzle-orm/node-postgres';
-import type { AnimalGroup, Caution, LifeStage, Sex } from '../../../shared/domain/animal-facts';
-import { breedingFacts, breedingModeOf, type BreedingRecordKind } from '../../../shared/domain/breeding';
-import type { EventKind } from '../../../shared/domain/event-kinds';
-import { generateLabelCodes } from '../../../shared/domain/label-codes';
-import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '../../../shared/domain/local-dates';
-import { DEFAULT_RULES, feedingInterval, postMoltHoldDays } from '../../../shared/domain/rounds/rules';
-import { insertCollection } from '../../access/collections';
-import { hashPassword } from '../../access/passwords';
-import { refoldStates } from '../../features/events/projection';
-import { recordEvents } from '../../features/events/record-events';
-import { animals, eggSacs } from '../schema/animals';
-import { collections, locations, memberships } from '../schema/collections';
-import { users } from '../schema/users';
-import { DEMO_ACCOUNTS, DEMO_COLLECTION, DEMO_PASSWORD } from './demo-people';
+import type { AnimalGroup, Caution, LifeStage, Sex } from '#shared/domain/animal-facts';
+import { breedingFacts, breedingModeOf, type BreedingRecordKind } from '#shared/domain/breeding';
+import type { EventKind } from '#shared/domain/event-kinds';
+import { generateLabelCodes } from '#shared/domain/label-codes';
+import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '#shared/domain/local-dates';
+import { DEFAULT_RULES, feedingInterval, postMoltHoldDays } from '#shared/domain/rounds/rules';
+import { insertCollection } from '../access/collections';
+import { DEMO_ACCOUNTS, DEMO_COLLECTION, DEMO_PASSWORD } from '../access/demo-people';
+import { hashPassword } from '../access/passwords';
+import { animals, eggSacs } from '../db/schema/animals';
+import { collections, locations, memberships } from '../db/schema/collections';
+import { users } from '../db/schema/users';
+import { refoldStates } from '../features/events/projection';
+import { recordEvents } from '../features/events/record-events';
 
 export { DEMO_PASSWORD };
 

@@ -1,7 +1,7 @@
 // Database chores for the npm scripts: `migrate`, `seed [--reset|--if-empty]`.
-import { readEnv, type Env } from '../env';
-import { connectDatabase } from './client';
-import { migrateDatabase } from './migrate';
+import { connectDatabase } from './db/client';
+import { migrateDatabase } from './db/migrate';
+import { readEnv, type Env } from './env';
 import { DEMO_PASSWORD, seedDemo } from './seed/demo';
 
 let env: Env;
@@ -29,7 +29,7 @@ try {
         : 'The demo collection is already there (npm run db:seed -- --reset rebuilds it).',
     );
   } else {
-    console.error('Usage: tsx server/db/cli.ts migrate | seed [--reset|--if-empty]');
+    console.error('Usage: tsx server/cli.ts migrate | seed [--reset|--if-empty]');
     process.exitCode = 2;
   }
 } finally {
