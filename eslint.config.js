@@ -7,21 +7,56 @@ import globals from 'globals';
 import tseslint from 'typescript-eslint';
 
 const here = import.meta.dirname;
-const foldersIn = (dir) => fs.readdirSync(path.join(here, dir), { withFileTypes: true }).filter((d) => d.isDirectory()).map((d) => d.name);
+const foldersIn = (dir) =>
+  fs
+    .readdirSync(path.join(here, dir), { withFileTypes: true })
+    .filter((d) => d.isDirectory())
+    .map((d) => d.name);
 
 // Every client feature folder, as it is on disk: a new one is covered without editing this file.
 const FEATURES = foldersIn('src/features');
 
 // The server's features in layer order, lowest first: each may import only those before it, so
 // the folders can never form a cycle. A new feature folder must be placed here (checked below).
-const SERVER_LAYERS = ['events', 'auth', 'photos', 'health', 'labels', 'locations', 'animals', 'breeding', 'collections', 'dev', 'rounds', 'cover', 'data'];
+const SERVER_LAYERS = [
+  'events',
+  'auth',
+  'photos',
+  'health',
+  'labels',
+  'locations',
+  'animals',
+  'breeding',
+  'collections',
+  'dev',
+  'rounds',
+  'cover',
+  'data',
+];
 const unplaced = foldersIn('server/features').filter((f) => !SERVER_LAYERS.includes(f));
-if (unplaced.length) throw new Error(`eslint.config.js: place server/features/${unplaced.join(', ')} in SERVER_LAYERS.`);
+if (unplaced.length)
+  throw new Error(
+    `eslint.config.js: place server/features/${unplaced.join(', ')} in SERVER_LAYERS.`,
+  );
 
-const NO_SERVER_IN_CLIENT = { group: ['**/server/**'], message: 'The client must not import server code.' };
+const NO_SERVER_IN_CLIENT = {
+  group: ['**/server/**'],
+  message: 'The client must not import server code.',
+};
 
 export default tseslint.config(
-  { ignores: ['dist', 'node_modules', '.data', 'test-results', 'drizzle', 'coverage', 'bench/.minimal-dist', 'dist-server'] },
+  {
+    ignores: [
+      'dist',
+      'node_modules',
+      '.data',
+      'test-results',
+      'drizzle',
+      'coverage',
+      'bench/.minimal-dist',
+      'dist-server',
+    ],
+  },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
@@ -33,12 +68,24 @@ export default tseslint.config(
       'import-x/extensions': ['.ts', '.tsx', '.js', '.mjs'],
       'import-x/parsers': { '@typescript-eslint/parser': ['.ts', '.tsx'] },
       'import-x/resolver-next': [
-        importX.createNodeResolver({ extensions: ['.ts', '.tsx', '.js', '.mjs', '.json'], tsconfig: { configFile: path.join(here, 'tsconfig.json') } }),
+        importX.createNodeResolver({
+          extensions: ['.ts', '.tsx', '.js', '.mjs', '.json'],
+          tsconfig: { configFile: path.join(here, 'tsconfig.json') },
+        }),
       ],
     },
     rules: {
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
-      'import-x/order': ['error', { groups: ['builtin', 'external', 'internal', 'parent', 'sibling', 'index'], alphabetize: { order: 'asc', caseInsensitive: true } }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_' },
+      ],
+      'import-x/order': [
+        'error',
+        {
+          groups: ['builtin', 'external', 'internal', 'parent', 'sibling', 'index'],
+          alphabetize: { order: 'asc', caseInsensitive: true },
+        },
+      ],
       // No file imports itself back through others; the folder rules below keep layers acyclic.
       'import-x/no-cycle': ['error', { ignoreExternal: true }],
     },
@@ -62,7 +109,10 @@ export default tseslint.config(
         'error',
         {
           patterns: [
-            { group: FEATURES.filter((f) => f !== feature).map((f) => `@/features/${f}/**`), message: 'Features do not import each other: compose them in src/app.' },
+            {
+              group: FEATURES.filter((f) => f !== feature).map((f) => `@/features/${f}/**`),
+              message: 'Features do not import each other: compose them in src/app.',
+            },
             { group: ['@/app/**'], message: 'Features do not import the app layer.' },
             NO_SERVER_IN_CLIENT,
           ],
@@ -74,14 +124,36 @@ export default tseslint.config(
     // A route is a page: it composes features and panels (src/app/panels), never another route.
     files: ['src/app/routes/**/*.{ts,tsx}'],
     rules: {
-      'no-restricted-imports': ['error', { patterns: [NO_SERVER_IN_CLIENT, { group: ['@/app/routes/**', './*', '../routes/**'], message: 'Routes do not import each other: move the shared part to src/app/panels or a feature.' }] }],
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            NO_SERVER_IN_CLIENT,
+            {
+              group: ['@/app/routes/**', './*', '../routes/**'],
+              message:
+                'Routes do not import each other: move the shared part to src/app/panels or a feature.',
+            },
+          ],
+        },
+      ],
     },
   },
   {
     // One way to reach shared code on both sides.
     files: ['server/**/*.ts', 'tests/**/*.ts', 'bench/**/*.{ts,tsx}', 'src/**/*.{ts,tsx}'],
     rules: {
-      'no-restricted-imports': ['error', { patterns: [{ group: ['../**/shared/**', './shared/**'], message: 'Import shared code as #shared/….' }] }],
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['../**/shared/**', './shared/**'],
+              message: 'Import shared code as #shared/….',
+            },
+          ],
+        },
+      ],
     },
   },
   {
@@ -103,13 +175,19 @@ export default tseslint.config(
             ...['server/access', 'server/db', 'server/middleware', 'server/mail'].map((target) => ({
               target,
               from: ['server/features', 'server/seed', 'server/jobs', 'server/app.ts'],
-              message: 'The layers below the features import no feature (see DEVELOPERS.md, Layout rules).',
+              message:
+                'The layers below the features import no feature (see DEVELOPERS.md, Layout rules).',
             })),
             // A feature's repository is private: other features call its service.
             ...SERVER_LAYERS.map((feature) => ({
-              target: [...SERVER_LAYERS.filter((f) => f !== feature).map((f) => `server/features/${f}/**`), 'server/*.ts', 'server/seed/**', 'server/jobs/**'],
+              target: [
+                ...SERVER_LAYERS.filter((f) => f !== feature).map((f) => `server/features/${f}/**`),
+                'server/*.ts',
+                'server/seed/**',
+                'server/jobs/**',
+              ],
               from: `server/features/${feature}/*.repository.ts`,
-              message: 'A repository is private to its feature: call the feature\'s service.',
+              message: "A repository is private to its feature: call the feature's service.",
             })),
           ],
         },
@@ -120,7 +198,17 @@ export default tseslint.config(
     // shared/ is imported by both sides and imports neither.
     files: ['shared/**/*.ts'],
     rules: {
-      'no-restricted-imports': ['error', { patterns: [{ group: ['**/server/**', '**/src/**', '@/**', 'drizzle-orm*', 'react*'], message: 'shared/ imports nothing from the client, the server or Drizzle.' }] }],
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['**/server/**', '**/src/**', '@/**', 'drizzle-orm*', 'react*'],
+              message: 'shared/ imports nothing from the client, the server or Drizzle.',
+            },
+          ],
+        },
+      ],
     },
   },
 );

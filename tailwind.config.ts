@@ -3,7 +3,10 @@ import plugin from 'tailwindcss/plugin';
 import { cssVar, PALETTE_KEYS, PALETTES, THEMES } from './src/styles/palette.ts';
 
 const colors = Object.fromEntries(
-  PALETTE_KEYS.map((key) => [key.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`), `var(${cssVar(key)})`]),
+  PALETTE_KEYS.map((key) => [
+    key.replace(/[A-Z]/g, (c) => `-${c.toLowerCase()}`),
+    `var(${cssVar(key)})`,
+  ]),
 );
 
 export default {
@@ -20,7 +23,8 @@ export default {
     // One set of custom properties per theme, chosen by <html data-theme="…">.
     plugin(({ addBase }) => {
       for (const theme of THEMES) {
-        const selector = theme === 'light' ? ':root, [data-theme="light"]' : `[data-theme="${theme}"]`;
+        const selector =
+          theme === 'light' ? ':root, [data-theme="light"]' : `[data-theme="${theme}"]`;
         addBase({
           [selector]: {
             ...Object.fromEntries(PALETTE_KEYS.map((key) => [cssVar(key), PALETTES[theme][key]])),

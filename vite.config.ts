@@ -22,8 +22,14 @@ function preloadFirstScreenFonts(): Plugin {
     transformIndexHtml: {
       order: 'post',
       handler(_html, ctx) {
-        const files = Object.keys(ctx.bundle ?? {}).filter((f) => /nunito-latin-(400|700|800)-normal-[\w-]+\.woff2$/.test(f));
-        return files.map((f) => ({ tag: 'link', attrs: { rel: 'preload', as: 'font', type: 'font/woff2', href: `/${f}`, crossorigin: '' }, injectTo: 'head' as const }));
+        const files = Object.keys(ctx.bundle ?? {}).filter((f) =>
+          /nunito-latin-(400|700|800)-normal-[\w-]+\.woff2$/.test(f),
+        );
+        return files.map((f) => ({
+          tag: 'link',
+          attrs: { rel: 'preload', as: 'font', type: 'font/woff2', href: `/${f}`, crossorigin: '' },
+          injectTo: 'head' as const,
+        }));
       },
     },
   };
@@ -42,7 +48,8 @@ export default defineConfig({
       manifest: {
         name: 'Rackside',
         short_name: 'Rackside',
-        description: 'The feeding round for tarantulas and other invertebrates, on your phone, with or without signal.',
+        description:
+          'The feeding round for tarantulas and other invertebrates, on your phone, with or without signal.',
         id: '/',
         start_url: '/today',
         scope: '/',
@@ -53,7 +60,12 @@ export default defineConfig({
         icons: [
           { src: '/icons/icon-192.png', sizes: '192x192', type: 'image/png', purpose: 'any' },
           { src: '/icons/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },
-          { src: '/icons/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+          {
+            src: '/icons/icon-maskable-512.png',
+            sizes: '512x512',
+            type: 'image/png',
+            purpose: 'maskable',
+          },
         ],
       },
       workbox: {
@@ -78,7 +90,12 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'unit',
-          include: ['shared/**/*.test.ts', 'src/**/*.test.{ts,tsx}', 'server/**/*.test.ts', 'scripts/**/*.test.ts'],
+          include: [
+            'shared/**/*.test.ts',
+            'src/**/*.test.{ts,tsx}',
+            'server/**/*.test.ts',
+            'scripts/**/*.test.ts',
+          ],
           environment: 'node',
           setupFiles: ['tests/setup/fail-on-console-error.ts'],
         },

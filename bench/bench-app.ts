@@ -13,15 +13,32 @@ export const distDir = path.resolve(import.meta.dirname, '..', 'dist');
 export const BENCH_PASSWORD = 'bench password 1234';
 
 /** The app with every rate limit out of the way; `mailer` and `bcryptCost` as a benchmark needs. */
-export async function startBenchApp(database: Database, options: { mailer?: Mailer; bcryptCost?: number } = {}) {
-  const env = readEnv({ NODE_ENV: 'production', DATABASE_URL: 'postgres://unused', SESSION_SECRET: 'bench-secret-that-is-long-enough-for-sessions', BCRYPT_COST: String(options.bcryptCost ?? 10), SMTP_URL: 'smtp://unused.invalid', PUBLIC_URL: 'http://127.0.0.1' });
+export async function startBenchApp(
+  database: Database,
+  options: { mailer?: Mailer; bcryptCost?: number } = {},
+) {
+  const env = readEnv({
+    NODE_ENV: 'production',
+    DATABASE_URL: 'postgres://unused',
+    SESSION_SECRET: 'bench-secret-that-is-long-enough-for-sessions',
+    BCRYPT_COST: String(options.bcryptCost ?? 10),
+    SMTP_URL: 'smtp://unused.invalid',
+    PUBLIC_URL: 'http://127.0.0.1',
+  });
   const { app, shutdown } = createApp({
     env,
     database,
     mailer: options.mailer ?? { send: async () => undefined, close: () => undefined },
     distDir,
     logger: pino({ level: 'silent' }),
-    authLimits: { signInPerIp: 1_000_000, failedSignInPerAccount: 1_000_000, resetPerIp: 1_000_000, resetPerEmail: 1_000_000, signUpPerEmail: 1_000_000, invitesPerCollection: 1_000_000 },
+    authLimits: {
+      signInPerIp: 1_000_000,
+      failedSignInPerAccount: 1_000_000,
+      resetPerIp: 1_000_000,
+      resetPerEmail: 1_000_000,
+      signUpPerEmail: 1_000_000,
+      invitesPerCollection: 1_000_000,
+    },
   });
   const server = await new Promise<import('node:http').Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
@@ -41,11 +58,20 @@ export async function makeKeeper(database: Database, animals: number, tag: strin
   const { pool } = database;
   const hash = await bcrypt.hash(BENCH_PASSWORD, 10);
   const email = `bench-${tag}-${Date.now()}@bench.test`;
-  const user = await pool.query<{ id: string }>(`insert into users (email, password_hash, display_name) values ($1, $2, 'Bench keeper') returning id`, [email, hash]);
-  const collection = await pool.query<{ id: string }>(`insert into collections (name, time_zone, label_tag) values ($1, 'America/Toronto', $2) returning id`, [`Bench ${tag}`, generateLabelTag(Math.random)]);
+  const user = await pool.query<{ id: string }>(
+    `insert into users (email, password_hash, display_name) values ($1, $2, 'Bench keeper') returning id`,
+    [email, hash],
+  );
+  const collection = await pool.query<{ id: string }>(
+    `insert into collections (name, time_zone, label_tag) values ($1, 'America/Toronto', $2) returning id`,
+    [`Bench ${tag}`, generateLabelTag(Math.random)],
+  );
   const userId = user.rows[0]!.id;
   const collectionId = collection.rows[0]!.id;
-  await pool.query(`insert into memberships (collection_id, user_id, role) values ($1, $2, 'owner')`, [collectionId, userId]);
+  await pool.query(
+    `insert into memberships (collection_id, user_id, role) values ($1, $2, 'owner')`,
+    [collectionId, userId],
+  );
   await pool.query(
     `insert into locations (collection_id, room, rack, shelf, position) select $1, 'Room', 'R' || (g / 50), (g / 10) % 5, g % 10 from generate_series(0, $2 - 1) g`,
     [collectionId, animals],

@@ -17,7 +17,11 @@ let built = false;
 /** Builds Rackside (production) and the minimal shell once per bench run. */
 export async function ensureBuilds() {
   if (built) return;
-  execFileSync('npx', ['vite', 'build'], { cwd: root, stdio: 'ignore', env: { ...process.env, NODE_ENV: 'production' } });
+  execFileSync('npx', ['vite', 'build'], {
+    cwd: root,
+    stdio: 'ignore',
+    env: { ...process.env, NODE_ENV: 'production' },
+  });
   // The bench runs with NODE_ENV=test, which would give React's development build and JSX.
   const nodeEnv = process.env.NODE_ENV;
   process.env.NODE_ENV = 'production';
@@ -50,12 +54,17 @@ export async function serveMinimalShell() {
   app.use(
     express.static(minimalDir, {
       setHeaders: (res, file) => {
-        if (file.endsWith('sw.js') || file.endsWith('.html')) res.setHeader('Cache-Control', 'no-cache');
+        if (file.endsWith('sw.js') || file.endsWith('.html'))
+          res.setHeader('Cache-Control', 'no-cache');
       },
     }),
   );
   // dotfiles: the build folder's own name starts with a dot.
-  app.use((_req, res) => res.setHeader('Cache-Control', 'no-cache').sendFile(path.join(minimalDir, 'index.html'), { dotfiles: 'allow' }));
+  app.use((_req, res) =>
+    res
+      .setHeader('Cache-Control', 'no-cache')
+      .sendFile(path.join(minimalDir, 'index.html'), { dotfiles: 'allow' }),
+  );
   const server = await new Promise<import('node:http').Server>((resolve) => {
     const s = app.listen(0, '127.0.0.1', () => resolve(s));
   });
@@ -69,7 +78,12 @@ export async function serveMinimalShell() {
 }
 
 export async function phoneContext(browser: Browser) {
-  return browser.newContext({ viewport: { width: 360, height: 740 }, deviceScaleFactor: 2, hasTouch: true, isMobile: true });
+  return browser.newContext({
+    viewport: { width: 360, height: 740 },
+    deviceScaleFactor: 2,
+    hasTouch: true,
+    isMobile: true,
+  });
 }
 
 /** CPU slowed 4× (CDP Emulation.setCPUThrottlingRate), as the budgets ask. */
@@ -79,7 +93,12 @@ export async function throttle(context: BrowserContext, page: Page, slowLink = f
   if (slowLink) {
     // P3's link: 150 ms round trip, 1.6 Mbit/s down (and 750 kbit/s up).
     await cdp.send('Network.enable');
-    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 150, downloadThroughput: 1_600_000 / 8, uploadThroughput: 750_000 / 8 });
+    await cdp.send('Network.emulateNetworkConditions', {
+      offline: false,
+      latency: 150,
+      downloadThroughput: 1_600_000 / 8,
+      uploadThroughput: 750_000 / 8,
+    });
   }
   return cdp;
 }
@@ -90,7 +109,9 @@ export async function largestContentfulPaint(page: Page): Promise<number> {
   const lcp = await page.evaluate(
     () =>
       new Promise<number | null>((resolve) => {
-        new PerformanceObserver((list) => resolve(list.getEntries().at(-1)?.startTime ?? null)).observe({ type: 'largest-contentful-paint', buffered: true });
+        new PerformanceObserver((list) =>
+          resolve(list.getEntries().at(-1)?.startTime ?? null),
+        ).observe({ type: 'largest-contentful-paint', buffered: true });
         setTimeout(() => resolve(null), 3_000);
       }),
   );

@@ -7,34 +7,57 @@ import type { Database } from '../server/db/client';
 import { seedDemo } from '../server/seed/demo';
 import { cutNetwork, launchBrowser, underServiceWorker } from '../tests/chromium';
 import { distDir, startBenchApp } from './bench-app';
-import { ensureBuilds, largestContentfulPaint, minimalDir, phoneContext, serveMinimalShell, throttle } from './browser-setup';
+import {
+  ensureBuilds,
+  largestContentfulPaint,
+  minimalDir,
+  phoneContext,
+  serveMinimalShell,
+  throttle,
+} from './browser-setup';
 import { median, type Figure } from './results-file';
 
 const RUNS = 5;
 const DEMO_OWNER = 'owner@northlight.test';
 
 async function signIn(context: BrowserContext, baseUrl: string) {
-  const res = await context.request.post(`${baseUrl}/api/auth/sign-in`, { data: { email: DEMO_OWNER, password: DEMO_PASSWORD }, headers: { 'X-Rackside-Client': '1' } });
+  const res = await context.request.post(`${baseUrl}/api/auth/sign-in`, {
+    data: { email: DEMO_OWNER, password: DEMO_PASSWORD },
+    headers: { 'X-Rackside-Client': '1' },
+  });
   if (res.status() !== 200) throw new Error(`sign-in failed: ${res.status()}`);
 }
 
-const roundReady = (page: Page) => page.getByRole('button', { name: 'Ate', exact: true }).first().waitFor({ timeout: 60_000 });
-const shellReady = (page: Page) => page.getByText('Twenty-two animals').waitFor({ timeout: 60_000 });
+const roundReady = (page: Page) =>
+  page.getByRole('button', { name: 'Ate', exact: true }).first().waitFor({ timeout: 60_000 });
+const shellReady = (page: Page) =>
+  page.getByText('Twenty-two animals').waitFor({ timeout: 60_000 });
 
 /** Opens `url` in a new page of `context` under the throttles and returns its LCP. */
-async function visit(context: BrowserContext, url: string, ready: (p: Page) => Promise<void>, slowLink: boolean): Promise<number> {
+async function visit(
+  context: BrowserContext,
+  url: string,
+  ready: (p: Page) => Promise<void>,
+  slowLink: boolean,
+): Promise<number> {
   const page = await context.newPage();
   await throttle(context, page, slowLink);
   await page.goto(url);
   await ready(page).catch(async (err) => {
-    throw new Error(`${url} never got ready; the page said: ${(await page.locator('body').innerText()).slice(0, 300)}`, { cause: err });
+    throw new Error(
+      `${url} never got ready; the page said: ${(await page.locator('body').innerText()).slice(0, 300)}`,
+      { cause: err },
+    );
   });
   const lcp = await largestContentfulPaint(page);
   await page.close();
   return lcp;
 }
 
-async function withApps<T>(database: Database, work: (apps: { app: string; shell: string; browser: Browser }) => Promise<T>): Promise<T> {
+async function withApps<T>(
+  database: Database,
+  work: (apps: { app: string; shell: string; browser: Browser }) => Promise<T>,
+): Promise<T> {
   await ensureBuilds();
   await seedDemo(database.db, { bcryptCost: 10 }); // does nothing when the demo is already there
   const app = await startBenchApp(database);
@@ -49,11 +72,27 @@ async function withApps<T>(database: Database, work: (apps: { app: string; shell
   }
 }
 
-const ratioFigure = (id: string, what: string, value: number, baseline: number, target: number, maxRatio: number): Figure[] => {
+const ratioFigure = (
+  id: string,
+  what: string,
+  value: number,
+  baseline: number,
+  target: number,
+  maxRatio: number,
+): Figure[] => {
   const ratio = Number((value / baseline).toFixed(2));
   return [
     { id, what, value: Math.round(value), unit: 'ms', target, pass: value <= target },
-    { id, what: `${what}, as a multiple of the minimal shell`, value: Math.round(value), unit: 'ms', target: `ratio ≤ ${maxRatio}`, baseline: Math.round(baseline), ratio, pass: ratio <= maxRatio },
+    {
+      id,
+      what: `${what}, as a multiple of the minimal shell`,
+      value: Math.round(value),
+      unit: 'ms',
+      target: `ratio ≤ ${maxRatio}`,
+      baseline: Math.round(baseline),
+      ratio,
+      pass: ratio <= maxRatio,
+    },
   ];
 };
 
@@ -87,8 +126,17 @@ export async function runP2(database: Database): Promise<{ figures: Figure[]; no
       shellLcp.push(await visit(shellContext, `${shell}/today`, shellReady, false));
     }
     return {
-      figures: ratioFigure('P2', `offline repeat visit to Today (service worker + IndexedDB), LCP, CPU ×4, median of ${RUNS}`, median(appLcp), median(shellLcp), 1000, 1.5),
-      notes: [`P2 LCP runs: Rackside ${appLcp.map(Math.round).join(', ')} ms; minimal shell ${shellLcp.map(Math.round).join(', ')} ms.`],
+      figures: ratioFigure(
+        'P2',
+        `offline repeat visit to Today (service worker + IndexedDB), LCP, CPU ×4, median of ${RUNS}`,
+        median(appLcp),
+        median(shellLcp),
+        1000,
+        1.5,
+      ),
+      notes: [
+        `P2 LCP runs: Rackside ${appLcp.map(Math.round).join(', ')} ms; minimal shell ${shellLcp.map(Math.round).join(', ')} ms.`,
+      ],
     };
   });
 }
@@ -105,7 +153,14 @@ export async function runP3(database: Database): Promise<{ figures: Figure[]; no
       today.push(await visit(signedIn, `${app}/today`, roundReady, true));
       await signedIn.close();
       const stranger = await phoneContext(browser);
-      signInPage.push(await visit(stranger, `${app}/sign-in`, (p) => p.getByRole('button', { name: 'Sign in' }).waitFor({ timeout: 60_000 }), true));
+      signInPage.push(
+        await visit(
+          stranger,
+          `${app}/sign-in`,
+          (p) => p.getByRole('button', { name: 'Sign in' }).waitFor({ timeout: 60_000 }),
+          true,
+        ),
+      );
       await stranger.close();
       const plain = await phoneContext(browser);
       shellLcp.push(await visit(plain, `${shell}/today`, shellReady, true));
@@ -113,10 +168,26 @@ export async function runP3(database: Database): Promise<{ figures: Figure[]; no
     }
     return {
       figures: [
-        ...ratioFigure('P3', `first visit to Today, signed in (150 ms RTT, 1.6 Mbit/s, CPU ×4), LCP, median of ${RUNS}`, median(today), median(shellLcp), 2500, 1.5),
-        ...ratioFigure('P3', `first visit to the sign-in page (same link), LCP, median of ${RUNS}`, median(signInPage), median(shellLcp), 2500, 1.5),
+        ...ratioFigure(
+          'P3',
+          `first visit to Today, signed in (150 ms RTT, 1.6 Mbit/s, CPU ×4), LCP, median of ${RUNS}`,
+          median(today),
+          median(shellLcp),
+          2500,
+          1.5,
+        ),
+        ...ratioFigure(
+          'P3',
+          `first visit to the sign-in page (same link), LCP, median of ${RUNS}`,
+          median(signInPage),
+          median(shellLcp),
+          2500,
+          1.5,
+        ),
       ],
-      notes: [`P3 LCP runs: Today ${today.map(Math.round).join(', ')} ms; sign-in ${signInPage.map(Math.round).join(', ')} ms; minimal shell ${shellLcp.map(Math.round).join(', ')} ms.`],
+      notes: [
+        `P3 LCP runs: Today ${today.map(Math.round).join(', ')} ms; sign-in ${signInPage.map(Math.round).join(', ')} ms; minimal shell ${shellLcp.map(Math.round).join(', ')} ms.`,
+      ],
     };
   });
 }
@@ -127,7 +198,20 @@ export async function runP4(): Promise<{ figures: Figure[]; notes: string[] }> {
   const shell = firstRouteJs(minimalDir);
   const kb = (b: number) => Number((b / 1024).toFixed(1));
   return {
-    figures: [{ id: 'P4', what: 'JavaScript for the first route (entry + preloaded chunks), gzip', value: kb(app.gzipBytes), unit: 'KB', target: 150, baseline: kb(shell.gzipBytes), ratio: Number((app.gzipBytes / shell.gzipBytes).toFixed(2)), pass: app.gzipBytes <= 150 * 1024 }],
-    notes: [`P4 files: ${app.files.map((f) => `${f.file} ${kb(f.gzipBytes)} KB`).join('; ')}; minimal shell ${kb(shell.gzipBytes)} KB.`],
+    figures: [
+      {
+        id: 'P4',
+        what: 'JavaScript for the first route (entry + preloaded chunks), gzip',
+        value: kb(app.gzipBytes),
+        unit: 'KB',
+        target: 150,
+        baseline: kb(shell.gzipBytes),
+        ratio: Number((app.gzipBytes / shell.gzipBytes).toFixed(2)),
+        pass: app.gzipBytes <= 150 * 1024,
+      },
+    ],
+    notes: [
+      `P4 files: ${app.files.map((f) => `${f.file} ${kb(f.gzipBytes)} KB`).join('; ')}; minimal shell ${kb(shell.gzipBytes)} KB.`,
+    ],
   };
 }

@@ -19,7 +19,13 @@ import { median, type Figure } from './results-file';
 
 const TAPS = 1000;
 const RUNS = 5;
-const KINDS: RecordedEvent['kind'][] = ['ate', 'refused', 'watered', 'prey_left_in', 'prey_removed'];
+const KINDS: RecordedEvent['kind'][] = [
+  'ate',
+  'refused',
+  'watered',
+  'prey_left_in',
+  'prey_removed',
+];
 
 // Taps come in the order they were made, as on a real round (a late phone is the rare case).
 let clock = Date.now() - 3_600_000;
@@ -48,10 +54,17 @@ export async function runP5(database: Database): Promise<{ figures: Figure[]; no
       return { status: res.status, body: await res.json() };
     };
     // As in real use, today's round exists while taps arrive (urgent tasks are checked against it).
-    const today = await fetch(`${app.baseUrl}/api/collections/${keeper.collectionId}/rounds/today`, { headers: { Cookie: cookie } });
+    const today = await fetch(
+      `${app.baseUrl}/api/collections/${keeper.collectionId}/rounds/today`,
+      { headers: { Cookie: cookie } },
+    );
     if (today.status !== 200) throw new Error(`P5 could not build today's round: ${today.status}`);
     // Warm-up: the first requests pay for connections, JIT and caches.
-    await send(keeper.collectionId, { deviceId: 'bench', clientSentAt: new Date().toISOString(), events: taps(keeper.animalIds, 200) });
+    await send(keeper.collectionId, {
+      deviceId: 'bench',
+      clientSentAt: new Date().toISOString(),
+      events: taps(keeper.animalIds, 200),
+    });
 
     // The ingestion service on its own (no HTTP, session or JSON), to show where time goes.
     // Wired as server/app.ts wires it: meals checked against holds, today's round reconciled.
@@ -59,7 +72,9 @@ export async function runP5(database: Database): Promise<{ figures: Figure[]; no
     const service = createEventsService(database.db, {
       now: () => new Date(),
       feedHolds: rounds.feedHolds,
-      onRecorded: [(c, recorded) => rounds.reconcileToday(c.collectionId, animalsToReconcile(recorded))],
+      onRecorded: [
+        (c, recorded) => rounds.reconcileToday(c.collectionId, animalsToReconcile(recorded)),
+      ],
     });
     const member = (await findMembership(database.db, keeper.collectionId, keeper.userId))!;
     const flushMs: number[] = [];
@@ -70,20 +85,35 @@ export async function runP5(database: Database): Promise<{ figures: Figure[]; no
       // End to end: taps already queued on the "phone", then one flush until the outbox is empty.
       const db = await openRacksideDb(`p5-${randomUUID()}`);
       for (const event of taps(keeper.animalIds, TAPS)) {
-        await recordTap(db, { userId: keeper.userId, byName: 'Bench keeper', collectionId: keeper.collectionId, animalName: 'Animal', event });
+        await recordTap(db, {
+          userId: keeper.userId,
+          byName: 'Bench keeper',
+          collectionId: keeper.collectionId,
+          animalName: 'Animal',
+          event,
+        });
       }
       const engine = createSyncEngine({ db: async () => db, userId: keeper.userId, send });
       const t0 = performance.now();
       const result = await engine.flush();
       flushMs.push(performance.now() - t0);
-      if (!result.ok || result.acknowledged !== TAPS || (await waitingTaps(db, keeper.userId)).length) throw new Error(`P5 flush did not empty the outbox: ${JSON.stringify(result)}`);
+      if (
+        !result.ok ||
+        result.acknowledged !== TAPS ||
+        (await waitingTaps(db, keeper.userId)).length
+      )
+        throw new Error(`P5 flush did not empty the outbox: ${JSON.stringify(result)}`);
       db.close();
 
       // Server ingestion alone: the same five 200-event requests the engine sends.
       const serverEvents = taps(keeper.animalIds, TAPS);
       const t1 = performance.now();
       for (let i = 0; i < TAPS; i += SYNC_BATCH_SIZE) {
-        const res = await send(keeper.collectionId, { deviceId: 'bench', clientSentAt: new Date().toISOString(), events: serverEvents.slice(i, i + SYNC_BATCH_SIZE) });
+        const res = await send(keeper.collectionId, {
+          deviceId: 'bench',
+          clientSentAt: new Date().toISOString(),
+          events: serverEvents.slice(i, i + SYNC_BATCH_SIZE),
+        });
         if (res.status !== 200) throw new Error(`P5 batch answered ${res.status}`);
       }
       serverMs.push(performance.now() - t1);
@@ -91,7 +121,11 @@ export async function runP5(database: Database): Promise<{ figures: Figure[]; no
       const serviceEvents = taps(keeper.animalIds, TAPS);
       const t3 = performance.now();
       for (let i = 0; i < TAPS; i += SYNC_BATCH_SIZE) {
-        await service.recordBatch(member, keeper.userId, { deviceId: 'bench', clientSentAt: new Date().toISOString(), events: serviceEvents.slice(i, i + SYNC_BATCH_SIZE) });
+        await service.recordBatch(member, keeper.userId, {
+          deviceId: 'bench',
+          clientSentAt: new Date().toISOString(),
+          events: serviceEvents.slice(i, i + SYNC_BATCH_SIZE),
+        });
       }
       serviceMs.push(performance.now() - t3);
 
@@ -102,7 +136,18 @@ export async function runP5(database: Database): Promise<{ figures: Figure[]; no
         const slice = rawEvents.slice(i, i + SYNC_BATCH_SIZE);
         const values: unknown[] = [];
         const rows = slice.map((e, j) => {
-          values.push(e.id, keeper.collectionId, e.animalId, e.kind, '{}', keeper.userId, 'bench', e.clientRecordedAt, new Date().toISOString(), e.clientRecordedAt);
+          values.push(
+            e.id,
+            keeper.collectionId,
+            e.animalId,
+            e.kind,
+            '{}',
+            keeper.userId,
+            'bench',
+            e.clientRecordedAt,
+            new Date().toISOString(),
+            e.clientRecordedAt,
+          );
           const b = j * 10;
           return `($${b + 1}, $${b + 2}, $${b + 3}, $${b + 4}, $${b + 5}::jsonb, $${b + 6}, $${b + 7}, $${b + 8}, $${b + 9}, $${b + 10})`;
         });
@@ -121,7 +166,14 @@ export async function runP5(database: Database): Promise<{ figures: Figure[]; no
     const serviceRatio = Number((raw / serviceOnly).toFixed(2));
     return {
       figures: [
-        { id: 'P5', what: `flush of ${TAPS} queued taps until the outbox is empty (median of ${RUNS})`, value: flush, unit: 'ms', target: 2000, pass: flush <= 2000 },
+        {
+          id: 'P5',
+          what: `flush of ${TAPS} queued taps until the outbox is empty (median of ${RUNS})`,
+          value: flush,
+          unit: 'ms',
+          target: 2000,
+          pass: flush <= 2000,
+        },
         {
           id: 'P5',
           what: `server ingestion of ${TAPS} events in ${TAPS / SYNC_BATCH_SIZE} requests, as throughput relative to raw multi-row INSERT`,
@@ -143,7 +195,9 @@ export async function runP5(database: Database): Promise<{ figures: Figure[]; no
           pass: serviceRatio >= 0.5,
         },
       ],
-      notes: [`P5 runs: flush ${flushMs.map(Math.round).join(', ')} ms; server over HTTP ${serverMs.map(Math.round).join(', ')} ms; service alone ${serviceMs.map(Math.round).join(', ')} ms; raw INSERT ${rawMs.map(Math.round).join(', ')} ms.`],
+      notes: [
+        `P5 runs: flush ${flushMs.map(Math.round).join(', ')} ms; server over HTTP ${serverMs.map(Math.round).join(', ')} ms; service alone ${serviceMs.map(Math.round).join(', ')} ms; raw INSERT ${rawMs.map(Math.round).join(', ')} ms.`,
+      ],
     };
   } finally {
     await app.close();

@@ -18,7 +18,10 @@ const EVENTS_PER_ANIMAL = 100; // a year at one event every ~3.65 days
 
 async function makeCollection(database: Database, animals: number): Promise<string> {
   const { pool } = database;
-  const inserted = await pool.query<{ id: string }>(`insert into collections (name, time_zone, label_tag) values ($1, $2, $3) returning id`, [`Bench ${animals}`, ZONE, generateLabelTag(Math.random)]);
+  const inserted = await pool.query<{ id: string }>(
+    `insert into collections (name, time_zone, label_tag) values ($1, $2, $3) returning id`,
+    [`Bench ${animals}`, ZONE, generateLabelTag(Math.random)],
+  );
   const id = inserted.rows[0]!.id;
   await pool.query(
     `insert into locations (collection_id, room, rack, shelf, position)
@@ -99,14 +102,28 @@ async function measure(database: Database, collectionId: string, runs: number) {
     engines.push(performance.now() - e0);
     items = round.items.length;
   }
-  const [{ n }] = (await database.db.execute<{ n: number }>(sql`select count(*)::int as n from events where collection_id = ${collectionId}`)).rows as [{ n: number }];
-  return { total: median(totals), query: median(queries), engine: median(engines), items, events: n };
+  const [{ n }] = (
+    await database.db.execute<{ n: number }>(
+      sql`select count(*)::int as n from events where collection_id = ${collectionId}`,
+    )
+  ).rows as [{ n: number }];
+  return {
+    total: median(totals),
+    query: median(queries),
+    engine: median(engines),
+    items,
+    events: n,
+  };
 }
 
 export async function runP6(database: Database): Promise<{ figures: Figure[]; notes: string[] }> {
   const small = await makeCollection(database, 10_000);
   const a = await measure(database, small, 5);
-  const baseline10k = median([await lateralBaseline(database, small), await lateralBaseline(database, small), await lateralBaseline(database, small)]);
+  const baseline10k = median([
+    await lateralBaseline(database, small),
+    await lateralBaseline(database, small),
+    await lateralBaseline(database, small),
+  ]);
   const large = await makeCollection(database, 20_000);
   const b = await measure(database, large, 5);
   const ratio = Number((b.total / a.total).toFixed(2));

@@ -22,15 +22,23 @@ export function recordFigures(figures: Figure[], command: string, notes: string[
   // others stay from their own latest run.
   const file = path.join(dir, 'latest.json');
   const ran = new Set(figures.map((f) => f.id));
-  const kept = fs.existsSync(file) ? (JSON.parse(fs.readFileSync(file, 'utf8')) as Figure[]).filter((f) => !ran.has(f.id)) : [];
-  const all = [...kept, ...figures].sort((a, b) => a.id.localeCompare(b.id, 'en', { numeric: true }));
+  const kept = fs.existsSync(file)
+    ? (JSON.parse(fs.readFileSync(file, 'utf8')) as Figure[]).filter((f) => !ran.has(f.id))
+    : [];
+  const all = [...kept, ...figures].sort((a, b) =>
+    a.id.localeCompare(b.id, 'en', { numeric: true }),
+  );
   fs.writeFileSync(file, `${JSON.stringify(all, null, 2)}\n`);
   const history = path.join(root, 'docs', 'benchmarks.md');
   if (!fs.existsSync(history)) {
-    fs.writeFileSync(history, '# Benchmarks\n\nEvery run of `npm run bench` appends its figures here (newest last). Targets are in the budgets document; medians over several runs on a shared 2-core machine.\n');
+    fs.writeFileSync(
+      history,
+      '# Benchmarks\n\nEvery run of `npm run bench` appends its figures here (newest last). Targets are in the budgets document; medians over several runs on a shared 2-core machine.\n',
+    );
   }
   const rows = figures.map(
-    (f) => `| ${f.id} | ${f.what} | ${f.value} ${f.unit} | ${f.target} | ${f.baseline ?? ''} | ${f.ratio ?? ''} | ${f.pass ? 'pass' : '**FAIL**'} |`,
+    (f) =>
+      `| ${f.id} | ${f.what} | ${f.value} ${f.unit} | ${f.target} | ${f.baseline ?? ''} | ${f.ratio ?? ''} | ${f.pass ? 'pass' : '**FAIL**'} |`,
   );
   const block = [
     '',

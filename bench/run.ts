@@ -11,7 +11,10 @@ import { recordFigures, type Figure } from './results-file';
 import { runS6Timing } from './s6-timing';
 import { runT1 } from './t1-table';
 
-const BENCHES: Record<string, (db: ReturnType<typeof connectDatabase>) => Promise<{ figures: Figure[]; notes: string[] }>> = {
+const BENCHES: Record<
+  string,
+  (db: ReturnType<typeof connectDatabase>) => Promise<{ figures: Figure[]; notes: string[] }>
+> = {
   P1: runP1,
   P2: runP2,
   P3: runP3,
@@ -28,7 +31,9 @@ if (!url) throw new Error('BENCH_DATABASE_URL is not set: run `npm run bench`.')
 const wanted = process.argv.slice(2).map((a) => a.toUpperCase());
 const unknown = wanted.filter((id) => !BENCHES[id]);
 if (unknown.length) {
-  console.error(`Unknown benchmark ${unknown.join(', ')}. Known: ${Object.keys(BENCHES).join(', ')}.`);
+  console.error(
+    `Unknown benchmark ${unknown.join(', ')}. Known: ${Object.keys(BENCHES).join(', ')}.`,
+  );
   process.exit(2);
 }
 
@@ -52,7 +57,10 @@ try {
     const result = await BENCHES[id]!(database);
     figures.push(...result.figures);
     notes.push(...result.notes);
-    for (const f of result.figures) console.log(`${f.pass ? 'pass' : 'FAIL'} ${f.id}: ${f.value} ${f.unit} (target ${f.target}${f.ratio !== undefined ? `, ratio ${f.ratio}` : ''}) — ${f.what}`);
+    for (const f of result.figures)
+      console.log(
+        `${f.pass ? 'pass' : 'FAIL'} ${f.id}: ${f.value} ${f.unit} (target ${f.target}${f.ratio !== undefined ? `, ratio ${f.ratio}` : ''}) — ${f.what}`,
+      );
   }
 } finally {
   await database.close();

@@ -32,7 +32,9 @@ const tolerance = (a: number, b: number) => Math.max(2, 0.1 * Math.max(a, b));
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
-export async function runS6Timing(database: Database): Promise<{ figures: Figure[]; notes: string[] }> {
+export async function runS6Timing(
+  database: Database,
+): Promise<{ figures: Figure[]; notes: string[] }> {
   const smtp = await startDevSmtp();
   const mailer = createSmtpMailer(smtp.url, 'Rackside bench <bench@rackside.invalid>');
   const app = await startBenchApp(database, { mailer, bcryptCost: COST });
@@ -40,21 +42,45 @@ export async function runS6Timing(database: Database): Promise<{ figures: Figure
     const owner = await makeKeeper(database, 1, 's6-owner');
     // The known account, hashed at the app's cost as a real sign-up would be.
     const knownEmail = `s6-known-${Date.now()}@bench.test`;
-    await database.pool.query(`insert into users (email, password_hash, display_name) values ($1, $2, 'Known')`, [knownEmail, await bcrypt.hash('the right password 1', COST)]);
+    await database.pool.query(
+      `insert into users (email, password_hash, display_name) values ($1, $2, 'Known')`,
+      [knownEmail, await bcrypt.hash('the right password 1', COST)],
+    );
     const cookie = await signInCookie(app.baseUrl, owner.email);
     const post = (path: string, body: unknown, withCookie = false) =>
       fetch(`${app.baseUrl}${path}`, {
         method: 'POST',
-        headers: { 'Content-Type': 'application/json', 'X-Rackside-Client': '1', ...(withCookie ? { Cookie: cookie } : {}) },
+        headers: {
+          'Content-Type': 'application/json',
+          'X-Rackside-Client': '1',
+          ...(withCookie ? { Cookie: cookie } : {}),
+        },
         body: JSON.stringify(body),
       });
     const unknownEmail = () => `s6-unknown-${randomUUID().slice(0, 12)}@bench.test`;
 
-    const endpoints: { name: string; expect: number; send: (email: string) => Promise<Response> }[] = [
-      { name: 'sign-in with a wrong password', expect: 401, send: (email) => post('/api/auth/sign-in', { email, password: 'a wrong password 1' }) },
+    const endpoints: {
+      name: string;
+      expect: number;
+      send: (email: string) => Promise<Response>;
+    }[] = [
+      {
+        name: 'sign-in with a wrong password',
+        expect: 401,
+        send: (email) => post('/api/auth/sign-in', { email, password: 'a wrong password 1' }),
+      },
       { name: 'sign-up', expect: 202, send: (email) => post('/api/auth/sign-up', { email }) },
-      { name: 'password reset request', expect: 202, send: (email) => post('/api/auth/reset-request', { email }) },
-      { name: 'keeper invite', expect: 202, send: (email) => post(`/api/collections/${owner.collectionId}/members`, { email, role: 'keeper' }, true) },
+      {
+        name: 'password reset request',
+        expect: 202,
+        send: (email) => post('/api/auth/reset-request', { email }),
+      },
+      {
+        name: 'keeper invite',
+        expect: 202,
+        send: (email) =>
+          post(`/api/collections/${owner.collectionId}/members`, { email, role: 'keeper' }, true),
+      },
     ];
 
     const figures: Figure[] = [];
@@ -65,7 +91,10 @@ export async function runS6Timing(database: Database): Promise<{ figures: Figure
         const res = await endpoint.send(email);
         await res.arrayBuffer();
         const ms = performance.now() - t0;
-        if (res.status !== endpoint.expect) throw new Error(`S6-timing ${endpoint.name} answered ${res.status}, expected ${endpoint.expect}`);
+        if (res.status !== endpoint.expect)
+          throw new Error(
+            `S6-timing ${endpoint.name} answered ${res.status}, expected ${endpoint.expect}`,
+          );
         await sleep(SETTLE_MS);
         return ms;
       };
@@ -99,7 +128,9 @@ export async function runS6Timing(database: Database): Promise<{ figures: Figure
         ratio: Number((u / k).toFixed(3)),
         pass: gap <= allowed,
       });
-      notes.push(`S6-timing ${endpoint.name}: median known ${k.toFixed(2)} ms, unknown ${u.toFixed(2)} ms (baseline column = known, ratio = unknown ÷ known).`);
+      notes.push(
+        `S6-timing ${endpoint.name}: median known ${k.toFixed(2)} ms, unknown ${u.toFixed(2)} ms (baseline column = known, ratio = unknown ÷ known).`,
+      );
     }
     return { figures, notes };
   } finally {

@@ -22,4 +22,5 @@ export async function buildServer(outfile = serverBundle): Promise<string> {
   return outfile;
 }
 
-if (process.argv[1] && path.resolve(process.argv[1]) === path.resolve(import.meta.filename)) await buildServer();
+if (process.argv[1] && path.resolve(process.argv[1]) === path.resolve(import.meta.filename))
+  await buildServer();

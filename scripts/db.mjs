@@ -11,7 +11,11 @@ if (command === 'stop') {
 
 ensureNodeModules();
 const { databaseUrl } = await prepareDatabase();
-const env = { ...process.env, DATABASE_URL: databaseUrl, SESSION_SECRET: process.env.SESSION_SECRET ?? localSessionSecret() };
+const env = {
+  ...process.env,
+  DATABASE_URL: databaseUrl,
+  SESSION_SECRET: process.env.SESSION_SECRET ?? localSessionSecret(),
+};
 if (command === 'migrate') runTs('server/cli.ts', ['migrate'], env);
 else if (command === 'seed') {
   runTs('server/cli.ts', ['migrate'], env);

@@ -20,12 +20,21 @@ runTs('server/cli.ts', ['seed', '--if-empty'], env);
 const bin = (name) => path.join(repoRoot, 'node_modules', '.bin', name);
 // Detached groups so Ctrl-C takes every child with it (vite leaves children otherwise).
 const children = [
-  spawn(bin('tsx'), ['watch', 'server/index.ts'], { cwd: repoRoot, env, stdio: 'inherit', detached: true }),
+  spawn(bin('tsx'), ['watch', 'server/index.ts'], {
+    cwd: repoRoot,
+    env,
+    stdio: 'inherit',
+    detached: true,
+  }),
   spawn(bin('vite'), [], { cwd: repoRoot, env, stdio: 'inherit', detached: true }),
 ];
 const stop = () => {
   for (const child of children) {
-    try { process.kill(-child.pid, 'SIGTERM'); } catch { /* already gone */ }
+    try {
+      process.kill(-child.pid, 'SIGTERM');
+    } catch {
+      /* already gone */
+    }
   }
   process.exit(0);
 };

@@ -1,1 +1,4 @@
-export function firstRouteJs(distDir: string): { files: { file: string; gzipBytes: number }[]; gzipBytes: number };
+export function firstRouteJs(distDir: string): {
+  files: { file: string; gzipBytes: number }[];
+  gzipBytes: number;
+};

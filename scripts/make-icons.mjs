@@ -7,7 +7,10 @@ import { repoRoot } from './lib/setup.mjs';
 
 const dir = path.join(repoRoot, 'public', 'icons');
 const svg = fs.readFileSync(path.join(dir, 'icon.svg'), 'utf8');
-const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: ['--no-sandbox', '--disable-gpu'] });
+const browser = await chromium.launch({
+  executablePath: '/usr/bin/chromium',
+  args: ['--no-sandbox', '--disable-gpu'],
+});
 const page = await browser.newPage();
 async function render(file, size, maskable) {
   await page.setViewportSize({ width: size, height: size });
@@ -15,7 +18,9 @@ async function render(file, size, maskable) {
   const inner = maskable
     ? `<div style="width:${size}px;height:${size}px;background:#241c15;display:grid;place-items:center">${svg.replace('<svg ', `<svg width="${size * 0.72}" height="${size * 0.72}" `)}</div>`
     : svg.replace('<svg ', `<svg width="${size}" height="${size}" `);
-  await page.setContent(`<html><body style="margin:0;background:transparent">${inner}</body></html>`);
+  await page.setContent(
+    `<html><body style="margin:0;background:transparent">${inner}</body></html>`,
+  );
   await page.screenshot({ path: path.join(dir, file), omitBackground: !maskable });
 }
 await render('icon-192.png', 192, false);

@@ -3,7 +3,15 @@ import { spawn } from 'node:child_process';
 import path from 'node:path';
 import { localSessionSecret } from './lib/secrets.mjs';
 import { SERVER_NODE_FLAGS } from './lib/server-flags.mjs';
-import { ensureNodeModules, prepareDatabase, repoRoot, run, runTs, say, stopCluster } from './lib/setup.mjs';
+import {
+  ensureNodeModules,
+  prepareDatabase,
+  repoRoot,
+  run,
+  runTs,
+  say,
+  stopCluster,
+} from './lib/setup.mjs';
 
 const began = Date.now();
 ensureNodeModules();
@@ -28,11 +36,15 @@ runTs('scripts/build-server.ts', [], env);
 say(`Ready to serve after ${((Date.now() - began) / 1000).toFixed(1)} s of set-up.`);
 
 // The bundled server (scripts/build-server.ts), run by node itself.
-const server = spawn(process.execPath, [...SERVER_NODE_FLAGS, path.join(repoRoot, 'dist-server', 'index.mjs')], {
-  cwd: repoRoot,
-  env,
-  stdio: 'inherit',
-});
+const server = spawn(
+  process.execPath,
+  [...SERVER_NODE_FLAGS, path.join(repoRoot, 'dist-server', 'index.mjs')],
+  {
+    cwd: repoRoot,
+    env,
+    stdio: 'inherit',
+  },
+);
 
 let stopping = false;
 function shutdown() {

@@ -3,7 +3,13 @@ import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import {
-  clusterUrl, ensureChromium, ensureNodeModules, repoRoot, say, startCluster, stopCluster,
+  clusterUrl,
+  ensureChromium,
+  ensureNodeModules,
+  repoRoot,
+  say,
+  startCluster,
+  stopCluster,
 } from './lib/setup.mjs';
 
 const began = Date.now();
@@ -18,15 +24,24 @@ const env = {
 const bin = (name) => path.join(repoRoot, 'node_modules', '.bin', name);
 const resultsDir = path.join(repoRoot, 'test-results');
 fs.mkdirSync(resultsDir, { recursive: true });
-for (const p of ["unit", "api", "e2e"]) fs.rmSync(path.join(resultsDir, `${p}.json`), { force: true });
+for (const p of ['unit', 'api', 'e2e'])
+  fs.rmSync(path.join(resultsDir, `${p}.json`), { force: true });
 
 const vitest = (project) => [
   bin('vitest'),
-  ['run', '--project', project, '--reporter=default', '--reporter=json', `--outputFile.json=test-results/${project}.json`],
+  [
+    'run',
+    '--project',
+    project,
+    '--reporter=default',
+    '--reporter=json',
+    `--outputFile.json=test-results/${project}.json`,
+  ],
 ];
 const stages = [
   ['typecheck', bin('tsc'), ['-p', 'tsconfig.json', '--noEmit']],
   ['lint', bin('eslint'), ['.', '--max-warnings=0']],
+  ['format', bin('prettier'), ['--check', '.', '--log-level', 'warn']],
   ['references', process.execPath, ['scripts/check-references.mjs']],
   ['unit', ...vitest('unit')],
   ['api', ...vitest('api')],
@@ -53,7 +68,8 @@ for (const project of ['unit', 'api', 'e2e']) {
   passed += report.numPassedTests ?? 0;
   failed += report.numFailedTests ?? 0;
 }
-for (const s of outcome) say(`${s.ok ? 'ok  ' : 'FAIL'} ${s.name.padEnd(10)} ${s.seconds.toFixed(1)} s`);
+for (const s of outcome)
+  say(`${s.ok ? 'ok  ' : 'FAIL'} ${s.name.padEnd(10)} ${s.seconds.toFixed(1)} s`);
 say(`whole run ${((Date.now() - began) / 1000).toFixed(0)} s`);
 const stagesFailed = outcome.filter((s) => !s.ok).length;
 if (stagesFailed) failed = Math.max(failed, 1);

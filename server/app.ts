@@ -29,7 +29,11 @@ import { locationsRoutes } from './features/locations/locations.routes';
 import { createLocationsService } from './features/locations/locations.service';
 import { photosRoutes } from './features/photos/photos.routes';
 import { createPhotosService } from './features/photos/photos.service';
-import { animalScheduleRoutes, prepListRoutes, roundsRoutes } from './features/rounds/rounds.routes';
+import {
+  animalScheduleRoutes,
+  prepListRoutes,
+  roundsRoutes,
+} from './features/rounds/rounds.routes';
 import { createRoundsService } from './features/rounds/rounds.service';
 import { rulesRoutes } from './features/rounds/rules.routes';
 import { animalsToReconcile } from './features/rounds/urgent-tasks';
@@ -83,15 +87,36 @@ export function createApp(options: AppOptions) {
 
   const api = express.Router();
   // Imports and restores may be large: their routes parse them after the membership check.
-  api.use(express.json({ limit: '1mb', type: (req) => !LARGE_BODY_PATHS.test(req.url ?? '') && /json/i.test(req.headers['content-type'] ?? '') }));
+  api.use(
+    express.json({
+      limit: '1mb',
+      type: (req) =>
+        !LARGE_BODY_PATHS.test(req.url ?? '') && /json/i.test(req.headers['content-type'] ?? ''),
+    }),
+  );
   api.use(sessions(env, store));
   api.use(requireSameSiteWrite);
 
-  const publicUrl = (p: string) => `${options.publicUrl ?? env.PUBLIC_URL ?? `http://localhost:${env.PORT}`}${p}`;
+  const publicUrl = (p: string) =>
+    `${options.publicUrl ?? env.PUBLIC_URL ?? `http://localhost:${env.PORT}`}${p}`;
   const background = createBackground(logger);
-  const auth = createAuthService({ db: database.db, mailer: options.mailer, now, bcryptCost: env.BCRYPT_COST, publicUrl, background });
-  const cover = createCoverService(database.db, { mailer: options.mailer, now, bcryptCost: env.BCRYPT_COST, publicUrl, background });
-  const member = (min: Role, options?: { anyTime?: boolean }) => requireMember(database.db, min, now, options);
+  const auth = createAuthService({
+    db: database.db,
+    mailer: options.mailer,
+    now,
+    bcryptCost: env.BCRYPT_COST,
+    publicUrl,
+    background,
+  });
+  const cover = createCoverService(database.db, {
+    mailer: options.mailer,
+    now,
+    bcryptCost: env.BCRYPT_COST,
+    publicUrl,
+    background,
+  });
+  const member = (min: Role, options?: { anyTime?: boolean }) =>
+    requireMember(database.db, min, now, options);
 
   api.use('/health', healthRoutes(database.pool));
   const limiter = createLimiter(database.pool);
@@ -104,11 +129,32 @@ export function createApp(options: AppOptions) {
     limit: limits.invitesPerCollection,
     keyGenerator: (req) => String(req.params.collectionId),
     skipFailedRequests: true,
-    handler: (_req, _res, next) => next(new HttpError(429, 'rate_limited', `This collection has sent ${limits.invitesPerCollection} invites today. More can go tomorrow.`)),
+    handler: (_req, _res, next) =>
+      next(
+        new HttpError(
+          429,
+          'rate_limited',
+          `This collection has sent ${limits.invitesPerCollection} invites today. More can go tomorrow.`,
+        ),
+      ),
   });
-  if (env.DEMO_MODE) api.use('/dev', devRoutes(options.devMailbox, auth, { mountMailbox: env.NODE_ENV !== 'production' }));
+  if (env.DEMO_MODE)
+    api.use(
+      '/dev',
+      devRoutes(options.devMailbox, auth, { mountMailbox: env.NODE_ENV !== 'production' }),
+    );
   api.use('/collections', myCollectionsRoutes(auth));
-  api.use('/cover-invites', coverInviteRoutes(cover, auth, limiter('invite-ip', { windowMs: 15 * 60_000, limit: options.authLimits?.signInPerIp ?? DEFAULT_AUTH_LIMITS.signInPerIp })));
+  api.use(
+    '/cover-invites',
+    coverInviteRoutes(
+      cover,
+      auth,
+      limiter('invite-ip', {
+        windowMs: 15 * 60_000,
+        limit: options.authLimits?.signInPerIp ?? DEFAULT_AUTH_LIMITS.signInPerIp,
+      }),
+    ),
+  );
 
   const animals = createAnimalsService(database.db, now);
   const rounds = createRoundsService(database.db, now);
@@ -117,22 +163,44 @@ export function createApp(options: AppOptions) {
     feedHolds: rounds.feedHolds,
     // Facts that start or lift a hold, or leave prey with a molting animal, change today's
     // round at once (R18): the events feature knows nothing of rounds.
-    onRecorded: [(c, recorded) => rounds.reconcileToday(c.collectionId, animalsToReconcile(recorded))],
+    onRecorded: [
+      (c, recorded) => rounds.reconcileToday(c.collectionId, animalsToReconcile(recorded)),
+    ],
   });
   const photos = createPhotosService(database.db, path.resolve(env.STORAGE_DIR), now);
-  const coverReports = createCoverReportsService(database.db, { mailer: options.mailer, now, rounds, publicUrl, logger });
+  const coverReports = createCoverReportsService(database.db, {
+    mailer: options.mailer,
+    now,
+    rounds,
+    publicUrl,
+    logger,
+  });
   // A breeding record's facts may start or end a hold today (R18).
-  const breeding = createBreedingService(database.db, now, (id, animalIds) => rounds.reconcileToday(id, animalIds));
-  const collections = createCollectionsService(database.db, { mailer: options.mailer, now, publicUrl, background, removeFiles: photos.removeCollection });
+  const breeding = createBreedingService(database.db, now, (id, animalIds) =>
+    rounds.reconcileToday(id, animalIds),
+  );
+  const collections = createCollectionsService(database.db, {
+    mailer: options.mailer,
+    now,
+    publicUrl,
+    background,
+    removeFiles: photos.removeCollection,
+  });
 
   // Everything under a collection: signed in first, then each route's own membership check.
   const collection = (p = '') => `/collections/:collectionId${p}`;
   api.use(collection(), requireUser);
   // Routers that serve several paths of their own under the collection:
   //   data: /export/animals.csv, /export/events.csv, /animals/import, /backup, /restore
-  api.use(collection(), dataRoutes(createDataService(database.db, { animals, photos, now }), member));
+  api.use(
+    collection(),
+    dataRoutes(createDataService(database.db, { animals, photos, now }), member),
+  );
   api.use(collection('/animals'), animalsRoutes(animals, member));
-  api.use(collection('/animals/:animalId'), animalScheduleRoutes(rounds, animals.updateCare, member));
+  api.use(
+    collection('/animals/:animalId'),
+    animalScheduleRoutes(rounds, animals.updateCare, member),
+  );
   api.use(collection('/locations'), locationsRoutes(createLocationsService(database.db), member));
   api.use(collection('/rounds'), roundsRoutes(rounds, member));
   api.use(collection('/prep-list'), prepListRoutes(rounds, member));
@@ -161,7 +229,7 @@ export function createApp(options: AppOptions) {
     async shutdown() {
       // Mail a request started goes out before the database and the mailer close.
       await background.drain();
-      await new Promise<void>((resolve) => store.close ? (store.close(), resolve()) : resolve());
+      await new Promise<void>((resolve) => (store.close ? (store.close(), resolve()) : resolve()));
     },
   };
 }

@@ -25,7 +25,16 @@ export function createBackground(logger: Logger): Background {
           // Name and code only: a database error's message carries the query's parameters
           // (e-mail addresses, token hashes).
           const e = err as { name?: unknown; code?: unknown } | null;
-          logger.error({ task, err: { name: String(e?.name ?? 'Error'), code: e?.code === undefined ? undefined : String(e.code) } }, `background task failed: ${task}`);
+          logger.error(
+            {
+              task,
+              err: {
+                name: String(e?.name ?? 'Error'),
+                code: e?.code === undefined ? undefined : String(e.code),
+              },
+            },
+            `background task failed: ${task}`,
+          );
         })
         .finally(() => running.delete(done));
       running.add(done);

@@ -27,8 +27,19 @@ if (!smtpUrl) {
   smtpUrl = devSmtp.url;
 }
 const mailer = createSmtpMailer(smtpUrl, env.MAIL_FROM);
-const { app, services, shutdown } = createApp({ env, database, mailer, devMailbox: devSmtp?.mailbox, logger });
-const jobs = await startJobs({ databaseUrl: env.DATABASE_URL, rounds: services.rounds, coverReports: services.coverReports, logger });
+const { app, services, shutdown } = createApp({
+  env,
+  database,
+  mailer,
+  devMailbox: devSmtp?.mailbox,
+  logger,
+});
+const jobs = await startJobs({
+  databaseUrl: env.DATABASE_URL,
+  rounds: services.rounds,
+  coverReports: services.coverReports,
+  logger,
+});
 
 const server = app.listen(env.PORT, env.HOST, () => {
   const shown = env.HOST === '0.0.0.0' ? 'localhost' : env.HOST;
@@ -36,7 +47,11 @@ const server = app.listen(env.PORT, env.HOST, () => {
   const lines = [``, `  Rackside is running at ${url}`];
   if (env.DEMO_MODE) {
     lines.push(`  Demo sign-in: ${DEMO_ACCOUNTS[0]!.email} / ${DEMO_PASSWORD}`);
-    lines.push(`  (also ${DEMO_ACCOUNTS.slice(1).map((a) => a.email).join(', ')})`);
+    lines.push(
+      `  (also ${DEMO_ACCOUNTS.slice(1)
+        .map((a) => a.email)
+        .join(', ')})`,
+    );
   }
   if (devSmtp) lines.push(`  E-mail goes to a local mailbox: ${url}/dev/mailbox`);
   lines.push(`  Press Ctrl-C to stop.`, ``);

@@ -15,7 +15,8 @@ export function redactHeaders(headers: unknown): unknown {
   for (const [name, value] of Object.entries(headers)) {
     const key = name.toLowerCase();
     if (SECRET_HEADERS.has(key)) out[name] = REDACTED;
-    else if ((key === 'referer' || key === 'location') && typeof value === 'string') out[name] = redactUrl(value);
+    else if ((key === 'referer' || key === 'location') && typeof value === 'string')
+      out[name] = redactUrl(value);
     else out[name] = value;
   }
   return out;
@@ -23,7 +24,9 @@ export function redactHeaders(headers: unknown): unknown {
 
 function redactQuery(query: unknown): unknown {
   if (!query || typeof query !== 'object') return query;
-  return Object.fromEntries(Object.entries(query).map(([k, v]) => [k, SECRET_QUERY.test(k) ? REDACTED : v]));
+  return Object.fromEntries(
+    Object.entries(query).map(([k, v]) => [k, SECRET_QUERY.test(k) ? REDACTED : v]),
+  );
 }
 
 interface SerializedReq {
@@ -35,7 +38,12 @@ interface SerializedReq {
 
 /** pino-http's request record (already reduced by its standard serializer) without secrets. */
 export function redactRequest(req: SerializedReq): SerializedReq {
-  return { ...req, url: typeof req.url === 'string' ? redactUrl(req.url) : req.url, query: redactQuery(req.query), headers: redactHeaders(req.headers) };
+  return {
+    ...req,
+    url: typeof req.url === 'string' ? redactUrl(req.url) : req.url,
+    query: redactQuery(req.query),
+    headers: redactHeaders(req.headers),
+  };
 }
 
 /** pino-http's response record without Set-Cookie. */
@@ -45,25 +53,47 @@ export function redactResponse(res: { headers?: unknown; [key: string]: unknown 
 
 type ErrorLike = Error & Record<string, unknown>;
 
-const isError = (e: unknown): e is ErrorLike => e instanceof Error || (!!e && typeof e === 'object' && typeof (e as Error).message === 'string' && typeof (e as Error).stack === 'string');
+const isError = (e: unknown): e is ErrorLike =>
+  e instanceof Error ||
+  (!!e &&
+    typeof e === 'object' &&
+    typeof (e as Error).message === 'string' &&
+    typeof (e as Error).stack === 'string');
 
 /** Drizzle's wrapper: its message and `params` hold every parameter value of the query. */
 const isDrizzleQueryError = (e: ErrorLike) => typeof e.query === 'string' && 'params' in e;
 /** node-postgres's DatabaseError: a SQLSTATE, and values in its message, detail and context. */
-const isPgError = (e: ErrorLike) => typeof e.severity === 'string' && typeof e.code === 'string' && /^[0-9A-Z]{5}$/.test(e.code);
+const isPgError = (e: ErrorLike) =>
+  typeof e.severity === 'string' && typeof e.code === 'string' && /^[0-9A-Z]{5}$/.test(e.code);
 
 /**
  * PostgreSQL quotes both names and values in its messages (`relation "events"`, but `for type
  * uuid: "the value"`); a quoted word after one of these nouns is a name and stays.
  */
-const NAME_BEFORE_QUOTE = /(?:relation|constraint|column|table|index|schema|type|function|sequence|database|role|encoding|operator|trigger|view|extension)\s$/i;
+const NAME_BEFORE_QUOTE =
+  /(?:relation|constraint|column|table|index|schema|type|function|sequence|database|role|encoding|operator|trigger|view|extension)\s$/i;
 
 function redactQuotedValues(message: string): string {
-  return message.replace(/"(?:[^"]|"")*"/g, (quoted, offset: number) => (NAME_BEFORE_QUOTE.test(message.slice(Math.max(0, offset - 20), offset)) ? quoted : `"${REDACTED}"`));
+  return message.replace(/"(?:[^"]|"")*"/g, (quoted, offset: number) =>
+    NAME_BEFORE_QUOTE.test(message.slice(Math.max(0, offset - 20), offset))
+      ? quoted
+      : `"${REDACTED}"`,
+  );
 }
 
 /** Fields of a PostgreSQL error that name things and never hold a row's values. */
-const PG_NAME_FIELDS = ['code', 'severity', 'constraint', 'table', 'column', 'schema', 'dataType', 'routine', 'hint', 'position'] as const;
+const PG_NAME_FIELDS = [
+  'code',
+  'severity',
+  'constraint',
+  'table',
+  'column',
+  'schema',
+  'dataType',
+  'routine',
+  'hint',
+  'position',
+] as const;
 
 /** The stack's frames, without its first line(s): those repeat the message. */
 function frames(err: ErrorLike): string | undefined {
@@ -89,7 +119,11 @@ function describe(err: ErrorLike, depth: number): Record<string, unknown> {
     out = { type, message: err.message, stack: err.stack };
     // Our own errors' status and code; objects are left out, they may hold a request's data.
     for (const [key, value] of Object.entries(err)) {
-      if (key !== 'cause' && (value === null || ['string', 'number', 'boolean'].includes(typeof value))) out[key] = value;
+      if (
+        key !== 'cause' &&
+        (value === null || ['string', 'number', 'boolean'].includes(typeof value))
+      )
+        out[key] = value;
     }
   }
   if (depth < 5 && isError(err.cause)) out.cause = describe(err.cause, depth + 1);

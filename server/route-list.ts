@@ -18,7 +18,8 @@ function walk(stack: Layer[], prefix: string, out: RouteEntry[]) {
   for (const layer of stack) {
     if (layer.route) {
       for (const [method, on] of Object.entries(layer.route.methods)) {
-        if (on && method !== '_all') out.push({ method: method.toUpperCase(), path: join(prefix, layer.route.path) });
+        if (on && method !== '_all')
+          out.push({ method: method.toUpperCase(), path: join(prefix, layer.route.path) });
       }
     } else if (layer.handle.stack) {
       const mount = typeof layer.rawPath === 'string' ? layer.rawPath : '';
@@ -27,7 +28,7 @@ function walk(stack: Layer[], prefix: string, out: RouteEntry[]) {
   }
 }
 
-const join = (a: string, b: string) => (`${a}/${b}`.replace(/\/+/g, '/').replace(/(.)\/$/, '$1'));
+const join = (a: string, b: string) => `${a}/${b}`.replace(/\/+/g, '/').replace(/(.)\/$/, '$1');
 
 export function listRoutes(app: Express): RouteEntry[] {
   const out: RouteEntry[] = [];

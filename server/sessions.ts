@@ -56,7 +56,11 @@ export function sessions(env: Env, store: SessionStore): RequestHandler[] {
   const absoluteTimeout: RequestHandler = (req, _res, next) => {
     const began = req.session.signedInAt;
     if (req.session.userId && (!began || Date.now() - began > SESSION_ABSOLUTE_MS)) {
-      return req.session.destroy(() => next(new HttpError(401, 'session_expired', 'Your sign-in has expired. Please sign in again.')));
+      return req.session.destroy(() =>
+        next(
+          new HttpError(401, 'session_expired', 'Your sign-in has expired. Please sign in again.'),
+        ),
+      );
     }
     next();
   };

@@ -14,7 +14,8 @@ export function serveClient(app: Express, distDir: string) {
       index: false,
       setHeaders(res, file) {
         const rel = path.relative(distDir, file);
-        if (rel.startsWith('assets' + path.sep)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+        if (rel.startsWith('assets' + path.sep))
+          res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
         else res.setHeader('Cache-Control', 'no-cache');
         if (rel.endsWith('.webmanifest')) res.type('application/manifest+json');
       },

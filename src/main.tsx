@@ -14,7 +14,11 @@ applyTheme(storedTheme());
 void withDb(async () => undefined).catch(() => undefined);
 
 // The service worker's helper is not needed to draw the first screen.
-const UpdateBanner = lazy(() => import('./features/app-update/components/update-banner').then((m) => ({ default: m.UpdateBanner })));
+const UpdateBanner = lazy(() =>
+  import('./features/app-update/components/update-banner').then((m) => ({
+    default: m.UpdateBanner,
+  })),
+);
 
 createRoot(document.getElementById('root')!).render(
   <StrictMode>

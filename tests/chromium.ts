@@ -18,7 +18,11 @@ export const CHROMIUM_ARGS = [
 
 export async function launchBrowser(): Promise<{ browser: Browser; userDataDir: string }> {
   const userDataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-chromium-'));
-  const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS });
+  const browser = await chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    args: CHROMIUM_ARGS,
+  });
   return { browser, userDataDir };
 }
 
@@ -26,7 +30,9 @@ export async function launchBrowser(): Promise<{ browser: Browser; userDataDir: 
 export async function underServiceWorker(page: Page) {
   await page.evaluate(() => navigator.serviceWorker.ready);
   await page.reload();
-  await page.waitForFunction(() => !!navigator.serviceWorker.controller, undefined, { timeout: 15_000 });
+  await page.waitForFunction(() => !!navigator.serviceWorker.controller, undefined, {
+    timeout: 15_000,
+  });
 }
 
 /**

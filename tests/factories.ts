@@ -22,7 +22,10 @@ export interface SignedUp {
  * Signs a new person up through the API as a phone would — the e-mail, then the link it
  * receives — so they own a fresh collection, and keeps them signed in.
  */
-export async function signUp(ctx: TestContext, overrides: Partial<{ email: string; password: string; timeZone: string }> = {}): Promise<SignedUp> {
+export async function signUp(
+  ctx: TestContext,
+  overrides: Partial<{ email: string; password: string; timeZone: string }> = {},
+): Promise<SignedUp> {
   const agent = ctx.agent();
   const email = overrides.email ?? `keeper-${randomUUID().slice(0, 8)}@example.test`;
   const token = await signUpLink(ctx, email);
@@ -33,16 +36,28 @@ export async function signUp(ctx: TestContext, overrides: Partial<{ email: strin
     collectionName: 'Test Collection',
     timeZone: overrides.timeZone ?? 'America/Toronto',
   });
-  if (res.status !== 201) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
-  return { agent, userId: res.body.user.id, email, collectionId: res.body.memberships[0].collectionId };
+  if (res.status !== 201)
+    throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return {
+    agent,
+    userId: res.body.user.id,
+    email,
+    collectionId: res.body.memberships[0].collectionId,
+  };
 }
 
 /** Starts a sign-up for an address without an account and returns the token its e-mail carries. */
 export async function signUpLink(ctx: TestContext, email: string): Promise<string> {
   const earlier = new Set(ctx.mailbox.messages);
   const res = await ctx.agent().post('/api/auth/sign-up').send({ email });
-  if (res.status !== 202) throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
-  const mail = await ctx.mailbox.waitFor((m) => !earlier.has(m) && m.to.includes(email.toLowerCase()) && m.subject.startsWith('Finish making'));
+  if (res.status !== 202)
+    throw new Error(`sign-up failed: ${res.status} ${JSON.stringify(res.body)}`);
+  const mail = await ctx.mailbox.waitFor(
+    (m) =>
+      !earlier.has(m) &&
+      m.to.includes(email.toLowerCase()) &&
+      m.subject.startsWith('Finish making'),
+  );
   return /sign-up\/finish\?token=([\w-]+)/.exec(mail.text)![1]!;
 }
 
@@ -50,26 +65,48 @@ export async function signUpLink(ctx: TestContext, email: string): Promise<strin
  * An owner with a collection written straight to the database, for tests that drive a server
  * in its own process (no test mailbox there): sign in with PASSWORD to get a session.
  */
-export async function insertOwner(db: NodePgDatabase, overrides: Partial<{ email: string; timeZone: string }> = {}) {
+export async function insertOwner(
+  db: NodePgDatabase,
+  overrides: Partial<{ email: string; timeZone: string }> = {},
+) {
   const email = overrides.email ?? `owner-${randomUUID().slice(0, 8)}@example.test`;
-  const [user] = await db.insert(users).values({ email, displayName: 'Test Keeper', passwordHash: await bcrypt.hash(PASSWORD, 10) }).returning();
+  const [user] = await db
+    .insert(users)
+    .values({ email, displayName: 'Test Keeper', passwordHash: await bcrypt.hash(PASSWORD, 10) })
+    .returning();
   const [collection] = await db
     .insert(collections)
-    .values({ name: 'Test Collection', timeZone: overrides.timeZone ?? 'America/Toronto', labelTag: generateLabelTag(Math.random) })
+    .values({
+      name: 'Test Collection',
+      timeZone: overrides.timeZone ?? 'America/Toronto',
+      labelTag: generateLabelTag(Math.random),
+    })
     .returning();
-  await db.insert(memberships).values({ collectionId: collection!.id, userId: user!.id, role: 'owner' });
+  await db
+    .insert(memberships)
+    .values({ collectionId: collection!.id, userId: user!.id, role: 'owner' });
   return { email, userId: user!.id, collectionId: collection!.id };
 }
 
 export async function addMember(
   db: NodePgDatabase,
-  values: { collectionId: string; userId: string; role: 'keeper' | 'helper'; startsAt?: Date; endsAt?: Date },
+  values: {
+    collectionId: string;
+    userId: string;
+    role: 'keeper' | 'helper';
+    startsAt?: Date;
+    endsAt?: Date;
+  },
 ) {
   await db.insert(memberships).values(values);
 }
 
 /** An animal in the collection for a month (past its settling period, R16), unless `createdAt` says otherwise. */
-export async function createAnimal(db: NodePgDatabase, collectionId: string, overrides: Partial<typeof animals.$inferInsert> = {}) {
+export async function createAnimal(
+  db: NodePgDatabase,
+  collectionId: string,
+  overrides: Partial<typeof animals.$inferInsert> = {},
+) {
   const [row] = await db
     .insert(animals)
     .values({
@@ -109,6 +146,13 @@ export const animalBody = (overrides: Partial<AnimalInput> = {}): AnimalInput =>
   cautionNote: 'Flicks hairs when the lid opens',
   notes: null,
   clutch: null,
-  care: { intervalDays: 12, preyType: 'cricket', preySize: 'large', preyCount: 2, hasWaterDish: true, doNotFeedUntil: null },
+  care: {
+    intervalDays: 12,
+    preyType: 'cricket',
+    preySize: 'large',
+    preyCount: 2,
+    hasWaterDish: true,
+    doNotFeedUntil: null,
+  },
   ...overrides,
 });

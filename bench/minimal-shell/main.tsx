@@ -7,7 +7,11 @@ import { createBrowserRouter, RouterProvider } from 'react-router-dom';
 import { registerSW } from 'virtual:pwa-register';
 
 function Today() {
-  const data = useQuery({ queryKey: ['text'], queryFn: async () => 'Twenty-two animals on the round today.', networkMode: 'always' });
+  const data = useQuery({
+    queryKey: ['text'],
+    queryFn: async () => 'Twenty-two animals on the round today.',
+    networkMode: 'always',
+  });
   return (
     <main style={{ fontFamily: 'sans-serif', padding: 16 }}>
       <h1 style={{ fontSize: 30 }}>Today</h1>

@@ -47,7 +47,9 @@ export function ensureNodeModules() {
 
 function aptInstall(packages, why) {
   if (!isRoot) {
-    fail(`${why} is missing. Install it with:\n  sudo apt-get update && sudo apt-get install -y ${packages.join(' ')}`);
+    fail(
+      `${why} is missing. Install it with:\n  sudo apt-get update && sudo apt-get install -y ${packages.join(' ')}`,
+    );
   }
   say(`Installing ${packages.join(', ')} from Debian's packages (${why})…`);
   run('apt-get', ['update', '-qq']);
@@ -98,7 +100,10 @@ const clusterUser = 'rackside';
 /** As root the server runs as `postgres`, which must be able to reach the data folder. */
 function postgresCanReach(dir) {
   if (!isRoot) return true;
-  return spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-x', dir], { stdio: 'ignore' }).status === 0;
+  return (
+    spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-x', dir], { stdio: 'ignore' })
+      .status === 0
+  );
 }
 
 function clusterRoot() {
@@ -160,21 +165,42 @@ export function startCluster() {
     fs.writeFileSync(pwFile, password, { mode: 0o600 });
     if (isRoot) execFileSync('chown', ['-R', 'postgres:postgres', root]);
     const init = asPostgres(path.join(bin, 'initdb'), [
-      '-D', dataDir, '-U', clusterUser, '--pwfile', pwFile, '--auth=scram-sha-256',
-      '--encoding=UTF8', '--locale=C.UTF-8',
+      '-D',
+      dataDir,
+      '-U',
+      clusterUser,
+      '--pwfile',
+      pwFile,
+      '--auth=scram-sha-256',
+      '--encoding=UTF8',
+      '--locale=C.UTF-8',
     ]);
     fs.rmSync(pwFile, { force: true });
     if (!init.ok) fail(`initdb failed:\n${init.out}`);
-    fs.appendFileSync(path.join(dataDir, 'postgresql.conf'), "\ninclude_if_exists = 'rackside.conf'\n");
+    fs.appendFileSync(
+      path.join(dataDir, 'postgresql.conf'),
+      "\ninclude_if_exists = 'rackside.conf'\n",
+    );
   }
   fs.writeFileSync(path.join(dataDir, 'rackside.conf'), tuningConf(clusterPort));
   if (isRoot) execFileSync('chown', ['postgres:postgres', path.join(dataDir, 'rackside.conf')]);
 
   if (asPostgres(path.join(bin, 'pg_ctl'), ['status', '-D', dataDir]).ok) return false;
   say(`Starting PostgreSQL on 127.0.0.1:${clusterPort}…`);
-  const started = asPostgres(path.join(bin, 'pg_ctl'), ['start', '-w', '-t', '60', '-D', dataDir, '-l', logFile]);
+  const started = asPostgres(path.join(bin, 'pg_ctl'), [
+    'start',
+    '-w',
+    '-t',
+    '60',
+    '-D',
+    dataDir,
+    '-l',
+    logFile,
+  ]);
   if (!started.ok) {
-    const log = fs.existsSync(logFile) ? fs.readFileSync(logFile, 'utf8').split('\n').slice(-15).join('\n') : '';
+    const log = fs.existsSync(logFile)
+      ? fs.readFileSync(logFile, 'utf8').split('\n').slice(-15).join('\n')
+      : '';
     fail(`PostgreSQL did not start:\n${started.out}\n${log}`);
   }
   return true;

@@ -77,7 +77,13 @@ export async function roleOfUser(db: Db, collectionId: string, userId: string) {
 
 export async function insertMembership(
   db: Db,
-  values: { collectionId: string; userId: string; role: 'owner' | 'keeper' | 'helper'; startsAt?: Date | null; endsAt?: Date | null },
+  values: {
+    collectionId: string;
+    userId: string;
+    role: 'owner' | 'keeper' | 'helper';
+    startsAt?: Date | null;
+    endsAt?: Date | null;
+  },
 ) {
   await db.insert(memberships).values(values);
 }

@@ -18,7 +18,10 @@ export async function displayNameOf(db: Db, id: string) {
   return row?.name ?? null;
 }
 
-export async function insertUser(db: Db, values: { email: string; displayName: string; passwordHash: string }) {
+export async function insertUser(
+  db: Db,
+  values: { email: string; displayName: string; passwordHash: string },
+) {
   const [row] = await db.insert(users).values(values).returning();
   return row!;
 }

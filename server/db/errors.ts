@@ -13,10 +13,24 @@ export function isUniqueViolation(err: unknown): boolean {
  * plus the socket errors and messages node-postgres raises when the server is gone.
  */
 export function isDatabaseUnavailable(err: unknown): boolean {
-  for (let e = err as { code?: string; message?: string; cause?: unknown } | null | undefined, depth = 0; e && depth < 4; e = e.cause as typeof e, depth++) {
+  for (
+    let e = err as { code?: string; message?: string; cause?: unknown } | null | undefined,
+      depth = 0;
+    e && depth < 4;
+    e = e.cause as typeof e, depth++
+  ) {
     const code = e.code ?? '';
-    if (code.startsWith('08') || ['57P01', '57P02', '57P03', 'ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE'].includes(code)) return true;
-    if (/Connection terminated|timeout exceeded when trying to connect|Client has encountered a connection error/.test(e.message ?? '')) return true;
+    if (
+      code.startsWith('08') ||
+      ['57P01', '57P02', '57P03', 'ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE'].includes(code)
+    )
+      return true;
+    if (
+      /Connection terminated|timeout exceeded when trying to connect|Client has encountered a connection error/.test(
+        e.message ?? '',
+      )
+    )
+      return true;
   }
   return false;
 }

@@ -12,7 +12,13 @@ export const SEND_COVER_REPORTS = 'send-cover-reports';
  * only, and a job is fetched by one worker only, so several server processes never run
  * the same job twice. The round builder is also idempotent per (collection, date).
  */
-export async function startJobs(options: { databaseUrl: string; rounds: RoundsService; coverReports: CoverReportsService; logger: Logger; cron?: string }) {
+export async function startJobs(options: {
+  databaseUrl: string;
+  rounds: RoundsService;
+  coverReports: CoverReportsService;
+  logger: Logger;
+  cron?: string;
+}) {
   const boss = new PgBoss({ connectionString: options.databaseUrl, schema: 'pgboss', max: 4 });
   boss.on('error', (err) => options.logger.error({ err }, 'job queue error'));
   // Processes starting together would deadlock creating the same queues (seen in
@@ -41,11 +47,18 @@ export async function startJobs(options: { databaseUrl: string; rounds: RoundsSe
 }
 
 /** The round job's work: a collection whose round cannot be built is logged with its id, and the rest are built. */
-export async function buildDueRoundsJob(rounds: Pick<RoundsService, 'buildDueRounds'>, logger: Logger, jobId?: string) {
+export async function buildDueRoundsJob(
+  rounds: Pick<RoundsService, 'buildDueRounds'>,
+  logger: Logger,
+  jobId?: string,
+) {
   let failed = 0;
   const built = await rounds.buildDueRounds((collectionId, err) => {
     failed++;
-    logger.error({ err, queue: BUILD_DUE_ROUNDS, jobId, collectionId }, 'round build failed for one collection');
+    logger.error(
+      { err, queue: BUILD_DUE_ROUNDS, jobId, collectionId },
+      'round build failed for one collection',
+    );
   });
   logger.info({ queue: BUILD_DUE_ROUNDS, jobId, collections: built.length, failed }, 'job done');
   return { built, failed };

@@ -49,7 +49,10 @@ export interface DevSmtp {
  * packages are imported here, not at the top, so a server given SMTP_URL never loads them.
  */
 export async function startDevSmtp(): Promise<DevSmtp> {
-  const [{ simpleParser }, { SMTPServer }] = await Promise.all([import('mailparser'), import('smtp-server')]);
+  const [{ simpleParser }, { SMTPServer }] = await Promise.all([
+    import('mailparser'),
+    import('smtp-server'),
+  ]);
   const mailbox = new DevMailbox();
   const server = new SMTPServer({
     authOptional: true,

@@ -22,14 +22,19 @@ export function createSmtpMailer(smtpUrl: string, from: string): Mailer {
     port: Number(url.port || (url.protocol === 'smtps:' ? 465 : 587)),
     secure: url.protocol === 'smtps:',
     ignoreTLS: local,
-    auth: url.username ? { user: decodeURIComponent(url.username), pass: decodeURIComponent(url.password) } : undefined,
+    auth: url.username
+      ? { user: decodeURIComponent(url.username), pass: decodeURIComponent(url.password) }
+      : undefined,
   });
   return {
     /** Resolves once the SMTP server has accepted the message for every recipient. */
     async send(mail) {
       const info = await transport.sendMail({ from, ...mail });
       // nodemailer resolves when at least one recipient was accepted (RFC 5321, 3.3).
-      if (info.rejected.length) throw new Error(`The mail server refused ${info.rejected.length} recipient(s): ${info.response}`);
+      if (info.rejected.length)
+        throw new Error(
+          `The mail server refused ${info.rejected.length} recipient(s): ${info.response}`,
+        );
     },
     close: () => transport.close(),
   };

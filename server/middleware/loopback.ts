@@ -18,7 +18,8 @@ function forwardedFor(req: IncomingMessage): string[] | null {
   const h = req.headers;
   if (!h['x-forwarded-for'] && !h.forwarded && !h['x-real-ip']) return null;
   const list: string[] = [];
-  for (const value of [h['x-forwarded-for'], h['x-real-ip']].flat()) if (value) list.push(...value.split(',').map((s) => s.trim()));
+  for (const value of [h['x-forwarded-for'], h['x-real-ip']].flat())
+    if (value) list.push(...value.split(',').map((s) => s.trim()));
   // RFC 7239, 4 and 6: for="[2001:db8::1]:47011" or for=192.0.2.60:8080; obfuscated names are not loopback.
   for (const m of (h.forwarded ?? '').matchAll(/for=("?)([^;,"]*)\1/gi)) {
     const raw = m[2]!.trim();

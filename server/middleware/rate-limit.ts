@@ -21,7 +21,10 @@ export class PgRateLimitStore implements Store {
   }
 
   async get(key: string): Promise<ClientRateLimitInfo | undefined> {
-    const { rows } = await this.pool.query<{ hits: number; reset_at: Date }>('select hits, reset_at from rate_limits where key = $1 and reset_at > now()', [this.prefix + key]);
+    const { rows } = await this.pool.query<{ hits: number; reset_at: Date }>(
+      'select hits, reset_at from rate_limits where key = $1 and reset_at > now()',
+      [this.prefix + key],
+    );
     return rows[0] ? { totalHits: rows[0].hits, resetTime: rows[0].reset_at } : undefined;
   }
 
@@ -35,12 +38,18 @@ export class PgRateLimitStore implements Store {
       [this.prefix + key, this.windowMs],
     );
     // Now and then, sweep windows that ended long ago so the table stays small.
-    if (Math.random() < 0.01) void this.pool.query("delete from rate_limits where reset_at < now() - interval '1 day'").catch(() => undefined);
+    if (Math.random() < 0.01)
+      void this.pool
+        .query("delete from rate_limits where reset_at < now() - interval '1 day'")
+        .catch(() => undefined);
     return { totalHits: rows[0]!.hits, resetTime: rows[0]!.reset_at };
   }
 
   async decrement(key: string): Promise<void> {
-    await this.pool.query('update rate_limits set hits = greatest(hits - 1, 0) where key = $1 and reset_at > now()', [this.prefix + key]);
+    await this.pool.query(
+      'update rate_limits set hits = greatest(hits - 1, 0) where key = $1 and reset_at > now()',
+      [this.prefix + key],
+    );
   }
 
   async resetKey(key: string): Promise<void> {
@@ -59,7 +68,13 @@ export function createLimiter(pool: pg.Pool): Limiter {
       store: new PgRateLimitStore(pool, `${name}:`),
       handler: (_req, _res, next, opts) => {
         const minutes = Math.ceil(opts.windowMs / 60_000);
-        next(new HttpError(429, 'rate_limited', `Too many attempts. Wait up to ${minutes} minutes and try again.`));
+        next(
+          new HttpError(
+            429,
+            'rate_limited',
+            `Too many attempts. Wait up to ${minutes} minutes and try again.`,
+          ),
+        );
       },
       ...options,
     });

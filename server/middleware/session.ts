@@ -1,7 +1,9 @@
 import type { Request } from 'express';
 
 function regenerate(req: Request) {
-  return new Promise<void>((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
+  return new Promise<void>((resolve, reject) =>
+    req.session.regenerate((err) => (err ? reject(err) : resolve())),
+  );
 }
 
 /** A fresh session id at every sign-in (OWASP ASVS 4.0.3 3.2.1): no session fixation. */

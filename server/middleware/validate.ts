@@ -22,12 +22,21 @@ export function validate(shapes: Shapes): RequestHandler {
       if (!schema) continue;
       const result = schema.safeParse(req[part] ?? {});
       if (result.success) parsed[part] = result.data;
-      else issues.push(...zodIssues(result.error).map((i) => ({ ...i, path: i.path ? `${part}.${i.path}` : part })));
+      else
+        issues.push(
+          ...zodIssues(result.error).map((i) => ({
+            ...i,
+            path: i.path ? `${part}.${i.path}` : part,
+          })),
+        );
     }
     if (issues.length) {
       const first = issues[0]!;
       // "This is required." alone does not say what is; the one-line message names the field.
-      const lead = isGenericMessage(first.message) && first.path ? `${fieldLabel(first.path)}: ${first.message}` : first.message;
+      const lead =
+        isGenericMessage(first.message) && first.path
+          ? `${fieldLabel(first.path)}: ${first.message}`
+          : first.message;
       const message = issues.length === 1 ? lead : `${lead} (and ${issues.length - 1} more)`;
       return next(new HttpError(422, 'invalid', message, issues));
     }
@@ -37,6 +46,9 @@ export function validate(shapes: Shapes): RequestHandler {
 }
 
 /** The validated input stored by `validate`. */
-export function input<T>(res: { locals: Record<string, unknown> }, part: 'body' | 'params' | 'query'): T {
+export function input<T>(
+  res: { locals: Record<string, unknown> },
+  part: 'body' | 'params' | 'query',
+): T {
   return (res.locals.input as Record<string, unknown>)[part] as T;
 }

@@ -46,42 +46,275 @@ interface DemoAnimal {
   /** Slings from one egg sac share a clutch name. */
   clutch?: string;
   /** What happened recently, driving today's round (see the scenario's "states"). */
-  story?: 'two_refusals' | 'premolt' | 'molted_5_days' | 'sac_3_weeks' | 'paired_10_days' | 'prey_left_yesterday' | 'missed' | 'guarding_sac' | 'brood_on_back' | 'egg_case';
+  story?:
+    | 'two_refusals'
+    | 'premolt'
+    | 'molted_5_days'
+    | 'sac_3_weeks'
+    | 'paired_10_days'
+    | 'prey_left_yesterday'
+    | 'missed'
+    | 'guarding_sac'
+    | 'brood_on_back'
+    | 'egg_case';
 }
 
 /**
  * The demo's breeding records (sac, egg case, brood), as days before today. Their facts go on
  * each female's history from the record's own dates, as the breeding page writes them.
  */
-const BREEDING: Partial<Record<NonNullable<DemoAnimal['story']>, { kind: BreedingRecordKind; laid: number; pulled?: number; eggs?: number; young?: number; note: string }>> = {
-  sac_3_weeks: { kind: 'egg_sac', laid: -21, pulled: -20, eggs: 140, note: 'Pulled for incubation.' },
+const BREEDING: Partial<
+  Record<
+    NonNullable<DemoAnimal['story']>,
+    {
+      kind: BreedingRecordKind;
+      laid: number;
+      pulled?: number;
+      eggs?: number;
+      young?: number;
+      note: string;
+    }
+  >
+> = {
+  sac_3_weeks: {
+    kind: 'egg_sac',
+    laid: -21,
+    pulled: -20,
+    eggs: 140,
+    note: 'Pulled for incubation.',
+  },
   guarding_sac: { kind: 'egg_sac', laid: -4, note: 'Sac laid in the hide; she is guarding it.' },
-  brood_on_back: { kind: 'brood', laid: -5, young: 23, note: 'Scorplings white and riding on her back.' },
+  brood_on_back: {
+    kind: 'brood',
+    laid: -5,
+    young: 23,
+    note: 'Scorplings white and riding on her back.',
+  },
   egg_case: { kind: 'egg_case', laid: -10, note: 'Ootheca on the lid mesh.' },
 };
 
 const ADULTS: DemoAnimal[] = [
-  { name: 'Juniper', scientificName: 'Tliltocatl albopilosus', commonName: 'Curly hair tarantula', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 130, place: ['A', '1', '1'], cautions: ['urticating_hairs'], hasWaterDish: true, story: 'sac_3_weeks' },
-  { name: 'Pepper', scientificName: 'Grammostola pulchra', commonName: 'Brazilian black', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 150, place: ['A', '1', '2'], cautions: ['urticating_hairs'], hasWaterDish: true, story: 'guarding_sac' },
-  { name: 'Dusty', scientificName: 'Aphonopelma chalcodes', commonName: 'Desert blonde', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 125, place: ['A', '1', '3'], cautions: ['urticating_hairs'], hasWaterDish: true, story: 'missed' },
-  { name: 'Bramble', scientificName: 'Acanthoscurria geniculata', commonName: 'Whitebanded tarantula', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 170, place: ['A', '1', '4'], cautions: ['urticating_hairs', 'fast_defensive'], hasWaterDish: true, story: 'two_refusals' },
-  { name: 'Indigo', scientificName: 'Monocentropus balfouri', commonName: 'Socotra Island blue baboon', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 120, place: ['A', '2', '1'], cautions: ['potent_venom', 'fast_defensive'], hasWaterDish: true, story: 'paired_10_days' },
-  { name: 'Blue Jay', scientificName: 'Monocentropus balfouri', commonName: 'Socotra Island blue baboon', group: 'tarantula', lifeStage: 'adult', sex: 'mature_male', sizeMm: 110, place: ['A', '2', '2'], cautions: ['potent_venom', 'fast_defensive'], hasWaterDish: true },
-  { name: 'Ember', scientificName: 'Omothymus schioedtei', commonName: 'Malaysian earth tiger', group: 'tarantula', lifeStage: 'adult', sex: 'female', sizeMm: 180, place: ['A', '2', '3'], cautions: ['potent_venom', 'fast_defensive', 'escape_risk'], hasWaterDish: true, story: 'missed' },
-  { name: 'Rattler', scientificName: 'Scolopendra heros', commonName: 'Giant desert centipede', group: 'centipede', lifeStage: 'adult', sex: 'unknown', sizeMm: 160, place: ['A', '3', '1'], cautions: ['potent_venom', 'fast_defensive', 'escape_risk'], hasWaterDish: true },
-  { name: 'Pinch', scientificName: 'Heterometrus spinifer', commonName: 'Giant forest scorpion', group: 'scorpion', lifeStage: 'adult', sex: 'female', sizeMm: 110, place: ['A', '3', '2'], cautions: ['sting'], hasWaterDish: true, story: 'brood_on_back' },
-  { name: 'Mantra', scientificName: 'Hierodula membranacea', commonName: 'Giant Asian mantis', group: 'mantis', lifeStage: 'adult', sex: 'female', sizeMm: 90, place: ['A', '3', '3'], story: 'egg_case' },
+  {
+    name: 'Juniper',
+    scientificName: 'Tliltocatl albopilosus',
+    commonName: 'Curly hair tarantula',
+    group: 'tarantula',
+    lifeStage: 'adult',
+    sex: 'female',
+    sizeMm: 130,
+    place: ['A', '1', '1'],
+    cautions: ['urticating_hairs'],
+    hasWaterDish: true,
+    story: 'sac_3_weeks',
+  },
+  {
+    name: 'Pepper',
+    scientificName: 'Grammostola pulchra',
+    commonName: 'Brazilian black',
+    group: 'tarantula',
+    lifeStage: 'adult',
+    sex: 'female',
+    sizeMm: 150,
+    place: ['A', '1', '2'],
+    cautions: ['urticating_hairs'],
+    hasWaterDish: true,
+    story: 'guarding_sac',
+  },
+  {
+    name: 'Dusty',
+    scientificName: 'Aphonopelma chalcodes',
+    commonName: 'Desert blonde',
+    group: 'tarantula',
+    lifeStage: 'adult',
+    sex: 'female',
+    sizeMm: 125,
+    place: ['A', '1', '3'],
+    cautions: ['urticating_hairs'],
+    hasWaterDish: true,
+    story: 'missed',
+  },
+  {
+    name: 'Bramble',
+    scientificName: 'Acanthoscurria geniculata',
+    commonName: 'Whitebanded tarantula',
+    group: 'tarantula',
+    lifeStage: 'adult',
+    sex: 'female',
+    sizeMm: 170,
+    place: ['A', '1', '4'],
+    cautions: ['urticating_hairs', 'fast_defensive'],
+    hasWaterDish: true,
+    story: 'two_refusals',
+  },
+  {
+    name: 'Indigo',
+    scientificName: 'Monocentropus balfouri',
+    commonName: 'Socotra Island blue baboon',
+    group: 'tarantula',
+    lifeStage: 'adult',
+    sex: 'female',
+    sizeMm: 120,
+    place: ['A', '2', '1'],
+    cautions: ['potent_venom', 'fast_defensive'],
+    hasWaterDish: true,
+    story: 'paired_10_days',
+  },
+  {
+    name: 'Blue Jay',
+    scientificName: 'Monocentropus balfouri',
+    commonName: 'Socotra Island blue baboon',
+    group: 'tarantula',
+    lifeStage: 'adult',
+    sex: 'mature_male',
+    sizeMm: 110,
+    place: ['A', '2', '2'],
+    cautions: ['potent_venom', 'fast_defensive'],
+    hasWaterDish: true,
+  },
+  {
+    name: 'Ember',
+    scientificName: 'Omothymus schioedtei',
+    commonName: 'Malaysian earth tiger',
+    group: 'tarantula',
+    lifeStage: 'adult',
+    sex: 'female',
+    sizeMm: 180,
+    place: ['A', '2', '3'],
+    cautions: ['potent_venom', 'fast_defensive', 'escape_risk'],
+    hasWaterDish: true,
+    story: 'missed',
+  },
+  {
+    name: 'Rattler',
+    scientificName: 'Scolopendra heros',
+    commonName: 'Giant desert centipede',
+    group: 'centipede',
+    lifeStage: 'adult',
+    sex: 'unknown',
+    sizeMm: 160,
+    place: ['A', '3', '1'],
+    cautions: ['potent_venom', 'fast_defensive', 'escape_risk'],
+    hasWaterDish: true,
+  },
+  {
+    name: 'Pinch',
+    scientificName: 'Heterometrus spinifer',
+    commonName: 'Giant forest scorpion',
+    group: 'scorpion',
+    lifeStage: 'adult',
+    sex: 'female',
+    sizeMm: 110,
+    place: ['A', '3', '2'],
+    cautions: ['sting'],
+    hasWaterDish: true,
+    story: 'brood_on_back',
+  },
+  {
+    name: 'Mantra',
+    scientificName: 'Hierodula membranacea',
+    commonName: 'Giant Asian mantis',
+    group: 'mantis',
+    lifeStage: 'adult',
+    sex: 'female',
+    sizeMm: 90,
+    place: ['A', '3', '3'],
+    story: 'egg_case',
+  },
 ];
 
 const JUVENILES: DemoAnimal[] = [
-  { name: 'Verdi', scientificName: 'Caribena versicolor', commonName: 'Martinique pinktoe', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 75, place: ['B', '1', '1'], cautions: ['fast_defensive'], hasWaterDish: true, story: 'premolt' },
-  { name: 'Goliath Jr', scientificName: 'Theraphosa stirmi', commonName: 'Burgundy goliath birdeater', group: 'tarantula', lifeStage: 'subadult', sex: 'female', sizeMm: 140, place: ['B', '1', '2'], cautions: ['urticating_hairs'], hasWaterDish: true, story: 'molted_5_days' },
-  { name: 'Rusty', scientificName: 'Harpactira pulchripes', commonName: 'Golden blue-leg baboon', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 50, place: ['B', '1', '3'], cautions: ['potent_venom', 'fast_defensive'] },
-  { name: 'Tiger', scientificName: 'Davus pentaloris', commonName: 'Guatemalan tiger rump', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 40, place: ['B', '2', '1'], cautions: ['urticating_hairs', 'fast_defensive'], story: 'missed' },
-  { name: 'Ruby', scientificName: 'Tliltocatl vagans', commonName: 'Mexican red rump', group: 'tarantula', lifeStage: 'subadult', sex: 'female', sizeMm: 95, place: ['B', '2', '2'], cautions: ['urticating_hairs'], hasWaterDish: true },
-  { name: 'Stripes', scientificName: 'Nhandu chromatus', commonName: 'Brazilian red and white', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', sizeMm: 60, place: ['B', '2', '3'], cautions: ['urticating_hairs', 'fast_defensive'] },
-  { name: 'Pebble', scientificName: 'Cyriocosmus elegans', commonName: 'Trinidad dwarf tiger', group: 'tarantula', lifeStage: 'sling', sex: 'unknown', sizeMm: 12, place: ['B', '3', '4'] },
-  { name: 'Flicker', scientificName: 'Kochiana brunnipes', commonName: 'Brazilian dwarf beauty', group: 'tarantula', lifeStage: 'sling', sex: 'unknown', sizeMm: 15, place: ['B', '3', '5'] },
+  {
+    name: 'Verdi',
+    scientificName: 'Caribena versicolor',
+    commonName: 'Martinique pinktoe',
+    group: 'tarantula',
+    lifeStage: 'juvenile',
+    sex: 'unknown',
+    sizeMm: 75,
+    place: ['B', '1', '1'],
+    cautions: ['fast_defensive'],
+    hasWaterDish: true,
+    story: 'premolt',
+  },
+  {
+    name: 'Goliath Jr',
+    scientificName: 'Theraphosa stirmi',
+    commonName: 'Burgundy goliath birdeater',
+    group: 'tarantula',
+    lifeStage: 'subadult',
+    sex: 'female',
+    sizeMm: 140,
+    place: ['B', '1', '2'],
+    cautions: ['urticating_hairs'],
+    hasWaterDish: true,
+    story: 'molted_5_days',
+  },
+  {
+    name: 'Rusty',
+    scientificName: 'Harpactira pulchripes',
+    commonName: 'Golden blue-leg baboon',
+    group: 'tarantula',
+    lifeStage: 'juvenile',
+    sex: 'unknown',
+    sizeMm: 50,
+    place: ['B', '1', '3'],
+    cautions: ['potent_venom', 'fast_defensive'],
+  },
+  {
+    name: 'Tiger',
+    scientificName: 'Davus pentaloris',
+    commonName: 'Guatemalan tiger rump',
+    group: 'tarantula',
+    lifeStage: 'juvenile',
+    sex: 'unknown',
+    sizeMm: 40,
+    place: ['B', '2', '1'],
+    cautions: ['urticating_hairs', 'fast_defensive'],
+    story: 'missed',
+  },
+  {
+    name: 'Ruby',
+    scientificName: 'Tliltocatl vagans',
+    commonName: 'Mexican red rump',
+    group: 'tarantula',
+    lifeStage: 'subadult',
+    sex: 'female',
+    sizeMm: 95,
+    place: ['B', '2', '2'],
+    cautions: ['urticating_hairs'],
+    hasWaterDish: true,
+  },
+  {
+    name: 'Stripes',
+    scientificName: 'Nhandu chromatus',
+    commonName: 'Brazilian red and white',
+    group: 'tarantula',
+    lifeStage: 'juvenile',
+    sex: 'unknown',
+    sizeMm: 60,
+    place: ['B', '2', '3'],
+    cautions: ['urticating_hairs', 'fast_defensive'],
+  },
+  {
+    name: 'Pebble',
+    scientificName: 'Cyriocosmus elegans',
+    commonName: 'Trinidad dwarf tiger',
+    group: 'tarantula',
+    lifeStage: 'sling',
+    sex: 'unknown',
+    sizeMm: 12,
+    place: ['B', '3', '4'],
+  },
+  {
+    name: 'Flicker',
+    scientificName: 'Kochiana brunnipes',
+    commonName: 'Brazilian dwarf beauty',
+    group: 'tarantula',
+    lifeStage: 'sling',
+    sex: 'unknown',
+    sizeMm: 15,
+    place: ['B', '3', '5'],
+  },
 ];
 
 function clutch(): DemoAnimal[] {
@@ -122,7 +355,11 @@ interface SeedEvent {
 }
 
 /** The history of one animal over the last `days` days, ending yesterday or today. */
-export function historyFor(animal: DemoAnimal, today: LocalDate, random: () => number): SeedEvent[] {
+export function historyFor(
+  animal: DemoAnimal,
+  today: LocalDate,
+  random: () => number,
+): SeedEvent[] {
   const interval = feedingInterval(DEFAULT_RULES, { ...animal, intervalDays: null });
   const hold = postMoltHoldDays(DEFAULT_RULES, animal);
   const offer = OFFER[animal.lifeStage] ?? OFFER.adult!;
@@ -151,7 +388,8 @@ export function historyFor(animal: DemoAnimal, today: LocalDate, random: () => n
   const lastRoutine = animal.story === 'missed' ? -interval - 1 : stopAt - 1;
   // A molt somewhere in the middle of the history for growing animals, to fill the charts; no
   // meal is offered from a week before it (premolt) until its hold ends (R4, R5).
-  const grows = animal.lifeStage !== 'adult' && animal.story !== 'molted_5_days' && animal.story !== 'premolt';
+  const grows =
+    animal.lifeStage !== 'adult' && animal.story !== 'molted_5_days' && animal.story !== 'premolt';
   const moltAt = grows ? -35 - Math.floor(random() * 10) : null;
   while (offset <= lastRoutine && offset < 0) {
     if (moltAt !== null && offset > moltAt - 7 && offset < moltAt + hold) {
@@ -161,31 +399,66 @@ export function historyFor(animal: DemoAnimal, today: LocalDate, random: () => n
     // Never two refusals in a row here: that flags a possible premolt (R3), and no meal follows.
     const roll = random() < 0.08;
     const refused = roll && out.at(-1)?.kind !== 'refused';
-    out.push({ kind: refused ? 'refused' : 'ate', day: at(offset), minute: minute(), by: by(), payload: refused ? {} : { ...offer } });
+    out.push({
+      kind: refused ? 'refused' : 'ate',
+      day: at(offset),
+      minute: minute(),
+      by: by(),
+      payload: refused ? {} : { ...offer },
+    });
     offset += refused ? Math.max(2, Math.round(interval / 2)) : interval;
   }
   // Dishes topped up, dish-less slings' substrate moistened and the mantis misted (all recorded
   // as watering).
   if (animal.hasWaterDish || animal.lifeStage === 'sling' || animal.group === 'mantis') {
     // Animals whose story must show on today's round were last watered three days ago.
-    const last = animal.story === 'premolt' || animal.story === 'molted_5_days' ? -3 : -1 - Math.floor(random() * 3);
-    for (let d = last; d >= -60; d -= 3) out.push({ kind: 'watered', day: at(d), minute: minute(), by: by() });
+    const last =
+      animal.story === 'premolt' || animal.story === 'molted_5_days'
+        ? -3
+        : -1 - Math.floor(random() * 3);
+    for (let d = last; d >= -60; d -= 3)
+      out.push({ kind: 'watered', day: at(d), minute: minute(), by: by() });
   }
-  if (moltAt !== null) out.push({ kind: 'molted', day: at(moltAt), minute: minute(), by: by(), payload: { sizeMm: animal.sizeMm } });
+  if (moltAt !== null)
+    out.push({
+      kind: 'molted',
+      day: at(moltAt),
+      minute: minute(),
+      by: by(),
+      payload: { sizeMm: animal.sizeMm },
+    });
 
   switch (animal.story) {
     case 'two_refusals':
       out.push({ kind: 'ate', day: at(-26), minute: minute(), by: 'owner', payload: { ...offer } });
       out.push({ kind: 'refused', day: at(-14), minute: minute(), by: 'owner' });
-      out.push({ kind: 'refused', day: at(-7), minute: minute(), by: 'partner', payload: { note: 'Turned away from the tongs again.' } });
+      out.push({
+        kind: 'refused',
+        day: at(-7),
+        minute: minute(),
+        by: 'partner',
+        payload: { note: 'Turned away from the tongs again.' },
+      });
       break;
     case 'premolt':
       out.push({ kind: 'ate', day: at(-13), minute: minute(), by: 'owner', payload: { ...offer } });
-      out.push({ kind: 'premolt_seen', day: at(-2), minute: minute(), by: 'owner', payload: { note: 'Abdomen dark and shiny, molt mat started.' } });
+      out.push({
+        kind: 'premolt_seen',
+        day: at(-2),
+        minute: minute(),
+        by: 'owner',
+        payload: { note: 'Abdomen dark and shiny, molt mat started.' },
+      });
       break;
     case 'molted_5_days':
       out.push({ kind: 'ate', day: at(-16), minute: minute(), by: 'owner', payload: { ...offer } });
-      out.push({ kind: 'molted', day: at(-5), minute: 7 * 60 + 40, by: 'owner', payload: { sizeMm: animal.sizeMm, exuviaeKept: true } });
+      out.push({
+        kind: 'molted',
+        day: at(-5),
+        minute: 7 * 60 + 40,
+        by: 'owner',
+        payload: { sizeMm: animal.sizeMm, exuviaeKept: true },
+      });
       break;
     case 'sac_3_weeks':
       // The sac itself is a breeding record (BREEDING): laid 21 days ago, pulled the next day.
@@ -197,12 +470,27 @@ export function historyFor(animal: DemoAnimal, today: LocalDate, random: () => n
       break;
     case 'paired_10_days':
       out.push({ kind: 'ate', day: at(-12), minute: minute(), by: 'owner', payload: { ...offer } });
-      out.push({ kind: 'paired', day: at(-10), minute: 20 * 60, by: 'owner', payload: { outcome: 'accepted', note: 'Male tapped, she accepted; separated after insertion.' } });
+      out.push({
+        kind: 'paired',
+        day: at(-10),
+        minute: 20 * 60,
+        by: 'owner',
+        payload: {
+          outcome: 'accepted',
+          note: 'Male tapped, she accepted; separated after insertion.',
+        },
+      });
       out.push({ kind: 'ate', day: at(-6), minute: minute(), by: 'owner', payload: { ...offer } });
       break;
     case 'prey_left_yesterday':
       out.push({ kind: 'ate', day: at(-4), minute: minute(), by: 'owner', payload: { ...offer } });
-      out.push({ kind: 'prey_left_in', day: at(-1), minute: minute(), by: 'partner', payload: { ...offer } });
+      out.push({
+        kind: 'prey_left_in',
+        day: at(-1),
+        minute: minute(),
+        by: 'partner',
+        payload: { ...offer },
+      });
       break;
     default:
       break;
@@ -219,13 +507,21 @@ export interface SeedOptions {
 
 export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
   const emails = DEMO_ACCOUNTS.map((a) => a.email);
-  const existing = await db.select({ id: users.id }).from(users).where(inArray(users.email, emails));
+  const existing = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(inArray(users.email, emails));
   if (existing.length && !options.reset) return { created: false, animals: 0, events: 0 };
   if (existing.length) {
     const owned = await db
       .select({ collectionId: memberships.collectionId })
       .from(memberships)
-      .where(inArray(memberships.userId, existing.map((u) => u.id)));
+      .where(
+        inArray(
+          memberships.userId,
+          existing.map((u) => u.id),
+        ),
+      );
     const ids = [...new Set(owned.map((o) => o.collectionId))];
     if (ids.length) await db.delete(collections).where(inArray(collections.id, ids));
     await db.delete(users).where(inArray(users.email, emails));
@@ -240,18 +536,23 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
   return db.transaction(async (tx) => {
     const people = await tx
       .insert(users)
-      .values(DEMO_ACCOUNTS.map((a) => ({ email: a.email, displayName: a.displayName, passwordHash })))
+      .values(
+        DEMO_ACCOUNTS.map((a) => ({ email: a.email, displayName: a.displayName, passwordHash })),
+      )
       .returning({ id: users.id, email: users.email });
     const idOf = (email: string) => people.find((p) => p.email === email)!.id;
     const ownerId = idOf(DEMO_ACCOUNTS[0].email);
     const partnerId = idOf(DEMO_ACCOUNTS[1].email);
 
     // The demo flags adults after two refusals (the default is three): a collection's own rule.
-    const collectionId = await insertCollection(tx, { ...DEMO_COLLECTION, rules: { profiles: { tarantula: { stages: { adult: { refusalStreak: 2 } } } } } });
+    const collectionId = await insertCollection(tx, {
+      ...DEMO_COLLECTION,
+      rules: { profiles: { tarantula: { stages: { adult: { refusalStreak: 2 } } } } },
+    });
 
     // The helper covers 7 days from the Friday after today.
     const weekday = new Date(`${today}T12:00:00Z`).getUTCDay();
-    const firstDay = addDays(today, ((5 - weekday + 7) % 7) || 7);
+    const firstDay = addDays(today, (5 - weekday + 7) % 7 || 7);
     await tx.insert(memberships).values([
       { collectionId, userId: ownerId, role: 'owner' },
       { collectionId, userId: partnerId, role: 'keeper' },
@@ -266,13 +567,32 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
 
     const roster = [...ADULTS, ...JUVENILES, ...clutch()];
     const places = new Map<string, string>();
-    const placeRows = roster.map((a) => ({ collectionId, room: 'Spare room', rack: a.place[0], shelf: a.place[1], position: a.place[2] }));
+    const placeRows = roster.map((a) => ({
+      collectionId,
+      room: 'Spare room',
+      rack: a.place[0],
+      shelf: a.place[1],
+      position: a.place[2],
+    }));
     // Empty spots exist too: the room has more positions than animals.
-    for (const [rack, shelves, positions] of [['A', 3, 4], ['B', 3, 5]] as const) {
+    for (const [rack, shelves, positions] of [
+      ['A', 3, 4],
+      ['B', 3, 5],
+    ] as const) {
       for (let s = 1; s <= shelves; s++) {
         for (let p = 1; p <= positions; p++) {
-          if (!placeRows.some((r) => r.rack === rack && r.shelf === String(s) && r.position === String(p))) {
-            placeRows.push({ collectionId, room: 'Spare room', rack, shelf: String(s), position: String(p) });
+          if (
+            !placeRows.some(
+              (r) => r.rack === rack && r.shelf === String(s) && r.position === String(p),
+            )
+          ) {
+            placeRows.push({
+              collectionId,
+              room: 'Spare room',
+              rack,
+              shelf: String(s),
+              position: String(p),
+            });
           }
         }
       }
@@ -348,7 +668,18 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
         .returning();
       for (const fact of breedingFacts(record!)) {
         const at = new Date(startOfLocalDate(fact.date, zone).getTime() + 12 * 3_600_000);
-        rows.push({ id: randomUUID(), collectionId, animalId: femaleId, kind: fact.kind, payload: { sacId: record!.id }, ...ownerOf, clientRecordedAt: at, clientSentAt: at, serverReceivedAt: at, effectiveAt: at });
+        rows.push({
+          id: randomUUID(),
+          collectionId,
+          animalId: femaleId,
+          kind: fact.kind,
+          payload: { sacId: record!.id },
+          ...ownerOf,
+          clientRecordedAt: at,
+          clientSentAt: at,
+          serverReceivedAt: at,
+          effectiveAt: at,
+        });
       }
     }
     await recordEvents(tx, { collectionId }, rows, { from: 'history' });

@@ -14,7 +14,15 @@ export type AnimalGroup = (typeof ANIMAL_GROUPS)[number];
  * GROUP_STAGES): a mantis "sling" is a nymph L1–L3, a scorpion "first instar" rides on its
  * mother. docs/care-rules.md § Stages.
  */
-export const LIFE_STAGES = ['first_instar', 'sling', 'larva', 'juvenile', 'subadult', 'pupa', 'adult'] as const;
+export const LIFE_STAGES = [
+  'first_instar',
+  'sling',
+  'larva',
+  'juvenile',
+  'subadult',
+  'pupa',
+  'adult',
+] as const;
 export type LifeStage = (typeof LIFE_STAGES)[number];
 
 export const SEXES = ['unknown', 'female', 'male', 'mature_male'] as const;
@@ -23,7 +31,13 @@ export type Sex = (typeof SEXES)[number];
 export const ANIMAL_STATUSES = ['active', 'sold', 'deceased', 'rehomed', 'on_loan'] as const;
 export type AnimalStatus = (typeof ANIMAL_STATUSES)[number];
 
-export const CAUTIONS = ['potent_venom', 'urticating_hairs', 'fast_defensive', 'escape_risk', 'sting'] as const;
+export const CAUTIONS = [
+  'potent_venom',
+  'urticating_hairs',
+  'fast_defensive',
+  'escape_risk',
+  'sting',
+] as const;
 export type Caution = (typeof CAUTIONS)[number];
 
 export const GROUP_LABEL: Record<AnimalGroup, string> = {
@@ -52,13 +66,32 @@ export const STAGE_LABEL: Record<LifeStage, string> = {
  * (docs/care-rules.md § Stages). A stage missing here does not fit the group.
  */
 export const GROUP_STAGES: Record<AnimalGroup, Partial<Record<LifeStage, string>>> = {
-  tarantula: { first_instar: 'First instar (eggs with legs)', sling: 'Sling', juvenile: 'Juvenile', subadult: 'Subadult', adult: 'Adult' },
+  tarantula: {
+    first_instar: 'First instar (eggs with legs)',
+    sling: 'Sling',
+    juvenile: 'Juvenile',
+    subadult: 'Subadult',
+    adult: 'Adult',
+  },
   true_spider: { sling: 'Spiderling', juvenile: 'Juvenile', adult: 'Adult' },
   centipede: { juvenile: 'Juvenile', subadult: 'Subadult', adult: 'Adult' },
-  scorpion: { first_instar: 'Scorpling on its mother', juvenile: 'Juvenile', subadult: 'Subadult', adult: 'Adult' },
+  scorpion: {
+    first_instar: 'Scorpling on its mother',
+    juvenile: 'Juvenile',
+    subadult: 'Subadult',
+    adult: 'Adult',
+  },
   mantis: { sling: 'Nymph L1–L3', juvenile: 'Nymph L4+', subadult: 'Subadult', adult: 'Adult' },
   beetle: { larva: 'Larva', pupa: 'Pupa', adult: 'Adult' },
-  other: { first_instar: 'First stage (not feeding)', sling: 'Young', larva: 'Larva', juvenile: 'Juvenile', subadult: 'Subadult', pupa: 'Pupa', adult: 'Adult' },
+  other: {
+    first_instar: 'First stage (not feeding)',
+    sling: 'Young',
+    larva: 'Larva',
+    juvenile: 'Juvenile',
+    subadult: 'Subadult',
+    pupa: 'Pupa',
+    adult: 'Adult',
+  },
 };
 
 /** The stages a group has, in growth order. */

@@ -7,7 +7,11 @@ import type { Caution } from './animal-facts';
  */
 export const CAUTION_SYMBOL_PATHS: Record<Caution, readonly string[]> = {
   // Two fangs under a bar.
-  potent_venom: ['M4 4h16', 'M7 4c0 6 1.5 11 4 15-3-1-5.5-5-5.5-10', 'M17 4c0 6-1.5 11-4 15 3-1 5.5-5 5.5-10'],
+  potent_venom: [
+    'M4 4h16',
+    'M7 4c0 6 1.5 11 4 15-3-1-5.5-5-5.5-10',
+    'M17 4c0 6-1.5 11-4 15 3-1 5.5-5 5.5-10',
+  ],
   // Short bristles flying off a curve.
   urticating_hairs: ['M4 19c4-1 7-4 8-9', 'M12 5l1-3M16 7l3-2M17 11l3 0M15 15l2 2M9 8L7 5'],
   // A zigzag dash.

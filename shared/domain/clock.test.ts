@@ -15,20 +15,32 @@ describe('effectiveTime', () => {
   });
 
   it('leaves network latency alone and raises no flag', () => {
-    const { effectiveAt, flags } = effectiveTime(at('2026-12-01T08:00:00Z'), at('2026-12-01T09:00:00Z'), at('2026-12-01T09:00:00.300Z'));
+    const { effectiveAt, flags } = effectiveTime(
+      at('2026-12-01T08:00:00Z'),
+      at('2026-12-01T09:00:00Z'),
+      at('2026-12-01T09:00:00.300Z'),
+    );
     expect(effectiveAt.toISOString()).toBe('2026-12-01T08:00:00.300Z');
     expect(flags).toEqual([]);
   });
 
   it('never files a tap after the server received it', () => {
     const received = at('2026-12-01T09:00:00Z');
-    const { effectiveAt, flags } = effectiveTime(at('2026-12-01T12:00:00Z'), at('2026-12-01T09:00:00Z'), received);
+    const { effectiveAt, flags } = effectiveTime(
+      at('2026-12-01T12:00:00Z'),
+      at('2026-12-01T09:00:00Z'),
+      received,
+    );
     expect(effectiveAt).toEqual(received);
     expect(flags).toEqual(['recorded_after_sent', 'future_clamped']);
   });
 
   it('flags taps older than a month', () => {
-    const { flags } = effectiveTime(at('2026-10-01T08:00:00Z'), at('2026-12-01T09:00:00Z'), at('2026-12-01T09:00:01Z'));
+    const { flags } = effectiveTime(
+      at('2026-10-01T08:00:00Z'),
+      at('2026-12-01T09:00:00Z'),
+      at('2026-12-01T09:00:01Z'),
+    );
     expect(flags).toEqual(['very_old']);
   });
 });

@@ -3,7 +3,12 @@
  * by the batch's clock offset (server received − device sent), so a phone whose clock runs ten
  * minutes slow still files its taps at the right moment.
  */
-export const CLOCK_FLAGS = ['clock_corrected', 'future_clamped', 'recorded_after_sent', 'very_old'] as const;
+export const CLOCK_FLAGS = [
+  'clock_corrected',
+  'future_clamped',
+  'recorded_after_sent',
+  'very_old',
+] as const;
 export type ClockFlag = (typeof CLOCK_FLAGS)[number];
 
 /** Offsets under this are network latency, not a wrong clock. */
@@ -15,12 +20,17 @@ export function clockOffsetMs(clientSentAt: Date, serverReceivedAt: Date): numbe
   return serverReceivedAt.getTime() - clientSentAt.getTime();
 }
 
-export function effectiveTime(clientRecordedAt: Date, clientSentAt: Date, serverReceivedAt: Date): { effectiveAt: Date; flags: ClockFlag[] } {
+export function effectiveTime(
+  clientRecordedAt: Date,
+  clientSentAt: Date,
+  serverReceivedAt: Date,
+): { effectiveAt: Date; flags: ClockFlag[] } {
   const offset = clockOffsetMs(clientSentAt, serverReceivedAt);
   const flags: ClockFlag[] = [];
   if (Math.abs(offset) > SKEW_MS) flags.push('clock_corrected');
   // A tap cannot happen after the request that carries it was sent.
-  if (clientRecordedAt.getTime() > clientSentAt.getTime() + SKEW_MS) flags.push('recorded_after_sent');
+  if (clientRecordedAt.getTime() > clientSentAt.getTime() + SKEW_MS)
+    flags.push('recorded_after_sent');
   let effective = clientRecordedAt.getTime() + offset;
   if (effective > serverReceivedAt.getTime()) {
     if (effective - serverReceivedAt.getTime() > SKEW_MS) flags.push('future_clamped');

@@ -5,14 +5,26 @@ import { GENUS_PRESETS, presetFor } from './genus-presets';
 
 describe('genus presets', () => {
   it('offers potent venom for Old World tarantula genera and urticating hairs for New World ones', () => {
-    expect(presetFor('Omothymus schioedtei')).toMatchObject({ group: 'tarantula', cautions: ['potent_venom', 'fast_defensive'] });
+    expect(presetFor('Omothymus schioedtei')).toMatchObject({
+      group: 'tarantula',
+      cautions: ['potent_venom', 'fast_defensive'],
+    });
     expect(presetFor('Harpactira pulchripes')!.source).toMatch(/Fuchs et al/);
-    expect(presetFor('Theraphosa stirmi')).toMatchObject({ group: 'tarantula', cautions: ['urticating_hairs'] });
+    expect(presetFor('Theraphosa stirmi')).toMatchObject({
+      group: 'tarantula',
+      cautions: ['urticating_hairs'],
+    });
     expect(presetFor('Grammostola pulchra Mello-Leitão, 1921')!.genus).toBe('Grammostola');
   });
   it('knows the demo’s centipede, scorpion and mantis genera', () => {
-    expect(presetFor('Scolopendra heros')).toMatchObject({ group: 'centipede', cautions: ['potent_venom', 'fast_defensive', 'escape_risk'] });
-    expect(presetFor('Heterometrus spinifer')).toMatchObject({ group: 'scorpion', cautions: ['sting'] });
+    expect(presetFor('Scolopendra heros')).toMatchObject({
+      group: 'centipede',
+      cautions: ['potent_venom', 'fast_defensive', 'escape_risk'],
+    });
+    expect(presetFor('Heterometrus spinifer')).toMatchObject({
+      group: 'scorpion',
+      cautions: ['sting'],
+    });
     expect(presetFor('Hierodula membranacea')).toMatchObject({ group: 'mantis', cautions: [] });
   });
   it('offers nothing for an unknown or mis-capitalised genus, and lists each genus once with a source', () => {

@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { acceptanceRate, growthSeries, mealIntervals, moltsInLastYear, sexFromMolts } from './growth';
+import {
+  acceptanceRate,
+  growthSeries,
+  mealIntervals,
+  moltsInLastYear,
+  sexFromMolts,
+} from './growth';
 import { daysBetween } from './local-dates';
 
 describe('growth and intervals (worked by hand)', () => {
@@ -29,9 +35,18 @@ describe('growth and intervals (worked by hand)', () => {
   });
 
   it('reads sex from molts: exuviae sexing, and a maturing molt makes a mature male', () => {
-    expect(sexFromMolts('unknown', [{ date: '2026-01-01', sexFromExuviae: 'unknown' }])).toBe('unknown');
-    expect(sexFromMolts('unknown', [{ date: '2026-01-01', sexFromExuviae: 'female' }])).toBe('female');
-    expect(sexFromMolts('female', [{ date: '2026-01-01', sexFromExuviae: 'female' }, { date: '2026-06-01', sexFromExuviae: 'male' }])).toBe('male');
+    expect(sexFromMolts('unknown', [{ date: '2026-01-01', sexFromExuviae: 'unknown' }])).toBe(
+      'unknown',
+    );
+    expect(sexFromMolts('unknown', [{ date: '2026-01-01', sexFromExuviae: 'female' }])).toBe(
+      'female',
+    );
+    expect(
+      sexFromMolts('female', [
+        { date: '2026-01-01', sexFromExuviae: 'female' },
+        { date: '2026-06-01', sexFromExuviae: 'male' },
+      ]),
+    ).toBe('male');
     expect(sexFromMolts('male', [{ date: '2026-06-01', maturing: true }])).toBe('mature_male');
     expect(sexFromMolts('unknown', [])).toBe('unknown');
   });
@@ -48,7 +63,12 @@ describe('growth and intervals (worked by hand)', () => {
     expect(acceptanceRate(offers, 10)).toEqual({ ate: 3, offered: 5, rate: 60 });
     expect(acceptanceRate([], 5).rate).toBeNull();
     // Meals on 1, 10 and 20 Oct and 2 Nov: gaps 9, 10, 13 → median 10; with one more at 8 Nov (6): (9 + 10) / 2.
-    expect(mealIntervals(['2026-10-01', '2026-10-10', '2026-10-20', '2026-11-02'])).toEqual({ gaps: [9, 10, 13], median: 10 });
-    expect(mealIntervals(['2026-10-01', '2026-10-10', '2026-10-20', '2026-11-02', '2026-11-08']).median).toBe(9.5);
+    expect(mealIntervals(['2026-10-01', '2026-10-10', '2026-10-20', '2026-11-02'])).toEqual({
+      gaps: [9, 10, 13],
+      median: 10,
+    });
+    expect(
+      mealIntervals(['2026-10-01', '2026-10-10', '2026-10-20', '2026-11-02', '2026-11-08']).median,
+    ).toBe(9.5);
   });
 });

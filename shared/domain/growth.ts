@@ -27,7 +27,10 @@ export function growthSeries(molts: readonly MoltFact[]): GrowthPoint[] {
       date: m.date,
       sizeMm: size,
       daysSincePrevious: i === 0 ? null : daysBetween(sorted[i - 1]!.date, m.date),
-      growthPct: size !== null && lastSize !== null ? Math.round(((size - lastSize) / lastSize) * 1000) / 10 : null,
+      growthPct:
+        size !== null && lastSize !== null
+          ? Math.round(((size - lastSize) / lastSize) * 1000) / 10
+          : null,
     };
     if (size !== null) lastSize = size;
     return point;
@@ -48,15 +51,24 @@ export function moltsInLastYear(molts: readonly MoltFact[], today: LocalDate): n
 export function sexFromMolts(current: Sex, molts: readonly MoltFact[]): Sex {
   const sorted = [...molts].sort((a, b) => a.date.localeCompare(b.date));
   if (sorted.some((m) => m.maturing)) return 'mature_male';
-  const sexed = sorted.filter((m) => m.sexFromExuviae === 'female' || m.sexFromExuviae === 'male').at(-1);
+  const sexed = sorted
+    .filter((m) => m.sexFromExuviae === 'female' || m.sexFromExuviae === 'male')
+    .at(-1);
   return sexed ? (sexed.sexFromExuviae as Sex) : current;
 }
 
 /** Of the last `n` offers (ate or refused), how many were eaten. */
-export function acceptanceRate(offers: readonly { date: LocalDate; kind: 'ate' | 'refused' }[], n: number) {
+export function acceptanceRate(
+  offers: readonly { date: LocalDate; kind: 'ate' | 'refused' }[],
+  n: number,
+) {
   const last = [...offers].sort((a, b) => a.date.localeCompare(b.date)).slice(-n);
   const ate = last.filter((o) => o.kind === 'ate').length;
-  return { ate, offered: last.length, rate: last.length ? Math.round((ate / last.length) * 100) : null };
+  return {
+    ate,
+    offered: last.length,
+    rate: last.length ? Math.round((ate / last.length) * 100) : null,
+  };
 }
 
 /** Days between consecutive meals, and their median (the middle value; the mean of the two middle ones). */
@@ -65,7 +77,12 @@ export function mealIntervals(meals: readonly LocalDate[]) {
   const gaps = sorted.slice(1).map((d, i) => daysBetween(sorted[i]!, d));
   const ordered = [...gaps].sort((a, b) => a - b);
   const mid = Math.floor(ordered.length / 2);
-  const median = ordered.length === 0 ? null : ordered.length % 2 ? ordered[mid]! : (ordered[mid - 1]! + ordered[mid]!) / 2;
+  const median =
+    ordered.length === 0
+      ? null
+      : ordered.length % 2
+        ? ordered[mid]!
+        : (ordered[mid - 1]! + ordered[mid]!) / 2;
   return { gaps, median };
 }
 
@@ -84,12 +101,18 @@ interface MoltEventLike {
  */
 export function mergeMoltDetails<E extends MoltEventLike>(events: readonly E[]): E[] {
   const details = new Map<string, Record<string, unknown>>();
-  const added = events.filter((e) => e.kind === 'molt_details').sort((a, b) => a.at.localeCompare(b.at));
+  const added = events
+    .filter((e) => e.kind === 'molt_details')
+    .sort((a, b) => a.at.localeCompare(b.at));
   for (const e of added) {
     const { targetId, ...rest } = e.payload;
     if (typeof targetId === 'string') details.set(targetId, { ...details.get(targetId), ...rest });
   }
   return events
     .filter((e) => e.kind !== 'molt_details')
-    .map((e) => (e.kind === 'molted' && details.has(e.id) ? { ...e, payload: { ...e.payload, ...details.get(e.id) } } : e));
+    .map((e) =>
+      e.kind === 'molted' && details.has(e.id)
+        ? { ...e, payload: { ...e.payload, ...details.get(e.id) } }
+        : e,
+    );
 }

@@ -1,7 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { HELPER_SYNC_GRACE_MS, judgeHelperWrite } from './helper-writes';
 
-const cover = { startsAt: new Date('2026-11-20T05:00:00Z'), endsAt: new Date('2026-11-27T05:00:00Z'), writesClosedAt: null };
+const cover = {
+  startsAt: new Date('2026-11-20T05:00:00Z'),
+  endsAt: new Date('2026-11-27T05:00:00Z'),
+  writesClosedAt: null,
+};
 const during = new Date('2026-11-26T18:00:00Z');
 const at = (iso: string) => new Date(iso);
 
@@ -18,13 +22,25 @@ describe('a helper’s write', () => {
   });
 
   it('is refused when dated outside the cover’s days, even inside the grace', () => {
-    expect(judgeHelperWrite(cover, at('2026-11-27T06:00:00Z'), at('2026-11-27T07:00:00Z'))).toBe('outside_cover');
-    expect(judgeHelperWrite(cover, at('2026-11-19T23:00:00Z'), at('2026-11-20T06:00:00Z'))).toBe('outside_cover');
+    expect(judgeHelperWrite(cover, at('2026-11-27T06:00:00Z'), at('2026-11-27T07:00:00Z'))).toBe(
+      'outside_cover',
+    );
+    expect(judgeHelperWrite(cover, at('2026-11-19T23:00:00Z'), at('2026-11-20T06:00:00Z'))).toBe(
+      'outside_cover',
+    );
   });
 
   it('has no grace after the owner ended the cover early', () => {
-    const ended = { ...cover, endsAt: at('2026-11-24T10:00:00Z'), writesClosedAt: at('2026-11-24T10:00:00Z') };
-    expect(judgeHelperWrite(ended, at('2026-11-24T09:00:00Z'), at('2026-11-24T09:30:00Z'))).toBe('ok');
-    expect(judgeHelperWrite(ended, at('2026-11-24T09:00:00Z'), at('2026-11-24T10:00:01Z'))).toBe('closed_by_owner');
+    const ended = {
+      ...cover,
+      endsAt: at('2026-11-24T10:00:00Z'),
+      writesClosedAt: at('2026-11-24T10:00:00Z'),
+    };
+    expect(judgeHelperWrite(ended, at('2026-11-24T09:00:00Z'), at('2026-11-24T09:30:00Z'))).toBe(
+      'ok',
+    );
+    expect(judgeHelperWrite(ended, at('2026-11-24T09:00:00Z'), at('2026-11-24T10:00:01Z'))).toBe(
+      'closed_by_owner',
+    );
   });
 });

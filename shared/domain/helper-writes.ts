@@ -24,9 +24,15 @@ export interface HelperCover {
  * setting of the phone's clocks can reopen a cover. Only then is the event's own (corrected)
  * time checked against the cover's days.
  */
-export function judgeHelperWrite(cover: HelperCover, effectiveAt: Date, receivedAt: Date): HelperWriteVerdict {
+export function judgeHelperWrite(
+  cover: HelperCover,
+  effectiveAt: Date,
+  receivedAt: Date,
+): HelperWriteVerdict {
   if (cover.writesClosedAt && receivedAt >= cover.writesClosedAt) return 'closed_by_owner';
-  if (cover.endsAt && receivedAt.getTime() >= cover.endsAt.getTime() + HELPER_SYNC_GRACE_MS) return 'too_late';
-  if (coverWindowState(effectiveAt, cover.startsAt, cover.endsAt) !== 'during') return 'outside_cover';
+  if (cover.endsAt && receivedAt.getTime() >= cover.endsAt.getTime() + HELPER_SYNC_GRACE_MS)
+    return 'too_late';
+  if (coverWindowState(effectiveAt, cover.startsAt, cover.endsAt) !== 'during')
+    return 'outside_cover';
   return 'ok';
 }

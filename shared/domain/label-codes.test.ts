@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { collectionPrefix, generateLabelCodes, isLabelCode, LABEL_ALPHABET, normaliseLabelCode } from './label-codes';
+import {
+  collectionPrefix,
+  generateLabelCodes,
+  isLabelCode,
+  LABEL_ALPHABET,
+  normaliseLabelCode,
+} from './label-codes';
 
 describe('label codes', () => {
   it('use the QR alphanumeric set without look-alikes (ISO/IEC 18004 7.4.4; no O/0, I/1)', () => {

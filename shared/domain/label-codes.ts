@@ -15,11 +15,17 @@ export function isLabelCode(code: string): boolean {
 }
 
 /** `count` distinct codes "PREFIX-XXX" from a seeded generator (deterministic for the demo). */
-export function generateLabelCodes(prefix: string, count: number, random: () => number, taken = new Set<string>()): string[] {
+export function generateLabelCodes(
+  prefix: string,
+  count: number,
+  random: () => number,
+  taken = new Set<string>(),
+): string[] {
   const codes: string[] = [];
   while (codes.length < count) {
     let body = '';
-    for (let i = 0; i < 3; i++) body += LABEL_ALPHABET[Math.floor(random() * LABEL_ALPHABET.length)];
+    for (let i = 0; i < 3; i++)
+      body += LABEL_ALPHABET[Math.floor(random() * LABEL_ALPHABET.length)];
     const code = `${prefix}-${body}`;
     if (!taken.has(code)) {
       taken.add(code);
@@ -41,7 +47,9 @@ export function collectionPrefix(collectionName: string, existingCodes: readonly
   }
   const common = [...counts.entries()].sort((a, b) => b[1] - a[1])[0];
   if (common && isLabelCode(`${common[0]}-222`)) return common[0];
-  const letters = normaliseLabelCode(collectionName.normalize('NFD').replace(/[^A-Za-z0-9\s]/g, ''));
+  const letters = normaliseLabelCode(
+    collectionName.normalize('NFD').replace(/[^A-Za-z0-9\s]/g, ''),
+  );
   const initials = collectionName
     .split(/\s+/)
     .map((w) => normaliseLabelCode(w.normalize('NFD').replace(/[^A-Za-z0-9]/g, '')).charAt(0))

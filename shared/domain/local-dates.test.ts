@@ -4,7 +4,16 @@
 import fc from 'fast-check';
 import { DateTime } from 'luxon';
 import { describe, expect, it } from 'vitest';
-import { addDays, clockTime, daysBetween, describeInstant, describeLocalDate, instantOfKeeperDate, localDateOf, startOfLocalDate } from './local-dates';
+import {
+  addDays,
+  clockTime,
+  daysBetween,
+  describeInstant,
+  describeLocalDate,
+  instantOfKeeperDate,
+  localDateOf,
+  startOfLocalDate,
+} from './local-dates';
 
 const ZONE = 'America/Toronto';
 
@@ -14,7 +23,9 @@ describe('Toronto in 2026', () => {
     expect(startOfLocalDate('2026-03-09', ZONE).toISOString()).toBe('2026-03-09T04:00:00.000Z'); // EDT, UTC−4
     expect(startOfLocalDate('2026-11-01', ZONE).toISOString()).toBe('2026-11-01T04:00:00.000Z');
     expect(startOfLocalDate('2026-11-02', ZONE).toISOString()).toBe('2026-11-02T05:00:00.000Z');
-    const hours = (d: string) => (startOfLocalDate(addDays(d, 1), ZONE).getTime() - startOfLocalDate(d, ZONE).getTime()) / 3_600_000;
+    const hours = (d: string) =>
+      (startOfLocalDate(addDays(d, 1), ZONE).getTime() - startOfLocalDate(d, ZONE).getTime()) /
+      3_600_000;
     expect(hours('2026-03-08')).toBe(23);
     expect(hours('2026-11-01')).toBe(25);
     expect(hours('2026-06-15')).toBe(24);
@@ -45,7 +56,9 @@ describe('Toronto in 2026', () => {
     fc.assert(
       fc.property(fc.integer({ min: Date.UTC(2025, 0, 1), max: Date.UTC(2027, 11, 31) }), (ms) => {
         const instant = new Date(ms);
-        expect(localDateOf(instant, ZONE)).toBe(DateTime.fromMillis(ms, { zone: ZONE }).toISODate());
+        expect(localDateOf(instant, ZONE)).toBe(
+          DateTime.fromMillis(ms, { zone: ZONE }).toISODate(),
+        );
       }),
       { numRuns: 2000 },
     );
@@ -54,7 +67,9 @@ describe('Toronto in 2026', () => {
   it('agrees with luxon on where every local date of 2026 begins, in several zones', () => {
     for (const zone of [ZONE, 'Europe/London', 'Australia/Sydney', 'Asia/Kolkata', 'UTC']) {
       for (let d = '2026-01-01'; d <= '2026-12-31'; d = addDays(d, 1)) {
-        expect(startOfLocalDate(d, zone).getTime(), `${zone} ${d}`).toBe(DateTime.fromISO(d, { zone }).startOf('day').toMillis());
+        expect(startOfLocalDate(d, zone).getTime(), `${zone} ${d}`).toBe(
+          DateTime.fromISO(d, { zone }).startOf('day').toMillis(),
+        );
       }
     }
   });
@@ -89,10 +104,14 @@ describe('instantOfKeeperDate', () => {
   });
   it('is noon local on an earlier date, on either side of the DST change (cross-checked with luxon)', () => {
     for (const date of ['2026-11-01', '2026-10-31', '2026-03-08', '2026-03-07']) {
-      const expected = DateTime.fromISO(`${date}T12:00`, { zone: ZONE }).toUTC().toISO({ suppressMilliseconds: false });
+      const expected = DateTime.fromISO(`${date}T12:00`, { zone: ZONE })
+        .toUTC()
+        .toISO({ suppressMilliseconds: false });
       expect(instantOfKeeperDate(date, ZONE, now).toISOString()).toBe(expected);
       expect(localDateOf(instantOfKeeperDate(date, ZONE, now), ZONE)).toBe(date);
     }
-    expect(instantOfKeeperDate('2026-11-01', ZONE, now).toISOString()).toBe('2026-11-01T17:00:00.000Z'); // EST, UTC−5 by noon
+    expect(instantOfKeeperDate('2026-11-01', ZONE, now).toISOString()).toBe(
+      '2026-11-01T17:00:00.000Z',
+    ); // EST, UTC−5 by noon
   });
 });

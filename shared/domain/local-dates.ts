@@ -43,7 +43,12 @@ const formatters = new Map<string, Intl.DateTimeFormat>();
 export function localDateOf(instant: Date, zone: string): LocalDate {
   let f = formatters.get(zone);
   if (!f) {
-    f = new Intl.DateTimeFormat('en-CA', { timeZone: zone, year: 'numeric', month: '2-digit', day: '2-digit' });
+    f = new Intl.DateTimeFormat('en-CA', {
+      timeZone: zone,
+      year: 'numeric',
+      month: '2-digit',
+      day: '2-digit',
+    });
     formatters.set(zone, f);
   }
   const parts = f.formatToParts(instant);
@@ -82,7 +87,12 @@ const clockFormats = new Map<string, Intl.DateTimeFormat>();
 export function clockTime(iso: string, zone: string): string {
   let f = clockFormats.get(zone);
   if (!f) {
-    f = new Intl.DateTimeFormat('en-GB', { hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone: zone });
+    f = new Intl.DateTimeFormat('en-GB', {
+      hour: '2-digit',
+      minute: '2-digit',
+      hourCycle: 'h23',
+      timeZone: zone,
+    });
     clockFormats.set(zone, f);
   }
   return f.format(new Date(iso));
@@ -94,7 +104,15 @@ export function describeInstant(iso: string, zone?: string): string {
   const key = zone ?? '';
   let f = instantFormats.get(key);
   if (!f) {
-    f = new Intl.DateTimeFormat('en-GB', { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit', hourCycle: 'h23', timeZone: zone });
+    f = new Intl.DateTimeFormat('en-GB', {
+      weekday: 'short',
+      day: 'numeric',
+      month: 'short',
+      hour: '2-digit',
+      minute: '2-digit',
+      hourCycle: 'h23',
+      timeZone: zone,
+    });
     instantFormats.set(key, f);
   }
   return f.format(new Date(iso));

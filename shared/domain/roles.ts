@@ -21,11 +21,17 @@ export function coverWindowState(
 }
 
 /** What a helper sees outside their cover: when it runs (or ran), in the collection's days. */
-export function coverWindowMessage(m: { collectionName: string; timeZone: string; startsAt: Date | null; endsAt: Date | null }, now: Date): string {
+export function coverWindowMessage(
+  m: { collectionName: string; timeZone: string; startsAt: Date | null; endsAt: Date | null },
+  now: Date,
+): string {
   const first = m.startsAt ? describeLocalDate(localDateOf(m.startsAt, m.timeZone), true) : null;
   // endsAt is the first instant after the cover: the last covered day is the one before it.
-  const last = m.endsAt ? describeLocalDate(localDateOf(new Date(m.endsAt.getTime() - 1), m.timeZone), true) : null;
-  if (m.endsAt && now >= m.endsAt) return `Your cover for ${m.collectionName} ended on ${last}. Thank you!`;
+  const last = m.endsAt
+    ? describeLocalDate(localDateOf(new Date(m.endsAt.getTime() - 1), m.timeZone), true)
+    : null;
+  if (m.endsAt && now >= m.endsAt)
+    return `Your cover for ${m.collectionName} ended on ${last}. Thank you!`;
   if (first && last) return `Your cover for ${m.collectionName} runs from ${first} to ${last}.`;
   return `Your cover for ${m.collectionName} starts on ${first}.`;
 }

@@ -42,8 +42,12 @@ export const GENERAL_SAFETY = [
 /** How to do each task, for someone who has not done it before (common practice, no published source). */
 export const TASK_HOW: Record<TaskKind, string> = {
   feed: 'Hold the prey with long tongs by its back end, head towards the animal, and let it go a short way in front of it. Do not put your hand in. Close the lid. If it is not eaten, record “Prey left in”: the round tells you when to take it out (by the next day for slings and molting animals).',
-  remove_prey: 'Take out the uneaten prey with tongs, even if it is dead. Live prey left with a molting animal can injure it.',
-  water: 'Top up the water dish with clean water to just below the rim (the round asks every few days). Do not pour over the animal. With no dish, do what the task says: pour a little water into one corner of the substrate, or mist the enclosure wall lightly — never the animal.',
-  check: 'Look without disturbing: note anything odd (a molt, a web-closed burrow, a mat of silk) and record it. For a beetle larva, check the food substrate is moist and not used up, top it up, and tap “Checked”.',
-  leave_alone: 'Do not open the enclosure or feed: it is molting, guarding eggs or young, or a pupa. Just look, and note anything odd.',
+  remove_prey:
+    'Take out the uneaten prey with tongs, even if it is dead. Live prey left with a molting animal can injure it.',
+  water:
+    'Top up the water dish with clean water to just below the rim (the round asks every few days). Do not pour over the animal. With no dish, do what the task says: pour a little water into one corner of the substrate, or mist the enclosure wall lightly — never the animal.',
+  check:
+    'Look without disturbing: note anything odd (a molt, a web-closed burrow, a mat of silk) and record it. For a beetle larva, check the food substrate is moist and not used up, top it up, and tap “Checked”.',
+  leave_alone:
+    'Do not open the enclosure or feed: it is molting, guarding eggs or young, or a pupa. Just look, and note anything odd.',
 };

@@ -45,12 +45,19 @@ export function latinise(word: string): string {
 const capitalised = (w: string) => w.charAt(0).toUpperCase() + w.slice(1).toLowerCase();
 
 /** Authorship: "Linnaeus, 1758", "C. L. Koch, 1841", "(Walckenaer, 1837)", "Mello-Leitão, 1921". */
-const AUTHORSHIP = /^(\()?([\p{Lu}][\p{L}'’. -]*(?:(?:,| &| and| et) [\p{Lu}][\p{L}'’. -]*)*),? (\d{4})(\))?$/u;
+const AUTHORSHIP =
+  /^(\()?([\p{Lu}][\p{L}'’. -]*(?:(?:,| &| and| et) [\p{Lu}][\p{L}'’. -]*)*),? (\d{4})(\))?$/u;
 
 export function checkScientificName(raw: string): NameCheck {
   const text = raw.trim().replace(/\s+/g, ' ');
   const problems: string[] = [];
-  if (!text) return { ok: false, problems: ['Enter the scientific name, e.g. Tliltocatl albopilosus.'], suggestion: null, parts: null };
+  if (!text)
+    return {
+      ok: false,
+      problems: ['Enter the scientific name, e.g. Tliltocatl albopilosus.'],
+      suggestion: null,
+      parts: null,
+    };
 
   // The authorship starts at the first word that opens a parenthesis after the epithet, or at
   // the first capitalised word after the epithet.
@@ -63,18 +70,43 @@ export function checkScientificName(raw: string): NameCheck {
   }
   const species = tokens[i++];
   if (!species) {
-    return { ok: false, problems: ['A species name has two parts: the genus and the species, e.g. Tliltocatl albopilosus (ICZN Art. 5.1).'], suggestion: null, parts: null };
+    return {
+      ok: false,
+      problems: [
+        'A species name has two parts: the genus and the species, e.g. Tliltocatl albopilosus (ICZN Art. 5.1).',
+      ],
+      suggestion: null,
+      parts: null,
+    };
   }
   if (UNDESCRIBED.test(species)) {
     const rest = tokens.slice(i).join(' ');
     const fixedGenus = capitalised(latinise(genus));
-    if (fixedGenus !== genus) problems.push(`The genus is written with a capital and in Latin letters: ${fixedGenus}.`);
+    if (fixedGenus !== genus)
+      problems.push(`The genus is written with a capital and in Latin letters: ${fixedGenus}.`);
     const suggestion = [fixedGenus, 'sp.', rest].filter(Boolean).join(' ');
-    return { ok: problems.length === 0, problems, suggestion: problems.length ? suggestion : null, parts: { genus: fixedGenus, subgenus: null, species: 'sp.', subspecies: null, authorship: rest || null } };
+    return {
+      ok: problems.length === 0,
+      problems,
+      suggestion: problems.length ? suggestion : null,
+      parts: {
+        genus: fixedGenus,
+        subgenus: null,
+        species: 'sp.',
+        subspecies: null,
+        authorship: rest || null,
+      },
+    };
   }
   let subspecies: string | null = null;
   const next = tokens[i];
-  if (next && !next.startsWith('(') && /^[\p{Ll}]/u.test(next) && !/\d/.test(next) && !/^(and|et|in|de|von|van|da|du)$/.test(next)) {
+  if (
+    next &&
+    !next.startsWith('(') &&
+    /^[\p{Ll}]/u.test(next) &&
+    !/\d/.test(next) &&
+    !/^(and|et|in|de|von|van|da|du)$/.test(next)
+  ) {
     subspecies = tokens[i++]!;
   }
   const authorship = tokens.slice(i).join(' ') || null;
@@ -88,19 +120,39 @@ export function checkScientificName(raw: string): NameCheck {
   };
   const nameParts = [genus, subgenus, species, subspecies].filter((p): p is string => p !== null);
   if (nameParts.some((p) => !LATIN.test(p))) {
-    problems.push('Scientific names use the 26 Latin letters only: no accents, hyphens, digits or other marks (ICZN Art. 11.2, 32.5.2).');
+    problems.push(
+      'Scientific names use the 26 Latin letters only: no accents, hyphens, digits or other marks (ICZN Art. 11.2, 32.5.2).',
+    );
   }
-  if (fixed.genus !== latinise(genus) || (subgenus !== null && fixed.subgenus !== latinise(subgenus))) {
-    problems.push('The genus (and a subgenus) starts with a capital letter, the rest in lower case (ICZN Art. 28).');
+  if (
+    fixed.genus !== latinise(genus) ||
+    (subgenus !== null && fixed.subgenus !== latinise(subgenus))
+  ) {
+    problems.push(
+      'The genus (and a subgenus) starts with a capital letter, the rest in lower case (ICZN Art. 28).',
+    );
   }
-  if (fixed.species !== latinise(species) || (subspecies !== null && fixed.subspecies !== latinise(subspecies))) {
-    problems.push('The species part is all lower case, even when it honours a person or place (ICZN Art. 28).');
+  if (
+    fixed.species !== latinise(species) ||
+    (subspecies !== null && fixed.subspecies !== latinise(subspecies))
+  ) {
+    problems.push(
+      'The species part is all lower case, even when it honours a person or place (ICZN Art. 28).',
+    );
   }
   if (!fixed.genus || !fixed.species) problems.push('The genus and the species each need letters.');
   if (authorship !== null && !AUTHORSHIP.test(authorship)) {
-    problems.push('Write the author and year as “Author, 1758”, or “(Author, 1758)” when the species now sits in another genus (ICZN Art. 51.3).');
+    problems.push(
+      'Write the author and year as “Author, 1758”, or “(Author, 1758)” when the species now sits in another genus (ICZN Art. 51.3).',
+    );
   }
-  const suggestionText = [fixed.genus, fixed.subgenus ? `(${fixed.subgenus})` : null, fixed.species, fixed.subspecies, authorship]
+  const suggestionText = [
+    fixed.genus,
+    fixed.subgenus ? `(${fixed.subgenus})` : null,
+    fixed.species,
+    fixed.subspecies,
+    authorship,
+  ]
     .filter(Boolean)
     .join(' ');
   return {

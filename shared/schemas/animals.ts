@@ -30,7 +30,16 @@ export type LocationSummary = z.infer<typeof locationSummary>;
 
 /** A stored location row as the API shows it. */
 export function toLocationSummary(l: LocationSummary | null): LocationSummary | null {
-  return l ? { id: l.id, room: l.room, rack: l.rack, shelf: l.shelf, position: l.position, walkOrder: l.walkOrder } : null;
+  return l
+    ? {
+        id: l.id,
+        room: l.room,
+        rack: l.rack,
+        shelf: l.shelf,
+        position: l.position,
+        walkOrder: l.walkOrder,
+      }
+    : null;
 }
 
 export const animalSummary = z.object({
@@ -84,7 +93,12 @@ export const scientificName = z
   .superRefine((name, ctx) => {
     const check = checkScientificName(name);
     if (!check.ok) {
-      ctx.addIssue({ code: 'custom', message: check.suggestion ? `${check.problems[0]} Did you mean “${check.suggestion}”?` : check.problems[0]! });
+      ctx.addIssue({
+        code: 'custom',
+        message: check.suggestion
+          ? `${check.problems[0]} Did you mean “${check.suggestion}”?`
+          : check.problems[0]!,
+      });
     }
   });
 
@@ -99,7 +113,10 @@ export function stageProblem(group: AnimalGroup, stage: LifeStage): string | nul
 }
 
 /** Checks that the life stage is one the group has; added to every schema built from the fields. */
-export function checkStageFitsGroup(value: { group: AnimalGroup; lifeStage: LifeStage }, ctx: z.RefinementCtx) {
+export function checkStageFitsGroup(
+  value: { group: AnimalGroup; lifeStage: LifeStage },
+  ctx: z.RefinementCtx,
+) {
   const problem = stageProblem(value.group, value.lifeStage);
   if (problem) ctx.addIssue({ code: 'custom', message: problem, path: ['lifeStage'] });
 }
@@ -113,19 +130,32 @@ export const animalFields = z.object({
     .string()
     .trim()
     .transform((s) => normaliseLabelCode(s))
-    .refine((s) => s === '' || isLabelCode(s), { message: `Label codes look like NL-7K3: 2–4 characters, a dash, 3–5 characters, from ${LABEL_ALPHABET}.` })
+    .refine((s) => s === '' || isLabelCode(s), {
+      message: `Label codes look like NL-7K3: 2–4 characters, a dash, 3–5 characters, from ${LABEL_ALPHABET}.`,
+    })
     .optional(),
-  name: z.string().trim().min(1, { message: 'Give the animal a name or a short tag.' }).max(80, { message: 'Keep the name under 80 characters.' }),
+  name: z
+    .string()
+    .trim()
+    .min(1, { message: 'Give the animal a name or a short tag.' })
+    .max(80, { message: 'Keep the name under 80 characters.' }),
   scientificName,
   commonName: optionalText(80, 'The common name'),
   group: z.enum(ANIMAL_GROUPS, { message: 'Choose a group.' }),
   lifeStage: z.enum(LIFE_STAGES, { message: 'Choose a life stage.' }),
   sex: z.enum(SEXES, { message: 'Choose a sex (or unknown).' }),
-  sizeMm: z.number({ message: 'Give the size as a number.' }).positive({ message: 'The size must be above 0.' }).max(400, { message: 'That is larger than any invertebrate we know (400 mm at most).' }).nullable(),
+  sizeMm: z
+    .number({ message: 'Give the size as a number.' })
+    .positive({ message: 'The size must be above 0.' })
+    .max(400, { message: 'That is larger than any invertebrate we know (400 mm at most).' })
+    .nullable(),
   acquiredOn: localDate.nullable(),
   source: optionalText(200, 'The source'),
   locationId: z.uuid({ message: 'Choose a place from the list.' }).nullable(),
-  cautions: z.array(z.enum(CAUTIONS)).max(CAUTIONS.length).refine((c) => new Set(c).size === c.length, { message: 'Each caution once.' }),
+  cautions: z
+    .array(z.enum(CAUTIONS))
+    .max(CAUTIONS.length)
+    .refine((c) => new Set(c).size === c.length, { message: 'Each caution once.' }),
   cautionNote: optionalText(CAUTION_NOTE_MAX, 'The caution note'),
   notes: optionalText(4000, 'Notes'),
   clutch: optionalText(80, 'The clutch name'),
@@ -139,14 +169,19 @@ export type AnimalValues = z.output<typeof animalInput>;
 
 export const RETIRED_STATUSES = ANIMAL_STATUSES.filter((s) => s !== 'active');
 export const retireBody = z.object({
-  status: z.enum(RETIRED_STATUSES as ['sold', 'deceased', 'rehomed', 'on_loan'], { message: 'Choose sold, deceased, rehomed or on loan.' }),
+  status: z.enum(RETIRED_STATUSES as ['sold', 'deceased', 'rehomed', 'on_loan'], {
+    message: 'Choose sold, deceased, rehomed or on loan.',
+  }),
   date: localDate,
   note: optionalText(500, 'The note'),
 });
 export type RetireBody = z.input<typeof retireBody>;
 
 export const moveBody = z.object({
-  animalIds: z.array(z.uuid({ message: 'This id is not valid.' })).min(1, { message: 'Choose at least one animal.' }).max(5000),
+  animalIds: z
+    .array(z.uuid({ message: 'This id is not valid.' }))
+    .min(1, { message: 'Choose at least one animal.' })
+    .max(5000),
   locationId: z.uuid({ message: 'Choose a place from the list.' }),
   /** Into a new enclosure (not just a new place on the rack): starts a settling period (R16). */
   rehoused: z.boolean({ message: 'Say yes or no: a new enclosure?' }).optional(),

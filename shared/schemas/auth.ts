@@ -35,7 +35,10 @@ const existingPassword = z
 export const signUpBody = z.object({ email });
 export type SignUpBody = z.infer<typeof signUpBody>;
 
-export const signUpToken = z.string().min(20, { message: 'This sign-up link is not valid.' }).max(200, { message: 'This sign-up link is not valid.' });
+export const signUpToken = z
+  .string()
+  .min(20, { message: 'This sign-up link is not valid.' })
+  .max(200, { message: 'This sign-up link is not valid.' });
 
 /** What the sign-up link's page asks for. */
 export const accountDetails = z.object({

@@ -14,7 +14,10 @@ import './messages';
 export const BACKUP_FORMAT = 'rackside-backup';
 export const BACKUP_VERSION = 1;
 
-const instant = z.iso.datetime({ offset: true, message: 'Give a date and time such as 2026-12-02T09:30:00Z.' });
+const instant = z.iso.datetime({
+  offset: true,
+  message: 'Give a date and time such as 2026-12-02T09:30:00Z.',
+});
 
 const photo = z
   .string()
@@ -32,7 +35,9 @@ const photo = z
 
 export const backupHeader = {
   format: z.literal(BACKUP_FORMAT, { message: 'This is not a Rackside backup file.' }),
-  version: z.literal(BACKUP_VERSION, { message: `This backup was made by another version of Rackside (this one reads version ${BACKUP_VERSION}).` }),
+  version: z.literal(BACKUP_VERSION, {
+    message: `This backup was made by another version of Rackside (this one reads version ${BACKUP_VERSION}).`,
+  }),
   exportedAt: instant,
 };
 
@@ -40,12 +45,20 @@ export const backupCollection = z.object({
   name: accountDetails.shape.collectionName,
   timeZone,
   // A backup made before care profiles holds rules in the older shape: read as the app reads them.
-  rules: z.preprocess((rules) => (rules && typeof rules === 'object' ? upgradeOverride(rules as RulesOverride) : rules), rulesOverride),
+  rules: z.preprocess(
+    (rules) =>
+      rules && typeof rules === 'object' ? upgradeOverride(rules as RulesOverride) : rules,
+    rulesOverride,
+  ),
 });
 
 export const backupPlace = locationInput.extend({
   id: uuid,
-  walkOrder: z.number().int().min(0, { message: 'The walk order cannot be below 0.' }).max(1_000_000_000),
+  walkOrder: z
+    .number()
+    .int()
+    .min(0, { message: 'The walk order cannot be below 0.' })
+    .max(1_000_000_000),
 });
 export type BackupPlace = z.input<typeof backupPlace>;
 
@@ -54,7 +67,9 @@ const care = careSettingsBody.required().shape;
 
 export const backupAnimal = z.object({
   id: uuid,
-  labelCode: labelCode.unwrap().refine((code) => code !== '', { message: 'Every animal in a backup needs its label code.' }),
+  labelCode: labelCode
+    .unwrap()
+    .refine((code) => code !== '', { message: 'Every animal in a backup needs its label code.' }),
   ...entered,
   ...care,
   // Added with care profiles: backups made before it have no diet (the group's usual).
@@ -74,7 +89,11 @@ export const backupEggSac = z.object({
   id: uuid,
   femaleId: uuid,
   kind: z.enum(BREEDING_RECORDS, { message: 'Choose an egg sac, an egg case or a brood.' }),
-  clutch: z.string().trim().min(1, { message: 'Every record needs its clutch name.' }).max(80, { message: 'Keep the clutch name under 80 characters.' }),
+  clutch: z
+    .string()
+    .trim()
+    .min(1, { message: 'Every record needs its clutch name.' })
+    .max(80, { message: 'Keep the clutch name under 80 characters.' }),
   laidOn: localDate,
   pulledOn: localDate.nullable(),
   hatchedOn: localDate.nullable(),
@@ -102,7 +121,13 @@ export const backupEvent = z
     serverReceivedAt: instant,
     effectiveAt: instant,
     // Marks the server adds (clock corrections and the like): short words, stored as a list.
-    flags: z.array(z.string().regex(/^[a-z_]{1,40}$/, { message: 'A flag is a short word such as clock_corrected.' })).max(10),
+    flags: z
+      .array(
+        z
+          .string()
+          .regex(/^[a-z_]{1,40}$/, { message: 'A flag is a short word such as clock_corrected.' }),
+      )
+      .max(10),
     /** A molt's photo, base64 WebP, when there is one. */
     photo: photo.optional(),
   })
@@ -111,8 +136,14 @@ export const backupEvent = z
     // changes included: a backup holds those too).
     const result = EVENT_PAYLOADS[event.kind].safeParse(event.payload);
     if (!result.success) {
-      for (const issue of result.error.issues) ctx.addIssue({ code: 'custom', path: ['payload', ...issue.path.map(String)], message: issue.message });
+      for (const issue of result.error.issues)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['payload', ...issue.path.map(String)],
+          message: issue.message,
+        });
     }
-    if (event.photo && event.kind !== 'molted') ctx.addIssue({ code: 'custom', path: ['photo'], message: 'Only a molt can have a photo.' });
+    if (event.photo && event.kind !== 'molted')
+      ctx.addIssue({ code: 'custom', path: ['photo'], message: 'Only a molt can have a photo.' });
   });
 export type BackupEvent = z.input<typeof backupEvent>;

@@ -3,13 +3,30 @@ import { ANIMAL_GROUPS } from '../domain/animal-facts';
 import { BREEDING_RECORDS } from '../domain/breeding';
 import { localDate, uuid } from './common';
 
-const days = z.number().int().min(7, { message: 'At least 7 days.' }).max(400, { message: 'At most 400 days.' });
-const count = (what: string) => z.number().int().min(0, { message: `${what} cannot be negative.` }).max(5000, { message: `${what}: 5,000 at most.` }).nullable();
-const notes = z.string().trim().max(2000, { message: 'Keep notes under 2,000 characters.' }).nullable();
+const days = z
+  .number()
+  .int()
+  .min(7, { message: 'At least 7 days.' })
+  .max(400, { message: 'At most 400 days.' });
+const count = (what: string) =>
+  z
+    .number()
+    .int()
+    .min(0, { message: `${what} cannot be negative.` })
+    .max(5000, { message: `${what}: 5,000 at most.` })
+    .nullable();
+const notes = z
+  .string()
+  .trim()
+  .max(2000, { message: 'Keep notes under 2,000 characters.' })
+  .nullable();
 
 export const incubationBody = z
   .object({ minDays: days, maxDays: days })
-  .refine((d) => d.maxDays >= d.minDays, { message: 'The longest wait cannot be shorter than the shortest.', path: ['maxDays'] });
+  .refine((d) => d.maxDays >= d.minDays, {
+    message: 'The longest wait cannot be shorter than the shortest.',
+    path: ['maxDays'],
+  });
 
 /**
  * A sac, egg case or brood: which one follows the female's group (`breedingModeOf`). `laidOn`
@@ -18,7 +35,11 @@ export const incubationBody = z
 export const eggSacBody = z.object({
   femaleId: uuid,
   laidOn: localDate,
-  clutch: z.string().trim().max(80, { message: 'Keep the clutch name under 80 characters.' }).optional(),
+  clutch: z
+    .string()
+    .trim()
+    .max(80, { message: 'Keep the clutch name under 80 characters.' })
+    .optional(),
   incubation: incubationBody.optional(),
   eggCount: count('Eggs').optional(),
   slingCount: count('Young').optional(),
@@ -41,8 +62,16 @@ export type EggSacChange = z.input<typeof eggSacChange>;
 
 export const MAX_SLINGS_AT_ONCE = 500;
 export const slingsBody = z.object({
-  count: z.number().int().min(1, { message: 'Create at least one sling.' }).max(MAX_SLINGS_AT_ONCE, { message: `At most ${MAX_SLINGS_AT_ONCE} at once.` }),
-  namePrefix: z.string().trim().min(1, { message: 'Give the slings a name to number, e.g. “Formosus”.' }).max(60),
+  count: z
+    .number()
+    .int()
+    .min(1, { message: 'Create at least one sling.' })
+    .max(MAX_SLINGS_AT_ONCE, { message: `At most ${MAX_SLINGS_AT_ONCE} at once.` }),
+  namePrefix: z
+    .string()
+    .trim()
+    .min(1, { message: 'Give the slings a name to number, e.g. “Formosus”.' })
+    .max(60),
   room: z.string().trim().min(1, { message: 'Name the room.' }).max(40),
   rack: z.string().trim().min(1, { message: 'Name the rack.' }).max(40),
   shelf: z.string().trim().min(1, { message: 'Name the shelf or tray.' }).max(40),

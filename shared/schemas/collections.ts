@@ -20,8 +20,16 @@ export const memberResponse = z.object({
   endsAt: z.string().nullable(),
 });
 
-export const pendingInvite = z.object({ id: z.string(), email: z.string(), sentAt: z.string(), expiresAt: z.string() });
-export const membersResponse = z.object({ members: z.array(memberResponse), invites: z.array(pendingInvite) });
+export const pendingInvite = z.object({
+  id: z.string(),
+  email: z.string(),
+  sentAt: z.string(),
+  expiresAt: z.string(),
+});
+export const membersResponse = z.object({
+  members: z.array(memberResponse),
+  invites: z.array(pendingInvite),
+});
 export type MembersResponse = z.infer<typeof membersResponse>;
 
 /** Owners invite keepers by e-mail here (they join by accepting); helpers through a cover invite. */
@@ -31,7 +39,11 @@ export const memberParams = z.object({ collectionId: uuid, userId: uuid });
 
 /** Deleting a collection is confirmed by typing its name, as the settings screen asks. */
 export const deleteCollectionBody = z.object({
-  confirmName: z.string({ message: 'Type the collection’s name to confirm.' }).trim().min(1, { message: 'Type the collection’s name to confirm.' }).max(200, { message: 'That is not the collection’s name.' }),
+  confirmName: z
+    .string({ message: 'Type the collection’s name to confirm.' })
+    .trim()
+    .min(1, { message: 'Type the collection’s name to confirm.' })
+    .max(200, { message: 'That is not the collection’s name.' }),
 });
 export type DeleteCollectionBody = z.infer<typeof deleteCollectionBody>;
 

@@ -4,6 +4,14 @@ import { z } from 'zod';
 export const devMailResponse = z.object({
   /** `mine` from another device: only the signed-in owner's own e-mail. */
   scope: z.enum(['all', 'mine']),
-  messages: z.array(z.object({ id: z.string(), to: z.array(z.string()), subject: z.string(), text: z.string(), receivedAt: z.string() })),
+  messages: z.array(
+    z.object({
+      id: z.string(),
+      to: z.array(z.string()),
+      subject: z.string(),
+      text: z.string(),
+      receivedAt: z.string(),
+    }),
+  ),
 });
 export type DevMailResponse = z.infer<typeof devMailResponse>;

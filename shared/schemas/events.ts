@@ -43,10 +43,14 @@ export const EVENT_PAYLOADS = {
   premolt_cleared: empty,
   molting_now: empty,
   sac_laid: breedingRecord,
-  sac_pulled: breedingRecord.extend({ eggCount: z.number().int().min(0).max(5000).optional() }).strict(),
+  sac_pulled: breedingRecord
+    .extend({ eggCount: z.number().int().min(0).max(5000).optional() })
+    .strict(),
   sac_hatched: breedingRecord,
   case_laid: breedingRecord,
-  brood_started: breedingRecord.extend({ count: z.number().int().min(0).max(5000).optional() }).strict(),
+  brood_started: breedingRecord
+    .extend({ count: z.number().int().min(0).max(5000).optional() })
+    .strict(),
   brood_dispersed: breedingRecord,
   paired: z
     .object({
@@ -66,17 +70,40 @@ export const EVENT_PAYLOADS = {
     })
     .strict(),
   moved: z
-    .object({ fromLocationId: uuid.nullable().optional(), toLocationId: uuid, rehoused: z.boolean().optional(), note })
+    .object({
+      fromLocationId: uuid.nullable().optional(),
+      toLocationId: uuid,
+      rehoused: z.boolean().optional(),
+      note,
+    })
     .strict(),
-  status_changed: z.object({ from: z.enum(ANIMAL_STATUSES), to: z.enum(ANIMAL_STATUSES), note }).strict(),
+  status_changed: z
+    .object({ from: z.enum(ANIMAL_STATUSES), to: z.enum(ANIMAL_STATUSES), note })
+    .strict(),
 } satisfies Record<(typeof EVENT_KINDS)[number], z.ZodType>;
 
 /**
  * Facts the server records itself, never sent by a phone: moves and status changes, and the
  * breeding facts written from a sac, case or brood record (its dates are the truth for them).
  */
-export const SERVER_EVENT_KINDS: readonly EventKind[] = ['moved', 'status_changed', 'sac_laid', 'sac_pulled', 'sac_hatched', 'case_laid', 'brood_started', 'brood_dispersed'];
-const BREEDING_RECORD_KINDS: readonly EventKind[] = ['sac_laid', 'sac_pulled', 'sac_hatched', 'case_laid', 'brood_started', 'brood_dispersed'];
+export const SERVER_EVENT_KINDS: readonly EventKind[] = [
+  'moved',
+  'status_changed',
+  'sac_laid',
+  'sac_pulled',
+  'sac_hatched',
+  'case_laid',
+  'brood_started',
+  'brood_dispersed',
+];
+const BREEDING_RECORD_KINDS: readonly EventKind[] = [
+  'sac_laid',
+  'sac_pulled',
+  'sac_hatched',
+  'case_laid',
+  'brood_started',
+  'brood_dispersed',
+];
 
 export const eventKind = z.enum(EVENT_KINDS);
 

@@ -3,7 +3,8 @@ import { z } from 'zod';
 import { fieldLabel, isGenericMessage } from './messages';
 
 describe('readable validation messages', () => {
-  const first = (schema: z.ZodType, value: unknown) => schema.safeParse(value).error!.issues[0]!.message;
+  const first = (schema: z.ZodType, value: unknown) =>
+    schema.safeParse(value).error!.issues[0]!.message;
 
   it('says what to do for the built-in checks', () => {
     expect(first(z.object({ name: z.string() }), {})).toBe('This is required.');

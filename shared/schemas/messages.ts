@@ -31,7 +31,9 @@ export function readableMessage(issue: Issue): string | undefined {
       return `This should be ${TYPE_WORDS[issue.expected] ?? issue.expected}.`;
     case 'invalid_value': {
       const values = issue.values.map((v: unknown) => JSON.stringify(v));
-      return values.length <= 10 ? `Choose one of ${values.join(', ')}.` : 'This value is not one of the choices.';
+      return values.length <= 10
+        ? `Choose one of ${values.join(', ')}.`
+        : 'This value is not one of the choices.';
     }
     case 'too_small': {
       if (issue.origin === 'string' && Number(issue.minimum) === 1) return 'This cannot be empty.';
@@ -65,14 +67,22 @@ export function readableMessage(issue: Issue): string | undefined {
 
 z.config({ customError: readableMessage });
 
-const GENERIC = /^(This is required|This should be |Choose one of |This cannot be empty|Use |This id is not valid|This is not in the expected form|This value is not|This does not match|Something in this list|Unexpected field)/;
+const GENERIC =
+  /^(This is required|This should be |Choose one of |This cannot be empty|Use |This id is not valid|This is not in the expected form|This value is not|This does not match|Something in this list|Unexpected field)/;
 
 /** Whether a message is one of the generic ones above, which make sense only beside their field. */
 export const isGenericMessage = (message: string) => GENERIC.test(message);
 
 /** `body.care.intervalDays` → "Interval days": the field a message is about, for one-line errors. */
 export function fieldLabel(path: string): string {
-  const last = path.split('.').filter((p) => !/^\d+$/.test(p)).pop() ?? path;
-  const words = last.replace(/([a-z])([A-Z])/g, '$1 $2').replace(/[_-]+/g, ' ').toLowerCase();
+  const last =
+    path
+      .split('.')
+      .filter((p) => !/^\d+$/.test(p))
+      .pop() ?? path;
+  const words = last
+    .replace(/([a-z])([A-Z])/g, '$1 $2')
+    .replace(/[_-]+/g, ' ')
+    .toLowerCase();
   return words.charAt(0).toUpperCase() + words.slice(1);
 }

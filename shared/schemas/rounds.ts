@@ -5,7 +5,12 @@ import { TASK_KINDS } from '../domain/rounds/build-round';
 import { locationSummary } from './animals';
 
 export const reason = z.object({ code: z.string(), text: z.string(), dates: z.array(z.string()) });
-export const offer = z.object({ preyType: z.string(), preySize: z.string(), countMin: z.number(), countMax: z.number() });
+export const offer = z.object({
+  preyType: z.string(),
+  preySize: z.string(),
+  countMin: z.number(),
+  countMax: z.number(),
+});
 
 export const outcome = z.object({
   eventId: z.string(),
@@ -55,7 +60,13 @@ export const roundItem = z.object({
 });
 export type RoundItemView = z.infer<typeof roundItem>;
 
-export const prepLine = z.object({ preyType: z.string(), preySize: z.string(), countMin: z.number(), countMax: z.number(), animals: z.number() });
+export const prepLine = z.object({
+  preyType: z.string(),
+  preySize: z.string(),
+  countMin: z.number(),
+  countMax: z.number(),
+  animals: z.number(),
+});
 export type PrepLineView = z.infer<typeof prepLine>;
 
 export const roundResponse = z.object({

@@ -1,5 +1,12 @@
 import { z } from 'zod';
-import { ANIMAL_GROUPS, DIETS, LIFE_STAGES, stageLabel, type AnimalGroup, type LifeStage } from '../domain/animal-facts';
+import {
+  ANIMAL_GROUPS,
+  DIETS,
+  LIFE_STAGES,
+  stageLabel,
+  type AnimalGroup,
+  type LifeStage,
+} from '../domain/animal-facts';
 import { DEFAULT_PROFILES, HYDRATIONS } from '../domain/rounds/care-profiles';
 import type { RoundRules, RulesOverride } from '../domain/rounds/rules';
 import { localDate } from './common';
@@ -23,12 +30,31 @@ const GROUP_WORD: Record<AnimalGroup, string> = {
 
 export const offerSchema = z
   .object({
-    preyType: z.string().trim().min(1, { message: 'Name the prey.' }).max(40, { message: 'Keep the prey name under 40 characters.' }),
-    preySize: z.string().trim().min(1, { message: 'Give a prey size.' }).max(20, { message: 'Keep the size under 20 characters.' }),
-    countMin: z.number({ message: 'Give a number.' }).int({ message: 'Give a whole number.' }).min(1, { message: 'Offer at least one.' }).max(20, { message: 'At most 20 at a time.' }),
-    countMax: z.number({ message: 'Give a number.' }).int({ message: 'Give a whole number.' }).min(1, { message: 'Offer at least one.' }).max(20, { message: 'At most 20 at a time.' }),
+    preyType: z
+      .string()
+      .trim()
+      .min(1, { message: 'Name the prey.' })
+      .max(40, { message: 'Keep the prey name under 40 characters.' }),
+    preySize: z
+      .string()
+      .trim()
+      .min(1, { message: 'Give a prey size.' })
+      .max(20, { message: 'Keep the size under 20 characters.' }),
+    countMin: z
+      .number({ message: 'Give a number.' })
+      .int({ message: 'Give a whole number.' })
+      .min(1, { message: 'Offer at least one.' })
+      .max(20, { message: 'At most 20 at a time.' }),
+    countMax: z
+      .number({ message: 'Give a number.' })
+      .int({ message: 'Give a whole number.' })
+      .min(1, { message: 'Offer at least one.' })
+      .max(20, { message: 'At most 20 at a time.' }),
   })
-  .refine((o) => o.countMin <= o.countMax, { message: 'The smallest count cannot be larger than the largest.', path: ['countMax'] });
+  .refine((o) => o.countMin <= o.countMax, {
+    message: 'The smallest count cannot be larger than the largest.',
+    path: ['countMax'],
+  });
 
 /** The numbers of one fed stage of one group (docs/care-rules.md § Care profiles). */
 function stageOverride(group: AnimalGroup, stage: LifeStage) {
@@ -56,7 +82,9 @@ function profileOverride(group: AnimalGroup) {
   const word = GROUP_WORD[group];
   return z
     .object({
-      stages: z.object(Object.fromEntries(stages.map((s) => [s, stageOverride(group, s).optional()]))).strict(),
+      stages: z
+        .object(Object.fromEntries(stages.map((s) => [s, stageOverride(group, s).optional()])))
+        .strict(),
       hydration: z.enum(HYDRATIONS, { message: 'Choose moisten, mist or none.' }),
       hydrateEveryDays: days(1, 30, `Watering ${word}s without a dish`),
       hydrateBelowMm: z
@@ -72,8 +100,16 @@ function profileOverride(group: AnimalGroup) {
 /** R19: one size of one feeder the collection keeps. */
 export const feederSchema = z
   .object({
-    preyType: z.string().trim().min(1, { message: 'Name the prey.' }).max(40, { message: 'Keep the prey name under 40 characters.' }),
-    preySize: z.string().trim().min(1, { message: 'Give a size name.' }).max(20, { message: 'Keep the size under 20 characters.' }),
+    preyType: z
+      .string()
+      .trim()
+      .min(1, { message: 'Name the prey.' })
+      .max(40, { message: 'Keep the prey name under 40 characters.' }),
+    preySize: z
+      .string()
+      .trim()
+      .min(1, { message: 'Give a size name.' })
+      .max(20, { message: 'Keep the size under 20 characters.' }),
     lengthMm: z
       .number({ message: 'Give the length in mm.' })
       .positive({ message: 'The length must be more than 0 mm.' })
@@ -88,7 +124,12 @@ const feeders = z
     const seen = new Set<string>();
     list.forEach((f, i) => {
       const key = `${f.preyType.toLowerCase()}|${f.preySize.toLowerCase()}`;
-      if (seen.has(key)) ctx.addIssue({ code: 'custom', message: `“${f.preySize} ${f.preyType}” is in the catalogue twice.`, path: [i, 'preySize'] });
+      if (seen.has(key))
+        ctx.addIssue({
+          code: 'custom',
+          message: `“${f.preySize} ${f.preyType}” is in the catalogue twice.`,
+          path: [i, 'preySize'],
+        });
       seen.add(key);
     });
   });
@@ -96,10 +137,15 @@ const feeders = z
 /** A collection's changes to the default rules; every key optional, every value bounded. */
 export const rulesOverride = z
   .object({
-    profiles: z.object(Object.fromEntries(ANIMAL_GROUPS.map((g) => [g, profileOverride(g).optional()]))).strict(),
+    profiles: z
+      .object(Object.fromEntries(ANIMAL_GROUPS.map((g) => [g, profileOverride(g).optional()])))
+      .strict(),
     premoltCheckDays: days(1, 30, 'The premolt check'),
     waterEveryDays: days(1, 30, 'Watering'),
-    rebuildFactor: z.number({ message: 'The rebuild factor must be a number.' }).min(0.1, { message: 'The rebuild factor must be at least 0.1.' }).max(1, { message: 'The rebuild factor can be at most 1 (no change).' }),
+    rebuildFactor: z
+      .number({ message: 'The rebuild factor must be a number.' })
+      .min(0.1, { message: 'The rebuild factor must be at least 0.1.' })
+      .max(1, { message: 'The rebuild factor can be at most 1 (no change).' }),
     rebuildDays: days(0, 365, 'The rebuild period'),
     settlingDays: days(0, 30, 'The settling period'),
     preyStayCheckDays: days(1, 14, 'The check on prey left in'),
@@ -115,7 +161,10 @@ export const rulesOverride = z
       .number({ message: 'The body share of the leg span must be a number.' })
       .min(0.2, { message: 'The body share of the leg span must be at least 0.2.' })
       .max(0.6, { message: 'The body share of the leg span can be at most 0.6.' }),
-    tinySlingMm: z.number({ message: 'The tiny sling size must be a number.' }).min(1, { message: 'The tiny sling size must be at least 1 mm.' }).max(100, { message: 'The tiny sling size can be at most 100 mm.' }),
+    tinySlingMm: z
+      .number({ message: 'The tiny sling size must be a number.' })
+      .min(1, { message: 'The tiny sling size must be at least 1 mm.' })
+      .max(100, { message: 'The tiny sling size can be at most 100 mm.' }),
     feeders,
   })
   .partial()
@@ -123,7 +172,9 @@ export const rulesOverride = z
 export type RulesOverrideBody = z.infer<typeof rulesOverride>;
 
 /** What an animal fed "by diet" eats (beetle adults, other invertebrates); null: its group's usual. */
-export const dietSetting = z.enum(DIETS, { message: 'Choose live prey, fruit or jelly, plant food or leaf litter.' }).nullable();
+export const dietSetting = z
+  .enum(DIETS, { message: 'Choose live prey, fruit or jelly, plant food or leaf litter.' })
+  .nullable();
 
 /** Per-animal care settings the engine honours; null clears a setting. */
 export const careSettingsBody = z
@@ -131,7 +182,12 @@ export const careSettingsBody = z
     intervalDays: days(1, 90, 'The interval').nullable(),
     preyType: z.string().trim().min(1).max(40).nullable(),
     preySize: z.string().trim().min(1).max(20).nullable(),
-    preyCount: z.number().int().min(1, { message: 'Offer at least one.' }).max(20, { message: 'At most 20 at a time.' }).nullable(),
+    preyCount: z
+      .number()
+      .int()
+      .min(1, { message: 'Offer at least one.' })
+      .max(20, { message: 'At most 20 at a time.' })
+      .nullable(),
     diet: dietSetting,
     hasWaterDish: z.boolean(),
     doNotFeedUntil: localDate.nullable(),
@@ -141,14 +197,25 @@ export const careSettingsBody = z
 export type CareSettingsBody = z.infer<typeof careSettingsBody>;
 
 /** A collection's rules in full, as the server works them out (the answer, not a body: no bounds). */
-const offerShown = z.object({ preyType: z.string(), preySize: z.string(), countMin: z.number(), countMax: z.number() });
+const offerShown = z.object({
+  preyType: z.string(),
+  preySize: z.string(),
+  countMin: z.number(),
+  countMax: z.number(),
+});
 const roundRules: z.ZodType<RoundRules> = z.object({
   profiles: z.record(
     z.enum(ANIMAL_GROUPS),
     z.object({
       stages: z.partialRecord(
         z.enum(LIFE_STAGES),
-        z.object({ feedEveryDays: z.number(), refusalRetryDays: z.number(), refusalStreak: z.number(), postMoltHoldDays: z.number(), offer: offerShown }),
+        z.object({
+          feedEveryDays: z.number(),
+          refusalRetryDays: z.number(),
+          refusalStreak: z.number(),
+          postMoltHoldDays: z.number(),
+          offer: offerShown,
+        }),
       ),
       hydration: z.enum(HYDRATIONS),
       hydrateEveryDays: z.number(),
@@ -172,6 +239,8 @@ export const rulesResponse = z.object({
   rules: roundRules,
   defaults: roundRules,
   /** As stored: overrides saved before care profiles keep their older keys (`upgradeOverride`). */
-  overrides: z.custom<RulesOverride>((v) => typeof v === 'object' && v !== null && !Array.isArray(v)),
+  overrides: z.custom<RulesOverride>(
+    (v) => typeof v === 'object' && v !== null && !Array.isArray(v),
+  ),
 });
 export type RulesResponse = z.infer<typeof rulesResponse>;

@@ -4,9 +4,22 @@ import { noContent } from '#shared/schemas/common';
 import { ApiError, apiRaw, apiRequest } from './api-client';
 
 const answer = (status: number, body?: unknown, type = 'application/json') =>
-  vi.stubGlobal('fetch', vi.fn(async () => new Response(body === undefined ? null : typeof body === 'string' ? body : JSON.stringify(body), { status, headers: { 'Content-Type': type } })));
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(
+      async () =>
+        new Response(
+          body === undefined ? null : typeof body === 'string' ? body : JSON.stringify(body),
+          { status, headers: { 'Content-Type': type } },
+        ),
+    ),
+  );
 const thing = z.object({ id: z.string() });
-const failure = (work: Promise<unknown>) => work.then(() => expect.fail('expected a failure'), (err: unknown) => err as ApiError);
+const failure = (work: Promise<unknown>) =>
+  work.then(
+    () => expect.fail('expected a failure'),
+    (err: unknown) => err as ApiError,
+  );
 
 afterEach(() => vi.unstubAllGlobals());
 
@@ -23,7 +36,9 @@ describe('JSON mode', () => {
     answer(204);
     expect(await apiRequest('/things/a', { method: 'DELETE', schema: noContent })).toBeUndefined();
     answer(200, { id: 'a' });
-    expect((await failure(apiRequest('/things/a', { method: 'DELETE', schema: noContent }))).code).toBe('bad_response');
+    expect(
+      (await failure(apiRequest('/things/a', { method: 'DELETE', schema: noContent }))).code,
+    ).toBe('bad_response');
   });
 
   it('turns an answer that does not match its schema into a readable error, not a crash', async () => {
@@ -37,20 +52,38 @@ describe('JSON mode', () => {
   });
 
   it('gives the server’s own words and field issues for a failure, and a sentence for any other', async () => {
-    answer(422, { error: { code: 'invalid', message: 'Name the room.', issues: [{ path: 'body.room', message: 'Name the room.' }] } });
-    expect(await failure(apiRequest('/things', { method: 'POST', body: {}, schema: thing }))).toMatchObject({
+    answer(422, {
+      error: {
+        code: 'invalid',
+        message: 'Name the room.',
+        issues: [{ path: 'body.room', message: 'Name the room.' }],
+      },
+    });
+    expect(
+      await failure(apiRequest('/things', { method: 'POST', body: {}, schema: thing })),
+    ).toMatchObject({
       status: 422,
       code: 'invalid',
       message: 'Name the room.',
       issues: [{ path: 'body.room', message: 'Name the room.' }],
     });
     answer(502, '<html>Bad gateway</html>', 'text/html');
-    expect(await failure(apiRequest('/things', { schema: thing }))).toMatchObject({ status: 502, code: 'http_502', message: 'Rackside answered with an error (502). Try again.' });
+    expect(await failure(apiRequest('/things', { schema: thing }))).toMatchObject({
+      status: 502,
+      code: 'http_502',
+      message: 'Rackside answered with an error (502). Try again.',
+    });
   });
 
   it('says so when no answer came', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
-    expect(await failure(apiRequest('/things', { schema: thing }))).toMatchObject({ status: 0, code: 'offline' });
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
+    expect(await failure(apiRequest('/things', { schema: thing }))).toMatchObject({
+      status: 0,
+      code: 'offline',
+    });
   });
 
   it('sends JSON as JSON, and a file or a form as it is', async () => {
@@ -60,8 +93,15 @@ describe('JSON mode', () => {
     await apiRequest('/b', { method: 'POST', body: file, schema: noContent });
     const form = new FormData();
     await apiRequest('/c', { method: 'PUT', body: form, schema: noContent });
-    const [a, b, c] = vi.mocked(fetch).mock.calls.map(([, init]) => init!) as [RequestInit, RequestInit, RequestInit];
-    expect([a.body, a.headers]).toEqual(['{"x":1}', expect.objectContaining({ 'Content-Type': 'application/json' })]);
+    const [a, b, c] = vi.mocked(fetch).mock.calls.map(([, init]) => init!) as [
+      RequestInit,
+      RequestInit,
+      RequestInit,
+    ];
+    expect([a.body, a.headers]).toEqual([
+      '{"x":1}',
+      expect.objectContaining({ 'Content-Type': 'application/json' }),
+    ]);
     expect(b.body).toBe(file);
     expect(c.body).toBe(form);
     // The browser writes the multipart boundary itself.
@@ -78,10 +118,18 @@ describe('raw mode', () => {
   });
 
   it('throws when no answer came, and lets the caller’s own timeout through as it is', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
     expect(await failure(apiRaw('/x'))).toMatchObject({ status: 0, code: 'offline' });
     const timeout = AbortSignal.abort(new DOMException('Timed out', 'TimeoutError'));
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(timeout.reason)));
-    expect(await failure(apiRaw('/x', { signal: timeout }))).toMatchObject({ name: 'TimeoutError' });
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(timeout.reason)),
+    );
+    expect(await failure(apiRaw('/x', { signal: timeout }))).toMatchObject({
+      name: 'TimeoutError',
+    });
   });
 });

@@ -32,20 +32,30 @@ export type ResponseSchema<T> = z.ZodType<T>;
 
 const OFFLINE = 'No connection to Rackside right now. Check your signal and try again.';
 /** The usual cause is an app older than its server (a phone that kept last week's copy). */
-const UNREADABLE = 'Rackside sent an answer this app could not read. Reload the page, then try again.';
+const UNREADABLE =
+  'Rackside sent an answer this app could not read. Reload the page, then try again.';
 
 /**
  * Our error body, read without zod: the first screen ships without the schema library, which
  * loads with the screens that need it (P2, P4).
  */
 export function readErrorBody(data: unknown): ErrorBody['error'] | null {
-  const error = (data as { error?: unknown } | null)?.error as Partial<ErrorBody['error']> | undefined;
+  const error = (data as { error?: unknown } | null)?.error as
+    Partial<ErrorBody['error']> | undefined;
   if (!error || typeof error.code !== 'string' || typeof error.message !== 'string') return null;
-  return { code: error.code, message: error.message, issues: Array.isArray(error.issues) ? error.issues : undefined };
+  return {
+    code: error.code,
+    message: error.message,
+    issues: Array.isArray(error.issues) ? error.issues : undefined,
+  };
 }
 
 /** The one place fetch is called: our CSRF header, and no answer at all as an `offline` error. */
-async function send(path: string, { method = 'GET', body, signal }: RequestOptions, accept: string): Promise<Response> {
+async function send(
+  path: string,
+  { method = 'GET', body, signal }: RequestOptions,
+  accept: string,
+): Promise<Response> {
   const multipart = body instanceof FormData;
   try {
     return await fetch(`/api${path}`, {
@@ -56,7 +66,12 @@ async function send(path: string, { method = 'GET', body, signal }: RequestOptio
         'X-Rackside-Client': '1',
         ...(body === undefined || multipart ? {} : { 'Content-Type': 'application/json' }),
       },
-      body: body === undefined ? undefined : multipart || body instanceof Blob ? body : JSON.stringify(body),
+      body:
+        body === undefined
+          ? undefined
+          : multipart || body instanceof Blob
+            ? body
+            : JSON.stringify(body),
       signal,
     });
   } catch (err) {
@@ -70,7 +85,11 @@ async function send(path: string, { method = 'GET', body, signal }: RequestOptio
 export async function failureOf(res: Response): Promise<ApiError> {
   const error = readErrorBody(await res.json().catch(() => null));
   if (error) return new ApiError(res.status, error.code, error.message, error.issues);
-  return new ApiError(res.status, `http_${res.status}`, `Rackside answered with an error (${res.status}). Try again.`);
+  return new ApiError(
+    res.status,
+    `http_${res.status}`,
+    `Rackside answered with an error (${res.status}). Try again.`,
+  );
 }
 
 /**
@@ -78,7 +97,10 @@ export async function failureOf(res: Response): Promise<ApiError> {
  * `undefined`). A failure status throws the server's words; an answer that does not match the
  * schema throws `bad_response`, so a screen shows a sentence rather than breaking on bad data.
  */
-export async function apiRequest<T>(path: string, options: RequestOptions & { schema: ResponseSchema<T> }): Promise<T> {
+export async function apiRequest<T>(
+  path: string,
+  options: RequestOptions & { schema: ResponseSchema<T> },
+): Promise<T> {
   const res = await send(path, options, 'application/json');
   if (!res.ok) throw await failureOf(res);
   let data: unknown;
@@ -90,7 +112,8 @@ export async function apiRequest<T>(path: string, options: RequestOptions & { sc
     }
   }
   const checked = options.schema.safeParse(data);
-  if (!checked.success) throw new ApiError(res.status, 'bad_response', UNREADABLE, undefined, { cause: checked.error });
+  if (!checked.success)
+    throw new ApiError(res.status, 'bad_response', UNREADABLE, undefined, { cause: checked.error });
   return checked.data;
 }
 
@@ -99,6 +122,9 @@ export async function apiRequest<T>(path: string, options: RequestOptions & { sc
  * (the sync engine keeps a batch unless the server gave a verdict on each tap) or a body that
  * is not JSON (a PDF). Throws only when no answer came, or when the caller's signal aborted.
  */
-export function apiRaw(path: string, options: RequestOptions & { accept?: string } = {}): Promise<Response> {
+export function apiRaw(
+  path: string,
+  options: RequestOptions & { accept?: string } = {},
+): Promise<Response> {
   return send(path, options, options.accept ?? 'application/json');
 }

@@ -97,7 +97,10 @@ export function openRacksideDb(name = DB_NAME): Promise<RacksideDb> {
     upgrade(db, oldVersion) {
       if (oldVersion < 1) {
         db.createObjectStore('rounds', { keyPath: 'key' });
-        db.createObjectStore('roundItems', { keyPath: ['roundKey', 'animalId'] }).createIndex('byRound', 'roundKey');
+        db.createObjectStore('roundItems', { keyPath: ['roundKey', 'animalId'] }).createIndex(
+          'byRound',
+          'roundKey',
+        );
         const outbox = db.createObjectStore('outbox', { keyPath: 'seq', autoIncrement: true });
         outbox.createIndex('byEventId', 'event.id', { unique: true });
         outbox.createIndex('byUser', 'userId');
@@ -171,8 +174,13 @@ const DEVICE_META_KEYS = new Set(['deviceId', 'persistAsked']);
 export async function clearCachedCollections(db: RacksideDb): Promise<void> {
   const tx = db.transaction(['rounds', 'roundItems', 'directory', 'meta'], 'readwrite');
   const meta = tx.objectStore('meta');
-  const work: Promise<unknown>[] = [tx.objectStore('rounds').clear(), tx.objectStore('roundItems').clear(), tx.objectStore('directory').clear()];
-  for (const key of await meta.getAllKeys()) if (!DEVICE_META_KEYS.has(String(key))) work.push(meta.delete(key));
+  const work: Promise<unknown>[] = [
+    tx.objectStore('rounds').clear(),
+    tx.objectStore('roundItems').clear(),
+    tx.objectStore('directory').clear(),
+  ];
+  for (const key of await meta.getAllKeys())
+    if (!DEVICE_META_KEYS.has(String(key))) work.push(meta.delete(key));
   await Promise.all([...work, tx.done]);
 }
 

@@ -10,7 +10,12 @@ describe('the animal directory on the phone', () => {
   it('keeps the last list per collection', async () => {
     const db = await openRacksideDb(`test-${randomUUID()}`);
     expect(await cachedDirectory(db, 'c1')).toBeUndefined();
-    await storeDirectory(db, 'c1', [sampleAnimal({ labelCode: 'NL-7K3' })], new Date('2026-12-02T12:00:00Z'));
+    await storeDirectory(
+      db,
+      'c1',
+      [sampleAnimal({ labelCode: 'NL-7K3' })],
+      new Date('2026-12-02T12:00:00Z'),
+    );
     const stored = await cachedDirectory(db, 'c1');
     expect(stored?.animals.map((a) => a.labelCode)).toEqual(['NL-7K3']);
     expect(stored?.fetchedAt).toBe('2026-12-02T12:00:00.000Z');
@@ -23,7 +28,10 @@ describe('the animal directory on the phone', () => {
     const v1 = await openDB(name, 1, {
       upgrade(db) {
         db.createObjectStore('rounds', { keyPath: 'key' });
-        db.createObjectStore('roundItems', { keyPath: ['roundKey', 'animalId'] }).createIndex('byRound', 'roundKey');
+        db.createObjectStore('roundItems', { keyPath: ['roundKey', 'animalId'] }).createIndex(
+          'byRound',
+          'roundKey',
+        );
         const outbox = db.createObjectStore('outbox', { keyPath: 'seq', autoIncrement: true });
         outbox.createIndex('byEventId', 'event.id', { unique: true });
         outbox.createIndex('byUser', 'userId');
@@ -31,7 +39,13 @@ describe('the animal directory on the phone', () => {
         db.createObjectStore('meta');
       },
     });
-    await v1.add('outbox', { userId: 'u1', collectionId: 'c1', animalName: 'Juniper', byName: 'Robin', event: { id: 'e1' } });
+    await v1.add('outbox', {
+      userId: 'u1',
+      collectionId: 'c1',
+      animalName: 'Juniper',
+      byName: 'Robin',
+      event: { id: 'e1' },
+    });
     v1.close();
 
     const db = await openRacksideDb(name);

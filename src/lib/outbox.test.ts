@@ -114,11 +114,20 @@ describe('settling a batch', () => {
 });
 
 describe('a tray at once', () => {
-  const asTap = (e: RecordedEvent) => ({ userId: USER, byName: 'Robin', collectionId: COLLECTION, animalName: 'x', event: e });
+  const asTap = (e: RecordedEvent) => ({
+    userId: USER,
+    byName: 'Robin',
+    collectionId: COLLECTION,
+    animalName: 'x',
+    event: e,
+  });
   const DUSTY = sampleRound().items[1]!.animal.id;
 
   it('records every animal in one transaction and reports each item’s change', async () => {
-    const effects = await recordTaps(db, [asTap(event('ate')), asTap(event('refused', { animalId: DUSTY }))]);
+    const effects = await recordTaps(db, [
+      asTap(event('ate')),
+      asTap(event('refused', { animalId: DUSTY })),
+    ]);
     expect(effects.map((e) => [e.animalId, e.doneDelta])).toEqual([
       [BRAMBLE, 1],
       [DUSTY, 1],
@@ -130,7 +139,12 @@ describe('a tray at once', () => {
   it('records nothing when one of them fails', async () => {
     const ate = event('ate');
     await tap(ate);
-    await expect(recordTaps(db, [asTap(event('refused', { animalId: DUSTY })), asTap({ ...ate, kind: 'watered' })])).rejects.toThrow();
+    await expect(
+      recordTaps(db, [
+        asTap(event('refused', { animalId: DUSTY })),
+        asTap({ ...ate, kind: 'watered' }),
+      ]),
+    ).rejects.toThrow();
     expect((await waitingTaps(db, USER)).map((w) => w.event.id)).toEqual([ate.id]);
     const dusty = (await cachedRound(db, USER, COLLECTION, 'today'))!.round.items[1]!;
     expect(dusty.tasks[0]!.done).toBeNull();

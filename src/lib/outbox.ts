@@ -11,7 +11,13 @@ export interface Tap {
   event: RecordedEvent;
 }
 
-const entryOf = (tap: Tap): OutboxEntry => ({ userId: tap.userId, collectionId: tap.collectionId, animalName: tap.animalName, byName: tap.byName, event: tap.event });
+const entryOf = (tap: Tap): OutboxEntry => ({
+  userId: tap.userId,
+  collectionId: tap.collectionId,
+  animalName: tap.animalName,
+  byName: tap.byName,
+  event: tap.event,
+});
 
 /**
  * Records a tap: the event joins the outbox and today's cached round item shows its effect
@@ -21,7 +27,10 @@ const entryOf = (tap: Tap): OutboxEntry => ({ userId: tap.userId, collectionId: 
 export async function recordTap(db: RacksideDb, tap: Tap): Promise<TapEffect | null> {
   const tx = db.transaction(['outbox', 'roundItems'], 'readwrite');
   const done = transactionDone(tx);
-  const [effect] = await Promise.all([applyTapToCachedItem(tx.objectStore('roundItems'), tap), tx.objectStore('outbox').add(entryOf(tap))]);
+  const [effect] = await Promise.all([
+    applyTapToCachedItem(tx.objectStore('roundItems'), tap),
+    tx.objectStore('outbox').add(entryOf(tap)),
+  ]);
   await done;
   return effect;
 }
@@ -35,10 +44,17 @@ export async function recordTaps(db: RacksideDb, taps: readonly Tap[]): Promise<
   const done = transactionDone(tx);
   const effects = new Map<string, TapEffect>();
   for (const tap of taps) {
-    const [effect] = await Promise.all([applyTapToCachedItem(tx.objectStore('roundItems'), tap), tx.objectStore('outbox').add(entryOf(tap))]);
+    const [effect] = await Promise.all([
+      applyTapToCachedItem(tx.objectStore('roundItems'), tap),
+      tx.objectStore('outbox').add(entryOf(tap)),
+    ]);
     if (!effect) continue;
     const before = effects.get(effect.animalId);
-    effects.set(effect.animalId, { ...effect, doneDelta: (before?.doneDelta ?? 0) + effect.doneDelta, totalDelta: (before?.totalDelta ?? 0) + effect.totalDelta });
+    effects.set(effect.animalId, {
+      ...effect,
+      doneDelta: (before?.doneDelta ?? 0) + effect.doneDelta,
+      totalDelta: (before?.totalDelta ?? 0) + effect.totalDelta,
+    });
   }
   await done;
   return [...effects.values()];
@@ -54,7 +70,11 @@ export async function waitingTaps(db: RacksideDb, userId: string): Promise<Outbo
  * The next batch to send: the oldest taps (an index keeps equal keys in primary-key order, so
  * these are the first `size` by seq), all of one collection (one request per collection).
  */
-export async function nextBatch(db: RacksideDb, userId: string, size: number): Promise<OutboxEntry[]> {
+export async function nextBatch(
+  db: RacksideDb,
+  userId: string,
+  size: number,
+): Promise<OutboxEntry[]> {
   const oldest = await db.getAllFromIndex('outbox', 'byUser', userId, size);
   const first = oldest[0];
   return first ? oldest.filter((e) => e.collectionId === first.collectionId) : [];
@@ -116,10 +136,19 @@ export async function resendAttention(db: RacksideDb, eventId: string): Promise<
   const done = transactionDone(tx);
   const attention = tx.objectStore('attention');
   const outbox = tx.objectStore('outbox');
-  const [entry, queued] = await Promise.all([attention.get(eventId), outbox.index('byEventId').getKey(eventId)]);
+  const [entry, queued] = await Promise.all([
+    attention.get(eventId),
+    outbox.index('byEventId').getKey(eventId),
+  ]);
   if (entry) {
     if (queued === undefined) {
-      void outbox.add({ userId: entry.userId, collectionId: entry.collectionId, animalName: entry.animalName, byName: entry.byName ?? '', event: entry.event });
+      void outbox.add({
+        userId: entry.userId,
+        collectionId: entry.collectionId,
+        animalName: entry.animalName,
+        byName: entry.byName ?? '',
+        event: entry.event,
+      });
     }
     void attention.delete(eventId);
   }

@@ -9,7 +9,10 @@ export function createQueryClient() {
         // Retrying a refusal (signed out, not allowed, not found) or an answer this app cannot
         // read cannot help.
         retry: (count, error) =>
-          !(error instanceof ApiError && ((error.status >= 400 && error.status < 500) || error.code === 'bad_response')) && count < 2,
+          !(
+            error instanceof ApiError &&
+            ((error.status >= 400 && error.status < 500) || error.code === 'bad_response')
+          ) && count < 2,
       },
     },
   });

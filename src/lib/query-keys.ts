@@ -25,12 +25,16 @@ export const queryKeys = {
     everywhere: () => ['rounds'] as const,
     all: (collectionId: string) => ['rounds', collectionId] as const,
     /** The phone's copy (IndexedDB), what the screen shows. */
-    local: (collectionId: string, day: RoundDay, userId: string) => ['rounds', collectionId, 'local', day, userId] as const,
+    local: (collectionId: string, day: RoundDay, userId: string) =>
+      ['rounds', collectionId, 'local', day, userId] as const,
     /** Fetching the server's copy into IndexedDB. */
-    server: (collectionId: string, day: RoundDay) => ['rounds', collectionId, 'server', day] as const,
+    server: (collectionId: string, day: RoundDay) =>
+      ['rounds', collectionId, 'server', day] as const,
     rules: (collectionId: string) => ['rounds', collectionId, 'rules'] as const,
-    history: (collectionId: string, animalId: string) => ['rounds', collectionId, 'history', animalId] as const,
-    schedule: (collectionId: string, animalId: string) => ['rounds', collectionId, 'schedule', animalId] as const,
+    history: (collectionId: string, animalId: string) =>
+      ['rounds', collectionId, 'history', animalId] as const,
+    schedule: (collectionId: string, animalId: string) =>
+      ['rounds', collectionId, 'schedule', animalId] as const,
   },
   breeding: {
     sacs: (collectionId: string) => ['breeding', collectionId, 'sacs'] as const,
@@ -39,7 +43,8 @@ export const queryKeys = {
     covers: (collectionId: string) => ['cover', collectionId, 'covers'] as const,
     handover: (collectionId: string) => ['cover', collectionId, 'handover'] as const,
     reports: (collectionId: string) => ['cover', collectionId, 'reports'] as const,
-    mine: (collectionId: string, userId: string) => ['cover', collectionId, 'mine', userId] as const,
+    mine: (collectionId: string, userId: string) =>
+      ['cover', collectionId, 'mine', userId] as const,
     invite: (token: string) => ['cover-invite', token] as const,
   },
   members: {

@@ -20,7 +20,14 @@ const event = (kind: RecordedEvent['kind'], extra: Partial<RecordedEvent> = {}):
   clientRecordedAt: '2026-12-01T14:00:00.000Z',
   ...extra,
 });
-const tap = (e: RecordedEvent) => recordTap(db, { userId: USER, byName: 'Robin', collectionId: COLLECTION, animalName: 'Bramble', event: e });
+const tap = (e: RecordedEvent) =>
+  recordTap(db, {
+    userId: USER,
+    byName: 'Robin',
+    collectionId: COLLECTION,
+    animalName: 'Bramble',
+    event: e,
+  });
 
 beforeEach(async () => {
   db = await openRacksideDb(`test-${randomUUID()}`);
@@ -31,7 +38,9 @@ afterEach(() => db.close());
 describe('the phone’s copy of a round', () => {
   it('is read back in walk order with its progress counted from the items', async () => {
     const cached = (await cachedRound(db, USER, COLLECTION, 'today'))!;
-    expect(cached.round.items.map((i) => i.animal.id)).toEqual(sampleRound().items.map((i) => i.animal.id));
+    expect(cached.round.items.map((i) => i.animal.id)).toEqual(
+      sampleRound().items.map((i) => i.animal.id),
+    );
     expect(cached.round.progress).toEqual(sampleRound().progress);
     expect(await cachedRound(db, USER, COLLECTION, 'tomorrow')).toBeUndefined();
   });

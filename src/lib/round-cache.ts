@@ -1,11 +1,23 @@
 import type { IDBPObjectStore, StoreNames } from 'idb';
-import { itemWithOutcome, progressOf, withOutcome, type DayOutcome } from '#shared/domain/rounds/settle';
+import {
+  itemWithOutcome,
+  progressOf,
+  withOutcome,
+  type DayOutcome,
+} from '#shared/domain/rounds/settle';
 import type { RecordedEvent } from '#shared/schemas/events';
 import type { RoundResponse } from '#shared/schemas/rounds';
-import { transactionDone, type CachedRound, type RacksideDb, type RacksideSchema, type RoundDay } from './db';
+import {
+  transactionDone,
+  type CachedRound,
+  type RacksideDb,
+  type RacksideSchema,
+  type RoundDay,
+} from './db';
 
 /** A round's key in `rounds`, and the first half of each of its items' keys in `roundItems`. */
-export const roundKey = (userId: string, collectionId: string, day: RoundDay) => `${userId}|${collectionId}|${day}`;
+export const roundKey = (userId: string, collectionId: string, day: RoundDay) =>
+  `${userId}|${collectionId}|${day}`;
 
 const itemsOf = (key: string) => IDBKeyRange.bound([key, ''], [key, '\uffff']);
 
@@ -33,7 +45,12 @@ export function outcomeOf(event: RecordedEvent, by: string): DayOutcome {
 }
 
 /** The items store inside a caller's read-write transaction (which may span other stores). */
-type ItemStore = IDBPObjectStore<RacksideSchema, ArrayLike<StoreNames<RacksideSchema>>, 'roundItems', 'readwrite'>;
+type ItemStore = IDBPObjectStore<
+  RacksideSchema,
+  ArrayLike<StoreNames<RacksideSchema>>,
+  'roundItems',
+  'readwrite'
+>;
 
 /**
  * Writes a tap's effect on today's cached item through the caller's transaction — the tap's
@@ -42,10 +59,20 @@ type ItemStore = IDBPObjectStore<RacksideSchema, ArrayLike<StoreNames<RacksideSc
  * which keeps a tap close to a bare put (P1). Null when the animal is not on a cached round
  * (e.g. a tap from a scan).
  */
-export async function applyTapToCachedItem(items: ItemStore, tap: TapOnRound): Promise<TapEffect | null> {
-  const stored = await items.get([roundKey(tap.userId, tap.collectionId, 'today'), tap.event.animalId]);
+export async function applyTapToCachedItem(
+  items: ItemStore,
+  tap: TapOnRound,
+): Promise<TapEffect | null> {
+  const stored = await items.get([
+    roundKey(tap.userId, tap.collectionId, 'today'),
+    tap.event.animalId,
+  ]);
   if (!stored) return null;
-  const { item, doneDelta, totalDelta } = itemWithOutcome(stored.item, outcomeOf(tap.event, tap.byName), stored.timeZone);
+  const { item, doneDelta, totalDelta } = itemWithOutcome(
+    stored.item,
+    outcomeOf(tap.event, tap.byName),
+    stored.timeZone,
+  );
   // Not awaited: requests run in order, and the caller waits for the transaction's end, which
   // also reports a failed put (or this put aborted by the outbox write failing).
   items.put({ ...stored, item }).catch(() => undefined);
@@ -55,7 +82,10 @@ export async function applyTapToCachedItem(items: ItemStore, tap: TapOnRound): P
 /** A cached round with one tap's effect applied (the screen's copy, no storage involved). */
 export function applyTapEffect(cached: CachedRound, effect: TapEffect): CachedRound {
   const items = cached.round.items.map((i) => (i.animal.id === effect.animalId ? effect.item : i));
-  const progress = { done: cached.round.progress.done + effect.doneDelta, total: cached.round.progress.total + effect.totalDelta };
+  const progress = {
+    done: cached.round.progress.done + effect.doneDelta,
+    total: cached.round.progress.total + effect.totalDelta,
+  };
   return { ...cached, round: { ...cached.round, items, progress } };
 }
 
@@ -63,32 +93,71 @@ export function applyTapEffect(cached: CachedRound, effect: TapEffect): CachedRo
  * Keeps the server's copy of a round, with this person's unsent taps applied on top so the
  * screen never loses a tap that is still on its way.
  */
-export async function storeServerRound(db: RacksideDb, userId: string, collectionId: string, day: RoundDay, round: RoundResponse, fetchedAt: Date): Promise<CachedRound> {
+export async function storeServerRound(
+  db: RacksideDb,
+  userId: string,
+  collectionId: string,
+  day: RoundDay,
+  round: RoundResponse,
+  fetchedAt: Date,
+): Promise<CachedRound> {
   const tx = db.transaction(['outbox', 'rounds', 'roundItems'], 'readwrite');
   const done = transactionDone(tx);
-  const waiting = (await tx.objectStore('outbox').index('byUser').getAll(userId)).filter((e) => e.collectionId === collectionId).sort((a, b) => a.seq! - b.seq!);
+  const waiting = (await tx.objectStore('outbox').index('byUser').getAll(userId))
+    .filter((e) => e.collectionId === collectionId)
+    .sort((a, b) => a.seq! - b.seq!);
   let merged = round;
   if (day === 'today') {
     const known = new Set(round.items.flatMap((i) => i.outcomes.map((o) => o.eventId)));
-    for (const e of waiting) if (!known.has(e.event.id)) merged = withOutcome(merged, e.event.animalId, outcomeOf(e.event, e.byName));
+    for (const e of waiting)
+      if (!known.has(e.event.id))
+        merged = withOutcome(merged, e.event.animalId, outcomeOf(e.event, e.byName));
   }
   const key = roundKey(userId, collectionId, day);
   const { items, progress: _counted, ...header } = merged;
   const itemStore = tx.objectStore('roundItems');
   const writes: Promise<unknown>[] = [itemStore.delete(itemsOf(key))];
-  for (const item of items) writes.push(itemStore.put({ roundKey: key, animalId: item.animal.id, timeZone: merged.timeZone, item }));
-  writes.push(tx.objectStore('rounds').put({ key, userId, collectionId, day, header, order: items.map((i) => i.animal.id), fetchedAt: fetchedAt.toISOString() }));
+  for (const item of items)
+    writes.push(
+      itemStore.put({ roundKey: key, animalId: item.animal.id, timeZone: merged.timeZone, item }),
+    );
+  writes.push(
+    tx.objectStore('rounds').put({
+      key,
+      userId,
+      collectionId,
+      day,
+      header,
+      order: items.map((i) => i.animal.id),
+      fetchedAt: fetchedAt.toISOString(),
+    }),
+  );
   await Promise.all([...writes, done]);
   return { key, userId, collectionId, day, round: merged, fetchedAt: fetchedAt.toISOString() };
 }
 
 /** The phone's copy of a round, put back together in walk order. */
-export async function cachedRound(db: RacksideDb, userId: string, collectionId: string, day: RoundDay): Promise<CachedRound | undefined> {
+export async function cachedRound(
+  db: RacksideDb,
+  userId: string,
+  collectionId: string,
+  day: RoundDay,
+): Promise<CachedRound | undefined> {
   const key = roundKey(userId, collectionId, day);
   const tx = db.transaction(['rounds', 'roundItems']);
-  const [stored, rows] = await Promise.all([tx.objectStore('rounds').get(key), tx.objectStore('roundItems').getAll(itemsOf(key))]);
+  const [stored, rows] = await Promise.all([
+    tx.objectStore('rounds').get(key),
+    tx.objectStore('roundItems').getAll(itemsOf(key)),
+  ]);
   if (!stored) return undefined;
   const byAnimal = new Map(rows.map((r) => [r.animalId, r.item]));
   const items = stored.order.map((id) => byAnimal.get(id)).filter((i) => i !== undefined);
-  return { key, userId, collectionId, day, round: { ...stored.header, items, progress: progressOf(items) }, fetchedAt: stored.fetchedAt };
+  return {
+    key,
+    userId,
+    collectionId,
+    day,
+    round: { ...stored.header, items, progress: progressOf(items) },
+    fetchedAt: stored.fetchedAt,
+  };
 }

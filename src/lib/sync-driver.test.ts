@@ -12,15 +12,28 @@ describe('the sync transport', () => {
       [401, { error: { code: 'signed_out', message: 'Sign in again.' } }],
       [503, null],
     ] as const) {
-      vi.stubGlobal('fetch', vi.fn(async () => new Response(body === null ? 'Service unavailable' : JSON.stringify(body), { status })));
+      vi.stubGlobal(
+        'fetch',
+        vi.fn(
+          async () =>
+            new Response(body === null ? 'Service unavailable' : JSON.stringify(body), { status }),
+        ),
+      );
       expect(await fetchTransport('collection-1', batch)).toEqual({ status, body });
     }
     const [url, init] = vi.mocked(fetch).mock.calls[0]!;
-    expect([url, init?.method, init?.body]).toEqual(['/api/collections/collection-1/events', 'POST', JSON.stringify(batch)]);
+    expect([url, init?.method, init?.body]).toEqual([
+      '/api/collections/collection-1/events',
+      'POST',
+      JSON.stringify(batch),
+    ]);
   });
 
   it('throws when no answer came (the engine keeps the batch)', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
     await expect(fetchTransport('collection-1', batch)).rejects.toThrow();
   });
 });

@@ -20,7 +20,11 @@ const AFTER_TAP_MS = 1_500;
  * per-event verdicts settle taps). No answer, or none within the timeout, throws.
  */
 export const fetchTransport: SyncTransport = async (collectionId: string, body: EventBatchBody) => {
-  const res = await apiRaw(`/collections/${collectionId}/events`, { method: 'POST', body, signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS) });
+  const res = await apiRaw(`/collections/${collectionId}/events`, {
+    method: 'POST',
+    body,
+    signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS),
+  });
   return { status: res.status, body: await res.json().catch(() => null) };
 };
 

@@ -181,7 +181,10 @@ function fakeServer() {
   return { store, stored };
 }
 
-const CSRF_403 = { status: 403, body: { error: { code: 'csrf', message: 'This request came from another site.' } } };
+const CSRF_403 = {
+  status: 403,
+  body: { error: { code: 'csrf', message: 'This request came from another site.' } },
+};
 // A reverse proxy's page while the app restarts: HTML, not our JSON (the transport reads null).
 const PROXY_404 = { status: 404, body: '<html><body><h1>404 Not Found</h1></body></html>' };
 
@@ -189,7 +192,12 @@ describe('answers without a verdict on each tap', () => {
   it('keep every tap through a CSRF 403 and a proxy’s HTML 404, then send each exactly once', async () => {
     const ids = await queue(5);
     const server = fakeServer();
-    const answers: ({ status: number; body: unknown } | 'store')[] = [CSRF_403, PROXY_404, { status: 502, body: null }, 'store'];
+    const answers: ({ status: number; body: unknown } | 'store')[] = [
+      CSRF_403,
+      PROXY_404,
+      { status: 502, body: null },
+      'store',
+    ];
     const sent: string[][] = [];
     const engine = engineWith(async (_c, body) => {
       sent.push(body.events.map((e) => (e as RecordedEvent).id));
@@ -198,18 +206,41 @@ describe('answers without a verdict on each tap', () => {
     }, 2);
 
     expect((await engine.flush()).ok).toBe(false);
-    expect(engine.status()).toMatchObject({ phase: 'failing', waiting: 5, attention: 0, failures: 1 });
-    expect(engine.status().reason).toBe('The server did not take the taps (error 403): This request came from another site.');
+    expect(engine.status()).toMatchObject({
+      phase: 'failing',
+      waiting: 5,
+      attention: 0,
+      failures: 1,
+    });
+    expect(engine.status().reason).toBe(
+      'The server did not take the taps (error 403): This request came from another site.',
+    );
     expect((await engine.flush()).ok).toBe(false);
-    expect(engine.status()).toMatchObject({ phase: 'failing', waiting: 5, attention: 0, failures: 2, reason: 'The server did not take the taps (error 404).' });
+    expect(engine.status()).toMatchObject({
+      phase: 'failing',
+      waiting: 5,
+      attention: 0,
+      failures: 2,
+      reason: 'The server did not take the taps (error 404).',
+    });
     expect((await engine.flush()).ok).toBe(false);
-    expect(engine.status()).toMatchObject({ waiting: 5, failures: 3, reason: 'Rackside’s server had a problem (error 502).' });
+    expect(engine.status()).toMatchObject({
+      waiting: 5,
+      failures: 3,
+      reason: 'Rackside’s server had a problem (error 502).',
+    });
     // Nothing was ever moved aside, and the same taps were offered each time.
     expect(await attentionOf(db, USER)).toEqual([]);
     expect((await waitingTaps(db, USER)).map((w) => w.event.id)).toEqual(ids);
 
     expect(await engine.flush()).toEqual({ ok: true, acknowledged: 5, refused: 0 });
-    expect(engine.status()).toMatchObject({ phase: 'idle', waiting: 0, attention: 0, failures: 0, reason: null });
+    expect(engine.status()).toMatchObject({
+      phase: 'idle',
+      waiting: 0,
+      attention: 0,
+      failures: 0,
+      reason: null,
+    });
     expect(await waitingTaps(db, USER)).toEqual([]);
     // Every tap reached the store, in exactly one request: none lost, none sent twice.
     expect([...server.stored.keys()].sort()).toEqual([...ids].sort());
@@ -239,9 +270,17 @@ describe('answers without a verdict on each tap', () => {
 
   it('keeps taps on a 200 whose body is not a verdict list (a proxy’s page)', async () => {
     await queue(2);
-    const engine = engineWith(async () => ({ status: 200, body: '<html>Welcome to nginx!</html>' }));
+    const engine = engineWith(async () => ({
+      status: 200,
+      body: '<html>Welcome to nginx!</html>',
+    }));
     expect((await engine.flush()).ok).toBe(false);
-    expect(engine.status()).toMatchObject({ phase: 'failing', waiting: 2, attention: 0, reason: 'The server’s answer could not be read.' });
+    expect(engine.status()).toMatchObject({
+      phase: 'failing',
+      waiting: 2,
+      attention: 0,
+      reason: 'The server’s answer could not be read.',
+    });
   });
 });
 
@@ -249,7 +288,14 @@ describe('needs attention', () => {
   async function refuseOne() {
     const [id] = await queue(1);
     await engineWith(async () =>
-      answer([{ id: id!, status: 'rejected', reason: 'unknown_animal', message: 'This animal is not in this collection.' }]),
+      answer([
+        {
+          id: id!,
+          status: 'rejected',
+          reason: 'unknown_animal',
+          message: 'This animal is not in this collection.',
+        },
+      ]),
     ).flush();
     expect((await attentionOf(db, USER)).map((a) => a.id)).toEqual([id]);
     return id!;
@@ -260,7 +306,12 @@ describe('needs attention', () => {
     expect(await resendAttention(db, id)).toBe(true);
     expect(await attentionOf(db, USER)).toEqual([]);
     const [back] = await waitingTaps(db, USER);
-    expect(back).toMatchObject({ userId: USER, collectionId: 'c1', animalName: 'Bramble', byName: 'Robin' });
+    expect(back).toMatchObject({
+      userId: USER,
+      collectionId: 'c1',
+      animalName: 'Bramble',
+      byName: 'Robin',
+    });
     expect(back!.event.id).toBe(id);
     const server = fakeServer();
     const engine = engineWith(async (_c, body) => server.store(body));
@@ -276,8 +327,12 @@ describe('needs attention', () => {
   it('"Send again" of a tap refused again lands it back in needs-attention, never lost', async () => {
     const id = await refuseOne();
     await resendAttention(db, id);
-    await engineWith(async () => answer([{ id, status: 'rejected', reason: 'unknown_animal', message: 'Still not here.' }])).flush();
-    expect((await attentionOf(db, USER)).map((a) => [a.id, a.message])).toEqual([[id, 'Still not here.']]);
+    await engineWith(async () =>
+      answer([{ id, status: 'rejected', reason: 'unknown_animal', message: 'Still not here.' }]),
+    ).flush();
+    expect((await attentionOf(db, USER)).map((a) => [a.id, a.message])).toEqual([
+      [id, 'Still not here.'],
+    ]);
     expect(await waitingTaps(db, USER)).toEqual([]);
   });
 

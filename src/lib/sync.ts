@@ -31,7 +31,15 @@ export interface FlushResult {
 }
 
 /** Nothing waiting, nothing known yet. */
-export const IDLE_STATUS: SyncStatus = { phase: 'idle', waiting: 0, attention: 0, progress: null, lastSavedAt: null, failures: 0, reason: null };
+export const IDLE_STATUS: SyncStatus = {
+  phase: 'idle',
+  waiting: 0,
+  attention: 0,
+  progress: null,
+  lastSavedAt: null,
+  failures: 0,
+  reason: null,
+};
 
 const BASE_DELAY_MS = 2_000;
 const MAX_DELAY_MS = 5 * 60_000;
@@ -148,7 +156,8 @@ export function createSyncEngine({
       result.acknowledged += settled.acknowledged;
       result.refused += settled.refused;
       // A well-formed answer that settled none of what was sent would loop forever.
-      if (!settled.acknowledged && !settled.refused) return fail('failing', 'The server answered without a word on these taps.');
+      if (!settled.acknowledged && !settled.refused)
+        return fail('failing', 'The server answered without a word on these taps.');
       update({
         progress: {
           sent: result.acknowledged + result.refused,

@@ -2,7 +2,10 @@ import { useCallback, useState } from 'react';
 
 /** A one-off action from a form: busy while it runs, its error message if it fails. */
 export function useAction() {
-  const [state, setState] = useState<{ busy: boolean; error: string | null }>({ busy: false, error: null });
+  const [state, setState] = useState<{ busy: boolean; error: string | null }>({
+    busy: false,
+    error: null,
+  });
   const run = useCallback((work: () => Promise<unknown>) => {
     setState({ busy: true, error: null });
     work().then(

@@ -10,4 +10,9 @@ function subscribe(notify: () => void) {
 }
 
 /** The browser's own idea of a connection: "false" is certain, "true" only hopeful. */
-export const useOnline = () => useSyncExternalStore(subscribe, () => navigator.onLine, () => true);
+export const useOnline = () =>
+  useSyncExternalStore(
+    subscribe,
+    () => navigator.onLine,
+    () => true,
+  );

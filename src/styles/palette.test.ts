@@ -4,7 +4,9 @@ import { PALETTES, THEMES, type Palette } from './palette';
 // WCAG 2.2, "relative luminance" and "contrast ratio" definitions (Understanding SC 1.4.3).
 function luminance(hex: string): number {
   const channels = [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16) / 255);
-  const [r, g, b] = channels.map((c) => (c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4)) as [number, number, number];
+  const [r, g, b] = channels.map((c) =>
+    c <= 0.04045 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4,
+  ) as [number, number, number];
   return 0.2126 * r + 0.7152 * g + 0.0722 * b;
 }
 export function contrast(a: string, b: string): number {
@@ -25,14 +27,20 @@ describe.each(THEMES)('%s theme', (theme) => {
   const p: Palette = PALETTES[theme];
   const grounds = [p.bg, p.surface];
   // WCAG 2.2 SC 1.4.3: text at least 4.5:1.
-  it.each(['text', 'muted', 'accent', 'danger', 'ok'] as const)('%s text reads on page and cards (≥ 4.5:1)', (role) => {
-    for (const ground of grounds) expect(contrast(p[role], ground)).toBeGreaterThanOrEqual(4.5);
-  });
+  it.each(['text', 'muted', 'accent', 'danger', 'ok'] as const)(
+    '%s text reads on page and cards (≥ 4.5:1)',
+    (role) => {
+      for (const ground of grounds) expect(contrast(p[role], ground)).toBeGreaterThanOrEqual(4.5);
+    },
+  );
   it('button text reads on the primary colour (≥ 4.5:1)', () => {
     expect(contrast(p.onPrimary, p.primary)).toBeGreaterThanOrEqual(4.5);
   });
   // WCAG 2.2 SC 1.4.11: user-interface components at least 3:1 against adjacent colours.
-  it.each(['border', 'primary', 'focus'] as const)('%s stands out from page and cards (≥ 3:1)', (role) => {
-    for (const ground of grounds) expect(contrast(p[role], ground)).toBeGreaterThanOrEqual(3);
-  });
+  it.each(['border', 'primary', 'focus'] as const)(
+    '%s stands out from page and cards (≥ 3:1)',
+    (role) => {
+      for (const ground of grounds) expect(contrast(p[role], ground)).toBeGreaterThanOrEqual(3);
+    },
+  );
 });

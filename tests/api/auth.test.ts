@@ -18,7 +18,11 @@ describe('sign-up, sign-in and sign-out', () => {
     const me = await agent.get('/api/auth/me').expect(200);
     expect(me.body.user.email).toBe(email);
     expect(me.body.memberships).toHaveLength(1);
-    expect(me.body.memberships[0]).toMatchObject({ role: 'owner', collectionName: 'Test Collection', timeZone: 'America/Toronto' });
+    expect(me.body.memberships[0]).toMatchObject({
+      role: 'owner',
+      collectionName: 'Test Collection',
+      timeZone: 'America/Toronto',
+    });
   });
 
   it('makes no second account for a known e-mail, in any letter case: its owner is told instead', async () => {
@@ -31,22 +35,37 @@ describe('sign-up, sign-in and sign-out', () => {
     expect(mail.text).toContain('http://rackside.test/sign-in');
     expect(mail.text).toContain('http://rackside.test/forgot-password');
     expect(mail.text).not.toMatch(/token=/);
-    expect(await ctx.database.db.select().from(users).where(eq(users.email, email))).toHaveLength(1);
+    expect(await ctx.database.db.select().from(users).where(eq(users.email, email))).toHaveLength(
+      1,
+    );
   });
 
   it('refuses an unknown time zone with a readable message', async () => {
     const token = await signUpLink(ctx, `tz-${Date.now()}@example.test`);
     const res = await ctx.agent().post('/api/auth/sign-up/finish').send({
-      token, password: PASSWORD, displayName: 'X', collectionName: 'Y', timeZone: 'Mars/Olympus',
+      token,
+      password: PASSWORD,
+      displayName: 'X',
+      collectionName: 'Y',
+      timeZone: 'Mars/Olympus',
     });
     expect(res.status).toBe(422);
-    expect(res.body.error.issues).toContainEqual({ path: 'body.timeZone', message: 'Choose a time zone such as America/Toronto.' });
+    expect(res.body.error.issues).toContainEqual({
+      path: 'body.timeZone',
+      message: 'Choose a time zone such as America/Toronto.',
+    });
   });
 
   it('gives the same answer for an unknown e-mail and a wrong password', async () => {
     const { email } = await signUp(ctx);
-    const wrong = await ctx.agent().post('/api/auth/sign-in').send({ email, password: 'not the password' });
-    const unknown = await ctx.agent().post('/api/auth/sign-in').send({ email: 'nobody@example.test', password: 'not the password' });
+    const wrong = await ctx
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email, password: 'not the password' });
+    const unknown = await ctx
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email: 'nobody@example.test', password: 'not the password' });
     expect(wrong.status).toBe(401);
     expect(unknown.status).toBe(401);
     expect(unknown.body).toEqual(wrong.body);
@@ -56,8 +75,14 @@ describe('sign-up, sign-in and sign-out', () => {
     const { email } = await signUp(ctx);
     const agent = ctx.agent();
     // A session that exists before sign-in (e.g. planted by an attacker) must not survive it.
-    const first = await agent.post('/api/auth/sign-in').send({ email, password: PASSWORD }).expect(200);
-    const second = await agent.post('/api/auth/sign-in').send({ email, password: PASSWORD }).expect(200);
+    const first = await agent
+      .post('/api/auth/sign-in')
+      .send({ email, password: PASSWORD })
+      .expect(200);
+    const second = await agent
+      .post('/api/auth/sign-in')
+      .send({ email, password: PASSWORD })
+      .expect(200);
     const a = sessionCookie(first);
     const b = sessionCookie(second);
     expect(a).toBeDefined();
@@ -70,7 +95,10 @@ describe('sign-up, sign-in and sign-out', () => {
   it('refuses the old cookie after sign-out (OWASP ASVS 4.0.3 3.3.1)', async () => {
     const { email } = await signUp(ctx);
     const agent = ctx.agent();
-    const res = await agent.post('/api/auth/sign-in').send({ email, password: PASSWORD }).expect(200);
+    const res = await agent
+      .post('/api/auth/sign-in')
+      .send({ email, password: PASSWORD })
+      .expect(200);
     const cookie = sessionCookie(res)!;
     await ctx.agent().get('/api/auth/me').set('Cookie', cookie).expect(200);
     await agent.post('/api/auth/sign-out').expect(204);
@@ -102,10 +130,18 @@ describe('passwords', () => {
     const seventyThree = `${seventyTwo}a`;
     expect(Buffer.byteLength(seventyTwo, 'utf8')).toBe(72);
     const ok = await signUp(ctx, { password: seventyTwo });
-    await ctx.agent().post('/api/auth/sign-in').send({ email: ok.email, password: seventyTwo }).expect(200);
+    await ctx
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email: ok.email, password: seventyTwo })
+      .expect(200);
     const token = await signUpLink(ctx, `long-${Date.now()}@example.test`);
     const refused = await ctx.agent().post('/api/auth/sign-up/finish').send({
-      token, password: seventyThree, displayName: 'X', collectionName: 'Y', timeZone: 'America/Toronto',
+      token,
+      password: seventyThree,
+      displayName: 'X',
+      collectionName: 'Y',
+      timeZone: 'America/Toronto',
     });
     expect(refused.status).toBe(422);
     expect(refused.body.error.message).toMatch(/at most 72 bytes/);
@@ -115,11 +151,21 @@ describe('passwords', () => {
     const { agent, email } = await signUp(ctx);
     const other = ctx.agent();
     await other.post('/api/auth/sign-in').send({ email, password: PASSWORD }).expect(200);
-    await agent.post('/api/auth/password').send({ currentPassword: 'wrong one!', newPassword: 'a brand new secret' }).expect(422);
-    await agent.post('/api/auth/password').send({ currentPassword: PASSWORD, newPassword: 'a brand new secret' }).expect(204);
+    await agent
+      .post('/api/auth/password')
+      .send({ currentPassword: 'wrong one!', newPassword: 'a brand new secret' })
+      .expect(422);
+    await agent
+      .post('/api/auth/password')
+      .send({ currentPassword: PASSWORD, newPassword: 'a brand new secret' })
+      .expect(204);
     await agent.get('/api/auth/me').expect(200);
     await other.get('/api/auth/me').expect(401);
-    await ctx.agent().post('/api/auth/sign-in').send({ email, password: 'a brand new secret' }).expect(200);
+    await ctx
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email, password: 'a brand new secret' })
+      .expect(200);
   });
 });
 
@@ -127,7 +173,9 @@ describe('password reset by e-mail', () => {
   async function requestLink(email: string): Promise<string> {
     const earlier = new Set(ctx.mailbox.messages);
     await ctx.agent().post('/api/auth/reset-request').send({ email }).expect(202);
-    const mail = await ctx.mailbox.waitFor((m) => !earlier.has(m) && m.to.includes(email) && m.subject.includes('Reset'));
+    const mail = await ctx.mailbox.waitFor(
+      (m) => !earlier.has(m) && m.to.includes(email) && m.subject.includes('Reset'),
+    );
     const link = /https?:\/\/\S+reset-password\?token=([\w-]+)/.exec(mail.text);
     expect(link).not.toBeNull();
     return link![1]!;
@@ -137,9 +185,20 @@ describe('password reset by e-mail', () => {
     const { email } = await signUp(ctx);
     const token = await requestLink(email);
     expect(token.length).toBeGreaterThanOrEqual(43); // 32 random bytes, base64url: 256 bits ≥ 128
-    await ctx.agent().post('/api/auth/reset').send({ token, password: 'reset password 1' }).expect(204);
-    await ctx.agent().post('/api/auth/sign-in').send({ email, password: 'reset password 1' }).expect(200);
-    const again = await ctx.agent().post('/api/auth/reset').send({ token, password: 'reset password 2' });
+    await ctx
+      .agent()
+      .post('/api/auth/reset')
+      .send({ token, password: 'reset password 1' })
+      .expect(204);
+    await ctx
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email, password: 'reset password 1' })
+      .expect(200);
+    const again = await ctx
+      .agent()
+      .post('/api/auth/reset')
+      .send({ token, password: 'reset password 2' });
     expect(again.status).toBe(400);
     expect(again.body.error.message).toMatch(/expired or was already used/);
   });
@@ -147,7 +206,10 @@ describe('password reset by e-mail', () => {
   it('stores only a hash of the token', async () => {
     const { email, userId } = await signUp(ctx);
     const token = await requestLink(email);
-    const rows = await ctx.database.db.select().from(passwordResets).where(eq(passwordResets.userId, userId));
+    const rows = await ctx.database.db
+      .select()
+      .from(passwordResets)
+      .where(eq(passwordResets.userId, userId));
     expect(rows).toHaveLength(1);
     expect(rows[0]!.tokenHash).not.toContain(token);
     expect(rows[0]!.tokenHash).toMatch(/^[0-9a-f]{64}$/);
@@ -158,7 +220,11 @@ describe('password reset by e-mail', () => {
     const token = await requestLink(email);
     ctx.setNow(new Date(Date.now() + 61 * 60_000));
     try {
-      await ctx.agent().post('/api/auth/reset').send({ token, password: 'too late now' }).expect(400);
+      await ctx
+        .agent()
+        .post('/api/auth/reset')
+        .send({ token, password: 'too late now' })
+        .expect(400);
     } finally {
       ctx.setNow(null);
     }
@@ -167,11 +233,21 @@ describe('password reset by e-mail', () => {
   it('refuses a link asked for before a password change, once the password has changed', async () => {
     const { agent, email } = await signUp(ctx);
     const token = await requestLink(email);
-    await agent.post('/api/auth/password').send({ currentPassword: PASSWORD, newPassword: 'changed after asking' }).expect(204);
-    const res = await ctx.agent().post('/api/auth/reset').send({ token, password: 'the attacker picks' });
+    await agent
+      .post('/api/auth/password')
+      .send({ currentPassword: PASSWORD, newPassword: 'changed after asking' })
+      .expect(204);
+    const res = await ctx
+      .agent()
+      .post('/api/auth/reset')
+      .send({ token, password: 'the attacker picks' });
     expect(res.status).toBe(400);
     expect(res.body.error.message).toMatch(/expired or was already used/);
-    await ctx.agent().post('/api/auth/sign-in').send({ email, password: 'changed after asking' }).expect(200);
+    await ctx
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email, password: 'changed after asking' })
+      .expect(200);
   });
 
   it('refuses every other outstanding link once one reset the password', async () => {
@@ -179,14 +255,32 @@ describe('password reset by e-mail', () => {
     const first = await requestLink(email);
     const second = await requestLink(email);
     expect(second).not.toBe(first);
-    await ctx.agent().post('/api/auth/reset').send({ token: second, password: 'reset with the second' }).expect(204);
-    expect((await ctx.agent().post('/api/auth/reset').send({ token: first, password: 'reset with the first' })).status).toBe(400);
-    await ctx.agent().post('/api/auth/sign-in').send({ email, password: 'reset with the second' }).expect(200);
+    await ctx
+      .agent()
+      .post('/api/auth/reset')
+      .send({ token: second, password: 'reset with the second' })
+      .expect(204);
+    expect(
+      (
+        await ctx
+          .agent()
+          .post('/api/auth/reset')
+          .send({ token: first, password: 'reset with the first' })
+      ).status,
+    ).toBe(400);
+    await ctx
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email, password: 'reset with the second' })
+      .expect(200);
   });
 
   it('answers the same for an unknown e-mail, and sends nothing', async () => {
     const before = ctx.mailbox.messages.length;
-    const res = await ctx.agent().post('/api/auth/reset-request').send({ email: 'ghost@example.test' });
+    const res = await ctx
+      .agent()
+      .post('/api/auth/reset-request')
+      .send({ email: 'ghost@example.test' });
     expect(res.status).toBe(202);
     expect(res.body.message).toMatch(/If an account uses that e-mail/);
     await new Promise((r) => setTimeout(r, 200));
@@ -201,10 +295,20 @@ describe('rate limiting', () => {
       const { email } = await signUp(limited);
       const statuses: number[] = [];
       for (let i = 0; i < 5; i++) {
-        statuses.push((await limited.agent().post('/api/auth/sign-in').send({ email, password: 'wrong guess!' })).status);
+        statuses.push(
+          (
+            await limited
+              .agent()
+              .post('/api/auth/sign-in')
+              .send({ email, password: 'wrong guess!' })
+          ).status,
+        );
       }
       expect(statuses).toEqual([401, 401, 401, 429, 429]);
-      const res = await limited.agent().post('/api/auth/sign-in').send({ email, password: PASSWORD });
+      const res = await limited
+        .agent()
+        .post('/api/auth/sign-in')
+        .send({ email, password: PASSWORD });
       expect(res.status).toBe(429);
       expect(res.body.error.message).toMatch(/Too many attempts/);
     } finally {
@@ -215,7 +319,8 @@ describe('rate limiting', () => {
   it('limits reset requests per e-mail', async () => {
     const limited = await createTestContext({ authLimits: { resetPerEmail: 2 } });
     try {
-      const send = () => limited.agent().post('/api/auth/reset-request').send({ email: 'someone@example.test' });
+      const send = () =>
+        limited.agent().post('/api/auth/reset-request').send({ email: 'someone@example.test' });
       expect((await send()).status).toBe(202);
       expect((await send()).status).toBe(202);
       expect((await send()).status).toBe(429);

@@ -22,7 +22,15 @@ import { createTestContext, type TestContext } from '../setup/test-app';
  * - `keeper`, `owner`: members from that role up, never a helper.
  */
 type Access = 'public' | 'signed-in' | 'helper' | 'helper-any-time' | 'keeper' | 'owner';
-const CALLERS = ['anonymous', 'outsider', 'helper before', 'helper during', 'helper after', 'keeper', 'owner'] as const;
+const CALLERS = [
+  'anonymous',
+  'outsider',
+  'helper before',
+  'helper during',
+  'helper after',
+  'keeper',
+  'owner',
+] as const;
 type Caller = (typeof CALLERS)[number];
 
 interface Fixture {
@@ -59,96 +67,372 @@ interface Row {
 // change is harmless or undone by `restore`.
 const TABLE: Record<string, Row> = {
   'GET /api/health': { access: 'public', allowed: 200, call: () => ({ path: '/api/health' }) },
-  'POST /api/auth/sign-up': { access: 'public', allowed: 422, call: () => ({ path: '/api/auth/sign-up', body: {} }) },
-  'GET /api/auth/sign-up/preview': { access: 'public', allowed: 422, call: () => ({ path: '/api/auth/sign-up/preview?token=x' }) },
-  'POST /api/auth/sign-up/finish': { access: 'public', allowed: 422, call: () => ({ path: '/api/auth/sign-up/finish', body: {} }) },
-  'POST /api/auth/sign-in': { access: 'public', allowed: 422, call: () => ({ path: '/api/auth/sign-in', body: {} }) },
-  'POST /api/auth/sign-out': { access: 'public', allowed: 204, call: () => ({ path: '/api/auth/sign-out' }), restore: signBackIn },
+  'POST /api/auth/sign-up': {
+    access: 'public',
+    allowed: 422,
+    call: () => ({ path: '/api/auth/sign-up', body: {} }),
+  },
+  'GET /api/auth/sign-up/preview': {
+    access: 'public',
+    allowed: 422,
+    call: () => ({ path: '/api/auth/sign-up/preview?token=x' }),
+  },
+  'POST /api/auth/sign-up/finish': {
+    access: 'public',
+    allowed: 422,
+    call: () => ({ path: '/api/auth/sign-up/finish', body: {} }),
+  },
+  'POST /api/auth/sign-in': {
+    access: 'public',
+    allowed: 422,
+    call: () => ({ path: '/api/auth/sign-in', body: {} }),
+  },
+  'POST /api/auth/sign-out': {
+    access: 'public',
+    allowed: 204,
+    call: () => ({ path: '/api/auth/sign-out' }),
+    restore: signBackIn,
+  },
   'GET /api/auth/me': { access: 'signed-in', allowed: 200, call: () => ({ path: '/api/auth/me' }) },
-  'POST /api/auth/password': { access: 'signed-in', allowed: 422, call: () => ({ path: '/api/auth/password', body: {} }) },
-  'POST /api/auth/reset-request': { access: 'public', allowed: 422, call: () => ({ path: '/api/auth/reset-request', body: {} }) },
-  'POST /api/auth/reset': { access: 'public', allowed: 422, call: () => ({ path: '/api/auth/reset', body: {} }) },
+  'POST /api/auth/password': {
+    access: 'signed-in',
+    allowed: 422,
+    call: () => ({ path: '/api/auth/password', body: {} }),
+  },
+  'POST /api/auth/reset-request': {
+    access: 'public',
+    allowed: 422,
+    call: () => ({ path: '/api/auth/reset-request', body: {} }),
+  },
+  'POST /api/auth/reset': {
+    access: 'public',
+    allowed: 422,
+    call: () => ({ path: '/api/auth/reset', body: {} }),
+  },
   // Only mounted with DEMO_MODE (the local demo and tests); production leaves it out.
   'GET /api/dev/demo': { access: 'public', allowed: 200, call: () => ({ path: '/api/dev/demo' }) },
   // Public over loopback only, which is where this table calls from. From another host: a
   // signed-in owner, their own mail only (401/403 otherwise); never mounted in production.
   // Both are proven from a real second host in tests/api/dev-mailbox.test.ts.
   'GET /api/dev/mail': { access: 'public', allowed: 200, call: () => ({ path: '/api/dev/mail' }) },
-  'GET /api/collections': { access: 'signed-in', allowed: 200, call: () => ({ path: '/api/collections' }) },
-  'GET /api/cover-invites/preview': { access: 'public', allowed: 422, call: () => ({ path: '/api/cover-invites/preview?token=x' }) },
-  'POST /api/cover-invites/accept': { access: 'public', allowed: 422, call: () => ({ path: '/api/cover-invites/accept', body: {} }) },
+  'GET /api/collections': {
+    access: 'signed-in',
+    allowed: 200,
+    call: () => ({ path: '/api/collections' }),
+  },
+  'GET /api/cover-invites/preview': {
+    access: 'public',
+    allowed: 422,
+    call: () => ({ path: '/api/cover-invites/preview?token=x' }),
+  },
+  'POST /api/cover-invites/accept': {
+    access: 'public',
+    allowed: 422,
+    call: () => ({ path: '/api/cover-invites/accept', body: {} }),
+  },
 
-  'GET /api/collections/:collectionId': { access: 'helper', allowed: 200, call: (f) => ({ path: f.c }) },
+  'GET /api/collections/:collectionId': {
+    access: 'helper',
+    allowed: 200,
+    call: (f) => ({ path: f.c }),
+  },
   // The wrong name typed: refused (422) before anything is deleted.
-  'DELETE /api/collections/:collectionId': { access: 'owner', allowed: 422, call: (f) => ({ path: f.c, body: { confirmName: 'Not its name' } }) },
-  'GET /api/collections/:collectionId/members': { access: 'owner', allowed: 200, call: (f) => ({ path: `${f.c}/members` }) },
-  'POST /api/collections/:collectionId/members': { access: 'owner', allowed: 422, call: (f) => ({ path: `${f.c}/members`, body: {} }) },
-  'DELETE /api/collections/:collectionId/members/:userId': { access: 'owner', allowed: 204, call: async (f) => ({ path: `${f.c}/members/${await f.newMember()}` }) },
+  'DELETE /api/collections/:collectionId': {
+    access: 'owner',
+    allowed: 422,
+    call: (f) => ({ path: f.c, body: { confirmName: 'Not its name' } }),
+  },
+  'GET /api/collections/:collectionId/members': {
+    access: 'owner',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/members` }),
+  },
+  'POST /api/collections/:collectionId/members': {
+    access: 'owner',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/members`, body: {} }),
+  },
+  'DELETE /api/collections/:collectionId/members/:userId': {
+    access: 'owner',
+    allowed: 204,
+    call: async (f) => ({ path: `${f.c}/members/${await f.newMember()}` }),
+  },
   // A keeper leaves (and is put back for the next caller); an owner cannot leave their own.
-  'DELETE /api/collections/:collectionId/membership': { access: 'keeper', allowed: 204, call: (f) => ({ path: `${f.c}/membership` }), restore: (f) => addMember(ctx.database.db, { collectionId: owner.collectionId, userId: f.keeperId, role: 'keeper' }) },
+  'DELETE /api/collections/:collectionId/membership': {
+    access: 'keeper',
+    allowed: 204,
+    call: (f) => ({ path: `${f.c}/membership` }),
+    restore: (f) =>
+      addMember(ctx.database.db, {
+        collectionId: owner.collectionId,
+        userId: f.keeperId,
+        role: 'keeper',
+      }),
+  },
 
-  'GET /api/collections/:collectionId/rounds/today': { access: 'helper', allowed: 200, call: (f) => ({ path: `${f.c}/rounds/today` }) },
-  'GET /api/collections/:collectionId/rounds/tomorrow': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/rounds/tomorrow` }) },
-  'GET /api/collections/:collectionId/prep-list': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/prep-list?date=2026-12-12` }) },
-  'GET /api/collections/:collectionId/animals/:animalId/schedule': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/animals/${f.animalId}/schedule` }) },
-  'PATCH /api/collections/:collectionId/animals/:animalId/care': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/animals/${f.animalId}/care`, body: { intervalDays: -1 } }) },
-  'GET /api/collections/:collectionId/rules': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/rules` }) },
-  'PUT /api/collections/:collectionId/rules': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/rules`, body: { profiles: { tarantula: { stages: { adult: { refusalStreak: -1 } } } } } }) },
+  'GET /api/collections/:collectionId/rounds/today': {
+    access: 'helper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/rounds/today` }),
+  },
+  'GET /api/collections/:collectionId/rounds/tomorrow': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/rounds/tomorrow` }),
+  },
+  'GET /api/collections/:collectionId/prep-list': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/prep-list?date=2026-12-12` }),
+  },
+  'GET /api/collections/:collectionId/animals/:animalId/schedule': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/schedule` }),
+  },
+  'PATCH /api/collections/:collectionId/animals/:animalId/care': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/care`, body: { intervalDays: -1 } }),
+  },
+  'GET /api/collections/:collectionId/rules': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/rules` }),
+  },
+  'PUT /api/collections/:collectionId/rules': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({
+      path: `${f.c}/rules`,
+      body: { profiles: { tarantula: { stages: { adult: { refusalStreak: -1 } } } } },
+    }),
+  },
 
-  'POST /api/collections/:collectionId/events': { access: 'helper-any-time', allowed: 422, call: (f) => ({ path: `${f.c}/events`, body: {} }) },
-  'GET /api/collections/:collectionId/events': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/events?animalId=${f.animalId}` }) },
+  'POST /api/collections/:collectionId/events': {
+    access: 'helper-any-time',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/events`, body: {} }),
+  },
+  'GET /api/collections/:collectionId/events': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/events?animalId=${f.animalId}` }),
+  },
 
-  'GET /api/collections/:collectionId/animals': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/animals` }) },
-  'POST /api/collections/:collectionId/animals': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/animals`, body: {} }) },
-  'POST /api/collections/:collectionId/animals/move': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/animals/move`, body: {} }) },
-  'GET /api/collections/:collectionId/animals/:animalId': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/animals/${f.animalId}` }) },
-  'PUT /api/collections/:collectionId/animals/:animalId': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/animals/${f.animalId}`, body: {} }) },
-  'POST /api/collections/:collectionId/animals/:animalId/retire': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/animals/${f.animalId}/retire`, body: {} }) },
-  'POST /api/collections/:collectionId/animals/:animalId/reinstate': { access: 'keeper', allowed: 409, call: (f) => ({ path: `${f.c}/animals/${f.animalId}/reinstate`, body: {} }) },
-  'POST /api/collections/:collectionId/animals/:animalId/relabel': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/animals/${f.animalId}/relabel` }) },
-  'PUT /api/collections/:collectionId/animals/:animalId/photo': { access: 'keeper', allowed: 400, call: (f) => ({ path: `${f.c}/animals/${f.animalId}/photo` }) },
-  'GET /api/collections/:collectionId/animals/:animalId/photo': { access: 'helper', allowed: 200, call: (f) => ({ path: `${f.c}/animals/${f.animalId}/photo` }) },
+  'GET /api/collections/:collectionId/animals': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/animals` }),
+  },
+  'POST /api/collections/:collectionId/animals': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/animals`, body: {} }),
+  },
+  'POST /api/collections/:collectionId/animals/move': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/animals/move`, body: {} }),
+  },
+  'GET /api/collections/:collectionId/animals/:animalId': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}` }),
+  },
+  'PUT /api/collections/:collectionId/animals/:animalId': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}`, body: {} }),
+  },
+  'POST /api/collections/:collectionId/animals/:animalId/retire': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/retire`, body: {} }),
+  },
+  'POST /api/collections/:collectionId/animals/:animalId/reinstate': {
+    access: 'keeper',
+    allowed: 409,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/reinstate`, body: {} }),
+  },
+  'POST /api/collections/:collectionId/animals/:animalId/relabel': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/relabel` }),
+  },
+  'PUT /api/collections/:collectionId/animals/:animalId/photo': {
+    access: 'keeper',
+    allowed: 400,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/photo` }),
+  },
+  'GET /api/collections/:collectionId/animals/:animalId/photo': {
+    access: 'helper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/photo` }),
+  },
   'DELETE /api/collections/:collectionId/animals/:animalId/photo': {
     access: 'keeper',
     allowed: 204,
     call: (f) => ({ path: `${f.c}/animals/${f.animalId}/photo` }),
     restore: (f) => putPhoto(`${f.c}/animals/${f.animalId}/photo`),
   },
-  'PUT /api/collections/:collectionId/animals/:animalId/molts/:eventId/photo': { access: 'keeper', allowed: 400, call: (f) => ({ path: `${f.c}/animals/${f.animalId}/molts/${f.moltId}/photo` }) },
-  'GET /api/collections/:collectionId/animals/:animalId/molts/:eventId/photo': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/animals/${f.animalId}/molts/${f.moltId}/photo` }) },
+  'PUT /api/collections/:collectionId/animals/:animalId/molts/:eventId/photo': {
+    access: 'keeper',
+    allowed: 400,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/molts/${f.moltId}/photo` }),
+  },
+  'GET /api/collections/:collectionId/animals/:animalId/molts/:eventId/photo': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/molts/${f.moltId}/photo` }),
+  },
 
-  'GET /api/collections/:collectionId/locations': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/locations` }) },
-  'POST /api/collections/:collectionId/locations': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/locations`, body: {} }) },
-  'PUT /api/collections/:collectionId/locations/order': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/locations/order`, body: {} }) },
-  'PATCH /api/collections/:collectionId/locations/:locationId': { access: 'keeper', allowed: 422, call: async (f) => ({ path: `${f.c}/locations/${await f.newLocation()}`, body: { rack: 7 } }) },
-  'DELETE /api/collections/:collectionId/locations/:locationId': { access: 'keeper', allowed: 204, call: async (f) => ({ path: `${f.c}/locations/${await f.newLocation()}` }) },
+  'GET /api/collections/:collectionId/locations': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/locations` }),
+  },
+  'POST /api/collections/:collectionId/locations': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/locations`, body: {} }),
+  },
+  'PUT /api/collections/:collectionId/locations/order': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/locations/order`, body: {} }),
+  },
+  'PATCH /api/collections/:collectionId/locations/:locationId': {
+    access: 'keeper',
+    allowed: 422,
+    call: async (f) => ({ path: `${f.c}/locations/${await f.newLocation()}`, body: { rack: 7 } }),
+  },
+  'DELETE /api/collections/:collectionId/locations/:locationId': {
+    access: 'keeper',
+    allowed: 204,
+    call: async (f) => ({ path: `${f.c}/locations/${await f.newLocation()}` }),
+  },
 
-  'GET /api/collections/:collectionId/export/animals.csv': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/export/animals.csv` }) },
-  'GET /api/collections/:collectionId/export/events.csv': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/export/events.csv` }) },
-  'POST /api/collections/:collectionId/animals/import': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/animals/import`, body: {} }) },
-  'GET /api/collections/:collectionId/backup': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/backup` }) },
+  'GET /api/collections/:collectionId/export/animals.csv': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/export/animals.csv` }),
+  },
+  'GET /api/collections/:collectionId/export/events.csv': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/export/events.csv` }),
+  },
+  'POST /api/collections/:collectionId/animals/import': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/animals/import`, body: {} }),
+  },
+  'GET /api/collections/:collectionId/backup': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/backup` }),
+  },
   // The collection has animals: refused (409) before the upload is read.
-  'POST /api/collections/:collectionId/restore': { access: 'owner', allowed: 409, call: (f) => ({ path: `${f.c}/restore`, body: {} }) },
-  'POST /api/collections/:collectionId/labels/pdf': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/labels/pdf`, body: {} }) },
+  'POST /api/collections/:collectionId/restore': {
+    access: 'owner',
+    allowed: 409,
+    call: (f) => ({ path: `${f.c}/restore`, body: {} }),
+  },
+  'POST /api/collections/:collectionId/labels/pdf': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/labels/pdf`, body: {} }),
+  },
 
-  'GET /api/collections/:collectionId/covers': { access: 'owner', allowed: 200, call: (f) => ({ path: `${f.c}/covers` }) },
-  'POST /api/collections/:collectionId/covers': { access: 'owner', allowed: 422, call: (f) => ({ path: `${f.c}/covers`, body: {} }) },
-  'PUT /api/collections/:collectionId/covers/:coverId': { access: 'owner', allowed: 422, call: (f) => ({ path: `${f.c}/covers/${f.coverId}`, body: {} }) },
-  'POST /api/collections/:collectionId/covers/:coverId/end': { access: 'owner', allowed: 200, call: (f) => ({ path: `${f.c}/covers/${f.coverId}/end` }), restore: reopenCover },
-  'GET /api/collections/:collectionId/handover': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/handover` }) },
-  'PUT /api/collections/:collectionId/handover/general': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/handover/general`, body: {} }) },
-  'POST /api/collections/:collectionId/handover/notes': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/handover/notes`, body: {} }) },
-  'DELETE /api/collections/:collectionId/handover/notes/:noteId': { access: 'keeper', allowed: 204, call: async (f) => ({ path: `${f.c}/handover/notes/${await f.newNote()}` }) },
-  'GET /api/collections/:collectionId/cover-reports': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/cover-reports` }) },
-  'GET /api/collections/:collectionId/cover/mine': { access: 'helper', allowed: 200, call: (f) => ({ path: `${f.c}/cover/mine` }) },
-  'POST /api/collections/:collectionId/cover/mine/acknowledge': { access: 'helper', allowed: 204, call: (f) => ({ path: `${f.c}/cover/mine/acknowledge` }) },
-  'DELETE /api/collections/:collectionId/cover/mine': { access: 'helper-any-time', allowed: 204, call: (f) => ({ path: `${f.c}/cover/mine` }), restore: reopenCover },
+  'GET /api/collections/:collectionId/covers': {
+    access: 'owner',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/covers` }),
+  },
+  'POST /api/collections/:collectionId/covers': {
+    access: 'owner',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/covers`, body: {} }),
+  },
+  'PUT /api/collections/:collectionId/covers/:coverId': {
+    access: 'owner',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/covers/${f.coverId}`, body: {} }),
+  },
+  'POST /api/collections/:collectionId/covers/:coverId/end': {
+    access: 'owner',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/covers/${f.coverId}/end` }),
+    restore: reopenCover,
+  },
+  'GET /api/collections/:collectionId/handover': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/handover` }),
+  },
+  'PUT /api/collections/:collectionId/handover/general': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/handover/general`, body: {} }),
+  },
+  'POST /api/collections/:collectionId/handover/notes': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/handover/notes`, body: {} }),
+  },
+  'DELETE /api/collections/:collectionId/handover/notes/:noteId': {
+    access: 'keeper',
+    allowed: 204,
+    call: async (f) => ({ path: `${f.c}/handover/notes/${await f.newNote()}` }),
+  },
+  'GET /api/collections/:collectionId/cover-reports': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/cover-reports` }),
+  },
+  'GET /api/collections/:collectionId/cover/mine': {
+    access: 'helper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/cover/mine` }),
+  },
+  'POST /api/collections/:collectionId/cover/mine/acknowledge': {
+    access: 'helper',
+    allowed: 204,
+    call: (f) => ({ path: `${f.c}/cover/mine/acknowledge` }),
+  },
+  'DELETE /api/collections/:collectionId/cover/mine': {
+    access: 'helper-any-time',
+    allowed: 204,
+    call: (f) => ({ path: `${f.c}/cover/mine` }),
+    restore: reopenCover,
+  },
 
-  'GET /api/collections/:collectionId/egg-sacs': { access: 'keeper', allowed: 200, call: (f) => ({ path: `${f.c}/egg-sacs` }) },
-  'POST /api/collections/:collectionId/egg-sacs': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/egg-sacs`, body: {} }) },
-  'PATCH /api/collections/:collectionId/egg-sacs/:sacId': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/egg-sacs/${f.sacId}`, body: { pulledOn: 'soon' } }) },
-  'POST /api/collections/:collectionId/egg-sacs/:sacId/slings': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/egg-sacs/${f.sacId}/slings`, body: {} }) },
-  'PUT /api/collections/:collectionId/incubation': { access: 'keeper', allowed: 422, call: (f) => ({ path: `${f.c}/incubation`, body: {} }) },
+  'GET /api/collections/:collectionId/egg-sacs': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/egg-sacs` }),
+  },
+  'POST /api/collections/:collectionId/egg-sacs': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/egg-sacs`, body: {} }),
+  },
+  'PATCH /api/collections/:collectionId/egg-sacs/:sacId': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/egg-sacs/${f.sacId}`, body: { pulledOn: 'soon' } }),
+  },
+  'POST /api/collections/:collectionId/egg-sacs/:sacId/slings': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/egg-sacs/${f.sacId}/slings`, body: {} }),
+  },
+  'PUT /api/collections/:collectionId/incubation': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/incubation`, body: {} }),
+  },
 };
 
 // Some routes answer a non-helper member differently from a helper on purpose.
@@ -169,14 +453,19 @@ function expectedStatus(key: string, row: Row, caller: Caller): number {
   if (access === 'signed-in') return allowed;
   // A collection route: a non-member learns nothing, not even that the collection exists.
   if (caller === 'outsider') return 404;
-  if (caller === 'helper during') return access === 'helper' || access === 'helper-any-time' ? allowed : 403;
-  if (caller === 'helper before' || caller === 'helper after') return access === 'helper-any-time' ? allowed : 403;
+  if (caller === 'helper during')
+    return access === 'helper' || access === 'helper-any-time' ? allowed : 403;
+  if (caller === 'helper before' || caller === 'helper after')
+    return access === 'helper-any-time' ? allowed : 403;
   if (caller === 'keeper') return access === 'owner' ? 403 : allowed;
   return allowed;
 }
 
 // The helper covers 10–16 Dec 2026 in Toronto (UTC−5 in winter, per the IANA tz database).
-const COVER = { startsAt: new Date('2026-12-10T05:00:00Z'), endsAt: new Date('2026-12-17T05:00:00Z') };
+const COVER = {
+  startsAt: new Date('2026-12-10T05:00:00Z'),
+  endsAt: new Date('2026-12-17T05:00:00Z'),
+};
 const WHEN: Record<Caller, Date | null> = {
   anonymous: null,
   outsider: null,
@@ -197,22 +486,49 @@ let agents: Record<Caller, ReturnType<TestContext['agent']>>;
 let jpeg: Buffer;
 
 async function putPhoto(path: string) {
-  const res = await owner.agent.put(path).attach('photo', jpeg, { filename: 'p.jpg', contentType: 'image/jpeg' });
+  const res = await owner.agent
+    .put(path)
+    .attach('photo', jpeg, { filename: 'p.jpg', contentType: 'image/jpeg' });
   expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
 }
 
 async function reopenCover(f: Fixture) {
   const db = ctx.database.db;
-  const [row] = await db.select().from(memberships).where(and(eq(memberships.userId, f.helperId), eq(memberships.collectionId, owner.collectionId)));
-  if (row) await db.update(memberships).set({ ...COVER, writesClosedAt: null }).where(eq(memberships.id, row.id));
-  else await addMember(db, { collectionId: owner.collectionId, userId: f.helperId, role: 'helper', ...COVER });
+  const [row] = await db
+    .select()
+    .from(memberships)
+    .where(
+      and(eq(memberships.userId, f.helperId), eq(memberships.collectionId, owner.collectionId)),
+    );
+  if (row)
+    await db
+      .update(memberships)
+      .set({ ...COVER, writesClosedAt: null })
+      .where(eq(memberships.id, row.id));
+  else
+    await addMember(db, {
+      collectionId: owner.collectionId,
+      userId: f.helperId,
+      role: 'helper',
+      ...COVER,
+    });
 }
 
 async function signBackIn() {
   // sign-out ends whichever session made the call; each caller signs in again with a fresh agent.
-  for (const [caller, who] of [['outsider', outsider], ['helper before', helper], ['helper during', helper], ['helper after', helper], ['keeper', keeper], ['owner', owner]] as const) {
+  for (const [caller, who] of [
+    ['outsider', outsider],
+    ['helper before', helper],
+    ['helper during', helper],
+    ['helper after', helper],
+    ['keeper', keeper],
+    ['owner', owner],
+  ] as const) {
     const again = ctx.agent();
-    await again.post('/api/auth/sign-in').send({ email: who.email, password: 'correct horse battery' }).expect(200);
+    await again
+      .post('/api/auth/sign-in')
+      .send({ email: who.email, password: 'correct horse battery' })
+      .expect(200);
     agents[caller] = again;
   }
   owner.agent = agents.owner;
@@ -221,11 +537,26 @@ async function signBackIn() {
 beforeAll(async () => {
   ctx = await createTestContext();
   const db = ctx.database.db;
-  [owner, keeper, helper, outsider] = [await signUp(ctx), await signUp(ctx), await signUp(ctx), await signUp(ctx)];
+  [owner, keeper, helper, outsider] = [
+    await signUp(ctx),
+    await signUp(ctx),
+    await signUp(ctx),
+    await signUp(ctx),
+  ];
   await addMember(db, { collectionId: owner.collectionId, userId: keeper.userId, role: 'keeper' });
-  await addMember(db, { collectionId: owner.collectionId, userId: helper.userId, role: 'helper', ...COVER });
-  await db.update(memberships).set({ safetyAcknowledgedAt: COVER.startsAt }).where(eq(memberships.userId, helper.userId));
-  jpeg = await sharp({ create: { width: 32, height: 24, channels: 3, background: '#884422' } }).jpeg().toBuffer();
+  await addMember(db, {
+    collectionId: owner.collectionId,
+    userId: helper.userId,
+    role: 'helper',
+    ...COVER,
+  });
+  await db
+    .update(memberships)
+    .set({ safetyAcknowledgedAt: COVER.startsAt })
+    .where(eq(memberships.userId, helper.userId));
+  jpeg = await sharp({ create: { width: 32, height: 24, channels: 3, background: '#884422' } })
+    .jpeg()
+    .toBuffer();
 
   const c = `/api/collections/${owner.collectionId}`;
   const animal = await createAnimal(db, owner.collectionId, { name: 'Juniper', sex: 'female' });
@@ -233,12 +564,35 @@ beforeAll(async () => {
   const moltId = randomUUID();
   await owner.agent
     .post(`${c}/events`)
-    .send({ deviceId: 'matrix', clientSentAt: new Date().toISOString(), events: [{ id: moltId, animalId: animal.id, kind: 'molted', payload: {}, clientRecordedAt: new Date().toISOString() }] })
+    .send({
+      deviceId: 'matrix',
+      clientSentAt: new Date().toISOString(),
+      events: [
+        {
+          id: moltId,
+          animalId: animal.id,
+          kind: 'molted',
+          payload: {},
+          clientRecordedAt: new Date().toISOString(),
+        },
+      ],
+    })
     .expect(200);
   await putPhoto(`${c}/animals/${animal.id}/molts/${moltId}/photo`);
-  const sac = await owner.agent.post(`${c}/egg-sacs`).send({ femaleId: animal.id, laidOn: '2026-11-01' }).expect(201);
+  const sac = await owner.agent
+    .post(`${c}/egg-sacs`)
+    .send({ femaleId: animal.id, laidOn: '2026-11-01' })
+    .expect(201);
   const covers = await owner.agent.get(`${c}/covers`).expect(200);
-  await owner.agent.post(`${c}/covers`).send({ email: `other-helper-${randomUUID().slice(0, 6)}@example.test`, firstDay: '2027-01-10', lastDay: '2027-01-12', message: '' }).expect(201);
+  await owner.agent
+    .post(`${c}/covers`)
+    .send({
+      email: `other-helper-${randomUUID().slice(0, 6)}@example.test`,
+      firstDay: '2027-01-10',
+      lastDay: '2027-01-12',
+      message: '',
+    })
+    .expect(201);
   const listed = (await owner.agent.get(`${c}/covers`).expect(200)).body.covers as { id: string }[];
   const known = new Set((covers.body.covers as { id: string }[]).map((x) => x.id));
 
@@ -250,16 +604,59 @@ beforeAll(async () => {
     coverId: listed.find((x) => !known.has(x.id))!.id,
     helperId: helper.userId,
     keeperId: keeper.userId,
-    newLocation: async () => (await db.insert(locations).values({ collectionId: owner.collectionId, room: 'Matrix room', rack: 'M', shelf: '1', position: randomUUID().slice(0, 6) }).returning())[0]!.id,
-    newNote: async () => (await db.insert(handoverNotes).values({ collectionId: owner.collectionId, animalId: animal.id, text: 'Matrix note', until: '2026-12-31', createdBy: owner.userId }).returning())[0]!.id,
+    newLocation: async () =>
+      (
+        await db
+          .insert(locations)
+          .values({
+            collectionId: owner.collectionId,
+            room: 'Matrix room',
+            rack: 'M',
+            shelf: '1',
+            position: randomUUID().slice(0, 6),
+          })
+          .returning()
+      )[0]!.id,
+    newNote: async () =>
+      (
+        await db
+          .insert(handoverNotes)
+          .values({
+            collectionId: owner.collectionId,
+            animalId: animal.id,
+            text: 'Matrix note',
+            until: '2026-12-31',
+            createdBy: owner.userId,
+          })
+          .returning()
+      )[0]!.id,
     newMember: async () => {
       // Straight into the database: this person never signs in, they are only removed.
-      const [someone] = await db.insert(users).values({ email: `member-${randomUUID().slice(0, 8)}@example.test`, displayName: 'Matrix member', passwordHash: 'not a usable hash' }).returning();
-      await addMember(db, { collectionId: owner.collectionId, userId: someone!.id, role: 'keeper' });
+      const [someone] = await db
+        .insert(users)
+        .values({
+          email: `member-${randomUUID().slice(0, 8)}@example.test`,
+          displayName: 'Matrix member',
+          passwordHash: 'not a usable hash',
+        })
+        .returning();
+      await addMember(db, {
+        collectionId: owner.collectionId,
+        userId: someone!.id,
+        role: 'keeper',
+      });
       return someone!.id;
     },
   };
-  agents = { anonymous: ctx.agent(), outsider: outsider.agent, 'helper before': helper.agent, 'helper during': helper.agent, 'helper after': helper.agent, keeper: keeper.agent, owner: owner.agent };
+  agents = {
+    anonymous: ctx.agent(),
+    outsider: outsider.agent,
+    'helper before': helper.agent,
+    'helper during': helper.agent,
+    'helper after': helper.agent,
+    keeper: keeper.agent,
+    owner: owner.agent,
+  };
 });
 afterAll(async () => {
   ctx.setNow(null);
@@ -267,8 +664,11 @@ afterAll(async () => {
 });
 
 function send(agent: ReturnType<TestContext['agent']>, method: string, call: Call): Test {
-  const req = (agent as unknown as Record<string, (p: string) => Test>)[method.toLowerCase()]!(call.path);
-  if (call.file) return req.attach('photo', call.file, { filename: 'p.jpg', contentType: 'image/jpeg' });
+  const req = (agent as unknown as Record<string, (p: string) => Test>)[method.toLowerCase()]!(
+    call.path,
+  );
+  if (call.file)
+    return req.attach('photo', call.file, { filename: 'p.jpg', contentType: 'image/jpeg' });
   return call.body === undefined ? req : req.send(call.body as object);
 }
 
@@ -291,10 +691,14 @@ describe('S4: the authorisation matrix', () => {
         const res = await send(agents[caller], method, await row.call(fixture));
         ctx.setNow(null);
         cells.push(`${key} ${caller}`);
-        if (res.status !== expected) seen.push(`${key} as ${caller}: ${res.status} ${JSON.stringify(res.body).slice(0, 120)}, expected ${expected}`);
+        if (res.status !== expected)
+          seen.push(
+            `${key} as ${caller}: ${res.status} ${JSON.stringify(res.body).slice(0, 120)}, expected ${expected}`,
+          );
         // Every refusal is a JSON error a person can read.
         if (res.status >= 400) {
-          if (!(typeof res.body?.error?.message === 'string' && res.body.error.message.length > 5)) seen.push(`${key} as ${caller}: ${res.status} without a readable JSON message`);
+          if (!(typeof res.body?.error?.message === 'string' && res.body.error.message.length > 5))
+            seen.push(`${key} as ${caller}: ${res.status} without a readable JSON message`);
         }
         if (res.status < 300 && row.restore) await row.restore(fixture);
       }
@@ -310,19 +714,70 @@ describe('ids from another collection, inside your own', () => {
     const db = ctx.database.db;
     // The outsider's own collection holds the "foreign" records.
     const o = `/api/collections/${outsider.collectionId}`;
-    const animal = await createAnimal(db, outsider.collectionId, { name: 'Elsewhere', sex: 'female' });
+    const animal = await createAnimal(db, outsider.collectionId, {
+      name: 'Elsewhere',
+      sex: 'female',
+    });
     const moltId = randomUUID();
     await outsider.agent
       .post(`${o}/events`)
-      .send({ deviceId: 'foreign', clientSentAt: new Date().toISOString(), events: [{ id: moltId, animalId: animal.id, kind: 'molted', payload: {}, clientRecordedAt: new Date().toISOString() }] })
+      .send({
+        deviceId: 'foreign',
+        clientSentAt: new Date().toISOString(),
+        events: [
+          {
+            id: moltId,
+            animalId: animal.id,
+            kind: 'molted',
+            payload: {},
+            clientRecordedAt: new Date().toISOString(),
+          },
+        ],
+      })
       .expect(200);
-    const sac = (await outsider.agent.post(`${o}/egg-sacs`).send({ femaleId: animal.id, laidOn: '2026-11-01' }).expect(201)).body;
-    const [place] = await db.insert(locations).values({ collectionId: outsider.collectionId, room: 'Far', rack: 'F', shelf: '1', position: '1' }).returning();
-    const [note] = await db.insert(handoverNotes).values({ collectionId: outsider.collectionId, animalId: animal.id, text: 'Theirs', until: '2026-12-31' }).returning();
+    const sac = (
+      await outsider.agent
+        .post(`${o}/egg-sacs`)
+        .send({ femaleId: animal.id, laidOn: '2026-11-01' })
+        .expect(201)
+    ).body;
+    const [place] = await db
+      .insert(locations)
+      .values({
+        collectionId: outsider.collectionId,
+        room: 'Far',
+        rack: 'F',
+        shelf: '1',
+        position: '1',
+      })
+      .returning();
+    const [note] = await db
+      .insert(handoverNotes)
+      .values({
+        collectionId: outsider.collectionId,
+        animalId: animal.id,
+        text: 'Theirs',
+        until: '2026-12-31',
+      })
+      .returning();
     const member = await signUp(ctx);
-    await addMember(db, { collectionId: outsider.collectionId, userId: member.userId, role: 'keeper' });
-    await outsider.agent.post(`${o}/covers`).send({ email: `far-${randomUUID().slice(0, 6)}@example.test`, firstDay: '2027-02-01', lastDay: '2027-02-03', message: '' }).expect(201);
-    const [cover] = (await outsider.agent.get(`${o}/covers`).expect(200)).body.covers as { id: string }[];
+    await addMember(db, {
+      collectionId: outsider.collectionId,
+      userId: member.userId,
+      role: 'keeper',
+    });
+    await outsider.agent
+      .post(`${o}/covers`)
+      .send({
+        email: `far-${randomUUID().slice(0, 6)}@example.test`,
+        firstDay: '2027-02-01',
+        lastDay: '2027-02-03',
+        message: '',
+      })
+      .expect(201);
+    const [cover] = (await outsider.agent.get(`${o}/covers`).expect(200)).body.covers as {
+      id: string;
+    }[];
     const before = (await outsider.agent.get(`${o}/backup`).expect(200)).body;
 
     const c = fixture.c;
@@ -334,8 +789,27 @@ describe('ids from another collection, inside your own', () => {
       ['GET', { path: `${c}/animals/${a}` }],
       ['PUT', { path: `${c}/animals/${a}`, body: animalBody({ name: 'Mine now' }) }],
       ['GET', { path: `${c}/animals/${a}/schedule` }],
-      ['PATCH', { path: `${c}/animals/${a}/care`, body: { intervalDays: 5, preyType: null, preySize: null, preyCount: null, hasWaterDish: true, doNotFeedUntil: null } }],
-      ['POST', { path: `${c}/animals/${a}/retire`, body: { status: 'sold', date: '2026-12-01', note: '' } }],
+      [
+        'PATCH',
+        {
+          path: `${c}/animals/${a}/care`,
+          body: {
+            intervalDays: 5,
+            preyType: null,
+            preySize: null,
+            preyCount: null,
+            hasWaterDish: true,
+            doNotFeedUntil: null,
+          },
+        },
+      ],
+      [
+        'POST',
+        {
+          path: `${c}/animals/${a}/retire`,
+          body: { status: 'sold', date: '2026-12-01', note: '' },
+        },
+      ],
       ['POST', { path: `${c}/animals/${a}/reinstate`, body: {} }],
       ['POST', { path: `${c}/animals/${a}/relabel` }],
       ['POST', { path: `${c}/animals/move`, body: { animalIds: [a], locationId: ownPlace } }],
@@ -349,35 +823,92 @@ describe('ids from another collection, inside your own', () => {
       ['DELETE', { path: o, body: { confirmName: 'Test Collection' } }],
       ['PATCH', { path: `${c}/locations/${place!.id}`, body: place4 }],
       ['DELETE', { path: `${c}/locations/${place!.id}` }],
-      ['POST', { path: `${c}/handover/notes`, body: { animalId: a, text: 'Sneaky', until: '2026-12-31' } }],
+      [
+        'POST',
+        { path: `${c}/handover/notes`, body: { animalId: a, text: 'Sneaky', until: '2026-12-31' } },
+      ],
       ['DELETE', { path: `${c}/handover/notes/${note!.id}` }],
       ['DELETE', { path: `${c}/members/${member.userId}` }],
-      ['PUT', { path: `${c}/covers/${cover!.id}`, body: { message: 'Changed', firstDay: '2027-02-01', lastDay: '2027-02-09' } }],
+      [
+        'PUT',
+        {
+          path: `${c}/covers/${cover!.id}`,
+          body: { message: 'Changed', firstDay: '2027-02-01', lastDay: '2027-02-09' },
+        },
+      ],
       ['POST', { path: `${c}/covers/${cover!.id}/end` }],
       ['POST', { path: `${c}/egg-sacs`, body: { femaleId: a, laidOn: '2026-11-02' } }],
       ['PATCH', { path: `${c}/egg-sacs/${sac.id}`, body: { eggCount: 5 } }],
-      ['POST', { path: `${c}/egg-sacs/${sac.id}/slings`, body: { count: 2, namePrefix: 'Stolen', room: 'R', rack: 'R', shelf: '1', firstPosition: 1 } }],
-      ['POST', { path: `${c}/labels/pdf`, body: { animalIds: [a], sheet: 'a4', size: { widthMm: 38, heightMm: 38 }, fields: [], start: 1, origin: 'http://localhost:3000' } }],
+      [
+        'POST',
+        {
+          path: `${c}/egg-sacs/${sac.id}/slings`,
+          body: {
+            count: 2,
+            namePrefix: 'Stolen',
+            room: 'R',
+            rack: 'R',
+            shelf: '1',
+            firstPosition: 1,
+          },
+        },
+      ],
+      [
+        'POST',
+        {
+          path: `${c}/labels/pdf`,
+          body: {
+            animalIds: [a],
+            sheet: 'a4',
+            size: { widthMm: 38, heightMm: 38 },
+            fields: [],
+            start: 1,
+            origin: 'http://localhost:3000',
+          },
+        },
+      ],
     ];
     const seen: string[] = [];
     for (const [method, call] of calls) {
       const res = await send(owner.agent, method, call);
-      if (res.status !== 404) seen.push(`${method} ${call.path}: ${res.status} ${JSON.stringify(res.body).slice(0, 160)}`);
+      if (res.status !== 404)
+        seen.push(
+          `${method} ${call.path}: ${res.status} ${JSON.stringify(res.body).slice(0, 160)}`,
+        );
     }
     // A place of theirs in a body is a field error, as for a place that does not exist.
-    const move = await owner.agent.post(`${c}/animals/move`).send({ animalIds: [mine], locationId: place!.id }).expect(422);
-    expect(move.body.error.message).toBe('That place is not in this collection. Choose one from the list.');
+    const move = await owner.agent
+      .post(`${c}/animals/move`)
+      .send({ animalIds: [mine], locationId: place!.id })
+      .expect(422);
+    expect(move.body.error.message).toBe(
+      'That place is not in this collection. Choose one from the list.',
+    );
     // History and events: nothing of theirs comes back, and a tap on their animal is refused.
     const history = await owner.agent.get(`${c}/events?animalId=${a}`).expect(200);
     expect(history.body.events).toEqual([]);
-    const tap = await owner.agent
-      .post(`${c}/events`)
-      .send({ deviceId: 'idor', clientSentAt: new Date().toISOString(), events: [{ id: randomUUID(), animalId: a, kind: 'ate', payload: {}, clientRecordedAt: new Date().toISOString() }] });
+    const tap = await owner.agent.post(`${c}/events`).send({
+      deviceId: 'idor',
+      clientSentAt: new Date().toISOString(),
+      events: [
+        {
+          id: randomUUID(),
+          animalId: a,
+          kind: 'ate',
+          payload: {},
+          clientRecordedAt: new Date().toISOString(),
+        },
+      ],
+    });
     expect(tap.body.results?.[0]?.status).toBe('rejected');
     expect(seen).toEqual([]);
 
     const after = (await outsider.agent.get(`${o}/backup`).expect(200)).body;
     expect(after).toEqual({ ...before, exportedAt: after.exportedAt });
-    expect((await outsider.agent.get(`${o}/members`).expect(200)).body.members.map((m: { userId: string }) => m.userId)).toContain(member.userId);
+    expect(
+      (await outsider.agent.get(`${o}/members`).expect(200)).body.members.map(
+        (m: { userId: string }) => m.userId,
+      ),
+    ).toContain(member.userId);
   });
 });

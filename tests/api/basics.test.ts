@@ -20,11 +20,18 @@ describe('API basics', () => {
 
   it('gzips responses for clients that accept it (RFC 9110 §8.4.1)', async () => {
     const who = await signUp(ctx);
-    for (let i = 0; i < 30; i++) await createAnimal(ctx.database.db, who.collectionId, { name: `Gzip ${i}` });
-    const zipped = await who.agent.get(`/api/collections/${who.collectionId}/animals`).set('Accept-Encoding', 'gzip').expect(200);
+    for (let i = 0; i < 30; i++)
+      await createAnimal(ctx.database.db, who.collectionId, { name: `Gzip ${i}` });
+    const zipped = await who.agent
+      .get(`/api/collections/${who.collectionId}/animals`)
+      .set('Accept-Encoding', 'gzip')
+      .expect(200);
     expect(zipped.headers['content-encoding']).toBe('gzip');
     expect(zipped.body.animals).toHaveLength(30);
-    const plain = await who.agent.get(`/api/collections/${who.collectionId}/animals`).set('Accept-Encoding', 'identity').expect(200);
+    const plain = await who.agent
+      .get(`/api/collections/${who.collectionId}/animals`)
+      .set('Accept-Encoding', 'identity')
+      .expect(200);
     expect(plain.headers['content-encoding']).toBeUndefined();
   });
 
@@ -34,10 +41,17 @@ describe('API basics', () => {
   });
 
   it('answers invalid JSON with 400 and an oversized body with 413', async () => {
-    const bad = await ctx.agent().post('/api/auth/sign-in').set('Content-Type', 'application/json').send('{"email": ');
+    const bad = await ctx
+      .agent()
+      .post('/api/auth/sign-in')
+      .set('Content-Type', 'application/json')
+      .send('{"email": ');
     expect(bad.status).toBe(400);
     expect(bad.body.error.message).toMatch(/not valid JSON/);
-    const big = await ctx.agent().post('/api/auth/sign-in').send({ email: 'a@b.test', password: 'x'.repeat(2_000_000) });
+    const big = await ctx
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email: 'a@b.test', password: 'x'.repeat(2_000_000) });
     expect(big.status).toBe(413);
     expect(big.body.error.code).toBe('too_large');
   });
@@ -45,12 +59,17 @@ describe('API basics', () => {
   it('validates at the edge with field messages (422)', async () => {
     const res = await ctx.agent().post('/api/auth/sign-in').send({ email: 'not-an-email' });
     expect(res.status).toBe(422);
-    expect(res.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual(['body.email', 'body.password']);
+    expect(res.body.error.issues.map((i: { path: string }) => i.path).sort()).toEqual([
+      'body.email',
+      'body.password',
+    ]);
   });
 
   it('refuses a cookie-authenticated write without the app header, or from another origin (CSRF)', async () => {
     const { email } = await signUp(ctx);
-    const cookie = sessionCookie(await ctx.agent().post('/api/auth/sign-in').send({ email, password: PASSWORD }))!;
+    const cookie = sessionCookie(
+      await ctx.agent().post('/api/auth/sign-in').send({ email, password: PASSWORD }),
+    )!;
     // The session cookie without our header: what a cross-site form post would carry.
     const forged = await supertest(ctx.app).post('/api/auth/sign-out').set('Cookie', cookie);
     expect(forged.status).toBe(403);

@@ -27,7 +27,10 @@ beforeAll(async () => {
     disabledCommands: ['STARTTLS', 'AUTH'],
     logger: false,
     onRcptTo(address, _session, callback) {
-      if (refused.has(address.address)) return callback(Object.assign(new Error('Mailbox busy, try again later'), { responseCode: 450 }));
+      if (refused.has(address.address))
+        return callback(
+          Object.assign(new Error('Mailbox busy, try again later'), { responseCode: 450 }),
+        );
       callback();
     },
     onData(stream, session, callback) {
@@ -41,14 +44,25 @@ beforeAll(async () => {
     },
   });
   await new Promise<void>((resolve) => smtp.listen(0, '127.0.0.1', resolve));
-  mailer = createSmtpMailer(`smtp://127.0.0.1:${(smtp.server.address() as { port: number }).port}`, 'Rackside tests <tests@rackside.invalid>');
+  mailer = createSmtpMailer(
+    `smtp://127.0.0.1:${(smtp.server.address() as { port: number }).port}`,
+    'Rackside tests <tests@rackside.invalid>',
+  );
 
   owner = await signUp(ctx, { timeZone: 'UTC' });
   coOwner = await signUp(ctx, { timeZone: 'UTC' });
-  await ctx.database.db.insert(memberships).values({ collectionId: owner.collectionId, userId: coOwner.userId, role: 'owner' });
+  await ctx.database.db
+    .insert(memberships)
+    .values({ collectionId: owner.collectionId, userId: coOwner.userId, role: 'owner' });
   const helper = await signUp(ctx, { timeZone: 'UTC' });
   // Covers 10 and 11 May 2027 in UTC.
-  await addMember(ctx.database.db, { collectionId: owner.collectionId, userId: helper.userId, role: 'helper', startsAt: new Date('2027-05-10T00:00:00Z'), endsAt: new Date('2027-05-12T00:00:00Z') });
+  await addMember(ctx.database.db, {
+    collectionId: owner.collectionId,
+    userId: helper.userId,
+    role: 'helper',
+    startsAt: new Date('2027-05-10T00:00:00Z'),
+    endsAt: new Date('2027-05-12T00:00:00Z'),
+  });
 });
 
 afterAll(async () => {
@@ -59,8 +73,19 @@ afterAll(async () => {
 
 describe('cover report delivery', () => {
   it('keeps a report the mail server refused unsent, and sends it on the next run to whoever still lacks it', async () => {
-    const reports = createCoverReportsService(ctx.database.db, { mailer, now: () => clock, rounds: ctx.services.rounds, publicUrl: (p) => `http://rackside.test${p}` });
-    const row = async () => (await ctx.database.db.select().from(coverReports).where(eq(coverReports.collectionId, owner.collectionId)))[0]!;
+    const reports = createCoverReportsService(ctx.database.db, {
+      mailer,
+      now: () => clock,
+      rounds: ctx.services.rounds,
+      publicUrl: (p) => `http://rackside.test${p}`,
+    });
+    const row = async () =>
+      (
+        await ctx.database.db
+          .select()
+          .from(coverReports)
+          .where(eq(coverReports.collectionId, owner.collectionId))
+      )[0]!;
     const to = (email: string) => accepted.filter((m) => m.to === email).length;
 
     // 10 May has ended; the co-owner's mailbox is refusing mail.
@@ -93,7 +118,12 @@ describe('cover report delivery', () => {
   });
 
   it('gives up e-mailing after a week; the report stays in the app', async () => {
-    const reports = createCoverReportsService(ctx.database.db, { mailer, now: () => clock, rounds: ctx.services.rounds, publicUrl: (p) => `http://rackside.test${p}` });
+    const reports = createCoverReportsService(ctx.database.db, {
+      mailer,
+      now: () => clock,
+      rounds: ctx.services.rounds,
+      publicUrl: (p) => `http://rackside.test${p}`,
+    });
     refused.add(owner.email);
     refused.add(coOwner.email);
     // 11 May (the last day) ends at midnight; its report is made and refused.

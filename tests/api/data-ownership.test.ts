@@ -19,7 +19,10 @@ beforeAll(async () => {
   await seedDemo(ctx.database.db, { bcryptCost: 10 });
   demo = `/api/collections/${(await demoCollectionId(ctx.database.db))!}`;
   owner = ctx.agent();
-  await owner.post('/api/auth/sign-in').send({ email: 'owner@northlight.test', password: DEMO_PASSWORD }).expect(200);
+  await owner
+    .post('/api/auth/sign-in')
+    .send({ email: 'owner@northlight.test', password: DEMO_PASSWORD })
+    .expect(200);
 });
 afterAll(async () => {
   await ctx.close();
@@ -36,8 +39,14 @@ describe('S7: the full demo collection, out and back in', () => {
       return result.value;
     });
     const to = await signUp(ctx);
-    await to.agent.post(`/api/collections/${to.collectionId}/animals/import`).send({ rows }).expect(201);
-    expect((await to.agent.get(`/api/collections/${to.collectionId}/export/animals.csv`).expect(200)).text).toBe(csv);
+    await to.agent
+      .post(`/api/collections/${to.collectionId}/animals/import`)
+      .send({ rows })
+      .expect(201);
+    expect(
+      (await to.agent.get(`/api/collections/${to.collectionId}/export/animals.csv`).expect(200))
+        .text,
+    ).toBe(csv);
   });
 
   it('restores the backup into an empty collection: the same records, history and events CSV', async () => {
@@ -49,14 +58,23 @@ describe('S7: the full demo collection, out and back in', () => {
     expect(restored.body).toEqual({ animals: backup.animals.length, events: backup.events.length });
     const copy = (await to.agent.get(`${c}/backup`).expect(200)).body;
     const back = withOriginalIds(backup, copy);
-    expect({ ...back, exportedAt: null, collection: null }).toEqual({ ...backup, exportedAt: null, collection: null });
+    expect({ ...back, exportedAt: null, collection: null }).toEqual({
+      ...backup,
+      exportedAt: null,
+      collection: null,
+    });
     expect(back.collection.rules).toEqual(backup.collection.rules);
 
     // The events CSV of the copy says the same as the original's, event ids aside (and the ids
     // of the breeding records the facts name: the copy's records have ids of their own).
     const withoutIds = (csv: string) =>
       readCsv(csv)
-        .records.map((r) => r.cells.slice(1).join('\u0000').replace(/"sacId":"[0-9a-f-]{36}"/g, '"sacId":"(record)"'))
+        .records.map((r) =>
+          r.cells
+            .slice(1)
+            .join('\u0000')
+            .replace(/"sacId":"[0-9a-f-]{36}"/g, '"sacId":"(record)"'),
+        )
         .sort();
     const original = (await owner.get(`${demo}/export/events.csv`).expect(200)).text;
     const copied = (await to.agent.get(`${c}/export/events.csv`).expect(200)).text;

@@ -25,37 +25,95 @@ const photoDir = (collectionId: string) => path.join(ctx.storageDir, 'photos', c
 /** A collection with a place, an animal with a photo, a tap and a molt photo. */
 async function fill(who: SignedUp) {
   const c = base(who);
-  const place = (await who.agent.post(`${c}/locations`).send({ room: 'Spare room', rack: 'A', shelf: '1', position: '1' }).expect(201)).body.id as string;
-  const animal = (await who.agent.post(`${c}/animals`).send(animalBody({ locationId: place })).expect(201)).body;
-  const jpeg = await sharp({ create: { width: 40, height: 30, channels: 3, background: '#553' } }).jpeg().toBuffer();
-  await who.agent.put(`${c}/animals/${animal.id}/photo`).attach('photo', jpeg, { filename: 'a.jpg' }).expect(200);
-  const molt = { id: randomUUID(), animalId: animal.id, kind: 'molted', payload: {}, clientRecordedAt: new Date().toISOString() };
-  await who.agent.post(`${c}/events`).send({ deviceId: 'd', clientSentAt: new Date().toISOString(), events: [molt] }).expect(200);
-  await who.agent.put(`${c}/animals/${animal.id}/molts/${molt.id}/photo`).attach('photo', jpeg, { filename: 'm.jpg' }).expect(204);
+  const place = (
+    await who.agent
+      .post(`${c}/locations`)
+      .send({ room: 'Spare room', rack: 'A', shelf: '1', position: '1' })
+      .expect(201)
+  ).body.id as string;
+  const animal = (
+    await who.agent
+      .post(`${c}/animals`)
+      .send(animalBody({ locationId: place }))
+      .expect(201)
+  ).body;
+  const jpeg = await sharp({ create: { width: 40, height: 30, channels: 3, background: '#553' } })
+    .jpeg()
+    .toBuffer();
+  await who.agent
+    .put(`${c}/animals/${animal.id}/photo`)
+    .attach('photo', jpeg, { filename: 'a.jpg' })
+    .expect(200);
+  const molt = {
+    id: randomUUID(),
+    animalId: animal.id,
+    kind: 'molted',
+    payload: {},
+    clientRecordedAt: new Date().toISOString(),
+  };
+  await who.agent
+    .post(`${c}/events`)
+    .send({ deviceId: 'd', clientSentAt: new Date().toISOString(), events: [molt] })
+    .expect(200);
+  await who.agent
+    .put(`${c}/animals/${animal.id}/molts/${molt.id}/photo`)
+    .attach('photo', jpeg, { filename: 'm.jpg' })
+    .expect(204);
   await who.agent.get(`${c}/rounds/today`).expect(200);
 }
 
 async function rowsOf(collectionId: string) {
   const db = ctx.database.db;
-  const count = async (table: string) => Number((await db.execute<{ n: string }>(sql`select count(*) as n from ${sql.identifier(table)} where collection_id = ${collectionId}`)).rows[0]!.n);
+  const count = async (table: string) =>
+    Number(
+      (
+        await db.execute<{ n: string }>(
+          sql`select count(*) as n from ${sql.identifier(table)} where collection_id = ${collectionId}`,
+        )
+      ).rows[0]!.n,
+    );
   return {
-    collections: (await db.select().from(collections).where(eq(collections.id, collectionId))).length,
-    memberships: (await db.select().from(memberships).where(eq(memberships.collectionId, collectionId))).length,
+    collections: (await db.select().from(collections).where(eq(collections.id, collectionId)))
+      .length,
+    memberships: (
+      await db.select().from(memberships).where(eq(memberships.collectionId, collectionId))
+    ).length,
     animals: (await db.select().from(animals).where(eq(animals.collectionId, collectionId))).length,
     events: (await db.select().from(events).where(eq(events.collectionId, collectionId))).length,
     locations: await count('locations'),
     event_photos: await count('event_photos'),
     animal_states: await count('animal_states'),
     rounds: await count('rounds'),
-    revisions: (await db.select().from(collectionRevisions).where(eq(collectionRevisions.collectionId, collectionId))).length,
+    revisions: (
+      await db
+        .select()
+        .from(collectionRevisions)
+        .where(eq(collectionRevisions.collectionId, collectionId))
+    ).length,
   };
 }
 
 beforeAll(async () => {
   ctx = await createTestContext();
-  [owner, keeper, helper, outsider, bystander] = [await signUp(ctx), await signUp(ctx), await signUp(ctx), await signUp(ctx), await signUp(ctx)];
-  await addMember(ctx.database.db, { collectionId: owner.collectionId, userId: keeper.userId, role: 'keeper' });
-  await addMember(ctx.database.db, { collectionId: owner.collectionId, userId: helper.userId, role: 'helper', startsAt: new Date(Date.now() - 3_600_000), endsAt: new Date(Date.now() + 86_400_000) });
+  [owner, keeper, helper, outsider, bystander] = [
+    await signUp(ctx),
+    await signUp(ctx),
+    await signUp(ctx),
+    await signUp(ctx),
+    await signUp(ctx),
+  ];
+  await addMember(ctx.database.db, {
+    collectionId: owner.collectionId,
+    userId: keeper.userId,
+    role: 'keeper',
+  });
+  await addMember(ctx.database.db, {
+    collectionId: owner.collectionId,
+    userId: helper.userId,
+    role: 'helper',
+    startsAt: new Date(Date.now() - 3_600_000),
+    endsAt: new Date(Date.now() + 86_400_000),
+  });
   await fill(owner);
   await fill(bystander);
 });
@@ -70,11 +128,23 @@ describe('deleting a collection', () => {
     expect((await helper.agent.delete(base(owner)).send(body)).status).toBe(403);
     expect((await outsider.agent.delete(base(owner)).send(body)).status).toBe(404);
     expect((await ctx.agent().delete(base(owner)).send(body)).status).toBe(401);
-    const wrong = await owner.agent.delete(base(owner)).send({ confirmName: 'test collection!' }).expect(422);
-    expect(wrong.body.error.message).toBe('Type the collection’s name exactly as it is shown (“Test Collection”) to delete it.');
+    const wrong = await owner.agent
+      .delete(base(owner))
+      .send({ confirmName: 'test collection!' })
+      .expect(422);
+    expect(wrong.body.error.message).toBe(
+      'Type the collection’s name exactly as it is shown (“Test Collection”) to delete it.',
+    );
     expect((await owner.agent.delete(base(owner)).send({})).status).toBe(422);
     const rows = await rowsOf(owner.collectionId);
-    expect(rows).toMatchObject({ collections: 1, memberships: 3, animals: 1, events: 1, locations: 1, event_photos: 1 });
+    expect(rows).toMatchObject({
+      collections: 1,
+      memberships: 3,
+      animals: 1,
+      events: 1,
+      locations: 1,
+      event_photos: 1,
+    });
     expect(fs.readdirSync(photoDir(owner.collectionId))).toHaveLength(4);
   });
 
@@ -83,11 +153,23 @@ describe('deleting a collection', () => {
     const theirFiles = fs.readdirSync(photoDir(bystander.collectionId)).sort();
     await owner.agent.delete(base(owner)).send({ confirmName: '  Test Collection ' }).expect(204);
 
-    expect(await rowsOf(owner.collectionId)).toEqual({ collections: 0, memberships: 0, animals: 0, events: 0, locations: 0, event_photos: 0, animal_states: 0, rounds: 0, revisions: 0 });
+    expect(await rowsOf(owner.collectionId)).toEqual({
+      collections: 0,
+      memberships: 0,
+      animals: 0,
+      events: 0,
+      locations: 0,
+      event_photos: 0,
+      animal_states: 0,
+      rounds: 0,
+      revisions: 0,
+    });
     expect(fs.existsSync(photoDir(owner.collectionId))).toBe(false);
     // Its members no longer see it; its routes answer as for any unknown collection.
     for (const who of [owner, keeper, helper]) {
-      const listed = (await who.agent.get('/api/collections').expect(200)).body.memberships as { collectionId: string }[];
+      const listed = (await who.agent.get('/api/collections').expect(200)).body.memberships as {
+        collectionId: string;
+      }[];
       expect(listed.map((m) => m.collectionId)).not.toContain(owner.collectionId);
     }
     expect((await keeper.agent.get(`${base(owner)}/animals`)).status).toBe(404);

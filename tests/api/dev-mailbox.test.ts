@@ -25,19 +25,29 @@ let otherResetToken: string;
 const logLines: string[] = [];
 
 const tokenIn = (text: string) => /token=([A-Za-z0-9_-]+)/.exec(text)![1]!;
-const day = (fromToday: number) => new Date(Date.now() + fromToday * 86_400_000).toISOString().slice(0, 10);
+const day = (fromToday: number) =>
+  new Date(Date.now() + fromToday * 86_400_000).toISOString().slice(0, 10);
 const json = { 'Content-Type': 'application/json', 'X-Rackside-Client': '1' };
 
 /** Signs in from the other host; the session cookie to send with its next requests. */
 async function remoteSignIn(email: string): Promise<string> {
-  const res = await remote.fetch(`${base}/api/auth/sign-in`, { method: 'POST', headers: json, body: { email, password: PASSWORD } });
+  const res = await remote.fetch(`${base}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: json,
+    body: { email, password: PASSWORD },
+  });
   expect(res.status).toBe(200);
   return res.setCookie.find((c) => c.startsWith('rackside.sid='))!.split(';')[0]!;
 }
 
 beforeAll(async () => {
   // The request log shows the peer address each request came from.
-  ctx = await createTestContext({ logger: createLogger({ NODE_ENV: 'test', LOG_LEVEL: 'info' }, { write: (l: string) => void logLines.push(l) }) });
+  ctx = await createTestContext({
+    logger: createLogger(
+      { NODE_ENV: 'test', LOG_LEVEL: 'info' },
+      { write: (l: string) => void logLines.push(l) },
+    ),
+  });
   remote = createRemoteHost();
   server = await new Promise<Server>((resolve) => {
     const s = ctx.app.listen(0, remote.hostAddress, () => resolve(s));
@@ -48,12 +58,22 @@ beforeAll(async () => {
   other = await signUp(ctx);
   // Mail to someone else: a reset link for `other`...
   await other.agent.post('/api/auth/reset-request').send({ email: other.email }).expect(202);
-  otherResetToken = tokenIn((await ctx.mailbox.waitFor((m) => m.to.includes(other.email) && /reset-password/.test(m.text))).text);
+  otherResetToken = tokenIn(
+    (await ctx.mailbox.waitFor((m) => m.to.includes(other.email) && /reset-password/.test(m.text)))
+      .text,
+  );
   // ...and a cover invite, which also makes an account that is a helper and owns nothing.
   helperEmail = `helper-${Date.now()}@example.test`;
-  await owner.agent.post(`/api/collections/${owner.collectionId}/covers`).send({ email: helperEmail, firstDay: day(5), lastDay: day(7), message: '' }).expect(201);
+  await owner.agent
+    .post(`/api/collections/${owner.collectionId}/covers`)
+    .send({ email: helperEmail, firstDay: day(5), lastDay: day(7), message: '' })
+    .expect(201);
   const invite = tokenIn((await ctx.mailbox.waitFor((m) => m.to.includes(helperEmail))).text);
-  await ctx.agent().post('/api/cover-invites/accept').send({ token: invite, account: { displayName: 'Helper', password: PASSWORD } }).expect(200);
+  await ctx
+    .agent()
+    .post('/api/cover-invites/accept')
+    .send({ token: invite, account: { displayName: 'Helper', password: PASSWORD } })
+    .expect(200);
   // And one to the owner.
   await owner.agent.post('/api/auth/reset-request').send({ email: owner.email }).expect(202);
   await ctx.mailbox.waitFor((m) => m.to.includes(owner.email));
@@ -70,7 +90,9 @@ describe('GET /api/dev/mail from another host', () => {
   it('arrives from the other host’s own address, not this machine’s', async () => {
     const res = await remote.fetch(`${base}/api/health?probe=remote`);
     expect(res.status).toBe(200);
-    const logged = logLines.map((l) => JSON.parse(l) as { req?: { url: string; remoteAddress: string } }).find((r) => r.req?.url === '/api/health?probe=remote');
+    const logged = logLines
+      .map((l) => JSON.parse(l) as { req?: { url: string; remoteAddress: string } })
+      .find((r) => r.req?.url === '/api/health?probe=remote');
     expect(logged?.req?.remoteAddress).toBe(remote.remoteAddress);
   });
 
@@ -78,7 +100,9 @@ describe('GET /api/dev/mail from another host', () => {
     const res = await remote.fetch(`${base}/api/dev/mail`);
     expect(res.status).toBe(401);
     expect(JSON.stringify(res.body)).not.toContain(otherResetToken);
-    expect((res.body as { error: { message: string } }).error.message).toMatch(/sign in as an owner/);
+    expect((res.body as { error: { message: string } }).error.message).toMatch(
+      /sign in as an owner/,
+    );
   });
 
   it('refuses a signed-in account that owns no collection', async () => {
@@ -124,7 +148,14 @@ describe('in production', () => {
       SMTP_URL: 'smtp://mail.example.test:587',
       PUBLIC_URL: 'https://rackside.example',
     });
-    const prod = createApp({ env, database: ctx.database, mailer: { send: async () => undefined, close: () => undefined }, devMailbox: ctx.mailbox, logger: createLogger({ NODE_ENV: 'test' }), distDir: '/nonexistent' });
+    const prod = createApp({
+      env,
+      database: ctx.database,
+      mailer: { send: async () => undefined, close: () => undefined },
+      devMailbox: ctx.mailbox,
+      logger: createLogger({ NODE_ENV: 'test' }),
+      distDir: '/nonexistent',
+    });
     try {
       const routes = listRoutes(prod.app).map((r) => `${r.method} ${r.path}`);
       expect(routes).toContain('GET /api/dev/demo');

@@ -219,7 +219,9 @@ describe('a helper syncing', () => {
       .expect(200);
     expect(res.body.results[0]).toEqual({ id: during.id, status: 'accepted' });
     expect(res.body.results[1]).toMatchObject({ status: 'rejected', reason: 'outside_cover' });
-    expect(res.body.results[1].message).toMatch(/recorded outside your cover\. Your cover for Test Collection ended on Fri 27 Nov 2026/);
+    expect(res.body.results[1].message).toMatch(
+      /recorded outside your cover\. Your cover for Test Collection ended on Fri 27 Nov 2026/,
+    );
     // Reading the round stays closed outside the cover.
     await helper.agent.get(`/api/collections/${owner.collectionId}/rounds/today`).expect(403);
     // and the history is for keepers only.
@@ -232,20 +234,33 @@ describe('a helper syncing', () => {
     const lastSecond = new Date(coverEnd.getTime() + 48 * 3_600_000 - 1_000);
     ctx.setNow(lastSecond);
     const justInTime = tap('watered', made);
-    const ok = await helper.agent.post(url()).send(batch([justInTime], lastSecond)).expect(200);
+    const ok = await helper.agent
+      .post(url())
+      .send(batch([justInTime], lastSecond))
+      .expect(200);
     expect(ok.body.results).toEqual([{ id: justInTime.id, status: 'accepted' }]);
 
     const graceOver = new Date(coverEnd.getTime() + 48 * 3_600_000);
     ctx.setNow(graceOver);
     const late = tap('watered', made);
-    const refused = await helper.agent.post(url()).send(batch([late], graceOver)).expect(200);
-    expect(refused.body.results[0]).toMatchObject({ id: late.id, status: 'rejected', reason: 'outside_cover' });
+    const refused = await helper.agent
+      .post(url())
+      .send(batch([late], graceOver))
+      .expect(200);
+    expect(refused.body.results[0]).toMatchObject({
+      id: late.id,
+      status: 'rejected',
+      reason: 'outside_cover',
+    });
     expect(refused.body.results[0].message).toBe(
       'This reached Rackside more than 48 hours after your cover for Test Collection ended on Fri 27 Nov 2026, so it cannot be saved. Tell the keeper what you did.',
     );
     expect(await storedIds([justInTime.id, late.id])).toEqual([justInTime.id]);
     // A tap stored inside the grace is still a duplicate when the phone sends it again later.
-    const again = await helper.agent.post(url()).send(batch([justInTime], graceOver)).expect(200);
+    const again = await helper.agent
+      .post(url())
+      .send(batch([justInTime], graceOver))
+      .expect(200);
     expect(again.body.results).toEqual([{ id: justInTime.id, status: 'duplicate' }]);
   });
 
@@ -256,8 +271,14 @@ describe('a helper syncing', () => {
     const backdated = tap('ate', insideCover);
     // Both clocks set back, as if the phone still thought it was November.
     const wholeClock = tap('ate', insideCover);
-    const first = await helper.agent.post(url()).send(batch([backdated], new Date('2026-12-20T09:00:00Z'))).expect(200);
-    const second = await helper.agent.post(url()).send(batch([wholeClock], new Date('2026-11-26T18:05:00Z'))).expect(200);
+    const first = await helper.agent
+      .post(url())
+      .send(batch([backdated], new Date('2026-12-20T09:00:00Z')))
+      .expect(200);
+    const second = await helper.agent
+      .post(url())
+      .send(batch([wholeClock], new Date('2026-11-26T18:05:00Z')))
+      .expect(200);
     for (const res of [first, second]) {
       expect(res.body.results[0]).toMatchObject({ status: 'rejected', reason: 'outside_cover' });
       expect(res.body.results[0].message).toMatch(/more than 48 hours after your cover/);

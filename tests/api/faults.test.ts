@@ -23,17 +23,36 @@ interface Keeper {
   animalIds: string[];
 }
 
-const headers = (cookie?: string) => ({ 'Content-Type': 'application/json', 'X-Rackside-Client': '1', ...(cookie ? { Cookie: cookie } : {}) });
+const headers = (cookie?: string) => ({
+  'Content-Type': 'application/json',
+  'X-Rackside-Client': '1',
+  ...(cookie ? { Cookie: cookie } : {}),
+});
 
-async function keeperWithAnimals(server: ServerProcess, databaseUrl: string, count: number): Promise<Keeper> {
+async function keeperWithAnimals(
+  server: ServerProcess,
+  databaseUrl: string,
+  count: number,
+): Promise<Keeper> {
   const database = connectDatabase(databaseUrl, 1);
   const owner = await insertOwner(database.db);
   const animalIds: string[] = [];
-  for (let i = 0; i < count; i++) animalIds.push((await createAnimal(database.db, owner.collectionId, { name: `Fault ${i}` })).id);
+  for (let i = 0; i < count; i++)
+    animalIds.push(
+      (await createAnimal(database.db, owner.collectionId, { name: `Fault ${i}` })).id,
+    );
   await database.close();
-  const res = await fetch(`${server.url}/api/auth/sign-in`, { method: 'POST', headers: headers(), body: JSON.stringify({ email: owner.email, password: PASSWORD }) });
+  const res = await fetch(`${server.url}/api/auth/sign-in`, {
+    method: 'POST',
+    headers: headers(),
+    body: JSON.stringify({ email: owner.email, password: PASSWORD }),
+  });
   expect(res.status).toBe(200);
-  return { cookie: res.headers.get('set-cookie')!.split(';')[0]!, collectionId: owner.collectionId, animalIds };
+  return {
+    cookie: res.headers.get('set-cookie')!.split(';')[0]!,
+    collectionId: owner.collectionId,
+    animalIds,
+  };
 }
 
 interface Burst {
@@ -47,7 +66,13 @@ interface Burst {
  * Devices sending their taps as the app's outbox does: a batch stays until the server answers
  * it, and is sent again, same ids, after any failure (refused connection, 5xx, timeout).
  */
-function syncBurst(url: () => string, keeper: Keeper, devices: number, tapsPerDevice: number, batchSize: number): Burst {
+function syncBurst(
+  url: () => string,
+  keeper: Keeper,
+  devices: number,
+  tapsPerDevice: number,
+  batchSize: number,
+): Burst {
   const burst: Burst = { ids: [], acknowledged: 0, failedAttempts: 0, done: Promise.resolve() };
   const runDevice = async (d: number) => {
     const taps = Array.from({ length: tapsPerDevice }, (_, i) => ({
@@ -58,18 +83,24 @@ function syncBurst(url: () => string, keeper: Keeper, devices: number, tapsPerDe
       clientRecordedAt: new Date().toISOString(),
     }));
     burst.ids.push(...taps.map((t) => t.id));
-    for (let start = 0; start < taps.length; ) {
+    for (let start = 0; start < taps.length;) {
       const batch = taps.slice(start, start + batchSize);
       try {
         const res = await fetch(`${url()}/api/collections/${keeper.collectionId}/events`, {
           method: 'POST',
           headers: headers(keeper.cookie),
-          body: JSON.stringify({ deviceId: `device-${d}`, clientSentAt: new Date().toISOString(), events: batch }),
+          body: JSON.stringify({
+            deviceId: `device-${d}`,
+            clientSentAt: new Date().toISOString(),
+            events: batch,
+          }),
           signal: AbortSignal.timeout(5_000),
         });
         if (res.status !== 200) throw new Error(`status ${res.status}`);
         const { results } = (await res.json()) as { results: { status: string }[] };
-        expect(results.every((r) => r.status === 'accepted' || r.status === 'duplicate')).toBe(true);
+        expect(results.every((r) => r.status === 'accepted' || r.status === 'duplicate')).toBe(
+          true,
+        );
         burst.acknowledged += batch.length;
         start += batchSize;
       } catch {
@@ -78,14 +109,19 @@ function syncBurst(url: () => string, keeper: Keeper, devices: number, tapsPerDe
       }
     }
   };
-  burst.done = Promise.all(Array.from({ length: devices }, (_, d) => runDevice(d))).then(() => undefined);
+  burst.done = Promise.all(Array.from({ length: devices }, (_, d) => runDevice(d))).then(
+    () => undefined,
+  );
   return burst;
 }
 
 async function storedOnce(databaseUrl: string, ids: string[]) {
   const database = connectDatabase(databaseUrl, 1);
   try {
-    const { rows } = await database.pool.query<{ id: string; n: number }>('select id, count(*)::int as n from events where id = any($1) group by id', [ids]);
+    const { rows } = await database.pool.query<{ id: string; n: number }>(
+      'select id, count(*)::int as n from events where id = any($1) group by id',
+      [ids],
+    );
     return { distinct: rows.length, doubled: rows.filter((r) => r.n > 1).length };
   } finally {
     await database.close();
@@ -141,7 +177,10 @@ describe('S3: PostgreSQL stopped and started under load', () => {
     const readers = Promise.all(
       Array.from({ length: 4 }, async () => {
         while (reading) {
-          const res = await fetch(`${server.url}/api/collections/${keeper.collectionId}/rounds/today`, { headers: headers(keeper.cookie) }).catch(() => null);
+          const res = await fetch(
+            `${server.url}/api/collections/${keeper.collectionId}/rounds/today`,
+            { headers: headers(keeper.cookie) },
+          ).catch(() => null);
           if (res) {
             readStatuses.push(res.status);
             if (res.status >= 500) {
@@ -158,7 +197,9 @@ describe('S3: PostgreSQL stopped and started under load', () => {
 
     cluster.stop();
     const down = await fetch(`${server.url}/api/health`).catch((err: unknown) => {
-      throw new Error(`the server died with the database: ${String(err)}\n${server.lines.slice(-30).join('\n')}`);
+      throw new Error(
+        `the server died with the database: ${String(err)}\n${server.lines.slice(-30).join('\n')}`,
+      );
     });
     expect(down.status).toBe(503);
     expect(await down.json()).toMatchObject({ database: 'down' });

@@ -32,11 +32,20 @@ beforeAll(async () => {
   owner = await signUp(ctx);
   other = await signUp(ctx);
   helper = await signUp(ctx);
-  await addMember(ctx.database.db, { collectionId: owner.collectionId, userId: helper.userId, role: 'helper', startsAt: new Date(Date.now() - 3_600_000), endsAt: new Date(Date.now() + 86_400_000) });
+  await addMember(ctx.database.db, {
+    collectionId: owner.collectionId,
+    userId: helper.userId,
+    role: 'helper',
+    startsAt: new Date(Date.now() - 3_600_000),
+    endsAt: new Date(Date.now() + 86_400_000),
+  });
   const me = await owner.agent.get('/api/auth/me').expect(200);
   tag = me.body.memberships[0].labelTag;
   for (let i = 0; i < 14; i++) {
-    const a = await createAnimal(ctx.database.db, owner.collectionId, { name: `Sling ${i + 1}`, cautions: i % 3 === 0 ? ['urticating_hairs'] : [] });
+    const a = await createAnimal(ctx.database.db, owner.collectionId, {
+      name: `Sling ${i + 1}`,
+      cautions: i % 3 === 0 ? ['urticating_hairs'] : [],
+    });
     animalIds.push(a.id);
   }
 });
@@ -55,7 +64,11 @@ describe('collection label tags', () => {
 
 describe('POST /collections/:id/labels/pdf', () => {
   it('prints every chosen animal on A4 pages whose QR codes decode to their label URLs', async () => {
-    const res = await owner.agent.post(pdfUrl()).send(body({ start: 5 })).responseType('blob').expect(200);
+    const res = await owner.agent
+      .post(pdfUrl())
+      .send(body({ start: 5 }))
+      .responseType('blob')
+      .expect(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const pdf = res.body as Buffer;
     expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
@@ -68,14 +81,28 @@ describe('POST /collections/:id/labels/pdf', () => {
     // A4 at 200 dpi is 1654 × 2339 px (210 / 25.4 × 200, 297 / 25.4 × 200).
     expect([pages[0]!.width, pages[0]!.height]).toEqual([1654, 2339]);
 
-    const rows = await owner.agent.get(`/api/collections/${owner.collectionId}/animals`).expect(200);
-    const codeOf = new Map<string, string>(rows.body.animals.map((a: { id: string; labelCode: string }) => [a.id, a.labelCode]));
+    const rows = await owner.agent
+      .get(`/api/collections/${owner.collectionId}/animals`)
+      .expect(200);
+    const codeOf = new Map<string, string>(
+      rows.body.animals.map((a: { id: string; labelCode: string }) => [a.id, a.labelCode]),
+    );
     const places = placeLabels(animalIds.length, 5, sheet.perSheet);
     animalIds.forEach((id, i) => {
       const place = places[i]!;
       const cell = sheet.cells[place.cell]!;
-      const content = labelContent({ ...rows.body.animals.find((a: { id: string }) => a.id === id) }, tag, ORIGIN, sheet.label, LABEL_FIELDS);
-      const quiet = { ...content.layout.quiet, x: cell.x + content.layout.quiet.x, y: cell.y + content.layout.quiet.y };
+      const content = labelContent(
+        { ...rows.body.animals.find((a: { id: string }) => a.id === id) },
+        tag,
+        ORIGIN,
+        sheet.label,
+        LABEL_FIELDS,
+      );
+      const quiet = {
+        ...content.layout.quiet,
+        x: cell.x + content.layout.quiet.x,
+        y: cell.y + content.layout.quiet.y,
+      };
       expect(decodeQrIn(pages[place.sheet]!, quiet)).toBe(labelUrl(ORIGIN, tag, codeOf.get(id)!));
       // The symbol is drawn at the size the layout says, measured from its finder patterns:
       // 25 mm ± 0.5 (one pixel is 0.127 mm), and modules × module size agrees.
@@ -83,18 +110,29 @@ describe('POST /collections/:id/labels/pdf', () => {
       expect(printed.modules).toBe(content.symbol.size);
       expect(Math.abs(printed.widthMm - 25)).toBeLessThanOrEqual(0.5);
       expect(Math.abs(printed.heightMm - 25)).toBeLessThanOrEqual(0.5);
-      expect(Math.abs(printed.moduleMm * printed.modules - printed.widthMm)).toBeLessThanOrEqual(0.5);
+      expect(Math.abs(printed.moduleMm * printed.modules - printed.widthMm)).toBeLessThanOrEqual(
+        0.5,
+      );
       // Nothing else is printed on the quiet zone: not the code's first glyph, not a cut line.
-      const symbol = { ...content.layout.symbol, x: cell.x + content.layout.symbol.x, y: cell.y + content.layout.symbol.y };
+      const symbol = {
+        ...content.layout.symbol,
+        x: cell.x + content.layout.symbol.x,
+        y: cell.y + content.layout.symbol.y,
+      };
       expect(darkPixelsAround(pages[place.sheet]!, quiet, symbol)).toBe(0);
     });
     // The used cells 1–4 on page 1 are left blank.
     const firstCell = sheet.cells[0]!;
-    expect(decodeQrIn(pages[0]!, { x: firstCell.x, y: firstCell.y, widthMm: 36, heightMm: 36 })).toBeNull();
+    expect(
+      decodeQrIn(pages[0]!, { x: firstCell.x, y: firstCell.y, widthMm: 36, heightMm: 36 }),
+    ).toBeNull();
   });
 
   it('refuses labels whose QR squares would be under 0.5 mm, saying why', async () => {
-    const res = await owner.agent.post(pdfUrl()).send(body({ size: LABEL_SIZES['square-19'] })).expect(422);
+    const res = await owner.agent
+      .post(pdfUrl())
+      .send(body({ size: LABEL_SIZES['square-19'] }))
+      .expect(422);
     expect(res.body.error.code).toBe('label_too_small');
     expect(res.body.error.message).toMatch(/under the 0\.5 mm/);
   });
@@ -119,7 +157,10 @@ describe('POST /collections/:id/labels/pdf', () => {
 
   it('prints only this collection’s animals, and only for keepers', async () => {
     const foreign = await createAnimal(ctx.database.db, other.collectionId);
-    expect((await owner.agent.post(pdfUrl()).send(body({ animalIds: [animalIds[0], foreign.id] }))).status).toBe(404);
+    expect(
+      (await owner.agent.post(pdfUrl()).send(body({ animalIds: [animalIds[0], foreign.id] })))
+        .status,
+    ).toBe(404);
     // Someone outside the collection learns nothing, not even that it exists.
     expect((await other.agent.post(pdfUrl()).send(body())).status).toBe(404);
     expect((await helper.agent.post(pdfUrl()).send(body())).status).toBe(403);
@@ -130,11 +171,15 @@ describe('POST /collections/:id/labels/pdf', () => {
 describe('POST /collections/:id/animals/:animalId/relabel', () => {
   it('gives a new code with the same prefix; the old one is gone', async () => {
     const a = await createAnimal(ctx.database.db, owner.collectionId, { labelCode: 'NL-7K3' });
-    const res = await owner.agent.post(`/api/collections/${owner.collectionId}/animals/${a.id}/relabel`).expect(200);
+    const res = await owner.agent
+      .post(`/api/collections/${owner.collectionId}/animals/${a.id}/relabel`)
+      .expect(200);
     expect(res.body.labelCode).not.toBe('NL-7K3');
     expect(res.body.labelCode).toMatch(/^NL-/);
     expect(isLabelCode(res.body.labelCode)).toBe(true);
-    const list = await owner.agent.get(`/api/collections/${owner.collectionId}/animals`).expect(200);
+    const list = await owner.agent
+      .get(`/api/collections/${owner.collectionId}/animals`)
+      .expect(200);
     const codes = list.body.animals.map((x: { labelCode: string }) => x.labelCode);
     expect(codes).toContain(res.body.labelCode);
     expect(codes).not.toContain('NL-7K3');

@@ -34,8 +34,14 @@ afterAll(async () => {
 });
 
 /** Runs the bundle to its end: its exit code and everything it wrote. */
-async function runToExit(env: Record<string, string>): Promise<{ code: number | null; output: string }> {
-  const child = spawn(process.execPath, [...SERVER_NODE_FLAGS, await bundleOnce()], { cwd: repoRoot(), env: { PATH: process.env.PATH ?? '', ...env }, stdio: ['ignore', 'pipe', 'pipe'] });
+async function runToExit(
+  env: Record<string, string>,
+): Promise<{ code: number | null; output: string }> {
+  const child = spawn(process.execPath, [...SERVER_NODE_FLAGS, await bundleOnce()], {
+    cwd: repoRoot(),
+    env: { PATH: process.env.PATH ?? '', ...env },
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
   let output = '';
   child.stdout.on('data', (c: Buffer) => (output += c.toString()));
   child.stderr.on('data', (c: Buffer) => (output += c.toString()));
@@ -45,7 +51,12 @@ async function runToExit(env: Record<string, string>): Promise<{ code: number | 
 
 describe('production configuration', () => {
   it('refuses to start without SMTP_URL and PUBLIC_URL, saying so plainly', async () => {
-    const { code, output } = await runToExit({ NODE_ENV: 'production', DATABASE_URL: databaseUrl, SESSION_SECRET: 'a-production-like-secret-of-forty-characters', PORT: '0' });
+    const { code, output } = await runToExit({
+      NODE_ENV: 'production',
+      DATABASE_URL: databaseUrl,
+      SESSION_SECRET: 'a-production-like-secret-of-forty-characters',
+      PORT: '0',
+    });
     expect(code).toBe(1);
     expect(output).toContain('SMTP_URL is required in production');
     expect(output).toContain('PUBLIC_URL is required in production');
@@ -55,7 +66,11 @@ describe('production configuration', () => {
 
   it('loads no package of the local mail fake when given a mail server', async () => {
     const log = path.join(tmp, 'production-imports.txt');
-    const server = await startServerProcess({ databaseUrl, nodeArgs: ['--import', importLog], env: { RACKSIDE_IMPORT_LOG: log } });
+    const server = await startServerProcess({
+      databaseUrl,
+      nodeArgs: ['--import', importLog],
+      env: { RACKSIDE_IMPORT_LOG: log },
+    });
     await server.kill();
     const loaded = fs.readFileSync(log, 'utf8');
     // The log sees packages (the real mailer among them), but not the fake's.
@@ -65,7 +80,11 @@ describe('production configuration', () => {
 
   it('(the same check, outside production without a mail server, does see them)', async () => {
     const log = path.join(tmp, 'development-imports.txt');
-    const server = await startServerProcess({ databaseUrl, nodeArgs: ['--import', importLog], env: { RACKSIDE_IMPORT_LOG: log, NODE_ENV: 'development', SMTP_URL: '' } });
+    const server = await startServerProcess({
+      databaseUrl,
+      nodeArgs: ['--import', importLog],
+      env: { RACKSIDE_IMPORT_LOG: log, NODE_ENV: 'development', SMTP_URL: '' },
+    });
     await server.kill();
     expect(fs.readFileSync(log, 'utf8')).toMatch(FAKE_PACKAGES);
   }, 60_000);

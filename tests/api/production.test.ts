@@ -16,15 +16,30 @@ let databaseUrl: string;
 let servers: ServerProcess[] = [];
 
 // As a reverse proxy on the same host would send it (RFC 7239's predecessor, X-Forwarded-*).
-const viaHttpsProxy = { 'X-Forwarded-Proto': 'https', 'X-Forwarded-For': '203.0.113.7', 'X-Rackside-Client': '1', 'Content-Type': 'application/json' };
+const viaHttpsProxy = {
+  'X-Forwarded-Proto': 'https',
+  'X-Forwarded-For': '203.0.113.7',
+  'X-Rackside-Client': '1',
+  'Content-Type': 'application/json',
+};
 
-async function call(server: ServerProcess, method: string, path: string, body?: unknown, cookie?: string) {
+async function call(
+  server: ServerProcess,
+  method: string,
+  path: string,
+  body?: unknown,
+  cookie?: string,
+) {
   const res = await fetch(`${server.url}${path}`, {
     method,
     headers: { ...viaHttpsProxy, ...(cookie ? { Cookie: cookie } : {}) },
     body: body === undefined ? undefined : JSON.stringify(body),
   });
-  return { status: res.status, setCookie: res.headers.get('set-cookie'), body: (await res.json().catch(() => null)) as Record<string, unknown> | null };
+  return {
+    status: res.status,
+    setCookie: res.headers.get('set-cookie'),
+    body: (await res.json().catch(() => null)) as Record<string, unknown> | null,
+  };
 }
 
 beforeAll(async () => {
@@ -34,8 +49,15 @@ beforeAll(async () => {
   const database = connectDatabase(databaseUrl, 1);
   await migrateDatabase(database.db);
   await database.close();
-  const env = { TRUST_PROXY: 'loopback', COOKIE_SECURE: 'auto', PUBLIC_URL: 'https://rackside.example' };
-  servers = await Promise.all([startServerProcess({ databaseUrl, env }), startServerProcess({ databaseUrl, env })]);
+  const env = {
+    TRUST_PROXY: 'loopback',
+    COOKIE_SECURE: 'auto',
+    PUBLIC_URL: 'https://rackside.example',
+  };
+  servers = await Promise.all([
+    startServerProcess({ databaseUrl, env }),
+    startServerProcess({ databaseUrl, env }),
+  ]);
 }, 60_000);
 
 /** An account made straight in the database: sign-up goes through an e-mail these processes send for real. */
@@ -80,7 +102,15 @@ describe('two server processes, one database, behind an HTTPS proxy', () => {
     const { email } = await owner();
     // The default is 20 failed sign-ins per account per hour (DEFAULT_AUTH_LIMITS).
     const statuses: number[] = [];
-    for (let i = 0; i < 21; i++) statuses.push((await call(i % 2 ? b : a, 'POST', '/api/auth/sign-in', { email, password: `wrong password ${i}` })).status);
+    for (let i = 0; i < 21; i++)
+      statuses.push(
+        (
+          await call(i % 2 ? b : a, 'POST', '/api/auth/sign-in', {
+            email,
+            password: `wrong password ${i}`,
+          })
+        ).status,
+      );
     expect(statuses.slice(0, 20).every((s) => s === 401)).toBe(true);
     expect(statuses[20]).toBe(429);
   });
@@ -96,16 +126,32 @@ describe('two server processes, one database, behind an HTTPS proxy', () => {
     const db = connectDatabase(databaseUrl, 1);
     try {
       await expect
-        .poll(async () => (await db.pool.query("select count(*)::int as n from pgboss.job where id = any($1) and state = 'completed'", [ids])).rows[0].n, { timeout: 30_000, interval: 250 })
+        .poll(
+          async () =>
+            (
+              await db.pool.query(
+                "select count(*)::int as n from pgboss.job where id = any($1) and state = 'completed'",
+                [ids],
+              )
+            ).rows[0].n,
+          { timeout: 30_000, interval: 250 },
+        )
         .toBe(ids.length);
     } finally {
       await db.close();
       await boss.stop({ graceful: false });
     }
-    const ran = servers.flatMap((s, process) => s.records().filter((r) => r.msg === 'job done' && ids.includes(r.jobId as string)).map((r) => ({ id: r.jobId as string, process })));
+    const ran = servers.flatMap((s, process) =>
+      s
+        .records()
+        .filter((r) => r.msg === 'job done' && ids.includes(r.jobId as string))
+        .map((r) => ({ id: r.jobId as string, process })),
+    );
     // Every job ran, and no job ran twice (in either process or across both).
     expect(ran.map((r) => r.id).sort()).toEqual([...ids].sort());
     // Structured logs: every line is JSON with a level and a time.
-    for (const s of servers) for (const r of s.records()) expect(typeof r.level === 'number' && typeof r.time === 'number').toBe(true);
+    for (const s of servers)
+      for (const r of s.records())
+        expect(typeof r.level === 'number' && typeof r.time === 'number').toBe(true);
   });
 });

@@ -7,12 +7,24 @@ import sharp from 'sharp';
 import type { Response } from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { z } from 'zod';
-import { animalListResponse, animalSummary, moveResponse, photoSavedResponse } from '#shared/schemas/animals';
+import {
+  animalListResponse,
+  animalSummary,
+  moveResponse,
+  photoSavedResponse,
+} from '#shared/schemas/animals';
 import { meResponse, resetRequestedResponse } from '#shared/schemas/auth';
 import { eggSacListResponse, eggSacView, slingsCreatedResponse } from '#shared/schemas/breeding';
 import { restoreResponse } from '#shared/schemas/collections';
 import { createdResponse, noContent } from '#shared/schemas/common';
-import { acceptResponse, coverListResponse, coverReportsResponse, handoverResponse, helperCoverView, invitePreview } from '#shared/schemas/cover';
+import {
+  acceptResponse,
+  coverListResponse,
+  coverReportsResponse,
+  handoverResponse,
+  helperCoverView,
+  invitePreview,
+} from '#shared/schemas/cover';
 import { devMailResponse } from '#shared/schemas/dev';
 import { historyResponse } from '#shared/schemas/events';
 import { importResponse } from '#shared/schemas/import';
@@ -30,7 +42,8 @@ let helper: SignedUp;
 let femaleId: string;
 
 const base = (who: SignedUp = owner) => `/api/collections/${who.collectionId}`;
-const day = (fromToday: number) => new Date(Date.now() + fromToday * 86_400_000).toISOString().slice(0, 10);
+const day = (fromToday: number) =>
+  new Date(Date.now() + fromToday * 86_400_000).toISOString().slice(0, 10);
 const tokenIn = (text: string) => /token=([A-Za-z0-9_-]+)/.exec(text)![1]!;
 
 /** The answer as the client reads it (204: no body), checked with its schema. */
@@ -45,8 +58,21 @@ beforeAll(async () => {
   ctx = await createTestContext();
   owner = await signUp(ctx);
   helper = await signUp(ctx);
-  await addMember(ctx.database.db, { collectionId: owner.collectionId, userId: helper.userId, role: 'helper', startsAt: new Date(Date.now() - 86_400_000), endsAt: new Date(Date.now() + 2 * 86_400_000) });
-  femaleId = (await createAnimal(ctx.database.db, owner.collectionId, { name: 'Juniper', sex: 'female', cautions: ['urticating_hairs'], hasWaterDish: true })).id;
+  await addMember(ctx.database.db, {
+    collectionId: owner.collectionId,
+    userId: helper.userId,
+    role: 'helper',
+    startsAt: new Date(Date.now() - 86_400_000),
+    endsAt: new Date(Date.now() + 2 * 86_400_000),
+  });
+  femaleId = (
+    await createAnimal(ctx.database.db, owner.collectionId, {
+      name: 'Juniper',
+      sex: 'female',
+      cautions: ['urticating_hairs'],
+      hasWaterDish: true,
+    })
+  ).id;
 });
 afterAll(async () => {
   await ctx.close();
@@ -55,21 +81,68 @@ afterAll(async () => {
 describe('answers the app reads', () => {
   it('animals, places, photos and labels', async () => {
     const a = owner.agent;
-    const place = expectShape(await a.post(`${base()}/locations`).send({ room: 'Spare room', rack: 'A', shelf: '1', position: '1' }), locationResponse, 201);
-    const created = expectShape(await a.post(`${base()}/animals`).send(animalBody({ locationId: place.id })), animalSummary, 201);
-    expectShape(await a.put(`${base()}/animals/${created.id}`).send(animalBody({ name: 'Juno', locationId: place.id })), animalSummary);
-    expectShape(await a.post(`${base()}/animals/${created.id}/retire`).send({ status: 'rehomed', date: day(0), note: null }), animalSummary);
+    const place = expectShape(
+      await a
+        .post(`${base()}/locations`)
+        .send({ room: 'Spare room', rack: 'A', shelf: '1', position: '1' }),
+      locationResponse,
+      201,
+    );
+    const created = expectShape(
+      await a.post(`${base()}/animals`).send(animalBody({ locationId: place.id })),
+      animalSummary,
+      201,
+    );
+    expectShape(
+      await a
+        .put(`${base()}/animals/${created.id}`)
+        .send(animalBody({ name: 'Juno', locationId: place.id })),
+      animalSummary,
+    );
+    expectShape(
+      await a
+        .post(`${base()}/animals/${created.id}/retire`)
+        .send({ status: 'rehomed', date: day(0), note: null }),
+      animalSummary,
+    );
     expectShape(await a.post(`${base()}/animals/${created.id}/reinstate`).send({}), animalSummary);
-    expectShape(await a.post(`${base()}/animals/move`).send({ animalIds: [created.id], locationId: place.id, rehoused: true }), moveResponse);
+    expectShape(
+      await a
+        .post(`${base()}/animals/move`)
+        .send({ animalIds: [created.id], locationId: place.id, rehoused: true }),
+      moveResponse,
+    );
     expectShape(await a.get(`${base()}/animals`), animalListResponse);
     const listed = expectShape(await a.get(`${base()}/locations`), locationListResponse);
-    expectShape(await a.put(`${base()}/locations/order`).send({ locationIds: listed.locations.map((l) => l.id) }), locationListResponse);
-    const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#654' } }).png().toBuffer();
-    expectShape(await a.put(`${base()}/animals/${created.id}/photo`).attach('photo', png, { filename: 'juno.png' }), photoSavedResponse);
+    expectShape(
+      await a
+        .put(`${base()}/locations/order`)
+        .send({ locationIds: listed.locations.map((l) => l.id) }),
+      locationListResponse,
+    );
+    const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#654' } })
+      .png()
+      .toBuffer();
+    expectShape(
+      await a
+        .put(`${base()}/animals/${created.id}/photo`)
+        .attach('photo', png, { filename: 'juno.png' }),
+      photoSavedResponse,
+    );
     expectShape(await a.post(`${base()}/animals/${created.id}/relabel`), relabelResponse);
     const row = { ...animalBody({ name: 'Imported' }), locationId: undefined, place: null };
-    expectShape(await a.post(`${base()}/animals/import`).send({ rows: [row] }), importResponse, 201);
-    const spare = expectShape(await a.post(`${base()}/locations`).send({ room: 'Spare room', rack: 'B', shelf: '1', position: '1' }), locationResponse, 201);
+    expectShape(
+      await a.post(`${base()}/animals/import`).send({ rows: [row] }),
+      importResponse,
+      201,
+    );
+    const spare = expectShape(
+      await a
+        .post(`${base()}/locations`)
+        .send({ room: 'Spare room', rack: 'B', shelf: '1', position: '1' }),
+      locationResponse,
+      201,
+    );
     expectShape(await a.delete(`${base()}/locations/${spare.id}`), noContent, 204);
   });
 
@@ -79,47 +152,113 @@ describe('answers the app reads', () => {
     expectShape(await a.get(`${base()}/rounds/tomorrow`), roundResponse);
     expectShape(await a.get(`${base()}/events?animalId=${femaleId}&limit=2000`), historyResponse);
     expectShape(await a.get(`${base()}/animals/${femaleId}/schedule`), scheduleResponse);
-    expectShape(await a.patch(`${base()}/animals/${femaleId}/care`).send({ intervalDays: 9 }), scheduleResponse);
+    expectShape(
+      await a.patch(`${base()}/animals/${femaleId}/care`).send({ intervalDays: 9 }),
+      scheduleResponse,
+    );
     expectShape(await a.get(`${base()}/rules`), rulesResponse);
-    expectShape(await a.put(`${base()}/rules`).send({ waterEveryDays: 4, feeders: [{ preyType: 'cricket', preySize: 'small', lengthMm: 8 }] }), rulesResponse);
+    expectShape(
+      await a.put(`${base()}/rules`).send({
+        waterEveryDays: 4,
+        feeders: [{ preyType: 'cricket', preySize: 'small', lengthMm: 8 }],
+      }),
+      rulesResponse,
+    );
     // Overrides saved before care profiles come back as they were stored.
-    await ctx.database.db.update(collections).set({ rules: { intervalDays: { adult: 20 }, groupIntervalDays: { centipede: 9 } } }).where(eq(collections.id, owner.collectionId));
+    await ctx.database.db
+      .update(collections)
+      .set({ rules: { intervalDays: { adult: 20 }, groupIntervalDays: { centipede: 9 } } })
+      .where(eq(collections.id, owner.collectionId));
     const legacy = expectShape(await a.get(`${base()}/rules`), rulesResponse);
     expect(legacy.rules.profiles.tarantula.stages.adult?.feedEveryDays).toBe(20);
-    expect(legacy.overrides).toEqual({ intervalDays: { adult: 20 }, groupIntervalDays: { centipede: 9 } });
+    expect(legacy.overrides).toEqual({
+      intervalDays: { adult: 20 },
+      groupIntervalDays: { centipede: 9 },
+    });
   });
 
   it('breeding records', async () => {
     const a = owner.agent;
-    const sac = expectShape(await a.post(`${base()}/egg-sacs`).send({ femaleId, laidOn: day(-50), eggCount: 80 }), eggSacView, 201);
+    const sac = expectShape(
+      await a.post(`${base()}/egg-sacs`).send({ femaleId, laidOn: day(-50), eggCount: 80 }),
+      eggSacView,
+      201,
+    );
     expectShape(await a.get(`${base()}/egg-sacs`), eggSacListResponse);
-    expectShape(await a.patch(`${base()}/egg-sacs/${sac.id}`).send({ pulledOn: day(-2), slingCount: 3 }), eggSacListResponse);
     expectShape(
-      await a.post(`${base()}/egg-sacs/${sac.id}/slings`).send({ count: 2, namePrefix: 'Juniper', room: 'Sling room', rack: 'S', shelf: '1', firstPosition: 1 }),
+      await a.patch(`${base()}/egg-sacs/${sac.id}`).send({ pulledOn: day(-2), slingCount: 3 }),
+      eggSacListResponse,
+    );
+    expectShape(
+      await a.post(`${base()}/egg-sacs/${sac.id}/slings`).send({
+        count: 2,
+        namePrefix: 'Juniper',
+        room: 'Sling room',
+        rack: 'S',
+        shelf: '1',
+        firstPosition: 1,
+      }),
       slingsCreatedResponse,
       201,
     );
-    expectShape(await a.put(`${base()}/incubation`).send({ minDays: 40, maxDays: 60 }), noContent, 204);
+    expectShape(
+      await a.put(`${base()}/incubation`).send({ minDays: 40, maxDays: 60 }),
+      noContent,
+      204,
+    );
   });
 
   it('covers, handover notes, reports and the helper’s own cover', async () => {
     const a = owner.agent;
     const email = `sitter-${randomUUID().slice(0, 6)}@example.test`;
-    expectShape(await a.post(`${base()}/covers`).send({ email, firstDay: day(1), lastDay: day(3), message: 'Blue tub.' }), createdResponse, 201);
+    expectShape(
+      await a
+        .post(`${base()}/covers`)
+        .send({ email, firstDay: day(1), lastDay: day(3), message: 'Blue tub.' }),
+      createdResponse,
+      201,
+    );
     const covers = expectShape(await a.get(`${base()}/covers`), coverListResponse);
-    const note = expectShape(await a.post(`${base()}/handover/notes`).send({ animalId: femaleId, text: 'Skip her', until: day(3), doNotFeed: true }), createdResponse, 201);
-    expectShape(await a.put(`${base()}/handover/general`).send({ text: 'Lights off at ten.' }), noContent, 204);
+    const note = expectShape(
+      await a
+        .post(`${base()}/handover/notes`)
+        .send({ animalId: femaleId, text: 'Skip her', until: day(3), doNotFeed: true }),
+      createdResponse,
+      201,
+    );
+    expectShape(
+      await a.put(`${base()}/handover/general`).send({ text: 'Lights off at ten.' }),
+      noContent,
+      204,
+    );
     expectShape(await a.get(`${base()}/handover`), handoverResponse);
-    await ctx.database.db.insert(coverReports).values({ collectionId: owner.collectionId, localDate: day(0), subject: 'Today’s feeds', body: 'All fed.' });
-    expect(expectShape(await a.get(`${base()}/cover-reports`), coverReportsResponse).reports).toHaveLength(1);
+    await ctx.database.db.insert(coverReports).values({
+      collectionId: owner.collectionId,
+      localDate: day(0),
+      subject: 'Today’s feeds',
+      body: 'All fed.',
+    });
+    expect(
+      expectShape(await a.get(`${base()}/cover-reports`), coverReportsResponse).reports,
+    ).toHaveLength(1);
     expectShape(await helper.agent.get(`${base()}/cover/mine`), helperCoverView);
     expectShape(await helper.agent.post(`${base()}/cover/mine/acknowledge`), noContent, 204);
     expectShape(await a.delete(`${base()}/handover/notes/${note.id}`), noContent, 204);
 
-    const mail = await ctx.mailbox.waitFor((m) => m.to.includes(email) && m.subject.includes('cover the feeds'));
+    const mail = await ctx.mailbox.waitFor(
+      (m) => m.to.includes(email) && m.subject.includes('cover the feeds'),
+    );
     const sitter = ctx.agent();
-    expectShape(await sitter.get(`/api/cover-invites/preview?token=${tokenIn(mail.text)}`), invitePreview);
-    expectShape(await sitter.post('/api/cover-invites/accept').send({ token: tokenIn(mail.text), account: { displayName: 'Sam', password: PASSWORD } }), acceptResponse);
+    expectShape(
+      await sitter.get(`/api/cover-invites/preview?token=${tokenIn(mail.text)}`),
+      invitePreview,
+    );
+    expectShape(
+      await sitter
+        .post('/api/cover-invites/accept')
+        .send({ token: tokenIn(mail.text), account: { displayName: 'Sam', password: PASSWORD } }),
+      acceptResponse,
+    );
     const cover = covers.covers.find((c) => c.email === email)!;
     expectShape(await a.post(`${base()}/covers/${cover.id}/end`), coverListResponse);
   });
@@ -131,7 +270,11 @@ describe('answers the app reads', () => {
     const into = await signUp(ctx);
     expectShape(await into.agent.post(`${base(into)}/restore`).send(backup), restoreResponse, 201);
     expectShape(await ctx.agent().get('/api/dev/mail'), devMailResponse);
-    expectShape(await ctx.agent().post('/api/auth/reset-request').send({ email: owner.email }), resetRequestedResponse, 202);
+    expectShape(
+      await ctx.agent().post('/api/auth/reset-request').send({ email: owner.email }),
+      resetRequestedResponse,
+      202,
+    );
     expectShape(await owner.agent.get('/api/auth/me'), meResponse);
   });
 });

@@ -20,7 +20,13 @@ beforeAll(async () => {
   outsider = await signUp(ctx);
   const db = ctx.database.db;
   await addMember(db, { collectionId: owner.collectionId, userId: keeper.userId, role: 'keeper' });
-  await addMember(db, { collectionId: owner.collectionId, userId: helper.userId, role: 'helper', startsAt: coverStart, endsAt: coverEnd });
+  await addMember(db, {
+    collectionId: owner.collectionId,
+    userId: helper.userId,
+    role: 'helper',
+    startsAt: coverStart,
+    endsAt: coverEnd,
+  });
   await createAnimal(db, owner.collectionId, { name: 'Juniper' });
 });
 afterAll(async () => {
@@ -31,7 +37,9 @@ describe('membership check on /api/collections/:id', () => {
   it('hides a collection from a non-member (404, existence not revealed)', async () => {
     const res = await outsider.agent.get(`/api/collections/${owner.collectionId}`);
     expect(res.status).toBe(404);
-    const missing = await outsider.agent.get('/api/collections/00000000-0000-4000-8000-000000000000');
+    const missing = await outsider.agent.get(
+      '/api/collections/00000000-0000-4000-8000-000000000000',
+    );
     expect(missing.status).toBe(404);
     expect(missing.body).toEqual(res.body);
     expect((await outsider.agent.get('/api/collections/not-a-uuid')).status).toBe(404);
@@ -50,7 +58,10 @@ describe('membership check on /api/collections/:id', () => {
 
   it('refuses a helper outside the cover window with 403 and says when the cover runs', async () => {
     for (const [when, message] of [
-      [new Date('2026-12-10T04:59:59Z'), 'Your cover for Test Collection runs from Thu 10 Dec 2026 to Wed 16 Dec 2026.'],
+      [
+        new Date('2026-12-10T04:59:59Z'),
+        'Your cover for Test Collection runs from Thu 10 Dec 2026 to Wed 16 Dec 2026.',
+      ],
       [coverEnd, 'Your cover for Test Collection ended on Wed 16 Dec 2026. Thank you!'],
     ] as const) {
       ctx.setNow(when);
@@ -67,7 +78,9 @@ describe('membership check on /api/collections/:id', () => {
     try {
       const res = await helper.agent.get(`/api/collections/${owner.collectionId}`).expect(200);
       expect(res.body.role).toBe('helper');
-      expect((await helper.agent.get(`/api/collections/${owner.collectionId}/members`)).status).toBe(403);
+      expect(
+        (await helper.agent.get(`/api/collections/${owner.collectionId}/members`)).status,
+      ).toBe(403);
     } finally {
       ctx.setNow(null);
     }
@@ -75,25 +88,41 @@ describe('membership check on /api/collections/:id', () => {
 
   it('lets only the owner manage members; a keeper cannot', async () => {
     const newcomer = await signUp(ctx);
-    const asKeeper = await keeper.agent.post(`/api/collections/${owner.collectionId}/members`).send({ email: newcomer.email, role: 'keeper' });
+    const asKeeper = await keeper.agent
+      .post(`/api/collections/${owner.collectionId}/members`)
+      .send({ email: newcomer.email, role: 'keeper' });
     expect(asKeeper.status).toBe(403);
-    expect((await keeper.agent.get(`/api/collections/${owner.collectionId}/members`)).status).toBe(403);
-    expect((await keeper.agent.delete(`/api/collections/${owner.collectionId}/members/${helper.userId}`)).status).toBe(403);
+    expect((await keeper.agent.get(`/api/collections/${owner.collectionId}/members`)).status).toBe(
+      403,
+    );
+    expect(
+      (await keeper.agent.delete(`/api/collections/${owner.collectionId}/members/${helper.userId}`))
+        .status,
+    ).toBe(403);
 
     // An invite, not an addition: nothing changes for the newcomer until they accept it.
-    const invited = await owner.agent.post(`/api/collections/${owner.collectionId}/members`).send({ email: newcomer.email, role: 'keeper' });
+    const invited = await owner.agent
+      .post(`/api/collections/${owner.collectionId}/members`)
+      .send({ email: newcomer.email, role: 'keeper' });
     expect(invited.status).toBe(202);
     expect((await newcomer.agent.get(`/api/collections/${owner.collectionId}`)).status).toBe(404);
-    const mail = await ctx.mailbox.waitFor((m) => m.to.includes(newcomer.email) && m.subject.includes('invites you to keep'));
+    const mail = await ctx.mailbox.waitFor(
+      (m) => m.to.includes(newcomer.email) && m.subject.includes('invites you to keep'),
+    );
     const token = /join\?token=([\w-]+)/.exec(mail.text)![1]!;
     await newcomer.agent.post('/api/cover-invites/accept').send({ token }).expect(200);
     await newcomer.agent.get(`/api/collections/${owner.collectionId}/animals`).expect(200);
-    await owner.agent.delete(`/api/collections/${owner.collectionId}/members/${newcomer.userId}`).expect(204);
+    await owner.agent
+      .delete(`/api/collections/${owner.collectionId}/members/${newcomer.userId}`)
+      .expect(204);
     expect((await newcomer.agent.get(`/api/collections/${owner.collectionId}`)).status).toBe(404);
   });
 
   it('lists every collection a person belongs to, so the app can switch', async () => {
     const res = await keeper.agent.get('/api/collections').expect(200);
-    expect(res.body.memberships.map((m: { role: string }) => m.role).sort()).toEqual(['keeper', 'owner']);
+    expect(res.body.memberships.map((m: { role: string }) => m.role).sort()).toEqual([
+      'keeper',
+      'owner',
+    ]);
   });
 });

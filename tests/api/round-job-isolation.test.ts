@@ -17,24 +17,46 @@ let poisoned: SignedUp;
 
 function memoryLogger() {
   const lines: Record<string, unknown>[] = [];
-  const logger = pino({ level: 'info' }, new Writable({ write(chunk: Buffer, _encoding, done) {
-    lines.push(...chunk.toString().split('\n').filter(Boolean).map((l) => JSON.parse(l) as Record<string, unknown>));
-    done();
-  } }));
+  const logger = pino(
+    { level: 'info' },
+    new Writable({
+      write(chunk: Buffer, _encoding, done) {
+        lines.push(
+          ...chunk
+            .toString()
+            .split('\n')
+            .filter(Boolean)
+            .map((l) => JSON.parse(l) as Record<string, unknown>),
+        );
+        done();
+      },
+    }),
+  );
   return { logger, lines };
 }
 
 const roundsOf = async (ids: string[]) =>
-  (await ctx.database.db.select({ c: roundsTable.collectionId }).from(roundsTable).where(inArray(roundsTable.collectionId, ids))).map((r) => r.c).sort();
+  (
+    await ctx.database.db
+      .select({ c: roundsTable.collectionId })
+      .from(roundsTable)
+      .where(inArray(roundsTable.collectionId, ids))
+  )
+    .map((r) => r.c)
+    .sort();
 
 beforeAll(async () => {
   ctx = await createTestContext();
   // Several healthy collections, so whatever order the job meets them in, some come after the poisoned one.
   healthy = [await signUp(ctx), await signUp(ctx), await signUp(ctx)];
   poisoned = await signUp(ctx);
-  for (const c of [...healthy, poisoned]) await createAnimal(ctx.database.db, c.collectionId, { lifeStage: 'adult' });
+  for (const c of [...healthy, poisoned])
+    await createAnimal(ctx.database.db, c.collectionId, { lifeStage: 'adult' });
   // An adult's offer that is not an offer: the rules schema refuses it, the engine trips on it.
-  await ctx.database.db.update(collections).set({ rules: { offers: { adult: null } } }).where(eq(collections.id, poisoned.collectionId));
+  await ctx.database.db
+    .update(collections)
+    .set({ rules: { offers: { adult: null } } })
+    .where(eq(collections.id, poisoned.collectionId));
 });
 afterAll(async () => {
   await ctx.close();
@@ -52,15 +74,24 @@ describe('the daily round job', () => {
 
     const errors = lines.filter((l) => l.level === 50);
     expect(errors).toHaveLength(1);
-    expect(errors[0]).toMatchObject({ collectionId: poisoned.collectionId, jobId: 'job-1', msg: 'round build failed for one collection' });
+    expect(errors[0]).toMatchObject({
+      collectionId: poisoned.collectionId,
+      jobId: 'job-1',
+      msg: 'round build failed for one collection',
+    });
     expect((errors[0]!.err as { message: string }).message).toBeTruthy();
     expect(lines.find((l) => l.msg === 'job done')).toMatchObject({ collections: 3, failed: 1 });
   });
 
   it('tries the poisoned collection again next time, and reports it to a caller without a log', async () => {
     // The service alone still builds what it can, then says that something failed.
-    await expect(ctx.services.rounds.buildDueRounds()).rejects.toThrow(/1 collection\(s\) could not have their round built/);
-    await ctx.database.db.update(collections).set({ rules: {} }).where(eq(collections.id, poisoned.collectionId));
+    await expect(ctx.services.rounds.buildDueRounds()).rejects.toThrow(
+      /1 collection\(s\) could not have their round built/,
+    );
+    await ctx.database.db
+      .update(collections)
+      .set({ rules: {} })
+      .where(eq(collections.id, poisoned.collectionId));
     expect(await ctx.services.rounds.buildDueRounds()).toEqual([poisoned.collectionId]);
   });
 });

@@ -49,7 +49,8 @@ describe('the same answer for a known and an unknown e-mail', () => {
   it('at sign-up: 202 and the same words; the account holder is told, the new address gets a link', async () => {
     const unknown = fresh('new');
     const earlier = new Set(ctx.mailbox.messages);
-    const linksOfKnown = () => ctx.database.db.select().from(signUpTokens).where(eq(signUpTokens.email, known.email));
+    const linksOfKnown = () =>
+      ctx.database.db.select().from(signUpTokens).where(eq(signUpTokens.email, known.email));
     const linksBefore = (await linksOfKnown()).length;
     const a = await ctx.agent().post('/api/auth/sign-up').send({ email: known.email });
     const b = await ctx.agent().post('/api/auth/sign-up').send({ email: unknown });
@@ -76,7 +77,12 @@ describe('the same answer for a known and an unknown e-mail', () => {
     expect(a.status).toBe(202);
     expect(await mailTo(known.email, earlier)).toHaveLength(1);
     expect(await mailTo(unknown, earlier)).toEqual([]);
-    expect(await ctx.database.db.select().from(passwordResets).where(eq(passwordResets.userId, known.userId))).toHaveLength(1);
+    expect(
+      await ctx.database.db
+        .select()
+        .from(passwordResets)
+        .where(eq(passwordResets.userId, known.userId)),
+    ).toHaveLength(1);
   });
 
   it('at a keeper invite: 202 and the same words; both get an invite, neither becomes a member', async () => {
@@ -92,10 +98,22 @@ describe('the same answer for a known and an unknown e-mail', () => {
       expect(mail!.subject).toBe(`Test Keeper invites you to keep Test Collection on Rackside`);
       expect(mail!.text).toMatch(/http:\/\/rackside\.test\/join\?token=[\w-]{43}/);
     }
-    expect(await ctx.database.db.select().from(memberships).where(and(eq(memberships.collectionId, owner.collectionId), eq(memberships.userId, known.userId)))).toEqual([]);
+    expect(
+      await ctx.database.db
+        .select()
+        .from(memberships)
+        .where(
+          and(
+            eq(memberships.collectionId, owner.collectionId),
+            eq(memberships.userId, known.userId),
+          ),
+        ),
+    ).toEqual([]);
     const list = (await owner.agent.get(path).expect(200)).body;
     expect(list.members.map((m: { email: string }) => m.email)).toEqual([owner.email]);
-    expect(list.invites.map((i: { email: string }) => i.email).sort()).toEqual([known.email, unknown].sort());
+    expect(list.invites.map((i: { email: string }) => i.email).sort()).toEqual(
+      [known.email, unknown].sort(),
+    );
   });
 
   it('at a cover invite: 201 with an id either way', async () => {
@@ -123,11 +141,28 @@ describe('finishing a sign-up from its link', () => {
     const preview = await ctx.agent().get(`/api/auth/sign-up/preview?token=${token}`).expect(200);
     expect(preview.body).toEqual({ email });
     const agent = ctx.agent();
-    const made = await agent.post('/api/auth/sign-up/finish').send({ token, password: PASSWORD, displayName: 'Finch', collectionName: 'Finch racks', timeZone: 'Europe/London' }).expect(201);
+    const made = await agent
+      .post('/api/auth/sign-up/finish')
+      .send({
+        token,
+        password: PASSWORD,
+        displayName: 'Finch',
+        collectionName: 'Finch racks',
+        timeZone: 'Europe/London',
+      })
+      .expect(201);
     expect(made.body.user.email).toBe(email);
-    expect(made.body.memberships).toMatchObject([{ role: 'owner', collectionName: 'Finch racks', timeZone: 'Europe/London' }]);
+    expect(made.body.memberships).toMatchObject([
+      { role: 'owner', collectionName: 'Finch racks', timeZone: 'Europe/London' },
+    ]);
     await agent.get('/api/auth/me').expect(200);
-    const again = await ctx.agent().post('/api/auth/sign-up/finish').send({ token, password: PASSWORD, displayName: 'Eve', collectionName: 'Mine', timeZone: 'UTC' });
+    const again = await ctx.agent().post('/api/auth/sign-up/finish').send({
+      token,
+      password: PASSWORD,
+      displayName: 'Eve',
+      collectionName: 'Mine',
+      timeZone: 'UTC',
+    });
     expect(again.status).toBe(400);
     expect(again.body.error.message).toMatch(/expired or was already used/);
 
@@ -142,18 +177,39 @@ describe('finishing a sign-up from its link', () => {
     const email = fresh('twice');
     const first = await signUpLink(ctx, email);
     const second = await signUpLink(ctx, email);
-    await ctx.agent().post('/api/auth/sign-up/finish').send({ token: first, password: PASSWORD, displayName: 'A', collectionName: 'A', timeZone: 'UTC' }).expect(201);
-    const res = await ctx.agent().post('/api/auth/sign-up/finish').send({ token: second, password: PASSWORD, displayName: 'B', collectionName: 'B', timeZone: 'UTC' });
+    await ctx
+      .agent()
+      .post('/api/auth/sign-up/finish')
+      .send({
+        token: first,
+        password: PASSWORD,
+        displayName: 'A',
+        collectionName: 'A',
+        timeZone: 'UTC',
+      })
+      .expect(201);
+    const res = await ctx.agent().post('/api/auth/sign-up/finish').send({
+      token: second,
+      password: PASSWORD,
+      displayName: 'B',
+      collectionName: 'B',
+      timeZone: 'UTC',
+    });
     expect(res.status).toBe(409);
     expect(res.body.error.message).toMatch(/already exists/);
-    expect(await ctx.database.db.select().from(users).where(eq(users.email, email))).toHaveLength(1);
+    expect(await ctx.database.db.select().from(users).where(eq(users.email, email))).toHaveLength(
+      1,
+    );
   });
 });
 
 describe('membership only by accepting an invite', () => {
   async function inviteKeeper(who: SignedUp, email: string) {
     const earlier = new Set(ctx.mailbox.messages);
-    await who.agent.post(`/api/collections/${who.collectionId}/members`).send({ email, role: 'keeper' }).expect(202);
+    await who.agent
+      .post(`/api/collections/${who.collectionId}/members`)
+      .send({ email, role: 'keeper' })
+      .expect(202);
     const [mail] = await mailTo(email, earlier);
     return /join\?token=([\w-]+)/.exec(mail!.text)![1]!;
   }
@@ -162,11 +218,26 @@ describe('membership only by accepting an invite', () => {
     const person = await signUp(ctx);
     const token = await inviteKeeper(owner, person.email);
     const preview = await ctx.agent().get(`/api/cover-invites/preview?token=${token}`).expect(200);
-    expect(preview.body).toMatchObject({ role: 'keeper', collectionName: 'Test Collection', invitedBy: 'Test Keeper', email: person.email, firstDay: null, lastDay: null, hasAccount: true });
+    expect(preview.body).toMatchObject({
+      role: 'keeper',
+      collectionName: 'Test Collection',
+      invitedBy: 'Test Keeper',
+      email: person.email,
+      firstDay: null,
+      lastDay: null,
+      hasAccount: true,
+    });
     // Someone else signed in cannot take the invite for them.
     expect((await known.agent.post('/api/cover-invites/accept').send({ token })).status).toBe(401);
-    const accepted = await person.agent.post('/api/cover-invites/accept').send({ token }).expect(200);
-    expect(accepted.body.me.memberships.find((m: { collectionId: string }) => m.collectionId === owner.collectionId)).toMatchObject({ role: 'keeper', startsAt: null, endsAt: null });
+    const accepted = await person.agent
+      .post('/api/cover-invites/accept')
+      .send({ token })
+      .expect(200);
+    expect(
+      accepted.body.me.memberships.find(
+        (m: { collectionId: string }) => m.collectionId === owner.collectionId,
+      ),
+    ).toMatchObject({ role: 'keeper', startsAt: null, endsAt: null });
     await person.agent.get(`/api/collections/${owner.collectionId}/animals`).expect(200);
 
     await person.agent.delete(`/api/collections/${owner.collectionId}/membership`).expect(204);
@@ -180,9 +251,16 @@ describe('membership only by accepting an invite', () => {
     const email = fresh('newkeeper');
     const token = await inviteKeeper(owner, email);
     const agent = ctx.agent();
-    const res = await agent.post('/api/cover-invites/accept').send({ token, account: { displayName: 'Nova', password: PASSWORD } }).expect(200);
-    expect(res.body.me.memberships).toMatchObject([{ collectionId: owner.collectionId, role: 'keeper' }]);
-    const again = await owner.agent.post(`/api/collections/${owner.collectionId}/members`).send({ email, role: 'keeper' });
+    const res = await agent
+      .post('/api/cover-invites/accept')
+      .send({ token, account: { displayName: 'Nova', password: PASSWORD } })
+      .expect(200);
+    expect(res.body.me.memberships).toMatchObject([
+      { collectionId: owner.collectionId, role: 'keeper' },
+    ]);
+    const again = await owner.agent
+      .post(`/api/collections/${owner.collectionId}/members`)
+      .send({ email, role: 'keeper' });
     expect(again.status).toBe(409);
   });
 });
@@ -196,16 +274,32 @@ describe('invites are rate-limited per collection', () => {
       const covers = `/api/collections/${boss.collectionId}/covers`;
       const members = `/api/collections/${boss.collectionId}/members`;
       const days = { firstDay: '2031-05-01', lastDay: '2031-05-02', message: 'Thanks!' };
-      await boss.agent.post(covers).send({ email: fresh('a'), ...days }).expect(201);
+      await boss.agent
+        .post(covers)
+        .send({ email: fresh('a'), ...days })
+        .expect(201);
       // A refused request (a day already over) does not use the budget up.
-      await boss.agent.post(covers).send({ email: fresh('b'), firstDay: '2020-01-01', lastDay: '2020-01-02', message: '' }).expect(422);
-      await boss.agent.post(members).send({ email: fresh('c'), role: 'keeper' }).expect(202);
+      await boss.agent
+        .post(covers)
+        .send({ email: fresh('b'), firstDay: '2020-01-01', lastDay: '2020-01-02', message: '' })
+        .expect(422);
+      await boss.agent
+        .post(members)
+        .send({ email: fresh('c'), role: 'keeper' })
+        .expect(202);
       const third = await boss.agent.post(covers).send({ email: fresh('d'), ...days });
       expect(third.status).toBe(429);
-      expect(third.body.error.message).toBe('This collection has sent 2 invites today. More can go tomorrow.');
-      expect((await boss.agent.post(members).send({ email: fresh('e'), role: 'keeper' })).status).toBe(429);
+      expect(third.body.error.message).toBe(
+        'This collection has sent 2 invites today. More can go tomorrow.',
+      );
+      expect(
+        (await boss.agent.post(members).send({ email: fresh('e'), role: 'keeper' })).status,
+      ).toBe(429);
       // Another collection has its own budget.
-      await other.agent.post(`/api/collections/${other.collectionId}/covers`).send({ email: fresh('f'), ...days }).expect(201);
+      await other.agent
+        .post(`/api/collections/${other.collectionId}/covers`)
+        .send({ email: fresh('f'), ...days })
+        .expect(201);
     } finally {
       await limited.close();
     }

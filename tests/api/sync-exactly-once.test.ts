@@ -101,7 +101,9 @@ function faultyTransport(faults: Fault[], background: Promise<unknown>[]): SyncT
       case 'csrf_403': {
         // A proxy that rewrote the Host: the page's Origin no longer matches and the real
         // CSRF check answers 403 with no verdicts.
-        const res = await post(`/api/collections/${collection}/events`, body, { Origin: 'https://rackside.example' });
+        const res = await post(`/api/collections/${collection}/events`, body, {
+          Origin: 'https://rackside.example',
+        });
         expect(res.status).toBe(403);
         return { status: res.status, body: await res.json().catch(() => null) };
       }

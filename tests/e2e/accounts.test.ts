@@ -16,12 +16,24 @@ describe('accounts and members', () => {
     await page.goto(`${env.server.baseUrl}/sign-up`);
     await page.getByLabel('E-mail').fill(email);
     await page.getByRole('button', { name: 'Send me a sign-up link' }).click();
-    await expect.poll(() => page.getByText(`Check your e-mail: we have sent a message to ${email} with the next step.`, { exact: false }).count()).toBe(1);
+    await expect
+      .poll(() =>
+        page
+          .getByText(`Check your e-mail: we have sent a message to ${email} with the next step.`, {
+            exact: false,
+          })
+          .count(),
+      )
+      .toBe(1);
     await expectAccessible(page, 'sign-up sent');
     await screenshot(page, 'accounts-01-sign-up-sent');
 
-    const mail = await mailbox.waitFor((m) => m.to.includes(email) && m.subject === 'Finish making your Rackside account');
-    await page.goto(onThisServer(/https?:\/\/\S+\/sign-up\/finish\?token=[\w-]+/.exec(mail.text)![0]));
+    const mail = await mailbox.waitFor(
+      (m) => m.to.includes(email) && m.subject === 'Finish making your Rackside account',
+    );
+    await page.goto(
+      onThisServer(/https?:\/\/\S+\/sign-up\/finish\?token=[\w-]+/.exec(mail.text)![0]),
+    );
     await expect.poll(() => page.getByText(email).count()).toBe(1);
     await page.getByLabel('Your name').fill('Rowan');
     await page.getByLabel('Password', { exact: true }).fill('rowan keeps slings');
@@ -38,15 +50,31 @@ describe('accounts and members', () => {
     await page.getByRole('heading', { name: 'Who keeps this collection' }).waitFor();
     await page.getByLabel('Invite a keeper by e-mail').fill('partner@northlight.test');
     await page.getByRole('button', { name: 'Send the invite' }).click();
-    await expect.poll(() => page.getByText('We have e-mailed an invite to partner@northlight.test. They join when they accept it.').count()).toBe(1);
-    await expect.poll(() => page.getByText('invited, not answered yet', { exact: false }).count()).toBe(1);
+    await expect
+      .poll(() =>
+        page
+          .getByText(
+            'We have e-mailed an invite to partner@northlight.test. They join when they accept it.',
+          )
+          .count(),
+      )
+      .toBe(1);
+    await expect
+      .poll(() => page.getByText('invited, not answered yet', { exact: false }).count())
+      .toBe(1);
     await expectAccessible(page, 'members');
     await screenshot(page, 'accounts-03-members');
 
-    const invite = await mailbox.waitFor((m) => m.to.includes('partner@northlight.test') && m.subject.includes('invites you to keep Rowan racks'));
+    const invite = await mailbox.waitFor(
+      (m) =>
+        m.to.includes('partner@northlight.test') &&
+        m.subject.includes('invites you to keep Rowan racks'),
+    );
     const partner = await phonePage(env.browser);
     await signInAsDemo(partner.page, env.server.baseUrl, 'partner@northlight.test');
-    await partner.page.goto(onThisServer(/https?:\/\/\S+\/join\?token=[\w-]+/.exec(invite.text)![0]));
+    await partner.page.goto(
+      onThisServer(/https?:\/\/\S+\/join\?token=[\w-]+/.exec(invite.text)![0]),
+    );
     await partner.page.getByRole('heading', { name: 'Keep Rowan racks' }).waitFor();
     await expectAccessible(partner.page, 'join');
     await screenshot(partner.page, 'accounts-04-join');
@@ -58,11 +86,15 @@ describe('accounts and members', () => {
     await partner.page.getByRole('button', { name: 'Leave this collection…' }).click();
     await partner.page.getByRole('button', { name: 'Leave the collection' }).click();
     await partner.page.waitForURL('**/today');
-    await expect.poll(() => partner.page.getByText('Northlight Inverts').first().isVisible()).toBe(true);
-    const me = (await (await partner.page.request.get(`${env.server.baseUrl}/api/auth/me`)).json()) as { memberships: { collectionName: string }[] };
+    await expect
+      .poll(() => partner.page.getByText('Northlight Inverts').first().isVisible())
+      .toBe(true);
+    const me = (await (
+      await partner.page.request.get(`${env.server.baseUrl}/api/auth/me`)
+    ).json()) as { memberships: { collectionName: string }[] };
     expect(me.memberships.map((m) => m.collectionName)).not.toContain('Rowan racks');
-    expect(newcomer.consoleErrors, newcomer.consoleErrors.join(" | ")).toEqual([]);
-    expect(partner.consoleErrors, partner.consoleErrors.join(" | ")).toEqual([]);
+    expect(newcomer.consoleErrors, newcomer.consoleErrors.join(' | ')).toEqual([]);
+    expect(partner.consoleErrors, partner.consoleErrors.join(' | ')).toEqual([]);
     await newcomer.context.close();
     await partner.context.close();
   });

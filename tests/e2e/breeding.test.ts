@@ -31,11 +31,16 @@ describe('growth and breeding at 360 px', () => {
 
     await page.getByRole('link', { name: 'Animals', exact: true }).click();
     await page.getByRole('link', { name: 'Breeding' }).click();
-    const juniper = (await page.getByLabel('Female', { exact: true }).locator('option').allInnerTexts()).find((t) => t.startsWith('Juniper ('))!;
+    const juniper = (
+      await page.getByLabel('Female', { exact: true }).locator('option').allInnerTexts()
+    ).find((t) => t.startsWith('Juniper ('))!;
     await page.getByLabel('Female', { exact: true }).selectOption({ label: juniper });
     await page.getByLabel('Clutch name').fill('Juniper sac E2E');
     await page.getByRole('button', { name: 'Record the sac' }).click();
-    const sac = page.getByRole('list', { name: 'Egg sacs' }).getByRole('listitem').filter({ hasText: 'Juniper sac E2E' });
+    const sac = page
+      .getByRole('list', { name: 'Egg sacs' })
+      .getByRole('listitem')
+      .filter({ hasText: 'Juniper sac E2E' });
     await sac.waitFor();
     await sac.getByRole('button', { name: 'Pot up slings…' }).click();
     const pot = page.getByRole('form', { name: 'Pot up slings from Juniper sac E2E' });
@@ -47,7 +52,9 @@ describe('growth and breeding at 360 px', () => {
     await screenshot(page, 'breeding-02-pot-up');
     await pot.getByRole('button', { name: 'Create 12 slings' }).click();
     await page.waitForURL('**/labels');
-    await expect.poll(() => page.getByText(/^12 labels on 1 sheet/).count(), { timeout: 10_000 }).toBe(1);
+    await expect
+      .poll(() => page.getByText(/^12 labels on 1 sheet/).count(), { timeout: 10_000 })
+      .toBe(1);
     await screenshot(page, 'breeding-03-labels');
     expect(consoleErrors).toEqual([]);
   });
@@ -61,7 +68,8 @@ describe('growth and breeding at 360 px', () => {
     await picker.waitFor();
     const options = await picker.locator('option').allInnerTexts();
     // The demo's mature male, its centipede and juveniles of unknown sex, and its slings are not offered.
-    for (const name of ['Blue Jay', 'Rattler', 'Verdi', 'Tiger', 'Pebble']) expect(options.some((o) => o.startsWith(`${name} (`))).toBe(false);
+    for (const name of ['Blue Jay', 'Rattler', 'Verdi', 'Tiger', 'Pebble'])
+      expect(options.some((o) => o.startsWith(`${name} (`))).toBe(false);
     expect(options.some((o) => o.startsWith('Juniper ('))).toBe(true);
     const form = page.getByRole('form', { name: /^Record / });
     expect(await form.getByRole('heading').innerText()).toBe('Record an egg sac');
@@ -71,9 +79,14 @@ describe('growth and breeding at 360 px', () => {
     await form.getByLabel('Scorplings').fill('31');
     await form.getByLabel('Clutch name').fill('Scorplings E2E');
     await form.getByRole('button', { name: 'Record the brood' }).click();
-    const brood = page.getByRole('list', { name: /Egg sacs/ }).getByRole('listitem').filter({ hasText: 'Scorplings E2E' });
+    const brood = page
+      .getByRole('list', { name: /Egg sacs/ })
+      .getByRole('listitem')
+      .filter({ hasText: 'Scorplings E2E' });
     await brood.waitFor();
-    expect(await brood.innerText()).toMatch(/Brood[\s\S]*Born on [\d-]+ · disperses about[\s\S]*Scorplings 31/);
+    expect(await brood.innerText()).toMatch(
+      /Brood[\s\S]*Born on [\d-]+ · disperses about[\s\S]*Scorplings 31/,
+    );
     await brood.getByRole('button', { name: 'Update…' }).click();
     expect(await brood.getByLabel('Dispersed on').count()).toBe(1);
     expect(await brood.getByLabel('Pulled on').count()).toBe(0);

@@ -29,7 +29,9 @@ describe('a week’s cover, in a day', () => {
 
     // The helper opens the link from the e-mail (the fake mailbox), on their own phone.
     const mail = await env.server.ctx.mailbox.waitFor((m) => m.to.includes(email));
-    const link = /https?:\/\/\S+\/cover\/accept\?token=\S+/.exec(mail.text)![0].replace(/^https?:\/\/[^/]+/, env.server.baseUrl);
+    const link = /https?:\/\/\S+\/cover\/accept\?token=\S+/
+      .exec(mail.text)![0]
+      .replace(/^https?:\/\/[^/]+/, env.server.baseUrl);
     const helper = await phonePage(env.browser);
     const page = helper.page;
     await page.goto(link);
@@ -48,7 +50,10 @@ describe('a week’s cover, in a day', () => {
 
     // Only the round: no records, no tomorrow, no settings of the collection.
     await page.getByRole('region', { name: 'Handover' }).waitFor();
-    const nav = await page.getByRole('navigation', { name: 'Main' }).getByRole('link').allInnerTexts();
+    const nav = await page
+      .getByRole('navigation', { name: 'Main' })
+      .getByRole('link')
+      .allInnerTexts();
     expect(nav.map((t) => t.trim())).toEqual(['Today', 'Scan', 'Settings']);
     const first = page.getByRole('article').first();
     await first.waitFor();
@@ -59,14 +64,27 @@ describe('a week’s cover, in a day', () => {
     await underServiceWorker(page);
     await page.getByRole('article').first().waitFor();
     await cutNetwork(helper.context);
-    const fed = page.getByRole('article').filter({ has: page.getByRole('button', { name: 'Ate', exact: true }) }).first();
+    const fed = page
+      .getByRole('article')
+      .filter({ has: page.getByRole('button', { name: 'Ate', exact: true }) })
+      .first();
     const fedName = (await fed.getAttribute('aria-label'))!.split(',')[0]!;
     await fed.getByRole('button', { name: 'Ate', exact: true }).click();
-    await expect.poll(() => page.getByText(/1 waiting/).count(), { timeout: 10_000 }).toBeGreaterThan(0);
+    await expect
+      .poll(() => page.getByText(/1 waiting/).count(), { timeout: 10_000 })
+      .toBeGreaterThan(0);
     await restoreNetwork(helper.context);
-    await expect.poll(() => page.getByText(/All saved/).count(), { timeout: 20_000 }).toBeGreaterThan(0);
-    const [sam] = await env.server.ctx.database.db.select({ id: users.id }).from(users).where(eq(users.email, email));
-    const saved = await env.server.ctx.database.db.select({ kind: events.kind }).from(events).where(and(eq(events.recordedBy, sam!.id), gte(events.serverReceivedAt, started)));
+    await expect
+      .poll(() => page.getByText(/All saved/).count(), { timeout: 20_000 })
+      .toBeGreaterThan(0);
+    const [sam] = await env.server.ctx.database.db
+      .select({ id: users.id })
+      .from(users)
+      .where(eq(users.email, email));
+    const saved = await env.server.ctx.database.db
+      .select({ kind: events.kind })
+      .from(events)
+      .where(and(eq(events.recordedBy, sam!.id), gte(events.serverReceivedAt, started)));
     expect(saved.map((e) => e.kind)).toEqual(['ate']);
 
     // The day ends in Toronto: the report job runs and the owner reads it.
@@ -74,7 +92,9 @@ describe('a week’s cover, in a day', () => {
     env.server.ctx.setNow(startOfLocalDate(addDays(today, 1), ZONE));
     expect(await env.server.ctx.services.coverReports.runDue()).toBe(1);
     env.server.ctx.setNow(null);
-    const report = await env.server.ctx.mailbox.waitFor((m) => m.to.includes('owner@northlight.test') && m.subject.includes('cover report'));
+    const report = await env.server.ctx.mailbox.waitFor(
+      (m) => m.to.includes('owner@northlight.test') && m.subject.includes('cover report'),
+    );
     expect(report.text).toContain(`${fedName} (`);
     expect(report.text).toContain('by Sam');
     await owner.page.reload();
@@ -87,10 +107,18 @@ describe('a week’s cover, in a day', () => {
     await owner.page.getByRole('button', { name: 'End this cover now' }).click();
     await expect.poll(() => owner.page.getByText(/Ended/).count()).toBeGreaterThan(0);
     await page.reload();
-    await expect.poll(() => page.getByText(/Your cover for Northlight Inverts ended on/).count(), { timeout: 10_000 }).toBe(1);
+    await expect
+      .poll(() => page.getByText(/Your cover for Northlight Inverts ended on/).count(), {
+        timeout: 10_000,
+      })
+      .toBe(1);
     expect(await page.getByRole('article').count()).toBe(0);
     await screenshot(page, 'cover-05-ended');
-    expect(helper.consoleErrors.filter((e) => !/ERR_INTERNET_DISCONNECTED|Failed to load resource|status of 403/.test(e))).toEqual([]);
+    expect(
+      helper.consoleErrors.filter(
+        (e) => !/ERR_INTERNET_DISCONNECTED|Failed to load resource|status of 403/.test(e),
+      ),
+    ).toEqual([]);
     expect(owner.consoleErrors).toEqual([]);
   });
 });

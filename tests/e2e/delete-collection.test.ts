@@ -24,7 +24,9 @@ describe('deleting a collection at 360 px', () => {
     // Step 1: the backup, offered before anything else, downloads.
     const download = page.waitForEvent('download');
     await page.getByRole('link', { name: /Download its full backup/ }).click();
-    expect((await download).suggestedFilename()).toMatch(/^rackside-backup-\d{4}-\d{2}-\d{2}\.json$/);
+    expect((await download).suggestedFilename()).toMatch(
+      /^rackside-backup-\d{4}-\d{2}-\d{2}\.json$/,
+    );
 
     // Step 2: the button waits for the name, typed exactly.
     const confirm = page.getByRole('button', { name: 'Delete for everyone' });
@@ -36,13 +38,20 @@ describe('deleting a collection at 360 px', () => {
     await expectAccessible(page, 'delete collection');
     await screenshot(page, 'delete-collection-01-confirm');
     // Nothing scrolls sideways at 360 px.
-    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(360);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(
+      360,
+    );
 
     await confirm.click();
     await page.waitForURL('**/today');
     await expect.poll(() => page.getByText('You are not in any collection yet.').count()).toBe(1);
     await screenshot(page, 'delete-collection-02-after');
-    expect(await env.server.ctx.database.db.select().from(collections).where(eq(collections.id, owner.collectionId))).toEqual([]);
+    expect(
+      await env.server.ctx.database.db
+        .select()
+        .from(collections)
+        .where(eq(collections.id, owner.collectionId)),
+    ).toEqual([]);
     expect(consoleErrors).toEqual([]);
   });
 });

@@ -18,7 +18,9 @@ describe('the app shell at 360 × 740', () => {
     // The typed password can be checked before signing in (OWASP ASVS 4.0.3 2.1.12).
     await page.getByRole('button', { name: 'Show password' }).click();
     expect(await page.getByLabel('Password').getAttribute('type')).toBe('text');
-    expect(await page.getByRole('button', { name: 'Hide password' }).getAttribute('aria-pressed')).toBe('true');
+    expect(
+      await page.getByRole('button', { name: 'Hide password' }).getAttribute('aria-pressed'),
+    ).toBe('true');
     await screenshot(page, 'foundation-01b-password-shown');
     await page.getByRole('button', { name: 'Hide password' }).click();
     expect(await page.getByLabel('Password').getAttribute('type')).toBe('password');
@@ -34,7 +36,11 @@ describe('the app shell at 360 × 740', () => {
 
     await page.getByRole('link', { name: 'Settings' }).click();
     await page.waitForURL('**/settings');
-    for (const [label, theme] of [['Light', 'light'], ['Night (red)', 'night'], ['Dark', 'dark']] as const) {
+    for (const [label, theme] of [
+      ['Light', 'light'],
+      ['Night (red)', 'night'],
+      ['Dark', 'dark'],
+    ] as const) {
       await page.getByLabel(label, { exact: false }).first().check();
       expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe(theme);
       await expectAccessible(page, `settings-${theme}`);
@@ -66,19 +72,23 @@ describe('the app shell at 360 × 740', () => {
     for (const route of ['/today', '/tomorrow', '/animals', '/settings', '/settings/rules']) {
       await page.goto(`${env.server.baseUrl}${route}`);
       await page.getByRole('navigation', { name: 'Main' }).waitFor();
-      const small = await page.$$eval('button, a, input[type=radio], input[type=text], input[type=email], input[type=password], input[type=search]', (els) =>
-        els
-          .map((el) => {
-            const target = el.matches('input[type=radio]') ? el.closest('label') ?? el : el;
-            const r = target.getBoundingClientRect();
-            return { what: el.outerHTML.slice(0, 80), w: r.width, h: r.height };
-          })
-          .filter((r) => r.w > 0 && (r.w < 48 || r.h < 48)),
+      const small = await page.$$eval(
+        'button, a, input[type=radio], input[type=text], input[type=email], input[type=password], input[type=search]',
+        (els) =>
+          els
+            .map((el) => {
+              const target = el.matches('input[type=radio]') ? (el.closest('label') ?? el) : el;
+              const r = target.getBoundingClientRect();
+              return { what: el.outerHTML.slice(0, 80), w: r.width, h: r.height };
+            })
+            .filter((r) => r.w > 0 && (r.w < 48 || r.h < 48)),
       );
       expect(small, route).toEqual([]);
     }
     // Nothing scrolls sideways at 360 px.
-    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(360);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(
+      360,
+    );
     await context.close();
   });
 

@@ -16,7 +16,9 @@ describe('installable app', () => {
   // W3C Web App Manifest; Chromium's install criteria: name or short_name, icons of 192 and
   // 512 px, start_url, display standalone/fullscreen/minimal-ui.
   it('has a manifest with what Chromium needs to install the app, and real icons', () => {
-    const manifest = JSON.parse(fs.readFileSync(path.join(distDir, 'manifest.webmanifest'), 'utf8'));
+    const manifest = JSON.parse(
+      fs.readFileSync(path.join(distDir, 'manifest.webmanifest'), 'utf8'),
+    );
     expect(manifest.name).toBe('Rackside');
     expect(manifest.short_name).toBeTruthy();
     expect(manifest.start_url).toBe('/today');
@@ -24,8 +26,15 @@ describe('installable app', () => {
     expect(manifest.display).toBe('standalone');
     expect(manifest.theme_color).toMatch(/^#[0-9a-f]{6}$/i);
     expect(manifest.background_color).toMatch(/^#[0-9a-f]{6}$/i);
-    for (const [size, purpose] of [[192, 'any'], [512, 'any'], [512, 'maskable']] as const) {
-      const icon = manifest.icons.find((i: { sizes: string; purpose: string }) => i.sizes === `${size}x${size}` && i.purpose === purpose);
+    for (const [size, purpose] of [
+      [192, 'any'],
+      [512, 'any'],
+      [512, 'maskable'],
+    ] as const) {
+      const icon = manifest.icons.find(
+        (i: { sizes: string; purpose: string }) =>
+          i.sizes === `${size}x${size}` && i.purpose === purpose,
+      );
       expect(icon, `${size} ${purpose}`).toBeDefined();
       expect(pngSize(path.join(distDir, icon.src))).toEqual({ width: size, height: size });
     }
@@ -39,8 +48,12 @@ describe('installable app', () => {
     expect(page.headers.get('cache-control')).toBe('no-cache');
     const html = await page.text();
     const asset = /\/assets\/[\w.-]+\.js/.exec(html)![0];
-    expect((await fetch(`${env.server.baseUrl}${asset}`)).headers.get('cache-control')).toContain('immutable');
-    const api = await fetch(`${env.server.baseUrl}/api/nothing-here`, { headers: { Accept: 'text/html' } });
+    expect((await fetch(`${env.server.baseUrl}${asset}`)).headers.get('cache-control')).toContain(
+      'immutable',
+    );
+    const api = await fetch(`${env.server.baseUrl}/api/nothing-here`, {
+      headers: { Accept: 'text/html' },
+    });
     expect(api.status).toBe(404);
     expect(api.headers.get('content-type')).toContain('application/json');
   });
@@ -59,8 +72,11 @@ describe('installable app', () => {
       for (;;) {
         const names = await caches.keys();
         const urls: string[] = [];
-        for (const name of names) for (const req of await (await caches.open(name)).keys()) urls.push(new URL(req.url).pathname);
-        if (urls.some((u) => u.endsWith('.woff2')) || Date.now() > deadline) return { active: !!reg.active, urls };
+        for (const name of names)
+          for (const req of await (await caches.open(name)).keys())
+            urls.push(new URL(req.url).pathname);
+        if (urls.some((u) => u.endsWith('.woff2')) || Date.now() > deadline)
+          return { active: !!reg.active, urls };
         await new Promise((r) => setTimeout(r, 250));
       }
     });

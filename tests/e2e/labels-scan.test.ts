@@ -16,7 +16,14 @@ import type { RoundResponse } from '#shared/schemas/rounds';
 import { events } from '../../server/db/schema/animals';
 import { CHROMIUM_ARGS, cutNetwork, restoreNetwork, underServiceWorker } from '../chromium';
 import { writeLabelVideo } from '../support/fake-camera';
-import { decodeQrIn, greyRegion, markedColumns, measureQrIn, rasterisePdf, type GreyPage } from '../support/label-raster';
+import {
+  decodeQrIn,
+  greyRegion,
+  markedColumns,
+  measureQrIn,
+  rasterisePdf,
+  type GreyPage,
+} from '../support/label-raster';
 import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
 
 const env = useE2e();
@@ -27,7 +34,10 @@ const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-labels-'));
 afterAll(() => fs.rmSync(tmp, { recursive: true, force: true }));
 
 async function api<T>(page: Page, url: string): Promise<T> {
-  return page.evaluate(async (u) => (await fetch(u, { headers: { 'X-Rackside-Client': '1' } })).json(), url) as Promise<T>;
+  return page.evaluate(
+    async (u) => (await fetch(u, { headers: { 'X-Rackside-Client': '1' } })).json(),
+    url,
+  ) as Promise<T>;
 }
 
 /** How many collections' animal lists this phone has kept in IndexedDB. */
@@ -62,16 +72,26 @@ function quietBoxOf(p: Printed, index: number, start: number) {
   const place = placeLabels(p.animals.length, start, sheet.perSheet)[index]!;
   const cell = sheet.cells[place.cell]!;
   const { layout } = labelContent(p.animals[index]!, p.tag, env.server.baseUrl, SIZE, LABEL_FIELDS);
-  return { page: p.pages[place.sheet]!, box: { ...layout.quiet, x: cell.x + layout.quiet.x, y: cell.y + layout.quiet.y }, cell };
+  return {
+    page: p.pages[place.sheet]!,
+    box: { ...layout.quiet, x: cell.x + layout.quiet.x, y: cell.y + layout.quiet.y },
+    cell,
+  };
 }
 
 describe('label sheets printed from the browser', () => {
   it('prints 24 clutch labels whose QR codes all decode to the right animals, at true size', async () => {
     const { page, consoleErrors } = await phonePage(env.browser);
     await signInAsDemo(page, env.server.baseUrl, 'owner@northlight.test');
-    const me = await api<{ memberships: { collectionId: string; labelTag: string }[] }>(page, '/api/auth/me');
+    const me = await api<{ memberships: { collectionId: string; labelTag: string }[] }>(
+      page,
+      '/api/auth/me',
+    );
     const { collectionId, labelTag: tag } = me.memberships[0]!;
-    const all = await api<{ animals: AnimalSummary[] }>(page, `/api/collections/${collectionId}/animals`);
+    const all = await api<{ animals: AnimalSummary[] }>(
+      page,
+      `/api/collections/${collectionId}/animals`,
+    );
 
     await page.getByRole('link', { name: 'Animals' }).click();
     await page.getByRole('link', { name: 'Labels…' }).click();
@@ -81,7 +101,9 @@ describe('label sheets printed from the browser', () => {
     await page.getByText('70 × 36 mm', { exact: true }).click();
     await page.getByLabel('Start at position').fill('2');
     // 12 a sheet; starting at position 2 puts 11 on the first sheet, 12 on the second, 1 on a third.
-    await expect.poll(() => page.getByText(/24 labels on 3 sheets of Letter/).innerText()).toMatch(/QR 25 mm, squares 1\.00 mm/);
+    await expect
+      .poll(() => page.getByText(/24 labels on 3 sheets of Letter/).innerText())
+      .toMatch(/QR 25 mm, squares 1\.00 mm/);
     await expectAccessible(page, 'labels');
     await screenshot(page, 'labels-01-options');
     await page.getByRole('region', { name: 'Label preview' }).scrollIntoViewIfNeeded();
@@ -111,13 +133,30 @@ describe('label sheets printed from the browser', () => {
     // The first row's cut line is printed above it as fully as below it (it was once clipped):
     // the dashed line runs 0.5 mm outside the label, so look in the 1 mm band beyond each edge.
     const { cell } = first;
-    const above = markedColumns(first.page, { x: cell.x, y: cell.y - 1, widthMm: SIZE.widthMm, heightMm: 1 });
-    const below = markedColumns(first.page, { x: cell.x, y: cell.y + SIZE.heightMm, widthMm: SIZE.widthMm, heightMm: 1 });
+    const above = markedColumns(first.page, {
+      x: cell.x,
+      y: cell.y - 1,
+      widthMm: SIZE.widthMm,
+      heightMm: 1,
+    });
+    const below = markedColumns(first.page, {
+      x: cell.x,
+      y: cell.y + SIZE.heightMm,
+      widthMm: SIZE.widthMm,
+      heightMm: 1,
+    });
     expect(below).toBeGreaterThan(0.3 * (SIZE.widthMm / 25.4) * DPI);
     expect(Math.abs(above - below)).toBeLessThanOrEqual(0.05 * below);
     // Position 1 was used before: nothing is printed there.
     const used = sheetLayout('letter', SIZE).cells[0]!;
-    expect(decodeQrIn(pages[0]!, { x: used.x, y: used.y, widthMm: SIZE.widthMm, heightMm: SIZE.heightMm })).toBeNull();
+    expect(
+      decodeQrIn(pages[0]!, {
+        x: used.x,
+        y: used.y,
+        widthMm: SIZE.widthMm,
+        heightMm: SIZE.heightMm,
+      }),
+    ).toBeNull();
 
     // A photo of one label, as html5-qrcode's file scan gets it from a phone's camera app.
     await page.getByLabel('Show at true size (scroll sideways)').check();
@@ -125,10 +164,14 @@ describe('label sheets printed from the browser', () => {
     const photo = await page.locator(`[data-animal-id="${photographed.id}"]`).first().screenshot();
     await page.getByRole('link', { name: 'Scan' }).click();
     // This browser has no camera at all: the screen says so and offers the other ways in.
-    await expect.poll(() => page.getByText('No camera was found.').count(), { timeout: 10_000 }).toBe(1);
+    await expect
+      .poll(() => page.getByText('No camera was found.').count(), { timeout: 10_000 })
+      .toBe(1);
     await expectAccessible(page, 'scan without a camera');
     await screenshot(page, 'scan-00-no-camera');
-    await page.getByLabel('Scan a photo of a label').setInputFiles({ name: 'label.png', mimeType: 'image/png', buffer: photo });
+    await page
+      .getByLabel('Scan a photo of a label')
+      .setInputFiles({ name: 'label.png', mimeType: 'image/png', buffer: photo });
     // Decoding shares the CPU with the other test files in CI (it once took over 10 s there).
     await page
       .getByRole('region', { name: 'Scanned label' })
@@ -144,8 +187,13 @@ describe('walk mode with the camera', () => {
     const p = printed!;
     const { page: probe } = await phonePage(env.browser);
     await signInAsDemo(probe, env.server.baseUrl, 'owner@northlight.test');
-    const round = await api<RoundResponse>(probe, `/api/collections/${p.collectionId}/rounds/today`);
-    const index = p.animals.findIndex((a) => round.items.some((i) => i.animal.id === a.id && i.tasks.some((t) => t.kind === 'feed')));
+    const round = await api<RoundResponse>(
+      probe,
+      `/api/collections/${p.collectionId}/rounds/today`,
+    );
+    const index = p.animals.findIndex((a) =>
+      round.items.some((i) => i.animal.id === a.id && i.tasks.some((t) => t.kind === 'feed')),
+    );
     expect(index).toBeGreaterThanOrEqual(0);
     const animal = p.animals[index]!;
     const notDue = p.animals.find((a) => !round.items.some((i) => i.animal.id === a.id)) ?? null;
@@ -156,11 +204,24 @@ describe('walk mode with the camera', () => {
     const { page: sheet, box, cell } = quietBoxOf(p, index, 2);
     const video = path.join(tmp, 'label.y4m');
     const centre = box.x + box.widthMm / 2;
-    writeLabelVideo(video, greyRegion(sheet, { x: centre - 30, y: cell.y - 2, widthMm: 60, heightMm: SIZE.heightMm + 4 }));
+    writeLabelVideo(
+      video,
+      greyRegion(sheet, {
+        x: centre - 30,
+        y: cell.y - 2,
+        widthMm: 60,
+        heightMm: SIZE.heightMm + 4,
+      }),
+    );
     const browser = await chromium.launch({
       executablePath: '/usr/bin/chromium',
       headless: true,
-      args: [...CHROMIUM_ARGS, '--use-fake-device-for-media-stream', '--use-fake-ui-for-media-stream', `--use-file-for-fake-video-capture=${video}`],
+      args: [
+        ...CHROMIUM_ARGS,
+        '--use-fake-device-for-media-stream',
+        '--use-fake-ui-for-media-stream',
+        `--use-file-for-fake-video-capture=${video}`,
+      ],
     });
     try {
       const { context, page, consoleErrors } = await phonePage(browser);
@@ -185,20 +246,30 @@ describe('walk mode with the camera', () => {
 
       // One tap, then straight back to the camera; the label still in view does not reopen.
       await scanned.waitFor({ state: 'detached' });
-      await expect.poll(() => page.getByRole('status').filter({ hasText: 'Ate ·' }).innerText()).toContain(`${animal.name} (${animal.labelCode})`);
+      await expect
+        .poll(() => page.getByRole('status').filter({ hasText: 'Ate ·' }).innerText())
+        .toContain(`${animal.name} (${animal.labelCode})`);
       await page.waitForTimeout(2500);
       expect(await scanned.count()).toBe(0);
-      await expect.poll(() => page.getByText(/1 waiting/).count(), { timeout: 10_000 }).toBeGreaterThan(0);
+      await expect
+        .poll(() => page.getByText(/1 waiting/).count(), { timeout: 10_000 })
+        .toBeGreaterThan(0);
       await screenshot(page, 'scan-02-back-to-camera');
 
       // A typed code, in lower case with stray spaces, for an animal not due today.
       if (notDue) {
-        await page.getByLabel('Type the code').fill(` ${notDue.labelCode.toLowerCase().replace('-', ' - ')} `);
+        await page
+          .getByLabel('Type the code')
+          .fill(` ${notDue.labelCode.toLowerCase().replace('-', ' - ')} `);
         await page.getByRole('button', { name: 'Open' }).click();
-        await expect.poll(() => scanned.innerText()).toMatch(new RegExp(`${notDue.name} is not due today — record anyway\\?`));
+        await expect
+          .poll(() => scanned.innerText())
+          .toMatch(new RegExp(`${notDue.name} is not due today — record anyway\\?`));
         expect(await scanned.getByRole('button', { name: 'Ate', exact: true }).count()).toBe(0);
         await scanned.getByRole('button', { name: 'Record anyway' }).click();
-        await expect.poll(() => scanned.getByRole('button', { name: 'Watered', exact: true }).count()).toBe(1);
+        await expect
+          .poll(() => scanned.getByRole('button', { name: 'Watered', exact: true }).count())
+          .toBe(1);
         await screenshot(page, 'scan-03-not-due');
         await scanned.getByRole('button', { name: 'Scan next' }).click();
       }
@@ -214,20 +285,36 @@ describe('walk mode with the camera', () => {
       }
 
       await restoreNetwork(context);
-      await expect.poll(async () => {
-        const saved = await env.server.ctx.database.db
-          .select({ kind: events.kind })
-          .from(events)
-          .where(and(eq(events.animalId, animal.id), gte(events.serverReceivedAt, started)));
-        return saved.map((e) => e.kind);
-      }, { timeout: 20_000 }).toEqual(['ate']);
+      await expect
+        .poll(
+          async () => {
+            const saved = await env.server.ctx.database.db
+              .select({ kind: events.kind })
+              .from(events)
+              .where(and(eq(events.animalId, animal.id), gte(events.serverReceivedAt, started)));
+            return saved.map((e) => e.kind);
+          },
+          { timeout: 20_000 },
+        )
+        .toEqual(['ate']);
 
       // What a phone's own camera app opens: the label URL, upper case as printed.
-      await page.goto(labelUrl(env.server.baseUrl, p.tag, animal.labelCode).replace(/^HTTP:\/\/127\.0\.0\.1/, 'http://127.0.0.1'));
+      await page.goto(
+        labelUrl(env.server.baseUrl, p.tag, animal.labelCode).replace(
+          /^HTTP:\/\/127\.0\.0\.1/,
+          'http://127.0.0.1',
+        ),
+      );
       await page.getByRole('article', { name: `${animal.name}, ${animal.labelCode}` }).waitFor();
-      await expect.poll(() => page.getByRole('article', { name: `${animal.name}, ${animal.labelCode}` }).innerText()).toMatch(/✓ Ate/);
+      await expect
+        .poll(() =>
+          page.getByRole('article', { name: `${animal.name}, ${animal.labelCode}` }).innerText(),
+        )
+        .toMatch(/✓ Ate/);
       await screenshot(page, 'scan-04-label-link');
-      expect(consoleErrors.filter((e) => !/ERR_INTERNET_DISCONNECTED|Failed to load resource/.test(e))).toEqual([]);
+      expect(
+        consoleErrors.filter((e) => !/ERR_INTERNET_DISCONNECTED|Failed to load resource/.test(e)),
+      ).toEqual([]);
     } finally {
       await browser.close();
     }

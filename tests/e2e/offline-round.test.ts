@@ -14,11 +14,20 @@ const env = useE2e();
 
 const signIn = (page: Page, email: string) => signInAsDemo(page, env.server.baseUrl, email);
 
-const syncStatus = (page: Page) => page.getByRole('status').filter({ hasText: /saved|waiting|Saving|attention/ }).first().innerText();
-const item = (page: Page, name: string) => page.getByRole('article', { name: new RegExp(`^${name},`) });
+const syncStatus = (page: Page) =>
+  page
+    .getByRole('status')
+    .filter({ hasText: /saved|waiting|Saving|attention/ })
+    .first()
+    .innerText();
+const item = (page: Page, name: string) =>
+  page.getByRole('article', { name: new RegExp(`^${name},`) });
 
 async function userId(email: string) {
-  const [row] = await env.server.ctx.database.db.select({ id: users.id }).from(users).where(eq(users.email, email));
+  const [row] = await env.server.ctx.database.db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(users.email, email));
   return row!.id;
 }
 
@@ -67,14 +76,29 @@ describe('today’s round with no signal', () => {
         const res = await fetch(`/api/collections/${collectionId}/events`, {
           method: 'POST',
           headers: { 'Content-Type': 'application/json', 'X-Rackside-Client': '1' },
-          body: JSON.stringify({ deviceId: 'e2e', clientSentAt: new Date().toISOString(), events: list }),
+          body: JSON.stringify({
+            deviceId: 'e2e',
+            clientSentAt: new Date().toISOString(),
+            events: list,
+          }),
         });
         return (await res.json()) as { results: { status: string }[] };
       },
-      { collectionId, list: saved.map((e) => ({ id: e.id, animalId: e.animalId, kind: e.kind, payload: e.payload, clientRecordedAt: e.clientRecordedAt.toISOString() })) },
+      {
+        collectionId,
+        list: saved.map((e) => ({
+          id: e.id,
+          animalId: e.animalId,
+          kind: e.kind,
+          payload: e.payload,
+          clientRecordedAt: e.clientRecordedAt.toISOString(),
+        })),
+      },
     );
     expect(again.results.map((r) => r.status)).toEqual(['duplicate', 'duplicate', 'duplicate']);
-    expect(consoleErrors.filter((e) => !/ERR_INTERNET_DISCONNECTED|Failed to load resource/.test(e))).toEqual([]);
+    expect(
+      consoleErrors.filter((e) => !/ERR_INTERNET_DISCONNECTED|Failed to load resource/.test(e)),
+    ).toEqual([]);
     await context.close();
   });
 
@@ -104,7 +128,10 @@ describe('today’s round with no signal', () => {
     const history = page.getByRole('region', { name: 'Timeline' });
     await expect.poll(() => history.innerText()).toMatch(/Refused[\s\S]*undone/);
     await expectAccessible(page, 'animal history');
-    await history.getByRole('button', { name: /^Undo / }).first().click();
+    await history
+      .getByRole('button', { name: /^Undo / })
+      .first()
+      .click();
     const kinds = async () =>
       (
         await env.server.ctx.database.db
@@ -126,7 +153,11 @@ describe('today’s round with no signal', () => {
     await db
       .update(memberships)
       // The demo helper's cover runs now, and they have read the safety page already.
-      .set({ startsAt: new Date(now - 86_400_000), endsAt: new Date(now + 86_400_000), safetyAcknowledgedAt: new Date(now) })
+      .set({
+        startsAt: new Date(now - 86_400_000),
+        endsAt: new Date(now + 86_400_000),
+        safetyAcknowledgedAt: new Date(now),
+      })
       .where(eq(memberships.userId, helper));
 
     const phones = await Promise.all([phonePage(env.browser), phonePage(env.browser)]);
@@ -143,7 +174,9 @@ describe('today’s round with no signal', () => {
     }
     for (const { page } of phones) {
       await page.reload();
-      await expect.poll(() => item(page, 'Dusty').innerText(), { timeout: 10_000 }).toMatch(/Fed (twice|3 times) today: \d\d:\d\d Robin \(owner\)[\s\S]*Alex \(helper\)/);
+      await expect
+        .poll(() => item(page, 'Dusty').innerText(), { timeout: 10_000 })
+        .toMatch(/Fed (twice|3 times) today: \d\d:\d\d Robin \(owner\)[\s\S]*Alex \(helper\)/);
     }
     await screenshot(phones[1].page, 'offline-04-fed-twice');
     for (const { context } of phones) await context.close();

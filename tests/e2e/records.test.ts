@@ -36,7 +36,13 @@ function spreadsheet(): { file: string; badLines: number[] } {
   rows[119]!.stage = 'teenager';
   rows[179]!.size_mm = 'big';
   const file = path.join(tmp, 'collection.csv');
-  fs.writeFileSync(file, writeCsv(ANIMAL_COLUMNS.filter((c) => c !== 'status' && c !== 'status_date'), rows));
+  fs.writeFileSync(
+    file,
+    writeCsv(
+      ANIMAL_COLUMNS.filter((c) => c !== 'status' && c !== 'status_date'),
+      rows,
+    ),
+  );
   return { file, badLines: [51, 121, 181] };
 }
 
@@ -71,11 +77,19 @@ describe('collection records at 360 px', () => {
     await page.getByRole('button', { name: 'Save changes' }).click();
     await expect.poll(() => page.getByText(/Leg span 61 mm/).count()).toBe(1);
 
-    const jpeg = await sharp({ create: { width: 1200, height: 900, channels: 3, background: '#4a3520' } }).jpeg().toBuffer();
-    await page.getByLabel('Add a photo').setInputFiles({ name: 'saffron.jpg', mimeType: 'image/jpeg', buffer: jpeg });
+    const jpeg = await sharp({
+      create: { width: 1200, height: 900, channels: 3, background: '#4a3520' },
+    })
+      .jpeg()
+      .toBuffer();
+    await page
+      .getByLabel('Add a photo')
+      .setInputFiles({ name: 'saffron.jpg', mimeType: 'image/jpeg', buffer: jpeg });
     const photo = page.getByRole('img', { name: 'Saffron, Grammostola pulchra' });
     await photo.waitFor();
-    await expect.poll(() => photo.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth)).toBe(320);
+    await expect
+      .poll(() => photo.evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth))
+      .toBe(320);
     await expectAccessible(page, 'animal page');
     await screenshot(page, 'records-03-animal');
 
@@ -87,7 +101,9 @@ describe('collection records at 360 px', () => {
     await page.getByRole('button', { name: 'Retire…' }).click();
     await page.getByLabel('Why').selectOption('rehomed');
     await page.getByRole('button', { name: 'Retire', exact: true }).click();
-    await expect.poll(() => page.getByText(/Rehomed on \d{4}-\d{2}-\d{2}: not on any round\./).count()).toBe(1);
+    await expect
+      .poll(() => page.getByText(/Rehomed on \d{4}-\d{2}-\d{2}: not on any round\./).count())
+      .toBe(1);
     await page.getByRole('button', { name: 'Back in the collection' }).click();
     await expect.poll(() => page.getByRole('button', { name: 'Retire…' }).count()).toBe(1);
     const timeline = page.getByRole('region', { name: 'Timeline' });
@@ -102,7 +118,9 @@ describe('collection records at 360 px', () => {
     const { file, badLines } = spreadsheet();
     await page.goto(`${env.server.baseUrl}/import`);
     await page.getByLabel('Choose a CSV file').setInputFiles(file);
-    await expect.poll(() => page.getByText(/197 of 200 rows are ready; 3 need attention/).count()).toBe(1);
+    await expect
+      .poll(() => page.getByText(/197 of 200 rows are ready; 3 need attention/).count())
+      .toBe(1);
     const problems = page.getByRole('list', { name: 'Rows with problems' }).getByRole('listitem');
     expect(await problems.count()).toBe(3);
     const texts = await problems.allInnerTexts();
@@ -113,7 +131,9 @@ describe('collection records at 360 px', () => {
     await expectAccessible(page, 'import');
     await screenshot(page, 'records-04-import-check');
     await page.getByRole('button', { name: 'Import 197 valid rows' }).click();
-    await expect.poll(() => page.getByText('Imported 197 animals.').count(), { timeout: 15_000 }).toBe(1);
+    await expect
+      .poll(() => page.getByText('Imported 197 animals.').count(), { timeout: 15_000 })
+      .toBe(1);
 
     await page.getByRole('link', { name: 'Animals', exact: true }).click();
     await page.getByLabel('Find').fill('Import 1');

@@ -15,8 +15,12 @@ describe('the round screens at 360 × 740', () => {
     await bramble.waitFor();
     const brambleText = await bramble.innerText();
     expect(brambleText, brambleText).toMatch(/2 refusals in a row/);
-    expect(await page.getByRole('article', { name: /Formosus 04/ }).innerText()).toMatch(/Remove prey[\s\S]*Prey left in on/);
-    expect(await page.getByRole('progressbar', { name: 'Round progress' }).getAttribute('aria-valuenow')).toBe('0');
+    expect(await page.getByRole('article', { name: /Formosus 04/ }).innerText()).toMatch(
+      /Remove prey[\s\S]*Prey left in on/,
+    );
+    expect(
+      await page.getByRole('progressbar', { name: 'Round progress' }).getAttribute('aria-valuenow'),
+    ).toBe('0');
     await screenshot(page, 'rounds-01-today');
 
     await page.getByRole('link', { name: 'Tomorrow' }).click();
@@ -39,13 +43,19 @@ describe('the round screens at 360 × 740', () => {
     await screenshot(page, 'rounds-03-rules');
     await page.getByLabel('Adult (days)', { exact: true }).first().fill('-4');
     await page.getByRole('button', { name: 'Save rules' }).click();
-    await expect.poll(() => page.getByText('The tarantula adult interval must be at least 1 day.').isVisible()).toBe(true);
+    await expect
+      .poll(() =>
+        page.getByText('The tarantula adult interval must be at least 1 day.').isVisible(),
+      )
+      .toBe(true);
     await page.getByLabel('Adult (days)', { exact: true }).first().fill('10');
     await page.getByRole('button', { name: 'Save rules' }).click();
     await expect.poll(() => page.getByText(/Rules saved/).isVisible()).toBe(true);
     // Each group has its own profile, under its own stage names (docs/care-rules.md § Care profiles).
     await page.getByLabel('Care profile of').selectOption('mantis');
-    expect(await page.getByLabel('Nymph L1–L3 (days)', { exact: true }).first().inputValue()).toBe('2');
+    expect(await page.getByLabel('Nymph L1–L3 (days)', { exact: true }).first().inputValue()).toBe(
+      '2',
+    );
 
     await page.getByRole('link', { name: 'Animals' }).click();
     await page.getByRole('link', { name: 'Goliath Jr' }).click();
@@ -57,7 +67,9 @@ describe('the round screens at 360 × 740', () => {
     await screenshot(page, 'rounds-04-animal');
     await page.getByLabel('Feed every (days)').fill('0');
     await page.getByRole('button', { name: 'Save care settings' }).click();
-    await expect.poll(() => page.getByText('The interval must be at least 1 day.').isVisible()).toBe(true);
+    await expect
+      .poll(() => page.getByText('The interval must be at least 1 day.').isVisible())
+      .toBe(true);
     expect(consoleErrors).toEqual([]);
     await context.close();
   });

@@ -14,15 +14,24 @@ import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from '.
 
 const env = useE2e();
 const ZONE = 'America/Toronto';
-const item = (page: Page, name: string) => page.getByRole('article', { name: new RegExp(`^${name},`) });
-const syncStatus = (page: Page) => page.getByRole('status').filter({ hasText: /saved|waiting|Saving|attention/ }).first().innerText();
+const item = (page: Page, name: string) =>
+  page.getByRole('article', { name: new RegExp(`^${name},`) });
+const syncStatus = (page: Page) =>
+  page
+    .getByRole('status')
+    .filter({ hasText: /saved|waiting|Saving|attention/ })
+    .first()
+    .innerText();
 
 /** The animal's page, reached through the app as a keeper would (offline: the phone's copy). */
 async function openAnimal(page: Page, name: string) {
   await page.getByRole('link', { name: 'Animals', exact: true }).click();
   await page.getByRole('heading', { name: 'Animals', level: 1 }).waitFor();
   await page.getByLabel('Find').fill(name);
-  await page.getByRole('link', { name: new RegExp(`^${name}\\b`) }).first().click();
+  await page
+    .getByRole('link', { name: new RegExp(`^${name}\\b`) })
+    .first()
+    .click();
 }
 
 describe('a hold that begins during the day', () => {
@@ -45,10 +54,15 @@ describe('a hold that begins during the day', () => {
     await dusty.getByRole('button', { name: 'More…' }).click();
     await dusty.getByRole('button', { name: 'Molted', exact: true }).click();
     // The feed task is withdrawn in the same write as the tap, with the hold's end in its place.
-    await expect.poll(() => dusty.innerText()).toMatch(/Feed · withdrawn\s+Molted today \(\d\d:\d\d\): no food until \d+ \w{3}\./);
+    await expect
+      .poll(() => dusty.innerText())
+      .toMatch(/Feed · withdrawn\s+Molted today \(\d\d:\d\d\): no food until \d+ \w{3}\./);
     expect(await dusty.getByRole('button', { name: 'Ate', exact: true }).count()).toBe(0);
     // One molt, one record: the card offers to complete it.
-    const prompt = dusty.getByRole('form', { name: 'Complete the molt of' + ` ${Number(localDateOf(new Date(), ZONE).slice(8))}`, exact: false });
+    const prompt = dusty.getByRole('form', {
+      name: 'Complete the molt of' + ` ${Number(localDateOf(new Date(), ZONE).slice(8))}`,
+      exact: false,
+    });
     await prompt.getByLabel('Size after (mm)').fill('48');
     await prompt.getByRole('button', { name: 'Save the molt’s details' }).click();
     await expect.poll(() => prompt.count()).toBe(0);
@@ -68,15 +82,22 @@ describe('a hold that begins during the day', () => {
     const schedule = page.getByRole('region', { name: 'Schedule' });
     // A cold start of the app with no signal: the session check waits for its time-out first.
     await schedule.waitFor({ timeout: 60_000 });
-    await expect.poll(() => schedule.innerText()).toMatch(/Molted today \(\d\d:\d\d\): no food until/);
+    await expect
+      .poll(() => schedule.innerText())
+      .toMatch(/Molted today \(\d\d:\d\d\): no food until/);
     await screenshot(page, 'same-day-03-animal-page-offline');
 
     await restoreNetwork(context);
     await expect.poll(() => syncStatus(page), { timeout: 20_000 }).toMatch(/All saved/);
     // After the sync the server's next meal is the day the hold on the card ends.
-    await expect.poll(() => schedule.innerText(), { timeout: 15_000 }).toMatch(/no food until (\d+ \w{3})\.[\s\S]*Next meal\s+\1/);
+    await expect
+      .poll(() => schedule.innerText(), { timeout: 15_000 })
+      .toMatch(/no food until (\d+ \w{3})\.[\s\S]*Next meal\s+\1/);
     const collectionId = (await demoCollectionId(env.server.ctx.database.db))!;
-    const [row] = await env.server.ctx.database.db.select({ sizeMm: animals.sizeMm }).from(animals).where(eq(animals.name, 'Dusty'));
+    const [row] = await env.server.ctx.database.db
+      .select({ sizeMm: animals.sizeMm })
+      .from(animals)
+      .where(eq(animals.name, 'Dusty'));
     expect(row!.sizeMm).toBe(48);
 
     // Bramble is flagged "possible premolt" in the demo; once she molts, insights drop her.
@@ -89,22 +110,34 @@ describe('a hold that begins during the day', () => {
     const premolts = page.getByRole('region', { name: 'Possible premolts' });
     await expect.poll(() => premolts.innerText()).not.toMatch(/Bramble/);
     expect(collectionId).toBeTruthy();
-    expect(consoleErrors.filter((e) => !/ERR_INTERNET_DISCONNECTED|Failed to load resource/.test(e))).toEqual([]);
+    expect(
+      consoleErrors.filter((e) => !/ERR_INTERNET_DISCONNECTED|Failed to load resource/.test(e)),
+    ).toEqual([]);
     await context.close();
   });
 
   it('a do-not-feed handover note withdraws the helper’s feed task', async () => {
     const db = env.server.ctx.database.db;
-    const [helper] = await db.select({ id: users.id }).from(users).where(eq(users.email, 'helper@northlight.test'));
+    const [helper] = await db
+      .select({ id: users.id })
+      .from(users)
+      .where(eq(users.email, 'helper@northlight.test'));
     const now = Date.now();
     await db
       .update(memberships)
-      .set({ startsAt: new Date(now - 86_400_000), endsAt: new Date(now + 86_400_000), safetyAcknowledgedAt: new Date(now) })
+      .set({
+        startsAt: new Date(now - 86_400_000),
+        endsAt: new Date(now + 86_400_000),
+        safetyAcknowledgedAt: new Date(now),
+      })
       .where(eq(memberships.userId, helper!.id));
     const owner = await phonePage(env.browser);
     await signInAsDemo(owner.page, env.server.baseUrl, 'owner@northlight.test');
     const collectionId = (await demoCollectionId(db))!;
-    const [ember] = await db.select({ id: animals.id }).from(animals).where(eq(animals.name, 'Ember'));
+    const [ember] = await db
+      .select({ id: animals.id })
+      .from(animals)
+      .where(eq(animals.name, 'Ember'));
     const until = addDays(localDateOf(new Date(), ZONE), 3);
     const status = await owner.page.evaluate(
       async ({ collectionId, animalId, until }) =>
@@ -112,7 +145,12 @@ describe('a hold that begins during the day', () => {
           await fetch(`/api/collections/${collectionId}/handover/notes`, {
             method: 'POST',
             headers: { 'Content-Type': 'application/json', 'X-Rackside-Client': '1' },
-            body: JSON.stringify({ animalId, text: 'Looks dark: likely premolt.', until, doNotFeed: true }),
+            body: JSON.stringify({
+              animalId,
+              text: 'Looks dark: likely premolt.',
+              until,
+              doNotFeed: true,
+            }),
           })
         ).status,
       { collectionId, animalId: ember!.id, until },
@@ -124,7 +162,9 @@ describe('a hold that begins during the day', () => {
     await signInAsDemo(page, env.server.baseUrl, 'helper@northlight.test');
     const card = item(page, 'Ember');
     await card.waitFor();
-    await expect.poll(() => card.innerText()).toMatch(/Feed · withdrawn\s+Handover note: do not feed through \d+ \w{3}\./);
+    await expect
+      .poll(() => card.innerText())
+      .toMatch(/Feed · withdrawn\s+Handover note: do not feed through \d+ \w{3}\./);
     expect(await card.getByRole('button', { name: 'Ate', exact: true }).count()).toBe(0);
     await screenshot(page, 'same-day-04-helper-note-hold');
     await expectAccessible(page, 'helper round with a withdrawn task');

@@ -26,7 +26,8 @@ export interface E2eServer {
 const demoToday = () => localDateOf(new Date(), DEMO_COLLECTION.timeZone);
 
 export async function startServer(): Promise<E2eServer> {
-  if (!fs.existsSync(path.join(distDir, 'index.html'))) throw new Error('No production build: run `vite build` first (npm test does).');
+  if (!fs.existsSync(path.join(distDir, 'index.html')))
+    throw new Error('No production build: run `vite build` first (npm test does).');
   let baseUrl = '';
   const ctx = await createTestContext({ distDir, publicUrl: undefined });
   await seedDemo(ctx.database.db, { bcryptCost: 10 });
@@ -54,8 +55,15 @@ export async function startServer(): Promise<E2eServer> {
 }
 
 /** A phone-sized page (360 × 740) that fails the test on any console error from the app. */
-export async function phonePage(browser: Browser): Promise<{ context: BrowserContext; page: Page; consoleErrors: string[] }> {
-  const context = await browser.newContext({ viewport: { width: 360, height: 740 }, deviceScaleFactor: 2, hasTouch: true, isMobile: true });
+export async function phonePage(
+  browser: Browser,
+): Promise<{ context: BrowserContext; page: Page; consoleErrors: string[] }> {
+  const context = await browser.newContext({
+    viewport: { width: 360, height: 740 },
+    deviceScaleFactor: 2,
+    hasTouch: true,
+    isMobile: true,
+  });
   const page = await context.newPage();
   const consoleErrors: string[] = [];
   page.on('console', (msg) => {
@@ -68,9 +76,15 @@ export async function phonePage(browser: Browser): Promise<{ context: BrowserCon
 
 /** axe-core: no serious or critical violation (WCAG 2.2 A/AA rules). */
 export async function expectAccessible(page: Page, label: string) {
-  const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
+  const results = await new AxeBuilder({ page })
+    .withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'])
+    .analyze();
   const bad = results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-  expect(bad.map((v) => `${label}: ${v.id} — ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
+  expect(
+    bad.map(
+      (v) => `${label}: ${v.id} — ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`,
+    ),
+  ).toEqual([]);
 }
 
 export async function screenshot(page: Page, name: string) {

@@ -10,5 +10,6 @@ vi.spyOn(console, 'error').mockImplementation((...args: unknown[]) => {
 afterEach(() => {
   const seen = errors;
   errors = [];
-  if (seen.length) throw new Error(`console.error was called during the test: ${String(seen[0]?.[0])}`);
+  if (seen.length)
+    throw new Error(`console.error was called during the test: ${String(seen[0]?.[0])}`);
 });

@@ -43,7 +43,9 @@ export async function dropTestDatabase(name: string): Promise<void> {
   await admin.end();
 }
 
-export async function createTestContext(options: Partial<Pick<AppOptions, 'authLimits' | 'distDir' | 'publicUrl' | 'logger'>> = {}): Promise<TestContext> {
+export async function createTestContext(
+  options: Partial<Pick<AppOptions, 'authLimits' | 'distDir' | 'publicUrl' | 'logger'>> = {},
+): Promise<TestContext> {
   const name = await createTestDatabase();
   const databaseUrl = testDatabaseUrl(name);
   const database = connectDatabase(databaseUrl, 5);
@@ -67,7 +69,14 @@ export async function createTestContext(options: Partial<Pick<AppOptions, 'authL
     devMailbox: smtp.mailbox,
     now: () => fixed ?? new Date(),
     publicUrl: options.publicUrl ?? 'http://rackside.test',
-    authLimits: { signInPerIp: 10_000, resetPerIp: 10_000, resetPerEmail: 10_000, signUpPerEmail: 10_000, invitesPerCollection: 10_000, ...options.authLimits },
+    authLimits: {
+      signInPerIp: 10_000,
+      resetPerIp: 10_000,
+      resetPerEmail: 10_000,
+      signUpPerEmail: 10_000,
+      invitesPerCollection: 10_000,
+      ...options.authLimits,
+    },
     distDir: options.distDir ?? '/nonexistent',
     logger: options.logger,
   });

@@ -9,6 +9,7 @@ if (isMainThread) register(import.meta.url);
 
 export async function resolve(specifier, context, nextResolve) {
   const resolved = await nextResolve(specifier, context);
-  if (process.env.RACKSIDE_IMPORT_LOG) fs.appendFileSync(process.env.RACKSIDE_IMPORT_LOG, `${resolved.url}\n`);
+  if (process.env.RACKSIDE_IMPORT_LOG)
+    fs.appendFileSync(process.env.RACKSIDE_IMPORT_LOG, `${resolved.url}\n`);
   return resolved;
 }

@@ -45,7 +45,13 @@ export function rasterisePdf(pdf: Buffer, dpi = 300): GreyPage[] {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-pdf-'));
   try {
     fs.writeFileSync(path.join(dir, 'in.pdf'), pdf);
-    execFileSync('pdftoppm', ['-r', String(dpi), '-gray', path.join(dir, 'in.pdf'), path.join(dir, 'page')]);
+    execFileSync('pdftoppm', [
+      '-r',
+      String(dpi),
+      '-gray',
+      path.join(dir, 'in.pdf'),
+      path.join(dir, 'page'),
+    ]);
     return fs
       .readdirSync(dir)
       .filter((f) => f.endsWith('.pgm'))
@@ -94,14 +100,20 @@ export interface MeasuredSymbol {
   moduleMm: number;
 }
 
-const dark = (page: GreyPage, x: number, y: number) => x >= 0 && y >= 0 && x < page.width && y < page.height && page.grey[y * page.width + x]! < 128;
+const dark = (page: GreyPage, x: number, y: number) =>
+  x >= 0 && y >= 0 && x < page.width && y < page.height && page.grey[y * page.width + x]! < 128;
 
 /**
  * From a finder pattern's centre, the first light pixel past its outer dark ring along one
  * direction: the centre's 3 × 3 dark block, a light ring, then the dark ring (1:1:3:1:1 across,
  * ISO/IEC 18004:2015, 6.3.3). The separator and the quiet zone beyond it are light.
  */
-function finderEdge(page: GreyPage, centre: { x: number; y: number }, dx: number, dy: number): number {
+function finderEdge(
+  page: GreyPage,
+  centre: { x: number; y: number },
+  dx: number,
+  dy: number,
+): number {
   let x = Math.round(centre.x);
   let y = Math.round(centre.y);
   for (const wantDark of [false, true, false]) {
@@ -124,7 +136,10 @@ export function measureQrIn(page: GreyPage, box: BoxMm): MeasuredSymbol | null {
   const { rgba, w, h } = crop(page, box, pad);
   const found = jsQR(rgba, w, h, { inversionAttempts: 'dontInvert' });
   if (!found) return null;
-  const onPage = (p: { x: number; y: number }) => ({ x: p.x - pad + px(page, box.x), y: p.y - pad + px(page, box.y) });
+  const onPage = (p: { x: number; y: number }) => ({
+    x: p.x - pad + px(page, box.x),
+    y: p.y - pad + px(page, box.y),
+  });
   const topLeft = onPage(found.location.topLeftFinderPattern);
   const topRight = onPage(found.location.topRightFinderPattern);
   const bottomLeft = onPage(found.location.bottomLeftFinderPattern);
@@ -135,7 +150,13 @@ export function measureQrIn(page: GreyPage, box: BoxMm): MeasuredSymbol | null {
   const bottom = finderEdge(page, bottomLeft, 0, 1);
   const finderRight = finderEdge(page, topLeft, 1, 0);
   const toMm = (n: number) => (n / page.dpi) * 25.4;
-  return { text: found.data, modules: 4 * found.version + 17, widthMm: toMm(right - left), heightMm: toMm(bottom - top), moduleMm: toMm(finderRight - left) / 7 };
+  return {
+    text: found.data,
+    modules: 4 * found.version + 17,
+    widthMm: toMm(right - left),
+    heightMm: toMm(bottom - top),
+    moduleMm: toMm(finderRight - left) / 7,
+  };
 }
 
 /**
@@ -143,7 +164,11 @@ export function measureQrIn(page: GreyPage, box: BoxMm): MeasuredSymbol | null {
  * zone. One pixel round `inner` is left out, for its edge's anti-aliasing.
  */
 export function darkPixelsAround(page: GreyPage, outer: BoxMm, inner: BoxMm): number {
-  const within = (b: BoxMm, x: number, y: number) => x >= px(page, b.x) - 1 && x <= px(page, b.x + b.widthMm) && y >= px(page, b.y) - 1 && y <= px(page, b.y + b.heightMm);
+  const within = (b: BoxMm, x: number, y: number) =>
+    x >= px(page, b.x) - 1 &&
+    x <= px(page, b.x + b.widthMm) &&
+    y >= px(page, b.y) - 1 &&
+    y <= px(page, b.y + b.heightMm);
   let count = 0;
   for (let y = px(page, outer.y); y < px(page, outer.y + outer.heightMm); y++) {
     for (let x = px(page, outer.x); x < px(page, outer.x + outer.widthMm); x++) {
@@ -168,12 +193,19 @@ export function markedColumns(page: GreyPage, band: BoxMm, lighterThan = 230): n
 }
 
 /** Grey pixels of a region, for feeding a fake camera. */
-export function greyRegion(page: GreyPage, box: BoxMm): { width: number; height: number; grey: Uint8Array } {
+export function greyRegion(
+  page: GreyPage,
+  box: BoxMm,
+): { width: number; height: number; grey: Uint8Array } {
   const x0 = px(page, box.x);
   const y0 = px(page, box.y);
   const width = px(page, box.widthMm);
   const height = px(page, box.heightMm);
   const grey = new Uint8Array(width * height);
-  for (let y = 0; y < height; y++) grey.set(page.grey.subarray((y0 + y) * page.width + x0, (y0 + y) * page.width + x0 + width), y * width);
+  for (let y = 0; y < height; y++)
+    grey.set(
+      page.grey.subarray((y0 + y) * page.width + x0, (y0 + y) * page.width + x0 + width),
+      y * width,
+    );
   return { width, height, grey };
 }

@@ -19,11 +19,15 @@ export interface RemoteHost {
   /** The other host's address, as this machine sees its requests arrive. */
   remoteAddress: string;
   /** An HTTP request made from inside the other host (curl in the namespace). */
-  fetch(url: string, init?: { method?: string; headers?: Record<string, string>; body?: unknown }): Promise<RemoteResponse>;
+  fetch(
+    url: string,
+    init?: { method?: string; headers?: Record<string, string>; body?: unknown },
+  ): Promise<RemoteResponse>;
   close(): void;
 }
 
-const ip = (...args: string[]) => execFileSync('ip', args, { stdio: ['ignore', 'pipe', 'pipe'] }).toString();
+const ip = (...args: string[]) =>
+  execFileSync('ip', args, { stdio: ['ignore', 'pipe', 'pipe'] }).toString();
 
 export function createRemoteHost(): RemoteHost {
   const id = process.pid % 100_000;
@@ -62,7 +66,9 @@ export function createRemoteHost(): RemoteHost {
     ip('netns', 'exec', ns, 'ip', 'link', 'set', 'lo', 'up');
   } catch (err) {
     close();
-    throw new Error(`Could not create the test's network namespace (needs iproute2 and root): ${(err as { stderr?: Buffer }).stderr?.toString() ?? err}`);
+    throw new Error(
+      `Could not create the test's network namespace (needs iproute2 and root): ${(err as { stderr?: Buffer }).stderr?.toString() ?? err}`,
+    );
   }
 
   return {
@@ -70,10 +76,13 @@ export function createRemoteHost(): RemoteHost {
     remoteAddress,
     async fetch(url, init = {}) {
       const args = ['-sS', '-D', '-', '-X', init.method ?? 'GET'];
-      for (const [name, value] of Object.entries(init.headers ?? {})) args.push('-H', `${name}: ${value}`);
+      for (const [name, value] of Object.entries(init.headers ?? {}))
+        args.push('-H', `${name}: ${value}`);
       if (init.body !== undefined) args.push('--data-binary', JSON.stringify(init.body));
       // Asynchronous: the server answering may live in this very process.
-      const { stdout } = await run('ip', ['netns', 'exec', ns, 'curl', ...args, url], { timeout: 20_000 });
+      const { stdout } = await run('ip', ['netns', 'exec', ns, 'curl', ...args, url], {
+        timeout: 20_000,
+      });
       // The response head (RFC 9112, 2.1: lines end in CRLF, an empty line ends it), then the body.
       const split = stdout.indexOf('\r\n\r\n');
       const head = stdout.slice(0, split).split('\r\n');
@@ -86,7 +95,9 @@ export function createRemoteHost(): RemoteHost {
       }
       return {
         status: Number(head[0]!.split(' ')[1]),
-        setCookie: head.filter((l) => /^set-cookie:/i.test(l)).map((l) => l.slice(l.indexOf(':') + 1).trim()),
+        setCookie: head
+          .filter((l) => /^set-cookie:/i.test(l))
+          .map((l) => l.slice(l.indexOf(':') + 1).trim()),
         body,
       };
     },

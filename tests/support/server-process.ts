@@ -20,8 +20,11 @@ export const bundleOnce = () => {
   if (!bundled) {
     const parent = path.join(root, 'dist-server');
     // Test workers end without an exit hook running: sweep the folders of finished ones.
-    for (const old of fs.existsSync(parent) ? fs.readdirSync(parent).filter((d) => d.startsWith('test-')) : []) {
-      if (!isRunning(Number(old.slice(5)))) fs.rmSync(path.join(parent, old), { recursive: true, force: true });
+    for (const old of fs.existsSync(parent)
+      ? fs.readdirSync(parent).filter((d) => d.startsWith('test-'))
+      : []) {
+      if (!isRunning(Number(old.slice(5))))
+        fs.rmSync(path.join(parent, old), { recursive: true, force: true });
     }
     bundled = buildServer(path.join(parent, `test-${process.pid}`, 'index.mjs'));
   }
@@ -59,7 +62,13 @@ export interface ServerProcess {
   kill(signal?: NodeJS.Signals): Promise<void>;
 }
 
-export async function startServerProcess(options: { databaseUrl: string; port?: number; env?: Record<string, string>; /** Drop stdout (a load test's request logs). */ quiet?: boolean; /** e.g. --cpu-prof */ nodeArgs?: string[] }): Promise<ServerProcess> {
+export async function startServerProcess(options: {
+  databaseUrl: string;
+  port?: number;
+  env?: Record<string, string>;
+  /** Drop stdout (a load test's request logs). */ quiet?: boolean;
+  /** e.g. --cpu-prof */ nodeArgs?: string[];
+}): Promise<ServerProcess> {
   const port = options.port ?? (await freePort());
   const storage = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-proc-'));
   // The production bundle, run by node itself, so a signal reaches the server directly.
@@ -67,24 +76,28 @@ export async function startServerProcess(options: { databaseUrl: string; port?: 
   // Production needs a mail server (server/env.ts): a loopback SMTP sink in this process, unless
   // the caller gives SMTP_URL (an empty one means none).
   const smtp = options.env && 'SMTP_URL' in options.env ? undefined : await startDevSmtp();
-  const child = spawn(process.execPath, [...(options.nodeArgs ?? []), ...SERVER_NODE_FLAGS, bundle], {
-    cwd: root,
-    env: {
-      PATH: process.env.PATH ?? '',
-      NODE_ENV: 'production',
-      HOST: '127.0.0.1',
-      PORT: String(port),
-      DATABASE_URL: options.databaseUrl,
-      SESSION_SECRET: 'a-production-like-secret-of-forty-characters',
-      BCRYPT_COST: '10',
-      STORAGE_DIR: storage,
-      LOG_LEVEL: 'info',
-      PUBLIC_URL: `http://127.0.0.1:${port}`,
-      ...(smtp ? { SMTP_URL: smtp.url } : {}),
-      ...options.env,
+  const child = spawn(
+    process.execPath,
+    [...(options.nodeArgs ?? []), ...SERVER_NODE_FLAGS, bundle],
+    {
+      cwd: root,
+      env: {
+        PATH: process.env.PATH ?? '',
+        NODE_ENV: 'production',
+        HOST: '127.0.0.1',
+        PORT: String(port),
+        DATABASE_URL: options.databaseUrl,
+        SESSION_SECRET: 'a-production-like-secret-of-forty-characters',
+        BCRYPT_COST: '10',
+        STORAGE_DIR: storage,
+        LOG_LEVEL: 'info',
+        PUBLIC_URL: `http://127.0.0.1:${port}`,
+        ...(smtp ? { SMTP_URL: smtp.url } : {}),
+        ...options.env,
+      },
+      stdio: ['ignore', options.quiet ? 'ignore' : 'pipe', 'pipe'],
     },
-    stdio: ['ignore', options.quiet ? 'ignore' : 'pipe', 'pipe'],
-  });
+  );
   const lines: string[] = [];
   const collect = (chunk: Buffer) => lines.push(...chunk.toString().split('\n').filter(Boolean));
   child.stdout?.on('data', collect);
@@ -94,7 +107,8 @@ export async function startServerProcess(options: { databaseUrl: string; port?: 
   const url = `http://127.0.0.1:${port}`;
   const deadline = Date.now() + 30_000;
   for (;;) {
-    if (child.exitCode !== null) throw new Error(`server exited (${child.exitCode}):\n${lines.join('\n')}`);
+    if (child.exitCode !== null)
+      throw new Error(`server exited (${child.exitCode}):\n${lines.join('\n')}`);
     try {
       if ((await fetch(`${url}/api/health`)).ok) break;
     } catch {

@@ -31,11 +31,32 @@ export async function startSpareCluster(): Promise<SpareCluster> {
   if (process.getuid?.() === 0) spawnSync('chown', ['postgres:postgres', root]);
   const port = await freePort();
   // Trust on loopback only: the cluster lives for one test and listens on 127.0.0.1.
-  runTool('initdb', ['-D', dataDir, '-U', 'rackside', '--auth=trust', '--encoding=UTF8', '--locale=C.UTF-8']);
-  fs.appendFileSync(path.join(dataDir, 'postgresql.conf'), `\nlisten_addresses = '127.0.0.1'\nport = ${port}\nunix_socket_directories = ''\njit = off\nfsync = off\n`);
+  runTool('initdb', [
+    '-D',
+    dataDir,
+    '-U',
+    'rackside',
+    '--auth=trust',
+    '--encoding=UTF8',
+    '--locale=C.UTF-8',
+  ]);
+  fs.appendFileSync(
+    path.join(dataDir, 'postgresql.conf'),
+    `\nlisten_addresses = '127.0.0.1'\nport = ${port}\nunix_socket_directories = ''\njit = off\nfsync = off\n`,
+  );
   const cluster: SpareCluster = {
     url: `postgres://rackside@127.0.0.1:${port}/rackside`,
-    start: () => runTool('pg_ctl', ['start', '-w', '-t', '60', '-D', dataDir, '-l', path.join(root, 'server.log')]),
+    start: () =>
+      runTool('pg_ctl', [
+        'start',
+        '-w',
+        '-t',
+        '60',
+        '-D',
+        dataDir,
+        '-l',
+        path.join(root, 'server.log'),
+      ]),
     stop: () => runTool('pg_ctl', ['stop', '-m', 'fast', '-w', '-D', dataDir]),
     destroy: () => {
       try {
@@ -47,7 +68,9 @@ export async function startSpareCluster(): Promise<SpareCluster> {
     },
   };
   cluster.start();
-  const admin = new pg.Client({ connectionString: `postgres://rackside@127.0.0.1:${port}/postgres` });
+  const admin = new pg.Client({
+    connectionString: `postgres://rackside@127.0.0.1:${port}/postgres`,
+  });
   await admin.connect();
   await admin.query('create database rackside');
   await admin.end();

@@ -94,7 +94,9 @@ export const events = pgTable(
     deviceId: text('device_id'),
     clientRecordedAt: timestamp('client_recorded_at', { withTimezone: true }).notNull(),
     clientSentAt: timestamp('client_sent_at', { withTimezone: true }),
-    serverReceivedAt: timestamp('server_received_at', { withTimezone: true }).notNull().defaultNow(),
+    serverReceivedAt: timestamp('server_received_at', { withTimezone: true })
+      .notNull()
+      .defaultNow(),
     effectiveAt: timestamp('effective_at', { withTimezone: true }).notNull(),
     flags: text('flags').array().notNull().default([]),
   },
@@ -124,7 +126,6 @@ export const handoverNotes = pgTable(
   },
   (t) => [index('handover_notes_collection_idx').on(t.collectionId, t.until)],
 );
-
 
 /**
  * An egg sac (or a mantis's egg case, or a scorpion's or centipede's brood — `kind`, after the

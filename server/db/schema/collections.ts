@@ -53,7 +53,10 @@ export const memberships = pgTable(
     safetyAcknowledgedAt: timestamp('safety_acknowledged_at', { withTimezone: true }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [unique('memberships_collection_user').on(t.collectionId, t.userId), index('memberships_user_idx').on(t.userId)],
+  (t) => [
+    unique('memberships_collection_user').on(t.collectionId, t.userId),
+    index('memberships_user_idx').on(t.userId),
+  ],
 );
 
 export const invites = pgTable(

@@ -1,4 +1,15 @@
-import { bigint, boolean, date, index, integer, jsonb, pgTable, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import {
+  bigint,
+  boolean,
+  date,
+  index,
+  integer,
+  jsonb,
+  pgTable,
+  timestamp,
+  unique,
+  uuid,
+} from 'drizzle-orm/pg-core';
 import { animals } from './animals';
 import { collections } from './collections';
 
@@ -54,7 +65,10 @@ export const roundItems = pgTable(
     // An urgent task that appeared during the day (e.g. prey left in with a molting animal).
     addedDuringDay: boolean('added_during_day').notNull().default(false),
   },
-  (t) => [unique('round_items_round_animal').on(t.roundId, t.animalId), index('round_items_round_idx').on(t.roundId, t.sortIndex)],
+  (t) => [
+    unique('round_items_round_animal').on(t.roundId, t.animalId),
+    index('round_items_round_idx').on(t.roundId, t.sortIndex),
+  ],
 );
 
 /**

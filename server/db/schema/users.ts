@@ -5,7 +5,9 @@ export const users = pgTable('users', {
   email: text('email').notNull().unique(),
   displayName: text('display_name').notNull(),
   passwordHash: text('password_hash').notNull(),
-  passwordChangedAt: timestamp('password_changed_at', { withTimezone: true }).notNull().defaultNow(),
+  passwordChangedAt: timestamp('password_changed_at', { withTimezone: true })
+    .notNull()
+    .defaultNow(),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });
 
@@ -30,18 +32,15 @@ export const passwordResets = pgTable(
  * an address without an account; the account's name, password and collection are chosen when
  * the link is opened, so nobody can pre-set the password of someone else's address.
  */
-export const signUpTokens = pgTable(
-  'sign_up_tokens',
-  {
-    id: uuid('id').primaryKey().defaultRandom(),
-    email: text('email').notNull(),
-    // SHA-256 of the token, as for password resets.
-    tokenHash: text('token_hash').notNull().unique(),
-    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
-    usedAt: timestamp('used_at', { withTimezone: true }),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  },
-);
+export const signUpTokens = pgTable('sign_up_tokens', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  email: text('email').notNull(),
+  // SHA-256 of the token, as for password resets.
+  tokenHash: text('token_hash').notNull().unique(),
+  expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+  usedAt: timestamp('used_at', { withTimezone: true }),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+});
 
 /** The table connect-pg-simple reads and writes; its shape is that package's. */
 export const sessions = pgTable(

@@ -3,10 +3,7 @@ import { toLocationSummary, type AnimalSummary } from '#shared/schemas/animals';
 import type { AnimalRow, LocationRow } from './animals.repository';
 
 /** A stored animal (and its place) as the API and the round engine see it. */
-export function toAnimalSummary(
-  a: AnimalRow,
-  l: LocationRow | null,
-): AnimalSummary {
+export function toAnimalSummary(a: AnimalRow, l: LocationRow | null): AnimalSummary {
   return {
     id: a.id,
     labelCode: a.labelCode,

@@ -12,7 +12,12 @@ export async function listAnimals(db: Db, collectionId: string, animalIds?: stri
     .select({ animal: animals, location: locations })
     .from(animals)
     .leftJoin(locations, eq(locations.id, animals.locationId))
-    .where(and(eq(animals.collectionId, collectionId), animalIds ? inArray(animals.id, animalIds) : undefined))
+    .where(
+      and(
+        eq(animals.collectionId, collectionId),
+        animalIds ? inArray(animals.id, animalIds) : undefined,
+      ),
+    )
     .orderBy(asc(locations.walkOrder), asc(animals.labelCode));
 }
 
@@ -40,7 +45,8 @@ export async function insertAnimal(db: Db, values: NewAnimal) {
 
 /** Many animals, 500 rows a statement. */
 export async function insertAnimals(db: Db, values: NewAnimal[]) {
-  for (let i = 0; i < values.length; i += 500) await db.insert(animals).values(values.slice(i, i + 500));
+  for (let i = 0; i < values.length; i += 500)
+    await db.insert(animals).values(values.slice(i, i + 500));
 }
 
 /** Changes an animal already known to be in the collection (the caller checked). */
@@ -67,11 +73,23 @@ export async function updateAnimalCare(
 }
 
 export async function codesInCollection(db: Db, collectionId: string): Promise<string[]> {
-  return (await db.select({ code: animals.labelCode }).from(animals).where(eq(animals.collectionId, collectionId))).map((r) => r.code);
+  return (
+    await db
+      .select({ code: animals.labelCode })
+      .from(animals)
+      .where(eq(animals.collectionId, collectionId))
+  ).map((r) => r.code);
 }
 
 /** True when the place exists in this collection (ids from another collection are refused). */
-export async function locationInCollection(db: Db, collectionId: string, locationId: string): Promise<boolean> {
-  const [row] = await db.select({ id: locations.id }).from(locations).where(and(eq(locations.id, locationId), eq(locations.collectionId, collectionId)));
+export async function locationInCollection(
+  db: Db,
+  collectionId: string,
+  locationId: string,
+): Promise<boolean> {
+  const [row] = await db
+    .select({ id: locations.id })
+    .from(locations)
+    .where(and(eq(locations.id, locationId), eq(locations.collectionId, collectionId)));
   return !!row;
 }

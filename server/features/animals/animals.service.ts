@@ -24,7 +24,12 @@ import {
 
 const randomUnit = () => randomInt(2 ** 32) / 2 ** 32;
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that animal.');
-const codeTaken = (code: string) => new HttpError(409, 'code_taken', `Another animal already has the code ${code}. Leave the code empty to get a new one.`);
+const codeTaken = (code: string) =>
+  new HttpError(
+    409,
+    'code_taken',
+    `Another animal already has the code ${code}. Leave the code empty to get a new one.`,
+  );
 
 /** The stored columns for what a keeper entered. */
 function columnsOf(v: AnimalValues) {
@@ -50,7 +55,12 @@ function columnsOf(v: AnimalValues) {
 export function createAnimalsService(db: Db, now: () => Date = () => new Date()) {
   async function checkLocation(tx: Db, collectionId: string, locationId: string | null) {
     if (locationId && !(await locationInCollection(tx, collectionId, locationId))) {
-      throw new HttpError(422, 'invalid', 'That place is not in this collection. Choose one from the list.', [{ path: 'locationId', message: 'Choose a place from the list.' }]);
+      throw new HttpError(
+        422,
+        'invalid',
+        'That place is not in this collection. Choose one from the list.',
+        [{ path: 'locationId', message: 'Choose a place from the list.' }],
+      );
     }
   }
 
@@ -63,7 +73,12 @@ export function createAnimalsService(db: Db, now: () => Date = () => new Date())
   /** Codes for new animals: the collection's usual prefix, never one already used. */
   async function newCodes(tx: Db, c: MemberCollection, count: number): Promise<string[]> {
     const taken = await codesInCollection(tx, c.collectionId);
-    return generateLabelCodes(collectionPrefix(c.collectionName, taken), count, randomUnit, new Set(taken));
+    return generateLabelCodes(
+      collectionPrefix(c.collectionName, taken),
+      count,
+      randomUnit,
+      new Set(taken),
+    );
   }
 
   return {
@@ -97,15 +112,25 @@ export function createAnimalsService(db: Db, now: () => Date = () => new Date())
     async createMany(c: MemberCollection, rows: AnimalValues[], outer?: Db): Promise<number> {
       const { collectionId } = c;
       return (outer ?? db).transaction(async (tx) => {
-        const locationIds = [...new Set(rows.map((r) => r.locationId).filter((l): l is string => !!l))];
+        const locationIds = [
+          ...new Set(rows.map((r) => r.locationId).filter((l): l is string => !!l)),
+        ];
         for (const l of locationIds) await checkLocation(tx, collectionId, l);
         const fresh = await newCodes(tx, c, rows.filter((r) => !r.labelCode).length);
-        const values = rows.map((r) => ({ collectionId, labelCode: r.labelCode || fresh.pop()!, ...columnsOf(r) }));
+        const values = rows.map((r) => ({
+          collectionId,
+          labelCode: r.labelCode || fresh.pop()!,
+          ...columnsOf(r),
+        }));
         try {
           await insertAnimals(tx, values);
         } catch (err) {
           if (isUniqueViolation(err)) {
-            throw new HttpError(409, 'code_taken', 'Some label codes in the file are already used in this collection. Clear those codes to have new ones drawn.');
+            throw new HttpError(
+              409,
+              'code_taken',
+              'Some label codes in the file are already used in this collection. Clear those codes to have new ones drawn.',
+            );
           }
           throw err;
         }
@@ -114,7 +139,12 @@ export function createAnimalsService(db: Db, now: () => Date = () => new Date())
     },
 
     /** An edit; a change of place is kept in the history as a move. The code changes only by re-labelling. */
-    async update(collection: EventCollection, animalId: string, userId: string, values: AnimalValues): Promise<AnimalSummary> {
+    async update(
+      collection: EventCollection,
+      animalId: string,
+      userId: string,
+      values: AnimalValues,
+    ): Promise<AnimalSummary> {
       const { collectionId } = collection;
       await db.transaction(async (tx) => {
         const before = await findPlaceAndStatus(tx, collectionId, animalId);
@@ -122,44 +152,118 @@ export function createAnimalsService(db: Db, now: () => Date = () => new Date())
         await checkLocation(tx, collectionId, values.locationId);
         await updateAnimal(tx, animalId, { ...columnsOf(values), updatedAt: now() });
         if (before.locationId !== values.locationId && values.locationId) {
-          await recordEvents(tx, collection, [{ animalId, kind: 'moved', payload: { fromLocationId: before.locationId, toLocationId: values.locationId }, recordedBy: userId }], { from: 'server', at: now() });
+          await recordEvents(
+            tx,
+            collection,
+            [
+              {
+                animalId,
+                kind: 'moved',
+                payload: { fromLocationId: before.locationId, toLocationId: values.locationId },
+                recordedBy: userId,
+              },
+            ],
+            { from: 'server', at: now() },
+          );
         }
       });
       return summaryOf(collectionId, animalId);
     },
 
     /** Sold, deceased, rehomed or on loan: off the round from now on, history kept. */
-    async setStatus(collection: EventCollection, animalId: string, userId: string, body: { status: AnimalSummary['status']; date: string | null; note?: string | null }) {
+    async setStatus(
+      collection: EventCollection,
+      animalId: string,
+      userId: string,
+      body: { status: AnimalSummary['status']; date: string | null; note?: string | null },
+    ) {
       const { collectionId } = collection;
       await db.transaction(async (tx) => {
         const before = await findPlaceAndStatus(tx, collectionId, animalId);
         if (!before) throw notFound();
-        if (before.status === body.status) throw new HttpError(409, 'unchanged', `The animal is already ${body.status.replace('_', ' ')}.`);
-        await updateAnimal(tx, animalId, { status: body.status, statusDate: body.date, updatedAt: now() });
-        await recordEvents(tx, collection, [{ animalId, kind: 'status_changed', payload: { from: before.status, to: body.status, ...(body.note ? { note: body.note } : {}) }, recordedBy: userId }], { from: 'server', at: now() });
+        if (before.status === body.status)
+          throw new HttpError(
+            409,
+            'unchanged',
+            `The animal is already ${body.status.replace('_', ' ')}.`,
+          );
+        await updateAnimal(tx, animalId, {
+          status: body.status,
+          statusDate: body.date,
+          updatedAt: now(),
+        });
+        await recordEvents(
+          tx,
+          collection,
+          [
+            {
+              animalId,
+              kind: 'status_changed',
+              payload: {
+                from: before.status,
+                to: body.status,
+                ...(body.note ? { note: body.note } : {}),
+              },
+              recordedBy: userId,
+            },
+          ],
+          { from: 'server', at: now() },
+        );
       });
       return summaryOf(collectionId, animalId);
     },
 
     retire(collection: EventCollection, animalId: string, userId: string, body: RetireBody) {
-      return this.setStatus(collection, animalId, userId, { status: body.status, date: body.date, note: body.note });
+      return this.setStatus(collection, animalId, userId, {
+        status: body.status,
+        date: body.date,
+        note: body.note,
+      });
     },
 
     /**
      * One animal or many to one place; each gets a "moved" fact in its history. A rehouse into
      * a new enclosure is recorded even in the same place: it starts settling (R16).
      */
-    async move(collection: EventCollection, userId: string, { animalIds, locationId, rehoused }: MoveBody): Promise<number> {
+    async move(
+      collection: EventCollection,
+      userId: string,
+      { animalIds, locationId, rehoused }: MoveBody,
+    ): Promise<number> {
       const { collectionId } = collection;
       const ids = [...new Set(animalIds)];
       return db.transaction(async (tx) => {
         await checkLocation(tx, collectionId, locationId);
         const rows = await placesOfAnimals(tx, collectionId, ids);
-        if (rows.length !== ids.length) throw new HttpError(404, 'not_found', 'Some of these animals are not in this collection. Reload and choose again.');
+        if (rows.length !== ids.length)
+          throw new HttpError(
+            404,
+            'not_found',
+            'Some of these animals are not in this collection. Reload and choose again.',
+          );
         const moving = rehoused ? rows : rows.filter((r) => r.locationId !== locationId);
         if (!moving.length) return 0;
-        await moveAnimals(tx, moving.map((r) => r.id), locationId, now());
-        await recordEvents(tx, collection, moving.map((r) => ({ animalId: r.id, kind: 'moved' as const, payload: { fromLocationId: r.locationId, toLocationId: locationId, ...(rehoused ? { rehoused: true } : {}) }, recordedBy: userId })), { from: 'server', at: now() });
+        await moveAnimals(
+          tx,
+          moving.map((r) => r.id),
+          locationId,
+          now(),
+        );
+        await recordEvents(
+          tx,
+          collection,
+          moving.map((r) => ({
+            animalId: r.id,
+            kind: 'moved' as const,
+            payload: {
+              fromLocationId: r.locationId,
+              toLocationId: locationId,
+              ...(rehoused ? { rehoused: true } : {}),
+            },
+            recordedBy: userId,
+          })),
+          { from: 'server', at: now() },
+        );
         return moving.length;
       });
     },

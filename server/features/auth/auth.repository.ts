@@ -6,7 +6,10 @@ export async function updatePasswordHash(db: Db, userId: string, passwordHash: s
   await db.update(users).set({ passwordHash, passwordChangedAt: at }).where(eq(users.id, userId));
 }
 
-export async function insertPasswordReset(db: Db, values: { userId: string; tokenHash: string; expiresAt: Date }) {
+export async function insertPasswordReset(
+  db: Db,
+  values: { userId: string; tokenHash: string; expiresAt: Date },
+) {
   await db.insert(passwordResets).values(values);
 }
 
@@ -15,12 +18,21 @@ export async function consumePasswordReset(db: Db, tokenHash: string, now: Date)
   const [row] = await db
     .update(passwordResets)
     .set({ usedAt: now })
-    .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, now)))
+    .where(
+      and(
+        eq(passwordResets.tokenHash, tokenHash),
+        isNull(passwordResets.usedAt),
+        gt(passwordResets.expiresAt, now),
+      ),
+    )
     .returning({ userId: passwordResets.userId });
   return row?.userId ?? null;
 }
 
-export async function insertSignUpToken(db: Db, values: { email: string; tokenHash: string; expiresAt: Date }) {
+export async function insertSignUpToken(
+  db: Db,
+  values: { email: string; tokenHash: string; expiresAt: Date },
+) {
   await db.insert(signUpTokens).values(values);
 }
 
@@ -29,7 +41,13 @@ export async function findSignUpToken(db: Db, tokenHash: string, now: Date) {
   const [row] = await db
     .select({ email: signUpTokens.email })
     .from(signUpTokens)
-    .where(and(eq(signUpTokens.tokenHash, tokenHash), isNull(signUpTokens.usedAt), gt(signUpTokens.expiresAt, now)))
+    .where(
+      and(
+        eq(signUpTokens.tokenHash, tokenHash),
+        isNull(signUpTokens.usedAt),
+        gt(signUpTokens.expiresAt, now),
+      ),
+    )
     .limit(1);
   return row?.email ?? null;
 }
@@ -39,14 +57,23 @@ export async function consumeSignUpToken(db: Db, tokenHash: string, now: Date) {
   const [row] = await db
     .update(signUpTokens)
     .set({ usedAt: now })
-    .where(and(eq(signUpTokens.tokenHash, tokenHash), isNull(signUpTokens.usedAt), gt(signUpTokens.expiresAt, now)))
+    .where(
+      and(
+        eq(signUpTokens.tokenHash, tokenHash),
+        isNull(signUpTokens.usedAt),
+        gt(signUpTokens.expiresAt, now),
+      ),
+    )
     .returning({ email: signUpTokens.email });
   return row?.email ?? null;
 }
 
 /** Every outstanding reset link of a user stops working (after a password change or reset). */
 export async function revokePasswordResets(db: Db, userId: string, now: Date) {
-  await db.update(passwordResets).set({ usedAt: now }).where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
+  await db
+    .update(passwordResets)
+    .set({ usedAt: now })
+    .where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
 }
 
 /** Signs a user out everywhere (after a password reset or change), except one session. */

@@ -41,7 +41,6 @@ export const DEFAULT_AUTH_LIMITS: AuthLimits = {
   invitesPerCollection: 20,
 };
 
-
 /** Keyed on the e-mail in the body, so one account cannot be hammered from many addresses. */
 function byEmail(req: Request): string {
   const raw = (req.body as { email?: unknown } | undefined)?.email;
@@ -49,10 +48,17 @@ function byEmail(req: Request): string {
 }
 
 function destroy(req: Request) {
-  return new Promise<void>((resolve, reject) => req.session.destroy((err) => (err ? reject(err) : resolve())));
+  return new Promise<void>((resolve, reject) =>
+    req.session.destroy((err) => (err ? reject(err) : resolve())),
+  );
 }
 
-export function authRoutes(auth: AuthService, limits: AuthLimits, cookieName: string, limiter: Limiter) {
+export function authRoutes(
+  auth: AuthService,
+  limits: AuthLimits,
+  cookieName: string,
+  limiter: Limiter,
+) {
   const router = Router();
 
   const signInLimit = limiter('sign-in-ip', { windowMs: 15 * 60_000, limit: limits.signInPerIp });
@@ -63,32 +69,64 @@ export function authRoutes(auth: AuthService, limits: AuthLimits, cookieName: st
     skipSuccessfulRequests: true,
   });
   const resetIpLimit = limiter('reset-ip', { windowMs: 15 * 60_000, limit: limits.resetPerIp });
-  const resetEmailLimit = limiter('reset-email', { windowMs: 60 * 60_000, limit: limits.resetPerEmail, keyGenerator: byEmail });
-  const signUpEmailLimit = limiter('sign-up-email', { windowMs: 60 * 60_000, limit: limits.signUpPerEmail, keyGenerator: byEmail });
+  const resetEmailLimit = limiter('reset-email', {
+    windowMs: 60 * 60_000,
+    limit: limits.resetPerEmail,
+    keyGenerator: byEmail,
+  });
+  const signUpEmailLimit = limiter('sign-up-email', {
+    windowMs: 60 * 60_000,
+    limit: limits.signUpPerEmail,
+    keyGenerator: byEmail,
+  });
 
   // The same answer for an address with or without an account (decision 012): the e-mail says which.
-  router.post('/sign-up', signInLimit, signUpEmailLimit, validate({ body: signUpBody }), (_req, res) => {
-    const { email } = input<SignUpBody>(res, 'body');
-    auth.startSignUp(email);
-    res.status(202).json({ message: `Check your e-mail: we have sent a message to ${email} with the next step.` });
-  });
+  router.post(
+    '/sign-up',
+    signInLimit,
+    signUpEmailLimit,
+    validate({ body: signUpBody }),
+    (_req, res) => {
+      const { email } = input<SignUpBody>(res, 'body');
+      auth.startSignUp(email);
+      res.status(202).json({
+        message: `Check your e-mail: we have sent a message to ${email} with the next step.`,
+      });
+    },
+  );
 
-  router.get('/sign-up/preview', signInLimit, validate({ query: z.object({ token: signUpToken }) }), async (_req, res) => {
-    res.json(await auth.previewSignUp(input<{ token: string }>(res, 'query').token));
-  });
+  router.get(
+    '/sign-up/preview',
+    signInLimit,
+    validate({ query: z.object({ token: signUpToken }) }),
+    async (_req, res) => {
+      res.json(await auth.previewSignUp(input<{ token: string }>(res, 'query').token));
+    },
+  );
 
-  router.post('/sign-up/finish', signInLimit, validate({ body: signUpFinishBody }), async (req, res) => {
-    const user = await auth.finishSignUp(input<SignUpFinishBody>(res, 'body'));
-    await startSession(req, user.id);
-    res.status(201).json(await auth.me(user.id));
-  });
+  router.post(
+    '/sign-up/finish',
+    signInLimit,
+    validate({ body: signUpFinishBody }),
+    async (req, res) => {
+      const user = await auth.finishSignUp(input<SignUpFinishBody>(res, 'body'));
+      await startSession(req, user.id);
+      res.status(201).json(await auth.me(user.id));
+    },
+  );
 
-  router.post('/sign-in', signInLimit, accountLimit, validate({ body: signInBody }), async (req, res) => {
-    const { email, password } = input<SignInBody>(res, 'body');
-    const user = await auth.verifyCredentials(email, password);
-    await startSession(req, user.id);
-    res.json(await auth.me(user.id));
-  });
+  router.post(
+    '/sign-in',
+    signInLimit,
+    accountLimit,
+    validate({ body: signInBody }),
+    async (req, res) => {
+      const { email, password } = input<SignInBody>(res, 'body');
+      const user = await auth.verifyCredentials(email, password);
+      await startSession(req, user.id);
+      res.json(await auth.me(user.id));
+    },
+  );
 
   router.post('/sign-out', async (req, res) => {
     await destroy(req);
@@ -100,16 +138,35 @@ export function authRoutes(auth: AuthService, limits: AuthLimits, cookieName: st
     res.json(await auth.me(currentUserId(req)));
   });
 
-  router.post('/password', requireUser, validate({ body: changePasswordBody }), async (req, res) => {
-    const body = input<{ currentPassword: string; newPassword: string }>(res, 'body');
-    await auth.changePassword(currentUserId(req), body.currentPassword, body.newPassword, req.sessionID);
-    res.status(204).end();
-  });
+  router.post(
+    '/password',
+    requireUser,
+    validate({ body: changePasswordBody }),
+    async (req, res) => {
+      const body = input<{ currentPassword: string; newPassword: string }>(res, 'body');
+      await auth.changePassword(
+        currentUserId(req),
+        body.currentPassword,
+        body.newPassword,
+        req.sessionID,
+      );
+      res.status(204).end();
+    },
+  );
 
-  router.post('/reset-request', resetIpLimit, resetEmailLimit, validate({ body: resetRequestBody }), (_req, res) => {
-    auth.requestReset(input<{ email: string }>(res, 'body').email);
-    res.status(202).json({ message: 'If an account uses that e-mail, a reset link is on its way. It works for one hour.' });
-  });
+  router.post(
+    '/reset-request',
+    resetIpLimit,
+    resetEmailLimit,
+    validate({ body: resetRequestBody }),
+    (_req, res) => {
+      auth.requestReset(input<{ email: string }>(res, 'body').email);
+      res.status(202).json({
+        message:
+          'If an account uses that e-mail, a reset link is on its way. It works for one hour.',
+      });
+    },
+  );
 
   router.post('/reset', resetIpLimit, validate({ body: resetBody }), async (req, res) => {
     const body = input<{ token: string; password: string }>(res, 'body');

@@ -34,7 +34,8 @@ export interface AuthDeps {
 }
 
 const WRONG_CREDENTIALS = 'That e-mail and password do not match an account.';
-const SIGN_UP_LINK_INVALID = 'This sign-up link has expired or was already used. Start again from the sign-up page.';
+const SIGN_UP_LINK_INVALID =
+  'This sign-up link has expired or was already used. Start again from the sign-up page.';
 
 function hashToken(token: string): string {
   return createHash('sha256').update(token).digest('hex');
@@ -68,7 +69,11 @@ export function createAuthService(deps: AuthDeps) {
       return;
     }
     const token = newToken();
-    await insertSignUpToken(db, { email, tokenHash: hashToken(token), expiresAt: new Date(deps.now().getTime() + SIGN_UP_LINK_LIFETIME_MS) });
+    await insertSignUpToken(db, {
+      email,
+      tokenHash: hashToken(token),
+      expiresAt: new Date(deps.now().getTime() + SIGN_UP_LINK_LIFETIME_MS),
+    });
     await deps.mailer.send({
       to: email,
       subject: 'Finish making your Rackside account',
@@ -140,7 +145,10 @@ export function createAuthService(deps: AuthDeps) {
           // Only the mailbox's owner gets here, so saying so reveals nothing to anyone else.
           if (await findUserByEmail(tx, email)) throw emailTaken();
           const user = await insertUser(tx, { email, displayName: body.displayName, passwordHash });
-          const collectionId = await insertCollection(tx, { name: body.collectionName, timeZone: body.timeZone });
+          const collectionId = await insertCollection(tx, {
+            name: body.collectionName,
+            timeZone: body.timeZone,
+          });
           await insertMembership(tx, { collectionId, userId: user.id, role: 'owner' });
           return user;
         });
@@ -178,7 +186,12 @@ export function createAuthService(deps: AuthDeps) {
       };
     },
 
-    async changePassword(userId: string, currentPassword: string, newPassword: string, keepSid: string) {
+    async changePassword(
+      userId: string,
+      currentPassword: string,
+      newPassword: string,
+      keepSid: string,
+    ) {
       const user = await findUserById(db, userId);
       if (!user || !(await verifyPassword(currentPassword, user.passwordHash))) {
         throw new HttpError(422, 'wrong_password', 'Your current password is not right.', [
@@ -206,7 +219,11 @@ export function createAuthService(deps: AuthDeps) {
       const now = deps.now();
       const userId = await consumePasswordReset(db, hashToken(token), now);
       if (!userId) {
-        throw new HttpError(400, 'reset_link_invalid', 'This reset link has expired or was already used. Ask for a new one.');
+        throw new HttpError(
+          400,
+          'reset_link_invalid',
+          'This reset link has expired or was already used. Ask for a new one.',
+        );
       }
       const passwordHash = await hashPassword(password, deps.bcryptCost);
       await db.transaction(async (tx) => {
@@ -218,6 +235,11 @@ export function createAuthService(deps: AuthDeps) {
   };
 }
 
-const emailTaken = () => new HttpError(409, 'email_taken', 'An account with this e-mail already exists. Sign in, or reset your password.');
+const emailTaken = () =>
+  new HttpError(
+    409,
+    'email_taken',
+    'An account with this e-mail already exists. Sign in, or reset your password.',
+  );
 
 export type AuthService = ReturnType<typeof createAuthService>;

@@ -9,17 +9,26 @@ type NewAnimal = typeof animals.$inferInsert;
 
 /** The collection's usual incubation window, for records of groups without their own. */
 export async function incubationDefaults(db: Db, collectionId: string) {
-  const [c] = await db.select({ minDays: collections.incubationMinDays, maxDays: collections.incubationMaxDays }).from(collections).where(eq(collections.id, collectionId));
+  const [c] = await db
+    .select({ minDays: collections.incubationMinDays, maxDays: collections.incubationMaxDays })
+    .from(collections)
+    .where(eq(collections.id, collectionId));
   return c!;
 }
 
 export async function findAnimal(db: Db, collectionId: string, animalId: string) {
-  const [a] = await db.select().from(animals).where(and(eq(animals.id, animalId), eq(animals.collectionId, collectionId)));
+  const [a] = await db
+    .select()
+    .from(animals)
+    .where(and(eq(animals.id, animalId), eq(animals.collectionId, collectionId)));
   return a ?? null;
 }
 
 export async function findSac(db: Db, collectionId: string, sacId: string) {
-  const [row] = await db.select().from(eggSacs).where(and(eq(eggSacs.id, sacId), eq(eggSacs.collectionId, collectionId)));
+  const [row] = await db
+    .select()
+    .from(eggSacs)
+    .where(and(eq(eggSacs.id, sacId), eq(eggSacs.collectionId, collectionId)));
   return row ?? null;
 }
 
@@ -33,7 +42,11 @@ export async function listSacs(db: Db, collectionId: string) {
     .orderBy(asc(eggSacs.laidOn));
   const clutches = rows.map((r) => r.sac.clutch);
   const made = clutches.length
-    ? await db.select({ clutch: animals.clutch, n: count() }).from(animals).where(and(eq(animals.collectionId, collectionId), inArray(animals.clutch, clutches))).groupBy(animals.clutch)
+    ? await db
+        .select({ clutch: animals.clutch, n: count() })
+        .from(animals)
+        .where(and(eq(animals.collectionId, collectionId), inArray(animals.clutch, clutches)))
+        .groupBy(animals.clutch)
     : [];
   const byClutch = new Map(made.map((m) => [m.clutch, m.n]));
   return rows.map((r) => ({ ...r, slingsCreated: byClutch.get(r.sac.clutch) ?? 0 }));
@@ -44,7 +57,11 @@ export async function insertSac(db: Db, values: typeof eggSacs.$inferInsert) {
   return row!;
 }
 
-export async function updateSac(db: Db, sacId: string, values: Partial<typeof eggSacs.$inferInsert>) {
+export async function updateSac(
+  db: Db,
+  sacId: string,
+  values: Partial<typeof eggSacs.$inferInsert>,
+) {
   const [row] = await db.update(eggSacs).set(values).where(eq(eggSacs.id, sacId)).returning();
   return row!;
 }
@@ -55,42 +72,91 @@ export async function setSlingCount(db: Db, sacId: string, count: number) {
 }
 
 export async function codesInCollection(db: Db, collectionId: string) {
-  return (await db.select({ code: animals.labelCode }).from(animals).where(eq(animals.collectionId, collectionId))).map((r) => r.code);
+  return (
+    await db
+      .select({ code: animals.labelCode })
+      .from(animals)
+      .where(eq(animals.collectionId, collectionId))
+  ).map((r) => r.code);
 }
 
 /** The ids of these positions on one shelf that exist already, by position. */
-export async function placesOnShelf(db: Db, collectionId: string, shelf: { room: string; rack: string; shelf: string }, positions: string[]) {
+export async function placesOnShelf(
+  db: Db,
+  collectionId: string,
+  shelf: { room: string; rack: string; shelf: string },
+  positions: string[],
+) {
   return db
     .select({ id: locations.id, position: locations.position })
     .from(locations)
-    .where(and(eq(locations.collectionId, collectionId), eq(locations.room, shelf.room), eq(locations.rack, shelf.rack), eq(locations.shelf, shelf.shelf), inArray(locations.position, positions)));
+    .where(
+      and(
+        eq(locations.collectionId, collectionId),
+        eq(locations.room, shelf.room),
+        eq(locations.rack, shelf.rack),
+        eq(locations.shelf, shelf.shelf),
+        inArray(locations.position, positions),
+      ),
+    );
 }
 
 /** New positions on one shelf at the end of the walk, in the order given. */
-export async function insertPlacesOnShelf(db: Db, collectionId: string, shelf: { room: string; rack: string; shelf: string }, positions: string[]) {
+export async function insertPlacesOnShelf(
+  db: Db,
+  collectionId: string,
+  shelf: { room: string; rack: string; shelf: string },
+  positions: string[],
+) {
   const [{ last } = { last: 0 }] = await db
     .select({ last: sql<number>`coalesce(max(${locations.walkOrder}), 0)::int` })
     .from(locations)
     .where(eq(locations.collectionId, collectionId));
   return db
     .insert(locations)
-    .values(positions.map((position, i) => ({ collectionId, ...shelf, position, walkOrder: last + i + 1 })))
+    .values(
+      positions.map((position, i) => ({
+        collectionId,
+        ...shelf,
+        position,
+        walkOrder: last + i + 1,
+      })),
+    )
     .returning({ id: locations.id, position: locations.position });
 }
 
 /** Many animals, 250 rows a statement; their ids in the order given. */
 export async function insertAnimalsReturningIds(db: Db, rows: NewAnimal[]) {
   const ids: string[] = [];
-  for (let i = 0; i < rows.length; i += 250) ids.push(...(await db.insert(animals).values(rows.slice(i, i + 250)).returning({ id: animals.id })).map((r) => r.id));
+  for (let i = 0; i < rows.length; i += 250)
+    ids.push(
+      ...(
+        await db
+          .insert(animals)
+          .values(rows.slice(i, i + 250))
+          .returning({ id: animals.id })
+      ).map((r) => r.id),
+    );
   return ids;
 }
 
-export async function setIncubation(db: Db, collectionId: string, minDays: number, maxDays: number) {
-  await db.update(collections).set({ incubationMinDays: minDays, incubationMaxDays: maxDays }).where(eq(collections.id, collectionId));
+export async function setIncubation(
+  db: Db,
+  collectionId: string,
+  minDays: number,
+  maxDays: number,
+) {
+  await db
+    .update(collections)
+    .set({ incubationMinDays: minDays, incubationMaxDays: maxDays })
+    .where(eq(collections.id, collectionId));
 }
 
 export async function sacCountOf(db: Db, femaleId: string) {
-  const [{ n } = { n: 0 }] = await db.select({ n: count() }).from(eggSacs).where(eq(eggSacs.femaleId, femaleId));
+  const [{ n } = { n: 0 }] = await db
+    .select({ n: count() })
+    .from(eggSacs)
+    .where(eq(eggSacs.femaleId, femaleId));
   return n;
 }
 
@@ -100,7 +166,12 @@ export async function sacCountOf(db: Db, femaleId: string) {
  */
 export async function liveBreedingFacts(db: Db, femaleId: string, kinds: readonly EventKind[]) {
   const rows = await db
-    .select({ id: events.id, kind: events.kind, effectiveAt: events.effectiveAt, sacId: sql<string | null>`${events.payload}->>'sacId'` })
+    .select({
+      id: events.id,
+      kind: events.kind,
+      effectiveAt: events.effectiveAt,
+      sacId: sql<string | null>`${events.payload}->>'sacId'`,
+    })
     .from(events)
     .where(
       and(

@@ -1,4 +1,12 @@
-import { breedingDatesProblem, breedingFacts, breedingModeOf, breedingRefusal, BREEDING_FACT_KINDS, RECORD_SHORT, type BreedingDates } from '#shared/domain/breeding';
+import {
+  breedingDatesProblem,
+  breedingFacts,
+  breedingModeOf,
+  breedingRefusal,
+  BREEDING_FACT_KINDS,
+  RECORD_SHORT,
+  type BreedingDates,
+} from '#shared/domain/breeding';
 import { collectionPrefix, LABEL_ALPHABET } from '#shared/domain/label-codes';
 import { addDays, instantOfKeeperDate, localDateOf } from '#shared/domain/local-dates';
 import type { EggSacBody, EggSacChange, EggSacView } from '#shared/schemas/breeding';
@@ -27,12 +35,18 @@ import {
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that egg sac.');
 
 /** `count` codes in sequence ("NL-7K3", "NL-7K4"…) that no animal of the collection has yet. */
-export function sequentialCodes(prefix: string, count: number, taken: ReadonlySet<string>, startAt: number): string[] {
+export function sequentialCodes(
+  prefix: string,
+  count: number,
+  taken: ReadonlySet<string>,
+  startAt: number,
+): string[] {
   const base = LABEL_ALPHABET.length;
   const width = Math.max(3, Math.ceil(Math.log(startAt + count * 2 + 1) / Math.log(base)));
   const code = (n: number) => {
     let body = '';
-    for (let i = 0; i < width; i++, n = Math.floor(n / base)) body = LABEL_ALPHABET[n % base] + body;
+    for (let i = 0; i < width; i++, n = Math.floor(n / base))
+      body = LABEL_ALPHABET[n % base] + body;
     return `${prefix}-${body}`;
   };
   // The first run of `count` free codes from `startAt` on.
@@ -42,15 +56,27 @@ export function sequentialCodes(prefix: string, count: number, taken: ReadonlySe
     if (clash === -1) return run;
     start += clash;
   }
-  throw new HttpError(409, 'codes_exhausted', 'No run of free label codes is long enough; create fewer slings at once.');
+  throw new HttpError(
+    409,
+    'codes_exhausted',
+    'No run of free label codes is long enough; create fewer slings at once.',
+  );
 }
 
 /**
  * `afterFacts`: today's round is brought in line once a record's facts are written (a sac laid
  * today withdraws the female's open feed task at once, R18).
  */
-export function createBreedingService(db: Db, now: () => Date, afterFacts: (collectionId: string, animalIds: string[]) => Promise<void> = async () => {}) {
-  function view(row: EggSacRow, female: { name: string; group: EggSacView['femaleGroup'] }, slingsCreated: number): EggSacView {
+export function createBreedingService(
+  db: Db,
+  now: () => Date,
+  afterFacts: (collectionId: string, animalIds: string[]) => Promise<void> = async () => {},
+) {
+  function view(
+    row: EggSacRow,
+    female: { name: string; group: EggSacView['femaleGroup'] },
+    slingsCreated: number,
+  ): EggSacView {
     return {
       id: row.id,
       kind: row.kind,
@@ -81,7 +107,11 @@ export function createBreedingService(db: Db, now: () => Date, afterFacts: (coll
   }
 
   function checkDates(record: BreedingDates, group: EggSacView['femaleGroup'], zone: string) {
-    const problem = breedingDatesProblem(record, localDateOf(now(), zone), breedingModeOf(group).words);
+    const problem = breedingDatesProblem(
+      record,
+      localDateOf(now(), zone),
+      breedingModeOf(group).words,
+    );
     if (problem) throw new HttpError(422, 'invalid', problem);
   }
 
@@ -95,23 +125,39 @@ export function createBreedingService(db: Db, now: () => Date, afterFacts: (coll
     const wanted = breedingFacts(record);
     const facts = await liveBreedingFacts(tx, record.femaleId, BREEDING_FACT_KINDS);
     // Facts written before records were named in them belong to this record when she has no other.
-    const adopt = facts.some((f) => f.sacId === null) && (await sacCountOf(tx, record.femaleId)) === 1;
+    const adopt =
+      facts.some((f) => f.sacId === null) && (await sacCountOf(tx, record.femaleId)) === 1;
     const mine = facts.filter((f) => f.sacId === record.id || (adopt && f.sacId === null));
     const kept = new Set<string>();
     const missing = wanted.filter((w) => {
-      const match = mine.find((f) => !kept.has(f.id) && f.kind === w.kind && localDateOf(f.effectiveAt, zone) === w.date);
+      const match = mine.find(
+        (f) => !kept.has(f.id) && f.kind === w.kind && localDateOf(f.effectiveAt, zone) === w.date,
+      );
       if (match) kept.add(match.id);
       return !match;
     });
     const stale = mine.filter((f) => !kept.has(f.id));
     const at = now();
-    const base = { collectionId: record.collectionId, animalId: record.femaleId, recordedBy: userId };
+    const base = {
+      collectionId: record.collectionId,
+      animalId: record.femaleId,
+      recordedBy: userId,
+    };
     await recordEvents(
       tx,
       { collectionId: record.collectionId, timeZone: zone },
       [
-        ...stale.map((f) => ({ ...base, kind: 'void' as const, payload: { targetId: f.id, note: 'The record’s date changed.' } })),
-        ...missing.map((w) => ({ ...base, kind: w.kind, payload: { sacId: record.id }, effectiveAt: instantOfKeeperDate(w.date, zone, at) })),
+        ...stale.map((f) => ({
+          ...base,
+          kind: 'void' as const,
+          payload: { targetId: f.id, note: 'The record’s date changed.' },
+        })),
+        ...missing.map((w) => ({
+          ...base,
+          kind: w.kind,
+          payload: { sacId: record.id },
+          effectiveAt: instantOfKeeperDate(w.date, zone, at),
+        })),
       ],
       { from: 'server', at },
     );
@@ -119,7 +165,9 @@ export function createBreedingService(db: Db, now: () => Date, afterFacts: (coll
 
   return {
     async list(collectionId: string): Promise<EggSacView[]> {
-      return (await listSacs(db, collectionId)).map((r) => view(r.sac, { name: r.female, group: r.group }, r.slingsCreated));
+      return (await listSacs(db, collectionId)).map((r) =>
+        view(r.sac, { name: r.female, group: r.group }, r.slingsCreated),
+      );
     },
 
     async setIncubation(collectionId: string, minDays: number, maxDays: number) {
@@ -139,7 +187,11 @@ export function createBreedingService(db: Db, now: () => Date, afterFacts: (coll
       if (refusal) throw new HttpError(422, 'invalid', refusal);
       const mode = breedingModeOf(female.group);
       const kind = mode.record!;
-      checkDates({ kind, laidOn: body.laidOn, pulledOn: null, hatchedOn: null, dispersedOn: null }, female.group, c.timeZone);
+      checkDates(
+        { kind, laidOn: body.laidOn, pulledOn: null, hatchedOn: null, dispersedOn: null },
+        female.group,
+        c.timeZone,
+      );
       const window = body.incubation ?? mode.window ?? (await incubationDefaults(db, collectionId));
       const row = await db.transaction(async (tx) => {
         const inserted = await insertSac(tx, {
@@ -172,7 +224,12 @@ export function createBreedingService(db: Db, now: () => Date, afterFacts: (coll
       const { incubation, ...rest } = body;
       checkDates({ ...sac, ...rest }, female.group, c.timeZone);
       await db.transaction(async (tx) => {
-        const values = { ...rest, ...(incubation ? { incubationMinDays: incubation.minDays, incubationMaxDays: incubation.maxDays } : {}) };
+        const values = {
+          ...rest,
+          ...(incubation
+            ? { incubationMinDays: incubation.minDays, incubationMaxDays: incubation.maxDays }
+            : {}),
+        };
         const updated = Object.keys(values).length ? await updateSac(tx, sac.id, values) : sac;
         await syncFacts(tx, updated, c.timeZone, userId);
       });
@@ -183,7 +240,18 @@ export function createBreedingService(db: Db, now: () => Date, afterFacts: (coll
      * The clutch potted up: `count` slings in one transaction — all or none — numbered in
      * sequence, codes in sequence, one place each along the tray from `firstPosition`.
      */
-    async createSlings(c: MemberCollection, sacId: string, body: { count: number; namePrefix: string; room: string; rack: string; shelf: string; firstPosition: number }): Promise<string[]> {
+    async createSlings(
+      c: MemberCollection,
+      sacId: string,
+      body: {
+        count: number;
+        namePrefix: string;
+        room: string;
+        rack: string;
+        shelf: string;
+        firstPosition: number;
+      },
+    ): Promise<string[]> {
       const { collectionId } = c;
       const sac = await sacOf(collectionId, sacId);
       return db.transaction(async (tx) => {
@@ -191,11 +259,17 @@ export function createBreedingService(db: Db, now: () => Date, afterFacts: (coll
         const taken = new Set(await codesInCollection(tx, collectionId));
         const prefix = collectionPrefix(c.collectionName, [...taken]);
         const codes = sequentialCodes(prefix, body.count, taken, Math.floor(Math.random() * 1000));
-        const positions = Array.from({ length: body.count }, (_, i) => String(body.firstPosition + i));
+        const positions = Array.from({ length: body.count }, (_, i) =>
+          String(body.firstPosition + i),
+        );
         const shelf = { room: body.room, rack: body.rack, shelf: body.shelf };
-        const place = new Map((await placesOnShelf(tx, collectionId, shelf, positions)).map((l) => [l.position, l.id]));
+        const place = new Map(
+          (await placesOnShelf(tx, collectionId, shelf, positions)).map((l) => [l.position, l.id]),
+        );
         const missing = positions.filter((p) => !place.has(p));
-        if (missing.length) for (const l of await insertPlacesOnShelf(tx, collectionId, shelf, missing)) place.set(l.position, l.id);
+        if (missing.length)
+          for (const l of await insertPlacesOnShelf(tx, collectionId, shelf, missing))
+            place.set(l.position, l.id);
         const width = String(body.firstPosition + body.count - 1).length;
         const rows = positions.map((position, i) => ({
           collectionId,

@@ -26,13 +26,34 @@ export async function listMembers(db: Db, collectionId: string) {
 /** Keeper invites not yet accepted and still usable, oldest first. */
 export async function listOpenKeeperInvites(db: Db, collectionId: string, now: Date) {
   return db
-    .select({ id: invites.id, email: invites.email, sentAt: invites.createdAt, expiresAt: invites.expiresAt })
+    .select({
+      id: invites.id,
+      email: invites.email,
+      sentAt: invites.createdAt,
+      expiresAt: invites.expiresAt,
+    })
     .from(invites)
-    .where(and(eq(invites.collectionId, collectionId), eq(invites.role, 'keeper'), isNull(invites.acceptedAt), gt(invites.expiresAt, now)))
+    .where(
+      and(
+        eq(invites.collectionId, collectionId),
+        eq(invites.role, 'keeper'),
+        isNull(invites.acceptedAt),
+        gt(invites.expiresAt, now),
+      ),
+    )
     .orderBy(asc(invites.createdAt));
 }
 
-export async function insertKeeperInvite(db: Db, values: { collectionId: string; email: string; tokenHash: string; expiresAt: Date; invitedBy: string }) {
+export async function insertKeeperInvite(
+  db: Db,
+  values: {
+    collectionId: string;
+    email: string;
+    tokenHash: string;
+    expiresAt: Date;
+    invitedBy: string;
+  },
+) {
   await db.insert(invites).values({ ...values, role: 'keeper' });
 }
 

@@ -1,13 +1,22 @@
 import { Router, type RequestHandler } from 'express';
 import type { Role } from '#shared/domain/roles';
-import { addMemberBody, deleteCollectionBody, memberParams, type DeleteCollectionBody } from '#shared/schemas/collections';
+import {
+  addMemberBody,
+  deleteCollectionBody,
+  memberParams,
+  type DeleteCollectionBody,
+} from '#shared/schemas/collections';
 import { currentUserId } from '../../middleware/auth';
 import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';
 import type { CollectionsService } from './collections.service';
 
 /** `inviteLimit` counts invites per collection; it runs after the membership and body checks. */
-export function collectionsRoutes(service: CollectionsService, member: (min: Role) => RequestHandler, inviteLimit: RequestHandler) {
+export function collectionsRoutes(
+  service: CollectionsService,
+  member: (min: Role) => RequestHandler,
+  inviteLimit: RequestHandler,
+) {
   const router = Router({ mergeParams: true });
 
   router.get('/', member('helper'), (_req, res) => {
@@ -16,19 +25,41 @@ export function collectionsRoutes(service: CollectionsService, member: (min: Rol
   });
 
   // Only an owner, and only with the collection's name typed out (the app offers the backup first).
-  router.delete('/', member('owner'), validate({ body: deleteCollectionBody }), async (_req, res) => {
-    await service.deleteCollection(membershipOf(res), input<DeleteCollectionBody>(res, 'body').confirmName);
-    res.status(204).end();
-  });
+  router.delete(
+    '/',
+    member('owner'),
+    validate({ body: deleteCollectionBody }),
+    async (_req, res) => {
+      await service.deleteCollection(
+        membershipOf(res),
+        input<DeleteCollectionBody>(res, 'body').confirmName,
+      );
+      res.status(204).end();
+    },
+  );
 
   router.get('/members', member('owner'), async (_req, res) => {
     res.json(await service.members(membershipOf(res).collectionId));
   });
 
   // An invite, never an addition: the person joins by accepting it (decision 012).
-  router.post('/members', member('owner'), validate({ body: addMemberBody }), inviteLimit, async (req, res) => {
-    res.status(202).json(await service.inviteKeeper(membershipOf(res), currentUserId(req), input<{ email: string }>(res, 'body').email));
-  });
+  router.post(
+    '/members',
+    member('owner'),
+    validate({ body: addMemberBody }),
+    inviteLimit,
+    async (req, res) => {
+      res
+        .status(202)
+        .json(
+          await service.inviteKeeper(
+            membershipOf(res),
+            currentUserId(req),
+            input<{ email: string }>(res, 'body').email,
+          ),
+        );
+    },
+  );
 
   // A keeper may leave; helpers leave their cover at /cover/mine.
   router.delete('/membership', member('keeper'), async (req, res) => {
@@ -37,11 +68,16 @@ export function collectionsRoutes(service: CollectionsService, member: (min: Rol
     res.status(204).end();
   });
 
-  router.delete('/members/:userId', member('owner'), validate({ params: memberParams }), async (req, res) => {
-    const { userId } = input<{ userId: string }>(res, 'params');
-    await service.removeMember(membershipOf(res).collectionId, userId, currentUserId(req));
-    res.status(204).end();
-  });
+  router.delete(
+    '/members/:userId',
+    member('owner'),
+    validate({ params: memberParams }),
+    async (req, res) => {
+      const { userId } = input<{ userId: string }>(res, 'params');
+      await service.removeMember(membershipOf(res).collectionId, userId, currentUserId(req));
+      res.status(204).end();
+    },
+  );
 
   return router;
 }

@@ -5,7 +5,13 @@ import type { Background } from '../../background';
 import type { Db } from '../../db/client';
 import type { Mailer } from '../../mail/mailer';
 import { HttpError } from '../../middleware/errors';
-import { deleteCollectionRows, deleteMembership, insertKeeperInvite, listMembers, listOpenKeeperInvites } from './collections.repository';
+import {
+  deleteCollectionRows,
+  deleteMembership,
+  insertKeeperInvite,
+  listMembers,
+  listOpenKeeperInvites,
+} from './collections.repository';
 
 interface Deps {
   mailer: Mailer;
@@ -23,8 +29,17 @@ export function createCollectionsService(db: Db, deps: Deps) {
       const rows = await listMembers(db, collectionId);
       const waiting = await listOpenKeeperInvites(db, collectionId, deps.now());
       return {
-        members: rows.map((m) => ({ ...m, startsAt: m.startsAt?.toISOString() ?? null, endsAt: m.endsAt?.toISOString() ?? null })),
-        invites: waiting.map((i) => ({ id: i.id, email: i.email, sentAt: i.sentAt.toISOString(), expiresAt: i.expiresAt.toISOString() })),
+        members: rows.map((m) => ({
+          ...m,
+          startsAt: m.startsAt?.toISOString() ?? null,
+          endsAt: m.endsAt?.toISOString() ?? null,
+        })),
+        invites: waiting.map((i) => ({
+          id: i.id,
+          email: i.email,
+          sentAt: i.sentAt.toISOString(),
+          expiresAt: i.expiresAt.toISOString(),
+        })),
       };
     },
 
@@ -36,9 +51,20 @@ export function createCollectionsService(db: Db, deps: Deps) {
     async inviteKeeper(c: MemberCollection, invitedBy: string, email: string) {
       const role = await roleOfEmail(db, c.collectionId, email);
       // The owner can see the member list anyway: this tells them nothing new.
-      if (role === 'keeper' || role === 'owner') throw new HttpError(409, 'already_member', 'That person is already a member of this collection.');
+      if (role === 'keeper' || role === 'owner')
+        throw new HttpError(
+          409,
+          'already_member',
+          'That person is already a member of this collection.',
+        );
       const { token, tokenHash } = newInviteToken();
-      await insertKeeperInvite(db, { collectionId: c.collectionId, email, tokenHash, expiresAt: new Date(deps.now().getTime() + INVITE_LIFETIME_MS), invitedBy });
+      await insertKeeperInvite(db, {
+        collectionId: c.collectionId,
+        email,
+        tokenHash,
+        expiresAt: new Date(deps.now().getTime() + INVITE_LIFETIME_MS),
+        invitedBy,
+      });
       deps.background.run('keeper invite mail', async () => {
         const from = (await displayNameOf(db, invitedBy)) ?? 'A keeper';
         await deps.mailer.send({
@@ -67,7 +93,12 @@ export function createCollectionsService(db: Db, deps: Deps) {
     async deleteCollection(c: MemberCollection, confirmName: string) {
       const name = c.collectionName;
       if (confirmName.normalize('NFC') !== name.trim().normalize('NFC')) {
-        throw new HttpError(422, 'invalid', `Type the collection’s name exactly as it is shown (“${name}”) to delete it.`, [{ path: 'body.confirmName', message: 'This is not the collection’s name.' }]);
+        throw new HttpError(
+          422,
+          'invalid',
+          `Type the collection’s name exactly as it is shown (“${name}”) to delete it.`,
+          [{ path: 'body.confirmName', message: 'This is not the collection’s name.' }],
+        );
       }
       await deleteCollectionRows(db, c.collectionId);
       await deps.removeFiles(c.collectionId);
@@ -75,7 +106,11 @@ export function createCollectionsService(db: Db, deps: Deps) {
 
     async removeMember(collectionId: string, userId: string, actingUserId: string) {
       if (userId === actingUserId) {
-        throw new HttpError(409, 'owner_stays', 'An owner cannot remove themselves from their own collection.');
+        throw new HttpError(
+          409,
+          'owner_stays',
+          'An owner cannot remove themselves from their own collection.',
+        );
       }
       if (!(await deleteMembership(db, collectionId, userId))) {
         throw new HttpError(404, 'not_found', 'That person is not a member of this collection.');
@@ -84,7 +119,8 @@ export function createCollectionsService(db: Db, deps: Deps) {
 
     /** A keeper steps out of someone else's collection; the owner stays with their own. */
     async leave(collectionId: string, userId: string, role: string) {
-      if (role === 'owner') throw new HttpError(409, 'owner_stays', 'An owner cannot leave their own collection.');
+      if (role === 'owner')
+        throw new HttpError(409, 'owner_stays', 'An owner cannot leave their own collection.');
       await deleteMembership(db, collectionId, userId);
     },
   };

@@ -8,7 +8,13 @@ import type { Db } from '../../db/client';
 import type { Mailer } from '../../mail/mailer';
 import { HttpError } from '../../middleware/errors';
 import { coverState, coverWindow, daysOf } from './cover-days';
-import { findCoverInvite, insertCoverInvite, listCoverInvites, updateHelperMembership, updateInvite } from './cover.repository';
+import {
+  findCoverInvite,
+  insertCoverInvite,
+  listCoverInvites,
+  updateHelperMembership,
+  updateInvite,
+} from './cover.repository';
 
 export interface CoverArrangementDeps {
   mailer: Mailer;
@@ -27,7 +33,14 @@ export function createCoverArrangements(db: Db, deps: CoverArrangementDeps) {
     return row;
   }
 
-  async function mailInvite(to: string, token: string, collectionName: string, from: string, days: { firstDay: LocalDate; lastDay: LocalDate }, message: string | null) {
+  async function mailInvite(
+    to: string,
+    token: string,
+    collectionName: string,
+    from: string,
+    days: { firstDay: LocalDate; lastDay: LocalDate },
+    message: string | null,
+  ) {
     await deps.mailer.send({
       to,
       subject: `${from} asks you to cover the feeds at ${collectionName}`,
@@ -53,14 +66,40 @@ export function createCoverArrangements(db: Db, deps: CoverArrangementDeps) {
      * work and answer whether or not the address has an account (decision 012); the e-mail
      * goes after the answer.
      */
-    async create(c: MemberCollection, invitedBy: string, body: { email: string; firstDay: LocalDate; lastDay: LocalDate; message: string }) {
+    async create(
+      c: MemberCollection,
+      invitedBy: string,
+      body: { email: string; firstDay: LocalDate; lastDay: LocalDate; message: string },
+    ) {
       const role = await roleOfEmail(db, c.collectionId, body.email);
-      if (role && role !== 'helper') throw new HttpError(409, 'already_member', 'That person already keeps this collection with you; no cover is needed.');
+      if (role && role !== 'helper')
+        throw new HttpError(
+          409,
+          'already_member',
+          'That person already keeps this collection with you; no cover is needed.',
+        );
       const { startsAt, endsAt } = coverWindow(body.firstDay, body.lastDay, c.timeZone);
-      if (endsAt <= deps.now()) throw new HttpError(422, 'invalid', 'That cover would already be over. Choose days from today on.', [{ path: 'lastDay', message: 'Choose days from today on.' }]);
+      if (endsAt <= deps.now())
+        throw new HttpError(
+          422,
+          'invalid',
+          'That cover would already be over. Choose days from today on.',
+          [{ path: 'lastDay', message: 'Choose days from today on.' }],
+        );
       const { token, tokenHash } = newInviteToken();
-      const expiresAt = new Date(Math.min(deps.now().getTime() + INVITE_LIFETIME_MS, endsAt.getTime()));
-      const id = await insertCoverInvite(db, { collectionId: c.collectionId, email: body.email, tokenHash, message: body.message || null, startsAt, endsAt, expiresAt, invitedBy });
+      const expiresAt = new Date(
+        Math.min(deps.now().getTime() + INVITE_LIFETIME_MS, endsAt.getTime()),
+      );
+      const id = await insertCoverInvite(db, {
+        collectionId: c.collectionId,
+        email: body.email,
+        tokenHash,
+        message: body.message || null,
+        startsAt,
+        endsAt,
+        expiresAt,
+        invitedBy,
+      });
       deps.background.run('cover invite mail', async () => {
         const from = (await displayNameOf(db, invitedBy)) ?? 'A keeper';
         await mailInvite(body.email, token, c.collectionName, from, body, body.message || null);
@@ -83,12 +122,21 @@ export function createCoverArrangements(db: Db, deps: CoverArrangementDeps) {
     },
 
     /** New days or message; the helper's access follows at once (a cover ended early reopens). */
-    async change(c: MemberCollection, coverId: string, body: { firstDay: LocalDate; lastDay: LocalDate; message: string }) {
+    async change(
+      c: MemberCollection,
+      coverId: string,
+      body: { firstDay: LocalDate; lastDay: LocalDate; message: string },
+    ) {
       const invite = await coverOf(c.collectionId, coverId);
       const { startsAt, endsAt } = coverWindow(body.firstDay, body.lastDay, c.timeZone);
       await db.transaction(async (tx) => {
         await updateInvite(tx, invite.id, { startsAt, endsAt, message: body.message || null });
-        if (invite.acceptedBy) await updateHelperMembership(tx, c.collectionId, invite.acceptedBy, { startsAt, endsAt, writesClosedAt: null });
+        if (invite.acceptedBy)
+          await updateHelperMembership(tx, c.collectionId, invite.acceptedBy, {
+            startsAt,
+            endsAt,
+            writesClosedAt: null,
+          });
       });
     },
 
@@ -102,7 +150,11 @@ export function createCoverArrangements(db: Db, deps: CoverArrangementDeps) {
       const now = deps.now();
       await db.transaction(async (tx) => {
         await updateInvite(tx, invite.id, { endsAt: now, expiresAt: now });
-        if (invite.acceptedBy) await updateHelperMembership(tx, collectionId, invite.acceptedBy, { endsAt: now, writesClosedAt: now });
+        if (invite.acceptedBy)
+          await updateHelperMembership(tx, collectionId, invite.acceptedBy, {
+            endsAt: now,
+            writesClosedAt: now,
+          });
       });
     },
   };

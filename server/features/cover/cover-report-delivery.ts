@@ -14,7 +14,12 @@ const RETRY_DAYS = 7;
  * E-mails every report not yet accepted by the mail server, to each owner still waiting for
  * it (the lock-send-mark pattern of withUnsentReport); the number now sent to everyone.
  */
-export async function deliverReports(db: Db, mailer: Mailer, logger: Logger | undefined, now: Date): Promise<number> {
+export async function deliverReports(
+  db: Db,
+  mailer: Mailer,
+  logger: Logger | undefined,
+  now: Date,
+): Promise<number> {
   let sent = 0;
   for (const { id } of await unsentReports(db, new Date(now.getTime() - RETRY_DAYS * 86_400_000))) {
     const done = await withUnsentReport(
@@ -27,7 +32,10 @@ export async function deliverReports(db: Db, mailer: Mailer, logger: Logger | un
             await mailer.send({ to, subject: report.subject, text: report.body });
             sentTo.add(to);
           } catch (err) {
-            logger?.warn({ err, reportId: report.id, collectionId: report.collectionId }, 'cover report not accepted by the mail server; retried on the next run');
+            logger?.warn(
+              { err, reportId: report.id, collectionId: report.collectionId },
+              'cover report not accepted by the mail server; retried on the next run',
+            );
             return { sentTo: [...sentTo], done: false };
           }
         }

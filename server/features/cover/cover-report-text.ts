@@ -1,10 +1,20 @@
 import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
-import { addDays, clockTime, describeLocalDate, startOfLocalDate, type LocalDate } from '#shared/domain/local-dates';
+import {
+  addDays,
+  clockTime,
+  describeLocalDate,
+  startOfLocalDate,
+  type LocalDate,
+} from '#shared/domain/local-dates';
 import type { AnimalState } from '#shared/domain/rounds/animal-state';
 import { countsForProgress } from '#shared/domain/rounds/settle';
 import type { Db } from '../../db/client';
 import type { RoundsService } from '../rounds/rounds.service';
-import { activeAnimalStates, eventsBetween, type ReportCollection } from './cover-reports.repository';
+import {
+  activeAnimalStates,
+  eventsBetween,
+  type ReportCollection,
+} from './cover-reports.repository';
 
 export interface CoverDays {
   firstDay: LocalDate;
@@ -15,16 +25,27 @@ export interface CoverDays {
  * The words of one covered day's report: what was fed, refused, skipped and noted, what needs
  * attention and, on the cover's last day, a summary of the whole cover.
  */
-export function createReportText(db: Db, deps: { rounds: RoundsService; publicUrl: (path: string) => string }) {
+export function createReportText(
+  db: Db,
+  deps: { rounds: RoundsService; publicUrl: (path: string) => string },
+) {
   /** The facts of [from, to) that no undo has cancelled. */
   async function factsBetween(c: ReportCollection, from: Date, to: Date) {
     const rows = await eventsBetween(db, c.id, from, to);
-    const voided = new Set(rows.filter((r) => r.kind === 'void').map((r) => (r.payload as { targetId?: string }).targetId));
+    const voided = new Set(
+      rows
+        .filter((r) => r.kind === 'void')
+        .map((r) => (r.payload as { targetId?: string }).targetId),
+    );
     return rows.filter((r) => r.kind !== 'void' && !voided.has(r.id));
   }
 
   return async function reportFor(c: ReportCollection, day: LocalDate, cover: CoverDays) {
-    const facts = await factsBetween(c, startOfLocalDate(day, c.timeZone), startOfLocalDate(addDays(day, 1), c.timeZone));
+    const facts = await factsBetween(
+      c,
+      startOfLocalDate(day, c.timeZone),
+      startOfLocalDate(addDays(day, 1), c.timeZone),
+    );
     const line = (f: (typeof facts)[number]) => {
       const p = f.payload as { text?: string; note?: string };
       const detail = p.text ?? p.note;
@@ -37,22 +58,40 @@ export function createReportText(db: Db, deps: { rounds: RoundsService; publicUr
     const others = facts.filter((f) => !['ate', 'refused', 'skipped', 'note'].includes(f.kind));
 
     const round = await deps.rounds.round(c.id, day);
-    const missed = round.items.filter((i) => i.tasks.some((t) => countsForProgress(t.kind) && !t.done));
+    const missed = round.items.filter((i) =>
+      i.tasks.some((t) => countsForProgress(t.kind) && !t.done),
+    );
     const twice = round.items.filter((i) => i.warnings.length > 0);
     const states = await activeAnimalStates(db, c.id);
     const streaks = states.filter((s) => (s.state as AnimalState).refusalStreak >= 2);
     const preyIn = states.filter((s) => (s.state as AnimalState).preyLeftIn !== null);
     const attention = [
-      ...missed.map((i) => `- Not done: ${i.animal.name} (${i.animal.labelCode}) — ${i.tasks.filter((t) => countsForProgress(t.kind) && !t.done).map((t) => t.kind.replace('_', ' ')).join(', ')}`),
-      ...streaks.map((s) => `- Refused ${(s.state as AnimalState).refusalStreak} times in a row: ${s.name} (${s.code}) — possible premolt`),
-      ...preyIn.map((s) => `- Prey still inside: ${s.name} (${s.code}) since ${describeLocalDate((s.state as AnimalState).preyLeftIn!.since)}`),
+      ...missed.map(
+        (i) =>
+          `- Not done: ${i.animal.name} (${i.animal.labelCode}) — ${i.tasks
+            .filter((t) => countsForProgress(t.kind) && !t.done)
+            .map((t) => t.kind.replace('_', ' '))
+            .join(', ')}`,
+      ),
+      ...streaks.map(
+        (s) =>
+          `- Refused ${(s.state as AnimalState).refusalStreak} times in a row: ${s.name} (${s.code}) — possible premolt`,
+      ),
+      ...preyIn.map(
+        (s) =>
+          `- Prey still inside: ${s.name} (${s.code}) since ${describeLocalDate((s.state as AnimalState).preyLeftIn!.since)}`,
+      ),
       ...twice.map((i) => `- ${i.animal.name} (${i.animal.labelCode}): ${i.warnings.join(' ')}`),
     ];
 
     const last = day === cover.lastDay;
     const summary: string[] = [];
     if (last) {
-      const all = await factsBetween(c, startOfLocalDate(cover.firstDay, c.timeZone), startOfLocalDate(addDays(cover.lastDay, 1), c.timeZone));
+      const all = await factsBetween(
+        c,
+        startOfLocalDate(cover.firstDay, c.timeZone),
+        startOfLocalDate(addDays(cover.lastDay, 1), c.timeZone),
+      );
       const counts = new Map<string, number>();
       for (const f of all) counts.set(f.kind, (counts.get(f.kind) ?? 0) + 1);
       summary.push(
@@ -70,8 +109,16 @@ export function createReportText(db: Db, deps: { rounds: RoundsService; publicUr
       ...section('Refused', ['refused']),
       ...section('Skipped', ['skipped']),
       ...section('Notes', ['note']),
-      ...(others.length ? [`Also recorded (${others.length})`, ...others.map((f) => `${line(f)} — ${EVENT_WORDS[f.kind as EventKind] ?? f.kind}`), ''] : []),
-      ...(attention.length ? ['Needs attention', ...attention, ''] : ['Nothing needs attention.', '']),
+      ...(others.length
+        ? [
+            `Also recorded (${others.length})`,
+            ...others.map((f) => `${line(f)} — ${EVENT_WORDS[f.kind as EventKind] ?? f.kind}`),
+            '',
+          ]
+        : []),
+      ...(attention.length
+        ? ['Needs attention', ...attention, '']
+        : ['Nothing needs attention.', '']),
       ...summary,
       `Today's round and history: ${deps.publicUrl('/today')}`,
     ].join('\n');

@@ -24,20 +24,46 @@ export interface ReportCollection {
 /** Helpers' covers that began before `now` and ended after `endedAfter`, with their collection. */
 export async function coversSince(db: Db, now: Date, endedAfter: Date) {
   return db
-    .select({ c: { id: collections.id, name: collections.name, timeZone: collections.timeZone }, startsAt: memberships.startsAt, endsAt: memberships.endsAt })
+    .select({
+      c: { id: collections.id, name: collections.name, timeZone: collections.timeZone },
+      startsAt: memberships.startsAt,
+      endsAt: memberships.endsAt,
+    })
     .from(memberships)
     .innerJoin(collections, eq(collections.id, memberships.collectionId))
-    .where(and(eq(memberships.role, 'helper'), isNotNull(memberships.startsAt), isNotNull(memberships.endsAt), lt(memberships.startsAt, now), sql`${memberships.endsAt} > ${endedAfter}`));
+    .where(
+      and(
+        eq(memberships.role, 'helper'),
+        isNotNull(memberships.startsAt),
+        isNotNull(memberships.endsAt),
+        lt(memberships.startsAt, now),
+        sql`${memberships.endsAt} > ${endedAfter}`,
+      ),
+    );
 }
 
 /** A collection's events in [from, to), oldest first, with their animal and who recorded them. */
 export async function eventsBetween(db: Db, collectionId: string, from: Date, to: Date) {
   return db
-    .select({ id: events.id, kind: events.kind, payload: events.payload, at: events.effectiveAt, animal: animals.name, code: animals.labelCode, by: users.displayName })
+    .select({
+      id: events.id,
+      kind: events.kind,
+      payload: events.payload,
+      at: events.effectiveAt,
+      animal: animals.name,
+      code: animals.labelCode,
+      by: users.displayName,
+    })
     .from(events)
     .innerJoin(animals, eq(animals.id, events.animalId))
     .leftJoin(users, eq(users.id, events.recordedBy))
-    .where(and(eq(events.collectionId, collectionId), gte(events.effectiveAt, from), lt(events.effectiveAt, to)))
+    .where(
+      and(
+        eq(events.collectionId, collectionId),
+        gte(events.effectiveAt, from),
+        lt(events.effectiveAt, to),
+      ),
+    )
     .orderBy(asc(events.effectiveAt));
 }
 
@@ -55,7 +81,11 @@ export async function activeAnimalStates(db: Db, collectionId: string) {
  * it already. Another process claiming the same day waits on the unique key, then finds it taken.
  */
 export async function claimReport(db: Db, collectionId: string, day: LocalDate, createdAt: Date) {
-  const claimed = await db.insert(coverReports).values({ collectionId, localDate: day, subject: '', body: '', createdAt }).onConflictDoNothing().returning({ id: coverReports.id });
+  const claimed = await db
+    .insert(coverReports)
+    .values({ collectionId, localDate: day, subject: '', body: '', createdAt })
+    .onConflictDoNothing()
+    .returning({ id: coverReports.id });
   return claimed[0]?.id ?? null;
 }
 
@@ -65,7 +95,12 @@ export async function writeReport(db: Db, id: string, report: { subject: string;
 
 /** A collection's latest reports (the last 60 days at most), newest first. */
 export async function latestReports(db: Db, collectionId: string) {
-  return db.select().from(coverReports).where(eq(coverReports.collectionId, collectionId)).orderBy(desc(coverReports.localDate)).limit(60);
+  return db
+    .select()
+    .from(coverReports)
+    .where(eq(coverReports.collectionId, collectionId))
+    .orderBy(desc(coverReports.localDate))
+    .limit(60);
 }
 
 /** Reports made (subject written) but not yet accepted by the mail server for every owner. */
@@ -73,7 +108,13 @@ export async function unsentReports(db: Db, madeSince: Date): Promise<{ id: stri
   return db
     .select({ id: coverReports.id })
     .from(coverReports)
-    .where(and(isNull(coverReports.sentAt), ne(coverReports.subject, ''), gte(coverReports.createdAt, madeSince)))
+    .where(
+      and(
+        isNull(coverReports.sentAt),
+        ne(coverReports.subject, ''),
+        gte(coverReports.createdAt, madeSince),
+      ),
+    )
     .orderBy(asc(coverReports.createdAt));
 }
 
@@ -91,7 +132,13 @@ export async function withUnsentReport(
 ): Promise<boolean> {
   return db.transaction(async (tx) => {
     const [row] = await tx
-      .select({ id: coverReports.id, collectionId: coverReports.collectionId, subject: coverReports.subject, body: coverReports.body, sentTo: coverReports.sentTo })
+      .select({
+        id: coverReports.id,
+        collectionId: coverReports.collectionId,
+        subject: coverReports.subject,
+        body: coverReports.body,
+        sentTo: coverReports.sentTo,
+      })
       .from(coverReports)
       .where(and(eq(coverReports.id, id), isNull(coverReports.sentAt)))
       .for('update', { skipLocked: true });
@@ -100,9 +147,17 @@ export async function withUnsentReport(
       .select({ email: users.email })
       .from(memberships)
       .innerJoin(users, eq(users.id, memberships.userId))
-      .where(and(eq(memberships.collectionId, row.collectionId), inArray(memberships.role, ['owner'])));
-    const result = await send(row, owners.map((o) => o.email));
-    await tx.update(coverReports).set({ sentTo: result.sentTo, sentAt: result.done ? now : null }).where(eq(coverReports.id, id));
+      .where(
+        and(eq(memberships.collectionId, row.collectionId), inArray(memberships.role, ['owner'])),
+      );
+    const result = await send(
+      row,
+      owners.map((o) => o.email),
+    );
+    await tx
+      .update(coverReports)
+      .set({ sentTo: result.sentTo, sentAt: result.done ? now : null })
+      .where(eq(coverReports.id, id));
     return result.done;
   });
 }

@@ -5,7 +5,13 @@ import type { Mailer } from '../../mail/mailer';
 import type { RoundsService } from '../rounds/rounds.service';
 import { deliverReports } from './cover-report-delivery';
 import { createReportText, type CoverDays } from './cover-report-text';
-import { claimReport, coversSince, latestReports, writeReport, type ReportCollection } from './cover-reports.repository';
+import {
+  claimReport,
+  coversSince,
+  latestReports,
+  writeReport,
+  type ReportCollection,
+} from './cover-reports.repository';
 
 /** Reports are made for days that ended in the last three days (a server that was down catches up). */
 const CATCH_UP_DAYS = 3;
@@ -35,7 +41,12 @@ export function createCoverReportsService(db: Db, deps: Deps) {
   const reportFor = createReportText(db, deps);
 
   /** Writes each covered day's report once it has ended; true for the (collection, day) this run made. */
-  async function make(c: ReportCollection, day: LocalDate, cover: CoverDays, now: Date): Promise<boolean> {
+  async function make(
+    c: ReportCollection,
+    day: LocalDate,
+    cover: CoverDays,
+    now: Date,
+  ): Promise<boolean> {
     // Claimed and written in one transaction: a failed build leaves no empty claim behind.
     return db.transaction(async (tx) => {
       // Made "now" on the app's clock, which also bounds its retries (deliverReports).
@@ -66,7 +77,10 @@ export function createCoverReportsService(db: Db, deps: Deps) {
             await make(c, day, { firstDay, lastDay }, now);
           } catch (err) {
             // One collection's failure does not hold back the others' reports; the next run retries it.
-            deps.logger?.error({ err, collectionId: c.id, localDate: day }, 'cover report could not be made');
+            deps.logger?.error(
+              { err, collectionId: c.id, localDate: day },
+              'cover report could not be made',
+            );
           }
         }
       }
@@ -75,7 +89,14 @@ export function createCoverReportsService(db: Db, deps: Deps) {
 
     async list(collectionId: string): Promise<CoverReportView[]> {
       const rows = await latestReports(db, collectionId);
-      return rows.filter((r) => r.subject).map((r) => ({ localDate: r.localDate, subject: r.subject, body: r.body, createdAt: r.createdAt.toISOString() }));
+      return rows
+        .filter((r) => r.subject)
+        .map((r) => ({
+          localDate: r.localDate,
+          subject: r.subject,
+          body: r.body,
+          createdAt: r.createdAt.toISOString(),
+        }));
     },
   };
 }

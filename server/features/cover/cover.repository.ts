@@ -10,38 +10,84 @@ export type InviteRow = typeof invites.$inferSelect;
 
 export async function insertCoverInvite(
   db: Db,
-  values: { collectionId: string; email: string; tokenHash: string; message: string | null; startsAt: Date; endsAt: Date; expiresAt: Date; invitedBy: string },
+  values: {
+    collectionId: string;
+    email: string;
+    tokenHash: string;
+    message: string | null;
+    startsAt: Date;
+    endsAt: Date;
+    expiresAt: Date;
+    invitedBy: string;
+  },
 ) {
-  const [row] = await db.insert(invites).values({ ...values, role: 'helper' }).returning({ id: invites.id });
+  const [row] = await db
+    .insert(invites)
+    .values({ ...values, role: 'helper' })
+    .returning({ id: invites.id });
   return row!.id;
 }
 
 /** A collection's covers, newest first, with the helper who accepted and when they read the safety notes. */
 export async function listCoverInvites(db: Db, collectionId: string) {
   return db
-    .select({ invite: invites, helperName: users.displayName, ack: memberships.safetyAcknowledgedAt })
+    .select({
+      invite: invites,
+      helperName: users.displayName,
+      ack: memberships.safetyAcknowledgedAt,
+    })
     .from(invites)
     .leftJoin(users, eq(users.id, invites.acceptedBy))
-    .leftJoin(memberships, and(eq(memberships.collectionId, invites.collectionId), eq(memberships.userId, invites.acceptedBy)))
+    .leftJoin(
+      memberships,
+      and(
+        eq(memberships.collectionId, invites.collectionId),
+        eq(memberships.userId, invites.acceptedBy),
+      ),
+    )
     .where(and(eq(invites.collectionId, collectionId), eq(invites.role, 'helper')))
     .orderBy(desc(invites.startsAt));
 }
 
 export async function findCoverInvite(db: Db, collectionId: string, coverId: string) {
-  const [row] = await db.select().from(invites).where(and(eq(invites.id, coverId), eq(invites.collectionId, collectionId), eq(invites.role, 'helper')));
+  const [row] = await db
+    .select()
+    .from(invites)
+    .where(
+      and(
+        eq(invites.id, coverId),
+        eq(invites.collectionId, collectionId),
+        eq(invites.role, 'helper'),
+      ),
+    );
   return row ?? null;
 }
 
-export async function updateInvite(db: Db, inviteId: string, values: { startsAt?: Date; endsAt?: Date; expiresAt?: Date; message?: string | null }) {
+export async function updateInvite(
+  db: Db,
+  inviteId: string,
+  values: { startsAt?: Date; endsAt?: Date; expiresAt?: Date; message?: string | null },
+) {
   await db.update(invites).set(values).where(eq(invites.id, inviteId));
 }
 
 /** A helper's window (and whether their late taps may still land) follows their cover's. */
-export async function updateHelperMembership(db: Db, collectionId: string, userId: string, values: { startsAt?: Date; endsAt: Date; writesClosedAt: Date | null }) {
+export async function updateHelperMembership(
+  db: Db,
+  collectionId: string,
+  userId: string,
+  values: { startsAt?: Date; endsAt: Date; writesClosedAt: Date | null },
+) {
   await db
     .update(memberships)
     .set(values)
-    .where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, userId), eq(memberships.role, 'helper')));
+    .where(
+      and(
+        eq(memberships.collectionId, collectionId),
+        eq(memberships.userId, userId),
+        eq(memberships.role, 'helper'),
+      ),
+    );
 }
 
 // --- Invite links (helper and keeper invites alike).
@@ -53,7 +99,10 @@ export async function findInviteByTokenHash(db: Db, tokenHash: string) {
 
 /** The name and zone of an invite's collection (the link's holder is not a member yet). */
 export async function collectionOfInvite(db: Db, collectionId: string) {
-  const [row] = await db.select({ name: collections.name, timeZone: collections.timeZone }).from(collections).where(eq(collections.id, collectionId));
+  const [row] = await db
+    .select({ name: collections.name, timeZone: collections.timeZone })
+    .from(collections)
+    .where(eq(collections.id, collectionId));
   return row ?? null;
 }
 
@@ -77,21 +126,43 @@ export async function grantMembership(
   await db
     .insert(memberships)
     .values({ collectionId, userId, ...grant })
-    .onConflictDoUpdate({ target: [memberships.collectionId, memberships.userId], set: { ...grant, writesClosedAt: null, safetyAcknowledgedAt: null } });
+    .onConflictDoUpdate({
+      target: [memberships.collectionId, memberships.userId],
+      set: { ...grant, writesClosedAt: null, safetyAcknowledgedAt: null },
+    });
 }
 
 // --- The helper's own cover.
 
 export async function deleteHelperMembership(db: Db, collectionId: string, userId: string) {
-  await db.delete(memberships).where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, userId), eq(memberships.role, 'helper')));
+  await db
+    .delete(memberships)
+    .where(
+      and(
+        eq(memberships.collectionId, collectionId),
+        eq(memberships.userId, userId),
+        eq(memberships.role, 'helper'),
+      ),
+    );
 }
 
-export async function setSafetyAcknowledged(db: Db, collectionId: string, userId: string, at: Date) {
-  await db.update(memberships).set({ safetyAcknowledgedAt: at }).where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, userId)));
+export async function setSafetyAcknowledged(
+  db: Db,
+  collectionId: string,
+  userId: string,
+  at: Date,
+) {
+  await db
+    .update(memberships)
+    .set({ safetyAcknowledgedAt: at })
+    .where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, userId)));
 }
 
 export async function safetyAcknowledgedAt(db: Db, collectionId: string, userId: string) {
-  const [row] = await db.select({ ack: memberships.safetyAcknowledgedAt }).from(memberships).where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, userId)));
+  const [row] = await db
+    .select({ ack: memberships.safetyAcknowledgedAt })
+    .from(memberships)
+    .where(and(eq(memberships.collectionId, collectionId), eq(memberships.userId, userId)));
   return row?.ack ?? null;
 }
 
@@ -107,11 +178,28 @@ export async function acceptedInviteMessage(db: Db, collectionId: string, userId
 }
 
 /** What happened to these animals since `since`, newest first, undos left out. */
-export async function recentEventsOf(db: Db, collectionId: string, animalIds: string[], since: Date) {
+export async function recentEventsOf(
+  db: Db,
+  collectionId: string,
+  animalIds: string[],
+  since: Date,
+) {
   return db
-    .select({ animalId: events.animalId, kind: events.kind, at: events.effectiveAt, by: users.displayName })
+    .select({
+      animalId: events.animalId,
+      kind: events.kind,
+      at: events.effectiveAt,
+      by: users.displayName,
+    })
     .from(events)
     .leftJoin(users, eq(users.id, events.recordedBy))
-    .where(and(eq(events.collectionId, collectionId), inArray(events.animalId, animalIds), gte(events.effectiveAt, since), sql`${events.kind} <> 'void'`))
+    .where(
+      and(
+        eq(events.collectionId, collectionId),
+        inArray(events.animalId, animalIds),
+        gte(events.effectiveAt, since),
+        sql`${events.kind} <> 'void'`,
+      ),
+    )
     .orderBy(desc(events.effectiveAt));
 }

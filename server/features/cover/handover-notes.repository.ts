@@ -15,13 +15,23 @@ export async function listHandoverNotes(db: Db, collectionId: string, from: Loca
 }
 
 export async function animalInCollection(db: Db, collectionId: string, animalId: string) {
-  const [row] = await db.select({ id: animals.id }).from(animals).where(and(eq(animals.id, animalId), eq(animals.collectionId, collectionId)));
+  const [row] = await db
+    .select({ id: animals.id })
+    .from(animals)
+    .where(and(eq(animals.id, animalId), eq(animals.collectionId, collectionId)));
   return !!row;
 }
 
 export async function insertHandoverNote(
   db: Db,
-  values: { collectionId: string; animalId: string; text: string; until: LocalDate; doNotFeed: boolean; createdBy: string },
+  values: {
+    collectionId: string;
+    animalId: string;
+    text: string;
+    until: LocalDate;
+    doNotFeed: boolean;
+    createdBy: string;
+  },
 ) {
   const [row] = await db.insert(handoverNotes).values(values).returning({ id: handoverNotes.id });
   return row!.id;
@@ -41,6 +51,9 @@ export async function setGeneralNote(db: Db, collectionId: string, text: string 
 }
 
 export async function generalNoteOf(db: Db, collectionId: string) {
-  const [row] = await db.select({ note: collections.handoverNote }).from(collections).where(eq(collections.id, collectionId));
+  const [row] = await db
+    .select({ note: collections.handoverNote })
+    .from(collections)
+    .where(eq(collections.id, collectionId));
   return row?.note ?? null;
 }

@@ -3,7 +3,13 @@ import type { HelperCoverView } from '#shared/schemas/cover';
 import type { Membership } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { daysOf } from './cover-days';
-import { acceptedInviteMessage, deleteHelperMembership, recentEventsOf, safetyAcknowledgedAt, setSafetyAcknowledged } from './cover.repository';
+import {
+  acceptedInviteMessage,
+  deleteHelperMembership,
+  recentEventsOf,
+  safetyAcknowledgedAt,
+  setSafetyAcknowledged,
+} from './cover.repository';
 import type { HandoverNotes } from './handover-notes';
 
 /** Days of history a helper sees for each animal on the round. */
@@ -13,7 +19,11 @@ const RECENT_DAYS = 14;
 export function createHelperCover(db: Db, now: () => Date, handover: HandoverNotes) {
   return {
     /** Everything a helper needs for the round: their days, the notes, each round animal's last 14 days. */
-    async view(m: Pick<Membership, 'collectionId' | 'collectionName' | 'timeZone' | 'startsAt' | 'endsAt'>, userId: string, roundAnimalIds: string[]): Promise<HelperCoverView> {
+    async view(
+      m: Pick<Membership, 'collectionId' | 'collectionName' | 'timeZone' | 'startsAt' | 'endsAt'>,
+      userId: string,
+      roundAnimalIds: string[],
+    ): Promise<HelperCoverView> {
       const today = localDateOf(now(), m.timeZone);
       const since = startOfLocalDate(addDays(today, -RECENT_DAYS), m.timeZone);
       const generalNote = await handover.generalNote(m.collectionId);
@@ -21,9 +31,12 @@ export function createHelperCover(db: Db, now: () => Date, handover: HandoverNot
       const message = await acceptedInviteMessage(db, m.collectionId, userId);
       const recent: HelperCoverView['recent'] = {};
       if (roundAnimalIds.length) {
-        for (const r of await recentEventsOf(db, m.collectionId, roundAnimalIds, since)) (recent[r.animalId] ??= []).push({ kind: r.kind, at: r.at.toISOString(), by: r.by });
+        for (const r of await recentEventsOf(db, m.collectionId, roundAnimalIds, since))
+          (recent[r.animalId] ??= []).push({ kind: r.kind, at: r.at.toISOString(), by: r.by });
       }
-      const notes = (await handover.notes(m.collectionId, today)).filter((n) => roundAnimalIds.includes(n.animalId));
+      const notes = (await handover.notes(m.collectionId, today)).filter((n) =>
+        roundAnimalIds.includes(n.animalId),
+      );
       return {
         collectionName: m.collectionName,
         ...daysOf(m.startsAt!, m.endsAt!, m.timeZone),

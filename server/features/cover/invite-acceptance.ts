@@ -6,7 +6,12 @@ import { displayNameOf, findUserByEmail, insertUser } from '../../access/users';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
 import { daysOf } from './cover-days';
-import { claimInvite, collectionOfInvite, findInviteByTokenHash, grantMembership } from './cover.repository';
+import {
+  claimInvite,
+  collectionOfInvite,
+  findInviteByTokenHash,
+  grantMembership,
+} from './cover.repository';
 
 export interface InviteAcceptanceDeps {
   now: () => Date;
@@ -17,9 +22,24 @@ export interface InviteAcceptanceDeps {
 export function createInviteAcceptance(db: Db, deps: InviteAcceptanceDeps) {
   async function usableInvite(token: string) {
     const invite = await findInviteByTokenHash(db, hashInviteToken(token));
-    if (!invite) throw new HttpError(400, 'invite_invalid', 'This invite link is not valid. Ask the keeper to send a new one.');
-    if (invite.acceptedAt) throw new HttpError(400, 'invite_used', 'This invite link was already used. Sign in to see your cover.');
-    if (invite.expiresAt <= deps.now()) throw new HttpError(400, 'invite_expired', 'This invite link has expired. Ask the keeper to send a new one.');
+    if (!invite)
+      throw new HttpError(
+        400,
+        'invite_invalid',
+        'This invite link is not valid. Ask the keeper to send a new one.',
+      );
+    if (invite.acceptedAt)
+      throw new HttpError(
+        400,
+        'invite_used',
+        'This invite link was already used. Sign in to see your cover.',
+      );
+    if (invite.expiresAt <= deps.now())
+      throw new HttpError(
+        400,
+        'invite_expired',
+        'This invite link has expired. Ask the keeper to send a new one.',
+      );
     return invite;
   }
 
@@ -30,7 +50,10 @@ export function createInviteAcceptance(db: Db, deps: InviteAcceptanceDeps) {
       const c = await collectionOfInvite(db, invite.collectionId);
       if (!c) throw new HttpError(404, 'not_found', 'We could not find that cover.');
       const invitedBy = invite.invitedBy ? await displayNameOf(db, invite.invitedBy) : null;
-      const days = invite.startsAt && invite.endsAt ? daysOf(invite.startsAt, invite.endsAt, c.timeZone) : { firstDay: null, lastDay: null };
+      const days =
+        invite.startsAt && invite.endsAt
+          ? daysOf(invite.startsAt, invite.endsAt, c.timeZone)
+          : { firstDay: null, lastDay: null };
       return {
         role: invite.role === 'keeper' ? 'keeper' : 'helper',
         collectionName: c.name,
@@ -47,7 +70,10 @@ export function createInviteAcceptance(db: Db, deps: InviteAcceptanceDeps) {
      * cover's days, or as a keeper. Someone new gets an account; someone with an account must
      * be signed in as the invited e-mail. Returns the user to sign in (the route starts the session).
      */
-    async accept(body: AcceptBody, signedInUserId: string | null): Promise<{ userId: string; collectionId: string }> {
+    async accept(
+      body: AcceptBody,
+      signedInUserId: string | null,
+    ): Promise<{ userId: string; collectionId: string }> {
       return db.transaction(async (tx) => {
         const invite = await usableInvite(body.token);
         const keeper = invite.role === 'keeper';
@@ -55,18 +81,46 @@ export function createInviteAcceptance(db: Db, deps: InviteAcceptanceDeps) {
         let userId: string;
         if (existing) {
           if (signedInUserId !== existing.id) {
-            throw new HttpError(401, 'sign_in_first', `Sign in as ${invite.email} to accept this ${keeper ? 'invite' : 'cover'}.`);
+            throw new HttpError(
+              401,
+              'sign_in_first',
+              `Sign in as ${invite.email} to accept this ${keeper ? 'invite' : 'cover'}.`,
+            );
           }
           userId = existing.id;
         } else {
-          if (!body.account) throw new HttpError(422, 'invalid', 'Choose your name and a password to make your account.', [{ path: 'account', message: 'Choose your name and a password.' }]);
+          if (!body.account)
+            throw new HttpError(
+              422,
+              'invalid',
+              'Choose your name and a password to make your account.',
+              [{ path: 'account', message: 'Choose your name and a password.' }],
+            );
           const passwordHash = await hashPassword(body.account.password, deps.bcryptCost);
-          userId = (await insertUser(tx, { email: invite.email, displayName: body.account.displayName, passwordHash })).id;
+          userId = (
+            await insertUser(tx, {
+              email: invite.email,
+              displayName: body.account.displayName,
+              passwordHash,
+            })
+          ).id;
         }
         const current = await roleOfUser(tx, invite.collectionId, userId);
-        if (current && current !== 'helper') throw new HttpError(409, 'already_member', keeper ? 'You already keep this collection.' : 'You already keep this collection; no cover is needed.');
+        if (current && current !== 'helper')
+          throw new HttpError(
+            409,
+            'already_member',
+            keeper
+              ? 'You already keep this collection.'
+              : 'You already keep this collection; no cover is needed.',
+          );
         // Claimed once: a second use of the same link finds it accepted.
-        if (!(await claimInvite(tx, invite.id, userId, deps.now()))) throw new HttpError(400, 'invite_used', 'This invite link was already used. Sign in to see your collection.');
+        if (!(await claimInvite(tx, invite.id, userId, deps.now())))
+          throw new HttpError(
+            400,
+            'invite_used',
+            'This invite link was already used. Sign in to see your collection.',
+          );
         // A keeper has no window; a helper who becomes a keeper loses theirs.
         const grant = keeper
           ? { role: 'keeper' as const, startsAt: null, endsAt: null }

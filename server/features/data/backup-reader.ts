@@ -13,7 +13,11 @@ export type BackupRecord =
 
 const badJson = (err: Error) => {
   const at = /position "(\d+)"/.exec(err.message)?.[1];
-  return new HttpError(400, 'bad_json', `This file is not valid JSON${at ? ` (a mistake near byte ${at})` : ''}: it may be damaged, or not a backup.`);
+  return new HttpError(
+    400,
+    'bad_json',
+    `This file is not valid JSON${at ? ` (a mistake near byte ${at})` : ''}: it may be damaged, or not a backup.`,
+  );
 };
 
 /**
@@ -39,7 +43,11 @@ export async function* readBackup(file: string): AsyncGenerator<BackupRecord> {
     }
     const list = stack[1]?.key as BackupList;
     if (!Array.isArray(parent)) {
-      state.failure ??= new HttpError(422, 'invalid', `This file is not a Rackside backup: “${list}” should be a list.`);
+      state.failure ??= new HttpError(
+        422,
+        'invalid',
+        `This file is not a Rackside backup: “${list}” should be a list.`,
+      );
       return;
     }
     ready.push({ kind: 'item', list, index: key as number, value });
@@ -56,13 +64,23 @@ export async function* readBackup(file: string): AsyncGenerator<BackupRecord> {
   for await (const chunk of fs.createReadStream(file, { highWaterMark: 64 * 1024 })) {
     // Nothing after the one JSON value but white space.
     if (parser.isEnded) {
-      if ((chunk as Buffer).toString('latin1').trim()) throw new HttpError(400, 'bad_json', 'This file has more after the backup ends: it may be damaged, or not a backup.');
+      if ((chunk as Buffer).toString('latin1').trim())
+        throw new HttpError(
+          400,
+          'bad_json',
+          'This file has more after the backup ends: it may be damaged, or not a backup.',
+        );
       continue;
     }
     parser.write(chunk as Buffer);
     yield* take();
   }
   if (!parser.isEnded) parser.end();
-  if (state.failure?.code === 'bad_json') throw new HttpError(400, 'bad_json', 'This file ends before the backup does: it may not have finished downloading.');
+  if (state.failure?.code === 'bad_json')
+    throw new HttpError(
+      400,
+      'bad_json',
+      'This file ends before the backup does: it may not have finished downloading.',
+    );
   yield* take();
 }

@@ -21,7 +21,13 @@ const CHUNK_CHARS = 256 * 1024;
  * read. Each record sits on its own line; the members come in the order a restore reads them
  * (shared/schemas/backup.ts).
  */
-export async function writeBackup(db: Database['db'], photos: PhotosService, c: MemberCollection, exportedAt: Date, sink: BackupSink) {
+export async function writeBackup(
+  db: Database['db'],
+  photos: PhotosService,
+  c: MemberCollection,
+  exportedAt: Date,
+  sink: BackupSink,
+) {
   const { collectionId } = c;
   let buffer: string[] = [];
   let buffered = 0;
@@ -50,8 +56,12 @@ export async function writeBackup(db: Database['db'], photos: PhotosService, c: 
 
   await repo.inSnapshot(db, async (tx) => {
     const rules = await repo.rulesOf(tx, collectionId);
-    await emit(`{"format":${J(BACKUP_FORMAT)},"version":${BACKUP_VERSION},"exportedAt":${J(exportedAt.toISOString())},\n`);
-    await emit(`"collection":${J({ name: c.collectionName, timeZone: c.timeZone, rules })},\n"locations":[`);
+    await emit(
+      `{"format":${J(BACKUP_FORMAT)},"version":${BACKUP_VERSION},"exportedAt":${J(exportedAt.toISOString())},\n`,
+    );
+    await emit(
+      `"collection":${J({ name: c.collectionName, timeZone: c.timeZone, rules })},\n"locations":[`,
+    );
 
     let first = true;
     const separator = () => {
@@ -59,16 +69,17 @@ export async function writeBackup(db: Database['db'], photos: PhotosService, c: 
       first = false;
       return s;
     };
-    for (let after: Parameters<typeof repo.placesPage>[2] = null; ; ) {
+    for (let after: Parameters<typeof repo.placesPage>[2] = null; ;) {
       const page = await repo.placesPage(tx, collectionId, after, PAGE.places);
-      for (const { id, room, rack, shelf, position, walkOrder } of page) await emit(separator() + J({ id, room, rack, shelf, position, walkOrder }));
+      for (const { id, room, rack, shelf, position, walkOrder } of page)
+        await emit(separator() + J({ id, room, rack, shelf, position, walkOrder }));
       if (page.length < PAGE.places) break;
       after = page.at(-1)!;
     }
 
     await emit('],\n"animals":[');
     first = true;
-    for (let after: string | null = null; ; ) {
+    for (let after: string | null = null; ;) {
       const page = await repo.animalsPage(tx, collectionId, after, PAGE.animals);
       for (const a of page) {
         await emit(separator());
@@ -102,7 +113,10 @@ export async function writeBackup(db: Database['db'], photos: PhotosService, c: 
           createdAt: a.createdAt.toISOString(),
           updatedAt: a.updatedAt.toISOString(),
         };
-        await withPhoto(record, a.photoKey ? await photos.readFull(collectionId, a.photoKey) : null);
+        await withPhoto(
+          record,
+          a.photoKey ? await photos.readFull(collectionId, a.photoKey) : null,
+        );
       }
       if (page.length < PAGE.animals) break;
       after = page.at(-1)!.labelCode;
@@ -116,7 +130,7 @@ export async function writeBackup(db: Database['db'], photos: PhotosService, c: 
 
     await emit('],\n"events":[');
     first = true;
-    for (let after: { at: string; id: string } | null = null; ; ) {
+    for (let after: { at: string; id: string } | null = null; ;) {
       const page = await repo.eventsPage(tx, collectionId, after, PAGE.events);
       for (const { e, photoKey } of page) {
         await emit(separator());

@@ -16,7 +16,10 @@ const list = (values: unknown[]) => sql.param(values);
 
 /** A collection's own round rules (its overrides of the defaults). */
 export async function rulesOf(db: Db, collectionId: string) {
-  const [c] = await db.select({ rules: collections.rules }).from(collections).where(eq(collections.id, collectionId));
+  const [c] = await db
+    .select({ rules: collections.rules })
+    .from(collections)
+    .where(eq(collections.id, collectionId));
   return c?.rules ?? null;
 }
 
@@ -29,23 +32,41 @@ export function inSnapshot<T>(db: Database['db'], work: (tx: Db) => Promise<T>):
 }
 
 /** Locations by place, created where the rows name a place the collection does not have yet. */
-export async function placeIdsFor(tx: Db, collectionId: string, wanted: Place[]): Promise<{ idOf(p: Place): string }> {
+export async function placeIdsFor(
+  tx: Db,
+  collectionId: string,
+  wanted: Place[],
+): Promise<{ idOf(p: Place): string }> {
   const unique = new Map(wanted.map((p) => [placeKey(p), p]));
   const known = await tx.select().from(locations).where(eq(locations.collectionId, collectionId));
   const ids = new Map(known.map((l) => [placeKey(l), l.id]));
   const missing = [...unique.entries()].filter(([k]) => !ids.has(k)).map(([, p]) => p);
   if (missing.length) {
     const last = known.reduce((m, l) => Math.max(m, l.walkOrder), 0);
-    const created = await tx.insert(locations).values(missing.map((p, i) => ({ collectionId, ...p, walkOrder: last + i + 1 }))).returning();
+    const created = await tx
+      .insert(locations)
+      .values(missing.map((p, i) => ({ collectionId, ...p, walkOrder: last + i + 1 })))
+      .returning();
     for (const l of created) ids.set(placeKey(l), l.id);
   }
   return { idOf: (p) => ids.get(placeKey(p))! };
 }
 
 /** A page of events with their animal and who recorded it, oldest first (the events CSV). */
-export async function eventsWithNamesPage(db: Db, collectionId: string, after: { at: string; id: string } | null, limit: number) {
+export async function eventsWithNamesPage(
+  db: Db,
+  collectionId: string,
+  after: { at: string; id: string } | null,
+  limit: number,
+) {
   return db
-    .select({ e: events, code: animals.labelCode, name: animals.name, by: users.displayName, cursor: sql<string>`${events.effectiveAt}::text` })
+    .select({
+      e: events,
+      code: animals.labelCode,
+      name: animals.name,
+      by: users.displayName,
+      cursor: sql<string>`${events.effectiveAt}::text`,
+    })
     .from(events)
     .innerJoin(animals, eq(animals.id, events.animalId))
     .leftJoin(users, eq(users.id, events.recordedBy))
@@ -66,30 +87,61 @@ const afterCursor = (after: { at: string; id: string }) =>
 // --- Backup: pages in a stable order, each resuming after the last row of the one before.
 
 /** Walk order, ties by the place itself (unique in a collection), so the order is total. */
-export async function placesPage(db: Db, collectionId: string, after: Place & { walkOrder: number } | null, limit: number) {
+export async function placesPage(
+  db: Db,
+  collectionId: string,
+  after: (Place & { walkOrder: number }) | null,
+  limit: number,
+) {
   const { walkOrder, room, rack, shelf, position } = locations;
   return db
     .select()
     .from(locations)
-    .where(and(eq(locations.collectionId, collectionId), after ? sql`(${walkOrder}, ${room}, ${rack}, ${shelf}, ${position}) > (${after.walkOrder}, ${after.room}, ${after.rack}, ${after.shelf}, ${after.position})` : undefined))
+    .where(
+      and(
+        eq(locations.collectionId, collectionId),
+        after
+          ? sql`(${walkOrder}, ${room}, ${rack}, ${shelf}, ${position}) > (${after.walkOrder}, ${after.room}, ${after.rack}, ${after.shelf}, ${after.position})`
+          : undefined,
+      ),
+    )
     .orderBy(asc(walkOrder), asc(room), asc(rack), asc(shelf), asc(position))
     .limit(limit);
 }
 
 /** Label codes are unique within a collection, so they order the pages on their own. */
-export async function animalsPage(db: Db, collectionId: string, afterCode: string | null, limit: number) {
+export async function animalsPage(
+  db: Db,
+  collectionId: string,
+  afterCode: string | null,
+  limit: number,
+) {
   return db
     .select()
     .from(animals)
-    .where(and(eq(animals.collectionId, collectionId), afterCode === null ? undefined : gt(animals.labelCode, afterCode)))
+    .where(
+      and(
+        eq(animals.collectionId, collectionId),
+        afterCode === null ? undefined : gt(animals.labelCode, afterCode),
+      ),
+    )
     .orderBy(asc(animals.labelCode))
     .limit(limit);
 }
 
 /** Events oldest first, with a molt photo's key, a page at a time (see afterCursor). */
-export async function eventsPage(db: Db, collectionId: string, after: { at: string; id: string } | null, limit: number) {
+export async function eventsPage(
+  db: Db,
+  collectionId: string,
+  after: { at: string; id: string } | null,
+  limit: number,
+) {
   return db
-    .select({ e: events, photoKey: eventPhotos.photoKey, cursor: sql<string>`${events.effectiveAt}::text` })
+    .select({
+      e: events,
+      photoKey: eventPhotos.photoKey,
+      cursor: sql<string>`${events.effectiveAt}::text`,
+    })
     .from(events)
     .leftJoin(eventPhotos, eq(eventPhotos.eventId, events.id))
     .where(and(eq(events.collectionId, collectionId), after ? afterCursor(after) : undefined))
@@ -101,8 +153,14 @@ export async function eventsPage(db: Db, collectionId: string, after: { at: stri
 
 /** Animals and places of a collection (a restore needs both at zero). */
 export async function recordCounts(db: Db, collectionId: string) {
-  const [{ n: animalCount } = { n: 0 }] = await db.select({ n: count() }).from(animals).where(eq(animals.collectionId, collectionId));
-  const [{ n: placeCount } = { n: 0 }] = await db.select({ n: count() }).from(locations).where(eq(locations.collectionId, collectionId));
+  const [{ n: animalCount } = { n: 0 }] = await db
+    .select({ n: count() })
+    .from(animals)
+    .where(eq(animals.collectionId, collectionId));
+  const [{ n: placeCount } = { n: 0 }] = await db
+    .select({ n: count() })
+    .from(locations)
+    .where(eq(locations.collectionId, collectionId));
   return { animals: animalCount, places: placeCount };
 }
 
@@ -121,7 +179,11 @@ export async function insertPlaces(tx: Db, rows: NewPlace[]) {
 
 /** A collection's egg sacs, egg cases and broods (a handful per female: one read). */
 export async function sacsOf(db: Db, collectionId: string) {
-  return db.select().from(eggSacs).where(eq(eggSacs.collectionId, collectionId)).orderBy(asc(eggSacs.laidOn), asc(eggSacs.createdAt), asc(eggSacs.clutch));
+  return db
+    .select()
+    .from(eggSacs)
+    .where(eq(eggSacs.collectionId, collectionId))
+    .orderBy(asc(eggSacs.laidOn), asc(eggSacs.createdAt), asc(eggSacs.clutch));
 }
 
 export async function insertSacs(tx: Db, rows: NewEggSac[]) {
@@ -139,7 +201,10 @@ export async function insertEventPhotos(tx: Db, rows: NewEventPhoto[]) {
 /** Of these ids, the accounts this server has (a backup may come from another server). */
 export async function existingUserIds(tx: Db, ids: string[]): Promise<Set<string>> {
   if (!ids.length) return new Set();
-  const rows = await tx.select({ id: users.id }).from(users).where(sql`${users.id} = any(${list(ids)}::uuid[])`);
+  const rows = await tx
+    .select({ id: users.id })
+    .from(users)
+    .where(sql`${users.id} = any(${list(ids)}::uuid[])`);
   return new Set(rows.map((r) => r.id));
 }
 
@@ -166,7 +231,12 @@ export async function findAnimalWithMoreEvents(tx: Db, collectionId: string, lim
 }
 
 /** A page of the collection's animals with how many events each has, by id. */
-export async function animalEventCounts(tx: Db, collectionId: string, afterId: string | null, limit: number) {
+export async function animalEventCounts(
+  tx: Db,
+  collectionId: string,
+  afterId: string | null,
+  limit: number,
+) {
   const rows = await tx.execute<{ id: string; n: string }>(sql`
     select a.id, (select count(*) from events e where e.animal_id = a.id) as n from animals a
     where a.collection_id = ${collectionId} ${afterId ? sql`and a.id > ${afterId}::uuid` : sql``}

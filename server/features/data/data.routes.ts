@@ -16,7 +16,10 @@ const largeJson = (limit: string) => express.json({ limit });
 const STALLED_MS = 60_000;
 
 const download = (res: Response, type: string, name: string) =>
-  res.type(type).set('Content-Disposition', `attachment; filename="${name}"`).set('Cache-Control', 'no-store');
+  res
+    .type(type)
+    .set('Content-Disposition', `attachment; filename="${name}"`)
+    .set('Cache-Control', 'no-store');
 
 /**
  * The response as a sink for a long download: headers on the first write, then each write
@@ -27,7 +30,8 @@ const download = (res: Response, type: string, name: string) =>
 function responseSink(res: Response, type: string, name: string): BackupSink {
   return {
     async write(text) {
-      if (!res.headersSent) download(res.status(200), type, name).set('Cache-Control', 'no-store, no-transform');
+      if (!res.headersSent)
+        download(res.status(200), type, name).set('Cache-Control', 'no-store, no-transform');
       if (res.destroyed) throw new Error('The client closed the connection.');
       if (res.write(text)) return;
       await new Promise<void>((resolve, reject) => {
@@ -62,11 +66,19 @@ export function dataRoutes(service: DataService, member: (min: Role) => RequestH
   const day = () => new Date().toISOString().slice(0, 10);
 
   router.get('/export/animals.csv', member('keeper'), async (_req, res) => {
-    download(res, 'text/csv; charset=utf-8', `rackside-animals-${day()}.csv`).send(await service.animalsCsv(collectionId(res)));
+    download(res, 'text/csv; charset=utf-8', `rackside-animals-${day()}.csv`).send(
+      await service.animalsCsv(collectionId(res)),
+    );
   });
 
   /** Runs a long download; an error after its first byte can only cut it short. */
-  const streamed = (req: Request, res: Response, work: (sink: BackupSink) => Promise<void>, type: string, name: string) =>
+  const streamed = (
+    req: Request,
+    res: Response,
+    work: (sink: BackupSink) => Promise<void>,
+    type: string,
+    name: string,
+  ) =>
     work(responseSink(res, type, name)).then(
       () => void res.end(),
       (err: unknown) => {
@@ -77,18 +89,36 @@ export function dataRoutes(service: DataService, member: (min: Role) => RequestH
     );
 
   router.get('/export/events.csv', member('keeper'), async (req, res) => {
-    await streamed(req, res, (sink) => service.eventsCsv(membershipOf(res), sink), 'text/csv; charset=utf-8', `rackside-events-${day()}.csv`);
+    await streamed(
+      req,
+      res,
+      (sink) => service.eventsCsv(membershipOf(res), sink),
+      'text/csv; charset=utf-8',
+      `rackside-events-${day()}.csv`,
+    );
   });
 
-  router.post('/animals/import', member('keeper'), largeJson('20mb'), validate({ body: animalImportBody }), async (_req, res) => {
-    const { rows } = input<{ rows: AnimalImportValues[] }>(res, 'body');
-    res.status(201).json({ imported: await service.importAnimals(membershipOf(res), rows) });
-  });
+  router.post(
+    '/animals/import',
+    member('keeper'),
+    largeJson('20mb'),
+    validate({ body: animalImportBody }),
+    async (_req, res) => {
+      const { rows } = input<{ rows: AnimalImportValues[] }>(res, 'body');
+      res.status(201).json({ imported: await service.importAnimals(membershipOf(res), rows) });
+    },
+  );
 
   // Streamed out as it is read; an error once the download has begun can only cut it short
   // (an unfinished JSON file, which a restore refuses), never pass for a whole backup.
   router.get('/backup', member('keeper'), async (req, res) => {
-    await streamed(req, res, (sink) => service.backup(membershipOf(res), sink), 'application/json', `rackside-backup-${day()}.json`);
+    await streamed(
+      req,
+      res,
+      (sink) => service.backup(membershipOf(res), sink),
+      'application/json',
+      `rackside-backup-${day()}.json`,
+    );
   });
 
   // Restoring fills a collection, so only its owner may. The body is read as a stream by the
@@ -96,7 +126,15 @@ export function dataRoutes(service: DataService, member: (min: Role) => RequestH
   router.post('/restore', member('owner'), async (req, res) => {
     const declared = Number(req.headers['content-length']);
     try {
-      res.status(201).json(await service.restore(membershipOf(res), req, Number.isFinite(declared) ? declared : undefined));
+      res
+        .status(201)
+        .json(
+          await service.restore(
+            membershipOf(res),
+            req,
+            Number.isFinite(declared) ? declared : undefined,
+          ),
+        );
     } catch (err) {
       withRetryAfter(res, err);
     }

@@ -12,14 +12,33 @@ import { eventsWithNamesPage, placeIdsFor } from './data.repository';
 import { restoreBackup } from './restore';
 import { createWorkSlots } from './work-slots';
 
-export const EVENT_COLUMNS = ['event_id', 'when_utc', 'local_date', 'local_time', 'animal_code', 'animal_name', 'what', 'details', 'recorded_by', 'flags'] as const;
+export const EVENT_COLUMNS = [
+  'event_id',
+  'when_utc',
+  'local_date',
+  'local_time',
+  'animal_code',
+  'animal_name',
+  'what',
+  'details',
+  'recorded_by',
+  'flags',
+] as const;
 
 /** Events per page of the events CSV. */
 const CSV_PAGE = 2000;
 /** Backups and restores running at once in one process (each holds a database connection). */
 const HEAVY_WORK_SLOTS = 2;
 
-export function createDataService(db: Database['db'], deps: { animals: AnimalsService; photos: PhotosService; now?: () => Date; maxRestoreBytes?: number }) {
+export function createDataService(
+  db: Database['db'],
+  deps: {
+    animals: AnimalsService;
+    photos: PhotosService;
+    now?: () => Date;
+    maxRestoreBytes?: number;
+  },
+) {
   const now = deps.now ?? (() => new Date());
   const inSlot = createWorkSlots(HEAVY_WORK_SLOTS);
 
@@ -34,12 +53,17 @@ export function createDataService(db: Database['db'], deps: { animals: AnimalsSe
      */
     async eventsCsv(c: MemberCollection, sink: BackupSink): Promise<void> {
       const { collectionId } = c;
-      const local = new Intl.DateTimeFormat('en-CA', { timeZone: c.timeZone, year: 'numeric', month: '2-digit', day: '2-digit' });
+      const local = new Intl.DateTimeFormat('en-CA', {
+        timeZone: c.timeZone,
+        year: 'numeric',
+        month: '2-digit',
+        day: '2-digit',
+      });
       // The header alone ends in CRLF; records follow it one CRLF apart, as writeCsv joins them.
       const header = writeCsv(EVENT_COLUMNS, []);
       await sink.write(header.slice(0, -2));
       let any = false;
-      for (let after: { at: string; id: string } | null = null; ; ) {
+      for (let after: { at: string; id: string } | null = null; ;) {
         const page = await eventsWithNamesPage(db, collectionId, after, CSV_PAGE);
         if (page.length) {
           const rows = page.map(({ e, code, name, by }) => ({
@@ -66,8 +90,16 @@ export function createDataService(db: Database['db'], deps: { animals: AnimalsSe
     /** Rows already checked by the import screen and again by the API schema; all or nothing. */
     async importAnimals(c: MemberCollection, rows: AnimalImportValues[]): Promise<number> {
       return db.transaction(async (tx) => {
-        const places = await placeIdsFor(tx, c.collectionId, rows.flatMap((r) => (r.place ? [r.place] : [])));
-        return deps.animals.createMany(c, rows.map(({ place, ...r }) => ({ ...r, locationId: place ? places.idOf(place) : null })), tx);
+        const places = await placeIdsFor(
+          tx,
+          c.collectionId,
+          rows.flatMap((r) => (r.place ? [r.place] : [])),
+        );
+        return deps.animals.createMany(
+          c,
+          rows.map(({ place, ...r }) => ({ ...r, locationId: place ? places.idOf(place) : null })),
+          tx,
+        );
       });
     },
 
@@ -77,8 +109,20 @@ export function createDataService(db: Database['db'], deps: { animals: AnimalsSe
     },
 
     /** A backup read from a stream into this empty collection, all or nothing (restore.ts). */
-    restore(c: MemberCollection, source: Readable, declaredBytes?: number): Promise<{ animals: number; events: number }> {
-      return inSlot(() => restoreBackup(db, { photos: deps.photos, now, maxBytes: deps.maxRestoreBytes }, c, source, declaredBytes));
+    restore(
+      c: MemberCollection,
+      source: Readable,
+      declaredBytes?: number,
+    ): Promise<{ animals: number; events: number }> {
+      return inSlot(() =>
+        restoreBackup(
+          db,
+          { photos: deps.photos, now, maxBytes: deps.maxRestoreBytes },
+          c,
+          source,
+          declaredBytes,
+        ),
+      );
     },
   };
 }

@@ -23,7 +23,8 @@ describe('the JSON guard in front of the streaming parser', () => {
   });
 
   it('refuses a string longer than the limit, however it is cut', () => {
-    for (const size of [1, 4, 64]) expect(refusal('{"a":"01234567890"}', size)).toMatchObject({ status: 422, code: 'invalid' });
+    for (const size of [1, 4, 64])
+      expect(refusal('{"a":"01234567890"}', size)).toMatchObject({ status: 422, code: 'invalid' });
     // An escaped quote does not end the string.
     expect(refusal('{"a":"0123\\"4567890"}')).toMatchObject({ status: 422 });
   });
@@ -31,6 +32,9 @@ describe('the JSON guard in front of the streaming parser', () => {
   it('refuses nesting deeper than the limit, a runaway number, and a file over the size limit (413)', () => {
     expect(refusal('{"a":[{"b":[]}]}')?.message).toMatch(/nested far deeper/);
     expect(refusal(`{"a":${'9'.repeat(65)}}`, 7)?.message).toMatch(/far longer/);
-    expect(refusal(`{"a":"${' '.repeat(8)}"}${' '.repeat(1000)}`)).toMatchObject({ status: 413, message: 'This backup is larger than Rackside restores (1 KB at most).' });
+    expect(refusal(`{"a":"${' '.repeat(8)}"}${' '.repeat(1000)}`)).toMatchObject({
+      status: 413,
+      message: 'This backup is larger than Rackside restores (1 KB at most).',
+    });
   });
 });

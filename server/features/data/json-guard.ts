@@ -15,9 +15,14 @@ const BACKSLASH = 0x5c;
 const MAX_SCALAR = 64;
 
 export const tooLarge = (maxBytes: number) =>
-  new HttpError(413, 'too_large', `This backup is larger than Rackside restores (${maxBytes >= 1024 * 1024 ? `${Math.round(maxBytes / 1024 / 1024)} MB` : `${Math.ceil(maxBytes / 1024)} KB`} at most).`);
+  new HttpError(
+    413,
+    'too_large',
+    `This backup is larger than Rackside restores (${maxBytes >= 1024 * 1024 ? `${Math.round(maxBytes / 1024 / 1024)} MB` : `${Math.ceil(maxBytes / 1024)} KB`} at most).`,
+  );
 
-const notABackup = (why: string) => new HttpError(422, 'invalid', `This file is not a Rackside backup: ${why}`);
+const notABackup = (why: string) =>
+  new HttpError(422, 'invalid', `This file is not a Rackside backup: ${why}`);
 
 /**
  * Watches a JSON byte stream chunk by chunk, before a streaming parser sees it, and refuses it
@@ -49,7 +54,8 @@ export function createJsonGuard(limits: JsonLimits) {
         const next = quote === -1 ? slash : slash === -1 ? quote : Math.min(quote, slash);
         const end = next === -1 ? chunk.length : next;
         stringBytes += end - i;
-        if (stringBytes > limits.maxString) throw notABackup('one of its values is far longer than anything a backup holds.');
+        if (stringBytes > limits.maxString)
+          throw notABackup('one of its values is far longer than anything a backup holds.');
         if (next === -1) break;
         i = next;
         if (chunk[i] === QUOTE) inString = false;
@@ -63,7 +69,8 @@ export function createJsonGuard(limits: JsonLimits) {
         scalar = 0;
       } else if (b === 0x7b || b === 0x5b) {
         scalar = 0;
-        if (++depth > limits.maxDepth) throw notABackup('its values are nested far deeper than a backup’s.');
+        if (++depth > limits.maxDepth)
+          throw notABackup('its values are nested far deeper than a backup’s.');
       } else if (b === 0x7d || b === 0x5d) {
         scalar = 0;
         depth--;

@@ -2,8 +2,19 @@ import { hash, randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import type { Readable } from 'node:stream';
 import type { z } from 'zod';
-import { MAX_BACKUP_PHOTO_CHARS, MAX_BACKUP_PLACES, MAX_RESTORE_BYTES } from '#shared/domain/backup-limits';
-import { backupAnimal, backupCollection, backupEggSac, backupEvent, backupHeader, backupPlace } from '#shared/schemas/backup';
+import {
+  MAX_BACKUP_PHOTO_CHARS,
+  MAX_BACKUP_PLACES,
+  MAX_RESTORE_BYTES,
+} from '#shared/domain/backup-limits';
+import {
+  backupAnimal,
+  backupCollection,
+  backupEggSac,
+  backupEvent,
+  backupHeader,
+  backupPlace,
+} from '#shared/schemas/backup';
 import { fieldLabel, isGenericMessage } from '#shared/schemas/messages';
 import type { RulesOverrideBody } from '#shared/schemas/rules';
 import type { MemberCollection } from '../../access/memberships';
@@ -20,10 +31,20 @@ import { createJsonGuard, tooLarge } from './json-guard';
 export const MAX_EVENTS_PER_ANIMAL = 20_000;
 /** Events folded into the projection at once after a restore (a few MB of heap). */
 const REFOLD_EVENTS = 20_000;
-const BATCH: Record<BackupList, number> = { locations: 500, animals: 200, eggSacs: 200, events: 1000 };
+const BATCH: Record<BackupList, number> = {
+  locations: 500,
+  animals: 200,
+  eggSacs: 200,
+  events: 1000,
+};
 /** Problems reported at once; a file with more is surely not worth reading further. */
 const MAX_PROBLEMS = 5;
-const WHAT: Record<BackupList, string> = { locations: 'Place', animals: 'Animal', eggSacs: 'Egg sac, case or brood', events: 'History entry' };
+const WHAT: Record<BackupList, string> = {
+  locations: 'Place',
+  animals: 'Animal',
+  eggSacs: 'Egg sac, case or brood',
+  events: 'History entry',
+};
 
 type Problem = { path: string; message: string };
 
@@ -41,7 +62,13 @@ export interface RestoreOptions {
  * rows inserted in batches. Only after the commit do the photos move into place; on any
  * failure the transaction rolls back and the workspace, photos included, is removed.
  */
-export async function restoreBackup(db: Db, options: RestoreOptions, c: MemberCollection, source: Readable, declaredBytes?: number) {
+export async function restoreBackup(
+  db: Db,
+  options: RestoreOptions,
+  c: MemberCollection,
+  source: Readable,
+  declaredBytes?: number,
+) {
   const { collectionId } = c;
   const maxBytes = options.maxBytes ?? MAX_RESTORE_BYTES;
   const guard = createJsonGuard({ maxBytes, maxString: MAX_BACKUP_PHOTO_CHARS + 16, maxDepth: 12 });
@@ -73,7 +100,12 @@ export async function restoreBackup(db: Db, options: RestoreOptions, c: MemberCo
 
 async function refuseUnlessEmpty(db: Db, collectionId: string) {
   const n = await repo.recordCounts(db, collectionId);
-  if (n.animals > 0 || n.places > 0) throw new HttpError(409, 'not_empty', 'Restore into an empty collection: this one already has animals or places.');
+  if (n.animals > 0 || n.places > 0)
+    throw new HttpError(
+      409,
+      'not_empty',
+      'Restore into an empty collection: this one already has animals or places.',
+    );
 }
 
 /**
@@ -104,7 +136,14 @@ function spool(source: Readable, file: string, guard: (chunk: Uint8Array) => voi
         out.once('drain', () => source.resume());
       }
     };
-    const interrupted = () => fail(new HttpError(400, 'aborted', 'The upload stopped before the end of the file, so nothing was restored.'));
+    const interrupted = () =>
+      fail(
+        new HttpError(
+          400,
+          'aborted',
+          'The upload stopped before the end of the file, so nothing was restored.',
+        ),
+      );
     out.on('error', fail);
     source.on('data', onData);
     source.on('error', interrupted);
@@ -141,35 +180,56 @@ function idMapper() {
 function problemsOf(where: string, prefix: string, error: z.ZodError): Problem[] {
   return error.issues.map((issue) => {
     const path = [prefix, ...issue.path.map(String)].join('.');
-    const field = issue.path.length && isGenericMessage(issue.message) ? `${fieldLabel(issue.path.map(String).join('.'))}: ` : '';
+    const field =
+      issue.path.length && isGenericMessage(issue.message)
+        ? `${fieldLabel(issue.path.map(String).join('.'))}: `
+        : '';
     return { path, message: `${where}: ${field}${issue.message}` };
   });
 }
 
 function refusal(problems: Problem[]): HttpError {
   const first = problems[0]!.message;
-  return new HttpError(422, 'invalid', problems.length === 1 ? first : `${first} (and ${problems.length - 1} more)`, problems);
+  return new HttpError(
+    422,
+    'invalid',
+    problems.length === 1 ? first : `${first} (and ${problems.length - 1} more)`,
+    problems,
+  );
 }
 
 /** A database refusal of the backup's own data, in words; null for anything else. */
 function dataProblem(err: unknown): HttpError | null {
-  const e = ((err as { cause?: unknown }).cause ?? err) as { code?: string; constraint?: string; detail?: string };
+  const e = ((err as { cause?: unknown }).cause ?? err) as {
+    code?: string;
+    constraint?: string;
+    detail?: string;
+  };
   const values = /\)=\((.*)\)/.exec(e.detail ?? '')?.[1] ?? '';
   const refuse = (message: string) => new HttpError(422, 'invalid', message);
   if (e.code === '23505') {
-    if (e.constraint === 'animals_collection_label') return refuse(`Two animals in this backup have the label code ${values.split(', ').pop()}: each animal needs its own.`);
-    if (e.constraint === 'locations_place') return refuse(`Two places in this backup are the same room, rack, shelf and position (${values.split(', ').slice(1).join(' · ')}): each may be listed once.`);
+    if (e.constraint === 'animals_collection_label')
+      return refuse(
+        `Two animals in this backup have the label code ${values.split(', ').pop()}: each animal needs its own.`,
+      );
+    if (e.constraint === 'locations_place')
+      return refuse(
+        `Two places in this backup are the same room, rack, shelf and position (${values.split(', ').slice(1).join(' · ')}): each may be listed once.`,
+      );
     if (e.constraint === 'animals_pkey') return refuse('This backup lists the same animal twice.');
     if (e.constraint === 'locations_pkey') return refuse('This backup lists the same place twice.');
-    if (e.constraint === 'events_pkey') return refuse('This backup lists the same history entry twice.');
+    if (e.constraint === 'events_pkey')
+      return refuse('This backup lists the same history entry twice.');
     return refuse('This backup lists something twice.');
   }
   if (e.code === '23503') {
-    if (e.constraint === 'events_animal_id_animals_id_fk') return refuse('This backup has history for an animal it does not contain.');
+    if (e.constraint === 'events_animal_id_animals_id_fk')
+      return refuse('This backup has history for an animal it does not contain.');
     return refuse('This backup refers to something it does not contain.');
   }
   // Invalid text, a number out of range, a string too long for its column.
-  if (e.code && /^22/.test(e.code)) return refuse('This backup holds a value Rackside cannot store.');
+  if (e.code && /^22/.test(e.code))
+    return refuse('This backup holds a value Rackside cannot store.');
   return null;
 }
 
@@ -200,7 +260,13 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
   const problems: Problem[] = [];
   let stage = -1;
   let rules: RulesOverrideBody = {};
-  const emptyBatch = () => ({ places: [] as PlaceRow[], animals: [] as { row: AnimalRow; photo: Staging | null }[], sacs: [] as SacRow[], events: [] as EventRow[], photos: [] as { row: EventPhotoRow; photo: Staging }[] });
+  const emptyBatch = () => ({
+    places: [] as PlaceRow[],
+    animals: [] as { row: AnimalRow; photo: Staging | null }[],
+    sacs: [] as SacRow[],
+    events: [] as EventRow[],
+    photos: [] as { row: EventPhotoRow; photo: Staging }[],
+  });
   let pending = emptyBatch();
   // One batch is written while the next is read: PostgreSQL and the parser work side by side.
   // Failures surface when the write is next waited for; until then they are marked handled.
@@ -216,9 +282,14 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
     try {
       return await workspace.stagePhoto(Buffer.from(base64, 'base64'));
     } catch (err) {
-      if (err instanceof HttpError) throw new HttpError(err.status, err.code, `${where}: ${err.message}`);
+      if (err instanceof HttpError)
+        throw new HttpError(err.status, err.code, `${where}: ${err.message}`);
       // The disk refused (full, read-only…): nothing is kept, and the same file can be tried again.
-      throw new HttpError(503, 'storage_failed', 'The server could not store the photos of this backup, so nothing was restored. Try again later.');
+      throw new HttpError(
+        503,
+        'storage_failed',
+        'The server could not store the photos of this backup, so nothing was restored. Try again later.',
+      );
     }
   }
 
@@ -236,13 +307,16 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
   }
 
   /** A place the file lists (by its old id): moves and animals point at it. */
-  const mapPlace = (old: string | null | undefined) => (old && places.has(old.toLowerCase()) ? newId(old) : null);
+  const mapPlace = (old: string | null | undefined) =>
+    old && places.has(old.toLowerCase()) ? newId(old) : null;
 
   function remapPayload(payload: Record<string, unknown>) {
     const out = { ...payload };
-    for (const key of ['targetId', 'maleId', 'sacId']) if (typeof out[key] === 'string') out[key] = newId(out[key]);
+    for (const key of ['targetId', 'maleId', 'sacId'])
+      if (typeof out[key] === 'string') out[key] = newId(out[key]);
     // A move to a place deleted since keeps the id it had, as the original does.
-    for (const key of ['fromLocationId', 'toLocationId']) if (typeof out[key] === 'string') out[key] = mapPlace(out[key]) ?? out[key];
+    for (const key of ['fromLocationId', 'toLocationId'])
+      if (typeof out[key] === 'string') out[key] = mapPlace(out[key]) ?? out[key];
     return out;
   }
 
@@ -260,15 +334,24 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
     for (const p of batch.photos) p.row.photoKey = await p.photo.key;
     await asDataProblem(async () => {
       await repo.insertPlaces(tx, batch.places);
-      await repo.insertAnimals(tx, batch.animals.map((a) => a.row));
+      await repo.insertAnimals(
+        tx,
+        batch.animals.map((a) => a.row),
+      );
       await repo.insertSacs(tx, batch.sacs);
       if (batch.events.length) {
         // People belong to a server: someone this server does not know is recorded as nobody.
-        const known = await repo.existingUserIds(tx, [...new Set(batch.events.flatMap((e) => (e.recordedBy ? [e.recordedBy] : [])))]);
-        for (const e of batch.events) if (e.recordedBy && !known.has(e.recordedBy)) e.recordedBy = null;
+        const known = await repo.existingUserIds(tx, [
+          ...new Set(batch.events.flatMap((e) => (e.recordedBy ? [e.recordedBy] : []))),
+        ]);
+        for (const e of batch.events)
+          if (e.recordedBy && !known.has(e.recordedBy)) e.recordedBy = null;
         await recordEvents(tx, { collectionId }, batch.events, { from: 'history' });
       }
-      await repo.insertEventPhotos(tx, batch.photos.map((p) => p.row));
+      await repo.insertEventPhotos(
+        tx,
+        batch.photos.map((p) => p.row),
+      );
     });
   }
 
@@ -290,20 +373,31 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
 
   async function takeItem(list: BackupList, index: number, value: unknown) {
     const order = BACKUP_LISTS.indexOf(list);
-    if (order < stage) throw new HttpError(422, 'invalid', 'This backup lists places, animals and history out of order (places come first, then animals, then history).');
+    if (order < stage)
+      throw new HttpError(
+        422,
+        'invalid',
+        'This backup lists places, animals and history out of order (places come first, then animals, then history).',
+      );
     if (order > stage) {
       if (!problems.length) await flush();
       stage = order;
     }
     counts[list]++;
-    const labelCode = list === 'animals' ? (value as { labelCode?: unknown } | null)?.labelCode : undefined;
+    const labelCode =
+      list === 'animals' ? (value as { labelCode?: unknown } | null)?.labelCode : undefined;
     const where = `${WHAT[list]} ${index + 1}${typeof labelCode === 'string' ? ` (${labelCode.slice(0, 20)})` : ''}`;
     const prefix = `${list}.${index}`;
 
     if (list === 'locations') {
       const result = backupPlace.safeParse(value);
       if (!result.success) return problem(problemsOf(where, prefix, result.error));
-      if (places.size >= MAX_BACKUP_PLACES) throw new HttpError(422, 'invalid', `This backup has more than ${MAX_BACKUP_PLACES.toLocaleString('en')} places, more than a collection can have.`);
+      if (places.size >= MAX_BACKUP_PLACES)
+        throw new HttpError(
+          422,
+          'invalid',
+          `This backup has more than ${MAX_BACKUP_PLACES.toLocaleString('en')} places, more than a collection can have.`,
+        );
       const { id, ...place } = result.data;
       places.add(id.toLowerCase());
       if (!problems.length) pending.places.push({ ...place, id: newId(id), collectionId });
@@ -312,21 +406,50 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
       if (!result.success) return problem(problemsOf(where, prefix, result.error));
       if (problems.length) return;
       const { id, locationId, photo, createdAt, updatedAt, ...fields } = result.data;
-      const row = { ...fields, id: newId(id), collectionId, locationId: mapPlace(locationId), photoKey: null, photoUpdatedAt: photo ? now : null, createdAt: new Date(createdAt), updatedAt: new Date(updatedAt) };
+      const row = {
+        ...fields,
+        id: newId(id),
+        collectionId,
+        locationId: mapPlace(locationId),
+        photoKey: null,
+        photoUpdatedAt: photo ? now : null,
+        createdAt: new Date(createdAt),
+        updatedAt: new Date(updatedAt),
+      };
       pending.animals.push({ row, photo: photo ? await startPhoto(photo, where) : null });
     } else if (list === 'eggSacs') {
       const result = backupEggSac.safeParse(value);
       if (!result.success) return problem(problemsOf(where, prefix, result.error));
       if (problems.length) return;
       const { id, femaleId, createdAt, ...fields } = result.data;
-      pending.sacs.push({ ...fields, id: newId(id), femaleId: newId(femaleId), collectionId, createdAt: new Date(createdAt) });
+      pending.sacs.push({
+        ...fields,
+        id: newId(id),
+        femaleId: newId(femaleId),
+        collectionId,
+        createdAt: new Date(createdAt),
+      });
     } else {
       const result = backupEvent.safeParse(value);
       if (!result.success) return problem(problemsOf(where, prefix, result.error));
       if (problems.length) return;
-      const { id, animalId, payload, photo, clientRecordedAt, clientSentAt, serverReceivedAt, effectiveAt, ...fields } = result.data;
+      const {
+        id,
+        animalId,
+        payload,
+        photo,
+        clientRecordedAt,
+        clientSentAt,
+        serverReceivedAt,
+        effectiveAt,
+        ...fields
+      } = result.data;
       const eventId = newId(id);
-      if (photo) pending.photos.push({ row: { eventId, collectionId, photoKey: '' }, photo: await startPhoto(photo, where) });
+      if (photo)
+        pending.photos.push({
+          row: { eventId, collectionId, photoKey: '' },
+          photo: await startPhoto(photo, where),
+        });
       pending.events.push({
         ...fields,
         id: eventId,
@@ -339,7 +462,12 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
         effectiveAt: new Date(effectiveAt),
       });
     }
-    const size = { locations: pending.places.length, animals: pending.animals.length, eggSacs: pending.sacs.length, events: pending.events.length }[list];
+    const size = {
+      locations: pending.places.length,
+      animals: pending.animals.length,
+      eggSacs: pending.sacs.length,
+      events: pending.events.length,
+    }[list];
     if (size >= BATCH[list]) await flush();
   }
 
@@ -377,17 +505,32 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
     },
 
     async finish() {
-      if (!singles.has('format')) throw new HttpError(422, 'invalid', 'This is not a Rackside backup file.');
+      if (!singles.has('format'))
+        throw new HttpError(422, 'invalid', 'This is not a Rackside backup file.');
       for (const key of ['version', 'exportedAt', 'collection'] as const) {
-        if (!singles.has(key)) problems.push({ path: key, message: `The backup has no “${key}”: it is incomplete or damaged.` });
+        if (!singles.has(key))
+          problems.push({
+            path: key,
+            message: `The backup has no “${key}”: it is incomplete or damaged.`,
+          });
       }
       if (problems.length) throw refusal(problems.slice(0, MAX_PROBLEMS));
       await flush();
       await writing;
       const stray = await repo.findStrayUndo(tx, collectionId);
-      if (stray) throw new HttpError(422, 'invalid', `An undo in the history of ${stray.code} refers to an entry this backup does not contain.`);
+      if (stray)
+        throw new HttpError(
+          422,
+          'invalid',
+          `An undo in the history of ${stray.code} refers to an entry this backup does not contain.`,
+        );
       const longest = await repo.findAnimalWithMoreEvents(tx, collectionId, MAX_EVENTS_PER_ANIMAL);
-      if (longest) throw new HttpError(422, 'invalid', `${longest.code} has ${longest.events.toLocaleString('en')} history entries in this backup; Rackside keeps at most ${MAX_EVENTS_PER_ANIMAL.toLocaleString('en')} per animal.`);
+      if (longest)
+        throw new HttpError(
+          422,
+          'invalid',
+          `${longest.code} has ${longest.events.toLocaleString('en')} history entries in this backup; Rackside keeps at most ${MAX_EVENTS_PER_ANIMAL.toLocaleString('en')} per animal.`,
+        );
       await repo.setCollectionRules(tx, collectionId, rules);
       await refold();
       return { animals: counts.animals, events: counts.events };

@@ -8,7 +8,12 @@ import { HttpError } from '../../middleware/errors';
 export function createWorkSlots(max: number) {
   let busy = 0;
   return async function inSlot<T>(work: () => Promise<T>): Promise<T> {
-    if (busy >= max) throw new HttpError(503, 'busy', 'The server is busy with other backups just now. Try again in a minute.');
+    if (busy >= max)
+      throw new HttpError(
+        503,
+        'busy',
+        'The server is busy with other backups just now. Try again in a minute.',
+      );
     busy++;
     try {
       return await work();

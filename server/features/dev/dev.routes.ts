@@ -6,10 +6,18 @@ import { fromLoopback } from '../../middleware/loopback';
 import type { AuthService } from '../auth/auth.service';
 
 /** Demo-mode helpers (DEMO_MODE only): the sign-in hints and, never in production, the local mailbox. */
-export function devRoutes(mailbox: DevMailbox | undefined, auth: AuthService, options: { mountMailbox: boolean }) {
+export function devRoutes(
+  mailbox: DevMailbox | undefined,
+  auth: AuthService,
+  options: { mountMailbox: boolean },
+) {
   const router = Router();
   router.get('/demo', (_req, res) => {
-    res.json({ demo: true, accounts: DEMO_ACCOUNTS.map(({ email, role }) => ({ email, role })), password: DEMO_PASSWORD });
+    res.json({
+      demo: true,
+      accounts: DEMO_ACCOUNTS.map(({ email, role }) => ({ email, role })),
+      password: DEMO_PASSWORD,
+    });
   });
   if (!options.mountMailbox) return router;
 
@@ -19,11 +27,24 @@ export function devRoutes(mailbox: DevMailbox | undefined, auth: AuthService, op
   router.get('/mail', async (req, res) => {
     const all = [...(mailbox?.messages ?? [])].reverse();
     if (fromLoopback(req)) return void res.json({ scope: 'all', messages: all });
-    if (!req.session.userId) throw new HttpError(401, 'signed_out', 'From another device, sign in as an owner to read the e-mail sent to you here.');
+    if (!req.session.userId)
+      throw new HttpError(
+        401,
+        'signed_out',
+        'From another device, sign in as an owner to read the e-mail sent to you here.',
+      );
     const { user, memberships } = await auth.me(req.session.userId);
-    if (!memberships.some((m) => m.role === 'owner')) throw new HttpError(403, 'forbidden', 'Only owners can read their e-mail here from another device.');
+    if (!memberships.some((m) => m.role === 'owner'))
+      throw new HttpError(
+        403,
+        'forbidden',
+        'Only owners can read their e-mail here from another device.',
+      );
     const me = user.email.toLowerCase();
-    res.json({ scope: 'mine', messages: all.filter((m) => m.to.some((to) => to.toLowerCase() === me)) });
+    res.json({
+      scope: 'mine',
+      messages: all.filter((m) => m.to.some((to) => to.toLowerCase() === me)),
+    });
   });
   return router;
 }

@@ -13,7 +13,11 @@ const list = (values: unknown[]) => sql.param(values);
  * phones' taps are their key) and returns only the ids inserted now; `'fail'` makes a repeated
  * id an error (a backup listing an entry twice).
  */
-export async function insertEvents(db: Db, rows: NewEvent[], ifStored: 'skip' | 'fail'): Promise<Set<string>> {
+export async function insertEvents(
+  db: Db,
+  rows: NewEvent[],
+  ifStored: 'skip' | 'fail',
+): Promise<Set<string>> {
   const inserted = new Set<string>();
   for (let i = 0; i < rows.length; i += 1000) {
     const chunk = rows.slice(i, i + 1000);
@@ -50,24 +54,39 @@ export async function animalIdsInCollection(
   const rows = await db
     .select({ id: animals.id })
     .from(animals)
-    .where(and(eq(animals.collectionId, collectionId), sql`${animals.id} = any(${list(ids)}::uuid[])`));
+    .where(
+      and(eq(animals.collectionId, collectionId), sql`${animals.id} = any(${list(ids)}::uuid[])`),
+    );
   return new Set(rows.map((r) => r.id));
 }
 
 /** What deciding whether an animal may breed needs (name, sex, group), by id. */
 export async function breedersAmong(db: Db, collectionId: string, ids: string[]) {
-  if (!ids.length) return new Map<string, { name: string; sex: (typeof animals.$inferSelect)['sex']; group: (typeof animals.$inferSelect)['group'] }>();
+  if (!ids.length)
+    return new Map<
+      string,
+      {
+        name: string;
+        sex: (typeof animals.$inferSelect)['sex'];
+        group: (typeof animals.$inferSelect)['group'];
+      }
+    >();
   const rows = await db
     .select({ id: animals.id, name: animals.name, sex: animals.sex, group: animals.group })
     .from(animals)
-    .where(and(eq(animals.collectionId, collectionId), sql`${animals.id} = any(${list(ids)}::uuid[])`));
+    .where(
+      and(eq(animals.collectionId, collectionId), sql`${animals.id} = any(${list(ids)}::uuid[])`),
+    );
   return new Map(rows.map(({ id, ...r }) => [id, r]));
 }
 
 /** Stored events by id, with what a duplicate or void check needs. */
 export async function storedEvents(db: Db, ids: string[]) {
   if (!ids.length)
-    return new Map<string, { collectionId: string; animalId: string; kind: string; recordedBy: string | null }>();
+    return new Map<
+      string,
+      { collectionId: string; animalId: string; kind: string; recordedBy: string | null }
+    >();
   const rows = await db
     .select({
       id: events.id,
@@ -121,15 +140,34 @@ export async function recentEventsOf(
 /** These animals' molts, molt details and voids: what their size and sex follow. */
 export async function moltRecordsOf(db: Db, collectionId: string, animalIds: string[]) {
   return db
-    .select({ id: events.id, animalId: events.animalId, kind: events.kind, payload: events.payload, at: events.effectiveAt })
+    .select({
+      id: events.id,
+      animalId: events.animalId,
+      kind: events.kind,
+      payload: events.payload,
+      at: events.effectiveAt,
+    })
     .from(events)
-    .where(and(eq(events.collectionId, collectionId), inArray(events.animalId, animalIds), inArray(events.kind, ['molted', 'molt_details', 'void'])));
+    .where(
+      and(
+        eq(events.collectionId, collectionId),
+        inArray(events.animalId, animalIds),
+        inArray(events.kind, ['molted', 'molt_details', 'void']),
+      ),
+    );
 }
 
 export async function sexesOf(db: Db, animalIds: string[]) {
-  return db.select({ id: animals.id, sex: animals.sex }).from(animals).where(inArray(animals.id, animalIds));
+  return db
+    .select({ id: animals.id, sex: animals.sex })
+    .from(animals)
+    .where(inArray(animals.id, animalIds));
 }
 
-export async function setSexAndSize(db: Db, animalId: string, values: { sex: (typeof animals.$inferSelect)['sex']; sizeMm?: number }) {
+export async function setSexAndSize(
+  db: Db,
+  animalId: string,
+  values: { sex: (typeof animals.$inferSelect)['sex']; sizeMm?: number },
+) {
   await db.update(animals).set(values).where(eq(animals.id, animalId));
 }

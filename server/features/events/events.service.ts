@@ -1,6 +1,11 @@
 import { clockOffsetMs } from '#shared/domain/clock';
 import { FED_WHILE_HELD, type EventKind } from '#shared/domain/event-kinds';
-import { factsToLoad, judgeBatch, screenBatch, settleLostRaces } from '#shared/domain/event-verdicts';
+import {
+  factsToLoad,
+  judgeBatch,
+  screenBatch,
+  settleLostRaces,
+} from '#shared/domain/event-verdicts';
 import { mergeMoltDetails } from '#shared/domain/growth';
 import { localDateOf, type LocalDate } from '#shared/domain/local-dates';
 import { MAX_BATCH_EVENTS } from '#shared/domain/sync-limits';
@@ -8,15 +13,28 @@ import type { EventBatchBody, EventBatchResponse, HistoryEvent } from '#shared/s
 import type { Membership } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
-import { animalIdsInCollection, breedersAmong, liveMoltTimes, recentEventsOf, storedEvents } from './events.repository';
+import {
+  animalIdsInCollection,
+  breedersAmong,
+  liveMoltTimes,
+  recentEventsOf,
+  storedEvents,
+} from './events.repository';
 import { recordEvents, type DeviceEvent, type EventCollection } from './record-events';
 
-export type OnRecorded = (collection: EventCollection, recorded: { animalId: string; kind: EventKind }[]) => Promise<void>;
+export type OnRecorded = (
+  collection: EventCollection,
+  recorded: { animalId: string; kind: EventKind }[],
+) => Promise<void>;
 
 export interface EventsServiceOptions {
   now: () => Date;
   /** Whether food is withheld from these animals on a date, and why: a meal then is flagged. */
-  feedHolds: (collectionId: string, animalIds: string[], date: LocalDate) => Promise<ReadonlyMap<string, unknown>>;
+  feedHolds: (
+    collectionId: string,
+    animalIds: string[],
+    date: LocalDate,
+  ) => Promise<ReadonlyMap<string, unknown>>;
   /** Run in order after each device batch is committed. */
   onRecorded?: readonly OnRecorded[];
 }
@@ -25,12 +43,24 @@ export interface EventsServiceOptions {
  * Phones' taps: each judged on its own (shared/domain/event-verdicts.ts), stored exactly once
  * (the client's id is the key) through `recordEvents`, then handed to the `onRecorded` hooks.
  */
-export function createEventsService(db: Db, { now, feedHolds, onRecorded = [] }: EventsServiceOptions) {
+export function createEventsService(
+  db: Db,
+  { now, feedHolds, onRecorded = [] }: EventsServiceOptions,
+) {
   /** Stores judged taps in one transaction, then runs the hooks on the ones that are new. */
-  async function ingest(collectionId: string, zone: string, incoming: DeviceEvent[], received = now()) {
+  async function ingest(
+    collectionId: string,
+    zone: string,
+    incoming: DeviceEvent[],
+    received = now(),
+  ) {
     const collection = { collectionId, timeZone: zone };
-    const inserted = await db.transaction((tx) => recordEvents(tx, collection, incoming, { from: 'device', receivedAt: received }));
-    const recorded = incoming.filter((e) => inserted.has(e.id)).map(({ animalId, kind }) => ({ animalId, kind }));
+    const inserted = await db.transaction((tx) =>
+      recordEvents(tx, collection, incoming, { from: 'device', receivedAt: received }),
+    );
+    const recorded = incoming
+      .filter((e) => inserted.has(e.id))
+      .map(({ animalId, kind }) => ({ animalId, kind }));
     for (const hook of onRecorded) await hook(collection, recorded);
     return { inserted };
   }
@@ -46,15 +76,28 @@ export function createEventsService(db: Db, { now, feedHolds, onRecorded = [] }:
       byDate.set(date, [...(byDate.get(date) ?? []), e]);
     }
     for (const [date, group] of byDate) {
-      const holds = await feedHolds(member.collectionId, [...new Set(group.map((e) => e.animalId))], date);
-      for (const e of group) if (holds.has(e.animalId)) e.flags = [...(e.flags ?? []), FED_WHILE_HELD];
+      const holds = await feedHolds(
+        member.collectionId,
+        [...new Set(group.map((e) => e.animalId))],
+        date,
+      );
+      for (const e of group)
+        if (holds.has(e.animalId)) e.flags = [...(e.flags ?? []), FED_WHILE_HELD];
     }
   }
 
   /** One sync request from a device: a verdict per event, a re-sent event a duplicate. */
-  async function recordBatch(member: Membership, userId: string, body: EventBatchBody): Promise<EventBatchResponse> {
+  async function recordBatch(
+    member: Membership,
+    userId: string,
+    body: EventBatchBody,
+  ): Promise<EventBatchResponse> {
     if (body.events.length > MAX_BATCH_EVENTS) {
-      throw new HttpError(413, 'batch_too_large', `Send at most ${MAX_BATCH_EVENTS} events at a time; this batch had ${body.events.length}.`);
+      throw new HttpError(
+        413,
+        'batch_too_large',
+        `Send at most ${MAX_BATCH_EVENTS} events at a time; this batch had ${body.events.length}.`,
+      );
     }
     const received = now();
     const sentAt = new Date(body.clientSentAt);
@@ -66,7 +109,12 @@ export function createEventsService(db: Db, { now, feedHolds, onRecorded = [] }:
       breedersAmong(db, member.collectionId, wanted.pairedIds),
       liveMoltTimes(db, wanted.moltingIds),
     ]);
-    const { results, accepted } = judgeBatch(screened, { ...member, userId }, { animals, stored, breeders, moltTimes }, received);
+    const { results, accepted } = judgeBatch(
+      screened,
+      { ...member, userId },
+      { animals, stored, breeders, moltTimes },
+      received,
+    );
     const toInsert: DeviceEvent[] = accepted.map(({ event, effectiveAt, flags }) => ({
       id: event.id,
       animalId: event.animalId,
@@ -81,12 +129,16 @@ export function createEventsService(db: Db, { now, feedHolds, onRecorded = [] }:
     }));
 
     await flagMealsWhileHeld(member, toInsert);
-    const { inserted } = toInsert.length ? await ingest(member.collectionId, member.timeZone, toInsert, received) : { inserted: new Set<string>() };
+    const { inserted } = toInsert.length
+      ? await ingest(member.collectionId, member.timeZone, toInsert, received)
+      : { inserted: new Set<string>() };
     const lost = new Set(toInsert.filter((e) => !inserted.has(e.id)).map((e) => e.id));
     return {
       serverReceivedAt: received.toISOString(),
       offsetMs: clockOffsetMs(sentAt, received),
-      results: lost.size ? settleLostRaces(results, lost, await storedEvents(db, [...lost]), member.collectionId) : results,
+      results: lost.size
+        ? settleLostRaces(results, lost, await storedEvents(db, [...lost]), member.collectionId)
+        : results,
     };
   }
 
@@ -107,7 +159,12 @@ export function createEventsService(db: Db, { now, feedHolds, onRecorded = [] }:
       mergeMoltDetails(
         rows
           .filter((r) => (r.kind === 'molted' || r.kind === 'molt_details') && !voidedBy.has(r.id))
-          .map((r) => ({ id: r.id, kind: r.kind, payload: r.payload as Record<string, unknown>, at: r.effectiveAt.toISOString() })),
+          .map((r) => ({
+            id: r.id,
+            kind: r.kind,
+            payload: r.payload as Record<string, unknown>,
+            at: r.effectiveAt.toISOString(),
+          })),
       ).map((m) => [m.id, m.payload]),
     );
     return rows.map((r) => ({

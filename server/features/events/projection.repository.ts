@@ -6,7 +6,9 @@ import { animalStates } from '../../db/schema/rounds';
 
 /** Every animal of a collection, by id. */
 export async function animalIdsOf(db: Db, collectionId: string): Promise<string[]> {
-  return (await db.select({ id: animals.id }).from(animals).where(eq(animals.collectionId, collectionId))).map((r) => r.id);
+  return (
+    await db.select({ id: animals.id }).from(animals).where(eq(animals.collectionId, collectionId))
+  ).map((r) => r.id);
 }
 
 /** These animals' projected states, locked until the caller's transaction ends. */
@@ -20,11 +22,20 @@ export async function lockStates(db: Db, animalIds: string[]): Promise<Map<strin
 }
 
 /** Each animal's whole log as the engine folds it (unordered: the fold sorts). */
-export async function loadEventsOf(db: Db, animalIds: string[]): Promise<Map<string, EngineEvent[]>> {
+export async function loadEventsOf(
+  db: Db,
+  animalIds: string[],
+): Promise<Map<string, EngineEvent[]>> {
   const byAnimal = new Map<string, EngineEvent[]>(animalIds.map((id) => [id, []]));
   if (!animalIds.length) return byAnimal;
   const rows = await db
-    .select({ id: events.id, animalId: events.animalId, kind: events.kind, effectiveAt: events.effectiveAt, payload: events.payload })
+    .select({
+      id: events.id,
+      animalId: events.animalId,
+      kind: events.kind,
+      effectiveAt: events.effectiveAt,
+      payload: events.payload,
+    })
     .from(events)
     .where(inArray(events.animalId, animalIds));
   for (const r of rows) {
@@ -39,7 +50,11 @@ export async function loadEventsOf(db: Db, animalIds: string[]): Promise<Map<str
 }
 
 /** Writes projected states, one statement per 1,000 animals over unnest()ed arrays. */
-export async function upsertStates(db: Db, collectionId: string, states: { animalId: string; state: AnimalState }[]) {
+export async function upsertStates(
+  db: Db,
+  collectionId: string,
+  states: { animalId: string; state: AnimalState }[],
+) {
   for (let i = 0; i < states.length; i += 1000) {
     const chunk = states.slice(i, i + 1000);
     await db.execute(sql`

@@ -1,17 +1,34 @@
 // The projection the round engine reads (animal_states): each animal's log folded into its
 // state, kept in step with the log in the same transaction as every write to it.
-import { applyEvent, EMPTY_STATE, isInOrder, projectState, type AnimalState, type EngineEvent } from '#shared/domain/rounds/animal-state';
+import {
+  applyEvent,
+  EMPTY_STATE,
+  isInOrder,
+  projectState,
+  type AnimalState,
+  type EngineEvent,
+} from '#shared/domain/rounds/animal-state';
 import type { Db } from '../../db/client';
 import { animalIdsOf, loadEventsOf, lockStates, upsertStates } from './projection.repository';
 
 /** Each animal's whole log in effective order, for a reader whose stored state is out of date. */
-export const eventLogsOf = (db: Db, animalIds: string[]): Promise<Map<string, EngineEvent[]>> => loadEventsOf(db, animalIds);
+export const eventLogsOf = (db: Db, animalIds: string[]): Promise<Map<string, EngineEvent[]>> =>
+  loadEventsOf(db, animalIds);
 
 /** Re-folds animals' states from the whole event log (all of a collection's when no ids). */
-export async function refoldStates(db: Db, collectionId: string, zone: string, animalIds?: string[]) {
+export async function refoldStates(
+  db: Db,
+  collectionId: string,
+  zone: string,
+  animalIds?: string[],
+) {
   const ids = animalIds ?? (await animalIdsOf(db, collectionId));
   const logs = await loadEventsOf(db, ids);
-  await upsertStates(db, collectionId, ids.map((id) => ({ animalId: id, state: projectState(logs.get(id) ?? [], zone) })));
+  await upsertStates(
+    db,
+    collectionId,
+    ids.map((id) => ({ animalId: id, state: projectState(logs.get(id) ?? [], zone) })),
+  );
 }
 
 /**
@@ -19,7 +36,12 @@ export async function refoldStates(db: Db, collectionId: string, zone: string, a
  * Events that come after everything folded so far are applied one by one; an animal that got
  * an event out of order (a phone syncing late) or a void is re-folded from its log.
  */
-export async function applyNewEvents(db: Db, collectionId: string, zone: string, fresh: (EngineEvent & { animalId: string })[]) {
+export async function applyNewEvents(
+  db: Db,
+  collectionId: string,
+  zone: string,
+  fresh: (EngineEvent & { animalId: string })[],
+) {
   const byAnimal = new Map<string, EngineEvent[]>();
   for (const e of fresh) byAnimal.set(e.animalId, [...(byAnimal.get(e.animalId) ?? []), e]);
   const ids = [...byAnimal.keys()];
@@ -29,7 +51,9 @@ export async function applyNewEvents(db: Db, collectionId: string, zone: string,
   const updated: { animalId: string; state: AnimalState }[] = [];
   for (const [animalId, list] of byAnimal) {
     let state = current.get(animalId) ?? EMPTY_STATE;
-    const sorted = [...list].sort((a, b) => (a.effectiveAt < b.effectiveAt ? -1 : a.effectiveAt > b.effectiveAt ? 1 : a.id < b.id ? -1 : 1));
+    const sorted = [...list].sort((a, b) =>
+      a.effectiveAt < b.effectiveAt ? -1 : a.effectiveAt > b.effectiveAt ? 1 : a.id < b.id ? -1 : 1,
+    );
     if (sorted.some((e) => e.kind === 'void') || !isInOrder(state, sorted[0]!)) {
       refold.push(animalId);
       continue;

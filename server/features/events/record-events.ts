@@ -55,9 +55,24 @@ export type HistorySource = { from: 'history' };
  * and sex (molt facts) up to date with the ones that are new. Returns the ids stored now: a
  * phone's re-sent tap is already there and is left as it was.
  */
-export async function recordEvents(db: Db, collection: EventCollection, events: DeviceEvent[], source: DeviceSource): Promise<Set<string>>;
-export async function recordEvents(db: Db, collection: EventCollection, events: ServerFact[], source: ServerSource): Promise<Set<string>>;
-export async function recordEvents(db: Db, collection: Pick<EventCollection, 'collectionId'>, events: KeptEvent[], source: HistorySource): Promise<Set<string>>;
+export async function recordEvents(
+  db: Db,
+  collection: EventCollection,
+  events: DeviceEvent[],
+  source: DeviceSource,
+): Promise<Set<string>>;
+export async function recordEvents(
+  db: Db,
+  collection: EventCollection,
+  events: ServerFact[],
+  source: ServerSource,
+): Promise<Set<string>>;
+export async function recordEvents(
+  db: Db,
+  collection: Pick<EventCollection, 'collectionId'>,
+  events: KeptEvent[],
+  source: HistorySource,
+): Promise<Set<string>>;
 export async function recordEvents(
   db: Db,
   collection: EventCollection | Pick<EventCollection, 'collectionId'>,
@@ -66,12 +81,22 @@ export async function recordEvents(
 ): Promise<Set<string>> {
   if (!events.length) return new Set();
   const { collectionId } = collection;
-  if (source.from === 'history') return insertEvents(db, (events as KeptEvent[]).map((e) => ({ ...e, collectionId })), 'fail');
+  if (source.from === 'history')
+    return insertEvents(
+      db,
+      (events as KeptEvent[]).map((e) => ({ ...e, collectionId })),
+      'fail',
+    );
   const { timeZone } = collection as EventCollection;
 
   const rows: NewEvent[] =
     source.from === 'device'
-      ? (events as DeviceEvent[]).map((e) => ({ ...e, collectionId, serverReceivedAt: source.receivedAt, flags: e.flags ?? [] }))
+      ? (events as DeviceEvent[]).map((e) => ({
+          ...e,
+          collectionId,
+          serverReceivedAt: source.receivedAt,
+          flags: e.flags ?? [],
+        }))
       : (events as ServerFact[]).map((e) => ({
           ...e,
           id: randomUUID(),
@@ -89,8 +114,16 @@ export async function recordEvents(
     db,
     collectionId,
     timeZone,
-    fresh.map((e) => ({ id: e.id, animalId: e.animalId, kind: e.kind as EventKind, payload: e.payload as Record<string, unknown>, effectiveAt: e.effectiveAt.toISOString() })),
+    fresh.map((e) => ({
+      id: e.id,
+      animalId: e.animalId,
+      kind: e.kind as EventKind,
+      payload: e.payload as Record<string, unknown>,
+      effectiveAt: e.effectiveAt.toISOString(),
+    })),
   );
-  await applyMoltFacts(db, collectionId, timeZone, [...new Set(fresh.filter((e) => MOLT_FACT_KINDS.includes(e.kind)).map((e) => e.animalId))]);
+  await applyMoltFacts(db, collectionId, timeZone, [
+    ...new Set(fresh.filter((e) => MOLT_FACT_KINDS.includes(e.kind)).map((e) => e.animalId)),
+  ]);
   return stored;
 }

@@ -1,8 +1,18 @@
 import PDFDocument from 'pdfkit';
-import { CAUTION_SYMBOL_GRID, CAUTION_SYMBOL_PATHS, CAUTION_SYMBOL_STROKE } from '#shared/domain/caution-symbols';
+import {
+  CAUTION_SYMBOL_GRID,
+  CAUTION_SYMBOL_PATHS,
+  CAUTION_SYMBOL_STROKE,
+} from '#shared/domain/caution-symbols';
 import type { LabelContent } from '#shared/domain/labels/label-content';
 import { qrPath } from '#shared/domain/labels/qr-symbol';
-import { CUT_LINE_OFFSET_MM, CUT_LINE_WIDTH_MM, placeLabels, RULER_LENGTH_MM, type SheetLayout } from '#shared/domain/labels/sheet-layout';
+import {
+  CUT_LINE_OFFSET_MM,
+  CUT_LINE_WIDTH_MM,
+  placeLabels,
+  RULER_LENGTH_MM,
+  type SheetLayout,
+} from '#shared/domain/labels/sheet-layout';
 
 /** PDF user space is 1/72 in (ISO 32000-1, 8.3.2.3); 1 in = 25.4 mm. */
 const PT_PER_MM = 72 / 25.4;
@@ -17,7 +27,13 @@ function drawSymbol(doc: PDFKit.PDFDocument, label: LabelContent, x: number, y: 
   doc.restore();
 }
 
-function drawCautions(doc: PDFKit.PDFDocument, label: LabelContent, x: number, y: number, sizeMm: number) {
+function drawCautions(
+  doc: PDFKit.PDFDocument,
+  label: LabelContent,
+  x: number,
+  y: number,
+  sizeMm: number,
+) {
   label.cautions.forEach((caution, i) => {
     doc.save();
     doc.translate(pt(x + i * (sizeMm + 0.6)), pt(y));
@@ -45,13 +61,23 @@ function drawText(doc: PDFKit.PDFDocument, label: LabelContent, x: number, y: nu
       width -= beside;
       drawCautions(doc, label, left + text.widthMm - beside, top, line.sizeMm);
     }
-    const font = line.field === 'code' ? 'Helvetica-Bold' : line.field === 'scientificName' ? 'Helvetica-Oblique' : 'Helvetica';
+    const font =
+      line.field === 'code'
+        ? 'Helvetica-Bold'
+        : line.field === 'scientificName'
+          ? 'Helvetica-Oblique'
+          : 'Helvetica';
     const words = line.field === 'code' ? label.code : label[line.field];
     doc
       .font(font)
       .fontSize(pt(line.sizeMm))
       .fillColor('#000000')
-      .text(words, pt(left), pt(top), { width: pt(width), height: pt(line.sizeMm * 1.2), lineBreak: false, ellipsis: true });
+      .text(words, pt(left), pt(top), {
+        width: pt(width),
+        height: pt(line.sizeMm * 1.2),
+        lineBreak: false,
+        ellipsis: true,
+      });
   }
 }
 
@@ -59,10 +85,16 @@ function drawText(doc: PDFKit.PDFDocument, label: LabelContent, x: number, y: nu
 function drawRuler(doc: PDFKit.PDFDocument, sheet: SheetLayout, page: number, pages: number) {
   const { x, y, lengthMm } = sheet.ruler;
   doc.save().lineWidth(0.5).strokeColor('#000000');
-  doc.moveTo(pt(x), pt(y)).lineTo(pt(x + lengthMm), pt(y)).stroke();
+  doc
+    .moveTo(pt(x), pt(y))
+    .lineTo(pt(x + lengthMm), pt(y))
+    .stroke();
   for (let mm = 0; mm <= RULER_LENGTH_MM; mm++) {
     const tick = mm % 10 === 0 ? 3 : mm % 5 === 0 ? 2 : 1;
-    doc.moveTo(pt(x + mm), pt(y)).lineTo(pt(x + mm), pt(y - tick)).stroke();
+    doc
+      .moveTo(pt(x + mm), pt(y))
+      .lineTo(pt(x + mm), pt(y - tick))
+      .stroke();
   }
   doc.restore();
   doc
@@ -78,7 +110,11 @@ function drawRuler(doc: PDFKit.PDFDocument, sheet: SheetLayout, page: number, pa
 }
 
 /** One PDF page per sheet, labels where the shared layout puts them, drawn as vectors. */
-export function renderLabelsPdf(labels: readonly LabelContent[], sheet: SheetLayout, start: number): Promise<Buffer> {
+export function renderLabelsPdf(
+  labels: readonly LabelContent[],
+  sheet: SheetLayout,
+  start: number,
+): Promise<Buffer> {
   const doc = new PDFDocument({
     size: [pt(sheet.page.widthMm), pt(sheet.page.heightMm)],
     margin: 0,
@@ -108,7 +144,13 @@ export function renderLabelsPdf(labels: readonly LabelContent[], sheet: SheetLay
       .lineWidth(pt(CUT_LINE_WIDTH_MM))
       .strokeColor('#9a9a9a')
       .dash(1.5, { space: 1.5 })
-      .roundedRect(pt(cell.x - CUT_LINE_OFFSET_MM), pt(cell.y - CUT_LINE_OFFSET_MM), pt(sheet.label.widthMm + 2 * CUT_LINE_OFFSET_MM), pt(sheet.label.heightMm + 2 * CUT_LINE_OFFSET_MM), pt(1))
+      .roundedRect(
+        pt(cell.x - CUT_LINE_OFFSET_MM),
+        pt(cell.y - CUT_LINE_OFFSET_MM),
+        pt(sheet.label.widthMm + 2 * CUT_LINE_OFFSET_MM),
+        pt(sheet.label.heightMm + 2 * CUT_LINE_OFFSET_MM),
+        pt(1),
+      )
       .stroke()
       .restore();
     drawSymbol(doc, label, cell.x, cell.y);

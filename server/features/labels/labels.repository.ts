@@ -20,7 +20,12 @@ export async function labelCodeOf(db: Db, collectionId: string, animalId: string
 }
 
 export async function codesInCollection(db: Db, collectionId: string) {
-  return (await db.select({ c: animals.labelCode }).from(animals).where(eq(animals.collectionId, collectionId))).map((r) => r.c);
+  return (
+    await db
+      .select({ c: animals.labelCode })
+      .from(animals)
+      .where(eq(animals.collectionId, collectionId))
+  ).map((r) => r.c);
 }
 
 export async function setLabelCode(db: Db, animalId: string, labelCode: string, at: Date) {

@@ -13,20 +13,30 @@ const animalParams = z.object({ collectionId: uuid, animalId: uuid });
 export function labelsRoutes(labels: LabelsService, member: (min: Role) => RequestHandler) {
   const router = Router({ mergeParams: true });
 
-  router.post('/labels/pdf', member('keeper'), validate({ body: labelPdfBody }), async (_req, res) => {
-    const { collectionId, labelTag } = membershipOf(res);
-    const pdf = await labels.pdf(collectionId, labelTag, input<LabelPdfBody>(res, 'body'));
-    res
-      .type('application/pdf')
-      .set('Content-Disposition', 'attachment; filename="rackside-labels.pdf"')
-      .set('Cache-Control', 'no-store')
-      .send(pdf);
-  });
+  router.post(
+    '/labels/pdf',
+    member('keeper'),
+    validate({ body: labelPdfBody }),
+    async (_req, res) => {
+      const { collectionId, labelTag } = membershipOf(res);
+      const pdf = await labels.pdf(collectionId, labelTag, input<LabelPdfBody>(res, 'body'));
+      res
+        .type('application/pdf')
+        .set('Content-Disposition', 'attachment; filename="rackside-labels.pdf"')
+        .set('Cache-Control', 'no-store')
+        .send(pdf);
+    },
+  );
 
-  router.post('/animals/:animalId/relabel', member('keeper'), validate({ params: animalParams }), async (_req, res) => {
-    const { animalId } = input<{ animalId: string }>(res, 'params');
-    res.json({ labelCode: await labels.relabel(membershipOf(res).collectionId, animalId) });
-  });
+  router.post(
+    '/animals/:animalId/relabel',
+    member('keeper'),
+    validate({ params: animalParams }),
+    async (_req, res) => {
+      const { animalId } = input<{ animalId: string }>(res, 'params');
+      res.json({ labelCode: await labels.relabel(membershipOf(res).collectionId, animalId) });
+    },
+  );
 
   return router;
 }

@@ -17,18 +17,32 @@ export function createLabelsService(db: Db) {
       const ids = [...new Set(body.animalIds)];
       const rows = await animalsByIds(db, collectionId, ids);
       if (rows.length !== ids.length) {
-        throw new HttpError(404, 'not_found', 'Some of these animals are not in this collection. Reload the list and choose again.');
+        throw new HttpError(
+          404,
+          'not_found',
+          'Some of these animals are not in this collection. Reload the list and choose again.',
+        );
       }
       const byId = new Map(rows.map((r) => [r.id, r]));
       const sheet = sheetLayout(body.sheet, body.size);
       const labels = ids.map((id) => {
         const a = byId.get(id)!;
-        return labelContent({ ...a, cautions: a.cautions as never }, labelTag, body.origin, body.size, body.fields);
+        return labelContent(
+          { ...a, cautions: a.cautions as never },
+          labelTag,
+          body.origin,
+          body.size,
+          body.fields,
+        );
       });
       const problem = printProblem(labels);
       if (problem) throw new HttpError(422, 'label_too_small', problem);
       if (body.start > sheet.perSheet) {
-        throw new HttpError(422, 'invalid', `This sheet has ${sheet.perSheet} positions; start at ${sheet.perSheet} or earlier.`);
+        throw new HttpError(
+          422,
+          'invalid',
+          `This sheet has ${sheet.perSheet} positions; start at ${sheet.perSheet} or earlier.`,
+        );
       }
       // pdfkit (~28 MB resident) loads on the first PDF, not with the server.
       const { renderLabelsPdf } = await import('./labels.pdf');

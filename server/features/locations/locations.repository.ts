@@ -22,33 +22,53 @@ export async function insertAtEndOfWalk(db: Db, collectionId: string, place: Pla
     .select({ last: sql<number>`coalesce(max(${locations.walkOrder}), 0)::int` })
     .from(locations)
     .where(eq(locations.collectionId, collectionId));
-  const [row] = await db.insert(locations).values({ collectionId, ...place, walkOrder: last + 1 }).returning();
+  const [row] = await db
+    .insert(locations)
+    .values({ collectionId, ...place, walkOrder: last + 1 })
+    .returning();
   return row!;
 }
 
 /** The renamed place, or null when it is not in this collection. */
 export async function updatePlace(db: Db, collectionId: string, locationId: string, place: Place) {
-  const [row] = await db.update(locations).set(place).where(and(eq(locations.collectionId, collectionId), eq(locations.id, locationId))).returning();
+  const [row] = await db
+    .update(locations)
+    .set(place)
+    .where(and(eq(locations.collectionId, collectionId), eq(locations.id, locationId)))
+    .returning();
   return row ?? null;
 }
 
 export async function placeIdsOf(db: Db, collectionId: string) {
-  return (await db.select({ id: locations.id }).from(locations).where(eq(locations.collectionId, collectionId))).map((l) => l.id);
+  return (
+    await db
+      .select({ id: locations.id })
+      .from(locations)
+      .where(eq(locations.collectionId, collectionId))
+  ).map((l) => l.id);
 }
 
 /** One statement: each place's new position from its index in the list. */
 export async function setWalkOrder(db: Db, locationIds: string[]) {
-  await db.execute(sql`update locations set walk_order = o.i from unnest(${sql.param(locationIds)}::uuid[]) with ordinality as o(id, i) where locations.id = o.id`);
+  await db.execute(
+    sql`update locations set walk_order = o.i from unnest(${sql.param(locationIds)}::uuid[]) with ordinality as o(id, i) where locations.id = o.id`,
+  );
 }
 
 /** Animals of any status whose last place this is. */
 export async function animalsAt(db: Db, locationId: string) {
-  const [row] = await db.select({ n: count() }).from(animals).where(eq(animals.locationId, locationId));
+  const [row] = await db
+    .select({ n: count() })
+    .from(animals)
+    .where(eq(animals.locationId, locationId));
   return row?.n ?? 0;
 }
 
 /** True when the place was in this collection and is now gone. */
 export async function deletePlace(db: Db, collectionId: string, locationId: string) {
-  const deleted = await db.delete(locations).where(and(eq(locations.collectionId, collectionId), inArray(locations.id, [locationId]))).returning({ id: locations.id });
+  const deleted = await db
+    .delete(locations)
+    .where(and(eq(locations.collectionId, collectionId), inArray(locations.id, [locationId])))
+    .returning({ id: locations.id });
   return deleted.length > 0;
 }

@@ -17,18 +17,42 @@ export function locationsRoutes(service: LocationsService, member: (min: Role) =
     res.json({ locations: await service.list(collectionId(res)) });
   });
   router.post('/', member('keeper'), validate({ body: locationInput }), async (_req, res) => {
-    res.status(201).json(await service.create(collectionId(res), input<LocationInput>(res, 'body')));
+    res
+      .status(201)
+      .json(await service.create(collectionId(res), input<LocationInput>(res, 'body')));
   });
   router.put('/order', member('keeper'), validate({ body: walkOrderBody }), async (_req, res) => {
-    await service.reorder(collectionId(res), input<{ locationIds: string[] }>(res, 'body').locationIds);
+    await service.reorder(
+      collectionId(res),
+      input<{ locationIds: string[] }>(res, 'body').locationIds,
+    );
     res.json({ locations: await service.list(collectionId(res)) });
   });
-  router.patch('/:locationId', member('keeper'), validate({ params: locationParams, body: locationInput }), async (_req, res) => {
-    res.json(await service.rename(collectionId(res), input<{ locationId: string }>(res, 'params').locationId, input<LocationInput>(res, 'body')));
-  });
-  router.delete('/:locationId', member('keeper'), validate({ params: locationParams }), async (_req, res) => {
-    await service.remove(collectionId(res), input<{ locationId: string }>(res, 'params').locationId);
-    res.status(204).end();
-  });
+  router.patch(
+    '/:locationId',
+    member('keeper'),
+    validate({ params: locationParams, body: locationInput }),
+    async (_req, res) => {
+      res.json(
+        await service.rename(
+          collectionId(res),
+          input<{ locationId: string }>(res, 'params').locationId,
+          input<LocationInput>(res, 'body'),
+        ),
+      );
+    },
+  );
+  router.delete(
+    '/:locationId',
+    member('keeper'),
+    validate({ params: locationParams }),
+    async (_req, res) => {
+      await service.remove(
+        collectionId(res),
+        input<{ locationId: string }>(res, 'params').locationId,
+      );
+      res.status(204).end();
+    },
+  );
   return router;
 }

@@ -3,9 +3,18 @@ import type { LocationInput, LocationWithCount } from '#shared/schemas/locations
 import type { Db } from '../../db/client';
 import { isUniqueViolation } from '../../db/errors';
 import { HttpError } from '../../middleware/errors';
-import { animalsAt, deletePlace, insertAtEndOfWalk, listWithAnimalCounts, placeIdsOf, setWalkOrder, updatePlace } from './locations.repository';
+import {
+  animalsAt,
+  deletePlace,
+  insertAtEndOfWalk,
+  listWithAnimalCounts,
+  placeIdsOf,
+  setWalkOrder,
+  updatePlace,
+} from './locations.repository';
 
-const placeTaken = () => new HttpError(409, 'place_taken', 'That place already exists in this collection.');
+const placeTaken = () =>
+  new HttpError(409, 'place_taken', 'That place already exists in this collection.');
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that place.');
 
 export function createLocationsService(db: Db) {
@@ -14,7 +23,15 @@ export function createLocationsService(db: Db) {
     async list(collectionId: string): Promise<LocationWithCount[]> {
       const rows = await listWithAnimalCounts(db, collectionId);
       return rows
-        .map(({ location: l, animals: n }) => ({ id: l.id, room: l.room, rack: l.rack, shelf: l.shelf, position: l.position, walkOrder: l.walkOrder, animals: n }))
+        .map(({ location: l, animals: n }) => ({
+          id: l.id,
+          room: l.room,
+          rack: l.rack,
+          shelf: l.shelf,
+          position: l.position,
+          walkOrder: l.walkOrder,
+          animals: n,
+        }))
         .sort(compareLocations);
     },
 
@@ -44,7 +61,11 @@ export function createLocationsService(db: Db) {
       await db.transaction(async (tx) => {
         const all = await placeIdsOf(tx, collectionId);
         const given = new Set(locationIds);
-        if (given.size !== locationIds.length || all.length !== given.size || all.some((id) => !given.has(id))) {
+        if (
+          given.size !== locationIds.length ||
+          all.length !== given.size ||
+          all.some((id) => !given.has(id))
+        ) {
           throw new HttpError(422, 'invalid', 'List every place of the collection exactly once.');
         }
         await setWalkOrder(tx, locationIds);
@@ -52,7 +73,12 @@ export function createLocationsService(db: Db) {
     },
 
     async remove(collectionId: string, locationId: string) {
-      if ((await animalsAt(db, locationId)) > 0) throw new HttpError(409, 'not_empty', 'Animals still live here (or did). Move them first; retired animals keep their last place.');
+      if ((await animalsAt(db, locationId)) > 0)
+        throw new HttpError(
+          409,
+          'not_empty',
+          'Animals still live here (or did). Move them first; retired animals keep their last place.',
+        );
       if (!(await deletePlace(db, collectionId, locationId))) throw notFound();
     },
   };

@@ -16,5 +16,12 @@ export function imageTypeOf(bytes: Uint8Array): ImageType | null {
 /** A name with no folder in it: no slashes, no "..", no control characters. */
 export function isPlainFileName(name: string): boolean {
   const control = [...name].some((c) => c.charCodeAt(0) < 0x20);
-  return name.length > 0 && name.length <= 255 && !control && !/[/\\]/.test(name) && !name.includes('..') && !/^\.+$/.test(name);
+  return (
+    name.length > 0 &&
+    name.length <= 255 &&
+    !control &&
+    !/[/\\]/.test(name) &&
+    !name.includes('..') &&
+    !/^\.+$/.test(name)
+  );
 }

@@ -40,7 +40,8 @@ async function sweepOldWorkspaces(parent: string) {
   for (const name of entries) {
     const full = path.join(parent, name);
     const stat = await fs.stat(full).catch(() => null);
-    if (stat && Date.now() - stat.mtimeMs > STALE_WORKSPACE_MS) await fs.rm(full, { recursive: true, force: true });
+    if (stat && Date.now() - stat.mtimeMs > STALE_WORKSPACE_MS)
+      await fs.rm(full, { recursive: true, force: true });
   }
 }
 
@@ -49,14 +50,26 @@ async function sweepOldWorkspaces(parent: string) {
  * Anything else is refused before libvips decodes it (a huge canvas would cost memory).
  */
 async function restoredThumbnail(webp: Buffer): Promise<Buffer> {
-  if (imageTypeOf(webp) !== 'webp') throw new HttpError(422, 'invalid', 'This photo is not a WebP image.');
+  if (imageTypeOf(webp) !== 'webp')
+    throw new HttpError(422, 'invalid', 'This photo is not a WebP image.');
   try {
-    const image = (await loadSharp())(webp, { failOn: 'error', limitInputPixels: PHOTO_SIZES.full * PHOTO_SIZES.full });
+    const image = (await loadSharp())(webp, {
+      failOn: 'error',
+      limitInputPixels: PHOTO_SIZES.full * PHOTO_SIZES.full,
+    });
     const { width = 0, height = 0 } = await image.metadata();
-    if (!width || !height || Math.max(width, height) > PHOTO_SIZES.full) throw new Error('too large');
-    return await image.resize(PHOTO_SIZES.thumb, PHOTO_SIZES.thumb, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer();
+    if (!width || !height || Math.max(width, height) > PHOTO_SIZES.full)
+      throw new Error('too large');
+    return await image
+      .resize(PHOTO_SIZES.thumb, PHOTO_SIZES.thumb, { fit: 'inside', withoutEnlargement: true })
+      .webp({ quality: 80 })
+      .toBuffer();
   } catch {
-    throw new HttpError(422, 'invalid', `This photo could not be read, or is larger than the ${PHOTO_SIZES.full} px a side Rackside keeps.`);
+    throw new HttpError(
+      422,
+      'invalid',
+      `This photo could not be read, or is larger than the ${PHOTO_SIZES.full} px a side Rackside keeps.`,
+    );
   }
 }
 
@@ -66,7 +79,8 @@ async function restoredThumbnail(webp: Buffer): Promise<Buffer> {
  */
 export function createPhotosService(db: Db, storageDir: string, now: () => Date) {
   const folder = (collectionId: string) => path.join(storageDir, 'photos', collectionId);
-  const fileOf = (collectionId: string, key: string, size: PhotoSize) => path.join(folder(collectionId), `${key}-${size}.webp`);
+  const fileOf = (collectionId: string, key: string, size: PhotoSize) =>
+    path.join(folder(collectionId), `${key}-${size}.webp`);
 
   async function keyOf(collectionId: string, animalId: string) {
     const key = await animalPhotoKey(db, collectionId, animalId);
@@ -76,36 +90,73 @@ export function createPhotosService(db: Db, storageDir: string, now: () => Date)
 
   async function removeFiles(collectionId: string, key: string | null) {
     if (!key) return;
-    await Promise.all(Object.keys(PHOTO_SIZES).map((s) => fs.rm(fileOf(collectionId, key, s as PhotoSize), { force: true })));
+    await Promise.all(
+      Object.keys(PHOTO_SIZES).map((s) =>
+        fs.rm(fileOf(collectionId, key, s as PhotoSize), { force: true }),
+      ),
+    );
   }
 
   /** Checks an upload and writes it at both sizes under a new key; nothing is written if it fails. */
-  async function store(collectionId: string, file: { buffer: Buffer; originalname: string } | undefined): Promise<string> {
-    if (!file || file.buffer.length === 0) throw new HttpError(400, 'empty', 'Choose a photo to upload; the file was empty.');
-    if (!isPlainFileName(file.originalname)) throw new HttpError(400, 'bad_name', 'That file name is not allowed. Rename the photo and try again.');
-    if (!imageTypeOf(file.buffer)) throw new HttpError(415, 'not_an_image', 'Photos must be JPEG, PNG or WebP images.');
+  async function store(
+    collectionId: string,
+    file: { buffer: Buffer; originalname: string } | undefined,
+  ): Promise<string> {
+    if (!file || file.buffer.length === 0)
+      throw new HttpError(400, 'empty', 'Choose a photo to upload; the file was empty.');
+    if (!isPlainFileName(file.originalname))
+      throw new HttpError(
+        400,
+        'bad_name',
+        'That file name is not allowed. Rename the photo and try again.',
+      );
+    if (!imageTypeOf(file.buffer))
+      throw new HttpError(415, 'not_an_image', 'Photos must be JPEG, PNG or WebP images.');
     const key = randomUUID();
     let images: Buffer[];
     try {
       images = await Promise.all(
-        Object.values(PHOTO_SIZES).map(async (px) => (await loadSharp())(file.buffer, { failOn: 'error' }).rotate().resize(px, px, { fit: 'inside', withoutEnlargement: true }).webp({ quality: 80 }).toBuffer()),
+        Object.values(PHOTO_SIZES).map(async (px) =>
+          (await loadSharp())(file.buffer, { failOn: 'error' })
+            .rotate()
+            .resize(px, px, { fit: 'inside', withoutEnlargement: true })
+            .webp({ quality: 80 })
+            .toBuffer(),
+        ),
       );
     } catch {
-      throw new HttpError(415, 'not_an_image', 'That image could not be read. It may be damaged; try another photo.');
+      throw new HttpError(
+        415,
+        'not_an_image',
+        'That image could not be read. It may be damaged; try another photo.',
+      );
     }
     await fs.mkdir(folder(collectionId), { recursive: true });
-    await Promise.all(Object.keys(PHOTO_SIZES).map((s, i) => fs.writeFile(fileOf(collectionId, key, s as PhotoSize), images[i]!)));
+    await Promise.all(
+      Object.keys(PHOTO_SIZES).map((s, i) =>
+        fs.writeFile(fileOf(collectionId, key, s as PhotoSize), images[i]!),
+      ),
+    );
     return key;
   }
 
   async function moltOf(collectionId: string, animalId: string, eventId: string) {
     const row = await findMolt(db, collectionId, animalId, eventId);
-    if (!row) throw new HttpError(404, 'not_found', 'We could not find that molt. If you recorded it offline, let it sync first.');
+    if (!row)
+      throw new HttpError(
+        404,
+        'not_found',
+        'We could not find that molt. If you recorded it offline, let it sync first.',
+      );
     return row;
   }
 
   return {
-    async save(collectionId: string, animalId: string, file: { buffer: Buffer; originalname: string } | undefined) {
+    async save(
+      collectionId: string,
+      animalId: string,
+      file: { buffer: Buffer; originalname: string } | undefined,
+    ) {
       const previous = await keyOf(collectionId, animalId);
       const key = await store(collectionId, file);
       const at = now();
@@ -115,14 +166,24 @@ export function createPhotosService(db: Db, storageDir: string, now: () => Date)
     },
 
     /** A photo of a molt (the exuviae), shown in the animal's timeline. */
-    async saveMolt(collectionId: string, animalId: string, eventId: string, file: { buffer: Buffer; originalname: string } | undefined) {
+    async saveMolt(
+      collectionId: string,
+      animalId: string,
+      eventId: string,
+      file: { buffer: Buffer; originalname: string } | undefined,
+    ) {
       const molt = await moltOf(collectionId, animalId, eventId);
       const key = await store(collectionId, file);
       await setMoltPhoto(db, collectionId, eventId, key, now());
       await removeFiles(collectionId, molt.key);
     },
 
-    async moltFile(collectionId: string, animalId: string, eventId: string, size: PhotoSize): Promise<string> {
+    async moltFile(
+      collectionId: string,
+      animalId: string,
+      eventId: string,
+      size: PhotoSize,
+    ): Promise<string> {
       const molt = await moltOf(collectionId, animalId, eventId);
       if (!molt.key) throw new HttpError(404, 'no_photo', 'This molt has no photo.');
       return fileOf(collectionId, molt.key, size);
@@ -158,7 +219,8 @@ export function createPhotosService(db: Db, storageDir: string, now: () => Date)
         async commit(collectionId: string) {
           await fs.mkdir(folder(collectionId), { recursive: true });
           for (const key of staged) {
-            for (const size of Object.keys(PHOTO_SIZES) as PhotoSize[]) await fs.rename(stagedFile(key, size), fileOf(collectionId, key, size));
+            for (const size of Object.keys(PHOTO_SIZES) as PhotoSize[])
+              await fs.rename(stagedFile(key, size), fileOf(collectionId, key, size));
           }
           staged.length = 0;
         },

@@ -7,7 +7,14 @@ import type { RoundResponse } from '#shared/schemas/rounds';
 import type { Db } from '../../db/client';
 import { rulesOf, toEngineAnimal, type RoundInput } from './round-input';
 import type { BuiltPart } from './round-view';
-import { claimRound, collectionsWithLatestRound, findRound, insertRoundItems, loadRoundItems, type RoundCollection } from './rounds.repository';
+import {
+  claimRound,
+  collectionsWithLatestRound,
+  findRound,
+  insertRoundItems,
+  loadRoundItems,
+  type RoundCollection,
+} from './rounds.repository';
 
 export function createRoundBuilder(db: Db, now: () => Date, input: RoundInput) {
   /**
@@ -62,7 +69,9 @@ export function createRoundBuilder(db: Db, now: () => Date, input: RoundInput) {
    * The scheduled job: every collection whose local day has begun without a round gets it
    * built. Runs every few minutes, so "shortly after local midnight" in every zone, DST too.
    */
-  async function buildDueRounds(onFailure?: (collectionId: string, err: unknown) => void): Promise<string[]> {
+  async function buildDueRounds(
+    onFailure?: (collectionId: string, err: unknown) => void,
+  ): Promise<string[]> {
     const built: string[] = [];
     const failed: unknown[] = [];
     for (const c of await collectionsWithLatestRound(db)) {
@@ -77,7 +86,11 @@ export function createRoundBuilder(db: Db, now: () => Date, input: RoundInput) {
         else failed.push(err);
       }
     }
-    if (failed.length) throw new AggregateError(failed, `${failed.length} collection(s) could not have their round built.`);
+    if (failed.length)
+      throw new AggregateError(
+        failed,
+        `${failed.length} collection(s) could not have their round built.`,
+      );
     return built;
   }
 

@@ -11,7 +11,10 @@ describe('LatestByKey', () => {
       await new Promise((r) => setTimeout(r, 5));
       return n;
     };
-    const [a, b] = await Promise.all([cache.get('c1', 'k1', make(1)), cache.get('c1', 'k1', make(2))]);
+    const [a, b] = await Promise.all([
+      cache.get('c1', 'k1', make(1)),
+      cache.get('c1', 'k1', make(2)),
+    ]);
     expect([a, b, made]).toEqual([1, 1, 1]);
     expect(await cache.get('c1', 'k2', make(3))).toBe(3);
     expect(await cache.get('c1', 'k2', make(4))).toBe(3);
@@ -20,7 +23,9 @@ describe('LatestByKey', () => {
 
   it('forgets a failure and the oldest owner beyond its size', async () => {
     const cache = new LatestByKey<number>(2);
-    await expect(cache.get('c1', 'k', () => Promise.reject(new Error('down')))).rejects.toThrow('down');
+    await expect(cache.get('c1', 'k', () => Promise.reject(new Error('down')))).rejects.toThrow(
+      'down',
+    );
     await new Promise((r) => setTimeout(r, 0));
     expect(await cache.get('c1', 'k', async () => 7)).toBe(7);
     await cache.get('c2', 'k', async () => 8);

@@ -48,7 +48,8 @@ export class LatestByKey<T> {
       if (this.entries.get(owner)?.value === value) this.entries.delete(owner);
     });
     // Oldest owners leave first once there are too many (Map keeps insertion order).
-    while (this.entries.size > this.maxOwners) this.entries.delete(this.entries.keys().next().value!);
+    while (this.entries.size > this.maxOwners)
+      this.entries.delete(this.entries.keys().next().value!);
     return value;
   }
 }
@@ -59,8 +60,16 @@ export class LatestByKey<T> {
  * serialised again. Items are remembered by identity, so a cached built part keeps them warm.
  */
 export function createRoundJson() {
-  const itemJson = new WeakMap<ViewInput, { signature: string; view: RoundItemView; json: string }>();
-  return (zone: string, date: LocalDate, part: BuiltPart, outcomes: Map<string, DayOutcome[]>): string => {
+  const itemJson = new WeakMap<
+    ViewInput,
+    { signature: string; view: RoundItemView; json: string }
+  >();
+  return (
+    zone: string,
+    date: LocalDate,
+    part: BuiltPart,
+    outcomes: Map<string, DayOutcome[]>,
+  ): string => {
     const entries = part.items.map((item) => {
       const own = outcomes.get(item.animal.id) ?? [];
       const signature = own.map((o) => `${o.eventId}:${o.by ?? ''}`).join(',');

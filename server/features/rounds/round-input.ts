@@ -9,12 +9,23 @@ import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
 import { toAnimalSummary } from '../animals/animal-summary';
 import { eventLogsOf } from '../events/projection';
-import { doNotFeedNotes, findCollection, loadAnimalsWithState, loadOutcomes, type AnimalRow, type RoundCollection } from './rounds.repository';
+import {
+  doNotFeedNotes,
+  findCollection,
+  loadAnimalsWithState,
+  loadOutcomes,
+  type AnimalRow,
+  type RoundCollection,
+} from './rounds.repository';
 
 export const rulesOf = (c: RoundCollection): RoundRules => effectiveRules(c.rules as RulesOverride);
 
 /** `withAddedOn`: the join date only matters for an animal never fed, and costs a zone lookup. */
-export function toEngineAnimal(row: Pick<AnimalRow, 'animal' | 'location'>, zone: string, withAddedOn = true): EngineAnimal {
+export function toEngineAnimal(
+  row: Pick<AnimalRow, 'animal' | 'location'>,
+  zone: string,
+  withAddedOn = true,
+): EngineAnimal {
   return {
     ...toAnimalSummary(row.animal, row.location),
     addedOn: withAddedOn ? localDateOf(row.animal.createdAt, zone) : null,
@@ -35,11 +46,16 @@ export function createRoundInput(db: Db, now: () => Date) {
   async function engineInput(c: RoundCollection, before?: LocalDate, animalIds?: string[]) {
     const rows = await loadAnimalsWithState(db, c.id, animalIds);
     const cutoff = before ? startOfLocalDate(before, c.timeZone) : null;
-    const stale = rows.filter((r) => cutoff && r.lastEventAt && r.lastEventAt >= cutoff).map((r) => r.animal.id);
+    const stale = rows
+      .filter((r) => cutoff && r.lastEventAt && r.lastEventAt >= cutoff)
+      .map((r) => r.animal.id);
     const logs = await eventLogsOf(db, stale);
     // A handover note "do not feed during the cover" holds feeding through its last day.
     const holds = new Map(
-      (await doNotFeedNotes(db, c.id, before ?? localDateOf(now(), c.timeZone))).map((h) => [h.animalId, addDays(h.until, 1)]),
+      (await doNotFeedNotes(db, c.id, before ?? localDateOf(now(), c.timeZone))).map((h) => [
+        h.animalId,
+        addDays(h.until, 1),
+      ]),
     );
     return rows.map((r) => {
       const state = logs.has(r.animal.id)
@@ -57,7 +73,13 @@ export function createRoundInput(db: Db, now: () => Date) {
 
   /** A day's outcomes, with who recorded them, by animal. */
   async function outcomesByAnimal(c: RoundCollection, date: LocalDate, animalIds?: string[]) {
-    const rows = await loadOutcomes(db, c.id, startOfLocalDate(date, c.timeZone), startOfLocalDate(addDays(date, 1), c.timeZone), animalIds);
+    const rows = await loadOutcomes(
+      db,
+      c.id,
+      startOfLocalDate(date, c.timeZone),
+      startOfLocalDate(addDays(date, 1), c.timeZone),
+      animalIds,
+    );
     const map = new Map<string, DayOutcome[]>();
     for (const r of rows) {
       const outcome: DayOutcome = {

@@ -24,7 +24,17 @@ export interface BuiltPart {
 /** What the round shows of an animal: enough to find it and handle it safely. */
 function animalView(a: EngineAnimal): RoundItemView['animal'] {
   const { id, labelCode, name, scientificName, group, lifeStage, sex, cautions, location } = a;
-  return { id, labelCode, name, scientificName, group, lifeStage, sex, cautions, location: location ?? null };
+  return {
+    id,
+    labelCode,
+    name,
+    scientificName,
+    group,
+    lifeStage,
+    sex,
+    cautions,
+    location: location ?? null,
+  };
 }
 
 export function viewItem(zone: string, item: ViewInput, outcomes: DayOutcome[]): RoundItemView {
@@ -41,7 +51,12 @@ export function viewItem(zone: string, item: ViewInput, outcomes: DayOutcome[]):
   };
 }
 
-export function roundView(zone: string, date: LocalDate, part: BuiltPart, outcomes: Map<string, DayOutcome[]>): RoundResponse {
+export function roundView(
+  zone: string,
+  date: LocalDate,
+  part: BuiltPart,
+  outcomes: Map<string, DayOutcome[]>,
+): RoundResponse {
   const items = part.items.map((item) => viewItem(zone, item, outcomes.get(item.animal.id) ?? []));
   return {
     date,

@@ -7,7 +7,11 @@ import { animalStates, roundItems, rounds } from '../../db/schema/rounds';
 import { users } from '../../db/schema/users';
 
 export async function findCollection(db: Db, collectionId: string) {
-  const [row] = await db.select().from(collections).where(eq(collections.id, collectionId)).limit(1);
+  const [row] = await db
+    .select()
+    .from(collections)
+    .where(eq(collections.id, collectionId))
+    .limit(1);
   return row ?? null;
 }
 /** A collection as the round reads it: its zone, rules and feeders. */
@@ -20,11 +24,20 @@ export async function updateCollectionRules(db: Db, collectionId: string, rules:
 /** Every animal of a collection with its place and its projected state (one query). */
 export async function loadAnimalsWithState(db: Db, collectionId: string, animalIds?: string[]) {
   return db
-    .select({ animal: animals, location: locations, state: animalStates.state, lastEventAt: animalStates.lastEventAt })
+    .select({
+      animal: animals,
+      location: locations,
+      state: animalStates.state,
+      lastEventAt: animalStates.lastEventAt,
+    })
     .from(animals)
     .leftJoin(locations, eq(locations.id, animals.locationId))
     .leftJoin(animalStates, eq(animalStates.animalId, animals.id))
-    .where(animalIds ? and(eq(animals.collectionId, collectionId), inArray(animals.id, animalIds)) : eq(animals.collectionId, collectionId));
+    .where(
+      animalIds
+        ? and(eq(animals.collectionId, collectionId), inArray(animals.id, animalIds))
+        : eq(animals.collectionId, collectionId),
+    );
 }
 export type AnimalRow = Awaited<ReturnType<typeof loadAnimalsWithState>>[number];
 
@@ -33,11 +46,21 @@ export async function doNotFeedNotes(db: Db, collectionId: string, from: LocalDa
   return db
     .select({ animalId: handoverNotes.animalId, until: handoverNotes.until })
     .from(handoverNotes)
-    .where(and(eq(handoverNotes.collectionId, collectionId), eq(handoverNotes.doNotFeed, true), gte(handoverNotes.until, from)));
+    .where(
+      and(
+        eq(handoverNotes.collectionId, collectionId),
+        eq(handoverNotes.doNotFeed, true),
+        gte(handoverNotes.until, from),
+      ),
+    );
 }
 
 export async function findRound(db: Db, collectionId: string, date: LocalDate) {
-  const [row] = await db.select().from(rounds).where(and(eq(rounds.collectionId, collectionId), eq(rounds.localDate, date))).limit(1);
+  const [row] = await db
+    .select()
+    .from(rounds)
+    .where(and(eq(rounds.collectionId, collectionId), eq(rounds.localDate, date)))
+    .limit(1);
   return row ?? null;
 }
 
@@ -57,7 +80,11 @@ export type NewRoundItem = typeof roundItems.$inferInsert;
  * Writes a round's items as one JSON document per 5,000 rows: PostgreSQL unpacks it with
  * jsonb_to_recordset far faster than it binds tens of thousands of parameters.
  */
-export async function insertRoundItems(db: Db, roundId: string, items: Omit<NewRoundItem, 'roundId'>[]) {
+export async function insertRoundItems(
+  db: Db,
+  roundId: string,
+  items: Omit<NewRoundItem, 'roundId'>[],
+) {
   for (let i = 0; i < items.length; i += 5000) {
     const chunk = items.slice(i, i + 5000).map((it) => ({
       animal_id: it.animalId,
@@ -78,7 +105,10 @@ export async function upsertUrgentItem(db: Db, item: NewRoundItem) {
   await db
     .insert(roundItems)
     .values(item)
-    .onConflictDoUpdate({ target: [roundItems.roundId, roundItems.animalId], set: { tasks: item.tasks, notes: item.notes, addedDuringDay: true } });
+    .onConflictDoUpdate({
+      target: [roundItems.roundId, roundItems.animalId],
+      set: { tasks: item.tasks, notes: item.notes, addedDuringDay: true },
+    });
 }
 
 /** A day's item with tasks changed during the day (a hold withdrew some, R18). */
@@ -88,33 +118,72 @@ export async function updateItemTasks(db: Db, itemId: string, tasks: unknown) {
 
 /** A round's items with their animals; only some animals' items when `animalIds` is given. */
 export async function loadRoundItems(db: Db, roundId: string, animalIds?: string[]) {
-  return db
-    .select({ item: roundItems, animal: animals, location: locations })
-    .from(roundItems)
-    .innerJoin(animals, eq(animals.id, roundItems.animalId))
-    .leftJoin(locations, eq(locations.id, animals.locationId))
-    // An animal retired during the day leaves today's round at once.
-    .where(and(eq(roundItems.roundId, roundId), eq(animals.status, 'active'), animalIds ? inArray(roundItems.animalId, animalIds) : undefined))
-    .orderBy(asc(roundItems.sortIndex));
+  return (
+    db
+      .select({ item: roundItems, animal: animals, location: locations })
+      .from(roundItems)
+      .innerJoin(animals, eq(animals.id, roundItems.animalId))
+      .leftJoin(locations, eq(locations.id, animals.locationId))
+      // An animal retired during the day leaves today's round at once.
+      .where(
+        and(
+          eq(roundItems.roundId, roundId),
+          eq(animals.status, 'active'),
+          animalIds ? inArray(roundItems.animalId, animalIds) : undefined,
+        ),
+      )
+      .orderBy(asc(roundItems.sortIndex))
+  );
 }
 
 /**
  * A collection's events in [from, to) with who recorded them: the day's outcomes. Plain SQL
  * with only the fields a round shows (not the whole payload): it runs whenever a tap lands.
  */
-export async function loadOutcomes(db: Db, collectionId: string, from: Date, to: Date, animalIds?: string[]) {
-  const { rows } = await db.execute<{ id: string; animal_id: string; kind: string; effective_at: Date; target_id: string | null; by: string | null }>(sql`
+export async function loadOutcomes(
+  db: Db,
+  collectionId: string,
+  from: Date,
+  to: Date,
+  animalIds?: string[],
+) {
+  const { rows } = await db.execute<{
+    id: string;
+    animal_id: string;
+    kind: string;
+    effective_at: Date;
+    target_id: string | null;
+    by: string | null;
+  }>(sql`
     select e.id, e.animal_id, e.kind, e.effective_at, e.payload ->> 'targetId' as target_id, u.display_name as by
     from ${events} e left join ${users} u on u.id = e.recorded_by
     where e.collection_id = ${collectionId} and e.effective_at >= ${from.toISOString()} and e.effective_at < ${to.toISOString()}
-      ${animalIds ? sql`and e.animal_id in (${sql.join(animalIds.map((id) => sql`${id}::uuid`), sql`, `)})` : sql``}`);
-  return rows.map((r) => ({ id: r.id, animalId: r.animal_id, kind: r.kind, effectiveAt: new Date(r.effective_at), targetId: r.target_id, by: r.by }));
+      ${
+        animalIds
+          ? sql`and e.animal_id in (${sql.join(
+              animalIds.map((id) => sql`${id}::uuid`),
+              sql`, `,
+            )})`
+          : sql``
+      }`);
+  return rows.map((r) => ({
+    id: r.id,
+    animalId: r.animal_id,
+    kind: r.kind,
+    effectiveAt: new Date(r.effective_at),
+    targetId: r.target_id,
+    by: r.by,
+  }));
 }
 
 /** Each collection with the date of its newest built round (null when none). */
 export async function collectionsWithLatestRound(db: Db) {
   return db
-    .select({ id: collections.id, timeZone: collections.timeZone, latest: sql<string | null>`max(${rounds.localDate})` })
+    .select({
+      id: collections.id,
+      timeZone: collections.timeZone,
+      latest: sql<string | null>`max(${rounds.localDate})`,
+    })
     .from(collections)
     .leftJoin(rounds, eq(rounds.collectionId, collections.id))
     .groupBy(collections.id);

@@ -41,9 +41,19 @@ export function roundsRoutes(rounds: RoundsService, member: Member) {
 /** Mounted on /collections/:collectionId/prep-list. */
 export function prepListRoutes(rounds: RoundsService, member: Member) {
   const router = Router({ mergeParams: true });
-  router.get('/', member('keeper'), validate({ query: z.object({ date: localDate }) }), async (_req, res) => {
-    res.json({ prepList: await rounds.prepList(collectionId(res), input<{ date: string }>(res, 'query').date) });
-  });
+  router.get(
+    '/',
+    member('keeper'),
+    validate({ query: z.object({ date: localDate }) }),
+    async (_req, res) => {
+      res.json({
+        prepList: await rounds.prepList(
+          collectionId(res),
+          input<{ date: string }>(res, 'query').date,
+        ),
+      });
+    },
+  );
   return router;
 }
 
@@ -60,17 +70,32 @@ export function animalScheduleRoutes(
 ) {
   const router = Router({ mergeParams: true });
 
-  router.get('/schedule', member('keeper'), validate({ params: animalParams }), async (_req, res) => {
-    res.json(await rounds.schedule(collectionId(res), input<{ animalId: string }>(res, 'params').animalId));
-  });
+  router.get(
+    '/schedule',
+    member('keeper'),
+    validate({ params: animalParams }),
+    async (_req, res) => {
+      res.json(
+        await rounds.schedule(
+          collectionId(res),
+          input<{ animalId: string }>(res, 'params').animalId,
+        ),
+      );
+    },
+  );
 
-  router.patch('/care', member('keeper'), validate({ params: animalParams, body: careSettingsBody }), async (_req, res) => {
-    const { animalId } = input<{ animalId: string }>(res, 'params');
-    await updateCare(collectionId(res), animalId, input<CareSettingsBody>(res, 'body'));
-    // A keeper's hold set or lifted today changes today's feed task at once (R18).
-    await rounds.reconcileToday(collectionId(res), [animalId]);
-    res.json(await rounds.schedule(collectionId(res), animalId));
-  });
+  router.patch(
+    '/care',
+    member('keeper'),
+    validate({ params: animalParams, body: careSettingsBody }),
+    async (_req, res) => {
+      const { animalId } = input<{ animalId: string }>(res, 'params');
+      await updateCare(collectionId(res), animalId, input<CareSettingsBody>(res, 'body'));
+      // A keeper's hold set or lifted today changes today's feed task at once (R18).
+      await rounds.reconcileToday(collectionId(res), [animalId]);
+      res.json(await rounds.schedule(collectionId(res), animalId));
+    },
+  );
 
   return router;
 }

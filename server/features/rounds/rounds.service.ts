@@ -23,7 +23,12 @@ export function createRoundsService(db: Db, now: () => Date) {
   const today = (c: { timeZone: string }): LocalDate => localDateOf(now(), c.timeZone);
 
   async function roundFor(c: RoundCollection, date: LocalDate): Promise<RoundResponse> {
-    return roundView(c.timeZone, date, await builder.builtPart(c, date), await input.outcomesByAnimal(c, date));
+    return roundView(
+      c.timeZone,
+      date,
+      await builder.builtPart(c, date),
+      await input.outcomesByAnimal(c, date),
+    );
   }
 
   /** Tomorrow as things stand now (not materialised: today's outcomes still change it). */
@@ -32,8 +37,17 @@ export function createRoundsService(db: Db, now: () => Date) {
     const date = addDays(today(c), 1);
     const rules = rulesOf(c);
     const round = buildRound(await input.engineInput(c), rules, date);
-    const items = round.items.map((i) => ({ ...i, addedDuringDay: false, postMoltHoldDays: postMoltHoldDays(rules, i.animal) }));
-    return roundView(c.timeZone, date, { builtAt: null, prepList: round.prepList, items }, new Map());
+    const items = round.items.map((i) => ({
+      ...i,
+      addedDuringDay: false,
+      postMoltHoldDays: postMoltHoldDays(rules, i.animal),
+    }));
+    return roundView(
+      c.timeZone,
+      date,
+      { builtAt: null, prepList: round.prepList, items },
+      new Map(),
+    );
   }
 
   // Today's round per collection, kept while the collection's change counters stand still:
@@ -60,16 +74,24 @@ export function createRoundsService(db: Db, now: () => Date) {
     },
 
     /** Today's round as JSON bytes with an ETag, shared by every request until it changes. */
-    async todayRoundSerialised(collectionId: string, revision: { records: number; events: number }): Promise<SerialisedRound> {
+    async todayRoundSerialised(
+      collectionId: string,
+      revision: { records: number; events: number },
+    ): Promise<SerialisedRound> {
       // The counters come first (the membership check read them): whatever is loaded after
       // them is at least as new as they say.
-      const c = await collectionCache.get(collectionId, String(revision.records), () => input.collectionOf(collectionId));
+      const c = await collectionCache.get(collectionId, String(revision.records), () =>
+        input.collectionOf(collectionId),
+      );
       const date = today(c);
       const partKey = `${date}|${revision.records}`;
       const key = `${collectionId}|${partKey}|${revision.events}`;
       return serialised.get(collectionId, key, async () => {
         const part = await builtParts.get(collectionId, partKey, () => builder.builtPart(c, date));
-        return serialiseRound(key, roundJson(c.timeZone, date, part, await input.outcomesByAnimal(c, date)));
+        return serialiseRound(
+          key,
+          roundJson(c.timeZone, date, part, await input.outcomesByAnimal(c, date)),
+        );
       });
     },
 
@@ -86,7 +108,12 @@ export function createRoundsService(db: Db, now: () => Date) {
       if (date === now) return (await roundFor(c, date)).prepList;
       if (date === addDays(now, 1)) return (await tomorrowPreview(c.id)).prepList;
       const row = await findRound(db, c.id, date);
-      if (!row) throw new HttpError(404, 'no_round', 'There is no round for that date. Prep lists exist for past rounds, today and tomorrow.');
+      if (!row)
+        throw new HttpError(
+          404,
+          'no_round',
+          'There is no round for that date. Prep lists exist for past rounds, today and tomorrow.',
+        );
       return row.prepList as RoundResponse['prepList'];
     },
 

@@ -7,7 +7,10 @@ import { input, validate } from '../../middleware/validate';
 import type { RoundsService } from './rounds.service';
 
 /** Mounted on /collections/:collectionId/rules: the collection's round rules, for keepers. */
-export function rulesRoutes(rounds: Pick<RoundsService, 'rules' | 'replaceRules'>, member: (min: Role) => RequestHandler) {
+export function rulesRoutes(
+  rounds: Pick<RoundsService, 'rules' | 'replaceRules'>,
+  member: (min: Role) => RequestHandler,
+) {
   const router = Router({ mergeParams: true });
 
   router.get('/', member('keeper'), async (_req, res) => {
@@ -15,7 +18,9 @@ export function rulesRoutes(rounds: Pick<RoundsService, 'rules' | 'replaceRules'
   });
 
   router.put('/', member('keeper'), validate({ body: rulesOverride }), async (_req, res) => {
-    res.json(await rounds.replaceRules(membershipOf(res).collectionId, input<RulesOverride>(res, 'body')));
+    res.json(
+      await rounds.replaceRules(membershipOf(res).collectionId, input<RulesOverride>(res, 'body')),
+    );
   });
 
   return router;

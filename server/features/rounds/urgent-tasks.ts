@@ -13,11 +13,24 @@ import { findRound, loadRoundItems, updateItemTasks, upsertUrgentItem } from './
  * out to be) in premolt or molting must come out at once, and a hold that begins withdraws the
  * open feed task (R18); an undo may lift one.
  */
-export const SAME_DAY_TRIGGERS: readonly EventKind[] = ['prey_left_in', 'premolt_seen', 'molting_now', 'molted', 'sac_laid', 'sac_pulled', 'premolt_cleared', 'void'];
+export const SAME_DAY_TRIGGERS: readonly EventKind[] = [
+  'prey_left_in',
+  'premolt_seen',
+  'molting_now',
+  'molted',
+  'sac_laid',
+  'sac_pulled',
+  'premolt_cleared',
+  'void',
+];
 
 /** The animals whose newly recorded facts may change today's round. */
-export function animalsToReconcile(recorded: readonly { animalId: string; kind: EventKind }[]): string[] {
-  return [...new Set(recorded.filter((e) => SAME_DAY_TRIGGERS.includes(e.kind)).map((e) => e.animalId))];
+export function animalsToReconcile(
+  recorded: readonly { animalId: string; kind: EventKind }[],
+): string[] {
+  return [
+    ...new Set(recorded.filter((e) => SAME_DAY_TRIGGERS.includes(e.kind)).map((e) => e.animalId)),
+  ];
 }
 
 export function createUrgentTasks(db: Db, now: () => Date, input: RoundInput) {
@@ -33,13 +46,21 @@ export function createUrgentTasks(db: Db, now: () => Date, input: RoundInput) {
       const date = localDateOf(now(), c.timeZone);
       const row = await findRound(db, c.id, date);
       if (!row) return;
-      const existing = new Map((await loadRoundItems(db, row.id, animalIds)).map((r) => [r.animal.id, r.item]));
+      const existing = new Map(
+        (await loadRoundItems(db, row.id, animalIds)).map((r) => [r.animal.id, r.item]),
+      );
       const outcomes = await input.outcomesByAnimal(c, date, animalIds);
       const rules = rulesOf(c);
       for (const { animal, state } of await input.engineInput(c, undefined, animalIds)) {
         const d = decideAnimal(animal, state, rules, date);
         const item = existing.get(animal.id);
-        const { tasks, changed, urgent } = reconcileTasks((item?.tasks as RoundTask[] | undefined) ?? [], d, state, outcomes.get(animal.id) ?? [], date);
+        const { tasks, changed, urgent } = reconcileTasks(
+          (item?.tasks as RoundTask[] | undefined) ?? [],
+          d,
+          state,
+          outcomes.get(animal.id) ?? [],
+          date,
+        );
         if (urgent) {
           await upsertUrgentItem(db, {
             roundId: row.id,
@@ -57,7 +78,11 @@ export function createUrgentTasks(db: Db, now: () => Date, input: RoundInput) {
     },
 
     /** Whether food is withheld from these animals on a date, and why (a meal then is flagged). */
-    async feedHolds(collectionId: string, animalIds: string[], date: LocalDate): Promise<Map<string, Reason>> {
+    async feedHolds(
+      collectionId: string,
+      animalIds: string[],
+      date: LocalDate,
+    ): Promise<Map<string, Reason>> {
       const holds = new Map<string, Reason>();
       if (!animalIds.length) return holds;
       const c = await input.collectionOf(collectionId);

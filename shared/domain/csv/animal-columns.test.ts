@@ -3,7 +3,14 @@ import { sampleAnimal } from '../../../tests/fixtures/sample-round';
 import { ANIMAL_COLUMNS, animalToRow, guessColumn, rowToAnimal } from './animal-columns';
 import { readCsv, writeCsv } from './csv-file';
 
-const place = { id: 'l1', room: 'Spare room, north wall', rack: 'A', shelf: '1', position: '2', walkOrder: 1 };
+const place = {
+  id: 'l1',
+  room: 'Spare room, north wall',
+  rack: 'A',
+  shelf: '1',
+  position: '2',
+  walkOrder: 1,
+};
 
 describe('the animal spreadsheet', () => {
   it('round-trips an animal through CSV with commas, quotes, line breaks and non-ASCII', () => {
@@ -38,7 +45,14 @@ describe('the animal spreadsheet', () => {
         cautions: ['urticating_hairs', 'escape_risk'],
         notes: animal.notes,
         sizeMm: 129.5,
-        care: { intervalDays: 12, preyType: 'roach', preySize: 'large', preyCount: 2, hasWaterDish: true, doNotFeedUntil: null },
+        care: {
+          intervalDays: 12,
+          preyType: 'roach',
+          preySize: 'large',
+          preyCount: 2,
+          hasWaterDish: true,
+          doNotFeedUntil: null,
+        },
       },
     });
   });
@@ -53,21 +67,68 @@ describe('the animal spreadsheet', () => {
   });
 
   it('names the column of each problem in a row', () => {
-    const bad = rowToAnimal({ name: '', scientific_name: 'monocentropus balfouri', group: 'fish', stage: 'adult', size_mm: 'big', cautions: 'bites' });
-    expect(bad).toEqual({ ok: false, errors: ['Unknown caution “bites”: use potent_venom, urticating_hairs, fast_defensive, escape_risk, sting.'] });
-    const worse = rowToAnimal({ name: '', scientific_name: 'monocentropus balfouri', group: 'fish', stage: 'adult', size_mm: 'big' });
+    const bad = rowToAnimal({
+      name: '',
+      scientific_name: 'monocentropus balfouri',
+      group: 'fish',
+      stage: 'adult',
+      size_mm: 'big',
+      cautions: 'bites',
+    });
+    expect(bad).toEqual({
+      ok: false,
+      errors: [
+        'Unknown caution “bites”: use potent_venom, urticating_hairs, fast_defensive, escape_risk, sting.',
+      ],
+    });
+    const worse = rowToAnimal({
+      name: '',
+      scientific_name: 'monocentropus balfouri',
+      group: 'fish',
+      stage: 'adult',
+      size_mm: 'big',
+    });
     expect(worse.ok).toBe(false);
     if (!worse.ok) {
-      expect(worse.errors.map((e) => e.split(':')[0])).toEqual(['name', 'scientific_name', 'group', 'size_mm']);
+      expect(worse.errors.map((e) => e.split(':')[0])).toEqual([
+        'name',
+        'scientific_name',
+        'group',
+        'size_mm',
+      ]);
       expect(worse.errors[1]).toContain('Did you mean “Monocentropus balfouri”?');
     }
   });
 
   it('refuses a stage the group does not have, and reads a diet (docs/care-rules.md § Stages, § Diets)', () => {
-    const larva = rowToAnimal({ name: 'Mantra', scientific_name: 'Hierodula membranacea', group: 'mantis', stage: 'larva' });
-    expect(larva).toEqual({ ok: false, errors: ['stage: Mantis: there is no “Larva” stage. Choose Nymph L1–L3, Nymph L4+, Subadult or Adult.'] });
-    const slug = rowToAnimal({ name: 'Slug', scientific_name: 'Arion ater', group: 'other', stage: 'adult', diet: 'Plant' });
+    const larva = rowToAnimal({
+      name: 'Mantra',
+      scientific_name: 'Hierodula membranacea',
+      group: 'mantis',
+      stage: 'larva',
+    });
+    expect(larva).toEqual({
+      ok: false,
+      errors: [
+        'stage: Mantis: there is no “Larva” stage. Choose Nymph L1–L3, Nymph L4+, Subadult or Adult.',
+      ],
+    });
+    const slug = rowToAnimal({
+      name: 'Slug',
+      scientific_name: 'Arion ater',
+      group: 'other',
+      stage: 'adult',
+      diet: 'Plant',
+    });
     expect(slug.ok && slug.value.care.diet).toBe('plant');
-    expect(rowToAnimal({ name: 'Slug', scientific_name: 'Arion ater', group: 'other', stage: 'adult', diet: 'fruit jelly' })).toMatchObject({ ok: true });
+    expect(
+      rowToAnimal({
+        name: 'Slug',
+        scientific_name: 'Arion ater',
+        group: 'other',
+        stage: 'adult',
+        diet: 'fruit jelly',
+      }),
+    ).toMatchObject({ ok: true });
   });
 });

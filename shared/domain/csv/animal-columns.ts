@@ -37,7 +37,12 @@ export const ANIMAL_COLUMNS = [
 ] as const;
 export type AnimalColumn = (typeof ANIMAL_COLUMNS)[number];
 /** Columns an import needs; the rest may be missing. */
-export const REQUIRED_COLUMNS: readonly AnimalColumn[] = ['name', 'scientific_name', 'group', 'stage'];
+export const REQUIRED_COLUMNS: readonly AnimalColumn[] = [
+  'name',
+  'scientific_name',
+  'group',
+  'stage',
+];
 /** Written by an export for the record; an import leaves them (retire animals on their page). */
 const EXPORT_ONLY: readonly AnimalColumn[] = ['status', 'status_date'];
 export const IMPORT_COLUMNS = ANIMAL_COLUMNS.filter((c) => !EXPORT_ONLY.includes(c));
@@ -80,15 +85,41 @@ export function animalToRow(a: AnimalSummary): Record<AnimalColumn, string> {
 
 /** Header cells as people write them ("Scientific name", "SIZE (mm)") matched to our columns. */
 export function guessColumn(header: string): AnimalColumn | null {
-  const key = header.trim().toLowerCase().replace(/\(.*?\)/g, '').replace(/[^a-z]+/g, '_').replace(/^_|_$/g, '');
+  const key = header
+    .trim()
+    .toLowerCase()
+    .replace(/\(.*?\)/g, '')
+    .replace(/[^a-z]+/g, '_')
+    .replace(/^_|_$/g, '');
   const aliases: Record<string, AnimalColumn> = {
-    label: 'code', label_code: 'code', id: 'code', tag: 'code',
-    species: 'scientific_name', latin_name: 'scientific_name', scientific: 'scientific_name',
-    common: 'common_name', life_stage: 'stage', size: 'size_mm', leg_span: 'size_mm', dls: 'size_mm',
-    acquired: 'acquired_on', bought: 'acquired_on', from: 'source', interval: 'interval_days',
-    feed_every: 'interval_days', prey: 'prey_type', food: 'prey_type', water: 'water_dish',
-    caution: 'cautions', warning: 'cautions', warnings: 'cautions', note: 'notes', comments: 'notes',
-    tray: 'shelf', slot: 'position', spot: 'position',
+    label: 'code',
+    label_code: 'code',
+    id: 'code',
+    tag: 'code',
+    species: 'scientific_name',
+    latin_name: 'scientific_name',
+    scientific: 'scientific_name',
+    common: 'common_name',
+    life_stage: 'stage',
+    size: 'size_mm',
+    leg_span: 'size_mm',
+    dls: 'size_mm',
+    acquired: 'acquired_on',
+    bought: 'acquired_on',
+    from: 'source',
+    interval: 'interval_days',
+    feed_every: 'interval_days',
+    prey: 'prey_type',
+    food: 'prey_type',
+    water: 'water_dish',
+    caution: 'cautions',
+    warning: 'cautions',
+    warnings: 'cautions',
+    note: 'notes',
+    comments: 'notes',
+    tray: 'shelf',
+    slot: 'position',
+    spot: 'position',
   };
   if ((ANIMAL_COLUMNS as readonly string[]).includes(key)) return key as AnimalColumn;
   return aliases[key] ?? null;
@@ -101,9 +132,19 @@ const yes = (v: string | undefined) => /^(y|yes|true|1|x)$/i.test(v?.trim() ?? '
 /** What a cell says about cautions: our words or codes, separated by ";" or ",". */
 function cautionsOf(v: string | undefined): Caution[] | string {
   if (blank(v)) return [];
-  const words = v!.split(/[;,]/).map((w) => w.trim().toLowerCase().replace(/[\s-]+/g, '_')).filter(Boolean);
+  const words = v!
+    .split(/[;,]/)
+    .map((w) =>
+      w
+        .trim()
+        .toLowerCase()
+        .replace(/[\s-]+/g, '_'),
+    )
+    .filter(Boolean);
   const unknown = words.filter((w) => !(CAUTIONS as readonly string[]).includes(w));
-  return unknown.length ? `Unknown caution “${unknown[0]}”: use ${CAUTIONS.join(', ')}.` : (words as Caution[]);
+  return unknown.length
+    ? `Unknown caution “${unknown[0]}”: use ${CAUTIONS.join(', ')}.`
+    : (words as Caution[]);
 }
 
 export type RowResult = { ok: true; value: AnimalImportValues } | { ok: false; errors: string[] };
@@ -124,7 +165,14 @@ export function rowToAnimal(cells: Partial<Record<AnimalColumn, string>>): RowRe
     sizeMm: number(cells.size_mm),
     acquiredOn: blank(cells.acquired_on) ? null : cells.acquired_on!.trim(),
     source: cells.source ?? '',
-    place: place.every(blank) ? null : { room: cells.room ?? '', rack: cells.rack ?? '', shelf: cells.shelf ?? '', position: cells.position ?? '' },
+    place: place.every(blank)
+      ? null
+      : {
+          room: cells.room ?? '',
+          rack: cells.rack ?? '',
+          shelf: cells.shelf ?? '',
+          position: cells.position ?? '',
+        },
     cautions,
     cautionNote: cells.caution_note ?? '',
     notes: cells.notes ?? '',
@@ -134,22 +182,49 @@ export function rowToAnimal(cells: Partial<Record<AnimalColumn, string>>): RowRe
       preyType: blank(cells.prey_type) ? null : cells.prey_type!.trim(),
       preySize: blank(cells.prey_size) ? null : cells.prey_size!.trim(),
       preyCount: number(cells.prey_count),
-      diet: blank(cells.diet) ? null : cells.diet!.trim().toLowerCase().replace(/[\s-]+/g, '_'),
+      diet: blank(cells.diet)
+        ? null
+        : cells
+            .diet!.trim()
+            .toLowerCase()
+            .replace(/[\s-]+/g, '_'),
       hasWaterDish: yes(cells.water_dish),
       doNotFeedUntil: blank(cells.do_not_feed_until) ? null : cells.do_not_feed_until!.trim(),
     },
   };
   const parsed = animalImportRow.safeParse(candidate);
   if (parsed.success) return { ok: true, value: parsed.data };
-  return { ok: false, errors: parsed.error.issues.map((i) => `${COLUMN_OF_PATH[i.path.join('.')] ?? i.path.join('.')}: ${i.message}`) };
+  return {
+    ok: false,
+    errors: parsed.error.issues.map(
+      (i) => `${COLUMN_OF_PATH[i.path.join('.')] ?? i.path.join('.')}: ${i.message}`,
+    ),
+  };
 }
 
 /** Error paths named by the spreadsheet column the keeper sees. */
 const COLUMN_OF_PATH: Record<string, AnimalColumn> = {
-  labelCode: 'code', name: 'name', scientificName: 'scientific_name', commonName: 'common_name', group: 'group',
-  lifeStage: 'stage', sex: 'sex', sizeMm: 'size_mm', acquiredOn: 'acquired_on', source: 'source',
-  'place.room': 'room', 'place.rack': 'rack', 'place.shelf': 'shelf', 'place.position': 'position',
-  'care.intervalDays': 'interval_days', 'care.preyType': 'prey_type', 'care.preySize': 'prey_size',
-  'care.preyCount': 'prey_count', 'care.diet': 'diet', 'care.doNotFeedUntil': 'do_not_feed_until', cautionNote: 'caution_note',
-  clutch: 'clutch', notes: 'notes',
+  labelCode: 'code',
+  name: 'name',
+  scientificName: 'scientific_name',
+  commonName: 'common_name',
+  group: 'group',
+  lifeStage: 'stage',
+  sex: 'sex',
+  sizeMm: 'size_mm',
+  acquiredOn: 'acquired_on',
+  source: 'source',
+  'place.room': 'room',
+  'place.rack': 'rack',
+  'place.shelf': 'shelf',
+  'place.position': 'position',
+  'care.intervalDays': 'interval_days',
+  'care.preyType': 'prey_type',
+  'care.preySize': 'prey_size',
+  'care.preyCount': 'prey_count',
+  'care.diet': 'diet',
+  'care.doNotFeedUntil': 'do_not_feed_until',
+  cautionNote: 'caution_note',
+  clutch: 'clutch',
+  notes: 'notes',
 };

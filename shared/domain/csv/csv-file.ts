@@ -6,13 +6,25 @@ import Papa from 'papaparse';
  * formula (starting = + - @, tab or CR) are written with a leading apostrophe (OWASP "CSV
  * Injection"), which `readCsv` takes off again so a round trip loses nothing.
  */
-export function writeCsv(fields: readonly string[], rows: readonly Record<string, string>[]): string {
-  return Papa.unparse({ fields: [...fields], data: rows.map((r) => fields.map((f) => r[f] ?? '')) }, { newline: '\r\n', escapeFormulae: true });
+export function writeCsv(
+  fields: readonly string[],
+  rows: readonly Record<string, string>[],
+): string {
+  return Papa.unparse(
+    { fields: [...fields], data: rows.map((r) => fields.map((f) => r[f] ?? '')) },
+    { newline: '\r\n', escapeFormulae: true },
+  );
 }
 
 /** Records only, no header: a long file written a page at a time (join pages with CRLF). */
-export function writeCsvRecords(fields: readonly string[], rows: readonly Record<string, string>[]): string {
-  return Papa.unparse({ fields: [...fields], data: rows.map((r) => fields.map((f) => r[f] ?? '')) }, { newline: '\r\n', escapeFormulae: true, header: false });
+export function writeCsvRecords(
+  fields: readonly string[],
+  rows: readonly Record<string, string>[],
+): string {
+  return Papa.unparse(
+    { fields: [...fields], data: rows.map((r) => fields.map((f) => r[f] ?? '')) },
+    { newline: '\r\n', escapeFormulae: true, header: false },
+  );
 }
 
 export interface CsvRecord {
@@ -42,7 +54,10 @@ export function readCsv(text: string): CsvTable {
       line = 1 + (before.match(/\r\n|\r|\n/g)?.length ?? 0);
       // A blank line skipped before the record moves its start further down.
       const lead = source.slice(start).match(/^(?:\r\n|\r|\n)*/)![0];
-      rows.push({ line: line + (lead.match(/\r\n|\r|\n/g)?.length ?? 0), cells: result.data.map((c) => c.replace(FORMULA_GUARD, '')) });
+      rows.push({
+        line: line + (lead.match(/\r\n|\r|\n/g)?.length ?? 0),
+        cells: result.data.map((c) => c.replace(FORMULA_GUARD, '')),
+      });
     },
   });
   const [header, ...records] = rows;

@@ -1,4 +1,12 @@
-import { SEX_LABEL, STAGE_LABEL, stageLabel, type AnimalGroup, type Caution, type LifeStage, type Sex } from '../animal-facts';
+import {
+  SEX_LABEL,
+  STAGE_LABEL,
+  stageLabel,
+  type AnimalGroup,
+  type Caution,
+  type LifeStage,
+  type Sex,
+} from '../animal-facts';
 import { labelLayout, type LabelField, type LabelLayout } from './label-layout';
 import { labelUrl } from './label-payload';
 import { makeQrSymbol, type QrSymbol } from './qr-symbol';
@@ -29,10 +37,18 @@ export interface LabelContent {
   layout: LabelLayout;
 }
 
-export function labelContent(animal: LabelAnimal, tag: string, origin: string, size: LabelSize, fields: readonly LabelField[]): LabelContent {
+export function labelContent(
+  animal: LabelAnimal,
+  tag: string,
+  origin: string,
+  size: LabelSize,
+  fields: readonly LabelField[],
+): LabelContent {
   const url = labelUrl(origin, tag, animal.labelCode);
   const symbol = makeQrSymbol(url);
-  const stage = animal.group ? stageLabel(animal.group, animal.lifeStage) : STAGE_LABEL[animal.lifeStage];
+  const stage = animal.group
+    ? stageLabel(animal.group, animal.lifeStage)
+    : STAGE_LABEL[animal.lifeStage];
   return {
     animalId: animal.id,
     code: animal.labelCode,

@@ -1,10 +1,20 @@
 import { describe, expect, it } from 'vitest';
-import { LABEL_FIELDS, labelLayout, MAX_SYMBOL_MM, MIN_MODULE_MM, TEXT_GAP_MM, type Box } from './label-layout';
+import {
+  LABEL_FIELDS,
+  labelLayout,
+  MAX_SYMBOL_MM,
+  MIN_MODULE_MM,
+  TEXT_GAP_MM,
+  type Box,
+} from './label-layout';
 import { QUIET_ZONE_MODULES } from './qr-symbol';
 import { LABEL_SIZES, type LabelSizeId } from './sheet-layout';
 
 const overlaps = (a: Box, b: Box) =>
-  a.x < b.x + b.widthMm - 1e-9 && b.x < a.x + a.widthMm - 1e-9 && a.y < b.y + b.heightMm - 1e-9 && b.y < a.y + a.heightMm - 1e-9;
+  a.x < b.x + b.widthMm - 1e-9 &&
+  b.x < a.x + a.widthMm - 1e-9 &&
+  a.y < b.y + b.heightMm - 1e-9 &&
+  b.y < a.y + a.heightMm - 1e-9;
 
 // Versions 2 and 3 (25 and 29 modules) are what our label URLs reach (see qr-symbol.test.ts).
 const MODULES = [25, 29];
@@ -16,7 +26,10 @@ describe('one label', () => {
         const size = LABEL_SIZES[id];
         const l = labelLayout(size, modules, LABEL_FIELDS);
         // ISO/IEC 18004:2015, 5.3.8: 4 modules of quiet zone on every side.
-        expect(l.quiet.widthMm).toBeCloseTo(l.symbol.widthMm + 2 * QUIET_ZONE_MODULES * l.moduleMm, 2);
+        expect(l.quiet.widthMm).toBeCloseTo(
+          l.symbol.widthMm + 2 * QUIET_ZONE_MODULES * l.moduleMm,
+          2,
+        );
         expect(l.symbol.x - l.quiet.x).toBeCloseTo(QUIET_ZONE_MODULES * l.moduleMm, 2);
         expect(l.quiet.x).toBeGreaterThanOrEqual(0);
         expect(l.quiet.y).toBeGreaterThanOrEqual(0);
@@ -24,7 +37,10 @@ describe('one label', () => {
         expect(l.quiet.y + l.quiet.heightMm).toBeLessThanOrEqual(size.heightMm + 1e-9);
         expect(overlaps(l.quiet, l.text)).toBe(false);
         // The text keeps a clear gap from the quiet zone, beside it (wide) or under it (stacked).
-        const gap = l.mode === 'wide' ? l.text.x - (l.quiet.x + l.quiet.widthMm) : l.text.y - (l.quiet.y + l.quiet.heightMm);
+        const gap =
+          l.mode === 'wide'
+            ? l.text.x - (l.quiet.x + l.quiet.widthMm)
+            : l.text.y - (l.quiet.y + l.quiet.heightMm);
         expect(gap).toBeGreaterThanOrEqual(TEXT_GAP_MM - 1e-9);
         expect(l.text.x + l.text.widthMm).toBeLessThanOrEqual(size.widthMm + 1e-9);
         expect(l.symbol.widthMm).toBeLessThanOrEqual(MAX_SYMBOL_MM);
@@ -42,7 +58,13 @@ describe('one label', () => {
     expect(l.symbol.widthMm).toBe(25);
     expect(l.moduleMm).toBe(1);
     expect(l.dropped).toEqual([]);
-    expect(l.lines.map((x) => x.field)).toEqual(['code', 'name', 'scientificName', 'stage', 'cautions']);
+    expect(l.lines.map((x) => x.field)).toEqual([
+      'code',
+      'name',
+      'scientificName',
+      'stage',
+      'cautions',
+    ]);
   });
 
   it('keeps only the code (and cautions beside it) on 25 mm squares and says what was left off', () => {

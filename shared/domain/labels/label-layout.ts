@@ -68,7 +68,11 @@ function symbolSide(box: number, modules: number): number {
  * left and the text beside it; others put the text in a band under the QR. The quiet zone is
  * always inside the label and nothing is drawn on it.
  */
-export function labelLayout(size: LabelSize, modules: number, fields: readonly LabelField[]): LabelLayout {
+export function labelLayout(
+  size: LabelSize,
+  modules: number,
+  fields: readonly LabelField[],
+): LabelLayout {
   const { widthMm: w, heightMm: h } = size;
   const wide = w >= 1.5 * h;
   let quietSide: number;
@@ -79,14 +83,29 @@ export function labelLayout(size: LabelSize, modules: number, fields: readonly L
   } else {
     const band = Math.min(12, Math.max(5, h * 0.22));
     quietSide = Math.min(w, h - band);
-    text = { x: PAD_MM, y: quietSide, widthMm: w - 2 * PAD_MM, heightMm: h - quietSide - PAD_MM * 0.5 };
+    text = {
+      x: PAD_MM,
+      y: quietSide,
+      widthMm: w - 2 * PAD_MM,
+      heightMm: h - quietSide - PAD_MM * 0.5,
+    };
   }
   const side = symbolSide(quietSide, modules);
   const moduleMm = side / modules;
   const quietMm = moduleMm * QUIET_ZONE_MODULES;
   const quiet = wide
-    ? { x: 0, y: (h - side) / 2 - quietMm, widthMm: side + 2 * quietMm, heightMm: side + 2 * quietMm }
-    : { x: (w - side) / 2 - quietMm, y: 0, widthMm: side + 2 * quietMm, heightMm: side + 2 * quietMm };
+    ? {
+        x: 0,
+        y: (h - side) / 2 - quietMm,
+        widthMm: side + 2 * quietMm,
+        heightMm: side + 2 * quietMm,
+      }
+    : {
+        x: (w - side) / 2 - quietMm,
+        y: 0,
+        widthMm: side + 2 * quietMm,
+        heightMm: side + 2 * quietMm,
+      };
   const symbol = { x: quiet.x + quietMm, y: quiet.y + quietMm, widthMm: side, heightMm: side };
   if (wide) {
     const x = quiet.x + quiet.widthMm + TEXT_GAP_MM;

@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { codeKey, generateLabelTag, isLabelTag, labelRoute, labelUrl, readLabel } from './label-payload';
+import {
+  codeKey,
+  generateLabelTag,
+  isLabelTag,
+  labelRoute,
+  labelUrl,
+  readLabel,
+} from './label-payload';
 
 describe('label payloads', () => {
   it('puts an upper-case URL on the label and reads it back', () => {
@@ -10,8 +17,16 @@ describe('label payloads', () => {
   });
 
   it('reads the address a phone camera app opens (host lower-cased, path kept)', () => {
-    expect(readLabel('http://localhost:3000/L/ABCD/NL-7K3')).toEqual({ kind: 'label', tag: 'ABCD', code: 'NL-7K3' });
-    expect(readLabel('https://x.example/l/abcd/nl-7k3/')).toEqual({ kind: 'label', tag: 'ABCD', code: 'NL-7K3' });
+    expect(readLabel('http://localhost:3000/L/ABCD/NL-7K3')).toEqual({
+      kind: 'label',
+      tag: 'ABCD',
+      code: 'NL-7K3',
+    });
+    expect(readLabel('https://x.example/l/abcd/nl-7k3/')).toEqual({
+      kind: 'label',
+      tag: 'ABCD',
+      code: 'NL-7K3',
+    });
   });
 
   it('normalises typed codes: any case, stray spaces', () => {

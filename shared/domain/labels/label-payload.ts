@@ -20,7 +20,8 @@ export function isLabelTag(tag: string): boolean {
 /** A new collection tag from a random source (collisions are retried by the database). */
 export function generateLabelTag(random: () => number): string {
   let tag = '';
-  for (let i = 0; i < LABEL_TAG_LENGTH; i++) tag += LABEL_ALPHABET[Math.floor(random() * LABEL_ALPHABET.length)];
+  for (let i = 0; i < LABEL_TAG_LENGTH; i++)
+    tag += LABEL_ALPHABET[Math.floor(random() * LABEL_ALPHABET.length)];
   return tag;
 }
 
@@ -57,7 +58,8 @@ const CODE_LIKE = /^[A-Z0-9]{1,6}-?[A-Z0-9]{1,8}$/;
 function readCode(text: string): LabelReading {
   const code = normaliseLabelCode(text);
   const bare = code.replace(/-/g, '');
-  if (CODE_CHARS.test(code) && code.split('-').length <= 2 && bare.length >= 5 && bare.length <= 9) return { kind: 'code', code };
+  if (CODE_CHARS.test(code) && code.split('-').length <= 2 && bare.length >= 5 && bare.length <= 9)
+    return { kind: 'code', code };
   return CODE_LIKE.test(code) ? { kind: 'malformed' } : { kind: 'foreign' };
 }
 
@@ -76,5 +78,7 @@ export function readLabel(raw: string): LabelReading {
   if (!match) return { kind: 'foreign' };
   const tag = normaliseLabelCode(decodeURIComponent(match[1]!));
   const code = readCode(decodeURIComponent(match[2]!));
-  return isLabelTag(tag) && code.kind === 'code' ? { kind: 'label', tag, code: code.code } : { kind: 'malformed' };
+  return isLabelTag(tag) && code.kind === 'code'
+    ? { kind: 'label', tag, code: code.code }
+    : { kind: 'malformed' };
 }

@@ -11,7 +11,7 @@ const ALPHANUMERIC_CAPACITY_M = [20, 38, 61, 90];
 const ALPHANUMERIC = /^[0-9A-Z $%*+\-./:]+$/;
 
 function seeded(seed: number) {
-  return () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+  return () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
 }
 
 const ORIGINS = ['http://localhost:3000', 'http://127.0.0.1:45123', 'https://rackside.example.org'];
@@ -19,7 +19,10 @@ const ORIGINS = ['http://localhost:3000', 'http://127.0.0.1:45123', 'https://rac
 describe('label QR symbols (ISO/IEC 18004)', () => {
   const random = seeded(7);
   const cases = ORIGINS.flatMap((origin) =>
-    generateLabelCodes('NL', 8, random).map((code) => ({ origin, url: labelUrl(origin, generateLabelTag(random), code) })),
+    generateLabelCodes('NL', 8, random).map((code) => ({
+      origin,
+      url: labelUrl(origin, generateLabelTag(random), code),
+    })),
   );
 
   it.each(cases)('$url decodes with jsQR to exactly the payload', ({ url }) => {
@@ -30,17 +33,23 @@ describe('label QR symbols (ISO/IEC 18004)', () => {
     expect(readLabel(url).kind).toBe('label');
   });
 
-  it.each(cases)('$url: modules per side are 4·version + 17 and the version is the smallest that fits', ({ url }) => {
-    const symbol = makeQrSymbol(url);
-    expect(symbol.size).toBe(4 * symbol.version + 17); // ISO/IEC 18004:2015, 5.3.1
-    expect(url).toMatch(ALPHANUMERIC);
-    expect(url.length).toBeLessThanOrEqual(ALPHANUMERIC_CAPACITY_M[symbol.version - 1]!);
-    if (symbol.version > 1) expect(url.length).toBeGreaterThan(ALPHANUMERIC_CAPACITY_M[symbol.version - 2]!);
-  });
+  it.each(cases)(
+    '$url: modules per side are 4·version + 17 and the version is the smallest that fits',
+    ({ url }) => {
+      const symbol = makeQrSymbol(url);
+      expect(symbol.size).toBe(4 * symbol.version + 17); // ISO/IEC 18004:2015, 5.3.1
+      expect(url).toMatch(ALPHANUMERIC);
+      expect(url.length).toBeLessThanOrEqual(ALPHANUMERIC_CAPACITY_M[symbol.version - 1]!);
+      if (symbol.version > 1)
+        expect(url.length).toBeGreaterThan(ALPHANUMERIC_CAPACITY_M[symbol.version - 2]!);
+    },
+  );
 
   it('keeps a label for the demo address and a typical https host within version 3 at level M', () => {
     expect(makeQrSymbol(labelUrl('http://localhost:3000', 'ABCD', 'NL-7K3')).version).toBe(2);
-    expect(makeQrSymbol(labelUrl('https://rackside.example.org', 'ABCD', 'ABCD-2345X')).version).toBe(3);
+    expect(
+      makeQrSymbol(labelUrl('https://rackside.example.org', 'ABCD', 'ABCD-2345X')).version,
+    ).toBe(3);
   });
 
   it('leaves the 4-module quiet zone white when rendered (ISO/IEC 18004:2015, 5.3.8)', () => {

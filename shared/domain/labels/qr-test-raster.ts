@@ -4,7 +4,12 @@ import { QUIET_ZONE_MODULES, type QrSymbol } from './qr-symbol';
  * Test helper: paints `qrPath` output (not the module array) into an RGBA image with a white
  * quiet zone, so decoding it checks the path a label really draws.
  */
-export function rasterisePath(path: string, symbol: Pick<QrSymbol, 'size'>, pixelsPerModule = 4, quiet = QUIET_ZONE_MODULES) {
+export function rasterisePath(
+  path: string,
+  symbol: Pick<QrSymbol, 'size'>,
+  pixelsPerModule = 4,
+  quiet = QUIET_ZONE_MODULES,
+) {
   const side = (symbol.size + 2 * quiet) * pixelsPerModule;
   const rgba = new Uint8ClampedArray(side * side * 4).fill(255);
   for (const m of path.matchAll(/M(\d+) (\d+)h(\d+)v1h-\d+z/g)) {

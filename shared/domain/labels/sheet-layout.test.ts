@@ -66,7 +66,9 @@ describe('labels per sheet', () => {
           expect(cell.x).toBeGreaterThanOrEqual(PRINT_MARGIN_MM - 1e-9);
           expect(cell.y).toBeGreaterThanOrEqual(PRINT_MARGIN_MM - 1e-9);
           expect(cell.x + size.widthMm).toBeLessThanOrEqual(page.widthMm - PRINT_MARGIN_MM + 1e-9);
-          expect(cell.y + size.heightMm).toBeLessThanOrEqual(page.heightMm - PRINT_MARGIN_MM - RULER_STRIP_MM + 1e-9);
+          expect(cell.y + size.heightMm).toBeLessThanOrEqual(
+            page.heightMm - PRINT_MARGIN_MM - RULER_STRIP_MM + 1e-9,
+          );
         }
         // Neighbours never touch: the gap is kept between every pair in a row and a column.
         const [a, b] = layout.cells;
@@ -87,8 +89,12 @@ describe('labels per sheet', () => {
         for (const cell of cells) {
           expect(cell.x - reach).toBeGreaterThanOrEqual(printArea.x - 1e-9);
           expect(cell.y - reach).toBeGreaterThanOrEqual(printArea.y - 1e-9);
-          expect(cell.x + size.widthMm + reach).toBeLessThanOrEqual(printArea.x + printArea.widthMm + 1e-9);
-          expect(cell.y + size.heightMm + reach).toBeLessThanOrEqual(printArea.y + printArea.heightMm + 1e-9);
+          expect(cell.x + size.widthMm + reach).toBeLessThanOrEqual(
+            printArea.x + printArea.widthMm + 1e-9,
+          );
+          expect(cell.y + size.heightMm + reach).toBeLessThanOrEqual(
+            printArea.y + printArea.heightMm + 1e-9,
+          );
         }
         // Still well inside what office printers reach (4–6 mm from the edge), centred on the page.
         expect(printArea.x).toBeGreaterThanOrEqual(6);

@@ -57,7 +57,8 @@ export interface SheetLayout {
   ruler: { x: number; y: number; lengthMm: number };
 }
 
-const fit = (space: number, size: number) => Math.max(0, Math.floor((space + LABEL_GAP_MM + 1e-9) / (size + LABEL_GAP_MM)));
+const fit = (space: number, size: number) =>
+  Math.max(0, Math.floor((space + LABEL_GAP_MM + 1e-9) / (size + LABEL_GAP_MM)));
 
 /** Where the labels of one size sit on one sheet: a grid centred across, from the top margin down. */
 export function sheetLayout(sheetId: SheetId, label: LabelSize): SheetLayout {
@@ -75,7 +76,10 @@ export function sheetLayout(sheetId: SheetId, label: LabelSize): SheetLayout {
   const cells: { x: number; y: number }[] = [];
   for (let r = 0; r < rows; r++) {
     for (let c = 0; c < cols; c++) {
-      cells.push({ x: left + c * (label.widthMm + LABEL_GAP_MM), y: printable.y + r * (label.heightMm + LABEL_GAP_MM) });
+      cells.push({
+        x: left + c * (label.widthMm + LABEL_GAP_MM),
+        y: printable.y + r * (label.heightMm + LABEL_GAP_MM),
+      });
     }
   }
   return {
@@ -92,7 +96,11 @@ export function sheetLayout(sheetId: SheetId, label: LabelSize): SheetLayout {
     perSheet: cols * rows,
     cells,
     label,
-    ruler: { x: printable.x, y: printable.y + printable.heightMm - RULER_STRIP_MM / 2, lengthMm: RULER_LENGTH_MM },
+    ruler: {
+      x: printable.x,
+      y: printable.y + printable.heightMm - RULER_STRIP_MM / 2,
+      lengthMm: RULER_LENGTH_MM,
+    },
   };
 }
 
@@ -100,7 +108,11 @@ export function sheetLayout(sheetId: SheetId, label: LabelSize): SheetLayout {
  * Which sheet and cell each label goes to. `start` is the first free cell (1-based) on a
  * partly used first sheet; later sheets start at the top.
  */
-export function placeLabels(count: number, start: number, perSheet: number): { sheet: number; cell: number }[] {
+export function placeLabels(
+  count: number,
+  start: number,
+  perSheet: number,
+): { sheet: number; cell: number }[] {
   const first = Math.min(Math.max(1, Math.floor(start)), perSheet) - 1;
   return Array.from({ length: count }, (_, i) => {
     const slot = first + i;

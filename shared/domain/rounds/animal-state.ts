@@ -63,18 +63,37 @@ export const EMPTY_STATE: AnimalState = {
 
 /** Events that end a leave-alone period ("until the next outcome", R11). */
 const ENDS_LEAVE_ALONE: ReadonlySet<EventKind> = new Set([
-  'ate', 'refused', 'molted', 'sac_pulled', 'sac_hatched', 'brood_dispersed', 'premolt_cleared',
+  'ate',
+  'refused',
+  'molted',
+  'sac_pulled',
+  'sac_hatched',
+  'brood_dispersed',
+  'premolt_cleared',
 ]);
 
 /** Events in the order the engine folds them: by effective instant, then id (stable). */
 export function compareEvents(a: EngineEvent, b: EngineEvent): number {
-  return a.effectiveAt < b.effectiveAt ? -1 : a.effectiveAt > b.effectiveAt ? 1 : a.id < b.id ? -1 : a.id > b.id ? 1 : 0;
+  return a.effectiveAt < b.effectiveAt
+    ? -1
+    : a.effectiveAt > b.effectiveAt
+      ? 1
+      : a.id < b.id
+        ? -1
+        : a.id > b.id
+          ? 1
+          : 0;
 }
 
 /** True when `event` comes after everything already folded into `state`. */
 export function isInOrder(state: AnimalState, event: EngineEvent): boolean {
   if (!state.lastEventAt) return true;
-  return compareEvents({ id: state.lastEventId ?? '', kind: 'note', effectiveAt: state.lastEventAt }, event) < 0;
+  return (
+    compareEvents(
+      { id: state.lastEventId ?? '', kind: 'note', effectiveAt: state.lastEventAt },
+      event,
+    ) < 0
+  );
 }
 
 /** Folds one event into the state (a pure function: returns a new state). */
@@ -97,7 +116,10 @@ export function applyEvent(state: AnimalState, event: EngineEvent, zone: string)
       break;
     case 'prey_left_in':
       // Offered and not taken yet. If it is later found eaten the keeper records "ate".
-      s.preyLeftIn = { since: day, preyType: typeof payload.preyType === 'string' ? payload.preyType : null };
+      s.preyLeftIn = {
+        since: day,
+        preyType: typeof payload.preyType === 'string' ? payload.preyType : null,
+      };
       break;
     case 'prey_removed':
       // Prey taken out uneaten is a refusal of that offer.
@@ -185,7 +207,9 @@ export function projectState(
   before?: LocalDate,
 ): AnimalState {
   const voided = new Set(
-    events.filter((e) => e.kind === 'void' && typeof e.payload?.targetId === 'string').map((e) => e.payload!.targetId as string),
+    events
+      .filter((e) => e.kind === 'void' && typeof e.payload?.targetId === 'string')
+      .map((e) => e.payload!.targetId as string),
   );
   const live = events
     .filter((e) => e.kind !== 'void' && !voided.has(e.id))

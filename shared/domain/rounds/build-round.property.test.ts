@@ -11,23 +11,52 @@ import { DEFAULT_RULES, postMoltHoldDays } from './rules';
 
 const ZONE = 'America/Toronto';
 const TODAY = '2026-11-02'; // the day after the autumn DST change: histories cross it
-const KINDS: EventKind[] = ['ate', 'ate', 'ate', 'refused', 'refused', 'prey_left_in', 'prey_removed', 'watered', 'molted', 'premolt_seen', 'premolt_cleared', 'molting_now', 'sac_laid', 'sac_pulled', 'sac_hatched', 'case_laid', 'brood_started', 'brood_dispersed', 'paired', 'skipped', 'note', 'moved'];
+const KINDS: EventKind[] = [
+  'ate',
+  'ate',
+  'ate',
+  'refused',
+  'refused',
+  'prey_left_in',
+  'prey_removed',
+  'watered',
+  'molted',
+  'premolt_seen',
+  'premolt_cleared',
+  'molting_now',
+  'sac_laid',
+  'sac_pulled',
+  'sac_hatched',
+  'case_laid',
+  'brood_started',
+  'brood_dispersed',
+  'paired',
+  'skipped',
+  'note',
+  'moved',
+];
 
 const animalArb = (i: number) =>
-  fc.record({
-    // Any group, in a stage that group has (docs/care-rules.md § Stages).
-    groupAndStage: fc.constantFrom(...ANIMAL_GROUPS).chain((group) => fc.tuple(fc.constant(group), fc.constantFrom(...stagesOf(group)))),
-    sex: fc.constantFrom(...SEXES),
-    diet: fc.option(fc.constantFrom(...DIETS)),
-    hasWaterDish: fc.boolean(),
-    sizeMm: fc.option(fc.integer({ min: 5, max: 200 }), { freq: 5 }),
-    doNotFeedUntil: fc.option(fc.integer({ min: -3, max: 5 }).map((d) => addDays(TODAY, d)), { freq: 3 }),
-    addedDaysAgo: fc.integer({ min: 0, max: 70 }),
-    rack: fc.constantFrom('A', 'B', 'C'),
-    shelf: fc.integer({ min: 1, max: 12 }),
-    position: fc.integer({ min: 1, max: 12 }),
-  }).map(
-    (r): EngineAnimal => ({
+  fc
+    .record({
+      // Any group, in a stage that group has (docs/care-rules.md § Stages).
+      groupAndStage: fc
+        .constantFrom(...ANIMAL_GROUPS)
+        .chain((group) => fc.tuple(fc.constant(group), fc.constantFrom(...stagesOf(group)))),
+      sex: fc.constantFrom(...SEXES),
+      diet: fc.option(fc.constantFrom(...DIETS)),
+      hasWaterDish: fc.boolean(),
+      sizeMm: fc.option(fc.integer({ min: 5, max: 200 }), { freq: 5 }),
+      doNotFeedUntil: fc.option(
+        fc.integer({ min: -3, max: 5 }).map((d) => addDays(TODAY, d)),
+        { freq: 3 },
+      ),
+      addedDaysAgo: fc.integer({ min: 0, max: 70 }),
+      rack: fc.constantFrom('A', 'B', 'C'),
+      shelf: fc.integer({ min: 1, max: 12 }),
+      position: fc.integer({ min: 1, max: 12 }),
+    })
+    .map((r): EngineAnimal => ({
       id: `a${i}`,
       labelCode: `NL-${i}`,
       name: `A${i}`,
@@ -38,7 +67,14 @@ const animalArb = (i: number) =>
       sizeMm: r.sizeMm,
       status: 'active',
       cautions: [],
-      location: { id: `l${i}`, room: 'R', rack: r.rack, shelf: String(r.shelf), position: String(r.position), walkOrder: 0 },
+      location: {
+        id: `l${i}`,
+        room: 'R',
+        rack: r.rack,
+        shelf: String(r.shelf),
+        position: String(r.position),
+        walkOrder: 0,
+      },
       hasWaterDish: r.hasWaterDish,
       intervalDays: null,
       preyType: null,
@@ -47,33 +83,41 @@ const animalArb = (i: number) =>
       diet: r.diet,
       doNotFeedUntil: r.doNotFeedUntil,
       addedOn: addDays(TODAY, -r.addedDaysAgo),
-    }),
-  );
+    }));
 
 const historyArb = (animalIndex: number) =>
-  fc.array(
-    fc.record({
-      kind: fc.constantFrom(...KINDS),
-      daysAgo: fc.integer({ min: 1, max: 60 }),
-      minute: fc.integer({ min: 0, max: 1439 }),
-      prey: fc.constantFrom('cricket', 'roach nymph', 'mealworm'),
-      rehoused: fc.boolean(),
-    }),
-    { maxLength: 25 },
-  ).map((list) =>
-    list.map(
-      (e, j): EngineEvent => ({
+  fc
+    .array(
+      fc.record({
+        kind: fc.constantFrom(...KINDS),
+        daysAgo: fc.integer({ min: 1, max: 60 }),
+        minute: fc.integer({ min: 0, max: 1439 }),
+        prey: fc.constantFrom('cricket', 'roach nymph', 'mealworm'),
+        rehoused: fc.boolean(),
+      }),
+      { maxLength: 25 },
+    )
+    .map((list) =>
+      list.map((e, j): EngineEvent => ({
         id: `e${animalIndex}-${j}`,
         kind: e.kind,
-        effectiveAt: new Date(startOfLocalDate(addDays(TODAY, -e.daysAgo), ZONE).getTime() + e.minute * 60_000).toISOString(),
-        payload: e.kind === 'prey_left_in' ? { preyType: e.prey } : e.kind === 'moved' ? { toLocationId: 'l', rehoused: e.rehoused } : {},
-      }),
-    ),
-  );
+        effectiveAt: new Date(
+          startOfLocalDate(addDays(TODAY, -e.daysAgo), ZONE).getTime() + e.minute * 60_000,
+        ).toISOString(),
+        payload:
+          e.kind === 'prey_left_in'
+            ? { preyType: e.prey }
+            : e.kind === 'moved'
+              ? { toLocationId: 'l', rehoused: e.rehoused }
+              : {},
+      })),
+    );
 
-const collectionArb = fc.integer({ min: 1, max: 25 }).chain((n) =>
-  fc.tuple(...Array.from({ length: n }, (_, i) => fc.tuple(animalArb(i), historyArb(i)))),
-);
+const collectionArb = fc
+  .integer({ min: 1, max: 25 })
+  .chain((n) =>
+    fc.tuple(...Array.from({ length: n }, (_, i) => fc.tuple(animalArb(i), historyArb(i)))),
+  );
 
 function build(collection: [EngineAnimal, EngineEvent[]][], date = TODAY) {
   return buildRound(
@@ -94,7 +138,10 @@ describe('round engine properties', () => {
           // Each hold worked out here from the state, independently of the engine's reasons.
           const holdDays = postMoltHoldDays(DEFAULT_RULES, animal);
           const holdEnd = state.lastMolt && holdDays > 0 ? addDays(state.lastMolt, holdDays) : null;
-          const settleFrom = [state.rehousedOn, state.lastMeal ? null : animal.addedOn].filter((x): x is string => !!x).sort().at(-1);
+          const settleFrom = [state.rehousedOn, state.lastMeal ? null : animal.addedOn]
+            .filter((x): x is string => !!x)
+            .sort()
+            .at(-1);
           const holds = {
             postMolt: !!holdEnd && TODAY < holdEnd,
             premolt: state.premoltSince !== null,
@@ -103,14 +150,28 @@ describe('round engine properties', () => {
             settling: !!settleFrom && TODAY < addDays(settleFrom, DEFAULT_RULES.settlingDays),
             notFed: foodOf(animal) === 'none' || foodOf(animal) === 'substrate',
           };
-          for (const [hold, applies] of Object.entries(holds)) if (applies) expect(feeds, `${hold} for ${animal.group} ${animal.lifeStage}`).toBe(false);
+          for (const [hold, applies] of Object.entries(holds))
+            if (applies)
+              expect(feeds, `${hold} for ${animal.group} ${animal.lifeStage}`).toBe(false);
           // R11 amended: a guarding female's dish is still topped up quietly; a molting animal gets nothing.
-          const quietWater = (t: { kind: string }) => t.kind === 'water' && state.leaveAlone!.reason !== 'molting';
-          if (state.leaveAlone) expect(d.tasks.every((t) => t.kind === 'leave_alone' || t.kind === 'remove_prey' || quietWater(t))).toBe(true);
+          const quietWater = (t: { kind: string }) =>
+            t.kind === 'water' && state.leaveAlone!.reason !== 'molting';
+          if (state.leaveAlone)
+            expect(
+              d.tasks.every(
+                (t) => t.kind === 'leave_alone' || t.kind === 'remove_prey' || quietWater(t),
+              ),
+            ).toBe(true);
           // Whatever the engine names as a hold (the set R18 withdraws by) comes with no feed task.
-          if ([...d.notes, ...d.tasks.flatMap((t) => t.reasons)].some((r) => FEED_HOLD_CODES.has(r.code))) expect(feeds).toBe(false);
+          if (
+            [...d.notes, ...d.tasks.flatMap((t) => t.reasons)].some((r) =>
+              FEED_HOLD_CODES.has(r.code),
+            )
+          )
+            expect(feeds).toBe(false);
           // R17: a mature male is never flagged as possible premolt.
-          if (animal.sex === 'mature_male') expect(d.notes.some((n) => n.code === 'possible_premolt')).toBe(false);
+          if (animal.sex === 'mature_male')
+            expect(d.notes.some((n) => n.code === 'possible_premolt')).toBe(false);
         }
       }),
       { numRuns: 300 },
@@ -134,19 +195,23 @@ describe('round engine properties', () => {
 
   it('gives the same round whatever order the events arrive in, and the same round when built twice', () => {
     fc.assert(
-      fc.property(collectionArb, fc.infiniteStream(fc.double({ min: 0, max: 0.999999, noNaN: true })), (collection, randoms) => {
-        const shuffled = collection.map(([a, events]): [EngineAnimal, EngineEvent[]] => {
-          const copy = [...events];
-          for (let i = copy.length - 1; i > 0; i--) {
-            const j = Math.floor(randoms.next().value * (i + 1));
-            [copy[i], copy[j]] = [copy[j]!, copy[i]!];
-          }
-          return [a, copy];
-        });
-        const first = build(collection);
-        expect(build(shuffled)).toEqual(first);
-        expect(build(collection)).toEqual(first);
-      }),
+      fc.property(
+        collectionArb,
+        fc.infiniteStream(fc.double({ min: 0, max: 0.999999, noNaN: true })),
+        (collection, randoms) => {
+          const shuffled = collection.map(([a, events]): [EngineAnimal, EngineEvent[]] => {
+            const copy = [...events];
+            for (let i = copy.length - 1; i > 0; i--) {
+              const j = Math.floor(randoms.next().value * (i + 1));
+              [copy[i], copy[j]] = [copy[j]!, copy[i]!];
+            }
+            return [a, copy];
+          });
+          const first = build(collection);
+          expect(build(shuffled)).toEqual(first);
+          expect(build(collection)).toEqual(first);
+        },
+      ),
       { numRuns: 300 },
     );
   });
@@ -154,13 +219,22 @@ describe('round engine properties', () => {
   it('counts carried-over days without skipping a day while nothing is recorded', () => {
     fc.assert(
       fc.property(collectionArb, (collection) => {
-        let previous = new Map(build(collection, TODAY).items.flatMap((i) => i.tasks.map((t) => [`${i.animal.id}:${t.kind}`, t.carriedOverDays] as const)));
+        let previous = new Map(
+          build(collection, TODAY).items.flatMap((i) =>
+            i.tasks.map((t) => [`${i.animal.id}:${t.kind}`, t.carriedOverDays] as const),
+          ),
+        );
         for (let day = 1; day <= 5; day++) {
           const date = addDays(TODAY, day);
-          const next = new Map(build(collection, date).items.flatMap((i) => i.tasks.map((t) => [`${i.animal.id}:${t.kind}`, t.carriedOverDays] as const)));
+          const next = new Map(
+            build(collection, date).items.flatMap((i) =>
+              i.tasks.map((t) => [`${i.animal.id}:${t.kind}`, t.carriedOverDays] as const),
+            ),
+          );
           for (const [key, carried] of next) {
             // A task still open grows by exactly one day; a new one starts at 0.
-            if (previous.has(key) && key.endsWith(':feed')) expect(carried).toBe(previous.get(key)! + 1);
+            if (previous.has(key) && key.endsWith(':feed'))
+              expect(carried).toBe(previous.get(key)! + 1);
             if (!previous.has(key) && key.endsWith(':feed')) expect(carried).toBe(0);
           }
           previous = next;

@@ -2,7 +2,14 @@ import type { LocalDate } from '../local-dates';
 import { compareKeys, naturalKey, shelfKey } from '../walk-order';
 import type { AnimalState } from './animal-state';
 import { careNotes, decidePremoltCheck } from './checks-and-notes';
-import { TASK_KINDS, type AnimalDecision, type EngineAnimal, type Reason, type ReasonCode, type RoundTask } from './engine-types';
+import {
+  TASK_KINDS,
+  type AnimalDecision,
+  type EngineAnimal,
+  type Reason,
+  type ReasonCode,
+  type RoundTask,
+} from './engine-types';
 import { decideFeed, decideSubstrate } from './feed-decision';
 import { feederLength, type Feeder } from './feeders';
 import { leaveAloneReason, notFedReason } from './holds';
@@ -17,7 +24,15 @@ import { decideWater, quietWater } from './water';
 // list. Its vocabulary is in engine-types.ts; it is exported from here too, as it always was.
 export { offerFor } from './offer';
 export { shortDate } from './reason-words';
-export { TASK_KINDS, type AnimalDecision, type EngineAnimal, type Reason, type ReasonCode, type RoundTask, type TaskKind } from './engine-types';
+export {
+  TASK_KINDS,
+  type AnimalDecision,
+  type EngineAnimal,
+  type Reason,
+  type ReasonCode,
+  type RoundTask,
+  type TaskKind,
+} from './engine-types';
 
 /**
  * Reasons that withhold food (R4, R3, R5, R11, R16, handover and keeper holds, stages that are
@@ -59,12 +74,21 @@ export interface BuiltRound {
 }
 
 /** Everything the engine decides about one animal on one local date. Pure. */
-export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: RoundRules, date: LocalDate): AnimalDecision {
+export function decideAnimal(
+  animal: EngineAnimal,
+  state: AnimalState,
+  rules: RoundRules,
+  date: LocalDate,
+): AnimalDecision {
   const d: AnimalDecision = { animal, tasks: [], notes: [], nextFeed: null, nextWater: null };
 
   // R12: inactive animals are never on a round.
   if (animal.status !== 'active') {
-    d.notes.push({ code: 'inactive', text: `Not in the collection any more (${animal.status.replace('_', ' ')}): never on a round.`, dates: [] });
+    d.notes.push({
+      code: 'inactive',
+      text: `Not in the collection any more (${animal.status.replace('_', ' ')}): never on a round.`,
+      dates: [],
+    });
     return d;
   }
   const s = situationOf(animal, state, rules, date);
@@ -75,7 +99,8 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
   const leaveAlone = leaveAloneReason(s);
   if (leaveAlone) {
     d.tasks.push({ kind: 'leave_alone', reasons: [leaveAlone], carriedOverDays: 0 });
-    if (state.leaveAlone && state.leaveAlone.reason !== 'molting') quietWater(d, state, rules, date);
+    if (state.leaveAlone && state.leaveAlone.reason !== 'molting')
+      quietWater(d, state, rules, date);
     return d;
   }
   // Stages that are not fed: a note, no task.
@@ -91,7 +116,11 @@ export function decideAnimal(animal: EngineAnimal, state: AnimalState, rules: Ro
   d.notes.push(...careNotes(s));
 
   if (d.tasks.length === 0 && d.nextFeed && d.nextFeed > date && blockers.length === 0) {
-    d.notes.push({ code: 'not_due', text: `Not due: next meal on ${shortDate(d.nextFeed)}.`, dates: [d.nextFeed] });
+    d.notes.push({
+      code: 'not_due',
+      text: `Not due: next meal on ${shortDate(d.nextFeed)}.`,
+      dates: [d.nextFeed],
+    });
   }
   d.tasks.sort((a, b) => TASK_KINDS.indexOf(a.kind) - TASK_KINDS.indexOf(b.kind));
   return d;
@@ -158,7 +187,9 @@ export function prepList(items: readonly RoundItem[], feeders: readonly Feeder[]
   }
   const rank = (line: PrepLine) =>
     feederLength(feeders, line.preyType, line.preySize) ??
-    (SIZE_ORDER.includes(line.preySize) ? SIZE_ORDER.indexOf(line.preySize) : Number.MAX_SAFE_INTEGER);
+    (SIZE_ORDER.includes(line.preySize)
+      ? SIZE_ORDER.indexOf(line.preySize)
+      : Number.MAX_SAFE_INTEGER);
   return [...lines.values()].sort(
     (a, b) =>
       collator.compare(a.preyType, b.preyType) ||

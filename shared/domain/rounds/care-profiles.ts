@@ -46,7 +46,13 @@ export interface GroupCare {
 /** docs/care-rules.md § Care profiles — the fixed part. */
 export const GROUP_CARE: Record<AnimalGroup, GroupCare> = {
   tarantula: {
-    food: { first_instar: 'none', sling: 'prey', juvenile: 'prey', subadult: 'prey', adult: 'prey' },
+    food: {
+      first_instar: 'none',
+      sling: 'prey',
+      juvenile: 'prey',
+      subadult: 'prey',
+      adult: 'prey',
+    },
     adultsMolt: true, // females molt for life; mature males do not (R17)
     defaultDiet: 'live_prey',
     newAnimalCautions: [],
@@ -94,7 +100,15 @@ export const GROUP_CARE: Record<AnimalGroup, GroupCare> = {
     dampSubstrate: false,
   },
   other: {
-    food: { first_instar: 'none', sling: 'diet', larva: 'diet', juvenile: 'diet', subadult: 'diet', pupa: 'none', adult: 'diet' },
+    food: {
+      first_instar: 'none',
+      sling: 'diet',
+      larva: 'diet',
+      juvenile: 'diet',
+      subadult: 'diet',
+      pupa: 'none',
+      adult: 'diet',
+    },
     adultsMolt: true,
     defaultDiet: 'live_prey',
     newAnimalCautions: [],

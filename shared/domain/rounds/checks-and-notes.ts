@@ -43,9 +43,17 @@ export function careNotes(s: Situation): Reason[] {
   const { animal, state } = s;
   const notes: Reason[] = [];
   if (animal.sex === 'mature_male') {
-    notes.push({ code: 'mature_male', text: 'Mature male: refusing food is normal, and he will not molt again.', dates: [] });
+    notes.push({
+      code: 'mature_male',
+      text: 'Mature male: refusing food is normal, and he will not molt again.',
+      dates: [],
+    });
   } else if (!canMolt(animal) && s.food === 'prey' && state.refusalStreak > 0) {
-    notes.push({ code: 'no_more_molts', text: `Adult ${GROUP_WORD[animal.group]}: adults do not molt, so refusals do not mean premolt.`, dates: [] });
+    notes.push({
+      code: 'no_more_molts',
+      text: `Adult ${GROUP_WORD[animal.group]}: adults do not molt, so refusals do not mean premolt.`,
+      dates: [],
+    });
   }
   if (animal.group === 'mantis' && canMolt(animal)) {
     notes.push({
@@ -56,4 +64,3 @@ export function careNotes(s: Situation): Reason[] {
   }
   return notes;
 }
-

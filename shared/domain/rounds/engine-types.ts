@@ -94,4 +94,3 @@ export interface AnimalDecision {
   nextFeed: LocalDate | null;
   nextWater: LocalDate | null;
 }
-

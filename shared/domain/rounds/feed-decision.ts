@@ -25,7 +25,8 @@ function rebuildOf(s: Situation, interval: number) {
   const shortInterval = Math.max(1, Math.round(interval * rules.rebuildFactor));
   const until = state.rebuildSince ? addDays(state.rebuildSince, rules.rebuildDays) : null;
   // Judged by the due date (not today): an overdue meal's due date stays put when the window closes.
-  const active = !!until && (state.lastMeal ? addDays(state.lastMeal, shortInterval) < until : date < until);
+  const active =
+    !!until && (state.lastMeal ? addDays(state.lastMeal, shortInterval) < until : date < until);
   if (!active) return null;
   const since = shortDate(state.rebuildSince!);
   const what = `${REBUILD_WORDS[state.rebuildReason ?? 'keeper']} ${since}`;
@@ -38,13 +39,20 @@ function rebuildOf(s: Situation, interval: number) {
 }
 
 /** R1, R2, R5, R16, R10: when food is next due, and why. */
-function feedDue(s: Situation, interval: number, blockers: Reason[]): { due: LocalDate; why: Reason } {
+function feedDue(
+  s: Situation,
+  interval: number,
+  blockers: Reason[],
+): { due: LocalDate; why: Reason } {
   const { state, animal, date } = s;
   const live = s.food === 'prey';
   // For fruit, plant food and litter a refusal still means the food was put in: it counts.
   const served = live ? state.lastMeal : latest(state.lastMeal, state.lastRefusal);
   const refusedSinceMeal =
-    live && state.refusalStreak > 0 && !!state.lastRefusal && (!state.lastMeal || state.lastRefusal >= state.lastMeal);
+    live &&
+    state.refusalStreak > 0 &&
+    !!state.lastRefusal &&
+    (!state.lastMeal || state.lastRefusal >= state.lastMeal);
 
   let due: LocalDate;
   let why: Reason;
@@ -59,7 +67,11 @@ function feedDue(s: Situation, interval: number, blockers: Reason[]): { due: Loc
   } else if (served) {
     due = addDays(served, interval);
     why = live
-      ? { code: 'due_interval', text: `Due: ${plural(daysBetween(served, date), 'day')} since last meal on ${shortDate(served)}.`, dates: [served] }
+      ? {
+          code: 'due_interval',
+          text: `Due: ${plural(daysBetween(served, date), 'day')} since last meal on ${shortDate(served)}.`,
+          dates: [served],
+        }
       : {
           code: 'due_interval',
           text: `Due: fresh ${DIET_FOOD[s.food as keyof typeof DIET_FOOD].preyType} every ${plural(interval, 'day')} (last on ${shortDate(served)}).`,
@@ -107,13 +119,23 @@ export function decideFeed(d: AnimalDecision, s: Situation) {
   if (!s.premolt && !s.possiblePremolt) d.nextFeed = due;
   if (blockers.length === 0 && due <= date) {
     // R9: carried over from the day it fell due, or from the day after a deliberate skip.
-    const countFrom = state.lastSkipped && state.lastSkipped >= due ? addDays(state.lastSkipped, 1) : due;
+    const countFrom =
+      state.lastSkipped && state.lastSkipped >= due ? addDays(state.lastSkipped, 1) : due;
     const carried = carriedFrom(countFrom, date);
     const reasons = [why];
     if (rebuild) reasons.push(rebuild.reason);
     if (carried > 0)
-      reasons.push({ code: 'carried_over', text: `Carried over ${plural(carried, 'day')}: due on ${shortDate(countFrom)}.`, dates: [countFrom] });
-    d.tasks.push({ kind: 'feed', offer: offerFor(animal, rules), reasons, carriedOverDays: carried });
+      reasons.push({
+        code: 'carried_over',
+        text: `Carried over ${plural(carried, 'day')}: due on ${shortDate(countFrom)}.`,
+        dates: [countFrom],
+      });
+    d.tasks.push({
+      kind: 'feed',
+      offer: offerFor(animal, rules),
+      reasons,
+      carriedOverDays: carried,
+    });
   } else if (rebuild) {
     d.notes.push(rebuild.reason);
   }
@@ -128,7 +150,11 @@ export function decideSubstrate(d: AnimalDecision, s: Situation) {
   const due = last ? addDays(last, every) : animal.addedOn ? addDays(animal.addedOn, every) : date;
   d.nextFeed = animal.doNotFeedUntil ? later(due, animal.doNotFeedUntil) : due;
   if (animal.doNotFeedUntil && date < animal.doNotFeedUntil) {
-    d.notes.push({ code: 'do_not_feed', text: doNotFeedText(animal), dates: [animal.doNotFeedUntil] });
+    d.notes.push({
+      code: 'do_not_feed',
+      text: doNotFeedText(animal),
+      dates: [animal.doNotFeedUntil],
+    });
     return;
   }
   if (due > date) return;
@@ -146,4 +172,3 @@ export function decideSubstrate(d: AnimalDecision, s: Situation) {
     carriedOverDays: carriedFrom(due, date),
   });
 }
-

@@ -38,7 +38,10 @@ const MEASURED_BY_LEG_SPAN: ReadonlySet<AnimalGroup> = new Set(['tarantula', 'tr
  * R19: the animal's body length in mm. A spider's size is its diagonal leg span; its body is
  * about a third to a half of that, and `spanToBody` takes the careful end. Null when unknown.
  */
-export function bodyLengthMm(animal: { group: AnimalGroup; sizeMm: number | null }, spanToBody: number): number | null {
+export function bodyLengthMm(
+  animal: { group: AnimalGroup; sizeMm: number | null },
+  spanToBody: number,
+): number | null {
   if (animal.sizeMm === null) return null;
   return MEASURED_BY_LEG_SPAN.has(animal.group) ? animal.sizeMm * spanToBody : animal.sizeMm;
 }
@@ -51,10 +54,18 @@ export const sameType = (a: string, b: string) => a.trim().toLowerCase() === b.t
  * type does not). When nothing is that small, the smallest of the type.
  * Null when the catalogue has no size of the wanted type (the stage's own size stands).
  */
-export function pickFeeder(feeders: readonly Feeder[], preyType: string, bodyMm: number, anyType = true): Feeder | null {
+export function pickFeeder(
+  feeders: readonly Feeder[],
+  preyType: string,
+  bodyMm: number,
+  anyType = true,
+): Feeder | null {
   const largestFitting = (list: readonly Feeder[]) =>
-    list.filter((f) => f.lengthMm <= bodyMm).reduce<Feeder | null>((best, f) => (!best || f.lengthMm > best.lengthMm ? f : best), null);
-  const smallest = (list: readonly Feeder[]) => list.reduce<Feeder | null>((best, f) => (!best || f.lengthMm < best.lengthMm ? f : best), null);
+    list
+      .filter((f) => f.lengthMm <= bodyMm)
+      .reduce<Feeder | null>((best, f) => (!best || f.lengthMm > best.lengthMm ? f : best), null);
+  const smallest = (list: readonly Feeder[]) =>
+    list.reduce<Feeder | null>((best, f) => (!best || f.lengthMm < best.lengthMm ? f : best), null);
   const ofType = feeders.filter((f) => sameType(f.preyType, preyType));
   if (!ofType.length) return null;
   if (!anyType) return largestFitting(ofType) ?? smallest(ofType);
@@ -62,6 +73,13 @@ export function pickFeeder(feeders: readonly Feeder[], preyType: string, bodyMm:
 }
 
 /** Length of a catalogue size, to sort the prep list from small to large. */
-export function feederLength(feeders: readonly Feeder[], preyType: string, preySize: string): number | null {
-  return feeders.find((f) => sameType(f.preyType, preyType) && sameType(f.preySize, preySize))?.lengthMm ?? null;
+export function feederLength(
+  feeders: readonly Feeder[],
+  preyType: string,
+  preySize: string,
+): number | null {
+  return (
+    feeders.find((f) => sameType(f.preyType, preyType) && sameType(f.preySize, preySize))
+      ?.lengthMm ?? null
+  );
 }

@@ -28,10 +28,18 @@ export function leaveAloneReason(s: Situation): Reason | null {
   if (state.leaveAlone) {
     const { reason, since } = state.leaveAlone;
     const what = reason === 'molting' ? 'Molting' : guardingWords(animal.group);
-    return { code: 'leave_alone', text: `${what} since ${shortDate(since)}: leave alone — no food, no disturbance.`, dates: [since] };
+    return {
+      code: 'leave_alone',
+      text: `${what} since ${shortDate(since)}: leave alone — no food, no disturbance.`,
+      dates: [since],
+    };
   }
   if (animal.lifeStage === 'pupa' && s.food === 'none')
-    return { code: 'pupa', text: 'Pupa: leave it alone in its chamber — no food, no digging, until the adult comes out.', dates: [] };
+    return {
+      code: 'pupa',
+      text: 'Pupa: leave it alone in its chamber — no food, no digging, until the adult comes out.',
+      dates: [],
+    };
   return null;
 }
 
@@ -39,8 +47,16 @@ export function leaveAloneReason(s: Situation): Reason | null {
 export function notFedReason(s: Situation): Reason | null {
   if (s.food !== 'none') return null;
   if (s.animal.group === 'scorpion')
-    return { code: 'on_mother', text: 'Scorpling on its mother’s back: not fed until its first molt and it leaves her.', dates: [] };
-  return { code: 'not_feeding_yet', text: 'First instar: it lives on its yolk and does not eat until its next molt — no food yet.', dates: [] };
+    return {
+      code: 'on_mother',
+      text: 'Scorpling on its mother’s back: not fed until its first molt and it leaves her.',
+      dates: [],
+    };
+  return {
+    code: 'not_feeding_yet',
+    text: 'First instar: it lives on its yolk and does not eat until its next molt — no food yet.',
+    dates: [],
+  };
 }
 
 /** Everything that withholds food today (R3, R4, R5, R16, keeper and handover holds, R6). */
@@ -94,4 +110,3 @@ export function feedBlockers(s: Situation): Reason[] {
   }
   return blockers;
 }
-

@@ -11,7 +11,11 @@ type Reason = RoundItemView['notes'][number];
 
 /** Outcomes that end a premolt flag or a possible premolt (a meal, a molt, the keeper's word). */
 const ENDS_PREMOLT: readonly EventKind[] = ['ate', 'molted', 'premolt_cleared'];
-const PREMOLT_CODES: ReadonlySet<string> = new Set<ReasonCode>(['premolt', 'possible_premolt', 'check_premolt']);
+const PREMOLT_CODES: ReadonlySet<string> = new Set<ReasonCode>([
+  'premolt',
+  'possible_premolt',
+  'check_premolt',
+]);
 
 function premoltEndedToday(item: RoundItemView): boolean {
   return item.outcomes.some((o) => ENDS_PREMOLT.includes(o.kind));
@@ -45,5 +49,7 @@ export function isOverdue(item: RoundItemView): boolean {
 /** Flagged as a possible premolt (or due a premolt check) and not cleared by today's outcomes. */
 export function isPossiblePremolt(item: RoundItemView): boolean {
   if (premoltEndedToday(item)) return false;
-  return [...item.notes, ...item.tasks.flatMap((t) => t.reasons)].some((r) => r.code === 'possible_premolt' || r.code === 'check_premolt');
+  return [...item.notes, ...item.tasks.flatMap((t) => t.reasons)].some(
+    (r) => r.code === 'possible_premolt' || r.code === 'check_premolt',
+  );
 }

@@ -24,7 +24,10 @@ export function offerFor(animal: OfferAnimal, rules: RoundRules): Offer {
   const base =
     food === 'fruit_jelly' || food === 'plant' || food === 'detritus'
       ? DIET_FOOD[food]
-      : animal.group === 'tarantula' && animal.lifeStage === 'sling' && animal.sizeMm !== null && animal.sizeMm < rules.tinySlingMm
+      : animal.group === 'tarantula' &&
+          animal.lifeStage === 'sling' &&
+          animal.sizeMm !== null &&
+          animal.sizeMm < rules.tinySlingMm
         ? TINY_SLING_OFFER
         : stageCare(rules, animal).offer;
   let preyType = animal.preyType ?? base.preyType;

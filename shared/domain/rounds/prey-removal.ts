@@ -12,13 +12,15 @@ function isRoach(preyType: string | null): boolean {
 /** Why uneaten prey must come out (R4, R6, R11), or null when it may stay (R6, R20). */
 function removalCause(s: Situation): string | null {
   const { animal, state } = s;
-  if (state.leaveAlone?.reason === 'molting') return 'it is molting: live prey can injure a molting animal';
+  if (state.leaveAlone?.reason === 'molting')
+    return 'it is molting: live prey can injure a molting animal';
   if (s.premolt) return 'premolt: live prey can injure a molting animal';
   if (s.possiblePremolt) return 'possible premolt: live prey can injure a molting animal';
   if (s.inHold) return 'post-molt hold: the fangs are still soft';
   if (s.food === 'none') return 'it does not eat at this stage';
   if (animal.lifeStage === 'sling') return 'slings are not left with live prey';
-  if (!isRoach(state.preyLeftIn?.preyType ?? null)) return 'uneaten live prey can stress or bite the animal';
+  if (!isRoach(state.preyLeftIn?.preyType ?? null))
+    return 'uneaten live prey can stress or bite the animal';
   if (animal.lifeStage !== 'adult') return 'only an adult may keep a roach in with it';
   return null;
 }
@@ -33,7 +35,13 @@ export function decidePreyInside(d: AnimalDecision, s: Situation) {
   if (cause) {
     d.tasks.push({
       kind: 'remove_prey',
-      reasons: [{ code: 'remove_prey', text: `Prey left in on ${shortDate(since)}: remove it (${cause}).`, dates: [since] }],
+      reasons: [
+        {
+          code: 'remove_prey',
+          text: `Prey left in on ${shortDate(since)}: remove it (${cause}).`,
+          dates: [since],
+        },
+      ],
       carriedOverDays: carriedFrom(addDays(since, 1), s.date),
     });
     return;
@@ -59,4 +67,3 @@ export function decidePreyInside(d: AnimalDecision, s: Situation) {
     carriedOverDays: carriedFrom(checkOn, s.date),
   });
 }
-

@@ -11,12 +11,38 @@ import type { DayOutcome } from './settle';
 const ZONE = 'America/Toronto';
 const DAY = '2026-12-02';
 const animal: EngineAnimal = {
-  id: 'a1', labelCode: 'NL-1', name: 'Ember', scientificName: 'Tliltocatl vagans', group: 'tarantula', lifeStage: 'juvenile', sex: 'female', sizeMm: 60, status: 'active', cautions: [], location: null,
-  hasWaterDish: true, intervalDays: null, preyType: null, preySize: null, preyCount: null, doNotFeedUntil: null, addedOn: '2026-09-01',
+  id: 'a1',
+  labelCode: 'NL-1',
+  name: 'Ember',
+  scientificName: 'Tliltocatl vagans',
+  group: 'tarantula',
+  lifeStage: 'juvenile',
+  sex: 'female',
+  sizeMm: 60,
+  status: 'active',
+  cautions: [],
+  location: null,
+  hasWaterDish: true,
+  intervalDays: null,
+  preyType: null,
+  preySize: null,
+  preyCount: null,
+  doNotFeedUntil: null,
+  addedOn: '2026-09-01',
 };
-const at = (date: string, hour: number) => new Date(startOfLocalDate(date, ZONE).getTime() + hour * 3_600_000).toISOString();
-const event = (id: string, kind: EngineEvent['kind'], date: string, hour: number): EngineEvent => ({ id, kind, effectiveAt: at(date, hour) });
-const outcome = (e: EngineEvent): DayOutcome => ({ eventId: e.id, kind: e.kind, at: e.effectiveAt, by: 'Robin' });
+const at = (date: string, hour: number) =>
+  new Date(startOfLocalDate(date, ZONE).getTime() + hour * 3_600_000).toISOString();
+const event = (id: string, kind: EngineEvent['kind'], date: string, hour: number): EngineEvent => ({
+  id,
+  kind,
+  effectiveAt: at(date, hour),
+});
+const outcome = (e: EngineEvent): DayOutcome => ({
+  eventId: e.id,
+  kind: e.kind,
+  at: e.effectiveAt,
+  by: 'Robin',
+});
 
 // Fed and watered ten days ago: today's round has a feed and a water task.
 const history = [event('h1', 'ate', '2026-11-22', 19), event('h2', 'watered', '2026-11-22', 19)];
@@ -26,7 +52,8 @@ const decide = (events: EngineEvent[]) => {
 };
 const planned = decide(history).d.tasks;
 /** The reason a task was withdrawn with, null when it stands (untouched tasks have none). */
-const withdrawn = (tasks: RoundTask[], kind: RoundTask['kind']) => tasks.find((t) => t.kind === kind)!.serverWithdrawn ?? null;
+const withdrawn = (tasks: RoundTask[], kind: RoundTask['kind']) =>
+  tasks.find((t) => t.kind === kind)!.serverWithdrawn ?? null;
 
 describe('reconcileTasks', () => {
   it('withdraws the open feed task when premolt is seen during the day; water stays (R4)', () => {
@@ -41,7 +68,13 @@ describe('reconcileTasks', () => {
 
   it('gives the task back when an undo lifts the hold, and changes nothing when nothing changed', () => {
     const premolt = event('t1', 'premolt_seen', DAY, 9);
-    const held = reconcileTasks(planned, decide([...history, premolt]).d, decide([...history, premolt]).state, [outcome(premolt)], DAY).tasks;
+    const held = reconcileTasks(
+      planned,
+      decide([...history, premolt]).d,
+      decide([...history, premolt]).state,
+      [outcome(premolt)],
+      DAY,
+    ).tasks;
     const { d, state } = decide(history);
     const lifted = reconcileTasks(held, d, state, [], DAY);
     expect(lifted.changed).toBe(true);
@@ -70,6 +103,10 @@ describe('reconcileTasks', () => {
       ['feed', null],
       ['water', 'leave_alone'],
     ]);
-    expect(r.tasks[0]!.reasons.at(-1)).toEqual({ code: 'remove_prey', text: 'Added during the day: remove it now.', dates: [DAY] });
+    expect(r.tasks[0]!.reasons.at(-1)).toEqual({
+      code: 'remove_prey',
+      text: 'Added during the day: remove it now.',
+      dates: [DAY],
+    });
   });
 });

@@ -26,7 +26,8 @@ export function reconcileTasks(
 ): { tasks: RoundTask[]; changed: boolean; urgent: boolean } {
   const hold = feedHoldIn(d);
   const live = liveOutcomes(outcomes);
-  const leaveAlone = d.tasks.some((t) => t.kind === 'leave_alone') && !d.tasks.some((t) => t.kind === 'water');
+  const leaveAlone =
+    d.tasks.some((t) => t.kind === 'leave_alone') && !d.tasks.some((t) => t.kind === 'water');
   let changed = false;
   const tasks = planned.map((t) => {
     const heldKind = t.kind === 'feed' || (t.kind === 'water' && leaveAlone);
@@ -36,11 +37,17 @@ export function reconcileTasks(
     return { ...t, serverWithdrawn: wanted };
   });
   const removal = d.tasks.find((t) => t.kind === 'remove_prey');
-  const urgent = !!removal && !!(state.leaveAlone || state.premoltSince) && !planned.some((t) => t.kind === 'remove_prey');
+  const urgent =
+    !!removal &&
+    !!(state.leaveAlone || state.premoltSince) &&
+    !planned.some((t) => t.kind === 'remove_prey');
   if (urgent) {
     tasks.unshift({
       ...removal,
-      reasons: [...removal.reasons, { code: 'remove_prey', text: 'Added during the day: remove it now.', dates: [date] }],
+      reasons: [
+        ...removal.reasons,
+        { code: 'remove_prey', text: 'Added during the day: remove it now.', dates: [date] },
+      ],
     });
   }
   return { tasks, changed, urgent };

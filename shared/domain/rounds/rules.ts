@@ -1,5 +1,12 @@
 import type { AnimalGroup, Diet, LifeStage } from '../animal-facts';
-import { DEFAULT_PROFILES, foodOf, type CareAnimal, type CareProfile, type Offer, type StageCare } from './care-profiles';
+import {
+  DEFAULT_PROFILES,
+  foodOf,
+  type CareAnimal,
+  type CareProfile,
+  type Offer,
+  type StageCare,
+} from './care-profiles';
 import { DEFAULT_FEEDERS, type Feeder } from './feeders';
 
 export type { Offer } from './care-profiles';
@@ -52,7 +59,12 @@ export const DEFAULT_RULES: RoundRules = {
 };
 
 /** The tiniest slings get fruit-fly larvae: prey no larger than the animal's body (R13). */
-export const TINY_SLING_OFFER: Offer = { preyType: 'fruit-fly larvae', preySize: 'tiny', countMin: 1, countMax: 1 };
+export const TINY_SLING_OFFER: Offer = {
+  preyType: 'fruit-fly larvae',
+  preySize: 'tiny',
+  countMin: 1,
+  countMax: 1,
+};
 
 /** Every key optional, all the way down; lists (the feeder catalogue) are replaced whole. */
 export type DeepPartial<T> = T extends readonly unknown[]
@@ -87,7 +99,15 @@ const LEGACY_STAGE_KEYS = {
 
 /** An override saved before care profiles, in today's shape: its stage tables are the tarantula's. */
 export function upgradeOverride(override: RulesOverride): DeepPartial<RoundRules> {
-  const { intervalDays, refusalRetryDays, refusalStreak, postMoltHoldDays, offers, groupIntervalDays, ...rest } = override;
+  const {
+    intervalDays,
+    refusalRetryDays,
+    refusalStreak,
+    postMoltHoldDays,
+    offers,
+    groupIntervalDays,
+    ...rest
+  } = override;
   const legacy = { intervalDays, refusalRetryDays, refusalStreak, postMoltHoldDays, offers };
   if (Object.values(legacy).every((v) => v === undefined) && !groupIntervalDays) return rest;
   const profiles: Record<string, { stages: Record<string, Record<string, unknown>> }> = {};
@@ -96,10 +116,12 @@ export function upgradeOverride(override: RulesOverride): DeepPartial<RoundRules
     return (p.stages[s] ??= {});
   };
   for (const [key, field] of Object.entries(LEGACY_STAGE_KEYS)) {
-    for (const [s, value] of Object.entries(legacy[key as keyof typeof legacy] ?? {})) stageOf('tarantula', s)[field] = value;
+    for (const [s, value] of Object.entries(legacy[key as keyof typeof legacy] ?? {}))
+      stageOf('tarantula', s)[field] = value;
   }
   for (const [group, days] of Object.entries(groupIntervalDays ?? {})) {
-    for (const s of Object.keys(DEFAULT_PROFILES[group as AnimalGroup]?.stages ?? {})) stageOf(group, s).feedEveryDays = days;
+    for (const s of Object.keys(DEFAULT_PROFILES[group as AnimalGroup]?.stages ?? {}))
+      stageOf(group, s).feedEveryDays = days;
   }
   return mergeDeep({ profiles } as DeepPartial<RoundRules>, rest);
 }
@@ -128,24 +150,39 @@ export function effectiveRules(override: RulesOverride | null | undefined): Roun
  * The numbers for an animal's stage. A stage the group does not have (records made before
  * stages were checked against the group) uses the group's adult numbers.
  */
-export function stageCare(rules: RoundRules, animal: { group: AnimalGroup; lifeStage: LifeStage }): StageCare {
+export function stageCare(
+  rules: RoundRules,
+  animal: { group: AnimalGroup; lifeStage: LifeStage },
+): StageCare {
   const stages = rules.profiles[animal.group].stages;
-  return stages[animal.lifeStage] ?? stages.adult ?? Object.values(stages)[0] ?? rules.profiles.tarantula.stages.adult!;
+  return (
+    stages[animal.lifeStage] ??
+    stages.adult ??
+    Object.values(stages)[0] ??
+    rules.profiles.tarantula.stages.adult!
+  );
 }
 
 /**
  * R1 interval for one animal: its own setting, else its profile's for its stage and food
  * (live prey, a diet's replacement interval, or a larva's substrate check).
  */
-export function feedingInterval(rules: RoundRules, animal: CareAnimal & { intervalDays?: number | null }): number {
+export function feedingInterval(
+  rules: RoundRules,
+  animal: CareAnimal & { intervalDays?: number | null },
+): number {
   if (animal.intervalDays) return animal.intervalDays;
   const food = foodOf(animal);
   if (food === 'substrate') return rules.substrateCheckDays;
-  if (food === 'fruit_jelly' || food === 'plant' || food === 'detritus') return rules.dietEveryDays[food];
+  if (food === 'fruit_jelly' || food === 'plant' || food === 'detritus')
+    return rules.dietEveryDays[food];
   return stageCare(rules, animal).feedEveryDays;
 }
 
 /** R5: the post-molt hold of an animal's stage, in days. */
-export function postMoltHoldDays(rules: RoundRules, animal: { group: AnimalGroup; lifeStage: LifeStage }): number {
+export function postMoltHoldDays(
+  rules: RoundRules,
+  animal: { group: AnimalGroup; lifeStage: LifeStage },
+): number {
   return stageCare(rules, animal).postMoltHoldDays;
 }

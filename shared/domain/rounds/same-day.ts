@@ -33,21 +33,46 @@ export const HOLD_STARTERS: Partial<Record<EventKind, ReadonlySet<TaskKind>>> = 
   sac_laid: FEED,
 };
 
-function holdReason(outcome: HoldOutcome, zone: string, postMoltHoldDays: number | undefined): Reason {
+function holdReason(
+  outcome: HoldOutcome,
+  zone: string,
+  postMoltHoldDays: number | undefined,
+): Reason {
   const day = localDateOf(new Date(outcome.at), zone);
   const time = clockTime(outcome.at, zone);
   switch (outcome.kind) {
     case 'molted': {
-      if (!postMoltHoldDays) return { code: 'post_molt_hold', text: `Molted today (${time}): no food while the fangs harden.`, dates: [day] };
+      if (!postMoltHoldDays)
+        return {
+          code: 'post_molt_hold',
+          text: `Molted today (${time}): no food while the fangs harden.`,
+          dates: [day],
+        };
       const until = addDays(day, postMoltHoldDays);
-      return { code: 'post_molt_hold', text: `Molted today (${time}): no food until ${shortDate(until)}.`, dates: [until, day] };
+      return {
+        code: 'post_molt_hold',
+        text: `Molted today (${time}): no food until ${shortDate(until)}.`,
+        dates: [until, day],
+      };
     }
     case 'molting_now':
-      return { code: 'leave_alone', text: `Molting now (seen ${time}): leave alone — no food, no water, no disturbance.`, dates: [day] };
+      return {
+        code: 'leave_alone',
+        text: `Molting now (seen ${time}): leave alone — no food, no water, no disturbance.`,
+        dates: [day],
+      };
     case 'premolt_seen':
-      return { code: 'premolt', text: `Premolt seen today (${time}): no food until it molts; water continues.`, dates: [day] };
+      return {
+        code: 'premolt',
+        text: `Premolt seen today (${time}): no food until it molts; water continues.`,
+        dates: [day],
+      };
     default:
-      return { code: 'leave_alone', text: `Egg sac laid today (${time}): leave her alone — no food; water quietly when due.`, dates: [day] };
+      return {
+        code: 'leave_alone',
+        text: `Egg sac laid today (${time}): leave her alone — no food; water quietly when due.`,
+        dates: [day],
+      };
   }
 }
 
@@ -55,12 +80,21 @@ function holdReason(outcome: HoldOutcome, zone: string, postMoltHoldDays: number
  * The hold started by the day's outcomes, if any: the latest hold-starting outcome wins (a molt
  * after "molting now" turns leave-alone into the post-molt hold). `outcomes` are live and sorted.
  */
-export function sameDayHold(outcomes: readonly HoldOutcome[], zone: string, postMoltHoldDays?: number): SameDayHold | null {
+export function sameDayHold(
+  outcomes: readonly HoldOutcome[],
+  zone: string,
+  postMoltHoldDays?: number,
+): SameDayHold | null {
   for (let i = outcomes.length - 1; i >= 0; i -= 1) {
     const o = outcomes[i]!;
     const withdraws = HOLD_STARTERS[o.kind];
-    if (withdraws) return { eventId: o.eventId, at: o.at, reason: holdReason(o, zone, postMoltHoldDays), withdraws };
+    if (withdraws)
+      return {
+        eventId: o.eventId,
+        at: o.at,
+        reason: holdReason(o, zone, postMoltHoldDays),
+        withdraws,
+      };
   }
   return null;
 }
-

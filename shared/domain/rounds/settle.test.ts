@@ -1,8 +1,20 @@
 import { describe, expect, it } from 'vitest';
 import type { RoundResponse } from '../../schemas/rounds';
-import { doubleMealWarning, liveOutcomes, settlingOutcome, withOutcome, type DayOutcome } from './settle';
+import {
+  doubleMealWarning,
+  liveOutcomes,
+  settlingOutcome,
+  withOutcome,
+  type DayOutcome,
+} from './settle';
 
-const o = (eventId: string, kind: DayOutcome['kind'], at: string, by = 'Robin', voids: string | null = null): DayOutcome => ({ eventId, kind, at, by, voids });
+const o = (
+  eventId: string,
+  kind: DayOutcome['kind'],
+  at: string,
+  by = 'Robin',
+  voids: string | null = null,
+): DayOutcome => ({ eventId, kind, at, by, voids });
 
 describe('settling tasks with the day’s outcomes', () => {
   it('settles a feed task with ate, refused, prey left in or a skip, and water only with watering or a skip', () => {
@@ -13,14 +25,23 @@ describe('settling tasks with the day’s outcomes', () => {
     expect(settlingOutcome('leave_alone', [o('1', 'note', '2026-03-20T13:00:00Z')])).toBeNull();
   });
   it('ignores a voided outcome and the void itself', () => {
-    const live = liveOutcomes([o('1', 'ate', '2026-03-20T13:00:00Z'), o('2', 'void', '2026-03-20T13:01:00Z', 'Robin', '1')]);
+    const live = liveOutcomes([
+      o('1', 'ate', '2026-03-20T13:00:00Z'),
+      o('2', 'void', '2026-03-20T13:01:00Z', 'Robin', '1'),
+    ]);
     expect(live).toEqual([]);
   });
   it('warns about two meals on one day, naming who and when', () => {
     const time = (iso: string) => iso.slice(11, 16);
-    expect(doubleMealWarning([o('1', 'ate', '2026-03-20T08:12:00Z', 'Robin'), o('2', 'ate', '2026-03-20T08:40:00Z', 'Alex')], time)).toBe(
-      'Fed twice today: 08:12 Robin, 08:40 Alex.',
-    );
+    expect(
+      doubleMealWarning(
+        [
+          o('1', 'ate', '2026-03-20T08:12:00Z', 'Robin'),
+          o('2', 'ate', '2026-03-20T08:40:00Z', 'Alex'),
+        ],
+        time,
+      ),
+    ).toBe('Fed twice today: 08:12 Robin, 08:40 Alex.');
     expect(doubleMealWarning([o('1', 'ate', '2026-03-20T08:12:00Z')], time)).toBeNull();
   });
 });
@@ -34,7 +55,17 @@ describe('withOutcome (a tap shown before it is sent)', () => {
     progress: { done: 0, total: 3 },
     items: [
       {
-        animal: { id: 'a1', labelCode: 'B7K2', name: 'Bramble', scientificName: 'Grammostola pulchra', group: 'tarantula', lifeStage: 'adult', sex: 'female', cautions: [], location: null },
+        animal: {
+          id: 'a1',
+          labelCode: 'B7K2',
+          name: 'Bramble',
+          scientificName: 'Grammostola pulchra',
+          group: 'tarantula',
+          lifeStage: 'adult',
+          sex: 'female',
+          cautions: [],
+          location: null,
+        },
         tasks: [
           { kind: 'feed', reasons: [], carriedOverDays: 0, done: null },
           { kind: 'water', reasons: [], carriedOverDays: 0, done: null },
@@ -47,7 +78,17 @@ describe('withOutcome (a tap shown before it is sent)', () => {
         warnings: [],
       },
       {
-        animal: { id: 'a2', labelCode: 'C3M9', name: 'Dusty', scientificName: 'Tliltocatl albopilosus', group: 'tarantula', lifeStage: 'juvenile', sex: 'unknown', cautions: [], location: null },
+        animal: {
+          id: 'a2',
+          labelCode: 'C3M9',
+          name: 'Dusty',
+          scientificName: 'Tliltocatl albopilosus',
+          group: 'tarantula',
+          lifeStage: 'juvenile',
+          sex: 'unknown',
+          cautions: [],
+          location: null,
+        },
         tasks: [{ kind: 'feed', reasons: [], carriedOverDays: 0, done: null }],
         notes: [],
         carriedOverDays: 0,

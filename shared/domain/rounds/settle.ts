@@ -12,7 +12,16 @@ export const SETTLED_BY: Record<TaskKind, readonly EventKind[]> = {
   remove_prey: ['prey_removed', 'ate'],
   feed: ['ate', 'refused', 'prey_left_in', 'skipped'],
   water: ['watered', 'skipped'],
-  check: ['note', 'premolt_seen', 'premolt_cleared', 'molted', 'molting_now', 'ate', 'refused', 'skipped'],
+  check: [
+    'note',
+    'premolt_seen',
+    'premolt_cleared',
+    'molted',
+    'molting_now',
+    'ate',
+    'refused',
+    'skipped',
+  ],
   leave_alone: [],
 };
 
@@ -28,11 +37,16 @@ export interface DayOutcome {
 /** The day's outcomes without voided ones (and without the voids themselves), oldest first. */
 export function liveOutcomes<T extends DayOutcome>(outcomes: readonly T[]): T[] {
   const voided = new Set(outcomes.filter((o) => o.kind === 'void' && o.voids).map((o) => o.voids!));
-  return outcomes.filter((o) => o.kind !== 'void' && !voided.has(o.eventId)).sort((a, b) => (a.at < b.at ? -1 : a.at > b.at ? 1 : 0));
+  return outcomes
+    .filter((o) => o.kind !== 'void' && !voided.has(o.eventId))
+    .sort((a, b) => (a.at < b.at ? -1 : a.at > b.at ? 1 : 0));
 }
 
 /** The outcome that settled a task, if any: the first matching one of the day. */
-export function settlingOutcome<T extends DayOutcome>(kind: TaskKind, outcomes: readonly T[]): T | null {
+export function settlingOutcome<T extends DayOutcome>(
+  kind: TaskKind,
+  outcomes: readonly T[],
+): T | null {
   return outcomes.find((o) => SETTLED_BY[kind].includes(o.kind)) ?? null;
 }
 
@@ -45,15 +59,23 @@ export function countsForProgress(kind: TaskKind, withdrawn?: Reason | null): bo
 }
 
 /** "Fed while held: …" when a meal was recorded although food was withheld (R18). */
-function heldMealWarning(meal: DayOutcome | undefined, hold: Reason | null | undefined): string | null {
-  return meal && hold ? `Fed while held — ${hold.text} The owner will see this meal flagged.` : null;
+function heldMealWarning(
+  meal: DayOutcome | undefined,
+  hold: Reason | null | undefined,
+): string | null {
+  return meal && hold
+    ? `Fed while held — ${hold.text} The owner will see this meal flagged.`
+    : null;
 }
 
 /**
  * "Fed twice today: 08:12 Robin, 08:40 Alex" when two meals were recorded for one animal on
  * one day (two phones offline). `time` formats an instant as local HH:mm.
  */
-export function doubleMealWarning(outcomes: readonly DayOutcome[], time: (iso: string) => string): string | null {
+export function doubleMealWarning(
+  outcomes: readonly DayOutcome[],
+  time: (iso: string) => string,
+): string | null {
   const meals = outcomes.filter((o) => o.kind === 'ate');
   if (meals.length < 2) return null;
   return `Fed ${meals.length === 2 ? 'twice' : `${meals.length} times`} today: ${meals.map((m) => `${time(m.at)} ${m.by ?? 'someone'}`).join(', ')}.`;
@@ -80,14 +102,24 @@ export function settleItem<T extends { kind: TaskKind; serverWithdrawn?: Reason 
     const by = settlingOutcome(t.kind, day);
     const startedBefore = hold && hold.withdraws.has(t.kind) && (!by || by.at > hold.at);
     const withdrawn = startedBefore ? hold.reason : (t.serverWithdrawn ?? null);
-    if (t.kind === 'feed' && withdrawn) heldMeal = heldMealWarning(day.find((o) => o.kind === 'ate' && (!hold || o.at > hold.at)), withdrawn);
+    if (t.kind === 'feed' && withdrawn)
+      heldMeal = heldMealWarning(
+        day.find((o) => o.kind === 'ate' && (!hold || o.at > hold.at)),
+        withdrawn,
+      );
     if (countsForProgress(t.kind, withdrawn)) {
       total += 1;
       if (by) done += 1;
     }
-    return { ...t, withdrawn, done: by ? { eventId: by.eventId, kind: by.kind, at: by.at, by: by.by } : null };
+    return {
+      ...t,
+      withdrawn,
+      done: by ? { eventId: by.eventId, kind: by.kind, at: by.at, by: by.by } : null,
+    };
   });
-  const warnings = [doubleMealWarning(day, (iso) => clockTime(iso, zone)), heldMeal].filter((w): w is string => !!w);
+  const warnings = [doubleMealWarning(day, (iso) => clockTime(iso, zone)), heldMeal].filter(
+    (w): w is string => !!w,
+  );
   return {
     tasks: settled,
     outcomes: day.map(({ eventId, kind, at, by }) => ({ eventId, kind, at, by })),
@@ -103,7 +135,11 @@ type RoundItem = RoundResponse['items'][number];
  * One item with one more outcome, and how many more of its tasks are now done and how many
  * fewer are left to do (a hold withdraws tasks).
  */
-export function itemWithOutcome(item: RoundItem, outcome: DayOutcome, zone: string): { item: RoundItem; doneDelta: number; totalDelta: number } {
+export function itemWithOutcome(
+  item: RoundItem,
+  outcome: DayOutcome,
+  zone: string,
+): { item: RoundItem; doneDelta: number; totalDelta: number } {
   const before = settleItem(item.tasks, item.outcomes, zone, item.postMoltHoldDays);
   const after = settleItem(item.tasks, [...item.outcomes, outcome], zone, item.postMoltHoldDays);
   return {
@@ -114,13 +150,25 @@ export function itemWithOutcome(item: RoundItem, outcome: DayOutcome, zone: stri
 }
 
 /** The round with one more outcome for an animal (a void takes its target away). */
-export function withOutcome(round: RoundResponse, animalId: string, outcome: DayOutcome): RoundResponse {
+export function withOutcome(
+  round: RoundResponse,
+  animalId: string,
+  outcome: DayOutcome,
+): RoundResponse {
   const index = round.items.findIndex((i) => i.animal.id === animalId);
   if (index < 0) return round;
-  const { item, doneDelta, totalDelta } = itemWithOutcome(round.items[index]!, outcome, round.timeZone);
+  const { item, doneDelta, totalDelta } = itemWithOutcome(
+    round.items[index]!,
+    outcome,
+    round.timeZone,
+  );
   const items = [...round.items];
   items[index] = item;
-  return { ...round, items, progress: { done: round.progress.done + doneDelta, total: round.progress.total + totalDelta } };
+  return {
+    ...round,
+    items,
+    progress: { done: round.progress.done + doneDelta, total: round.progress.total + totalDelta },
+  };
 }
 
 /** Done and total tasks of a round's items (the same count the server makes). */

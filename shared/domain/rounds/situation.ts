@@ -24,18 +24,38 @@ export interface Situation {
   possiblePremolt: boolean;
 }
 
-export function situationOf(animal: EngineAnimal, state: AnimalState, rules: RoundRules, date: LocalDate): Situation {
+export function situationOf(
+  animal: EngineAnimal,
+  state: AnimalState,
+  rules: RoundRules,
+  date: LocalDate,
+): Situation {
   const food = foodOf(animal);
   const holdDays = postMoltHoldDays(rules, animal);
   const holdEnd = state.lastMolt && holdDays > 0 ? addDays(state.lastMolt, holdDays) : null;
   const premolt = state.premoltSince !== null;
   const possiblePremolt =
-    food === 'prey' && canMolt(animal) && !premolt && state.refusalStreak >= stageCare(rules, animal).refusalStreak;
-  return { animal, state, rules, date, food, holdEnd, inHold: !!holdEnd && date < holdEnd, premolt, possiblePremolt };
+    food === 'prey' &&
+    canMolt(animal) &&
+    !premolt &&
+    state.refusalStreak >= stageCare(rules, animal).refusalStreak;
+  return {
+    animal,
+    state,
+    rules,
+    date,
+    food,
+    holdEnd,
+    inHold: !!holdEnd && date < holdEnd,
+    premolt,
+    possiblePremolt,
+  };
 }
 
 /** R16: settling in after arrival, potting up or a rehouse. Null when not settling. */
-export function settlingOf(s: Situation): { since: LocalDate; until: LocalDate; rehoused: boolean } | null {
+export function settlingOf(
+  s: Situation,
+): { since: LocalDate; until: LocalDate; rehoused: boolean } | null {
   const rehousedOn = s.state.rehousedOn ?? null;
   // The join date only counts for an animal never fed: a meal means it has settled.
   const arrived = s.state.lastMeal ? null : s.animal.addedOn;
@@ -43,4 +63,3 @@ export function settlingOf(s: Situation): { since: LocalDate; until: LocalDate; 
   if (!since || s.rules.settlingDays <= 0) return null;
   return { since, until: addDays(since, s.rules.settlingDays), rehoused: since === rehousedOn };
 }
-

@@ -10,21 +10,30 @@ import type { Situation } from './situation';
 // female's dish topped up quietly (R11 amended).
 
 /** R7 and § Care profiles: how the animal gets water — a dish, moist substrate, misting, none. */
-function waterPlan(s: Situation): { every: number; code: ReasonCode; first: string; since: (last: string) => string } | null {
+function waterPlan(
+  s: Situation,
+): { every: number; code: ReasonCode; first: string; since: (last: string) => string } | null {
   const { animal, rules } = s;
   if (animal.hasWaterDish) {
-    const damp = GROUP_CARE[animal.group].dampSubstrate ? ' Keep part of the substrate damp too.' : '';
+    const damp = GROUP_CARE[animal.group].dampSubstrate
+      ? ' Keep part of the substrate damp too.'
+      : '';
     return {
       every: rules.waterEveryDays,
       code: 'water_due',
       first: `No watering recorded yet.${damp}`,
-      since: (last) => `Water every ${plural(rules.waterEveryDays, 'day')}: last topped up on ${last}.${damp}`,
+      since: (last) =>
+        `Water every ${plural(rules.waterEveryDays, 'day')}: last topped up on ${last}.${damp}`,
     };
   }
   const profile = rules.profiles[animal.group];
   if (profile.hydration === 'none') return null;
   const below = profile.hydrateBelowMm;
-  if (below !== null && !(animal.sizeMm !== null ? animal.sizeMm < below : animal.lifeStage === 'sling')) return null;
+  if (
+    below !== null &&
+    !(animal.sizeMm !== null ? animal.sizeMm < below : animal.lifeStage === 'sling')
+  )
+    return null;
   const every = profile.hydrateEveryDays;
   const noDish = below !== null ? 'No dish at this size' : 'No dish';
   if (profile.hydration === 'moisten') {
@@ -32,14 +41,16 @@ function waterPlan(s: Situation): { every: number; code: ReasonCode; first: stri
       every,
       code: 'moisten_substrate',
       first: `${noDish}: moisten part of the substrate (no watering recorded yet).`,
-      since: (last) => `${noDish}: moisten part of the substrate every ${plural(every, 'day')} (last on ${last}).`,
+      since: (last) =>
+        `${noDish}: moisten part of the substrate every ${plural(every, 'day')} (last on ${last}).`,
     };
   }
   return {
     every,
     code: 'mist_due',
     first: `${noDish}: mist lightly — it drinks the droplets (no misting recorded yet).`,
-    since: (last) => `${noDish}: mist lightly every ${plural(every, 'day')} — it drinks the droplets (last on ${last}).`,
+    since: (last) =>
+      `${noDish}: mist lightly every ${plural(every, 'day')} — it drinks the droplets (last on ${last}).`,
   };
 }
 
@@ -54,23 +65,42 @@ export function decideWater(d: AnimalDecision, s: Situation) {
   if (dueWater > s.date) return;
   const carried = lastWatered ? carriedFrom(dueWater, s.date) : 0;
   const reasons: Reason[] = [
-    lastWatered ? { code: plan.code, text: plan.since(shortDate(lastWatered)), dates: [lastWatered] } : { code: plan.code, text: plan.first, dates: [] },
+    lastWatered
+      ? { code: plan.code, text: plan.since(shortDate(lastWatered)), dates: [lastWatered] }
+      : { code: plan.code, text: plan.first, dates: [] },
   ];
-  if (carried > 0) reasons.push({ code: 'carried_over', text: `Carried over ${plural(carried, 'day')}: due on ${shortDate(dueWater)}.`, dates: [dueWater] });
+  if (carried > 0)
+    reasons.push({
+      code: 'carried_over',
+      text: `Carried over ${plural(carried, 'day')}: due on ${shortDate(dueWater)}.`,
+      dates: [dueWater],
+    });
   d.tasks.push({ kind: 'water', reasons, carriedOverDays: carried });
 }
 
 /** R11 amended: a guarding female's dish, topped up quietly when due (R7's days). */
-export function quietWater(d: AnimalDecision, state: AnimalState, rules: RoundRules, date: LocalDate) {
+export function quietWater(
+  d: AnimalDecision,
+  state: AnimalState,
+  rules: RoundRules,
+  date: LocalDate,
+) {
   if (!d.animal.hasWaterDish) return;
   const due = state.lastWatered ? addDays(state.lastWatered, rules.waterEveryDays) : date;
   d.nextWater = due;
   if (due > date) return;
-  const last = state.lastWatered ? `last topped up on ${shortDate(state.lastWatered)}` : 'no watering recorded yet';
+  const last = state.lastWatered
+    ? `last topped up on ${shortDate(state.lastWatered)}`
+    : 'no watering recorded yet';
   d.tasks.push({
     kind: 'water',
-    reasons: [{ code: 'water_due', text: `Water (${last}): top up quietly, do not disturb her.`, dates: state.lastWatered ? [state.lastWatered] : [] }],
+    reasons: [
+      {
+        code: 'water_due',
+        text: `Water (${last}): top up quietly, do not disturb her.`,
+        dates: state.lastWatered ? [state.lastWatered] : [],
+      },
+    ],
     carriedOverDays: state.lastWatered ? carriedFrom(due, date) : 0,
   });
 }
-

@@ -26,7 +26,10 @@ const NAV = [
 /** A helper sees the round, the scanner and their settings; nothing of the collection's records. */
 function BottomNav({ helper }: { helper: boolean }) {
   return (
-    <nav aria-label="Main" className="print:hidden fixed inset-x-0 bottom-0 z-20 border-t-2 border-border bg-surface pb-[env(safe-area-inset-bottom)]">
+    <nav
+      aria-label="Main"
+      className="print:hidden fixed inset-x-0 bottom-0 z-20 border-t-2 border-border bg-surface pb-[env(safe-area-inset-bottom)]"
+    >
       <ul className="mx-auto flex max-w-xl">
         {NAV.filter((n) => n.helper || !helper).map(({ to, label, Icon }) => (
           <li key={to} className="flex-1">
@@ -57,7 +60,10 @@ function useKeepAnimalListOffline(collection: MembershipSummary | null) {
   const collectionId = collection && collection.role !== 'helper' ? collection.collectionId : null;
   useEffect(() => {
     if (!collectionId) return;
-    const timer = setTimeout(() => void queryClient.prefetchQuery(animalListQueryOptions(collectionId)), DIRECTORY_DELAY_MS);
+    const timer = setTimeout(
+      () => void queryClient.prefetchQuery(animalListQueryOptions(collectionId)),
+      DIRECTORY_DELAY_MS,
+    );
     return () => clearTimeout(timer);
   }, [collectionId, queryClient]);
 }
@@ -71,11 +77,17 @@ export function Shell() {
   const queryClient = useQueryClient();
   const userId = me.data?.user.id;
   // The signed-in person's outbox syncs while the app is open; saved taps refresh the rounds.
-  useEffect(() => (userId ? startSync(userId, () => {
-      void queryClient.invalidateQueries({ queryKey: queryKeys.rounds.everywhere() });
-      // A synced molt can change an animal's size and sex.
-      void queryClient.invalidateQueries({ queryKey: queryKeys.animals.everywhere() });
-    }) : undefined), [userId, queryClient]);
+  useEffect(
+    () =>
+      userId
+        ? startSync(userId, () => {
+            void queryClient.invalidateQueries({ queryKey: queryKeys.rounds.everywhere() });
+            // A synced molt can change an animal's size and sex.
+            void queryClient.invalidateQueries({ queryKey: queryKeys.animals.everywhere() });
+          })
+        : undefined,
+    [userId, queryClient],
+  );
 
   useKeepAnimalListOffline(current);
 
@@ -94,20 +106,38 @@ export function Shell() {
   const helper = current?.role === 'helper';
   // Outside the cover a helper sees when it runs, on every screen but Settings (to leave it).
   const outside =
-    helper && current && coverWindowState(new Date(), current.startsAt ? new Date(current.startsAt) : null, current.endsAt ? new Date(current.endsAt) : null) !== 'during' && location.pathname !== '/settings';
+    helper &&
+    current &&
+    coverWindowState(
+      new Date(),
+      current.startsAt ? new Date(current.startsAt) : null,
+      current.endsAt ? new Date(current.endsAt) : null,
+    ) !== 'during' &&
+    location.pathname !== '/settings';
   return (
     <div className="min-h-dvh pb-24">
       <header className="print:hidden border-b-2 border-border bg-surface px-4 py-2">
         <div className="mx-auto flex max-w-xl flex-col gap-1">
           <p className="truncate text-sm font-bold text-muted">
-            Rackside · <span className="text-text">{current?.collectionName ?? 'No collection'}</span>
+            Rackside ·{' '}
+            <span className="text-text">{current?.collectionName ?? 'No collection'}</span>
           </p>
           <SyncIndicator />
         </div>
       </header>
       <main className="mx-auto max-w-xl px-4 pt-3">
         {outside && current ? (
-          <Notice tone="info" title={coverWindowMessage({ ...current, startsAt: current.startsAt ? new Date(current.startsAt) : null, endsAt: current.endsAt ? new Date(current.endsAt) : null }, new Date())}>
+          <Notice
+            tone="info"
+            title={coverWindowMessage(
+              {
+                ...current,
+                startsAt: current.startsAt ? new Date(current.startsAt) : null,
+                endsAt: current.endsAt ? new Date(current.endsAt) : null,
+              },
+              new Date(),
+            )}
+          >
             <p>Outside those days there is nothing to do here.</p>
           </Notice>
         ) : (

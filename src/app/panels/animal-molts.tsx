@@ -26,10 +26,17 @@ export function AnimalMolts({ recorder, animal, timeZone, unit }: Props) {
   const record = useRecordOutcome(recorder);
   const [recentMolts, setRecentMolts] = useState<{ eventId: string; date: string }[]>([]);
   const today = localDateOf(new Date(), timeZone);
-  const todayItem = localToday.data?.round.date === today ? localToday.data.round.items.find((i) => i.animal.id === animal.id) : undefined;
+  const todayItem =
+    localToday.data?.round.date === today
+      ? localToday.data.round.items.find((i) => i.animal.id === animal.id)
+      : undefined;
   const molts = [
-    ...(history.data?.events ?? []).filter((e) => e.kind === 'molted' && !e.voidedBy).map((e) => ({ eventId: e.id, date: localDateOf(new Date(e.at), timeZone) })),
-    ...(todayItem?.outcomes ?? []).filter((o) => o.kind === 'molted').map((o) => ({ eventId: o.eventId, date: today })),
+    ...(history.data?.events ?? [])
+      .filter((e) => e.kind === 'molted' && !e.voidedBy)
+      .map((e) => ({ eventId: e.id, date: localDateOf(new Date(e.at), timeZone) })),
+    ...(todayItem?.outcomes ?? [])
+      .filter((o) => o.kind === 'molted')
+      .map((o) => ({ eventId: o.eventId, date: today })),
     ...recentMolts,
   ];
   return (
@@ -39,8 +46,14 @@ export function AnimalMolts({ recorder, animal, timeZone, unit }: Props) {
       unit={unit}
       molts={molts}
       onRecord={async (payload, at, completes) => {
-        const event = await record(animal, completes ? 'molt_details' : 'molted', completes ? { targetId: completes, ...payload } : payload, at);
-        if (!completes) setRecentMolts((m) => [...m, { eventId: event.id, date: localDateOf(at, timeZone) }]);
+        const event = await record(
+          animal,
+          completes ? 'molt_details' : 'molted',
+          completes ? { targetId: completes, ...payload } : payload,
+          at,
+        );
+        if (!completes)
+          setRecentMolts((m) => [...m, { eventId: event.id, date: localDateOf(at, timeZone) }]);
       }}
     />
   );

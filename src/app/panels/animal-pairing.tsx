@@ -19,6 +19,18 @@ interface Props {
 export function AnimalPairing({ recorder, female, animals, timeZone }: Props) {
   const record = useRecordOutcome(recorder);
   if (female.status !== 'active' || !canBreed(female)) return null;
-  const males = animals.filter((a) => a.status === 'active' && a.group === female.group && (a.sex === 'male' || a.sex === 'mature_male'));
-  return <PairingForm today={localDateOf(new Date(), timeZone)} timeZone={timeZone} males={males} onRecord={(payload, at) => record(female, 'paired', payload, at)} />;
+  const males = animals.filter(
+    (a) =>
+      a.status === 'active' &&
+      a.group === female.group &&
+      (a.sex === 'male' || a.sex === 'mature_male'),
+  );
+  return (
+    <PairingForm
+      today={localDateOf(new Date(), timeZone)}
+      timeZone={timeZone}
+      males={males}
+      onRecord={(payload, at) => record(female, 'paired', payload, at)}
+    />
+  );
 }

@@ -21,20 +21,42 @@ export function HelperRound({ me, collection }: { me: MeResponse; collection: Me
   const cover = useHelperCover(collectionId, me.user.id);
   const { local } = useRound(me.user.id, collectionId, 'today');
   const acknowledge = useAcknowledgeSafety(collectionId, me.user.id);
-  const cautions = useMemo(() => CAUTIONS.filter((c) => local.data?.round.items.some((i) => i.animal.cautions.includes(c))), [local.data]);
+  const cautions = useMemo(
+    () =>
+      CAUTIONS.filter((c) => local.data?.round.items.some((i) => i.animal.cautions.includes(c))),
+    [local.data],
+  );
   const view = cover.data;
-  const extras = useCallback((item: RoundItemView) => (view ? <HelperItemExtras item={item} cover={view} timeZone={timeZone} /> : null), [view, timeZone]);
+  const extras = useCallback(
+    (item: RoundItemView) =>
+      view ? <HelperItemExtras item={item} cover={view} timeZone={timeZone} /> : null,
+    [view, timeZone],
+  );
 
   if (cover.isPending) return <Loading label="Loading your cover…" />;
   if (cover.isError) return <Notice tone="error" title={cover.error.message} />;
   if (!cover.data.safetyAcknowledgedAt) {
-    return <SafetyPage cautions={cautions.length ? cautions : CAUTIONS} busy={acknowledge.isPending} error={acknowledge.error?.message ?? null} onAcknowledge={() => acknowledge.mutate()} />;
+    return (
+      <SafetyPage
+        cautions={cautions.length ? cautions : CAUTIONS}
+        busy={acknowledge.isPending}
+        error={acknowledge.error?.message ?? null}
+        onAcknowledge={() => acknowledge.mutate()}
+      />
+    );
   }
   return (
     <div className="flex flex-col gap-3">
-      <h1 className="text-3xl font-extrabold">Today · {describeLocalDate(localDateOf(new Date(), timeZone))}</h1>
+      <h1 className="text-3xl font-extrabold">
+        Today · {describeLocalDate(localDateOf(new Date(), timeZone))}
+      </h1>
       <CoverHeader cover={cover.data} />
-      <TodayRoundPanel userId={me.user.id} myName={me.user.displayName} collectionId={collectionId} extras={extras} />
+      <TodayRoundPanel
+        userId={me.user.id}
+        myName={me.user.displayName}
+        collectionId={collectionId}
+        extras={extras}
+      />
     </div>
   );
 }

@@ -20,7 +20,15 @@ interface Props {
 }
 
 /** What a scanned label opens (scan + rounds): the item ready for one tap, or a plain reason why not. */
-export function LabelTargetPanel({ target, timeZone, myName, onRecord, onNext, nextWord, onSwitchCollection }: Props) {
+export function LabelTargetPanel({
+  target,
+  timeZone,
+  myName,
+  onRecord,
+  onNext,
+  nextWord,
+  onSwitchCollection,
+}: Props) {
   const [recordAnyway, setRecordAnyway] = useState(false);
   const next = (
     <Button variant="secondary" wide onClick={onNext}>
@@ -56,7 +64,9 @@ export function LabelTargetPanel({ target, timeZone, myName, onRecord, onNext, n
         </Notice>
       )}
       <RoundItemCard item={item} timeZone={timeZone} myName={myName}>
-        {ready && <OutcomeButtons item={item} onRecord={(kind, payload) => onRecord(item, kind, payload)} />}
+        {ready && (
+          <OutcomeButtons item={item} onRecord={(kind, payload) => onRecord(item, kind, payload)} />
+        )}
       </RoundItemCard>
       {next}
     </div>

@@ -1,7 +1,11 @@
 import { useCallback } from 'react';
 import { localDateOf } from '#shared/domain/local-dates';
 import { MoltForm } from '@/features/breeding/components/molt-form';
-import { TodayRound, type MoltDetailsSlot, type TodayRoundProps } from '@/features/rounds/components/today-round';
+import {
+  TodayRound,
+  type MoltDetailsSlot,
+  type TodayRoundProps,
+} from '@/features/rounds/components/today-round';
 import { useSizeUnit } from '@/lib/preferences';
 
 /** Today's round (rounds) with the molt-details form (breeding records) under a fresh molt. */

@@ -18,15 +18,21 @@ export function AnimalEditRoute() {
   const places = useLocations(collectionId);
   const save = useSaveAnimal(collectionId, animalId);
   const [unit] = useSizeUnit();
-  const knownNames = useMemo(() => [...new Set(list.data?.animals.map((a) => a.scientificName) ?? [])].sort(), [list.data]);
-  if (!collection || collection.role === 'helper') return <Notice tone="info" title="The collection’s records are kept by its keepers." />;
+  const knownNames = useMemo(
+    () => [...new Set(list.data?.animals.map((a) => a.scientificName) ?? [])].sort(),
+    [list.data],
+  );
+  if (!collection || collection.role === 'helper')
+    return <Notice tone="info" title="The collection’s records are kept by its keepers." />;
   if (list.isPending || places.isPending) return <Loading />;
   if (list.isError) return <Notice tone="error" title={list.error.message} />;
   const animal = animalId ? (list.data.animals.find((a) => a.id === animalId) ?? null) : null;
   if (animalId && !animal) return <Notice tone="error" title="We could not find that animal." />;
   return (
     <div className="flex flex-col gap-3">
-      <h1 className="text-3xl font-extrabold">{animal ? `Edit ${animal.name}` : 'Add an animal'}</h1>
+      <h1 className="text-3xl font-extrabold">
+        {animal ? `Edit ${animal.name}` : 'Add an animal'}
+      </h1>
       <AnimalForm
         animal={animal}
         locations={places.data?.locations ?? []}

@@ -10,7 +10,11 @@ import { AnimalPairing } from '@/app/panels/animal-pairing';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
-import { useLocations, useMoveAnimals, useRetireAnimal } from '@/features/animals/api/animal-records';
+import {
+  useLocations,
+  useMoveAnimals,
+  useRetireAnimal,
+} from '@/features/animals/api/animal-records';
 import { useAnimalList } from '@/features/animals/api/list-animals';
 import { AnimalCard } from '@/features/animals/components/animal-card';
 import { MovePanel } from '@/features/animals/components/move-panel';
@@ -47,7 +51,10 @@ export function AnimalRoute() {
   if (!animal) return <Notice tone="error" title="We could not find that animal." />;
   const kept = animal.status === 'active';
   const today = localDateOf(new Date(), collection.timeZone);
-  const todayItem = localToday.data?.round.date === today ? localToday.data.round.items.find((i) => i.animal.id === animal.id) : undefined;
+  const todayItem =
+    localToday.data?.round.date === today
+      ? localToday.data.round.items.find((i) => i.animal.id === animal.id)
+      : undefined;
   return (
     <div className="flex flex-col gap-4">
       <h1 className="sr-only">{animal.name}</h1>
@@ -55,23 +62,37 @@ export function AnimalRoute() {
       <AnimalCard animal={animal} />
       <p className="text-muted">
         {animal.commonName && `${animal.commonName} · `}
-        {animal.group === 'tarantula' || animal.group === 'true_spider' ? 'Leg span' : 'Body length'} {formatSize(animal.sizeMm, unit)}
+        {animal.group === 'tarantula' || animal.group === 'true_spider'
+          ? 'Leg span'
+          : 'Body length'}{' '}
+        {formatSize(animal.sizeMm, unit)}
         {animal.acquiredOn && ` · acquired ${animal.acquiredOn}`}
         {animal.source && ` from ${animal.source}`}
         {animal.clutch && ` · clutch ${animal.clutch}`}
       </p>
       {animal.cautionNote && <Notice tone="warning" title={animal.cautionNote} />}
-      {!kept && <Notice tone="info" title={`${STATUS_LABEL[animal.status]}${animal.statusDate ? ` on ${animal.statusDate}` : ''}: not on any round.`} />}
+      {!kept && (
+        <Notice
+          tone="info"
+          title={`${STATUS_LABEL[animal.status]}${animal.statusDate ? ` on ${animal.statusDate}` : ''}: not on any round.`}
+        />
+      )}
       {animal.notes && <p className="whitespace-pre-line">{animal.notes}</p>}
       <nav aria-label="Quick actions" className="grid grid-cols-2 gap-2">
-        <Link to={`/animals/${animal.id}/edit`} className="inline-flex min-h-target items-center justify-center rounded-xl border-2 border-primary bg-primary px-4 text-lg font-bold text-on-primary">
+        <Link
+          to={`/animals/${animal.id}/edit`}
+          className="inline-flex min-h-target items-center justify-center rounded-xl border-2 border-primary bg-primary px-4 text-lg font-bold text-on-primary"
+        >
           Edit
         </Link>
         <Button variant="secondary" onClick={() => setPanel(panel === 'move' ? null : 'move')}>
           Move…
         </Button>
         {kept ? (
-          <Button variant="secondary" onClick={() => setPanel(panel === 'retire' ? null : 'retire')}>
+          <Button
+            variant="secondary"
+            onClick={() => setPanel(panel === 'retire' ? null : 'retire')}
+          >
             Retire…
           </Button>
         ) : (
@@ -80,8 +101,29 @@ export function AnimalRoute() {
           </Button>
         )}
       </nav>
-      {panel === 'move' && <MovePanel what={animal.name} locations={places.data?.locations ?? []} current={animal.location?.id} onMove={(locationId, rehoused) => move.mutateAsync({ animalIds: [animal.id], locationId, rehoused }).then(() => setPanel((p) => (p === 'move' ? null : p)))} onCancel={() => setPanel(null)} />}
-      {panel === 'retire' && <RetirePanel what={animal.name} today={today} onRetire={(body) => retire.mutateAsync(body).then(() => setPanel((p) => (p === 'retire' ? null : p)))} onCancel={() => setPanel(null)} />}
+      {panel === 'move' && (
+        <MovePanel
+          what={animal.name}
+          locations={places.data?.locations ?? []}
+          current={animal.location?.id}
+          onMove={(locationId, rehoused) =>
+            move
+              .mutateAsync({ animalIds: [animal.id], locationId, rehoused })
+              .then(() => setPanel((p) => (p === 'move' ? null : p)))
+          }
+          onCancel={() => setPanel(null)}
+        />
+      )}
+      {panel === 'retire' && (
+        <RetirePanel
+          what={animal.name}
+          today={today}
+          onRetire={(body) =>
+            retire.mutateAsync(body).then(() => setPanel((p) => (p === 'retire' ? null : p)))
+          }
+          onCancel={() => setPanel(null)}
+        />
+      )}
       {retire.isError && <Notice tone="error" title={retire.error.message} />}
       <SchedulePanel
         collectionId={collectionId}
@@ -92,8 +134,19 @@ export function AnimalRoute() {
       />
       <LabelPanel collectionId={collectionId} animal={animal} />
       <GrowthPanel events={history.data?.events ?? []} timeZone={collection.timeZone} unit={unit} />
-      <AnimalMolts key={`molts-${animal.id}`} recorder={recorder} animal={animal} timeZone={collection.timeZone} unit={unit} />
-      <AnimalPairing recorder={recorder} female={animal} animals={list.data.animals} timeZone={collection.timeZone} />
+      <AnimalMolts
+        key={`molts-${animal.id}`}
+        recorder={recorder}
+        animal={animal}
+        timeZone={collection.timeZone}
+        unit={unit}
+      />
+      <AnimalPairing
+        recorder={recorder}
+        female={animal}
+        animals={list.data.animals}
+        timeZone={collection.timeZone}
+      />
       <CareForm key={animal.id} collectionId={collectionId} animal={animal} />
       <AnimalHistory recorder={recorder} animal={animal} timeZone={collection.timeZone} />
     </div>

@@ -20,7 +20,8 @@ export function BreedingRoute() {
   const list = useAnimalList(collectionId, keeper);
   const sacs = useEggSacs(collectionId);
   const { local } = useRound(me.user.id, collectionId, 'today');
-  if (!collection || !keeper) return <Notice tone="info" title="Breeding records are kept by the collection’s keepers." />;
+  if (!collection || !keeper)
+    return <Notice tone="info" title="Breeding records are kept by the collection’s keepers." />;
   if (list.isPending) return <Loading />;
   if (list.isError) return <Notice tone="error" title={list.error.message} />;
   const today = localDateOf(new Date(), collection.timeZone);
@@ -29,9 +30,19 @@ export function BreedingRoute() {
   return (
     <div className="flex flex-col gap-6">
       <h1 className="text-3xl font-extrabold">Breeding and insights</h1>
-      <SacsManager collectionId={collection.collectionId} today={today} females={females} onSlings={(animalIds) => navigate('/labels', { state: { animalIds } })} />
+      <SacsManager
+        collectionId={collection.collectionId}
+        today={today}
+        females={females}
+        onSlings={(animalIds) => navigate('/labels', { state: { animalIds } })}
+      />
       <IncubationForm collectionId={collection.collectionId} />
-      <Insights animals={list.data.animals} round={local.data?.round.items ?? []} sacs={sacs.data?.sacs ?? []} today={today} />
+      <Insights
+        animals={list.data.animals}
+        round={local.data?.round.items ?? []}
+        sacs={sacs.data?.sacs ?? []}
+        today={today}
+      />
     </div>
   );
 }

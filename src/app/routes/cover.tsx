@@ -11,13 +11,22 @@ export function CoverRoute() {
   const { collection } = useShell();
   const keeper = !!collection && collection.role !== 'helper';
   const animals = useAnimalList(collection?.collectionId ?? '', keeper);
-  if (!collection || !keeper) return <Notice tone="info" title="Covers are arranged by the collection’s keepers." />;
+  if (!collection || !keeper)
+    return <Notice tone="info" title="Covers are arranged by the collection’s keepers." />;
   const today = localDateOf(new Date(), collection.timeZone);
   return (
     <div className="flex flex-col gap-6">
       <h1 className="text-3xl font-extrabold">Cover for a helper</h1>
-      {collection.role === 'owner' ? <CoverManager collectionId={collection.collectionId} today={today} /> : <p>The owner invites helpers; you can write the handover notes.</p>}
-      <HandoverEditor collectionId={collection.collectionId} animals={animals.data?.animals.filter((a) => a.status === 'active') ?? []} today={today} />
+      {collection.role === 'owner' ? (
+        <CoverManager collectionId={collection.collectionId} today={today} />
+      ) : (
+        <p>The owner invites helpers; you can write the handover notes.</p>
+      )}
+      <HandoverEditor
+        collectionId={collection.collectionId}
+        animals={animals.data?.animals.filter((a) => a.status === 'active') ?? []}
+        today={today}
+      />
       <section aria-labelledby="reports-heading" className="flex flex-col gap-2">
         <h2 id="reports-heading" className="text-xl font-extrabold">
           Daily reports

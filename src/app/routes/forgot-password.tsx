@@ -7,7 +7,10 @@ export function ForgotPasswordRoute() {
     <PublicPage title="Reset your password">
       <p className="text-muted">We will e-mail you a link that works for one hour.</p>
       <ForgotPasswordForm />
-      <Link className="inline-flex min-h-target items-center font-bold underline underline-offset-4" to="/sign-in">
+      <Link
+        className="inline-flex min-h-target items-center font-bold underline underline-offset-4"
+        to="/sign-in"
+      >
         Back to sign in
       </Link>
     </PublicPage>

@@ -8,16 +8,20 @@ export function ImportRoute() {
   const { collection } = useShell();
   const keeper = !!collection && collection.role !== 'helper';
   const list = useAnimalList(collection?.collectionId ?? '', keeper);
-  if (!collection || !keeper) return <Notice tone="info" title="Imports are for the collection’s keepers." />;
+  if (!collection || !keeper)
+    return <Notice tone="info" title="Imports are for the collection’s keepers." />;
   if (list.isPending) return <Loading />;
   return (
     <div className="flex flex-col gap-3">
       <h1 className="text-3xl font-extrabold">Import animals</h1>
       <p>
-        From a spreadsheet saved as CSV: one animal per row, a header row naming the columns. Places named in the file (room, rack, shelf, position) are added
-        when they are new.
+        From a spreadsheet saved as CSV: one animal per row, a header row naming the columns. Places
+        named in the file (room, rack, shelf, position) are added when they are new.
       </p>
-      <CsvImport collectionId={collection.collectionId} takenCodes={list.data?.animals.map((a) => a.labelCode) ?? []} />
+      <CsvImport
+        collectionId={collection.collectionId}
+        takenCodes={list.data?.animals.map((a) => a.labelCode) ?? []}
+      />
     </div>
   );
 }

@@ -21,7 +21,11 @@ export function LabelLinkRoute() {
   const keeper = !!collection && collection.role !== 'helper';
   const { local } = useRound(me.user.id, collectionId, 'today');
   const directory = useAnimalList(collectionId, keeper);
-  const record = useRecordOutcome({ userId: me.user.id, byName: me.user.displayName, collectionId });
+  const record = useRecordOutcome({
+    userId: me.user.id,
+    byName: me.user.displayName,
+    collectionId,
+  });
   const target = useMemo(
     () =>
       collection &&
@@ -33,7 +37,8 @@ export function LabelLinkRoute() {
       }),
     [collection, me.memberships, tag, code, local.data, keeper, directory.data],
   );
-  if (!collection || !target || local.isPending || (keeper && directory.isPending)) return <Loading label="Opening the label…" />;
+  if (!collection || !target || local.isPending || (keeper && directory.isPending))
+    return <Loading label="Opening the label…" />;
   return (
     <div className="flex flex-col gap-3">
       <h1 className="text-3xl font-extrabold">Label {code.toUpperCase()}</h1>
@@ -41,7 +46,9 @@ export function LabelLinkRoute() {
         target={target}
         timeZone={collection.timeZone}
         myName={me.user.displayName}
-        onRecord={(item, kind, payload) => void record(item.animal, kind, payload).then(() => navigate('/today'))}
+        onRecord={(item, kind, payload) =>
+          void record(item.animal, kind, payload).then(() => navigate('/today'))
+        }
         onNext={() => navigate('/today')}
         onSwitchCollection={chooseCollection}
         nextWord="Back to today’s round"

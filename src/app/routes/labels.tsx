@@ -12,8 +12,15 @@ export function LabelsRoute() {
   const keeper = !!collection && collection.role !== 'helper';
   const list = useAnimalList(collection?.collectionId ?? '', keeper);
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
-  if (!keeper) return <Notice tone="info" title="Labels are printed by the collection’s keepers." />;
-  if (!collection.labelTag) return <Notice tone="info" title="Connect once so this phone learns the collection’s label tag, then print." />;
+  if (!keeper)
+    return <Notice tone="info" title="Labels are printed by the collection’s keepers." />;
+  if (!collection.labelTag)
+    return (
+      <Notice
+        tone="info"
+        title="Connect once so this phone learns the collection’s label tag, then print."
+      />
+    );
   if (list.isPending) return <Loading label="Loading animals…" />;
   if (list.isError) return <Notice tone="error" title={list.error.message} />;
   const preselected = (location.state as { animalIds?: string[] } | null)?.animalIds ?? [];
@@ -21,7 +28,10 @@ export function LabelsRoute() {
     <div className="flex flex-col gap-3">
       <h1 className="text-3xl font-extrabold">Labels</h1>
       {list.data.offlineSince && (
-        <p className="text-sm font-bold text-muted">No signal · the animal list is this phone’s copy from {clockTime(list.data.offlineSince, collection.timeZone)}</p>
+        <p className="text-sm font-bold text-muted">
+          No signal · the animal list is this phone’s copy from{' '}
+          {clockTime(list.data.offlineSince, collection.timeZone)}
+        </p>
       )}
       <LabelsWorkbench
         collectionId={collection.collectionId}

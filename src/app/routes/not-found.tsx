@@ -5,7 +5,10 @@ export function NotFoundRoute() {
   return (
     <PublicPage title="Nothing here">
       <p>This page does not exist.</p>
-      <Link className="inline-flex min-h-target items-center font-bold underline underline-offset-4" to="/today">
+      <Link
+        className="inline-flex min-h-target items-center font-bold underline underline-offset-4"
+        to="/today"
+      >
         Go to today&apos;s round
       </Link>
     </PublicPage>

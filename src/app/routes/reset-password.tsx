@@ -17,7 +17,10 @@ export function ResetPasswordRoute() {
       ) : (
         <Notice tone="error" title="This page needs the link from the reset e-mail." />
       )}
-      <Link className="inline-flex min-h-target items-center font-bold underline underline-offset-4" to="/sign-in">
+      <Link
+        className="inline-flex min-h-target items-center font-bold underline underline-offset-4"
+        to="/sign-in"
+      >
         Go to sign in
       </Link>
     </PublicPage>

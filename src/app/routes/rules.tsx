@@ -6,7 +6,8 @@ import { RulesForm } from '@/features/rounds/components/rules-form';
 
 export function RulesRoute() {
   const { collection } = useShell();
-  if (!collection || collection.role === 'helper') return <Notice tone="info" title="Rules are for the collection’s owner and keepers." />;
+  if (!collection || collection.role === 'helper')
+    return <Notice tone="info" title="Rules are for the collection’s owner and keepers." />;
   return <Rules collectionId={collection.collectionId} />;
 }
 
@@ -18,8 +19,9 @@ function Rules({ collectionId }: { collectionId: string }) {
     <div className="flex flex-col gap-3">
       <h1 className="text-3xl font-extrabold">Round rules</h1>
       <p className="text-muted">
-        How Rackside decides who is fed, with what, and who is left alone. These are husbandry reminders from common keeping
-        practice, not veterinary advice; change them to suit your animals.
+        How Rackside decides who is fed, with what, and who is left alone. These are husbandry
+        reminders from common keeping practice, not veterinary advice; change them to suit your
+        animals.
       </p>
       <RulesForm collectionId={collectionId} data={rules.data} />
     </div>

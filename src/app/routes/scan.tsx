@@ -27,7 +27,15 @@ const buzz = () => navigator.vibrate?.(60);
 export function ScanRoute() {
   const { me, collection, chooseCollection } = useShell();
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
-  return <Scanner userId={me.user.id} myName={me.user.displayName} memberships={me.memberships} collection={collection} chooseCollection={chooseCollection} />;
+  return (
+    <Scanner
+      userId={me.user.id}
+      myName={me.user.displayName}
+      memberships={me.memberships}
+      collection={collection}
+      chooseCollection={chooseCollection}
+    />
+  );
 }
 
 interface ScannerProps {
@@ -79,7 +87,12 @@ function Scanner({ userId, myName, memberships, collection, chooseCollection }: 
     <div className="flex flex-col gap-3">
       <h1 className="text-3xl font-extrabold">Scan</h1>
       <label className="flex min-h-target cursor-pointer items-center gap-3 font-bold">
-        <input type="checkbox" checked={walkMode} onChange={(e) => setWalkMode(e.target.checked)} className="size-6 accent-[var(--c-primary)]" />
+        <input
+          type="checkbox"
+          checked={walkMode}
+          onChange={(e) => setWalkMode(e.target.checked)}
+          className="size-6 accent-[var(--c-primary)]"
+        />
         Walk mode: back to the camera after each tap
       </label>
       {target && (

@@ -41,20 +41,35 @@ export function SettingsRoute() {
       <ThemePicker />
       <UnitPicker />
       {collection && collection.role !== 'helper' && (
-        <Link to="/cover" className="flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold">
+        <Link
+          to="/cover"
+          className="flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold"
+        >
           Cover for a helper
           <span aria-hidden="true">›</span>
         </Link>
       )}
-      {collection?.role === 'helper' && <LeaveCover collectionId={collection.collectionId} onLeft={() => window.location.assign('/today')} />}
+      {collection?.role === 'helper' && (
+        <LeaveCover
+          collectionId={collection.collectionId}
+          onLeft={() => window.location.assign('/today')}
+        />
+      )}
       {collection && collection.role !== 'helper' && (
-        <Link to="/settings/rules" className="flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold">
+        <Link
+          to="/settings/rules"
+          className="flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold"
+        >
           Round rules
           <span aria-hidden="true">›</span>
         </Link>
       )}
-      {collection && collection.role !== 'helper' && <DataPanel collectionId={collection.collectionId} isOwner={collection.role === 'owner'} />}
-      {collection?.role === 'owner' && <MembersPanel collectionId={collection.collectionId} ownUserId={me.user.id} />}
+      {collection && collection.role !== 'helper' && (
+        <DataPanel collectionId={collection.collectionId} isOwner={collection.role === 'owner'} />
+      )}
+      {collection?.role === 'owner' && (
+        <MembersPanel collectionId={collection.collectionId} ownUserId={me.user.id} />
+      )}
       {collection?.role === 'keeper' && (
         <LeaveCollection
           collectionId={collection.collectionId}
@@ -69,9 +84,20 @@ export function SettingsRoute() {
           }}
         />
       )}
-      {collection?.role === 'owner' && <DeleteCollection key={collection.collectionId} collectionId={collection.collectionId} collectionName={collection.collectionName} onDeleted={onDeleted} />}
+      {collection?.role === 'owner' && (
+        <DeleteCollection
+          key={collection.collectionId}
+          collectionId={collection.collectionId}
+          collectionName={collection.collectionName}
+          onDeleted={onDeleted}
+        />
+      )}
       {me.memberships.length > 0 && (
-        <CollectionSwitcher memberships={me.memberships} currentId={collection?.collectionId} onChoose={chooseCollection} />
+        <CollectionSwitcher
+          memberships={me.memberships}
+          currentId={collection?.collectionId}
+          onChoose={chooseCollection}
+        />
       )}
       <section aria-labelledby="account-heading" className="flex flex-col gap-3">
         <h2 id="account-heading" className="text-xl font-extrabold">
@@ -84,7 +110,12 @@ export function SettingsRoute() {
       </section>
       {signOut.isError && <Notice tone="error" title={signOut.error.message} />}
       <StorageStatus />
-      <SignOutButton busy={signOut.isPending} onSignOut={() => signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })} />
+      <SignOutButton
+        busy={signOut.isPending}
+        onSignOut={() =>
+          signOut.mutate(undefined, { onSuccess: () => navigate('/sign-in', { replace: true }) })
+        }
+      />
       <SafetyNote />
     </div>
   );

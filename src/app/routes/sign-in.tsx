@@ -10,10 +10,16 @@ export function SignInRoute() {
     <PublicPage title="Sign in">
       <SignInForm onSignedIn={() => navigate(from, { replace: true })} />
       <p className="flex flex-wrap gap-x-6">
-        <Link className="inline-flex min-h-target items-center font-bold underline underline-offset-4" to="/forgot-password">
+        <Link
+          className="inline-flex min-h-target items-center font-bold underline underline-offset-4"
+          to="/forgot-password"
+        >
           Forgot your password?
         </Link>
-        <Link className="inline-flex min-h-target items-center font-bold underline underline-offset-4" to="/sign-up">
+        <Link
+          className="inline-flex min-h-target items-center font-bold underline underline-offset-4"
+          to="/sign-up"
+        >
           Create an account
         </Link>
       </p>

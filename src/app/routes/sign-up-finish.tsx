@@ -15,7 +15,10 @@ export function SignUpFinishRoute() {
       ) : (
         <Notice tone="error" title="This page needs the link from the sign-up e-mail." />
       )}
-      <Link className="inline-flex min-h-target items-center font-bold underline underline-offset-4" to="/sign-up">
+      <Link
+        className="inline-flex min-h-target items-center font-bold underline underline-offset-4"
+        to="/sign-up"
+      >
         Start again
       </Link>
     </PublicPage>

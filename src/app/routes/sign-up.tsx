@@ -5,9 +5,14 @@ import { SignUpForm } from '@/features/auth/components/sign-up-form';
 export function SignUpRoute() {
   return (
     <PublicPage title="Create your account">
-      <p className="text-muted">You will own a new collection. You can invite a partner or a helper later.</p>
+      <p className="text-muted">
+        You will own a new collection. You can invite a partner or a helper later.
+      </p>
       <SignUpForm />
-      <Link className="inline-flex min-h-target items-center font-bold underline underline-offset-4" to="/sign-in">
+      <Link
+        className="inline-flex min-h-target items-center font-bold underline underline-offset-4"
+        to="/sign-in"
+      >
         I already have an account
       </Link>
     </PublicPage>

@@ -6,7 +6,9 @@ import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 
 // A helper's round adds the safety page, handover notes and cautions: loaded only for helpers.
-const HelperRound = lazy(() => import('@/app/panels/helper-round').then((m) => ({ default: m.HelperRound })));
+const HelperRound = lazy(() =>
+  import('@/app/panels/helper-round').then((m) => ({ default: m.HelperRound })),
+);
 
 export function TodayRoute() {
   const { me, collection } = useShell();
@@ -21,8 +23,14 @@ export function TodayRoute() {
   // The heading needs only the collection's zone, so it paints before the round is read (P2).
   return (
     <div className="flex flex-col gap-3">
-      <h1 className="text-3xl font-extrabold">Today · {describeLocalDate(localDateOf(new Date(), collection.timeZone))}</h1>
-      <TodayRoundPanel userId={me.user.id} myName={me.user.displayName} collectionId={collection.collectionId} />
+      <h1 className="text-3xl font-extrabold">
+        Today · {describeLocalDate(localDateOf(new Date(), collection.timeZone))}
+      </h1>
+      <TodayRoundPanel
+        userId={me.user.id}
+        myName={me.user.displayName}
+        collectionId={collection.collectionId}
+      />
     </div>
   );
 }

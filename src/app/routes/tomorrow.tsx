@@ -11,20 +11,27 @@ import { RoundUnavailable } from '@/features/rounds/components/round-unavailable
 export function TomorrowRoute() {
   const { me, collection } = useShell();
   if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
-  if (collection.role === 'helper') return <Notice tone="info" title="Helpers see today’s round only." />;
+  if (collection.role === 'helper')
+    return <Notice tone="info" title="Helpers see today’s round only." />;
   return <Tomorrow userId={me.user.id} collectionId={collection.collectionId} />;
 }
 
 function Tomorrow({ userId, collectionId }: { userId: string; collectionId: string }) {
   const { local, server } = useRound(userId, collectionId, 'tomorrow');
-  if (local.isPending || (!local.data && server.isPending)) return <Loading label="Working out tomorrow…" />;
+  if (local.isPending || (!local.data && server.isPending))
+    return <Loading label="Working out tomorrow…" />;
   if (!local.data) return <RoundUnavailable error={server.error} what="tomorrow’s preview" />;
   const r = local.data.round;
   return (
     <div className="flex flex-col gap-4">
       <h1 className="text-3xl font-extrabold">Tomorrow · {describeLocalDate(r.date)}</h1>
-      <p className="text-muted print:hidden">A preview: what is recorded today still changes it. The round is fixed when its day begins.</p>
-      <section aria-labelledby="prep-heading" className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3 print:border-black">
+      <p className="text-muted print:hidden">
+        A preview: what is recorded today still changes it. The round is fixed when its day begins.
+      </p>
+      <section
+        aria-labelledby="prep-heading"
+        className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3 print:border-black"
+      >
         <h2 id="prep-heading" className="text-xl font-extrabold">
           Prep list · {r.items.length} animals
         </h2>

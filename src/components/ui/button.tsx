@@ -17,7 +17,16 @@ interface ButtonProps extends ButtonHTMLAttributes<HTMLButtonElement> {
 }
 
 /** At least 48 × 48 px, as the design language asks for gloved thumbs. */
-export function Button({ variant = 'primary', busy, icon, wide, className = '', children, disabled, ...rest }: ButtonProps) {
+export function Button({
+  variant = 'primary',
+  busy,
+  icon,
+  wide,
+  className = '',
+  children,
+  disabled,
+  ...rest
+}: ButtonProps) {
   return (
     <button
       type="button"

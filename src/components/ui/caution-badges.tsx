@@ -8,7 +8,10 @@ export function CautionBadges({ cautions }: { cautions: readonly Caution[] }) {
     <ul aria-label="Cautions" className="flex flex-wrap gap-1.5">
       {cautions.map((c) => {
         return (
-          <li key={c} className="inline-flex items-center gap-1 rounded-lg border-2 border-danger px-2 py-0.5 text-sm font-bold text-danger">
+          <li
+            key={c}
+            className="inline-flex items-center gap-1 rounded-lg border-2 border-danger px-2 py-0.5 text-sm font-bold text-danger"
+          >
             <CautionIcon caution={c} width={18} height={18} />
             {CAUTION_LABEL[c]}
           </li>

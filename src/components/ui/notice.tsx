@@ -10,10 +10,21 @@ const TONES: Record<Tone, { className: string; symbol: string; word: string }> =
 };
 
 /** A message box whose tone is told by symbol and word as well as colour. */
-export function Notice({ tone = 'info', title, children }: { tone?: Tone; title?: string; children?: ReactNode }) {
+export function Notice({
+  tone = 'info',
+  title,
+  children,
+}: {
+  tone?: Tone;
+  title?: string;
+  children?: ReactNode;
+}) {
   const t = TONES[tone];
   return (
-    <div role={tone === 'error' ? 'alert' : 'status'} className={`rounded-xl border-2 bg-surface p-3 ${t.className}`}>
+    <div
+      role={tone === 'error' ? 'alert' : 'status'}
+      className={`rounded-xl border-2 bg-surface p-3 ${t.className}`}
+    >
       <p className="flex items-start gap-2 font-bold">
         <span aria-hidden="true" className="text-xl leading-6">
           {t.symbol}

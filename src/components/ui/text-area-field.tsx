@@ -9,9 +9,18 @@ interface Props extends TextareaHTMLAttributes<HTMLTextAreaElement> {
 }
 
 /** A text field for a few lines (notes), labelled and with its message like `TextField`. */
-export function TextAreaField({ label, labelClassName = 'font-bold', hint, error, className = '', ...rest }: Props) {
+export function TextAreaField({
+  label,
+  labelClassName = 'font-bold',
+  hint,
+  error,
+  className = '',
+  ...rest
+}: Props) {
   const id = useId();
-  const described = [hint ? `${id}-hint` : null, error ? `${id}-error` : null].filter(Boolean).join(' ');
+  const described = [hint ? `${id}-hint` : null, error ? `${id}-error` : null]
+    .filter(Boolean)
+    .join(' ');
   return (
     <div className={`flex flex-col gap-2 ${className}`}>
       <label htmlFor={id} className={labelClassName}>

@@ -14,7 +14,11 @@ export interface AnimalPick {
 }
 export const NO_PICK: AnimalPick = { rack: '', shelf: '', clutch: '', addedSince: '', search: '' };
 
-export function pickAnimals(animals: readonly AnimalSummary[], pick: AnimalPick, timeZone: string): AnimalSummary[] {
+export function pickAnimals(
+  animals: readonly AnimalSummary[],
+  pick: AnimalPick,
+  timeZone: string,
+): AnimalSummary[] {
   const words = pick.search.trim().toLocaleLowerCase();
   const code = codeKey(pick.search);
   return animals.filter((a) => {
@@ -22,7 +26,8 @@ export function pickAnimals(animals: readonly AnimalSummary[], pick: AnimalPick,
     if (pick.rack && a.location?.rack !== pick.rack) return false;
     if (pick.shelf && a.location?.shelf !== pick.shelf) return false;
     if (pick.clutch && a.clutch !== pick.clutch) return false;
-    if (pick.addedSince && localDateOf(new Date(a.addedAt), timeZone) < pick.addedSince) return false;
+    if (pick.addedSince && localDateOf(new Date(a.addedAt), timeZone) < pick.addedSince)
+      return false;
     if (!words) return true;
     return (
       (code.length > 0 && codeKey(a.labelCode).includes(code)) ||
@@ -32,13 +37,18 @@ export function pickAnimals(animals: readonly AnimalSummary[], pick: AnimalPick,
   });
 }
 
-const sorted = (values: Iterable<string>) => [...new Set(values)].sort((x, y) => x.localeCompare(y, undefined, { numeric: true }));
+const sorted = (values: Iterable<string>) =>
+  [...new Set(values)].sort((x, y) => x.localeCompare(y, undefined, { numeric: true }));
 
 /** The choices the pickers offer, from the animals there are. */
 export function pickChoices(animals: readonly AnimalSummary[], rack: string) {
   return {
     racks: sorted(animals.flatMap((a) => (a.location ? [a.location.rack] : []))),
-    shelves: sorted(animals.flatMap((a) => (a.location && (!rack || a.location.rack === rack) ? [a.location.shelf] : []))),
+    shelves: sorted(
+      animals.flatMap((a) =>
+        a.location && (!rack || a.location.rack === rack) ? [a.location.shelf] : [],
+      ),
+    ),
     clutches: sorted(animals.flatMap((a) => (a.clutch ? [a.clutch] : []))),
   };
 }

@@ -1,5 +1,11 @@
 import { LABEL_FIELDS, type LabelField } from '#shared/domain/labels/label-layout';
-import { CUSTOM_SIZE_LIMITS, LABEL_SIZES, type LabelSize, type LabelSizeId, type SheetId } from '#shared/domain/labels/sheet-layout';
+import {
+  CUSTOM_SIZE_LIMITS,
+  LABEL_SIZES,
+  type LabelSize,
+  type LabelSizeId,
+  type SheetId,
+} from '#shared/domain/labels/sheet-layout';
 
 export interface PrintSettings {
   sheet: SheetId;
@@ -17,7 +23,13 @@ export function defaultSheet(language: string): SheetId {
 }
 
 export function defaultSettings(language: string): PrintSettings {
-  return { sheet: defaultSheet(language), size: 'square-38', custom: { widthMm: 40, heightMm: 30 }, fields: [...LABEL_FIELDS], start: 1 };
+  return {
+    sheet: defaultSheet(language),
+    size: 'square-38',
+    custom: { widthMm: 40, heightMm: 30 },
+    fields: [...LABEL_FIELDS],
+    start: 1,
+  };
 }
 
 export function sizeOf(settings: Pick<PrintSettings, 'size' | 'custom'>): LabelSize {
@@ -38,9 +50,16 @@ export function loadSettings(storage: Pick<Storage, 'getItem'>, language: string
     if (!saved) return fallback;
     return {
       sheet: saved.sheet === 'a4' || saved.sheet === 'letter' ? saved.sheet : fallback.sheet,
-      size: saved.size === 'custom' || (saved.size && saved.size in LABEL_SIZES) ? saved.size : fallback.size,
+      size:
+        saved.size === 'custom' || (saved.size && saved.size in LABEL_SIZES)
+          ? saved.size
+          : fallback.size,
       custom: saved.custom ?? fallback.custom,
-      fields: Array.isArray(saved.fields) ? saved.fields.filter((f): f is LabelField => (LABEL_FIELDS as readonly string[]).includes(f)) : fallback.fields,
+      fields: Array.isArray(saved.fields)
+        ? saved.fields.filter((f): f is LabelField =>
+            (LABEL_FIELDS as readonly string[]).includes(f),
+          )
+        : fallback.fields,
       start: 1,
     };
   } catch {

@@ -9,14 +9,31 @@ const names = (items: { animal: { name: string } }[]) => items.map((i) => i.anim
 describe('filterItems', () => {
   const bramble = round.items[0]!.animal.id;
   const fedAndWatered = [
-    withOutcome(round, bramble, { eventId: 'e1', kind: 'ate', at: '2026-12-01T14:00:00Z', by: 'Robin' }),
-  ].map((r) => withOutcome(r, bramble, { eventId: 'e2', kind: 'watered', at: '2026-12-01T14:01:00Z', by: 'Robin' }))[0]!;
+    withOutcome(round, bramble, {
+      eventId: 'e1',
+      kind: 'ate',
+      at: '2026-12-01T14:00:00Z',
+      by: 'Robin',
+    }),
+  ].map((r) =>
+    withOutcome(r, bramble, {
+      eventId: 'e2',
+      kind: 'watered',
+      at: '2026-12-01T14:01:00Z',
+      by: 'Robin',
+    }),
+  )[0]!;
 
   it('splits to do and done by whether every counted task has an outcome', () => {
     expect(names(filterItems(fedAndWatered.items, 'to_do', ''))).toEqual(['Dusty']);
     expect(names(filterItems(fedAndWatered.items, 'done', ''))).toEqual(['Bramble']);
     // Fed but not watered is still to do.
-    const fedOnly = withOutcome(round, bramble, { eventId: 'e1', kind: 'ate', at: '2026-12-01T14:00:00Z', by: 'Robin' });
+    const fedOnly = withOutcome(round, bramble, {
+      eventId: 'e1',
+      kind: 'ate',
+      at: '2026-12-01T14:00:00Z',
+      by: 'Robin',
+    });
     expect(names(filterItems(fedOnly.items, 'to_do', ''))).toEqual(['Bramble', 'Dusty']);
   });
 
@@ -30,7 +47,12 @@ describe('filterItems', () => {
   });
 
   it('shows only animals with cautions under Cautions', () => {
-    const withCaution = { ...round, items: round.items.map((i, n) => (n === 1 ? { ...i, animal: { ...i.animal, cautions: ['fast_defensive' as const] } } : i)) };
+    const withCaution = {
+      ...round,
+      items: round.items.map((i, n) =>
+        n === 1 ? { ...i, animal: { ...i.animal, cautions: ['fast_defensive' as const] } } : i,
+      ),
+    };
     expect(names(filterItems(withCaution.items, 'cautions', ''))).toEqual(['Dusty']);
   });
 });

@@ -4,7 +4,12 @@ import type { RoundItemView } from '#shared/schemas/rounds';
 
 export const ROUND_FILTERS = ['to_do', 'done', 'cautions', 'all'] as const;
 export type RoundFilter = (typeof ROUND_FILTERS)[number];
-export const FILTER_WORDS: Record<RoundFilter, string> = { to_do: 'To do', done: 'Done', cautions: 'Cautions', all: 'All' };
+export const FILTER_WORDS: Record<RoundFilter, string> = {
+  to_do: 'To do',
+  done: 'Done',
+  cautions: 'Cautions',
+  all: 'All',
+};
 
 /** An item is done when every task that counts has an outcome (leave-alone is information). */
 export function isItemDone(item: RoundItemView): boolean {
@@ -17,11 +22,17 @@ function matches(item: RoundItemView, search: string): boolean {
   const code = codeKey(q);
   if (code && codeKey(item.animal.labelCode).includes(code)) return true;
   const words = q.toLocaleLowerCase();
-  return [item.animal.name, item.animal.scientificName].some((s) => s.toLocaleLowerCase().includes(words));
+  return [item.animal.name, item.animal.scientificName].some((s) =>
+    s.toLocaleLowerCase().includes(words),
+  );
 }
 
 /** The items a filter and a search box leave, in walk order. */
-export function filterItems(items: readonly RoundItemView[], filter: RoundFilter, search: string): RoundItemView[] {
+export function filterItems(
+  items: readonly RoundItemView[],
+  filter: RoundFilter,
+  search: string,
+): RoundItemView[] {
   return items.filter((item) => {
     if (!matches(item, search)) return false;
     if (filter === 'to_do') return !isItemDone(item);

@@ -10,20 +10,50 @@ import type { RoundRules, RulesOverride } from '#shared/domain/rounds/rules';
 export type Draft = Record<string, string>;
 
 export type StageNumberKey = Exclude<keyof StageCare, 'offer'>;
-export const STAGE_NUMBER_KEYS: readonly StageNumberKey[] = ['feedEveryDays', 'refusalRetryDays', 'refusalStreak', 'postMoltHoldDays'];
+export const STAGE_NUMBER_KEYS: readonly StageNumberKey[] = [
+  'feedEveryDays',
+  'refusalRetryDays',
+  'refusalStreak',
+  'postMoltHoldDays',
+];
 const OFFER_KEYS: readonly (keyof Offer)[] = ['preyType', 'preySize', 'countMin', 'countMax'];
 const TEXT_OFFER_KEYS: ReadonlySet<string> = new Set(['preyType', 'preySize']);
 
-export type SingleKey = 'premoltCheckDays' | 'waterEveryDays' | 'rebuildFactor' | 'rebuildDays' | 'settlingDays' | 'preyStayCheckDays' | 'substrateCheckDays' | 'spanToBody' | 'tinySlingMm';
-export const SINGLE_KEYS: readonly SingleKey[] = ['settlingDays', 'preyStayCheckDays', 'premoltCheckDays', 'waterEveryDays', 'rebuildFactor', 'rebuildDays', 'substrateCheckDays', 'spanToBody', 'tinySlingMm'];
+export type SingleKey =
+  | 'premoltCheckDays'
+  | 'waterEveryDays'
+  | 'rebuildFactor'
+  | 'rebuildDays'
+  | 'settlingDays'
+  | 'preyStayCheckDays'
+  | 'substrateCheckDays'
+  | 'spanToBody'
+  | 'tinySlingMm';
+export const SINGLE_KEYS: readonly SingleKey[] = [
+  'settlingDays',
+  'preyStayCheckDays',
+  'premoltCheckDays',
+  'waterEveryDays',
+  'rebuildFactor',
+  'rebuildDays',
+  'substrateCheckDays',
+  'spanToBody',
+  'tinySlingMm',
+];
 export const DIET_KEYS = ['fruit_jelly', 'plant', 'detritus'] as const;
 
 /** The stages of a group that have numbers (the ones offered food). */
-export const fedStages = (rules: RoundRules, group: AnimalGroup) => Object.keys(rules.profiles[group].stages) as LifeStage[];
+export const fedStages = (rules: RoundRules, group: AnimalGroup) =>
+  Object.keys(rules.profiles[group].stages) as LifeStage[];
 
-export const stagePath = (group: AnimalGroup, stage: LifeStage, key: string) => `profiles.${group}.stages.${stage}.${key}`;
-export const offerPath = (group: AnimalGroup, stage: LifeStage, key: keyof Offer) => `profiles.${group}.stages.${stage}.offer.${key}`;
-export const profilePath = (group: AnimalGroup, key: 'hydration' | 'hydrateEveryDays' | 'hydrateBelowMm') => `profiles.${group}.${key}`;
+export const stagePath = (group: AnimalGroup, stage: LifeStage, key: string) =>
+  `profiles.${group}.stages.${stage}.${key}`;
+export const offerPath = (group: AnimalGroup, stage: LifeStage, key: keyof Offer) =>
+  `profiles.${group}.stages.${stage}.offer.${key}`;
+export const profilePath = (
+  group: AnimalGroup,
+  key: 'hydration' | 'hydrateEveryDays' | 'hydrateBelowMm',
+) => `profiles.${group}.${key}`;
 
 export function toDraft(r: RoundRules): Draft {
   const d: Draft = {};
@@ -36,7 +66,8 @@ export function toDraft(r: RoundRules): Draft {
     }
     d[profilePath(g, 'hydration')] = profile.hydration;
     d[profilePath(g, 'hydrateEveryDays')] = String(profile.hydrateEveryDays);
-    d[profilePath(g, 'hydrateBelowMm')] = profile.hydrateBelowMm === null ? '' : String(profile.hydrateBelowMm);
+    d[profilePath(g, 'hydrateBelowMm')] =
+      profile.hydrateBelowMm === null ? '' : String(profile.hydrateBelowMm);
   }
   for (const k of SINGLE_KEYS) d[k] = String(r[k]);
   for (const k of DIET_KEYS) d[`dietEveryDays.${k}`] = String(r.dietEveryDays[k]);
@@ -77,13 +108,15 @@ export function flattenDraft(values: Record<string, unknown>, prefix = ''): Draf
   const d: Draft = {};
   for (const [key, value] of Object.entries(values)) {
     const path = prefix ? `${prefix}.${key}` : key;
-    if (value !== null && typeof value === 'object') Object.assign(d, flattenDraft(value as Record<string, unknown>, path));
+    if (value !== null && typeof value === 'object')
+      Object.assign(d, flattenDraft(value as Record<string, unknown>, path));
     else d[path] = String(value ?? '');
   }
   return d;
 }
 
-const num = (v: string | undefined) => (v === undefined || v.trim() === '' ? NaN : Number(v.replace(',', '.')));
+const num = (v: string | undefined) =>
+  v === undefined || v.trim() === '' ? NaN : Number(v.replace(',', '.'));
 
 /**
  * Only what differs from the defaults is stored, so a later change of a default still reaches
@@ -99,21 +132,39 @@ export function toOverrides(d: Draft, defaults: RoundRules): RulesOverride {
     for (const s of fedStages(defaults, g)) {
       const care = base.stages[s]!;
       const changed: Record<string, unknown> = {};
-      for (const k of STAGE_NUMBER_KEYS) if (num(d[stagePath(g, s, k)]) !== care[k]) changed[k] = num(d[stagePath(g, s, k)]);
-      const offer = Object.fromEntries(OFFER_KEYS.map((k) => [k, TEXT_OFFER_KEYS.has(k) ? (d[offerPath(g, s, k)] ?? '').trim() : num(d[offerPath(g, s, k)])]));
+      for (const k of STAGE_NUMBER_KEYS)
+        if (num(d[stagePath(g, s, k)]) !== care[k]) changed[k] = num(d[stagePath(g, s, k)]);
+      const offer = Object.fromEntries(
+        OFFER_KEYS.map((k) => [
+          k,
+          TEXT_OFFER_KEYS.has(k)
+            ? (d[offerPath(g, s, k)] ?? '').trim()
+            : num(d[offerPath(g, s, k)]),
+        ]),
+      );
       if (JSON.stringify(offer) !== JSON.stringify(care.offer)) changed.offer = offer;
       if (Object.keys(changed).length) stages[s] = changed;
     }
     if (Object.keys(stages).length) profile.stages = stages;
-    if (d[profilePath(g, 'hydration')] !== base.hydration) profile.hydration = d[profilePath(g, 'hydration')];
-    if (num(d[profilePath(g, 'hydrateEveryDays')]) !== base.hydrateEveryDays) profile.hydrateEveryDays = num(d[profilePath(g, 'hydrateEveryDays')]);
-    const below = (d[profilePath(g, 'hydrateBelowMm')] ?? '').trim() === '' ? null : num(d[profilePath(g, 'hydrateBelowMm')]);
+    if (d[profilePath(g, 'hydration')] !== base.hydration)
+      profile.hydration = d[profilePath(g, 'hydration')];
+    if (num(d[profilePath(g, 'hydrateEveryDays')]) !== base.hydrateEveryDays)
+      profile.hydrateEveryDays = num(d[profilePath(g, 'hydrateEveryDays')]);
+    const below =
+      (d[profilePath(g, 'hydrateBelowMm')] ?? '').trim() === ''
+        ? null
+        : num(d[profilePath(g, 'hydrateBelowMm')]);
     if (below !== base.hydrateBelowMm) profile.hydrateBelowMm = below;
     if (Object.keys(profile).length) profiles[g] = profile;
   }
   if (Object.keys(profiles).length) out.profiles = profiles;
   for (const k of SINGLE_KEYS) if (num(d[k]) !== defaults[k]) out[k] = num(d[k]);
-  const diets = Object.fromEntries(DIET_KEYS.filter((k) => num(d[`dietEveryDays.${k}`]) !== defaults.dietEveryDays[k]).map((k) => [k, num(d[`dietEveryDays.${k}`])]));
+  const diets = Object.fromEntries(
+    DIET_KEYS.filter((k) => num(d[`dietEveryDays.${k}`]) !== defaults.dietEveryDays[k]).map((k) => [
+      k,
+      num(d[`dietEveryDays.${k}`]),
+    ]),
+  );
   if (Object.keys(diets).length) out.dietEveryDays = diets;
   const feeders: Feeder[] = Array.from({ length: feederRows(d) }, (_, i) => ({
     preyType: d[`feeders.${i}.preyType`]!.trim(),

@@ -18,27 +18,56 @@ const resolve = (raw: string, ctx = keeper) => resolveLabel(readLabel(raw), ctx)
 
 describe('resolving a scan or a typed code', () => {
   it('opens the round item for a label on today’s round, scanned or typed in any case', () => {
-    expect(resolve('HTTP://LOCALHOST:3000/L/ABCD/NL-B7K')).toMatchObject({ kind: 'on_round', item: { animal: { name: 'Bramble' } } });
-    expect(resolve(' nl b7k ')).toMatchObject({ kind: 'on_round', item: { animal: { name: 'Bramble' } } });
+    expect(resolve('HTTP://LOCALHOST:3000/L/ABCD/NL-B7K')).toMatchObject({
+      kind: 'on_round',
+      item: { animal: { name: 'Bramble' } },
+    });
+    expect(resolve(' nl b7k ')).toMatchObject({
+      kind: 'on_round',
+      item: { animal: { name: 'Bramble' } },
+    });
   });
 
   it('offers an animal off today’s round as not due, with no tasks', () => {
     const target = resolve('http://localhost:3000/l/abcd/nl-7k3');
-    expect(target).toMatchObject({ kind: 'not_due', item: { animal: { id: juniper.id, name: 'Juniper' }, tasks: [] } });
+    expect(target).toMatchObject({
+      kind: 'not_due',
+      item: { animal: { id: juniper.id, name: 'Juniper' }, tasks: [] },
+    });
   });
 
   it('names the other collection a label belongs to, when the person is in it', () => {
-    expect(resolve('HTTP://LOCALHOST:3000/L/WXYZ/NL-7K3')).toEqual({ kind: 'other_collection', collectionId: 'c2', collectionName: 'Club loan animals' });
-    expect(resolve('HTTP://LOCALHOST:3000/L/QQQQ/NL-7K3')).toEqual({ kind: 'other_collection', collectionId: null, collectionName: null });
+    expect(resolve('HTTP://LOCALHOST:3000/L/WXYZ/NL-7K3')).toEqual({
+      kind: 'other_collection',
+      collectionId: 'c2',
+      collectionName: 'Club loan animals',
+    });
+    expect(resolve('HTTP://LOCALHOST:3000/L/QQQQ/NL-7K3')).toEqual({
+      kind: 'other_collection',
+      collectionId: null,
+      collectionName: null,
+    });
   });
 
   it('says so for unknown codes, off-round animals for helpers, damaged and foreign codes', () => {
     expect(resolve('NL-2222')).toEqual({ kind: 'unknown_code', code: 'NL-2222' });
-    expect(resolve('NL-7K3', { ...keeper, animals: null })).toEqual({ kind: 'not_on_round', code: 'NL-7K3' });
-    expect(resolve('NL-7K3', { ...keeper, animals: undefined })).toEqual({ kind: 'list_missing', code: 'NL-7K3' });
+    expect(resolve('NL-7K3', { ...keeper, animals: null })).toEqual({
+      kind: 'not_on_round',
+      code: 'NL-7K3',
+    });
+    expect(resolve('NL-7K3', { ...keeper, animals: undefined })).toEqual({
+      kind: 'list_missing',
+      code: 'NL-7K3',
+    });
     expect(resolve('NL-7KO')).toEqual({ kind: 'malformed' });
     expect(resolve('https://example.com/')).toEqual({ kind: 'foreign' });
     expect(targetMessage({ kind: 'foreign' }).title).toMatch(/not a Rackside label/);
-    expect(targetMessage({ kind: 'other_collection', collectionId: 'c2', collectionName: 'Club loan animals' }).title).toBe('This label belongs to Club loan animals.');
+    expect(
+      targetMessage({
+        kind: 'other_collection',
+        collectionId: 'c2',
+        collectionName: 'Club loan animals',
+      }).title,
+    ).toBe('This label belongs to Club loan animals.');
   });
 });

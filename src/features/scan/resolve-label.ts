@@ -45,7 +45,11 @@ export function resolveLabel(reading: LabelReading, ctx: Context): LabelTarget {
   if (reading.kind === 'malformed' || reading.kind === 'foreign') return reading;
   if (reading.kind === 'label' && reading.tag !== ctx.collection.labelTag) {
     const other = ctx.memberships.find((m) => m.labelTag === reading.tag);
-    return { kind: 'other_collection', collectionId: other?.collectionId ?? null, collectionName: other?.collectionName ?? null };
+    return {
+      kind: 'other_collection',
+      collectionId: other?.collectionId ?? null,
+      collectionName: other?.collectionName ?? null,
+    };
   }
   const key = codeKey(reading.code);
   const item = ctx.roundItems.find((i) => codeKey(i.animal.labelCode) === key);
@@ -53,25 +57,51 @@ export function resolveLabel(reading: LabelReading, ctx: Context): LabelTarget {
   if (ctx.animals === null) return { kind: 'not_on_round', code: reading.code };
   if (ctx.animals === undefined) return { kind: 'list_missing', code: reading.code };
   const animal = ctx.animals.find((a) => codeKey(a.labelCode) === key);
-  return animal ? { kind: 'not_due', item: offRoundItem(animal) } : { kind: 'unknown_code', code: reading.code };
+  return animal
+    ? { kind: 'not_due', item: offRoundItem(animal) }
+    : { kind: 'unknown_code', code: reading.code };
 }
 
 /** Plain words for the targets that do not open an animal. */
-export function targetMessage(target: Exclude<LabelTarget, { kind: 'on_round' | 'not_due' }>): { title: string; body: string } {
+export function targetMessage(target: Exclude<LabelTarget, { kind: 'on_round' | 'not_due' }>): {
+  title: string;
+  body: string;
+} {
   switch (target.kind) {
     case 'other_collection':
       return target.collectionName
-        ? { title: `This label belongs to ${target.collectionName}.`, body: 'Switch to that collection to record for it.' }
-        : { title: 'This label belongs to another collection.', body: 'It was printed for a collection you are not part of.' }
+        ? {
+            title: `This label belongs to ${target.collectionName}.`,
+            body: 'Switch to that collection to record for it.',
+          }
+        : {
+            title: 'This label belongs to another collection.',
+            body: 'It was printed for a collection you are not part of.',
+          };
     case 'unknown_code':
-      return { title: `No animal here has the code ${target.code}.`, body: 'Check the code on the label. A label that was replaced by a new code no longer works.' };
+      return {
+        title: `No animal here has the code ${target.code}.`,
+        body: 'Check the code on the label. A label that was replaced by a new code no longer works.',
+      };
     case 'not_on_round':
-      return { title: `${target.code} is not on today’s round.`, body: 'Helpers record for the animals on the round. Leave a note for the keeper if something needs doing.' };
+      return {
+        title: `${target.code} is not on today’s round.`,
+        body: 'Helpers record for the animals on the round. Leave a note for the keeper if something needs doing.',
+      };
     case 'list_missing':
-      return { title: `${target.code} is not on today’s round.`, body: 'This phone has no copy of the animal list yet. Open the app once with a signal, then it works offline too.' };
+      return {
+        title: `${target.code} is not on today’s round.`,
+        body: 'This phone has no copy of the animal list yet. Open the app once with a signal, then it works offline too.',
+      };
     case 'malformed':
-      return { title: 'That is not a label code.', body: 'Codes look like NL-7K3: letters and digits, no O, 0, I or 1. A damaged label can be typed in instead.' };
+      return {
+        title: 'That is not a label code.',
+        body: 'Codes look like NL-7K3: letters and digits, no O, 0, I or 1. A damaged label can be typed in instead.',
+      };
     case 'foreign':
-      return { title: 'That QR code is not a Rackside label.', body: 'Point the camera at the label on the enclosure.' };
+      return {
+        title: 'That QR code is not a Rackside label.',
+        body: 'Point the camera at the label on the enclosure.',
+      };
   }
 }

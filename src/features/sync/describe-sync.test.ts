@@ -9,7 +9,9 @@ const words = (s: Partial<SyncStatus>) => describeSync({ ...base, ...s }, now).w
 describe('the sync indicator’s words', () => {
   it('says what the issue asks for in each state', () => {
     expect(words({ phase: 'offline', waiting: 7, failures: 1 })).toBe('Offline · 7 waiting');
-    expect(words({ phase: 'saving', waiting: 7, progress: { sent: 2, total: 7 } })).toBe('Saving 7…');
+    expect(words({ phase: 'saving', waiting: 7, progress: { sent: 2, total: 7 } })).toBe(
+      'Saving 7…',
+    );
     expect(words({ lastSavedAt: '2026-12-01T09:58:00Z' })).toBe('All saved · 2 min ago');
     expect(words({ attention: 3, waiting: 0 })).toBe('3 need attention');
     expect(words({ attention: 1 })).toBe('1 needs attention');
@@ -18,10 +20,23 @@ describe('the sync indicator’s words', () => {
   });
 
   it('says why taps are waiting after an answer without verdicts, and that they stay', () => {
-    const text = describeSync({ ...base, phase: 'failing', waiting: 3, failures: 2, reason: 'The server did not take the taps (error 404).' }, now);
+    const text = describeSync(
+      {
+        ...base,
+        phase: 'failing',
+        waiting: 3,
+        failures: 2,
+        reason: 'The server did not take the taps (error 404).',
+      },
+      now,
+    );
     expect(text.words).toBe('Server trouble · 3 waiting');
-    expect(text.detail).toBe('The server did not take the taps (error 404). Your taps stay on this phone and are sent again by themselves.');
-    expect(describeSync({ ...base, phase: 'offline', waiting: 3, reason: 'No answer' }, now).detail).toBeNull();
+    expect(text.detail).toBe(
+      'The server did not take the taps (error 404). Your taps stay on this phone and are sent again by themselves.',
+    );
+    expect(
+      describeSync({ ...base, phase: 'offline', waiting: 3, reason: 'No answer' }, now).detail,
+    ).toBeNull();
     expect(describeSync({ ...base, lastSavedAt: '2026-12-01T09:58:00Z' }, now).detail).toBeNull();
   });
 });

@@ -20,13 +20,40 @@ function ago(iso: string, now: Date): string {
 
 /** The indicator's words: "Offline · 7 waiting", "Saving 7…", "All saved · 2 min ago", "3 need attention". */
 export function describeSync(s: SyncStatus, now: Date): SyncText {
-  const detail = s.waiting > 0 && s.phase === 'failing' && s.reason ? `${s.reason} Your taps stay on this phone and are sent again by themselves.` : null;
-  if (s.phase === 'signed_out') return { words: `Sign in again to save ${taps(s.waiting)}`, symbol: '⚠', tone: 'alert', detail: null };
-  if (s.attention > 0) return { words: `${s.attention} need${s.attention === 1 ? 's' : ''} attention`, symbol: '⚠', tone: 'alert', detail };
-  if (s.phase === 'saving') return { words: `Saving ${s.progress?.total ?? s.waiting}…`, symbol: '↻', tone: 'waiting', detail: null };
+  const detail =
+    s.waiting > 0 && s.phase === 'failing' && s.reason
+      ? `${s.reason} Your taps stay on this phone and are sent again by themselves.`
+      : null;
+  if (s.phase === 'signed_out')
+    return {
+      words: `Sign in again to save ${taps(s.waiting)}`,
+      symbol: '⚠',
+      tone: 'alert',
+      detail: null,
+    };
+  if (s.attention > 0)
+    return {
+      words: `${s.attention} need${s.attention === 1 ? 's' : ''} attention`,
+      symbol: '⚠',
+      tone: 'alert',
+      detail,
+    };
+  if (s.phase === 'saving')
+    return {
+      words: `Saving ${s.progress?.total ?? s.waiting}…`,
+      symbol: '↻',
+      tone: 'waiting',
+      detail: null,
+    };
   if (s.waiting > 0) {
-    const why = s.phase === 'failing' ? 'Server trouble' : s.phase === 'offline' ? 'Offline' : 'Not sent yet';
+    const why =
+      s.phase === 'failing' ? 'Server trouble' : s.phase === 'offline' ? 'Offline' : 'Not sent yet';
     return { words: `${why} · ${s.waiting} waiting`, symbol: '●', tone: 'waiting', detail };
   }
-  return { words: s.lastSavedAt ? `All saved · ${ago(s.lastSavedAt, now)}` : 'All saved', symbol: '✓', tone: 'calm', detail: null };
+  return {
+    words: s.lastSavedAt ? `All saved · ${ago(s.lastSavedAt, now)}` : 'All saved',
+    symbol: '✓',
+    tone: 'calm',
+    detail: null,
+  };
 }

@@ -1,8 +1,19 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { animalSummary, moveResponse, photoSavedResponse, type AnimalValues, type MoveBody, type RetireBody } from '#shared/schemas/animals';
+import {
+  animalSummary,
+  moveResponse,
+  photoSavedResponse,
+  type AnimalValues,
+  type MoveBody,
+  type RetireBody,
+} from '#shared/schemas/animals';
 import { noContent } from '#shared/schemas/common';
 import { importResponse } from '#shared/schemas/import';
-import { locationListResponse, locationResponse, type LocationInput } from '#shared/schemas/locations';
+import {
+  locationListResponse,
+  locationResponse,
+  type LocationInput,
+} from '#shared/schemas/locations';
 import { apiRequest } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import { uploadPhoto } from '@/lib/upload-photo';
@@ -22,11 +33,16 @@ export function useSaveAnimal(collectionId: string, animalId?: string) {
   const refresh = useRefresh(collectionId);
   return useMutation({
     mutationFn: (values: AnimalValues) =>
-      apiRequest(animalId ? `/collections/${collectionId}/animals/${animalId}` : `/collections/${collectionId}/animals`, {
-        method: animalId ? 'PUT' : 'POST',
-        body: values,
-        schema: animalSummary,
-      }),
+      apiRequest(
+        animalId
+          ? `/collections/${collectionId}/animals/${animalId}`
+          : `/collections/${collectionId}/animals`,
+        {
+          method: animalId ? 'PUT' : 'POST',
+          body: values,
+          schema: animalSummary,
+        },
+      ),
     onSuccess: refresh,
   });
 }
@@ -35,7 +51,10 @@ export function useRetireAnimal(collectionId: string, animalId: string) {
   const refresh = useRefresh(collectionId);
   return useMutation({
     mutationFn: (body: RetireBody | null) =>
-      apiRequest(`/collections/${collectionId}/animals/${animalId}/${body ? 'retire' : 'reinstate'}`, { method: 'POST', body: body ?? {}, schema: animalSummary }),
+      apiRequest(
+        `/collections/${collectionId}/animals/${animalId}/${body ? 'retire' : 'reinstate'}`,
+        { method: 'POST', body: body ?? {}, schema: animalSummary },
+      ),
     onSuccess: refresh,
   });
 }
@@ -45,7 +64,12 @@ export function useRetireAllAnimals(collectionId: string) {
   const refresh = useRefresh(collectionId);
   return useMutation({
     mutationFn: async ({ animalIds, body }: { animalIds: string[]; body: RetireBody }) => {
-      for (const id of animalIds) await apiRequest(`/collections/${collectionId}/animals/${id}/retire`, { method: 'POST', body, schema: animalSummary });
+      for (const id of animalIds)
+        await apiRequest(`/collections/${collectionId}/animals/${id}/retire`, {
+          method: 'POST',
+          body,
+          schema: animalSummary,
+        });
     },
     onSuccess: refresh,
   });
@@ -54,7 +78,12 @@ export function useRetireAllAnimals(collectionId: string) {
 export function useMoveAnimals(collectionId: string) {
   const refresh = useRefresh(collectionId);
   return useMutation({
-    mutationFn: (body: MoveBody) => apiRequest(`/collections/${collectionId}/animals/move`, { method: 'POST', body, schema: moveResponse }),
+    mutationFn: (body: MoveBody) =>
+      apiRequest(`/collections/${collectionId}/animals/move`, {
+        method: 'POST',
+        body,
+        schema: moveResponse,
+      }),
     onSuccess: refresh,
   });
 }
@@ -62,7 +91,12 @@ export function useMoveAnimals(collectionId: string) {
 export function useImportAnimals(collectionId: string) {
   const refresh = useRefresh(collectionId);
   return useMutation({
-    mutationFn: (rows: unknown[]) => apiRequest(`/collections/${collectionId}/animals/import`, { method: 'POST', body: { rows }, schema: importResponse }),
+    mutationFn: (rows: unknown[]) =>
+      apiRequest(`/collections/${collectionId}/animals/import`, {
+        method: 'POST',
+        body: { rows },
+        schema: importResponse,
+      }),
     onSuccess: refresh,
   });
 }
@@ -70,7 +104,12 @@ export function useImportAnimals(collectionId: string) {
 export function useUploadPhoto(collectionId: string, animalId: string) {
   const refresh = useRefresh(collectionId);
   return useMutation({
-    mutationFn: (file: File) => uploadPhoto(`/collections/${collectionId}/animals/${animalId}/photo`, file, photoSavedResponse),
+    mutationFn: (file: File) =>
+      uploadPhoto(
+        `/collections/${collectionId}/animals/${animalId}/photo`,
+        file,
+        photoSavedResponse,
+      ),
     onSuccess: refresh,
   });
 }
@@ -78,7 +117,8 @@ export function useUploadPhoto(collectionId: string, animalId: string) {
 export function useLocations(collectionId: string) {
   return useQuery({
     queryKey: queryKeys.locations.list(collectionId),
-    queryFn: () => apiRequest(`/collections/${collectionId}/locations`, { schema: locationListResponse }),
+    queryFn: () =>
+      apiRequest(`/collections/${collectionId}/locations`, { schema: locationListResponse }),
   });
 }
 
@@ -86,11 +126,24 @@ export function useLocationChanges(collectionId: string) {
   const refresh = useRefresh(collectionId);
   const base = `/collections/${collectionId}/locations`;
   return {
-    create: useMutation({ mutationFn: (body: LocationInput) => apiRequest(base, { method: 'POST', body, schema: locationResponse }), onSuccess: refresh }),
-    reorder: useMutation({
-      mutationFn: (locationIds: string[]) => apiRequest(`${base}/order`, { method: 'PUT', body: { locationIds }, schema: locationListResponse }),
+    create: useMutation({
+      mutationFn: (body: LocationInput) =>
+        apiRequest(base, { method: 'POST', body, schema: locationResponse }),
       onSuccess: refresh,
     }),
-    remove: useMutation({ mutationFn: (locationId: string) => apiRequest(`${base}/${locationId}`, { method: 'DELETE', schema: noContent }), onSuccess: refresh }),
+    reorder: useMutation({
+      mutationFn: (locationIds: string[]) =>
+        apiRequest(`${base}/order`, {
+          method: 'PUT',
+          body: { locationIds },
+          schema: locationListResponse,
+        }),
+      onSuccess: refresh,
+    }),
+    remove: useMutation({
+      mutationFn: (locationId: string) =>
+        apiRequest(`${base}/${locationId}`, { method: 'DELETE', schema: noContent }),
+      onSuccess: refresh,
+    }),
   };
 }

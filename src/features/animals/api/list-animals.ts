@@ -19,8 +19,12 @@ export async function loadAnimals(collectionId: string): Promise<AnimalDirectory
   try {
     // The schema loads with the first fetch, not with the first screen (P4).
     const { animalListResponse } = await import('#shared/schemas/animals');
-    const { animals } = await apiRequest(`/collections/${collectionId}/animals`, { schema: animalListResponse });
-    void withDb((db) => storeDirectory(db, collectionId, animals, new Date())).catch(() => undefined);
+    const { animals } = await apiRequest(`/collections/${collectionId}/animals`, {
+      schema: animalListResponse,
+    });
+    void withDb((db) => storeDirectory(db, collectionId, animals, new Date())).catch(
+      () => undefined,
+    );
     return { animals, offlineSince: null };
   } catch (err) {
     if (!(err instanceof ApiError) || err.status !== 0) throw err;
@@ -31,6 +35,11 @@ export async function loadAnimals(collectionId: string): Promise<AnimalDirectory
 }
 
 export const animalListQueryOptions = (collectionId: string) =>
-  queryOptions({ queryKey: queryKeys.animals.list(collectionId), queryFn: () => loadAnimals(collectionId), networkMode: 'always' });
+  queryOptions({
+    queryKey: queryKeys.animals.list(collectionId),
+    queryFn: () => loadAnimals(collectionId),
+    networkMode: 'always',
+  });
 
-export const useAnimalList = (collectionId: string, enabled = true) => useQuery({ ...animalListQueryOptions(collectionId), enabled });
+export const useAnimalList = (collectionId: string, enabled = true) =>
+  useQuery({ ...animalListQueryOptions(collectionId), enabled });

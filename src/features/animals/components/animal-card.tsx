@@ -7,20 +7,34 @@ export function placeCode(location: AnimalSummary['location']): string {
   return location ? `${location.rack}${location.shelf}-${location.position}` : 'No place yet';
 }
 
-export function AnimalCard({ animal, linked = false }: { animal: AnimalSummary; linked?: boolean }) {
+export function AnimalCard({
+  animal,
+  linked = false,
+}: {
+  animal: AnimalSummary;
+  linked?: boolean;
+}) {
   return (
-    <article className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3" aria-label={`${animal.name}, ${animal.labelCode}`}>
+    <article
+      className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3"
+      aria-label={`${animal.name}, ${animal.labelCode}`}
+    >
       <div className="flex items-baseline justify-between gap-2">
         <h3 className="text-xl font-extrabold">
           {linked ? (
-            <Link to={`/animals/${animal.id}`} className="inline-flex min-h-target items-center underline underline-offset-4">
+            <Link
+              to={`/animals/${animal.id}`}
+              className="inline-flex min-h-target items-center underline underline-offset-4"
+            >
               {animal.name}
             </Link>
           ) : (
             animal.name
           )}
         </h3>
-        <span className="rounded-md border-2 border-border px-2 font-mono text-base font-bold tracking-wider">{animal.labelCode}</span>
+        <span className="rounded-md border-2 border-border px-2 font-mono text-base font-bold tracking-wider">
+          {animal.labelCode}
+        </span>
       </div>
       <p className="text-muted">
         <i lang="la">{animal.scientificName}</i>

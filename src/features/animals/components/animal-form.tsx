@@ -2,12 +2,32 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useId, useMemo } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import { ANIMAL_GROUPS, CAUTION_LABEL, CAUTIONS, DIET_LABEL, DIETS, GROUP_LABEL, SEX_LABEL, SEXES, STAGE_LABEL, stageLabel, stagesOf, type AnimalGroup, type Caution, type LifeStage } from '#shared/domain/animal-facts';
+import {
+  ANIMAL_GROUPS,
+  CAUTION_LABEL,
+  CAUTIONS,
+  DIET_LABEL,
+  DIETS,
+  GROUP_LABEL,
+  SEX_LABEL,
+  SEXES,
+  STAGE_LABEL,
+  stageLabel,
+  stagesOf,
+  type AnimalGroup,
+  type Caution,
+  type LifeStage,
+} from '#shared/domain/animal-facts';
 import { presetFor } from '#shared/domain/genus-presets';
 import { GROUP_CARE } from '#shared/domain/rounds/care-profiles';
 import { checkScientificName } from '#shared/domain/scientific-name';
 import { sizeInUnit, sizeToMm, type SizeUnit } from '#shared/domain/units';
-import { animalFields, checkStageFitsGroup, type AnimalSummary, type AnimalValues } from '#shared/schemas/animals';
+import {
+  animalFields,
+  checkStageFitsGroup,
+  type AnimalSummary,
+  type AnimalValues,
+} from '#shared/schemas/animals';
 import type { LocationSummary } from '#shared/schemas/animals';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -53,11 +73,23 @@ function animalForm(unit: SizeUnit, original: AnimalSummary | null, shownSize: s
       doNotFeedUntil: z.string().transform(orNull).pipe(care.doNotFeedUntil),
     })
     .superRefine(checkStageFitsGroup)
-    .transform(({ size, intervalDays, preyType, preySize, preyCount, diet, hasWaterDish, doNotFeedUntil, ...rest }): AnimalValues => ({
-      ...rest,
-      sizeMm: size,
-      care: { intervalDays, preyType, preySize, preyCount, diet, hasWaterDish, doNotFeedUntil },
-    }));
+    .transform(
+      ({
+        size,
+        intervalDays,
+        preyType,
+        preySize,
+        preyCount,
+        diet,
+        hasWaterDish,
+        doNotFeedUntil,
+        ...rest
+      }): AnimalValues => ({
+        ...rest,
+        sizeMm: size,
+        care: { intervalDays, preyType, preySize, preyCount, diet, hasWaterDish, doNotFeedUntil },
+      }),
+    );
 }
 type FormValues = z.input<ReturnType<typeof animalForm>>;
 
@@ -91,7 +123,8 @@ function fromAnimal(a: AnimalSummary | null, unit: SizeUnit): FormValues {
 const placeName = (l: LocationSummary) => `${l.room} · ${l.rack}${l.shelf}-${l.position}`;
 
 /** The stage to switch to when the chosen one does not fit a new group: its first stage that eats. */
-const firstFedStage = (group: AnimalGroup) => stagesOf(group).find((s) => GROUP_CARE[group].food[s] !== 'none') ?? stagesOf(group)[0]!;
+const firstFedStage = (group: AnimalGroup) =>
+  stagesOf(group).find((s) => GROUP_CARE[group].food[s] !== 'none') ?? stagesOf(group)[0]!;
 const hasDiet = (group: AnimalGroup) => Object.values(GROUP_CARE[group].food).includes('diet');
 
 interface Props {
@@ -107,25 +140,39 @@ interface Props {
 export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCancel }: Props) {
   const listId = useId();
   const defaults = fromAnimal(animal, unit);
-  const { register, handleSubmit, setError, setValue, watch, formState } = useForm<FormValues, unknown, AnimalValues>({
+  const { register, handleSubmit, setError, setValue, watch, formState } = useForm<
+    FormValues,
+    unknown,
+    AnimalValues
+  >({
     resolver: zodResolver(animalForm(unit, animal, defaults.size)),
     defaultValues: defaults,
   });
   const { problem, attempt } = useServerProblem(setError);
   const e = formState.errors;
   const scientific = watch('scientificName');
-  const check = useMemo(() => (scientific.trim() ? checkScientificName(scientific) : null), [scientific]);
+  const check = useMemo(
+    () => (scientific.trim() ? checkScientificName(scientific) : null),
+    [scientific],
+  );
   const group = watch('group') as AnimalGroup;
   const cautions = watch('cautions') as Caution[];
   // docs/care-rules.md § Genus presets: offered when the genus is known and differs, never forced.
   const preset = useMemo(() => presetFor(scientific), [scientific]);
-  const presetDiffers = !!preset && (preset.group !== group || preset.cautions.some((c) => !cautions.includes(c)));
+  const presetDiffers =
+    !!preset && (preset.group !== group || preset.cautions.some((c) => !cautions.includes(c)));
   function changeGroup(next: AnimalGroup, previous: AnimalGroup) {
-    if (!stagesOf(next).includes(watch('lifeStage') as LifeStage)) setValue('lifeStage', firstFedStage(next));
+    if (!stagesOf(next).includes(watch('lifeStage') as LifeStage))
+      setValue('lifeStage', firstFedStage(next));
     // A new animal starts with its group's usual cautions and water (§ Care profiles).
     if (!animal) {
       const dropped = new Set<string>(GROUP_CARE[previous].newAnimalCautions);
-      setValue('cautions', [...new Set([...cautions.filter((c) => !dropped.has(c)), ...GROUP_CARE[next].newAnimalCautions])]);
+      setValue('cautions', [
+        ...new Set([
+          ...cautions.filter((c) => !dropped.has(c)),
+          ...GROUP_CARE[next].newAnimalCautions,
+        ]),
+      ]);
       setValue('hasWaterDish', GROUP_CARE[next].newAnimalHasDish);
     }
   }
@@ -133,25 +180,58 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
   const stage = watch('lifeStage') as LifeStage;
   const stageOptions = [
     ...stagesOf(group).map((s) => ({ value: s, label: stageLabel(group, s) })),
-    ...(stagesOf(group).includes(stage) ? [] : [{ value: stage, label: `${STAGE_LABEL[stage]} (not a ${GROUP_LABEL[group].toLowerCase()} stage)` }]),
+    ...(stagesOf(group).includes(stage)
+      ? []
+      : [
+          {
+            value: stage,
+            label: `${STAGE_LABEL[stage]} (not a ${GROUP_LABEL[group].toLowerCase()} stage)`,
+          },
+        ]),
   ];
-  const locationOptions = [{ value: '', label: 'No place yet' }, ...locations.map((l) => ({ value: l.id, label: placeName(l) }))];
+  const locationOptions = [
+    { value: '', label: 'No place yet' },
+    ...locations.map((l) => ({ value: l.id, label: placeName(l) })),
+  ];
 
   return (
-    <form onSubmit={handleSubmit((values) => attempt(() => onSave(values)))} noValidate className="flex flex-col gap-4">
+    <form
+      onSubmit={handleSubmit((values) => attempt(() => onSave(values)))}
+      noValidate
+      className="flex flex-col gap-4"
+    >
       {problem && <Notice tone="error" title={problem} />}
       <fieldset className="flex flex-col gap-3">
         <legend className="mb-1 text-xl font-extrabold">What it is</legend>
-        {!animal && <TextField label="Label code" hint="Leave empty to get a new code, or type the code on an existing label." autoCapitalize="characters" error={e.labelCode?.message} {...register('labelCode')} />}
+        {!animal && (
+          <TextField
+            label="Label code"
+            hint="Leave empty to get a new code, or type the code on an existing label."
+            autoCapitalize="characters"
+            error={e.labelCode?.message}
+            {...register('labelCode')}
+          />
+        )}
         <TextField label="Name" error={e.name?.message} {...register('name')} />
-        <TextField label="Scientific name" hint="Genus and species, e.g. Tliltocatl albopilosus; author and year if you like." list={listId} autoComplete="off" spellCheck={false} error={e.scientificName?.message} {...register('scientificName')} />
+        <TextField
+          label="Scientific name"
+          hint="Genus and species, e.g. Tliltocatl albopilosus; author and year if you like."
+          list={listId}
+          autoComplete="off"
+          spellCheck={false}
+          error={e.scientificName?.message}
+          {...register('scientificName')}
+        />
         <datalist id={listId}>
           {knownNames.map((n) => (
             <option key={n} value={n} />
           ))}
         </datalist>
         {check && !check.ok && check.suggestion && (
-          <Button variant="secondary" onClick={() => setValue('scientificName', check.suggestion!, { shouldValidate: true })}>
+          <Button
+            variant="secondary"
+            onClick={() => setValue('scientificName', check.suggestion!, { shouldValidate: true })}
+          >
             Use “{check.suggestion}”
           </Button>
         )}
@@ -159,7 +239,10 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
           <Notice tone="info" title={`${preset.genus}: ${preset.note}.`}>
             <p className="text-sm">
               Usually {GROUP_LABEL[preset.group].toLowerCase()}
-              {preset.cautions.length ? `, with ${preset.cautions.map((c) => CAUTION_LABEL[c].toLowerCase()).join(', ')}` : ''}. Source: {preset.source}.
+              {preset.cautions.length
+                ? `, with ${preset.cautions.map((c) => CAUTION_LABEL[c].toLowerCase()).join(', ')}`
+                : ''}
+              . Source: {preset.source}.
             </p>
             <Button
               variant="secondary"
@@ -169,7 +252,9 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
                   changeGroup(preset.group, group);
                   setValue('group', preset.group);
                 }
-                setValue('cautions', [...new Set([...(watch('cautions') as Caution[]), ...preset.cautions])]);
+                setValue('cautions', [
+                  ...new Set([...(watch('cautions') as Caution[]), ...preset.cautions]),
+                ]);
               }}
             >
               Use these
@@ -178,24 +263,54 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
         )}
         <TextField label="Common name" error={e.commonName?.message} {...register('commonName')} />
         <div className="grid grid-cols-2 gap-2">
-          <SelectField label="Group" options={ANIMAL_GROUPS.map((g) => ({ value: g, label: GROUP_LABEL[g] }))} {...register('group', { onChange: (e: React.ChangeEvent<HTMLSelectElement>) => changeGroup(e.target.value as AnimalGroup, group) })} />
-          <SelectField label="Life stage" options={stageOptions} error={e.lifeStage?.message} {...register('lifeStage')} />
-          <SelectField label="Sex" options={SEXES.map((s) => ({ value: s, label: SEX_LABEL[s] }))} {...register('sex')} />
+          <SelectField
+            label="Group"
+            options={ANIMAL_GROUPS.map((g) => ({ value: g, label: GROUP_LABEL[g] }))}
+            {...register('group', {
+              onChange: (e: React.ChangeEvent<HTMLSelectElement>) =>
+                changeGroup(e.target.value as AnimalGroup, group),
+            })}
+          />
+          <SelectField
+            label="Life stage"
+            options={stageOptions}
+            error={e.lifeStage?.message}
+            {...register('lifeStage')}
+          />
+          <SelectField
+            label="Sex"
+            options={SEXES.map((s) => ({ value: s, label: SEX_LABEL[s] }))}
+            {...register('sex')}
+          />
           <TextField
-            label={group === 'tarantula' || group === 'true_spider' ? `Leg span (${unit})` : `Body length (${unit})`}
+            label={
+              group === 'tarantula' || group === 'true_spider'
+                ? `Leg span (${unit})`
+                : `Body length (${unit})`
+            }
             inputMode="decimal"
             error={e.size?.message}
             {...register('size')}
           />
         </div>
-        <TextField label="Clutch" hint="Slings from one egg sac share a clutch name." error={e.clutch?.message} {...register('clutch')} />
+        <TextField
+          label="Clutch"
+          hint="Slings from one egg sac share a clutch name."
+          error={e.clutch?.message}
+          {...register('clutch')}
+        />
       </fieldset>
 
       <fieldset className="flex flex-col gap-3">
         <legend className="mb-1 text-xl font-extrabold">Where and from whom</legend>
         <SelectField label="Place" options={locationOptions} {...register('locationId')} />
         <div className="grid grid-cols-2 gap-2">
-          <TextField label="Acquired on" type="date" error={e.acquiredOn?.message} {...register('acquiredOn')} />
+          <TextField
+            label="Acquired on"
+            type="date"
+            error={e.acquiredOn?.message}
+            {...register('acquiredOn')}
+          />
           <TextField label="Source" error={e.source?.message} {...register('source')} />
         </div>
       </fieldset>
@@ -203,34 +318,73 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
       <fieldset className="flex flex-col gap-2">
         <legend className="mb-1 text-xl font-extrabold">Cautions</legend>
         {CAUTIONS.map((c) => (
-          <label key={c} className="flex min-h-target cursor-pointer items-center gap-3 has-[:focus-visible]:outline has-[:focus-visible]:outline-4">
-            <input type="checkbox" value={c} className="size-6 accent-[var(--c-primary)]" {...register('cautions')} />
+          <label
+            key={c}
+            className="flex min-h-target cursor-pointer items-center gap-3 has-[:focus-visible]:outline has-[:focus-visible]:outline-4"
+          >
+            <input
+              type="checkbox"
+              value={c}
+              className="size-6 accent-[var(--c-primary)]"
+              {...register('cautions')}
+            />
             {CAUTION_LABEL[c]}
           </label>
         ))}
-        <TextField label="Other caution" hint="In your words, e.g. “Bolts up the lid”." error={e.cautionNote?.message} {...register('cautionNote')} />
+        <TextField
+          label="Other caution"
+          hint="In your words, e.g. “Bolts up the lid”."
+          error={e.cautionNote?.message}
+          {...register('cautionNote')}
+        />
       </fieldset>
 
       <fieldset className="flex flex-col gap-3">
         <legend className="mb-1 text-xl font-extrabold">Care</legend>
         <div className="grid grid-cols-2 gap-2">
-          <TextField label="Feed every (days)" inputMode="numeric" hint="Empty: the round rules decide." error={e.intervalDays?.message} {...register('intervalDays')} />
-          <TextField label="Prey count" inputMode="numeric" error={e.preyCount?.message} {...register('preyCount')} />
+          <TextField
+            label="Feed every (days)"
+            inputMode="numeric"
+            hint="Empty: the round rules decide."
+            error={e.intervalDays?.message}
+            {...register('intervalDays')}
+          />
+          <TextField
+            label="Prey count"
+            inputMode="numeric"
+            error={e.preyCount?.message}
+            {...register('preyCount')}
+          />
           <TextField label="Prey type" error={e.preyType?.message} {...register('preyType')} />
           <TextField label="Prey size" error={e.preySize?.message} {...register('preySize')} />
         </div>
         {hasDiet(group) && (
           <SelectField
             label="Diet"
-            options={[{ value: '', label: `Usual: ${DIET_LABEL[GROUP_CARE[group].defaultDiet].toLowerCase()}` }, ...DIETS.map((d) => ({ value: d, label: DIET_LABEL[d] }))]}
+            options={[
+              {
+                value: '',
+                label: `Usual: ${DIET_LABEL[GROUP_CARE[group].defaultDiet].toLowerCase()}`,
+              },
+              ...DIETS.map((d) => ({ value: d, label: DIET_LABEL[d] })),
+            ]}
             {...register('diet')}
           />
         )}
         <label className="flex min-h-target cursor-pointer items-center gap-3">
-          <input type="checkbox" className="size-6 accent-[var(--c-primary)]" {...register('hasWaterDish')} />
+          <input
+            type="checkbox"
+            className="size-6 accent-[var(--c-primary)]"
+            {...register('hasWaterDish')}
+          />
           Has a water dish
         </label>
-        <TextField label="Do not feed until" type="date" error={e.doNotFeedUntil?.message} {...register('doNotFeedUntil')} />
+        <TextField
+          label="Do not feed until"
+          type="date"
+          error={e.doNotFeedUntil?.message}
+          {...register('doNotFeedUntil')}
+        />
       </fieldset>
 
       <TextField label="Notes" error={e.notes?.message} {...register('notes')} />

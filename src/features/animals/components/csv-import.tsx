@@ -1,6 +1,12 @@
 import { useMemo, useState } from 'react';
 import { stageLabel } from '#shared/domain/animal-facts';
-import { guessColumn, IMPORT_COLUMNS, REQUIRED_COLUMNS, rowToAnimal, type AnimalColumn } from '#shared/domain/csv/animal-columns';
+import {
+  guessColumn,
+  IMPORT_COLUMNS,
+  REQUIRED_COLUMNS,
+  rowToAnimal,
+  type AnimalColumn,
+} from '#shared/domain/csv/animal-columns';
 import { readCsv, type CsvTable } from '#shared/domain/csv/csv-file';
 import { codeKey } from '#shared/domain/labels/label-payload';
 import { MAX_IMPORT_ROWS } from '#shared/schemas/import';
@@ -29,10 +35,15 @@ export function CsvImport({ collectionId, takenCodes }: Props) {
     setReadError(null);
     importRows.reset();
     if (!f) return;
-    if (f.size > MAX_FILE_BYTES) return setReadError('That file is over 10 MB. Split it and import the parts.');
+    if (f.size > MAX_FILE_BYTES)
+      return setReadError('That file is over 10 MB. Split it and import the parts.');
     const table = readCsv(await f.text());
-    if (!table.headers.length) return setReadError('That file has no header row. The first line should name the columns.');
-    if (table.records.length > MAX_IMPORT_ROWS) return setReadError(`That file has ${table.records.length} rows; import at most ${MAX_IMPORT_ROWS} at a time.`);
+    if (!table.headers.length)
+      return setReadError('That file has no header row. The first line should name the columns.');
+    if (table.records.length > MAX_IMPORT_ROWS)
+      return setReadError(
+        `That file has ${table.records.length} rows; import at most ${MAX_IMPORT_ROWS} at a time.`,
+      );
     setFile({ name: f.name, table });
     setMapping(table.headers.map((h) => guessColumn(h) ?? SKIP));
   };
@@ -48,7 +59,14 @@ export function CsvImport({ collectionId, takenCodes }: Props) {
       });
       const result = rowToAnimal(cells);
       const code = result.ok && result.value.labelCode ? codeKey(result.value.labelCode) : '';
-      if (code && (taken.has(code) || seen.has(code))) return { line: r.line, result: { ok: false as const, errors: [`code: ${result.ok ? result.value.labelCode : ''} is already used.`] } };
+      if (code && (taken.has(code) || seen.has(code)))
+        return {
+          line: r.line,
+          result: {
+            ok: false as const,
+            errors: [`code: ${result.ok ? result.value.labelCode : ''} is already used.`],
+          },
+        };
       if (code) seen.add(code);
       return { line: r.line, result };
     });
@@ -62,7 +80,12 @@ export function CsvImport({ collectionId, takenCodes }: Props) {
     <div className="flex flex-col gap-4">
       <label className="flex min-h-target cursor-pointer items-center justify-center rounded-xl border-2 border-border bg-surface px-4 text-lg font-bold has-[:focus-visible]:outline has-[:focus-visible]:outline-4">
         {file ? `Chosen: ${file.name} · choose another` : 'Choose a CSV file'}
-        <input type="file" accept=".csv,text/csv" className="sr-only" onChange={(e) => void open(e.target.files?.[0])} />
+        <input
+          type="file"
+          accept=".csv,text/csv"
+          className="sr-only"
+          onChange={(e) => void open(e.target.files?.[0])}
+        />
       </label>
       {readError && <Notice tone="error" title={readError} />}
       {file && (
@@ -71,17 +94,28 @@ export function CsvImport({ collectionId, takenCodes }: Props) {
             <h2 id="map-heading" className="text-xl font-extrabold">
               Columns
             </h2>
-            <p className="text-muted">Each column of your file goes to one of ours. Required: {REQUIRED_COLUMNS.join(', ')}.</p>
+            <p className="text-muted">
+              Each column of your file goes to one of ours. Required: {REQUIRED_COLUMNS.join(', ')}.
+            </p>
             {file.table.headers.map((h, i) => (
               <SelectField
                 key={`${h}-${i}`}
                 label={`“${h}”`}
                 value={mapping[i] ?? SKIP}
-                onChange={(e) => setMapping((m) => m.map((c, j) => (j === i ? (e.target.value as AnimalColumn | typeof SKIP) : c)))}
-                options={[{ value: SKIP, label: 'Leave out' }, ...IMPORT_COLUMNS.map((c) => ({ value: c, label: c }))]}
+                onChange={(e) =>
+                  setMapping((m) =>
+                    m.map((c, j) => (j === i ? (e.target.value as AnimalColumn | typeof SKIP) : c)),
+                  )
+                }
+                options={[
+                  { value: SKIP, label: 'Leave out' },
+                  ...IMPORT_COLUMNS.map((c) => ({ value: c, label: c })),
+                ]}
               />
             ))}
-            {missing.length > 0 && <Notice tone="warning" title={`Map a column to: ${missing.join(', ')}.`} />}
+            {missing.length > 0 && (
+              <Notice tone="warning" title={`Map a column to: ${missing.join(', ')}.`} />
+            )}
           </section>
           {missing.length === 0 && checked && (
             <section aria-labelledby="check-heading" className="flex flex-col gap-2">
@@ -89,13 +123,18 @@ export function CsvImport({ collectionId, takenCodes }: Props) {
                 Check
               </h2>
               <p aria-live="polite" className="font-bold">
-                {valid.length} of {checked.length} rows are ready{problems.length ? `; ${problems.length} need attention` : ''}.
+                {valid.length} of {checked.length} rows are ready
+                {problems.length ? `; ${problems.length} need attention` : ''}.
               </p>
               {problems.length > 0 && (
-                <ul aria-label="Rows with problems" className="flex flex-col gap-1 rounded-xl border-2 border-danger p-2">
+                <ul
+                  aria-label="Rows with problems"
+                  className="flex flex-col gap-1 rounded-xl border-2 border-danger p-2"
+                >
                   {problems.map((p) => (
                     <li key={p.line}>
-                      <span className="font-bold">Line {p.line}:</span> {!p.result.ok && p.result.errors.join(' ')}
+                      <span className="font-bold">Line {p.line}:</span>{' '}
+                      {!p.result.ok && p.result.errors.join(' ')}
                     </li>
                   ))}
                 </ul>
@@ -104,18 +143,31 @@ export function CsvImport({ collectionId, takenCodes }: Props) {
                 <ul aria-label="Preview" className="flex flex-col gap-1 text-sm">
                   {valid.slice(0, 5).map((v, i) => (
                     <li key={i}>
-                      <span className="font-bold">{v.name}</span> · <i lang="la">{v.scientificName}</i> · {stageLabel(v.group, v.lifeStage)}
+                      <span className="font-bold">{v.name}</span> ·{' '}
+                      <i lang="la">{v.scientificName}</i> · {stageLabel(v.group, v.lifeStage)}
                       {v.place && ` · ${v.place.rack}${v.place.shelf}-${v.place.position}`}
                     </li>
                   ))}
-                  {valid.length > 5 && <li className="text-muted">… and {valid.length - 5} more</li>}
+                  {valid.length > 5 && (
+                    <li className="text-muted">… and {valid.length - 5} more</li>
+                  )}
                 </ul>
               )}
-              <Button disabled={!valid.length || importRows.isSuccess} busy={importRows.isPending} onClick={() => importRows.mutate(valid)}>
+              <Button
+                disabled={!valid.length || importRows.isSuccess}
+                busy={importRows.isPending}
+                onClick={() => importRows.mutate(valid)}
+              >
                 Import {valid.length} valid {valid.length === 1 ? 'row' : 'rows'}
               </Button>
-              {problems.length > 0 && <p className="text-sm text-muted">Rows with problems are left out. Fix them in your file and import those later.</p>}
-              {importRows.isSuccess && <Notice tone="ok" title={`Imported ${importRows.data.imported} animals.`} />}
+              {problems.length > 0 && (
+                <p className="text-sm text-muted">
+                  Rows with problems are left out. Fix them in your file and import those later.
+                </p>
+              )}
+              {importRows.isSuccess && (
+                <Notice tone="ok" title={`Imported ${importRows.data.imported} animals.`} />
+              )}
               {importRows.isError && <Notice tone="error" title={importRows.error.message} />}
             </section>
           )}

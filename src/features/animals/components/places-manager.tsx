@@ -1,6 +1,10 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
-import { locationInput, type LocationInput, type LocationWithCount } from '#shared/schemas/locations';
+import {
+  locationInput,
+  type LocationInput,
+  type LocationWithCount,
+} from '#shared/schemas/locations';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
@@ -43,28 +47,54 @@ export function PlacesManager({ collectionId }: { collectionId: string }) {
       >
         <p className="col-span-2 font-extrabold">Add a place</p>
         {(['room', 'rack', 'shelf', 'position'] as const).map((k) => (
-          <TextField key={k} label={{ room: 'Room', rack: 'Rack', shelf: 'Shelf or tray', position: 'Position' }[k]} error={formState.errors[k]?.message} {...register(k)} />
+          <TextField
+            key={k}
+            label={{ room: 'Room', rack: 'Rack', shelf: 'Shelf or tray', position: 'Position' }[k]}
+            error={formState.errors[k]?.message}
+            {...register(k)}
+          />
         ))}
         <Button type="submit" className="col-span-2" busy={formState.isSubmitting}>
           Add place
         </Button>
       </form>
-      <p className="text-muted">The round lists animals in this order. Move a place up or down to match the way you walk.</p>
+      <p className="text-muted">
+        The round lists animals in this order. Move a place up or down to match the way you walk.
+      </p>
       <ol aria-label="Places in walk order" className="flex flex-col gap-1">
         {list.map((l, i) => (
-          <li key={l.id} className="flex items-center gap-2 rounded-xl border-2 border-border bg-surface p-2">
+          <li
+            key={l.id}
+            className="flex items-center gap-2 rounded-xl border-2 border-border bg-surface p-2"
+          >
             <span className="min-w-0 flex-1">
               <span className="font-bold">{label(l)}</span>
-              <span className="block text-sm text-muted">{l.animals === 1 ? '1 animal' : `${l.animals} animals`}</span>
+              <span className="block text-sm text-muted">
+                {l.animals === 1 ? '1 animal' : `${l.animals} animals`}
+              </span>
             </span>
-            <Button variant="secondary" aria-label={`Earlier in the walk: ${label(l)}`} disabled={i === 0 || change.reorder.isPending} onClick={() => move(i, -1)}>
+            <Button
+              variant="secondary"
+              aria-label={`Earlier in the walk: ${label(l)}`}
+              disabled={i === 0 || change.reorder.isPending}
+              onClick={() => move(i, -1)}
+            >
               ↑
             </Button>
-            <Button variant="secondary" aria-label={`Later in the walk: ${label(l)}`} disabled={i === list.length - 1 || change.reorder.isPending} onClick={() => move(i, 1)}>
+            <Button
+              variant="secondary"
+              aria-label={`Later in the walk: ${label(l)}`}
+              disabled={i === list.length - 1 || change.reorder.isPending}
+              onClick={() => move(i, 1)}
+            >
               ↓
             </Button>
             {l.animals === 0 && (
-              <Button variant="danger" aria-label={`Remove ${label(l)}`} onClick={() => change.remove.mutate(l.id)}>
+              <Button
+                variant="danger"
+                aria-label={`Remove ${label(l)}`}
+                onClick={() => change.remove.mutate(l.id)}
+              >
                 ✕
               </Button>
             )}

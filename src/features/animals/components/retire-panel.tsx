@@ -18,19 +18,36 @@ interface Props {
 
 /** Sold, deceased, rehomed or on loan: off the round from now on, history kept. */
 export function RetirePanel({ what, today, onRetire, onCancel }: Props) {
-  const { register, handleSubmit, setError, formState } = useForm<z.input<typeof retireBody>, unknown, z.output<typeof retireBody>>({
+  const { register, handleSubmit, setError, formState } = useForm<
+    z.input<typeof retireBody>,
+    unknown,
+    z.output<typeof retireBody>
+  >({
     resolver: zodResolver(retireBody),
     defaultValues: { status: 'sold', date: today, note: '' },
   });
   const { problem, attempt } = useServerProblem(setError);
   const e = formState.errors;
   return (
-    <form className="flex flex-col gap-3 rounded-2xl border-2 border-accent bg-surface p-3" onSubmit={handleSubmit((body) => attempt(() => onRetire(body)))}>
+    <form
+      className="flex flex-col gap-3 rounded-2xl border-2 border-accent bg-surface p-3"
+      onSubmit={handleSubmit((body) => attempt(() => onRetire(body)))}
+    >
       <p className="font-bold">Retire {what}? It leaves the round; its history stays.</p>
-      <SelectField label="Why" error={e.status?.message} options={RETIRED_STATUSES.map((s) => ({ value: s, label: STATUS_LABEL[s] }))} {...register('status')} />
+      <SelectField
+        label="Why"
+        error={e.status?.message}
+        options={RETIRED_STATUSES.map((s) => ({ value: s, label: STATUS_LABEL[s] }))}
+        {...register('status')}
+      />
       <TextField label="Date" type="date" error={e.date?.message} {...register('date')} />
       <TextField label="Note" error={e.note?.message} {...register('note')} />
-      <PanelActions word="Retire" busy={formState.isSubmitting} error={problem} onCancel={onCancel} />
+      <PanelActions
+        word="Retire"
+        busy={formState.isSubmitting}
+        error={problem}
+        onCancel={onCancel}
+      />
     </form>
   );
 }

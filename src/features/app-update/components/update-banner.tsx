@@ -14,10 +14,17 @@ export function UpdateBanner() {
   const { waiting } = useSyncStatus();
   if (!needRefresh) return null;
   return (
-    <div role="status" className="fixed inset-x-2 bottom-24 z-30 flex items-center gap-3 rounded-2xl border-2 border-accent bg-surface p-3 shadow-lg">
+    <div
+      role="status"
+      className="fixed inset-x-2 bottom-24 z-30 flex items-center gap-3 rounded-2xl border-2 border-accent bg-surface p-3 shadow-lg"
+    >
       <p className="flex-1 font-bold">
         A new version of Rackside is ready.
-        {waiting > 0 && <span className="block font-normal">It installs once your {waiting} waiting taps are saved.</span>}
+        {waiting > 0 && (
+          <span className="block font-normal">
+            It installs once your {waiting} waiting taps are saved.
+          </span>
+        )}
       </p>
       <Button variant="quiet" onClick={() => setNeedRefresh(false)}>
         Later

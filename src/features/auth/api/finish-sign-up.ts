@@ -5,7 +5,8 @@ import { queryKeys } from '@/lib/query-keys';
 import { rememberMe } from './get-me';
 
 /** The sign-up link's page: makes the account and its collection, and signs in. */
-export const finishSignUp = (body: SignUpFinishBody) => apiRequest('/auth/sign-up/finish', { method: 'POST', body, schema: meResponse });
+export const finishSignUp = (body: SignUpFinishBody) =>
+  apiRequest('/auth/sign-up/finish', { method: 'POST', body, schema: meResponse });
 
 export function useFinishSignUp() {
   const queryClient = useQueryClient();

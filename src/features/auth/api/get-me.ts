@@ -12,13 +12,15 @@ async function fetchMe(): Promise<MeResponse> {
     await withDb((db) => storeMe(db, me)).catch(() => undefined);
     return me;
   } catch (err) {
-    if (err instanceof ApiError && err.status === 401) await withDb((db) => storeMe(db, null)).catch(() => undefined);
+    if (err instanceof ApiError && err.status === 401)
+      await withDb((db) => storeMe(db, null)).catch(() => undefined);
     throw err;
   }
 }
 
 /** Keeps the phone's copy of `me` in step with the server after a sign-in or sign-up. */
-export const rememberMe = (me: MeResponse) => withDb((db) => storeMe(db, me)).catch(() => undefined);
+export const rememberMe = (me: MeResponse) =>
+  withDb((db) => storeMe(db, me)).catch(() => undefined);
 
 /**
  * Local first: the phone's copy answers at once (a back room may have a signal that never
@@ -31,7 +33,8 @@ async function loadMe(queryClient: QueryClient): Promise<MeResponse> {
   fetchMe().then(
     (me) => queryClient.setQueryData(queryKeys.auth.me(), me),
     (err) => {
-      if (err instanceof ApiError && err.status === 401) void queryClient.resetQueries({ queryKey: queryKeys.auth.me() });
+      if (err instanceof ApiError && err.status === 401)
+        void queryClient.resetQueries({ queryKey: queryKeys.auth.me() });
     },
   );
   return known;
@@ -39,5 +42,10 @@ async function loadMe(queryClient: QueryClient): Promise<MeResponse> {
 
 export function useMe() {
   const queryClient = useQueryClient();
-  return useQuery({ queryKey: queryKeys.auth.me(), queryFn: () => loadMe(queryClient), staleTime: 60_000, networkMode: 'always' });
+  return useQuery({
+    queryKey: queryKeys.auth.me(),
+    queryFn: () => loadMe(queryClient),
+    staleTime: 60_000,
+    networkMode: 'always',
+  });
 }

@@ -4,7 +4,8 @@ import { apiRequest } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 import { rememberMe } from './get-me';
 
-export const signIn = (body: SignInBody) => apiRequest('/auth/sign-in', { method: 'POST', body, schema: meResponse });
+export const signIn = (body: SignInBody) =>
+  apiRequest('/auth/sign-in', { method: 'POST', body, schema: meResponse });
 
 export function useSignIn() {
   const queryClient = useQueryClient();

@@ -11,11 +11,26 @@ import { signOut } from './sign-out';
 
 const USER = 'user-1';
 const COLLECTION = 'collection-1';
-const me = { user: { id: USER, email: 'robin@example.test', displayName: 'Robin' }, memberships: [] };
+const me = {
+  user: { id: USER, email: 'robin@example.test', displayName: 'Robin' },
+  memberships: [],
+};
 
 async function tap(db: RacksideDb) {
-  const event: RecordedEvent = { id: randomUUID(), animalId: randomUUID(), kind: 'watered', payload: {}, clientRecordedAt: new Date().toISOString() };
-  await recordTap(db, { userId: USER, byName: 'Robin', collectionId: COLLECTION, animalName: 'Bramble', event });
+  const event: RecordedEvent = {
+    id: randomUUID(),
+    animalId: randomUUID(),
+    kind: 'watered',
+    payload: {},
+    clientRecordedAt: new Date().toISOString(),
+  };
+  await recordTap(db, {
+    userId: USER,
+    byName: 'Robin',
+    collectionId: COLLECTION,
+    animalName: 'Bramble',
+    event,
+  });
   return event.id;
 }
 
@@ -31,19 +46,35 @@ async function fillPhone() {
     const deviceId = await deviceIdOf(db);
     const refused = await tap(db);
     const [entry] = await waitingTaps(db, USER);
-    await settleBatch(db, [entry!], [{ id: refused, status: 'rejected', reason: 'unknown_animal', message: 'Gone.' }], new Date());
+    await settleBatch(
+      db,
+      [entry!],
+      [{ id: refused, status: 'rejected', reason: 'unknown_animal', message: 'Gone.' }],
+      new Date(),
+    );
     const waiting = await tap(db);
     return { deviceId, waiting, refused };
   });
 }
 
 beforeEach(() => {
-  vi.stubGlobal('fetch', vi.fn(async () => new Response(null, { status: 204 })));
+  vi.stubGlobal(
+    'fetch',
+    vi.fn(async () => new Response(null, { status: 204 })),
+  );
 });
 afterEach(async () => {
   vi.unstubAllGlobals();
   await withDb(async (db) => {
-    for (const store of ['rounds', 'roundItems', 'directory', 'meta', 'outbox', 'attention'] as const) await db.clear(store);
+    for (const store of [
+      'rounds',
+      'roundItems',
+      'directory',
+      'meta',
+      'outbox',
+      'attention',
+    ] as const)
+      await db.clear(store);
   });
 });
 
@@ -51,7 +82,10 @@ describe('sign-out', () => {
   it('forgets every cached round, animal list and `me`, and keeps the device id and the person’s taps', async () => {
     const { deviceId, waiting, refused } = await fillPhone();
     await signOut();
-    expect(fetch).toHaveBeenCalledWith('/api/auth/sign-out', expect.objectContaining({ method: 'POST' }));
+    expect(fetch).toHaveBeenCalledWith(
+      '/api/auth/sign-out',
+      expect.objectContaining({ method: 'POST' }),
+    );
     await withDb(async (db) => {
       expect(await db.count('rounds')).toBe(0);
       expect(await db.count('roundItems')).toBe(0);
@@ -65,7 +99,12 @@ describe('sign-out', () => {
   });
 
   it('clears nothing when the server did not sign the person out', async () => {
-    vi.stubGlobal('fetch', vi.fn(async () => { throw new TypeError('Failed to fetch'); }));
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => {
+        throw new TypeError('Failed to fetch');
+      }),
+    );
     await fillPhone();
     await expect(signOut()).rejects.toThrow(/No connection/);
     await withDb(async (db) => {

@@ -42,7 +42,12 @@ export function FinishSignUpForm({ token, onSignedUp }: { token: string; onSigne
         Your account for <span className="font-bold">{preview.data.email}</span>.
       </p>
       {problem && <Notice tone="error" title={problem} />}
-      <TextField label="Your name" autoComplete="name" error={e.displayName?.message} {...register('displayName')} />
+      <TextField
+        label="Your name"
+        autoComplete="name"
+        error={e.displayName?.message}
+        {...register('displayName')}
+      />
       <PasswordField
         label="Password"
         autoComplete="new-password"
@@ -50,7 +55,12 @@ export function FinishSignUpForm({ token, onSignedUp }: { token: string; onSigne
         error={e.password?.message}
         {...register('password')}
       />
-      <TextField label="Collection name" hint="For example: Spare room racks" error={e.collectionName?.message} {...register('collectionName')} />
+      <TextField
+        label="Collection name"
+        hint="For example: Spare room racks"
+        error={e.collectionName?.message}
+        {...register('collectionName')}
+      />
       <TextField
         label="Time zone"
         hint="Your rounds follow the calendar days of this zone."

@@ -17,21 +17,33 @@ type Output = z.output<typeof signUpBody>;
  */
 export function SignUpForm() {
   const start = useStartSignUp();
-  const { register, handleSubmit, setError, formState } = useForm<Input, unknown, Output>({ resolver: zodResolver(signUpBody) });
+  const { register, handleSubmit, setError, formState } = useForm<Input, unknown, Output>({
+    resolver: zodResolver(signUpBody),
+  });
   const { problem, attempt } = useServerProblem(setError);
   const submit = handleSubmit((values) => attempt(() => start.mutateAsync(values)));
 
   if (start.data) {
     return (
       <Notice tone="ok" title={start.data.message}>
-        <p>Open it on this phone and follow its link. Nothing there after a few minutes? Look in the spam folder, or try again.</p>
+        <p>
+          Open it on this phone and follow its link. Nothing there after a few minutes? Look in the
+          spam folder, or try again.
+        </p>
       </Notice>
     );
   }
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4">
       {problem && <Notice tone="error" title={problem} />}
-      <TextField label="E-mail" type="email" autoComplete="email" inputMode="email" error={formState.errors.email?.message} {...register('email')} />
+      <TextField
+        label="E-mail"
+        type="email"
+        autoComplete="email"
+        inputMode="email"
+        error={formState.errors.email?.message}
+        {...register('email')}
+      />
       <Button type="submit" wide busy={formState.isSubmitting}>
         Send me a sign-up link
       </Button>

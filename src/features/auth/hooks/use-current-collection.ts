@@ -22,7 +22,10 @@ export function chooseCollectionOnDevice(collectionId: string) {
 export function useCurrentCollection(memberships: MembershipSummary[]) {
   const saved = useSyncExternalStore(subscribe, () => localStorage.getItem(KEY));
   const current =
-    memberships.find((m) => m.collectionId === saved) ?? memberships.find((m) => m.role === 'owner') ?? memberships[0] ?? null;
+    memberships.find((m) => m.collectionId === saved) ??
+    memberships.find((m) => m.role === 'owner') ??
+    memberships[0] ??
+    null;
   const choose = useCallback((collectionId: string) => chooseCollectionOnDevice(collectionId), []);
   return { current, choose };
 }

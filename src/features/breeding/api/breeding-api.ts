@@ -1,11 +1,22 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import { eggSacListResponse, eggSacView, slingsCreatedResponse, type EggSacBody, type EggSacChange, type SlingsBody } from '#shared/schemas/breeding';
+import {
+  eggSacListResponse,
+  eggSacView,
+  slingsCreatedResponse,
+  type EggSacBody,
+  type EggSacChange,
+  type SlingsBody,
+} from '#shared/schemas/breeding';
 import { noContent } from '#shared/schemas/common';
 import { apiRequest } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 
 export const useEggSacs = (collectionId: string) =>
-  useQuery({ queryKey: queryKeys.breeding.sacs(collectionId), queryFn: () => apiRequest(`/collections/${collectionId}/egg-sacs`, { schema: eggSacListResponse }) });
+  useQuery({
+    queryKey: queryKeys.breeding.sacs(collectionId),
+    queryFn: () =>
+      apiRequest(`/collections/${collectionId}/egg-sacs`, { schema: eggSacListResponse }),
+  });
 
 export function useBreedingChanges(collectionId: string) {
   const queryClient = useQueryClient();
@@ -17,17 +28,32 @@ export function useBreedingChanges(collectionId: string) {
     ]);
   const base = `/collections/${collectionId}`;
   return {
-    create: useMutation({ mutationFn: (body: EggSacBody) => apiRequest(`${base}/egg-sacs`, { method: 'POST', body, schema: eggSacView }), onSuccess: refresh }),
+    create: useMutation({
+      mutationFn: (body: EggSacBody) =>
+        apiRequest(`${base}/egg-sacs`, { method: 'POST', body, schema: eggSacView }),
+      onSuccess: refresh,
+    }),
     change: useMutation({
-      mutationFn: ({ sacId, body }: { sacId: string; body: EggSacChange }) => apiRequest(`${base}/egg-sacs/${sacId}`, { method: 'PATCH', body, schema: eggSacListResponse }),
+      mutationFn: ({ sacId, body }: { sacId: string; body: EggSacChange }) =>
+        apiRequest(`${base}/egg-sacs/${sacId}`, {
+          method: 'PATCH',
+          body,
+          schema: eggSacListResponse,
+        }),
       onSuccess: refresh,
     }),
     slings: useMutation({
-      mutationFn: ({ sacId, body }: { sacId: string; body: SlingsBody }) => apiRequest(`${base}/egg-sacs/${sacId}/slings`, { method: 'POST', body, schema: slingsCreatedResponse }),
+      mutationFn: ({ sacId, body }: { sacId: string; body: SlingsBody }) =>
+        apiRequest(`${base}/egg-sacs/${sacId}/slings`, {
+          method: 'POST',
+          body,
+          schema: slingsCreatedResponse,
+        }),
       onSuccess: refresh,
     }),
     incubation: useMutation({
-      mutationFn: (body: { minDays: number; maxDays: number }) => apiRequest(`${base}/incubation`, { method: 'PUT', body, schema: noContent }),
+      mutationFn: (body: { minDays: number; maxDays: number }) =>
+        apiRequest(`${base}/incubation`, { method: 'PUT', body, schema: noContent }),
       onSuccess: refresh,
     }),
   };

@@ -1,5 +1,11 @@
 import { lazy, Suspense, useMemo } from 'react';
-import { acceptanceRate, growthSeries, mealIntervals, moltsInLastYear, type MoltFact } from '#shared/domain/growth';
+import {
+  acceptanceRate,
+  growthSeries,
+  mealIntervals,
+  moltsInLastYear,
+  type MoltFact,
+} from '#shared/domain/growth';
 import { daysBetween, localDateOf } from '#shared/domain/local-dates';
 import { sizeInUnit, type SizeUnit } from '#shared/domain/units';
 import type { HistoryEvent } from '#shared/schemas/events';
@@ -9,13 +15,25 @@ const GrowthChart = lazy(() => import('./growth-chart'));
 const OFFERS = 10;
 
 /** How the animal grows and eats, from its own history. */
-export function GrowthPanel({ events, timeZone, unit }: { events: readonly HistoryEvent[]; timeZone: string; unit: SizeUnit }) {
+export function GrowthPanel({
+  events,
+  timeZone,
+  unit,
+}: {
+  events: readonly HistoryEvent[];
+  timeZone: string;
+  unit: SizeUnit;
+}) {
   const today = localDateOf(new Date(), timeZone);
   const facts = useMemo(() => {
     const kept = events.filter((e) => !e.voidedBy && e.kind !== 'void');
     const day = (e: HistoryEvent) => localDateOf(new Date(e.at), timeZone);
-    const molts: MoltFact[] = kept.filter((e) => e.kind === 'molted').map((e) => ({ date: day(e), ...(e.payload as Omit<MoltFact, 'date'>) }));
-    const offers = kept.filter((e) => e.kind === 'ate' || e.kind === 'refused').map((e) => ({ date: day(e), kind: e.kind as 'ate' | 'refused' }));
+    const molts: MoltFact[] = kept
+      .filter((e) => e.kind === 'molted')
+      .map((e) => ({ date: day(e), ...(e.payload as Omit<MoltFact, 'date'>) }));
+    const offers = kept
+      .filter((e) => e.kind === 'ate' || e.kind === 'refused')
+      .map((e) => ({ date: day(e), kind: e.kind as 'ate' | 'refused' }));
     const meals = offers.filter((o) => o.kind === 'ate').map((o) => o.date);
     // Refusals since the last meal or molt: the premolt sign keepers watch.
     const sinceLast = [...kept].sort((a, b) => b.at.localeCompare(a.at));
@@ -31,7 +49,9 @@ export function GrowthPanel({ events, timeZone, unit }: { events: readonly Histo
   const accept = acceptanceRate(offers, OFFERS);
   const intervals = mealIntervals(meals);
   const lastMeal = [...meals].sort().at(-1);
-  const sized = series.filter((p) => p.sizeMm !== null).map((p) => ({ ...p, sizeMm: sizeInUnit(p.sizeMm!, unit) }));
+  const sized = series
+    .filter((p) => p.sizeMm !== null)
+    .map((p) => ({ ...p, sizeMm: sizeInUnit(p.sizeMm!, unit) }));
   return (
     <section aria-labelledby="growth-heading" className="flex flex-col gap-2">
       <h2 id="growth-heading" className="text-xl font-extrabold">
@@ -41,11 +61,20 @@ export function GrowthPanel({ events, timeZone, unit }: { events: readonly Histo
         {[
           ['Molts in the last year', String(moltsInLastYear(series, today))],
           ['Days since the last molt', last ? String(daysBetween(last.date, today)) : '—'],
-          ['Between the last two molts', last?.daysSincePrevious != null ? `${last.daysSincePrevious} days` : '—'],
-          [`Ate, last ${accept.offered} offers`, accept.rate === null ? '—' : `${accept.ate} of ${accept.offered} (${accept.rate} %)`],
+          [
+            'Between the last two molts',
+            last?.daysSincePrevious != null ? `${last.daysSincePrevious} days` : '—',
+          ],
+          [
+            `Ate, last ${accept.offered} offers`,
+            accept.rate === null ? '—' : `${accept.ate} of ${accept.offered} (${accept.rate} %)`,
+          ],
           ['Usual days between meals', intervals.median === null ? '—' : String(intervals.median)],
           ['Since the last meal', lastMeal ? `${daysBetween(lastMeal, today)} days` : '—'],
-          ['Refusals in a row', streak ? `${streak}${streak >= 2 ? ' · possible premolt' : ''}` : '0'],
+          [
+            'Refusals in a row',
+            streak ? `${streak}${streak >= 2 ? ' · possible premolt' : ''}` : '0',
+          ],
         ].map(([term, value]) => (
           <div key={term} className="rounded-xl border-2 border-border bg-surface p-2">
             <dt className="text-sm text-muted">{term}</dt>
@@ -58,7 +87,9 @@ export function GrowthPanel({ events, timeZone, unit }: { events: readonly Histo
           <GrowthChart points={sized} unit={unit} />
         </Suspense>
       ) : (
-        <p className="text-sm text-muted">The chart appears after the first molt recorded with a size.</p>
+        <p className="text-sm text-muted">
+          The chart appears after the first molt recorded with a size.
+        </p>
       )}
     </section>
   );

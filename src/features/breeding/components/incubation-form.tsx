@@ -27,14 +27,36 @@ export function IncubationForm({ collectionId }: { collectionId: string }) {
   const e = formState.errors;
   const submit = handleSubmit((body) => attempt(() => incubation.mutateAsync(body)));
   return (
-    <form className="grid grid-cols-2 gap-2 rounded-2xl border-2 border-border p-3" onSubmit={submit}>
+    <form
+      className="grid grid-cols-2 gap-2 rounded-2xl border-2 border-border p-3"
+      onSubmit={submit}
+    >
       <p className="col-span-2 font-extrabold">Usual incubation for new egg sacs</p>
-      <p className="col-span-2 text-sm text-muted">Common practice is about 6–8 weeks from laying to pulling or hatching; it varies by species, so set what your species need. Egg cases (about 4–8 weeks) and broods (until they disperse) have their own windows, changed on each record.</p>
-      <TextField label="Shortest (days)" inputMode="numeric" error={e.minDays?.message} {...register('minDays')} />
-      <TextField label="Longest (days)" inputMode="numeric" error={e.maxDays?.message} {...register('maxDays')} />
+      <p className="col-span-2 text-sm text-muted">
+        Common practice is about 6–8 weeks from laying to pulling or hatching; it varies by species,
+        so set what your species need. Egg cases (about 4–8 weeks) and broods (until they disperse)
+        have their own windows, changed on each record.
+      </p>
+      <TextField
+        label="Shortest (days)"
+        inputMode="numeric"
+        error={e.minDays?.message}
+        {...register('minDays')}
+      />
+      <TextField
+        label="Longest (days)"
+        inputMode="numeric"
+        error={e.maxDays?.message}
+        {...register('maxDays')}
+      />
       {problem && <Notice tone="error" title={problem} />}
       {incubation.isSuccess && <Notice tone="ok" title="Saved for new sacs." />}
-      <Button type="submit" variant="secondary" className="col-span-2" busy={formState.isSubmitting}>
+      <Button
+        type="submit"
+        variant="secondary"
+        className="col-span-2"
+        busy={formState.isSubmitting}
+      >
         Save
       </Button>
     </form>

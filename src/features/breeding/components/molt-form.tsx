@@ -4,7 +4,9 @@ import type { MoltFormProps } from './molt-record-form';
 
 // Today's round shows this form only after a Molted tap: it and its checks load then, from the
 // service worker's cache when offline, so the round's first bundle stays small (P4).
-const MoltRecordForm = lazy(() => import('./molt-record-form').then((m) => ({ default: m.MoltRecordForm })));
+const MoltRecordForm = lazy(() =>
+  import('./molt-record-form').then((m) => ({ default: m.MoltRecordForm })),
+);
 
 /** A molt with what it showed; see `MoltRecordForm`. */
 export function MoltForm(props: MoltFormProps) {

@@ -60,10 +60,28 @@ export interface MoltFormProps {
  * A molt with what it showed: the size after it, the exuviae's sex, a maturing molt. One molt is
  * one record: on a day that already has a molt, the form completes that molt.
  */
-export function MoltRecordForm({ today, timeZone, unit, molts, onRecord, compact = false }: MoltFormProps) {
-  const { register, handleSubmit, setError, resetField, watch, formState } = useForm<Input, unknown, Output>({
+export function MoltRecordForm({
+  today,
+  timeZone,
+  unit,
+  molts,
+  onRecord,
+  compact = false,
+}: MoltFormProps) {
+  const { register, handleSubmit, setError, resetField, watch, formState } = useForm<
+    Input,
+    unknown,
+    Output
+  >({
     resolver: zodResolver(moltForm(unit)),
-    defaultValues: { date: today, size: '', exuviaeKept: true, sexFromExuviae: 'unknown', maturing: false, note: '' },
+    defaultValues: {
+      date: today,
+      size: '',
+      exuviaeKept: true,
+      sexFromExuviae: 'unknown',
+      maturing: false,
+      note: '',
+    },
   });
   const existing = molts.find((m) => m.date === watch('date'));
   const headingId = useId();
@@ -73,8 +91,17 @@ export function MoltRecordForm({ today, timeZone, unit, molts, onRecord, compact
     async (v) => {
       setSaved(null);
       // A past day is stored at noon there; today at the moment it is recorded.
-      const at = v.date === today ? new Date() : new Date(startOfLocalDate(v.date, timeZone).getTime() + 12 * 3_600_000);
-      const payload: Record<string, unknown> = { exuviaeKept: v.exuviaeKept, sexFromExuviae: v.sexFromExuviae, ...(v.maturing ? { maturing: true } : {}), ...(v.size !== undefined ? { sizeMm: v.size } : {}), ...(v.note ? { note: v.note } : {}) };
+      const at =
+        v.date === today
+          ? new Date()
+          : new Date(startOfLocalDate(v.date, timeZone).getTime() + 12 * 3_600_000);
+      const payload: Record<string, unknown> = {
+        exuviaeKept: v.exuviaeKept,
+        sexFromExuviae: v.sexFromExuviae,
+        ...(v.maturing ? { maturing: true } : {}),
+        ...(v.size !== undefined ? { sizeMm: v.size } : {}),
+        ...(v.note ? { note: v.note } : {}),
+      };
       // Said as it was when sent: once saved, the day's molt exists and the form would complete it.
       const said = existing ? 'Molt details saved.' : 'Molt recorded.';
       try {
@@ -89,22 +116,60 @@ export function MoltRecordForm({ today, timeZone, unit, molts, onRecord, compact
     () => setSaved(null),
   );
   return (
-    <form aria-labelledby={headingId} className="flex flex-col gap-2 rounded-2xl border-2 border-border p-3" onSubmit={submit}>
+    <form
+      aria-labelledby={headingId}
+      className="flex flex-col gap-2 rounded-2xl border-2 border-border p-3"
+      onSubmit={submit}
+    >
       <h2 id={headingId} className="text-xl font-extrabold">
         {existing ? `Complete the molt of ${shortDate(existing.date)}` : 'Record a molt'}
       </h2>
-      {compact && <p className="text-sm">Add what you can now, or later on the animal’s page — a photo of the exuviae too, once this molt has synced.</p>}
+      {compact && (
+        <p className="text-sm">
+          Add what you can now, or later on the animal’s page — a photo of the exuviae too, once
+          this molt has synced.
+        </p>
+      )}
       <div className="grid grid-cols-2 gap-2">
-        {!compact && <TextField label="Molted on" type="date" max={today} error={e.date?.message} {...register('date')} />}
-        <TextField label={`Size after (${unit})`} inputMode="decimal" error={e.size?.message} {...register('size')} />
+        {!compact && (
+          <TextField
+            label="Molted on"
+            type="date"
+            max={today}
+            error={e.date?.message}
+            {...register('date')}
+          />
+        )}
+        <TextField
+          label={`Size after (${unit})`}
+          inputMode="decimal"
+          error={e.size?.message}
+          {...register('size')}
+        />
       </div>
-      <SelectField label="The exuviae shows" options={[{ value: 'unknown', label: 'Not sexed' }, { value: 'female', label: 'Female' }, { value: 'male', label: 'Male' }]} {...register('sexFromExuviae')} />
+      <SelectField
+        label="The exuviae shows"
+        options={[
+          { value: 'unknown', label: 'Not sexed' },
+          { value: 'female', label: 'Female' },
+          { value: 'male', label: 'Male' },
+        ]}
+        {...register('sexFromExuviae')}
+      />
       <label className="flex min-h-target cursor-pointer items-center gap-3">
-        <input type="checkbox" className="size-6 accent-[var(--c-primary)]" {...register('exuviaeKept')} />
+        <input
+          type="checkbox"
+          className="size-6 accent-[var(--c-primary)]"
+          {...register('exuviaeKept')}
+        />
         Exuviae kept
       </label>
       <label className="flex min-h-target cursor-pointer items-center gap-3">
-        <input type="checkbox" className="size-6 accent-[var(--c-primary)]" {...register('maturing')} />
+        <input
+          type="checkbox"
+          className="size-6 accent-[var(--c-primary)]"
+          {...register('maturing')}
+        />
         Maturing molt (a mature male: palpal bulbs, often tibial hooks)
       </label>
       <TextField label="Note" error={e.note?.message} {...register('note')} />

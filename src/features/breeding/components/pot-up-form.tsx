@@ -30,7 +30,14 @@ export function PotUpForm({ sac, collectionId, young, onSlings }: Props) {
   const { slings } = useBreedingChanges(collectionId);
   const { register, handleSubmit, setError, watch, formState } = useForm<Input, unknown, Output>({
     resolver: zodResolver(potUpForm),
-    defaultValues: { count: String(sac.slingCount ?? sac.eggsWithLegs ?? 24), namePrefix: sac.femaleName, room: '', rack: '', shelf: '', firstPosition: '1' },
+    defaultValues: {
+      count: String(sac.slingCount ?? sac.eggsWithLegs ?? 24),
+      namePrefix: sac.femaleName,
+      room: '',
+      rack: '',
+      shelf: '',
+      firstPosition: '1',
+    },
   });
   const { problem, attempt } = useServerProblem(setError);
   const e = formState.errors;
@@ -41,14 +48,35 @@ export function PotUpForm({ sac, collectionId, young, onSlings }: Props) {
     }),
   );
   return (
-    <form aria-label={`Pot up ${young} from ${sac.clutch}`} className="grid grid-cols-2 gap-2" onSubmit={submit}>
-      <TextField label="How many" inputMode="numeric" error={e.count?.message} {...register('count')} />
-      <TextField label="Names start with" error={e.namePrefix?.message} {...register('namePrefix')} />
+    <form
+      aria-label={`Pot up ${young} from ${sac.clutch}`}
+      className="grid grid-cols-2 gap-2"
+      onSubmit={submit}
+    >
+      <TextField
+        label="How many"
+        inputMode="numeric"
+        error={e.count?.message}
+        {...register('count')}
+      />
+      <TextField
+        label="Names start with"
+        error={e.namePrefix?.message}
+        {...register('namePrefix')}
+      />
       <TextField label="Room" error={e.room?.message} {...register('room')} />
       <TextField label="Rack" error={e.rack?.message} {...register('rack')} />
       <TextField label="Tray or shelf" error={e.shelf?.message} {...register('shelf')} />
-      <TextField label="First position" inputMode="numeric" error={e.firstPosition?.message} {...register('firstPosition')} />
-      <p className="col-span-2 text-sm text-muted">One record per pot, numbered in order, codes in sequence, all at once or none. Then print their labels.</p>
+      <TextField
+        label="First position"
+        inputMode="numeric"
+        error={e.firstPosition?.message}
+        {...register('firstPosition')}
+      />
+      <p className="col-span-2 text-sm text-muted">
+        One record per pot, numbered in order, codes in sequence, all at once or none. Then print
+        their labels.
+      </p>
       {problem && (
         <div className="col-span-2">
           <Notice tone="error" title={problem} />

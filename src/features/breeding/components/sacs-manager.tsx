@@ -3,7 +3,12 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { GROUP_LABEL, type AnimalGroup } from '#shared/domain/animal-facts';
-import { breedingModeOf, isOpenRecord, type BreedingMode, type BreedingRecordKind } from '#shared/domain/breeding';
+import {
+  breedingModeOf,
+  isOpenRecord,
+  type BreedingMode,
+  type BreedingRecordKind,
+} from '#shared/domain/breeding';
 import { eggSacBody, type EggSacView } from '#shared/schemas/breeding';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -31,19 +36,32 @@ interface Props {
   onSlings: (animalIds: string[]) => void;
 }
 
-const A: Record<BreedingRecordKind, string> = { egg_sac: 'an egg sac', egg_case: 'an egg case', brood: 'a brood' };
-const THE: Record<BreedingRecordKind, string> = { egg_sac: 'the sac', egg_case: 'the egg case', brood: 'the brood' };
+const A: Record<BreedingRecordKind, string> = {
+  egg_sac: 'an egg sac',
+  egg_case: 'an egg case',
+  brood: 'a brood',
+};
+const THE: Record<BreedingRecordKind, string> = {
+  egg_sac: 'the sac',
+  egg_case: 'the egg case',
+  brood: 'the brood',
+};
 
 /** What a female's record means for her on the round, in a sentence. */
 function howSheIsTreated(mode: BreedingMode): string {
-  if (mode.record === 'egg_case') return `A mantis does not guard her egg case: she stays on the round. Expect the hatch in about ${mode.window!.minDays / 7}–${mode.window!.maxDays / 7} weeks.`;
-  if (mode.record === 'brood') return 'She is left alone while she guards her brood; her water dish is still topped up quietly. When it disperses, her rebuild (fed more often) starts by itself.';
+  if (mode.record === 'egg_case')
+    return `A mantis does not guard her egg case: she stays on the round. Expect the hatch in about ${mode.window!.minDays / 7}–${mode.window!.maxDays / 7} weeks.`;
+  if (mode.record === 'brood')
+    return 'She is left alone while she guards her brood; her water dish is still topped up quietly. When it disperses, her rebuild (fed more often) starts by itself.';
   return 'She is left alone while she guards it; her water dish is still topped up quietly. When you pull it, or it hatches with her, her rebuild (fed more often) starts by itself.';
 }
 
 /** The dates and counts that mean something for this kind of record. */
 function dateLine(sac: EggSacView, mode: BreedingMode) {
-  const expected = sac.kind === 'brood' ? `disperses about ${sac.expectedFrom} to ${sac.expectedTo}` : `expected ${sac.expectedFrom} to ${sac.expectedTo}`;
+  const expected =
+    sac.kind === 'brood'
+      ? `disperses about ${sac.expectedFrom} to ${sac.expectedTo}`
+      : `expected ${sac.expectedFrom} to ${sac.expectedTo}`;
   return [
     `${mode.words.startedOn} ${sac.laidOn}`,
     expected,
@@ -59,7 +77,11 @@ function countLine(sac: EggSacView, mode: BreedingMode) {
   const young = mode.words.young;
   const parts =
     sac.kind === 'egg_sac'
-      ? [`Eggs ${sac.eggCount ?? '—'}`, `with legs ${sac.eggsWithLegs ?? '—'}`, `slings ${sac.slingCount ?? '—'}`]
+      ? [
+          `Eggs ${sac.eggCount ?? '—'}`,
+          `with legs ${sac.eggsWithLegs ?? '—'}`,
+          `slings ${sac.slingCount ?? '—'}`,
+        ]
       : sac.kind === 'egg_case' || mode.words.count !== 'Eggs'
         ? [`${capitalise(young)} ${sac.slingCount ?? '—'}`]
         : [`Eggs ${sac.eggCount ?? '—'}`, `${young} ${sac.slingCount ?? '—'}`];
@@ -67,7 +89,17 @@ function countLine(sac: EggSacView, mode: BreedingMode) {
 }
 const capitalise = (w: string) => w.charAt(0).toUpperCase() + w.slice(1);
 
-function SacCard({ sac, today, collectionId, onSlings }: { sac: EggSacView; today: string; collectionId: string; onSlings: Props['onSlings'] }) {
+function SacCard({
+  sac,
+  today,
+  collectionId,
+  onSlings,
+}: {
+  sac: EggSacView;
+  today: string;
+  collectionId: string;
+  onSlings: Props['onSlings'];
+}) {
   const mode = breedingModeOf(sac.femaleGroup);
   const [open, setOpen] = useState<'update' | 'slings' | null>(null);
   const due = isOpenRecord(sac) && today >= sac.expectedFrom;
@@ -76,7 +108,9 @@ function SacCard({ sac, today, collectionId, onSlings }: { sac: EggSacView; toda
     <li className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
       <p className="font-extrabold">
         {sac.clutch} · {sac.femaleName}
-        <span className="ml-2 inline-block rounded-md border-2 border-border px-1.5 text-sm font-bold">{mode.words.record}</span>
+        <span className="ml-2 inline-block rounded-md border-2 border-border px-1.5 text-sm font-bold">
+          {mode.words.record}
+        </span>
       </p>
       <p className="text-sm">{dateLine(sac, mode)}</p>
       {due && <p className="font-bold text-accent">Due: check {THE[sac.kind]}.</p>}
@@ -89,8 +123,19 @@ function SacCard({ sac, today, collectionId, onSlings }: { sac: EggSacView; toda
           Pot up {young}…
         </Button>
       </div>
-      {open === 'update' && <SacUpdateForm sac={sac} mode={mode} today={today} collectionId={collectionId} youngLabel={capitalise(young)} onSaved={() => setOpen(null)} />}
-      {open === 'slings' && <PotUpForm sac={sac} collectionId={collectionId} young={young} onSlings={onSlings} />}
+      {open === 'update' && (
+        <SacUpdateForm
+          sac={sac}
+          mode={mode}
+          today={today}
+          collectionId={collectionId}
+          youngLabel={capitalise(young)}
+          onSaved={() => setOpen(null)}
+        />
+      )}
+      {open === 'slings' && (
+        <PotUpForm sac={sac} collectionId={collectionId} young={young} onSlings={onSlings} />
+      )}
     </li>
   );
 }
@@ -104,7 +149,15 @@ export function SacsManager({ collectionId, today, females, onSlings }: Props) {
       {sacs.isPending && <Loading />}
       {sacs.isError && <Notice tone="error" title={sacs.error.message} />}
       <ul aria-label="Egg sacs, egg cases and broods" className="flex flex-col gap-2">
-        {sacs.data?.sacs.map((sac) => <SacCard key={sac.id} sac={sac} today={today} collectionId={collectionId} onSlings={onSlings} />)}
+        {sacs.data?.sacs.map((sac) => (
+          <SacCard
+            key={sac.id}
+            sac={sac}
+            today={today}
+            collectionId={collectionId}
+            onSlings={onSlings}
+          />
+        ))}
       </ul>
     </div>
   );
@@ -126,15 +179,27 @@ function recordFor(females: readonly Female[], femaleId: string) {
   const female = females.find((f) => f.id === femaleId) ?? females[0];
   const mode = breedingModeOf(female?.group ?? 'tarantula');
   const kind = mode.record ?? 'egg_sac';
-  const countField = kind === 'brood' && mode.words.count === 'Scorplings' ? ('slingCount' as const) : ('eggCount' as const);
+  const countField =
+    kind === 'brood' && mode.words.count === 'Scorplings'
+      ? ('slingCount' as const)
+      : ('eggCount' as const);
   return { female, mode, kind, countField };
 }
 
 /** A new sac, egg case or brood: its words and what is counted follow the chosen female's group. */
 function NewRecordForm({ collectionId, today, females }: Omit<Props, 'onSlings'>) {
   const { create } = useBreedingChanges(collectionId);
-  const { register, handleSubmit, setError, setValue, watch, formState } = useForm<NewRecordInput, unknown, NewRecordOutput>({
-    resolver: (values, context, options) => zodResolver(newRecordForm(recordFor(females, values.femaleId).countField))(values, context, options),
+  const { register, handleSubmit, setError, setValue, watch, formState } = useForm<
+    NewRecordInput,
+    unknown,
+    NewRecordOutput
+  >({
+    resolver: (values, context, options) =>
+      zodResolver(newRecordForm(recordFor(females, values.femaleId).countField))(
+        values,
+        context,
+        options,
+      ),
     defaultValues: { femaleId: females[0]?.id ?? '', laidOn: today, clutch: '', count: '' },
   });
   const { female, mode, kind, countField } = recordFor(females, watch('femaleId'));
@@ -143,24 +208,62 @@ function NewRecordForm({ collectionId, today, females }: Omit<Props, 'onSlings'>
   const submit = handleSubmit((v) =>
     attempt(async () => {
       if (!female) return;
-      await create.mutateAsync({ femaleId: female.id, laidOn: v.laidOn, clutch: v.clutch || undefined, ...(mode.words.count && v.count !== undefined ? { [countField]: v.count } : {}) });
+      await create.mutateAsync({
+        femaleId: female.id,
+        laidOn: v.laidOn,
+        clutch: v.clutch || undefined,
+        ...(mode.words.count && v.count !== undefined ? { [countField]: v.count } : {}),
+      });
       setValue('clutch', '');
       setValue('count', '');
     }),
   );
   return (
-    <form aria-labelledby="new-sac-heading" className="flex flex-col gap-2 rounded-2xl border-2 border-border p-3" onSubmit={submit}>
+    <form
+      aria-labelledby="new-sac-heading"
+      className="flex flex-col gap-2 rounded-2xl border-2 border-border p-3"
+      onSubmit={submit}
+    >
       <h2 id="new-sac-heading" className="text-xl font-extrabold">
         Record {A[kind]}
       </h2>
       {females.length ? (
-        <SelectField label="Female" error={e.femaleId?.message} options={females.map((f) => ({ value: f.id, label: `${f.name} (${f.labelCode})${f.group === 'tarantula' ? '' : ` · ${GROUP_LABEL[f.group]}`}` }))} {...register('femaleId')} />
+        <SelectField
+          label="Female"
+          error={e.femaleId?.message}
+          options={females.map((f) => ({
+            value: f.id,
+            label: `${f.name} (${f.labelCode})${f.group === 'tarantula' ? '' : ` · ${GROUP_LABEL[f.group]}`}`,
+          }))}
+          {...register('femaleId')}
+        />
       ) : (
-        <Notice tone="info" title="No female to choose yet. Sacs, egg cases and broods are recorded for animals recorded as female: tarantulas, true spiders, mantids, scorpions and centipedes." />
+        <Notice
+          tone="info"
+          title="No female to choose yet. Sacs, egg cases and broods are recorded for animals recorded as female: tarantulas, true spiders, mantids, scorpions and centipedes."
+        />
       )}
-      <TextField label={mode.words.startedOn} type="date" max={today} error={e.laidOn?.message} {...register('laidOn')} />
-      {mode.words.count && kind === 'brood' && <TextField label={mode.words.count} inputMode="numeric" error={e.count?.message} {...register('count')} />}
-      <TextField label="Clutch name" hint={`Its ${mode.words.young} share it. Empty: the female's name and the date.`} error={e.clutch?.message} {...register('clutch')} />
+      <TextField
+        label={mode.words.startedOn}
+        type="date"
+        max={today}
+        error={e.laidOn?.message}
+        {...register('laidOn')}
+      />
+      {mode.words.count && kind === 'brood' && (
+        <TextField
+          label={mode.words.count}
+          inputMode="numeric"
+          error={e.count?.message}
+          {...register('count')}
+        />
+      )}
+      <TextField
+        label="Clutch name"
+        hint={`Its ${mode.words.young} share it. Empty: the female's name and the date.`}
+        error={e.clutch?.message}
+        {...register('clutch')}
+      />
       <p className="text-sm text-muted">{howSheIsTreated(mode)}</p>
       {problem && <Notice tone="error" title={problem} />}
       <Button type="submit" disabled={!female} busy={formState.isSubmitting}>

@@ -17,22 +17,42 @@ import { withDb } from '@/lib/db';
 import { queryKeys } from '@/lib/query-keys';
 
 export const useCovers = (collectionId: string) =>
-  useQuery({ queryKey: queryKeys.cover.covers(collectionId), queryFn: () => apiRequest(`/collections/${collectionId}/covers`, { schema: coverListResponse }) });
+  useQuery({
+    queryKey: queryKeys.cover.covers(collectionId),
+    queryFn: () => apiRequest(`/collections/${collectionId}/covers`, { schema: coverListResponse }),
+  });
 
 export function useCoverChanges(collectionId: string) {
   const queryClient = useQueryClient();
-  const refresh = () => queryClient.invalidateQueries({ queryKey: queryKeys.cover.covers(collectionId) });
+  const refresh = () =>
+    queryClient.invalidateQueries({ queryKey: queryKeys.cover.covers(collectionId) });
   return {
-    create: useMutation({ mutationFn: (body: CoverBody) => apiRequest(`/collections/${collectionId}/covers`, { method: 'POST', body, schema: createdResponse }), onSuccess: refresh }),
+    create: useMutation({
+      mutationFn: (body: CoverBody) =>
+        apiRequest(`/collections/${collectionId}/covers`, {
+          method: 'POST',
+          body,
+          schema: createdResponse,
+        }),
+      onSuccess: refresh,
+    }),
     end: useMutation({
-      mutationFn: (coverId: string) => apiRequest(`/collections/${collectionId}/covers/${coverId}/end`, { method: 'POST', schema: coverListResponse }),
+      mutationFn: (coverId: string) =>
+        apiRequest(`/collections/${collectionId}/covers/${coverId}/end`, {
+          method: 'POST',
+          schema: coverListResponse,
+        }),
       onSuccess: refresh,
     }),
   };
 }
 
 export const useHandover = (collectionId: string) =>
-  useQuery({ queryKey: queryKeys.cover.handover(collectionId), queryFn: () => apiRequest(`/collections/${collectionId}/handover`, { schema: handoverResponse }) });
+  useQuery({
+    queryKey: queryKeys.cover.handover(collectionId),
+    queryFn: () =>
+      apiRequest(`/collections/${collectionId}/handover`, { schema: handoverResponse }),
+  });
 
 export function useHandoverChanges(collectionId: string) {
   const queryClient = useQueryClient();
@@ -43,14 +63,30 @@ export function useHandoverChanges(collectionId: string) {
     ]);
   const base = `/collections/${collectionId}/handover`;
   return {
-    general: useMutation({ mutationFn: (text: string) => apiRequest(`${base}/general`, { method: 'PUT', body: { text }, schema: noContent }), onSuccess: refresh }),
-    add: useMutation({ mutationFn: (body: HandoverNoteBody) => apiRequest(`${base}/notes`, { method: 'POST', body, schema: createdResponse }), onSuccess: refresh }),
-    remove: useMutation({ mutationFn: (noteId: string) => apiRequest(`${base}/notes/${noteId}`, { method: 'DELETE', schema: noContent }), onSuccess: refresh }),
+    general: useMutation({
+      mutationFn: (text: string) =>
+        apiRequest(`${base}/general`, { method: 'PUT', body: { text }, schema: noContent }),
+      onSuccess: refresh,
+    }),
+    add: useMutation({
+      mutationFn: (body: HandoverNoteBody) =>
+        apiRequest(`${base}/notes`, { method: 'POST', body, schema: createdResponse }),
+      onSuccess: refresh,
+    }),
+    remove: useMutation({
+      mutationFn: (noteId: string) =>
+        apiRequest(`${base}/notes/${noteId}`, { method: 'DELETE', schema: noContent }),
+      onSuccess: refresh,
+    }),
   };
 }
 
 export const useCoverReports = (collectionId: string) =>
-  useQuery({ queryKey: queryKeys.cover.reports(collectionId), queryFn: () => apiRequest(`/collections/${collectionId}/cover-reports`, { schema: coverReportsResponse }) });
+  useQuery({
+    queryKey: queryKeys.cover.reports(collectionId),
+    queryFn: () =>
+      apiRequest(`/collections/${collectionId}/cover-reports`, { schema: coverReportsResponse }),
+  });
 
 /**
  * The helper's cover, local first like the round: the phone keeps the last copy, so the notes,
@@ -63,12 +99,15 @@ export function useHelperCover(collectionId: string, userId: string) {
     networkMode: 'always',
     queryFn: async () => {
       try {
-        const view = await apiRequest(`/collections/${collectionId}/cover/mine`, { schema: helperCoverView });
+        const view = await apiRequest(`/collections/${collectionId}/cover/mine`, {
+          schema: helperCoverView,
+        });
         void withDb((db) => db.put('meta', view, key)).catch(() => undefined);
         return view;
       } catch (err) {
         if (!(err instanceof ApiError) || err.status !== 0) throw err;
-        const cached = (await withDb((db) => db.get('meta', key)).catch(() => undefined)) as HelperCoverView | undefined;
+        const cached = (await withDb((db) => db.get('meta', key)).catch(() => undefined)) as
+          HelperCoverView | undefined;
         if (!cached) throw err;
         return cached;
       }
@@ -79,18 +118,28 @@ export function useHelperCover(collectionId: string, userId: string) {
 export function useAcknowledgeSafety(collectionId: string, userId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: () => apiRequest(`/collections/${collectionId}/cover/mine/acknowledge`, { method: 'POST', schema: noContent }),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.cover.mine(collectionId, userId) }),
+    mutationFn: () =>
+      apiRequest(`/collections/${collectionId}/cover/mine/acknowledge`, {
+        method: 'POST',
+        schema: noContent,
+      }),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: queryKeys.cover.mine(collectionId, userId) }),
   });
 }
 
-export const leaveCover = (collectionId: string) => apiRequest(`/collections/${collectionId}/cover/mine`, { method: 'DELETE', schema: noContent });
+export const leaveCover = (collectionId: string) =>
+  apiRequest(`/collections/${collectionId}/cover/mine`, { method: 'DELETE', schema: noContent });
 
 export const useInvitePreview = (token: string) =>
   useQuery({
     queryKey: queryKeys.cover.invite(token),
-    queryFn: () => apiRequest(`/cover-invites/preview?token=${encodeURIComponent(token)}`, { schema: invitePreview }),
+    queryFn: () =>
+      apiRequest(`/cover-invites/preview?token=${encodeURIComponent(token)}`, {
+        schema: invitePreview,
+      }),
     retry: false,
   });
 
-export const acceptInvite = (body: AcceptBody) => apiRequest('/cover-invites/accept', { method: 'POST', body, schema: acceptResponse });
+export const acceptInvite = (body: AcceptBody) =>
+  apiRequest('/cover-invites/accept', { method: 'POST', body, schema: acceptResponse });

@@ -34,7 +34,10 @@ export function AcceptInvite({ token, me, onAccepted }: Props) {
     defaultValues: { account: { displayName: '', password: '' } },
   });
   const { problem, attempt } = useServerProblem(setError);
-  const [tap, setTap] = useState<{ busy: boolean; error: string | null }>({ busy: false, error: null });
+  const [tap, setTap] = useState<{ busy: boolean; error: string | null }>({
+    busy: false,
+    error: null,
+  });
   if (preview.isPending) return <Loading />;
   if (preview.isError) return <Notice tone="error" title={preview.error.message} />;
   const p = preview.data;
@@ -63,18 +66,22 @@ export function AcceptInvite({ token, me, onAccepted }: Props) {
         <>
           <h2 className="text-2xl font-extrabold">Keep {p.collectionName}</h2>
           <p>
-            {p.invitedBy ?? 'Its owner'} invites {p.email} to keep this collection with them: its rounds, its animals’ records and their labels.
+            {p.invitedBy ?? 'Its owner'} invites {p.email} to keep this collection with them: its
+            rounds, its animals’ records and their labels.
           </p>
         </>
       ) : (
         <>
           <h2 className="text-2xl font-extrabold">Cover the feeds at {p.collectionName}</h2>
           <p>
-            From <span className="font-bold">{p.firstDay}</span> to <span className="font-bold">{p.lastDay}</span>, for {p.email}.
+            From <span className="font-bold">{p.firstDay}</span> to{' '}
+            <span className="font-bold">{p.lastDay}</span>, for {p.email}.
           </p>
         </>
       )}
-      {p.message && <p className="whitespace-pre-line rounded-xl border-2 border-border p-2">{p.message}</p>}
+      {p.message && (
+        <p className="whitespace-pre-line rounded-xl border-2 border-border p-2">{p.message}</p>
+      )}
       {error && <Notice tone="error" title={error} />}
       {p.hasAccount ? (
         signedInAsInvited ? (
@@ -83,17 +90,39 @@ export function AcceptInvite({ token, me, onAccepted }: Props) {
           </Button>
         ) : (
           <>
-            <p>You already have a Rackside account with this e-mail. Sign in as {p.email}, then come back to this link.</p>
-            <Link to="/sign-in" state={{ from: `${keeper ? '/join' : '/cover/accept'}?token=${token}` }} className="inline-flex min-h-target items-center justify-center rounded-xl border-2 border-primary bg-primary px-4 text-lg font-bold text-on-primary">
+            <p>
+              You already have a Rackside account with this e-mail. Sign in as {p.email}, then come
+              back to this link.
+            </p>
+            <Link
+              to="/sign-in"
+              state={{ from: `${keeper ? '/join' : '/cover/accept'}?token=${token}` }}
+              className="inline-flex min-h-target items-center justify-center rounded-xl border-2 border-primary bg-primary px-4 text-lg font-bold text-on-primary"
+            >
               Sign in
             </Link>
           </>
         )
       ) : (
         <form className="flex flex-col gap-3" onSubmit={submit}>
-          <p>{keeper ? 'Make your account to join this collection.' : 'Make your account: it works only for these days in this collection.'}</p>
-          <TextField label="Your name" autoComplete="name" error={formState.errors.account?.displayName?.message} {...register('account.displayName')} />
-          <PasswordField label="Password" autoComplete="new-password" hint={`At least ${PASSWORD_MIN_CHARS} characters. A few words you will remember work well.`} error={formState.errors.account?.password?.message} {...register('account.password')} />
+          <p>
+            {keeper
+              ? 'Make your account to join this collection.'
+              : 'Make your account: it works only for these days in this collection.'}
+          </p>
+          <TextField
+            label="Your name"
+            autoComplete="name"
+            error={formState.errors.account?.displayName?.message}
+            {...register('account.displayName')}
+          />
+          <PasswordField
+            label="Password"
+            autoComplete="new-password"
+            hint={`At least ${PASSWORD_MIN_CHARS} characters. A few words you will remember work well.`}
+            error={formState.errors.account?.password?.message}
+            {...register('account.password')}
+          />
           <Button type="submit" busy={formState.isSubmitting}>
             {action}
           </Button>

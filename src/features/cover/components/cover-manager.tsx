@@ -10,7 +10,12 @@ import { TextField } from '@/components/ui/text-field';
 import { useServerProblem } from '@/lib/form-errors';
 import { useCoverChanges, useCovers } from '../api/cover-api';
 
-const STATE_WORDS: Record<CoverSummary['state'], string> = { invited: 'Invited', upcoming: 'Starts soon', running: 'Running now', ended: 'Ended' };
+const STATE_WORDS: Record<CoverSummary['state'], string> = {
+  invited: 'Invited',
+  upcoming: 'Starts soon',
+  running: 'Running now',
+  ended: 'Ended',
+};
 
 type Input = z.input<typeof coverBody>;
 type Output = z.output<typeof coverBody>;
@@ -19,10 +24,12 @@ type Output = z.output<typeof coverBody>;
 export function CoverManager({ collectionId, today }: { collectionId: string; today: string }) {
   const covers = useCovers(collectionId);
   const change = useCoverChanges(collectionId);
-  const { register, handleSubmit, setError, setValue, formState } = useForm<Input, unknown, Output>({
-    resolver: zodResolver(coverBody),
-    defaultValues: { email: '', firstDay: today, lastDay: today, message: '' },
-  });
+  const { register, handleSubmit, setError, setValue, formState } = useForm<Input, unknown, Output>(
+    {
+      resolver: zodResolver(coverBody),
+      defaultValues: { email: '', firstDay: today, lastDay: today, message: '' },
+    },
+  );
   const { problem, attempt } = useServerProblem(setError);
   const [sent, setSent] = useState<string | null>(null);
   const e = formState.errors;
@@ -39,14 +46,38 @@ export function CoverManager({ collectionId, today }: { collectionId: string; to
   );
   return (
     <div className="flex flex-col gap-4">
-      <form className="flex flex-col gap-3 rounded-2xl border-2 border-border p-3" onSubmit={submit}>
+      <form
+        className="flex flex-col gap-3 rounded-2xl border-2 border-border p-3"
+        onSubmit={submit}
+      >
         <h2 className="text-xl font-extrabold">Ask someone to cover</h2>
-        <TextField label="Their e-mail" type="email" autoComplete="off" error={e.email?.message} {...register('email')} />
+        <TextField
+          label="Their e-mail"
+          type="email"
+          autoComplete="off"
+          error={e.email?.message}
+          {...register('email')}
+        />
         <div className="grid grid-cols-2 gap-2">
-          <TextField label="First day" type="date" error={e.firstDay?.message} {...register('firstDay')} />
-          <TextField label="Last day" type="date" error={e.lastDay?.message} {...register('lastDay')} />
+          <TextField
+            label="First day"
+            type="date"
+            error={e.firstDay?.message}
+            {...register('firstDay')}
+          />
+          <TextField
+            label="Last day"
+            type="date"
+            error={e.lastDay?.message}
+            {...register('lastDay')}
+          />
         </div>
-        <TextField label="Message" hint="Shown in the e-mail and on their round." error={e.message?.message} {...register('message')} />
+        <TextField
+          label="Message"
+          hint="Shown in the e-mail and on their round."
+          error={e.message?.message}
+          {...register('message')}
+        />
         {problem && <Notice tone="error" title={problem} />}
         {sent && <Notice tone="ok" title={`Invite sent to ${sent}.`} />}
         <Button type="submit" busy={formState.isSubmitting}>
@@ -57,7 +88,10 @@ export function CoverManager({ collectionId, today }: { collectionId: string; to
       {covers.isError && <Notice tone="error" title={covers.error.message} />}
       <ul aria-label="Covers" className="flex flex-col gap-2">
         {covers.data?.covers.map((c) => (
-          <li key={c.id} className="flex flex-col gap-1 rounded-2xl border-2 border-border bg-surface p-3">
+          <li
+            key={c.id}
+            className="flex flex-col gap-1 rounded-2xl border-2 border-border bg-surface p-3"
+          >
             <p className="font-extrabold">
               {c.helperName ?? c.email} · {STATE_WORDS[c.state]}
               {c.inviteExpired && ' (link expired)'}
@@ -67,7 +101,11 @@ export function CoverManager({ collectionId, today }: { collectionId: string; to
               {c.safetyAcknowledgedAt ? ' · safety page read' : ''}
             </p>
             {c.state !== 'ended' && (
-              <Button variant="danger" onClick={() => change.end.mutate(c.id)} busy={change.end.isPending && change.end.variables === c.id}>
+              <Button
+                variant="danger"
+                onClick={() => change.end.mutate(c.id)}
+                busy={change.end.isPending && change.end.variables === c.id}
+              >
                 End this cover now
               </Button>
             )}

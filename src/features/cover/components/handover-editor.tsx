@@ -13,22 +13,43 @@ import { useHandover, useHandoverChanges } from '../api/cover-api';
 type Animals = readonly { id: string; name: string; labelCode: string }[];
 
 /** The general note for whoever covers, and notes about single animals until a date. */
-export function HandoverEditor({ collectionId, animals, today }: { collectionId: string; animals: Animals; today: string }) {
+export function HandoverEditor({
+  collectionId,
+  animals,
+  today,
+}: {
+  collectionId: string;
+  animals: Animals;
+  today: string;
+}) {
   const handover = useHandover(collectionId);
   const change = useHandoverChanges(collectionId);
   return (
     <div className="flex flex-col gap-4">
-      {handover.data && <GeneralNoteForm key={handover.data.generalNote ?? ''} initial={handover.data.generalNote ?? ''} save={change.general} />}
+      {handover.data && (
+        <GeneralNoteForm
+          key={handover.data.generalNote ?? ''}
+          initial={handover.data.generalNote ?? ''}
+          save={change.general}
+        />
+      )}
       <AnimalNoteForm animals={animals} today={today} add={change.add} />
       {change.remove.error && <Notice tone="error" title={change.remove.error.message} />}
       <ul aria-label="Notes about animals" className="flex flex-col gap-2">
         {handover.data?.notes.map((n) => (
-          <li key={n.id} className="flex items-center gap-2 rounded-xl border-2 border-border bg-surface p-2">
+          <li
+            key={n.id}
+            className="flex items-center gap-2 rounded-xl border-2 border-border bg-surface p-2"
+          >
             <span className="flex-1">
               <span className="font-bold">{n.animalName}</span> until {n.until}
               {n.doNotFeed && ' · do not feed'}: {n.text}
             </span>
-            <Button variant="danger" aria-label={`Remove the note about ${n.animalName}`} onClick={() => change.remove.mutate(n.id)}>
+            <Button
+              variant="danger"
+              aria-label={`Remove the note about ${n.animalName}`}
+              onClick={() => change.remove.mutate(n.id)}
+            >
               ✕
             </Button>
           </li>
@@ -42,8 +63,20 @@ type Changes = ReturnType<typeof useHandoverChanges>;
 type NoteInput = z.input<typeof handoverNoteBody>;
 type NoteOutput = z.output<typeof handoverNoteBody>;
 
-function AnimalNoteForm({ animals, today, add }: { animals: Animals; today: string; add: Changes['add'] }) {
-  const { register, handleSubmit, setError, setValue, watch, formState } = useForm<NoteInput, unknown, NoteOutput>({
+function AnimalNoteForm({
+  animals,
+  today,
+  add,
+}: {
+  animals: Animals;
+  today: string;
+  add: Changes['add'];
+}) {
+  const { register, handleSubmit, setError, setValue, watch, formState } = useForm<
+    NoteInput,
+    unknown,
+    NoteOutput
+  >({
     resolver: zodResolver(handoverNoteBody),
     defaultValues: { animalId: '', text: '', until: today, doNotFeed: false },
   });
@@ -59,15 +92,31 @@ function AnimalNoteForm({ animals, today, add }: { animals: Animals; today: stri
   return (
     <form className="flex flex-col gap-2 rounded-2xl border-2 border-border p-3" onSubmit={submit}>
       <h2 className="text-xl font-extrabold">A note about one animal</h2>
-      <SelectField label="Animal" error={e.animalId?.message} options={[{ value: '', label: 'Choose…' }, ...animals.map((a) => ({ value: a.id, label: `${a.name} (${a.labelCode})` }))]} {...register('animalId')} />
+      <SelectField
+        label="Animal"
+        error={e.animalId?.message}
+        options={[
+          { value: '', label: 'Choose…' },
+          ...animals.map((a) => ({ value: a.id, label: `${a.name} (${a.labelCode})` })),
+        ]}
+        {...register('animalId')}
+      />
       <TextField label="Note" error={e.text?.message} {...register('text')} />
       <TextField label="Show until" type="date" error={e.until?.message} {...register('until')} />
       <label className="flex min-h-target cursor-pointer items-center gap-3">
-        <input type="checkbox" className="size-6 accent-[var(--c-primary)]" {...register('doNotFeed')} />
+        <input
+          type="checkbox"
+          className="size-6 accent-[var(--c-primary)]"
+          {...register('doNotFeed')}
+        />
         Do not feed until then (e.g. premolt)
       </label>
       {problem && <Notice tone="error" title={problem} />}
-      <Button type="submit" disabled={!watch('animalId') || !watch('text').trim()} busy={formState.isSubmitting}>
+      <Button
+        type="submit"
+        disabled={!watch('animalId') || !watch('text').trim()}
+        busy={formState.isSubmitting}
+      >
         Add the note
       </Button>
     </form>
@@ -78,7 +127,11 @@ type GeneralInput = z.input<typeof generalNoteBody>;
 type GeneralOutput = z.output<typeof generalNoteBody>;
 
 function GeneralNoteForm({ initial, save }: { initial: string; save: Changes['general'] }) {
-  const { register, handleSubmit, setError, formState } = useForm<GeneralInput, unknown, GeneralOutput>({
+  const { register, handleSubmit, setError, formState } = useForm<
+    GeneralInput,
+    unknown,
+    GeneralOutput
+  >({
     resolver: zodResolver(generalNoteBody),
     defaultValues: { text: initial },
   });

@@ -5,23 +5,37 @@ import type { HelperCoverView } from '#shared/schemas/cover';
 import type { RoundItemView } from '#shared/schemas/rounds';
 
 /** On each item of a helper's round: the cautions spelled out, the keeper's notes, how, and the last two weeks. */
-export function HelperItemExtras({ item, cover, timeZone }: { item: RoundItemView; cover: HelperCoverView; timeZone: string }) {
+export function HelperItemExtras({
+  item,
+  cover,
+  timeZone,
+}: {
+  item: RoundItemView;
+  cover: HelperCoverView;
+  timeZone: string;
+}) {
   const notes = cover.notes.filter((n) => n.animalId === item.animal.id);
   const recent = cover.recent[item.animal.id] ?? [];
   return (
     <div className="flex flex-col gap-2">
       {item.animal.cautions.map((c) => (
         <p key={c} role="note" className="rounded-xl border-4 border-danger px-2 py-1 text-danger">
-          <span className="font-extrabold">{CAUTION_GUIDANCE[c].title}.</span> {CAUTION_GUIDANCE[c].text}
+          <span className="font-extrabold">{CAUTION_GUIDANCE[c].title}.</span>{' '}
+          {CAUTION_GUIDANCE[c].text}
         </p>
       ))}
       {notes.map((n) => (
         <p key={n.id} className="rounded-xl border-2 border-accent px-2 py-1">
-          <span className="font-extrabold">Keeper’s note{n.doNotFeed ? ' · do not feed' : ''}:</span> {n.text}
+          <span className="font-extrabold">
+            Keeper’s note{n.doNotFeed ? ' · do not feed' : ''}:
+          </span>{' '}
+          {n.text}
         </p>
       ))}
       <details className="rounded-xl border-2 border-border px-2">
-        <summary className="flex min-h-target cursor-pointer items-center font-bold">How to do this</summary>
+        <summary className="flex min-h-target cursor-pointer items-center font-bold">
+          How to do this
+        </summary>
         <ul className="flex flex-col gap-1 pb-2">
           {item.tasks.map((t) => (
             <li key={t.kind}>{TASK_HOW[t.kind]}</li>
@@ -30,7 +44,9 @@ export function HelperItemExtras({ item, cover, timeZone }: { item: RoundItemVie
       </details>
       {recent.length > 0 && (
         <details className="rounded-xl border-2 border-border px-2">
-          <summary className="flex min-h-target cursor-pointer items-center font-bold">Last 14 days ({recent.length})</summary>
+          <summary className="flex min-h-target cursor-pointer items-center font-bold">
+            Last 14 days ({recent.length})
+          </summary>
           <ul className="pb-2 text-sm">
             {recent.map((r, i) => (
               <li key={i}>

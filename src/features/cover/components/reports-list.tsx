@@ -7,13 +7,16 @@ export function ReportsList({ collectionId }: { collectionId: string }) {
   const reports = useCoverReports(collectionId);
   if (reports.isPending) return <Loading />;
   if (reports.isError) return <Notice tone="error" title={reports.error.message} />;
-  if (!reports.data.reports.length) return <p className="text-muted">No reports yet: one comes after each covered day.</p>;
+  if (!reports.data.reports.length)
+    return <p className="text-muted">No reports yet: one comes after each covered day.</p>;
   return (
     <ul aria-label="Cover reports" className="flex flex-col gap-2">
       {reports.data.reports.map((r) => (
         <li key={r.localDate}>
           <details className="rounded-2xl border-2 border-border bg-surface p-2">
-            <summary className="flex min-h-target cursor-pointer items-center font-bold">{r.subject}</summary>
+            <summary className="flex min-h-target cursor-pointer items-center font-bold">
+              {r.subject}
+            </summary>
             <pre className="whitespace-pre-wrap font-sans">{r.body}</pre>
           </details>
         </li>

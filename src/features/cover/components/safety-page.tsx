@@ -5,13 +5,26 @@ import { CautionIcon } from '@/components/ui/icons';
 import { Notice } from '@/components/ui/notice';
 
 /** Read once per cover, before the first round: what can hurt you here, and what to do. */
-export function SafetyPage({ cautions, onAcknowledge, busy, error }: { cautions: readonly Caution[]; onAcknowledge: () => void; busy: boolean; error: string | null }) {
+export function SafetyPage({
+  cautions,
+  onAcknowledge,
+  busy,
+  error,
+}: {
+  cautions: readonly Caution[];
+  onAcknowledge: () => void;
+  busy: boolean;
+  error: string | null;
+}) {
   return (
     <section aria-labelledby="safety-heading" className="flex flex-col gap-3">
       <h1 id="safety-heading" className="text-3xl font-extrabold">
         Before your first round
       </h1>
-      <p>Some animals on this round can hurt you. Read this once; the round shows the same warnings on each animal.</p>
+      <p>
+        Some animals on this round can hurt you. Read this once; the round shows the same warnings
+        on each animal.
+      </p>
       {cautions.map((c) => (
         <div key={c} className="flex gap-3 rounded-2xl border-4 border-danger bg-surface p-3">
           <CautionIcon caution={c} width={36} height={36} className="shrink-0 text-danger" />

@@ -7,5 +7,11 @@ export type DevMail = DevMailResponse['messages'][number];
 export type MailScope = DevMailResponse['scope'];
 
 export const listMail = () => apiRequest('/dev/mail', { schema: devMailResponse });
-export const mailQueryOptions = () => queryOptions({ queryKey: queryKeys.devMail(), queryFn: listMail, refetchInterval: 5000, retry: false });
+export const mailQueryOptions = () =>
+  queryOptions({
+    queryKey: queryKeys.devMail(),
+    queryFn: listMail,
+    refetchInterval: 5000,
+    retry: false,
+  });
 export const useMail = () => useQuery(mailQueryOptions());

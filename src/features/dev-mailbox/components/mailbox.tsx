@@ -39,14 +39,37 @@ export function Mailbox() {
   if (mail.isPending) return <Loading label="Opening the mailbox…" />;
   if (mail.isError) {
     // From another device the server says who may read it (a signed-in owner, their own mail).
-    const refused = mail.error instanceof ApiError && (mail.error.status === 401 || mail.error.status === 403);
-    return <Notice tone="info" title={refused ? mail.error.message : 'The local mailbox is only there in demo and development mode.'} />;
+    const refused =
+      mail.error instanceof ApiError && (mail.error.status === 401 || mail.error.status === 403);
+    return (
+      <Notice
+        tone="info"
+        title={
+          refused
+            ? mail.error.message
+            : 'The local mailbox is only there in demo and development mode.'
+        }
+      />
+    );
   }
   const mine = mail.data.scope === 'mine';
-  if (!mail.data.messages.length) return <Notice tone="info" title={mine ? 'No e-mail to you yet.' : 'No e-mail yet. Messages the app sends appear here.'} />;
+  if (!mail.data.messages.length)
+    return (
+      <Notice
+        tone="info"
+        title={
+          mine ? 'No e-mail to you yet.' : 'No e-mail yet. Messages the app sends appear here.'
+        }
+      />
+    );
   return (
     <div className="flex flex-col gap-3">
-      {mine && <Notice tone="info" title="From this device you see only the e-mail sent to you. The computer running Rackside shows all of it." />}
+      {mine && (
+        <Notice
+          tone="info"
+          title="From this device you see only the e-mail sent to you. The computer running Rackside shows all of it."
+        />
+      )}
       {mail.data.messages.map((m) => (
         <Message key={m.id} mail={m} />
       ))}

@@ -5,10 +5,17 @@ import { queryKeys } from '@/lib/query-keys';
 
 /** A new label code for a lost or damaged label; the old code stops opening the animal. */
 export const relabel = (collectionId: string, animalId: string) =>
-  apiRequest(`/collections/${collectionId}/animals/${animalId}/relabel`, { method: 'POST', schema: relabelResponse });
+  apiRequest(`/collections/${collectionId}/animals/${animalId}/relabel`, {
+    method: 'POST',
+    schema: relabelResponse,
+  });
 
 /** The lists and the rounds show label codes, so both are read again. */
-export function useRelabel(collectionId: string, animalId: string, onRelabelled: (labelCode: string) => void) {
+export function useRelabel(
+  collectionId: string,
+  animalId: string,
+  onRelabelled: (labelCode: string) => void,
+) {
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: () => relabel(collectionId, animalId),

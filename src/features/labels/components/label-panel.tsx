@@ -14,17 +14,35 @@ export function LabelPanel({ collectionId, animal }: Props) {
   const [confirming, setConfirming] = useState(false);
   const relabel = useRelabel(collectionId, animal.id, () => setConfirming(false));
   return (
-    <section aria-labelledby="label-heading" className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
+    <section
+      aria-labelledby="label-heading"
+      className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3"
+    >
       <h2 id="label-heading" className="text-xl font-extrabold">
         Label <span className="font-mono tracking-wider">{animal.labelCode}</span>
       </h2>
-      <p className="text-sm text-muted">The code stays the same when {animal.name} moves. A new code is only for a lost or damaged label.</p>
-      <Link to="/labels" state={{ animalIds: [animal.id] }} className="inline-flex min-h-target items-center justify-center rounded-xl border-2 border-border px-4 text-lg font-bold">
+      <p className="text-sm text-muted">
+        The code stays the same when {animal.name} moves. A new code is only for a lost or damaged
+        label.
+      </p>
+      <Link
+        to="/labels"
+        state={{ animalIds: [animal.id] }}
+        className="inline-flex min-h-target items-center justify-center rounded-xl border-2 border-border px-4 text-lg font-bold"
+      >
         Print this label
       </Link>
-      {relabel.isSuccess && <Notice tone="ok" title={`New code ${relabel.data.labelCode}. Print the new label; the old one no longer opens ${animal.name}.`} />}
+      {relabel.isSuccess && (
+        <Notice
+          tone="ok"
+          title={`New code ${relabel.data.labelCode}. Print the new label; the old one no longer opens ${animal.name}.`}
+        />
+      )}
       {confirming ? (
-        <Notice tone="warning" title={`Give ${animal.name} a new code? The old label will stop working.`}>
+        <Notice
+          tone="warning"
+          title={`Give ${animal.name} a new code? The old label will stop working.`}
+        >
           <div className="mt-2 flex flex-wrap gap-2">
             <Button busy={relabel.isPending} onClick={() => relabel.mutate()}>
               Make a new code

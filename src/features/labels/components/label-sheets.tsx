@@ -1,6 +1,12 @@
 import type { CSSProperties } from 'react';
 import type { LabelContent } from '#shared/domain/labels/label-content';
-import { CUT_LINE_OFFSET_MM, CUT_LINE_WIDTH_MM, placeLabels, RULER_LENGTH_MM, type SheetLayout } from '#shared/domain/labels/sheet-layout';
+import {
+  CUT_LINE_OFFSET_MM,
+  CUT_LINE_WIDTH_MM,
+  placeLabels,
+  RULER_LENGTH_MM,
+  type SheetLayout,
+} from '#shared/domain/labels/sheet-layout';
 import { PrintedLabel } from './printed-label';
 
 const mm = (n: number) => `${n}mm`;
@@ -13,15 +19,50 @@ function Ruler({ sheet, page, pages }: { sheet: SheetLayout; page: number; pages
   const y = sheet.ruler.y - sheet.printArea.y;
   const ticks = Array.from({ length: RULER_LENGTH_MM + 1 }, (_, i) => i);
   return (
-    <div style={{ position: 'absolute', left: mm(x), top: mm(y - 3), width: mm(sheet.printable.widthMm), height: mm(5) }}>
-      <svg viewBox={`0 0 ${lengthMm} 3.2`} style={{ position: 'absolute', left: 0, top: 0, width: mm(lengthMm), height: mm(3.2), overflow: 'visible' }} aria-hidden="true">
+    <div
+      style={{
+        position: 'absolute',
+        left: mm(x),
+        top: mm(y - 3),
+        width: mm(sheet.printable.widthMm),
+        height: mm(5),
+      }}
+    >
+      <svg
+        viewBox={`0 0 ${lengthMm} 3.2`}
+        style={{
+          position: 'absolute',
+          left: 0,
+          top: 0,
+          width: mm(lengthMm),
+          height: mm(3.2),
+          overflow: 'visible',
+        }}
+        aria-hidden="true"
+      >
         <path d={`M0 3H${lengthMm}`} stroke="#000" strokeWidth={0.18} />
         {ticks.map((t) => (
-          <path key={t} d={`M${t} 3V${3 - (t % 10 === 0 ? 3 : t % 5 === 0 ? 2 : 1)}`} stroke="#000" strokeWidth={0.18} />
+          <path
+            key={t}
+            d={`M${t} 3V${3 - (t % 10 === 0 ? 3 : t % 5 === 0 ? 2 : 1)}`}
+            stroke="#000"
+            strokeWidth={0.18}
+          />
         ))}
       </svg>
-      <p style={{ position: 'absolute', left: mm(lengthMm + 3), top: 0, margin: 0, fontSize: mm(2.5), lineHeight: 1.2, whiteSpace: 'nowrap' }}>
-        {RULER_LENGTH_MM} mm scale: if it measures otherwise, print at actual size (100 %). Sheet {page} of {pages}.
+      <p
+        style={{
+          position: 'absolute',
+          left: mm(lengthMm + 3),
+          top: 0,
+          margin: 0,
+          fontSize: mm(2.5),
+          lineHeight: 1.2,
+          whiteSpace: 'nowrap',
+        }}
+      >
+        {RULER_LENGTH_MM} mm scale: if it measures otherwise, print at actual size (100 %). Sheet{' '}
+        {page} of {pages}.
       </p>
     </div>
   );
@@ -62,14 +103,26 @@ export function LabelSheets({ labels, sheet, start, showUsedCells = false }: Pro
   return (
     <>
       {byPage.map((list, p) => (
-        <section key={p} className="label-sheet" aria-label={`Sheet ${p + 1} of ${pages}`} style={page}>
+        <section
+          key={p}
+          className="label-sheet"
+          aria-label={`Sheet ${p + 1} of ${pages}`}
+          style={page}
+        >
           {showUsedCells &&
             p === 0 &&
             sheet.cells.slice(0, Math.max(0, start - 1)).map((c, i) => (
               <div
                 key={`used-${i}`}
                 className="print:hidden"
-                style={{ position: 'absolute', left: mm(c.x - ox), top: mm(c.y - oy), width: mm(sheet.label.widthMm), height: mm(sheet.label.heightMm), background: 'repeating-linear-gradient(45deg, #ddd 0 2mm, #fff 2mm 4mm)' }}
+                style={{
+                  position: 'absolute',
+                  left: mm(c.x - ox),
+                  top: mm(c.y - oy),
+                  width: mm(sheet.label.widthMm),
+                  height: mm(sheet.label.heightMm),
+                  background: 'repeating-linear-gradient(45deg, #ddd 0 2mm, #fff 2mm 4mm)',
+                }}
               />
             ))}
           {list.map(({ label, cell }) => {

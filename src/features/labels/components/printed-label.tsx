@@ -4,8 +4,18 @@ import { qrPath } from '#shared/domain/labels/qr-symbol';
 import { CautionIcon } from '@/components/ui/icons';
 
 const mm = (n: number) => `${n}mm`;
-const at = (x: number, y: number, w: number, h: number): CSSProperties => ({ position: 'absolute', left: mm(x), top: mm(y), width: mm(w), height: mm(h) });
-const ELLIPSIS: CSSProperties = { whiteSpace: 'nowrap', overflow: 'hidden', textOverflow: 'ellipsis' };
+const at = (x: number, y: number, w: number, h: number): CSSProperties => ({
+  position: 'absolute',
+  left: mm(x),
+  top: mm(y),
+  width: mm(w),
+  height: mm(h),
+});
+const ELLIPSIS: CSSProperties = {
+  whiteSpace: 'nowrap',
+  overflow: 'hidden',
+  textOverflow: 'ellipsis',
+};
 
 function Cautions({ label, sizeMm }: { label: LabelContent; sizeMm: number }) {
   return (
@@ -45,7 +55,10 @@ export const PrintedLabel = memo(function PrintedLabel({ label }: { label: Label
         }
         const words = line.field === 'code' ? label.code : label[line.field];
         return (
-          <div key={line.field} style={{ ...box, display: 'flex', alignItems: 'flex-start', gap: mm(0.6) }}>
+          <div
+            key={line.field}
+            style={{ ...box, display: 'flex', alignItems: 'flex-start', gap: mm(0.6) }}
+          >
             <span
               lang={line.field === 'scientificName' ? 'la' : undefined}
               style={{
@@ -60,7 +73,9 @@ export const PrintedLabel = memo(function PrintedLabel({ label }: { label: Label
             >
               {words}
             </span>
-            {line.field === 'code' && layout.cautionsBesideCode && <Cautions label={label} sizeMm={line.sizeMm} />}
+            {line.field === 'code' && layout.cautionsBesideCode && (
+              <Cautions label={label} sizeMm={line.sizeMm} />
+            )}
           </div>
         );
       })}

@@ -18,12 +18,20 @@ type Input = z.input<typeof inviteForm>;
 type Output = z.output<typeof inviteForm>;
 
 /** The owner's list of who keeps the collection, with invites by e-mail (accepted, never imposed). */
-export function MembersPanel({ collectionId, ownUserId }: { collectionId: string; ownUserId: string }) {
+export function MembersPanel({
+  collectionId,
+  ownUserId,
+}: {
+  collectionId: string;
+  ownUserId: string;
+}) {
   const list = useMembers(collectionId);
   const invite = useInviteMember(collectionId);
   const remove = useRemoveMember(collectionId);
   const [removing, setRemoving] = useState<string | null>(null);
-  const { register, handleSubmit, setError, formState, reset } = useForm<Input, unknown, Output>({ resolver: zodResolver(inviteForm) });
+  const { register, handleSubmit, setError, formState, reset } = useForm<Input, unknown, Output>({
+    resolver: zodResolver(inviteForm),
+  });
   const { problem, attempt } = useServerProblem(setError);
   const submit = handleSubmit((values) =>
     attempt(async () => {
@@ -43,14 +51,24 @@ export function MembersPanel({ collectionId, ownUserId }: { collectionId: string
       ) : (
         <ul className="flex flex-col gap-2">
           {list.data.members.map((m) => (
-            <li key={m.userId} className="flex flex-col gap-2 rounded-xl border-2 border-border bg-surface p-2">
+            <li
+              key={m.userId}
+              className="flex flex-col gap-2 rounded-xl border-2 border-border bg-surface p-2"
+            >
               <p>
-                <span className="font-bold">{m.displayName}</span> · {m.role} · <span className="break-all">{m.email}</span>
+                <span className="font-bold">{m.displayName}</span> · {m.role} ·{' '}
+                <span className="break-all">{m.email}</span>
               </p>
               {m.userId !== ownUserId &&
                 (removing === m.userId ? (
                   <div className="flex flex-wrap gap-2">
-                    <Button variant="danger" busy={remove.isPending} onClick={() => remove.mutate(m.userId, { onSuccess: () => setRemoving(null) })}>
+                    <Button
+                      variant="danger"
+                      busy={remove.isPending}
+                      onClick={() =>
+                        remove.mutate(m.userId, { onSuccess: () => setRemoving(null) })
+                      }
+                    >
                       Remove {m.displayName}
                     </Button>
                     <Button variant="secondary" onClick={() => setRemoving(null)}>

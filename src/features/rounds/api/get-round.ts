@@ -35,7 +35,9 @@ export function useRound(userId: string, collectionId: string, day: RoundDay) {
     queryKey: queryKeys.rounds.server(collectionId, day),
     queryFn: async () => {
       const round = await getRound(collectionId, day);
-      const cached = await withDb((db) => storeServerRound(db, userId, collectionId, day, round, new Date()));
+      const cached = await withDb((db) =>
+        storeServerRound(db, userId, collectionId, day, round, new Date()),
+      );
       queryClient.setQueryData(queryKeys.rounds.local(collectionId, day, userId), cached);
       return cached.fetchedAt;
     },

@@ -22,15 +22,31 @@ export interface Recorder {
 export function useRecordOutcome({ userId, byName, collectionId }: Recorder) {
   const queryClient = useQueryClient();
   return useCallback(
-    async (animal: { id: string; name: string }, kind: EventKind, payload: Record<string, unknown> = {}, at?: Date): Promise<RecordedEvent> => {
+    async (
+      animal: { id: string; name: string },
+      kind: EventKind,
+      payload: Record<string, unknown> = {},
+      at?: Date,
+    ): Promise<RecordedEvent> => {
       const started = performance.now();
       // `at`: a fact recorded afterwards (a molt found this morning, entered tonight).
-      const event: RecordedEvent = { id: crypto.randomUUID(), animalId: animal.id, kind, payload, clientRecordedAt: (at ?? new Date()).toISOString() };
-      const effect = await withDb((db) => recordTap(db, { userId, byName, collectionId, animalName: animal.name, event }));
+      const event: RecordedEvent = {
+        id: crypto.randomUUID(),
+        animalId: animal.id,
+        kind,
+        payload,
+        clientRecordedAt: (at ?? new Date()).toISOString(),
+      };
+      const effect = await withDb((db) =>
+        recordTap(db, { userId, byName, collectionId, animalName: animal.name, event }),
+      );
       // User Timing, read by the P1 benchmark: how much of a tap is the IndexedDB commit.
       performance.measure('rackside:tap-committed', { start: started });
       if (effect) {
-        queryClient.setQueryData<CachedRound | null>(queryKeys.rounds.local(collectionId, 'today', userId), (prev) => (prev ? applyTapEffect(prev, effect) : prev));
+        queryClient.setQueryData<CachedRound | null>(
+          queryKeys.rounds.local(collectionId, 'today', userId),
+          (prev) => (prev ? applyTapEffect(prev, effect) : prev),
+        );
       }
       tapRecorded();
       void askToKeepStorageOnce();
@@ -51,10 +67,19 @@ export function useRecordMany({ userId, byName, collectionId }: Recorder) {
         byName,
         collectionId,
         animalName: animal.name,
-        event: { id: crypto.randomUUID(), animalId: animal.id, kind, payload: {}, clientRecordedAt: at } satisfies RecordedEvent,
+        event: {
+          id: crypto.randomUUID(),
+          animalId: animal.id,
+          kind,
+          payload: {},
+          clientRecordedAt: at,
+        } satisfies RecordedEvent,
       }));
       const effects = await withDb((db) => recordTaps(db, taps));
-      queryClient.setQueryData<CachedRound | null>(queryKeys.rounds.local(collectionId, 'today', userId), (prev) => (prev ? effects.reduce(applyTapEffect, prev) : prev));
+      queryClient.setQueryData<CachedRound | null>(
+        queryKeys.rounds.local(collectionId, 'today', userId),
+        (prev) => (prev ? effects.reduce(applyTapEffect, prev) : prev),
+      );
       tapRecorded();
       void askToKeepStorageOnce();
       return taps.map((t) => t.event);

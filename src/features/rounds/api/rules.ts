@@ -6,12 +6,21 @@ import { queryKeys } from '@/lib/query-keys';
 
 export type { RulesResponse } from '#shared/schemas/rules';
 
-export const getRules = (collectionId: string) => apiRequest(`/collections/${collectionId}/rules`, { schema: rulesResponse });
-export const rulesQueryOptions = (collectionId: string) => queryOptions({ queryKey: queryKeys.rounds.rules(collectionId), queryFn: () => getRules(collectionId) });
+export const getRules = (collectionId: string) =>
+  apiRequest(`/collections/${collectionId}/rules`, { schema: rulesResponse });
+export const rulesQueryOptions = (collectionId: string) =>
+  queryOptions({
+    queryKey: queryKeys.rounds.rules(collectionId),
+    queryFn: () => getRules(collectionId),
+  });
 export const useRules = (collectionId: string) => useQuery(rulesQueryOptions(collectionId));
 
 export const putRules = (collectionId: string, overrides: RulesOverride) =>
-  apiRequest(`/collections/${collectionId}/rules`, { method: 'PUT', body: overrides, schema: rulesResponse });
+  apiRequest(`/collections/${collectionId}/rules`, {
+    method: 'PUT',
+    body: overrides,
+    schema: rulesResponse,
+  });
 
 export function useSaveRules(collectionId: string) {
   const queryClient = useQueryClient();

@@ -5,13 +5,23 @@ import { apiRequest } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 
 export const getSchedule = (collectionId: string, animalId: string) =>
-  apiRequest(`/collections/${collectionId}/animals/${animalId}/schedule`, { schema: scheduleResponse });
+  apiRequest(`/collections/${collectionId}/animals/${animalId}/schedule`, {
+    schema: scheduleResponse,
+  });
 export const scheduleQueryOptions = (collectionId: string, animalId: string) =>
-  queryOptions({ queryKey: queryKeys.rounds.schedule(collectionId, animalId), queryFn: () => getSchedule(collectionId, animalId) });
-export const useSchedule = (collectionId: string, animalId: string) => useQuery(scheduleQueryOptions(collectionId, animalId));
+  queryOptions({
+    queryKey: queryKeys.rounds.schedule(collectionId, animalId),
+    queryFn: () => getSchedule(collectionId, animalId),
+  });
+export const useSchedule = (collectionId: string, animalId: string) =>
+  useQuery(scheduleQueryOptions(collectionId, animalId));
 
 export const patchCare = (collectionId: string, animalId: string, body: CareSettingsBody) =>
-  apiRequest(`/collections/${collectionId}/animals/${animalId}/care`, { method: 'PATCH', body, schema: scheduleResponse });
+  apiRequest(`/collections/${collectionId}/animals/${animalId}/care`, {
+    method: 'PATCH',
+    body,
+    schema: scheduleResponse,
+  });
 
 export function useSaveCare(collectionId: string, animalId: string) {
   const queryClient = useQueryClient();

@@ -7,7 +7,13 @@ import { uploadPhoto } from '@/lib/upload-photo';
 export function useUploadMoltPhoto(collectionId: string, animalId: string, eventId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (file: File) => uploadPhoto(`/collections/${collectionId}/animals/${animalId}/molts/${eventId}/photo`, file, noContent),
-    onSuccess: () => queryClient.invalidateQueries({ queryKey: queryKeys.rounds.history(collectionId, animalId) }),
+    mutationFn: (file: File) =>
+      uploadPhoto(
+        `/collections/${collectionId}/animals/${animalId}/molts/${eventId}/photo`,
+        file,
+        noContent,
+      ),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: queryKeys.rounds.history(collectionId, animalId) }),
   });
 }

@@ -10,12 +10,21 @@ import { useAnimalHistory } from '../api/animal-history';
 import { useRecordOutcome, type Recorder } from '../api/record-outcome';
 import { useUploadMoltPhoto } from '../api/upload-molt-photo';
 
-
 function detail(e: HistoryEvent): string | null {
-  const p = e.payload as { text?: string; note?: string; sizeMm?: number; to?: string; rehoused?: boolean };
+  const p = e.payload as {
+    text?: string;
+    note?: string;
+    sizeMm?: number;
+    to?: string;
+    rehoused?: boolean;
+  };
   const status = e.kind === 'status_changed' && p.to ? `now ${p.to.replace('_', ' ')}` : null;
   const rehoused = e.kind === 'moved' && p.rehoused ? 'into a new enclosure' : null;
-  return [status, rehoused, p.text ?? p.note ?? (p.sizeMm ? `${p.sizeMm} mm` : null)].filter(Boolean).join(' · ') || null;
+  return (
+    [status, rehoused, p.text ?? p.note ?? (p.sizeMm ? `${p.sizeMm} mm` : null)]
+      .filter(Boolean)
+      .join(' · ') || null
+  );
 }
 
 /** The timeline's filter: what kind of facts to show. */
@@ -28,15 +37,36 @@ const KIND_GROUPS = {
   moves: ['moved', 'status_changed'],
 } satisfies Record<string, EventKind[] | null>;
 type KindGroup = keyof typeof KIND_GROUPS;
-const GROUP_WORDS: Record<KindGroup, string> = { all: 'All', feeding: 'Feeding', molts: 'Molts', water: 'Water', notes: 'Notes', moves: 'Moves' };
+const GROUP_WORDS: Record<KindGroup, string> = {
+  all: 'All',
+  feeding: 'Feeding',
+  molts: 'Molts',
+  water: 'Water',
+  notes: 'Notes',
+  moves: 'Moves',
+};
 
 /** A molt's photo (the exuviae), and a way to add or change it. */
-function MoltPhoto({ collectionId, animalId, event }: { collectionId: string; animalId: string; event: HistoryEvent }) {
+function MoltPhoto({
+  collectionId,
+  animalId,
+  event,
+}: {
+  collectionId: string;
+  animalId: string;
+  event: HistoryEvent;
+}) {
   const url = `/api/collections/${collectionId}/animals/${animalId}/molts/${event.id}/photo`;
   const upload = useUploadMoltPhoto(collectionId, animalId, event.id);
   return (
     <div className="mt-1 flex items-center gap-2">
-      {event.photoVersion && <img src={`${url}?size=thumb&v=${encodeURIComponent(event.photoVersion)}`} alt="The molt’s exuviae" className="h-16 w-16 rounded-lg object-cover" />}
+      {event.photoVersion && (
+        <img
+          src={`${url}?size=thumb&v=${encodeURIComponent(event.photoVersion)}`}
+          alt="The molt’s exuviae"
+          className="h-16 w-16 rounded-lg object-cover"
+        />
+      )}
       <label className="inline-flex min-h-target cursor-pointer items-center rounded-xl border-2 border-border px-3 font-bold has-[:focus-visible]:outline has-[:focus-visible]:outline-4">
         {upload.isPending ? 'Sending…' : event.photoVersion ? 'Change photo' : 'Add photo'}
         <input
@@ -51,7 +81,9 @@ function MoltPhoto({ collectionId, animalId, event }: { collectionId: string; an
           }}
         />
       </label>
-      {upload.isError && <span className="text-sm font-bold text-danger">{upload.error.message}</span>}
+      {upload.isError && (
+        <span className="text-sm font-bold text-danger">{upload.error.message}</span>
+      )}
     </div>
   );
 }
@@ -60,7 +92,15 @@ function MoltPhoto({ collectionId, animalId, event }: { collectionId: string; an
  * The animal's recent facts. A mistaken one is undone by recording a void, so the history
  * keeps both the mistake and its correction.
  */
-export function AnimalHistory({ recorder, animal, timeZone }: { recorder: Recorder; animal: { id: string; name: string }; timeZone: string }) {
+export function AnimalHistory({
+  recorder,
+  animal,
+  timeZone,
+}: {
+  recorder: Recorder;
+  animal: { id: string; name: string };
+  timeZone: string;
+}) {
   const when = (iso: string) => describeInstant(iso, timeZone);
   const history = useAnimalHistory(recorder.collectionId, animal.id);
   const record = useRecordOutcome(recorder);
@@ -74,15 +114,28 @@ export function AnimalHistory({ recorder, animal, timeZone }: { recorder: Record
       </h2>
       {history.isPending && <Loading />}
       {history.isError && <Notice tone="error" title={history.error.message} />}
-      <ChoiceGroup legend="Show" legendHidden className="grid-cols-3" value={group} options={Object.keys(KIND_GROUPS) as KindGroup[]} onChange={setGroup} render={(g) => GROUP_WORDS[g]} />
-      {history.data && !history.data.events.length && <p className="text-muted">Nothing recorded yet.</p>}
+      <ChoiceGroup
+        legend="Show"
+        legendHidden
+        className="grid-cols-3"
+        value={group}
+        options={Object.keys(KIND_GROUPS) as KindGroup[]}
+        onChange={setGroup}
+        render={(g) => GROUP_WORDS[g]}
+      />
+      {history.data && !history.data.events.length && (
+        <p className="text-muted">Nothing recorded yet.</p>
+      )}
       <ul className="flex flex-col gap-2">
         {history.data?.events
           .filter((e) => e.kind !== 'void' && (!kinds || kinds.includes(e.kind)))
           .map((e) => {
             const cancelled = !!e.voidedBy || undone.has(e.id);
             return (
-              <li key={e.id} className="flex items-center gap-2 rounded-xl border-2 border-border bg-surface p-2">
+              <li
+                key={e.id}
+                className="flex items-center gap-2 rounded-xl border-2 border-border bg-surface p-2"
+              >
                 <div className="min-w-0 flex-1">
                   <p className={`font-bold ${cancelled ? 'line-through' : ''}`}>
                     {EVENT_WORDS[e.kind]}
@@ -98,13 +151,23 @@ export function AnimalHistory({ recorder, animal, timeZone }: { recorder: Record
                       <span aria-hidden="true">! </span>Fed while food was held back
                     </p>
                   )}
-                  {e.kind === 'molted' && !cancelled && <MoltPhoto collectionId={recorder.collectionId} animalId={animal.id} event={e} />}
+                  {e.kind === 'molted' && !cancelled && (
+                    <MoltPhoto
+                      collectionId={recorder.collectionId}
+                      animalId={animal.id}
+                      event={e}
+                    />
+                  )}
                 </div>
                 {!cancelled && !SERVER_EVENT_KINDS.includes(e.kind) && (
                   <Button
                     variant="secondary"
                     aria-label={`Undo ${EVENT_WORDS[e.kind]}, ${when(e.at)}`}
-                    onClick={() => void record(animal, 'void', { targetId: e.id }).then(() => setUndone((s) => new Set(s).add(e.id)))}
+                    onClick={() =>
+                      void record(animal, 'void', { targetId: e.id }).then(() =>
+                        setUndone((s) => new Set(s).add(e.id)),
+                      )
+                    }
                   >
                     Undo
                   </Button>

@@ -13,8 +13,12 @@ import { useServerProblem } from '@/lib/form-errors';
 import { useSaveCare } from '../api/schedule';
 
 // An empty box clears the setting (null): the collection's rules decide again.
-const numberOrNull = z.string().transform((v): number | null | undefined => (v.trim() === '' ? null : Number(v)));
-const textOrNull = z.string().transform((v): string | null | undefined => (v.trim() === '' ? null : v.trim()));
+const numberOrNull = z
+  .string()
+  .transform((v): number | null | undefined => (v.trim() === '' ? null : Number(v)));
+const textOrNull = z
+  .string()
+  .transform((v): string | null | undefined => (v.trim() === '' ? null : v.trim()));
 
 /** The settings as typed, each checked by the API's own rule for it. */
 const care = careSettingsBody.shape;
@@ -31,7 +35,13 @@ type Input = z.input<typeof careForm>;
 type Output = z.output<typeof careForm>;
 
 /** The animal's own settings that the round engine honours before the collection's rules. */
-export function CareForm({ collectionId, animal }: { collectionId: string; animal: AnimalSummary }) {
+export function CareForm({
+  collectionId,
+  animal,
+}: {
+  collectionId: string;
+  animal: AnimalSummary;
+}) {
   const save = useSaveCare(collectionId, animal.id);
   const { register, handleSubmit, setError, formState } = useForm<Input, unknown, Output>({
     resolver: zodResolver(careForm),
@@ -51,26 +61,65 @@ export function CareForm({ collectionId, animal }: { collectionId: string; anima
   const submit = handleSubmit((body) => attempt(() => save.mutateAsync(body)));
 
   return (
-    <form onSubmit={submit} noValidate className="flex flex-col gap-3 rounded-2xl border-2 border-border bg-surface p-3">
+    <form
+      onSubmit={submit}
+      noValidate
+      className="flex flex-col gap-3 rounded-2xl border-2 border-border bg-surface p-3"
+    >
       <h2 className="text-xl font-extrabold">Care settings</h2>
       <p className="text-sm text-muted">Leave a field empty to use the collection’s rules.</p>
       {problem && <Notice tone="error" title={problem} />}
       {save.isSuccess && <Notice tone="ok" title="Saved. The schedule above is updated." />}
-      <TextField label="Feed every (days)" inputMode="numeric" error={e.intervalDays?.message} {...register('intervalDays')} />
-      <TextField label="Prey" placeholder="e.g. roach" error={e.preyType?.message} {...register('preyType')} />
-      <TextField label="Prey size" placeholder="e.g. medium" error={e.preySize?.message} {...register('preySize')} />
-      <TextField label="How many" inputMode="numeric" error={e.preyCount?.message} {...register('preyCount')} />
+      <TextField
+        label="Feed every (days)"
+        inputMode="numeric"
+        error={e.intervalDays?.message}
+        {...register('intervalDays')}
+      />
+      <TextField
+        label="Prey"
+        placeholder="e.g. roach"
+        error={e.preyType?.message}
+        {...register('preyType')}
+      />
+      <TextField
+        label="Prey size"
+        placeholder="e.g. medium"
+        error={e.preySize?.message}
+        {...register('preySize')}
+      />
+      <TextField
+        label="How many"
+        inputMode="numeric"
+        error={e.preyCount?.message}
+        {...register('preyCount')}
+      />
       {byDiet && (
         <SelectField
           label="Diet"
           error={e.diet?.message}
-          options={[{ value: '', label: `Usual: ${DIET_LABEL[GROUP_CARE[animal.group].defaultDiet].toLowerCase()}` }, ...DIETS.map((d) => ({ value: d, label: DIET_LABEL[d] }))]}
+          options={[
+            {
+              value: '',
+              label: `Usual: ${DIET_LABEL[GROUP_CARE[animal.group].defaultDiet].toLowerCase()}`,
+            },
+            ...DIETS.map((d) => ({ value: d, label: DIET_LABEL[d] })),
+          ]}
           {...register('diet')}
         />
       )}
-      <TextField label="Do not feed until" type="date" error={e.doNotFeedUntil?.message} {...register('doNotFeedUntil')} />
+      <TextField
+        label="Do not feed until"
+        type="date"
+        error={e.doNotFeedUntil?.message}
+        {...register('doNotFeedUntil')}
+      />
       <label className="flex min-h-target items-center gap-3 font-bold">
-        <input type="checkbox" className="h-6 w-6 accent-[var(--c-primary)]" {...register('hasWaterDish')} />
+        <input
+          type="checkbox"
+          className="h-6 w-6 accent-[var(--c-primary)]"
+          {...register('hasWaterDish')}
+        />
         Has a water dish
       </label>
       <Button type="submit" variant="secondary" busy={formState.isSubmitting}>

@@ -30,7 +30,15 @@ export function NoteForm({ animalName, draft, onDraft, onNote }: Props) {
   });
   return (
     <form className="flex flex-col gap-2" onSubmit={submit}>
-      <TextAreaField label={`Note for ${animalName}`} maxLength={2000} rows={2} error={formState.errors.text?.message} {...register('text', { onChange: (e: React.ChangeEvent<HTMLTextAreaElement>) => onDraft(e.target.value) })} />
+      <TextAreaField
+        label={`Note for ${animalName}`}
+        maxLength={2000}
+        rows={2}
+        error={formState.errors.text?.message}
+        {...register('text', {
+          onChange: (e: React.ChangeEvent<HTMLTextAreaElement>) => onDraft(e.target.value),
+        })}
+      />
       <Button type="submit" variant="secondary" disabled={!watch('text').trim()}>
         Save note
       </Button>

@@ -22,7 +22,11 @@ interface Outcome {
 const outcome = (kind: EventKind): Outcome => ({ kind, word: EVENT_WORDS[kind] });
 
 /** A larva's substrate check is done by looking and topping up: one tap writes that note. */
-const SUBSTRATE_CHECKED: Outcome = { kind: 'note', word: 'Checked', payload: { text: 'Checked the food substrate and topped it up.' } };
+const SUBSTRATE_CHECKED: Outcome = {
+  kind: 'note',
+  word: 'Checked',
+  payload: { text: 'Checked the food substrate and topped it up.' },
+};
 
 /** The one-tap outcomes an item's tasks call for; the rest sit one step away under "More". */
 function mainOutcomes(item: RoundItemView, held: boolean): Outcome[] {
@@ -31,7 +35,8 @@ function mainOutcomes(item: RoundItemView, held: boolean): Outcome[] {
   const open = item.tasks.filter((t) => !t.withdrawn);
   const kinds = new Set(open.map((t) => t.kind));
   const codes = new Set(open.flatMap((t) => t.reasons.map((r) => r.code)));
-  const preyInside = kinds.has('remove_prey') || item.outcomes.some((o) => o.kind === 'prey_left_in');
+  const preyInside =
+    kinds.has('remove_prey') || item.outcomes.some((o) => o.kind === 'prey_left_in');
   const list: EventKind[] = [];
   if (kinds.has('feed')) list.push('ate', 'refused', 'prey_left_in');
   // A roach allowed to stay is checked (R20): it may be gone — eaten — or taken out.
@@ -47,12 +52,26 @@ const MORE: EventKind[] = ['molted', 'premolt_seen', 'molting_now', 'skipped'];
  * Feeding a held animal (a molt hold, premolt, a do-not-feed note…) takes a deliberate second
  * step that says why it is held (R18); the meal is then recorded, and the server flags it.
  */
-function HeldMealConfirm({ reason, onConfirm, onCancel }: { reason: string; onConfirm: () => void; onCancel: () => void }) {
+function HeldMealConfirm({
+  reason,
+  onConfirm,
+  onCancel,
+}: {
+  reason: string;
+  onConfirm: () => void;
+  onCancel: () => void;
+}) {
   return (
-    <div role="alertdialog" aria-label="Food is held back" className="flex flex-col gap-2 rounded-xl border-2 border-danger p-2">
+    <div
+      role="alertdialog"
+      aria-label="Food is held back"
+      className="flex flex-col gap-2 rounded-xl border-2 border-danger p-2"
+    >
       <p className="font-extrabold text-danger">Food is held back for this animal.</p>
       <p className="font-bold">{reason}</p>
-      <p className="text-sm">Record a meal anyway only if it really ate. The owner will see it flagged.</p>
+      <p className="text-sm">
+        Record a meal anyway only if it really ate. The owner will see it flagged.
+      </p>
       <div className="grid grid-cols-2 gap-2">
         <Button variant="danger" className="min-h-14 px-2 text-base" onClick={onConfirm}>
           It ate anyway
@@ -81,7 +100,9 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
   const hold = feedHoldOf(item);
   const main = mainOutcomes(item, !!hold);
   // One molt a day: once it is recorded, its details are completed instead.
-  const more = (hold ? (['ate', ...MORE] as EventKind[]) : MORE).filter((k) => k !== 'molted' || !recorded.has('molted'));
+  const more = (hold ? (['ate', ...MORE] as EventKind[]) : MORE).filter(
+    (k) => k !== 'molted' || !recorded.has('molted'),
+  );
   const tap = (kind: EventKind, payload?: Record<string, unknown>) => {
     if (kind === 'ate' && hold) setConfirming(true);
     else onRecord(kind, payload);
@@ -103,11 +124,22 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
       )}
       <div className="grid grid-cols-2 gap-2 min-[400px]:grid-cols-3">
         {main.map(({ kind, word, payload }) => (
-          <Button key={word} variant={recorded.has(kind) ? 'primary' : 'secondary'} className="min-h-14 px-2 text-base" onClick={() => tap(kind, payload)}>
+          <Button
+            key={word}
+            variant={recorded.has(kind) ? 'primary' : 'secondary'}
+            className="min-h-14 px-2 text-base"
+            onClick={() => tap(kind, payload)}
+          >
             {word}
           </Button>
         ))}
-        <Button variant="quiet" aria-expanded={open} aria-controls={panelId} className="min-h-14 px-2 text-base" onClick={() => setOpen((o) => !o)}>
+        <Button
+          variant="quiet"
+          aria-expanded={open}
+          aria-controls={panelId}
+          className="min-h-14 px-2 text-base"
+          onClick={() => setOpen((o) => !o)}
+        >
           {open ? 'Less' : 'More…'}
         </Button>
       </div>
@@ -115,13 +147,23 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
         <div id={panelId} className="flex flex-col gap-2 rounded-xl border-2 border-border p-2">
           <div className="grid grid-cols-2 gap-2">
             {more.map((kind) => (
-              <Button key={kind} variant="secondary" className="min-h-14 px-2 text-base" onClick={() => tap(kind)}>
+              <Button
+                key={kind}
+                variant="secondary"
+                className="min-h-14 px-2 text-base"
+                onClick={() => tap(kind)}
+              >
                 {kind === 'ate' ? 'Ate anyway…' : EVENT_WORDS[kind]}
               </Button>
             ))}
           </div>
           <Suspense fallback={<Loading />}>
-            <NoteForm animalName={item.animal.name} draft={noteDraft} onDraft={setNoteDraft} onNote={(payload) => onRecord('note', payload)} />
+            <NoteForm
+              animalName={item.animal.name}
+              draft={noteDraft}
+              onDraft={setNoteDraft}
+              onNote={(payload) => onRecord('note', payload)}
+            />
           </Suspense>
         </div>
       )}

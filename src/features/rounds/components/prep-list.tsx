@@ -8,10 +8,18 @@ export function PrepList({ lines }: { lines: PrepLineView[] }) {
       <caption className="sr-only">Feeders to pull</caption>
       <thead>
         <tr className="border-b-2 border-border">
-          <th scope="col" className="py-2">Prey</th>
-          <th scope="col" className="py-2">Size</th>
-          <th scope="col" className="py-2 text-right">How many</th>
-          <th scope="col" className="py-2 text-right">Animals</th>
+          <th scope="col" className="py-2">
+            Prey
+          </th>
+          <th scope="col" className="py-2">
+            Size
+          </th>
+          <th scope="col" className="py-2 text-right">
+            How many
+          </th>
+          <th scope="col" className="py-2 text-right">
+            Animals
+          </th>
         </tr>
       </thead>
       <tbody>
@@ -19,7 +27,9 @@ export function PrepList({ lines }: { lines: PrepLineView[] }) {
           <tr key={`${l.preyType}|${l.preySize}`} className="border-b border-border">
             <td className="py-2 font-bold">{l.preyType}</td>
             <td className="py-2">{l.preySize}</td>
-            <td className="py-2 text-right font-bold">{l.countMin === l.countMax ? l.countMin : `${l.countMin}–${l.countMax}`}</td>
+            <td className="py-2 text-right font-bold">
+              {l.countMin === l.countMax ? l.countMin : `${l.countMin}–${l.countMax}`}
+            </td>
             <td className="py-2 text-right">{l.animals}</td>
           </tr>
         ))}

@@ -8,7 +8,14 @@ export function ProgressBar({ done, total }: { done: number; total: number }) {
         </span>
         <span>{pct}%</span>
       </p>
-      <div role="progressbar" aria-label="Round progress" aria-valuemin={0} aria-valuemax={total} aria-valuenow={done} className="h-4 overflow-hidden rounded-full border-2 border-border bg-bg">
+      <div
+        role="progressbar"
+        aria-label="Round progress"
+        aria-valuemin={0}
+        aria-valuemax={total}
+        aria-valuenow={done}
+        className="h-4 overflow-hidden rounded-full border-2 border-border bg-bg"
+      >
         <div className="h-full bg-primary" style={{ width: `${pct}%` }} />
       </div>
     </div>

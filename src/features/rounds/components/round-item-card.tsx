@@ -21,7 +21,15 @@ interface Props {
   children?: ReactNode;
 }
 
-function DoneBadge({ done, timeZone, myName }: { done: Outcome; timeZone: string; myName?: string }) {
+function DoneBadge({
+  done,
+  timeZone,
+  myName,
+}: {
+  done: Outcome;
+  timeZone: string;
+  myName?: string;
+}) {
   const who = done.by && done.by !== myName ? ` by ${done.by}` : '';
   return (
     <span className="ml-2 inline-block rounded-md border-2 border-ok px-1.5 text-sm text-ok">
@@ -52,23 +60,33 @@ export function RoundItemCard({ item, timeZone, myName, children }: Props) {
   const { animal } = item;
   const notes = currentNotes(item);
   return (
-    <article aria-label={`${animal.name}, ${animal.labelCode}`} className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
+    <article
+      aria-label={`${animal.name}, ${animal.labelCode}`}
+      className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3"
+    >
       <header className="flex items-start justify-between gap-2">
         <div>
           <h3 className="text-xl font-extrabold leading-tight">{animal.name}</h3>
           <p className="text-sm text-muted">
-            <i lang="la">{animal.scientificName}</i> · {stageLabel(animal.group, animal.lifeStage)} · {SEX_LABEL[animal.sex]}
+            <i lang="la">{animal.scientificName}</i> · {stageLabel(animal.group, animal.lifeStage)}{' '}
+            · {SEX_LABEL[animal.sex]}
           </p>
         </div>
         <div className="flex flex-col items-end gap-1">
-          <span className="whitespace-nowrap rounded-md border-2 border-border px-2 font-mono font-bold tracking-wider">{animal.labelCode}</span>
+          <span className="whitespace-nowrap rounded-md border-2 border-border px-2 font-mono font-bold tracking-wider">
+            {animal.labelCode}
+          </span>
           <span className="font-bold">{placeCode(animal.location)}</span>
         </div>
       </header>
       {/* Safety first: cautions sit above the tasks. */}
       <CautionBadges cautions={animal.cautions} />
       {item.warnings.map((w) => (
-        <p key={w} role="alert" className="rounded-lg border-2 border-accent px-2 py-1 font-bold text-accent">
+        <p
+          key={w}
+          role="alert"
+          className="rounded-lg border-2 border-accent px-2 py-1 font-bold text-accent"
+        >
           <span aria-hidden="true">! </span>
           {w}
         </p>
@@ -76,17 +94,25 @@ export function RoundItemCard({ item, timeZone, myName, children }: Props) {
       <ul className="flex flex-col gap-2">
         {item.tasks.map((task) => {
           const { word, Icon } = TASK_META[task.kind];
-          if (task.withdrawn) return <WithdrawnTask key={task.kind} word={word} reason={task.withdrawn.text} />;
+          if (task.withdrawn)
+            return <WithdrawnTask key={task.kind} word={word} reason={task.withdrawn.text} />;
           return (
             <li key={task.kind} className="flex gap-2">
-              <Icon className={task.kind === 'leave_alone' || task.kind === 'remove_prey' ? 'shrink-0 text-danger' : 'shrink-0 text-text'} />
+              <Icon
+                className={
+                  task.kind === 'leave_alone' || task.kind === 'remove_prey'
+                    ? 'shrink-0 text-danger'
+                    : 'shrink-0 text-text'
+                }
+              />
               <div className="flex-1">
                 <p className="font-extrabold">
                   {word}
                   {task.offer && <span className="font-bold"> · {describeOffer(task.offer)}</span>}
                   {task.carriedOverDays > 0 && (
                     <span className="ml-2 inline-block rounded-md border-2 border-accent px-1.5 text-sm text-accent">
-                      carried over {task.carriedOverDays} {task.carriedOverDays === 1 ? 'day' : 'days'}
+                      carried over {task.carriedOverDays}{' '}
+                      {task.carriedOverDays === 1 ? 'day' : 'days'}
                     </span>
                   )}
                   {task.done && <DoneBadge done={task.done} timeZone={timeZone} myName={myName} />}

@@ -8,7 +8,17 @@ function shelfOf(item: RoundItemView) {
 }
 
 // A tap changes one item; the other cards keep their props and skip rendering (P1 budget).
-const Card = memo(function Card({ item, timeZone, myName, actions }: { item: RoundItemView; timeZone: string; myName?: string; actions?: (item: RoundItemView) => ReactNode }) {
+const Card = memo(function Card({
+  item,
+  timeZone,
+  myName,
+  actions,
+}: {
+  item: RoundItemView;
+  timeZone: string;
+  myName?: string;
+  actions?: (item: RoundItemView) => ReactNode;
+}) {
   return (
     <RoundItemCard item={item} timeZone={timeZone} myName={myName}>
       {actions?.(item)}
@@ -49,7 +59,13 @@ export function RoundList({
           <h2 className="sticky top-0 z-10 bg-bg py-1 text-lg font-extrabold">{label}</h2>
           {groupActions?.(label, list)}
           {list.map((item) => (
-            <Card key={item.animal.id} item={item} timeZone={timeZone} myName={myName} actions={actions} />
+            <Card
+              key={item.animal.id}
+              item={item}
+              timeZone={timeZone}
+              myName={myName}
+              actions={actions}
+            />
           ))}
         </section>
       ))}

@@ -1,6 +1,12 @@
 import type { TaskKind } from '#shared/domain/rounds/build-round';
 import type { Offer } from '#shared/domain/rounds/rules';
-import { CheckIcon, FeedIcon, LeaveAloneIcon, RemovePreyIcon, WaterIcon } from '@/components/ui/icons';
+import {
+  CheckIcon,
+  FeedIcon,
+  LeaveAloneIcon,
+  RemovePreyIcon,
+  WaterIcon,
+} from '@/components/ui/icons';
 
 /** Each task has its own symbol and word (never colour alone). */
 export const TASK_META: Record<TaskKind, { word: string; Icon: typeof FeedIcon }> = {
@@ -13,6 +19,7 @@ export const TASK_META: Record<TaskKind, { word: string; Icon: typeof FeedIcon }
 
 /** "1–3 large cricket", "1 tiny fruit-fly larvae". */
 export function describeOffer(offer: Offer): string {
-  const count = offer.countMin === offer.countMax ? `${offer.countMin}` : `${offer.countMin}–${offer.countMax}`;
+  const count =
+    offer.countMin === offer.countMax ? `${offer.countMin}` : `${offer.countMin}–${offer.countMax}`;
   return `${count} × ${offer.preySize} ${offer.preyType}`;
 }

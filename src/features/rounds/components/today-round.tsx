@@ -47,7 +47,9 @@ export function TodayRound({ userId, myName, collectionId, extras, moltDetails }
   const record = useRecordOutcome({ userId, byName: myName, collectionId });
   const recordMany = useRecordMany({ userId, byName: myName, collectionId });
   const groupActions = useCallback(
-    (label: string, list: RoundItemView[]) => <TrayAtOnce key={label} label={label} items={list} onRecord={recordMany} />,
+    (label: string, list: RoundItemView[]) => (
+      <TrayAtOnce key={label} label={label} items={list} onRecord={recordMany} />
+    ),
     [recordMany],
   );
   const [filter, setFilter] = useState<RoundFilter>('all');
@@ -61,7 +63,9 @@ export function TodayRound({ userId, myName, collectionId, extras, moltDetails }
         <OutcomeButtons
           item={item}
           onRecord={(kind, payload) => {
-            void record(item.animal, kind, payload).then((event) => setLast({ event, animal: item.animal }));
+            void record(item.animal, kind, payload).then((event) =>
+              setLast({ event, animal: item.animal }),
+            );
           }}
           moltDetails={
             moltDetails &&
@@ -69,7 +73,13 @@ export function TodayRound({ userId, myName, collectionId, extras, moltDetails }
               moltDetails({
                 moltId,
                 timeZone,
-                onRecord: (payload, at, completes) => record(item.animal, 'molt_details', { targetId: completes ?? moltId, ...payload }, at),
+                onRecord: (payload, at, completes) =>
+                  record(
+                    item.animal,
+                    'molt_details',
+                    { targetId: completes ?? moltId, ...payload },
+                    at,
+                  ),
               }))
           }
         />
@@ -79,12 +89,22 @@ export function TodayRound({ userId, myName, collectionId, extras, moltDetails }
   );
   const items = local.data?.round.items;
   const counts = useMemo(
-    () => Object.fromEntries(ROUND_FILTERS.map((f) => [f, items ? filterItems(items, f, '').length : 0])) as Record<RoundFilter, number>,
+    () =>
+      Object.fromEntries(
+        ROUND_FILTERS.map((f) => [f, items ? filterItems(items, f, '').length : 0]),
+      ) as Record<RoundFilter, number>,
     [items],
   );
 
-  if (local.isPending || (!local.data && server.isPending)) return <Loading label="Loading today’s round…" />;
-  if (local.isError) return <Notice tone="error" title="This phone’s storage could not be opened, so the round cannot be kept offline." />;
+  if (local.isPending || (!local.data && server.isPending))
+    return <Loading label="Loading today’s round…" />;
+  if (local.isError)
+    return (
+      <Notice
+        tone="error"
+        title="This phone’s storage could not be opened, so the round cannot be kept offline."
+      />
+    );
   if (!local.data) return <RoundUnavailable error={server.error} what="today’s round" />;
 
   const { round, fetchedAt } = local.data;
@@ -100,16 +120,27 @@ export function TodayRound({ userId, myName, collectionId, extras, moltDetails }
       )}
       {server.isError && (
         <p className="text-sm font-bold text-muted">
-          {server.error instanceof ApiError && server.error.status === 0 ? 'No signal' : server.error.message} · showing this phone’s copy from {clockTime(fetchedAt, round.timeZone)}
+          {server.error instanceof ApiError && server.error.status === 0
+            ? 'No signal'
+            : server.error.message}{' '}
+          · showing this phone’s copy from {clockTime(fetchedAt, round.timeZone)}
         </p>
       )}
       <ProgressBar done={round.progress.done} total={round.progress.total} />
-      <RoundFilters filter={filter} onFilter={setFilter} search={search} onSearch={setSearch} counts={counts} />
+      <RoundFilters
+        filter={filter}
+        onFilter={setFilter}
+        search={search}
+        onSearch={setSearch}
+        counts={counts}
+      />
       <RoundList
         items={filterItems(round.items, filter, search)}
         timeZone={round.timeZone}
         myName={myName}
-        empty={round.items.length ? 'Nothing here with this filter.' : 'Nothing is due. Enjoy the quiet.'}
+        empty={
+          round.items.length ? 'Nothing here with this filter.' : 'Nothing is due. Enjoy the quiet.'
+        }
         actions={actions}
         groupActions={filter === 'done' ? undefined : groupActions}
       />

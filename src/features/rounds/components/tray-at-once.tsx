@@ -10,7 +10,8 @@ import type { Choice } from './tray-form';
 const TrayForm = lazy(() => import('./tray-form').then((m) => ({ default: m.TrayForm })));
 
 /** Items on this shelf or tray still waiting to be fed: the ones a tray-at-once can settle. */
-export const unfed = (items: readonly RoundItemView[]) => items.filter((i) => i.tasks.some((t) => t.kind === 'feed' && !t.done));
+export const unfed = (items: readonly RoundItemView[]) =>
+  items.filter((i) => i.tasks.some((t) => t.kind === 'feed' && !t.done));
 
 interface Props {
   label: string;

@@ -24,13 +24,19 @@ interface Props {
  */
 export function TrayForm({ label, list, picks: kept, onPick, onRecord, onClose }: Props) {
   const { register, handleSubmit, watch, formState } = useForm<{ picks: Record<string, Choice> }>({
-    defaultValues: { picks: Object.fromEntries(list.map((i) => [i.animal.id, kept[i.animal.id] ?? 'ate'])) },
+    defaultValues: {
+      picks: Object.fromEntries(list.map((i) => [i.animal.id, kept[i.animal.id] ?? 'ate'])),
+    },
   });
   const picks = watch('picks');
   const choice = (id: string): Choice => picks[id] ?? 'ate';
   const chosen = list.filter((i) => choice(i.animal.id) !== 'none');
   const ate = chosen.filter((i) => choice(i.animal.id) === 'ate').length;
-  const submit = handleSubmit(() => onRecord(chosen.map((i) => ({ animal: i.animal, kind: choice(i.animal.id) as EventKind }))).finally(onClose));
+  const submit = handleSubmit(() =>
+    onRecord(
+      chosen.map((i) => ({ animal: i.animal, kind: choice(i.animal.id) as EventKind })),
+    ).finally(onClose),
+  );
   return (
     <form aria-label={`Feed ${label} at once`} className="flex flex-col gap-2" onSubmit={submit}>
       <p className="font-bold">All ate, except the ones you change:</p>
@@ -38,9 +44,17 @@ export function TrayForm({ label, list, picks: kept, onPick, onRecord, onClose }
         {list.map((i) => (
           <li key={i.animal.id} className="flex items-center gap-2">
             <label htmlFor={`tray-${i.animal.id}`} className="min-w-0 flex-1 truncate">
-              <span className="font-bold">{i.animal.name}</span> <span className="font-mono text-sm">{i.animal.labelCode}</span>
+              <span className="font-bold">{i.animal.name}</span>{' '}
+              <span className="font-mono text-sm">{i.animal.labelCode}</span>
             </label>
-            <select id={`tray-${i.animal.id}`} className="min-h-target rounded-xl border-2 border-border bg-surface px-2 text-base text-text" {...register(`picks.${i.animal.id}`, { onChange: (e: React.ChangeEvent<HTMLSelectElement>) => onPick(i.animal.id, e.target.value as Choice) })}>
+            <select
+              id={`tray-${i.animal.id}`}
+              className="min-h-target rounded-xl border-2 border-border bg-surface px-2 text-base text-text"
+              {...register(`picks.${i.animal.id}`, {
+                onChange: (e: React.ChangeEvent<HTMLSelectElement>) =>
+                  onPick(i.animal.id, e.target.value as Choice),
+              })}
+            >
               {CHOICES.map((c) => (
                 <option key={c} value={c}>
                   {WORD(c)}
@@ -51,7 +65,8 @@ export function TrayForm({ label, list, picks: kept, onPick, onRecord, onClose }
         ))}
       </ul>
       <Button type="submit" busy={formState.isSubmitting} disabled={!chosen.length}>
-        Record {chosen.length}: {ate} ate{chosen.length > ate ? `, ${chosen.length - ate} other` : ''}
+        Record {chosen.length}: {ate} ate
+        {chosen.length > ate ? `, ${chosen.length - ate} other` : ''}
       </Button>
       <Button variant="quiet" onClick={onClose}>
         Cancel

@@ -9,18 +9,26 @@ export function PhotoScan({ onScan }: { onScan: (text: string) => void }) {
   const read = async (file: File | undefined) => {
     if (!file) return;
     setError(null);
-    const qr = new Html5Qrcode(hostId, { formatsToSupport: [Html5QrcodeSupportedFormats.QR_CODE], verbose: false });
+    const qr = new Html5Qrcode(hostId, {
+      formatsToSupport: [Html5QrcodeSupportedFormats.QR_CODE],
+      verbose: false,
+    });
     try {
       onScan(await qr.scanFile(file, false));
     } catch {
-      setError('No QR code could be read in that photo. Fill the frame with the label and keep it sharp.');
+      setError(
+        'No QR code could be read in that photo. Fill the frame with the label and keep it sharp.',
+      );
     } finally {
       qr.clear();
     }
   };
   return (
     <div className="flex flex-col gap-1">
-      <label htmlFor={id} className="flex min-h-target cursor-pointer items-center justify-center rounded-xl border-2 border-border bg-surface px-4 text-lg font-bold has-[:focus-visible]:outline has-[:focus-visible]:outline-4">
+      <label
+        htmlFor={id}
+        className="flex min-h-target cursor-pointer items-center justify-center rounded-xl border-2 border-border bg-surface px-4 text-lg font-bold has-[:focus-visible]:outline has-[:focus-visible]:outline-4"
+      >
         Scan a photo of a label
         <input
           id={id}

@@ -3,14 +3,17 @@ import { useEffect, useId, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 
-type CameraState = 'starting' | 'scanning' | 'paused' | 'denied' | 'no_camera' | 'busy' | 'unsupported' | 'failed';
+type CameraState =
+  'starting' | 'scanning' | 'paused' | 'denied' | 'no_camera' | 'busy' | 'unsupported' | 'failed';
 
 /** html5-qrcode passes getUserMedia's DOMException on as text; its name says what went wrong. */
 export function cameraProblem(error: unknown): CameraState {
   const text = String(error);
   if (/NotAllowedError|SecurityError|Permission/i.test(text)) return 'denied';
-  if (/NotFoundError|OverconstrainedError|DevicesNotFound|Requested device not found/i.test(text)) return 'no_camera';
-  if (/NotReadableError|TrackStartError|AbortError|Could not start video/i.test(text)) return 'busy';
+  if (/NotFoundError|OverconstrainedError|DevicesNotFound|Requested device not found/i.test(text))
+    return 'no_camera';
+  if (/NotReadableError|TrackStartError|AbortError|Could not start video/i.test(text))
+    return 'busy';
   if (/not supported|streaming/i.test(text)) return 'unsupported';
   return 'failed';
 }
@@ -20,13 +23,22 @@ const HELP: Partial<Record<CameraState, { title: string; body: string }>> = {
     title: 'Rackside may not use the camera.',
     body: 'Allow the camera for this site in the browser’s site settings (the icon beside the address), then tap “Try again”. You can type the code below meanwhile.',
   },
-  no_camera: { title: 'No camera was found.', body: 'Type the code from the label below, or scan a photo of it.' },
-  busy: { title: 'The camera is in use by another app.', body: 'Close the other app that uses the camera, then tap “Try again”.' },
+  no_camera: {
+    title: 'No camera was found.',
+    body: 'Type the code from the label below, or scan a photo of it.',
+  },
+  busy: {
+    title: 'The camera is in use by another app.',
+    body: 'Close the other app that uses the camera, then tap “Try again”.',
+  },
   unsupported: {
     title: 'This browser cannot use the camera here.',
     body: 'Cameras work over https (or on this computer itself). Type the code below instead.',
   },
-  failed: { title: 'The camera could not start.', body: 'Tap “Try again”, or type the code below.' },
+  failed: {
+    title: 'The camera could not start.',
+    body: 'Tap “Try again”, or type the code below.',
+  },
 };
 
 /** The same label still in view after a tap must not open again until the camera has lost it. */
@@ -52,24 +64,38 @@ export function QrCamera({ active, onScan }: Props) {
   }, [onScan]);
   const activeRef = useRef(active);
   const [state, setState] = useState<CameraState>('starting');
-  const [torch, setTorch] = useState<{ supported: boolean; on: boolean }>({ supported: false, on: false });
+  const [torch, setTorch] = useState<{ supported: boolean; on: boolean }>({
+    supported: false,
+    on: false,
+  });
   const [attempt, setAttempt] = useState(0);
 
   useEffect(() => {
-    const qr = new Html5Qrcode(hostId, { formatsToSupport: [Html5QrcodeSupportedFormats.QR_CODE], verbose: false });
+    const qr = new Html5Qrcode(hostId, {
+      formatsToSupport: [Html5QrcodeSupportedFormats.QR_CODE],
+      verbose: false,
+    });
     scanner.current = qr;
     let disposed = false;
-    const isRunning = () => [Html5QrcodeScannerState.SCANNING, Html5QrcodeScannerState.PAUSED].includes(qr.getState());
+    const isRunning = () =>
+      [Html5QrcodeScannerState.SCANNING, Html5QrcodeScannerState.PAUSED].includes(qr.getState());
 
     const start = async () => {
       setState('starting');
       try {
         await qr.start(
           { facingMode: 'environment' },
-          { fps: 10, qrbox: (w, h) => ({ width: Math.floor(Math.min(w, h) * 0.75), height: Math.floor(Math.min(w, h) * 0.75) }) },
+          {
+            fps: 10,
+            qrbox: (w, h) => ({
+              width: Math.floor(Math.min(w, h) * 0.75),
+              height: Math.floor(Math.min(w, h) * 0.75),
+            }),
+          },
           (text) => {
             const now = Date.now();
-            const seenBefore = text === last.current.text && now - last.current.seenAt < SAME_LABEL_GAP_MS;
+            const seenBefore =
+              text === last.current.text && now - last.current.seenAt < SAME_LABEL_GAP_MS;
             last.current = { text, seenAt: now };
             if (!seenBefore && activeRef.current) onScanRef.current(text);
           },
@@ -79,7 +105,10 @@ export function QrCamera({ active, onScan }: Props) {
         if (!activeRef.current) qr.pause(true);
         setState(activeRef.current ? 'scanning' : 'paused');
         try {
-          setTorch({ supported: qr.getRunningTrackCameraCapabilities().torchFeature().isSupported(), on: false });
+          setTorch({
+            supported: qr.getRunningTrackCameraCapabilities().torchFeature().isSupported(),
+            on: false,
+          });
         } catch {
           setTorch({ supported: false, on: false });
         }
@@ -132,12 +161,22 @@ export function QrCamera({ active, onScan }: Props) {
   return (
     <div className="flex flex-col gap-2">
       {/* html5-qrcode sizes the video to this box and shades all but the part it decodes. */}
-      <div className={`relative mx-auto min-h-48 w-full max-w-sm overflow-hidden rounded-2xl border-2 border-border bg-black ${help ? 'hidden' : ''}`}>
+      <div
+        className={`relative mx-auto min-h-48 w-full max-w-sm overflow-hidden rounded-2xl border-2 border-border bg-black ${help ? 'hidden' : ''}`}
+      >
         <div id={hostId} className="w-full" />
-        {state === 'starting' && <p className="absolute inset-0 grid place-items-center font-bold text-white">Starting the camera…</p>}
+        {state === 'starting' && (
+          <p className="absolute inset-0 grid place-items-center font-bold text-white">
+            Starting the camera…
+          </p>
+        )}
       </div>
       <p className="sr-only" aria-live="polite">
-        {state === 'scanning' ? 'Camera on. Point it at a label.' : state === 'starting' ? 'Starting the camera.' : ''}
+        {state === 'scanning'
+          ? 'Camera on. Point it at a label.'
+          : state === 'starting'
+            ? 'Starting the camera.'
+            : ''}
       </p>
       {help && (
         <Notice tone="warning" title={help.title}>

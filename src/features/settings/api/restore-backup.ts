@@ -8,8 +8,16 @@ import { apiRequest } from '@/lib/api-client';
  * holds a large backup in memory, and the server checks it record by record.
  */
 export async function restoreBackup(collectionId: string, file: File) {
-  if (file.size > MAX_RESTORE_BYTES) throw new Error(`This backup is larger than Rackside restores (${MAX_RESTORE_BYTES / 1024 / 1024} MB at most).`);
-  return apiRequest(`/collections/${collectionId}/restore`, { method: 'POST', body: file, schema: restoreResponse });
+  if (file.size > MAX_RESTORE_BYTES)
+    throw new Error(
+      `This backup is larger than Rackside restores (${MAX_RESTORE_BYTES / 1024 / 1024} MB at most).`,
+    );
+  return apiRequest(`/collections/${collectionId}/restore`, {
+    method: 'POST',
+    body: file,
+    schema: restoreResponse,
+  });
 }
 
-export const useRestoreBackup = (collectionId: string) => useMutation({ mutationFn: (file: File) => restoreBackup(collectionId, file) });
+export const useRestoreBackup = (collectionId: string) =>
+  useMutation({ mutationFn: (file: File) => restoreBackup(collectionId, file) });

@@ -2,7 +2,8 @@ import { useId } from 'react';
 import { Notice } from '@/components/ui/notice';
 import { useRestoreBackup } from '../api/restore-backup';
 
-const linkClass = 'flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold';
+const linkClass =
+  'flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold';
 
 /** Everything out (CSV and a full backup), and a backup back in (owners, empty collection only). */
 export function DataPanel({ collectionId, isOwner }: { collectionId: string; isOwner: boolean }) {
@@ -25,7 +26,10 @@ export function DataPanel({ collectionId, isOwner }: { collectionId: string; isO
       </a>
       {isOwner && (
         <>
-          <label htmlFor={fileId} className={`${linkClass} cursor-pointer has-[:focus-visible]:outline has-[:focus-visible]:outline-4`}>
+          <label
+            htmlFor={fileId}
+            className={`${linkClass} cursor-pointer has-[:focus-visible]:outline has-[:focus-visible]:outline-4`}
+          >
             {restore.isPending ? 'Restoring…' : 'Restore a backup into this collection'}
             <input
               id={fileId}
@@ -39,10 +43,18 @@ export function DataPanel({ collectionId, isOwner }: { collectionId: string; isO
               }}
             />
           </label>
-          <p className="text-sm text-muted">A backup restores only into a collection with no animals or places yet: make a new collection for it.</p>
+          <p className="text-sm text-muted">
+            A backup restores only into a collection with no animals or places yet: make a new
+            collection for it.
+          </p>
         </>
       )}
-      {restore.isSuccess && <Notice tone="ok" title={`Restored ${restore.data.animals} animals and ${restore.data.events} history entries.`} />}
+      {restore.isSuccess && (
+        <Notice
+          tone="ok"
+          title={`Restored ${restore.data.animals} animals and ${restore.data.events} history entries.`}
+        />
+      )}
       {restore.isError && <Notice tone="error" title={restore.error.message} />}
     </section>
   );

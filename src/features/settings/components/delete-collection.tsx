@@ -8,7 +8,8 @@ import { TextField } from '@/components/ui/text-field';
 import { useServerProblem } from '@/lib/form-errors';
 import { useDeleteCollection } from '../api/delete-collection';
 
-const linkClass = 'flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold text-text';
+const linkClass =
+  'flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold text-text';
 
 interface Props {
   collectionId: string;
@@ -31,7 +32,9 @@ export function DeleteCollection(props: Props) {
         <ConfirmDeletion {...props} onClose={() => setOpen(false)} />
       ) : (
         <>
-          <p className="text-sm text-muted">Only an owner can, and only after typing its name. Its backup is offered first.</p>
+          <p className="text-sm text-muted">
+            Only an owner can, and only after typing its name. Its backup is offered first.
+          </p>
           <Button variant="danger" onClick={() => setOpen(true)}>
             Delete this collection…
           </Button>
@@ -42,7 +45,12 @@ export function DeleteCollection(props: Props) {
 }
 
 /** The second step; closing it forgets what was typed and any failed attempt. */
-function ConfirmDeletion({ collectionId, collectionName, onDeleted, onClose }: Props & { onClose: () => void }) {
+function ConfirmDeletion({
+  collectionId,
+  collectionName,
+  onDeleted,
+  onClose,
+}: Props & { onClose: () => void }) {
   const remove = useDeleteCollection(collectionId, onDeleted);
   const { register, handleSubmit, setError, watch, formState } = useForm<DeleteCollectionBody>({
     resolver: zodResolver(deleteCollectionBody),
@@ -51,12 +59,20 @@ function ConfirmDeletion({ collectionId, collectionName, onDeleted, onClose }: P
   const { problem, attempt } = useServerProblem(setError);
   const matches = watch('confirmName').trim() === collectionName.trim();
   // Enter in the box must not get round the disabled button.
-  const submit = handleSubmit(({ confirmName }) => (matches ? attempt(() => remove.mutateAsync(confirmName)) : undefined));
+  const submit = handleSubmit(({ confirmName }) =>
+    matches ? attempt(() => remove.mutateAsync(confirmName)) : undefined,
+  );
   return (
     <>
-      <Notice tone="warning" title={`Delete “${collectionName}” for everyone? This cannot be undone.`}>
+      <Notice
+        tone="warning"
+        title={`Delete “${collectionName}” for everyone? This cannot be undone.`}
+      >
         <form className="mt-2 flex flex-col gap-3" onSubmit={submit}>
-          <p>Every animal, place, history entry, photo, cover and member of it goes. Keep a copy first:</p>
+          <p>
+            Every animal, place, history entry, photo, cover and member of it goes. Keep a copy
+            first:
+          </p>
           <a className={linkClass} href={`/api/collections/${collectionId}/backup`} download>
             1. Download its full backup <span aria-hidden="true">↓</span>
           </a>
@@ -70,7 +86,12 @@ function ConfirmDeletion({ collectionId, collectionName, onDeleted, onClose }: P
             {...register('confirmName')}
           />
           <div className="flex flex-wrap gap-2">
-            <Button type="submit" variant="danger" disabled={!matches} busy={formState.isSubmitting}>
+            <Button
+              type="submit"
+              variant="danger"
+              disabled={!matches}
+              busy={formState.isSubmitting}
+            >
               Delete for everyone
             </Button>
             <Button variant="secondary" onClick={onClose}>

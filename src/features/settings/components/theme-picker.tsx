@@ -14,7 +14,10 @@ export function ThemePicker() {
     <fieldset className="flex flex-col gap-2">
       <legend className="mb-1 font-bold">Theme</legend>
       {CHOICES.map((c) => (
-        <label key={c.value} className="flex min-h-target cursor-pointer items-center gap-3 rounded-xl border-2 border-border bg-surface px-3">
+        <label
+          key={c.value}
+          className="flex min-h-target cursor-pointer items-center gap-3 rounded-xl border-2 border-border bg-surface px-3"
+        >
           <input
             type="radio"
             name="theme"

@@ -15,7 +15,11 @@ import { refreshSyncCounts, syncNow } from '@/lib/sync-driver';
  */
 export function AttentionList({ userId }: { userId: string }) {
   const queryClient = useQueryClient();
-  const list = useQuery({ queryKey: queryKeys.sync.attention(userId), queryFn: () => withDb((db) => attentionOf(db, userId)), networkMode: 'always' });
+  const list = useQuery({
+    queryKey: queryKeys.sync.attention(userId),
+    queryFn: () => withDb((db) => attentionOf(db, userId)),
+    networkMode: 'always',
+  });
   const changed = () => {
     refreshSyncCounts();
     return queryClient.invalidateQueries({ queryKey: queryKeys.sync.attention(userId) });
@@ -28,29 +32,58 @@ export function AttentionList({ userId }: { userId: string }) {
       void syncNow();
     },
   });
-  const discard = useMutation({ mutationFn: (id: string) => withDb((db) => discardAttention(db, id)), networkMode: 'always', onSuccess: changed });
+  const discard = useMutation({
+    mutationFn: (id: string) => withDb((db) => discardAttention(db, id)),
+    networkMode: 'always',
+    onSuccess: changed,
+  });
   if (list.isPending) return <Loading />;
-  if (!list.data?.length) return <p className="text-muted">Nothing needs attention. Every tap was saved.</p>;
+  if (!list.data?.length)
+    return <p className="text-muted">Nothing needs attention. Every tap was saved.</p>;
   return (
     <ul className="flex flex-col gap-3">
       {list.data.map((a) => (
-        <AttentionItem key={a.id} entry={a} busy={resend.isPending || discard.isPending} onResend={() => resend.mutate(a.id)} onDiscard={() => discard.mutate(a.id)} />
+        <AttentionItem
+          key={a.id}
+          entry={a}
+          busy={resend.isPending || discard.isPending}
+          onResend={() => resend.mutate(a.id)}
+          onDiscard={() => discard.mutate(a.id)}
+        />
       ))}
     </ul>
   );
 }
 
-function AttentionItem({ entry: a, busy, onResend, onDiscard }: { entry: AttentionEntry; busy: boolean; onResend: () => void; onDiscard: () => void }) {
+function AttentionItem({
+  entry: a,
+  busy,
+  onResend,
+  onDiscard,
+}: {
+  entry: AttentionEntry;
+  busy: boolean;
+  onResend: () => void;
+  onDiscard: () => void;
+}) {
   const [confirming, setConfirming] = useState(false);
   const what = `${EVENT_WORDS[a.event.kind]} · ${a.animalName}`;
   return (
     <li className="flex flex-col gap-2 rounded-2xl border-2 border-danger bg-surface p-3">
       <p className="text-lg font-extrabold">{what}</p>
-      <p className="text-sm text-muted">Tapped {describeInstant(a.event.clientRecordedAt)} · not saved</p>
+      <p className="text-sm text-muted">
+        Tapped {describeInstant(a.event.clientRecordedAt)} · not saved
+      </p>
       <p className="font-bold text-danger">{a.message}</p>
       {confirming ? (
-        <div role="group" aria-label={`Discard ${what}?`} className="flex flex-col gap-2 rounded-xl border-2 border-accent p-2">
-          <p className="font-bold">Discard this tap? It is not in the records and will not be sent.</p>
+        <div
+          role="group"
+          aria-label={`Discard ${what}?`}
+          className="flex flex-col gap-2 rounded-xl border-2 border-accent p-2"
+        >
+          <p className="font-bold">
+            Discard this tap? It is not in the records and will not be sent.
+          </p>
           <Button variant="danger" busy={busy} onClick={onDiscard}>
             Discard for good
           </Button>

@@ -9,8 +9,14 @@ export function SignOutButton({ busy, onSignOut }: { busy: boolean; onSignOut: (
   const [asking, setAsking] = useState(false);
   if (asking && waiting > 0) {
     return (
-      <Notice tone="warning" title={`${waiting === 1 ? '1 tap is' : `${waiting} taps are`} not saved yet.`}>
-        <p>If you sign out now they stay on this phone and are sent the next time you sign in here. Nobody else can send them.</p>
+      <Notice
+        tone="warning"
+        title={`${waiting === 1 ? '1 tap is' : `${waiting} taps are`} not saved yet.`}
+      >
+        <p>
+          If you sign out now they stay on this phone and are sent the next time you sign in here.
+          Nobody else can send them.
+        </p>
         <div className="mt-2 flex flex-col gap-2">
           <Button variant="secondary" busy={phase === 'saving'} onClick={() => void syncNow()}>
             Try to save them now
@@ -26,7 +32,12 @@ export function SignOutButton({ busy, onSignOut }: { busy: boolean; onSignOut: (
     );
   }
   return (
-    <Button variant="danger" wide busy={busy} onClick={() => (waiting > 0 ? setAsking(true) : onSignOut())}>
+    <Button
+      variant="danger"
+      wide
+      busy={busy}
+      onClick={() => (waiting > 0 ? setAsking(true) : onSignOut())}
+    >
       Sign out
     </Button>
   );
