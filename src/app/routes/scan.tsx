@@ -105,6 +105,7 @@ function Scanner({ userId, myName, memberships, collection, chooseCollection }: 
             onRecord={onRecord}
             onNext={() => setReading(null)}
             onSwitchCollection={chooseCollection}
+            openRecord={keeper}
             nextWord="Scan next"
           />
         </section>

@@ -30,6 +30,7 @@ export function TodayRoute() {
         userId={me.user.id}
         myName={me.user.displayName}
         collectionId={collection.collectionId}
+        openRecord
       />
     </div>
   );

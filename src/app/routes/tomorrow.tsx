@@ -41,7 +41,7 @@ function Tomorrow({ userId, collectionId }: { userId: string; collectionId: stri
         </Button>
       </section>
       <div className="print:hidden">
-        <RoundList items={r.items} timeZone={r.timeZone} />
+        <RoundList items={r.items} timeZone={r.timeZone} openRecord />
       </div>
     </div>
   );
