@@ -143,7 +143,6 @@ export function createApp(options: AppOptions) {
       '/dev',
       devRoutes(options.devMailbox, auth, { mountMailbox: env.NODE_ENV !== 'production' }),
     );
-  api.use('/collections', myCollectionsRoutes(auth));
   api.use(
     '/cover-invites',
     coverInviteRoutes(
@@ -186,6 +185,7 @@ export function createApp(options: AppOptions) {
     background,
     removeFiles: photos.removeCollection,
   });
+  api.use('/collections', myCollectionsRoutes(auth, collections));
 
   // Everything under a collection: signed in first, then each route's own membership check.
   const collection = (p = '') => `/collections/:collectionId${p}`;

@@ -120,6 +120,11 @@ const TABLE: Record<string, Row> = {
     allowed: 200,
     call: () => ({ path: '/api/collections' }),
   },
+  'POST /api/collections': {
+    access: 'signed-in',
+    allowed: 422,
+    call: () => ({ path: '/api/collections', body: {} }),
+  },
   'GET /api/cover-invites/preview': {
     access: 'public',
     allowed: 422,

@@ -15,7 +15,7 @@ import {
 } from '#shared/schemas/animals';
 import { meResponse, resetRequestedResponse } from '#shared/schemas/auth';
 import { eggSacListResponse, eggSacView, slingsCreatedResponse } from '#shared/schemas/breeding';
-import { restoreResponse } from '#shared/schemas/collections';
+import { collectionResponse, restoreResponse } from '#shared/schemas/collections';
 import { createdResponse, noContent } from '#shared/schemas/common';
 import {
   acceptResponse,
@@ -269,6 +269,11 @@ describe('answers the app reads', () => {
     const backup = (await source.agent.get(`${base(source)}/backup`).expect(200)).body;
     const into = await signUp(ctx);
     expectShape(await into.agent.post(`${base(into)}/restore`).send(backup), restoreResponse, 201);
+    expectShape(
+      await into.agent.post('/api/collections').send({ name: 'Spare', timeZone: 'Europe/Berlin' }),
+      collectionResponse,
+      201,
+    );
     expectShape(await ctx.agent().get('/api/dev/mail'), devMailResponse);
     expectShape(
       await ctx.agent().post('/api/auth/reset-request').send({ email: owner.email }),
