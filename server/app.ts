@@ -23,6 +23,8 @@ import { devRoutes } from './features/dev/dev.routes';
 import { eventsRoutes } from './features/events/events.routes';
 import { createEventsService } from './features/events/events.service';
 import { healthRoutes } from './features/health/health.routes';
+import { helperReportsRoutes } from './features/helper-reports/helper-reports.routes';
+import { createHelperReportsService } from './features/helper-reports/helper-reports.service';
 import { labelsRoutes } from './features/labels/labels.routes';
 import { createLabelsService } from './features/labels/labels.service';
 import { locationsRoutes } from './features/locations/locations.routes';
@@ -210,6 +212,19 @@ export function createApp(options: AppOptions) {
   api.use(collection(), photosRoutes(photos, member));
   //   cover: /covers…, /handover…, /cover-reports, /cover/mine…
   api.use(collection(), coverRoutes(cover, coverReports, rounds, member, inviteLimit));
+  api.use(
+    collection('/helper-reports'),
+    helperReportsRoutes(
+      createHelperReportsService(database.db, {
+        mailer: options.mailer,
+        now,
+        publicUrl,
+        background,
+        logger,
+      }),
+      member,
+    ),
+  );
   //   breeding: /egg-sacs…, /incubation
   api.use(collection(), breedingRoutes(breeding, member));
   //   labels: /labels/pdf, /animals/:animalId/relabel

@@ -27,6 +27,7 @@ import {
 } from '#shared/schemas/cover';
 import { devMailResponse } from '#shared/schemas/dev';
 import { historyResponse } from '#shared/schemas/events';
+import { helperReportsResponse } from '#shared/schemas/helper-reports';
 import { importResponse } from '#shared/schemas/import';
 import { relabelResponse } from '#shared/schemas/labels';
 import { locationListResponse, locationResponse } from '#shared/schemas/locations';
@@ -243,6 +244,16 @@ describe('answers the app reads', () => {
     ).toHaveLength(1);
     expectShape(await helper.agent.get(`${base()}/cover/mine`), helperCoverView);
     expectShape(await helper.agent.post(`${base()}/cover/mine/acknowledge`), noContent, 204);
+    expectShape(
+      await helper.agent
+        .post(`${base()}/helper-reports`)
+        .send({ kind: 'escape', animalId: femaleId, note: 'Lid open.' }),
+      createdResponse,
+      201,
+    );
+    expect(
+      expectShape(await a.get(`${base()}/helper-reports`), helperReportsResponse).reports,
+    ).toHaveLength(1);
     expectShape(await a.delete(`${base()}/handover/notes/${note.id}`), noContent, 204);
 
     const mail = await ctx.mailbox.waitFor(

@@ -1,5 +1,5 @@
-import { INVITE_LIFETIME_MS, newInviteToken } from '../../access/invite-token';
 import { insertCollection } from '../../access/collections';
+import { INVITE_LIFETIME_MS, newInviteToken } from '../../access/invite-token';
 import {
   insertMembership,
   listMembershipsOfUser,
