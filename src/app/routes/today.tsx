@@ -5,6 +5,13 @@ import { TodayRoundPanel } from '@/app/panels/today-round-panel';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 
+// Owners see a notice when a helper reported something; loaded after the round, off the first bundle.
+const RecentHelperReports = lazy(() =>
+  import('@/features/cover/components/helper-reports-list').then((m) => ({
+    default: m.RecentHelperReports,
+  })),
+);
+
 // A helper's round adds the safety page, handover notes and cautions: loaded only for helpers.
 const HelperRound = lazy(() =>
   import('@/app/panels/helper-round').then((m) => ({ default: m.HelperRound })),
@@ -26,6 +33,14 @@ export function TodayRoute() {
       <h1 className="text-3xl font-extrabold">
         Today · {describeLocalDate(localDateOf(new Date(), collection.timeZone))}
       </h1>
+      {collection.role === 'owner' && (
+        <Suspense fallback={null}>
+          <RecentHelperReports
+            collectionId={collection.collectionId}
+            timeZone={collection.timeZone}
+          />
+        </Suspense>
+      )}
       <TodayRoundPanel
         userId={me.user.id}
         myName={me.user.displayName}
