@@ -1,8 +1,8 @@
 import { lazy, Suspense } from 'react';
 import { describeLocalDate, localDateOf } from '#shared/domain/local-dates';
+import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { TodayRoundPanel } from '@/app/panels/today-round-panel';
-import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 
 // Owners see a notice when a helper reported something; loaded after the round, off the first bundle.
@@ -19,7 +19,7 @@ const HelperRound = lazy(() =>
 
 export function TodayRoute() {
   const { me, collection } = useShell();
-  if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
+  if (!collection) return <NoCollection />;
   if (collection.role === 'helper') {
     return (
       <Suspense fallback={<Loading />}>
