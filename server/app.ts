@@ -180,6 +180,13 @@ export function createApp(options: AppOptions) {
   const breeding = createBreedingService(database.db, now, (id, animalIds) =>
     rounds.reconcileToday(id, animalIds),
   );
+  const helperReports = createHelperReportsService(database.db, {
+    mailer: options.mailer,
+    now,
+    publicUrl,
+    background,
+    logger,
+  });
   const collections = createCollectionsService(database.db, {
     mailer: options.mailer,
     now,
@@ -212,19 +219,7 @@ export function createApp(options: AppOptions) {
   api.use(collection(), photosRoutes(photos, member));
   //   cover: /covers…, /handover…, /cover-reports, /cover/mine…
   api.use(collection(), coverRoutes(cover, coverReports, rounds, member, inviteLimit));
-  api.use(
-    collection('/helper-reports'),
-    helperReportsRoutes(
-      createHelperReportsService(database.db, {
-        mailer: options.mailer,
-        now,
-        publicUrl,
-        background,
-        logger,
-      }),
-      member,
-    ),
-  );
+  api.use(collection('/helper-reports'), helperReportsRoutes(helperReports, member));
   //   breeding: /egg-sacs…, /incubation
   api.use(collection(), breedingRoutes(breeding, member));
   //   labels: /labels/pdf, /animals/:animalId/relabel
@@ -240,7 +235,7 @@ export function createApp(options: AppOptions) {
 
   return {
     app,
-    services: { rounds, events, coverReports, background },
+    services: { rounds, events, coverReports, helperReports, background },
     async shutdown() {
       // Mail a request started goes out before the database and the mailer close.
       await background.drain();

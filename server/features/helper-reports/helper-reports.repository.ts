@@ -1,4 +1,4 @@
-import { and, desc, eq, gte, isNull } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, isNull, lt } from 'drizzle-orm';
 import type { HelperReportKind } from '#shared/domain/helper-reports';
 import type { Db } from '../../db/client';
 import { animals, helperReports } from '../../db/schema/animals';
@@ -50,6 +50,21 @@ export async function reportsSince(db: Db, collectionId: string, since: Date) {
     .where(and(eq(helperReports.collectionId, collectionId), gte(helperReports.createdAt, since)))
     .orderBy(desc(helperReports.createdAt))
     .limit(100);
+}
+
+/** Reports made in [since, before) that the mail server has not yet accepted for every owner. */
+export async function unsentHelperReports(db: Db, since: Date, before: Date) {
+  return db
+    .select({ id: helperReports.id })
+    .from(helperReports)
+    .where(
+      and(
+        isNull(helperReports.sentAt),
+        gte(helperReports.createdAt, since),
+        lt(helperReports.createdAt, before),
+      ),
+    )
+    .orderBy(asc(helperReports.createdAt));
 }
 
 export interface UnsentHelperReport {

@@ -10,6 +10,7 @@ import {
   animalInCollection,
   insertHelperReport,
   reportsSince,
+  unsentHelperReports,
   withUnsentHelperReport,
 } from './helper-reports.repository';
 
@@ -23,12 +24,16 @@ interface Deps {
 
 /** The owners' page lists a month of reports: enough to look back over a holiday's cover. */
 const LIST_DAYS = 31;
+/** A report the mail server refused is tried again on each cover-report run for two days. */
+const RETRY_MS = 2 * 86_400_000;
+/** Younger reports are still with their own request's background send. */
+const SETTLE_MS = 60_000;
 
 /** A helper's reports: stored at once, then e-mailed to every owner after the answer. */
 export function createHelperReportsService(db: Db, deps: Deps) {
   /** E-mails the report to each owner not yet sent it; a refusal leaves it in the app only. */
   async function deliver(id: string) {
-    await withUnsentHelperReport(
+    return withUnsentHelperReport(
       db,
       id,
       async (report, owners) => {
@@ -65,8 +70,23 @@ export function createHelperReportsService(db: Db, deps: Deps) {
         reportedBy: userId,
         createdAt: deps.now(),
       });
-      deps.background.run('helper-report-mail', () => deliver(id));
+      deps.background.run('helper-report-mail', async () => {
+        await deliver(id);
+      });
       return { id };
+    },
+
+    /** Sends what an earlier try could not (a mail server outage); how many are now sent. */
+    async deliverDue(): Promise<number> {
+      const now = deps.now().getTime();
+      let sent = 0;
+      for (const { id } of await unsentHelperReports(
+        db,
+        new Date(now - RETRY_MS),
+        new Date(now - SETTLE_MS),
+      ))
+        if (await deliver(id)) sent += 1;
+      return sent;
     },
 
     async list(collectionId: string): Promise<HelperReportView[]> {
