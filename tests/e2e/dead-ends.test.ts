@@ -1,14 +1,18 @@
 // The dead ends a keeper and a helper used to hit, at 360 px: a label link leads on to the
 // animal's record; a helper covering the feeds reports an escape and the owner has it by
 // e-mail (the dev mailbox) and on Today; anyone signed in can start a new collection.
-import { eq } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import type { RoundResponse } from '#shared/schemas/rounds';
-import { memberships } from '../../server/db/schema/collections';
-import { users } from '../../server/db/schema/users';
 import { demoCollectionId } from '../../server/seed/demo';
-import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
+import {
+  expectAccessible,
+  phonePage,
+  screenshot,
+  signInAsDemo,
+  startDemoHelpersCover,
+  useE2e,
+} from './support';
 
 const env = useE2e();
 
@@ -56,20 +60,7 @@ describe('from the rack to the record', () => {
 
 describe('a helper reports a problem', () => {
   it('reports an escape; the owner’s mailbox and Today have it', async () => {
-    const db = env.server.ctx.database.db;
-    const [helper] = await db
-      .select({ id: users.id })
-      .from(users)
-      .where(eq(users.email, 'helper@northlight.test'));
-    const now = Date.now();
-    await db
-      .update(memberships)
-      .set({
-        startsAt: new Date(now - 86_400_000),
-        endsAt: new Date(now + 86_400_000),
-        safetyAcknowledgedAt: new Date(now),
-      })
-      .where(eq(memberships.userId, helper!.id));
+    await startDemoHelpersCover(env.server);
 
     const h = await phonePage(env.browser);
     const page = h.page;

@@ -1,8 +1,9 @@
 import { and, asc, desc, eq, gte, isNull, lt } from 'drizzle-orm';
 import type { HelperReportKind } from '#shared/domain/helper-reports';
+import { ownerEmails } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { animals, helperReports } from '../../db/schema/animals';
-import { collections, memberships } from '../../db/schema/collections';
+import { collections } from '../../db/schema/collections';
 import { users } from '../../db/schema/users';
 
 /** The animal's name and code when it belongs to the collection; null otherwise. */
@@ -118,14 +119,9 @@ export async function withUnsentHelperReport(
     const [by] = row.reportedBy
       ? await tx.select({ name: users.displayName }).from(users).where(eq(users.id, row.reportedBy))
       : [];
-    const owners = await tx
-      .select({ email: users.email })
-      .from(memberships)
-      .innerJoin(users, eq(users.id, memberships.userId))
-      .where(and(eq(memberships.collectionId, row.collectionId), eq(memberships.role, 'owner')));
     const result = await send(
       { ...row, animal, reportedBy: by?.name ?? 'Your helper' },
-      owners.map((o) => o.email),
+      await ownerEmails(tx, row.collectionId),
     );
     await tx
       .update(helperReports)
