@@ -1,4 +1,5 @@
 import { useId } from 'react';
+import { Link } from 'react-router-dom';
 import { Notice } from '@/components/ui/notice';
 import { useRestoreBackup } from '../api/restore-backup';
 
@@ -44,8 +45,14 @@ export function DataPanel({ collectionId, isOwner }: { collectionId: string; isO
             />
           </label>
           <p className="text-sm text-muted">
-            A backup restores only into a collection with no animals or places yet: make a new
-            collection for it.
+            A backup restores only into a collection with no animals or places yet:{' '}
+            <Link
+              to="/collections/new"
+              className="font-bold text-text underline underline-offset-4"
+            >
+              start a new collection
+            </Link>{' '}
+            for it.
           </p>
         </>
       )}
