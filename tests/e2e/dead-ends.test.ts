@@ -46,7 +46,7 @@ describe('from the rack to the record', () => {
     await screenshot(page, 'dead-ends-01-label-link');
     await open.click();
     await page.waitForURL(`**/animals/${animal.id}`);
-    await page.getByRole('heading', { name: animal.name }).waitFor();
+    await page.getByRole('heading', { level: 1, name: animal.name }).waitFor();
 
     // Today's cards link the same way.
     await page.getByRole('link', { name: 'Today' }).click();
