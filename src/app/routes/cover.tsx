@@ -18,16 +18,7 @@ export function CoverRoute() {
   return (
     <div className="flex flex-col gap-6">
       <h1 className="text-3xl font-extrabold">Cover for a helper</h1>
-      {collection.role === 'owner' ? (
-        <CoverManager collectionId={collection.collectionId} today={today} />
-      ) : (
-        <p>The owner invites helpers; you can write the handover notes.</p>
-      )}
-      <HandoverEditor
-        collectionId={collection.collectionId}
-        animals={animals.data?.animals.filter((a) => a.status === 'active') ?? []}
-        today={today}
-      />
+      {/* What helpers reported comes first: it may need doing now. */}
       {collection.role === 'owner' && (
         <section
           id="helper-reports"
@@ -43,6 +34,16 @@ export function CoverRoute() {
           />
         </section>
       )}
+      {collection.role === 'owner' ? (
+        <CoverManager collectionId={collection.collectionId} today={today} />
+      ) : (
+        <p>The owner invites helpers; you can write the handover notes.</p>
+      )}
+      <HandoverEditor
+        collectionId={collection.collectionId}
+        animals={animals.data?.animals.filter((a) => a.status === 'active') ?? []}
+        today={today}
+      />
       <section aria-labelledby="reports-heading" className="flex flex-col gap-2">
         <h2 id="reports-heading" className="text-xl font-extrabold">
           Daily reports
