@@ -45,15 +45,11 @@ export function DataPanel({ collectionId, isOwner }: { collectionId: string; isO
             />
           </label>
           <p className="text-sm text-muted">
-            A backup restores only into a collection with no animals or places yet:{' '}
-            <Link
-              to="/collections/new"
-              className="font-bold text-text underline underline-offset-4"
-            >
-              start a new collection
-            </Link>{' '}
-            for it.
+            A backup restores only into a collection with no animals or places yet.
           </p>
+          <Link to="/collections/new" className={linkClass}>
+            Start a new collection for it <span aria-hidden="true">›</span>
+          </Link>
         </>
       )}
       {restore.isSuccess && (
