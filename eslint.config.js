@@ -31,6 +31,7 @@ const SERVER_LAYERS = [
   'dev',
   'rounds',
   'cover',
+  'helper-reports',
   'data',
 ];
 const unplaced = foldersIn('server/features').filter((f) => !SERVER_LAYERS.includes(f));

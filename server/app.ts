@@ -23,6 +23,8 @@ import { devRoutes } from './features/dev/dev.routes';
 import { eventsRoutes } from './features/events/events.routes';
 import { createEventsService } from './features/events/events.service';
 import { healthRoutes } from './features/health/health.routes';
+import { helperReportsRoutes } from './features/helper-reports/helper-reports.routes';
+import { createHelperReportsService } from './features/helper-reports/helper-reports.service';
 import { labelsRoutes } from './features/labels/labels.routes';
 import { createLabelsService } from './features/labels/labels.service';
 import { locationsRoutes } from './features/locations/locations.routes';
@@ -143,7 +145,6 @@ export function createApp(options: AppOptions) {
       '/dev',
       devRoutes(options.devMailbox, auth, { mountMailbox: env.NODE_ENV !== 'production' }),
     );
-  api.use('/collections', myCollectionsRoutes(auth));
   api.use(
     '/cover-invites',
     coverInviteRoutes(
@@ -179,6 +180,13 @@ export function createApp(options: AppOptions) {
   const breeding = createBreedingService(database.db, now, (id, animalIds) =>
     rounds.reconcileToday(id, animalIds),
   );
+  const helperReports = createHelperReportsService(database.db, {
+    mailer: options.mailer,
+    now,
+    publicUrl,
+    background,
+    logger,
+  });
   const collections = createCollectionsService(database.db, {
     mailer: options.mailer,
     now,
@@ -186,6 +194,7 @@ export function createApp(options: AppOptions) {
     background,
     removeFiles: photos.removeCollection,
   });
+  api.use('/collections', myCollectionsRoutes(auth, collections));
 
   // Everything under a collection: signed in first, then each route's own membership check.
   const collection = (p = '') => `/collections/:collectionId${p}`;
@@ -210,6 +219,7 @@ export function createApp(options: AppOptions) {
   api.use(collection(), photosRoutes(photos, member));
   //   cover: /covers…, /handover…, /cover-reports, /cover/mine…
   api.use(collection(), coverRoutes(cover, coverReports, rounds, member, inviteLimit));
+  api.use(collection('/helper-reports'), helperReportsRoutes(helperReports, member));
   //   breeding: /egg-sacs…, /incubation
   api.use(collection(), breedingRoutes(breeding, member));
   //   labels: /labels/pdf, /animals/:animalId/relabel
@@ -225,7 +235,7 @@ export function createApp(options: AppOptions) {
 
   return {
     app,
-    services: { rounds, events, coverReports, background },
+    services: { rounds, events, coverReports, helperReports, background },
     async shutdown() {
       // Mail a request started goes out before the database and the mailer close.
       await background.drain();

@@ -38,6 +38,7 @@ const jobs = await startJobs({
   databaseUrl: env.DATABASE_URL,
   rounds: services.rounds,
   coverReports: services.coverReports,
+  helperReports: services.helperReports,
   logger,
 });
 

@@ -87,3 +87,13 @@ export async function insertMembership(
 ) {
   await db.insert(memberships).values(values);
 }
+
+/** Every owner's e-mail address: who a collection's reports go to. */
+export async function ownerEmails(db: Db, collectionId: string): Promise<string[]> {
+  const rows = await db
+    .select({ email: users.email })
+    .from(memberships)
+    .innerJoin(users, eq(users.id, memberships.userId))
+    .where(and(eq(memberships.collectionId, collectionId), eq(memberships.role, 'owner')));
+  return rows.map((r) => r.email);
+}

@@ -1,6 +1,7 @@
 import pg from 'pg';
 import PgBoss from 'pg-boss';
 import type { CoverReportsService } from '../features/cover/cover-reports.service';
+import type { HelperReportsService } from '../features/helper-reports/helper-reports.service';
 import type { RoundsService } from '../features/rounds/rounds.service';
 import type { Logger } from '../logger';
 
@@ -16,6 +17,8 @@ export async function startJobs(options: {
   databaseUrl: string;
   rounds: RoundsService;
   coverReports: CoverReportsService;
+  /** Helpers' reports the mail server refused at first go out again with the cover reports. */
+  helperReports?: Pick<HelperReportsService, 'deliverDue'>;
   logger: Logger;
   cron?: string;
 }) {
@@ -38,7 +41,11 @@ export async function startJobs(options: {
   });
   await boss.work(SEND_COVER_REPORTS, async ([job]) => {
     const sent = await options.coverReports.runDue();
-    options.logger.info({ queue: SEND_COVER_REPORTS, jobId: job?.id, reports: sent }, 'job done');
+    const helperSent = (await options.helperReports?.deliverDue()) ?? 0;
+    options.logger.info(
+      { queue: SEND_COVER_REPORTS, jobId: job?.id, reports: sent, helperReports: helperSent },
+      'job done',
+    );
   });
   return {
     boss,

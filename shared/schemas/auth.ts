@@ -40,15 +40,18 @@ export const signUpToken = z
   .min(20, { message: 'This sign-up link is not valid.' })
   .max(200, { message: 'This sign-up link is not valid.' });
 
+/** A collection's name, at sign-up and when someone starts another collection. */
+export const collectionName = z
+  .string({ message: 'Name your collection.' })
+  .trim()
+  .min(1, { message: 'Name your collection.' })
+  .max(80, { message: 'Keep the collection name under 80 characters.' });
+
 /** What the sign-up link's page asks for. */
 export const accountDetails = z.object({
   password: newPassword,
   displayName: z.string().trim().min(1, { message: 'Tell us what to call you.' }).max(80),
-  collectionName: z
-    .string()
-    .trim()
-    .min(1, { message: 'Name your collection.' })
-    .max(80, { message: 'Keep the collection name under 80 characters.' }),
+  collectionName,
   timeZone,
 });
 export const signUpFinishBody = accountDetails.extend({ token: signUpToken });

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { ROLES } from '../domain/roles';
-import { email } from './auth';
-import { uuid } from './common';
+import { collectionName, email } from './auth';
+import { timeZone, uuid } from './common';
 
 export const collectionResponse = z.object({
   id: z.string(),
@@ -10,6 +10,10 @@ export const collectionResponse = z.object({
   role: z.enum(ROLES),
 });
 export type CollectionResponse = z.infer<typeof collectionResponse>;
+
+/** Another collection of one's own (a partner's, one to restore a backup into). */
+export const newCollectionBody = z.object({ name: collectionName, timeZone });
+export type NewCollectionBody = z.infer<typeof newCollectionBody>;
 
 export const memberResponse = z.object({
   userId: z.string(),

@@ -96,6 +96,11 @@ const router = createBrowserRouter([
         lazy: () => import('./routes/label-link').then((m) => ({ Component: m.LabelLinkRoute })),
       },
       {
+        path: '/collections/new',
+        lazy: () =>
+          import('./routes/new-collection').then((m) => ({ Component: m.NewCollectionRoute })),
+      },
+      {
         path: '/attention',
         lazy: () => import('./routes/attention').then((m) => ({ Component: m.AttentionRoute })),
       },

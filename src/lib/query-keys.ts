@@ -43,6 +43,7 @@ export const queryKeys = {
     covers: (collectionId: string) => ['cover', collectionId, 'covers'] as const,
     handover: (collectionId: string) => ['cover', collectionId, 'handover'] as const,
     reports: (collectionId: string) => ['cover', collectionId, 'reports'] as const,
+    helperReports: (collectionId: string) => ['cover', collectionId, 'helper-reports'] as const,
     mine: (collectionId: string, userId: string) =>
       ['cover', collectionId, 'mine', userId] as const,
     invite: (token: string) => ['cover-invite', token] as const,

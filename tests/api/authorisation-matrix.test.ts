@@ -120,6 +120,11 @@ const TABLE: Record<string, Row> = {
     allowed: 200,
     call: () => ({ path: '/api/collections' }),
   },
+  'POST /api/collections': {
+    access: 'signed-in',
+    allowed: 422,
+    call: () => ({ path: '/api/collections', body: {} }),
+  },
   'GET /api/cover-invites/preview': {
     access: 'public',
     allowed: 422,
@@ -390,6 +395,16 @@ const TABLE: Record<string, Row> = {
     access: 'keeper',
     allowed: 200,
     call: (f) => ({ path: `${f.c}/cover-reports` }),
+  },
+  'POST /api/collections/:collectionId/helper-reports': {
+    access: 'helper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/helper-reports`, body: {} }),
+  },
+  'GET /api/collections/:collectionId/helper-reports': {
+    access: 'owner',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/helper-reports` }),
   },
   'GET /api/collections/:collectionId/cover/mine': {
     access: 'helper',
@@ -828,6 +843,10 @@ describe('ids from another collection, inside your own', () => {
         { path: `${c}/handover/notes`, body: { animalId: a, text: 'Sneaky', until: '2026-12-31' } },
       ],
       ['DELETE', { path: `${c}/handover/notes/${note!.id}` }],
+      [
+        'POST',
+        { path: `${c}/helper-reports`, body: { kind: 'escape', animalId: a, note: 'Gone' } },
+      ],
       ['DELETE', { path: `${c}/members/${member.userId}` }],
       [
         'PUT',

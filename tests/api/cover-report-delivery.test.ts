@@ -6,6 +6,7 @@ import { SMTPServer } from 'smtp-server';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { coverReports, memberships } from '../../server/db/schema/collections';
 import { createCoverReportsService } from '../../server/features/cover/cover-reports.service';
+import { createHelperReportsService } from '../../server/features/helper-reports/helper-reports.service';
 import { createSmtpMailer, type Mailer } from '../../server/mail/mailer';
 import { addMember, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
@@ -135,5 +136,34 @@ describe('cover report delivery', () => {
     expect(accepted.filter((m) => m.subject.includes('11 May 2027'))).toHaveLength(0);
     const listed = await reports.list(owner.collectionId);
     expect(listed.map((r) => r.localDate)).toEqual(['2027-05-11', '2027-05-10']);
+  });
+
+  it('sends a helper’s report to each owner once, retrying those the mail server refused', async () => {
+    const tasks: Promise<void>[] = [];
+    const helperReports = createHelperReportsService(ctx.database.db, {
+      mailer,
+      now: () => clock,
+      publicUrl: (p) => `http://rackside.test${p}`,
+      background: { run: (_task, work) => void tasks.push(work()), drain: async () => {} },
+    });
+    const about = (email: string) =>
+      accepted.filter((m) => m.to === email && m.subject.includes('reports an escape')).length;
+    refused.add(coOwner.email);
+    clock = new Date('2027-05-10T15:00:00Z');
+    await helperReports.report(
+      { collectionId: owner.collectionId, collectionName: 'Test Collection', timeZone: 'UTC' },
+      owner.userId,
+      { kind: 'escape', animalId: null, animalText: 'C-3', note: 'Lid open.' },
+    );
+    await Promise.all(tasks);
+    expect(about(owner.email)).toBe(1);
+    expect(about(coOwner.email)).toBe(0);
+    // The mailbox is back: the job's run sends it to the co-owner only, then never again.
+    refused.clear();
+    clock = new Date('2027-05-10T15:10:00Z');
+    expect(await helperReports.deliverDue()).toBe(1);
+    expect(await helperReports.deliverDue()).toBe(0);
+    expect(about(owner.email)).toBe(1);
+    expect(about(coOwner.email)).toBe(1);
   });
 });

@@ -15,7 +15,7 @@ import {
 } from '#shared/schemas/animals';
 import { meResponse, resetRequestedResponse } from '#shared/schemas/auth';
 import { eggSacListResponse, eggSacView, slingsCreatedResponse } from '#shared/schemas/breeding';
-import { restoreResponse } from '#shared/schemas/collections';
+import { collectionResponse, restoreResponse } from '#shared/schemas/collections';
 import { createdResponse, noContent } from '#shared/schemas/common';
 import {
   acceptResponse,
@@ -27,6 +27,7 @@ import {
 } from '#shared/schemas/cover';
 import { devMailResponse } from '#shared/schemas/dev';
 import { historyResponse } from '#shared/schemas/events';
+import { helperReportsResponse } from '#shared/schemas/helper-reports';
 import { importResponse } from '#shared/schemas/import';
 import { relabelResponse } from '#shared/schemas/labels';
 import { locationListResponse, locationResponse } from '#shared/schemas/locations';
@@ -243,6 +244,16 @@ describe('answers the app reads', () => {
     ).toHaveLength(1);
     expectShape(await helper.agent.get(`${base()}/cover/mine`), helperCoverView);
     expectShape(await helper.agent.post(`${base()}/cover/mine/acknowledge`), noContent, 204);
+    expectShape(
+      await helper.agent
+        .post(`${base()}/helper-reports`)
+        .send({ kind: 'escape', animalId: femaleId, note: 'Lid open.' }),
+      createdResponse,
+      201,
+    );
+    expect(
+      expectShape(await a.get(`${base()}/helper-reports`), helperReportsResponse).reports,
+    ).toHaveLength(1);
     expectShape(await a.delete(`${base()}/handover/notes/${note.id}`), noContent, 204);
 
     const mail = await ctx.mailbox.waitFor(
@@ -269,6 +280,11 @@ describe('answers the app reads', () => {
     const backup = (await source.agent.get(`${base(source)}/backup`).expect(200)).body;
     const into = await signUp(ctx);
     expectShape(await into.agent.post(`${base(into)}/restore`).send(backup), restoreResponse, 201);
+    expectShape(
+      await into.agent.post('/api/collections').send({ name: 'Spare', timeZone: 'Europe/Berlin' }),
+      collectionResponse,
+      201,
+    );
     expectShape(await ctx.agent().get('/api/dev/mail'), devMailResponse);
     expectShape(
       await ctx.agent().post('/api/auth/reset-request').send({ email: owner.email }),

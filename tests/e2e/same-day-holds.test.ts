@@ -6,11 +6,16 @@ import type { Page } from 'playwright-core';
 import { describe, expect, it } from 'vitest';
 import { addDays, localDateOf } from '#shared/domain/local-dates';
 import { animals } from '../../server/db/schema/animals';
-import { memberships } from '../../server/db/schema/collections';
-import { users } from '../../server/db/schema/users';
 import { demoCollectionId } from '../../server/seed/demo';
 import { cutNetwork, restoreNetwork, underServiceWorker } from '../chromium';
-import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
+import {
+  expectAccessible,
+  phonePage,
+  screenshot,
+  signInAsDemo,
+  startDemoHelpersCover,
+  useE2e,
+} from './support';
 
 const env = useE2e();
 const ZONE = 'America/Toronto';
@@ -118,19 +123,7 @@ describe('a hold that begins during the day', () => {
 
   it('a do-not-feed handover note withdraws the helper’s feed task', async () => {
     const db = env.server.ctx.database.db;
-    const [helper] = await db
-      .select({ id: users.id })
-      .from(users)
-      .where(eq(users.email, 'helper@northlight.test'));
-    const now = Date.now();
-    await db
-      .update(memberships)
-      .set({
-        startsAt: new Date(now - 86_400_000),
-        endsAt: new Date(now + 86_400_000),
-        safetyAcknowledgedAt: new Date(now),
-      })
-      .where(eq(memberships.userId, helper!.id));
+    await startDemoHelpersCover(env.server);
     const owner = await phonePage(env.browser);
     await signInAsDemo(owner.page, env.server.baseUrl, 'owner@northlight.test');
     const collectionId = (await demoCollectionId(db))!;

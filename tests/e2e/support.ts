@@ -4,10 +4,13 @@ import fs from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import AxeBuilder from '@axe-core/playwright';
+import { eq } from 'drizzle-orm';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, beforeEach, expect } from 'vitest';
 import { localDateOf } from '#shared/domain/local-dates';
 import { DEMO_COLLECTION, DEMO_PASSWORD } from '../../server/access/demo-people';
+import { memberships } from '../../server/db/schema/collections';
+import { users } from '../../server/db/schema/users';
 import { seedDemo } from '../../server/seed/demo';
 import { launchBrowser } from '../chromium';
 import { createTestContext, type TestContext } from '../setup/test-app';
@@ -114,4 +117,22 @@ export async function signInAsDemo(page: Page, baseUrl: string, email: string) {
   await page.getByLabel('Password').fill(DEMO_PASSWORD);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL('**/today');
+}
+
+/** The demo helper's cover runs now (a day either side), and they have read the safety page. */
+export async function startDemoHelpersCover(server: E2eServer) {
+  const db = server.ctx.database.db;
+  const [helper] = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(users.email, 'helper@northlight.test'));
+  const now = Date.now();
+  await db
+    .update(memberships)
+    .set({
+      startsAt: new Date(now - 86_400_000),
+      endsAt: new Date(now + 86_400_000),
+      safetyAcknowledgedAt: new Date(now),
+    })
+    .where(eq(memberships.userId, helper!.id));
 }

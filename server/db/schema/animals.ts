@@ -20,6 +20,7 @@ import {
   SEXES,
 } from '#shared/domain/animal-facts';
 import { BREEDING_RECORDS } from '#shared/domain/breeding';
+import { HELPER_REPORT_KINDS } from '#shared/domain/helper-reports';
 import { collections, locations } from './collections';
 import { users } from './users';
 
@@ -171,3 +172,30 @@ export const eventPhotos = pgTable('event_photos', {
   photoKey: text('photo_key').notNull(),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });
+
+/**
+ * What a helper tells the owners while covering (an escape, a bite, a death, a note): kept for
+ * the app and e-mailed to each owner once, as background work after the answer.
+ */
+export const helperReports = pgTable(
+  'helper_reports',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    collectionId: uuid('collection_id')
+      .notNull()
+      .references(() => collections.id, { onDelete: 'cascade' }),
+    kind: text('kind', { enum: HELPER_REPORT_KINDS }).notNull(),
+    // An animal from the round; a deleted animal leaves the report standing.
+    animalId: uuid('animal_id').references(() => animals.id, { onDelete: 'set null' }),
+    // An animal off the round, as the helper wrote it (its code or name).
+    animalText: text('animal_text').notNull().default(''),
+    note: text('note').notNull(),
+    reportedBy: uuid('reported_by').references(() => users.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    /** When the mail server accepted it for every owner. */
+    sentAt: timestamp('sent_at', { withTimezone: true }),
+    /** Owners it was already accepted for, so a second try sends no duplicate. */
+    sentTo: text('sent_to').array().notNull().default([]),
+  },
+  (t) => [index('helper_reports_collection_idx').on(t.collectionId, t.createdAt)],
+);

@@ -1,5 +1,11 @@
+import { insertCollection } from '../../access/collections';
 import { INVITE_LIFETIME_MS, newInviteToken } from '../../access/invite-token';
-import { roleOfEmail, type MemberCollection } from '../../access/memberships';
+import {
+  insertMembership,
+  listMembershipsOfUser,
+  roleOfEmail,
+  type MemberCollection,
+} from '../../access/memberships';
 import { displayNameOf } from '../../access/users';
 import type { Background } from '../../background';
 import type { Db } from '../../db/client';
@@ -22,8 +28,28 @@ interface Deps {
   removeFiles(collectionId: string): Promise<void>;
 }
 
+/** Enough for a household's collections and a few restores; stops a runaway script. */
+const MAX_MEMBERSHIPS = 50;
+
 export function createCollectionsService(db: Db, deps: Deps) {
   return {
+    /** A new, empty collection owned by the person who starts it (sign-up makes the first). */
+    async create(userId: string, values: { name: string; timeZone: string }) {
+      const mine = await listMembershipsOfUser(db, userId);
+      if (mine.length >= MAX_MEMBERSHIPS)
+        throw new HttpError(
+          409,
+          'too_many_collections',
+          `You belong to ${MAX_MEMBERSHIPS} collections already. Delete or leave one first.`,
+        );
+      const id = await db.transaction(async (tx) => {
+        const collectionId = await insertCollection(tx, values);
+        await insertMembership(tx, { collectionId, userId, role: 'owner' });
+        return collectionId;
+      });
+      return { id, name: values.name, timeZone: values.timeZone, role: 'owner' as const };
+    },
+
     /** The members, and the keeper invites still waiting for an answer. */
     async members(collectionId: string) {
       const rows = await listMembers(db, collectionId);

@@ -1,5 +1,6 @@
-import { and, asc, desc, eq, gte, inArray, isNotNull, isNull, lt, ne, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, gte, isNotNull, isNull, lt, ne, sql } from 'drizzle-orm';
 import type { LocalDate } from '#shared/domain/local-dates';
+import { ownerEmails } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { animals, events } from '../../db/schema/animals';
 import { collections, coverReports, memberships } from '../../db/schema/collections';
@@ -143,17 +144,7 @@ export async function withUnsentReport(
       .where(and(eq(coverReports.id, id), isNull(coverReports.sentAt)))
       .for('update', { skipLocked: true });
     if (!row) return false;
-    const owners = await tx
-      .select({ email: users.email })
-      .from(memberships)
-      .innerJoin(users, eq(users.id, memberships.userId))
-      .where(
-        and(eq(memberships.collectionId, row.collectionId), inArray(memberships.role, ['owner'])),
-      );
-    const result = await send(
-      row,
-      owners.map((o) => o.email),
-    );
+    const result = await send(row, await ownerEmails(tx, row.collectionId));
     await tx
       .update(coverReports)
       .set({ sentTo: result.sentTo, sentAt: result.done ? now : null })

@@ -1,13 +1,15 @@
-import { useCallback, useMemo } from 'react';
+import { useCallback, useMemo, useState } from 'react';
 import { CAUTIONS } from '#shared/domain/animal-facts';
 import { describeLocalDate, localDateOf } from '#shared/domain/local-dates';
 import type { MeResponse, MembershipSummary } from '#shared/schemas/auth';
 import type { RoundItemView } from '#shared/schemas/rounds';
+import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useAcknowledgeSafety, useHelperCover } from '@/features/cover/api/cover-api';
 import { CoverHeader } from '@/features/cover/components/general-note';
 import { HelperItemExtras } from '@/features/cover/components/helper-item-extras';
+import { ReportProblemForm } from '@/features/cover/components/report-problem-form';
 import { SafetyPage } from '@/features/cover/components/safety-page';
 import { useRound } from '@/features/rounds/api/get-round';
 import { TodayRoundPanel } from './today-round-panel';
@@ -21,6 +23,7 @@ export function HelperRound({ me, collection }: { me: MeResponse; collection: Me
   const cover = useHelperCover(collectionId, me.user.id);
   const { local } = useRound(me.user.id, collectionId, 'today');
   const acknowledge = useAcknowledgeSafety(collectionId, me.user.id);
+  const [reporting, setReporting] = useState(false);
   const cautions = useMemo(
     () =>
       CAUTIONS.filter((c) => local.data?.round.items.some((i) => i.animal.cautions.includes(c))),
@@ -51,6 +54,25 @@ export function HelperRound({ me, collection }: { me: MeResponse; collection: Me
         Today · {describeLocalDate(localDateOf(new Date(), timeZone))}
       </h1>
       <CoverHeader cover={cover.data} />
+      {reporting ? (
+        <section
+          aria-labelledby="report-heading"
+          className="flex flex-col gap-3 rounded-2xl border-2 border-danger bg-surface p-3"
+        >
+          <h2 id="report-heading" className="text-xl font-extrabold">
+            Tell the owner
+          </h2>
+          <ReportProblemForm
+            collectionId={collectionId}
+            animals={local.data?.round.items.map((i) => i.animal) ?? []}
+            onClose={() => setReporting(false)}
+          />
+        </section>
+      ) : (
+        <Button variant="danger" wide onClick={() => setReporting(true)}>
+          Report a problem or leave a note
+        </Button>
+      )}
       <TodayRoundPanel
         userId={me.user.id}
         myName={me.user.displayName}

@@ -17,6 +17,8 @@ interface Props {
   nextWord: string;
   /** Switches the app to another of the person's collections (a label from there). */
   onSwitchCollection: (collectionId: string) => void;
+  /** Whether the person may open the animal's page (not helpers: the server keeps it from them). */
+  openRecord: boolean;
 }
 
 /** What a scanned label opens (scan + rounds): the item ready for one tap, or a plain reason why not. */
@@ -28,6 +30,7 @@ export function LabelTargetPanel({
   onNext,
   nextWord,
   onSwitchCollection,
+  openRecord,
 }: Props) {
   const [recordAnyway, setRecordAnyway] = useState(false);
   const next = (
@@ -63,7 +66,7 @@ export function LabelTargetPanel({
           </Button>
         </Notice>
       )}
-      <RoundItemCard item={item} timeZone={timeZone} myName={myName}>
+      <RoundItemCard item={item} timeZone={timeZone} myName={myName} openRecord={openRecord}>
         {ready && (
           <OutcomeButtons item={item} onRecord={(kind, payload) => onRecord(item, kind, payload)} />
         )}

@@ -4,6 +4,7 @@ import { Link, useParams } from 'react-router-dom';
 import { STATUS_LABEL } from '#shared/domain/animal-facts';
 import { localDateOf } from '#shared/domain/local-dates';
 import { formatSize } from '#shared/domain/units';
+import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { AnimalMolts } from '@/app/panels/animal-molts';
 import { AnimalPairing } from '@/app/panels/animal-pairing';
@@ -44,7 +45,7 @@ export function AnimalRoute() {
   const [panel, setPanel] = useState<'move' | 'retire' | null>(null);
   const localToday = useQuery(localRoundQueryOptions(me.user.id, collectionId, 'today'));
   const sync = useSyncStatus();
-  if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
+  if (!collection) return <NoCollection />;
   if (list.isPending) return <Loading />;
   if (list.isError) return <Notice tone="error" title={list.error.message} />;
   const animal = list.data.animals.find((a) => a.id === animalId);

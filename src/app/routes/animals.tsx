@@ -1,6 +1,7 @@
 import { useCallback, useMemo, useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { localDateOf } from '#shared/domain/local-dates';
+import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -22,7 +23,7 @@ const linkClass =
 
 export function AnimalsRoute() {
   const { me, collection } = useShell();
-  if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
+  if (!collection) return <NoCollection />;
   if (collection.role === 'helper')
     return (
       <Notice

@@ -4,6 +4,7 @@ import { Notice } from '@/components/ui/notice';
 import { useAnimalList } from '@/features/animals/api/list-animals';
 import { CoverManager } from '@/features/cover/components/cover-manager';
 import { HandoverEditor } from '@/features/cover/components/handover-editor';
+import { HelperReportsList } from '@/features/cover/components/helper-reports-list';
 import { ReportsList } from '@/features/cover/components/reports-list';
 
 /** Arranging cover: the owner invites helpers; keepers write handover notes; both read the reports. */
@@ -17,6 +18,22 @@ export function CoverRoute() {
   return (
     <div className="flex flex-col gap-6">
       <h1 className="text-3xl font-extrabold">Cover for a helper</h1>
+      {/* What helpers reported comes first: it may need doing now. */}
+      {collection.role === 'owner' && (
+        <section
+          id="helper-reports"
+          aria-labelledby="helper-reports-heading"
+          className="flex flex-col gap-2"
+        >
+          <h2 id="helper-reports-heading" className="text-xl font-extrabold">
+            From your helpers
+          </h2>
+          <HelperReportsList
+            collectionId={collection.collectionId}
+            timeZone={collection.timeZone}
+          />
+        </section>
+      )}
       {collection.role === 'owner' ? (
         <CoverManager collectionId={collection.collectionId} today={today} />
       ) : (

@@ -51,6 +51,7 @@ export function LabelLinkRoute() {
         }
         onNext={() => navigate('/today')}
         onSwitchCollection={chooseCollection}
+        openRecord={keeper}
         nextWord="Back to today’s round"
       />
     </div>

@@ -1,5 +1,6 @@
 import { useLocation } from 'react-router-dom';
 import { clockTime } from '#shared/domain/local-dates';
+import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
@@ -11,7 +12,7 @@ export function LabelsRoute() {
   const location = useLocation();
   const keeper = !!collection && collection.role !== 'helper';
   const list = useAnimalList(collection?.collectionId ?? '', keeper);
-  if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
+  if (!collection) return <NoCollection />;
   if (!keeper)
     return <Notice tone="info" title="Labels are printed by the collection’s keepers." />;
   if (!collection.labelTag)

@@ -4,9 +4,9 @@ import { readLabel, type LabelReading } from '#shared/domain/labels/label-payloa
 import type { MembershipSummary } from '#shared/schemas/auth';
 import type { RecordedEvent } from '#shared/schemas/events';
 import type { RoundItemView } from '#shared/schemas/rounds';
+import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { LabelTargetPanel } from '@/app/panels/label-target-panel';
-import { Notice } from '@/components/ui/notice';
 import { useAnimalList } from '@/features/animals/api/list-animals';
 import { useRound } from '@/features/rounds/api/get-round';
 import { useRecordOutcome } from '@/features/rounds/api/record-outcome';
@@ -26,7 +26,7 @@ const buzz = () => navigator.vibrate?.(60);
 
 export function ScanRoute() {
   const { me, collection, chooseCollection } = useShell();
-  if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
+  if (!collection) return <NoCollection />;
   return (
     <Scanner
       userId={me.user.id}
@@ -105,6 +105,7 @@ function Scanner({ userId, myName, memberships, collection, chooseCollection }: 
             onRecord={onRecord}
             onNext={() => setReading(null)}
             onSwitchCollection={chooseCollection}
+            openRecord={keeper}
             nextWord="Scan next"
           />
         </section>

@@ -99,6 +99,13 @@ export function SettingsRoute() {
           onChoose={chooseCollection}
         />
       )}
+      <Link
+        to="/collections/new"
+        className="flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold"
+      >
+        Start another collection
+        <span aria-hidden="true">›</span>
+      </Link>
       <section aria-labelledby="account-heading" className="flex flex-col gap-3">
         <h2 id="account-heading" className="text-xl font-extrabold">
           Account

@@ -1,9 +1,16 @@
 import { lazy, Suspense } from 'react';
 import { describeLocalDate, localDateOf } from '#shared/domain/local-dates';
+import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { TodayRoundPanel } from '@/app/panels/today-round-panel';
-import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
+
+// Owners see a notice when a helper reported something; loaded after the round, off the first bundle.
+const RecentHelperReports = lazy(() =>
+  import('@/features/cover/components/helper-reports-list').then((m) => ({
+    default: m.RecentHelperReports,
+  })),
+);
 
 // A helper's round adds the safety page, handover notes and cautions: loaded only for helpers.
 const HelperRound = lazy(() =>
@@ -12,7 +19,7 @@ const HelperRound = lazy(() =>
 
 export function TodayRoute() {
   const { me, collection } = useShell();
-  if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
+  if (!collection) return <NoCollection />;
   if (collection.role === 'helper') {
     return (
       <Suspense fallback={<Loading />}>
@@ -26,10 +33,19 @@ export function TodayRoute() {
       <h1 className="text-3xl font-extrabold">
         Today · {describeLocalDate(localDateOf(new Date(), collection.timeZone))}
       </h1>
+      {collection.role === 'owner' && (
+        <Suspense fallback={null}>
+          <RecentHelperReports
+            collectionId={collection.collectionId}
+            timeZone={collection.timeZone}
+          />
+        </Suspense>
+      )}
       <TodayRoundPanel
         userId={me.user.id}
         myName={me.user.displayName}
         collectionId={collection.collectionId}
+        openRecord
       />
     </div>
   );

@@ -1,4 +1,5 @@
 import { describeLocalDate } from '#shared/domain/local-dates';
+import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -10,7 +11,7 @@ import { RoundUnavailable } from '@/features/rounds/components/round-unavailable
 
 export function TomorrowRoute() {
   const { me, collection } = useShell();
-  if (!collection) return <Notice tone="info" title="You are not in any collection yet." />;
+  if (!collection) return <NoCollection />;
   if (collection.role === 'helper')
     return <Notice tone="info" title="Helpers see today’s round only." />;
   return <Tomorrow userId={me.user.id} collectionId={collection.collectionId} />;
@@ -41,7 +42,7 @@ function Tomorrow({ userId, collectionId }: { userId: string; collectionId: stri
         </Button>
       </section>
       <div className="print:hidden">
-        <RoundList items={r.items} timeZone={r.timeZone} />
+        <RoundList items={r.items} timeZone={r.timeZone} openRecord />
       </div>
     </div>
   );

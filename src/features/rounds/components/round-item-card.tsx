@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { Link } from 'react-router-dom';
 import { SEX_LABEL, stageLabel } from '#shared/domain/animal-facts';
 import { EVENT_WORDS } from '#shared/domain/event-kinds';
 import { clockTime } from '#shared/domain/local-dates';
@@ -19,6 +20,8 @@ interface Props {
   myName?: string;
   /** Outcome buttons on today's round; none on a preview. */
   children?: ReactNode;
+  /** A link to the animal's page: only for people the server lets read it (keepers, owners). */
+  openRecord?: boolean;
 }
 
 function DoneBadge({
@@ -56,7 +59,7 @@ function WithdrawnTask({ word, reason }: { word: string; reason: string }) {
 }
 
 /** One animal on the round: what, where, how much and why, without opening anything. */
-export function RoundItemCard({ item, timeZone, myName, children }: Props) {
+export function RoundItemCard({ item, timeZone, myName, children, openRecord }: Props) {
   const { animal } = item;
   const notes = currentNotes(item);
   return (
@@ -138,6 +141,14 @@ export function RoundItemCard({ item, timeZone, myName, children }: Props) {
         </ul>
       )}
       {children}
+      {openRecord && (
+        <Link
+          to={`/animals/${animal.id}`}
+          className="inline-flex min-h-target items-center self-start rounded-xl px-2 font-bold underline underline-offset-4"
+        >
+          Open record<span className="sr-only"> of {animal.name}</span>
+        </Link>
+      )}
     </article>
   );
 }

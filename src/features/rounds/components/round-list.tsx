@@ -13,14 +13,16 @@ const Card = memo(function Card({
   timeZone,
   myName,
   actions,
+  openRecord,
 }: {
   item: RoundItemView;
   timeZone: string;
   myName?: string;
   actions?: (item: RoundItemView) => ReactNode;
+  openRecord?: boolean;
 }) {
   return (
-    <RoundItemCard item={item} timeZone={timeZone} myName={myName}>
+    <RoundItemCard item={item} timeZone={timeZone} myName={myName} openRecord={openRecord}>
       {actions?.(item)}
     </RoundItemCard>
   );
@@ -33,6 +35,7 @@ export function RoundList({
   myName,
   actions,
   groupActions,
+  openRecord,
   empty = 'Nothing is due. Enjoy the quiet.',
 }: {
   items: RoundItemView[];
@@ -42,6 +45,8 @@ export function RoundList({
   actions?: (item: RoundItemView) => ReactNode;
   /** Under each shelf's heading, e.g. a whole tray at once. */
   groupActions?: (label: string, items: RoundItemView[]) => ReactNode;
+  /** Each card links to its animal's page (not for helpers: the server keeps it from them). */
+  openRecord?: boolean;
   empty?: string;
 }) {
   const groups: [string, RoundItemView[]][] = [];
@@ -65,6 +70,7 @@ export function RoundList({
               timeZone={timeZone}
               myName={myName}
               actions={actions}
+              openRecord={openRecord}
             />
           ))}
         </section>

@@ -38,10 +38,19 @@ export interface TodayRoundProps {
   extras?: (item: RoundItemView) => ReactNode;
   /** The details form under a molt just tapped; keep it stable (useCallback), as `extras`. */
   moltDetails?: (slot: MoltDetailsSlot) => ReactNode;
+  /** Link each card to its animal's page (keepers and owners; helpers may not open it). */
+  openRecord?: boolean;
 }
 
 /** Today's round at the rack: the phone's copy, one-tap outcomes, filters, trays and undo. */
-export function TodayRound({ userId, myName, collectionId, extras, moltDetails }: TodayRoundProps) {
+export function TodayRound({
+  userId,
+  myName,
+  collectionId,
+  extras,
+  moltDetails,
+  openRecord,
+}: TodayRoundProps) {
   const { local, server } = useRound(userId, collectionId, 'today');
   const timeZone = local.data?.round.timeZone ?? 'UTC';
   const record = useRecordOutcome({ userId, byName: myName, collectionId });
@@ -143,6 +152,7 @@ export function TodayRound({ userId, myName, collectionId, extras, moltDetails }
         }
         actions={actions}
         groupActions={filter === 'done' ? undefined : groupActions}
+        openRecord={openRecord}
       />
       {last && (
         <UndoToast

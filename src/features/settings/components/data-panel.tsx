@@ -1,4 +1,5 @@
 import { useId } from 'react';
+import { Link } from 'react-router-dom';
 import { Notice } from '@/components/ui/notice';
 import { useRestoreBackup } from '../api/restore-backup';
 
@@ -44,9 +45,11 @@ export function DataPanel({ collectionId, isOwner }: { collectionId: string; isO
             />
           </label>
           <p className="text-sm text-muted">
-            A backup restores only into a collection with no animals or places yet: make a new
-            collection for it.
+            A backup restores only into a collection with no animals or places yet.
           </p>
+          <Link to="/collections/new" className={linkClass}>
+            Start a new collection for it <span aria-hidden="true">›</span>
+          </Link>
         </>
       )}
       {restore.isSuccess && (

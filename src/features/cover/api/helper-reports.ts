@@ -1,0 +1,39 @@
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import type { HelperReportBody } from '#shared/schemas/helper-reports';
+import { apiRequest } from '@/lib/api-client';
+import { queryKeys } from '@/lib/query-keys';
+
+/** Sends a helper's report; the owners get it at once (the server mails it after answering). */
+export async function sendHelperReport(collectionId: string, body: HelperReportBody) {
+  const { createdResponse } = await import('#shared/schemas/common');
+  return apiRequest(`/collections/${collectionId}/helper-reports`, {
+    method: 'POST',
+    body,
+    schema: createdResponse,
+  });
+}
+
+export function useSendHelperReport(collectionId: string) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (body: HelperReportBody) => sendHelperReport(collectionId, body),
+    onSuccess: () =>
+      queryClient.invalidateQueries({ queryKey: queryKeys.cover.helperReports(collectionId) }),
+  });
+}
+
+/** The last month's reports, newest first (owners only). Its schema loads here: Today shows them. */
+export async function listHelperReports(collectionId: string) {
+  const { helperReportsResponse } = await import('#shared/schemas/helper-reports');
+  return apiRequest(`/collections/${collectionId}/helper-reports`, {
+    schema: helperReportsResponse,
+  });
+}
+
+export const useHelperReports = (collectionId: string, enabled = true) =>
+  useQuery({
+    queryKey: queryKeys.cover.helperReports(collectionId),
+    queryFn: () => listHelperReports(collectionId),
+    enabled,
+    refetchInterval: 5 * 60_000,
+  });
