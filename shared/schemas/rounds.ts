@@ -1,7 +1,16 @@
 import { z } from 'zod';
-import { ANIMAL_GROUPS, CAUTIONS, LIFE_STAGES, SEXES } from '../domain/animal-facts';
+import {
+  ANIMAL_GROUPS,
+  ANIMAL_STATUSES,
+  CAUTIONS,
+  DIETS,
+  LIFE_STAGES,
+  SEXES,
+} from '../domain/animal-facts';
 import { EVENT_KINDS } from '../domain/event-kinds';
-import { TASK_KINDS } from '../domain/rounds/build-round';
+import type { AnimalState } from '../domain/rounds/animal-state';
+import { TASK_KINDS, type EngineAnimal } from '../domain/rounds/build-round';
+import type { RulesOverride } from '../domain/rounds/rules';
 import { locationSummary } from './animals';
 
 export const reason = z.object({ code: z.string(), text: z.string(), dates: z.array(z.string()) });
@@ -89,3 +98,91 @@ export const scheduleResponse = z.object({
   nextWater: z.string().nullable(),
 });
 export type ScheduleResponse = z.infer<typeof scheduleResponse>;
+
+/** An animal as the round engine reads it (docs/care-rules.md): no notes, photos or history. */
+export const engineAnimal = roundAnimal.extend({
+  sizeMm: z.number().nullable(),
+  status: z.enum(ANIMAL_STATUSES),
+  hasWaterDish: z.boolean(),
+  intervalDays: z.number().nullable(),
+  preyType: z.string().nullable(),
+  preySize: z.string().nullable(),
+  preyCount: z.number().nullable(),
+  diet: z.enum(DIETS).nullable().optional(),
+  doNotFeedUntil: z.string().nullable(),
+  doNotFeedBy: z.enum(['keeper', 'handover']).optional(),
+  addedOn: z.string().nullable(),
+}) satisfies z.ZodType<EngineAnimal>;
+
+/** Only the fields the engine reads, so the phone's copy stays small (issue 22's budget). */
+export function engineAnimalOf(a: EngineAnimal): EngineAnimal {
+  const { id, labelCode, name, scientificName, group, lifeStage, sex, sizeMm, status } = a;
+  const { cautions, location, hasWaterDish, intervalDays, preyType, preySize, preyCount } = a;
+  const { diet, doNotFeedUntil, doNotFeedBy, addedOn } = a;
+  return {
+    id,
+    labelCode,
+    name,
+    scientificName,
+    group,
+    lifeStage,
+    sex,
+    sizeMm,
+    status,
+    cautions,
+    location: location ?? null,
+    hasWaterDish,
+    intervalDays,
+    preyType,
+    preySize,
+    preyCount,
+    diet: diet ?? null,
+    doNotFeedUntil,
+    ...(doNotFeedBy ? { doNotFeedBy } : {}),
+    addedOn,
+  };
+}
+
+const localDay = z.string().nullable();
+/** The engine's per-animal state, as the server projects it (animal-state.ts). */
+export const animalState = z.object({
+  lastMeal: localDay,
+  refusalStreak: z.number().int(),
+  lastRefusal: localDay,
+  lastMolt: localDay,
+  premoltSince: localDay,
+  leaveAlone: z
+    .object({
+      reason: z.enum(['molting', 'guarding_sac', 'guarding_brood']),
+      since: z.string(),
+    })
+    .nullable(),
+  preyLeftIn: z.object({ since: z.string(), preyType: z.string().nullable() }).nullable(),
+  lastWatered: localDay,
+  rebuildSince: localDay,
+  rebuildReason: z
+    .enum(['sac_pulled', 'sac_hatched', 'brood_dispersed', 'paired', 'keeper'])
+    .nullable(),
+  lastObserved: localDay,
+  lastSkipped: localDay,
+  // Projections stored before this field existed lack it (animal-state.ts).
+  rehousedOn: localDay.default(null),
+  lastEventAt: z.string().nullable(),
+  lastEventId: z.string().nullable(),
+}) satisfies z.ZodType<AnimalState, unknown>;
+
+/**
+ * What a phone keeps to build a day's round itself with no signal: every active animal with
+ * its state as of `asOf`, the collection's zone, and its rules as stored (merged with the
+ * defaults on the phone by the same `effectiveRules` the server uses).
+ */
+export const engineInputResponse = z.object({
+  collectionId: z.string(),
+  timeZone: z.string(),
+  /** The collection's local date when the server answered. */
+  date: z.string(),
+  asOf: z.string(),
+  rules: z.custom<RulesOverride>((v) => typeof v === 'object' && v !== null && !Array.isArray(v)),
+  animals: z.array(z.object({ animal: engineAnimal, state: animalState })),
+});
+export type EngineInputResponse = z.infer<typeof engineInputResponse>;

@@ -22,6 +22,8 @@ export interface RequestOptions {
    */
   body?: unknown;
   signal?: AbortSignal;
+  /** The ETag of the copy the caller holds: a 304 means it is still current. */
+  ifNoneMatch?: string;
 }
 
 /**
@@ -53,7 +55,7 @@ export function readErrorBody(data: unknown): ErrorBody['error'] | null {
 /** The one place fetch is called: our CSRF header, and no answer at all as an `offline` error. */
 async function send(
   path: string,
-  { method = 'GET', body, signal }: RequestOptions,
+  { method = 'GET', body, signal, ifNoneMatch }: RequestOptions,
   accept: string,
 ): Promise<Response> {
   const multipart = body instanceof FormData;
@@ -64,6 +66,7 @@ async function send(
       headers: {
         Accept: accept,
         'X-Rackside-Client': '1',
+        ...(ifNoneMatch ? { 'If-None-Match': ifNoneMatch } : {}),
         ...(body === undefined || multipart ? {} : { 'Content-Type': 'application/json' }),
       },
       body:

@@ -2,7 +2,7 @@ import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import type { MeResponse } from '#shared/schemas/auth';
 import type { RecordedEvent, RejectReason } from '#shared/schemas/events';
-import type { RoundResponse } from '#shared/schemas/rounds';
+import type { EngineInputResponse, RoundResponse } from '#shared/schemas/rounds';
 
 export type RoundDay = 'today' | 'tomorrow';
 
@@ -13,8 +13,21 @@ export interface CachedRound {
   collectionId: string;
   day: RoundDay;
   round: RoundResponse;
-  /** When the server's copy was fetched (ISO). */
+  /** When the server's copy was fetched (ISO); for a round built on the phone, its data's time. */
   fetchedAt: string;
+  /** Set when the phone built this round itself with no signal (decision 015). */
+  builtOnPhone?: boolean;
+  /** This phone's taps of the day that the server's round has no place for, shown plainly. */
+  unsettled?: UnsettledTap[];
+}
+
+/** A tap the phone showed on its own round that the server's round for that day does not hold. */
+export interface UnsettledTap {
+  eventId: string;
+  animalName: string;
+  labelCode: string;
+  kind: RoundItem['outcomes'][number]['kind'];
+  at: string;
 }
 
 type RoundItem = RoundResponse['items'][number];
@@ -33,6 +46,8 @@ export interface StoredRound {
   /** Animal ids in walk order. */
   order: string[];
   fetchedAt: string;
+  builtOnPhone?: boolean;
+  unsettled?: UnsettledTap[];
 }
 export interface StoredRoundItem {
   roundKey: string;
@@ -78,12 +93,26 @@ export interface StoredDirectory {
   fetchedAt: string;
 }
 
+/**
+ * What the round engine needs, as the server last sent it: the phone builds the next days
+ * from it when there is no signal (decision 015). One per person and collection.
+ */
+export interface StoredEngineInput {
+  key: string;
+  userId: string;
+  collectionId: string;
+  input: EngineInputResponse;
+  etag: string | null;
+  fetchedAt: string;
+}
+
 export interface RacksideSchema extends DBSchema {
   rounds: { key: string; value: StoredRound };
   roundItems: { key: [string, string]; value: StoredRoundItem; indexes: { byRound: string } };
   outbox: { key: number; value: OutboxEntry; indexes: { byEventId: string; byUser: string } };
   attention: { key: string; value: AttentionEntry; indexes: { byUser: string } };
   directory: { key: string; value: StoredDirectory };
+  engineInputs: { key: string; value: StoredEngineInput };
   /** Small facts: the device id, the last signed-in person, storage persistence. */
   meta: { key: string; value: unknown };
 }
@@ -92,7 +121,7 @@ export type RacksideDb = IDBPDatabase<RacksideSchema>;
 export const DB_NAME = 'rackside';
 
 export function openRacksideDb(name = DB_NAME): Promise<RacksideDb> {
-  return openDB<RacksideSchema>(name, 2, {
+  return openDB<RacksideSchema>(name, 3, {
     // Each version adds to the one before, so a phone with queued taps upgrades without losing them.
     upgrade(db, oldVersion) {
       if (oldVersion < 1) {
@@ -109,6 +138,7 @@ export function openRacksideDb(name = DB_NAME): Promise<RacksideDb> {
         db.createObjectStore('meta');
       }
       if (oldVersion < 2) db.createObjectStore('directory', { keyPath: 'collectionId' });
+      if (oldVersion < 3) db.createObjectStore('engineInputs', { keyPath: 'key' });
     },
   });
 }
@@ -167,14 +197,18 @@ const DEVICE_META_KEYS = new Set(['deviceId', 'persistAsked']);
 
 /**
  * At sign-out: forgets every collection the phone cached — rounds and their items, animal
- * lists, the helper's cover copy and the last `me` — so the next person on this phone sees
+ * lists, the engine's input, the helper's cover copy and the last `me` — so the next person on this phone sees
  * none of it offline. Waiting taps and refused ones stay: they belong to their author, are
  * sent (or shown) at that person's next sign-in, and nobody else can read them in the app.
  */
 export async function clearCachedCollections(db: RacksideDb): Promise<void> {
-  const tx = db.transaction(['rounds', 'roundItems', 'directory', 'meta'], 'readwrite');
+  const tx = db.transaction(
+    ['rounds', 'roundItems', 'directory', 'engineInputs', 'meta'],
+    'readwrite',
+  );
   const meta = tx.objectStore('meta');
   const work: Promise<unknown>[] = [
+    tx.objectStore('engineInputs').clear(),
     tx.objectStore('rounds').clear(),
     tx.objectStore('roundItems').clear(),
     tx.objectStore('directory').clear(),

@@ -1,10 +1,7 @@
-import type { IDBPObjectStore, StoreNames } from 'idb';
-import {
-  itemWithOutcome,
-  progressOf,
-  withOutcome,
-  type DayOutcome,
-} from '#shared/domain/rounds/settle';
+import type { IDBPObjectStore, IDBPTransaction, StoreNames } from 'idb';
+import { localDateOf } from '#shared/domain/local-dates';
+import { tapOutcome } from '#shared/domain/rounds/phone-round';
+import { itemWithOutcome, progressOf, withOutcome } from '#shared/domain/rounds/settle';
 import type { RecordedEvent } from '#shared/schemas/events';
 import type { RoundResponse } from '#shared/schemas/rounds';
 import {
@@ -13,6 +10,7 @@ import {
   type RacksideDb,
   type RacksideSchema,
   type RoundDay,
+  type UnsettledTap,
 } from './db';
 
 /** A round's key in `rounds`, and the first half of each of its items' keys in `roundItems`. */
@@ -39,10 +37,7 @@ export interface TapEffect {
   totalDelta: number;
 }
 
-export function outcomeOf(event: RecordedEvent, by: string): DayOutcome {
-  const targetId = event.kind === 'void' ? (event.payload.targetId as string) : null;
-  return { eventId: event.id, kind: event.kind, at: event.clientRecordedAt, by, voids: targetId };
-}
+export const outcomeOf = (event: RecordedEvent, by: string) => tapOutcome(event, by);
 
 /** The items store inside a caller's read-write transaction (which may span other stores). */
 type ItemStore = IDBPObjectStore<
@@ -89,9 +84,69 @@ export function applyTapEffect(cached: CachedRound, effect: TapEffect): CachedRo
   return { ...cached, round: { ...cached.round, items, progress } };
 }
 
+type RoundTx = IDBPTransaction<RacksideSchema, ('outbox' | 'rounds' | 'roundItems')[], 'readwrite'>;
+
+/** Replaces a stored round (header and items) inside the caller's transaction. */
+function writeRound(tx: RoundTx, cached: CachedRound): Promise<unknown>[] {
+  const { items, progress: _counted, ...header } = cached.round;
+  const itemStore = tx.objectStore('roundItems');
+  const writes: Promise<unknown>[] = [itemStore.delete(itemsOf(cached.key))];
+  for (const item of items)
+    writes.push(
+      itemStore.put({
+        roundKey: cached.key,
+        animalId: item.animal.id,
+        timeZone: header.timeZone,
+        item,
+      }),
+    );
+  writes.push(
+    tx.objectStore('rounds').put({
+      key: cached.key,
+      userId: cached.userId,
+      collectionId: cached.collectionId,
+      day: cached.day,
+      header,
+      order: items.map((i) => i.animal.id),
+      fetchedAt: cached.fetchedAt,
+      ...(cached.builtOnPhone ? { builtOnPhone: true } : {}),
+      ...(cached.unsettled?.length ? { unsettled: cached.unsettled } : {}),
+    }),
+  );
+  return writes;
+}
+
 /**
- * Keeps the server's copy of a round, with this person's unsent taps applied on top so the
- * screen never loses a tap that is still on its way.
+ * Taps the phone showed on its own copy of a day that the server's round for the same day does
+ * not hold (an animal the server has no card for, a tap it refused): kept and shown, never
+ * silently dropped (issue 22, point 3).
+ */
+async function unsettledTaps(
+  tx: RoundTx,
+  key: string,
+  round: RoundResponse,
+  waiting: ReadonlySet<string>,
+): Promise<UnsettledTap[]> {
+  const before = await tx.objectStore('rounds').get(key);
+  if (!before || before.header.date !== round.date) return [];
+  const known = new Set(round.items.flatMap((i) => i.outcomes.map((o) => o.eventId)));
+  const lost: UnsettledTap[] = (before.unsettled ?? []).filter((t) => !known.has(t.eventId));
+  for (const { item } of await tx.objectStore('roundItems').getAll(itemsOf(key)))
+    for (const o of item.outcomes)
+      if (!known.has(o.eventId) && !waiting.has(o.eventId))
+        lost.push({
+          eventId: o.eventId,
+          animalName: item.animal.name,
+          labelCode: item.animal.labelCode,
+          kind: o.kind,
+          at: o.at,
+        });
+  return lost;
+}
+
+/**
+ * Keeps the server's copy of a round, with this person's unsent taps of that day applied on
+ * top so the screen never loses a tap that is still on its way.
  */
 export async function storeServerRound(
   db: RacksideDb,
@@ -103,37 +158,64 @@ export async function storeServerRound(
 ): Promise<CachedRound> {
   const tx = db.transaction(['outbox', 'rounds', 'roundItems'], 'readwrite');
   const done = transactionDone(tx);
+  const key = roundKey(userId, collectionId, day);
+  // A tap belongs to the day it was made on: yesterday's taps still waiting for a signal
+  // never count on today's round.
   const waiting = (await tx.objectStore('outbox').index('byUser').getAll(userId))
-    .filter((e) => e.collectionId === collectionId)
+    .filter(
+      (e) =>
+        e.collectionId === collectionId &&
+        localDateOf(new Date(e.event.clientRecordedAt), round.timeZone) === round.date,
+    )
     .sort((a, b) => a.seq! - b.seq!);
   let merged = round;
+  let unsettled: UnsettledTap[] = [];
   if (day === 'today') {
     const known = new Set(round.items.flatMap((i) => i.outcomes.map((o) => o.eventId)));
     for (const e of waiting)
       if (!known.has(e.event.id))
         merged = withOutcome(merged, e.event.animalId, outcomeOf(e.event, e.byName));
+    unsettled = await unsettledTaps(tx, key, round, new Set(waiting.map((e) => e.event.id)));
   }
+  const cached: CachedRound = {
+    key,
+    userId,
+    collectionId,
+    day,
+    round: merged,
+    fetchedAt: fetchedAt.toISOString(),
+    ...(unsettled.length ? { unsettled } : {}),
+  };
+  await Promise.all([...writeRound(tx, cached), done]);
+  return cached;
+}
+
+/**
+ * Keeps a round the phone built itself (day-on-phone.ts): its taps are already in it, and
+ * `dataAsOf` is when the state it was built from left the server.
+ */
+export async function storePhoneRound(
+  db: RacksideDb,
+  userId: string,
+  collectionId: string,
+  day: RoundDay,
+  round: RoundResponse,
+  dataAsOf: string,
+): Promise<CachedRound> {
+  const tx = db.transaction(['outbox', 'rounds', 'roundItems'], 'readwrite');
+  const done = transactionDone(tx);
   const key = roundKey(userId, collectionId, day);
-  const { items, progress: _counted, ...header } = merged;
-  const itemStore = tx.objectStore('roundItems');
-  const writes: Promise<unknown>[] = [itemStore.delete(itemsOf(key))];
-  for (const item of items)
-    writes.push(
-      itemStore.put({ roundKey: key, animalId: item.animal.id, timeZone: merged.timeZone, item }),
-    );
-  writes.push(
-    tx.objectStore('rounds').put({
-      key,
-      userId,
-      collectionId,
-      day,
-      header,
-      order: items.map((i) => i.animal.id),
-      fetchedAt: fetchedAt.toISOString(),
-    }),
-  );
-  await Promise.all([...writes, done]);
-  return { key, userId, collectionId, day, round: merged, fetchedAt: fetchedAt.toISOString() };
+  const cached: CachedRound = {
+    key,
+    userId,
+    collectionId,
+    day,
+    round,
+    fetchedAt: dataAsOf,
+    builtOnPhone: true,
+  };
+  await Promise.all([...writeRound(tx, cached), done]);
+  return cached;
 }
 
 /** The phone's copy of a round, put back together in walk order. */
@@ -159,5 +241,7 @@ export async function cachedRound(
     day,
     round: { ...stored.header, items, progress: progressOf(items) },
     fetchedAt: stored.fetchedAt,
+    ...(stored.builtOnPhone ? { builtOnPhone: true } : {}),
+    ...(stored.unsettled ? { unsettled: stored.unsettled } : {}),
   };
 }

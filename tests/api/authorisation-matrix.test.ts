@@ -185,6 +185,11 @@ const TABLE: Record<string, Row> = {
     allowed: 200,
     call: (f) => ({ path: `${f.c}/rounds/tomorrow` }),
   },
+  'GET /api/collections/:collectionId/rounds/engine-input': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/rounds/engine-input` }),
+  },
   'GET /api/collections/:collectionId/prep-list': {
     access: 'keeper',
     allowed: 200,

@@ -31,7 +31,7 @@ import { helperReportsResponse } from '#shared/schemas/helper-reports';
 import { importResponse } from '#shared/schemas/import';
 import { relabelResponse } from '#shared/schemas/labels';
 import { locationListResponse, locationResponse } from '#shared/schemas/locations';
-import { roundResponse, scheduleResponse } from '#shared/schemas/rounds';
+import { engineInputResponse, roundResponse, scheduleResponse } from '#shared/schemas/rounds';
 import { rulesResponse } from '#shared/schemas/rules';
 import { collections, coverReports } from '../../server/db/schema/collections';
 import { addMember, animalBody, createAnimal, PASSWORD, signUp, type SignedUp } from '../factories';
@@ -151,6 +151,7 @@ describe('answers the app reads', () => {
     const a = owner.agent;
     expectShape(await a.get(`${base()}/rounds/today`), roundResponse);
     expectShape(await a.get(`${base()}/rounds/tomorrow`), roundResponse);
+    expectShape(await a.get(`${base()}/rounds/engine-input`), engineInputResponse);
     expectShape(await a.get(`${base()}/events?animalId=${femaleId}&limit=2000`), historyResponse);
     expectShape(await a.get(`${base()}/animals/${femaleId}/schedule`), scheduleResponse);
     expectShape(

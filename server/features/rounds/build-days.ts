@@ -2,11 +2,11 @@
 // midnight, or by the first request of the day, whichever comes first.
 import { localDateOf, type LocalDate } from '#shared/domain/local-dates';
 import { buildRound, type RoundItem, type RoundTask } from '#shared/domain/rounds/build-round';
+import type { BuiltPart } from '#shared/domain/rounds/round-view';
 import { postMoltHoldDays } from '#shared/domain/rounds/rules';
 import type { RoundResponse } from '#shared/schemas/rounds';
 import type { Db } from '../../db/client';
 import { rulesOf, toEngineAnimal, type RoundInput } from './round-input';
-import type { BuiltPart } from './round-view';
 import {
   claimRound,
   collectionsWithLatestRound,

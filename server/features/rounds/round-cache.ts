@@ -5,9 +5,9 @@
 import { createHash } from 'node:crypto';
 import { gzipSync } from 'node:zlib';
 import type { LocalDate } from '#shared/domain/local-dates';
+import { viewItem, type BuiltPart, type ViewInput } from '#shared/domain/rounds/round-view';
 import { progressOf, type DayOutcome } from '#shared/domain/rounds/settle';
 import type { RoundItemView } from '#shared/schemas/rounds';
-import { viewItem, type BuiltPart, type ViewInput } from './round-view';
 
 export interface SerialisedRound {
   etag: string;

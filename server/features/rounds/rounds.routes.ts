@@ -35,6 +35,18 @@ export function roundsRoutes(rounds: RoundsService, member: Member) {
     res.json(await rounds.tomorrowPreview(collectionId(res)));
   });
 
+  // What a keeper's phone needs to build the next days itself with no signal (decision 015).
+  // Helpers are not sent it: it describes every animal, and their cover is today's round.
+  // It changes only with the collection's counters and its local date: 304 while they stand.
+  router.get('/engine-input', member('keeper'), async (req, res) => {
+    const m = membershipOf(res);
+    const etag = `"engine-${m.revision.records}-${m.revision.events}-${rounds.today(m)}"`;
+    res.setHeader('Cache-Control', 'private, no-cache');
+    res.setHeader('ETag', etag);
+    if (req.fresh) return void res.status(304).end();
+    res.json(await rounds.engineInputFor(m.collectionId));
+  });
+
   return router;
 }
 

@@ -1,13 +1,17 @@
 import { addDays, localDateOf, type LocalDate } from '#shared/domain/local-dates';
-import { buildRound, decideAnimal } from '#shared/domain/rounds/build-round';
-import { postMoltHoldDays } from '#shared/domain/rounds/rules';
-import type { RoundResponse, ScheduleResponse } from '#shared/schemas/rounds';
+import { decideAnimal } from '#shared/domain/rounds/build-round';
+import { roundView, unbuiltRound, type BuiltPart } from '#shared/domain/rounds/round-view';
+import {
+  engineAnimalOf,
+  type EngineInputResponse,
+  type RoundResponse,
+  type ScheduleResponse,
+} from '#shared/schemas/rounds';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
 import { createRoundBuilder } from './build-days';
 import { createRoundJson, LatestByKey, serialiseRound, type SerialisedRound } from './round-cache';
 import { createRoundInput, rulesOf } from './round-input';
-import { roundView, type BuiltPart } from './round-view';
 import { findRound, loadRoundItems, type RoundCollection } from './rounds.repository';
 import { createRulesService } from './rules.service';
 import { createUrgentTasks } from './urgent-tasks';
@@ -34,20 +38,27 @@ export function createRoundsService(db: Db, now: () => Date) {
   /** Tomorrow as things stand now (not materialised: today's outcomes still change it). */
   async function tomorrowPreview(collectionId: string): Promise<RoundResponse> {
     const c = await input.collectionOf(collectionId);
-    const date = addDays(today(c), 1);
-    const rules = rulesOf(c);
-    const round = buildRound(await input.engineInput(c), rules, date);
-    const items = round.items.map((i) => ({
-      ...i,
-      addedDuringDay: false,
-      postMoltHoldDays: postMoltHoldDays(rules, i.animal),
-    }));
-    return roundView(
-      c.timeZone,
-      date,
-      { builtAt: null, prepList: round.prepList, items },
-      new Map(),
-    );
+    return unbuiltRound(c.timeZone, addDays(today(c), 1), await input.engineInput(c), rulesOf(c));
+  }
+
+  /**
+   * What the phone needs to build a day itself with no signal: each animal as the engine sees
+   * it now (today's records and handover holds included) and the rules as stored — the phone
+   * merges them with the defaults exactly as `rulesOf` does.
+   */
+  async function engineInputFor(collectionId: string): Promise<EngineInputResponse> {
+    const c = await input.collectionOf(collectionId);
+    return {
+      collectionId: c.id,
+      timeZone: c.timeZone,
+      date: today(c),
+      asOf: now().toISOString(),
+      rules: (c.rules ?? {}) as EngineInputResponse['rules'],
+      // Animals no longer in the collection are never on a round (R12): not worth the space.
+      animals: (await input.engineInput(c))
+        .filter(({ animal }) => animal.status === 'active')
+        .map(({ animal, state }) => ({ animal: engineAnimalOf(animal), state })),
+    };
   }
 
   // Today's round per collection, kept while the collection's change counters stand still:
@@ -101,6 +112,7 @@ export function createRoundsService(db: Db, now: () => Date) {
     },
 
     tomorrowPreview,
+    engineInputFor,
 
     async prepList(collectionId: string, date: LocalDate) {
       const c = await input.collectionOf(collectionId);

@@ -1,123 +1,16 @@
 // Properties of the round engine over generated collections and histories (fast-check).
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ANIMAL_GROUPS, DIETS, SEXES, stagesOf } from '../animal-facts';
-import type { EventKind } from '../event-kinds';
-import { addDays, startOfLocalDate } from '../local-dates';
+import { addDays } from '../local-dates';
 import { projectState, type EngineEvent } from './animal-state';
 import { buildRound, decideAnimal, FEED_HOLD_CODES, type EngineAnimal } from './build-round';
 import { foodOf } from './care-profiles';
+import { generatedCollection } from './generated-collections.test-support';
 import { DEFAULT_RULES, postMoltHoldDays } from './rules';
 
 const ZONE = 'America/Toronto';
 const TODAY = '2026-11-02'; // the day after the autumn DST change: histories cross it
-const KINDS: EventKind[] = [
-  'ate',
-  'ate',
-  'ate',
-  'refused',
-  'refused',
-  'prey_left_in',
-  'prey_removed',
-  'watered',
-  'molted',
-  'premolt_seen',
-  'premolt_cleared',
-  'molting_now',
-  'sac_laid',
-  'sac_pulled',
-  'sac_hatched',
-  'case_laid',
-  'brood_started',
-  'brood_dispersed',
-  'paired',
-  'skipped',
-  'note',
-  'moved',
-];
-
-const animalArb = (i: number) =>
-  fc
-    .record({
-      // Any group, in a stage that group has (docs/care-rules.md § Stages).
-      groupAndStage: fc
-        .constantFrom(...ANIMAL_GROUPS)
-        .chain((group) => fc.tuple(fc.constant(group), fc.constantFrom(...stagesOf(group)))),
-      sex: fc.constantFrom(...SEXES),
-      diet: fc.option(fc.constantFrom(...DIETS)),
-      hasWaterDish: fc.boolean(),
-      sizeMm: fc.option(fc.integer({ min: 5, max: 200 }), { freq: 5 }),
-      doNotFeedUntil: fc.option(
-        fc.integer({ min: -3, max: 5 }).map((d) => addDays(TODAY, d)),
-        { freq: 3 },
-      ),
-      addedDaysAgo: fc.integer({ min: 0, max: 70 }),
-      rack: fc.constantFrom('A', 'B', 'C'),
-      shelf: fc.integer({ min: 1, max: 12 }),
-      position: fc.integer({ min: 1, max: 12 }),
-    })
-    .map((r): EngineAnimal => ({
-      id: `a${i}`,
-      labelCode: `NL-${i}`,
-      name: `A${i}`,
-      scientificName: 'Tliltocatl albopilosus',
-      group: r.groupAndStage[0],
-      lifeStage: r.groupAndStage[1],
-      sex: r.sex,
-      sizeMm: r.sizeMm,
-      status: 'active',
-      cautions: [],
-      location: {
-        id: `l${i}`,
-        room: 'R',
-        rack: r.rack,
-        shelf: String(r.shelf),
-        position: String(r.position),
-        walkOrder: 0,
-      },
-      hasWaterDish: r.hasWaterDish,
-      intervalDays: null,
-      preyType: null,
-      preySize: null,
-      preyCount: null,
-      diet: r.diet,
-      doNotFeedUntil: r.doNotFeedUntil,
-      addedOn: addDays(TODAY, -r.addedDaysAgo),
-    }));
-
-const historyArb = (animalIndex: number) =>
-  fc
-    .array(
-      fc.record({
-        kind: fc.constantFrom(...KINDS),
-        daysAgo: fc.integer({ min: 1, max: 60 }),
-        minute: fc.integer({ min: 0, max: 1439 }),
-        prey: fc.constantFrom('cricket', 'roach nymph', 'mealworm'),
-        rehoused: fc.boolean(),
-      }),
-      { maxLength: 25 },
-    )
-    .map((list) =>
-      list.map((e, j): EngineEvent => ({
-        id: `e${animalIndex}-${j}`,
-        kind: e.kind,
-        effectiveAt: new Date(
-          startOfLocalDate(addDays(TODAY, -e.daysAgo), ZONE).getTime() + e.minute * 60_000,
-        ).toISOString(),
-        payload:
-          e.kind === 'prey_left_in'
-            ? { preyType: e.prey }
-            : e.kind === 'moved'
-              ? { toLocationId: 'l', rehoused: e.rehoused }
-              : {},
-      })),
-    );
-
-const collectionArb = fc
-  .integer({ min: 1, max: 25 })
-  .chain((n) =>
-    fc.tuple(...Array.from({ length: n }, (_, i) => fc.tuple(animalArb(i), historyArb(i)))),
-  );
+const collectionArb = generatedCollection(TODAY, ZONE);
 
 function build(collection: [EngineAnimal, EngineEvent[]][], date = TODAY) {
   return buildRound(

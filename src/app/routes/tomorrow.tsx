@@ -1,4 +1,9 @@
-import { describeLocalDate } from '#shared/domain/local-dates';
+import {
+  addDays,
+  describeInstant,
+  describeLocalDate,
+  localDateOf,
+} from '#shared/domain/local-dates';
 import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { Button } from '@/components/ui/button';
@@ -18,14 +23,32 @@ export function TomorrowRoute() {
 }
 
 function Tomorrow({ userId, collectionId }: { userId: string; collectionId: string }) {
-  const { local, server } = useRound(userId, collectionId, 'tomorrow');
+  const { local, server } = useRound(userId, collectionId, 'tomorrow', { buildsOffline: true });
   if (local.isPending || (!local.data && server.isPending))
     return <Loading label="Working out tomorrow…" />;
   if (!local.data) return <RoundUnavailable error={server.error} what="tomorrow’s preview" />;
-  const r = local.data.round;
+  const { round: r, builtOnPhone, fetchedAt } = local.data;
+  // A preview kept from an earlier day is for a day that has begun: never called "tomorrow".
+  const isTomorrow = r.date === addDays(localDateOf(new Date(), r.timeZone), 1);
   return (
     <div className="flex flex-col gap-4">
-      <h1 className="text-3xl font-extrabold">Tomorrow · {describeLocalDate(r.date)}</h1>
+      <h1 className="text-3xl font-extrabold">
+        {isTomorrow ? 'Tomorrow' : 'Preview'} · {describeLocalDate(r.date)}
+      </h1>
+      {!isTomorrow && (
+        <Notice
+          tone="warning"
+          title={`This preview was made for ${describeLocalDate(r.date)}, which has begun.`}
+        >
+          Tomorrow’s preview comes with the next signal. Today’s round is on the Today page.
+        </Notice>
+      )}
+      {builtOnPhone && isTomorrow && (
+        <Notice tone="info" title="Built on this phone">
+          Worked out here from the records this phone had on{' '}
+          {describeInstant(fetchedAt, r.timeZone)} and the taps made since.
+        </Notice>
+      )}
       <p className="text-muted print:hidden">
         A preview: what is recorded today still changes it. The round is fixed when its day begins.
       </p>

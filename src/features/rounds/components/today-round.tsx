@@ -1,11 +1,17 @@
 import { useCallback, useMemo, useState, type ReactNode } from 'react';
 import { EVENT_WORDS } from '#shared/domain/event-kinds';
-import { clockTime, describeLocalDate, localDateOf } from '#shared/domain/local-dates';
+import {
+  clockTime,
+  describeInstant,
+  describeLocalDate,
+  localDateOf,
+} from '#shared/domain/local-dates';
 import type { RecordedEvent } from '#shared/schemas/events';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { ApiError } from '@/lib/api-client';
+import type { UnsettledTap } from '@/lib/db';
 import { useRound } from '../api/get-round';
 import { useRecordMany, useRecordOutcome } from '../api/record-outcome';
 import { filterItems, ROUND_FILTERS, type RoundFilter } from '../filter-items';
@@ -40,6 +46,8 @@ export interface TodayRoundProps {
   moltDetails?: (slot: MoltDetailsSlot) => ReactNode;
   /** Link each card to its animal's page (keepers and owners; helpers may not open it). */
   openRecord?: boolean;
+  /** Keep the engine's input so the phone can build the next days with no signal (keepers). */
+  buildsOffline?: boolean;
 }
 
 /** Today's round at the rack: the phone's copy, one-tap outcomes, filters, trays and undo. */
@@ -50,8 +58,9 @@ export function TodayRound({
   extras,
   moltDetails,
   openRecord,
+  buildsOffline,
 }: TodayRoundProps) {
-  const { local, server } = useRound(userId, collectionId, 'today');
+  const { local, server } = useRound(userId, collectionId, 'today', { buildsOffline });
   const timeZone = local.data?.round.timeZone ?? 'UTC';
   const record = useRecordOutcome({ userId, byName: myName, collectionId });
   const recordMany = useRecordMany({ userId, byName: myName, collectionId });
@@ -116,23 +125,37 @@ export function TodayRound({
     );
   if (!local.data) return <RoundUnavailable error={server.error} what="today’s round" />;
 
-  const { round, fetchedAt } = local.data;
+  const { round, fetchedAt, builtOnPhone, unsettled } = local.data;
   const today = localDateOf(new Date(), round.timeZone);
   const undo = (t: LastTap) => void record(t.animal, 'void', { targetId: t.event.id });
+  const dataTime = describeInstant(fetchedAt, round.timeZone);
 
   return (
     <div className="flex flex-col gap-3">
       {round.date < today && (
-        <Notice tone="warning" title={`This is the round for ${describeLocalDate(round.date)}.`}>
-          Today’s round comes with the next signal. Taps made now are still saved with their time.
+        <Notice
+          tone="warning"
+          title={`Not today’s round: this is the round for ${describeLocalDate(round.date)}.`}
+        >
+          Today’s round comes with the next signal. Taps made now are still saved with their time
+          and count on the day they were made.
         </Notice>
+      )}
+      {builtOnPhone && round.date === today && (
+        <Notice tone="info" title="Built on this phone">
+          Worked out here from the records this phone had on {dataTime} and the taps made since. The
+          server’s round takes its place with the next signal; taps made on this one are kept.
+        </Notice>
+      )}
+      {unsettled && unsettled.length > 0 && (
+        <UnsettledTaps taps={unsettled} zone={round.timeZone} />
       )}
       {server.isError && (
         <p className="text-sm font-bold text-muted">
           {server.error instanceof ApiError && server.error.status === 0
             ? 'No signal'
             : server.error.message}{' '}
-          · showing this phone’s copy from {clockTime(fetchedAt, round.timeZone)}
+          · showing this phone’s copy {builtOnPhone ? 'built from records of' : 'from'} {dataTime}
         </p>
       )}
       <ProgressBar done={round.progress.done} total={round.progress.total} />
@@ -162,5 +185,27 @@ export function TodayRound({
         />
       )}
     </div>
+  );
+}
+
+/**
+ * Taps this phone showed on its own round that the server's round for the day has no place for
+ * (an animal it does not list today, a tap it refused): said plainly, never dropped in silence.
+ */
+function UnsettledTaps({ taps, zone }: { taps: UnsettledTap[]; zone: string }) {
+  return (
+    <Notice tone="warning" title="Recorded on this phone, not on the server’s round">
+      <p>
+        The server’s round for today has no card for these taps. Each is in its animal’s history, or
+        under “Needs attention” if the server refused it.
+      </p>
+      <ul className="mt-1 list-disc pl-5">
+        {taps.map((t) => (
+          <li key={t.eventId}>
+            {EVENT_WORDS[t.kind]} · {t.animalName} ({t.labelCode}) · {clockTime(t.at, zone)}
+          </li>
+        ))}
+      </ul>
+    </Notice>
   );
 }

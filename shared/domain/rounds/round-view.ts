@@ -1,8 +1,10 @@
 // A round as the API answers it: each built item settled by the day's outcomes (pure).
-import type { LocalDate } from '#shared/domain/local-dates';
-import type { EngineAnimal, RoundItem, RoundTask } from '#shared/domain/rounds/build-round';
-import { progressOf, settleItem, type DayOutcome } from '#shared/domain/rounds/settle';
-import type { RoundItemView, RoundResponse } from '#shared/schemas/rounds';
+import type { RoundItemView, RoundResponse } from '../../schemas/rounds';
+import type { LocalDate } from '../local-dates';
+import type { AnimalState } from './animal-state';
+import { buildRound, type EngineAnimal, type RoundItem, type RoundTask } from './build-round';
+import { postMoltHoldDays, type RoundRules } from './rules';
+import { progressOf, settleItem, type DayOutcome } from './settle';
 
 /** One item as built (stored, or worked out for tomorrow), before the day's outcomes. */
 export type ViewInput = {
@@ -66,4 +68,25 @@ export function roundView(
     prepList: part.prepList,
     progress: progressOf(items),
   };
+}
+
+/**
+ * A day's round worked out from the engine's input and not stored: tomorrow's preview on the
+ * server, and a day the phone builds itself when it has no signal. One function for both, so
+ * the two cannot drift apart (issue: days without signal, point 5).
+ */
+export function unbuiltRound(
+  zone: string,
+  date: LocalDate,
+  animals: readonly { animal: EngineAnimal; state: AnimalState }[],
+  rules: RoundRules,
+  outcomes: Map<string, DayOutcome[]> = new Map(),
+): RoundResponse {
+  const round = buildRound(animals, rules, date);
+  const items = round.items.map((i) => ({
+    ...i,
+    addedDuringDay: false,
+    postMoltHoldDays: postMoltHoldDays(rules, i.animal),
+  }));
+  return roundView(zone, date, { builtAt: null, prepList: round.prepList, items }, outcomes);
 }
