@@ -4,6 +4,7 @@
 import 'fake-indexeddb/auto';
 import { randomUUID } from 'node:crypto';
 import { performance } from 'node:perf_hooks';
+import { localDateOf } from '#shared/domain/local-dates';
 import { SYNC_BATCH_SIZE } from '#shared/domain/sync-limits';
 import type { RecordedEvent } from '#shared/schemas/events';
 import { findMembership } from '../server/access/memberships';
@@ -73,7 +74,11 @@ export async function runP5(database: Database): Promise<{ figures: Figure[]; no
       now: () => new Date(),
       feedHolds: rounds.feedHolds,
       onRecorded: [
-        (c, recorded) => rounds.reconcileToday(c.collectionId, animalsToReconcile(recorded)),
+        (c, recorded) =>
+          rounds.reconcileToday(
+            c.collectionId,
+            animalsToReconcile(recorded, c.timeZone, localDateOf(new Date(), c.timeZone)),
+          ),
       ],
     });
     const member = (await findMembership(database.db, keeper.collectionId, keeper.userId))!;

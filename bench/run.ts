@@ -2,6 +2,7 @@
 import pg from 'pg';
 import { connectDatabase } from '../server/db/client';
 import { migrateDatabase } from '../server/db/migrate';
+import { runOffEngineInput } from './off-engine-input';
 import { runP1 } from './p1-tap-latency';
 import { runP2, runP3, runP4 } from './p2-p4-pages';
 import { runP5 } from './p5-sync-flush';
@@ -24,6 +25,7 @@ const BENCHES: Record<
   P7: runP7,
   T1: runT1,
   'S6-TIMING': runS6Timing,
+  'OFF-1K': runOffEngineInput,
 };
 
 const url = process.env.BENCH_DATABASE_URL;

@@ -1,6 +1,7 @@
 import path from 'node:path';
 import compression from 'compression';
 import express from 'express';
+import { localDateOf } from '#shared/domain/local-dates';
 import type { Role } from '#shared/domain/roles';
 import { createBackground } from './background';
 import type { Database } from './db/client';
@@ -165,7 +166,11 @@ export function createApp(options: AppOptions) {
     // Facts that start or lift a hold, or leave prey with a molting animal, change today's
     // round at once (R18): the events feature knows nothing of rounds.
     onRecorded: [
-      (c, recorded) => rounds.reconcileToday(c.collectionId, animalsToReconcile(recorded)),
+      (c, recorded) =>
+        rounds.reconcileToday(
+          c.collectionId,
+          animalsToReconcile(recorded, c.timeZone, localDateOf(now(), c.timeZone)),
+        ),
     ],
   });
   const photos = createPhotosService(database.db, path.resolve(env.STORAGE_DIR), now);

@@ -43,6 +43,10 @@ function schedule(delayMs: number) {
 }
 
 let afterSaved: (() => void) | undefined;
+let saves = 0;
+
+/** How many flushes have had taps acknowledged or refused since the page loaded. */
+export const timesSaved = () => saves;
 
 function publish(status: SyncStatus) {
   current = status;
@@ -56,7 +60,10 @@ async function flushNow() {
   const mine = engine;
   const result = await mine.flush();
   if (mine !== engine) return;
-  if (result.acknowledged || result.refused) afterSaved?.();
+  if (result.acknowledged || result.refused) {
+    saves += 1;
+    afterSaved?.();
+  }
   const { phase, failures } = mine.status();
   // Signed out waits for a sign-in; anything else that failed tries again later.
   if (!result.ok && phase !== 'signed_out') schedule(backoffDelay(failures));

@@ -190,4 +190,37 @@ describe('a day built on the phone, then synced', () => {
     // it stood before that day, and shows the phone's taps as done.
     expect(strip(roundResponse.parse(server1))).toEqual(roundResponse.parse(onPhone1));
   });
+
+  it('withdraws today’s feed task when a meal from a day without signal arrives after the round was built', async () => {
+    const [juniper] = await smallCollection();
+    const day1 = addDays(DAY, 1);
+    const day2 = addDays(DAY, 2);
+    // The server builds the second day's round at its midnight, before the phone is back.
+    ctx.setNow(at(0.1, day2));
+    const before = (await owner.agent.get(`${base()}/rounds/today`).expect(200)).body;
+    const feedOf = (round: typeof before) =>
+      round.items
+        .find((i: { animal: { id: string } }) => i.animal.id === juniper!.id)
+        ?.tasks.find((t: { kind: string }) => t.kind === 'feed');
+    expect(feedOf(before)?.withdrawn ?? null).toBeNull();
+    ctx.setNow(at(12, day2));
+    await sendTaps(
+      [
+        {
+          event: {
+            id: randomUUID(),
+            animalId: juniper!.id,
+            kind: 'ate',
+            payload: {},
+            clientRecordedAt: at(8, day1).toISOString(),
+          },
+          byName: 'Test Keeper',
+        },
+      ],
+      at(12, day2),
+    );
+    const after = (await owner.agent.get(`${base()}/rounds/today`).expect(200)).body;
+    expect(feedOf(after)?.withdrawn?.text).toMatch(/^Not due any more/);
+    expect(after.progress.total).toBe(before.progress.total - 1);
+  });
 });

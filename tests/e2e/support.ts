@@ -23,6 +23,10 @@ export interface E2eServer {
   baseUrl: string;
   /** Seeds the demo afresh when the collection's local day has turned since the last seed. */
   reseedIfDayTurned(): Promise<void>;
+  /** Stops answering (connections refused), as a server out of reach does. */
+  stop(): Promise<void>;
+  /** Answers again on the same address. */
+  resume(): Promise<void>;
   close(): Promise<void>;
 }
 
@@ -35,10 +39,20 @@ export async function startServer(): Promise<E2eServer> {
   const ctx = await createTestContext({ distDir, publicUrl: undefined });
   await seedDemo(ctx.database.db, { bcryptCost: 10 });
   let seededFor = demoToday();
-  const server = await new Promise<import('node:http').Server>((resolve) => {
-    const s = ctx.app.listen(0, '127.0.0.1', () => resolve(s));
-  });
-  baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+  const listen = (port: number) =>
+    new Promise<import('node:http').Server>((resolve) => {
+      const s = ctx.app.listen(port, '127.0.0.1', () => resolve(s));
+    });
+  let server: import('node:http').Server | null = await listen(0);
+  const port = (server.address() as AddressInfo).port;
+  baseUrl = `http://127.0.0.1:${port}`;
+  const stop = async () => {
+    if (!server) return;
+    const s = server;
+    server = null;
+    s.closeAllConnections();
+    await new Promise((r) => s.close(r));
+  };
   return {
     ctx,
     baseUrl,
@@ -49,9 +63,12 @@ export async function startServer(): Promise<E2eServer> {
       await seedDemo(ctx.database.db, { bcryptCost: 10, reset: true });
       seededFor = demoToday();
     },
+    stop,
+    async resume() {
+      server ??= await listen(port);
+    },
     async close() {
-      server.closeAllConnections();
-      await new Promise((r) => server.close(r));
+      await stop();
       await ctx.close();
     },
   };

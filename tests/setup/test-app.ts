@@ -22,6 +22,8 @@ export interface TestContext {
   mailbox: DevMailbox;
   /** Moves the app's clock (cover windows, token expiry); pass null for the real clock. */
   setNow(date: Date | null): void;
+  /** Moves the server's clock by `ms` from real time (it keeps running), as a phone's may be. */
+  shiftClock(ms: number): void;
   /** A supertest agent that keeps cookies and sends the app's CSRF header. */
   agent(): ReturnType<typeof supertest.agent>;
   close(): Promise<void>;
@@ -62,12 +64,13 @@ export async function createTestContext(
     STORAGE_DIR: storageDir,
   });
   let fixed: Date | null = null;
+  let shift = 0;
   const { app, services, shutdown } = createApp({
     env,
     database,
     mailer,
     devMailbox: smtp.mailbox,
-    now: () => fixed ?? new Date(),
+    now: () => fixed ?? new Date(Date.now() + shift),
     publicUrl: options.publicUrl ?? 'http://rackside.test',
     authLimits: {
       signInPerIp: 10_000,
@@ -89,6 +92,9 @@ export async function createTestContext(
     mailbox: smtp.mailbox,
     setNow: (date) => {
       fixed = date;
+    },
+    shiftClock: (ms) => {
+      shift = ms;
     },
     agent: () => supertest.agent(app).set('X-Rackside-Client', '1'),
     async close() {

@@ -24,7 +24,7 @@ import { recordEvents, type DeviceEvent, type EventCollection } from './record-e
 
 export type OnRecorded = (
   collection: EventCollection,
-  recorded: { animalId: string; kind: EventKind }[],
+  recorded: { animalId: string; kind: EventKind; effectiveAt: Date }[],
 ) => Promise<void>;
 
 export interface EventsServiceOptions {
@@ -60,7 +60,7 @@ export function createEventsService(
     );
     const recorded = incoming
       .filter((e) => inserted.has(e.id))
-      .map(({ animalId, kind }) => ({ animalId, kind }));
+      .map(({ animalId, kind, effectiveAt }) => ({ animalId, kind, effectiveAt }));
     for (const hook of onRecorded) await hook(collection, recorded);
     return { inserted };
   }

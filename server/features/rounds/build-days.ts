@@ -16,16 +16,42 @@ import {
   type RoundCollection,
 } from './rounds.repository';
 
-export function createRoundBuilder(db: Db, now: () => Date, input: RoundInput) {
+/**
+ * Called after a round is built, with the instant its records were read: facts a sync
+ * committed while it was being built (their own reconciliation found no round yet) are
+ * brought onto it then.
+ */
+export type AfterBuild = (c: RoundCollection, date: LocalDate, readFrom: Date) => Promise<void>;
+
+export function createRoundBuilder(
+  db: Db,
+  now: () => Date,
+  input: RoundInput,
+  afterBuild?: AfterBuild,
+) {
   /**
    * Materialises the round for `date` once: the unique (collection, date) row is claimed in
    * the same transaction as the items, so concurrent builders (several server processes, the
    * job and a request) produce exactly one round.
    */
-  async function build(c: RoundCollection, date: LocalDate): Promise<{ created: boolean }> {
+  // Builds in progress in this process, with their reconciliation: a reader arriving meanwhile
+  // waits for them rather than reading a round whose late facts are still being applied.
+  const building = new Map<string, Promise<{ created: boolean }>>();
+
+  function build(c: RoundCollection, date: LocalDate): Promise<{ created: boolean }> {
+    const key = `${c.id}|${date}`;
+    const running = building.get(key);
+    if (running) return running.then(() => ({ created: false }));
+    const started = buildOnce(c, date).finally(() => building.delete(key));
+    building.set(key, started);
+    return started;
+  }
+
+  async function buildOnce(c: RoundCollection, date: LocalDate): Promise<{ created: boolean }> {
     if (await findRound(db, c.id, date)) return { created: false };
+    const readFrom = now();
     const round = buildRound(await input.engineInput(c, date), rulesOf(c), date);
-    return db.transaction(async (tx) => {
+    const result = await db.transaction(async (tx) => {
       const roundId = await claimRound(tx, c.id, date, round.prepList);
       if (!roundId) return { created: false };
       await insertRoundItems(
@@ -41,10 +67,13 @@ export function createRoundBuilder(db: Db, now: () => Date, input: RoundInput) {
       );
       return { created: true };
     });
+    if (result.created) await afterBuild?.(c, date, readFrom);
+    return result;
   }
 
   /** The built part of a day's round (built now if need be): what changes with the records. */
   async function builtPart(c: RoundCollection, date: LocalDate): Promise<BuiltPart> {
+    await building.get(`${c.id}|${date}`);
     let row = await findRound(db, c.id, date);
     if (!row) {
       await build(c, date);

@@ -55,6 +55,15 @@ export async function doNotFeedNotes(db: Db, collectionId: string, from: LocalDa
     );
 }
 
+/** Animals with events the server received at or after `since` (a sync that raced a build). */
+export async function animalsWithEventsSince(db: Db, collectionId: string, since: Date) {
+  const rows = await db
+    .selectDistinct({ animalId: events.animalId })
+    .from(events)
+    .where(and(eq(events.collectionId, collectionId), gte(events.serverReceivedAt, since)));
+  return rows.map((r) => r.animalId);
+}
+
 export async function findRound(db: Db, collectionId: string, date: LocalDate) {
   const [row] = await db
     .select()

@@ -12,7 +12,12 @@ import { HttpError } from '../../middleware/errors';
 import { createRoundBuilder } from './build-days';
 import { createRoundJson, LatestByKey, serialiseRound, type SerialisedRound } from './round-cache';
 import { createRoundInput, rulesOf } from './round-input';
-import { findRound, loadRoundItems, type RoundCollection } from './rounds.repository';
+import {
+  animalsWithEventsSince,
+  findRound,
+  loadRoundItems,
+  type RoundCollection,
+} from './rounds.repository';
 import { createRulesService } from './rules.service';
 import { createUrgentTasks } from './urgent-tasks';
 
@@ -22,7 +27,14 @@ import { createUrgentTasks } from './urgent-tasks';
  */
 export function createRoundsService(db: Db, now: () => Date) {
   const input = createRoundInput(db, now);
-  const builder = createRoundBuilder(db, now, input);
+  const urgent = createUrgentTasks(db, now, input);
+  // A sync received up to a minute before the build read the records may have committed after
+  // that read, with no round yet to reconcile: its animals are brought in line now.
+  const builder = createRoundBuilder(db, now, input, async (c, date, readFrom) => {
+    if (date !== localDateOf(now(), c.timeZone)) return;
+    const since = new Date(readFrom.getTime() - 60_000);
+    await urgent.reconcileToday(c.id, await animalsWithEventsSince(db, c.id, since));
+  });
   const roundJson = createRoundJson();
   const today = (c: { timeZone: string }): LocalDate => localDateOf(now(), c.timeZone);
 
@@ -152,7 +164,7 @@ export function createRoundsService(db: Db, now: () => Date) {
       };
     },
 
-    ...createUrgentTasks(db, now, input),
+    ...urgent,
     ...createRulesService(db, input),
   };
 }

@@ -24,12 +24,24 @@ export const SAME_DAY_TRIGGERS: readonly EventKind[] = [
   'void',
 ];
 
-/** The animals whose newly recorded facts may change today's round. */
+/**
+ * The animals whose newly recorded facts may change today's round: same-day triggers, and any
+ * fact from an earlier day (a phone's taps from days without signal arrive after today's round
+ * was built from the records it had).
+ */
 export function animalsToReconcile(
-  recorded: readonly { animalId: string; kind: EventKind }[],
+  recorded: readonly { animalId: string; kind: EventKind; effectiveAt: Date }[],
+  zone: string,
+  today: LocalDate,
 ): string[] {
   return [
-    ...new Set(recorded.filter((e) => SAME_DAY_TRIGGERS.includes(e.kind)).map((e) => e.animalId)),
+    ...new Set(
+      recorded
+        .filter(
+          (e) => SAME_DAY_TRIGGERS.includes(e.kind) || localDateOf(e.effectiveAt, zone) < today,
+        )
+        .map((e) => e.animalId),
+    ),
   ];
 }
 
@@ -51,6 +63,13 @@ export function createUrgentTasks(db: Db, now: () => Date, input: RoundInput) {
       );
       const outcomes = await input.outcomesByAnimal(c, date, animalIds);
       const rules = rulesOf(c);
+      // As the build would see them now: the facts of the days before today only.
+      const asBuilt = new Map(
+        (await input.engineInput(c, date, animalIds)).map(({ animal, state }) => [
+          animal.id,
+          decideAnimal(animal, state, rules, date),
+        ]),
+      );
       for (const { animal, state } of await input.engineInput(c, undefined, animalIds)) {
         const d = decideAnimal(animal, state, rules, date);
         const item = existing.get(animal.id);
@@ -60,6 +79,7 @@ export function createUrgentTasks(db: Db, now: () => Date, input: RoundInput) {
           state,
           outcomes.get(animal.id) ?? [],
           date,
+          asBuilt.get(animal.id),
         );
         if (urgent) {
           await upsertUrgentItem(db, {

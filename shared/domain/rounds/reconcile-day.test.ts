@@ -109,4 +109,30 @@ describe('reconcileTasks', () => {
       dates: [DAY],
     });
   });
+
+  it('withdraws a feed task a late meal from an earlier day makes not due, with the next date; water stays', () => {
+    // Issue 22: a phone's taps from days without signal arrive after today's round was built.
+    const lateMeal = event('late', 'ate', '2026-12-01', 19);
+    const { d, state } = decide([...history, lateMeal]);
+    const asBuilt = decideAnimal(
+      animal,
+      projectState([...history, lateMeal], ZONE, DAY),
+      DEFAULT_RULES,
+      DAY,
+    );
+    const r = reconcileTasks(planned, d, state, [], DAY, asBuilt);
+    expect(r.changed).toBe(true);
+    const feed = withdrawn(r.tasks, 'feed')!;
+    expect(feed.code).toBe('not_due');
+    expect(asBuilt.nextFeed! > DAY).toBe(true);
+    expect(feed.dates).toEqual([asBuilt.nextFeed]);
+    expect(feed.text).toMatch(
+      /^Not due any more: records from an earlier day arrived after this round was made \(next meal on \d+ \w{3}\)\.$/,
+    );
+    expect(withdrawn(r.tasks, 'water')).toBeNull();
+    // Fed today as well: the task is settled by today's meal, not withdrawn.
+    const today = event('t1', 'ate', DAY, 9);
+    const settled = reconcileTasks(planned, d, state, [outcome(today)], DAY, asBuilt);
+    expect(withdrawn(settled.tasks, 'feed')).toBeNull();
+  });
 });

@@ -3,6 +3,7 @@
 import type { LocalDate } from '../local-dates';
 import type { AnimalState } from './animal-state';
 import { FEED_HOLD_CODES, type AnimalDecision, type Reason, type RoundTask } from './build-round';
+import { shortDate } from './reason-words';
 import { liveOutcomes, settlingOutcome, type DayOutcome } from './settle';
 
 /** The first reason the engine withholds food from an animal, if any. */
@@ -16,6 +17,10 @@ export function feedHoldIn(d: AnimalDecision): Reason | null {
  * its water) with the reason in its place; a hold that was lifted gives the task back; prey
  * left with an animal now molting or in premolt becomes an urgent removal at the top. No new
  * feed task is added mid-day. `changed`: the tasks differ from `planned`.
+ *
+ * `asBuiltNow`, when given, is the decision the round's build would make now from the facts of
+ * the days before (a phone's taps from days without signal arrive after the round was built):
+ * a feed or water task it no longer gives is withdrawn with the next due date in its place.
  */
 export function reconcileTasks(
   planned: readonly RoundTask[],
@@ -23,6 +28,7 @@ export function reconcileTasks(
   state: AnimalState,
   outcomes: readonly DayOutcome[],
   date: LocalDate,
+  asBuiltNow?: AnimalDecision,
 ): { tasks: RoundTask[]; changed: boolean; urgent: boolean } {
   const hold = feedHoldIn(d);
   const live = liveOutcomes(outcomes);
@@ -31,7 +37,10 @@ export function reconcileTasks(
   let changed = false;
   const tasks = planned.map((t) => {
     const heldKind = t.kind === 'feed' || (t.kind === 'water' && leaveAlone);
-    const wanted = heldKind && hold && !settlingOutcome(t.kind, live) ? hold : null;
+    const settled = !!settlingOutcome(t.kind, live);
+    const wanted =
+      (heldKind && hold && !settled ? hold : null) ??
+      (asBuiltNow && !settled ? lapsed(t.kind, asBuiltNow) : null);
     if ((t.serverWithdrawn ?? null)?.text === wanted?.text) return t;
     changed = true;
     return { ...t, serverWithdrawn: wanted };
@@ -51,4 +60,16 @@ export function reconcileTasks(
     });
   }
   return { tasks, changed, urgent };
+}
+
+/** A feed or water task the build would no longer give, with when it is next due. */
+function lapsed(kind: RoundTask['kind'], built: AnimalDecision): Reason | null {
+  if (kind !== 'feed' && kind !== 'water') return null;
+  if (built.tasks.some((t) => t.kind === kind)) return null;
+  const next = kind === 'feed' ? built.nextFeed : built.nextWater;
+  return {
+    code: 'not_due',
+    text: `Not due any more: records from an earlier day arrived after this round was made${next ? ` (next ${kind === 'feed' ? 'meal' : 'top-up'} on ${shortDate(next)})` : ''}.`,
+    dates: next ? [next] : [],
+  };
 }

@@ -6,13 +6,17 @@ import { currentRound, storedEngineInput, storeEngineInput } from '@/lib/day-on-
 import { withDb, type RoundDay } from '@/lib/db';
 import { queryKeys } from '@/lib/query-keys';
 import { storeServerRound } from '@/lib/round-cache';
+import { timesSaved } from '@/lib/sync-driver';
 
 const REFRESH_EVERY_MS = 5 * 60_000;
 
 /** The server's copy, checked against the shared schema (loaded here, not with the first screen). */
-export async function getRound(collectionId: string, day: RoundDay) {
+export async function getRound(collectionId: string, day: RoundDay, signal?: AbortSignal) {
   const { roundResponse } = await import('#shared/schemas/rounds');
-  return apiRequest(`/collections/${collectionId}/rounds/${day}`, { schema: roundResponse });
+  return apiRequest(`/collections/${collectionId}/rounds/${day}`, {
+    schema: roundResponse,
+    signal,
+  });
 }
 
 /**
@@ -61,15 +65,22 @@ export function useRound(
   const local = useQuery(localRoundQueryOptions(userId, collectionId, day));
   const server = useQuery({
     queryKey: queryKeys.rounds.server(collectionId, day),
-    queryFn: async () => {
-      const round = await getRound(collectionId, day);
-      const cached = await withDb((db) =>
-        storeServerRound(db, userId, collectionId, day, round, new Date()),
-      );
-      queryClient.setQueryData(queryKeys.rounds.local(collectionId, day, userId), cached);
-      // With every sync (saved taps refresh the rounds), so the phone can build tomorrow.
-      if (buildsOffline) await refreshEngineInput(userId, collectionId).catch(() => undefined);
-      return cached.fetchedAt;
+    queryFn: async ({ signal }) => {
+      for (let attempt = 1; ; attempt++) {
+        const saved = timesSaved();
+        const round = await getRound(collectionId, day, signal);
+        // A fetch overtaken by a newer one must not store its older copy over the newer one.
+        signal.throwIfAborted();
+        const cached = await withDb((db) =>
+          storeServerRound(db, userId, collectionId, day, round, new Date()),
+        );
+        queryClient.setQueryData(queryKeys.rounds.local(collectionId, day, userId), cached);
+        // With every sync (saved taps refresh the rounds), so the phone can build tomorrow.
+        if (buildsOffline) await refreshEngineInput(userId, collectionId).catch(() => undefined);
+        // Taps saved while this fetch was under way may have changed the round, and the refresh
+        // they asked for joined this fetch: fetch once more (a few times at most).
+        if (timesSaved() === saved || attempt === 3) return cached.fetchedAt;
+      }
     },
     networkMode: 'always',
     retry: false,
