@@ -96,7 +96,7 @@ describe('the animal spreadsheet', () => {
   it('reads cautions by their labels too, each once', () => {
     const row = rowToAnimal({
       name: 'Pokey',
-      scientific_name: 'Poecilotheria metallica',
+      scientific_name: 'Omothymus schioedtei',
       stage: 'adult',
       cautions: 'Fast or defensive; potent venom, fast_defensive',
     });

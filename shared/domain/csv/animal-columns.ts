@@ -260,13 +260,13 @@ export function rowToAnimal(
     problems.set(
       'group',
       scientificName.trim()
-        ? `not given, and “${scientificName.trim().split(/\s+/)[0]}” is not a genus we know: choose a group above for rows that don’t say.`
-        : 'not given: choose a group above for rows that don’t say.',
+        ? `none given, and “${scientificName.trim().split(/\s+/)[0]}” is not a genus we know. Choose a group above for the rows that don’t say.`
+        : 'none given. Choose a group above for the rows that don’t say.',
     );
   const lifeStage =
     read('stage', readStage(cell('stage')), null) ?? choices.defaults?.stage ?? null;
   if (!lifeStage && !problems.has('stage'))
-    problems.set('stage', 'not given: choose a life stage above for rows that don’t say.');
+    problems.set('stage', 'none given. Choose one above for the rows that don’t say.');
   const sex = blank('sex')
     ? (choices.defaults?.sex ?? 'unknown')
     : read('sex', readSex(cell('sex')), 'unknown');

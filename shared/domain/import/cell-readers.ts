@@ -9,7 +9,7 @@ import {
   type Sex,
 } from '../animal-facts';
 import { presetFor } from '../genus-presets';
-import { describeLocalDate, type LocalDate } from '../local-dates';
+import type { LocalDate } from '../local-dates';
 import { MM_PER_INCH } from '../units';
 
 /**
@@ -88,9 +88,9 @@ export const SIZE_INPUT_UNITS = ['mm', 'cm', 'in'] as const;
 export type SizeInputUnit = (typeof SIZE_INPUT_UNITS)[number];
 const MM_PER: Record<SizeInputUnit, number> = { mm: 1, cm: 10, in: MM_PER_INCH };
 export const SIZE_UNIT_LABEL: Record<SizeInputUnit, string> = {
-  mm: 'millimetres (mm)',
-  cm: 'centimetres (cm)',
-  in: 'inches (in)',
+  mm: 'mm',
+  cm: 'cm',
+  in: 'inches',
 };
 
 const UNIT_WORDS: Record<string, SizeInputUnit> = {
@@ -226,11 +226,7 @@ export function readDate(cell: string, order: DateOrder | null): CellRead<LocalD
   if (n) {
     if (n.first > 12 && n.second > 12) return no(`“${text}” is not a date on the calendar.`);
     if (isAmbiguous(n) && !order) {
-      const r = readingsOf(n);
-      const say = (date: LocalDate) => describeLocalDate(date, true);
-      return no(
-        `“${text}” could be ${say(r['day-first'])} or ${say(r['month-first'])}: choose the date order above.`,
-      );
+      return no(`“${text}” could be day first or month first. Choose the date order above.`);
     }
     const dayFirst = n.first > 12 || (n.second <= 12 && order !== 'month-first');
     if (order === 'month-first' && n.first > 12)

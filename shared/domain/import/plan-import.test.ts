@@ -1,15 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { KEEPERS_SHEET } from '../../../tests/fixtures/keepers-sheet';
 import { readCsv } from '../csv/csv-file';
 import { firstSettings, planImport, questionsFor, type ImportSettings } from './plan-import';
-
-/** A keeper's own sheet, exactly as it came: no group or stage column, their own spellings. */
-const KEEPERS_SHEET = [
-  'Name,Species,Sex,Size,Acquired',
-  'Tilly,Grammostola pulchra,F,5in,03/04/2025',
-  'Bram,Brachypelma hamorii,M,4",2025-4-3',
-  'Sprout,Caribena versicolor,unsexed,2 cm,2025-04-03',
-  'Dot,Tliltocatl albopilosus,?,,',
-].join('\n');
 
 describe('a keeper’s own spreadsheet', () => {
   // RFC 4180 § 2.5 says a field not enclosed in double quotes may not contain one; `4"` (four
@@ -19,7 +11,7 @@ describe('a keeper’s own spreadsheet', () => {
     expect(table.headers).toEqual(['Name', 'Species', 'Sex', 'Size', 'Acquired']);
     expect(table.records.map((r) => r.cells)).toEqual([
       ['Tilly', 'Grammostola pulchra', 'F', '5in', '03/04/2025'],
-      ['Bram', 'Brachypelma hamorii', 'M', '4"', '2025-4-3'],
+      ['Bram', 'Aphonopelma chalcodes', 'M', '4"', '2025-4-3'],
       ['Sprout', 'Caribena versicolor', 'unsexed', '2 cm', '2025-04-03'],
       ['Dot', 'Tliltocatl albopilosus', '?', '', ''],
     ]);
@@ -59,13 +51,13 @@ describe('a keeper’s own spreadsheet', () => {
         2,
         'Tilly',
         [
-          'Life stage: not given: choose a life stage above for rows that don’t say.',
-          'Acquired on: “03/04/2025” could be Thu 3 Apr 2025 or Tue 4 Mar 2025: choose the date order above.',
+          'Life stage: none given. Choose one above for the rows that don’t say.',
+          'Acquired on: “03/04/2025” could be day first or month first. Choose the date order above.',
         ],
       ],
-      [3, 'Bram', ['Life stage: not given: choose a life stage above for rows that don’t say.']],
-      [4, 'Sprout', ['Life stage: not given: choose a life stage above for rows that don’t say.']],
-      [5, 'Dot', ['Life stage: not given: choose a life stage above for rows that don’t say.']],
+      [3, 'Bram', ['Life stage: none given. Choose one above for the rows that don’t say.']],
+      [4, 'Sprout', ['Life stage: none given. Choose one above for the rows that don’t say.']],
+      [5, 'Dot', ['Life stage: none given. Choose one above for the rows that don’t say.']],
     ]);
   });
 
@@ -90,7 +82,7 @@ describe('a keeper’s own spreadsheet', () => {
       ]),
     ).toEqual([
       ['Tilly', 'Grammostola pulchra', 'tarantula', 'juvenile', 'female', 127, '2025-04-03'],
-      ['Bram', 'Brachypelma hamorii', 'tarantula', 'juvenile', 'male', 101.6, '2025-04-03'],
+      ['Bram', 'Aphonopelma chalcodes', 'tarantula', 'juvenile', 'male', 101.6, '2025-04-03'],
       ['Sprout', 'Caribena versicolor', 'tarantula', 'juvenile', 'unknown', 20, '2025-04-03'],
       ['Dot', 'Tliltocatl albopilosus', 'tarantula', 'juvenile', 'unknown', null, null],
     ]);
@@ -155,7 +147,7 @@ describe('choices for a whole file', () => {
     );
     expect(none.problems.map((p) => p.result.errors)).toEqual([
       [
-        'Group: not given, and “Arion” is not a genus we know: choose a group above for rows that don’t say.',
+        'Group: none given, and “Arion” is not a genus we know. Choose a group above for the rows that don’t say.',
       ],
     ]);
   });

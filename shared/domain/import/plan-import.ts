@@ -158,11 +158,16 @@ export interface PlannedRow {
   line: number;
   /** The row's name cell, to point at it in words. */
   name: string;
+  /** The cells as written, by our columns: shown beside what they were read as. */
+  cells: Partial<Record<AnimalColumn, string>>;
   result: RowResult;
 }
 export interface ImportPlan {
   rows: PlannedRow[];
+  /** The rows to send, in the file's order. */
   ready: AnimalImportValues[];
+  /** The same rows with their cells as written. */
+  readyRows: (PlannedRow & { result: { ok: true } })[];
   problems: (PlannedRow & { result: { ok: false } })[];
 }
 
@@ -185,6 +190,7 @@ export function planImport(
       return {
         line,
         name,
+        cells,
         result: {
           ok: false,
           errors: [
@@ -193,11 +199,12 @@ export function planImport(
         },
       };
     if (code) seen.add(code);
-    return { line, name, result };
+    return { line, name, cells, result };
   });
   return {
     rows,
     ready: rows.flatMap((r) => (r.result.ok ? [r.result.value] : [])),
+    readyRows: rows.filter((r): r is PlannedRow & { result: { ok: true } } => r.result.ok),
     problems: rows.filter((r): r is PlannedRow & { result: { ok: false } } => !r.result.ok),
   };
 }

@@ -1,4 +1,5 @@
 import { useMemo, useState } from 'react';
+import { Link } from 'react-router-dom';
 import {
   ANIMAL_GROUPS,
   GROUP_LABEL,
@@ -20,6 +21,7 @@ import {
 import { readCsv, type CsvTable } from '#shared/domain/csv/csv-file';
 import {
   DATE_ORDERS,
+  numericDate,
   SIZE_INPUT_UNITS,
   SIZE_UNIT_LABEL,
   type DateOrder,
@@ -216,7 +218,7 @@ export function CsvImport({ collectionId, takenCodes, sizeUnit }: Props) {
               )}
               {questions.bareSizes > 0 && (
                 <ChoiceGroup
-                  legend={`Sizes written without a unit (${plural(questions.bareSizes, 'row', 'rows')}) are in`}
+                  legend={`Sizes with no unit written (${plural(questions.bareSizes, 'row', 'rows')}) are in`}
                   className="grid-cols-3"
                   value={settings.sizeUnit}
                   options={SIZE_INPUT_UNITS}
@@ -227,14 +229,14 @@ export function CsvImport({ collectionId, takenCodes, sizeUnit }: Props) {
               {dates?.ambiguous && (
                 <div className="flex flex-col gap-1">
                   <ChoiceGroup<DateOrder | ''>
-                    legend={`Dates such as ${dates.ambiguous.cell} (line ${dates.ambiguous.line}) put first`}
+                    legend={`Dates such as ${dates.ambiguous.cell} (line ${dates.ambiguous.line}) are written`}
                     className="grid-cols-2"
                     value={settings.dateOrder ?? ''}
                     options={DATE_ORDERS}
                     onChange={(order) => change({ dateOrder: order || null })}
                     render={(order) => (
                       <>
-                        <span>{order === 'day-first' ? 'The day' : 'The month'}</span>
+                        <span>{order === 'day-first' ? 'Day first' : 'Month first'}</span>
                         <span className="font-normal">
                           {sayDate(dates.ambiguous!.readings[order as DateOrder])}
                         </span>
@@ -244,7 +246,7 @@ export function CsvImport({ collectionId, takenCodes, sizeUnit }: Props) {
                   <p className="text-sm text-muted">
                     {settledBy
                       ? `Line ${settledBy.line} has ${settledBy.cell}, which can only be ${settled === 'day-first' ? 'day' : 'month'} first.`
-                      : 'Nothing else in the file tells which, so please choose. Dates written as 2025-04-03 are read the same either way.'}
+                      : 'Nothing else in the file tells which, so please choose. It is used for every date written this way; dates such as 2025-04-03 need no choice.'}
                   </p>
                 </div>
               )}
@@ -296,19 +298,36 @@ export function CsvImport({ collectionId, takenCodes, sizeUnit }: Props) {
                       : 'As they will be saved'}
                   </h3>
                   <ul aria-label="Rows ready to import" className="flex flex-col gap-2">
-                    {plan.ready.slice(0, PREVIEW_ROWS).map((v, i) => (
-                      <li key={i} className="rounded-xl border-2 border-border bg-surface p-2">
-                        <span className="font-bold">{v.name}</span> ·{' '}
-                        <i lang="la">{v.scientificName}</i>
-                        <br />
-                        {GROUP_LABEL[v.group]}, {stageLabel(v.group, v.lifeStage).toLowerCase()}
-                        {' · '}
-                        {SEX_LABEL[v.sex]}
-                        {v.sizeMm !== null && ` · ${formatSize(v.sizeMm, sizeUnit)}`}
-                        {v.acquiredOn && ` · acquired ${sayDate(v.acquiredOn)}`}
-                        {v.place && ` · ${v.place.rack}${v.place.shelf}-${v.place.position}`}
-                      </li>
-                    ))}
+                    {plan.readyRows
+                      .slice(0, PREVIEW_ROWS)
+                      .map(({ line, cells, result: { value: v } }) => {
+                        const size = v.sizeMm === null ? null : formatSize(v.sizeMm, sizeUnit);
+                        const acquired = v.acquiredOn && sayDate(v.acquiredOn);
+                        // What the keeper wrote, beside a size converted or a date read in the chosen order.
+                        const asWritten = (shown: string, cell = '') =>
+                          cell.trim() &&
+                          shown !== cell.trim() &&
+                          !shown.startsWith(`${cell.trim()} `)
+                            ? ` (${cell.trim()})`
+                            : '';
+                        return (
+                          <li
+                            key={line}
+                            className="rounded-xl border-2 border-border bg-surface p-2"
+                          >
+                            <span className="font-bold">{v.name}</span> ·{' '}
+                            <i lang="la">{v.scientificName}</i>
+                            <br />
+                            {GROUP_LABEL[v.group]}, {stageLabel(v.group, v.lifeStage).toLowerCase()}
+                            {' · '}
+                            {SEX_LABEL[v.sex]}
+                            {size && ` · ${size}${asWritten(size, cells.size_mm)}`}
+                            {acquired &&
+                              ` · acquired ${acquired}${numericDate(cells.acquired_on ?? '') ? asWritten(acquired, cells.acquired_on) : ''}`}
+                            {v.place && ` · ${v.place.rack}${v.place.shelf}-${v.place.position}`}
+                          </li>
+                        );
+                      })}
                   </ul>
                   {plan.ready.length > PREVIEW_ROWS && (
                     <p className="text-muted">… and {plan.ready.length - PREVIEW_ROWS} more.</p>
@@ -320,7 +339,9 @@ export function CsvImport({ collectionId, takenCodes, sizeUnit }: Props) {
                 busy={importRows.isPending}
                 onClick={() => importRows.mutate(plan.ready)}
               >
-                Import {plural(plan.ready.length, 'row', 'rows')}
+                {plan.ready.length
+                  ? `Import ${plural(plan.ready.length, 'row', 'rows')}`
+                  : 'No rows ready yet'}
               </Button>
               {plan.problems.length > 0 && plan.ready.length > 0 && (
                 <p className="text-sm text-muted">
@@ -332,7 +353,11 @@ export function CsvImport({ collectionId, takenCodes, sizeUnit }: Props) {
                 <Notice
                   tone="ok"
                   title={`Imported ${plural(importRows.data.imported, 'animal', 'animals')}.`}
-                />
+                >
+                  <Link to="/animals" className="font-bold underline underline-offset-4">
+                    See them in Animals
+                  </Link>
+                </Notice>
               )}
               {importRows.isError && <Notice tone="error" title={importRows.error.message} />}
             </section>
