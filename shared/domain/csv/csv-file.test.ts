@@ -37,6 +37,17 @@ describe('CSV files (RFC 4180)', () => {
     ]);
   });
 
+  it('numbers lines the same with CRLF, CR or LF line ends and a quoted line break', () => {
+    for (const eol of ['\r\n', '\r', '\n']) {
+      const table = readCsv(['name,note', 'A,"one', 'two"', '', 'B,x', 'C,y'].join(eol));
+      expect(table.records.map((r) => [r.line, r.cells[0]])).toEqual([
+        [2, 'A'],
+        [5, 'B'],
+        [6, 'C'],
+      ]);
+    }
+  });
+
   it('reads an inch mark the same whether quoted by the rules or typed by hand', () => {
     // § 2.7: inside a quoted field a double quote is doubled, so 4" is written "4""".
     // § 2.5: an unquoted field "may not" hold a double quote; a hand-typed 4" does, and is read
