@@ -16,7 +16,7 @@ const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-sheet-'));
 afterAll(() => fs.rmSync(tmp, { recursive: true, force: true }));
 
 /** The theme as Settings sets it: on <html> and remembered on the device. */
-async function useTheme(page: Page, theme: 'light' | 'dark' | 'night') {
+async function showTheme(page: Page, theme: 'light' | 'dark' | 'night') {
   await page.evaluate((t) => {
     document.documentElement.dataset.theme = t;
     localStorage.setItem('rackside.theme', t);
@@ -51,7 +51,7 @@ describe('importing a keeper’s own spreadsheet at 360 px', () => {
     expect(tilly).toContain('Life stage: none given. Choose one above');
     expect(tilly).toContain('“03/04/2025” could be day first or month first.');
     for (const theme of ['light', 'dark', 'night'] as const) {
-      await useTheme(page, theme);
+      await showTheme(page, theme);
       await expectAccessible(page, `import-questions-${theme}`);
     }
     await screenshot(page, 'import-01-questions-night');
@@ -71,7 +71,7 @@ describe('importing a keeper’s own spreadsheet at 360 px', () => {
     expect(previews[1]).toContain('Male · 101.6 mm (4")');
     expect(previews[2]).toContain('Sex unknown · 20 mm (2 cm)');
     for (const theme of ['light', 'dark', 'night'] as const) {
-      await useTheme(page, theme);
+      await showTheme(page, theme);
       await expectAccessible(page, `import-ready-${theme}`);
       await screenshot(page, `import-02-ready-${theme}`);
     }
