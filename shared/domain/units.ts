@@ -1,4 +1,7 @@
-/** 1 in = 25.4 mm exactly (international yard and pound agreement, 1959). */
+/**
+ * 1 in = 25.4 mm exactly (international yard and pound agreement, 1959; NIST Special Publication
+ * 811, 2008 edition, Appendix B.8 — from memory).
+ */
 export const MM_PER_INCH = 25.4;
 
 export const SIZE_UNITS = ['mm', 'in'] as const;

@@ -14,7 +14,8 @@ export const timeZone = z
 /** A calendar date written YYYY-MM-DD (ISO 8601 calendar date, extended format). */
 export const localDate = z
   .string()
-  .regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'Write the date as YYYY-MM-DD.' })
+  // abort: a date not written YYYY-MM-DD gets that one message, not "does not exist" as well.
+  .regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'Write the date as YYYY-MM-DD.', abort: true })
   .refine(
     (s) => {
       const [y, m, d] = s.split('-').map(Number) as [number, number, number];

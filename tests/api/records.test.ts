@@ -5,8 +5,10 @@ import sharp from 'sharp';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { rowToAnimal } from '#shared/domain/csv/animal-columns';
 import { readCsv } from '#shared/domain/csv/csv-file';
+import { firstSettings, planImport, type ImportSettings } from '#shared/domain/import/plan-import';
 import type { AnimalInput } from '#shared/schemas/animals';
 import { addMember, animalBody, createAnimal, signUp, type SignedUp } from '../factories';
+import { KEEPERS_SHEET_ROWS } from '../fixtures/keepers-sheet';
 import { createTestContext, type TestContext } from '../setup/test-app';
 import { withOriginalIds } from '../support/backup-compare';
 
@@ -455,6 +457,56 @@ describe('CSV export and import (RFC 4180)', () => {
       .expect(201);
     const again = (await to.agent.get(`${base(to)}/export/animals.csv`).expect(200)).text;
     expect(again).toBe(csv);
+  });
+
+  it('takes a keeper’s own sheet as the import screen reads it, and refuses raw spellings in words', async () => {
+    const who = await signUp(ctx);
+    // Saved with CRLF line ends this time, as RFC 4180 § 2.1 has them.
+    const table = readCsv(KEEPERS_SHEET_ROWS.join('\r\n'));
+    const settings: ImportSettings = {
+      ...firstSettings(table),
+      defaults: { group: null, stage: 'sling', sex: 'unknown' },
+      dateOrder: 'month-first',
+    };
+    const plan = planImport(table, settings, []);
+    expect(plan.problems).toEqual([]);
+    await who.agent
+      .post(`${base(who)}/animals/import`)
+      .send({ rows: plan.ready })
+      .expect(201, {
+        imported: 4,
+      });
+    const { animals } = (await who.agent.get(`${base(who)}/animals`).expect(200)).body as {
+      animals: {
+        name: string;
+        group: string;
+        lifeStage: string;
+        sex: string;
+        sizeMm: number | null;
+        acquiredOn: string | null;
+      }[];
+    };
+    expect(
+      animals
+        .map((a) => [a.name, a.group, a.lifeStage, a.sex, a.sizeMm, a.acquiredOn])
+        .sort((a, b) => String(a[0]).localeCompare(String(b[0]))),
+    ).toEqual([
+      ['Bram', 'tarantula', 'sling', 'male', 101.6, '2025-04-03'],
+      ['Dot', 'tarantula', 'sling', 'unknown', null, null],
+      ['Sprout', 'tarantula', 'sling', 'unknown', 20, '2025-04-03'],
+      ['Tilly', 'tarantula', 'sling', 'female', 127, '2025-03-04'],
+    ]);
+
+    // The API takes rows as the screen sends them; a raw spreadsheet cell gets a 4xx in words.
+    const raw = await who.agent.post(`${base(who)}/animals/import`).send({
+      rows: [{ ...plan.ready[0], name: 'Raw', labelCode: '', sex: 'F', acquiredOn: '03/04/2025' }],
+    });
+    expect(raw.status).toBe(422);
+    expect(raw.body.error.issues).toEqual([
+      { path: 'body.rows.0.sex', message: 'Choose a sex (or unknown).' },
+      { path: 'body.rows.0.acquiredOn', message: 'Write the date as YYYY-MM-DD.' },
+    ]);
+    expect((await who.agent.get(`${base(who)}/animals`).expect(200)).body.animals).toHaveLength(4);
   });
 
   it('imports all or nothing and checks every row again', async () => {

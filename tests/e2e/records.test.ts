@@ -119,18 +119,21 @@ describe('collection records at 360 px', () => {
     await page.goto(`${env.server.baseUrl}/import`);
     await page.getByLabel('Choose a CSV file').setInputFiles(file);
     await expect
-      .poll(() => page.getByText(/197 of 200 rows are ready; 3 need attention/).count())
+      .poll(() => page.getByText('197 of 200 rows ready; 3 need attention.').count())
       .toBe(1);
-    const problems = page.getByRole('list', { name: 'Rows with problems' }).getByRole('listitem');
+    const problems = page
+      .getByRole('list', { name: 'Rows that need attention' })
+      .locator(':scope > li');
     expect(await problems.count()).toBe(3);
     const texts = await problems.allInnerTexts();
-    expect(texts.map((t) => Number(/^Line (\d+):/.exec(t)?.[1]))).toEqual(badLines);
+    expect(texts.map((t) => Number(/^Line (\d+) ·/.exec(t)?.[1]))).toEqual(badLines);
+    expect(texts[0]).toContain('Species (scientific name):');
     expect(texts[0]).toContain('Did you mean “Kochiana brunnipes”?');
-    expect(texts[1]).toMatch(/^Line 121: stage:/);
-    expect(texts[2]).toMatch(/^Line 181: size_mm:/);
+    expect(texts[1]).toMatch(/^Line 121 · Import 120\s+Life stage: “teenager” is not a life stage/);
+    expect(texts[2]).toMatch(/^Line 181 · Import 180\s+Size: “big” is not a size we can read/);
     await expectAccessible(page, 'import');
     await screenshot(page, 'records-04-import-check');
-    await page.getByRole('button', { name: 'Import 197 valid rows' }).click();
+    await page.getByRole('button', { name: 'Import 197 rows' }).click();
     await expect
       .poll(() => page.getByText('Imported 197 animals.').count(), { timeout: 15_000 })
       .toBe(1);

@@ -64,9 +64,15 @@ describe('the animal spreadsheet', () => {
     expect(guessColumn('Label')).toBe('code');
     expect(guessColumn('Tray')).toBe('shelf');
     expect(guessColumn('Favourite colour')).toBeNull();
+    expect(guessColumn('DLS inches')).toBe('size_mm');
+    expect(guessColumn('Gender')).toBe('sex');
+    expect(guessColumn('Date acquired')).toBe('acquired_on');
+    // The import screen's own names for our columns are read back too.
+    expect(guessColumn('Species (scientific name)')).toBe('scientific_name');
+    expect(guessColumn('Feed every (days)')).toBe('interval_days');
   });
 
-  it('names the column of each problem in a row', () => {
+  it('names the column of each problem in a row, in plain words, all at once', () => {
     const bad = rowToAnimal({
       name: '',
       scientific_name: 'monocentropus balfouri',
@@ -78,26 +84,24 @@ describe('the animal spreadsheet', () => {
     expect(bad).toEqual({
       ok: false,
       errors: [
-        'Unknown caution “bites”: use potent_venom, urticating_hairs, fast_defensive, escape_risk, sting.',
+        'Name: Give the animal a name or a short tag.',
+        'Species (scientific name): The genus (and a subgenus) starts with a capital letter, the rest in lower case (ICZN Art. 28). Did you mean “Monocentropus balfouri”?',
+        'Group: “fish” is not a group we know: use Tarantula, True spider, Centipede, Scorpion, Mantis, Beetle, Other.',
+        'Size: “big” is not a size we can read: write it like 45 mm, 4.5 cm or 2in.',
+        'Cautions: “bites” is not a caution we know: use potent venom, urticating hairs, fast or defensive, escape risk, sting.',
       ],
     });
-    const worse = rowToAnimal({
-      name: '',
-      scientific_name: 'monocentropus balfouri',
-      group: 'fish',
+  });
+
+  it('reads cautions by their labels too, each once', () => {
+    const row = rowToAnimal({
+      name: 'Pokey',
+      scientific_name: 'Omothymus schioedtei',
       stage: 'adult',
-      size_mm: 'big',
+      cautions: 'Fast or defensive; potent venom, fast_defensive',
     });
-    expect(worse.ok).toBe(false);
-    if (!worse.ok) {
-      expect(worse.errors.map((e) => e.split(':')[0])).toEqual([
-        'name',
-        'scientific_name',
-        'group',
-        'size_mm',
-      ]);
-      expect(worse.errors[1]).toContain('Did you mean “Monocentropus balfouri”?');
-    }
+    expect(row.ok && row.value.cautions).toEqual(['fast_defensive', 'potent_venom']);
+    expect(row.ok && row.value.group).toBe('tarantula');
   });
 
   it('refuses a stage the group does not have, and reads a diet (docs/care-rules.md § Stages, § Diets)', () => {
@@ -110,7 +114,7 @@ describe('the animal spreadsheet', () => {
     expect(larva).toEqual({
       ok: false,
       errors: [
-        'stage: Mantis: there is no “Larva” stage. Choose Nymph L1–L3, Nymph L4+, Subadult or Adult.',
+        'Life stage: Mantis: there is no “Larva” stage. Choose Nymph L1–L3, Nymph L4+, Subadult or Adult.',
       ],
     });
     const slug = rowToAnimal({

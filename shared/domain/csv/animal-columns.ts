@@ -1,6 +1,26 @@
 import type { AnimalSummary } from '../../schemas/animals';
 import { animalImportRow, type AnimalImportValues } from '../../schemas/import';
-import { CAUTIONS, type Caution } from '../animal-facts';
+import {
+  CAUTION_LABEL,
+  CAUTIONS,
+  type AnimalGroup,
+  type Caution,
+  type LifeStage,
+  type Sex,
+} from '../animal-facts';
+import {
+  genusGroup,
+  readDate,
+  readGroup,
+  readNumber,
+  readSex,
+  readSize,
+  readStage,
+  readYes,
+  type CellRead,
+  type DateOrder,
+  type SizeInputUnit,
+} from '../import/cell-readers';
 
 /**
  * The animal spreadsheet's columns, in order: what an export writes and an import reads. Lists
@@ -36,13 +56,42 @@ export const ANIMAL_COLUMNS = [
   'status_date',
 ] as const;
 export type AnimalColumn = (typeof ANIMAL_COLUMNS)[number];
-/** Columns an import needs; the rest may be missing. */
-export const REQUIRED_COLUMNS: readonly AnimalColumn[] = [
-  'name',
-  'scientific_name',
-  'group',
-  'stage',
-];
+/**
+ * Columns an import needs; the rest may be missing. A group and a stage are needed too, but they
+ * can come from a choice for every row (and the group from a genus we know).
+ */
+export const REQUIRED_COLUMNS: readonly AnimalColumn[] = ['name', 'scientific_name'];
+
+/** Our columns as the import screen names them to people. */
+export const COLUMN_LABEL: Record<AnimalColumn, string> = {
+  code: 'Label code',
+  name: 'Name',
+  scientific_name: 'Species (scientific name)',
+  common_name: 'Common name',
+  group: 'Group',
+  stage: 'Life stage',
+  sex: 'Sex',
+  size_mm: 'Size',
+  acquired_on: 'Acquired on',
+  source: 'Source (where from)',
+  room: 'Room',
+  rack: 'Rack',
+  shelf: 'Shelf',
+  position: 'Position',
+  interval_days: 'Feed every (days)',
+  prey_type: 'Prey',
+  prey_size: 'Prey size',
+  prey_count: 'Prey per feed',
+  diet: 'Diet',
+  water_dish: 'Water dish (yes or no)',
+  do_not_feed_until: 'Do not feed until',
+  cautions: 'Cautions',
+  caution_note: 'Caution note',
+  clutch: 'Clutch',
+  notes: 'Notes',
+  status: 'Status',
+  status_date: 'Status date',
+};
 /** Written by an export for the record; an import leaves them (retire animals on their page). */
 const EXPORT_ONLY: readonly AnimalColumn[] = ['status', 'status_date'];
 export const IMPORT_COLUMNS = ANIMAL_COLUMNS.filter((c) => !EXPORT_ONLY.includes(c));
@@ -83,30 +132,49 @@ export function animalToRow(a: AnimalSummary): Record<AnimalColumn, string> {
   };
 }
 
-/** Header cells as people write them ("Scientific name", "SIZE (mm)") matched to our columns. */
+/** Header cells as people write them ("Scientific name", "SIZE (mm)", "DLS inches") matched to our columns. */
 export function guessColumn(header: string): AnimalColumn | null {
-  const key = header
-    .trim()
-    .toLowerCase()
+  const label = header.trim().toLowerCase();
+  const byLabel = IMPORT_COLUMNS.find((c) => COLUMN_LABEL[c].toLowerCase() === label);
+  if (byLabel) return byLabel;
+  const key = label
     .replace(/\(.*?\)/g, '')
     .replace(/[^a-z]+/g, '_')
     .replace(/^_|_$/g, '');
+  if ((ANIMAL_COLUMNS as readonly string[]).includes(key)) return key as AnimalColumn;
   const aliases: Record<string, AnimalColumn> = {
     label: 'code',
     label_code: 'code',
     id: 'code',
     tag: 'code',
+    nickname: 'name',
+    pet_name: 'name',
     species: 'scientific_name',
     latin_name: 'scientific_name',
+    latin: 'scientific_name',
     scientific: 'scientific_name',
+    genus_species: 'scientific_name',
+    taxon: 'scientific_name',
     common: 'common_name',
     life_stage: 'stage',
+    gender: 'sex',
     size: 'size_mm',
     leg_span: 'size_mm',
+    legspan: 'size_mm',
     dls: 'size_mm',
+    body_length: 'size_mm',
     acquired: 'acquired_on',
+    date_acquired: 'acquired_on',
+    acquired_date: 'acquired_on',
     bought: 'acquired_on',
+    bought_on: 'acquired_on',
+    date_bought: 'acquired_on',
+    purchased: 'acquired_on',
+    purchase_date: 'acquired_on',
     from: 'source',
+    bought_from: 'source',
+    breeder: 'source',
+    seller: 'source',
     interval: 'interval_days',
     feed_every: 'interval_days',
     prey: 'prey_type',
@@ -116,23 +184,25 @@ export function guessColumn(header: string): AnimalColumn | null {
     warning: 'cautions',
     warnings: 'cautions',
     note: 'notes',
+    comment: 'notes',
     comments: 'notes',
     tray: 'shelf',
     slot: 'position',
     spot: 'position',
   };
-  if ((ANIMAL_COLUMNS as readonly string[]).includes(key)) return key as AnimalColumn;
-  return aliases[key] ?? null;
+  // A unit after the name ("size_in", "dls_inches") says how to read the numbers, not which column.
+  return aliases[key] ?? aliases[key.replace(/_(mm|cm|in|inch|inches)$/, '')] ?? null;
 }
 
-const blank = (v: string | undefined) => v === undefined || v.trim() === '';
-const number = (v: string | undefined) => (blank(v) ? null : Number(v!.trim().replace(',', '.')));
-const yes = (v: string | undefined) => /^(y|yes|true|1|x)$/i.test(v?.trim() ?? '');
-
-/** What a cell says about cautions: our words or codes, separated by ";" or ",". */
-function cautionsOf(v: string | undefined): Caution[] | string {
-  if (blank(v)) return [];
-  const words = v!
+/** What a cell says about cautions: our words, their labels or codes, separated by ";" or ",". */
+function cautionsOf(v: string | undefined): CellRead<Caution[]> {
+  const byWord = new Map<string, Caution>(
+    CAUTIONS.flatMap((c) => [
+      [c, c],
+      [CAUTION_LABEL[c].toLowerCase().replace(/[\s-]+/g, '_'), c],
+    ]),
+  );
+  const words = (v ?? '')
     .split(/[;,]/)
     .map((w) =>
       w
@@ -141,64 +211,125 @@ function cautionsOf(v: string | undefined): Caution[] | string {
         .replace(/[\s-]+/g, '_'),
     )
     .filter(Boolean);
-  const unknown = words.filter((w) => !(CAUTIONS as readonly string[]).includes(w));
+  const unknown = words.filter((w) => !byWord.has(w));
   return unknown.length
-    ? `Unknown caution “${unknown[0]}”: use ${CAUTIONS.join(', ')}.`
-    : (words as Caution[]);
+    ? {
+        ok: false,
+        problem: `“${unknown[0]!.replace(/_/g, ' ')}” is not a caution we know: use ${CAUTIONS.map((c) => CAUTION_LABEL[c].toLowerCase()).join(', ')}.`,
+      }
+    : { ok: true, value: [...new Set(words.map((w) => byWord.get(w)!))] };
 }
 
 export type RowResult = { ok: true; value: AnimalImportValues } | { ok: false; errors: string[] };
 
-/** One spreadsheet row, by our column names, checked with the same rules as the animal form. */
-export function rowToAnimal(cells: Partial<Record<AnimalColumn, string>>): RowResult {
-  const cautions = cautionsOf(cells.cautions);
-  if (typeof cautions === 'string') return { ok: false, errors: [cautions] };
+/** How cells that need a choice are read: the same for every row of a file. */
+export interface RowChoices {
+  /** Day and month written as numbers before the year (03/04/2025): which comes first. */
+  dateOrder?: DateOrder | null;
+  /** The unit of a size written as a bare number. */
+  sizeUnit?: SizeInputUnit;
+  /** For rows whose cell is blank or whose file has no such column. */
+  defaults?: { group?: AnimalGroup | null; stage?: LifeStage | null; sex?: Sex };
+}
+
+/**
+ * One spreadsheet row, by our column names, read the way keepers write (see cell-readers.ts) and
+ * checked with the same rules as the animal form. Every problem in the row is reported, each
+ * starting with the column's plain name.
+ */
+export function rowToAnimal(
+  cells: Partial<Record<AnimalColumn, string>>,
+  choices: RowChoices = {},
+): RowResult {
+  const problems = new Map<AnimalColumn, string>();
+  function read<T>(column: AnimalColumn, result: CellRead<T>, fallback: T): T {
+    if (result.ok) return result.value;
+    problems.set(column, result.problem);
+    return fallback;
+  }
+  const cell = (c: AnimalColumn) => cells[c] ?? '';
+  const blank = (c: AnimalColumn) => cell(c).trim() === '';
+  const optional = (c: AnimalColumn) => (blank(c) ? null : cell(c).trim());
+  const scientificName = cell('scientific_name');
+  const group =
+    read('group', readGroup(cell('group')), null) ??
+    (problems.has('group') ? null : (genusGroup(scientificName) ?? null)) ??
+    choices.defaults?.group ??
+    null;
+  if (!group && !problems.has('group'))
+    problems.set(
+      'group',
+      scientificName.trim()
+        ? `none given, and “${scientificName.trim().split(/\s+/)[0]}” is not a genus we know. Choose a group above for the rows that don’t say.`
+        : 'none given. Choose a group above for the rows that don’t say.',
+    );
+  const lifeStage =
+    read('stage', readStage(cell('stage')), null) ?? choices.defaults?.stage ?? null;
+  if (!lifeStage && !problems.has('stage'))
+    problems.set('stage', 'none given. Choose one above for the rows that don’t say.');
+  const sex = blank('sex')
+    ? (choices.defaults?.sex ?? 'unknown')
+    : read('sex', readSex(cell('sex')), 'unknown');
   const place = [cells.room, cells.rack, cells.shelf, cells.position];
   const candidate = {
-    labelCode: cells.code ?? '',
-    name: cells.name ?? '',
-    scientificName: cells.scientific_name ?? '',
-    commonName: cells.common_name ?? '',
-    group: (cells.group ?? '').trim().toLowerCase().replace(/\s+/g, '_'),
-    lifeStage: (cells.stage ?? '').trim().toLowerCase(),
-    sex: blank(cells.sex) ? 'unknown' : cells.sex!.trim().toLowerCase().replace(/\s+/g, '_'),
-    sizeMm: number(cells.size_mm),
-    acquiredOn: blank(cells.acquired_on) ? null : cells.acquired_on!.trim(),
-    source: cells.source ?? '',
-    place: place.every(blank)
+    labelCode: cell('code'),
+    name: cell('name'),
+    scientificName,
+    commonName: cell('common_name'),
+    // Placeholders where a problem is already noted, so the schema reports only the others.
+    group: group ?? 'other',
+    lifeStage: lifeStage ?? 'adult',
+    sex,
+    sizeMm: read('size_mm', readSize(cell('size_mm'), choices.sizeUnit ?? 'mm'), null),
+    acquiredOn: read('acquired_on', readDate(cell('acquired_on'), choices.dateOrder ?? null), null),
+    source: cell('source'),
+    place: place.every((p) => (p ?? '').trim() === '')
       ? null
       : {
-          room: cells.room ?? '',
-          rack: cells.rack ?? '',
-          shelf: cells.shelf ?? '',
-          position: cells.position ?? '',
+          room: cell('room'),
+          rack: cell('rack'),
+          shelf: cell('shelf'),
+          position: cell('position'),
         },
-    cautions,
-    cautionNote: cells.caution_note ?? '',
-    notes: cells.notes ?? '',
-    clutch: cells.clutch ?? '',
+    cautions: read('cautions', cautionsOf(cells.cautions), []),
+    cautionNote: cell('caution_note'),
+    notes: cell('notes'),
+    clutch: cell('clutch'),
     care: {
-      intervalDays: number(cells.interval_days),
-      preyType: blank(cells.prey_type) ? null : cells.prey_type!.trim(),
-      preySize: blank(cells.prey_size) ? null : cells.prey_size!.trim(),
-      preyCount: number(cells.prey_count),
-      diet: blank(cells.diet)
+      intervalDays: read('interval_days', readNumber(cell('interval_days')), null),
+      preyType: optional('prey_type'),
+      preySize: optional('prey_size'),
+      preyCount: read('prey_count', readNumber(cell('prey_count')), null),
+      diet: blank('diet')
         ? null
-        : cells
-            .diet!.trim()
+        : cell('diet')
+            .trim()
             .toLowerCase()
             .replace(/[\s-]+/g, '_'),
-      hasWaterDish: yes(cells.water_dish),
-      doNotFeedUntil: blank(cells.do_not_feed_until) ? null : cells.do_not_feed_until!.trim(),
+      hasWaterDish: readYes(cell('water_dish')),
+      doNotFeedUntil: read(
+        'do_not_feed_until',
+        readDate(cell('do_not_feed_until'), choices.dateOrder ?? null),
+        null,
+      ),
     },
   };
   const parsed = animalImportRow.safeParse(candidate);
-  if (parsed.success) return { ok: true, value: parsed.data };
+  if (parsed.success && problems.size === 0) return { ok: true, value: parsed.data };
+  const others: string[] = [];
+  for (const issue of parsed.success ? [] : parsed.error.issues) {
+    const column = COLUMN_OF_PATH[issue.path.join('.')];
+    if (!column) others.push(issue.message);
+    else if (!problems.has(column)) problems.set(column, issue.message);
+  }
   return {
     ok: false,
-    errors: parsed.error.issues.map(
-      (i) => `${COLUMN_OF_PATH[i.path.join('.')] ?? i.path.join('.')}: ${i.message}`,
-    ),
+    errors: [
+      ...ANIMAL_COLUMNS.filter((c) => problems.has(c)).map(
+        (c) => `${COLUMN_LABEL[c]}: ${problems.get(c)}`,
+      ),
+      ...others,
+    ],
   };
 }
 
@@ -218,6 +349,7 @@ const COLUMN_OF_PATH: Record<string, AnimalColumn> = {
   'place.rack': 'rack',
   'place.shelf': 'shelf',
   'place.position': 'position',
+  cautions: 'cautions',
   'care.intervalDays': 'interval_days',
   'care.preyType': 'prey_type',
   'care.preySize': 'prey_size',

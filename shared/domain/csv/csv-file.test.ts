@@ -36,4 +36,26 @@ describe('CSV files (RFC 4180)', () => {
       { line: 4, cells: ['B', 'sling'] },
     ]);
   });
+
+  it('numbers lines the same with CRLF, CR or LF line ends and a quoted line break', () => {
+    for (const eol of ['\r\n', '\r', '\n']) {
+      const table = readCsv(['name,note', 'A,"one', 'two"', '', 'B,x', 'C,y'].join(eol));
+      expect(table.records.map((r) => [r.line, r.cells[0]])).toEqual([
+        [2, 'A'],
+        [5, 'B'],
+        [6, 'C'],
+      ]);
+    }
+  });
+
+  it('reads an inch mark the same whether quoted by the rules or typed by hand', () => {
+    // § 2.7: inside a quoted field a double quote is doubled, so 4" is written "4""".
+    // § 2.5: an unquoted field "may not" hold a double quote; a hand-typed 4" does, and is read
+    // as the text it plainly is rather than refused.
+    const quoted = readCsv('Name,Size\r\nBram,"4"""\r\n');
+    const typed = readCsv('Name,Size\nBram,4"\n');
+    expect(quoted.records[0]!.cells).toEqual(['Bram', '4"']);
+    expect(typed.records[0]!.cells).toEqual(['Bram', '4"']);
+    expect(readCsv(writeCsv(['Size'], [{ Size: '4"' }])).records[0]!.cells).toEqual(['4"']);
+  });
 });
