@@ -114,9 +114,10 @@ export function useUploadPhoto(collectionId: string, animalId: string) {
   });
 }
 
-export function useLocations(collectionId: string) {
+export function useLocations(collectionId: string, enabled = true) {
   return useQuery({
     queryKey: queryKeys.locations.list(collectionId),
+    enabled: enabled && !!collectionId,
     queryFn: () =>
       apiRequest(`/collections/${collectionId}/locations`, { schema: locationListResponse }),
   });

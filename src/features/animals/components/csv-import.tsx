@@ -9,6 +9,7 @@ import {
 } from '#shared/domain/csv/animal-columns';
 import { readCsv, type CsvTable } from '#shared/domain/csv/csv-file';
 import { codeKey } from '#shared/domain/labels/label-payload';
+import { placeName } from '#shared/domain/places';
 import { MAX_IMPORT_ROWS } from '#shared/schemas/import';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -145,7 +146,7 @@ export function CsvImport({ collectionId, takenCodes }: Props) {
                     <li key={i}>
                       <span className="font-bold">{v.name}</span> ·{' '}
                       <i lang="la">{v.scientificName}</i> · {stageLabel(v.group, v.lifeStage)}
-                      {v.place && ` · ${v.place.rack}${v.place.shelf}-${v.place.position}`}
+                      {v.place && ` · ${placeName(v.place)}`}
                     </li>
                   ))}
                   {valid.length > 5 && (
