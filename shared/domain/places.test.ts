@@ -119,10 +119,7 @@ describe('the tree of places', () => {
     ).toEqual(['A1-2', 'A1-1']);
     // Out of range: clamped to the end of the siblings.
     expect(
-      codes(reorderWalk(walk, { level: 'shelf', key: 'Spare room\u0000A\u00001' }, 99)).slice(
-        0,
-        4,
-      ),
+      codes(reorderWalk(walk, { level: 'shelf', key: 'Spare room\u0000A\u00001' }, 99)).slice(0, 4),
     ).toEqual(['A2-1', 'A3-1', 'A1-1', 'A1-2']);
     // An unknown group leaves the walk alone (grouped).
     expect(codes(reorderWalk(walk, { level: 'rack', key: 'nope' }, 0))).toEqual(

@@ -124,7 +124,7 @@ export function PlacePicker({
   };
 
   return (
-    <fieldset className="flex flex-col gap-2 rounded-2xl border-2 border-border p-3">
+    <fieldset className="flex min-w-0 flex-col gap-2 rounded-2xl border-2 border-border p-3">
       <legend className="px-1 font-extrabold">{legend}</legend>
       {levels.map((level, i) => {
         const above = levels.slice(0, i);

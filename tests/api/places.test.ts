@@ -13,8 +13,7 @@ let outsider: SignedUp;
 
 const base = (who: SignedUp = owner) => `/api/collections/${who.collectionId}`;
 const list = async (who: SignedUp = owner) =>
-  (await who.agent.get(`${base(who)}/locations`).expect(200)).body
-    .locations as LocationWithCount[];
+  (await who.agent.get(`${base(who)}/locations`).expect(200)).body.locations as LocationWithCount[];
 const codes = (places: LocationWithCount[]) => places.map(placeCode);
 const add = (who: SignedUp, rack: string, shelf: string, position: string, room = 'Spare room') =>
   who.agent.post(`${base(who)}/locations`).send({ room, rack, shelf, position });
@@ -109,11 +108,9 @@ describe('reordering the walk from the tree', () => {
   it('moves a shelf to the front of its rack and keeps its spots together', async () => {
     const before = await list();
     const shelf2 = before.find((l) => l.rack === 'A' && l.shelf === '2')!;
-    const walk = reorderWalk(
-      before,
-      { level: 'shelf', key: `Spare room\u0000A\u00002` },
-      0,
-    ).map((l) => l.id);
+    const walk = reorderWalk(before, { level: 'shelf', key: `Spare room\u0000A\u00002` }, 0).map(
+      (l) => l.id,
+    );
     const res = await keeper.agent
       .put(`${base()}/locations/order`)
       .send({ locationIds: walk })

@@ -1,5 +1,5 @@
-import { compareLocations } from '#shared/domain/walk-order';
 import { shelfKey, walkWithNewPlaces } from '#shared/domain/places';
+import { compareLocations } from '#shared/domain/walk-order';
 import type { Db } from '../../db/client';
 import { insertPlaces, placesOf, setWalkOrder, type Place } from './locations.repository';
 

@@ -65,20 +65,12 @@ const inGroup = (collectionId: string, group: Group) =>
 
 /** How many places a room, rack (room and rack) or shelf (room, rack and shelf) holds. */
 export async function placesInGroup(db: Db, collectionId: string, group: Group) {
-  const [row] = await db
-    .select({ n: count() })
-    .from(locations)
-    .where(inGroup(collectionId, group));
+  const [row] = await db.select({ n: count() }).from(locations).where(inGroup(collectionId, group));
   return row?.n ?? 0;
 }
 
 /** Renames one part of every place in a group; how many places changed. */
-export async function renameGroup(
-  db: Db,
-  collectionId: string,
-  group: Group,
-  set: Partial<Place>,
-) {
+export async function renameGroup(db: Db, collectionId: string, group: Group, set: Partial<Place>) {
   const changed = await db
     .update(locations)
     .set(set)

@@ -1,8 +1,5 @@
 import { compareLocations } from '#shared/domain/walk-order';
-import type {
-  LocationWithCount,
-  RenameGroupOutput,
-} from '#shared/schemas/locations';
+import type { LocationWithCount, RenameGroupOutput } from '#shared/schemas/locations';
 import type { Db } from '../../db/client';
 import { isUniqueViolation } from '../../db/errors';
 import { HttpError } from '../../middleware/errors';

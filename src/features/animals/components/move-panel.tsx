@@ -71,7 +71,10 @@ export function MovePanel({
       noValidate
     >
       {!locations.length && (
-        <Notice tone="info" title="No places yet: name the first one below, or add them under Places." />
+        <Notice
+          tone="info"
+          title="No places yet: name the first one below, or add them under Places."
+        />
       )}
       <PlacePicker
         legend={`Move ${what} to`}

@@ -46,10 +46,21 @@ const spotsOn = (places: readonly LocationWithCount[], c: PlaceChoice) =>
   places.filter((l) => l.room === c.room && l.rack === c.rack && l.shelf === c.shelf);
 
 /** The pots' spots with the animals already in them: what the keeper must agree to share. */
-function takenInRun(places: readonly LocationWithCount[], c: PlaceChoice, first: number, n: number) {
+function takenInRun(
+  places: readonly LocationWithCount[],
+  c: PlaceChoice,
+  first: number,
+  n: number,
+) {
   const shelf = spotsOn(places, c);
   if (!Number.isInteger(first) || !Number.isInteger(n) || n < 1 || n > 2000) return [];
-  const run = new Set(runPositions(shelf.map((l) => l.position), first, n));
+  const run = new Set(
+    runPositions(
+      shelf.map((l) => l.position),
+      first,
+      n,
+    ),
+  );
   return shelf.filter((l) => run.has(l.position) && l.occupants.length > 0);
 }
 
@@ -150,7 +161,10 @@ export function PotUpForm({ sac, collectionId, young, places, onSlings }: Props)
           const busy = spotsOn(places, c)
             .filter((l) => l.occupants.length > 0)
             .map((l) => l.position);
-          setValue('firstPosition', String(firstFreeRun(busy, Number.isInteger(n) && n > 0 ? n : 1)));
+          setValue(
+            'firstPosition',
+            String(firstFreeRun(busy, Number.isInteger(n) && n > 0 ? n : 1)),
+          );
         }}
         errors={tried ? missing : {}}
       />
@@ -169,7 +183,9 @@ export function PotUpForm({ sac, collectionId, young, places, onSlings }: Props)
         <div className="flex flex-col gap-2 rounded-xl border-2 border-accent bg-surface p-3">
           <p className="font-bold text-accent">
             <span aria-hidden="true">! </span>
-            {taken.length === 1 ? 'One of these spots is' : `${taken.length} of these spots are`}{' '}
+            {taken.length === 1
+              ? 'One of these spots is'
+              : `${taken.length} of these spots are`}{' '}
             taken:{' '}
             {taken
               .slice(0, 4)

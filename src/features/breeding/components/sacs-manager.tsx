@@ -199,11 +199,7 @@ function recordFor(females: readonly Female[], femaleId: string) {
 }
 
 /** A new sac, egg case or brood: its words and what is counted follow the chosen female's group. */
-function NewRecordForm({
-  collectionId,
-  today,
-  females,
-}: Omit<Props, 'onSlings' | 'places'>) {
+function NewRecordForm({ collectionId, today, females }: Omit<Props, 'onSlings' | 'places'>) {
   const { create } = useBreedingChanges(collectionId);
   const { register, handleSubmit, setError, setValue, watch, formState } = useForm<
     NewRecordInput,

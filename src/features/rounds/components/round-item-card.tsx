@@ -10,7 +10,6 @@ import { CautionBadges } from '@/components/ui/caution-badges';
 import { HoldIcon } from '@/components/ui/icons';
 import { describeOffer, TASK_META } from './task-meta';
 
-
 interface Props {
   item: RoundItemView;
   timeZone: string;
