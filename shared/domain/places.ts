@@ -238,26 +238,33 @@ export function walkWithNewPlaces<P extends PlaceParts, N extends PlaceParts>(
   walk: readonly P[],
   added: readonly N[],
 ): (P | N)[] {
+  // Keys once per place: an import may add thousands of places to a walk of thousands.
+  const keysOf = (p: PlaceParts) => ({
+    room: p.room,
+    rack: rackKey(p),
+    shelf: shelfKey(p),
+    position: naturalKey(p.position),
+  });
   const out: (P | N)[] = [...walk];
-  const lastWhere = (ok: (p: PlaceParts) => boolean) => {
-    for (let i = out.length - 1; i >= 0; i--) if (ok(out[i]!)) return i;
+  const keys = out.map(keysOf);
+  const lastWhere = (ok: (k: ReturnType<typeof keysOf>) => boolean) => {
+    for (let i = keys.length - 1; i >= 0; i--) if (ok(keys[i]!)) return i;
     return -1;
   };
   for (const n of added) {
-    const shelf = shelfKey(n);
-    const pos = naturalKey(n.position);
-    let at = -1;
-    const firstOnShelf = out.findIndex((p) => shelfKey(p) === shelf);
+    const k = keysOf(n);
+    let at: number;
+    const firstOnShelf = keys.findIndex((o) => o.shelf === k.shelf);
     if (firstOnShelf >= 0) {
-      const before = lastWhere((p) => shelfKey(p) === shelf && naturalKey(p.position) <= pos);
+      const before = lastWhere((o) => o.shelf === k.shelf && o.position <= k.position);
       at = before >= 0 ? before + 1 : firstOnShelf;
     } else {
-      const rack = rackKey(n);
-      const onRack = lastWhere((p) => rackKey(p) === rack);
-      const inRoom = onRack >= 0 ? onRack : lastWhere((p) => p.room === n.room);
+      const onRack = lastWhere((o) => o.rack === k.rack);
+      const inRoom = onRack >= 0 ? onRack : lastWhere((o) => o.room === k.room);
       at = inRoom >= 0 ? inRoom + 1 : out.length;
     }
     out.splice(at, 0, n);
+    keys.splice(at, 0, k);
   }
   return out;
 }
