@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { ANIMAL_GROUPS } from '../domain/animal-facts';
 import { BREEDING_RECORDS } from '../domain/breeding';
 import { localDate, uuid } from './common';
+import { placePart } from './locations';
 
 const days = z
   .number()
@@ -72,9 +73,9 @@ export const slingsBody = z.object({
     .trim()
     .min(1, { message: 'Give the slings a name to number, e.g. “Formosus”.' })
     .max(60),
-  room: z.string().trim().min(1, { message: 'Name the room.' }).max(40),
-  rack: z.string().trim().min(1, { message: 'Name the rack.' }).max(40),
-  shelf: z.string().trim().min(1, { message: 'Name the shelf or tray.' }).max(40),
+  room: placePart('room'),
+  rack: placePart('rack'),
+  shelf: placePart('shelf'),
   firstPosition: z.number().int().min(1, { message: 'Positions start at 1.' }).max(10_000),
 });
 export type SlingsBody = z.input<typeof slingsBody>;

@@ -312,6 +312,11 @@ const TABLE: Record<string, Row> = {
     allowed: 422,
     call: (f) => ({ path: `${f.c}/locations/order`, body: {} }),
   },
+  'POST /api/collections/:collectionId/locations/rename': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/locations/rename`, body: {} }),
+  },
   'PATCH /api/collections/:collectionId/locations/:locationId': {
     access: 'keeper',
     allowed: 422,

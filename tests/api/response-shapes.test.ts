@@ -121,6 +121,13 @@ describe('answers the app reads', () => {
         .send({ locationIds: listed.locations.map((l) => l.id) }),
       locationListResponse,
     );
+    const first = listed.locations[0]!;
+    expectShape(
+      await a
+        .post(`${base()}/locations/rename`)
+        .send({ level: 'rack', room: first.room, rack: first.rack, to: first.rack }),
+      locationListResponse,
+    );
     const png = await sharp({ create: { width: 64, height: 48, channels: 3, background: '#654' } })
       .png()
       .toBuffer();

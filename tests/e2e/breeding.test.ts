@@ -45,9 +45,11 @@ describe('growth and breeding at 360 px', () => {
     await sac.getByRole('button', { name: 'Pot up slings…' }).click();
     const pot = page.getByRole('form', { name: 'Pot up slings from Juniper sac E2E' });
     await pot.getByLabel('How many').fill('12');
-    await pot.getByLabel('Room').fill('Sling room');
-    await pot.getByLabel('Rack').fill('S');
-    await pot.getByLabel('Tray or shelf').fill('T1');
+    // A new room, rack and tray, named down the tree.
+    await pot.getByLabel('Room').selectOption({ label: '＋ New room…' });
+    await pot.getByLabel('Room (new)').fill('Sling room');
+    await pot.getByLabel('Rack (new)').fill('S');
+    await pot.getByLabel('Shelf or tray (new)').fill('T1');
     await expectAccessible(page, 'breeding');
     await screenshot(page, 'breeding-02-pot-up');
     await pot.getByRole('button', { name: 'Create 12 slings' }).click();

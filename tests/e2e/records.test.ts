@@ -95,9 +95,17 @@ describe('collection records at 360 px', () => {
 
     // Quick actions: move it, retire it (off the round, history kept), bring it back.
     await page.getByRole('button', { name: 'Move…' }).click();
-    await page.getByLabel('Move Saffron to').selectOption({ index: 1 });
+    // Picked down the tree; B3-1 is free (B3-4 and B3-5 are taken).
+    const to = page.getByRole('group', { name: 'Move Saffron to' });
+    await to.getByLabel('Room').selectOption('Spare room');
+    await to.getByLabel('Rack').selectOption('B');
+    await to.getByLabel('Shelf or tray').selectOption('3');
+    await to.getByLabel('Position').selectOption({ label: 'B3-1 · free' });
     await page.getByRole('button', { name: 'Move', exact: true }).click();
-    await page.getByLabel('Move Saffron to').waitFor({ state: 'detached' });
+    await to.waitFor({ state: 'detached' });
+    await expect
+      .poll(() => page.getByRole('article', { name: /^Saffron, / }).innerText())
+      .toMatch(/· B3-1\b/);
     await page.getByRole('button', { name: 'Retire…' }).click();
     await page.getByLabel('Why').selectOption('rehomed');
     await page.getByRole('button', { name: 'Retire', exact: true }).click();

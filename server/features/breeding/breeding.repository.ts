@@ -80,49 +80,25 @@ export async function codesInCollection(db: Db, collectionId: string) {
   ).map((r) => r.code);
 }
 
-/** The ids of these positions on one shelf that exist already, by position. */
-export async function placesOnShelf(
+/** The names of the spots on one shelf. */
+export async function positionsOnShelf(
   db: Db,
   collectionId: string,
   shelf: { room: string; rack: string; shelf: string },
-  positions: string[],
 ) {
-  return db
-    .select({ id: locations.id, position: locations.position })
-    .from(locations)
-    .where(
-      and(
-        eq(locations.collectionId, collectionId),
-        eq(locations.room, shelf.room),
-        eq(locations.rack, shelf.rack),
-        eq(locations.shelf, shelf.shelf),
-        inArray(locations.position, positions),
-      ),
-    );
-}
-
-/** New positions on one shelf at the end of the walk, in the order given. */
-export async function insertPlacesOnShelf(
-  db: Db,
-  collectionId: string,
-  shelf: { room: string; rack: string; shelf: string },
-  positions: string[],
-) {
-  const [{ last } = { last: 0 }] = await db
-    .select({ last: sql<number>`coalesce(max(${locations.walkOrder}), 0)::int` })
-    .from(locations)
-    .where(eq(locations.collectionId, collectionId));
-  return db
-    .insert(locations)
-    .values(
-      positions.map((position, i) => ({
-        collectionId,
-        ...shelf,
-        position,
-        walkOrder: last + i + 1,
-      })),
-    )
-    .returning({ id: locations.id, position: locations.position });
+  return (
+    await db
+      .select({ position: locations.position })
+      .from(locations)
+      .where(
+        and(
+          eq(locations.collectionId, collectionId),
+          eq(locations.room, shelf.room),
+          eq(locations.rack, shelf.rack),
+          eq(locations.shelf, shelf.shelf),
+        ),
+      )
+  ).map((l) => l.position);
 }
 
 /** Many animals, 250 rows a statement; their ids in the order given. */

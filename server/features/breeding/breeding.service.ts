@@ -9,22 +9,23 @@ import {
 } from '#shared/domain/breeding';
 import { collectionPrefix, LABEL_ALPHABET } from '#shared/domain/label-codes';
 import { addDays, instantOfKeeperDate, localDateOf } from '#shared/domain/local-dates';
+import { runPositions } from '#shared/domain/places';
 import type { EggSacBody, EggSacChange, EggSacView } from '#shared/schemas/breeding';
 import type { MemberCollection } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
 import { recordEvents } from '../events/record-events';
+import { findOrCreatePlaces } from '../locations/find-or-create-places';
 import {
   codesInCollection,
   findAnimal,
   findSac,
   incubationDefaults,
   insertAnimalsReturningIds,
-  insertPlacesOnShelf,
   insertSac,
   liveBreedingFacts,
   listSacs,
-  placesOnShelf,
+  positionsOnShelf,
   sacCountOf,
   setIncubation,
   setSlingCount,
@@ -259,17 +260,18 @@ export function createBreedingService(
         const taken = new Set(await codesInCollection(tx, collectionId));
         const prefix = collectionPrefix(c.collectionName, [...taken]);
         const codes = sequentialCodes(prefix, body.count, taken, Math.floor(Math.random() * 1000));
-        const positions = Array.from({ length: body.count }, (_, i) =>
-          String(body.firstPosition + i),
-        );
         const shelf = { room: body.room, rack: body.rack, shelf: body.shelf };
-        const place = new Map(
-          (await placesOnShelf(tx, collectionId, shelf, positions)).map((l) => [l.position, l.id]),
+        // Pots take the shelf's own spots where they exist ("01" for 1), else new ones.
+        const positions = runPositions(
+          await positionsOnShelf(tx, collectionId, shelf),
+          body.firstPosition,
+          body.count,
         );
-        const missing = positions.filter((p) => !place.has(p));
-        if (missing.length)
-          for (const l of await insertPlacesOnShelf(tx, collectionId, shelf, missing))
-            place.set(l.position, l.id);
+        const places = await findOrCreatePlaces(
+          tx,
+          collectionId,
+          positions.map((position) => ({ ...shelf, position })),
+        );
         const width = String(body.firstPosition + body.count - 1).length;
         const rows = positions.map((position, i) => ({
           collectionId,
@@ -280,7 +282,7 @@ export function createBreedingService(
           group: female.group,
           lifeStage: 'sling' as const,
           sex: 'unknown' as const,
-          locationId: place.get(position)!,
+          locationId: places.idOf({ ...shelf, position }),
           cautions: female.cautions,
           clutch: sac.clutch,
           acquiredOn: sac.dispersedOn ?? sac.hatchedOn ?? sac.pulledOn ?? sac.laidOn,

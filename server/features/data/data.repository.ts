@@ -11,7 +11,6 @@ export type NewEggSac = typeof eggSacs.$inferInsert;
 export type NewEventPhoto = typeof eventPhotos.$inferInsert;
 
 type Place = { room: string; rack: string; shelf: string; position: string };
-const placeKey = (p: Place) => [p.room, p.rack, p.shelf, p.position].join('\u0000');
 const list = (values: unknown[]) => sql.param(values);
 
 /** A collection's own round rules (its overrides of the defaults). */
@@ -29,27 +28,6 @@ export async function rulesOf(db: Db, collectionId: string) {
  */
 export function inSnapshot<T>(db: Database['db'], work: (tx: Db) => Promise<T>): Promise<T> {
   return db.transaction(work, { isolationLevel: 'repeatable read', accessMode: 'read only' });
-}
-
-/** Locations by place, created where the rows name a place the collection does not have yet. */
-export async function placeIdsFor(
-  tx: Db,
-  collectionId: string,
-  wanted: Place[],
-): Promise<{ idOf(p: Place): string }> {
-  const unique = new Map(wanted.map((p) => [placeKey(p), p]));
-  const known = await tx.select().from(locations).where(eq(locations.collectionId, collectionId));
-  const ids = new Map(known.map((l) => [placeKey(l), l.id]));
-  const missing = [...unique.entries()].filter(([k]) => !ids.has(k)).map(([, p]) => p);
-  if (missing.length) {
-    const last = known.reduce((m, l) => Math.max(m, l.walkOrder), 0);
-    const created = await tx
-      .insert(locations)
-      .values(missing.map((p, i) => ({ collectionId, ...p, walkOrder: last + i + 1 })))
-      .returning();
-    for (const l of created) ids.set(placeKey(l), l.id);
-  }
-  return { idOf: (p) => ids.get(placeKey(p))! };
 }
 
 /** A page of events with their animal and who recorded it, oldest first (the events CSV). */

@@ -6,9 +6,10 @@ import type { AnimalImportValues } from '#shared/schemas/import';
 import type { MemberCollection } from '../../access/memberships';
 import type { Database } from '../../db/client';
 import type { AnimalsService } from '../animals/animals.service';
+import { findOrCreatePlaces } from '../locations/find-or-create-places';
 import type { PhotosService } from '../photos/photos.service';
 import { writeBackup, type BackupSink } from './backup-writer';
-import { eventsWithNamesPage, placeIdsFor } from './data.repository';
+import { eventsWithNamesPage } from './data.repository';
 import { restoreBackup } from './restore';
 import { createWorkSlots } from './work-slots';
 
@@ -90,7 +91,7 @@ export function createDataService(
     /** Rows already checked by the import screen and again by the API schema; all or nothing. */
     async importAnimals(c: MemberCollection, rows: AnimalImportValues[]): Promise<number> {
       return db.transaction(async (tx) => {
-        const places = await placeIdsFor(
+        const places = await findOrCreatePlaces(
           tx,
           c.collectionId,
           rows.flatMap((r) => (r.place ? [r.place] : [])),

@@ -1,9 +1,9 @@
-import { and, asc, count, eq, inArray, sql } from 'drizzle-orm';
+import { and, asc, count, eq, inArray, isNotNull, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { animals } from '../../db/schema/animals';
 import { locations } from '../../db/schema/collections';
 
-type Place = { room: string; rack: string; shelf: string; position: string };
+export type Place = { room: string; rack: string; shelf: string; position: string };
 
 /** Every place of a collection in walk order, with how many active animals live there. */
 export async function listWithAnimalCounts(db: Db, collectionId: string) {
@@ -16,17 +16,67 @@ export async function listWithAnimalCounts(db: Db, collectionId: string) {
     .orderBy(asc(locations.walkOrder));
 }
 
-/** A new place at the end of the walk until the keeper moves it. */
-export async function insertAtEndOfWalk(db: Db, collectionId: string, place: Place) {
-  const [{ last } = { last: 0 }] = await db
-    .select({ last: sql<number>`coalesce(max(${locations.walkOrder}), 0)::int` })
+/** Every place of a collection with its walk position (ties broken by the caller). */
+export async function placesOf(db: Db, collectionId: string) {
+  return db
+    .select({
+      id: locations.id,
+      room: locations.room,
+      rack: locations.rack,
+      shelf: locations.shelf,
+      position: locations.position,
+      walkOrder: locations.walkOrder,
+    })
     .from(locations)
     .where(eq(locations.collectionId, collectionId));
-  const [row] = await db
+}
+
+/** New places; their walk positions are set afterwards with `setWalkOrder`. */
+export async function insertPlaces(db: Db, collectionId: string, places: Place[]) {
+  return db
     .insert(locations)
-    .values({ collectionId, ...place, walkOrder: last + 1 })
+    .values(places.map((p) => ({ collectionId, ...p })))
     .returning();
-  return row!;
+}
+
+/** The active animals living in a collection's places, by name. */
+export async function occupantsOf(db: Db, collectionId: string) {
+  return db
+    .select({ id: animals.id, name: animals.name, locationId: animals.locationId })
+    .from(animals)
+    .where(
+      and(
+        eq(animals.collectionId, collectionId),
+        eq(animals.status, 'active'),
+        isNotNull(animals.locationId),
+      ),
+    )
+    .orderBy(asc(animals.name));
+}
+
+type Group = { room: string; rack?: string; shelf?: string };
+const inGroup = (collectionId: string, group: Group) =>
+  and(
+    eq(locations.collectionId, collectionId),
+    eq(locations.room, group.room),
+    group.rack === undefined ? undefined : eq(locations.rack, group.rack),
+    group.shelf === undefined ? undefined : eq(locations.shelf, group.shelf),
+  );
+
+/** How many places a room, rack (room and rack) or shelf (room, rack and shelf) holds. */
+export async function placesInGroup(db: Db, collectionId: string, group: Group) {
+  const [row] = await db.select({ n: count() }).from(locations).where(inGroup(collectionId, group));
+  return row?.n ?? 0;
+}
+
+/** Renames one part of every place in a group; how many places changed. */
+export async function renameGroup(db: Db, collectionId: string, group: Group, set: Partial<Place>) {
+  const changed = await db
+    .update(locations)
+    .set(set)
+    .where(inGroup(collectionId, group))
+    .returning({ id: locations.id });
+  return changed.length;
 }
 
 /** The renamed place, or null when it is not in this collection. */
@@ -71,4 +121,12 @@ export async function deletePlace(db: Db, collectionId: string, locationId: stri
     .where(and(eq(locations.collectionId, collectionId), inArray(locations.id, [locationId])))
     .returning({ id: locations.id });
   return deleted.length > 0;
+}
+
+export async function placeById(db: Db, collectionId: string, locationId: string) {
+  const [row] = await db
+    .select()
+    .from(locations)
+    .where(and(eq(locations.collectionId, collectionId), eq(locations.id, locationId)));
+  return row ?? null;
 }

@@ -2,7 +2,13 @@ import { Router, type RequestHandler } from 'express';
 import { z } from 'zod';
 import type { Role } from '#shared/domain/roles';
 import { uuid } from '#shared/schemas/common';
-import { locationInput, walkOrderBody, type LocationInput } from '#shared/schemas/locations';
+import {
+  locationInput,
+  renameGroupBody,
+  walkOrderBody,
+  type LocationValues,
+  type RenameGroupOutput,
+} from '#shared/schemas/locations';
 import { membershipOf } from '../../middleware/roles';
 import { input, validate } from '../../middleware/validate';
 import type { LocationsService } from './locations.service';
@@ -19,7 +25,7 @@ export function locationsRoutes(service: LocationsService, member: (min: Role) =
   router.post('/', member('keeper'), validate({ body: locationInput }), async (_req, res) => {
     res
       .status(201)
-      .json(await service.create(collectionId(res), input<LocationInput>(res, 'body')));
+      .json(await service.create(collectionId(res), input<LocationValues>(res, 'body')));
   });
   router.put('/order', member('keeper'), validate({ body: walkOrderBody }), async (_req, res) => {
     await service.reorder(
@@ -28,6 +34,15 @@ export function locationsRoutes(service: LocationsService, member: (min: Role) =
     );
     res.json({ locations: await service.list(collectionId(res)) });
   });
+  router.post(
+    '/rename',
+    member('keeper'),
+    validate({ body: renameGroupBody }),
+    async (_req, res) => {
+      await service.renameGroup(collectionId(res), input<RenameGroupOutput>(res, 'body'));
+      res.json({ locations: await service.list(collectionId(res)) });
+    },
+  );
   router.patch(
     '/:locationId',
     member('keeper'),
@@ -37,7 +52,7 @@ export function locationsRoutes(service: LocationsService, member: (min: Role) =
         await service.rename(
           collectionId(res),
           input<{ locationId: string }>(res, 'params').locationId,
-          input<LocationInput>(res, 'body'),
+          input<LocationValues>(res, 'body'),
         ),
       );
     },

@@ -1,16 +1,21 @@
 import { compareLocations } from '#shared/domain/walk-order';
-import type { LocationInput, LocationWithCount } from '#shared/schemas/locations';
+import type { LocationWithCount, RenameGroupOutput } from '#shared/schemas/locations';
 import type { Db } from '../../db/client';
 import { isUniqueViolation } from '../../db/errors';
 import { HttpError } from '../../middleware/errors';
+import { findOrCreatePlaces } from './find-or-create-places';
 import {
   animalsAt,
   deletePlace,
-  insertAtEndOfWalk,
   listWithAnimalCounts,
+  occupantsOf,
+  placesInGroup,
+  placeById,
   placeIdsOf,
+  renameGroup,
   setWalkOrder,
   updatePlace,
+  type Place,
 } from './locations.repository';
 
 const placeTaken = () =>
@@ -19,9 +24,18 @@ const notFound = () => new HttpError(404, 'not_found', 'We could not find that p
 
 export function createLocationsService(db: Db) {
   return {
-    /** Every place in walk order, with how many animals live there. */
+    /** Every place in walk order, with the active animals living there. */
     async list(collectionId: string): Promise<LocationWithCount[]> {
-      const rows = await listWithAnimalCounts(db, collectionId);
+      const [rows, living] = await Promise.all([
+        listWithAnimalCounts(db, collectionId),
+        occupantsOf(db, collectionId),
+      ]);
+      const occupants = new Map<string, { id: string; name: string }[]>();
+      for (const a of living) {
+        const list = occupants.get(a.locationId!) ?? [];
+        list.push({ id: a.id, name: a.name });
+        occupants.set(a.locationId!, list);
+      }
       return rows
         .map(({ location: l, animals: n }) => ({
           id: l.id,
@@ -31,20 +45,47 @@ export function createLocationsService(db: Db) {
           position: l.position,
           walkOrder: l.walkOrder,
           animals: n,
+          occupants: occupants.get(l.id) ?? [],
         }))
         .sort(compareLocations);
     },
 
-    async create(collectionId: string, body: LocationInput) {
+    /** A new place, beside its shelf, rack or room in the walk. */
+    async create(collectionId: string, body: Place) {
       try {
-        return await insertAtEndOfWalk(db, collectionId, body);
+        return await db.transaction(async (tx) => {
+          const { created } = await findOrCreatePlaces(tx, collectionId, [body]);
+          if (!created[0]) throw placeTaken();
+          return (await placeById(tx, collectionId, created[0]))!;
+        });
       } catch (err) {
         if (isUniqueViolation(err)) throw placeTaken();
         throw err;
       }
     },
 
-    async rename(collectionId: string, locationId: string, body: LocationInput) {
+    /** A room, rack or shelf renamed: every place in it follows. Never merged into another. */
+    async renameGroup(collectionId: string, body: RenameGroupOutput) {
+      const what = { room: 'room', rack: 'rack', shelf: 'shelf' }[body.level];
+      const group = {
+        room: body.room,
+        rack: body.level === 'room' ? undefined : body.rack,
+        shelf: body.level === 'shelf' ? body.shelf : undefined,
+      };
+      await db.transaction(async (tx) => {
+        const renamed = { ...group, [body.level]: body.to };
+        if (body.to !== group[body.level] && (await placesInGroup(tx, collectionId, renamed)) > 0)
+          throw new HttpError(
+            409,
+            'place_taken',
+            `There is already a ${what} called “${body.to}” there. Choose another name.`,
+          );
+        const changed = await renameGroup(tx, collectionId, group, { [body.level]: body.to });
+        if (!changed) throw new HttpError(404, 'not_found', `We could not find that ${what}.`);
+      });
+    },
+
+    async rename(collectionId: string, locationId: string, body: Place) {
       let row;
       try {
         row = await updatePlace(db, collectionId, locationId, body);

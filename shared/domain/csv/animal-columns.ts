@@ -21,6 +21,7 @@ import {
   type DateOrder,
   type SizeInputUnit,
 } from '../import/cell-readers';
+import { placeName } from '../places';
 
 /**
  * The animal spreadsheet's columns, in order: what an export writes and an import reads. Lists
@@ -41,6 +42,7 @@ export const ANIMAL_COLUMNS = [
   'rack',
   'shelf',
   'position',
+  'place',
   'interval_days',
   'prey_type',
   'prey_size',
@@ -91,9 +93,13 @@ export const COLUMN_LABEL: Record<AnimalColumn, string> = {
   notes: 'Notes',
   status: 'Status',
   status_date: 'Status date',
+  place: 'Place',
 };
-/** Written by an export for the record; an import leaves them (retire animals on their page). */
-const EXPORT_ONLY: readonly AnimalColumn[] = ['status', 'status_date'];
+/**
+ * Written by an export for the record; an import leaves them (retire animals on their page; the
+ * place is read from room, rack, shelf and position).
+ */
+const EXPORT_ONLY: readonly AnimalColumn[] = ['place', 'status', 'status_date'];
 export const IMPORT_COLUMNS = ANIMAL_COLUMNS.filter((c) => !EXPORT_ONLY.includes(c));
 
 const text = (v: string | null | undefined) => v ?? '';
@@ -116,6 +122,8 @@ export function animalToRow(a: AnimalSummary): Record<AnimalColumn, string> {
     rack: text(a.location?.rack),
     shelf: text(a.location?.shelf),
     position: text(a.location?.position),
+    // The place as every screen writes it; the four columns before it are what an import reads.
+    place: a.location ? placeName(a.location) : '',
     interval_days: num(a.intervalDays),
     prey_type: text(a.preyType),
     prey_size: text(a.preySize),

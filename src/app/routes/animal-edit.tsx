@@ -3,7 +3,11 @@ import { useNavigate, useParams } from 'react-router-dom';
 import { useShell } from '@/app/layout/use-shell';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
-import { useLocations, useSaveAnimal } from '@/features/animals/api/animal-records';
+import {
+  useLocationChanges,
+  useLocations,
+  useSaveAnimal,
+} from '@/features/animals/api/animal-records';
 import { useAnimalList } from '@/features/animals/api/list-animals';
 import { AnimalForm } from '@/features/animals/components/animal-form';
 import { useSizeUnit } from '@/lib/preferences';
@@ -16,6 +20,7 @@ export function AnimalEditRoute() {
   const collectionId = collection?.collectionId ?? '';
   const list = useAnimalList(collectionId);
   const places = useLocations(collectionId);
+  const placeChanges = useLocationChanges(collectionId);
   const save = useSaveAnimal(collectionId, animalId);
   const [unit] = useSizeUnit();
   const knownNames = useMemo(
@@ -36,6 +41,7 @@ export function AnimalEditRoute() {
       <AnimalForm
         animal={animal}
         locations={places.data?.locations ?? []}
+        onCreatePlace={(p) => placeChanges.create.mutateAsync(p).then((l) => l.id)}
         knownNames={knownNames}
         unit={unit}
         onSave={async (values) => {

@@ -12,6 +12,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import {
+  useLocationChanges,
   useLocations,
   useMoveAnimals,
   useRetireAnimal,
@@ -37,6 +38,7 @@ export function AnimalRoute() {
   const collectionId = collection?.collectionId ?? '';
   const list = useAnimalList(collectionId);
   const places = useLocations(collectionId);
+  const placeChanges = useLocationChanges(collectionId);
   const move = useMoveAnimals(collectionId);
   const retire = useRetireAnimal(collectionId, animalId);
   const [unit] = useSizeUnit();
@@ -107,6 +109,8 @@ export function AnimalRoute() {
           what={animal.name}
           locations={places.data?.locations ?? []}
           current={animal.location?.id}
+          moving={[animal.id]}
+          onCreatePlace={(p) => placeChanges.create.mutateAsync(p).then((l) => l.id)}
           onMove={(locationId, rehoused) =>
             move
               .mutateAsync({ animalIds: [animal.id], locationId, rehoused })

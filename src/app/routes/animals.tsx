@@ -7,6 +7,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import {
+  useLocationChanges,
   useLocations,
   useMoveAnimals,
   useRetireAllAnimals,
@@ -53,6 +54,7 @@ function Collection({
   const list = useAnimalList(collectionId);
   const { local } = useRound(userId, collectionId, 'today');
   const places = useLocations(collectionId);
+  const placeChanges = useLocationChanges(collectionId);
   const move = useMoveAnimals(collectionId);
   const retire = useRetireAllAnimals(collectionId);
   const [unit] = useSizeUnit();
@@ -112,6 +114,8 @@ function Collection({
             <MovePanel
               what={what}
               locations={places.data?.locations ?? []}
+              moving={chosen}
+              onCreatePlace={(p) => placeChanges.create.mutateAsync(p).then((l) => l.id)}
               onMove={(locationId, rehoused) =>
                 move
                   .mutateAsync({ animalIds: chosen, locationId, rehoused })

@@ -4,6 +4,7 @@ import { localDateOf } from '#shared/domain/local-dates';
 import { useShell } from '@/app/layout/use-shell';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
+import { useLocations } from '@/features/animals/api/animal-records';
 import { useAnimalList } from '@/features/animals/api/list-animals';
 import { useEggSacs } from '@/features/breeding/api/breeding-api';
 import { IncubationForm } from '@/features/breeding/components/incubation-form';
@@ -19,6 +20,7 @@ export function BreedingRoute() {
   const collectionId = collection?.collectionId ?? '';
   const list = useAnimalList(collectionId, keeper);
   const sacs = useEggSacs(collectionId);
+  const places = useLocations(collectionId, keeper);
   const { local } = useRound(me.user.id, collectionId, 'today');
   if (!collection || !keeper)
     return <Notice tone="info" title="Breeding records are kept by the collection’s keepers." />;
@@ -34,6 +36,7 @@ export function BreedingRoute() {
         collectionId={collection.collectionId}
         today={today}
         females={females}
+        places={places.data?.locations ?? []}
         onSlings={(animalIds) => navigate('/labels', { state: { animalIds } })}
       />
       <IncubationForm collectionId={collection.collectionId} />

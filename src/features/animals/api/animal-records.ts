@@ -13,6 +13,7 @@ import {
   locationListResponse,
   locationResponse,
   type LocationInput,
+  type RenameGroupBody,
 } from '#shared/schemas/locations';
 import { apiRequest } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
@@ -114,9 +115,10 @@ export function useUploadPhoto(collectionId: string, animalId: string) {
   });
 }
 
-export function useLocations(collectionId: string) {
+export function useLocations(collectionId: string, enabled = true) {
   return useQuery({
     queryKey: queryKeys.locations.list(collectionId),
+    enabled: enabled && !!collectionId,
     queryFn: () =>
       apiRequest(`/collections/${collectionId}/locations`, { schema: locationListResponse }),
   });
@@ -138,6 +140,16 @@ export function useLocationChanges(collectionId: string) {
           body: { locationIds },
           schema: locationListResponse,
         }),
+      onSuccess: refresh,
+    }),
+    renameGroup: useMutation({
+      mutationFn: (body: RenameGroupBody) =>
+        apiRequest(`${base}/rename`, { method: 'POST', body, schema: locationListResponse }),
+      onSuccess: refresh,
+    }),
+    renameSpot: useMutation({
+      mutationFn: ({ id, ...body }: LocationInput & { id: string }) =>
+        apiRequest(`${base}/${id}`, { method: 'PATCH', body, schema: locationResponse }),
       onSuccess: refresh,
     }),
     remove: useMutation({

@@ -1,11 +1,8 @@
 import { Link } from 'react-router-dom';
 import { SEX_LABEL, stageLabel } from '#shared/domain/animal-facts';
+import { placeShort } from '#shared/domain/places';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import { CautionBadges } from '@/components/ui/caution-badges';
-
-export function placeCode(location: AnimalSummary['location']): string {
-  return location ? `${location.rack}${location.shelf}-${location.position}` : 'No place yet';
-}
 
 export function AnimalCard({
   animal,
@@ -41,7 +38,7 @@ export function AnimalCard({
         {' · '}
         {stageLabel(animal.group, animal.lifeStage)} · {SEX_LABEL[animal.sex]}
         {' · '}
-        <span className="font-bold text-text">{placeCode(animal.location)}</span>
+        <span className="font-bold text-text">{placeShort(animal.location)}</span>
       </p>
       <CautionBadges cautions={animal.cautions} />
     </article>

@@ -1,5 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useId, useMemo } from 'react';
+import { useId, useMemo, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import {
@@ -28,7 +28,16 @@ import {
   type AnimalSummary,
   type AnimalValues,
 } from '#shared/schemas/animals';
-import type { LocationSummary } from '#shared/schemas/animals';
+import type { LocationWithCount } from '#shared/schemas/locations';
+import {
+  choiceOf,
+  choiceProblems,
+  existingPlace,
+  occupantsAt,
+  PlacePicker,
+  TakenSpot,
+  type PlaceChoice,
+} from '@/components/place-picker';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { SelectField } from '@/components/ui/select-field';
@@ -120,8 +129,6 @@ function fromAnimal(a: AnimalSummary | null, unit: SizeUnit): FormValues {
   };
 }
 
-const placeName = (l: LocationSummary) => `${l.room} · ${l.rack}${l.shelf}-${l.position}`;
-
 /** The stage to switch to when the chosen one does not fit a new group: its first stage that eats. */
 const firstFedStage = (group: AnimalGroup) =>
   stagesOf(group).find((s) => GROUP_CARE[group].food[s] !== 'none') ?? stagesOf(group)[0]!;
@@ -129,7 +136,9 @@ const hasDiet = (group: AnimalGroup) => Object.values(GROUP_CARE[group].food).in
 
 interface Props {
   animal: AnimalSummary | null;
-  locations: readonly LocationSummary[];
+  locations: readonly LocationWithCount[];
+  /** A place named in the picker that does not exist yet: created on save, its id returned. */
+  onCreatePlace: (place: PlaceChoice) => Promise<string>;
   /** Names already used in the collection, offered as the keeper types. */
   knownNames: readonly string[];
   unit: SizeUnit;
@@ -137,7 +146,15 @@ interface Props {
   onCancel: () => void;
 }
 
-export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCancel }: Props) {
+export function AnimalForm({
+  animal,
+  locations,
+  onCreatePlace,
+  knownNames,
+  unit,
+  onSave,
+  onCancel,
+}: Props) {
   const listId = useId();
   const defaults = fromAnimal(animal, unit);
   const { register, handleSubmit, setError, setValue, watch, formState } = useForm<
@@ -189,14 +206,29 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
           },
         ]),
   ];
-  const locationOptions = [
-    { value: '', label: 'No place yet' },
-    ...locations.map((l) => ({ value: l.id, label: placeName(l) })),
-  ];
+  // The place is picked from the tree (or named anew) beside the form's own fields.
+  const [place, setPlace] = useState<PlaceChoice>(choiceOf(animal?.location));
+  const [share, setShare] = useState(false);
+  const [placeTried, setPlaceTried] = useState(false);
+  const mine = animal ? [animal.id] : [];
+  const taken = occupantsAt(locations, place, mine);
+  const placeMissing = place.room ? choiceProblems(place) : {};
+  const placeBlocked = Object.keys(placeMissing).length > 0 || (taken.length > 0 && !share);
+  async function locationIdOf(): Promise<string | null> {
+    if (!place.room) return null;
+    return existingPlace(locations, place)?.id ?? onCreatePlace(place);
+  }
 
   return (
     <form
-      onSubmit={handleSubmit((values) => attempt(() => onSave(values)))}
+      onSubmit={(ev) => {
+        setPlaceTried(true);
+        return handleSubmit((values) =>
+          placeBlocked
+            ? undefined
+            : attempt(async () => onSave({ ...values, locationId: await locationIdOf() })),
+        )(ev);
+      }}
       noValidate
       className="flex flex-col gap-4"
     >
@@ -303,7 +335,29 @@ export function AnimalForm({ animal, locations, knownNames, unit, onSave, onCanc
 
       <fieldset className="flex flex-col gap-3">
         <legend className="mb-1 text-xl font-extrabold">Where and from whom</legend>
-        <SelectField label="Place" options={locationOptions} {...register('locationId')} />
+        <PlacePicker
+          legend="Place"
+          places={locations}
+          value={place}
+          onChange={(c) => {
+            setPlace(c);
+            setShare(false);
+          }}
+          leaving={mine}
+          optional
+          errors={placeTried ? placeMissing : {}}
+        />
+        <TakenSpot
+          where={place}
+          names={taken}
+          share={share}
+          onShare={setShare}
+          error={
+            placeTried && taken.length > 0 && !share
+              ? 'Tick to share the spot, or choose a free one.'
+              : undefined
+          }
+        />
         <div className="grid grid-cols-2 gap-2">
           <TextField
             label="Acquired on"

@@ -23,13 +23,13 @@ import {
   stageLabel,
   STATUS_LABEL,
 } from '#shared/domain/animal-facts';
+import { placeShort, rackName } from '#shared/domain/places';
 import { formatSize, type SizeUnit } from '#shared/domain/units';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import { CautionIcon } from '@/components/ui/icons';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
 import { filterAnimals, NO_FILTERS, type TableFilters } from '../table-filters';
-import { placeCode } from './animal-card';
 
 const COLUMNS_KEY = 'rackside.table-columns';
 const OPTIONAL_COLUMNS = {
@@ -198,7 +198,7 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
         header: 'Place',
         accessorFn: (a) =>
           a.location ? `${a.location.walkOrder.toString().padStart(6, '0')}` : 'zzz',
-        cell: ({ row }) => placeCode(row.original.location),
+        cell: ({ row }) => placeShort(row.original.location),
       },
       {
         id: 'cautions',
@@ -298,7 +298,7 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
           label="Rack"
           value={filters.rack}
           onChange={(e) => set({ rack: e.target.value })}
-          options={any('Any rack', racks, (r) => `Rack ${r}`)}
+          options={any('Any rack', racks, rackName)}
         />
         <SelectField
           label="Caution"
@@ -375,7 +375,7 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
                   </p>
                   <p className="text-sm text-muted">
                     <i lang="la">{a.scientificName}</i> · {stageLabel(a.group, a.lifeStage)} ·{' '}
-                    <span className="font-bold text-text">{placeCode(a.location)}</span>
+                    <span className="font-bold text-text">{placeShort(a.location)}</span>
                     {a.status !== 'active' && ` · ${STATUS_LABEL[a.status]}`}
                   </p>
                   <CautionMarks cautions={a.cautions} />

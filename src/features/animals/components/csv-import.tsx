@@ -35,6 +35,7 @@ import {
   type ImportSettings,
 } from '#shared/domain/import/plan-import';
 import type { LocalDate } from '#shared/domain/local-dates';
+import { placeName } from '#shared/domain/places';
 import { formatSize, type SizeUnit } from '#shared/domain/units';
 import { MAX_IMPORT_ROWS } from '#shared/schemas/import';
 import { Button } from '@/components/ui/button';
@@ -324,7 +325,7 @@ export function CsvImport({ collectionId, takenCodes, sizeUnit }: Props) {
                             {size && ` · ${size}${asWritten(size, cells.size_mm)}`}
                             {acquired &&
                               ` · acquired ${acquired}${numericDate(cells.acquired_on ?? '') ? asWritten(acquired, cells.acquired_on) : ''}`}
-                            {v.place && ` · ${v.place.rack}${v.place.shelf}-${v.place.position}`}
+                            {v.place && ` · ${placeName(v.place)}`}
                           </li>
                         );
                       })}

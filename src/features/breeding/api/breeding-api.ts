@@ -25,6 +25,8 @@ export function useBreedingChanges(collectionId: string) {
       queryClient.invalidateQueries({ queryKey: queryKeys.breeding.sacs(collectionId) }),
       queryClient.invalidateQueries({ queryKey: queryKeys.animals.all(collectionId) }),
       queryClient.invalidateQueries({ queryKey: queryKeys.rounds.all(collectionId) }),
+      // A pot-up finds or creates its spots.
+      queryClient.invalidateQueries({ queryKey: queryKeys.locations.list(collectionId) }),
     ]);
   const base = `/collections/${collectionId}`;
   return {

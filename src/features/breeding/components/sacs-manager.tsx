@@ -10,6 +10,7 @@ import {
   type BreedingRecordKind,
 } from '#shared/domain/breeding';
 import { eggSacBody, type EggSacView } from '#shared/schemas/breeding';
+import type { LocationWithCount } from '#shared/schemas/locations';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { SelectField } from '@/components/ui/select-field';
@@ -32,6 +33,8 @@ interface Props {
   collectionId: string;
   today: string;
   females: readonly Female[];
+  /** The collection's places in walk order, for the pot-up's shelf. */
+  places: readonly LocationWithCount[];
   /** The new slings' ids, to print their labels. */
   onSlings: (animalIds: string[]) => void;
 }
@@ -93,11 +96,13 @@ function SacCard({
   sac,
   today,
   collectionId,
+  places,
   onSlings,
 }: {
   sac: EggSacView;
   today: string;
   collectionId: string;
+  places: Props['places'];
   onSlings: Props['onSlings'];
 }) {
   const mode = breedingModeOf(sac.femaleGroup);
@@ -134,14 +139,20 @@ function SacCard({
         />
       )}
       {open === 'slings' && (
-        <PotUpForm sac={sac} collectionId={collectionId} young={young} onSlings={onSlings} />
+        <PotUpForm
+          sac={sac}
+          collectionId={collectionId}
+          young={young}
+          places={places}
+          onSlings={onSlings}
+        />
       )}
     </li>
   );
 }
 
 /** Egg sacs, egg cases and broods from laying (or birth) to potting up, after each female's group. */
-export function SacsManager({ collectionId, today, females, onSlings }: Props) {
+export function SacsManager({ collectionId, today, females, places, onSlings }: Props) {
   const sacs = useEggSacs(collectionId);
   return (
     <div className="flex flex-col gap-4">
@@ -155,6 +166,7 @@ export function SacsManager({ collectionId, today, females, onSlings }: Props) {
             sac={sac}
             today={today}
             collectionId={collectionId}
+            places={places}
             onSlings={onSlings}
           />
         ))}
@@ -187,7 +199,7 @@ function recordFor(females: readonly Female[], femaleId: string) {
 }
 
 /** A new sac, egg case or brood: its words and what is counted follow the chosen female's group. */
-function NewRecordForm({ collectionId, today, females }: Omit<Props, 'onSlings'>) {
+function NewRecordForm({ collectionId, today, females }: Omit<Props, 'onSlings' | 'places'>) {
   const { create } = useBreedingChanges(collectionId);
   const { register, handleSubmit, setError, setValue, watch, formState } = useForm<
     NewRecordInput,

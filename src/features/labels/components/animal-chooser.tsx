@@ -1,5 +1,6 @@
 import { useMemo, useState } from 'react';
 import { stageLabel } from '#shared/domain/animal-facts';
+import { rackAndShelf, rackName, shelfName } from '#shared/domain/places';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import { Button } from '@/components/ui/button';
 import { SelectField } from '@/components/ui/select-field';
@@ -40,13 +41,15 @@ export function AnimalChooser({ animals, timeZone, chosen, onChange }: Props) {
           label="Rack"
           value={pick.rack}
           onChange={(e) => set({ rack: e.target.value, shelf: '' })}
-          options={any('Any rack', choices.racks)}
+          options={any('Any rack', choices.racks, rackName)}
         />
         <SelectField
           label="Shelf or tray"
           value={pick.shelf}
           onChange={(e) => set({ shelf: e.target.value })}
-          options={any('Any', choices.shelves, (s) => (pick.rack ? `${pick.rack}${s}` : s))}
+          options={any('Any', choices.shelves, (s) =>
+            pick.rack ? rackAndShelf({ rack: pick.rack, shelf: s }) : shelfName(s),
+          )}
         />
         <SelectField
           label="Clutch"

@@ -3,15 +3,12 @@ import { Link } from 'react-router-dom';
 import { SEX_LABEL, stageLabel } from '#shared/domain/animal-facts';
 import { EVENT_WORDS } from '#shared/domain/event-kinds';
 import { clockTime } from '#shared/domain/local-dates';
+import { placeShort } from '#shared/domain/places';
 import { currentNotes } from '#shared/domain/rounds/item-status';
 import type { Outcome, RoundItemView } from '#shared/schemas/rounds';
 import { CautionBadges } from '@/components/ui/caution-badges';
 import { HoldIcon } from '@/components/ui/icons';
 import { describeOffer, TASK_META } from './task-meta';
-
-function placeCode(location: RoundItemView['animal']['location']) {
-  return location ? `${location.rack}${location.shelf}-${location.position}` : 'No place';
-}
 
 interface Props {
   item: RoundItemView;
@@ -79,7 +76,7 @@ export function RoundItemCard({ item, timeZone, myName, children, openRecord }: 
           <span className="whitespace-nowrap rounded-md border-2 border-border px-2 font-mono font-bold tracking-wider">
             {animal.labelCode}
           </span>
-          <span className="font-bold">{placeCode(animal.location)}</span>
+          <span className="font-bold">{placeShort(animal.location)}</span>
         </div>
       </header>
       {/* Safety first: cautions sit above the tasks. */}

@@ -1,10 +1,11 @@
 import { memo, type ReactNode } from 'react';
+import { shelfHeading } from '#shared/domain/places';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { RoundItemCard } from './round-item-card';
 
 function shelfOf(item: RoundItemView) {
   const l = item.animal.location;
-  return l ? `${l.room} · Rack ${l.rack} · Shelf ${l.shelf}` : 'Without a place';
+  return shelfHeading(l);
 }
 
 // A tap changes one item; the other cards keep their props and skip rendering (P1 budget).
