@@ -30,6 +30,7 @@ describe('growth and breeding at 360 px', () => {
     await screenshot(page, 'breeding-01-growth');
 
     await page.getByRole('link', { name: 'Animals', exact: true }).click();
+    await page.getByText('More', { exact: true }).click();
     await page.getByRole('link', { name: 'Breeding' }).click();
     const juniper = (
       await page.getByLabel('Female', { exact: true }).locator('option').allInnerTexts()
@@ -63,6 +64,7 @@ describe('growth and breeding at 360 px', () => {
     const { page, consoleErrors } = await phonePage(env.browser);
     await signInAsDemo(page, env.server.baseUrl, 'owner@northlight.test');
     await page.getByRole('link', { name: 'Animals', exact: true }).click();
+    await page.getByText('More', { exact: true }).click();
     await page.getByRole('link', { name: 'Breeding' }).click();
     const picker = page.getByLabel('Female', { exact: true });
     await picker.waitFor();

@@ -10,9 +10,12 @@ export function placeCode(location: AnimalSummary['location']): string {
 export function AnimalCard({
   animal,
   linked = false,
+  heading: Heading = 'h3',
 }: {
   animal: AnimalSummary;
   linked?: boolean;
+  /** The animal's own page names it in its main heading. */
+  heading?: 'h1' | 'h3';
 }) {
   return (
     <article
@@ -20,7 +23,9 @@ export function AnimalCard({
       aria-label={`${animal.name}, ${animal.labelCode}`}
     >
       <div className="flex items-baseline justify-between gap-2">
-        <h3 className="text-xl font-extrabold">
+        <Heading
+          className={Heading === 'h1' ? 'text-3xl font-extrabold' : 'text-xl font-extrabold'}
+        >
           {linked ? (
             <Link
               to={`/animals/${animal.id}`}
@@ -31,7 +36,7 @@ export function AnimalCard({
           ) : (
             animal.name
           )}
-        </h3>
+        </Heading>
         <span className="rounded-md border-2 border-border px-2 font-mono text-base font-bold tracking-wider">
           {animal.labelCode}
         </span>

@@ -9,6 +9,7 @@ import {
   type BreedingMode,
   type BreedingRecordKind,
 } from '#shared/domain/breeding';
+import { formatDateRange, formatLocalDate } from '#shared/domain/date-words';
 import { eggSacBody, type EggSacView } from '#shared/schemas/breeding';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -56,18 +57,20 @@ function howSheIsTreated(mode: BreedingMode): string {
   return 'She is left alone while she guards it; her water dish is still topped up quietly. When you pull it, or it hatches with her, her rebuild (fed more often) starts by itself.';
 }
 
+const day = (date: string) => formatLocalDate(date);
+
 /** The dates and counts that mean something for this kind of record. */
 function dateLine(sac: EggSacView, mode: BreedingMode) {
   const expected =
     sac.kind === 'brood'
-      ? `disperses about ${sac.expectedFrom} to ${sac.expectedTo}`
-      : `expected ${sac.expectedFrom} to ${sac.expectedTo}`;
+      ? `disperses about ${formatDateRange(sac.expectedFrom, sac.expectedTo)}`
+      : `expected ${formatDateRange(sac.expectedFrom, sac.expectedTo)}`;
   return [
-    `${mode.words.startedOn} ${sac.laidOn}`,
+    `${mode.words.startedOn} ${day(sac.laidOn)}`,
     expected,
-    sac.pulledOn && `pulled ${sac.pulledOn}`,
-    sac.hatchedOn && `hatched ${sac.hatchedOn}`,
-    sac.dispersedOn && `dispersed ${sac.dispersedOn}`,
+    sac.pulledOn && `pulled ${day(sac.pulledOn)}`,
+    sac.hatchedOn && `hatched ${day(sac.hatchedOn)}`,
+    sac.dispersedOn && `dispersed ${day(sac.dispersedOn)}`,
   ]
     .filter(Boolean)
     .join(' · ');
