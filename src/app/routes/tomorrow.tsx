@@ -1,4 +1,4 @@
-import { describeLocalDate } from '#shared/domain/local-dates';
+import { formatLocalDate } from '#shared/domain/date-words';
 import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { Button } from '@/components/ui/button';
@@ -25,7 +25,7 @@ function Tomorrow({ userId, collectionId }: { userId: string; collectionId: stri
   const r = local.data.round;
   return (
     <div className="flex flex-col gap-4">
-      <h1 className="text-3xl font-extrabold">Tomorrow · {describeLocalDate(r.date)}</h1>
+      <h1 className="text-3xl font-extrabold">Tomorrow · {formatLocalDate(r.date)}</h1>
       <p className="text-muted print:hidden">
         A preview: what is recorded today still changes it. The round is fixed when its day begins.
       </p>

@@ -151,6 +151,29 @@ export function SacsManager({ collectionId, today, females, onSlings }: Props) {
       <NewRecordForm collectionId={collectionId} today={today} females={females} />
       {sacs.isPending && <Loading />}
       {sacs.isError && <Notice tone="error" title={sacs.error.message} />}
+      <h2 className="text-xl font-extrabold">
+        Breeding register
+        {sacs.data && <span className="text-muted"> ({sacs.data.sacs.length})</span>}
+      </h2>
+      {sacs.data?.sacs.length === 0 && (
+        <div
+          role="note"
+          aria-label="About the breeding register"
+          className="flex flex-col gap-1 rounded-2xl border-2 border-dashed border-border p-3"
+        >
+          <p className="font-bold">Nothing in the register yet.</p>
+          <p>
+            When a female lays an egg sac or an egg case, or carries a brood, record it above with
+            the day it began. Rackside then works out when to expect the hatch, leaves a guarding
+            female alone on the round (her water still topped up), and pots the young up into
+            numbered slings with their own labels.
+          </p>
+          <p className="text-sm text-muted">
+            Only animals recorded as female can be chosen, of the groups that breed this way:
+            tarantulas, true spiders, scorpions, centipedes and mantids.
+          </p>
+        </div>
+      )}
       <ul aria-label="Egg sacs, egg cases and broods" className="flex flex-col gap-2">
         {sacs.data?.sacs.map((sac) => (
           <SacCard
