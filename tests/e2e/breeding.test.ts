@@ -87,7 +87,7 @@ describe('growth and breeding at 360 px', () => {
       .filter({ hasText: 'Scorplings E2E' });
     await brood.waitFor();
     expect(await brood.innerText()).toMatch(
-      /Brood[\s\S]*Born on [\d-]+ · disperses about[\s\S]*Scorplings 31/,
+      /Brood[\s\S]*Born on [A-Z][a-z]{2}[^·]+ · likely to disperse from [^·]+ to [^·]+[\s\S]*Scorplings 31/,
     );
     await brood.getByRole('button', { name: 'Update…' }).click();
     expect(await brood.getByLabel('Dispersed on').count()).toBe(1);

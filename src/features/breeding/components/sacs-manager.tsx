@@ -63,7 +63,7 @@ const day = (date: string) => formatLocalDate(date);
 function dateLine(sac: EggSacView, mode: BreedingMode) {
   const expected =
     sac.kind === 'brood'
-      ? `disperses about ${formatDateRange(sac.expectedFrom, sac.expectedTo)}`
+      ? `likely to disperse ${formatDateRange(sac.expectedFrom, sac.expectedTo)}`
       : `expected ${formatDateRange(sac.expectedFrom, sac.expectedTo)}`;
   return [
     `${mode.words.startedOn} ${day(sac.laidOn)}`,
