@@ -1,4 +1,4 @@
-// The invented demo collection (demo scenario): people, room layout, ~42 animals and about
+// The invented demo collection (demo scenario): people, room layout, ~43 animals and about
 // 60 days of history, arranged so that "today" shows every rule of the round engine.
 import { randomUUID } from 'node:crypto';
 import { eq, inArray } from 'drizzle-orm';
@@ -56,7 +56,10 @@ interface DemoAnimal {
     | 'missed'
     | 'guarding_sac'
     | 'brood_on_back'
-    | 'egg_case';
+    | 'egg_case'
+    | 'clutch_potted';
+  /** Days since the animal came to the collection, where the seed must not draw it at random. */
+  acquiredDaysAgo?: number;
 }
 
 /**
@@ -72,6 +75,8 @@ const BREEDING: Partial<
       pulled?: number;
       eggs?: number;
       young?: number;
+      /** The clutch name its young share, where they are already in the collection. */
+      clutch?: string;
       note: string;
     }
   >
@@ -91,6 +96,36 @@ const BREEDING: Partial<
     note: 'Scorplings white and riding on her back.',
   },
   egg_case: { kind: 'egg_case', laid: -10, note: 'Ootheca on the lid mesh.' },
+  // The sac the demo's 24 Hapalopus formosus slings came from (trays C1 and C2).
+  clutch_potted: {
+    kind: 'egg_sac',
+    laid: -150,
+    pulled: -149,
+    eggs: 61,
+    young: 24,
+    clutch: 'H. formosus sac 1',
+    note: 'Pulled for incubation; 24 slings potted up into trays C1 and C2.',
+  },
+};
+
+/**
+ * The mother of the sling clutch, from the demo's own pairing. She comes last in the roster, and
+ * her code and arrival date are not drawn from the shared generator, so every other animal's
+ * code and history stay as they were before she was added.
+ */
+const MOTHER: DemoAnimal = {
+  name: 'Marigold',
+  scientificName: 'Hapalopus formosus',
+  commonName: 'Colombian pumpkin patch',
+  group: 'tarantula',
+  lifeStage: 'adult',
+  sex: 'female',
+  sizeMm: 75,
+  place: ['A', '2', '4'],
+  cautions: ['urticating_hairs'],
+  hasWaterDish: true,
+  story: 'clutch_potted',
+  acquiredDaysAgo: 400,
 };
 
 const ADULTS: DemoAnimal[] = [
@@ -382,6 +417,7 @@ export function historyFor(
     guarding_sac: -4,
     brood_on_back: -5,
     egg_case: -10,
+    clutch_potted: 0,
   };
   const stopAt = storyStart[animal.story ?? 'none'];
   let offset = -60 + Math.floor(random() * interval);
@@ -565,7 +601,7 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
       },
     ]);
 
-    const roster = [...ADULTS, ...JUVENILES, ...clutch()];
+    const roster = [...ADULTS, ...JUVENILES, ...clutch(), MOTHER];
     const places = new Map<string, string>();
     const placeRows = roster.map((a) => ({
       collectionId,
@@ -600,7 +636,9 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
     const insertedPlaces = await tx.insert(locations).values(placeRows).returning();
     for (const l of insertedPlaces) places.set(`${l.rack}|${l.shelf}|${l.position}`, l.id);
 
-    const codes = generateLabelCodes('NL', roster.length, random);
+    const drawn = roster.filter((a) => a !== MOTHER);
+    const codes = generateLabelCodes('NL', drawn.length, random);
+    codes.push(...generateLabelCodes('NL', 1, seededRandom(20260702), new Set(codes)));
     const insertedAnimals = await tx
       .insert(animals)
       .values(
@@ -618,7 +656,12 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
           hasWaterDish: a.hasWaterDish ?? false,
           cautions: a.cautions ?? [],
           clutch: a.clutch ?? null,
-          acquiredOn: addDays(today, -200 - Math.floor(random() * 300)),
+          acquiredOn: addDays(
+            today,
+            a.acquiredDaysAgo !== undefined
+              ? -a.acquiredDaysAgo
+              : -200 - Math.floor(random() * 300),
+          ),
           // In Rackside since before the history begins, and settled in (R16) by then.
           createdAt: startOfLocalDate(addDays(today, -65), zone),
         })),
@@ -656,7 +699,9 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
           collectionId,
           femaleId,
           kind: plan.kind,
-          clutch: `${a.name} ${plan.kind === 'egg_sac' ? 'sac' : plan.kind === 'brood' ? 'brood' : 'case'} ${addDays(today, plan.laid)}`,
+          clutch:
+            plan.clutch ??
+            `${a.name} ${plan.kind === 'egg_sac' ? 'sac' : plan.kind === 'brood' ? 'brood' : 'case'} ${addDays(today, plan.laid)}`,
           laidOn: addDays(today, plan.laid),
           pulledOn: plan.pulled !== undefined ? addDays(today, plan.pulled) : null,
           eggCount: plan.eggs ?? null,

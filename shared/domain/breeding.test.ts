@@ -7,6 +7,7 @@ import {
   breedingModeOf,
   breedingRefusal,
   canBreed,
+  canPair,
   isOpenRecord,
   type BreedingDates,
 } from './breeding';
@@ -82,6 +83,13 @@ describe('who may have a pairing or a sac, case or brood', () => {
     expect(breedingRefusal({ ...she, sex: 'unknown' })).toBe(
       "Juniper's sex is not known yet. Record her as a female on the animal's page first.",
     );
+  });
+  it('offers a pairing only to an adult female of a group that breeds', () => {
+    expect(canPair({ ...she, lifeStage: 'adult' })).toBe(true);
+    expect(canPair({ ...she, lifeStage: 'subadult' })).toBe(false);
+    expect(canPair({ ...she, lifeStage: 'juvenile', sex: 'unknown' })).toBe(false);
+    expect(canPair({ ...she, lifeStage: 'adult', sex: 'unknown' })).toBe(false);
+    expect(canPair({ ...she, lifeStage: 'adult', group: 'beetle' })).toBe(false);
   });
   it('refuses a beetle and an "other" animal, whatever the sex', () => {
     expect(breedingRefusal({ ...she, group: 'beetle' })).toMatch(/eggs in the substrate/);

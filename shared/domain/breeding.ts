@@ -1,4 +1,4 @@
-import type { AnimalGroup, Sex } from './animal-facts';
+import type { AnimalGroup, LifeStage, Sex } from './animal-facts';
 import type { EventKind } from './event-kinds';
 import type { LocalDate } from './local-dates';
 
@@ -176,6 +176,17 @@ export function breedingRefusal(animal: {
 /** Whether she can have breeding records: the pickers list only these. */
 export const canBreed = (animal: { name: string; sex: Sex; group: AnimalGroup }) =>
   breedingRefusal(animal) === null;
+
+/**
+ * Whether a pairing makes sense to offer: an adult female of a group that breeds. A sexed
+ * juvenile or subadult female is not mature yet (she can be paired once she is recorded as adult).
+ */
+export const canPair = (animal: {
+  name: string;
+  sex: Sex;
+  group: AnimalGroup;
+  lifeStage: LifeStage;
+}) => animal.lifeStage === 'adult' && canBreed(animal);
 
 /** The short word in a default clutch name ("Juniper sac 2026-10-01"). */
 export const RECORD_SHORT: Record<BreedingRecordKind, string> = {

@@ -16,8 +16,8 @@ export const CAUTION_SYMBOL_PATHS: Record<Caution, readonly string[]> = {
   urticating_hairs: ['M4 19c4-1 7-4 8-9', 'M12 5l1-3M16 7l3-2M17 11l3 0M15 15l2 2M9 8L7 5'],
   // A zigzag dash.
   fast_defensive: ['M13 2L5 13h6l-1 9 8-11h-6z'],
-  // An arrow leaving a box.
-  escape_risk: ['M10 4H4v16h16v-6', 'M13 11l8-8M15 3h6v6'],
+  // An enclosure with its lid lifted on one side, and something climbing out through the gap.
+  escape_risk: ['M4 11v10h16V11', 'M3 9.5L20 4', 'M11 18v-9M8 12l3-3 3 3'],
   // A tail curling up and over, ending in a barb.
   sting: ['M4 21c8 0 13-4 13-11 0-3-2-6-5-6', 'M12 4l-2 4 4 0z'],
 };

@@ -44,3 +44,18 @@ describe.each(THEMES)('%s theme', (theme) => {
     },
   );
 });
+
+describe('caution chips in the night theme (filled, see index.css)', () => {
+  const p = PALETTES.night;
+  it('their text reads on the filled chip (≥ 4.5:1) and the chip stands out from the card (≥ 3:1)', () => {
+    expect(contrast(p.bg, p.danger)).toBeGreaterThanOrEqual(4.5);
+    for (const ground of [p.bg, p.surface])
+      expect(contrast(p.danger, ground)).toBeGreaterThanOrEqual(3);
+  });
+  it('a filled chip differs from plain text around it (text on ground vs ground on danger)', () => {
+    // Plain night text is red on black; a chip is black on red: the polarity flips, so it is
+    // seen as a mark, not read as one more line (the reason it is filled in this theme).
+    expect(contrast(p.text, p.danger)).toBeLessThan(1.5);
+    expect(contrast(p.bg, p.danger)).toBeGreaterThan(7);
+  });
+});

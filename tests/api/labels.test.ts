@@ -128,10 +128,50 @@ describe('POST /collections/:id/labels/pdf', () => {
     ).toBeNull();
   });
 
+  it('prints 19 mm squares with the short QR that the Scan screen reads', async () => {
+    const res = await owner.agent
+      .post(pdfUrl())
+      .send(body({ size: LABEL_SIZES['square-19'], animalIds: animalIds.slice(0, 3) }))
+      .responseType('blob')
+      .expect(200);
+    const pages = rasterisePdf(res.body as Buffer, 400);
+    const sheet = sheetLayout('a4', LABEL_SIZES['square-19']);
+    const codes = new Map<string, string>(
+      (
+        await owner.agent.get(`/api/collections/${owner.collectionId}/animals`).expect(200)
+      ).body.animals.map((a: { id: string; labelCode: string }) => [a.id, a.labelCode]),
+    );
+    animalIds.slice(0, 3).forEach((id, i) => {
+      const cell = sheet.cells[i]!;
+      const content = labelContent(
+        {
+          id,
+          labelCode: codes.get(id)!,
+          name: '',
+          scientificName: '',
+          lifeStage: 'adult',
+          sex: 'unknown',
+          cautions: [],
+        },
+        tag,
+        ORIGIN,
+        sheet.label,
+        LABEL_FIELDS,
+      );
+      expect(content.short).toBe(true);
+      const quiet = {
+        ...content.layout.quiet,
+        x: cell.x + content.layout.quiet.x,
+        y: cell.y + content.layout.quiet.y,
+      };
+      expect(decodeQrIn(pages[0]!, quiet)).toBe(`L/${tag}/${codes.get(id)}`);
+    });
+  });
+
   it('refuses labels whose QR squares would be under 0.5 mm, saying why', async () => {
     const res = await owner.agent
       .post(pdfUrl())
-      .send(body({ size: LABEL_SIZES['square-19'] }))
+      .send(body({ size: { widthMm: 15, heightMm: 15 } }))
       .expect(422);
     expect(res.body.error.code).toBe('label_too_small');
     expect(res.body.error.message).toMatch(/under the 0\.5 mm/);

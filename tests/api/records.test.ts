@@ -539,6 +539,12 @@ describe('CSV export and import (RFC 4180)', () => {
     expect(table.records.some((r) => r.cells[6] === 'moved' && r.cells[8] === 'Test Keeper')).toBe(
       true,
     );
+    // Details are words a keeper reads in a spreadsheet, never a payload's JSON or raw ids.
+    const moved = table.records.find((r) => r.cells[6] === 'moved')!;
+    expect(moved.cells[7]).toMatch(/^(from \S+ )?to \S+/);
+    // (An undo names the event it undoes by its event_id, a column of this same file.)
+    for (const r of table.records.filter((r) => !['void', 'molt_details'].includes(r.cells[6]!)))
+      expect(r.cells[7]).not.toMatch(/[{}"]|[0-9a-f]{8}-[0-9a-f]{4}-/);
   });
 });
 

@@ -163,7 +163,7 @@ describe("the demo's today round", () => {
         }));
       expect(row.state).toEqual(projectState(mine, ZONE));
     }
-    expect(stored.length).toBe(42);
+    expect(stored.length).toBe(43);
   });
 
   it('previews tomorrow with its prep list, and explains why an animal is or is not on the round', async () => {

@@ -129,7 +129,7 @@ describe('a new collection', () => {
     await page.getByRole('button', { name: 'Start the collection' }).click();
     await page.waitForURL('**/today');
     await expect.poll(() => page.getByRole('banner').innerText()).toContain('Back bedroom');
-    await page.getByText('Nothing is due. Enjoy the quiet.').waitFor();
+    await page.getByRole('heading', { name: 'Start Back bedroom' }).waitFor();
     await page.getByRole('link', { name: 'Settings' }).click();
     const switcher = page.getByRole('group', { name: 'Collection on this device' });
     await expect.poll(() => switcher.innerText()).toContain('Back bedroom');

@@ -32,7 +32,7 @@ describe('the app shell at 360 × 740', () => {
     await screenshot(page, 'foundation-02-today-dark');
     await page.getByRole('link', { name: 'Animals', exact: true }).click();
     await page.waitForURL('**/animals');
-    await expect.poll(() => page.getByText('42 of 42 animals').count()).toBe(1);
+    await expect.poll(() => page.getByText('43 of 43 animals').count()).toBe(1);
 
     await page.getByRole('link', { name: 'Settings' }).click();
     await page.waitForURL('**/settings');

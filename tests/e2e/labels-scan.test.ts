@@ -94,7 +94,8 @@ describe('label sheets printed from the browser', () => {
     );
 
     await page.getByRole('link', { name: 'Animals' }).click();
-    await page.getByRole('link', { name: 'Labels…' }).click();
+    await page.getByText('More', { exact: true }).click();
+    await page.getByRole('link', { name: 'Print labels' }).click();
     await page.getByLabel('Clutch').selectOption(CLUTCH);
     await page.getByRole('button', { name: 'Choose all 24 shown' }).click();
     await page.getByText('Letter', { exact: true }).click();

@@ -53,6 +53,29 @@ export async function eventsWithNamesPage(
     .limit(limit);
 }
 
+/** Names for the ids an event's payload may hold (males, places), for the history CSV. */
+export async function payloadNames(db: Db, collectionId: string) {
+  const [who, where] = await Promise.all([
+    db
+      .select({ id: animals.id, name: animals.name, code: animals.labelCode })
+      .from(animals)
+      .where(eq(animals.collectionId, collectionId)),
+    db
+      .select({
+        id: locations.id,
+        rack: locations.rack,
+        shelf: locations.shelf,
+        position: locations.position,
+      })
+      .from(locations)
+      .where(eq(locations.collectionId, collectionId)),
+  ]);
+  return {
+    animals: new Map(who.map((a) => [a.id, `${a.name} (${a.code})`])),
+    places: new Map(where.map((l) => [l.id, `${l.rack}${l.shelf}-${l.position}`])),
+  };
+}
+
 /**
  * Events after a page's last one. The cursor is the time as PostgreSQL wrote it (microseconds
  * kept), so a page never repeats or skips an event that shares a millisecond. The plain `>=` on

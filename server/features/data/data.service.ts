@@ -1,6 +1,8 @@
 import type { Readable } from 'node:stream';
 import { ANIMAL_COLUMNS, animalToRow } from '#shared/domain/csv/animal-columns';
 import { writeCsv, writeCsvRecords } from '#shared/domain/csv/csv-file';
+import { eventDetails } from '#shared/domain/event-details';
+import type { EventKind } from '#shared/domain/event-kinds';
 import { clockTime } from '#shared/domain/local-dates';
 import type { AnimalImportValues } from '#shared/schemas/import';
 import type { MemberCollection } from '../../access/memberships';
@@ -9,7 +11,7 @@ import type { AnimalsService } from '../animals/animals.service';
 import { findOrCreatePlaces } from '../locations/find-or-create-places';
 import type { PhotosService } from '../photos/photos.service';
 import { writeBackup, type BackupSink } from './backup-writer';
-import { eventsWithNamesPage } from './data.repository';
+import { eventsWithNamesPage, payloadNames } from './data.repository';
 import { restoreBackup } from './restore';
 import { createWorkSlots } from './work-slots';
 
@@ -60,6 +62,12 @@ export function createDataService(
         month: '2-digit',
         day: '2-digit',
       });
+      // Details in words: the male's name and code, places as written on the rack (not ids).
+      const names = await payloadNames(db, collectionId);
+      const detailNames = {
+        animal: (id: string) => names.animals.get(id),
+        place: (id: string) => names.places.get(id),
+      };
       // The header alone ends in CRLF; records follow it one CRLF apart, as writeCsv joins them.
       const header = writeCsv(EVENT_COLUMNS, []);
       await sink.write(header.slice(0, -2));
@@ -75,7 +83,11 @@ export function createDataService(
             animal_code: code,
             animal_name: name,
             what: e.kind,
-            details: Object.keys(e.payload as object).length ? JSON.stringify(e.payload) : '',
+            details: eventDetails(
+              e.kind as EventKind,
+              e.payload as Record<string, unknown>,
+              detailNames,
+            ),
             recorded_by: by ?? '',
             flags: e.flags.join(';'),
           }));

@@ -7,8 +7,14 @@ import {
   type LifeStage,
   type Sex,
 } from '../animal-facts';
-import { labelLayout, type LabelField, type LabelLayout } from './label-layout';
-import { labelUrl } from './label-payload';
+import {
+  LABEL_FIELDS,
+  labelLayout,
+  MIN_MODULE_MM,
+  type LabelField,
+  type LabelLayout,
+} from './label-layout';
+import { LABEL_TAG_LENGTH, labelUrl, shortLabelPayload } from './label-payload';
 import { makeQrSymbol, type QrSymbol } from './qr-symbol';
 import type { LabelSize } from './sheet-layout';
 
@@ -28,7 +34,10 @@ export interface LabelAnimal {
 export interface LabelContent {
   animalId: string;
   code: string;
+  /** What the QR holds: the label's address, or `L/TAG/CODE` where no address fits. */
   url: string;
+  /** The QR holds the short form: only Rackside's own scanner opens it. */
+  short: boolean;
   name: string;
   scientificName: string;
   stage: string;
@@ -44,8 +53,17 @@ export function labelContent(
   size: LabelSize,
   fields: readonly LabelField[],
 ): LabelContent {
-  const url = labelUrl(origin, tag, animal.labelCode);
-  const symbol = makeQrSymbol(url);
+  const {
+    payload: url,
+    symbol,
+    layout,
+    short,
+  } = chooseSymbol(
+    labelUrl(origin, tag, animal.labelCode),
+    shortLabelPayload(tag, animal.labelCode),
+    size,
+    fields,
+  );
   const stage = animal.group
     ? stageLabel(animal.group, animal.lifeStage)
     : STAGE_LABEL[animal.lifeStage];
@@ -53,12 +71,69 @@ export function labelContent(
     animalId: animal.id,
     code: animal.labelCode,
     url,
+    short,
     name: animal.name,
     scientificName: animal.scientificName,
     stage: animal.sex === 'unknown' ? stage : `${stage} · ${SEX_LABEL[animal.sex]}`,
     cautions: animal.cautions,
     symbol,
-    layout: labelLayout(size, symbol.size, fields),
+    layout,
+  };
+}
+
+/**
+ * The label's address when its QR fits the label with modules of MIN_MODULE_MM or more (any
+ * phone camera opens it); else the short form, when that fits (a 19 mm square).
+ */
+function chooseSymbol(
+  full: string,
+  brief: string,
+  size: LabelSize,
+  fields: readonly LabelField[],
+): { payload: string; symbol: QrSymbol; layout: LabelLayout; short: boolean } {
+  const symbol = makeQrSymbol(full);
+  const layout = labelLayout(size, symbol.size, fields);
+  if (!layout.tooSmall) return { payload: full, symbol, layout, short: false };
+  const small = makeQrSymbol(brief);
+  const smallLayout = labelLayout(size, small.size, fields);
+  return smallLayout.moduleMm > layout.moduleMm
+    ? { payload: brief, symbol: small, layout: smallLayout, short: true }
+    : { payload: full, symbol, layout, short: false };
+}
+
+/** What one size of label can carry, for the size picker. */
+export interface LabelCapacity {
+  /** The QR prints with modules of MIN_MODULE_MM or more. */
+  fits: boolean;
+  /** Its QR holds the short form: Rackside's scanner only, not a phone's own camera app. */
+  short: boolean;
+  /** The fields (besides the code) that fit with all of them asked for. */
+  fields: LabelField[];
+  moduleMm: number;
+}
+
+/**
+ * What a size carries for this app's address, worked out for the longest code there can be
+ * (a 4-character prefix and 5 after the dash: `isLabelCode`), so no label of the collection
+ * carries less than the picker says.
+ */
+export function labelCapacity(size: LabelSize, origin: string): LabelCapacity {
+  const tag = 'W'.repeat(LABEL_TAG_LENGTH);
+  const longest: LabelAnimal = {
+    id: 'capacity',
+    labelCode: 'WWWW-WWWWW',
+    name: '',
+    scientificName: '',
+    lifeStage: 'adult',
+    sex: 'unknown',
+    cautions: [],
+  };
+  const c = labelContent(longest, tag, origin, size, LABEL_FIELDS);
+  return {
+    fits: c.layout.moduleMm >= MIN_MODULE_MM,
+    short: c.short,
+    fields: LABEL_FIELDS.filter((f) => !c.layout.dropped.includes(f)),
+    moduleMm: c.layout.moduleMm,
   };
 }
 

@@ -67,16 +67,29 @@ describe('one label', () => {
     ]);
   });
 
-  it('keeps only the code (and cautions beside it) on 25 mm squares and says what was left off', () => {
-    const l = labelLayout(LABEL_SIZES['square-25'], 25, LABEL_FIELDS);
-    expect(l.mode).toBe('stacked');
-    expect(l.lines.map((x) => x.field)).toEqual(['code']);
-    expect(l.cautionsBesideCode).toBe(true);
-    expect(l.dropped).toEqual(['name', 'scientificName', 'stage']);
-    expect(l.tooSmall).toBe(false);
+  it('gives a 25 mm square the code and the name when the QR is version 2, the code alone at version 3', () => {
+    const v2 = labelLayout(LABEL_SIZES['square-25'], 25, LABEL_FIELDS);
+    expect(v2.mode).toBe('stacked');
+    expect(v2.lines.map((x) => x.field)).toEqual(['code', 'name']);
+    expect(v2.cautionsBesideCode).toBe(true);
+    expect(v2.dropped).toEqual(['scientificName', 'stage']);
+    expect(v2.moduleMm).toBeGreaterThanOrEqual(MIN_MODULE_MM);
+    const v3 = labelLayout(LABEL_SIZES['square-25'], 29, LABEL_FIELDS);
+    expect(v3.lines.map((x) => x.field)).toEqual(['code']);
+    expect(v3.tooSmall).toBe(false);
+  });
+
+  it('keeps the name, species and stage on the 38 mm default (the QR shrinks to make room)', () => {
+    for (const modules of [25, 29]) {
+      const l = labelLayout(LABEL_SIZES['square-38'], modules, LABEL_FIELDS);
+      expect(l.dropped).toEqual([]);
+      expect(l.lines.map((x) => x.field)).toEqual(['code', 'name', 'scientificName', 'stage']);
+      expect(l.moduleMm).toBeGreaterThanOrEqual(MIN_MODULE_MM);
+    }
   });
 
   it(`refuses a label whose modules would be under ${MIN_MODULE_MM} mm`, () => {
+    // A full label address (version 2) on 19 mm: see label-content for the short payload.
     const l = labelLayout(LABEL_SIZES['square-19'], 25, ['name']);
     expect(l.moduleMm).toBeLessThan(MIN_MODULE_MM);
     expect(l.tooSmall).toBe(true);

@@ -1,7 +1,16 @@
 import { QUIET_ZONE_MODULES } from './qr-symbol';
 import type { LabelSize } from './sheet-layout';
 
-/** Below this a module is too small for office printers and phone cameras to keep crisp. */
+/**
+ * Below this a module is too small for office printers and phone cameras to keep crisp.
+ * ISO/IEC 18004:2015 sets no minimum module size (the X dimension is left to the application,
+ * 5.3.2 and annex on user guidelines for printing); 0.5 mm is our own floor:
+ * - a 300 dpi office printer places dots 25.4 / 300 = 0.085 mm apart (1 in = 25.4 mm, ISO 1:
+ *   the inch defined as 25.4 mm), so a 0.5 mm module is about 6 dots wide and toner spread of a
+ *   dot either side still leaves the module within about a third of its width;
+ * - a phone camera held 10–15 cm from a label resolves it comfortably (common practice, no
+ *   published source).
+ */
 export const MIN_MODULE_MM = 0.5;
 /** A bigger symbol scans no better at arm's length from a rack (common practice, no published source). */
 export const MAX_SYMBOL_MM = 25;
@@ -63,6 +72,35 @@ function symbolSide(box: number, modules: number): number {
   return Math.min(MAX_SYMBOL_MM, Math.floor(fitting * 2) / 2);
 }
 
+/** Stacked labels: the code's size follows the label's width, never under the smallest text. */
+const stackedCodeSize = (w: number) => Math.max(MIN_TEXT_MM, Math.min(5, w * 0.12));
+const stackedLineSize = (codeSize: number) => Math.max(MIN_TEXT_MM, Math.min(3.5, codeSize * 0.7));
+const lineNeed = (field: LabelField, lineSize: number) =>
+  field === 'cautions' ? lineSize * 1.3 * 1.1 : lineSize * 1.2;
+
+/** The QR's quiet-zone square for a given band of text under it: its module size. */
+function stackedModule(w: number, h: number, modules: number, band: number): number {
+  return symbolSide(Math.min(w, h - band), modules) / modules;
+}
+
+/**
+ * The height of the text band under a stacked QR: the code line and as many of the asked-for
+ * lines (in their order) as leave the QR's modules at MIN_MODULE_MM or more.
+ */
+function stackedBand(w: number, h: number, modules: number, fields: readonly LabelField[]) {
+  const codeSize = stackedCodeSize(w);
+  const lineSize = stackedLineSize(codeSize);
+  let band = TEXT_GAP_MM + codeSize * 1.15 + PAD_MM * 0.5 + 0.01;
+  for (const field of LABEL_FIELDS) {
+    // Caution symbols sit at the end of the code line on stacked labels.
+    if (!fields.includes(field) || field === 'cautions') continue;
+    const next = band + lineNeed(field, lineSize);
+    if (stackedModule(w, h, modules, next) < MIN_MODULE_MM) break;
+    band = next;
+  }
+  return band;
+}
+
 /**
  * Where the QR and the text go on one label. Wide labels (at least 1.5 : 1) put the QR on the
  * left and the text beside it; others put the text in a band under the QR. The quiet zone is
@@ -81,7 +119,9 @@ export function labelLayout(
     quietSide = Math.min(h, w / 2);
     text = { x: quietSide, y: PAD_MM, widthMm: w - quietSide - PAD_MM, heightMm: h - 2 * PAD_MM };
   } else {
-    const band = Math.min(12, Math.max(5, h * 0.22));
+    // The text band under the QR takes what the asked-for lines need, one line at a time, as
+    // long as the QR's modules stay at MIN_MODULE_MM or more; lines past that are dropped.
+    const band = stackedBand(w, h, modules, fields);
     quietSide = Math.min(w, h - band);
     text = {
       x: PAD_MM,
@@ -115,8 +155,10 @@ export function labelLayout(
     text = { ...text, y, heightMm: h - y - PAD_MM * 0.5 };
   }
 
-  const codeSize = wide ? Math.min(6, h * 0.2) : Math.min(5, text.heightMm * 0.7);
-  const lineSize = Math.max(MIN_TEXT_MM, Math.min(3.5, codeSize * 0.55));
+  const codeSize = wide ? Math.min(6, h * 0.2) : stackedCodeSize(w);
+  const lineSize = wide
+    ? Math.max(MIN_TEXT_MM, Math.min(3.5, codeSize * 0.55))
+    : stackedLineSize(codeSize);
   const lines: TextLine[] = [{ field: 'code', y: text.y, sizeMm: codeSize }];
   let used = codeSize * 1.15;
   const dropped: LabelField[] = [];
@@ -125,7 +167,7 @@ export function labelLayout(
     if (!fields.includes(field) || (field === 'cautions' && cautionsBesideCode)) continue;
     // Caution symbols print a little larger than text: they are the part read at a glance.
     const sizeMm = field === 'cautions' ? lineSize * 1.3 : lineSize;
-    const need = field === 'cautions' ? sizeMm * 1.1 : sizeMm * 1.2;
+    const need = lineNeed(field, lineSize);
     if (used + need > text.heightMm + 1e-9) {
       dropped.push(field);
       continue;

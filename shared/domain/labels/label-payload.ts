@@ -34,6 +34,17 @@ export function labelUrl(origin: string, tag: string, code: string): string {
   return `${labelOrigin(origin)}/L/${tag}/${code}`;
 }
 
+/**
+ * What a QR holds where a whole address does not fit (19 mm squares): `L/<TAG>/<CODE>`, at most
+ * 17 characters of the alphanumeric set, so a version 1 symbol (21 modules) holds it at level M
+ * (ISO/IEC 18004:2015, Table 7: 20 alphanumeric characters). Rackside's own scanner reads it as
+ * a label; a phone's own camera app shows it as text only, as there is no address to open.
+ */
+export function shortLabelPayload(tag: string, code: string): string {
+  return `L/${tag}/${code}`;
+}
+const SHORT_PAYLOAD = /^L\/([^/\s]+)\/([^/\s]+)$/i;
+
 /** The app route a label URL opens (also the path a phone's own camera app lands on). */
 export const labelRoute = (tag: string, code: string) => `/l/${tag}/${code}`;
 
@@ -67,6 +78,14 @@ function readCode(text: string): LabelReading {
 export function readLabel(raw: string): LabelReading {
   const text = raw.trim();
   if (!text) return { kind: 'malformed' };
+  const short = SHORT_PAYLOAD.exec(text);
+  if (short) {
+    const tag = normaliseLabelCode(short[1]!);
+    const code = readCode(short[2]!);
+    return isLabelTag(tag) && code.kind === 'code'
+      ? { kind: 'label', tag, code: code.code }
+      : { kind: 'malformed' };
+  }
   if (!/^[a-z][a-z0-9+.-]*:\/\//i.test(text)) return readCode(text);
   let url: URL;
   try {

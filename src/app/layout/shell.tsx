@@ -1,6 +1,6 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
-import { NavLink, Navigate, Outlet, useLocation } from 'react-router-dom';
+import { NavLink, Navigate, Outlet, ScrollRestoration, useLocation } from 'react-router-dom';
 import { coverWindowMessage, coverWindowState } from '#shared/domain/roles';
 import type { MembershipSummary } from '#shared/schemas/auth';
 import { DialIcon, RackIcon, RoundIcon, ScanIcon, TomorrowIcon } from '@/components/ui/icons';
@@ -23,20 +23,23 @@ const NAV = [
   { to: '/settings', label: 'Settings', Icon: DialIcon, helper: true },
 ];
 
-/** A helper sees the round, the scanner and their settings; nothing of the collection's records. */
-function BottomNav({ helper }: { helper: boolean }) {
+/**
+ * A helper sees the round, the scanner and their settings; nothing of the collection's records.
+ * Phones get a tab bar at thumb reach; from 1024 px wide the same links stand in a side column.
+ */
+function MainNav({ helper }: { helper: boolean }) {
   return (
     <nav
       aria-label="Main"
-      className="print:hidden fixed inset-x-0 bottom-0 z-20 border-t-2 border-border bg-surface pb-[env(safe-area-inset-bottom)]"
+      className="print:hidden fixed inset-x-0 bottom-0 z-20 border-t-2 border-border bg-surface pb-[env(safe-area-inset-bottom)] lg:inset-x-auto lg:inset-y-0 lg:left-0 lg:w-52 lg:border-r-2 lg:border-t-0 lg:pb-0 lg:pt-16"
     >
-      <ul className="mx-auto flex max-w-xl">
+      <ul className="mx-auto flex max-w-xl lg:max-w-none lg:flex-col lg:gap-1 lg:px-2">
         {NAV.filter((n) => n.helper || !helper).map(({ to, label, Icon }) => (
-          <li key={to} className="flex-1">
+          <li key={to} className="flex-1 lg:flex-none">
             <NavLink
               to={to}
               className={({ isActive }) =>
-                `flex min-h-16 flex-col items-center justify-center gap-0.5 text-sm font-bold ${isActive ? 'text-text underline decoration-4 underline-offset-4' : 'text-muted'}`
+                `flex min-h-16 flex-col items-center justify-center gap-0.5 text-sm font-bold lg:min-h-target lg:flex-row lg:justify-start lg:gap-3 lg:rounded-xl lg:px-3 lg:text-lg ${isActive ? 'text-text underline decoration-4 underline-offset-4 lg:bg-bg' : 'text-muted'}`
               }
             >
               <Icon />
@@ -48,6 +51,9 @@ function BottomNav({ helper }: { helper: boolean }) {
     </nav>
   );
 }
+
+/** Pages that are mostly a table: the whole width of a desktop screen. */
+const WIDE_PAGES = new Set(['/animals']);
 
 const DIRECTORY_DELAY_MS = 3000;
 
@@ -102,6 +108,8 @@ export function Shell() {
       </main>
     );
   }
+  // Lists and tables use a wide screen's width; forms and cards keep a readable column.
+  const width = WIDE_PAGES.has(location.pathname) ? 'max-w-xl lg:max-w-6xl' : 'max-w-xl';
   const context: ShellContext = { me: me.data, collection: current, chooseCollection: choose };
   const helper = current?.role === 'helper';
   // Outside the cover a helper sees when it runs, on every screen but Settings (to leave it).
@@ -115,9 +123,11 @@ export function Shell() {
     ) !== 'during' &&
     location.pathname !== '/settings';
   return (
-    <div className="min-h-dvh pb-24">
+    <div className="min-h-dvh pb-24 lg:pb-8 lg:pl-52">
+      {/* New pages open at their top; back and forward return to where the person was. */}
+      <ScrollRestoration />
       <header className="print:hidden border-b-2 border-border bg-surface px-4 py-2">
-        <div className="mx-auto flex max-w-xl flex-col gap-1">
+        <div className={`mx-auto flex flex-col gap-1 ${width}`}>
           <p className="truncate text-sm font-bold text-muted">
             Rackside ·{' '}
             <span className="text-text">{current?.collectionName ?? 'No collection'}</span>
@@ -125,7 +135,7 @@ export function Shell() {
           <SyncIndicator />
         </div>
       </header>
-      <main className="mx-auto max-w-xl px-4 pt-3">
+      <main className={`mx-auto px-4 pt-3 ${width}`}>
         {outside && current ? (
           <Notice
             tone="info"
@@ -144,7 +154,7 @@ export function Shell() {
           <Outlet context={context} />
         )}
       </main>
-      <BottomNav helper={helper} />
+      <MainNav helper={helper} />
     </div>
   );
 }

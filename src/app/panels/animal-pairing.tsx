@@ -1,4 +1,4 @@
-import { canBreed } from '#shared/domain/breeding';
+import { canPair } from '#shared/domain/breeding';
 import { localDateOf } from '#shared/domain/local-dates';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import { PairingForm } from '@/features/breeding/components/pairing-form';
@@ -13,12 +13,12 @@ interface Props {
 }
 
 /**
- * A pairing (breeding records) for a kept female of a group that breeds, with the collection's
+ * A pairing (breeding records) for a kept adult female of a group that breeds, with the collection's
  * active males of her group (animals), recorded as a fact like a tap (rounds).
  */
 export function AnimalPairing({ recorder, female, animals, timeZone }: Props) {
   const record = useRecordOutcome(recorder);
-  if (female.status !== 'active' || !canBreed(female)) return null;
+  if (female.status !== 'active' || !canPair(female)) return null;
   const males = animals.filter(
     (a) =>
       a.status === 'active' &&

@@ -2,6 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
 import { STATUS_LABEL } from '#shared/domain/animal-facts';
+import { formatLocalDate } from '#shared/domain/date-words';
 import { localDateOf } from '#shared/domain/local-dates';
 import { formatSize } from '#shared/domain/units';
 import { NoCollection } from '@/app/layout/no-collection';
@@ -53,6 +54,7 @@ export function AnimalRoute() {
   const animal = list.data.animals.find((a) => a.id === animalId);
   if (!animal) return <Notice tone="error" title="We could not find that animal." />;
   const kept = animal.status === 'active';
+  const measuresLegSpan = animal.group === 'tarantula' || animal.group === 'true_spider';
   const today = localDateOf(new Date(), collection.timeZone);
   const todayItem =
     localToday.data?.round.date === today
@@ -60,24 +62,20 @@ export function AnimalRoute() {
       : undefined;
   return (
     <div className="flex flex-col gap-4">
-      <h1 className="sr-only">{animal.name}</h1>
-      <PhotoPanel collectionId={collectionId} animal={animal} canChange />
-      <AnimalCard animal={animal} />
+      <AnimalCard animal={animal} heading="h1" />
       <p className="text-muted">
         {animal.commonName && `${animal.commonName} · `}
-        {animal.group === 'tarantula' || animal.group === 'true_spider'
-          ? 'Leg span'
-          : 'Body length'}{' '}
-        {formatSize(animal.sizeMm, unit)}
-        {animal.acquiredOn && ` · acquired ${animal.acquiredOn}`}
+        {measuresLegSpan ? 'Leg span' : 'Body length'} {formatSize(animal.sizeMm, unit)}
+        {animal.acquiredOn && ` · acquired ${formatLocalDate(animal.acquiredOn)}`}
         {animal.source && ` from ${animal.source}`}
         {animal.clutch && ` · clutch ${animal.clutch}`}
       </p>
+      {animal.photoVersion && <PhotoPanel collectionId={collectionId} animal={animal} canChange />}
       {animal.cautionNote && <Notice tone="warning" title={animal.cautionNote} />}
       {!kept && (
         <Notice
           tone="info"
-          title={`${STATUS_LABEL[animal.status]}${animal.statusDate ? ` on ${animal.statusDate}` : ''}: not on any round.`}
+          title={`${STATUS_LABEL[animal.status]}${animal.statusDate ? ` on ${formatLocalDate(animal.statusDate)}` : ''}: not on any round.`}
         />
       )}
       {animal.notes && <p className="whitespace-pre-line">{animal.notes}</p>}
@@ -130,6 +128,7 @@ export function AnimalRoute() {
         />
       )}
       {retire.isError && <Notice tone="error" title={retire.error.message} />}
+      {!animal.photoVersion && <PhotoPanel collectionId={collectionId} animal={animal} canChange />}
       <SchedulePanel
         collectionId={collectionId}
         animalId={animal.id}
@@ -138,7 +137,12 @@ export function AnimalRoute() {
         waiting={sync.waiting > 0}
       />
       <LabelPanel collectionId={collectionId} animal={animal} />
-      <GrowthPanel events={history.data?.events ?? []} timeZone={collection.timeZone} unit={unit} />
+      <GrowthPanel
+        events={history.data?.events ?? []}
+        timeZone={collection.timeZone}
+        unit={unit}
+        measure={measuresLegSpan ? 'Leg span' : 'Body length'}
+      />
       <AnimalMolts
         key={`molts-${animal.id}`}
         recorder={recorder}

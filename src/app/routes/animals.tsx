@@ -19,6 +19,14 @@ import { RetirePanel } from '@/features/animals/components/retire-panel';
 import { useRound } from '@/features/rounds/api/get-round';
 import { useSizeUnit } from '@/lib/preferences';
 
+/** Where the collection's other work lives, one tap from its list. */
+const TOOLS = [
+  { to: '/labels', label: 'Print labels' },
+  { to: '/breeding', label: 'Breeding' },
+  { to: '/import', label: 'Import CSV' },
+  { to: '/places', label: 'Places' },
+] as const;
+
 const linkClass =
   'inline-flex min-h-target items-center rounded-xl border-2 border-border px-4 text-lg font-bold';
 
@@ -69,26 +77,48 @@ function Collection({
 
   return (
     <div className="flex flex-col gap-3">
-      <h1 className="text-3xl font-extrabold">Animals</h1>
-      <div className="flex flex-wrap gap-2">
-        <Link
-          to="/animals/new"
-          className={`${linkClass} border-primary bg-primary text-on-primary`}
-        >
-          Add animal
-        </Link>
-        <Link to="/places" className={linkClass}>
-          Places
-        </Link>
-        <Link to="/import" className={linkClass}>
-          Import CSV
-        </Link>
-        <Link to="/labels" className={linkClass}>
-          Labels…
-        </Link>
-        <Link to="/breeding" className={linkClass}>
-          Breeding
-        </Link>
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h1 className="text-3xl font-extrabold">Animals</h1>
+        <div className="flex flex-wrap items-center gap-2">
+          <Link
+            to="/animals/new"
+            className={`${linkClass} border-primary bg-primary text-on-primary`}
+          >
+            Add animal
+          </Link>
+          {/* Wide screens have room for every link; a phone folds them into one menu. */}
+          <nav aria-label="Collection tools" className="hidden gap-2 lg:flex">
+            {TOOLS.map((t) => (
+              <Link key={t.to} to={t.to} className={linkClass}>
+                {t.label}
+              </Link>
+            ))}
+          </nav>
+          <details className="group relative lg:hidden">
+            <summary
+              className={`${linkClass} cursor-pointer list-none gap-2 [&::-webkit-details-marker]:hidden`}
+            >
+              <span>More</span>
+              <span aria-hidden="true" className="transition-transform group-open:rotate-180">
+                ▾
+              </span>
+            </summary>
+            <nav
+              aria-label="Collection tools"
+              className="absolute right-0 z-30 mt-1 flex w-60 flex-col rounded-xl border-2 border-border bg-surface p-1 shadow-lg"
+            >
+              {TOOLS.map((t) => (
+                <Link
+                  key={t.to}
+                  to={t.to}
+                  className="flex min-h-target items-center rounded-lg px-3 text-lg font-bold hover:bg-bg"
+                >
+                  {t.label}
+                </Link>
+              ))}
+            </nav>
+          </details>
+        </div>
       </div>
       {chosen.length > 0 && (
         <section

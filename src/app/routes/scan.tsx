@@ -14,12 +14,21 @@ import { UndoToast } from '@/features/rounds/components/undo-toast';
 import { PhotoScan } from '@/features/scan/components/photo-scan';
 import { QrCamera } from '@/features/scan/components/qr-camera';
 import { TypeCodeForm } from '@/features/scan/components/type-code-form';
-import { resolveLabel } from '@/features/scan/resolve-label';
+import { resolveLabel, type LabelTarget } from '@/features/scan/resolve-label';
 
 interface LastTap {
   event: RecordedEvent;
   animal: RoundItemView['animal'];
 }
+
+/** What a scan or a typed code can lead to that is no animal: the code box stays for another try. */
+const FAILED = new Set<LabelTarget['kind']>([
+  'unknown_code',
+  'not_on_round',
+  'list_missing',
+  'malformed',
+  'foreign',
+]);
 
 /** A short buzz where the phone can (Vibration API; not on iOS), so the keeper need not look. */
 const buzz = () => navigator.vibrate?.(60);
@@ -69,6 +78,8 @@ function Scanner({ userId, myName, memberships, collection, chooseCollection }: 
     [reading, collection, memberships, local.data, keeper, directory.data],
   );
 
+  const failed = !!target && FAILED.has(target.kind);
+
   const onScan = useCallback((text: string) => {
     buzz();
     setReading(readLabel(text));
@@ -110,10 +121,15 @@ function Scanner({ userId, myName, memberships, collection, chooseCollection }: 
           />
         </section>
       )}
-      <div className={target ? 'hidden' : 'flex flex-col gap-3'}>
-        <QrCamera active={!target} onScan={onScan} />
-        <TypeCodeForm onCode={(text) => setReading(readLabel(text))} />
-        <PhotoScan onScan={onScan} />
+      {/* After a code that leads nowhere, the code box stays, with what was typed, to correct it. */}
+      <div className={target && !failed ? 'hidden' : 'flex flex-col gap-3'}>
+        <div className={target ? 'hidden' : 'contents'}>
+          <QrCamera active={!target} onScan={onScan} />
+        </div>
+        <TypeCodeForm clear={!reading} onCode={(text) => setReading(readLabel(text))} />
+        <div className={target ? 'hidden' : 'contents'}>
+          <PhotoScan onScan={onScan} />
+        </div>
       </div>
       {last && (
         <UndoToast

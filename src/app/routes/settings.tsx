@@ -111,7 +111,8 @@ export function SettingsRoute() {
           Account
         </h2>
         <p>
-          Signed in as <span className="font-bold">{me.user.displayName}</span> ({me.user.email})
+          Signed in as <span className="font-bold">{me.user.displayName}</span>, with{' '}
+          <span className="break-all font-bold">{me.user.email}</span>
         </p>
         <ChangePasswordForm />
       </section>

@@ -1,5 +1,6 @@
 import { lazy, Suspense } from 'react';
-import { describeLocalDate, localDateOf } from '#shared/domain/local-dates';
+import { formatLocalDate } from '#shared/domain/date-words';
+import { localDateOf } from '#shared/domain/local-dates';
 import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { TodayRoundPanel } from '@/app/panels/today-round-panel';
@@ -31,7 +32,7 @@ export function TodayRoute() {
   return (
     <div className="flex flex-col gap-3">
       <h1 className="text-3xl font-extrabold">
-        Today · {describeLocalDate(localDateOf(new Date(), collection.timeZone))}
+        Today · {formatLocalDate(localDateOf(new Date(), collection.timeZone))}
       </h1>
       {collection.role === 'owner' && (
         <Suspense fallback={null}>
@@ -45,6 +46,7 @@ export function TodayRoute() {
         userId={me.user.id}
         myName={me.user.displayName}
         collectionId={collection.collectionId}
+        collectionName={collection.collectionName}
         openRecord
         buildsOffline
       />

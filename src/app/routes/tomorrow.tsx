@@ -1,9 +1,5 @@
-import {
-  addDays,
-  describeInstant,
-  describeLocalDate,
-  localDateOf,
-} from '#shared/domain/local-dates';
+import { formatLocalDate } from '#shared/domain/date-words';
+import { addDays, describeInstant, localDateOf } from '#shared/domain/local-dates';
 import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { Button } from '@/components/ui/button';
@@ -33,12 +29,12 @@ function Tomorrow({ userId, collectionId }: { userId: string; collectionId: stri
   return (
     <div className="flex flex-col gap-4">
       <h1 className="text-3xl font-extrabold">
-        {isTomorrow ? 'Tomorrow' : 'Preview'} · {describeLocalDate(r.date)}
+        {isTomorrow ? 'Tomorrow' : 'Preview'} · {formatLocalDate(r.date)}
       </h1>
       {!isTomorrow && (
         <Notice
           tone="warning"
-          title={`This preview was made for ${describeLocalDate(r.date)}, which has begun.`}
+          title={`This preview was made for ${formatLocalDate(r.date)}, which has begun.`}
         >
           Tomorrow’s preview comes with the next signal. Today’s round is on the Today page.
         </Notice>

@@ -10,7 +10,7 @@ export function CautionBadges({ cautions }: { cautions: readonly Caution[] }) {
         return (
           <li
             key={c}
-            className="inline-flex items-center gap-1 rounded-lg border-2 border-danger px-2 py-0.5 text-sm font-bold text-danger"
+            className="caution-chip inline-flex items-center gap-1 rounded-lg border-2 border-danger px-2 py-0.5 text-sm font-bold text-danger"
           >
             <CautionIcon caution={c} width={18} height={18} />
             {CAUTION_LABEL[c]}

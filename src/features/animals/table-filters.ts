@@ -22,6 +22,15 @@ export const NO_FILTERS: TableFilters = {
   dueToday: false,
 };
 
+/** How many filters narrow the list now (the search box is counted apart: it is always shown). */
+export function activeFilterCount(f: TableFilters): number {
+  return (
+    [f.stage, f.group, f.rack, f.caution].filter(Boolean).length +
+    (f.status !== NO_FILTERS.status ? 1 : 0) +
+    (f.dueToday ? 1 : 0)
+  );
+}
+
 /** One pass over the list: cheap enough for every keystroke at 5,000 animals (T1). */
 export function filterAnimals(
   animals: readonly AnimalSummary[],

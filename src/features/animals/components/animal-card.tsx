@@ -7,9 +7,12 @@ import { CautionBadges } from '@/components/ui/caution-badges';
 export function AnimalCard({
   animal,
   linked = false,
+  heading: Heading = 'h3',
 }: {
   animal: AnimalSummary;
   linked?: boolean;
+  /** The animal's own page names it in its main heading. */
+  heading?: 'h1' | 'h3';
 }) {
   return (
     <article
@@ -17,7 +20,9 @@ export function AnimalCard({
       aria-label={`${animal.name}, ${animal.labelCode}`}
     >
       <div className="flex items-baseline justify-between gap-2">
-        <h3 className="text-xl font-extrabold">
+        <Heading
+          className={Heading === 'h1' ? 'text-3xl font-extrabold' : 'text-xl font-extrabold'}
+        >
           {linked ? (
             <Link
               to={`/animals/${animal.id}`}
@@ -28,7 +33,7 @@ export function AnimalCard({
           ) : (
             animal.name
           )}
-        </h3>
+        </Heading>
         <span className="rounded-md border-2 border-border px-2 font-mono text-base font-bold tracking-wider">
           {animal.labelCode}
         </span>

@@ -9,7 +9,15 @@ import {
   type VisibilityState,
 } from '@tanstack/react-table';
 import { useWindowVirtualizer } from '@tanstack/react-virtual';
-import { memo, useEffect, useMemo, useState, useSyncExternalStore } from 'react';
+import {
+  memo,
+  useEffect,
+  useLayoutEffect,
+  useMemo,
+  useRef,
+  useState,
+  useSyncExternalStore,
+} from 'react';
 import { Link } from 'react-router-dom';
 import {
   ANIMAL_GROUPS,
@@ -29,7 +37,7 @@ import type { AnimalSummary } from '#shared/schemas/animals';
 import { CautionIcon } from '@/components/ui/icons';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
-import { filterAnimals, NO_FILTERS, type TableFilters } from '../table-filters';
+import { activeFilterCount, filterAnimals, NO_FILTERS, type TableFilters } from '../table-filters';
 
 const COLUMNS_KEY = 'rackside.table-columns';
 const OPTIONAL_COLUMNS = {
@@ -114,6 +122,11 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
   const [visibility, setVisibility] = useState<VisibilityState>(loadVisibility);
   const [selection, setSelection] = useState<RowSelectionState>({});
   const narrow = useNarrow();
+  // Filters fold away on a phone (the list comes first) and stand open on a wide screen.
+  const [filtersOpen, setFiltersOpen] = useState(
+    () => typeof window !== 'undefined' && window.matchMedia('(min-width: 1024px)').matches,
+  );
+  const activeFilters = activeFilterCount(filters);
   const set = (patch: Partial<TableFilters>) => setFilters((f) => ({ ...f, ...patch }));
   const rows = useMemo(
     () => filterAnimals(animals, filters, dueToday),
@@ -157,7 +170,9 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
         header: 'Code',
         accessorFn: (a) => a.labelCode,
         cell: ({ getValue }) => (
-          <span className="font-mono font-bold tracking-wider">{getValue<string>()}</span>
+          <span className="whitespace-nowrap font-mono font-bold tracking-wider">
+            {getValue<string>()}
+          </span>
         ),
       },
       {
@@ -198,7 +213,9 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
         header: 'Place',
         accessorFn: (a) =>
           a.location ? `${a.location.walkOrder.toString().padStart(6, '0')}` : 'zzz',
-        cell: ({ row }) => placeShort(row.original.location),
+        cell: ({ row }) => (
+          <span className="whitespace-nowrap">{placeShort(row.original.location)}</span>
+        ),
       },
       {
         id: 'cautions',
@@ -241,14 +258,39 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
   );
 
   const tableRows = table.getRowModel().rows;
+  // The list starts well down the page (heading, search, filters): the window virtualizer must
+  // know where, or it lays rows out as if the list began at the top of the page and leaves a
+  // band of blank rows at the bottom of the screen while scrolling. Measured after every render,
+  // as the filters and the chosen-animals bar above it open and close.
+  const listRef = useRef<HTMLDivElement>(null);
+  const [scrollMargin, setScrollMargin] = useState(0);
+  useLayoutEffect(() => {
+    const measure = () => {
+      const el = listRef.current;
+      if (el) setScrollMargin(Math.round(el.getBoundingClientRect().top + window.scrollY));
+    };
+    measure();
+    // Anything above the list that opens or closes changes the page's height.
+    const observer = new ResizeObserver(measure);
+    observer.observe(document.body);
+    window.addEventListener('resize', measure);
+    return () => {
+      observer.disconnect();
+      window.removeEventListener('resize', measure);
+    };
+  }, []);
   const virtualizer = useWindowVirtualizer({
     count: tableRows.length,
-    estimateSize: () => (narrow ? 132 : 56),
-    overscan: 8,
+    estimateSize: () => (narrow ? 124 : 56),
+    overscan: 6,
+    scrollMargin,
   });
   const items = virtualizer.getVirtualItems();
-  const padTop = items[0]?.start ?? 0;
-  const padBottom = virtualizer.getTotalSize() - (items.at(-1)?.end ?? 0);
+  const padTop = Math.max(0, (items[0]?.start ?? scrollMargin) - scrollMargin);
+  const padBottom = Math.max(
+    0,
+    virtualizer.getTotalSize() - ((items.at(-1)?.end ?? scrollMargin) - scrollMargin),
+  );
   const any = (word: string, values: readonly string[], named: (v: string) => string) => [
     { value: '', label: word },
     ...values.map((v) => ({ value: v, label: named(v) })),
@@ -264,186 +306,221 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
         onChange={(e) => set({ search: e.target.value })}
         autoComplete="off"
       />
-      <div className="grid grid-cols-2 gap-2 min-[640px]:grid-cols-4">
-        <SelectField
-          label="Stage"
-          value={filters.stage}
-          onChange={(e) => set({ stage: e.target.value as TableFilters['stage'] })}
-          options={any('Any stage', LIFE_STAGES, (s) => STAGE_LABEL[s as keyof typeof STAGE_LABEL])}
-        />
-        <SelectField
-          label="Group"
-          value={filters.group}
-          onChange={(e) => set({ group: e.target.value as TableFilters['group'] })}
-          options={any(
-            'Any group',
-            ANIMAL_GROUPS,
-            (g) => GROUP_LABEL[g as keyof typeof GROUP_LABEL],
+      <details
+        open={filtersOpen}
+        onToggle={(e) => setFiltersOpen(e.currentTarget.open)}
+        className="rounded-xl border-2 border-border p-2"
+      >
+        <summary className="flex min-h-target cursor-pointer items-center gap-2 font-bold">
+          Filters
+          {activeFilters > 0 && (
+            <span className="rounded-full bg-primary px-2 text-sm text-on-primary">
+              {activeFilters} on
+            </span>
           )}
-        />
-        <SelectField
-          label="Status"
-          value={filters.status}
-          onChange={(e) => set({ status: e.target.value as TableFilters['status'] })}
-          options={[
-            { value: 'kept', label: 'Kept now' },
-            { value: '', label: 'All, retired too' },
-            ...ANIMAL_STATUSES.filter((s) => s !== 'active').map((s) => ({
-              value: s,
-              label: STATUS_LABEL[s],
-            })),
-          ]}
-        />
-        <SelectField
-          label="Rack"
-          value={filters.rack}
-          onChange={(e) => set({ rack: e.target.value })}
-          options={any('Any rack', racks, rackName)}
-        />
-        <SelectField
-          label="Caution"
-          value={filters.caution}
-          onChange={(e) => set({ caution: e.target.value as TableFilters['caution'] })}
-          options={any('Any', CAUTIONS, (c) => CAUTION_LABEL[c as keyof typeof CAUTION_LABEL])}
-        />
-        <label className="flex min-h-target cursor-pointer items-center gap-3 self-end font-bold">
-          <input
-            type="checkbox"
-            checked={filters.dueToday}
-            onChange={(e) => set({ dueToday: e.target.checked })}
-            className="size-6 accent-[var(--c-primary)]"
-          />
-          Due today
-        </label>
-      </div>
-      <details className="rounded-xl border-2 border-border p-2">
-        <summary className="flex min-h-target cursor-pointer items-center font-bold">
-          Columns
         </summary>
-        <div className="grid grid-cols-2 gap-1">
-          {(Object.keys(OPTIONAL_COLUMNS) as OptionalColumn[]).map((c) => (
-            <label key={c} className="flex min-h-target cursor-pointer items-center gap-3">
+        <div className="flex flex-col gap-2 pt-1">
+          <div className="grid grid-cols-2 gap-2 min-[640px]:grid-cols-3 lg:grid-cols-6">
+            <SelectField
+              label="Stage"
+              value={filters.stage}
+              onChange={(e) => set({ stage: e.target.value as TableFilters['stage'] })}
+              options={any(
+                'Any stage',
+                LIFE_STAGES,
+                (s) => STAGE_LABEL[s as keyof typeof STAGE_LABEL],
+              )}
+            />
+            <SelectField
+              label="Group"
+              value={filters.group}
+              onChange={(e) => set({ group: e.target.value as TableFilters['group'] })}
+              options={any(
+                'Any group',
+                ANIMAL_GROUPS,
+                (g) => GROUP_LABEL[g as keyof typeof GROUP_LABEL],
+              )}
+            />
+            <SelectField
+              label="Status"
+              value={filters.status}
+              onChange={(e) => set({ status: e.target.value as TableFilters['status'] })}
+              options={[
+                { value: 'kept', label: 'Kept now' },
+                { value: '', label: 'All, retired too' },
+                ...ANIMAL_STATUSES.filter((s) => s !== 'active').map((s) => ({
+                  value: s,
+                  label: STATUS_LABEL[s],
+                })),
+              ]}
+            />
+            <SelectField
+              label="Rack"
+              value={filters.rack}
+              onChange={(e) => set({ rack: e.target.value })}
+              options={any('Any rack', racks, rackName)}
+            />
+            <SelectField
+              label="Caution"
+              value={filters.caution}
+              onChange={(e) => set({ caution: e.target.value as TableFilters['caution'] })}
+              options={any('Any', CAUTIONS, (c) => CAUTION_LABEL[c as keyof typeof CAUTION_LABEL])}
+            />
+            <label className="flex min-h-target cursor-pointer items-center gap-3 self-end font-bold">
               <input
                 type="checkbox"
-                checked={table.getColumn(c)?.getIsVisible() ?? false}
-                onChange={table.getColumn(c)?.getToggleVisibilityHandler()}
+                checked={filters.dueToday}
+                onChange={(e) => set({ dueToday: e.target.checked })}
                 className="size-6 accent-[var(--c-primary)]"
               />
-              {OPTIONAL_COLUMNS[c]}
+              Due today
             </label>
-          ))}
+          </div>
+          {activeFilters > 0 && (
+            <button
+              type="button"
+              onClick={() => setFilters((f) => ({ ...NO_FILTERS, search: f.search }))}
+              className="inline-flex min-h-target items-center self-start rounded-xl border-2 border-border px-4 font-bold"
+            >
+              Clear filters
+            </button>
+          )}
         </div>
       </details>
+      {!narrow && (
+        <details className="rounded-xl border-2 border-border p-2">
+          <summary className="flex min-h-target cursor-pointer items-center font-bold">
+            Columns
+          </summary>
+          <div className="grid grid-cols-2 gap-1">
+            {(Object.keys(OPTIONAL_COLUMNS) as OptionalColumn[]).map((c) => (
+              <label key={c} className="flex min-h-target cursor-pointer items-center gap-3">
+                <input
+                  type="checkbox"
+                  checked={table.getColumn(c)?.getIsVisible() ?? false}
+                  onChange={table.getColumn(c)?.getToggleVisibilityHandler()}
+                  className="size-6 accent-[var(--c-primary)]"
+                />
+                {OPTIONAL_COLUMNS[c]}
+              </label>
+            ))}
+          </div>
+        </details>
+      )}
       <p aria-live="polite" className="text-muted">
         {rows.length} of {animals.length} animals
         {Object.keys(selection).length > 0 && ` · ${Object.keys(selection).length} chosen`}
       </p>
-      {narrow ? (
-        <ul
-          aria-label="Animals"
-          className="flex flex-col gap-2"
-          style={{ paddingTop: padTop, paddingBottom: padBottom }}
-        >
-          {items.map((v) => {
-            const row = tableRows[v.index]!;
-            const a = row.original;
-            return (
-              <li
-                key={row.id}
-                data-index={v.index}
-                ref={virtualizer.measureElement}
-                className="flex gap-2 rounded-2xl border-2 border-border bg-surface p-2"
-              >
-                <label className="flex min-h-target min-w-target cursor-pointer items-start justify-center pt-2">
-                  <input
-                    type="checkbox"
-                    aria-label={`Choose ${a.name}`}
-                    className="size-6 accent-[var(--c-primary)]"
-                    checked={row.getIsSelected()}
-                    onChange={row.getToggleSelectedHandler()}
-                  />
-                </label>
-                <div className="min-w-0 flex-1">
-                  <p className="flex items-center justify-between gap-2">
-                    <Link
-                      to={`/animals/${a.id}`}
-                      className="inline-flex min-h-target min-w-target items-center truncate text-lg font-extrabold underline underline-offset-4"
-                    >
-                      {a.name}
-                    </Link>
-                    <span className="font-mono font-bold tracking-wider">{a.labelCode}</span>
-                  </p>
-                  <p className="text-sm text-muted">
-                    <i lang="la">{a.scientificName}</i> · {stageLabel(a.group, a.lifeStage)} ·{' '}
-                    <span className="font-bold text-text">{placeShort(a.location)}</span>
-                    {a.status !== 'active' && ` · ${STATUS_LABEL[a.status]}`}
-                  </p>
-                  <CautionMarks cautions={a.cautions} />
-                </div>
-              </li>
-            );
-          })}
-        </ul>
-      ) : (
-        <table className="w-full border-collapse text-left">
-          <thead>
-            {table.getHeaderGroups().map((g) => (
-              <tr key={g.id} className="border-b-2 border-border">
-                {g.headers.map((h) => (
-                  <th
-                    key={h.id}
-                    scope="col"
-                    aria-sort={
-                      h.column.getIsSorted() === 'asc'
-                        ? 'ascending'
-                        : h.column.getIsSorted() === 'desc'
-                          ? 'descending'
-                          : undefined
-                    }
-                    className="p-1"
-                  >
-                    {h.column.getCanSort() ? (
-                      <button
-                        type="button"
-                        onClick={h.column.getToggleSortingHandler()}
-                        className="inline-flex min-h-target items-center gap-1 font-extrabold"
-                      >
-                        {flexRender(h.column.columnDef.header, h.getContext())}
-                        <span aria-hidden="true">
-                          {{ asc: '▲', desc: '▼' }[h.column.getIsSorted() as string] ?? ''}
-                        </span>
-                      </button>
-                    ) : (
-                      flexRender(h.column.columnDef.header, h.getContext())
-                    )}
-                  </th>
-                ))}
-              </tr>
-            ))}
-          </thead>
-          <tbody>
-            {padTop > 0 && <tr style={{ height: padTop }} aria-hidden="true" />}
+      <div ref={listRef}>
+        {narrow ? (
+          <ul
+            aria-label="Animals"
+            className="flex flex-col"
+            style={{ paddingTop: padTop, paddingBottom: padBottom }}
+          >
             {items.map((v) => {
               const row = tableRows[v.index]!;
+              const a = row.original;
               return (
-                <tr
+                <li
                   key={row.id}
                   data-index={v.index}
                   ref={virtualizer.measureElement}
-                  className="border-b border-border"
+                  className="pb-2"
                 >
-                  {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className="p-1">
-                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                    </td>
-                  ))}
-                </tr>
+                  <div className="flex gap-2 rounded-2xl border-2 border-border bg-surface p-2">
+                    <label className="flex min-h-target min-w-target cursor-pointer items-start justify-center pt-2">
+                      <input
+                        type="checkbox"
+                        aria-label={`Choose ${a.name}`}
+                        className="size-6 accent-[var(--c-primary)]"
+                        checked={row.getIsSelected()}
+                        onChange={row.getToggleSelectedHandler()}
+                      />
+                    </label>
+                    <div className="min-w-0 flex-1">
+                      <p className="flex items-center justify-between gap-2">
+                        <Link
+                          to={`/animals/${a.id}`}
+                          className="inline-flex min-h-target min-w-target items-center truncate text-lg font-extrabold underline underline-offset-4"
+                        >
+                          {a.name}
+                        </Link>
+                        <span className="font-mono font-bold tracking-wider">{a.labelCode}</span>
+                      </p>
+                      <p className="text-sm text-muted">
+                        <i lang="la">{a.scientificName}</i> · {stageLabel(a.group, a.lifeStage)} ·{' '}
+                        <span className="font-bold text-text">{placeShort(a.location)}</span>
+                        {a.status !== 'active' && ` · ${STATUS_LABEL[a.status]}`}
+                      </p>
+                      <CautionMarks cautions={a.cautions} />
+                    </div>
+                  </div>
+                </li>
               );
             })}
-            {padBottom > 0 && <tr style={{ height: padBottom }} aria-hidden="true" />}
-          </tbody>
-        </table>
-      )}
+          </ul>
+        ) : (
+          <table className="w-full border-collapse text-left">
+            <thead>
+              {table.getHeaderGroups().map((g) => (
+                <tr key={g.id} className="border-b-2 border-border">
+                  {g.headers.map((h) => (
+                    <th
+                      key={h.id}
+                      scope="col"
+                      aria-sort={
+                        h.column.getIsSorted() === 'asc'
+                          ? 'ascending'
+                          : h.column.getIsSorted() === 'desc'
+                            ? 'descending'
+                            : undefined
+                      }
+                      className="p-1"
+                    >
+                      {h.column.getCanSort() ? (
+                        <button
+                          type="button"
+                          onClick={h.column.getToggleSortingHandler()}
+                          className="inline-flex min-h-target items-center gap-1 font-extrabold"
+                        >
+                          {flexRender(h.column.columnDef.header, h.getContext())}
+                          <span aria-hidden="true">
+                            {{ asc: '▲', desc: '▼' }[h.column.getIsSorted() as string] ?? ''}
+                          </span>
+                        </button>
+                      ) : (
+                        flexRender(h.column.columnDef.header, h.getContext())
+                      )}
+                    </th>
+                  ))}
+                </tr>
+              ))}
+            </thead>
+            <tbody>
+              {padTop > 0 && <tr style={{ height: padTop }} aria-hidden="true" />}
+              {items.map((v) => {
+                const row = tableRows[v.index]!;
+                return (
+                  <tr
+                    key={row.id}
+                    data-index={v.index}
+                    ref={virtualizer.measureElement}
+                    className="border-b border-border"
+                  >
+                    {row.getVisibleCells().map((cell) => (
+                      <td key={cell.id} className="p-1">
+                        {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                      </td>
+                    ))}
+                  </tr>
+                );
+              })}
+              {padBottom > 0 && <tr style={{ height: padBottom }} aria-hidden="true" />}
+            </tbody>
+          </table>
+        )}
+      </div>
     </div>
   );
 }

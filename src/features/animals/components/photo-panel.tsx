@@ -23,7 +23,14 @@ export function PhotoPanel({
   const inputId = useId();
   const upload = useUploadPhoto(collectionId, animal.id);
   return (
-    <section aria-label="Photo" className="flex flex-col gap-2">
+    <section
+      aria-label="Photo"
+      className={
+        animal.photoVersion
+          ? 'flex flex-col gap-2'
+          : 'flex flex-wrap items-center justify-between gap-2 rounded-2xl border-2 border-dashed border-border p-2'
+      }
+    >
       {animal.photoVersion ? (
         <a
           href={photoUrl(collectionId, animal, 'full')}

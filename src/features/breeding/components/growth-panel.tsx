@@ -19,10 +19,13 @@ export function GrowthPanel({
   events,
   timeZone,
   unit,
+  measure = 'Leg span',
 }: {
   events: readonly HistoryEvent[];
   timeZone: string;
   unit: SizeUnit;
+  /** What the size is: "Leg span" for spiders, "Body length" for the rest. */
+  measure?: string;
 }) {
   const today = localDateOf(new Date(), timeZone);
   const facts = useMemo(() => {
@@ -65,10 +68,12 @@ export function GrowthPanel({
             'Between the last two molts',
             last?.daysSincePrevious != null ? `${last.daysSincePrevious} days` : '—',
           ],
-          [
-            `Ate, last ${accept.offered} offers`,
-            accept.rate === null ? '—' : `${accept.ate} of ${accept.offered} (${accept.rate} %)`,
-          ],
+          accept.offered === 0
+            ? ['Ate when offered', 'No offers yet']
+            : [
+                accept.offered === 1 ? 'Ate, last offer' : `Ate, last ${accept.offered} offers`,
+                `${accept.ate} of ${accept.offered} (${accept.rate} %)`,
+              ],
           ['Usual days between meals', intervals.median === null ? '—' : String(intervals.median)],
           ['Since the last meal', lastMeal ? `${daysBetween(lastMeal, today)} days` : '—'],
           [
@@ -84,7 +89,7 @@ export function GrowthPanel({
       </dl>
       {sized.length >= 1 ? (
         <Suspense fallback={<Loading label="Drawing the chart…" />}>
-          <GrowthChart points={sized} unit={unit} />
+          <GrowthChart points={sized} unit={unit} measure={measure} />
         </Suspense>
       ) : (
         <p className="text-sm text-muted">

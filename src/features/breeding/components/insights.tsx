@@ -5,6 +5,7 @@ import {
   type LifeStage,
 } from '#shared/domain/animal-facts';
 import { breedingModeOf, isOpenRecord } from '#shared/domain/breeding';
+import { formatDateRange } from '#shared/domain/date-words';
 import { isOverdue, isPossiblePremolt } from '#shared/domain/rounds/item-status';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import type { EggSacView } from '#shared/schemas/breeding';
@@ -108,7 +109,7 @@ export function Insights({
           .filter((s) => isOpenRecord(s) && today >= s.expectedFrom)
           .map(
             (s) =>
-              `${breedingModeOf(s.femaleGroup).words.record}: ${s.clutch} (${s.femaleName}), expected ${s.expectedFrom} to ${s.expectedTo}`,
+              `${breedingModeOf(s.femaleGroup).words.record}: ${s.clutch} (${s.femaleName}), expected ${formatDateRange(s.expectedFrom, s.expectedTo)}`,
           )}
       />
       <List

@@ -9,6 +9,7 @@ import {
   type BreedingMode,
   type BreedingRecordKind,
 } from '#shared/domain/breeding';
+import { formatDateRange, formatLocalDate } from '#shared/domain/date-words';
 import { eggSacBody, type EggSacView } from '#shared/schemas/breeding';
 import type { LocationWithCount } from '#shared/schemas/locations';
 import { Button } from '@/components/ui/button';
@@ -59,18 +60,20 @@ function howSheIsTreated(mode: BreedingMode): string {
   return 'She is left alone while she guards it; her water dish is still topped up quietly. When you pull it, or it hatches with her, her rebuild (fed more often) starts by itself.';
 }
 
+const day = (date: string) => formatLocalDate(date);
+
 /** The dates and counts that mean something for this kind of record. */
 function dateLine(sac: EggSacView, mode: BreedingMode) {
   const expected =
     sac.kind === 'brood'
-      ? `disperses about ${sac.expectedFrom} to ${sac.expectedTo}`
-      : `expected ${sac.expectedFrom} to ${sac.expectedTo}`;
+      ? `likely to disperse ${formatDateRange(sac.expectedFrom, sac.expectedTo)}`
+      : `expected ${formatDateRange(sac.expectedFrom, sac.expectedTo)}`;
   return [
-    `${mode.words.startedOn} ${sac.laidOn}`,
+    `${mode.words.startedOn} ${day(sac.laidOn)}`,
     expected,
-    sac.pulledOn && `pulled ${sac.pulledOn}`,
-    sac.hatchedOn && `hatched ${sac.hatchedOn}`,
-    sac.dispersedOn && `dispersed ${sac.dispersedOn}`,
+    sac.pulledOn && `pulled ${day(sac.pulledOn)}`,
+    sac.hatchedOn && `hatched ${day(sac.hatchedOn)}`,
+    sac.dispersedOn && `dispersed ${day(sac.dispersedOn)}`,
   ]
     .filter(Boolean)
     .join(' · ');
@@ -159,6 +162,29 @@ export function SacsManager({ collectionId, today, females, places, onSlings }: 
       <NewRecordForm collectionId={collectionId} today={today} females={females} />
       {sacs.isPending && <Loading />}
       {sacs.isError && <Notice tone="error" title={sacs.error.message} />}
+      <h2 className="text-xl font-extrabold">
+        Breeding register
+        {sacs.data && <span className="text-muted"> ({sacs.data.sacs.length})</span>}
+      </h2>
+      {sacs.data?.sacs.length === 0 && (
+        <div
+          role="note"
+          aria-label="About the breeding register"
+          className="flex flex-col gap-1 rounded-2xl border-2 border-dashed border-border p-3"
+        >
+          <p className="font-bold">Nothing in the register yet.</p>
+          <p>
+            When a female lays an egg sac or an egg case, or carries a brood, record it above with
+            the day it began. Rackside then works out when to expect the hatch, leaves a guarding
+            female alone on the round (her water still topped up), and pots the young up into
+            numbered slings with their own labels.
+          </p>
+          <p className="text-sm text-muted">
+            Only animals recorded as female can be chosen, of the groups that breed this way:
+            tarantulas, true spiders, scorpions, centipedes and mantids.
+          </p>
+        </div>
+      )}
       <ul aria-label="Egg sacs, egg cases and broods" className="flex flex-col gap-2">
         {sacs.data?.sacs.map((sac) => (
           <SacCard

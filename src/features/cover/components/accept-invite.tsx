@@ -3,6 +3,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import type { z } from 'zod';
+import { capitalised, formatDateRange } from '#shared/domain/date-words';
 import { PASSWORD_MIN_CHARS, type MeResponse } from '#shared/schemas/auth';
 import { acceptBody } from '#shared/schemas/cover';
 import { Button } from '@/components/ui/button';
@@ -74,8 +75,14 @@ export function AcceptInvite({ token, me, onAccepted }: Props) {
         <>
           <h2 className="text-2xl font-extrabold">Cover the feeds at {p.collectionName}</h2>
           <p>
-            From <span className="font-bold">{p.firstDay}</span> to{' '}
-            <span className="font-bold">{p.lastDay}</span>, for {p.email}.
+            {p.firstDay && p.lastDay ? (
+              <span className="font-bold">
+                {capitalised(formatDateRange(p.firstDay, p.lastDay))}
+              </span>
+            ) : (
+              'On the days the owner set'
+            )}
+            , for {p.email}.
           </p>
         </>
       )}

@@ -2,6 +2,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
+import { capitalised, formatDateRange } from '#shared/domain/date-words';
 import { coverBody, type CoverSummary } from '#shared/schemas/cover';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -97,7 +98,7 @@ export function CoverManager({ collectionId, today }: { collectionId: string; to
               {c.inviteExpired && ' (link expired)'}
             </p>
             <p className="text-sm text-muted">
-              {c.firstDay} to {c.lastDay}
+              {capitalised(formatDateRange(c.firstDay, c.lastDay))}
               {c.safetyAcknowledgedAt ? ' · safety page read' : ''}
             </p>
             {c.state !== 'ended' && (

@@ -124,7 +124,7 @@ export function LabelsWorkbench({ collectionId, labelTag, timeZone, animals, pre
   return (
     <div className="flex flex-col gap-6">
       <AnimalChooser animals={animals} timeZone={timeZone} chosen={chosen} onChange={setChosen} />
-      <PrintOptions settings={settings} onChange={change} perSheet={perSheet} />
+      <PrintOptions settings={settings} onChange={change} perSheet={perSheet} origin={origin} />
 
       <section aria-labelledby="preview-heading" className="flex flex-col gap-3">
         <h2 id="preview-heading" className="text-xl font-extrabold">
@@ -139,7 +139,7 @@ export function LabelsWorkbench({ collectionId, labelTag, timeZone, animals, pre
             {labels.length} {labels.length === 1 ? 'label' : 'labels'} on {pages}{' '}
             {pages === 1 ? 'sheet' : 'sheets'} of {SHEETS[settings.sheet].name} · QR{' '}
             {labels[0]!.layout.symbol.widthMm} mm, squares {labels[0]!.layout.moduleMm.toFixed(2)}{' '}
-            mm
+            mm{labels.some((l) => l.short) && ' · short QR for the Scan screen'}
           </p>
         )}
         {canPrint && dropped.length > 0 && (

@@ -1,3 +1,5 @@
+import { useMemo } from 'react';
+import { labelCapacity, type LabelCapacity } from '#shared/domain/labels/label-content';
 import {
   LABEL_FIELD_WORDS,
   LABEL_FIELDS,
@@ -12,18 +14,53 @@ import {
 } from '#shared/domain/labels/sheet-layout';
 import { ChoiceGroup } from '@/components/ui/choice-group';
 import { TextField } from '@/components/ui/text-field';
-import type { PrintSettings } from '../print-settings';
+import { isLabelSize, sizeOf, type PrintSettings } from '../print-settings';
 
 interface Props {
   settings: PrintSettings;
   onChange: (settings: PrintSettings) => void;
   perSheet: number;
+  /** The app's address, which the QR holds: its length decides what fits. */
+  origin: string;
 }
 
-const SIZE_OPTIONS = [...LABEL_SIZE_IDS, 'custom'] as const;
+const FIELD_WORD: Record<LabelField, string> = {
+  name: 'name',
+  scientificName: 'species',
+  stage: 'stage',
+  cautions: 'cautions',
+};
+
+/** "Code, name, species" — what a size carries, in short, under its name. */
+function carries(c: LabelCapacity): string {
+  const words = c.fields.filter((f) => f !== 'cautions').map((f) => FIELD_WORD[f]);
+  return words.length ? `Code, ${words.join(', ')}` : 'Code only';
+}
+
+/** The whole story of the chosen size, in a sentence or two. */
+function capacitySentence(c: LabelCapacity): string {
+  if (!c.fits)
+    return `Too small: the QR’s squares would be ${c.moduleMm.toFixed(2)} mm, under the 0.5 mm that prints and scans reliably.`;
+  const fields = c.fields.map((f) => FIELD_WORD[f]);
+  const text = `Prints the code${fields.length ? ` with ${fields.join(', ')}` : ''}; QR squares ${c.moduleMm.toFixed(2)} mm.`;
+  return c.short
+    ? `${text} The QR holds only the collection and the code: Rackside’s Scan screen opens the animal, a phone’s own camera app shows the code as text.`
+    : `${text} The QR opens the animal from any phone camera.`;
+}
 const mmValue = (raw: string) => (raw === '' ? Number.NaN : Number(raw));
 
-export function PrintOptions({ settings, onChange, perSheet }: Props) {
+export function PrintOptions({ settings, onChange, perSheet, origin }: Props) {
+  // Only sizes that print a readable QR for this app's address are offered.
+  const capacities = useMemo(
+    () => new Map(LABEL_SIZE_IDS.map((id) => [id, labelCapacity(LABEL_SIZES[id], origin)])),
+    [origin],
+  );
+  const sizeOptions = useMemo(
+    () => [...LABEL_SIZE_IDS.filter((id) => capacities.get(id)!.fits), 'custom' as const],
+    [capacities],
+  );
+  const chosenSize = sizeOf(settings);
+  const chosen = isLabelSize(chosenSize) ? labelCapacity(chosenSize, origin) : null;
   const set = (patch: Partial<PrintSettings>) => onChange({ ...settings, ...patch });
   const toggleField = (f: LabelField) =>
     set({
@@ -52,10 +89,24 @@ export function PrintOptions({ settings, onChange, perSheet }: Props) {
         legend="Label size"
         className="grid-cols-2 min-[400px]:grid-cols-3"
         value={settings.size}
-        options={SIZE_OPTIONS}
+        options={sizeOptions}
         onChange={(size) => set({ size, start: 1 })}
-        render={(s) => (s === 'custom' ? 'Other size' : LABEL_SIZES[s].name)}
+        render={(s) =>
+          s === 'custom' ? (
+            <span>Other size</span>
+          ) : (
+            <>
+              <span>{LABEL_SIZES[s].name}</span>
+              <span className="text-xs font-normal">{carries(capacities.get(s)!)}</span>
+            </>
+          )
+        }
       />
+      {chosen && (
+        <p aria-live="polite" className="text-sm text-muted">
+          {capacitySentence(chosen)}
+        </p>
+      )}
       {settings.size === 'custom' && (
         <div className="grid grid-cols-2 gap-2">
           <TextField

@@ -8,6 +8,7 @@ import { currentNotes } from '#shared/domain/rounds/item-status';
 import type { Outcome, RoundItemView } from '#shared/schemas/rounds';
 import { CautionBadges } from '@/components/ui/caution-badges';
 import { HoldIcon } from '@/components/ui/icons';
+import { outcomeLook } from '@/components/ui/outcome-mark';
 import { describeOffer, TASK_META } from './task-meta';
 
 interface Props {
@@ -32,8 +33,10 @@ function DoneBadge({
 }) {
   const who = done.by && done.by !== myName ? ` by ${done.by}` : '';
   return (
-    <span className="ml-2 inline-block rounded-md border-2 border-ok px-1.5 text-sm text-ok">
-      <span aria-hidden="true">✓ </span>
+    <span
+      className={`ml-2 inline-block rounded-md border-2 px-1.5 text-sm ${outcomeLook(done.kind).className}`}
+    >
+      <span aria-hidden="true">{outcomeLook(done.kind).symbol} </span>
       {EVENT_WORDS[done.kind]} {clockTime(done.at, timeZone)}
       {who}
     </span>

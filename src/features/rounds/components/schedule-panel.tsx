@@ -4,6 +4,7 @@ import { shortDate } from '#shared/domain/rounds/build-round';
 import { currentNotes } from '#shared/domain/rounds/item-status';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { Notice } from '@/components/ui/notice';
+import { outcomeLook } from '@/components/ui/outcome-mark';
 import { Loading } from '@/components/ui/spinner';
 import { useSchedule } from '../api/schedule';
 import { describeOffer, TASK_META } from './task-meta';
@@ -19,9 +20,10 @@ function TodayTasks({ item, timeZone }: { item: RoundItemView; timeZone: string 
           </span>
           {t.offer && !t.withdrawn && ` · ${describeOffer(t.offer)}`}
           {t.done && (
-            <span className="font-bold text-ok">
+            <span className={`font-bold ${outcomeLook(t.done.kind).className}`}>
               {' '}
-              · ✓ {EVENT_WORDS[t.done.kind]} {clockTime(t.done.at, timeZone)}
+              · {outcomeLook(t.done.kind).symbol} {EVENT_WORDS[t.done.kind]}{' '}
+              {clockTime(t.done.at, timeZone)}
             </span>
           )}
           <ul className="text-sm text-muted">
