@@ -4,6 +4,7 @@ import type { Logger } from '../../logger';
 import type { Mailer } from '../../mail/mailer';
 import type { RoundsService } from '../rounds/rounds.service';
 import { deliverReports } from './cover-report-delivery';
+import type { CoverSummaries } from './cover-summary';
 import { createReportText, type CoverDays } from './cover-report-text';
 import {
   claimReport,
@@ -22,9 +23,13 @@ interface Deps {
   rounds: RoundsService;
   publicUrl: (path: string) => string;
   logger?: Logger;
+  /** Covers that ended by themselves get their summary on the same run (cover-summary.ts). */
+  summaries?: Pick<CoverSummaries, 'makeDue'>;
 }
 
 export interface CoverReportView {
+  id: string;
+  coverId: string | null;
   localDate: string;
   subject: string;
   body: string;
@@ -59,8 +64,8 @@ export function createCoverReportsService(db: Db, deps: Deps) {
 
   return {
     /**
-     * Makes a report for every covered day that has ended, then e-mails every report the mail
-     * server has not yet accepted (this run's and earlier failures). Safe to run as often as
+     * Makes a report for every covered day that has ended and a summary for every cover that
+     * has, then e-mails every report the mail server has not yet accepted (this run's and earlier failures). Safe to run as often as
      * wanted; returns how many reports were sent.
      */
     async runDue(): Promise<number> {
@@ -84,6 +89,7 @@ export function createCoverReportsService(db: Db, deps: Deps) {
           }
         }
       }
+      await deps.summaries?.makeDue();
       return deliverReports(db, deps.mailer, deps.logger, now);
     },
 
@@ -92,6 +98,8 @@ export function createCoverReportsService(db: Db, deps: Deps) {
       return rows
         .filter((r) => r.subject)
         .map((r) => ({
+          id: r.id,
+          coverId: r.coverId,
           localDate: r.localDate,
           subject: r.subject,
           body: r.body,
