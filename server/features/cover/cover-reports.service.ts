@@ -4,7 +4,6 @@ import type { Logger } from '../../logger';
 import type { Mailer } from '../../mail/mailer';
 import type { RoundsService } from '../rounds/rounds.service';
 import { deliverReports } from './cover-report-delivery';
-import type { CoverSummaries } from './cover-summary';
 import { createReportText, type CoverDays } from './cover-report-text';
 import {
   claimReport,
@@ -13,6 +12,7 @@ import {
   writeReport,
   type ReportCollection,
 } from './cover-reports.repository';
+import type { CoverSummaries } from './cover-summary';
 
 /** Reports are made for days that ended in the last three days (a server that was down catches up). */
 const CATCH_UP_DAYS = 3;

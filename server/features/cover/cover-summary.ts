@@ -6,6 +6,7 @@ import type { Background } from '../../background';
 import type { Db } from '../../db/client';
 import type { Logger } from '../../logger';
 import type { Mailer } from '../../mail/mailer';
+import { daysOf } from './cover-days';
 import { deliverReport } from './cover-report-delivery';
 import { factsBetween, type Fact } from './cover-report-text';
 import {
@@ -15,7 +16,6 @@ import {
   handoverNotesForCover,
   writeReport,
 } from './cover-reports.repository';
-import { daysOf } from './cover-days';
 import { generalNoteOf } from './handover-notes.repository';
 
 /** Summaries are made for covers that ended in the last four days (a server that was down catches up). */

@@ -1,7 +1,7 @@
 import type { HelperReportView } from '#shared/schemas/helper-reports';
 import type { Background } from '../../background';
-import type { Logger } from '../../logger';
 import type { Db } from '../../db/client';
+import type { Logger } from '../../logger';
 import type { Mailer } from '../../mail/mailer';
 import { createCoverArrangements } from './cover-arrangements';
 import { createCoverSummaries } from './cover-summary';

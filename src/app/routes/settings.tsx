@@ -10,7 +10,6 @@ import { CollectionSwitcher } from '@/features/auth/components/collection-switch
 import { chooseCollectionOnDevice } from '@/features/auth/hooks/use-current-collection';
 import { LeaveCover } from '@/features/cover/components/leave-cover';
 import { LeaveCollection } from '@/features/members/components/leave-collection';
-import { MembersPanel } from '@/features/members/components/members-panel';
 import { DataPanel } from '@/features/settings/components/data-panel';
 import { DeleteCollection } from '@/features/settings/components/delete-collection';
 import { ThemePicker } from '@/features/settings/components/theme-picker';
@@ -68,7 +67,13 @@ export function SettingsRoute() {
         <DataPanel collectionId={collection.collectionId} isOwner={collection.role === 'owner'} />
       )}
       {collection?.role === 'owner' && (
-        <MembersPanel collectionId={collection.collectionId} ownUserId={me.user.id} />
+        <Link
+          to="/settings/people"
+          className="flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold"
+        >
+          People: invite a partner or a keeper
+          <span aria-hidden="true">›</span>
+        </Link>
       )}
       {collection?.role === 'keeper' && (
         <LeaveCollection

@@ -3,6 +3,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { Link } from 'react-router-dom';
 import type { z } from 'zod';
+import { describeLocalDate } from '#shared/domain/local-dates';
 import { PASSWORD_MIN_CHARS, type MeResponse } from '#shared/schemas/auth';
 import { acceptBody } from '#shared/schemas/cover';
 import { Button } from '@/components/ui/button';
@@ -58,11 +59,21 @@ export function AcceptInvite({ token, me, onAccepted }: Props) {
   };
   const submit = handleSubmit(({ account }) => attempt(() => accept(account)));
   const error = tap.error ?? problem;
-  const keeper = p.role === 'keeper';
+  // A keeper's or co-owner's invite: no days, the /join link.
+  const keeper = p.role !== 'helper';
   const action = keeper ? 'Accept the invite' : 'Accept the cover';
   return (
     <div className="flex flex-col gap-4">
-      {keeper ? (
+      {p.role === 'owner' ? (
+        <>
+          <h2 className="text-2xl font-extrabold">Own {p.collectionName} together</h2>
+          <p>
+            {p.invitedBy ?? 'Its owner'} invites {p.email} to own this collection with them: its
+            rounds, its animals’ records and labels, and also who keeps it, its covers and its
+            backups.
+          </p>
+        </>
+      ) : keeper ? (
         <>
           <h2 className="text-2xl font-extrabold">Keep {p.collectionName}</h2>
           <p>
@@ -74,8 +85,13 @@ export function AcceptInvite({ token, me, onAccepted }: Props) {
         <>
           <h2 className="text-2xl font-extrabold">Cover the feeds at {p.collectionName}</h2>
           <p>
-            From <span className="font-bold">{p.firstDay}</span> to{' '}
-            <span className="font-bold">{p.lastDay}</span>, for {p.email}.
+            From{' '}
+            <span className="font-bold">
+              {p.firstDay ? describeLocalDate(p.firstDay, true) : ''}
+            </span>{' '}
+            to{' '}
+            <span className="font-bold">{p.lastDay ? describeLocalDate(p.lastDay, true) : ''}</span>
+            , for {p.email}.
           </p>
         </>
       )}
