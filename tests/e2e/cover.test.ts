@@ -104,8 +104,13 @@ describe('a week’s cover, in a day', () => {
     await screenshot(owner.page, 'cover-04-report');
 
     // The owner ends the cover: the helper's phone now only says when it ran.
-    await owner.page.getByRole('button', { name: 'End this cover now' }).click();
-    await expect.poll(() => owner.page.getByText(/Ended/).count()).toBeGreaterThan(0);
+    // Only after a confirmation; the demo helper's own cover is listed too and stays.
+    const sams = owner.page
+      .getByRole('list', { name: 'Covers' })
+      .getByRole('listitem', { name: /^Sam, / });
+    await sams.getByRole('button', { name: 'End this cover now…' }).click();
+    await sams.getByRole('button', { name: 'End the cover' }).click();
+    await expect.poll(() => sams.getAttribute('aria-label')).toBe('Sam, Ended');
     await page.reload();
     await expect
       .poll(() => page.getByText(/Your cover for Northlight Inverts ended on/).count(), {

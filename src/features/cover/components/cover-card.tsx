@@ -69,7 +69,7 @@ export function CoverCard({
       )}
 
       {c.state !== 'ended' && mode === 'view' && (
-        <div className="flex flex-wrap gap-2">
+        <div className="flex flex-col gap-2 sm:flex-row sm:flex-wrap">
           <Button variant="secondary" onClick={() => setMode('edit')}>
             Change days…
           </Button>
@@ -162,7 +162,7 @@ function EditDays({
       aria-label={`New days for ${c.helperName ?? c.email}`}
       className="flex flex-col gap-2"
     >
-      <div className="grid grid-cols-1 gap-2 min-[340px]:grid-cols-2">
+      <div className="grid grid-cols-1 gap-2 sm:grid-cols-2">
         <TextField
           label="First day"
           type="date"

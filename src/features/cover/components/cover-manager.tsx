@@ -52,7 +52,7 @@ export function CoverManager({ collectionId, today }: { collectionId: string; to
           error={e.email?.message}
           {...register('email')}
         />
-        <div className="grid grid-cols-2 gap-2">
+        <div className="grid grid-cols-1 gap-2 sm:grid-cols-2">
           <TextField
             label="First day"
             type="date"

@@ -109,7 +109,11 @@ export function MembersPanel({
                       </Button>
                     </div>
                   ) : (
-                    <Button variant="secondary" onClick={() => setRemoving(m.userId)}>
+                    <Button
+                      variant="secondary"
+                      className="sm:self-start"
+                      onClick={() => setRemoving(m.userId)}
+                    >
                       Remove…
                     </Button>
                   ))}
