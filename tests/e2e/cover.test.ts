@@ -90,7 +90,8 @@ describe('a week’s cover, in a day', () => {
     // The day ends in Toronto: the report job runs and the owner reads it.
     const today = localDateOf(new Date(), ZONE);
     env.server.ctx.setNow(startOfLocalDate(addDays(today, 1), ZONE));
-    expect(await env.server.ctx.services.coverReports.runDue()).toBe(1);
+    // The cover's only day: its report, and the summary of the cover (it ends with the day).
+    expect(await env.server.ctx.services.coverReports.runDue()).toBe(2);
     env.server.ctx.setNow(null);
     const report = await env.server.ctx.mailbox.waitFor(
       (m) => m.to.includes('owner@northlight.test') && m.subject.includes('cover report'),
