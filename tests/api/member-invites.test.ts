@@ -113,6 +113,15 @@ describe('a partner as co-owner', () => {
     const twice = await partner.post('/api/cover-invites/accept').send({ token });
     expect(twice.status).toBe(400);
     expect(twice.body.error.message).toMatch(/already used/);
+
+    // With two owners, one may leave; the last one may not.
+    await partner.delete(`${base()}/membership`).expect(204);
+    expect((await partner.get(base())).status).toBe(404);
+    const last = await owner.agent.delete(`${base()}/membership`);
+    expect(last.status).toBe(409);
+    expect(last.body.error.message).toBe(
+      'You are the only owner: invite a co-owner first, or delete the collection.',
+    );
   });
 
   it('moves a keeper up to co-owner when they accept, never a co-owner down', async () => {

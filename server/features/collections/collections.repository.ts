@@ -108,6 +108,22 @@ export async function renewMemberInvite(
   return done.length > 0;
 }
 
+/**
+ * An owner steps out, only while another owner stays: the owners' rows are locked first, so
+ * two co-owners leaving at once cannot both go. False when they are the only owner.
+ */
+export async function deleteOwnerMembershipIfOthers(db: Db, collectionId: string, userId: string) {
+  return db.transaction(async (tx) => {
+    const owners = await tx
+      .select({ userId: memberships.userId })
+      .from(memberships)
+      .where(and(eq(memberships.collectionId, collectionId), eq(memberships.role, 'owner')))
+      .for('update');
+    if (owners.length <= 1 || !owners.some((o) => o.userId === userId)) return false;
+    return deleteMembership(tx, collectionId, userId);
+  });
+}
+
 export async function deleteMembership(db: Db, collectionId: string, userId: string) {
   const removed = await db
     .delete(memberships)

@@ -15,6 +15,7 @@ import { HttpError } from '../../middleware/errors';
 import {
   deleteCollectionRows,
   deleteMembership,
+  deleteOwnerMembershipIfOthers,
   findPendingMemberInvite,
   insertMemberInvite,
   listMembers,
@@ -231,10 +232,20 @@ export function createCollectionsService(db: Db, deps: Deps) {
       }
     },
 
-    /** A keeper steps out of someone else's collection; the owner stays with their own. */
+    /**
+     * A keeper steps out of someone else's collection; an owner only while a co-owner stays
+     * (a collection always has an owner).
+     */
     async leave(collectionId: string, userId: string, role: string) {
-      if (role === 'owner')
-        throw new HttpError(409, 'owner_stays', 'An owner cannot leave their own collection.');
+      if (role === 'owner') {
+        if (!(await deleteOwnerMembershipIfOthers(db, collectionId, userId)))
+          throw new HttpError(
+            409,
+            'owner_stays',
+            'You are the only owner: invite a co-owner first, or delete the collection.',
+          );
+        return;
+      }
       await deleteMembership(db, collectionId, userId);
     },
   };
