@@ -111,12 +111,21 @@ export function createApp(options: AppOptions) {
     publicUrl,
     background,
   });
+  const helperReports = createHelperReportsService(database.db, {
+    mailer: options.mailer,
+    now,
+    publicUrl,
+    background,
+    logger,
+  });
   const cover = createCoverService(database.db, {
     mailer: options.mailer,
     now,
     bcryptCost: env.BCRYPT_COST,
     publicUrl,
     background,
+    logger,
+    problemsBetween: helperReports.between,
   });
   const member = (min: Role, options?: { anyTime?: boolean }) =>
     requireMember(database.db, min, now, options);
@@ -180,18 +189,12 @@ export function createApp(options: AppOptions) {
     rounds,
     publicUrl,
     logger,
+    summaries: cover.summaries,
   });
   // A breeding record's facts may start or end a hold today (R18).
   const breeding = createBreedingService(database.db, now, (id, animalIds) =>
     rounds.reconcileToday(id, animalIds),
   );
-  const helperReports = createHelperReportsService(database.db, {
-    mailer: options.mailer,
-    now,
-    publicUrl,
-    background,
-    logger,
-  });
   const collections = createCollectionsService(database.db, {
     mailer: options.mailer,
     now,
@@ -229,7 +232,7 @@ export function createApp(options: AppOptions) {
   api.use(collection(), breedingRoutes(breeding, member));
   //   labels: /labels/pdf, /animals/:animalId/relabel
   api.use(collection(), labelsRoutes(createLabelsService(database.db), member));
-  //   collections: the collection itself (/), /members…, /membership
+  //   collections: the collection itself (/), /members…, /invites…, /membership
   api.use(collection(), collectionsRoutes(collections, member, inviteLimit));
   api.use(apiNotFound);
   api.use(errorHandler);

@@ -11,9 +11,10 @@ import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '#shared/
 import { DEFAULT_RULES, feedingInterval, postMoltHoldDays } from '#shared/domain/rounds/rules';
 import { insertCollection } from '../access/collections';
 import { DEMO_ACCOUNTS, DEMO_COLLECTION, DEMO_PASSWORD } from '../access/demo-people';
+import { newInviteToken } from '../access/invite-token';
 import { hashPassword } from '../access/passwords';
 import { animals, eggSacs } from '../db/schema/animals';
-import { collections, locations, memberships } from '../db/schema/collections';
+import { collections, invites, locations, memberships } from '../db/schema/collections';
 import { users } from '../db/schema/users';
 import { refoldStates } from '../features/events/projection';
 import { recordEvents } from '../features/events/record-events';
@@ -589,17 +590,31 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
     // The helper covers 7 days from the Friday after today.
     const weekday = new Date(`${today}T12:00:00Z`).getUTCDay();
     const firstDay = addDays(today, (5 - weekday + 7) % 7 || 7);
+    const helperId = idOf(DEMO_ACCOUNTS[2].email);
+    const cover = {
+      startsAt: startOfLocalDate(firstDay, zone),
+      endsAt: startOfLocalDate(addDays(firstDay, 7), zone),
+    };
     await tx.insert(memberships).values([
       { collectionId, userId: ownerId, role: 'owner' },
       { collectionId, userId: partnerId, role: 'keeper' },
-      {
-        collectionId,
-        userId: idOf(DEMO_ACCOUNTS[2].email),
-        role: 'helper',
-        startsAt: startOfLocalDate(firstDay, zone),
-        endsAt: startOfLocalDate(addDays(firstDay, 7), zone),
-      },
+      { collectionId, userId: helperId, role: 'helper', ...cover },
     ]);
+    // The invite the helper accepted a day ago: the owner's cover page lists the cover from it
+    // (its days, the helper, and the buttons to change or end it). Its link is spent.
+    await tx.insert(invites).values({
+      collectionId,
+      email: DEMO_ACCOUNTS[2].email,
+      role: 'helper',
+      tokenHash: newInviteToken().tokenHash,
+      message: 'Feeders are in the blue tub under rack A. Call me if anything looks wrong.',
+      ...cover,
+      createdAt: new Date(now.getTime() - 2 * 86_400_000),
+      expiresAt: new Date(now.getTime() - 86_400_000),
+      acceptedAt: new Date(now.getTime() - 86_400_000),
+      acceptedBy: helperId,
+      invitedBy: ownerId,
+    });
 
     const roster = [...ADULTS, ...JUVENILES, ...clutch(), MOTHER];
     const places = new Map<string, string>();

@@ -70,6 +70,8 @@ export const coverSummary = z.object({
   message: z.string().nullable(),
   state: z.enum(COVER_STATES),
   inviteExpired: z.boolean(),
+  /** The cover's end summary has been made (it is in the reports list under this cover's id). */
+  hasSummary: z.boolean(),
   safetyAcknowledgedAt: z.string().nullable(),
 });
 export type CoverSummary = z.infer<typeof coverSummary>;
@@ -106,9 +108,9 @@ export const helperCoverView = z.object({
 });
 export type HelperCoverView = z.infer<typeof helperCoverView>;
 
-/** An invite link's page: a cover for a helper, or an invite to keep the collection. */
+/** An invite link's page: a cover for a helper, or an invite to keep (or co-own) the collection. */
 export const invitePreview = z.object({
-  role: z.enum(['helper', 'keeper']),
+  role: z.enum(['helper', 'keeper', 'owner']),
   collectionName: z.string(),
   /** The name of whoever sent the invite. */
   invitedBy: z.string().nullable(),
@@ -124,10 +126,13 @@ export type InvitePreview = z.infer<typeof invitePreview>;
 /** Accepting signs the person in: the collection to open, and who they now are. */
 export const acceptResponse = z.object({ collectionId: z.string(), me: meResponse });
 
-/** The daily reports e-mailed to the owners during a cover, kept for the app. */
+/** The daily reports and end-of-cover summaries e-mailed to the owners, kept for the app. */
 export const coverReportsResponse = z.object({
   reports: z.array(
     z.object({
+      id: z.string(),
+      /** The cover a summary is about; null for a day's report. */
+      coverId: z.string().nullable(),
       localDate: z.string(),
       subject: z.string(),
       body: z.string(),

@@ -109,6 +109,10 @@ const router = createBrowserRouter([
         lazy: () => import('./routes/rules').then((m) => ({ Component: m.RulesRoute })),
       },
       {
+        path: '/settings/people',
+        lazy: () => import('./routes/people').then((m) => ({ Component: m.PeopleRoute })),
+      },
+      {
         path: '/settings',
         lazy: () => import('./routes/settings').then((m) => ({ Component: m.SettingsRoute })),
       },

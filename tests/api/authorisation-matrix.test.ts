@@ -7,7 +7,7 @@ import sharp from 'sharp';
 import type { Test } from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { handoverNotes } from '../../server/db/schema/animals';
-import { locations, memberships } from '../../server/db/schema/collections';
+import { invites, locations, memberships } from '../../server/db/schema/collections';
 import { users } from '../../server/db/schema/users';
 import { listRoutes } from '../../server/route-list';
 import { addMember, animalBody, createAnimal, signUp, type SignedUp } from '../factories';
@@ -44,6 +44,8 @@ interface Fixture {
   newLocation(): Promise<string>;
   newNote(): Promise<string>;
   newMember(): Promise<string>;
+  /** A keeper's invite of the owner's collection, still waiting for an answer. */
+  newInvite(): Promise<string>;
 }
 
 interface Call {
@@ -161,6 +163,16 @@ const TABLE: Record<string, Row> = {
     access: 'owner',
     allowed: 204,
     call: async (f) => ({ path: `${f.c}/members/${await f.newMember()}` }),
+  },
+  'POST /api/collections/:collectionId/invites/:inviteId/resend': {
+    access: 'owner',
+    allowed: 202,
+    call: async (f) => ({ path: `${f.c}/invites/${await f.newInvite()}/resend` }),
+  },
+  'DELETE /api/collections/:collectionId/invites/:inviteId': {
+    access: 'owner',
+    allowed: 204,
+    call: async (f) => ({ path: `${f.c}/invites/${await f.newInvite()}` }),
   },
   // A keeper leaves (and is put back for the next caller); an owner cannot leave their own.
   'DELETE /api/collections/:collectionId/membership': {
@@ -375,6 +387,12 @@ const TABLE: Record<string, Row> = {
     allowed: 422,
     call: (f) => ({ path: `${f.c}/covers/${f.coverId}`, body: {} }),
   },
+  // The fixture's cover is not accepted yet: its invite goes again.
+  'POST /api/collections/:collectionId/covers/:coverId/resend': {
+    access: 'owner',
+    allowed: 202,
+    call: (f) => ({ path: `${f.c}/covers/${f.coverId}/resend` }),
+  },
   'POST /api/collections/:collectionId/covers/:coverId/end': {
     access: 'owner',
     allowed: 200,
@@ -519,6 +537,11 @@ async function putPhoto(path: string) {
 
 async function reopenCover(f: Fixture) {
   const db = ctx.database.db;
+  // The fixture's cover (10–12 Jan 2027), which the owner just ended.
+  await db
+    .update(invites)
+    .set({ endsAt: new Date('2027-01-13T05:00:00Z'), expiresAt: new Date('2027-01-13T05:00:00Z') })
+    .where(eq(invites.id, f.coverId));
   const [row] = await db
     .select()
     .from(memberships)
@@ -672,6 +695,19 @@ beforeAll(async () => {
       });
       return someone!.id;
     },
+    newInvite: async () =>
+      (
+        await db
+          .insert(invites)
+          .values({
+            collectionId: owner.collectionId,
+            email: `invited-${randomUUID().slice(0, 8)}@example.test`,
+            role: 'keeper',
+            tokenHash: randomUUID(),
+            expiresAt: new Date(Date.now() + 86_400_000),
+          })
+          .returning()
+      )[0]!.id,
   };
   agents = {
     anonymous: ctx.agent(),
@@ -803,6 +839,16 @@ describe('ids from another collection, inside your own', () => {
     const [cover] = (await outsider.agent.get(`${o}/covers`).expect(200)).body.covers as {
       id: string;
     }[];
+    const [theirInvite] = await db
+      .insert(invites)
+      .values({
+        collectionId: outsider.collectionId,
+        email: `theirs-${randomUUID().slice(0, 6)}@example.test`,
+        role: 'keeper',
+        tokenHash: randomUUID(),
+        expiresAt: new Date(Date.now() + 86_400_000),
+      })
+      .returning();
     const before = (await outsider.agent.get(`${o}/backup`).expect(200)).body;
 
     const c = fixture.c;
@@ -866,6 +912,9 @@ describe('ids from another collection, inside your own', () => {
         },
       ],
       ['POST', { path: `${c}/covers/${cover!.id}/end` }],
+      ['POST', { path: `${c}/covers/${cover!.id}/resend` }],
+      ['POST', { path: `${c}/invites/${theirInvite!.id}/resend` }],
+      ['DELETE', { path: `${c}/invites/${theirInvite!.id}` }],
       ['POST', { path: `${c}/egg-sacs`, body: { femaleId: a, laidOn: '2026-11-02' } }],
       ['PATCH', { path: `${c}/egg-sacs/${sac.id}`, body: { eggCount: 5 } }],
       [

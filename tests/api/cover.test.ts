@@ -367,19 +367,24 @@ describe('the daily report', () => {
     ctx.setNow(new Date('2027-03-15T03:59:00Z'));
     expect(await reports.runDue()).toBe(0);
     ctx.setNow(new Date('2027-03-15T04:00:00Z'));
-    expect(await reports.runDue()).toBe(1);
+    // The last day's report, and the summary of the whole cover (tests/api/cover-changes.test.ts).
+    expect(await reports.runDue()).toBe(2);
     const last = await ctx.mailbox.waitFor(
       (m) => m.to.includes(keeper.email) && m.subject.includes('Sun 14 Mar 2027 (last day)'),
     );
     expect(last.text).toContain('Nothing was recorded this day.');
-    expect(last.text).toMatch(
-      /The cover is over: Sat 13 Mar 2027 to Sun 14 Mar 2027\.\n- Ate: 1\n- Note: 1/,
+    expect(last.text).toContain('The summary of the whole cover comes in its own e-mail.');
+    const summary = await ctx.mailbox.waitFor(
+      (m) => m.to.includes(keeper.email) && m.subject.includes('summary of Dana’s cover'),
     );
+    expect(summary.subject).toContain('Sat 13 Mar 2027 to Sun 14 Mar 2027');
+    expect(summary.text).toMatch(/In numbers\n- Ate: 1\n- Note: 1/);
     expect(mine()).toHaveLength(2);
     const listed = (
       await keeper.agent.get(`/api/collections/${keeper.collectionId}/cover-reports`).expect(200)
     ).body.reports;
     expect(listed.map((r: { localDate: string }) => r.localDate)).toEqual([
+      '2027-03-14',
       '2027-03-14',
       '2027-03-13',
     ]);

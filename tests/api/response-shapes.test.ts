@@ -15,7 +15,12 @@ import {
 } from '#shared/schemas/animals';
 import { meResponse, resetRequestedResponse } from '#shared/schemas/auth';
 import { eggSacListResponse, eggSacView, slingsCreatedResponse } from '#shared/schemas/breeding';
-import { collectionResponse, restoreResponse } from '#shared/schemas/collections';
+import {
+  collectionResponse,
+  inviteSentResponse,
+  membersResponse,
+  restoreResponse,
+} from '#shared/schemas/collections';
 import { createdResponse, noContent } from '#shared/schemas/common';
 import {
   acceptResponse,
@@ -280,6 +285,31 @@ describe('answers the app reads', () => {
     );
     const cover = covers.covers.find((c) => c.email === email)!;
     expectShape(await a.post(`${base()}/covers/${cover.id}/end`), coverListResponse);
+  });
+
+  it('members, their invites, and a cover’s invite sent again', async () => {
+    const a = owner.agent;
+    const email = `partner-${randomUUID().slice(0, 6)}@example.test`;
+    expectShape(
+      await a.post(`${base()}/members`).send({ email, role: 'owner' }),
+      inviteSentResponse,
+      202,
+    );
+    const members = expectShape(await a.get(`${base()}/members`), membersResponse);
+    const invite = members.invites.find((i) => i.email === email)!;
+    expect(invite.role).toBe('owner');
+    expectShape(await a.post(`${base()}/invites/${invite.id}/resend`), inviteSentResponse, 202);
+    expectShape(await a.delete(`${base()}/invites/${invite.id}`), noContent, 204);
+    const created = expectShape(
+      await a.post(`${base()}/covers`).send({
+        email: `again-${randomUUID().slice(0, 6)}@example.test`,
+        firstDay: day(3),
+        lastDay: day(5),
+      }),
+      createdResponse,
+      201,
+    );
+    expectShape(await a.post(`${base()}/covers/${created.id}/resend`), coverListResponse, 202);
   });
 
   it('a restore, the mailbox and the account', async () => {

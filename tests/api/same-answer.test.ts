@@ -244,7 +244,9 @@ describe('membership only by accepting an invite', () => {
     expect((await person.agent.get(`/api/collections/${owner.collectionId}`)).status).toBe(404);
     const stays = await owner.agent.delete(`/api/collections/${owner.collectionId}/membership`);
     expect(stays.status).toBe(409);
-    expect(stays.body.error.message).toBe('An owner cannot leave their own collection.');
+    expect(stays.body.error.message).toBe(
+      'You are the only owner: invite a co-owner first, or delete the collection.',
+    );
   });
 
   it('someone new makes their account from the invite; an existing member cannot be invited again', async () => {

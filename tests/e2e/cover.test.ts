@@ -90,7 +90,8 @@ describe('a week’s cover, in a day', () => {
     // The day ends in Toronto: the report job runs and the owner reads it.
     const today = localDateOf(new Date(), ZONE);
     env.server.ctx.setNow(startOfLocalDate(addDays(today, 1), ZONE));
-    expect(await env.server.ctx.services.coverReports.runDue()).toBe(1);
+    // The cover's only day: its report, and the summary of the cover (it ends with the day).
+    expect(await env.server.ctx.services.coverReports.runDue()).toBe(2);
     env.server.ctx.setNow(null);
     const report = await env.server.ctx.mailbox.waitFor(
       (m) => m.to.includes('owner@northlight.test') && m.subject.includes('cover report'),
@@ -104,8 +105,13 @@ describe('a week’s cover, in a day', () => {
     await screenshot(owner.page, 'cover-04-report');
 
     // The owner ends the cover: the helper's phone now only says when it ran.
-    await owner.page.getByRole('button', { name: 'End this cover now' }).click();
-    await expect.poll(() => owner.page.getByText(/Ended/).count()).toBeGreaterThan(0);
+    // Only after a confirmation; the demo helper's own cover is listed too and stays.
+    const sams = owner.page
+      .getByRole('list', { name: 'Covers' })
+      .getByRole('listitem', { name: /^Sam, / });
+    await sams.getByRole('button', { name: 'End this cover now…' }).click();
+    await sams.getByRole('button', { name: 'End the cover' }).click();
+    await expect.poll(() => sams.getAttribute('aria-label')).toBe('Sam, Ended');
     await page.reload();
     await expect
       .poll(() => page.getByText(/Your cover for Northlight Inverts ended on/).count(), {

@@ -9,7 +9,7 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, beforeEach, expect } from 'vitest';
 import { localDateOf } from '#shared/domain/local-dates';
 import { DEMO_COLLECTION, DEMO_PASSWORD } from '../../server/access/demo-people';
-import { memberships } from '../../server/db/schema/collections';
+import { invites, memberships } from '../../server/db/schema/collections';
 import { users } from '../../server/db/schema/users';
 import { seedDemo } from '../../server/seed/demo';
 import { launchBrowser } from '../chromium';
@@ -152,4 +152,9 @@ export async function startDemoHelpersCover(server: E2eServer) {
       safetyAcknowledgedAt: new Date(now),
     })
     .where(eq(memberships.userId, helper!.id));
+  // The owner's cover page lists the cover from its invite: the same days there.
+  await db
+    .update(invites)
+    .set({ startsAt: new Date(now - 86_400_000), endsAt: new Date(now + 86_400_000) })
+    .where(eq(invites.acceptedBy, helper!.id));
 }

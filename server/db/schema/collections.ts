@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import {
   date,
   index,
@@ -8,6 +9,7 @@ import {
   text,
   timestamp,
   unique,
+  uniqueIndex,
   uuid,
 } from 'drizzle-orm/pg-core';
 import { ROLES } from '#shared/domain/roles';
@@ -75,6 +77,9 @@ export const invites = pgTable(
     expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
     acceptedAt: timestamp('accepted_at', { withTimezone: true }),
     acceptedBy: uuid('accepted_by').references(() => users.id, { onDelete: 'set null' }),
+    // Set when the owner cancels a keeper's or co-owner's invite before it is answered: the
+    // link then says so instead of letting the person in.
+    revokedAt: timestamp('revoked_at', { withTimezone: true }),
     invitedBy: uuid('invited_by').references(() => users.id, { onDelete: 'set null' }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
@@ -98,7 +103,10 @@ export const locations = pgTable(
   (t) => [unique('locations_place').on(t.collectionId, t.room, t.rack, t.shelf, t.position)],
 );
 
-/** One report per covered day, e-mailed to the owners and kept for the app. */
+/**
+ * One report per covered day, and one summary per cover when it ends (early or on its last
+ * day): e-mailed to the owners and kept for the app.
+ */
 export const coverReports = pgTable(
   'cover_reports',
   {
@@ -107,6 +115,8 @@ export const coverReports = pgTable(
       .notNull()
       .references(() => collections.id, { onDelete: 'cascade' }),
     localDate: date('local_date').notNull(),
+    // Set on a cover's end summary (its local date is the cover's last day); null on a day's report.
+    coverId: uuid('cover_id').references(() => invites.id, { onDelete: 'cascade' }),
     subject: text('subject').notNull(),
     body: text('body').notNull(),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
@@ -115,5 +125,11 @@ export const coverReports = pgTable(
     /** Owners it was already accepted for, so a retry after a partial failure sends no duplicate. */
     sentTo: text('sent_to').array().notNull().default([]),
   },
-  (t) => [unique('cover_reports_collection_day').on(t.collectionId, t.localDate)],
+  (t) => [
+    // One report per (collection, day), one summary per cover: each is made exactly once.
+    uniqueIndex('cover_reports_collection_day')
+      .on(t.collectionId, t.localDate)
+      .where(sql`${t.coverId} is null`),
+    uniqueIndex('cover_reports_cover').on(t.coverId),
+  ],
 );

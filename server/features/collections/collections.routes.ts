@@ -3,8 +3,10 @@ import type { Role } from '#shared/domain/roles';
 import {
   addMemberBody,
   deleteCollectionBody,
+  inviteParams,
   memberParams,
   type DeleteCollectionBody,
+  type MemberInviteRole,
 } from '#shared/schemas/collections';
 import { currentUserId } from '../../middleware/auth';
 import { membershipOf } from '../../middleware/roles';
@@ -52,12 +54,43 @@ export function collectionsRoutes(
       res
         .status(202)
         .json(
-          await service.inviteKeeper(
+          await service.invite(
             membershipOf(res),
             currentUserId(req),
-            input<{ email: string }>(res, 'body').email,
+            input<{ email: string; role: MemberInviteRole }>(res, 'body'),
           ),
         );
+    },
+  );
+
+  // An unanswered invite: a new link (the old one stops working), or cancelled.
+  router.post(
+    '/invites/:inviteId/resend',
+    member('owner'),
+    validate({ params: inviteParams }),
+    inviteLimit,
+    async (req, res) => {
+      res
+        .status(202)
+        .json(
+          await service.resendInvite(
+            membershipOf(res),
+            currentUserId(req),
+            input<{ inviteId: string }>(res, 'params').inviteId,
+          ),
+        );
+    },
+  );
+  router.delete(
+    '/invites/:inviteId',
+    member('owner'),
+    validate({ params: inviteParams }),
+    async (_req, res) => {
+      await service.revokeInvite(
+        membershipOf(res).collectionId,
+        input<{ inviteId: string }>(res, 'params').inviteId,
+      );
+      res.status(204).end();
     },
   );
 

@@ -1,3 +1,4 @@
+import type { MemberInviteRole } from '#shared/schemas/collections';
 import { insertCollection } from '../../access/collections';
 import { INVITE_LIFETIME_MS, newInviteToken } from '../../access/invite-token';
 import {
@@ -14,9 +15,13 @@ import { HttpError } from '../../middleware/errors';
 import {
   deleteCollectionRows,
   deleteMembership,
-  insertKeeperInvite,
+  deleteOwnerMembershipIfOthers,
+  findPendingMemberInvite,
+  insertMemberInvite,
   listMembers,
-  listOpenKeeperInvites,
+  listPendingMemberInvites,
+  renewMemberInvite,
+  revokeMemberInvite,
 } from './collections.repository';
 
 interface Deps {
@@ -31,7 +36,61 @@ interface Deps {
 /** Enough for a household's collections and a few restores; stops a runaway script. */
 const MAX_MEMBERSHIPS = 50;
 
+/**
+ * An expired invite stays on the owner's list for a month, to be sent again or cancelled;
+ * after that it drops off (the person never answered).
+ */
+const EXPIRED_SHOWN_MS = 30 * 86_400_000;
+
+const inviteNotFound = () =>
+  new HttpError(
+    404,
+    'not_found',
+    'We could not find that invite: it may have been accepted or cancelled already.',
+  );
+
+/** What each role may do, in the e-mail's words. */
+const ROLE_MAIL: Record<MemberInviteRole, { subject: string; what: string }> = {
+  keeper: {
+    subject: 'to keep',
+    what: "to keep the collection {name} with them on Rackside: its feeding rounds, its animals' records and their labels.",
+  },
+  owner: {
+    subject: 'to co-own',
+    what: "to own the collection {name} with them on Rackside: its feeding rounds, its animals' records and labels, and also who keeps it, its covers and its backups.",
+  },
+};
+
 export function createCollectionsService(db: Db, deps: Deps) {
+  /** The invite's e-mail, after the answer (decision 012). */
+  function mailInvite(
+    c: MemberCollection,
+    invitedBy: string,
+    email: string,
+    role: MemberInviteRole,
+    token: string,
+  ) {
+    deps.background.run(`${role} invite mail`, async () => {
+      const from = (await displayNameOf(db, invitedBy)) ?? 'A keeper';
+      const words = ROLE_MAIL[role];
+      await deps.mailer.send({
+        to: email,
+        subject: `${from} invites you ${words.subject} ${c.collectionName} on Rackside`,
+        text: [
+          'Hello,',
+          '',
+          `${from} invites you ${words.what.replace('{name}', c.collectionName)}`,
+          '',
+          'Open this link to accept (it works once, within a week):',
+          '',
+          deps.publicUrl(`/join?token=${token}`),
+          '',
+          `If you do not know ${from}, ignore this e-mail: nothing happens unless you accept.`,
+        ].join('\n'),
+      });
+    });
+  }
+
   return {
     /** A new, empty collection owned by the person who starts it (sign-up makes the first). */
     async create(userId: string, values: { name: string; timeZone: string }) {
@@ -50,10 +109,15 @@ export function createCollectionsService(db: Db, deps: Deps) {
       return { id, name: values.name, timeZone: values.timeZone, role: 'owner' as const };
     },
 
-    /** The members, and the keeper invites still waiting for an answer. */
+    /** The members, and the keeper and co-owner invites still waiting for an answer. */
     async members(collectionId: string) {
+      const now = deps.now();
       const rows = await listMembers(db, collectionId);
-      const waiting = await listOpenKeeperInvites(db, collectionId, deps.now());
+      const waiting = await listPendingMemberInvites(
+        db,
+        collectionId,
+        new Date(now.getTime() - EXPIRED_SHOWN_MS),
+      );
       return {
         members: rows.map((m) => ({
           ...m,
@@ -63,53 +127,78 @@ export function createCollectionsService(db: Db, deps: Deps) {
         invites: waiting.map((i) => ({
           id: i.id,
           email: i.email,
+          role: i.role === 'owner' ? ('owner' as const) : ('keeper' as const),
           sentAt: i.sentAt.toISOString(),
           expiresAt: i.expiresAt.toISOString(),
+          expired: i.expiresAt <= now,
         })),
       };
     },
 
     /**
-     * Invites someone to keep the collection: they join only by accepting the e-mailed link,
-     * never by being added. The same work and answer whether or not the address has an
-     * account (docs/decisions/012-same-answer-for-every-email.md); the e-mail goes after the answer.
+     * Invites someone to keep the collection, or a partner to own it too: they join only by
+     * accepting the e-mailed link, never by being added. The same work and answer whether or
+     * not the address has an account (docs/decisions/012-same-answer-for-every-email.md); the
+     * e-mail goes after the answer.
      */
-    async inviteKeeper(c: MemberCollection, invitedBy: string, email: string) {
-      const role = await roleOfEmail(db, c.collectionId, email);
-      // The owner can see the member list anyway: this tells them nothing new.
-      if (role === 'keeper' || role === 'owner')
+    async invite(
+      c: MemberCollection,
+      invitedBy: string,
+      body: { email: string; role: MemberInviteRole },
+    ) {
+      const role = await roleOfEmail(db, c.collectionId, body.email);
+      // The owner can see the member list anyway: this tells them nothing new. A keeper may be
+      // invited to co-own (they accept or not); nobody is invited to a role they already hold.
+      if (role === 'owner' || (role === 'keeper' && body.role === 'keeper'))
         throw new HttpError(
           409,
           'already_member',
-          'That person is already a member of this collection.',
+          role === 'owner'
+            ? 'That person already owns this collection.'
+            : 'That person already keeps this collection. Invite them as co-owner instead if they should own it too.',
         );
       const { token, tokenHash } = newInviteToken();
-      await insertKeeperInvite(db, {
+      const now = deps.now();
+      await insertMemberInvite(db, {
         collectionId: c.collectionId,
-        email,
+        email: body.email,
+        role: body.role,
         tokenHash,
-        expiresAt: new Date(deps.now().getTime() + INVITE_LIFETIME_MS),
+        expiresAt: new Date(now.getTime() + INVITE_LIFETIME_MS),
         invitedBy,
+        createdAt: now,
       });
-      deps.background.run('keeper invite mail', async () => {
-        const from = (await displayNameOf(db, invitedBy)) ?? 'A keeper';
-        await deps.mailer.send({
-          to: email,
-          subject: `${from} invites you to keep ${c.collectionName} on Rackside`,
-          text: [
-            'Hello,',
-            '',
-            `${from} invites you to keep the collection ${c.collectionName} with them on Rackside: its feeding rounds, its animals' records and their labels.`,
-            '',
-            'Open this link to accept (it works once, within a week):',
-            '',
-            deps.publicUrl(`/join?token=${token}`),
-            '',
-            `If you do not know ${from}, ignore this e-mail: nothing happens unless you accept.`,
-          ].join('\n'),
-        });
-      });
-      return { message: `We have e-mailed an invite to ${email}. They join when they accept it.` };
+      mailInvite(c, invitedBy, body.email, body.role, token);
+      return {
+        message: `We have e-mailed an invite to ${body.email}. They join when they accept it.`,
+      };
+    },
+
+    /** A new link for an unanswered invite (the earlier one stops working), valid a week again. */
+    async resendInvite(c: MemberCollection, invitedBy: string, inviteId: string) {
+      const invite = await findPendingMemberInvite(db, c.collectionId, inviteId);
+      if (!invite) throw inviteNotFound();
+      const { token, tokenHash } = newInviteToken();
+      const now = deps.now();
+      if (
+        !(await renewMemberInvite(db, invite.id, {
+          tokenHash,
+          expiresAt: new Date(now.getTime() + INVITE_LIFETIME_MS),
+          createdAt: now,
+        }))
+      )
+        throw inviteNotFound();
+      const role = invite.role === 'owner' ? 'owner' : 'keeper';
+      mailInvite(c, invitedBy, invite.email, role, token);
+      return {
+        message: `We have e-mailed a new invite to ${invite.email}; the earlier link no longer works.`,
+      };
+    },
+
+    /** Cancels an unanswered invite: its link then says it was cancelled. */
+    async revokeInvite(collectionId: string, inviteId: string) {
+      const invite = await findPendingMemberInvite(db, collectionId, inviteId);
+      if (!invite || !(await revokeMemberInvite(db, invite.id, deps.now()))) throw inviteNotFound();
     },
 
     /**
@@ -143,10 +232,20 @@ export function createCollectionsService(db: Db, deps: Deps) {
       }
     },
 
-    /** A keeper steps out of someone else's collection; the owner stays with their own. */
+    /**
+     * A keeper steps out of someone else's collection; an owner only while a co-owner stays
+     * (a collection always has an owner).
+     */
     async leave(collectionId: string, userId: string, role: string) {
-      if (role === 'owner')
-        throw new HttpError(409, 'owner_stays', 'An owner cannot leave their own collection.');
+      if (role === 'owner') {
+        if (!(await deleteOwnerMembershipIfOthers(db, collectionId, userId)))
+          throw new HttpError(
+            409,
+            'owner_stays',
+            'You are the only owner: invite a co-owner first, or delete the collection.',
+          );
+        return;
+      }
       await deleteMembership(db, collectionId, userId);
     },
   };

@@ -8,6 +8,8 @@ import type { Db } from '../../db/client';
 import type { Mailer } from '../../mail/mailer';
 import { HttpError } from '../../middleware/errors';
 import { coverState, coverWindow, daysOf } from './cover-days';
+import { deleteSummary } from './cover-reports.repository';
+import type { CoverSummaries } from './cover-summary';
 import {
   findCoverInvite,
   insertCoverInvite,
@@ -21,9 +23,14 @@ export interface CoverArrangementDeps {
   now: () => Date;
   publicUrl: (path: string) => string;
   background: Background;
+  summaries: Pick<CoverSummaries, 'afterEarlyEnd'>;
 }
 
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that cover.');
+const alreadyOver = () =>
+  new HttpError(422, 'invalid', 'That cover would already be over. Choose days from today on.', [
+    { path: 'lastDay', message: 'Choose days from today on.' },
+  ]);
 
 /** An owner's side of covers: naming a helper and the days, changing them, ending one early. */
 export function createCoverArrangements(db: Db, deps: CoverArrangementDeps) {
@@ -79,13 +86,7 @@ export function createCoverArrangements(db: Db, deps: CoverArrangementDeps) {
           'That person already keeps this collection with you; no cover is needed.',
         );
       const { startsAt, endsAt } = coverWindow(body.firstDay, body.lastDay, c.timeZone);
-      if (endsAt <= deps.now())
-        throw new HttpError(
-          422,
-          'invalid',
-          'That cover would already be over. Choose days from today on.',
-          [{ path: 'lastDay', message: 'Choose days from today on.' }],
-        );
+      if (endsAt <= deps.now()) throw alreadyOver();
       const { token, tokenHash } = newInviteToken();
       const expiresAt = new Date(
         Math.min(deps.now().getTime() + INVITE_LIFETIME_MS, endsAt.getTime()),
@@ -109,7 +110,7 @@ export function createCoverArrangements(db: Db, deps: CoverArrangementDeps) {
 
     async list(c: MemberCollection): Promise<CoverSummary[]> {
       const rows = await listCoverInvites(db, c.collectionId);
-      return rows.map(({ invite: i, helperName, ack }) => ({
+      return rows.map(({ invite: i, helperName, ack, summaryId }) => ({
         id: i.id,
         email: i.email,
         helperName,
@@ -117,11 +118,15 @@ export function createCoverArrangements(db: Db, deps: CoverArrangementDeps) {
         message: i.message,
         state: coverState(deps.now(), i.startsAt!, i.endsAt!, !!i.acceptedAt),
         inviteExpired: !i.acceptedAt && i.expiresAt <= deps.now(),
+        hasSummary: !!summaryId,
         safetyAcknowledgedAt: ack?.toISOString() ?? null,
       }));
     },
 
-    /** New days or message; the helper's access follows at once (a cover ended early reopens). */
+    /**
+     * New days or message; the helper's access follows at once (a cover ended early reopens,
+     * and its summary is made again when it ends).
+     */
     async change(
       c: MemberCollection,
       coverId: string,
@@ -129,14 +134,50 @@ export function createCoverArrangements(db: Db, deps: CoverArrangementDeps) {
     ) {
       const invite = await coverOf(c.collectionId, coverId);
       const { startsAt, endsAt } = coverWindow(body.firstDay, body.lastDay, c.timeZone);
+      if (endsAt <= deps.now()) throw alreadyOver();
       await db.transaction(async (tx) => {
-        await updateInvite(tx, invite.id, { startsAt, endsAt, message: body.message || null });
+        await updateInvite(tx, invite.id, {
+          startsAt,
+          endsAt,
+          message: body.message || null,
+          // An unanswered link never outlives the cover it offers.
+          ...(invite.acceptedAt
+            ? {}
+            : { expiresAt: new Date(Math.min(invite.expiresAt.getTime(), endsAt.getTime())) }),
+        });
         if (invite.acceptedBy)
           await updateHelperMembership(tx, c.collectionId, invite.acceptedBy, {
             startsAt,
             endsAt,
             writesClosedAt: null,
           });
+        await deleteSummary(tx, invite.id);
+      });
+    },
+
+    /**
+     * The invite again, with a new link (the earlier one stops working), for a cover not yet
+     * accepted and not over: a lost or expired e-mail. Mailed after the answer (decision 012).
+     */
+    async resend(c: MemberCollection, invitedBy: string, coverId: string) {
+      const invite = await coverOf(c.collectionId, coverId);
+      const now = deps.now();
+      if (invite.acceptedAt)
+        throw new HttpError(
+          409,
+          'already_accepted',
+          'This cover was accepted already: there is no invite to send again.',
+        );
+      if (invite.endsAt! <= now) throw alreadyOver();
+      const { token, tokenHash } = newInviteToken();
+      await updateInvite(db, invite.id, {
+        tokenHash,
+        expiresAt: new Date(Math.min(now.getTime() + INVITE_LIFETIME_MS, invite.endsAt!.getTime())),
+      });
+      const days = daysOf(invite.startsAt!, invite.endsAt!, c.timeZone);
+      deps.background.run('cover invite mail', async () => {
+        const from = (await displayNameOf(db, invitedBy)) ?? 'A keeper';
+        await mailInvite(invite.email, token, c.collectionName, from, days, invite.message);
       });
     },
 
@@ -148,6 +189,8 @@ export function createCoverArrangements(db: Db, deps: CoverArrangementDeps) {
     async end(collectionId: string, coverId: string) {
       const invite = await coverOf(collectionId, coverId);
       const now = deps.now();
+      if (invite.endsAt! <= now)
+        throw new HttpError(409, 'already_ended', 'This cover has ended already.');
       await db.transaction(async (tx) => {
         await updateInvite(tx, invite.id, { endsAt: now, expiresAt: now });
         if (invite.acceptedBy)
@@ -156,6 +199,8 @@ export function createCoverArrangements(db: Db, deps: CoverArrangementDeps) {
             writesClosedAt: now,
           });
       });
+      // A cover that ran (accepted, begun) gets its summary now, in the app and by e-mail.
+      await deps.summaries.afterEarlyEnd(invite.id);
     },
   };
 }

@@ -21,29 +21,38 @@ export async function deliverReports(
   now: Date,
 ): Promise<number> {
   let sent = 0;
-  for (const { id } of await unsentReports(db, new Date(now.getTime() - RETRY_DAYS * 86_400_000))) {
-    const done = await withUnsentReport(
-      db,
-      id,
-      async (report, owners) => {
-        const sentTo = new Set(report.sentTo);
-        for (const to of owners.filter((o) => !sentTo.has(o))) {
-          try {
-            await mailer.send({ to, subject: report.subject, text: report.body });
-            sentTo.add(to);
-          } catch (err) {
-            logger?.warn(
-              { err, reportId: report.id, collectionId: report.collectionId },
-              'cover report not accepted by the mail server; retried on the next run',
-            );
-            return { sentTo: [...sentTo], done: false };
-          }
-        }
-        return { sentTo: [...sentTo], done: true };
-      },
-      now,
-    );
-    if (done) sent += 1;
-  }
+  for (const { id } of await unsentReports(db, new Date(now.getTime() - RETRY_DAYS * 86_400_000)))
+    if (await deliverReport(db, mailer, logger, id, now)) sent += 1;
   return sent;
+}
+
+/** E-mails one report (or cover summary) to each owner still waiting for it; true when all have it. */
+export async function deliverReport(
+  db: Db,
+  mailer: Mailer,
+  logger: Logger | undefined,
+  id: string,
+  now: Date,
+): Promise<boolean> {
+  return withUnsentReport(
+    db,
+    id,
+    async (report, owners) => {
+      const sentTo = new Set(report.sentTo);
+      for (const to of owners.filter((o) => !sentTo.has(o))) {
+        try {
+          await mailer.send({ to, subject: report.subject, text: report.body });
+          sentTo.add(to);
+        } catch (err) {
+          logger?.warn(
+            { err, reportId: report.id, collectionId: report.collectionId },
+            'cover report not accepted by the mail server; retried on the next run',
+          );
+          return { sentTo: [...sentTo], done: false };
+        }
+      }
+      return { sentTo: [...sentTo], done: true };
+    },
+    now,
+  );
 }

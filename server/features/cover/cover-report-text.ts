@@ -23,25 +23,25 @@ export interface CoverDays {
 
 /**
  * The words of one covered day's report: what was fed, refused, skipped and noted, what needs
- * attention and, on the cover's last day, a summary of the whole cover.
+ * attention (the whole cover's summary is cover-summary.ts).
  */
+/** A collection's facts of [from, to) that no undo has cancelled, oldest first. */
+export async function factsBetween(db: Db, c: ReportCollection, from: Date, to: Date) {
+  const rows = await eventsBetween(db, c.id, from, to);
+  const voided = new Set(
+    rows.filter((r) => r.kind === 'void').map((r) => (r.payload as { targetId?: string }).targetId),
+  );
+  return rows.filter((r) => r.kind !== 'void' && !voided.has(r.id));
+}
+export type Fact = Awaited<ReturnType<typeof factsBetween>>[number];
+
 export function createReportText(
   db: Db,
   deps: { rounds: RoundsService; publicUrl: (path: string) => string },
 ) {
-  /** The facts of [from, to) that no undo has cancelled. */
-  async function factsBetween(c: ReportCollection, from: Date, to: Date) {
-    const rows = await eventsBetween(db, c.id, from, to);
-    const voided = new Set(
-      rows
-        .filter((r) => r.kind === 'void')
-        .map((r) => (r.payload as { targetId?: string }).targetId),
-    );
-    return rows.filter((r) => r.kind !== 'void' && !voided.has(r.id));
-  }
-
   return async function reportFor(c: ReportCollection, day: LocalDate, cover: CoverDays) {
     const facts = await factsBetween(
+      db,
       c,
       startOfLocalDate(day, c.timeZone),
       startOfLocalDate(addDays(day, 1), c.timeZone),
@@ -85,21 +85,6 @@ export function createReportText(
     ];
 
     const last = day === cover.lastDay;
-    const summary: string[] = [];
-    if (last) {
-      const all = await factsBetween(
-        c,
-        startOfLocalDate(cover.firstDay, c.timeZone),
-        startOfLocalDate(addDays(cover.lastDay, 1), c.timeZone),
-      );
-      const counts = new Map<string, number>();
-      for (const f of all) counts.set(f.kind, (counts.get(f.kind) ?? 0) + 1);
-      summary.push(
-        `The cover is over: ${describeLocalDate(cover.firstDay, true)} to ${describeLocalDate(cover.lastDay, true)}.`,
-        ...[...counts.entries()].map(([k, n]) => `- ${EVENT_WORDS[k as EventKind] ?? k}: ${n}`),
-        '',
-      );
-    }
     const subject = `${c.name}: cover report for ${describeLocalDate(day, true)}${last ? ' (last day)' : ''}`;
     const body = [
       `${c.name} — ${describeLocalDate(day, true)}`,
@@ -119,7 +104,7 @@ export function createReportText(
       ...(attention.length
         ? ['Needs attention', ...attention, '']
         : ['Nothing needs attention.', '']),
-      ...summary,
+      ...(last ? ['The summary of the whole cover comes in its own e-mail.', ''] : []),
       `Today's round and history: ${deps.publicUrl('/today')}`,
     ].join('\n');
     return { subject, body };

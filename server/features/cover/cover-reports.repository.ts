@@ -1,9 +1,9 @@
-import { and, asc, desc, eq, gte, isNotNull, isNull, lt, ne, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, gt, gte, isNotNull, isNull, lt, lte, ne, sql } from 'drizzle-orm';
 import type { LocalDate } from '#shared/domain/local-dates';
 import { ownerEmails } from '../../access/memberships';
 import type { Db } from '../../db/client';
-import { animals, events } from '../../db/schema/animals';
-import { collections, coverReports, memberships } from '../../db/schema/collections';
+import { animals, events, handoverNotes } from '../../db/schema/animals';
+import { collections, coverReports, invites, memberships } from '../../db/schema/collections';
 import { animalStates } from '../../db/schema/rounds';
 import { users } from '../../db/schema/users';
 
@@ -96,12 +96,15 @@ export async function writeReport(db: Db, id: string, report: { subject: string;
 
 /** A collection's latest reports (the last 60 days at most), newest first. */
 export async function latestReports(db: Db, collectionId: string) {
-  return db
-    .select()
-    .from(coverReports)
-    .where(eq(coverReports.collectionId, collectionId))
-    .orderBy(desc(coverReports.localDate))
-    .limit(60);
+  return (
+    db
+      .select()
+      .from(coverReports)
+      .where(eq(coverReports.collectionId, collectionId))
+      // A cover's summary before its last day's report.
+      .orderBy(desc(coverReports.localDate), sql`${coverReports.coverId} is null`)
+      .limit(60)
+  );
 }
 
 /** Reports made (subject written) but not yet accepted by the mail server for every owner. */
@@ -151,4 +154,83 @@ export async function withUnsentReport(
       .where(eq(coverReports.id, id));
     return result.done;
   });
+}
+
+// --- A cover's end summary (a cover_reports row with its cover's id).
+
+/**
+ * Helpers' covers that have ended since `endedSince` (on their last day or early) after they
+ * began, with no summary yet, and their collection.
+ */
+export async function endedCoversWithoutSummary(db: Db, now: Date, endedSince: Date) {
+  return db
+    .select({ id: invites.id })
+    .from(invites)
+    .leftJoin(coverReports, eq(coverReports.coverId, invites.id))
+    .where(
+      and(
+        eq(invites.role, 'helper'),
+        isNotNull(invites.acceptedAt),
+        lte(invites.endsAt, now),
+        gt(invites.endsAt, endedSince),
+        lt(invites.startsAt, invites.endsAt),
+        isNull(coverReports.id),
+      ),
+    );
+}
+
+/** What a cover's summary is made from: its days, its helper, its collection. */
+export async function coverForSummary(db: Db, coverId: string) {
+  const [row] = await db
+    .select({
+      c: { id: collections.id, name: collections.name, timeZone: collections.timeZone },
+      startsAt: invites.startsAt,
+      endsAt: invites.endsAt,
+      acceptedAt: invites.acceptedAt,
+      helperId: invites.acceptedBy,
+      helperName: users.displayName,
+      email: invites.email,
+    })
+    .from(invites)
+    .innerJoin(collections, eq(collections.id, invites.collectionId))
+    .leftJoin(users, eq(users.id, invites.acceptedBy))
+    .where(and(eq(invites.id, coverId), eq(invites.role, 'helper')));
+  return row ?? null;
+}
+
+/** Claims a cover's summary with an empty row; its id, or null when another run has it. */
+export async function claimSummary(
+  db: Db,
+  collectionId: string,
+  coverId: string,
+  day: LocalDate,
+  createdAt: Date,
+) {
+  const claimed = await db
+    .insert(coverReports)
+    .values({ collectionId, coverId, localDate: day, subject: '', body: '', createdAt })
+    .onConflictDoNothing()
+    .returning({ id: coverReports.id });
+  return claimed[0]?.id ?? null;
+}
+
+/** A reopened cover's summary goes: a new one is made when it ends again. */
+export async function deleteSummary(db: Db, coverId: string) {
+  await db.delete(coverReports).where(eq(coverReports.coverId, coverId));
+}
+
+/** The keepers' per-animal handover notes in force on the cover's first day or later. */
+export async function handoverNotesForCover(db: Db, collectionId: string, firstDay: LocalDate) {
+  return db
+    .select({
+      animal: animals.name,
+      code: animals.labelCode,
+      text: handoverNotes.text,
+      until: handoverNotes.until,
+      doNotFeed: handoverNotes.doNotFeed,
+    })
+    .from(handoverNotes)
+    .innerJoin(animals, eq(animals.id, handoverNotes.animalId))
+    .where(and(eq(handoverNotes.collectionId, collectionId), gte(handoverNotes.until, firstDay)))
+    .orderBy(asc(animals.name));
 }

@@ -12,6 +12,7 @@ import {
   writeReport,
   type ReportCollection,
 } from './cover-reports.repository';
+import type { CoverSummaries } from './cover-summary';
 
 /** Reports are made for days that ended in the last three days (a server that was down catches up). */
 const CATCH_UP_DAYS = 3;
@@ -22,9 +23,13 @@ interface Deps {
   rounds: RoundsService;
   publicUrl: (path: string) => string;
   logger?: Logger;
+  /** Covers that ended by themselves get their summary on the same run (cover-summary.ts). */
+  summaries?: Pick<CoverSummaries, 'makeDue'>;
 }
 
 export interface CoverReportView {
+  id: string;
+  coverId: string | null;
   localDate: string;
   subject: string;
   body: string;
@@ -59,8 +64,8 @@ export function createCoverReportsService(db: Db, deps: Deps) {
 
   return {
     /**
-     * Makes a report for every covered day that has ended, then e-mails every report the mail
-     * server has not yet accepted (this run's and earlier failures). Safe to run as often as
+     * Makes a report for every covered day that has ended and a summary for every cover that
+     * has, then e-mails every report the mail server has not yet accepted (this run's and earlier failures). Safe to run as often as
      * wanted; returns how many reports were sent.
      */
     async runDue(): Promise<number> {
@@ -84,6 +89,7 @@ export function createCoverReportsService(db: Db, deps: Deps) {
           }
         }
       }
+      await deps.summaries?.makeDue();
       return deliverReports(db, deps.mailer, deps.logger, now);
     },
 
@@ -92,6 +98,8 @@ export function createCoverReportsService(db: Db, deps: Deps) {
       return rows
         .filter((r) => r.subject)
         .map((r) => ({
+          id: r.id,
+          coverId: r.coverId,
           localDate: r.localDate,
           subject: r.subject,
           body: r.body,

@@ -1,7 +1,7 @@
 import { and, desc, eq, gte, inArray, isNull, sql } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { events } from '../../db/schema/animals';
-import { collections, invites, memberships } from '../../db/schema/collections';
+import { collections, coverReports, invites, memberships } from '../../db/schema/collections';
 import { users } from '../../db/schema/users';
 
 export type InviteRow = typeof invites.$inferSelect;
@@ -28,16 +28,21 @@ export async function insertCoverInvite(
   return row!.id;
 }
 
-/** A collection's covers, newest first, with the helper who accepted and when they read the safety notes. */
+/**
+ * A collection's covers, newest first, with the helper who accepted, when they read the safety
+ * notes and the cover's end summary, if made.
+ */
 export async function listCoverInvites(db: Db, collectionId: string) {
   return db
     .select({
       invite: invites,
       helperName: users.displayName,
       ack: memberships.safetyAcknowledgedAt,
+      summaryId: coverReports.id,
     })
     .from(invites)
     .leftJoin(users, eq(users.id, invites.acceptedBy))
+    .leftJoin(coverReports, eq(coverReports.coverId, invites.id))
     .leftJoin(
       memberships,
       and(
@@ -66,7 +71,13 @@ export async function findCoverInvite(db: Db, collectionId: string, coverId: str
 export async function updateInvite(
   db: Db,
   inviteId: string,
-  values: { startsAt?: Date; endsAt?: Date; expiresAt?: Date; message?: string | null },
+  values: {
+    startsAt?: Date;
+    endsAt?: Date;
+    expiresAt?: Date;
+    message?: string | null;
+    tokenHash?: string;
+  },
 ) {
   await db.update(invites).set(values).where(eq(invites.id, inviteId));
 }
@@ -121,7 +132,7 @@ export async function grantMembership(
   db: Db,
   collectionId: string,
   userId: string,
-  grant: { role: 'keeper' | 'helper'; startsAt: Date | null; endsAt: Date | null },
+  grant: { role: 'owner' | 'keeper' | 'helper'; startsAt: Date | null; endsAt: Date | null },
 ) {
   await db
     .insert(memberships)

@@ -76,6 +76,21 @@ export function coverRoutes(
       res.json({ covers: await cover.covers.list(membershipOf(res)) });
     },
   );
+  // A new link for a cover not yet accepted (the earlier one stops working).
+  router.post(
+    '/covers/:coverId/resend',
+    member('owner'),
+    validate({ params: coverParams }),
+    inviteLimit,
+    async (req, res) => {
+      await cover.covers.resend(
+        membershipOf(res),
+        currentUserId(req),
+        input<{ coverId: string }>(res, 'params').coverId,
+      );
+      res.status(202).json({ covers: await cover.covers.list(membershipOf(res)) });
+    },
+  );
   router.post(
     '/covers/:coverId/end',
     member('owner'),

@@ -1,3 +1,4 @@
+import { roleAtLeast } from '#shared/domain/roles';
 import type { AcceptBody, InvitePreview } from '#shared/schemas/cover';
 import { hashInviteToken } from '../../access/invite-token';
 import { roleOfUser } from '../../access/memberships';
@@ -28,6 +29,12 @@ export function createInviteAcceptance(db: Db, deps: InviteAcceptanceDeps) {
         'invite_invalid',
         'This invite link is not valid. Ask the keeper to send a new one.',
       );
+    if (invite.revokedAt)
+      throw new HttpError(
+        400,
+        'invite_revoked',
+        'This invite was cancelled by the owner. Ask them to send a new one if it was a mistake.',
+      );
     if (invite.acceptedAt)
       throw new HttpError(
         400,
@@ -55,7 +62,7 @@ export function createInviteAcceptance(db: Db, deps: InviteAcceptanceDeps) {
           ? daysOf(invite.startsAt, invite.endsAt, c.timeZone)
           : { firstDay: null, lastDay: null };
       return {
-        role: invite.role === 'keeper' ? 'keeper' : 'helper',
+        role: invite.role,
         collectionName: c.name,
         invitedBy,
         email: invite.email,
@@ -76,7 +83,8 @@ export function createInviteAcceptance(db: Db, deps: InviteAcceptanceDeps) {
     ): Promise<{ userId: string; collectionId: string }> {
       return db.transaction(async (tx) => {
         const invite = await usableInvite(body.token);
-        const keeper = invite.role === 'keeper';
+        // A keeper's or co-owner's invite: no days, no window.
+        const keeper = invite.role !== 'helper';
         const existing = await findUserByEmail(tx, invite.email);
         let userId: string;
         if (existing) {
@@ -106,13 +114,16 @@ export function createInviteAcceptance(db: Db, deps: InviteAcceptanceDeps) {
           ).id;
         }
         const current = await roleOfUser(tx, invite.collectionId, userId);
-        if (current && current !== 'helper')
+        // Accepting moves someone up (a helper to keeper, a keeper to co-owner), never down.
+        if (current && current !== 'helper' && roleAtLeast(current, invite.role))
           throw new HttpError(
             409,
             'already_member',
-            keeper
-              ? 'You already keep this collection.'
-              : 'You already keep this collection; no cover is needed.',
+            current === 'owner'
+              ? 'You already own this collection.'
+              : keeper
+                ? 'You already keep this collection.'
+                : 'You already keep this collection; no cover is needed.',
           );
         // Claimed once: a second use of the same link finds it accepted.
         if (!(await claimInvite(tx, invite.id, userId, deps.now())))
@@ -121,9 +132,13 @@ export function createInviteAcceptance(db: Db, deps: InviteAcceptanceDeps) {
             'invite_used',
             'This invite link was already used. Sign in to see your collection.',
           );
-        // A keeper has no window; a helper who becomes a keeper loses theirs.
+        // A keeper or owner has no window; a helper who becomes one loses theirs.
         const grant = keeper
-          ? { role: 'keeper' as const, startsAt: null, endsAt: null }
+          ? {
+              role: invite.role === 'owner' ? ('owner' as const) : ('keeper' as const),
+              startsAt: null,
+              endsAt: null,
+            }
           : { role: 'helper' as const, startsAt: invite.startsAt, endsAt: invite.endsAt };
         await grantMembership(tx, invite.collectionId, userId, grant);
         return { userId, collectionId: invite.collectionId };

@@ -32,7 +32,8 @@ export async function insertHelperReport(
 }
 
 /** A collection's reports made since `since`, newest first, with the animal and who reported. */
-export async function reportsSince(db: Db, collectionId: string, since: Date) {
+/** A collection's reports made at `since` or later (and before `before`, if given), newest first. */
+export async function reportsSince(db: Db, collectionId: string, since: Date, before?: Date) {
   return db
     .select({
       id: helperReports.id,
@@ -48,7 +49,13 @@ export async function reportsSince(db: Db, collectionId: string, since: Date) {
     .from(helperReports)
     .leftJoin(animals, eq(animals.id, helperReports.animalId))
     .leftJoin(users, eq(users.id, helperReports.reportedBy))
-    .where(and(eq(helperReports.collectionId, collectionId), gte(helperReports.createdAt, since)))
+    .where(
+      and(
+        eq(helperReports.collectionId, collectionId),
+        gte(helperReports.createdAt, since),
+        before ? lt(helperReports.createdAt, before) : undefined,
+      ),
+    )
     .orderBy(desc(helperReports.createdAt))
     .limit(100);
 }

@@ -90,21 +90,34 @@ export function createHelperReportsService(db: Db, deps: Deps) {
     },
 
     async list(collectionId: string): Promise<HelperReportView[]> {
-      const since = new Date(deps.now().getTime() - LIST_DAYS * 86_400_000);
-      const rows = await reportsSince(db, collectionId, since);
-      return rows.map((r) => ({
-        id: r.id,
-        kind: r.kind,
-        animal:
-          r.animalId && r.animalName && r.labelCode
-            ? { id: r.animalId, name: r.animalName, labelCode: r.labelCode }
-            : null,
-        animalText: r.animalText,
-        note: r.note,
-        reportedBy: r.reportedBy ?? 'A former helper',
-        createdAt: r.createdAt.toISOString(),
-      }));
+      return viewsOf(
+        await reportsSince(
+          db,
+          collectionId,
+          new Date(deps.now().getTime() - LIST_DAYS * 86_400_000),
+        ),
+      );
+    },
+
+    /** The reports made in [from, to), newest first: a cover's summary lists them. */
+    async between(collectionId: string, from: Date, to: Date): Promise<HelperReportView[]> {
+      return viewsOf(await reportsSince(db, collectionId, from, to));
     },
   };
+}
+
+function viewsOf(rows: Awaited<ReturnType<typeof reportsSince>>): HelperReportView[] {
+  return rows.map((r) => ({
+    id: r.id,
+    kind: r.kind,
+    animal:
+      r.animalId && r.animalName && r.labelCode
+        ? { id: r.animalId, name: r.animalName, labelCode: r.labelCode }
+        : null,
+    animalText: r.animalText,
+    note: r.note,
+    reportedBy: r.reportedBy ?? 'A former helper',
+    createdAt: r.createdAt.toISOString(),
+  }));
 }
 export type HelperReportsService = ReturnType<typeof createHelperReportsService>;

@@ -9,7 +9,7 @@ export function NewCollectionRoute() {
       <h1 className="text-3xl font-extrabold">Start a collection</h1>
       <p>
         It starts empty and you own it. Add animals yourself, restore a backup into it from
-        Settings, or invite a partner to keep it with you.
+        Settings, or invite a partner to own it with you from Settings → People.
       </p>
       <NewCollectionForm onCreated={() => navigate('/today', { replace: true })} />
     </div>

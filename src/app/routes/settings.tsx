@@ -9,8 +9,8 @@ import { ChangePasswordForm } from '@/features/auth/components/change-password-f
 import { CollectionSwitcher } from '@/features/auth/components/collection-switcher';
 import { chooseCollectionOnDevice } from '@/features/auth/hooks/use-current-collection';
 import { LeaveCover } from '@/features/cover/components/leave-cover';
+import { useMembers } from '@/features/members/api/list-members';
 import { LeaveCollection } from '@/features/members/components/leave-collection';
-import { MembersPanel } from '@/features/members/components/members-panel';
 import { DataPanel } from '@/features/settings/components/data-panel';
 import { DeleteCollection } from '@/features/settings/components/delete-collection';
 import { ThemePicker } from '@/features/settings/components/theme-picker';
@@ -24,6 +24,9 @@ export function SettingsRoute() {
   const signOut = useSignOut();
   const navigate = useNavigate();
   const queryClient = useQueryClient();
+  // An owner may leave only while a co-owner stays.
+  const members = useMembers(collection?.collectionId ?? '', collection?.role === 'owner');
+  const coOwned = (members.data?.members.filter((m) => m.role === 'owner').length ?? 0) > 1;
   // The collection is gone: the person's list of collections is read again, and the app falls
   // back to another one of theirs (or says they have none).
   const onDeleted = async () => {
@@ -68,9 +71,15 @@ export function SettingsRoute() {
         <DataPanel collectionId={collection.collectionId} isOwner={collection.role === 'owner'} />
       )}
       {collection?.role === 'owner' && (
-        <MembersPanel collectionId={collection.collectionId} ownUserId={me.user.id} />
+        <Link
+          to="/settings/people"
+          className="flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold"
+        >
+          People: invite a partner or a keeper
+          <span aria-hidden="true">›</span>
+        </Link>
       )}
-      {collection?.role === 'keeper' && (
+      {(collection?.role === 'keeper' || (collection?.role === 'owner' && coOwned)) && (
         <LeaveCollection
           collectionId={collection.collectionId}
           collectionName={collection.collectionName}

@@ -6,7 +6,8 @@ export function SignUpRoute() {
   return (
     <PublicPage title="Create your account">
       <p className="text-muted">
-        You will own a new collection. You can invite a partner or a helper later.
+        You will own a new collection. Later, invite a partner or a keeper from Settings → People,
+        and a helper from Settings → Cover for a helper.
       </p>
       <SignUpForm />
       <Link

@@ -9,6 +9,7 @@ import {
   invitePreview,
   type AcceptBody,
   type CoverBody,
+  type CoverChangeBody,
   type HandoverNoteBody,
   type HelperCoverView,
 } from '#shared/schemas/cover';
@@ -26,6 +27,7 @@ export function useCoverChanges(collectionId: string) {
   const queryClient = useQueryClient();
   const refresh = () =>
     queryClient.invalidateQueries({ queryKey: queryKeys.cover.covers(collectionId) });
+  const base = `/collections/${collectionId}/covers`;
   return {
     create: useMutation({
       mutationFn: (body: CoverBody) =>
@@ -36,13 +38,25 @@ export function useCoverChanges(collectionId: string) {
         }),
       onSuccess: refresh,
     }),
+    change: useMutation({
+      mutationFn: ({ coverId, body }: { coverId: string; body: CoverChangeBody }) =>
+        apiRequest(`${base}/${coverId}`, { method: 'PUT', body, schema: coverListResponse }),
+      onSuccess: refresh,
+    }),
+    resend: useMutation({
+      mutationFn: (coverId: string) =>
+        apiRequest(`${base}/${coverId}/resend`, { method: 'POST', schema: coverListResponse }),
+      onSuccess: refresh,
+    }),
+    // Ending makes the cover's summary: the reports are read again with the covers.
     end: useMutation({
       mutationFn: (coverId: string) =>
-        apiRequest(`/collections/${collectionId}/covers/${coverId}/end`, {
-          method: 'POST',
-          schema: coverListResponse,
-        }),
-      onSuccess: refresh,
+        apiRequest(`${base}/${coverId}/end`, { method: 'POST', schema: coverListResponse }),
+      onSuccess: () =>
+        Promise.all([
+          refresh(),
+          queryClient.invalidateQueries({ queryKey: queryKeys.cover.reports(collectionId) }),
+        ]),
     }),
   };
 }

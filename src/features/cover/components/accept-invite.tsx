@@ -59,11 +59,21 @@ export function AcceptInvite({ token, me, onAccepted }: Props) {
   };
   const submit = handleSubmit(({ account }) => attempt(() => accept(account)));
   const error = tap.error ?? problem;
-  const keeper = p.role === 'keeper';
+  // A keeper's or co-owner's invite: no days, the /join link.
+  const keeper = p.role !== 'helper';
   const action = keeper ? 'Accept the invite' : 'Accept the cover';
   return (
     <div className="flex flex-col gap-4">
-      {keeper ? (
+      {p.role === 'owner' ? (
+        <>
+          <h2 className="text-2xl font-extrabold">Own {p.collectionName} together</h2>
+          <p>
+            {p.invitedBy ?? 'Its owner'} invites {p.email} to own this collection with them: its
+            rounds, its animals’ records and labels, and also who keeps it, its covers and its
+            backups.
+          </p>
+        </>
+      ) : keeper ? (
         <>
           <h2 className="text-2xl font-extrabold">Keep {p.collectionName}</h2>
           <p>

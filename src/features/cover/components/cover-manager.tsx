@@ -2,26 +2,19 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
-import { capitalised, formatDateRange } from '#shared/domain/date-words';
-import { coverBody, type CoverSummary } from '#shared/schemas/cover';
+import { coverBody } from '#shared/schemas/cover';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { TextField } from '@/components/ui/text-field';
 import { useServerProblem } from '@/lib/form-errors';
 import { useCoverChanges, useCovers } from '../api/cover-api';
-
-const STATE_WORDS: Record<CoverSummary['state'], string> = {
-  invited: 'Invited',
-  upcoming: 'Starts soon',
-  running: 'Running now',
-  ended: 'Ended',
-};
+import { CoverCard } from './cover-card';
 
 type Input = z.input<typeof coverBody>;
 type Output = z.output<typeof coverBody>;
 
-/** The owner's covers: who, which days, and whether it runs; a new one by e-mail. */
+/** The owner's covers: who, which days, and whether it runs (each a CoverCard); a new one by e-mail. */
 export function CoverManager({ collectionId, today }: { collectionId: string; today: string }) {
   const covers = useCovers(collectionId);
   const change = useCoverChanges(collectionId);
@@ -59,7 +52,7 @@ export function CoverManager({ collectionId, today }: { collectionId: string; to
           error={e.email?.message}
           {...register('email')}
         />
-        <div className="grid grid-cols-2 gap-2">
+        <div className="grid grid-cols-1 gap-2 sm:grid-cols-2">
           <TextField
             label="First day"
             type="date"
@@ -89,28 +82,7 @@ export function CoverManager({ collectionId, today }: { collectionId: string; to
       {covers.isError && <Notice tone="error" title={covers.error.message} />}
       <ul aria-label="Covers" className="flex flex-col gap-2">
         {covers.data?.covers.map((c) => (
-          <li
-            key={c.id}
-            className="flex flex-col gap-1 rounded-2xl border-2 border-border bg-surface p-3"
-          >
-            <p className="font-extrabold">
-              {c.helperName ?? c.email} · {STATE_WORDS[c.state]}
-              {c.inviteExpired && ' (link expired)'}
-            </p>
-            <p className="text-sm text-muted">
-              {capitalised(formatDateRange(c.firstDay, c.lastDay))}
-              {c.safetyAcknowledgedAt ? ' · safety page read' : ''}
-            </p>
-            {c.state !== 'ended' && (
-              <Button
-                variant="danger"
-                onClick={() => change.end.mutate(c.id)}
-                busy={change.end.isPending && change.end.variables === c.id}
-              >
-                End this cover now
-              </Button>
-            )}
-          </li>
+          <CoverCard key={c.id} collectionId={collectionId} cover={c} today={today} />
         ))}
       </ul>
     </div>

@@ -13,4 +13,5 @@ export const membersQueryOptions = (collectionId: string) =>
     queryFn: () => listMembers(collectionId),
   });
 
-export const useMembers = (collectionId: string) => useQuery(membersQueryOptions(collectionId));
+export const useMembers = (collectionId: string, enabled = true) =>
+  useQuery({ ...membersQueryOptions(collectionId), enabled });

@@ -4,7 +4,10 @@ import { Notice } from '@/components/ui/notice';
 import { useSyncStatus } from '@/lib/sync-driver';
 import { useLeaveCollection } from '../api/leave-collection';
 
-/** A keeper may step out of a collection they were invited to; the owner can invite them again. */
+/**
+ * A keeper (or a co-owner, while another owner stays) may step out of a collection; an owner
+ * can invite them again.
+ */
 export function LeaveCollection({
   collectionId,
   collectionName,

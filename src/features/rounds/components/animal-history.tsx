@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { EVENT_WORDS, FED_WHILE_HELD, type EventKind } from '#shared/domain/event-kinds';
 import { describeInstant } from '#shared/domain/local-dates';
+import { UNDO_EFFECTS, undoNeedsConfirmation } from '#shared/domain/undo';
 import { SERVER_EVENT_KINDS, type HistoryEvent } from '#shared/schemas/events';
 import { Button } from '@/components/ui/button';
 import { ChoiceGroup } from '@/components/ui/choice-group';
@@ -105,6 +106,13 @@ export function AnimalHistory({
   const history = useAnimalHistory(recorder.collectionId, animal.id);
   const record = useRecordOutcome(recorder);
   const [undone, setUndone] = useState<Set<string>>(new Set());
+  /** The older fact whose undo waits for a confirmation (shared/domain/undo.ts says which). */
+  const [confirming, setConfirming] = useState<string | null>(null);
+  const undo = (id: string) =>
+    void record(animal, 'void', { targetId: id }).then(() => {
+      setUndone((s) => new Set(s).add(id));
+      setConfirming(null);
+    });
   const [group, setGroup] = useState<KindGroup>('all');
   const kinds: readonly EventKind[] | null = KIND_GROUPS[group];
   return (
@@ -131,46 +139,68 @@ export function AnimalHistory({
           .filter((e) => e.kind !== 'void' && (!kinds || kinds.includes(e.kind)))
           .map((e) => {
             const cancelled = !!e.voidedBy || undone.has(e.id);
+            const older = undoNeedsConfirmation(e.at, new Date(), timeZone);
             return (
               <li
                 key={e.id}
-                className="flex items-center gap-2 rounded-xl border-2 border-border bg-surface p-2"
+                className="flex flex-col gap-2 rounded-xl border-2 border-border bg-surface p-2"
               >
-                <div className="min-w-0 flex-1">
-                  <p className={`font-bold ${cancelled ? 'line-through' : ''}`}>
-                    {EVENT_WORDS[e.kind]}
-                    {detail(e) && <span className="font-normal"> · {detail(e)}</span>}
-                  </p>
-                  <p className="text-sm text-muted">
-                    {when(e.at)}
-                    {e.by && ` · ${e.by}`}
-                    {cancelled && ' · undone'}
-                  </p>
-                  {e.flags.includes(FED_WHILE_HELD) && !cancelled && (
-                    <p className="font-bold text-danger">
-                      <span aria-hidden="true">! </span>Fed while food was held back
+                <div className="flex items-center gap-2">
+                  <div className="min-w-0 flex-1">
+                    <p className={`font-bold ${cancelled ? 'line-through' : ''}`}>
+                      {EVENT_WORDS[e.kind]}
+                      {detail(e) && <span className="font-normal"> · {detail(e)}</span>}
                     </p>
-                  )}
-                  {e.kind === 'molted' && !cancelled && (
-                    <MoltPhoto
-                      collectionId={recorder.collectionId}
-                      animalId={animal.id}
-                      event={e}
-                    />
-                  )}
+                    <p className="text-sm text-muted">
+                      {when(e.at)}
+                      {e.by && ` · ${e.by}`}
+                      {cancelled && ' · undone'}
+                    </p>
+                    {e.flags.includes(FED_WHILE_HELD) && !cancelled && (
+                      <p className="font-bold text-danger">
+                        <span aria-hidden="true">! </span>Fed while food was held back
+                      </p>
+                    )}
+                    {e.kind === 'molted' && !cancelled && (
+                      <MoltPhoto
+                        collectionId={recorder.collectionId}
+                        animalId={animal.id}
+                        event={e}
+                      />
+                    )}
+                  </div>
+                  {!cancelled &&
+                    !SERVER_EVENT_KINDS.includes(e.kind) &&
+                    e.kind !== 'void' &&
+                    confirming !== e.id && (
+                      <Button
+                        variant="secondary"
+                        aria-label={`Undo ${EVENT_WORDS[e.kind]}, ${when(e.at)}${older ? '…' : ''}`}
+                        onClick={() => (older ? setConfirming(e.id) : undo(e.id))}
+                      >
+                        {older ? 'Undo…' : 'Undo'}
+                      </Button>
+                    )}
                 </div>
-                {!cancelled && !SERVER_EVENT_KINDS.includes(e.kind) && (
-                  <Button
-                    variant="secondary"
-                    aria-label={`Undo ${EVENT_WORDS[e.kind]}, ${when(e.at)}`}
-                    onClick={() =>
-                      void record(animal, 'void', { targetId: e.id }).then(() =>
-                        setUndone((s) => new Set(s).add(e.id)),
-                      )
-                    }
+                {confirming === e.id && e.kind !== 'void' && (
+                  <div
+                    role="group"
+                    aria-label={`Undo ${EVENT_WORDS[e.kind]} from ${when(e.at)}?`}
+                    className="flex flex-col gap-2 rounded-xl border-2 border-danger p-2"
                   >
-                    Undo
-                  </Button>
+                    <p className="font-bold">
+                      Undo “{EVENT_WORDS[e.kind]}” from {when(e.at)}?
+                    </p>
+                    <p>{UNDO_EFFECTS[e.kind]} The entry stays in the timeline, crossed out.</p>
+                    <div className="flex flex-wrap gap-2">
+                      <Button variant="danger" onClick={() => undo(e.id)}>
+                        Undo it
+                      </Button>
+                      <Button variant="secondary" onClick={() => setConfirming(null)}>
+                        Keep it
+                      </Button>
+                    </div>
+                  </div>
                 )}
               </li>
             );
