@@ -46,6 +46,7 @@ export function TodayRoute() {
         myName={me.user.displayName}
         collectionId={collection.collectionId}
         openRecord
+        photos
       />
     </div>
   );

@@ -1,5 +1,6 @@
 import { useCallback, useMemo, useState, type ReactNode } from 'react';
-import { EVENT_WORDS } from '#shared/domain/event-kinds';
+import { Link } from 'react-router-dom';
+import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
 import { clockTime, describeLocalDate, localDateOf } from '#shared/domain/local-dates';
 import type { RecordedEvent } from '#shared/schemas/events';
 import type { RoundItemView } from '#shared/schemas/rounds';
@@ -7,9 +8,17 @@ import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { ApiError } from '@/lib/api-client';
 import { useRound } from '../api/get-round';
+import { sendOutcomePhoto } from '../api/outcome-photo';
 import { useRecordMany, useRecordOutcome } from '../api/record-outcome';
-import { filterItems, ROUND_FILTERS, type RoundFilter } from '../filter-items';
+import {
+  filterItems,
+  roundCounts,
+  storedFilter,
+  storeFilter,
+  type RoundFilter,
+} from '../filter-items';
 import { OutcomeButtons } from './outcome-buttons';
+import { OutcomePhotoStatus } from './outcome-photo-status';
 import { ProgressBar } from './progress-bar';
 import { RoundFilters } from './round-filters';
 import { RoundList } from './round-list';
@@ -17,10 +26,14 @@ import { RoundUnavailable } from './round-unavailable';
 import { TrayAtOnce } from './tray-at-once';
 import { UndoToast } from './undo-toast';
 
-interface LastTap {
-  event: RecordedEvent;
-  animal: { id: string; name: string; labelCode: string };
-}
+type Animal = RoundItemView['animal'];
+
+/** What the undo toast would take back: one tap, or a whole shelf saved at once. */
+type LastTap =
+  | { kind: 'one'; event: RecordedEvent; animal: Animal }
+  | { kind: 'shelf'; label: string; taps: { event: RecordedEvent; animal: Animal }[] };
+
+const browserStorage = () => (typeof localStorage === 'undefined' ? undefined : localStorage);
 
 /** What the round offers a form for a molt just tapped (the form itself comes from outside). */
 export interface MoltDetailsSlot {
@@ -40,6 +53,8 @@ export interface TodayRoundProps {
   moltDetails?: (slot: MoltDetailsSlot) => ReactNode;
   /** Link each card to its animal's page (keepers and owners; helpers may not open it). */
   openRecord?: boolean;
+  /** Offer a photo with an outcome (keepers and owners: photos are theirs to send and see). */
+  photos?: boolean;
 }
 
 /** Today's round at the rack: the phone's copy, one-tap outcomes, filters, trays and undo. */
@@ -50,32 +65,79 @@ export function TodayRound({
   extras,
   moltDetails,
   openRecord,
+  photos,
 }: TodayRoundProps) {
   const { local, server } = useRound(userId, collectionId, 'today');
   const timeZone = local.data?.round.timeZone ?? 'UTC';
   const record = useRecordOutcome({ userId, byName: myName, collectionId });
   const recordMany = useRecordMany({ userId, byName: myName, collectionId });
-  const groupActions = useCallback(
-    (label: string, list: RoundItemView[]) => (
-      <TrayAtOnce key={label} label={label} items={list} onRecord={recordMany} />
-    ),
-    [recordMany],
+  const [filter, setFilterState] = useState<RoundFilter>(() => storedFilter(browserStorage()));
+  // Cards finished since the filter was chosen: they stay (folded) under To do, see filterItems.
+  const [kept, setKept] = useState<ReadonlySet<string>>(new Set());
+  const keep = useCallback(
+    (ids: string[]) => setKept((k) => (ids.every((id) => k.has(id)) ? k : new Set([...k, ...ids]))),
+    [],
   );
-  const [filter, setFilter] = useState<RoundFilter>('all');
+  const setFilter = useCallback((f: RoundFilter) => {
+    setFilterState(f);
+    setKept(new Set());
+    storeFilter(browserStorage(), f);
+  }, []);
   const [search, setSearch] = useState('');
   const [last, setLast] = useState<LastTap | null>(null);
   const closeToast = useCallback(() => setLast(null), []);
+  const recordShelf = useCallback(
+    async (label: string, list: { animal: Animal; kind: EventKind }[]) => {
+      const events = await recordMany(list);
+      keep(list.map((l) => l.animal.id));
+      setLast({
+        kind: 'shelf',
+        label,
+        taps: events.map((event, i) => ({ event, animal: list[i]!.animal })),
+      });
+      return events;
+    },
+    [recordMany, keep],
+  );
+  const groupActions = useCallback(
+    (label: string, list: RoundItemView[]) => (
+      <TrayAtOnce
+        key={label}
+        label={label}
+        items={list}
+        onRecord={(chosen) => recordShelf(label, chosen)}
+      />
+    ),
+    [recordShelf],
+  );
+  const onPhoto = useCallback(
+    (animalId: string, outcome: { eventId: string; word: string }, file: File) =>
+      sendOutcomePhoto(collectionId, { ...outcome, animalId }, file),
+    [collectionId],
+  );
+  const status = useCallback(
+    (item: RoundItemView) => <OutcomePhotoStatus animalId={item.animal.id} />,
+    [],
+  );
+  const onUndo = useCallback(
+    (item: RoundItemView, eventId: string) =>
+      void record(item.animal, 'void', { targetId: eventId }),
+    [record],
+  );
   const actions = useCallback(
     (item: RoundItemView) => (
       <>
         {extras?.(item)}
         <OutcomeButtons
           item={item}
-          onRecord={(kind, payload) => {
-            void record(item.animal, kind, payload).then((event) =>
-              setLast({ event, animal: item.animal }),
-            );
-          }}
+          onRecord={(kind, payload) =>
+            record(item.animal, kind, payload).then((event) => {
+              keep([item.animal.id]);
+              setLast({ kind: 'one', event, animal: item.animal });
+              return event;
+            })
+          }
+          onPhoto={photos ? (outcome, file) => onPhoto(item.animal.id, outcome, file) : undefined}
           moltDetails={
             moltDetails &&
             ((moltId) =>
@@ -94,16 +156,10 @@ export function TodayRound({
         />
       </>
     ),
-    [record, extras, moltDetails, timeZone],
+    [record, extras, moltDetails, timeZone, keep, photos, onPhoto],
   );
   const items = local.data?.round.items;
-  const counts = useMemo(
-    () =>
-      Object.fromEntries(
-        ROUND_FILTERS.map((f) => [f, items ? filterItems(items, f, '').length : 0]),
-      ) as Record<RoundFilter, number>,
-    [items],
-  );
+  const counts = useMemo(() => roundCounts(items ?? []), [items]);
 
   if (local.isPending || (!local.data && server.isPending))
     return <Loading label="Loading today’s round…" />;
@@ -118,7 +174,17 @@ export function TodayRound({
 
   const { round, fetchedAt } = local.data;
   const today = localDateOf(new Date(), round.timeZone);
-  const undo = (t: LastTap) => void record(t.animal, 'void', { targetId: t.event.id });
+  // Undo goes through the void, as everywhere: the mistake and its correction both stay on record.
+  const undo = (t: LastTap) =>
+    void (t.kind === 'one'
+      ? record(t.animal, 'void', { targetId: t.event.id })
+      : recordMany(
+          t.taps.map(({ event, animal }) => ({
+            animal,
+            kind: 'void' as const,
+            payload: { targetId: event.id },
+          })),
+        ));
 
   return (
     <div className="flex flex-col gap-3">
@@ -135,16 +201,22 @@ export function TodayRound({
           · showing this phone’s copy from {clockTime(fetchedAt, round.timeZone)}
         </p>
       )}
-      <ProgressBar done={round.progress.done} total={round.progress.total} />
+      <ProgressBar counts={counts} />
       <RoundFilters
         filter={filter}
         onFilter={setFilter}
         search={search}
         onSearch={setSearch}
-        counts={counts}
+        counts={counts.cards}
       />
+      <Link
+        to="/today/checklist"
+        className="inline-flex min-h-target items-center self-start rounded-xl px-1 font-bold underline underline-offset-4"
+      >
+        Print a checklist of this round
+      </Link>
       <RoundList
-        items={filterItems(round.items, filter, search)}
+        items={filterItems(round.items, filter, search, kept)}
         timeZone={round.timeZone}
         myName={myName}
         empty={
@@ -152,11 +224,18 @@ export function TodayRound({
         }
         actions={actions}
         groupActions={filter === 'done' ? undefined : groupActions}
+        status={status}
+        onUndo={onUndo}
         openRecord={openRecord}
+        fold
       />
       {last && (
         <UndoToast
-          message={`${EVENT_WORDS[last.event.kind]} · ${last.animal.name} (${last.animal.labelCode})`}
+          message={
+            last.kind === 'one'
+              ? `${EVENT_WORDS[last.event.kind]} · ${last.animal.name} (${last.animal.labelCode})`
+              : `${last.taps.length} saved on ${last.label}`
+          }
           onUndo={() => undo(last)}
           onClose={closeToast}
         />
