@@ -50,6 +50,12 @@ describe('today’s round with no signal', () => {
     await screenshot(page, 'offline-01-three-taps');
 
     await page.reload();
+    // Finished cards are under Done (and All) once the page is opened anew.
+    await item(page, 'Ember').waitFor();
+    await page
+      .locator('label')
+      .filter({ has: page.getByRole('radio', { name: /^All/ }) })
+      .click();
     await item(page, 'Dusty').waitFor();
     expect(await item(page, 'Dusty').innerText()).toMatch(/✓ Ate/);
     expect(await item(page, 'Ember').innerText()).toMatch(/✓ Refused/);

@@ -99,6 +99,11 @@ describe('filterItems', () => {
     // "C3-1" is the start of C3-12: a prefix, as the shelf is.
     expect(names(filterItems(withPlaces, 'all', 'C3-1'))).toEqual(['Dusty']);
     expect(names(filterItems(withPlaces, 'all', 'A1-3'))).toEqual([]);
+    // Leading zeros are the same spot, either way round.
+    expect(names(filterItems(withPlaces, 'all', 'a1-02'))).toEqual(['Bramble']);
+    const padded = [placed(round.items[1]!, 'C', '1', '08')];
+    expect(names(filterItems(padded, 'all', 'C1-8'))).toEqual(['Dusty']);
+    expect(names(filterItems(padded, 'all', 'c1 08'))).toEqual(['Dusty']);
     // A word is still a name search, not a place.
     expect(names(filterItems(withPlaces, 'all', 'dust'))).toEqual(['Dusty']);
   });
@@ -161,6 +166,26 @@ describe('roundCounts', () => {
       animals: { done: 0, total: 1 },
       reminders: 1,
     });
+  });
+
+  it('keeps a finished card with a warning under To do too: it wants a look', () => {
+    // Two phones both recorded a meal for Dusty: the round warns "fed twice".
+    const dusty = round.items[1]!.animal.id;
+    const fed = withOutcome(
+      withOutcome(round, dusty, {
+        eventId: 'e1',
+        kind: 'ate',
+        at: '2026-12-01T14:00:00Z',
+        by: 'Robin',
+      }),
+      dusty,
+      { eventId: 'e2', kind: 'ate', at: '2026-12-01T14:05:00Z', by: 'Alex' },
+    );
+    expect(fed.items[1]!.warnings.join()).toMatch(/twice/);
+    expect(itemState(fed.items[1]!)).toBe('done');
+    expect(names(filterItems(fed.items, 'to_do', ''))).toEqual(['Bramble', 'Dusty']);
+    expect(names(filterItems(fed.items, 'done', ''))).toEqual(['Dusty']);
+    expect(roundCounts(fed.items).cards).toMatchObject({ to_do: 2, done: 1, all: 2 });
   });
 });
 

@@ -61,12 +61,11 @@ export function placeCode(location: RoundItemView['animal']['location']): string
  * separators made one hyphen. Null when the text does not look like a place.
  */
 function placeQuery(q: string): string | null {
-  const norm = q
-    .toUpperCase()
-    .replace(/[\s./·:_-]+/g, '-')
-    .replace(/^-|-$/g, '');
+  const norm = placeKey(q.replace(/[\s./·:_-]+/g, '-').replace(/^-|-$/g, ''));
   return /^[A-Z]+\d/.test(norm) ? norm : null;
 }
+/** Upper case, numbers without leading zeros: "c1-08" and "C1-8" are one spot. */
+const placeKey = (code: string) => code.toUpperCase().replace(/(^|\D)0+(?=\d)/g, '$1');
 
 /**
  * A search finds a label code (typed any way), a place code (a prefix: "A1" is the whole
@@ -79,17 +78,23 @@ export function matchesSearch(item: RoundItemView, search: string): boolean {
   if (code && codeKey(item.animal.labelCode).includes(code)) return true;
   const place = placeQuery(q);
   const at = placeCode(item.animal.location);
-  if (place && at && at.toUpperCase().startsWith(place)) return true;
+  if (place && at && placeKey(at).startsWith(place)) return true;
   const words = q.toLocaleLowerCase();
   return [item.animal.name, item.animal.scientificName].some((s) =>
     s.toLocaleLowerCase().includes(words),
   );
 }
 
+/**
+ * A finished card with a warning (fed twice by two phones, fed while food was held) still wants
+ * a look: it stays open and under To do as well as under Done.
+ */
+export const needsLook = (item: RoundItemView) => item.warnings.length > 0;
+
 function inFilter(item: RoundItemView, filter: RoundFilter): boolean {
   const state = itemState(item);
   // Reminders ("leave alone") stay under To do: they matter at the rack although nothing is recorded.
-  if (filter === 'to_do') return state !== 'done';
+  if (filter === 'to_do') return state !== 'done' || needsLook(item);
   if (filter === 'done') return state === 'done';
   if (filter === 'cautions') return needsCare(item);
   return true;

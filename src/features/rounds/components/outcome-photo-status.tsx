@@ -17,7 +17,6 @@ export function OutcomePhotoStatus({ animalId }: { animalId: string }) {
     <ul aria-live="polite" className="flex flex-col gap-1 py-1 text-sm font-bold">
       {photos.map((p) => (
         <li key={p.eventId} className={p.phase === 'failed' ? 'text-danger' : undefined}>
-          <span aria-hidden="true">📷 </span>
           {WORDS[p.phase](p)}
         </li>
       ))}

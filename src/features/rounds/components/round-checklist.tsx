@@ -4,7 +4,7 @@ import { EVENT_WORDS } from '#shared/domain/event-kinds';
 import { clockTime, describeLocalDate } from '#shared/domain/local-dates';
 import type { RoundItemView, RoundTaskView } from '#shared/schemas/rounds';
 import { Button } from '@/components/ui/button';
-import { CautionIcon } from '@/components/ui/icons';
+import { CautionIcon, LeaveAloneIcon } from '@/components/ui/icons';
 import { Loading } from '@/components/ui/spinner';
 import { useRound } from '../api/get-round';
 import { placeCode } from '../filter-items';
@@ -34,8 +34,8 @@ function TaskLine({ task, timeZone }: { task: RoundTaskView; timeZone: string })
   // Leave-alone is a reminder, not work: nothing to tick.
   if (task.kind === 'leave_alone')
     return (
-      <li className="font-extrabold">
-        <span aria-hidden="true">⛔ </span>
+      <li className="flex items-center gap-2 font-extrabold">
+        <LeaveAloneIcon width={22} height={22} className="shrink-0" />
         {word}
       </li>
     );
@@ -70,25 +70,26 @@ function Row({ item, timeZone }: { item: RoundItemView; timeZone: string }) {
           <i lang="la">{animal.scientificName}</i>
         </span>
         <span className="block font-mono text-sm">{animal.labelCode}</span>
-      </td>
-      <td className="py-2 pr-2">
-        <ul className="flex flex-col gap-1">
-          {item.tasks.map((t) => (
-            <TaskLine key={t.kind} task={t} timeZone={timeZone} />
-          ))}
-        </ul>
-      </td>
-      <td className="py-2">
         {animal.cautions.length > 0 && (
-          <ul aria-label="Cautions" className="flex flex-col gap-1 text-sm font-bold">
+          <ul aria-label="Cautions" className="mt-1 flex flex-wrap gap-1 text-xs font-bold">
             {animal.cautions.map((c) => (
-              <li key={c} className="flex items-center gap-1">
-                <CautionIcon caution={c} width={16} height={16} className="shrink-0" />
+              <li
+                key={c}
+                className="inline-flex items-center gap-0.5 rounded border-2 border-danger px-1 text-danger"
+              >
+                <CautionIcon caution={c} width={14} height={14} className="shrink-0" />
                 {CAUTION_LABEL[c]}
               </li>
             ))}
           </ul>
         )}
+      </td>
+      <td className="py-2">
+        <ul className="flex flex-col gap-1">
+          {item.tasks.map((t) => (
+            <TaskLine key={t.kind} task={t} timeZone={timeZone} />
+          ))}
+        </ul>
       </td>
     </tr>
   );
@@ -132,12 +133,9 @@ export function RoundChecklist({ userId, collectionId }: { userId: string; colle
                   Place
                 </th>
                 <th scope="col" className="pr-2">
-                  Animal
+                  Animal · cautions
                 </th>
-                <th scope="col" className="pr-2">
-                  Tasks
-                </th>
-                <th scope="col">Cautions</th>
+                <th scope="col">Tasks</th>
               </tr>
             </thead>
             <tbody>

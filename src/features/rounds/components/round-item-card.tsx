@@ -219,7 +219,7 @@ export function DoneRow({
               {placeCode(animal.location) ?? animal.labelCode}
             </span>
           </p>
-          <p className="truncate text-sm font-bold text-ok">
+          <p className="text-sm font-bold text-ok">
             {settledOutcomes(item).map((o, i) => {
               const who = o.by && o.by !== myName ? ` by ${o.by}` : '';
               return (

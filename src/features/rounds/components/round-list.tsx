@@ -1,7 +1,7 @@
 import { memo, useState, type ReactNode } from 'react';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { Button } from '@/components/ui/button';
-import { isItemDone } from '../filter-items';
+import { isItemDone, needsLook } from '../filter-items';
 import { DoneRow, RoundItemCard, settledOutcomes } from './round-item-card';
 
 function shelfOf(item: RoundItemView) {
@@ -35,7 +35,7 @@ const Card = memo(function Card({
     .map((o) => o.eventId)
     .join(',');
   const [openedAt, setOpenedAt] = useState<string | null>(null);
-  const done = fold && isItemDone(item);
+  const done = fold && isItemDone(item) && !needsLook(item);
   if (done && openedAt !== settled)
     return (
       <DoneRow
