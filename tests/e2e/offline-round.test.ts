@@ -170,6 +170,12 @@ describe('today’s round with no signal', () => {
     await signIn(phones[0].page, 'owner@northlight.test');
     await signIn(phones[1].page, 'helper@northlight.test');
     for (const { page, context } of phones) {
+      // Dusty was fed in the first test: a finished card, under All rather than To do.
+      await page.getByRole('article').first().waitFor();
+      await page
+        .locator('label')
+        .filter({ has: page.getByRole('radio', { name: /^All/ }) })
+        .click();
       await item(page, 'Dusty').waitFor();
       await cutNetwork(context);
       await item(page, 'Dusty').getByRole('button', { name: 'Ate', exact: true }).click();

@@ -53,7 +53,8 @@ const Card = memo(function Card({
       timeZone={timeZone}
       myName={myName}
       openRecord={openRecord}
-      onUndo={onUndo && ((eventId, word) => onUndo(item, eventId, word))}
+      // Undo sits on a finished card opened again ("Change"); a tap just made has its toast.
+      onUndo={done && onUndo ? (eventId, word) => onUndo(item, eventId, word) : undefined}
       corner={
         done && (
           <Button
