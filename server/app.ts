@@ -223,7 +223,8 @@ export function createApp(options: AppOptions) {
   api.use(collection('/prep-list'), prepListRoutes(rounds, member));
   api.use(collection('/rules'), rulesRoutes(rounds, member));
   api.use(collection('/events'), eventsRoutes(events, member));
-  //   photos: /animals/:animalId/photo, /animals/:animalId/molts/:eventId/photo
+  //   photos: /animals/:animalId/photo, /animals/:animalId/molts/:eventId/photo,
+  //           /animals/:animalId/events/:eventId/photo
   api.use(collection(), photosRoutes(photos, member));
   //   cover: /covers…, /handover…, /cover-reports, /cover/mine…
   api.use(collection(), coverRoutes(cover, coverReports, rounds, member, inviteLimit));

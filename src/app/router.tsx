@@ -47,6 +47,11 @@ const router = createBrowserRouter([
       { path: '/', element: <Navigate to="/today" replace /> },
       { path: '/today', element: <TodayRoute /> },
       {
+        path: '/today/checklist',
+        lazy: () =>
+          import('./routes/today-checklist').then((m) => ({ Component: m.TodayChecklistRoute })),
+      },
+      {
         path: '/tomorrow',
         lazy: () => import('./routes/tomorrow').then((m) => ({ Component: m.TomorrowRoute })),
       },

@@ -308,6 +308,16 @@ const TABLE: Record<string, Row> = {
     allowed: 200,
     call: (f) => ({ path: `${f.c}/animals/${f.animalId}/molts/${f.moltId}/photo` }),
   },
+  'PUT /api/collections/:collectionId/animals/:animalId/events/:eventId/photo': {
+    access: 'keeper',
+    allowed: 400,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/events/${f.moltId}/photo` }),
+  },
+  'GET /api/collections/:collectionId/animals/:animalId/events/:eventId/photo': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/events/${f.moltId}/photo` }),
+  },
 
   'GET /api/collections/:collectionId/locations': {
     access: 'keeper',
@@ -890,6 +900,9 @@ describe('ids from another collection, inside your own', () => {
       ['GET', { path: `${c}/animals/${a}/molts/${moltId}/photo` }],
       ['PUT', { path: `${c}/animals/${a}/molts/${moltId}/photo`, file: jpeg }],
       ['PUT', { path: `${c}/animals/${mine}/molts/${moltId}/photo`, file: jpeg }],
+      ['GET', { path: `${c}/animals/${a}/events/${moltId}/photo` }],
+      ['PUT', { path: `${c}/animals/${a}/events/${moltId}/photo`, file: jpeg }],
+      ['PUT', { path: `${c}/animals/${mine}/events/${moltId}/photo`, file: jpeg }],
       // Their collection itself, with its name typed right: not found, and still there.
       ['DELETE', { path: o, body: { confirmName: 'Test Collection' } }],
       ['PATCH', { path: `${c}/locations/${place!.id}`, body: place4 }],

@@ -234,6 +234,7 @@ describe('S5: generated bad input on every route', () => {
     for (const url of [
       `${c}/animals/${animalId}/photo`,
       `${c}/animals/${animalId}/molts/${moltId}/photo`,
+      `${c}/animals/${animalId}/events/${moltId}/photo`,
     ]) {
       await fc.assert(
         fc.asyncProperty(

@@ -57,7 +57,8 @@ describe('a week’s cover, in a day', () => {
     expect(nav.map((t) => t.trim())).toEqual(['Today', 'Scan', 'Settings']);
     const first = page.getByRole('article').first();
     await first.waitFor();
-    expect(await page.getByRole('note').count()).toBeGreaterThan(0);
+    // The cautions are spelled out once, above the cards (each card carries its badges).
+    expect(await page.getByRole('region', { name: 'Cautions on today’s round' }).count()).toBe(1);
     await expectAccessible(page, 'helper round');
     await screenshot(page, 'cover-03-helper-round');
 

@@ -1,4 +1,4 @@
-import { and, eq } from 'drizzle-orm';
+import { and, eq, inArray } from 'drizzle-orm';
 import type { Db } from '../../db/client';
 import { animals, eventPhotos, events } from '../../db/schema/animals';
 
@@ -29,7 +29,17 @@ export async function setAnimalPhoto(
 }
 
 /** A molt of this animal in this collection, with its photo's key if it has one. */
-export async function findMolt(db: Db, collectionId: string, animalId: string, eventId: string) {
+export const findMolt = (db: Db, collectionId: string, animalId: string, eventId: string) =>
+  findEventWithPhoto(db, collectionId, animalId, eventId, ['molted']);
+
+/** An event of this animal in this collection, of one of `kinds`, with its photo's key if any. */
+export async function findEventWithPhoto(
+  db: Db,
+  collectionId: string,
+  animalId: string,
+  eventId: string,
+  kinds: readonly string[],
+) {
   const [row] = await db
     .select({ id: events.id, key: eventPhotos.photoKey })
     .from(events)
@@ -39,13 +49,13 @@ export async function findMolt(db: Db, collectionId: string, animalId: string, e
         eq(events.id, eventId),
         eq(events.animalId, animalId),
         eq(events.collectionId, collectionId),
-        eq(events.kind, 'molted'),
+        inArray(events.kind, [...kinds]),
       ),
     );
   return row ?? null;
 }
 
-export async function setMoltPhoto(
+export async function setEventPhoto(
   db: Db,
   collectionId: string,
   eventId: string,

@@ -116,6 +116,36 @@ export function photosRoutes(service: PhotosService, member: (min: Role) => Requ
     },
   );
 
+  // A photo with any outcome or note recorded at the rack (the molt's own route above stays).
+  const saveEvent: RequestHandler = async (req, res) => {
+    const { animalId, eventId } = input<{ animalId: string; eventId: string }>(res, 'params');
+    await service.saveEventPhoto(collectionId(res), animalId, eventId, req.file);
+    res.status(204).end();
+  };
+  router.put(
+    '/animals/:animalId/events/:eventId/photo',
+    member('keeper'),
+    validate({ params: moltParams }),
+    upload.single('photo'),
+    uploadErrors,
+    saveEvent,
+  );
+  router.get(
+    '/animals/:animalId/events/:eventId/photo',
+    member('keeper'),
+    validate({ params: moltParams, query: photoQuery }),
+    async (_req, res) => {
+      const { animalId, eventId } = input<{ animalId: string; eventId: string }>(res, 'params');
+      const file = await service.eventFile(
+        collectionId(res),
+        animalId,
+        eventId,
+        input<{ size: PhotoSize }>(res, 'query').size,
+      );
+      res.set('Cache-Control', 'private, max-age=86400').type('image/webp').sendFile(file);
+    },
+  );
+
   router.delete(
     '/animals/:animalId/photo',
     member('keeper'),

@@ -1,10 +1,18 @@
 import { randomUUID } from 'node:crypto';
 import fs from 'node:fs/promises';
 import path from 'node:path';
+import { EVENT_KINDS } from '#shared/domain/event-kinds';
+import { SERVER_EVENT_KINDS } from '#shared/schemas/events';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
 import { imageTypeOf, isPlainFileName } from './image-type';
-import { animalPhotoKey, findMolt, setAnimalPhoto, setMoltPhoto } from './photos.repository';
+import {
+  animalPhotoKey,
+  findEventWithPhoto,
+  findMolt,
+  setAnimalPhoto,
+  setEventPhoto,
+} from './photos.repository';
 
 // sharp and libvips (~28 MB resident) load with the first photo, not with the server.
 const loadSharp = async () => {
@@ -14,6 +22,14 @@ const loadSharp = async () => {
   sharp.cache(false);
   return sharp;
 };
+
+/**
+ * The facts a photo may go with: what a person records at the rack (an outcome, a note, a
+ * molt). Server-written facts (moves, breeding records) and undos have none.
+ */
+export const PHOTO_EVENT_KINDS = EVENT_KINDS.filter(
+  (k) => k !== 'void' && !SERVER_EVENT_KINDS.includes(k),
+);
 
 export const MAX_PHOTO_BYTES = 10 * 1024 * 1024;
 export const PHOTO_SIZES = { full: 1600, thumb: 320 } as const;
@@ -151,6 +167,17 @@ export function createPhotosService(db: Db, storageDir: string, now: () => Date)
     return row;
   }
 
+  async function eventOf(collectionId: string, animalId: string, eventId: string) {
+    const row = await findEventWithPhoto(db, collectionId, animalId, eventId, PHOTO_EVENT_KINDS);
+    if (!row)
+      throw new HttpError(
+        404,
+        'not_found',
+        'We could not find that record. If it was made offline, let it sync first.',
+      );
+    return row;
+  }
+
   return {
     async save(
       collectionId: string,
@@ -174,7 +201,7 @@ export function createPhotosService(db: Db, storageDir: string, now: () => Date)
     ) {
       const molt = await moltOf(collectionId, animalId, eventId);
       const key = await store(collectionId, file);
-      await setMoltPhoto(db, collectionId, eventId, key, now());
+      await setEventPhoto(db, collectionId, eventId, key, now());
       await removeFiles(collectionId, molt.key);
     },
 
@@ -187,6 +214,30 @@ export function createPhotosService(db: Db, storageDir: string, now: () => Date)
       const molt = await moltOf(collectionId, animalId, eventId);
       if (!molt.key) throw new HttpError(404, 'no_photo', 'This molt has no photo.');
       return fileOf(collectionId, molt.key, size);
+    },
+
+    /** A photo going with a recorded outcome or note (what the keeper saw), shown in the timeline. */
+    async saveEventPhoto(
+      collectionId: string,
+      animalId: string,
+      eventId: string,
+      file: { buffer: Buffer; originalname: string } | undefined,
+    ) {
+      const event = await eventOf(collectionId, animalId, eventId);
+      const key = await store(collectionId, file);
+      await setEventPhoto(db, collectionId, eventId, key, now());
+      await removeFiles(collectionId, event.key);
+    },
+
+    async eventFile(
+      collectionId: string,
+      animalId: string,
+      eventId: string,
+      size: PhotoSize,
+    ): Promise<string> {
+      const event = await eventOf(collectionId, animalId, eventId);
+      if (!event.key) throw new HttpError(404, 'no_photo', 'This record has no photo.');
+      return fileOf(collectionId, event.key, size);
     },
 
     /** A stored photo's full image for a backup, or null when its file is missing. */

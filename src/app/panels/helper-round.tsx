@@ -10,6 +10,7 @@ import { useAcknowledgeSafety, useHelperCover } from '@/features/cover/api/cover
 import { CoverHeader } from '@/features/cover/components/general-note';
 import { HelperItemExtras } from '@/features/cover/components/helper-item-extras';
 import { ReportProblemForm } from '@/features/cover/components/report-problem-form';
+import { RoundCautions } from '@/features/cover/components/round-cautions';
 import { SafetyPage } from '@/features/cover/components/safety-page';
 import { useRound } from '@/features/rounds/api/get-round';
 import { TodayRoundPanel } from './today-round-panel';
@@ -73,6 +74,7 @@ export function HelperRound({ me, collection }: { me: MeResponse; collection: Me
           Report a problem or leave a note
         </Button>
       )}
+      <RoundCautions items={local.data?.round.items ?? []} />
       <TodayRoundPanel
         userId={me.user.id}
         myName={me.user.displayName}

@@ -49,6 +49,7 @@ export function TodayRoute() {
         collectionName={collection.collectionName}
         openRecord
         buildsOffline
+        photos
       />
     </div>
   );

@@ -2,7 +2,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
-import { capitalised, formatDateRange } from '#shared/domain/date-words';
+import { describeLocalDate } from '#shared/domain/local-dates';
 import { coverChangeBody, type CoverSummary } from '#shared/schemas/cover';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
@@ -20,9 +20,9 @@ const STATE_WORDS: Record<CoverSummary['state'], string> = {
 type Input = z.input<typeof coverChangeBody>;
 type Output = z.output<typeof coverChangeBody>;
 
-/** "From Fri 4 Dec to Thu 10 Dec 2026", in the person's locale. */
+/** "Fri 4 Dec to Thu 10 Dec 2026" */
 export const coverDays = (c: Pick<CoverSummary, 'firstDay' | 'lastDay'>) =>
-  capitalised(formatDateRange(c.firstDay, c.lastDay));
+  `${describeLocalDate(c.firstDay, c.firstDay.slice(0, 4) !== c.lastDay.slice(0, 4))} to ${describeLocalDate(c.lastDay, true)}`;
 
 type Mode = 'view' | 'edit' | 'confirm-end';
 

@@ -1,10 +1,13 @@
 import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
 import { describeInstant } from '#shared/domain/local-dates';
-import { CAUTION_GUIDANCE, TASK_HOW } from '#shared/domain/safety';
+import { TASK_HOW } from '#shared/domain/safety';
 import type { HelperCoverView } from '#shared/schemas/cover';
 import type { RoundItemView } from '#shared/schemas/rounds';
 
-/** On each item of a helper's round: the cautions spelled out, the keeper's notes, how, and the last two weeks. */
+/**
+ * On each item of a helper's round: the keeper's notes, how, and the last two weeks. The
+ * cautions are spelled out once at the top of the round (RoundCautions); the card has badges.
+ */
 export function HelperItemExtras({
   item,
   cover,
@@ -18,12 +21,6 @@ export function HelperItemExtras({
   const recent = cover.recent[item.animal.id] ?? [];
   return (
     <div className="flex flex-col gap-2">
-      {item.animal.cautions.map((c) => (
-        <p key={c} role="note" className="rounded-xl border-4 border-danger px-2 py-1 text-danger">
-          <span className="font-extrabold">{CAUTION_GUIDANCE[c].title}.</span>{' '}
-          {CAUTION_GUIDANCE[c].text}
-        </p>
-      ))}
       {notes.map((n) => (
         <p key={n.id} className="rounded-xl border-2 border-accent px-2 py-1">
           <span className="font-extrabold">

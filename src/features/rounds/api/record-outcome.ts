@@ -60,9 +60,15 @@ export function useRecordOutcome({ userId, byName, collectionId }: Recorder) {
 export function useRecordMany({ userId, byName, collectionId }: Recorder) {
   const queryClient = useQueryClient();
   return useCallback(
-    async (list: { animal: { id: string; name: string }; kind: EventKind }[]) => {
+    async (
+      list: {
+        animal: { id: string; name: string };
+        kind: EventKind;
+        payload?: Record<string, unknown>;
+      }[],
+    ) => {
       const at = new Date().toISOString();
-      const taps = list.map(({ animal, kind }) => ({
+      const taps = list.map(({ animal, kind, payload = {} }) => ({
         userId,
         byName,
         collectionId,
@@ -71,7 +77,7 @@ export function useRecordMany({ userId, byName, collectionId }: Recorder) {
           id: crypto.randomUUID(),
           animalId: animal.id,
           kind,
-          payload: {},
+          payload,
           clientRecordedAt: at,
         } satisfies RecordedEvent,
       }));

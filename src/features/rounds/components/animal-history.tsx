@@ -9,7 +9,7 @@ import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useAnimalHistory } from '../api/animal-history';
 import { useRecordOutcome, type Recorder } from '../api/record-outcome';
-import { useUploadMoltPhoto } from '../api/upload-molt-photo';
+import { eventPhotoPath, useUploadMoltPhoto } from '../api/upload-molt-photo';
 
 function detail(e: HistoryEvent): string | null {
   const p = e.payload as {
@@ -27,6 +27,18 @@ function detail(e: HistoryEvent): string | null {
       .join(' · ') || null
   );
 }
+
+/**
+ * Where a photo is offered: a molt's at any time; another outcome's or note's for a week (a
+ * photo taken at the rack with no signal is added here later), and wherever one is already.
+ */
+const PHOTO_DAYS_MS = 7 * 86_400_000;
+const photoFits = (e: HistoryEvent) =>
+  e.kind === 'molted' ||
+  !!e.photoVersion ||
+  (e.kind !== 'void' &&
+    !SERVER_EVENT_KINDS.includes(e.kind) &&
+    Date.now() - Date.parse(e.at) < PHOTO_DAYS_MS);
 
 /** The timeline's filter: what kind of facts to show. */
 const KIND_GROUPS = {
@@ -47,7 +59,7 @@ const GROUP_WORDS: Record<KindGroup, string> = {
   moves: 'Moves',
 };
 
-/** A molt's photo (the exuviae), and a way to add or change it. */
+/** A fact's photo (a molt's exuviae, what an outcome showed), and a way to add or change it. */
 function MoltPhoto({
   collectionId,
   animalId,
@@ -57,14 +69,16 @@ function MoltPhoto({
   animalId: string;
   event: HistoryEvent;
 }) {
-  const url = `/api/collections/${collectionId}/animals/${animalId}/molts/${event.id}/photo`;
-  const upload = useUploadMoltPhoto(collectionId, animalId, event.id);
+  const url = `/api${eventPhotoPath(collectionId, animalId, event)}`;
+  const upload = useUploadMoltPhoto(collectionId, animalId, event);
+  const what =
+    event.kind === 'molted' ? 'The molt’s exuviae' : `Photo with ${EVENT_WORDS[event.kind]}`;
   return (
     <div className="mt-1 flex items-center gap-2">
       {event.photoVersion && (
         <img
           src={`${url}?size=thumb&v=${encodeURIComponent(event.photoVersion)}`}
-          alt="The molt’s exuviae"
+          alt={what}
           className="h-16 w-16 rounded-lg object-cover"
         />
       )}
@@ -74,7 +88,7 @@ function MoltPhoto({
           type="file"
           accept="image/jpeg,image/png,image/webp"
           className="sr-only"
-          aria-label={`Photo of the molt on ${event.at.slice(0, 10)}`}
+          aria-label={`${what}, ${event.at.slice(0, 10)}`}
           onChange={(ev) => {
             const file = ev.target.files?.[0];
             if (file) upload.mutate(file);
@@ -161,7 +175,7 @@ export function AnimalHistory({
                         <span aria-hidden="true">! </span>Fed while food was held back
                       </p>
                     )}
-                    {e.kind === 'molted' && !cancelled && (
+                    {!cancelled && photoFits(e) && (
                       <MoltPhoto
                         collectionId={recorder.collectionId}
                         animalId={animal.id}

@@ -1,15 +1,21 @@
-import { lazy, Suspense, useId, useState, type ReactNode } from 'react';
+import { useId, useState, type ReactNode } from 'react';
 import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
 import { feedHoldOf } from '#shared/domain/rounds/item-status';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { Button } from '@/components/ui/button';
-import { Loading } from '@/components/ui/spinner';
+import { TextAreaField } from '@/components/ui/text-area-field';
 
-// The note form (and its checks) loads when "More…" is first opened, from the service worker's
-// cache when offline, so the round's first bundle stays small (P4).
-const NoteForm = lazy(() => import('./note-form').then((m) => ({ default: m.NoteForm })));
+/**
+ * Records one outcome; today's round answers with the recorded event (its id) once it is on
+ * the phone, which a photo needs. Elsewhere (a scanned label) nothing comes back.
+ */
+export type RecordOutcome = (
+  kind: EventKind,
+  payload?: Record<string, unknown>,
+) => Promise<{ id: string }> | void;
 
-export type RecordOutcome = (kind: EventKind, payload?: Record<string, unknown>) => void;
+/** The same limit as the event's own `note` (shared/schemas/events.ts). */
+const NOTE_MAX = 2000;
 
 /** Everything that can be recorded in one tap, for an animal that is not on today's round. */
 const ANY_DAY: EventKind[] = ['ate', 'refused', 'prey_left_in', 'prey_removed', 'watered'];
@@ -84,18 +90,52 @@ function HeldMealConfirm({
   );
 }
 
+/** The photo to send with the next outcome: chosen from the camera or the phone's pictures. */
+function PhotoPicker({ file, onFile }: { file: File | null; onFile: (f: File | null) => void }) {
+  return (
+    <div className="flex flex-wrap items-center gap-2">
+      <label className="inline-flex min-h-target cursor-pointer items-center rounded-xl border-2 border-border px-3 font-bold has-[:focus-visible]:outline has-[:focus-visible]:outline-4">
+        {file ? 'Change photo' : 'Add a photo'}
+        <input
+          type="file"
+          accept="image/jpeg,image/png,image/webp"
+          capture="environment"
+          className="sr-only"
+          onChange={(ev) => {
+            onFile(ev.target.files?.[0] ?? null);
+            ev.target.value = '';
+          }}
+        />
+      </label>
+      {file && (
+        <>
+          <span className="min-w-0 flex-1 truncate text-sm">{file.name}</span>
+          <Button variant="quiet" className="text-base" onClick={() => onFile(null)}>
+            Remove photo
+          </Button>
+        </>
+      )}
+    </div>
+  );
+}
+
 interface Props {
   item: RoundItemView;
   onRecord: RecordOutcome;
   /** After Molted: a prompt to complete that same molt with its size, sex and photo. */
   moltDetails?: (moltEventId: string) => ReactNode;
+  /** Sends a photo with a recorded outcome; absent where photos are not allowed (helpers). */
+  onPhoto?: (outcome: { eventId: string; word: string }, file: File) => void;
 }
 
-export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
+export function OutcomeButtons({ item, onRecord, moltDetails, onPhoto }: Props) {
   const [open, setOpen] = useState(false);
   const [confirming, setConfirming] = useState(false);
+  const [noteOpen, setNoteOpen] = useState(false);
   const [noteDraft, setNoteDraft] = useState('');
+  const [photo, setPhoto] = useState<File | null>(null);
   const panelId = useId();
+  const notePanelId = useId();
   const recorded = new Set<EventKind>(item.outcomes.map((o) => o.kind));
   const hold = feedHoldOf(item);
   const main = mainOutcomes(item, !!hold);
@@ -103,10 +143,37 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
   const more = (hold ? (['ate', ...MORE] as EventKind[]) : MORE).filter(
     (k) => k !== 'molted' || !recorded.has('molted'),
   );
-  const tap = (kind: EventKind, payload?: Record<string, unknown>) => {
-    if (kind === 'ate' && hold) setConfirming(true);
-    else onRecord(kind, payload);
+  /**
+   * Records an outcome with what was written in the note panel: the note goes in the event's own
+   * data (queued on the phone like any tap, so it works with no signal); a photo follows once
+   * the event has reached the server.
+   */
+  const send = (
+    kind: EventKind,
+    payload: Record<string, unknown> = {},
+    word = EVENT_WORDS[kind],
+  ) => {
+    const note = noteDraft.trim();
+    const withNote = !note
+      ? payload
+      : kind === 'note'
+        ? { text: [payload.text, note].filter(Boolean).join(' ') }
+        : { ...payload, note };
+    const recorded = onRecord(kind, withNote);
+    const file = photo;
+    if (note || file) {
+      setNoteDraft('');
+      setPhoto(null);
+      setNoteOpen(false);
+    }
+    if (file && onPhoto && recorded)
+      void recorded.then((event) => onPhoto({ eventId: event.id, word }, file));
   };
+  const tap = (kind: EventKind, payload?: Record<string, unknown>, word?: string) => {
+    if (kind === 'ate' && hold) setConfirming(true);
+    else send(kind, payload, word);
+  };
+  const drafting = noteDraft.trim() !== '' || photo !== null;
   const molt = item.outcomes.find((o) => o.kind === 'molted');
   const detailed = item.outcomes.some((o) => o.kind === 'molt_details');
   return (
@@ -117,7 +184,7 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
           reason={hold.text}
           onConfirm={() => {
             setConfirming(false);
-            onRecord('ate');
+            send('ate');
           }}
           onCancel={() => setConfirming(false)}
         />
@@ -128,11 +195,21 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
             key={word}
             variant={recorded.has(kind) ? 'primary' : 'secondary'}
             className="min-h-14 px-2 text-base"
-            onClick={() => tap(kind, payload)}
+            onClick={() => tap(kind, payload, word)}
           >
             {word}
           </Button>
         ))}
+        <Button
+          variant={drafting ? 'primary' : 'quiet'}
+          aria-expanded={noteOpen}
+          aria-controls={notePanelId}
+          className="min-h-14 px-2 text-base"
+          onClick={() => setNoteOpen((o) => !o)}
+        >
+          {onPhoto ? 'Note or photo' : 'Add a note'}
+          {drafting && !noteOpen && <span className="sr-only"> (written, not saved yet)</span>}
+        </Button>
         <Button
           variant="quiet"
           aria-expanded={open}
@@ -143,6 +220,36 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
           {open ? 'Less' : 'More…'}
         </Button>
       </div>
+      {noteOpen && (
+        <div id={notePanelId} className="flex flex-col gap-2 rounded-xl border-2 border-border p-2">
+          <TextAreaField
+            label={`Note for ${item.animal.name}`}
+            hint="Then tap the outcome: the note is saved with it, with or without a signal."
+            maxLength={NOTE_MAX}
+            rows={2}
+            value={noteDraft}
+            onChange={(e) => setNoteDraft(e.target.value)}
+          />
+          {onPhoto && (
+            <>
+              <PhotoPicker file={photo} onFile={setPhoto} />
+              <p className="text-sm text-muted">
+                A photo is not kept on the phone: it is sent once the outcome has reached Rackside,
+                so it needs a signal and this page left open until then. Without one, add it later
+                from the animal’s timeline.
+              </p>
+            </>
+          )}
+          <Button
+            variant="secondary"
+            disabled={!noteDraft.trim()}
+            className="min-h-14 px-2 text-base"
+            onClick={() => send('note', {}, 'Note')}
+          >
+            Save as a note on its own
+          </Button>
+        </div>
+      )}
       {open && (
         <div id={panelId} className="flex flex-col gap-2 rounded-xl border-2 border-border p-2">
           <div className="grid grid-cols-2 gap-2">
@@ -157,14 +264,6 @@ export function OutcomeButtons({ item, onRecord, moltDetails }: Props) {
               </Button>
             ))}
           </div>
-          <Suspense fallback={<Loading />}>
-            <NoteForm
-              animalName={item.animal.name}
-              draft={noteDraft}
-              onDraft={setNoteDraft}
-              onNote={(payload) => onRecord('note', payload)}
-            />
-          </Suspense>
         </div>
       )}
     </div>

@@ -10,7 +10,10 @@ interface Props {
   counts: Record<RoundFilter, number>;
 }
 
-/** Filter chips (a radio group, so one is always chosen) and a search for a code or a name. */
+/**
+ * Filter chips (a radio group, so one is always chosen; each counts the animals it shows) and
+ * a search for a label code, a place code or a name.
+ */
 export function RoundFilters({ filter, onFilter, search, onSearch, counts }: Props) {
   const searchId = useId();
   return (
@@ -25,19 +28,22 @@ export function RoundFilters({ filter, onFilter, search, onSearch, counts }: Pro
         render={(f) => (
           <>
             {FILTER_WORDS[f]}
-            <span className="font-normal">{counts[f]}</span>
+            <span className="font-normal">
+              {counts[f]}
+              <span className="sr-only"> {counts[f] === 1 ? 'animal' : 'animals'}</span>
+            </span>
           </>
         )}
       />
       <label htmlFor={searchId} className="sr-only">
-        Find a label code or a name
+        Find a label code, a place or a name
       </label>
       <input
         id={searchId}
         type="search"
         value={search}
         onChange={(e) => onSearch(e.target.value)}
-        placeholder="Find a code or a name"
+        placeholder="Find a code, place (A1-2) or name"
         autoComplete="off"
         className="min-h-target rounded-xl border-2 border-border bg-surface px-3 text-lg text-text placeholder:text-muted"
       />

@@ -6,9 +6,11 @@ import { clockTime } from '#shared/domain/local-dates';
 import { placeShort } from '#shared/domain/places';
 import { currentNotes } from '#shared/domain/rounds/item-status';
 import type { Outcome, RoundItemView } from '#shared/schemas/rounds';
+import { Button } from '@/components/ui/button';
 import { CautionBadges } from '@/components/ui/caution-badges';
 import { HoldIcon } from '@/components/ui/icons';
 import { outcomeLook } from '@/components/ui/outcome-mark';
+import { placeCode } from '../filter-items';
 import { describeOffer, TASK_META } from './task-meta';
 
 interface Props {
@@ -20,6 +22,10 @@ interface Props {
   children?: ReactNode;
   /** A link to the animal's page: only for people the server lets read it (keepers, owners). */
   openRecord?: boolean;
+  /** Undo a task's outcome (a void), so a finished card can be changed. */
+  onUndo?: (eventId: string, word: string) => void;
+  /** Shown in the header's corner, e.g. a button folding a finished card back to its row. */
+  corner?: ReactNode;
 }
 
 function DoneBadge({
@@ -59,9 +65,21 @@ function WithdrawnTask({ word, reason }: { word: string; reason: string }) {
 }
 
 /** One animal on the round: what, where, how much and why, without opening anything. */
-export function RoundItemCard({ item, timeZone, myName, children, openRecord }: Props) {
+export function RoundItemCard({
+  item,
+  timeZone,
+  myName,
+  children,
+  openRecord,
+  onUndo,
+  corner,
+}: Props) {
   const { animal } = item;
   const notes = currentNotes(item);
+  // One outcome may settle several tasks (a meal settles the check too): one Undo for it.
+  const undoOffered = new Set<string>();
+  const offerUndo = (eventId: string) =>
+    !!onUndo && !undoOffered.has(eventId) && !!undoOffered.add(eventId);
   return (
     <article
       aria-label={`${animal.name}, ${animal.labelCode}`}
@@ -82,6 +100,7 @@ export function RoundItemCard({ item, timeZone, myName, children, openRecord }: 
           <span className="font-bold">{placeShort(animal.location)}</span>
         </div>
       </header>
+      {corner}
       {/* Safety first: cautions sit above the tasks. */}
       <CautionBadges cautions={animal.cautions} />
       {item.warnings.map((w) => (
@@ -120,6 +139,16 @@ export function RoundItemCard({ item, timeZone, myName, children, openRecord }: 
                   )}
                   {task.done && <DoneBadge done={task.done} timeZone={timeZone} myName={myName} />}
                 </p>
+                {task.done && offerUndo(task.done.eventId) && (
+                  <Button
+                    variant="secondary"
+                    className="mt-1 px-3 text-base"
+                    onClick={() => onUndo?.(task.done!.eventId, EVENT_WORDS[task.done!.kind])}
+                  >
+                    Undo {EVENT_WORDS[task.done.kind]}
+                    <span className="sr-only"> for {animal.name}</span>
+                  </Button>
+                )}
                 <ul className="text-sm text-muted">
                   {task.reasons.map((r) => (
                     <li key={r.code + r.text}>{r.text}</li>
@@ -149,6 +178,75 @@ export function RoundItemCard({ item, timeZone, myName, children, openRecord }: 
           Open record<span className="sr-only"> of {animal.name}</span>
         </Link>
       )}
+    </article>
+  );
+}
+
+/** The outcomes that settled a finished card's tasks, each once, in the order they were made. */
+export function settledOutcomes(item: RoundItemView): Outcome[] {
+  const seen = new Map<string, Outcome>();
+  for (const t of item.tasks)
+    if (t.done && !seen.has(t.done.eventId)) seen.set(t.done.eventId, t.done);
+  return [...seen.values()].sort((a, b) => (a.at < b.at ? -1 : a.at > b.at ? 1 : 0));
+}
+
+/**
+ * A finished card folded to one compact row: the animal, its place and what was recorded.
+ * "Change" opens the whole card again, where an outcome can be undone and recorded anew.
+ */
+export function DoneRow({
+  item,
+  timeZone,
+  myName,
+  onExpand,
+  children,
+}: {
+  item: RoundItemView;
+  timeZone: string;
+  myName?: string;
+  onExpand: () => void;
+  /** Under the row, e.g. how a photo sent with the outcome is getting on. */
+  children?: ReactNode;
+}) {
+  const { animal } = item;
+  return (
+    <article
+      aria-label={`${animal.name}, ${animal.labelCode}`}
+      data-state="done"
+      className="flex flex-col rounded-2xl border-2 border-border bg-surface px-3 py-1"
+    >
+      <div className="flex items-center gap-2">
+        <div className="min-w-0 flex-1">
+          <p className="truncate">
+            <span className="font-extrabold">{animal.name}</span>{' '}
+            <span className="font-mono text-sm font-bold">
+              {placeCode(animal.location) ?? animal.labelCode}
+            </span>
+          </p>
+          <p className="text-sm font-bold text-ok">
+            {settledOutcomes(item).map((o, i) => {
+              const who = o.by && o.by !== myName ? ` by ${o.by}` : '';
+              return (
+                <span key={o.eventId}>
+                  {i > 0 && ' · '}
+                  <span aria-hidden="true">✓ </span>
+                  {EVENT_WORDS[o.kind]} {clockTime(o.at, timeZone)}
+                  {who}
+                </span>
+              );
+            })}
+          </p>
+        </div>
+        <Button
+          variant="secondary"
+          aria-expanded={false}
+          className="shrink-0 px-3 text-base"
+          onClick={onExpand}
+        >
+          Change<span className="sr-only"> {animal.name}</span>
+        </Button>
+      </div>
+      {children}
     </article>
   );
 }

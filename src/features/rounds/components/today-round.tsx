@@ -1,5 +1,6 @@
 import { useCallback, useMemo, useState, type ReactNode } from 'react';
-import { EVENT_WORDS } from '#shared/domain/event-kinds';
+import { Link } from 'react-router-dom';
+import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
 import {
   clockTime,
   describeInstant,
@@ -13,9 +14,17 @@ import { Loading } from '@/components/ui/spinner';
 import { ApiError } from '@/lib/api-client';
 import type { UnsettledTap } from '@/lib/db';
 import { useRound } from '../api/get-round';
+import { sendOutcomePhoto } from '../api/outcome-photo';
 import { useRecordMany, useRecordOutcome } from '../api/record-outcome';
-import { filterItems, ROUND_FILTERS, type RoundFilter } from '../filter-items';
+import {
+  filterItems,
+  roundCounts,
+  storedFilter,
+  storeFilter,
+  type RoundFilter,
+} from '../filter-items';
 import { OutcomeButtons } from './outcome-buttons';
+import { OutcomePhotoStatus } from './outcome-photo-status';
 import { ProgressBar } from './progress-bar';
 import { RoundFilters } from './round-filters';
 import { RoundList } from './round-list';
@@ -23,10 +32,14 @@ import { RoundUnavailable } from './round-unavailable';
 import { TrayAtOnce } from './tray-at-once';
 import { UndoToast } from './undo-toast';
 
-interface LastTap {
-  event: RecordedEvent;
-  animal: { id: string; name: string; labelCode: string };
-}
+type Animal = RoundItemView['animal'];
+
+/** What the undo toast would take back: one tap, or a whole shelf saved at once. */
+type LastTap =
+  | { kind: 'one'; event: RecordedEvent; animal: Animal }
+  | { kind: 'shelf'; label: string; taps: { event: RecordedEvent; animal: Animal }[] };
+
+const browserStorage = () => (typeof localStorage === 'undefined' ? undefined : localStorage);
 
 /** What the round offers a form for a molt just tapped (the form itself comes from outside). */
 export interface MoltDetailsSlot {
@@ -48,6 +61,8 @@ export interface TodayRoundProps {
   openRecord?: boolean;
   /** Keep the engine's input so the phone can build the next days with no signal (keepers). */
   buildsOffline?: boolean;
+  /** Offer a photo with an outcome (keepers and owners: photos are theirs to send and see). */
+  photos?: boolean;
 }
 
 /** Today's round at the rack: the phone's copy, one-tap outcomes, filters, trays and undo. */
@@ -59,32 +74,79 @@ export function TodayRound({
   moltDetails,
   openRecord,
   buildsOffline,
+  photos,
 }: TodayRoundProps) {
   const { local, server } = useRound(userId, collectionId, 'today', { buildsOffline });
   const timeZone = local.data?.round.timeZone ?? 'UTC';
   const record = useRecordOutcome({ userId, byName: myName, collectionId });
   const recordMany = useRecordMany({ userId, byName: myName, collectionId });
-  const groupActions = useCallback(
-    (label: string, list: RoundItemView[]) => (
-      <TrayAtOnce key={label} label={label} items={list} onRecord={recordMany} />
-    ),
-    [recordMany],
+  const [filter, setFilterState] = useState<RoundFilter>(() => storedFilter(browserStorage()));
+  // Cards finished since the filter was chosen: they stay (folded) under To do, see filterItems.
+  const [kept, setKept] = useState<ReadonlySet<string>>(new Set());
+  const keep = useCallback(
+    (ids: string[]) => setKept((k) => (ids.every((id) => k.has(id)) ? k : new Set([...k, ...ids]))),
+    [],
   );
-  const [filter, setFilter] = useState<RoundFilter>('all');
+  const setFilter = useCallback((f: RoundFilter) => {
+    setFilterState(f);
+    setKept(new Set());
+    storeFilter(browserStorage(), f);
+  }, []);
   const [search, setSearch] = useState('');
   const [last, setLast] = useState<LastTap | null>(null);
   const closeToast = useCallback(() => setLast(null), []);
+  const recordShelf = useCallback(
+    async (label: string, list: { animal: Animal; kind: EventKind }[]) => {
+      const events = await recordMany(list);
+      keep(list.map((l) => l.animal.id));
+      setLast({
+        kind: 'shelf',
+        label,
+        taps: events.map((event, i) => ({ event, animal: list[i]!.animal })),
+      });
+      return events;
+    },
+    [recordMany, keep],
+  );
+  const groupActions = useCallback(
+    (label: string, list: RoundItemView[]) => (
+      <TrayAtOnce
+        key={label}
+        label={label}
+        items={list}
+        onRecord={(chosen) => recordShelf(label, chosen)}
+      />
+    ),
+    [recordShelf],
+  );
+  const onPhoto = useCallback(
+    (animalId: string, outcome: { eventId: string; word: string }, file: File) =>
+      sendOutcomePhoto(collectionId, { ...outcome, animalId }, file),
+    [collectionId],
+  );
+  const status = useCallback(
+    (item: RoundItemView) => <OutcomePhotoStatus animalId={item.animal.id} />,
+    [],
+  );
+  const onUndo = useCallback(
+    (item: RoundItemView, eventId: string) =>
+      void record(item.animal, 'void', { targetId: eventId }),
+    [record],
+  );
   const actions = useCallback(
     (item: RoundItemView) => (
       <>
         {extras?.(item)}
         <OutcomeButtons
           item={item}
-          onRecord={(kind, payload) => {
-            void record(item.animal, kind, payload).then((event) =>
-              setLast({ event, animal: item.animal }),
-            );
-          }}
+          onRecord={(kind, payload) =>
+            record(item.animal, kind, payload).then((event) => {
+              keep([item.animal.id]);
+              setLast({ kind: 'one', event, animal: item.animal });
+              return event;
+            })
+          }
+          onPhoto={photos ? (outcome, file) => onPhoto(item.animal.id, outcome, file) : undefined}
           moltDetails={
             moltDetails &&
             ((moltId) =>
@@ -103,16 +165,10 @@ export function TodayRound({
         />
       </>
     ),
-    [record, extras, moltDetails, timeZone],
+    [record, extras, moltDetails, timeZone, keep, photos, onPhoto],
   );
   const items = local.data?.round.items;
-  const counts = useMemo(
-    () =>
-      Object.fromEntries(
-        ROUND_FILTERS.map((f) => [f, items ? filterItems(items, f, '').length : 0]),
-      ) as Record<RoundFilter, number>,
-    [items],
-  );
+  const counts = useMemo(() => roundCounts(items ?? []), [items]);
 
   if (local.isPending || (!local.data && server.isPending))
     return <Loading label="Loading today’s round…" />;
@@ -127,7 +183,17 @@ export function TodayRound({
 
   const { round, fetchedAt, builtOnPhone, unsettled } = local.data;
   const today = localDateOf(new Date(), round.timeZone);
-  const undo = (t: LastTap) => void record(t.animal, 'void', { targetId: t.event.id });
+  // Undo goes through the void, as everywhere: the mistake and its correction both stay on record.
+  const undo = (t: LastTap) =>
+    void (t.kind === 'one'
+      ? record(t.animal, 'void', { targetId: t.event.id })
+      : recordMany(
+          t.taps.map(({ event, animal }) => ({
+            animal,
+            kind: 'void' as const,
+            payload: { targetId: event.id },
+          })),
+        ));
   const dataTime = describeInstant(fetchedAt, round.timeZone);
 
   return (
@@ -158,16 +224,22 @@ export function TodayRound({
           · showing this phone’s copy {builtOnPhone ? 'built from records of' : 'from'} {dataTime}
         </p>
       )}
-      <ProgressBar done={round.progress.done} total={round.progress.total} />
+      <ProgressBar counts={counts} />
       <RoundFilters
         filter={filter}
         onFilter={setFilter}
         search={search}
         onSearch={setSearch}
-        counts={counts}
+        counts={counts.cards}
       />
+      <Link
+        to="/today/checklist"
+        className="inline-flex min-h-target items-center self-start rounded-xl px-1 font-bold underline underline-offset-4"
+      >
+        Print a checklist of this round
+      </Link>
       <RoundList
-        items={filterItems(round.items, filter, search)}
+        items={filterItems(round.items, filter, search, kept)}
         timeZone={round.timeZone}
         myName={myName}
         empty={
@@ -175,11 +247,18 @@ export function TodayRound({
         }
         actions={actions}
         groupActions={filter === 'done' ? undefined : groupActions}
+        status={status}
+        onUndo={onUndo}
         openRecord={openRecord}
+        fold
       />
       {last && (
         <UndoToast
-          message={`${EVENT_WORDS[last.event.kind]} · ${last.animal.name} (${last.animal.labelCode})`}
+          message={
+            last.kind === 'one'
+              ? `${EVENT_WORDS[last.event.kind]} · ${last.animal.name} (${last.animal.labelCode})`
+              : `${last.taps.length} saved on ${last.label}`
+          }
           onUndo={() => undo(last)}
           onClose={closeToast}
         />
