@@ -81,6 +81,8 @@ describe('the demo collection', () => {
       'brood:Pinch',
       'egg_case:Mantra',
       'egg_sac:Juniper',
+      // The mother of the 24-sling clutch: her pulled sac keeps the breeding register honest.
+      'egg_sac:Marigold',
       'egg_sac:Pepper',
     ]);
 
