@@ -162,7 +162,10 @@ describe('label sheets printed from the browser', () => {
     // A photo of one label, as html5-qrcode's file scan gets it from a phone's camera app.
     await page.getByLabel('Show at true size (scroll sideways)').check();
     const photographed = animals[3]!;
-    const photo = await page.locator(`[data-animal-id="${photographed.id}"]`).first().screenshot();
+    const label = page.locator(`[data-animal-id="${photographed.id}"]`).first();
+    // Clear of the fixed tab bar, as a photo of a label has nothing in front of it.
+    await label.evaluate((el) => el.scrollIntoView({ block: 'center' }));
+    const photo = await label.screenshot();
     await page.getByRole('link', { name: 'Scan' }).click();
     // This browser has no camera at all: the screen says so and offers the other ways in.
     await expect
@@ -279,6 +282,8 @@ describe('walk mode with the camera', () => {
         ['https://example.com/menu', 'That QR code is not a Rackside label.'],
         ['NL-2222', 'No animal here has the code NL-2222.'],
       ] as const) {
+        // The box empties when the scanner is back to waiting (an effect after "Scan next").
+        await expect.poll(() => page.getByLabel('Type the code').inputValue()).toBe('');
         await page.getByLabel('Type the code').fill(typed);
         await page.getByRole('button', { name: 'Open' }).click();
         await expect.poll(() => scanned.innerText()).toContain(message);

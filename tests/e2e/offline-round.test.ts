@@ -58,7 +58,7 @@ describe('today’s round with no signal', () => {
       .click();
     await item(page, 'Dusty').waitFor();
     expect(await item(page, 'Dusty').innerText()).toMatch(/✓ Ate/);
-    expect(await item(page, 'Ember').innerText()).toMatch(/✓ Refused/);
+    expect(await item(page, 'Ember').innerText()).toMatch(/✕ Refused/);
     expect(await item(page, 'Verdi').innerText()).toMatch(/✓ Watered/);
     await expect.poll(() => syncStatus(page), { timeout: 10_000 }).toMatch(/3 waiting/);
     await expectAccessible(page, 'today offline');
@@ -114,9 +114,9 @@ describe('today’s round with no signal', () => {
     await signIn(page, 'partner@northlight.test');
     await item(page, 'Tiger').waitFor();
     await item(page, 'Tiger').getByRole('button', { name: 'Refused', exact: true }).click();
-    await expect.poll(() => item(page, 'Tiger').innerText()).toMatch(/✓ Refused/);
+    await expect.poll(() => item(page, 'Tiger').innerText()).toMatch(/✕ Refused/);
     await page.getByRole('button', { name: 'Undo' }).click();
-    await expect.poll(() => item(page, 'Tiger').innerText()).not.toMatch(/✓ Refused/);
+    await expect.poll(() => item(page, 'Tiger').innerText()).not.toMatch(/✕ Refused/);
     await expect.poll(() => syncStatus(page), { timeout: 10_000 }).toMatch(/All saved/);
     const partner = await userId('partner@northlight.test');
     const saved = await env.server.ctx.database.db
