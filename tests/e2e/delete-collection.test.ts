@@ -52,6 +52,8 @@ describe('deleting a collection at 360 px', () => {
         .from(collections)
         .where(eq(collections.id, owner.collectionId)),
     ).toEqual([]);
-    expect(consoleErrors).toEqual([]);
+    // A query still mounted when the collection went may ask once more for its data: the
+    // answer is 404, as it should be; anything else is an error.
+    expect(consoleErrors.filter((e) => !/status of 404/.test(e))).toEqual([]);
   });
 });
