@@ -1,5 +1,6 @@
 import type { Caution } from '#shared/domain/animal-facts';
 import { codeKey } from '#shared/domain/labels/label-payload';
+import { placeCode as codeOfPlace } from '#shared/domain/places';
 import { countsForProgress } from '#shared/domain/rounds/settle';
 import type { RoundItemView } from '#shared/schemas/rounds';
 
@@ -51,9 +52,9 @@ export function itemState(item: RoundItemView): ItemState {
 /** An item is done when every task that counts has an outcome (and there was one to do). */
 export const isItemDone = (item: RoundItemView) => itemState(item) === 'done';
 
-/** "A1-2": rack and shelf, then the position — as printed on the card and the checklist. */
+/** The spot's code as every screen writes it ("C1-08"), or null for an animal with no place. */
 export function placeCode(location: RoundItemView['animal']['location']): string | null {
-  return location ? `${location.rack}${location.shelf}-${location.position}` : null;
+  return location ? codeOfPlace(location) : null;
 }
 
 /**
