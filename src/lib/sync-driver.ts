@@ -5,7 +5,7 @@ import { withDb } from './db';
 import {
   backoffDelay,
   createSyncEngine,
-  IDLE_STATUS,
+  STARTING_STATUS,
   type SyncEngine,
   type SyncStatus,
   type SyncTransport,
@@ -29,7 +29,7 @@ export const fetchTransport: SyncTransport = async (collectionId: string, body: 
 };
 
 let engine: SyncEngine | null = null;
-let current: SyncStatus = IDLE_STATUS;
+let current: SyncStatus = STARTING_STATUS;
 const listeners = new Set<() => void>();
 let retryTimer: ReturnType<typeof setTimeout> | undefined;
 let retryPending = false;
@@ -100,7 +100,7 @@ function stopSync() {
   window.removeEventListener('online', onOnline);
   document.removeEventListener('visibilitychange', onVisible);
   engine = null;
-  publish(IDLE_STATUS);
+  publish(STARTING_STATUS);
 }
 
 /**

@@ -72,6 +72,16 @@ describe('backoff', () => {
   });
 });
 
+describe('status before the first count', () => {
+  it('says nothing is known until the outbox is read, then counts what waits', async () => {
+    await queue(2);
+    const engine = engineWith(acceptAll);
+    expect(engine.status().phase).toBe('starting');
+    await engine.refresh();
+    expect(engine.status()).toMatchObject({ phase: 'idle', waiting: 2 });
+  });
+});
+
 describe('flush', () => {
   it('sends in batches, oldest first, and empties the outbox', async () => {
     const ids = await queue(5);

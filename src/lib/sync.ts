@@ -10,7 +10,8 @@ export type SyncTransport = (
   body: EventBatchBody,
 ) => Promise<{ status: number; body: unknown }>;
 
-export type SyncPhase = 'idle' | 'saving' | 'offline' | 'failing' | 'signed_out';
+/** `starting`: the outbox has not been counted yet, so nothing can be said about the taps. */
+export type SyncPhase = 'starting' | 'idle' | 'saving' | 'offline' | 'failing' | 'signed_out';
 
 export interface SyncStatus {
   phase: SyncPhase;
@@ -40,6 +41,9 @@ export const IDLE_STATUS: SyncStatus = {
   failures: 0,
   reason: null,
 };
+
+/** Before the outbox is counted: never "All saved" while taps may still be waiting. */
+export const STARTING_STATUS: SyncStatus = { ...IDLE_STATUS, phase: 'starting' };
 
 const BASE_DELAY_MS = 2_000;
 const MAX_DELAY_MS = 5 * 60_000;
@@ -91,7 +95,7 @@ export function createSyncEngine({
   batchSize = SYNC_BATCH_SIZE,
   onStatus,
 }: EngineOptions) {
-  let status: SyncStatus = IDLE_STATUS;
+  let status: SyncStatus = STARTING_STATUS;
   let running: Promise<FlushResult> | null = null;
 
   const update = (patch: Partial<SyncStatus>) => {
@@ -188,7 +192,8 @@ export function createSyncEngine({
     },
     /** Re-reads the counts after a change to the lists without sending anything. */
     async refresh() {
-      update(await counts(await db()));
+      const known = await counts(await db());
+      update(status.phase === 'starting' ? { ...known, phase: 'idle' } : known);
     },
     status: () => status,
   };

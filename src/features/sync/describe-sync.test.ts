@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { IDLE_STATUS, type SyncStatus } from '@/lib/sync';
+import { IDLE_STATUS, STARTING_STATUS, type SyncStatus } from '@/lib/sync';
 import { describeSync } from './describe-sync';
 
 const base = IDLE_STATUS;
@@ -17,6 +17,11 @@ describe('the sync indicator’s words', () => {
     expect(words({ attention: 1 })).toBe('1 needs attention');
     expect(words({ phase: 'signed_out', waiting: 4 })).toBe('Sign in again to save 4 taps');
     expect(words({ phase: 'failing', waiting: 2 })).toBe('Server trouble · 2 waiting');
+  });
+
+  it('claims nothing is waiting only once the outbox has been counted', () => {
+    expect(words(STARTING_STATUS)).toBe('Checking taps…');
+    expect(words({ ...STARTING_STATUS, waiting: 1 })).not.toMatch(/saved/);
   });
 
   it('says why taps are waiting after an answer without verdicts, and that they stay', () => {

@@ -31,6 +31,8 @@ export function describeSync(s: SyncStatus, now: Date): SyncText {
       tone: 'alert',
       detail: null,
     };
+  if (s.phase === 'starting')
+    return { words: 'Checking taps…', symbol: '↻', tone: 'waiting', detail: null };
   if (s.attention > 0)
     return {
       words: `${s.attention} need${s.attention === 1 ? 's' : ''} attention`,
