@@ -81,7 +81,13 @@ function rssMb(pid: number): number {
 
 export async function runP7(database: Database): Promise<{ figures: Figure[]; notes: string[] }> {
   const url = process.env.BENCH_DATABASE_URL!;
-  const server = await startServerProcess({ databaseUrl: url, quiet: true });
+  // P7_CPU_PROF=<folder>: the server writes a V8 CPU profile there (where the time goes).
+  const profile = process.env.P7_CPU_PROF;
+  const server = await startServerProcess({
+    databaseUrl: url,
+    quiet: true,
+    nodeArgs: profile ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(profile)}`] : [],
+  });
   try {
     const keeper = await makeKeeper(database, ANIMALS, 'p7');
     const cookie = await signInCookie(server.url, keeper.email);
