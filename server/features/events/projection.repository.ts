@@ -37,7 +37,8 @@ export async function lockStates(
         .for('update')
     ).map((r) => [r.animalId, r.state as AnimalState] as const);
   const found = new Map(await lock(animalIds));
-  const missing = animalIds.filter((id) => !found.has(id));
+  // Created in id order too (waits on another's new rows then follow the same order).
+  const missing = animalIds.filter((id) => !found.has(id)).sort();
   if (!missing.length) return found;
   await db.execute(sql`
     insert into animal_states (animal_id, collection_id, state, last_event_at, updated_at)
