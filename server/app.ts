@@ -36,6 +36,7 @@ import {
   animalScheduleRoutes,
   prepListRoutes,
   roundsRoutes,
+  todayRoundFastPath,
 } from './features/rounds/rounds.routes';
 import { createRoundsService } from './features/rounds/rounds.service';
 import { rulesRoutes } from './features/rounds/rules.routes';
@@ -48,6 +49,7 @@ import { requireSameSiteWrite } from './middleware/csrf';
 import { apiNotFound, errorHandler, HttpError } from './middleware/errors';
 import { createLimiter } from './middleware/rate-limit';
 import { requireMember } from './middleware/roles';
+import { sessionMemberCheck } from './middleware/session-member';
 import { repoRoot } from './repo-root';
 import { requestLog } from './request-log';
 import { securityHeaders } from './security-headers';
@@ -89,6 +91,11 @@ export function createApp(options: AppOptions) {
   const store = createSessionStore(database.pool, env, now);
 
   const api = express.Router();
+  const rounds = createRoundsService(database.db, now);
+  // Today's round, the hot read, skips the session middleware when its one-query check passes.
+  api.use(
+    todayRoundFastPath(rounds, sessionMemberCheck(database.pool, env.SESSION_SECRET, store, now)),
+  );
   // Imports and restores may be large: their routes parse them after the membership check.
   api.use(
     express.json({
@@ -168,7 +175,6 @@ export function createApp(options: AppOptions) {
   );
 
   const animals = createAnimalsService(database.db, now);
-  const rounds = createRoundsService(database.db, now);
   const events = createEventsService(database.db, {
     now,
     feedHolds: rounds.feedHolds,

@@ -1,5 +1,6 @@
 // Sessions for people signed in on their own phone for weeks (docs/decisions/003-sessions.md),
 // kept in PostgreSQL so every server process knows them.
+import { createHmac, timingSafeEqual } from 'node:crypto';
 import connectPgSimple from 'connect-pg-simple';
 import type { RequestHandler } from 'express';
 import session from 'express-session';
@@ -29,6 +30,11 @@ class ThrottledTouchStore extends PgStore {
     super(options);
   }
 
+  /** Whether a request on this session should push its idle expiry forward now. */
+  touchDue(sid: string): boolean {
+    return this.now().getTime() - (this.touchedAt.get(sid) ?? 0) >= SESSION_TOUCH_EVERY_MS;
+  }
+
   override touch(sid: string, sess: session.SessionData, done?: (err?: unknown) => void) {
     const at = this.now().getTime();
     if (at - (this.touchedAt.get(sid) ?? 0) < SESSION_TOUCH_EVERY_MS) return done?.();
@@ -51,11 +57,40 @@ export function createSessionStore(pool: pg.Pool, env: Env, now: () => Date) {
 }
 export type SessionStore = ReturnType<typeof createSessionStore>;
 
+const SESSION_COOKIE_VALUE = /(?:^|;\s*)rackside\.sid=([^;]*)/;
+
+/**
+ * The session id a request's signed session cookie carries, checked as express-session checks
+ * it (cookie-signature: HMAC-SHA256, base64 without padding); null when absent or not ours.
+ */
+export function signedSessionId(cookieHeader: string | undefined, secret: string): string | null {
+  const m = SESSION_COOKIE_VALUE.exec(cookieHeader ?? '');
+  if (!m) return null;
+  let raw: string;
+  try {
+    raw = decodeURIComponent(m[1]!.trim());
+  } catch {
+    return null;
+  }
+  const dot = raw.lastIndexOf('.');
+  if (!raw.startsWith('s:') || dot < 3) return null;
+  const sid = raw.slice(2, dot);
+  const mac = Buffer.from(
+    createHmac('sha256', secret).update(sid).digest('base64').replace(/=+$/, ''),
+  );
+  const given = Buffer.from(raw.slice(dot + 1));
+  return given.length === mac.length && timingSafeEqual(given, mac) ? sid : null;
+}
+
+/** Whether a session began too long ago to be used (the absolute timeout below). */
+export const pastAbsoluteTimeout = (signedInAt: number | undefined) =>
+  !signedInAt || Date.now() - signedInAt > SESSION_ABSOLUTE_MS;
+
 /** The session cookie, then the absolute timeout: a sign-in ends 90 days after it began. */
 export function sessions(env: Env, store: SessionStore): RequestHandler[] {
   const absoluteTimeout: RequestHandler = (req, _res, next) => {
     const began = req.session.signedInAt;
-    if (req.session.userId && (!began || Date.now() - began > SESSION_ABSOLUTE_MS)) {
+    if (req.session.userId && pastAbsoluteTimeout(began)) {
       return req.session.destroy(() =>
         next(
           new HttpError(401, 'session_expired', 'Your sign-in has expired. Please sign in again.'),

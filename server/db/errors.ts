@@ -34,3 +34,13 @@ export function isDatabaseUnavailable(err: unknown): boolean {
   }
   return false;
 }
+
+/**
+ * True when PostgreSQL aborted a transaction to break a deadlock (40P01) or a serialisation
+ * conflict (40001), per Appendix A, "Class 40": the whole transaction may simply run again.
+ */
+export function isRetryableConflict(err: unknown): boolean {
+  const e = err as { code?: string; cause?: { code?: string } } | null;
+  const code = e?.code ?? e?.cause?.code;
+  return code === '40P01' || code === '40001';
+}

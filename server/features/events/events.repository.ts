@@ -17,12 +17,16 @@ export async function insertEvents(
   db: Db,
   rows: NewEvent[],
   ifStored: 'skip' | 'fail',
+  states?: StatesToWrite,
 ): Promise<Set<string>> {
   const inserted = new Set<string>();
   for (let i = 0; i < rows.length; i += 1000) {
     const chunk = rows.slice(i, i + 1000);
     const iso = (d: Date | null | undefined) => d?.toISOString() ?? null;
+    // The projected states go with the first chunk, in the same statement (one round trip).
+    const withStates = i === 0 && states?.states.length ? states : null;
     const result = await db.execute<{ id: string }>(sql`
+      ${withStates ? sql`with ins as (` : sql``}
       insert into events (id, collection_id, animal_id, kind, payload, recorded_by, device_id,
                           client_recorded_at, client_sent_at, server_received_at, effective_at, flags)
       select t.id, t.collection_id, t.animal_id, t.kind, t.payload::jsonb, t.recorded_by, t.device_id,
@@ -38,10 +42,27 @@ export async function insertEvents(
       ) as t(id, collection_id, animal_id, kind, payload, recorded_by, device_id,
              client_recorded_at, client_sent_at, server_received_at, effective_at, flags)
       ${ifStored === 'skip' ? sql`on conflict (id) do nothing` : sql``}
-      returning id`);
+      returning id
+      ${withStates ? sql`), st as (${upsertStatesSql(withStates)}) select id from ins` : sql``}`);
     for (const r of result.rows) inserted.add(r.id);
   }
   return inserted;
+}
+
+/** Projected states to write with new events (projection.ts decides them). */
+export interface StatesToWrite {
+  collectionId: string;
+  states: { animalId: string; state: { lastEventAt: string | null } }[];
+}
+
+/** The upsert of projected states over unnest()ed arrays. */
+export function upsertStatesSql({ collectionId, states }: StatesToWrite) {
+  return sql`
+    insert into animal_states (animal_id, collection_id, state, last_event_at, updated_at)
+    select t.animal_id, ${collectionId}::uuid, t.state::jsonb, t.last_event_at, now()
+    from unnest(${list(states.map((s) => s.animalId))}::uuid[], ${list(states.map((s) => JSON.stringify(s.state)))}::text[],
+                ${list(states.map((s) => s.state.lastEventAt))}::timestamptz[]) as t(animal_id, state, last_event_at)
+    on conflict (animal_id) do update set state = excluded.state, last_event_at = excluded.last_event_at, updated_at = excluded.updated_at`;
 }
 
 /** Of these animal ids, the ones that belong to the collection. */

@@ -12,6 +12,7 @@ import { MAX_BATCH_EVENTS } from '#shared/domain/sync-limits';
 import type { EventBatchBody, EventBatchResponse, HistoryEvent } from '#shared/schemas/events';
 import type { Membership } from '../../access/memberships';
 import type { Db } from '../../db/client';
+import { isRetryableConflict } from '../../db/errors';
 import { HttpError } from '../../middleware/errors';
 import {
   animalIdsInCollection,
@@ -55,9 +56,20 @@ export function createEventsService(
     received = now(),
   ) {
     const collection = { collectionId, timeZone: zone };
-    const inserted = await db.transaction((tx) =>
-      recordEvents(tx, collection, incoming, { from: 'device', receivedAt: received }),
-    );
+    // Batches sharing animals lock them in the same order, but a first event of an animal, or
+    // a restore running beside a sync, can still meet another transaction the other way round:
+    // PostgreSQL then aborts one, which runs again (nothing of it was kept).
+    let inserted!: Set<string>;
+    for (let attempt = 1; ; attempt++) {
+      try {
+        inserted = await db.transaction((tx) =>
+          recordEvents(tx, collection, incoming, { from: 'device', receivedAt: received }),
+        );
+        break;
+      } catch (err) {
+        if (attempt >= 3 || !isRetryableConflict(err)) throw err;
+      }
+    }
     const recorded = incoming
       .filter((e) => inserted.has(e.id))
       .map(({ animalId, kind, effectiveAt }) => ({ animalId, kind, effectiveAt }));

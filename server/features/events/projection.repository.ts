@@ -1,8 +1,13 @@
 import { eq, inArray, sql } from 'drizzle-orm';
-import type { AnimalState, EngineEvent } from '#shared/domain/rounds/animal-state';
+import {
+  EMPTY_STATE,
+  type AnimalState,
+  type EngineEvent,
+} from '#shared/domain/rounds/animal-state';
 import type { Db } from '../../db/client';
 import { animals, events } from '../../db/schema/animals';
 import { animalStates } from '../../db/schema/rounds';
+import { upsertStatesSql } from './events.repository';
 
 /** Every animal of a collection, by id. */
 export async function animalIdsOf(db: Db, collectionId: string): Promise<string[]> {
@@ -11,14 +16,37 @@ export async function animalIdsOf(db: Db, collectionId: string): Promise<string[
   ).map((r) => r.id);
 }
 
-/** These animals' projected states, locked until the caller's transaction ends. */
-export async function lockStates(db: Db, animalIds: string[]): Promise<Map<string, AnimalState>> {
-  const rows = await db
-    .select({ animalId: animalStates.animalId, state: animalStates.state })
-    .from(animalStates)
-    .where(sql`${animalStates.animalId} = any(${sql.param(animalIds)}::uuid[])`)
-    .for('update');
-  return new Map(rows.map((r) => [r.animalId, r.state as AnimalState]));
+/**
+ * These animals' projected states, locked until the caller's transaction ends — in id order,
+ * so two batches sharing animals wait for each other instead of deadlocking. An animal with no
+ * state yet gets an empty one first, so that it too is locked (two first batches for the same
+ * animal must not both fold from nothing).
+ */
+export async function lockStates(
+  db: Db,
+  collectionId: string,
+  animalIds: string[],
+): Promise<Map<string, AnimalState>> {
+  const lock = async (ids: string[]) =>
+    (
+      await db
+        .select({ animalId: animalStates.animalId, state: animalStates.state })
+        .from(animalStates)
+        .where(sql`${animalStates.animalId} = any(${sql.param(ids)}::uuid[])`)
+        .orderBy(animalStates.animalId)
+        .for('update')
+    ).map((r) => [r.animalId, r.state as AnimalState] as const);
+  const found = new Map(await lock(animalIds));
+  // Created in id order too (waits on another's new rows then follow the same order).
+  const missing = animalIds.filter((id) => !found.has(id)).sort();
+  if (!missing.length) return found;
+  await db.execute(sql`
+    insert into animal_states (animal_id, collection_id, state, last_event_at, updated_at)
+    select t.id, ${collectionId}::uuid, ${JSON.stringify(EMPTY_STATE)}::jsonb, null, now()
+    from unnest(${sql.param(missing)}::uuid[]) as t(id)
+    on conflict (animal_id) do nothing`);
+  for (const [id, state] of await lock(missing)) found.set(id, state);
+  return found;
 }
 
 /** Each animal's whole log as the engine folds it (unordered: the fold sorts). */
@@ -55,13 +83,6 @@ export async function upsertStates(
   collectionId: string,
   states: { animalId: string; state: AnimalState }[],
 ) {
-  for (let i = 0; i < states.length; i += 1000) {
-    const chunk = states.slice(i, i + 1000);
-    await db.execute(sql`
-      insert into animal_states (animal_id, collection_id, state, last_event_at, updated_at)
-      select t.animal_id, ${collectionId}::uuid, t.state::jsonb, t.last_event_at, now()
-      from unnest(${sql.param(chunk.map((s) => s.animalId))}::uuid[], ${sql.param(chunk.map((s) => JSON.stringify(s.state)))}::text[],
-                  ${sql.param(chunk.map((s) => s.state.lastEventAt))}::timestamptz[]) as t(animal_id, state, last_event_at)
-      on conflict (animal_id) do update set state = excluded.state, last_event_at = excluded.last_event_at, updated_at = excluded.updated_at`);
-  }
+  for (let i = 0; i < states.length; i += 1000)
+    await db.execute(upsertStatesSql({ collectionId, states: states.slice(i, i + 1000) }));
 }

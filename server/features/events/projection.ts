@@ -32,21 +32,22 @@ export async function refoldStates(
 }
 
 /**
- * Brings the projection up to date with newly stored events, in the caller's transaction.
- * Events that come after everything folded so far are applied one by one; an animal that got
- * an event out of order (a phone syncing late) or a void is re-folded from its log.
+ * What newly stored events make of the projection, from the locked current states: events
+ * that come after everything folded so far are applied one by one (`updated`); an animal that
+ * got an event out of order (a phone syncing late) or a void is re-folded from its log
+ * (`refold`, once the events are stored).
  */
-export async function applyNewEvents(
-  db: Db,
-  collectionId: string,
+export function foldNewEvents(
+  current: ReadonlyMap<string, AnimalState>,
   zone: string,
   fresh: (EngineEvent & { animalId: string })[],
 ) {
   const byAnimal = new Map<string, EngineEvent[]>();
-  for (const e of fresh) byAnimal.set(e.animalId, [...(byAnimal.get(e.animalId) ?? []), e]);
-  const ids = [...byAnimal.keys()];
-  if (!ids.length) return;
-  const current = await lockStates(db, ids);
+  for (const e of fresh) {
+    const list = byAnimal.get(e.animalId);
+    if (list) list.push(e);
+    else byAnimal.set(e.animalId, [e]);
+  }
   const refold: string[] = [];
   const updated: { animalId: string; state: AnimalState }[] = [];
   for (const [animalId, list] of byAnimal) {
@@ -61,6 +62,22 @@ export async function applyNewEvents(
     for (const e of sorted) state = applyEvent(state, e, zone);
     updated.push({ animalId, state });
   }
+  return { updated, refold };
+}
+
+/**
+ * Brings the projection up to date with newly stored events, in the caller's transaction
+ * (the events are already stored: see recordEvents for the path that writes both at once).
+ */
+export async function applyNewEvents(
+  db: Db,
+  collectionId: string,
+  zone: string,
+  fresh: (EngineEvent & { animalId: string })[],
+) {
+  const ids = [...new Set(fresh.map((e) => e.animalId))];
+  if (!ids.length) return;
+  const { updated, refold } = foldNewEvents(await lockStates(db, collectionId, ids), zone, fresh);
   await upsertStates(db, collectionId, updated);
   if (refold.length) await refoldStates(db, collectionId, zone, refold);
 }

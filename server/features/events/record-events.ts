@@ -6,7 +6,8 @@ import type { EventKind } from '#shared/domain/event-kinds';
 import type { Db } from '../../db/client';
 import { insertEvents, type NewEvent } from './events.repository';
 import { MOLT_FACT_KINDS, applyMoltFacts } from './molt-facts';
-import { applyNewEvents } from './projection';
+import { foldNewEvents, refoldStates } from './projection';
+import { lockStates } from './projection.repository';
 
 /** The collection the events belong to, as the request's membership carries it. */
 export interface EventCollection {
@@ -108,13 +109,15 @@ export async function recordEvents(
           serverReceivedAt: source.at,
           effectiveAt: e.effectiveAt ?? source.at,
         }));
-  const stored = await insertEvents(db, rows, 'skip');
-  const fresh = rows.filter((r) => stored.has(r.id));
-  await applyNewEvents(
-    db,
-    collectionId,
+  // The animals' states are locked first (in id order), their new states folded here, and the
+  // events and states written in one statement just before the commit: the collection's change
+  // counter, bumped by the insert, is then held only for the commit (P5, P7).
+  const animalIds = [...new Set(rows.map((r) => r.animalId))];
+  const current = await lockStates(db, collectionId, animalIds);
+  const { updated, refold } = foldNewEvents(
+    current,
     timeZone,
-    fresh.map((e) => ({
+    rows.map((e) => ({
       id: e.id,
       animalId: e.animalId,
       kind: e.kind as EventKind,
@@ -122,6 +125,13 @@ export async function recordEvents(
       effectiveAt: e.effectiveAt.toISOString(),
     })),
   );
+  const stored = await insertEvents(db, rows, 'skip', { collectionId, states: updated });
+  const fresh = rows.filter((r) => stored.has(r.id));
+  // A re-sent tap was already stored (it raced its first delivery): the states folded above
+  // counted it again, so its animal is re-folded from the log, which holds it once.
+  const raced = new Set(rows.filter((r) => !stored.has(r.id)).map((r) => r.animalId));
+  const again = [...new Set([...refold, ...raced])];
+  if (again.length) await refoldStates(db, collectionId, timeZone, again);
   await applyMoltFacts(db, collectionId, timeZone, [
     ...new Set(fresh.filter((e) => MOLT_FACT_KINDS.includes(e.kind)).map((e) => e.animalId)),
   ]);

@@ -1,10 +1,12 @@
-import { Router, type RequestHandler } from 'express';
+import { Router, type Request, type RequestHandler, type Response } from 'express';
 import { z } from 'zod';
 import type { Role } from '#shared/domain/roles';
 import { localDate, uuid } from '#shared/schemas/common';
 import { careSettingsBody, type CareSettingsBody } from '#shared/schemas/rules';
 import { membershipOf } from '../../middleware/roles';
+import type { SessionMemberCheck } from '../../middleware/session-member';
 import { input, validate } from '../../middleware/validate';
+import type { SerialisedRound } from './round-cache';
 import type { RoundsService } from './rounds.service';
 
 type Member = (min: Role) => RequestHandler;
@@ -17,18 +19,7 @@ export function roundsRoutes(rounds: RoundsService, member: Member) {
   // Helpers may read today's round during their cover; everything else is for keepers.
   router.get('/today', member('helper'), async (req, res) => {
     const m = membershipOf(res);
-    const round = await rounds.todayRoundSerialised(m.collectionId, m.revision);
-    // Always revalidated (the round changes with every tap), answered 304 while unchanged.
-    res.setHeader('Cache-Control', 'private, no-cache');
-    res.setHeader('ETag', round.etag);
-    res.vary('Accept-Encoding');
-    res.type('application/json');
-    if (req.fresh) return void res.status(304).end();
-    if (req.acceptsEncodings('gzip', 'identity') === 'gzip') {
-      res.setHeader('Content-Encoding', 'gzip');
-      return void res.send(round.gzip());
-    }
-    res.send(round.json);
+    sendTodayRound(req, res, await rounds.todayRoundSerialised(m.collectionId, m.revision));
   });
 
   router.get('/tomorrow', member('keeper'), async (_req, res) => {
@@ -47,6 +38,40 @@ export function roundsRoutes(rounds: RoundsService, member: Member) {
     res.json(await rounds.engineInputFor(m.collectionId));
   });
 
+  return router;
+}
+
+/** Today's round as the cache holds it: the same bytes and ETag for every member. */
+function sendTodayRound(req: Request, res: Response, round: SerialisedRound) {
+  // Always revalidated (the round changes with every tap), answered 304 while unchanged.
+  res.setHeader('Cache-Control', 'private, no-cache');
+  res.setHeader('ETag', round.etag);
+  res.vary('Accept-Encoding');
+  res.type('application/json');
+  if (req.fresh) return void res.status(304).end();
+  if (req.acceptsEncodings('gzip', 'identity') === 'gzip') {
+    res.setHeader('Content-Encoding', 'gzip');
+    return void res.send(round.gzip());
+  }
+  res.send(round.json);
+}
+
+/**
+ * GET /collections/:collectionId/rounds/today ahead of the session and JSON middleware (P7):
+ * phones poll it all day. The session and membership are checked with one query
+ * (`sessionMemberCheck`, the same rules as `member('helper')`); anything but a pass goes on to
+ * the full stack and the route above, which answers it as always.
+ */
+export function todayRoundFastPath(
+  rounds: Pick<RoundsService, 'todayRoundSerialised'>,
+  check: SessionMemberCheck,
+) {
+  const router = Router();
+  router.get('/collections/:collectionId/rounds/today', async (req, res, next) => {
+    const m = await check(req, 'helper');
+    if (!m) return next();
+    sendTodayRound(req, res, await rounds.todayRoundSerialised(m.collectionId, m.revision));
+  });
   return router;
 }
 
