@@ -3,7 +3,7 @@ import pg from 'pg';
 import { connectDatabase } from '../server/db/client';
 import { migrateDatabase } from '../server/db/migrate';
 import { runOffEngineInput } from './off-engine-input';
-import { runP1 } from './p1-tap-latency';
+import { runP1, runP1k } from './p1-tap-latency';
 import { runP2, runP3, runP4 } from './p2-p4-pages';
 import { runP5 } from './p5-sync-flush';
 import { runP6 } from './p6-round-build';
@@ -17,6 +17,7 @@ const BENCHES: Record<
   (db: ReturnType<typeof connectDatabase>) => Promise<{ figures: Figure[]; notes: string[] }>
 > = {
   P1: runP1,
+  'P1-1K': runP1k,
   P2: runP2,
   P3: runP3,
   P4: runP4,

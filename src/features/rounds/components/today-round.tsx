@@ -110,12 +110,7 @@ export function TodayRound({
   );
   const groupActions = useCallback(
     (label: string, list: RoundItemView[]) => (
-      <TrayAtOnce
-        key={label}
-        label={label}
-        items={list}
-        onRecord={(chosen) => recordShelf(label, chosen)}
-      />
+      <TrayAtOnce key={label} label={label} items={list} onRecord={recordShelf} />
     ),
     [recordShelf],
   );
@@ -169,6 +164,10 @@ export function TodayRound({
   );
   const items = local.data?.round.items;
   const counts = useMemo(() => roundCounts(items ?? []), [items]);
+  const shown = useMemo(
+    () => filterItems(items ?? [], filter, search, kept),
+    [items, filter, search, kept],
+  );
 
   if (local.isPending || (!local.data && server.isPending))
     return <Loading label="Loading today’s round…" />;
@@ -239,7 +238,7 @@ export function TodayRound({
         Print a checklist of this round
       </Link>
       <RoundList
-        items={filterItems(round.items, filter, search, kept)}
+        items={shown}
         timeZone={round.timeZone}
         myName={myName}
         empty={

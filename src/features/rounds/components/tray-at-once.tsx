@@ -1,4 +1,4 @@
-import { lazy, Suspense, useState } from 'react';
+import { lazy, memo, Suspense, useState } from 'react';
 import type { EventKind } from '#shared/domain/event-kinds';
 import type { RoundItemView } from '#shared/schemas/rounds';
 import { Button } from '@/components/ui/button';
@@ -16,14 +16,25 @@ export const unfed = (items: readonly RoundItemView[]) =>
 interface Props {
   label: string;
   items: readonly RoundItemView[];
-  onRecord: (list: { animal: RoundItemView['animal']; kind: EventKind }[]) => Promise<unknown>;
+  /** Keep it stable (useCallback): a tap elsewhere then leaves this shelf's button alone. */
+  onRecord: (
+    label: string,
+    list: { animal: RoundItemView['animal']; kind: EventKind }[],
+  ) => Promise<unknown>;
 }
+
+/** The same items, one by one: a tap on another shelf leaves this one's list as it was. */
+const sameProps = (a: Props, b: Props) =>
+  a.label === b.label &&
+  a.onRecord === b.onRecord &&
+  a.items.length === b.items.length &&
+  a.items.every((item, i) => item === b.items[i]);
 
 /**
  * "All ate except …" for a tray of slings: one action, one event per animal, exceptions picked
  * from a list. Written in one transaction on the phone, so it works with no signal.
  */
-export function TrayAtOnce({ label, items, onRecord }: Props) {
+export const TrayAtOnce = memo(function TrayAtOnce({ label, items, onRecord }: Props) {
   const [open, setOpen] = useState(false);
   const [picks, setPicks] = useState<Record<string, Choice>>({});
   const list = unfed(items);
@@ -41,11 +52,11 @@ export function TrayAtOnce({ label, items, onRecord }: Props) {
             list={list}
             picks={picks}
             onPick={(id, choice) => setPicks((p) => ({ ...p, [id]: choice }))}
-            onRecord={(chosen) => onRecord(chosen).finally(() => setPicks({}))}
+            onRecord={(chosen) => onRecord(label, chosen).finally(() => setPicks({}))}
             onClose={() => setOpen(false)}
           />
         </Suspense>
       )}
     </div>
   );
-}
+}, sameProps);
