@@ -1,7 +1,7 @@
 // Sessions for people signed in on their own phone for weeks (docs/decisions/003-sessions.md),
 // kept in PostgreSQL so every server process knows them.
-import { createHmac, timingSafeEqual } from 'node:crypto';
 import connectPgSimple from 'connect-pg-simple';
+import { unsign } from 'cookie-signature';
 import type { RequestHandler } from 'express';
 import session from 'express-session';
 import type pg from 'pg';
@@ -60,8 +60,8 @@ export type SessionStore = ReturnType<typeof createSessionStore>;
 const SESSION_COOKIE_VALUE = /(?:^|;\s*)rackside\.sid=([^;]*)/;
 
 /**
- * The session id a request's signed session cookie carries, checked as express-session checks
- * it (cookie-signature: HMAC-SHA256, base64 without padding); null when absent or not ours.
+ * The session id a request's signed session cookie carries, checked with the signature library
+ * express-session itself uses (cookie-signature's `unsign`); null when absent or not ours.
  */
 export function signedSessionId(cookieHeader: string | undefined, secret: string): string | null {
   const m = SESSION_COOKIE_VALUE.exec(cookieHeader ?? '');
@@ -72,14 +72,9 @@ export function signedSessionId(cookieHeader: string | undefined, secret: string
   } catch {
     return null;
   }
-  const dot = raw.lastIndexOf('.');
-  if (!raw.startsWith('s:') || dot < 3) return null;
-  const sid = raw.slice(2, dot);
-  const mac = Buffer.from(
-    createHmac('sha256', secret).update(sid).digest('base64').replace(/=+$/, ''),
-  );
-  const given = Buffer.from(raw.slice(dot + 1));
-  return given.length === mac.length && timingSafeEqual(given, mac) ? sid : null;
+  if (!raw.startsWith('s:')) return null;
+  const sid = unsign(raw.slice(2), secret);
+  return sid === false ? null : sid;
 }
 
 /** Whether a session began too long ago to be used (the absolute timeout below). */
