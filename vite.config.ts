@@ -4,6 +4,7 @@ import react from '@vitejs/plugin-react';
 import type { Plugin } from 'vite';
 import { VitePWA } from 'vite-plugin-pwa';
 import { defineConfig } from 'vitest/config';
+import { firstVisit } from './scripts/vite-first-visit.ts';
 import { PALETTES } from './src/styles/palette.ts';
 
 const alias = {
@@ -41,6 +42,7 @@ export default defineConfig({
     react(),
     tailwindcss(),
     preloadFirstScreenFonts(),
+    firstVisit(),
     VitePWA({
       registerType: 'prompt',
       injectRegister: false,

@@ -1,5 +1,6 @@
 import type { z } from 'zod';
 import type { ErrorBody } from '#shared/schemas/common';
+import { takeEarlyAnswer } from './early-requests';
 
 /** Every failed API call becomes one of these, with a message fit to show a person. */
 export class ApiError extends Error {
@@ -59,6 +60,15 @@ async function send(
   accept: string,
 ): Promise<Response> {
   const multipart = body instanceof FormData;
+  // A plain GET the page already asked for while the app downloaded: that answer, if it came.
+  const early =
+    method === 'GET' && body === undefined && !ifNoneMatch && !signal?.aborted
+      ? takeEarlyAnswer(path)
+      : undefined;
+  if (early) {
+    const answer = await early.catch(() => undefined);
+    if (answer) return answer;
+  }
   try {
     return await fetch(`/api${path}`, {
       method,

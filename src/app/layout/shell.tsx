@@ -11,6 +11,7 @@ import { useMe } from '@/features/auth/api/get-me';
 import { useCurrentCollection } from '@/features/auth/hooks/use-current-collection';
 import { SyncIndicator } from '@/features/sync/components/sync-indicator';
 import { ApiError } from '@/lib/api-client';
+import { forgetEarlyAnswers } from '@/lib/early-requests';
 import { queryKeys } from '@/lib/query-keys';
 import { startSync } from '@/lib/sync-driver';
 import type { ShellContext } from './use-shell';
@@ -87,6 +88,8 @@ export function Shell() {
     () =>
       userId
         ? startSync(userId, () => {
+            // What the page fetched before these taps arrived must not be shown after them.
+            forgetEarlyAnswers();
             void queryClient.invalidateQueries({ queryKey: queryKeys.rounds.everywhere() });
             // A synced molt can change an animal's size and sex.
             void queryClient.invalidateQueries({ queryKey: queryKeys.animals.everywhere() });

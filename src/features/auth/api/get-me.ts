@@ -9,7 +9,8 @@ async function fetchMe(): Promise<MeResponse> {
   try {
     const { meResponse } = await import('#shared/schemas/auth');
     const me = await apiRequest('/auth/me', { schema: meResponse });
-    await withDb((db) => storeMe(db, me)).catch(() => undefined);
+    // Kept for the next start; the screen does not wait for the write (P3).
+    void withDb((db) => storeMe(db, me)).catch(() => undefined);
     return me;
   } catch (err) {
     if (err instanceof ApiError && err.status === 401)
@@ -25,19 +26,32 @@ export const rememberMe = (me: MeResponse) =>
 /**
  * Local first: the phone's copy answers at once (a back room may have a signal that never
  * answers), and the server's answer replaces it in the background. A 401 from the server
- * forgets the copy and asks again, which sends the person to sign in.
+ * forgets the copy and asks again, which sends the person to sign in. Both are asked at once:
+ * a first visit has no copy, and opening the phone's database for the first time can take
+ * longer than the server's answer (P3), so a server answer that comes first is taken.
  */
 async function loadMe(queryClient: QueryClient): Promise<MeResponse> {
-  const known = await withDb(cachedMe).catch(() => undefined);
-  if (!known) return fetchMe();
-  fetchMe().then(
+  const fresh = fetchMe();
+  const first = await Promise.race([
+    withDb(cachedMe).then(
+      (me) => ({ server: false, me }),
+      () => ({ server: false, me: undefined }),
+    ),
+    // A failed answer waits for the phone's copy: offline, it is all there is.
+    fresh.then(
+      (me) => ({ server: true, me }),
+      () => new Promise<never>(() => undefined),
+    ),
+  ]);
+  if (first.server || !first.me) return fresh;
+  fresh.then(
     (me) => queryClient.setQueryData(queryKeys.auth.me(), me),
     (err) => {
       if (err instanceof ApiError && err.status === 401)
         void queryClient.resetQueries({ queryKey: queryKeys.auth.me() });
     },
   );
-  return known;
+  return first.me;
 }
 
 export function useMe() {

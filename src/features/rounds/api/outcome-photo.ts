@@ -1,5 +1,4 @@
 import { useSyncExternalStore } from 'react';
-import { noContent } from '#shared/schemas/common';
 import { ApiError } from '@/lib/api-client';
 import { withDb } from '@/lib/db';
 import { syncNow } from '@/lib/sync-driver';
@@ -66,6 +65,8 @@ export function sendOutcomePhoto(
       await syncNow();
       if (await stillQueued(outcome.eventId)) return later();
       update(outcome.eventId, { phase: 'sending' });
+      // The schema (and zod with it) loads with the first photo, not with the first screen (P4).
+      const { noContent } = await import('#shared/schemas/common');
       await uploadPhoto(url, file, noContent);
       finish({ phase: 'sent' });
     } catch (err) {
