@@ -229,7 +229,8 @@ export async function measureTaps(
     if (committed.length !== taps)
       throw new Error(`P1: ${committed.length} commits measured for ${taps} taps`);
     const outbox = await outboxCount(page);
-    if (outbox !== taps) throw new Error(`P1: expected ${taps} taps in the outbox, found ${outbox}`);
+    if (outbox !== taps)
+      throw new Error(`P1: expected ${taps} taps in the outbox, found ${outbox}`);
     await context.close();
     const timings = raw.map(({ t0, dom, frame, painted }, i) => {
       const c = committed[i]!;
@@ -265,7 +266,12 @@ export function describeRun(id: string, run: TapRun): string {
 }
 
 function ratioFigure(id: string, run: TapRun): Figure & { ratio: number } {
-  const tapP95 = Number(percentile(run.timings.map((t) => t.total), 95).toFixed(1));
+  const tapP95 = Number(
+    percentile(
+      run.timings.map((t) => t.total),
+      95,
+    ).toFixed(1),
+  );
   const putP95 = Number(percentile(run.puts, 95).toFixed(1));
   const ratio = Number((tapP95 / putP95).toFixed(2));
   return {
