@@ -11,7 +11,7 @@ describe('growth and breeding at 360 px', () => {
     const { page, consoleErrors } = await phonePage(env.browser);
     await signInAsDemo(page, env.server.baseUrl, 'owner@northlight.test');
     await page.getByRole('link', { name: 'Animals', exact: true }).click();
-    await page.getByLabel('Find').fill('Juniper');
+    await page.getByLabel('Find', { exact: true }).fill('Juniper');
     await page.getByRole('link', { name: 'Juniper' }).click();
 
     const molt = page.getByRole('form', { name: 'Record a molt' });

@@ -128,8 +128,10 @@ describe('today’s round with no signal', () => {
     // Later, from the animal's history: the undone refusal is struck through, and an older
     // fact can be undone too — again by a void.
     await page.getByRole('link', { name: 'Animals', exact: true }).click();
+    // Today's own search box is labelled "Find a label code…": wait for the Animals page.
+    await page.waitForURL('**/animals');
     // The collection list renders only the rows in view: find Tiger first.
-    await page.getByLabel('Find').fill('Tiger');
+    await page.getByLabel('Find', { exact: true }).fill('Tiger');
     await page.getByRole('link', { name: 'Tiger' }).click();
     const history = page.getByRole('region', { name: 'Timeline' });
     await expect.poll(() => history.innerText()).toMatch(/Refused[\s\S]*undone/);

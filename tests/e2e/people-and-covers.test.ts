@@ -215,7 +215,7 @@ describe('the timeline', () => {
     const page = owner.page;
     await signInAsDemo(page, env.server.baseUrl, 'owner@northlight.test');
     await page.getByRole('link', { name: 'Animals', exact: true }).click();
-    await page.getByLabel('Find').fill('Juniper');
+    await page.getByLabel('Find', { exact: true }).fill('Juniper');
     await page.getByRole('link', { name: 'Juniper' }).first().click();
     const history = page.getByRole('region', { name: 'Timeline' });
     const older = history.getByRole('button', { name: /^Undo .+…$/ }).first();

@@ -75,7 +75,7 @@ describe('places and pot-ups at 360 px', () => {
     await page.waitForURL('**/labels');
 
     await page.goto(`${env.server.baseUrl}/animals`);
-    await page.getByLabel('Find').fill('Sprout');
+    await page.getByLabel('Find', { exact: true }).fill('Sprout');
     const card = page.getByRole('listitem').filter({ hasText: 'Sprout 01' });
     await expect.poll(() => card.innerText()).toMatch(/· C3-1\b/);
     await page.getByRole('link', { name: 'Sprout 01' }).click();
@@ -136,7 +136,7 @@ describe('places and pot-ups at 360 px', () => {
 
     // The tray's slings read the new name on their page.
     await page.goto(`${env.server.baseUrl}/animals`);
-    await page.getByLabel('Find').fill('Formosus 13');
+    await page.getByLabel('Find', { exact: true }).fill('Formosus 13');
     await page.getByRole('link', { name: 'Formosus 13' }).click();
     await expect
       .poll(() => page.getByRole('article', { name: /^Formosus 13, / }).innerText())

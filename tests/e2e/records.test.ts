@@ -67,7 +67,7 @@ describe('collection records at 360 px', () => {
     await page.getByRole('article', { name: /^Saffron, / }).waitFor();
 
     await page.getByRole('link', { name: 'Animals', exact: true }).click();
-    await page.getByLabel('Find').fill('saffron');
+    await page.getByLabel('Find', { exact: true }).fill('saffron');
     await expect.poll(() => page.getByText(/^1 of \d+ animals/).count()).toBe(1);
     await expectAccessible(page, 'collection table');
     await screenshot(page, 'records-02-table');
@@ -147,7 +147,7 @@ describe('collection records at 360 px', () => {
       .toBe(1);
 
     await page.getByRole('link', { name: 'Animals', exact: true }).click();
-    await page.getByLabel('Find').fill('Import 1');
+    await page.getByLabel('Find', { exact: true }).fill('Import 1');
     // "Import 1" matches Import 100–199; of those, 120 and 180 were refused.
     await expect.poll(() => page.getByText(/^98 of \d+ animals/).count()).toBe(1);
     expect(consoleErrors).toEqual([]);

@@ -58,7 +58,7 @@ describe('the round screens at 360 × 740', () => {
     );
 
     await page.getByRole('link', { name: 'Animals' }).click();
-    await page.getByLabel('Find').fill('Goliath');
+    await page.getByLabel('Find', { exact: true }).fill('Goliath');
     await page.getByRole('link', { name: 'Goliath Jr' }).click();
     await page.waitForURL('**/animals/*');
     const schedule = page.getByRole('region', { name: 'Schedule' });

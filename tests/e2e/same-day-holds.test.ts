@@ -32,7 +32,7 @@ const syncStatus = (page: Page) =>
 async function openAnimal(page: Page, name: string) {
   await page.getByRole('link', { name: 'Animals', exact: true }).click();
   await page.getByRole('heading', { name: 'Animals', level: 1 }).waitFor();
-  await page.getByLabel('Find').fill(name);
+  await page.getByLabel('Find', { exact: true }).fill(name);
   await page
     .getByRole('link', { name: new RegExp(`^${name}\\b`) })
     .first()
@@ -47,7 +47,7 @@ describe('a hold that begins during the day', () => {
     // The phone keeps its copy of the animal list once it has loaded it (a few seconds after
     // start): open the list once while online, as a keeper's phone would have.
     await page.getByRole('link', { name: 'Animals', exact: true }).click();
-    await page.getByLabel('Find').waitFor();
+    await page.getByLabel('Find', { exact: true }).waitFor();
     await page.getByRole('link', { name: 'Today', exact: true }).click();
     // Dusty is an adult carried over from yesterday, due for food in the demo.
     const dusty = item(page, 'Dusty');
