@@ -125,6 +125,8 @@ export async function runP7(database: Database): Promise<{ figures: Figure[]; no
     // The syncing phones: each sends a batch, waits for the answer, and sends the next.
     const sent: string[] = [];
     let syncErrors = 0;
+    // What each failed batch got back, so a failure can be told from the next (status: message).
+    const syncFailures: string[] = [];
     let syncBatches = 0;
     const stopAt = Date.now() + DURATION_S * 1000;
     const devices = Array.from({ length: DEVICES }, async (_, d) => {
@@ -150,9 +152,21 @@ export async function runP7(database: Database): Promise<{ figures: Figure[]; no
         if (res?.status === 200) {
           const { results } = (await res.json()) as { results: { status: string }[] };
           if (results.every((r) => r.status === 'accepted')) sent.push(...events.map((e) => e.id));
-          else syncErrors++;
+          else {
+            syncErrors++;
+            syncFailures.push(
+              `200 with ${results.filter((r) => r.status !== 'accepted').length} not accepted`,
+            );
+          }
           syncBatches++;
-        } else syncErrors++;
+        } else {
+          syncErrors++;
+          syncFailures.push(
+            res
+              ? `${res.status}: ${(await res.text().catch(() => '')).slice(0, 160)}`
+              : 'no answer',
+          );
+        }
         await new Promise((r) => setTimeout(r, Math.max(0, next - Date.now())));
       }
     });
@@ -270,6 +284,7 @@ export async function runP7(database: Database): Promise<{ figures: Figure[]; no
     const notes = [
       `P7-base: ${base.requests.total} reads (${Math.round(base.requests.average)} req/s), latency p50 ${base.latency.p50} ms, p90 ${base.latency.p90} ms, p99 ${base.latency.p99} ms, max ${base.latency.max} ms, ${baseErrors} errors; run just before Rackside's, reads only.`,
       `P7: ${reads.requests.total} round reads (${Math.round(reads.requests.average)} req/s, ${Math.round(sizes[0]! / 1024)} KB of JSON, ${Math.round(sizes[1]! / 1024)} KB gzipped), latency p50 ${reads.latency.p50} ms, p90 ${reads.latency.p90} ms, p99 ${reads.latency.p99} ms, max ${reads.latency.max} ms; ${syncBatches} sync batches of ${BATCH} (${sent.length} events) from ${DEVICES} devices at the same time, each sending a batch a second; the server logs every API request at info level as in production. CPU over the run: server ${serverCpu} % of one core, the load generator and phones ${benchCpu} %, on a machine with ${os.availableParallelism()} cores shared with PostgreSQL.`,
+      ...(syncFailures.length ? [`P7 failed sync batches: ${syncFailures.join('; ')}`] : []),
     ];
     return { figures, notes };
   } finally {

@@ -9,15 +9,7 @@ import {
   type VisibilityState,
 } from '@tanstack/react-table';
 import { useWindowVirtualizer } from '@tanstack/react-virtual';
-import {
-  memo,
-  useEffect,
-  useLayoutEffect,
-  useMemo,
-  useRef,
-  useState,
-  useSyncExternalStore,
-} from 'react';
+import { memo, useEffect, useMemo, useState, useSyncExternalStore } from 'react';
 import { Link } from 'react-router-dom';
 import {
   ANIMAL_GROUPS,
@@ -37,6 +29,7 @@ import type { AnimalSummary } from '#shared/schemas/animals';
 import { CautionIcon } from '@/components/ui/icons';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
+import { useScrollMargin } from '@/lib/use-scroll-margin';
 import { activeFilterCount, filterAnimals, NO_FILTERS, type TableFilters } from '../table-filters';
 
 const COLUMNS_KEY = 'rackside.table-columns';
@@ -258,27 +251,9 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
   );
 
   const tableRows = table.getRowModel().rows;
-  // The list starts well down the page (heading, search, filters): the window virtualizer must
-  // know where, or it lays rows out as if the list began at the top of the page and leaves a
-  // band of blank rows at the bottom of the screen while scrolling. Measured after every render,
-  // as the filters and the chosen-animals bar above it open and close.
-  const listRef = useRef<HTMLDivElement>(null);
-  const [scrollMargin, setScrollMargin] = useState(0);
-  useLayoutEffect(() => {
-    const measure = () => {
-      const el = listRef.current;
-      if (el) setScrollMargin(Math.round(el.getBoundingClientRect().top + window.scrollY));
-    };
-    measure();
-    // Anything above the list that opens or closes changes the page's height.
-    const observer = new ResizeObserver(measure);
-    observer.observe(document.body);
-    window.addEventListener('resize', measure);
-    return () => {
-      observer.disconnect();
-      window.removeEventListener('resize', measure);
-    };
-  }, []);
+  // The list starts well down the page (heading, search, filters, the chosen-animals bar), and
+  // anything above it that opens or closes changes the page's height.
+  const { ref: listRef, scrollMargin } = useScrollMargin<HTMLDivElement>(() => document.body);
   const virtualizer = useWindowVirtualizer({
     count: tableRows.length,
     estimateSize: () => (narrow ? 124 : 56),
