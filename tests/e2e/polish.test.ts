@@ -71,7 +71,8 @@ describe('the animals page at 360 px', () => {
     await list.getByRole('link').filter({ visible: true }).first().click();
     await page.waitForURL(/\/animals\/[0-9a-f-]{36}$/);
     await page.getByRole('heading', { level: 1 }).waitFor();
-    expect(await page.evaluate(() => window.scrollY)).toBe(0);
+    // Opened at its top (ScrollRestoration scrolls as the new page lays out).
+    await expect.poll(() => page.evaluate(() => window.scrollY), { timeout: 2_000 }).toBe(0);
     // The animal page opens with its name, not a photo placeholder.
     const headings = await page.locator('main h1').allInnerTexts();
     expect(headings).toHaveLength(1);
