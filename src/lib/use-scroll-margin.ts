@@ -30,3 +30,18 @@ export function useScrollMargin<T extends HTMLElement>(
   }, []);
   return { ref, scrollMargin };
 }
+
+/**
+ * The space a window-virtualised list leaves above and below the rows it renders, so the page
+ * keeps the whole list's height (rows are laid out from `scrollMargin`).
+ */
+export function windowPadding(
+  rows: readonly { start: number; end: number }[],
+  totalSize: number,
+  scrollMargin: number,
+) {
+  return {
+    padTop: Math.max(0, (rows[0]?.start ?? scrollMargin) - scrollMargin),
+    padBottom: Math.max(0, totalSize - ((rows.at(-1)?.end ?? scrollMargin) - scrollMargin)),
+  };
+}

@@ -29,7 +29,7 @@ import type { AnimalSummary } from '#shared/schemas/animals';
 import { CautionIcon } from '@/components/ui/icons';
 import { SelectField } from '@/components/ui/select-field';
 import { TextField } from '@/components/ui/text-field';
-import { useScrollMargin } from '@/lib/use-scroll-margin';
+import { useScrollMargin, windowPadding } from '@/lib/use-scroll-margin';
 import { activeFilterCount, filterAnimals, NO_FILTERS, type TableFilters } from '../table-filters';
 
 const COLUMNS_KEY = 'rackside.table-columns';
@@ -261,11 +261,7 @@ export function AnimalTable({ animals, dueToday, unit, timeZone, onSelection }: 
     scrollMargin,
   });
   const items = virtualizer.getVirtualItems();
-  const padTop = Math.max(0, (items[0]?.start ?? scrollMargin) - scrollMargin);
-  const padBottom = Math.max(
-    0,
-    virtualizer.getTotalSize() - ((items.at(-1)?.end ?? scrollMargin) - scrollMargin),
-  );
+  const { padTop, padBottom } = windowPadding(items, virtualizer.getTotalSize(), scrollMargin);
   const any = (word: string, values: readonly string[], named: (v: string) => string) => [
     { value: '', label: word },
     ...values.map((v) => ({ value: v, label: named(v) })),

@@ -1,7 +1,7 @@
 import { useWindowVirtualizer } from '@tanstack/react-virtual';
 import { useMemo } from 'react';
 import type { RoundItemView } from '#shared/schemas/rounds';
-import { useScrollMargin } from '@/lib/use-scroll-margin';
+import { useScrollMargin, windowPadding } from '@/lib/use-scroll-margin';
 import { Shelf, type CardProps, type ListProps } from './round-shelf';
 
 /** A shelf longer than this is cut into parts, so no single part of the virtual list is huge. */
@@ -48,11 +48,7 @@ export default function VirtualShelves({
     getItemKey: (i) => parts[i]!.key,
   });
   const rows = virtualizer.getVirtualItems();
-  const padTop = Math.max(0, (rows[0]?.start ?? scrollMargin) - scrollMargin);
-  const padBottom = Math.max(
-    0,
-    virtualizer.getTotalSize() - ((rows.at(-1)?.end ?? scrollMargin) - scrollMargin),
-  );
+  const { padTop, padBottom } = windowPadding(rows, virtualizer.getTotalSize(), scrollMargin);
   return (
     <div ref={listRef} style={{ paddingTop: padTop, paddingBottom: padBottom }}>
       {rows.map((row) => {
