@@ -13,6 +13,16 @@ const alias = {
 };
 
 /**
+ * react-router 7's package exports name only its development build (with its warnings and
+ * checks), so a production build would ship that: take its production files by path.
+ */
+const routerDist = path.resolve(import.meta.dirname, 'node_modules/react-router/dist/production');
+const productionAlias = [
+  { find: /^react-router$/, replacement: path.join(routerDist, 'index.mjs') },
+  { find: /^react-router\/dom$/, replacement: path.join(routerDist, 'dom-export.mjs') },
+];
+
+/**
  * Preloads the font weights the first screen uses, so the heading is not painted twice (once in
  * a fallback face, again when the weight arrives) — that second paint was the offline LCP (P2).
  */
@@ -36,8 +46,13 @@ function preloadFirstScreenFonts(): Plugin {
   };
 }
 
-export default defineConfig({
-  resolve: { alias },
+export default defineConfig(({ command, mode }) => ({
+  resolve: {
+    alias: [
+      ...Object.entries(alias).map(([find, replacement]) => ({ find, replacement })),
+      ...(command === 'build' && mode === 'production' ? productionAlias : []),
+    ],
+  },
   plugins: [
     react(),
     tailwindcss(),
@@ -131,4 +146,4 @@ export default defineConfig({
       },
     ],
   },
-});
+}));

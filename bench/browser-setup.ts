@@ -104,14 +104,25 @@ export async function throttle(context: BrowserContext, page: Page, slowLink = f
 }
 
 /** The page's largest contentful paint so far (ms from navigation start). */
-export async function largestContentfulPaint(page: Page): Promise<number> {
+/** The page's last largest-contentful-paint entry: when, and which element it was. */
+export async function largestContentfulPaint(
+  page: Page,
+): Promise<{ startTime: number; element: string }> {
   await page.waitForTimeout(1_000); // let later, larger paints land
   const lcp = await page.evaluate(
     () =>
-      new Promise<number | null>((resolve) => {
-        new PerformanceObserver((list) =>
-          resolve(list.getEntries().at(-1)?.startTime ?? null),
-        ).observe({ type: 'largest-contentful-paint', buffered: true });
+      new Promise<{ startTime: number; element: string } | null>((resolve) => {
+        new PerformanceObserver((list) => {
+          const last = list.getEntries().at(-1) as
+            (PerformanceEntry & { element?: Element | null }) | undefined;
+          if (!last) return resolve(null);
+          const el = last.element;
+          const text = (el?.textContent ?? '').replace(/\s+/g, ' ').trim().slice(0, 40);
+          resolve({
+            startTime: last.startTime,
+            element: el ? `<${el.tagName.toLowerCase()}> "${text}"` : '(removed element)',
+          });
+        }).observe({ type: 'largest-contentful-paint', buffered: true });
         setTimeout(() => resolve(null), 3_000);
       }),
   );

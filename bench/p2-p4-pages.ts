@@ -39,6 +39,7 @@ async function visit(
   url: string,
   ready: (p: Page) => Promise<void>,
   slowLink: boolean,
+  elements?: string[],
 ): Promise<number> {
   const page = await context.newPage();
   await throttle(context, page, slowLink);
@@ -50,8 +51,9 @@ async function visit(
     );
   });
   const lcp = await largestContentfulPaint(page);
+  elements?.push(lcp.element);
   await page.close();
-  return lcp;
+  return lcp.startTime;
 }
 
 async function withApps<T>(
@@ -121,8 +123,9 @@ export async function runP2(database: Database): Promise<{ figures: Figure[]; no
     await cutNetwork(shellContext);
     const appLcp: number[] = [];
     const shellLcp: number[] = [];
+    const appElements: string[] = [];
     for (let i = 0; i < RUNS; i++) {
-      appLcp.push(await visit(appContext, `${app}/today`, roundReady, false));
+      appLcp.push(await visit(appContext, `${app}/today`, roundReady, false, appElements));
       shellLcp.push(await visit(shellContext, `${shell}/today`, shellReady, false));
     }
     return {
@@ -136,6 +139,7 @@ export async function runP2(database: Database): Promise<{ figures: Figure[]; no
       ),
       notes: [
         `P2 LCP runs: Rackside ${appLcp.map(Math.round).join(', ')} ms; minimal shell ${shellLcp.map(Math.round).join(', ')} ms.`,
+        `P2 Rackside's LCP elements: ${[...new Set(appElements)].join('; ')}.`,
       ],
     };
   });
@@ -144,13 +148,14 @@ export async function runP2(database: Database): Promise<{ figures: Figure[]; no
 export async function runP3(database: Database): Promise<{ figures: Figure[]; notes: string[] }> {
   return withApps(database, async ({ app, shell, browser }) => {
     const today: number[] = [];
+    const todayElements: string[] = [];
     const signInPage: number[] = [];
     const shellLcp: number[] = [];
     for (let i = 0; i < RUNS; i++) {
       // Each visit in a fresh context: empty HTTP cache, no service worker yet.
       const signedIn = await phoneContext(browser);
       await signIn(signedIn, app);
-      today.push(await visit(signedIn, `${app}/today`, roundReady, true));
+      today.push(await visit(signedIn, `${app}/today`, roundReady, true, todayElements));
       await signedIn.close();
       const stranger = await phoneContext(browser);
       signInPage.push(
@@ -187,6 +192,7 @@ export async function runP3(database: Database): Promise<{ figures: Figure[]; no
       ],
       notes: [
         `P3 LCP runs: Today ${today.map(Math.round).join(', ')} ms; sign-in ${signInPage.map(Math.round).join(', ')} ms; minimal shell ${shellLcp.map(Math.round).join(', ')} ms.`,
+        `P3 Today's LCP elements: ${[...new Set(todayElements)].join('; ')}.`,
       ],
     };
   });

@@ -2,11 +2,12 @@
 // the minimal shell over P3's link (150 ms RTT, 1.6 Mbit/s, CPU ×4), each printed as the requests
 // in the order they started (Resource Timing: start, first byte, end, bytes on the wire), the
 // paints and every largest-contentful-paint candidate with the element it painted.
+import { writeFile } from 'node:fs/promises';
 import type { BrowserContext, Page } from 'playwright-core';
 import { DEMO_PASSWORD } from '../server/access/demo-people';
 import type { Database } from '../server/db/client';
 import { seedDemo } from '../server/seed/demo';
-import { launchBrowser } from '../tests/chromium';
+import { cutNetwork, launchBrowser, underServiceWorker } from '../tests/chromium';
 import { startBenchApp } from './bench-app';
 import { ensureBuilds, phoneContext, serveMinimalShell, throttle } from './browser-setup';
 import type { Figure } from './results-file';
@@ -156,9 +157,10 @@ export async function profileFirstVisit(
   context: BrowserContext,
   url: string,
   ready: (p: Page) => Promise<void>,
+  slowLink = true,
 ): Promise<string[]> {
   const page = await context.newPage();
-  const cdp = await throttle(context, page, true);
+  const cdp = await throttle(context, page, slowLink);
   await cdp.send('Profiler.enable');
   await cdp.send('Profiler.setSamplingInterval', { interval: 500 });
   await cdp.send('Profiler.start');
@@ -166,6 +168,9 @@ export async function profileFirstVisit(
   await ready(page);
   const { profile } = await cdp.send('Profiler.stop');
   await page.close();
+  // The raw profile, for DevTools or a source-mapped breakdown (P3_PROFILE_OUT=/tmp/x.cpuprofile).
+  if (process.env.P3_PROFILE_OUT)
+    await writeFile(process.env.P3_PROFILE_OUT, JSON.stringify(profile));
   const byId = new Map(profile.nodes.map((n) => [n.id, n]));
   const self = new Map<string, number>();
   const dt = profile.timeDeltas ?? [];
@@ -187,4 +192,71 @@ export async function profileFirstVisit(
       .slice(0, n)
       .map(([k, v]) => `  ${Math.round(v).toString().padStart(6)} ms  ${k}`);
   return ['CPU self time by file:', ...top(byFile, 12), 'by function:', ...top(self, 25)];
+}
+
+/**
+ * P2-WATERFALL: the same timeline for P2's offline repeat visit to Today: signed in, one online
+ * visit installs the service worker and stores the round, then no network and CPU ×4.
+ */
+export async function runP2Waterfall(
+  database: Database,
+): Promise<{ figures: Figure[]; notes: string[] }> {
+  await ensureBuilds();
+  await seedDemo(database.db, { bcryptCost: 10 });
+  const app = await startBenchApp(database);
+  const { browser } = await launchBrowser();
+  const notes: string[] = [];
+  const roundShown = (p: Page) =>
+    p.getByRole('button', { name: 'Ate', exact: true }).first().waitFor({ timeout: 60_000 });
+  try {
+    const phone = await phoneContext(browser);
+    const res = await phone.request.post(`${app.baseUrl}/api/auth/sign-in`, {
+      data: { email: 'owner@northlight.test', password: DEMO_PASSWORD },
+      headers: { 'X-Rackside-Client': '1' },
+    });
+    if (res.status() !== 200) throw new Error(`sign-in failed: ${res.status()}`);
+    const online = await phone.newPage();
+    await online.goto(`${app.baseUrl}/today`);
+    await roundShown(online);
+    await underServiceWorker(online);
+    await roundShown(online);
+    await online.close();
+    await cutNetwork(phone);
+    await phone.addInitScript(OBSERVE_LONG_TASKS);
+    const lines: string[] = [];
+    for (let i = 1; i <= 2; i++) {
+      const page = await phone.newPage();
+      await throttle(phone, page, false);
+      await page.goto(`${app.baseUrl}/today`);
+      await roundShown(page);
+      lines.push(
+        ...describe(`Rackside, offline repeat visit ${i} to /today`, await timeline(page)),
+      );
+      await page.close();
+    }
+    if (process.env.P3_PROFILE) {
+      const profile = await profileFirstVisit(phone, `${app.baseUrl}/today`, roundShown, false);
+      lines.push(...profile);
+    }
+    if (process.env.P2_TRACE) {
+      // A Chromium performance trace of one more visit (open it in DevTools' Performance panel).
+      const page = await phone.newPage();
+      await throttle(phone, page, false);
+      await browser.startTracing(page, {
+        path: process.env.P2_TRACE,
+        categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'v8.execute'],
+      });
+      await page.goto(`${app.baseUrl}/today`);
+      await roundShown(page);
+      await timeline(page);
+      await browser.stopTracing();
+      await page.close();
+    }
+    console.log(lines.join('\n'));
+    notes.push(['P2 waterfall (ms from navigation start):', '```', ...lines, '```'].join('\n'));
+  } finally {
+    await browser.close();
+    await app.close();
+  }
+  return { figures: [], notes };
 }

@@ -5,7 +5,7 @@ import { migrateDatabase } from '../server/db/migrate';
 import { runOffEngineInput } from './off-engine-input';
 import { runP1, runP1k } from './p1-tap-latency';
 import { runP2, runP3, runP4 } from './p2-p4-pages';
-import { runP3Waterfall } from './p3-waterfall';
+import { runP2Waterfall, runP3Waterfall } from './p3-waterfall';
 import { runP5 } from './p5-sync-flush';
 import { runP6 } from './p6-round-build';
 import { runP7 } from './p7-load';
@@ -22,6 +22,7 @@ const BENCHES: Record<
   P2: runP2,
   P3: runP3,
   P4: runP4,
+  'P2-WATERFALL': runP2Waterfall,
   'P3-WATERFALL': runP3Waterfall,
   P5: runP5,
   P6: runP6,

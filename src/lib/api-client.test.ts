@@ -32,6 +32,24 @@ describe('JSON mode', () => {
     expect(init?.headers).toMatchObject({ 'X-Rackside-Client': '1', Accept: 'application/json' });
   });
 
+  it('loads a schema given as a loader only once an answer has come (P2: none with no signal)', async () => {
+    const load = vi.fn(async () => thing);
+    vi.stubGlobal(
+      'fetch',
+      vi.fn(async () => Promise.reject(new TypeError('Failed to fetch'))),
+    );
+    expect(await failure(apiRequest('/things/a', { schema: load }))).toMatchObject({ status: 0 });
+    answer(500, { error: { code: 'broken', message: 'Down for a moment.' } });
+    expect(await failure(apiRequest('/things/a', { schema: load }))).toMatchObject({
+      status: 500,
+      code: 'broken',
+    });
+    expect(load).not.toHaveBeenCalled();
+    answer(200, { id: 'b' });
+    expect(await apiRequest('/things/a', { schema: load })).toEqual({ id: 'b' });
+    expect(load).toHaveBeenCalledOnce();
+  });
+
   it('reads a 204 as undefined and refuses a body where none was expected', async () => {
     answer(204);
     expect(await apiRequest('/things/a', { method: 'DELETE', schema: noContent })).toBeUndefined();

@@ -33,6 +33,12 @@ export interface RequestOptions {
  */
 export type ResponseSchema<T> = z.ZodType<T>;
 
+/**
+ * A schema, or a loader of one that runs only once an answer has come: with no signal the
+ * request fails at once, and setting up zod's schemas first would hold the offline screen (P2).
+ */
+export type SchemaSource<T> = ResponseSchema<T> | (() => Promise<ResponseSchema<T>>);
+
 const OFFLINE = 'No connection to Rackside right now. Check your signal and try again.';
 /** The usual cause is an app older than its server (a phone that kept last week's copy). */
 const UNREADABLE =
@@ -112,10 +118,11 @@ export async function failureOf(res: Response): Promise<ApiError> {
  */
 export async function apiRequest<T>(
   path: string,
-  options: RequestOptions & { schema: ResponseSchema<T> },
+  options: RequestOptions & { schema: SchemaSource<T> },
 ): Promise<T> {
   const res = await send(path, options, 'application/json');
   if (!res.ok) throw await failureOf(res);
+  const schema = typeof options.schema === 'function' ? await options.schema() : options.schema;
   let data: unknown;
   if (res.status !== 204) {
     try {
@@ -124,7 +131,7 @@ export async function apiRequest<T>(
       throw new ApiError(res.status, 'bad_response', UNREADABLE, undefined, { cause: err });
     }
   }
-  const checked = options.schema.safeParse(data);
+  const checked = schema.safeParse(data);
   if (!checked.success)
     throw new ApiError(res.status, 'bad_response', UNREADABLE, undefined, { cause: checked.error });
   return checked.data;

@@ -1,5 +1,12 @@
-import { QueryClient } from '@tanstack/react-query';
+import { notifyManager, QueryClient } from '@tanstack/react-query';
 import { ApiError } from './api-client';
+
+/**
+ * Query results reach React in a microtask rather than TanStack's default `setTimeout(0)`: a tap
+ * writes the round's query data, and its card then changes in the same render as the undo toast,
+ * not in a second one a task later (P1).
+ */
+notifyManager.setScheduler(queueMicrotask);
 
 export function createQueryClient() {
   return new QueryClient({

@@ -17,10 +17,9 @@ export interface AnimalDirectory {
  */
 export async function loadAnimals(collectionId: string): Promise<AnimalDirectory> {
   try {
-    // The schema loads with the first fetch, not with the first screen (P4).
-    const { animalListResponse } = await import('#shared/schemas/animals');
+    // The schema loads with the first answer, not with the first screen (P4).
     const { animals } = await apiRequest(`/collections/${collectionId}/animals`, {
-      schema: animalListResponse,
+      schema: async () => (await import('#shared/schemas/animals')).animalListResponse,
     });
     void withDb((db) => storeDirectory(db, collectionId, animals, new Date())).catch(
       () => undefined,

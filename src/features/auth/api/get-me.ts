@@ -7,8 +7,9 @@ import { queryKeys } from '@/lib/query-keys';
 /** Who is signed in, from the server; the answer is kept on the phone for offline starts. */
 async function fetchMe(): Promise<MeResponse> {
   try {
-    const { meResponse } = await import('#shared/schemas/auth');
-    const me = await apiRequest('/auth/me', { schema: meResponse });
+    const me = await apiRequest('/auth/me', {
+      schema: async () => (await import('#shared/schemas/auth')).meResponse,
+    });
     // Kept for the next start; the screen does not wait for the write (P3).
     void withDb((db) => storeMe(db, me)).catch(() => undefined);
     return me;

@@ -5,11 +5,10 @@ import { queryKeys } from '@/lib/query-keys';
 
 /** Sends a helper's report; the owners get it at once (the server mails it after answering). */
 export async function sendHelperReport(collectionId: string, body: HelperReportBody) {
-  const { createdResponse } = await import('#shared/schemas/common');
   return apiRequest(`/collections/${collectionId}/helper-reports`, {
     method: 'POST',
     body,
-    schema: createdResponse,
+    schema: async () => (await import('#shared/schemas/common')).createdResponse,
   });
 }
 
@@ -22,11 +21,10 @@ export function useSendHelperReport(collectionId: string) {
   });
 }
 
-/** The last month's reports, newest first (owners only). Its schema loads here: Today shows them. */
-export async function listHelperReports(collectionId: string) {
-  const { helperReportsResponse } = await import('#shared/schemas/helper-reports');
+/** The last month's reports, newest first (owners only). Today shows them: the schema loads with the answer. */
+export function listHelperReports(collectionId: string) {
   return apiRequest(`/collections/${collectionId}/helper-reports`, {
-    schema: helperReportsResponse,
+    schema: async () => (await import('#shared/schemas/helper-reports')).helperReportsResponse,
   });
 }
 

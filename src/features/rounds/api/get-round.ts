@@ -10,11 +10,13 @@ import { timesSaved } from '@/lib/sync-driver';
 
 const REFRESH_EVERY_MS = 5 * 60_000;
 
-/** The server's copy, checked against the shared schema (loaded here, not with the first screen). */
-export async function getRound(collectionId: string, day: RoundDay, signal?: AbortSignal) {
-  const { roundResponse } = await import('#shared/schemas/rounds');
+/**
+ * The server's copy, checked against the shared schema (loaded once the answer has come, not
+ * with the first screen, and not at all with no signal).
+ */
+export function getRound(collectionId: string, day: RoundDay, signal?: AbortSignal) {
   return apiRequest(`/collections/${collectionId}/rounds/${day}`, {
-    schema: roundResponse,
+    schema: async () => (await import('#shared/schemas/rounds')).roundResponse,
     signal,
   });
 }
