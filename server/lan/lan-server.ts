@@ -55,7 +55,13 @@ export async function lanBanner(lan: LanInfo): Promise<string> {
   const qr = await QRCode.toString(lan.url, { type: 'terminal', small: true });
   return [
     `  On your phone (same Wi-Fi), scan this or open ${lan.url}`,
-    qr.replace(/^/gm, '  '),
+    qr
+      .split('\n')
+      // The package ends with a line of colour codes only.
+      // eslint-disable-next-line no-control-regex
+      .filter((line) => line.replace(/\u001b\[[\d;]*m/g, '').length > 0)
+      .map((line) => `  ${line}`)
+      .join('\n'),
     `  First trust this computer's certificate on the phone: Settings → "Use Rackside on your phone",`,
     `  or download it at ${lan.url}${LAN_CERTIFICATE_PATH}`,
     `  Certificate to install (SHA-256): ${lan.caFingerprint}`,
