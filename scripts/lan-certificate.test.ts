@@ -6,7 +6,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { certificateNames } from '../server/lan/addresses';
 import { certificateFacts, regenerationReason } from '../server/lan/certificate-check';
 import { ensureLanCertificate } from './lan-certificate';
-import { lanFiles } from './lib/lan.mjs';
+import { lanEnv, lanFiles } from './lib/lan.mjs';
 
 const tmp = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-lan-cert-'));
 afterAll(() => fs.rmSync(tmp, { recursive: true, force: true }));
@@ -72,5 +72,19 @@ describe('the --lan certificate', () => {
     });
     expect(late.made).toMatch(/home authority was near its end.*not signed by the home authority/);
     expect(fs.readFileSync(files.caCert, 'utf8')).not.toBe(ca);
+  });
+});
+
+describe('what npm start -- --lan tells the server', () => {
+  it('HTTPS with the made files on every address, unless HOST says otherwise', () => {
+    const files = lanFiles('/srv/rackside/.data/lan');
+    expect(lanEnv({}, files)).toEqual({
+      LAN_MODE: 'true',
+      HOST: '0.0.0.0',
+      HTTPS_CERT_FILE: '/srv/rackside/.data/lan/server.crt',
+      HTTPS_KEY_FILE: '/srv/rackside/.data/lan/server.key',
+      HTTPS_CA_FILE: '/srv/rackside/.data/lan/home-ca.crt',
+    });
+    expect(lanEnv({ HOST: '::' }, files).HOST).toBe('::');
   });
 });

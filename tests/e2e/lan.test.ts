@@ -266,6 +266,10 @@ describe('a phone on the home network', () => {
     const link = section.getByRole('link', { name: "Download this computer's certificate" });
     expect(await link.getAttribute('href')).toBe('/api/lan/certificate');
     expect((await section.innerText()).replace(/\s/g, '')).toContain(made.caFingerprint);
+    // The phone gets the file its installer opens.
+    const [download] = await Promise.all([page.waitForEvent('download'), link.click()]);
+    expect(download.suggestedFilename()).toBe('rackside-home-authority.crt');
+    expect(fs.readFileSync(await download.path(), 'utf8')).toBe(ca);
     // Every target at least 48 px high.
     for (const target of [
       link,
