@@ -23,6 +23,7 @@ const SERVER_LAYERS = [
   'auth',
   'photos',
   'health',
+  'lan',
   'labels',
   'locations',
   'animals',

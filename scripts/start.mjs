@@ -1,6 +1,7 @@
 // `npm start`: from a clean clone to a running, seeded app.
 import { spawn } from 'node:child_process';
 import path from 'node:path';
+import { lanEnv } from './lib/lan.mjs';
 import { localSessionSecret } from './lib/secrets.mjs';
 import { SERVER_NODE_FLAGS } from './lib/server-flags.mjs';
 import {
@@ -25,6 +26,12 @@ const env = {
   DEMO_MODE: process.env.DEMO_MODE ?? (production ? 'false' : 'true'),
   SESSION_SECRET: process.env.SESSION_SECRET ?? (production ? '' : localSessionSecret()),
 };
+
+// `npm start -- --lan`: HTTPS on the home network with a certificate made for this machine.
+if (process.argv.includes('--lan')) {
+  runTs('scripts/lan-certificate.ts', [], env);
+  Object.assign(env, lanEnv(process.env));
+}
 
 say('Applying database migrations…');
 runTs('server/cli.ts', ['migrate'], env);

@@ -28,6 +28,7 @@ import { helperReportsRoutes } from './features/helper-reports/helper-reports.ro
 import { createHelperReportsService } from './features/helper-reports/helper-reports.service';
 import { labelsRoutes } from './features/labels/labels.routes';
 import { createLabelsService } from './features/labels/labels.service';
+import { lanRoutes } from './features/lan/lan.routes';
 import { locationsRoutes } from './features/locations/locations.routes';
 import { createLocationsService } from './features/locations/locations.service';
 import { photosRoutes } from './features/photos/photos.routes';
@@ -41,6 +42,7 @@ import {
 import { createRoundsService } from './features/rounds/rounds.service';
 import { rulesRoutes } from './features/rounds/rules.routes';
 import { animalsToReconcile } from './features/rounds/urgent-tasks';
+import type { LanInfo } from './lan/lan-server';
 import { createLogger, type Logger } from './logger';
 import type { DevMailbox } from './mail/dev-smtp';
 import type { Mailer } from './mail/mailer';
@@ -69,6 +71,8 @@ export interface AppOptions {
   logger?: Logger;
   /** Base URL for links in e-mails; defaults to PUBLIC_URL or the request's own origin. */
   publicUrl?: string;
+  /** LAN mode (`npm start -- --lan`): the address and certificate phones use. */
+  lan?: LanInfo;
 }
 
 export function createApp(options: AppOptions) {
@@ -108,7 +112,7 @@ export function createApp(options: AppOptions) {
   api.use(requireSameSiteWrite);
 
   const publicUrl = (p: string) =>
-    `${options.publicUrl ?? env.PUBLIC_URL ?? `http://localhost:${env.PORT}`}${p}`;
+    `${options.publicUrl ?? env.PUBLIC_URL ?? options.lan?.url ?? `http://localhost:${env.PORT}`}${p}`;
   const background = createBackground(logger);
   const auth = createAuthService({
     db: database.db,
@@ -138,6 +142,7 @@ export function createApp(options: AppOptions) {
     requireMember(database.db, min, now, options);
 
   api.use('/health', healthRoutes(database.pool));
+  api.use('/lan', lanRoutes(options.lan));
   const limiter = createLimiter(database.pool);
   const limits = { ...DEFAULT_AUTH_LIMITS, ...options.authLimits };
   api.use('/auth', authRoutes(auth, limits, SESSION_COOKIE, limiter));

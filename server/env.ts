@@ -1,3 +1,4 @@
+import fs from 'node:fs';
 import { z } from 'zod';
 
 const flag = z
@@ -41,8 +42,39 @@ export const envSchema = z
     BCRYPT_COST: z.coerce.number().int().min(10).max(15).default(11),
     LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).optional(),
     STORAGE_DIR: z.string().default('.data/storage'),
+    // HTTPS served by this process (node:https): the certificate and its key, as PEM files.
+    HTTPS_CERT_FILE: z.preprocess(unsetIfEmpty, z.string().optional()),
+    HTTPS_KEY_FILE: z.preprocess(unsetIfEmpty, z.string().optional()),
+    // `npm start -- --lan` (docs/decisions/016-home-network-https.md): HTTPS on the home
+    // network, and the certificate a phone should trust (the home authority) offered for download.
+    LAN_MODE: flag.default(false),
+    HTTPS_CA_FILE: z.preprocess(unsetIfEmpty, z.string().optional()),
   })
   .superRefine((env, ctx) => {
+    if (!!env.HTTPS_CERT_FILE !== !!env.HTTPS_KEY_FILE)
+      ctx.addIssue({
+        code: 'custom',
+        path: [env.HTTPS_CERT_FILE ? 'HTTPS_KEY_FILE' : 'HTTPS_CERT_FILE'],
+        message: 'HTTPS_CERT_FILE and HTTPS_KEY_FILE go together: give both, or neither for HTTP.',
+      });
+    if (env.LAN_MODE && !env.HTTPS_CERT_FILE)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['HTTPS_CERT_FILE'],
+        message:
+          'LAN_MODE needs HTTPS_CERT_FILE and HTTPS_KEY_FILE: phones open the camera only over HTTPS (`npm start -- --lan` makes them).',
+      });
+    for (const name of ['HTTPS_CERT_FILE', 'HTTPS_KEY_FILE', 'HTTPS_CA_FILE'] as const) {
+      const file = env[name];
+      if (!file) continue;
+      const problem = unreadable(file);
+      if (problem)
+        ctx.addIssue({
+          code: 'custom',
+          path: [name],
+          message: `${name} (${file}) cannot be read: ${problem}.`,
+        });
+    }
     if (env.NODE_ENV !== 'production') return;
     // Without these, production would keep e-mail in a local fake nobody reads and send links
     // to localhost: password resets, cover invites and reports would silently go nowhere.
@@ -61,6 +93,22 @@ export const envSchema = z
           'PUBLIC_URL is required in production (e.g. https://rackside.example.org): links in e-mails would point at localhost.',
       });
   });
+
+/** Why a file cannot be read, or null when it can. */
+function unreadable(file: string): string | null {
+  try {
+    if (!fs.statSync(file).isFile()) return 'it is not a file';
+    fs.accessSync(file, fs.constants.R_OK);
+    return null;
+  } catch (err) {
+    const code = (err as NodeJS.ErrnoException).code;
+    return code === 'ENOENT'
+      ? 'no such file'
+      : code === 'EACCES'
+        ? 'permission denied'
+        : String(code);
+  }
+}
 
 export type Env = z.infer<typeof envSchema>;
 

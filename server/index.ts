@@ -3,6 +3,7 @@ import { createApp } from './app';
 import { connectDatabase } from './db/client';
 import { readEnv, type Env } from './env';
 import { startJobs } from './jobs/jobs';
+import { createHttpServer, lanBanner, loadLan } from './lan/lan-server';
 import { createLogger } from './logger';
 import type { DevSmtp } from './mail/dev-smtp';
 import { createSmtpMailer } from './mail/mailer';
@@ -16,6 +17,7 @@ try {
   process.exit(1);
 }
 const logger = createLogger(env);
+const lan = loadLan(env);
 const database = connectDatabase(env.DATABASE_URL, 20);
 
 // The local SMTP fake (and the packages it needs) loads only when no SMTP_URL is given, which
@@ -33,6 +35,7 @@ const { app, services, shutdown } = createApp({
   mailer,
   devMailbox: devSmtp?.mailbox,
   logger,
+  lan,
 });
 const jobs = await startJobs({
   databaseUrl: env.DATABASE_URL,
@@ -42,10 +45,12 @@ const jobs = await startJobs({
   logger,
 });
 
-const server = app.listen(env.PORT, env.HOST, () => {
+const server = createHttpServer(app, env).listen(env.PORT, env.HOST, async () => {
   const shown = env.HOST === '0.0.0.0' ? 'localhost' : env.HOST;
-  const url = env.PUBLIC_URL ?? `http://${shown}:${env.PORT}`;
+  const scheme = env.HTTPS_CERT_FILE ? 'https' : 'http';
+  const url = env.PUBLIC_URL ?? lan?.url ?? `${scheme}://${shown}:${env.PORT}`;
   const lines = [``, `  Rackside is running at ${url}`];
+  if (lan) lines.push(await lanBanner(lan));
   if (env.DEMO_MODE) {
     lines.push(`  Demo sign-in: ${DEMO_ACCOUNTS[0]!.email} / ${DEMO_PASSWORD}`);
     lines.push(

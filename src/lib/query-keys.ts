@@ -52,6 +52,7 @@ export const queryKeys = {
     list: (collectionId: string) => ['members', collectionId] as const,
   },
   devMail: () => ['dev', 'mail'] as const,
+  lan: () => ['lan'] as const,
   sync: {
     attention: (userId: string) => ['sync', 'attention', userId] as const,
   },

@@ -69,6 +69,8 @@ interface Row {
 // change is harmless or undone by `restore`.
 const TABLE: Record<string, Row> = {
   'GET /api/health': { access: 'public', allowed: 200, call: () => ({ path: '/api/health' }) },
+  // LAN mode's facts (lanMode false here); /api/lan/certificate exists only in LAN mode.
+  'GET /api/lan': { access: 'public', allowed: 200, call: () => ({ path: '/api/lan' }) },
   'POST /api/auth/sign-up': {
     access: 'public',
     allowed: 422,

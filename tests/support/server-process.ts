@@ -2,6 +2,7 @@
 // the tests that kill it, restart PostgreSQL under it, or run two of it side by side.
 import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
+import https from 'node:https';
 import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
@@ -51,6 +52,18 @@ export async function freePort(): Promise<number> {
   });
 }
 
+/** A 2xx over HTTPS with `ca` trusted (fetch here cannot be given a CA). */
+function httpsOk(url: string, ca: string): Promise<boolean> {
+  return new Promise((resolve, reject) => {
+    https
+      .get(url, { ca }, (res) => {
+        res.resume();
+        resolve((res.statusCode ?? 500) < 300);
+      })
+      .on('error', reject);
+  });
+}
+
 export interface ServerProcess {
   url: string;
   port: number;
@@ -68,6 +81,8 @@ export async function startServerProcess(options: {
   env?: Record<string, string>;
   /** Drop stdout (a load test's request logs). */ quiet?: boolean;
   /** e.g. --cpu-prof */ nodeArgs?: string[];
+  /** The server answers HTTPS (HTTPS_CERT_FILE in env), trusted through this CA certificate. */
+  https?: { ca: string };
 }): Promise<ServerProcess> {
   const port = options.port ?? (await freePort());
   const storage = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-proc-'));
@@ -104,13 +119,18 @@ export async function startServerProcess(options: {
   child.stderr!.on('data', collect);
   const exited = new Promise<void>((resolve) => child.once('exit', () => resolve()));
   void exited.then(() => smtp?.stop());
-  const url = `http://127.0.0.1:${port}`;
+  const url = `${options.https ? 'https' : 'http'}://127.0.0.1:${port}`;
   const deadline = Date.now() + 30_000;
   for (;;) {
     if (child.exitCode !== null)
       throw new Error(`server exited (${child.exitCode}):\n${lines.join('\n')}`);
     try {
-      if ((await fetch(`${url}/api/health`)).ok) break;
+      if (
+        options.https
+          ? await httpsOk(`${url}/api/health`, options.https.ca)
+          : (await fetch(`${url}/api/health`)).ok
+      )
+        break;
     } catch {
       // not listening yet
     }

@@ -13,6 +13,7 @@ import { useMembers } from '@/features/members/api/list-members';
 import { LeaveCollection } from '@/features/members/components/leave-collection';
 import { DataPanel } from '@/features/settings/components/data-panel';
 import { DeleteCollection } from '@/features/settings/components/delete-collection';
+import { PhoneSetup } from '@/features/settings/components/phone-setup';
 import { ThemePicker } from '@/features/settings/components/theme-picker';
 import { UnitPicker } from '@/features/settings/components/unit-picker';
 import { SignOutButton } from '@/features/sync/components/sign-out-button';
@@ -43,6 +44,7 @@ export function SettingsRoute() {
       <h1 className="text-3xl font-extrabold">Settings</h1>
       <ThemePicker />
       <UnitPicker />
+      <PhoneSetup />
       {collection && collection.role !== 'helper' && (
         <Link
           to="/cover"
