@@ -1,8 +1,8 @@
 // The server bundle runs with production dependencies only (`npm ci --omit=dev`, as the
 // Dockerfile's runtime stage installs): everything it imports at run time is a Node built-in
 // or a package in package.json "dependencies".
-import { builtinModules } from 'node:module';
 import fs from 'node:fs';
+import { builtinModules } from 'node:module';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
 import { bundleImports, buildServer } from './build-server';
