@@ -13,6 +13,7 @@ import { listRoutes } from '../../server/route-list';
 import { PASSWORD, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 import { createRemoteHost, type RemoteHost } from '../support/remote-host';
+import { PRODUCTION_SESSION_SECRET } from '../support/server-process';
 
 let ctx: TestContext;
 let remote: RemoteHost;
@@ -144,7 +145,7 @@ describe('in production', () => {
       NODE_ENV: 'production',
       DEMO_MODE: 'true',
       DATABASE_URL: ctx.databaseUrl,
-      SESSION_SECRET: 'a-production-like-secret-of-forty-characters',
+      SESSION_SECRET: PRODUCTION_SESSION_SECRET,
       SMTP_URL: 'smtp://mail.example.test:587',
       PUBLIC_URL: 'https://rackside.example',
     });
