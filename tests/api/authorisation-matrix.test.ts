@@ -84,6 +84,17 @@ const TABLE: Record<string, Row> = {
     allowed: 422,
     call: () => ({ path: '/api/auth/sign-up/finish', body: {} }),
   },
+  // Open to anyone: the set-up form of a server with no account yet (tests/api/first-owner.test.ts).
+  'GET /api/auth/first-run': {
+    access: 'public',
+    allowed: 200,
+    call: () => ({ path: '/api/auth/first-run' }),
+  },
+  'POST /api/auth/first-owner': {
+    access: 'public',
+    allowed: 422,
+    call: () => ({ path: '/api/auth/first-owner', body: {} }),
+  },
   'POST /api/auth/sign-in': {
     access: 'public',
     allowed: 422,
