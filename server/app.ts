@@ -159,8 +159,7 @@ export function createApp(options: AppOptions) {
   });
   // The demo's hints with DEMO_MODE; the local mailbox when the SMTP fake runs, never in production.
   const devMailbox = env.NODE_ENV === 'production' ? undefined : options.devMailbox;
-  if (env.DEMO_MODE || devMailbox)
-    api.use('/dev', devRoutes(devMailbox, auth, { demo: env.DEMO_MODE }));
+  api.use('/dev', devRoutes(devMailbox, auth, { demo: env.DEMO_MODE }));
   api.use(
     '/cover-invites',
     coverInviteRoutes(

@@ -122,7 +122,7 @@ const TABLE: Record<string, Row> = {
     allowed: 422,
     call: () => ({ path: '/api/auth/reset', body: {} }),
   },
-  // Only mounted with DEMO_MODE (the local demo and tests).
+  // The demo's sign-in hints; { demo: false } without DEMO_MODE.
   'GET /api/dev/demo': { access: 'public', allowed: 200, call: () => ({ path: '/api/dev/demo' }) },
   // Public over loopback only, which is where this table calls from. From another host: a
   // signed-in owner, their own mail only (404 otherwise, as if not there); never mounted in production.

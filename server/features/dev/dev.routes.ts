@@ -6,7 +6,7 @@ import { fromLoopback } from '../../middleware/loopback';
 import type { AuthService } from '../auth/auth.service';
 
 /**
- * Helpers of a local install: the demo's sign-in hints (DEMO_MODE) and the local mailbox
+ * Helpers of a local install: the demo's sign-in hints (empty without DEMO_MODE) and the local mailbox
  * (whenever the local SMTP fake runs, which is never in production: server/env.ts requires
  * SMTP_URL there, and app.ts does not mount it).
  */
@@ -16,14 +16,15 @@ export function devRoutes(
   options: { demo: boolean },
 ) {
   const router = Router();
-  if (options.demo)
-    router.get('/demo', (_req, res) => {
-      res.json({
-        demo: true,
-        accounts: DEMO_ACCOUNTS.map(({ email, role }) => ({ email, role })),
-        password: DEMO_PASSWORD,
-      });
+  // Every install answers, so a sign-in page never meets a 404 for asking.
+  router.get('/demo', (_req, res) => {
+    if (!options.demo) return void res.json({ demo: false, accounts: [] });
+    res.json({
+      demo: true,
+      accounts: DEMO_ACCOUNTS.map(({ email, role }) => ({ email, role })),
+      password: DEMO_PASSWORD,
     });
+  });
   if (!mailbox) return router;
 
   // Reset and invite links are in here. This machine sees every message; another device on
