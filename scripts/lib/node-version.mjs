@@ -31,10 +31,11 @@ export function checkNodeVersion(version, minimum) {
   // packages.debian.org/bookworm/nodejs and /trixie/nodejs). Node's downloads: nodejs.org/en/download.
   const message = [
     `Rackside needs Node.js ${need} or newer; this is Node.js ${version || 'of an unknown version'}.`,
-    'Install Node.js 22 (the current long-term-support line) and run the command again:',
-    '  - on Debian 13 or newer:  sudo apt-get install nodejs npm   (Debian 13 has Node.js 20.19)',
-    '  - on Debian 12 or other systems: the Linux download from https://nodejs.org/en/download',
-    '    (unpack it and put its bin/ folder first on your PATH), or with nvm: nvm install 22',
+    `Install Node.js ${need} or newer, then run the command again:`,
+    "  - on Debian 13 or newer, Debian's own is new enough:  sudo apt-get install nodejs npm",
+    '  - on Debian 12 (its own is 18) or elsewhere: Node.js 22, the long-term-support line, from',
+    '    https://nodejs.org/en/download (unpack it and put its bin/ folder first on your PATH),',
+    '    or with nvm: nvm install 22',
     'Then check with `node --version`.',
   ].join('\n');
   return { ok: false, message };

@@ -86,13 +86,13 @@ function aptInstall(packages, why) {
   };
   let decision = installDecision(facts);
   if (decision === 'ask') {
-    say(`${why} is missing: Rackside needs the Debian packages ${packages.join(', ')}.`);
+    say(`Rackside needs ${why}: the Debian packages ${packages.join(', ')}, not installed yet.`);
     const answer = askLine(`Install them now with sudo (it will ask for your password)? [y/N] `);
     decision = installDecision({ ...facts, answer });
   }
   if (decision === 'print') {
     fail(
-      `${why} is missing. Install it once with:\n  ${aptCommandLine(packages)}\nthen run the command again.`,
+      `Rackside needs ${why}: the Debian packages ${packages.join(', ')}, not installed yet. Install them once with:\n  ${aptCommandLine(packages)}\nthen run the command again.`,
     );
   }
   say(`Installing ${packages.join(', ')} from Debian's packages (${why})…`);
