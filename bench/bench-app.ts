@@ -1,4 +1,5 @@
 // The real app for browser and sync benchmarks: Express on loopback over the bench database.
+import { randomBytes } from 'node:crypto';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import bcrypt from 'bcryptjs';
@@ -20,7 +21,8 @@ export async function startBenchApp(
   const env = readEnv({
     NODE_ENV: 'production',
     DATABASE_URL: 'postgres://unused',
-    SESSION_SECRET: 'bench-secret-that-is-long-enough-for-sessions',
+    // Production refuses example values (server/env.ts): a random one, as an operator makes.
+    SESSION_SECRET: randomBytes(32).toString('hex'),
     BCRYPT_COST: String(options.bcryptCost ?? 10),
     SMTP_URL: 'smtp://unused.invalid',
     PUBLIC_URL: 'http://127.0.0.1',

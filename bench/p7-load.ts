@@ -10,12 +10,16 @@ import path from 'node:path';
 import { gzipSync } from 'node:zlib';
 import autocannon from 'autocannon';
 import type { Database } from '../server/db/client';
-import { freePort, startServerProcess } from '../tests/support/server-process';
+import {
+  freePort,
+  PRODUCTION_SESSION_SECRET,
+  startServerProcess,
+} from '../tests/support/server-process';
 import { makeKeeper, signInCookie } from './bench-app';
 import type { Figure } from './results-file';
 
 /** The secret startServerProcess gives the server: the baseline checks the same cookie. */
-const SERVER_SESSION_SECRET = 'a-production-like-secret-of-forty-characters';
+const SERVER_SESSION_SECRET = PRODUCTION_SESSION_SECRET;
 
 /**
  * P7-base (bench/p7-base-server.mjs) in its own process: a bare node:http server that checks

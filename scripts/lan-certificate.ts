@@ -1,5 +1,5 @@
 // `npm start -- --lan`: the certificate for HTTPS on the home network, made on first run and
-// made again when it no longer fits (docs/decisions/016-home-network-https.md).
+// made again when it no longer fits (docs/decisions/017-home-network-https.md).
 //
 // A small certificate authority of this machine's own signs the server's certificate: the
 // phone trusts the authority once, and the server certificate can then be renewed (new

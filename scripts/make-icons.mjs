@@ -1,14 +1,15 @@
 // Renders public/icons/icon.svg to the PNG sizes the manifest lists (run by hand after
-// changing the icon; the PNGs are committed). Uses Debian's Chromium through playwright-core.
+// changing the icon; the PNGs are committed). Uses this machine's Chromium (scripts/lib/chromium.mjs) through playwright-core.
 import fs from 'node:fs';
 import path from 'node:path';
 import { chromium } from 'playwright-core';
+import { chromiumPath } from './lib/chromium.mjs';
 import { repoRoot } from './lib/setup.mjs';
 
 const dir = path.join(repoRoot, 'public', 'icons');
 const svg = fs.readFileSync(path.join(dir, 'icon.svg'), 'utf8');
 const browser = await chromium.launch({
-  executablePath: '/usr/bin/chromium',
+  executablePath: chromiumPath(),
   args: ['--no-sandbox', '--disable-gpu'],
 });
 const page = await browser.newPage();

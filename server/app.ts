@@ -162,11 +162,9 @@ export function createApp(options: AppOptions) {
         ),
       ),
   });
-  if (env.DEMO_MODE)
-    api.use(
-      '/dev',
-      devRoutes(options.devMailbox, auth, { mountMailbox: env.NODE_ENV !== 'production' }),
-    );
+  // The demo's hints with DEMO_MODE; the local mailbox when the SMTP fake runs, never in production.
+  const devMailbox = env.NODE_ENV === 'production' ? undefined : options.devMailbox;
+  api.use('/dev', devRoutes(devMailbox, auth, { demo: env.DEMO_MODE }));
   api.use(
     '/cover-invites',
     coverInviteRoutes(

@@ -2,11 +2,19 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { readEnv } from './env';
+import { readEnv, weakSecretReason } from './env';
 
+/** As `openssl rand -hex 32` makes one. */
+const STRONG = '9c41e07b5fd2a86e13b7c5904af6d28e71c3b95a0e4f68d2b17a3c95e0f4d86b';
 const base = {
   DATABASE_URL: 'postgres://rackside@db.example/rackside',
-  SESSION_SECRET: 'x'.repeat(32),
+  SESSION_SECRET: STRONG,
+};
+const production = {
+  ...base,
+  NODE_ENV: 'production',
+  SMTP_URL: 'smtps://u:p@mail.example.org',
+  PUBLIC_URL: 'https://rackside.example.org',
 };
 
 describe('configuration', () => {
@@ -43,6 +51,47 @@ describe('configuration', () => {
     expect(env.PUBLIC_URL).toBe('https://rackside.example.org');
     expect(readEnv({ ...base }).SMTP_URL).toBeUndefined();
     expect(readEnv({ ...base, NODE_ENV: 'test', SMTP_URL: '' }).SMTP_URL).toBeUndefined();
+  });
+
+  it('names every missing production setting at once, a missing secret among them', () => {
+    const message = (() => {
+      try {
+        readEnv({ DATABASE_URL: base.DATABASE_URL, NODE_ENV: 'production' });
+      } catch (err) {
+        return (err as Error).message;
+      }
+      return '';
+    })();
+    expect(message).toMatch(/SESSION_SECRET is required/);
+    expect(message).toMatch(/SMTP_URL is required in production/);
+    expect(message).toMatch(/PUBLIC_URL is required in production/);
+  });
+
+  it('refuses a production SESSION_SECRET that is short, an example, or barely random', () => {
+    expect(() => readEnv({ ...production, SESSION_SECRET: STRONG.slice(0, 31) })).toThrow(
+      /SESSION_SECRET must be at least 32 characters/,
+    );
+    for (const [secret, why] of [
+      ['x'.repeat(40), /only 1 different characters/],
+      ['abcdefabcdefabcdefabcdefabcdefabcdef', /only 6 different/],
+      ['change-me-to-a-long-random-string-please', /contains "change"/],
+      ['a-production-like-secret-of-forty-characters', /contains "secret"/],
+      ['Rackside-Demo-0123456789-abcdefghijklmnop', /contains "rackside"/],
+    ] as const) {
+      expect(() => readEnv({ ...production, SESSION_SECRET: secret })).toThrow(why);
+      expect(() => readEnv({ ...production, SESSION_SECRET: secret })).toThrow(
+        /SESSION_SECRET is not strong enough for production[\s\S]*openssl rand -hex 32/,
+      );
+    }
+    expect(readEnv(production).SESSION_SECRET).toBe(STRONG);
+    // Outside production a local, made-up secret is fine (npm start makes a random one anyway).
+    expect(readEnv({ ...base, SESSION_SECRET: 'x'.repeat(32) }).SESSION_SECRET).toHaveLength(32);
+  });
+
+  it('judges secrets by length, example words and variety', () => {
+    expect(weakSecretReason(STRONG)).toBeNull();
+    expect(weakSecretReason('short')).toMatch(/5 characters/);
+    expect(weakSecretReason('correct-horse-battery-staple-violin-ocean')).toBeNull();
   });
 
   it('wants links that a phone can open', () => {

@@ -1,8 +1,11 @@
-// Debian's Chromium driven by playwright-core, for end-to-end tests and browser benchmarks.
+// This machine's Chromium (CHROMIUM_PATH, else by name on PATH) driven by playwright-core, for end-to-end tests and browser benchmarks.
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { chromiumPath } from '../scripts/lib/chromium.mjs';
+
+export { chromiumPath };
 
 // Flags from the machine notes: headless, no sandbox as root, and no background traffic to a
 // network this machine does not have.
@@ -19,7 +22,7 @@ export const CHROMIUM_ARGS = [
 export async function launchBrowser(): Promise<{ browser: Browser; userDataDir: string }> {
   const userDataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'rackside-chromium-'));
   const browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
+    executablePath: chromiumPath(),
     headless: true,
     args: CHROMIUM_ARGS,
   });

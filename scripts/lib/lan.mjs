@@ -1,5 +1,5 @@
 // `npm start -- --lan`: where the home-network certificate lives and what the server is told
-// (docs/decisions/016-home-network-https.md). Plain Node, like the rest of scripts/lib.
+// (docs/decisions/017-home-network-https.md). Plain Node, like the rest of scripts/lib.
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 

@@ -3,8 +3,13 @@
 import { execFileSync, spawnSync } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { findChromium } from './chromium.mjs';
+import { checkNodeVersion, minimumFromEngines } from './node-version.mjs';
+import { pgMemorySettings } from './pg-memory.mjs';
+import { aptCommandLine, installDecision } from './sudo.mjs';
 
 export const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const dataRoot = path.join(repoRoot, '.data');
@@ -31,9 +36,33 @@ function commandExists(cmd) {
   return spawnSync('sh', ['-c', `command -v ${cmd}`], { stdio: 'ignore' }).status === 0;
 }
 
+/** One line typed at the terminal (the shell's `read`: synchronous, and fine with a TTY). */
+export function askLine(question) {
+  process.stdout.write(question);
+  const r = spawnSync('sh', ['-c', 'read -r answer; printf %s "$answer"'], {
+    stdio: ['inherit', 'pipe', 'inherit'],
+    encoding: 'utf8',
+  });
+  return r.status === 0 ? r.stdout : '';
+}
+
+/** Whether someone is at the terminal to answer a question. */
+export const interactive = () => Boolean(process.stdin.isTTY && process.stdout.isTTY);
+
+// ---------------------------------------------------------------- Node itself
+
+/** Stops with what to install when this Node is older than package.json's engines field. */
+export function ensureNodeVersion() {
+  const pkg = JSON.parse(fs.readFileSync(path.join(repoRoot, 'package.json'), 'utf8'));
+  const minimum = minimumFromEngines(pkg.engines && pkg.engines.node) || [20, 19, 0];
+  const result = checkNodeVersion(process.version, minimum);
+  if (!result.ok) fail(result.message);
+}
+
 // ---------------------------------------------------------------- npm packages
 
 export function ensureNodeModules() {
+  ensureNodeVersion();
   const marker = path.join(repoRoot, 'node_modules', '.package-lock.json');
   const lock = path.join(repoRoot, 'package-lock.json');
   const stale =
@@ -45,17 +74,36 @@ export function ensureNodeModules() {
 
 // ---------------------------------------------------------------- Debian packages
 
+/** Root runs apt-get; a normal account uses sudo when it can (asking first if it wants a password). */
 function aptInstall(packages, why) {
-  if (!isRoot) {
+  const hasSudo = !isRoot && commandExists('sudo');
+  const facts = {
+    isRoot,
+    hasSudo,
+    sudoNeedsPassword:
+      hasSudo && spawnSync('sudo', ['-n', 'true'], { stdio: 'ignore' }).status !== 0,
+    isTTY: interactive(),
+  };
+  let decision = installDecision(facts);
+  if (decision === 'ask') {
+    say(`Rackside needs ${why}: the Debian packages ${packages.join(', ')}, not installed yet.`);
+    const answer = askLine(`Install them now with sudo (it will ask for your password)? [y/N] `);
+    decision = installDecision({ ...facts, answer });
+  }
+  if (decision === 'print') {
     fail(
-      `${why} is missing. Install it with:\n  sudo apt-get update && sudo apt-get install -y ${packages.join(' ')}`,
+      `Rackside needs ${why}: the Debian packages ${packages.join(', ')}, not installed yet. Install them once with:\n  ${aptCommandLine(packages)}\nthen run the command again.`,
     );
   }
   say(`Installing ${packages.join(', ')} from Debian's packages (${why})…`);
-  run('apt-get', ['update', '-qq']);
-  run('apt-get', ['install', '-y', '-qq', '--no-install-recommends', ...packages], {
-    env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
-  });
+  // Through sudo, apt-get keeps its usual front end: a sudoers rule may not allow setting
+  // DEBIAN_FRONTEND, and these packages ask nothing on a normal install.
+  const apt = (args) =>
+    decision === 'sudo'
+      ? run('sudo', ['apt-get', ...args])
+      : run('apt-get', args, { env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+  apt(['update', '-qq']);
+  apt(['install', '-y', '-qq', '--no-install-recommends', ...packages]);
 }
 
 /** The folder holding pg_ctl and initdb: on PATH, or Debian's versioned folder. */
@@ -84,7 +132,7 @@ export function ensurePostgresInstalled() {
 
 export function ensureChromium() {
   const wanted = [];
-  if (!fs.existsSync('/usr/bin/chromium')) wanted.push('chromium');
+  if (!findChromium()) wanted.push('chromium');
   if (!commandExists('pdftoppm')) wanted.push('poppler-utils');
   // tests/support/remote-host.ts: another host in a network namespace, reached with curl.
   if (!commandExists('ip')) wanted.push('iproute2');
@@ -136,14 +184,16 @@ export function clusterUrl(database) {
 
 function tuningConf(port) {
   // Why: JIT adds 150–200 ms to the round-building queries for no gain at our sizes;
-  // a larger buffer pool keeps a 20,000-animal collection's working set in memory.
+  // memory from the machine's size (scripts/lib/pg-memory.mjs): 512 MB and 200 connections
+  // from 8 GB up, down to 32 MB and 50 on a small board.
+  const sized = pgMemorySettings(os.totalmem());
   return [
     `listen_addresses = '127.0.0.1'`,
     `port = ${port}`,
     `unix_socket_directories = ''`,
-    `shared_buffers = '${process.env.RACKSIDE_PG_SHARED_BUFFERS ?? '512MB'}'`,
+    `shared_buffers = '${process.env.RACKSIDE_PG_SHARED_BUFFERS || sized.sharedBuffers}'`,
     `jit = off`,
-    `max_connections = 200`,
+    `max_connections = ${Number(process.env.RACKSIDE_PG_MAX_CONNECTIONS) || sized.maxConnections}`,
     `log_min_messages = warning`,
     '',
   ].join('\n');

@@ -1,5 +1,5 @@
 // Which names and addresses a phone on the home network may use to reach this machine, for the
-// `--lan` certificate (docs/decisions/016-home-network-https.md). Pure over its inputs: the
+// `--lan` certificate (docs/decisions/017-home-network-https.md). Pure over its inputs: the
 // caller passes os.networkInterfaces() and os.hostname().
 import type { NetworkInterfaceInfo } from 'node:os';
 

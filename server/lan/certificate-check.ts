@@ -1,5 +1,5 @@
 // Whether the `--lan` certificate still fits this machine: pure over what the certificate says
-// and the names wanted now (docs/decisions/016-home-network-https.md).
+// and the names wanted now (docs/decisions/017-home-network-https.md).
 import { X509Certificate } from 'node:crypto';
 import { canonicalIp, type CertificateNames } from './addresses';
 

@@ -1,5 +1,5 @@
 // Serving over HTTPS when given a certificate, and what LAN mode tells people (the terminal's
-// QR code, the Settings page): docs/decisions/016-home-network-https.md.
+// QR code, the Settings page): docs/decisions/017-home-network-https.md.
 import { X509Certificate } from 'node:crypto';
 import fs from 'node:fs';
 import http from 'node:http';

@@ -57,6 +57,15 @@ export const accountDetails = z.object({
 export const signUpFinishBody = accountDetails.extend({ token: signUpToken });
 export type SignUpFinishBody = z.infer<typeof signUpFinishBody>;
 
+/**
+ * A server with no account yet: its first visitor makes the first owner's account on the spot,
+ * with no e-mail round trip (there may be no mail server yet, and nobody else to wait for).
+ */
+export const firstRunResponse = z.object({ firstOwner: z.boolean() });
+export type FirstRunResponse = z.infer<typeof firstRunResponse>;
+export const firstOwnerBody = accountDetails.extend({ email });
+export type FirstOwnerBody = z.infer<typeof firstOwnerBody>;
+
 export const signUpStartedResponse = z.object({ message: z.string() });
 export const signUpPreviewResponse = z.object({ email: z.string() });
 /** The same words for every address (decision 012). */

@@ -9,6 +9,7 @@ export const queryKeys = {
   auth: {
     me: () => ['auth', 'me'] as const,
     demo: () => ['auth', 'demo'] as const,
+    firstRun: () => ['auth', 'first-run'] as const,
     signUpLink: (token: string) => ['auth', 'sign-up-link', token] as const,
   },
   animals: {

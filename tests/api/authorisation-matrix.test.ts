@@ -86,6 +86,17 @@ const TABLE: Record<string, Row> = {
     allowed: 422,
     call: () => ({ path: '/api/auth/sign-up/finish', body: {} }),
   },
+  // Open to anyone: the set-up form of a server with no account yet (tests/api/first-owner.test.ts).
+  'GET /api/auth/first-run': {
+    access: 'public',
+    allowed: 200,
+    call: () => ({ path: '/api/auth/first-run' }),
+  },
+  'POST /api/auth/first-owner': {
+    access: 'public',
+    allowed: 422,
+    call: () => ({ path: '/api/auth/first-owner', body: {} }),
+  },
   'POST /api/auth/sign-in': {
     access: 'public',
     allowed: 422,
@@ -113,10 +124,10 @@ const TABLE: Record<string, Row> = {
     allowed: 422,
     call: () => ({ path: '/api/auth/reset', body: {} }),
   },
-  // Only mounted with DEMO_MODE (the local demo and tests); production leaves it out.
+  // The demo's sign-in hints; { demo: false } without DEMO_MODE.
   'GET /api/dev/demo': { access: 'public', allowed: 200, call: () => ({ path: '/api/dev/demo' }) },
   // Public over loopback only, which is where this table calls from. From another host: a
-  // signed-in owner, their own mail only (401/403 otherwise); never mounted in production.
+  // signed-in owner, their own mail only (404 otherwise, as if not there); never mounted in production.
   // Both are proven from a real second host in tests/api/dev-mailbox.test.ts.
   'GET /api/dev/mail': { access: 'public', allowed: 200, call: () => ({ path: '/api/dev/mail' }) },
   'GET /api/collections': {

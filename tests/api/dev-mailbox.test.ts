@@ -1,6 +1,7 @@
-// The local mailbox (GET /api/dev/mail, demo mode) holds reset and invite links. It answers this
-// machine, and from another host only a signed-in owner, with their own mail; production never
-// mounts it. "Another host" is real: a network namespace on its own veth link
+// The local mailbox (GET /api/dev/mail, wherever the local SMTP fake runs: the demo and
+// development) holds reset and invite links. It answers this machine, and from another host
+// only a signed-in owner, with their own mail; anyone else gets the 404 of a route that is not
+// there, and production never mounts it. "Another host" is real: a network namespace on its own veth link
 // (tests/support/remote-host.ts), the app listening on this machine's end of it.
 import type { Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -13,6 +14,7 @@ import { listRoutes } from '../../server/route-list';
 import { PASSWORD, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 import { createRemoteHost, type RemoteHost } from '../support/remote-host';
+import { PRODUCTION_SESSION_SECRET } from '../support/server-process';
 
 let ctx: TestContext;
 let remote: RemoteHost;
@@ -96,19 +98,21 @@ describe('GET /api/dev/mail from another host', () => {
     expect(logged?.req?.remoteAddress).toBe(remote.remoteAddress);
   });
 
-  it('refuses a caller who is not signed in, showing no mail', async () => {
+  it('is not there for a caller who is not signed in (404, as for any unknown route)', async () => {
     const res = await remote.fetch(`${base}/api/dev/mail`);
-    expect(res.status).toBe(401);
+    expect(res.status).toBe(404);
     expect(JSON.stringify(res.body)).not.toContain(otherResetToken);
-    expect((res.body as { error: { message: string } }).error.message).toMatch(
-      /sign in as an owner/,
+    const unknown = await remote.fetch(`${base}/api/dev/nothing-here`);
+    expect(unknown.status).toBe(404);
+    expect((res.body as { error: { code: string } }).error.code).toBe(
+      (unknown.body as { error: { code: string } }).error.code,
     );
   });
 
-  it('refuses a signed-in account that owns no collection', async () => {
+  it('is not there for a signed-in account that owns no collection', async () => {
     const cookie = await remoteSignIn(helperEmail);
     const res = await remote.fetch(`${base}/api/dev/mail`, { headers: { Cookie: cookie } });
-    expect(res.status).toBe(403);
+    expect(res.status).toBe(404);
     expect(JSON.stringify(res.body)).not.toContain(otherResetToken);
   });
 
@@ -133,8 +137,36 @@ describe('GET /api/dev/mail on this machine', () => {
 
   it('refuses what a local proxy forwarded for another host, unless signed in as an owner', async () => {
     const res = await ctx.agent().get('/api/dev/mail').set('X-Forwarded-For', '192.168.1.20');
-    expect(res.status).toBe(401);
+    expect(res.status).toBe(404);
     expect(JSON.stringify(res.body)).not.toContain(otherResetToken);
+  });
+});
+
+describe('which install has it', () => {
+  const configured = (extra: Record<string, string>) =>
+    createApp({
+      env: readEnv({
+        DATABASE_URL: ctx.databaseUrl,
+        SESSION_SECRET: PRODUCTION_SESSION_SECRET,
+        ...extra,
+      }),
+      database: ctx.database,
+      mailer: { send: async () => undefined, close: () => undefined },
+      devMailbox: ctx.mailbox,
+      logger: createLogger({ NODE_ENV: 'test' }),
+      distDir: '/nonexistent',
+    });
+
+  it('a home install without the demo keeps the mailbox (its sign-up links are there), not the demo hints', async () => {
+    const home = configured({ NODE_ENV: 'development', DEMO_MODE: 'false' });
+    try {
+      const routes = listRoutes(home.app).map((r) => `${r.method} ${r.path}`);
+      expect(routes).toContain('GET /api/dev/mail');
+      const hints = await supertest(home.app).get('/api/dev/demo').expect(200);
+      expect(hints.body).toEqual({ demo: false, accounts: [] });
+    } finally {
+      await home.shutdown();
+    }
   });
 });
 
@@ -144,7 +176,7 @@ describe('in production', () => {
       NODE_ENV: 'production',
       DEMO_MODE: 'true',
       DATABASE_URL: ctx.databaseUrl,
-      SESSION_SECRET: 'a-production-like-secret-of-forty-characters',
+      SESSION_SECRET: PRODUCTION_SESSION_SECRET,
       SMTP_URL: 'smtp://mail.example.test:587',
       PUBLIC_URL: 'https://rackside.example',
     });

@@ -1,5 +1,6 @@
-// The production bundle as operators run it: it refuses to start without a mail server and a
-// public address, and given a mail server it never loads the local SMTP fake's packages.
+// The production bundle as operators run it: it refuses to start without a mail server, a
+// public address and a strong session secret, naming each, and given a mail server it never
+// loads the local SMTP fake's packages.
 import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -11,7 +12,11 @@ import { migrateDatabase } from '../../server/db/migrate';
 import { repoRoot } from '../../server/repo-root';
 import { testDatabaseUrl } from '../setup/database-urls';
 import { createTestDatabase, dropTestDatabase } from '../setup/test-app';
-import { bundleOnce, startServerProcess } from '../support/server-process';
+import {
+  bundleOnce,
+  PRODUCTION_SESSION_SECRET,
+  startServerProcess,
+} from '../support/server-process';
 
 let name: string;
 let databaseUrl: string;
@@ -50,18 +55,52 @@ async function runToExit(
 }
 
 describe('production configuration', () => {
-  it('refuses to start without SMTP_URL and PUBLIC_URL, saying so plainly', async () => {
-    const { code, output } = await runToExit({
-      NODE_ENV: 'production',
-      DATABASE_URL: databaseUrl,
-      SESSION_SECRET: 'a-production-like-secret-of-forty-characters',
-      PORT: '0',
-    });
+  const complete = () => ({
+    NODE_ENV: 'production',
+    DATABASE_URL: databaseUrl,
+    SESSION_SECRET: PRODUCTION_SESSION_SECRET,
+    SMTP_URL: 'smtp://127.0.0.1:9',
+    PUBLIC_URL: 'https://rackside.example',
+    PORT: '0',
+  });
+
+  it.each([
+    ['SMTP_URL', undefined, /SMTP_URL is required in production/],
+    ['PUBLIC_URL', undefined, /PUBLIC_URL is required in production/],
+    ['SESSION_SECRET', undefined, /SESSION_SECRET is required/],
+    ['SESSION_SECRET', 'too-short', /SESSION_SECRET must be at least 32 characters/],
+    [
+      'SESSION_SECRET',
+      'change-me-to-a-long-random-value-0123456789',
+      /SESSION_SECRET is not strong enough for production/,
+    ],
+  ] as const)(
+    'refuses to start with %s %s, saying so plainly',
+    async (name, value, message) => {
+      const env: Record<string, string> = complete();
+      if (value === undefined) delete env[name];
+      else env[name] = value;
+      const { code, output } = await runToExit(env);
+      expect(code).toBe(1);
+      expect(output).toMatch(message);
+      expect(output).toContain(`${name}:`);
+      // Only what is wrong is named.
+      for (const other of ['SMTP_URL', 'PUBLIC_URL', 'SESSION_SECRET'].filter((n) => n !== name))
+        expect(output).not.toContain(`${other}:`);
+      // A message for an operator, not a stack trace.
+      expect(output).not.toMatch(/\n\s+at /);
+    },
+    60_000,
+  );
+
+  it('names all three at once when all three are missing', async () => {
+    const { SMTP_URL, PUBLIC_URL, SESSION_SECRET, ...rest } = complete();
+    void [SMTP_URL, PUBLIC_URL, SESSION_SECRET];
+    const { code, output } = await runToExit(rest);
     expect(code).toBe(1);
     expect(output).toContain('SMTP_URL is required in production');
     expect(output).toContain('PUBLIC_URL is required in production');
-    // A message for an operator, not a stack trace.
-    expect(output).not.toMatch(/\n\s+at /);
+    expect(output).toContain('SESSION_SECRET is required');
   }, 60_000);
 
   it('loads no package of the local mail fake when given a mail server', async () => {

@@ -14,7 +14,13 @@ import { LABEL_SIZES, placeLabels, sheetLayout } from '#shared/domain/labels/she
 import type { AnimalSummary } from '#shared/schemas/animals';
 import type { RoundResponse } from '#shared/schemas/rounds';
 import { events } from '../../server/db/schema/animals';
-import { CHROMIUM_ARGS, cutNetwork, restoreNetwork, underServiceWorker } from '../chromium';
+import {
+  CHROMIUM_ARGS,
+  chromiumPath,
+  cutNetwork,
+  restoreNetwork,
+  underServiceWorker,
+} from '../chromium';
 import { writeLabelVideo } from '../support/fake-camera';
 import {
   decodeQrIn,
@@ -218,7 +224,7 @@ describe('walk mode with the camera', () => {
       }),
     );
     const browser = await chromium.launch({
-      executablePath: '/usr/bin/chromium',
+      executablePath: chromiumPath(),
       headless: true,
       args: [
         ...CHROMIUM_ARGS,

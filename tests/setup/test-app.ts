@@ -46,7 +46,10 @@ export async function dropTestDatabase(name: string): Promise<void> {
 }
 
 export async function createTestContext(
-  options: Partial<Pick<AppOptions, 'authLimits' | 'distDir' | 'publicUrl' | 'logger'>> = {},
+  options: Partial<Pick<AppOptions, 'authLimits' | 'distDir' | 'publicUrl' | 'logger'>> & {
+    /** false: as `npm start -- --no-demo` runs (DEMO_MODE=false). */
+    demo?: boolean;
+  } = {},
 ): Promise<TestContext> {
   const name = await createTestDatabase();
   const databaseUrl = testDatabaseUrl(name);
@@ -59,7 +62,7 @@ export async function createTestContext(
     NODE_ENV: 'test',
     DATABASE_URL: databaseUrl,
     SESSION_SECRET: 'test-secret-that-is-long-enough-for-sessions',
-    DEMO_MODE: 'true',
+    DEMO_MODE: options.demo === false ? 'false' : 'true',
     BCRYPT_COST: '10',
     STORAGE_DIR: storageDir,
   });

@@ -1,6 +1,7 @@
 // A real Rackside server in its own process (tsx server/index.ts), as production runs it: for
 // the tests that kill it, restart PostgreSQL under it, or run two of it side by side.
 import { spawn, type ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
 import fs from 'node:fs';
 import https from 'node:https';
 import net from 'node:net';
@@ -12,6 +13,13 @@ import { startDevSmtp } from '../../server/mail/dev-smtp';
 import { repoRoot } from '../../server/repo-root';
 
 const root = repoRoot();
+
+/**
+ * A production SESSION_SECRET as an operator makes one (`openssl rand -hex 32`): production
+ * refuses example values (server/env.ts). One per test process, so the processes a test
+ * starts side by side share it.
+ */
+export const PRODUCTION_SESSION_SECRET = randomBytes(32).toString('hex');
 
 // Built from the current source once per test process (about 0.1 s), in a folder of its own:
 // test files run in parallel processes.
@@ -102,7 +110,7 @@ export async function startServerProcess(options: {
         HOST: '127.0.0.1',
         PORT: String(port),
         DATABASE_URL: options.databaseUrl,
-        SESSION_SECRET: 'a-production-like-secret-of-forty-characters',
+        SESSION_SECRET: PRODUCTION_SESSION_SECRET,
         BCRYPT_COST: '10',
         STORAGE_DIR: storage,
         LOG_LEVEL: 'info',

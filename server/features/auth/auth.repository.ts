@@ -86,3 +86,17 @@ export async function deleteSessionsOfUser(db: Db, userId: string, keepSid?: str
         : sql`${sessions.sess}->>'userId' = ${userId}`,
     );
 }
+
+/** Whether any account exists (the first-owner set-up is open only before the first). */
+export async function anyUserExists(db: Db) {
+  const rows = await db
+    .select({ one: sql`1` })
+    .from(users)
+    .limit(1);
+  return rows.length > 0;
+}
+
+/** Serialises first-owner set-ups until the transaction ends: two at once make one owner. */
+export async function lockFirstOwnerSetUp(db: Db) {
+  await db.execute(sql`select pg_advisory_xact_lock(hashtext('rackside.first-owner'))`);
+}

@@ -2,12 +2,14 @@ import { Router, type Request } from 'express';
 import { z } from 'zod';
 import {
   changePasswordBody,
+  firstOwnerBody,
   resetBody,
   resetRequestBody,
   signInBody,
   signUpBody,
   signUpFinishBody,
   signUpToken,
+  type FirstOwnerBody,
   type SignInBody,
   type SignUpBody,
   type SignUpFinishBody,
@@ -94,6 +96,17 @@ export function authRoutes(
       });
     },
   );
+
+  // An empty server's first visit (no demo): whether to offer the first-owner form, and the form.
+  router.get('/first-run', async (_req, res) => {
+    res.json({ firstOwner: await auth.isFirstRun() });
+  });
+
+  router.post('/first-owner', signInLimit, validate({ body: firstOwnerBody }), async (req, res) => {
+    const user = await auth.createFirstOwner(input<FirstOwnerBody>(res, 'body'));
+    await startSession(req, user.id);
+    res.status(201).json(await auth.me(user.id));
+  });
 
   router.get(
     '/sign-up/preview',

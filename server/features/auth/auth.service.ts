@@ -1,5 +1,5 @@
 import { createHash, randomBytes } from 'node:crypto';
-import type { SignUpFinishBody } from '#shared/schemas/auth';
+import type { FirstOwnerBody, SignUpFinishBody } from '#shared/schemas/auth';
 import { insertCollection } from '../../access/collections';
 import { insertMembership, listMembershipsOfUser } from '../../access/memberships';
 import { burnComparison, decoyHash, hashPassword, verifyPassword } from '../../access/passwords';
@@ -10,12 +10,14 @@ import { isUniqueViolation } from '../../db/errors';
 import type { Mailer } from '../../mail/mailer';
 import { HttpError } from '../../middleware/errors';
 import {
+  anyUserExists,
   consumePasswordReset,
   consumeSignUpToken,
   deleteSessionsOfUser,
   findSignUpToken,
   insertPasswordReset,
   insertSignUpToken,
+  lockFirstOwnerSetUp,
   revokePasswordResets,
   updatePasswordHash,
 } from './auth.repository';
@@ -159,6 +161,36 @@ export function createAuthService(deps: AuthDeps) {
       }
     },
 
+    /** True until the server's first account exists. */
+    async isFirstRun() {
+      return !(await anyUserExists(db));
+    },
+
+    /**
+     * The first visit to an empty server: the first account, its collection and its ownership,
+     * with no e-mail link, and only while no account exists (checked under a lock, so two
+     * visitors at the same moment make one account and the other is told to sign in).
+     */
+    async createFirstOwner(body: FirstOwnerBody) {
+      if (await anyUserExists(db)) throw alreadySetUp();
+      const passwordHash = await hashPassword(body.password, deps.bcryptCost);
+      return db.transaction(async (tx) => {
+        await lockFirstOwnerSetUp(tx);
+        if (await anyUserExists(tx)) throw alreadySetUp();
+        const user = await insertUser(tx, {
+          email: body.email,
+          displayName: body.displayName,
+          passwordHash,
+        });
+        const collectionId = await insertCollection(tx, {
+          name: body.collectionName,
+          timeZone: body.timeZone,
+        });
+        await insertMembership(tx, { collectionId, userId: user.id, role: 'owner' });
+        return user;
+      });
+    },
+
     /** One answer for an unknown e-mail and a wrong password, in about the same time. */
     async verifyCredentials(email: string, password: string) {
       const user = await findUserByEmail(db, email);
@@ -234,6 +266,13 @@ export function createAuthService(deps: AuthDeps) {
     },
   };
 }
+
+const alreadySetUp = () =>
+  new HttpError(
+    409,
+    'already_set_up',
+    'This server already has its first account. Sign in, or ask its owner to invite you.',
+  );
 
 const emailTaken = () =>
   new HttpError(

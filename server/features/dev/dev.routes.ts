@@ -5,41 +5,43 @@ import { HttpError } from '../../middleware/errors';
 import { fromLoopback } from '../../middleware/loopback';
 import type { AuthService } from '../auth/auth.service';
 
-/** Demo-mode helpers (DEMO_MODE only): the sign-in hints and, never in production, the local mailbox. */
+/**
+ * Helpers of a local install: the demo's sign-in hints (empty without DEMO_MODE) and the local mailbox
+ * (whenever the local SMTP fake runs, which is never in production: server/env.ts requires
+ * SMTP_URL there, and app.ts does not mount it).
+ */
 export function devRoutes(
   mailbox: DevMailbox | undefined,
   auth: AuthService,
-  options: { mountMailbox: boolean },
+  options: { demo: boolean },
 ) {
   const router = Router();
+  // Every install answers, so a sign-in page never meets a 404 for asking.
   router.get('/demo', (_req, res) => {
+    if (!options.demo) return void res.json({ demo: false, accounts: [] });
     res.json({
       demo: true,
       accounts: DEMO_ACCOUNTS.map(({ email, role }) => ({ email, role })),
       password: DEMO_PASSWORD,
     });
   });
-  if (!options.mountMailbox) return router;
+  if (!mailbox) return router;
 
   // Reset and invite links are in here. This machine sees every message; another device on
   // the network only a signed-in owner's own mail: every sign-up owns a collection, so the
-  // whole mailbox for any owner would hand everyone's reset links to whoever signs up.
+  // whole mailbox for any owner would hand everyone's reset links to whoever signs up. Anyone
+  // else hears what a route that is not there says: nothing tells them a mailbox exists.
   router.get('/mail', async (req, res) => {
-    const all = [...(mailbox?.messages ?? [])].reverse();
+    const all = [...mailbox.messages].reverse();
     if (fromLoopback(req)) return void res.json({ scope: 'all', messages: all });
-    if (!req.session.userId)
-      throw new HttpError(
-        401,
-        'signed_out',
-        'From another device, sign in as an owner to read the e-mail sent to you here.',
-      );
+    const notHere = new HttpError(
+      404,
+      'not_found',
+      `There is no API route GET ${req.baseUrl}${req.path}.`,
+    );
+    if (!req.session.userId) throw notHere;
     const { user, memberships } = await auth.me(req.session.userId);
-    if (!memberships.some((m) => m.role === 'owner'))
-      throw new HttpError(
-        403,
-        'forbidden',
-        'Only owners can read their e-mail here from another device.',
-      );
+    if (!memberships.some((m) => m.role === 'owner')) throw notHere;
     const me = user.email.toLowerCase();
     res.json({
       scope: 'mine',

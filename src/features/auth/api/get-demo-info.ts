@@ -3,7 +3,7 @@ import { demoInfoResponse } from '#shared/schemas/auth';
 import { apiRequest } from '@/lib/api-client';
 import { queryKeys } from '@/lib/query-keys';
 
-/** Answers only in demo mode; elsewhere the route does not exist and this query fails quietly. */
+/** The demo's sign-in hints; `{ demo: false }` on any other install (an older server: a quiet failure). */
 export const getDemoInfo = () => apiRequest('/dev/demo', { schema: demoInfoResponse });
 export const demoInfoQueryOptions = () =>
   queryOptions({

@@ -38,16 +38,15 @@ export function Mailbox() {
   const mail = useMail();
   if (mail.isPending) return <Loading label="Opening the mailbox…" />;
   if (mail.isError) {
-    // From another device the server says who may read it (a signed-in owner, their own mail).
-    const refused =
-      mail.error instanceof ApiError && (mail.error.status === 401 || mail.error.status === 403);
+    // The server answers only this machine, or an owner signed in from another device.
+    const notHere = mail.error instanceof ApiError && mail.error.status === 404;
     return (
       <Notice
         tone="info"
         title={
-          refused
-            ? mail.error.message
-            : 'The local mailbox is only there in demo and development mode.'
+          notHere
+            ? 'There is no local mailbox here. On a home install it opens on the computer running Rackside, or here once you sign in as an owner.'
+            : mail.error.message
         }
       />
     );

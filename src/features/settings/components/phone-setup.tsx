@@ -36,7 +36,7 @@ function AddressQr({ url }: { url: string }) {
 
 /**
  * "Use Rackside on your phone": in LAN mode (`npm start -- --lan`), the address to open, the
- * certificate to trust and how (docs/decisions/016-home-network-https.md). Outside LAN mode it
+ * certificate to trust and how (docs/decisions/017-home-network-https.md). Outside LAN mode it
  * says how to start it, on the computer running the server only.
  */
 export function PhoneSetup() {

@@ -1,0 +1,4 @@
+export declare function pgMemorySettings(totalBytes: number): {
+  sharedBuffers: string;
+  maxConnections: number;
+};
