@@ -7,11 +7,10 @@ import { Notice } from '@/components/ui/notice';
 import { TextField } from '@/components/ui/text-field';
 import { useServerProblem } from '@/lib/form-errors';
 import { useCreateCollection } from '../api/create-collection';
+import { deviceZone } from './account-fields';
 
 type Input = z.input<typeof newCollectionBody>;
 type Output = z.output<typeof newCollectionBody>;
-
-const deviceZone = Intl.DateTimeFormat().resolvedOptions().timeZone;
 
 /** A new, empty collection of one's own; this device switches to it once it exists. */
 export function NewCollectionForm({ onCreated }: { onCreated: () => void }) {
