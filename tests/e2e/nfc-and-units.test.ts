@@ -2,9 +2,9 @@
 // so a small fake `NDEFReader` is injected before the app loads: `write()` waits until the test
 // brings a tag (or makes it fail) and records the message; `scan()` listens until aborted and
 // the test presents tags to it as `reading` events with a "url" record, as a phone would.
+import jsQR from 'jsqr';
 import type { Page } from 'playwright-core';
 import sharp from 'sharp';
-import jsQR from 'jsqr';
 import { describe, expect, it } from 'vitest';
 import { labelUrl } from '#shared/domain/labels/label-payload';
 import type { AnimalSummary } from '#shared/schemas/animals';
