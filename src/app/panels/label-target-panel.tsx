@@ -5,7 +5,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { OutcomeButtons } from '@/features/rounds/components/outcome-buttons';
 import { RoundItemCard } from '@/features/rounds/components/round-item-card';
-import { targetMessage, type LabelTarget } from '@/features/scan/resolve-label';
+import { targetMessage, type LabelSource, type LabelTarget } from '@/features/scan/resolve-label';
 
 interface Props {
   target: LabelTarget;
@@ -19,6 +19,8 @@ interface Props {
   onSwitchCollection: (collectionId: string) => void;
   /** Whether the person may open the animal's page (not helpers: the server keeps it from them). */
   openRecord: boolean;
+  /** How the label came in, for the words when it opens nothing. */
+  via?: LabelSource;
 }
 
 /** What a scanned label opens (scan + rounds): the item ready for one tap, or a plain reason why not. */
@@ -31,6 +33,7 @@ export function LabelTargetPanel({
   nextWord,
   onSwitchCollection,
   openRecord,
+  via = 'qr',
 }: Props) {
   const [recordAnyway, setRecordAnyway] = useState(false);
   const next = (
@@ -39,7 +42,7 @@ export function LabelTargetPanel({
     </Button>
   );
   if (target.kind !== 'on_round' && target.kind !== 'not_due') {
-    const { title, body } = targetMessage(target);
+    const { title, body } = targetMessage(target, via);
     return (
       <div className="flex flex-col gap-3">
         <Notice tone="warning" title={title}>

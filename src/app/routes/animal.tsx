@@ -136,7 +136,7 @@ export function AnimalRoute() {
         timeZone={collection.timeZone}
         waiting={sync.waiting > 0}
       />
-      <LabelPanel collectionId={collectionId} animal={animal} />
+      <LabelPanel collectionId={collectionId} labelTag={collection.labelTag} animal={animal} />
       <GrowthPanel
         events={history.data?.events ?? []}
         timeZone={collection.timeZone}

@@ -11,10 +11,12 @@ import { useAnimalList } from '@/features/animals/api/list-animals';
 import { useRound } from '@/features/rounds/api/get-round';
 import { useRecordOutcome } from '@/features/rounds/api/record-outcome';
 import { UndoToast } from '@/features/rounds/components/undo-toast';
+import { NfcReader } from '@/features/scan/components/nfc-reader';
 import { PhotoScan } from '@/features/scan/components/photo-scan';
 import { QrCamera } from '@/features/scan/components/qr-camera';
 import { TypeCodeForm } from '@/features/scan/components/type-code-form';
-import { resolveLabel, type LabelTarget } from '@/features/scan/resolve-label';
+import { resolveLabel, type LabelSource, type LabelTarget } from '@/features/scan/resolve-label';
+import { nfcAvailable } from '@/lib/web-nfc';
 
 interface LastTap {
   event: RecordedEvent;
@@ -62,6 +64,8 @@ function Scanner({ userId, myName, memberships, collection, chooseCollection }: 
   const directory = useAnimalList(collectionId, keeper);
   const record = useRecordOutcome({ userId, byName: myName, collectionId });
   const [reading, setReading] = useState<LabelReading | null>(null);
+  const [via, setVia] = useState<LabelSource>('qr');
+  const [nfc] = useState(nfcAvailable);
   const [walkMode, setWalkMode] = useState(true);
   const [last, setLast] = useState<LastTap | null>(null);
   const closeToast = useCallback(() => setLast(null), []);
@@ -82,7 +86,16 @@ function Scanner({ userId, myName, memberships, collection, chooseCollection }: 
 
   const onScan = useCallback((text: string) => {
     buzz();
+    setVia('qr');
     setReading(readLabel(text));
+  }, []);
+
+  // A tag opens what its label's QR opens: the same reading, resolved the same way. The next
+  // tag replaces whatever is open, as walking on to the next enclosure does.
+  const onTag = useCallback((tagReading: LabelReading) => {
+    buzz();
+    setVia('nfc');
+    setReading(tagReading);
   }, []);
 
   const onRecord = (item: RoundItemView, kind: EventKind, payload?: Record<string, unknown>) => {
@@ -106,11 +119,13 @@ function Scanner({ userId, myName, memberships, collection, chooseCollection }: 
         />
         Walk mode: back to the camera after each tap
       </label>
+      {nfc && <NfcReader onReading={onTag} />}
       {target && (
         <section aria-label="Scanned label" className="flex flex-col gap-3">
           <LabelTargetPanel
-            key={JSON.stringify(reading)}
+            key={`${via}:${JSON.stringify(reading)}`}
             target={target}
+            via={via}
             timeZone={timeZone}
             myName={myName}
             onRecord={onRecord}
@@ -126,7 +141,13 @@ function Scanner({ userId, myName, memberships, collection, chooseCollection }: 
         <div className={target ? 'hidden' : 'contents'}>
           <QrCamera active={!target} onScan={onScan} />
         </div>
-        <TypeCodeForm clear={!reading} onCode={(text) => setReading(readLabel(text))} />
+        <TypeCodeForm
+          clear={!reading}
+          onCode={(text) => {
+            setVia('qr');
+            setReading(readLabel(text));
+          }}
+        />
         <div className={target ? 'hidden' : 'contents'}>
           <PhotoScan onScan={onScan} />
         </div>

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { readLabel } from '#shared/domain/labels/label-payload';
+import { labelUrl, readLabel } from '#shared/domain/labels/label-payload';
+import { readTag } from '#shared/domain/labels/label-tag';
 import { sampleAnimal, sampleRound } from '../../../tests/fixtures/sample-round';
 import { resolveLabel, targetMessage } from './resolve-label';
 
@@ -69,5 +70,19 @@ describe('resolving a scan or a typed code', () => {
         collectionName: 'Club loan animals',
       }).title,
     ).toBe('This label belongs to Club loan animals.');
+  });
+
+  it('opens the same thing from an NFC tag as from the label’s QR, with words for other tags', () => {
+    const url = labelUrl('https://rackside.example.org', 'ABCD', 'NL-B7K');
+    const fromTag = resolveLabel(readTag([{ recordType: 'url', text: url }]), keeper);
+    expect(fromTag).toEqual(resolve(url));
+    expect(fromTag).toMatchObject({ kind: 'on_round', item: { animal: { name: 'Bramble' } } });
+    const other = resolveLabel(
+      readTag([{ recordType: 'url', text: 'https://example.com/' }]),
+      keeper,
+    );
+    expect(other).toEqual({ kind: 'foreign' });
+    expect(targetMessage({ kind: 'foreign' }, 'nfc').title).toBe('That tag is not a Rackside tag.');
+    expect(targetMessage({ kind: 'malformed' }, 'nfc').title).toMatch(/damaged label address/);
   });
 });

@@ -62,8 +62,14 @@ export function resolveLabel(reading: LabelReading, ctx: Context): LabelTarget {
     : { kind: 'unknown_code', code: reading.code };
 }
 
+/** How the label came in: its QR (camera, photo, a typed code) or an NFC tag. */
+export type LabelSource = 'qr' | 'nfc';
+
 /** Plain words for the targets that do not open an animal. */
-export function targetMessage(target: Exclude<LabelTarget, { kind: 'on_round' | 'not_due' }>): {
+export function targetMessage(
+  target: Exclude<LabelTarget, { kind: 'on_round' | 'not_due' }>,
+  via: LabelSource = 'qr',
+): {
   title: string;
   body: string;
 } {
@@ -94,11 +100,21 @@ export function targetMessage(target: Exclude<LabelTarget, { kind: 'on_round' | 
         body: 'This phone has no copy of the animal list yet. Open the app once with a signal, then it works offline too.',
       };
     case 'malformed':
+      if (via === 'nfc')
+        return {
+          title: 'This tag holds a damaged label address.',
+          body: 'Write the tag again from the animal’s page, or scan the QR label.',
+        };
       return {
         title: 'That is not a label code.',
         body: 'Codes look like NL-7K3: letters and digits, no O, 0, I or 1. A damaged label can be typed in instead.',
       };
     case 'foreign':
+      if (via === 'nfc')
+        return {
+          title: 'That tag is not a Rackside tag.',
+          body: 'It holds no Rackside label address. Tags written from an animal’s page or the Labels page open the animal; so does the QR label.',
+        };
       return {
         title: 'That QR code is not a Rackside label.',
         body: 'Point the camera at the label on the enclosure.',

@@ -1,16 +1,21 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
+import { labelUrl } from '#shared/domain/labels/label-payload';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
+import { nfcAvailable } from '@/lib/web-nfc';
 import { useRelabel } from '../api/relabel';
+import { NfcWriteTag } from './nfc-write-tag';
 
 interface Props {
   collectionId: string;
+  /** The collection's label tag; empty until this phone has learnt it (then no NFC writing). */
+  labelTag: string;
   animal: { id: string; name: string; labelCode: string };
 }
 
 /** The animal's label: print it again, or give it a new code when the old label is lost or damaged. */
-export function LabelPanel({ collectionId, animal }: Props) {
+export function LabelPanel({ collectionId, labelTag, animal }: Props) {
   const [confirming, setConfirming] = useState(false);
   const relabel = useRelabel(collectionId, animal.id, () => setConfirming(false));
   return (
@@ -32,6 +37,13 @@ export function LabelPanel({ collectionId, animal }: Props) {
       >
         Print this label
       </Link>
+      {labelTag && nfcAvailable() && (
+        <NfcWriteTag
+          key={animal.labelCode}
+          url={labelUrl(window.location.origin, labelTag, animal.labelCode)}
+          what={`${animal.name} (${animal.labelCode})`}
+        />
+      )}
       {relabel.isSuccess && (
         <Notice
           tone="ok"

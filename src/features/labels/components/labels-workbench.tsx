@@ -15,6 +15,7 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { ApiError } from '@/lib/api-client';
 import { useOnline } from '@/lib/use-online';
+import { nfcAvailable } from '@/lib/web-nfc';
 import { downloadLabelsPdf } from '../api/download-pdf';
 import {
   isLabelSize,
@@ -25,6 +26,7 @@ import {
 } from '../print-settings';
 import { AnimalChooser } from './animal-chooser';
 import { LabelSheets } from './label-sheets';
+import { NfcTagBatch } from './nfc-tag-batch';
 import { PrintOptions } from './print-options';
 
 interface Props {
@@ -168,6 +170,9 @@ export function LabelsWorkbench({ collectionId, labelTag, timeZone, animals, pre
           </p>
           {pdf.error && <Notice tone="error" title={pdf.error} />}
         </div>
+        {labels.length > 0 && nfcAvailable() && (
+          <NfcTagBatch labels={labels} labelTag={labelTag} origin={origin} />
+        )}
         {canPrint && sheet && (
           <>
             <label className="flex min-h-target cursor-pointer items-center gap-3">
