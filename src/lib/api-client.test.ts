@@ -135,6 +135,17 @@ describe('raw mode', () => {
     expect(await res.json()).toEqual({ error: { code: 'forbidden', message: 'No.' } });
   });
 
+  it('answers offline at once, without a fetch, when the browser knows it has no network', async () => {
+    answer(200, { id: 'a' });
+    vi.stubGlobal('navigator', { onLine: false });
+    expect(await failure(apiRaw('/x'))).toMatchObject({ status: 0, code: 'offline' });
+    expect(fetch).not.toHaveBeenCalled();
+    // Online as far as the browser knows (it may still be wrong): the request is made.
+    vi.stubGlobal('navigator', { onLine: true });
+    expect((await apiRaw('/x')).status).toBe(200);
+    expect(fetch).toHaveBeenCalledOnce();
+  });
+
   it('throws when no answer came, and lets the caller’s own timeout through as it is', async () => {
     vi.stubGlobal(
       'fetch',

@@ -65,6 +65,11 @@ async function send(
   { method = 'GET', body, signal, ifNoneMatch }: RequestOptions,
   accept: string,
 ): Promise<Response> {
+  // The browser knows it has no network at all (navigator.onLine is trustworthy only when false):
+  // say so at once rather than after a fetch that must fail, so an offline screen shows its
+  // phone's copy as such in the same frame as the copy itself (P2).
+  if (typeof navigator !== 'undefined' && navigator.onLine === false)
+    throw new ApiError(0, 'offline', OFFLINE);
   const multipart = body instanceof FormData;
   // A plain GET the page already asked for while the app downloaded: that answer, if it came.
   const early =
