@@ -42,8 +42,8 @@ function start() {
   };
   if (path === '/sign-in') return preloadChunks(__FIRST_VISIT_CHUNKS__.signIn);
   if (PUBLIC_PAGES.test(path)) return;
-  // No network at all: nothing to ask, the app answers from the phone's copy (P2).
-  if (navigator.onLine === false) return preloadChunks(__FIRST_VISIT_CHUNKS__.signedIn);
+  // No network at all: nothing to ask, and no answers to read with the schemas (P2).
+  if (navigator.onLine === false) return;
   const today = path === '/' || path === '/today';
   let saved: string | null = null;
   try {

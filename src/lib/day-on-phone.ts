@@ -47,14 +47,15 @@ export async function currentRound(
   day: RoundDay,
   now: Date,
 ): Promise<CachedRound | undefined> {
-  const [cached, engine] = await Promise.all([
-    cachedRound(db, userId, collectionId, day),
-    storedEngineInput(db, userId, collectionId),
-  ]);
+  const wantedIn = (zone: string) => addDays(localDateOf(now, zone), day === 'tomorrow' ? 1 : 0);
+  const cached = await cachedRound(db, userId, collectionId, day);
+  // The usual case, and the first screen's: the stored round is the day's. The engine's input
+  // (most of a megabyte for a large collection) is read only when a day must be built.
+  if (cached && cached.round.date >= wantedIn(cached.round.timeZone)) return cached;
+  const engine = await storedEngineInput(db, userId, collectionId);
   const zone = cached?.round.timeZone ?? engine?.input.timeZone;
   if (!zone) return cached;
-  const wanted = addDays(localDateOf(now, zone), day === 'tomorrow' ? 1 : 0);
-  if (cached && cached.round.date >= wanted) return cached;
+  const wanted = wantedIn(zone);
   // The input holds the state at the end of its own day at the earliest: it can build the
   // days after it, not the day it was sent on (that day's round comes from the server).
   if (!engine || engine.input.date >= wanted) return cached;
