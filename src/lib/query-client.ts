@@ -3,8 +3,8 @@ import { ApiError } from './api-client';
 
 /**
  * Query results reach React in a microtask rather than TanStack's default `setTimeout(0)`: a tap
- * writes the round's query data, and its card then changes in the same render as the undo toast,
- * not in a second one a task later (P1).
+ * writes the round's query data, and its card can then change in the same render as the undo bar
+ * instead of a task later (P1).
  */
 notifyManager.setScheduler(queueMicrotask);
 
