@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import type { RecordedEvent } from '#shared/schemas/events';
 import { sampleRound } from '../../tests/fixtures/sample-round';
-import { openRacksideDb, type RacksideDb } from './db';
+import { openRacksideDb, type CachedRound, type RacksideDb } from './db';
 import { recordTap } from './outbox';
 import { applyTapEffect, cachedRound, storeServerRound } from './round-cache';
 
@@ -60,6 +60,31 @@ describe('a fresh copy of the round from the server', () => {
     const stored = await storeServerRound(db, USER, COLLECTION, 'today', sampleRound(), new Date());
     expect(stored.round.items[0]!.tasks[0]!.done?.eventId).toBe(a.id);
     expect(stored.round.progress.done).toBe(1);
+  });
+
+  it('hands the merged round to the screen before its write ends, and a tap made then lands on it', async () => {
+    const a = event('ate');
+    await tap(a);
+    let shown: CachedRound | undefined;
+    let tapped: Promise<unknown> | undefined;
+    const stored = await storeServerRound(
+      db,
+      USER,
+      COLLECTION,
+      'today',
+      sampleRound(),
+      new Date(),
+      (merged) => {
+        shown = merged;
+        // A tap while the write is under way queues behind it.
+        tapped = tap(event('refused'));
+      },
+    );
+    expect(shown).toBe(stored);
+    expect(shown!.round.items[0]!.tasks[0]!.done?.eventId).toBe(a.id);
+    await tapped;
+    const after = await cachedRound(db, USER, COLLECTION, 'today');
+    expect(after!.round.items[0]!.outcomes.map((o) => o.kind)).toEqual(['ate', 'refused']);
   });
 
   it('does not count a tap twice once the server has it', async () => {

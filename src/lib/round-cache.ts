@@ -155,6 +155,12 @@ export async function storeServerRound(
   day: RoundDay,
   round: RoundResponse,
   fetchedAt: Date,
+  /**
+   * Called with the round as it will be stored, before its write commits: the screen can show it
+   * a write earlier (P3). A tap made meanwhile queues behind this transaction, so it lands on the
+   * stored copy as on the shown one.
+   */
+  onMerged?: (cached: CachedRound) => void,
 ): Promise<CachedRound> {
   const tx = db.transaction(['outbox', 'rounds', 'roundItems'], 'readwrite');
   const done = transactionDone(tx);
@@ -186,7 +192,9 @@ export async function storeServerRound(
     fetchedAt: fetchedAt.toISOString(),
     ...(unsettled.length ? { unsettled } : {}),
   };
-  await Promise.all([...writeRound(tx, cached), done]);
+  const writes = writeRound(tx, cached);
+  onMerged?.(cached);
+  await Promise.all([...writes, done]);
   return cached;
 }
 

@@ -74,9 +74,10 @@ export function useRound(
         // A fetch overtaken by a newer one must not store its older copy over the newer one.
         signal.throwIfAborted();
         const cached = await withDb((db) =>
-          storeServerRound(db, userId, collectionId, day, round, new Date()),
+          storeServerRound(db, userId, collectionId, day, round, new Date(), (merged) =>
+            queryClient.setQueryData(queryKeys.rounds.local(collectionId, day, userId), merged),
+          ),
         );
-        queryClient.setQueryData(queryKeys.rounds.local(collectionId, day, userId), cached);
         // With every sync (saved taps refresh the rounds), so the phone can build tomorrow.
         if (buildsOffline) await refreshEngineInput(userId, collectionId).catch(() => undefined);
         // Taps saved while this fetch was under way may have changed the round, and the refresh
