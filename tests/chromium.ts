@@ -29,6 +29,20 @@ export async function launchBrowser(): Promise<{ browser: Browser; userDataDir: 
   return { browser, userDataDir };
 }
 
+/** Chromium whose camera is a video file (a printed label filmed): Scan decodes what it shows. */
+export function launchWithFakeCamera(video: string): Promise<Browser> {
+  return chromium.launch({
+    executablePath: chromiumPath(),
+    headless: true,
+    args: [
+      ...CHROMIUM_ARGS,
+      '--use-fake-device-for-media-stream',
+      '--use-fake-ui-for-media-stream',
+      `--use-file-for-fake-video-capture=${video}`,
+    ],
+  });
+}
+
 /** Waits until a service worker controls the page, so a reload is served from its cache. */
 export async function underServiceWorker(page: Page) {
   await page.evaluate(() => navigator.serviceWorker.ready);

@@ -5,7 +5,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { and, eq, gte } from 'drizzle-orm';
-import { chromium, type Page } from 'playwright-core';
+import type { Page } from 'playwright-core';
 import { afterAll, describe, expect, it } from 'vitest';
 import { labelContent } from '#shared/domain/labels/label-content';
 import { LABEL_FIELDS } from '#shared/domain/labels/label-layout';
@@ -14,13 +14,7 @@ import { LABEL_SIZES, placeLabels, sheetLayout } from '#shared/domain/labels/she
 import type { AnimalSummary } from '#shared/schemas/animals';
 import type { RoundResponse } from '#shared/schemas/rounds';
 import { events } from '../../server/db/schema/animals';
-import {
-  CHROMIUM_ARGS,
-  chromiumPath,
-  cutNetwork,
-  restoreNetwork,
-  underServiceWorker,
-} from '../chromium';
+import { cutNetwork, launchWithFakeCamera, restoreNetwork, underServiceWorker } from '../chromium';
 import { writeLabelVideo } from '../support/fake-camera';
 import {
   decodeQrIn,
@@ -223,16 +217,7 @@ describe('walk mode with the camera', () => {
         heightMm: SIZE.heightMm + 4,
       }),
     );
-    const browser = await chromium.launch({
-      executablePath: chromiumPath(),
-      headless: true,
-      args: [
-        ...CHROMIUM_ARGS,
-        '--use-fake-device-for-media-stream',
-        '--use-fake-ui-for-media-stream',
-        `--use-file-for-fake-video-capture=${video}`,
-      ],
-    });
+    const browser = await launchWithFakeCamera(video);
     try {
       const { context, page, consoleErrors } = await phonePage(browser);
       await context.grantPermissions(['camera'], { origin: env.server.baseUrl });

@@ -8,7 +8,7 @@ import https from 'node:https';
 import os from 'node:os';
 import path from 'node:path';
 import type { TLSSocket } from 'node:tls';
-import { chromium, type Browser, type BrowserContext } from 'playwright-core';
+import type { Browser, BrowserContext } from 'playwright-core';
 import QRCode from 'qrcode';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -21,7 +21,7 @@ import { DEMO_PASSWORD } from '../../server/access/demo-people';
 import { connectDatabase } from '../../server/db/client';
 import { certificateNames } from '../../server/lan/addresses';
 import { seedDemo } from '../../server/seed/demo';
-import { CHROMIUM_ARGS } from '../chromium';
+import { launchWithFakeCamera } from '../chromium';
 import { testDatabaseUrl } from '../setup/database-urls';
 import { createTestContext, createTestDatabase, dropTestDatabase } from '../setup/test-app';
 import { writeLabelVideo } from '../support/fake-camera';
@@ -210,16 +210,7 @@ describe('a phone on the home network', () => {
       }
     const video = path.join(tmp, 'label.y4m');
     writeLabelVideo(video, { width: side, height: side, grey });
-    browser = await chromium.launch({
-      executablePath: '/usr/bin/chromium',
-      headless: true,
-      args: [
-        ...CHROMIUM_ARGS,
-        '--use-fake-device-for-media-stream',
-        '--use-fake-ui-for-media-stream',
-        `--use-file-for-fake-video-capture=${video}`,
-      ],
-    });
+    browser = await launchWithFakeCamera(video);
     context = await browser.newContext({
       viewport: { width: 360, height: 740 },
       deviceScaleFactor: 2,
