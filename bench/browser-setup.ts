@@ -9,9 +9,24 @@ import express from 'express';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { build } from 'vite';
 import { VitePWA } from 'vite-plugin-pwa';
+import { DEMO_PASSWORD } from '../server/access/demo-people';
 
 const root = path.resolve(import.meta.dirname, '..');
 export const minimalDir = path.join(root, 'bench', '.minimal-dist');
+
+/** Signs a browser context in (the demo owner unless told otherwise), as the page itself would. */
+export async function signInContext(
+  context: BrowserContext,
+  baseUrl: string,
+  email = 'owner@northlight.test',
+  password = DEMO_PASSWORD,
+) {
+  const res = await context.request.post(`${baseUrl}/api/auth/sign-in`, {
+    data: { email, password },
+    headers: { 'X-Rackside-Client': '1' },
+  });
+  if (res.status() !== 200) throw new Error(`sign-in as ${email} failed: ${res.status()}`);
+}
 
 let built = false;
 /** Builds Rackside (production) and the minimal shell once per bench run. */

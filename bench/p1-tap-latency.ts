@@ -7,7 +7,7 @@ import type { Page } from 'playwright-core';
 import type { Database } from '../server/db/client';
 import { cutNetwork, launchBrowser } from '../tests/chromium';
 import { makeKeeper, signInCookie, startBenchApp, BENCH_PASSWORD } from './bench-app';
-import { ensureBuilds, percentile, phoneContext, throttle } from './browser-setup';
+import { ensureBuilds, percentile, phoneContext, signInContext, throttle } from './browser-setup';
 import { median, type Figure } from './results-file';
 
 const TAPS = Number(process.env.P1_TAPS ?? 200);
@@ -182,11 +182,7 @@ export async function measureTaps(
     const keeper = await makeKeeper(database, items, `p1-${items}`);
     await signInCookie(app.baseUrl, keeper.email); // checks the account works before the browser does
     const context = await phoneContext(browser);
-    const signIn = await context.request.post(`${app.baseUrl}/api/auth/sign-in`, {
-      data: { email: keeper.email, password: BENCH_PASSWORD },
-      headers: { 'X-Rackside-Client': '1' },
-    });
-    if (signIn.status() !== 200) throw new Error(`P1 sign-in failed: ${signIn.status()}`);
+    await signInContext(context, app.baseUrl, keeper.email, BENCH_PASSWORD);
     const page = await context.newPage();
     // tsx keeps function names with a `__name` helper the page lacks (helpers in the taps' code).
     await page.addInitScript('globalThis.__name = (f) => f');

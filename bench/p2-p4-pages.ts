@@ -2,7 +2,6 @@
 // JavaScript), each against a minimal React + router + query + PWA shell measured the same way.
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { firstRouteJs } from '../scripts/first-route-size.mjs';
-import { DEMO_PASSWORD } from '../server/access/demo-people';
 import type { Database } from '../server/db/client';
 import { seedDemo } from '../server/seed/demo';
 import { cutNetwork, launchBrowser, underServiceWorker } from '../tests/chromium';
@@ -13,20 +12,12 @@ import {
   minimalDir,
   phoneContext,
   serveMinimalShell,
+  signInContext,
   throttle,
 } from './browser-setup';
 import { median, type Figure } from './results-file';
 
 const RUNS = 5;
-const DEMO_OWNER = 'owner@northlight.test';
-
-async function signIn(context: BrowserContext, baseUrl: string) {
-  const res = await context.request.post(`${baseUrl}/api/auth/sign-in`, {
-    data: { email: DEMO_OWNER, password: DEMO_PASSWORD },
-    headers: { 'X-Rackside-Client': '1' },
-  });
-  if (res.status() !== 200) throw new Error(`sign-in failed: ${res.status()}`);
-}
 
 const roundReady = (page: Page) =>
   page.getByRole('button', { name: 'Ate', exact: true }).first().waitFor({ timeout: 60_000 });
@@ -103,7 +94,7 @@ export async function runP2(database: Database): Promise<{ figures: Figure[]; no
     // First visits online: the service worker installs and the round reaches IndexedDB.
     const step = (what: string) => console.log(`  P2: ${what}`);
     const appContext = await phoneContext(browser);
-    await signIn(appContext, app);
+    await signInContext(appContext, app);
     const first = await appContext.newPage();
     await first.goto(`${app}/today`);
     await roundReady(first);
@@ -154,7 +145,7 @@ export async function runP3(database: Database): Promise<{ figures: Figure[]; no
     for (let i = 0; i < RUNS; i++) {
       // Each visit in a fresh context: empty HTTP cache, no service worker yet.
       const signedIn = await phoneContext(browser);
-      await signIn(signedIn, app);
+      await signInContext(signedIn, app);
       today.push(await visit(signedIn, `${app}/today`, roundReady, true, todayElements));
       await signedIn.close();
       const stranger = await phoneContext(browser);

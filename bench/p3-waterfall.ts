@@ -4,12 +4,17 @@
 // paints and every largest-contentful-paint candidate with the element it painted.
 import { writeFile } from 'node:fs/promises';
 import type { BrowserContext, Page } from 'playwright-core';
-import { DEMO_PASSWORD } from '../server/access/demo-people';
 import type { Database } from '../server/db/client';
 import { seedDemo } from '../server/seed/demo';
 import { cutNetwork, launchBrowser, underServiceWorker } from '../tests/chromium';
 import { startBenchApp } from './bench-app';
-import { ensureBuilds, phoneContext, serveMinimalShell, throttle } from './browser-setup';
+import {
+  ensureBuilds,
+  phoneContext,
+  serveMinimalShell,
+  signInContext,
+  throttle,
+} from './browser-setup';
 import type { Figure } from './results-file';
 
 interface Timeline {
@@ -112,11 +117,7 @@ export async function runP3Waterfall(
   const notes: string[] = [];
   try {
     const signedIn = await phoneContext(browser);
-    const res = await signedIn.request.post(`${app.baseUrl}/api/auth/sign-in`, {
-      data: { email: 'owner@northlight.test', password: DEMO_PASSWORD },
-      headers: { 'X-Rackside-Client': '1' },
-    });
-    if (res.status() !== 200) throw new Error(`sign-in failed: ${res.status()}`);
+    await signInContext(signedIn, app.baseUrl);
     const today = await firstVisit(signedIn, `${app.baseUrl}/today`, (p) =>
       p.getByRole('button', { name: 'Ate', exact: true }).first().waitFor({ timeout: 60_000 }),
     );
@@ -210,11 +211,7 @@ export async function runP2Waterfall(
     p.getByRole('button', { name: 'Ate', exact: true }).first().waitFor({ timeout: 60_000 });
   try {
     const phone = await phoneContext(browser);
-    const res = await phone.request.post(`${app.baseUrl}/api/auth/sign-in`, {
-      data: { email: 'owner@northlight.test', password: DEMO_PASSWORD },
-      headers: { 'X-Rackside-Client': '1' },
-    });
-    if (res.status() !== 200) throw new Error(`sign-in failed: ${res.status()}`);
+    await signInContext(phone, app.baseUrl);
     const online = await phone.newPage();
     await online.goto(`${app.baseUrl}/today`);
     await roundShown(online);
