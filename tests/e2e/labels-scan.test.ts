@@ -10,6 +10,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { labelContent } from '#shared/domain/labels/label-content';
 import { LABEL_FIELDS } from '#shared/domain/labels/label-layout';
 import { labelUrl } from '#shared/domain/labels/label-payload';
+import { makeQrSymbol } from '#shared/domain/labels/qr-symbol';
 import { LABEL_SIZES, placeLabels, sheetLayout } from '#shared/domain/labels/sheet-layout';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import type { RoundResponse } from '#shared/schemas/rounds';
@@ -180,6 +181,42 @@ describe('label sheets printed from the browser', () => {
     await page
       .getByRole('region', { name: 'Scanned label' })
       .getByRole('article', { name: `${photographed.name}, ${photographed.labelCode}` })
+      .waitFor({ timeout: 30_000 });
+
+    // A clean label that html5-qrcode's decoder cannot read (second-reader.test.ts) is read by
+    // the second one: it is another collection's, and the screen says so.
+    await page.getByRole('button', { name: 'Scan next' }).click();
+    const missed = makeQrSymbol(labelUrl('https://rackside.example', 'PCVZ', 'NL-9PP'));
+    const png = await page.evaluate(
+      ({ size, modules }) => {
+        const scale = 6;
+        const canvas = document.createElement('canvas');
+        canvas.width = canvas.height = (size + 8) * scale;
+        const context = canvas.getContext('2d')!;
+        context.fillStyle = '#fff';
+        context.fillRect(0, 0, canvas.width, canvas.height);
+        context.fillStyle = '#000';
+        modules.forEach((dark, i) => {
+          if (dark)
+            context.fillRect(
+              (4 + (i % size)) * scale,
+              (4 + Math.floor(i / size)) * scale,
+              scale,
+              scale,
+            );
+        });
+        return canvas.toDataURL('image/png').split(',')[1]!;
+      },
+      { size: missed.size, modules: Array.from(missed.modules) },
+    );
+    await page.getByLabel('Scan a photo of a label').setInputFiles({
+      name: 'other.png',
+      mimeType: 'image/png',
+      buffer: Buffer.from(png, 'base64'),
+    });
+    await page
+      .getByRole('region', { name: 'Scanned label' })
+      .getByText('This label belongs to another collection.')
       .waitFor({ timeout: 30_000 });
     expect(consoleErrors).toEqual([]);
   });

@@ -1,5 +1,6 @@
 import { Html5Qrcode, Html5QrcodeSupportedFormats } from 'html5-qrcode';
 import { useId, useState } from 'react';
+import { readQrFile } from '../second-reader';
 
 /** Reads a label from a photo: for a phone whose live camera will not start, or a dim corner. */
 export function PhotoScan({ onScan }: { onScan: (text: string) => void }) {
@@ -13,15 +14,15 @@ export function PhotoScan({ onScan }: { onScan: (text: string) => void }) {
       formatsToSupport: [Html5QrcodeSupportedFormats.QR_CODE],
       verbose: false,
     });
-    try {
-      onScan(await qr.scanFile(file, false));
-    } catch {
+    const text = await qr
+      .scanFile(file, false)
+      .catch(() => readQrFile(file))
+      .finally(() => qr.clear());
+    if (text) onScan(text);
+    else
       setError(
         'No QR code could be read in that photo. Fill the frame with the label and keep it sharp.',
       );
-    } finally {
-      qr.clear();
-    }
   };
   return (
     <div className="flex flex-col gap-1">

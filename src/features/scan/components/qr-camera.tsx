@@ -2,6 +2,7 @@ import { Html5Qrcode, Html5QrcodeScannerState, Html5QrcodeSupportedFormats } fro
 import { useEffect, useId, useRef, useState } from 'react';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
+import { readQrImage } from '../second-reader';
 
 type CameraState =
   'starting' | 'scanning' | 'paused' | 'denied' | 'no_camera' | 'busy' | 'unsupported' | 'failed';
@@ -43,6 +44,8 @@ const HELP: Partial<Record<CameraState, { title: string; body: string }>> = {
 
 /** The same label still in view after a tap must not open again until the camera has lost it. */
 const SAME_LABEL_GAP_MS = 1500;
+/** How often the second reader looks at a frame: twice a second costs a phone little. */
+const SECOND_READER_MS = 500;
 
 interface Props {
   /** False while an item is open: the preview freezes and nothing is decoded. */
@@ -71,6 +74,13 @@ export function QrCamera({ active, onScan }: Props) {
   const [attempt, setAttempt] = useState(0);
 
   useEffect(() => {
+    const seen = (text: string) => {
+      const now = Date.now();
+      const seenBefore =
+        text === last.current.text && now - last.current.seenAt < SAME_LABEL_GAP_MS;
+      last.current = { text, seenAt: now };
+      if (!seenBefore && activeRef.current) onScanRef.current(text);
+    };
     const qr = new Html5Qrcode(hostId, {
       formatsToSupport: [Html5QrcodeSupportedFormats.QR_CODE],
       verbose: false,
@@ -92,13 +102,7 @@ export function QrCamera({ active, onScan }: Props) {
               height: Math.floor(Math.min(w, h) * 0.75),
             }),
           },
-          (text) => {
-            const now = Date.now();
-            const seenBefore =
-              text === last.current.text && now - last.current.seenAt < SAME_LABEL_GAP_MS;
-            last.current = { text, seenAt: now };
-            if (!seenBefore && activeRef.current) onScanRef.current(text);
-          },
+          seen,
           () => undefined,
         );
         if (disposed) return void qr.stop().catch(() => undefined);
@@ -121,10 +125,21 @@ export function QrCamera({ active, onScan }: Props) {
     };
     const onVisibility = () => void (document.hidden ? stop() : start());
 
+    // The second reader (see second-reader.ts) on the same video html5-qrcode shows.
+    const canvas = document.createElement('canvas');
+    const second = window.setInterval(() => {
+      const video = document.getElementById(hostId)?.querySelector('video');
+      if (!video || !activeRef.current || qr.getState() !== Html5QrcodeScannerState.SCANNING)
+        return;
+      const text = readQrImage(video, video.videoWidth, video.videoHeight, canvas, 640);
+      if (text) seen(text);
+    }, SECOND_READER_MS);
+
     void start();
     document.addEventListener('visibilitychange', onVisibility);
     return () => {
       disposed = true;
+      window.clearInterval(second);
       document.removeEventListener('visibilitychange', onVisibility);
       scanner.current = null;
       void stop().then(() => qr.clear());
