@@ -72,6 +72,12 @@ export function daysBetween(from: LocalDate, to: LocalDate): number {
   return dayNumber(to) - dayNumber(from);
 }
 
+/** ISO 8601 weekday: 1 for Monday … 7 for Sunday (ISO 8601-1:2019, 3.1.2.6 — from memory). */
+export function dayOfWeek(date: LocalDate): number {
+  // 1970-01-01 (day 0) was a Thursday, ISO weekday 4.
+  return ((((dayNumber(date) + 3) % 7) + 7) % 7) + 1;
+}
+
 const WEEKDAYS = ['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat'];
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
 
