@@ -8,6 +8,7 @@ import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { animalListQueryOptions } from '@/features/animals/api/list-animals';
 import { useMe } from '@/features/auth/api/get-me';
+import { followTemperatureUnit } from '@/lib/preferences';
 import { useCurrentCollection } from '@/features/auth/hooks/use-current-collection';
 import { SyncIndicator } from '@/features/sync/components/sync-indicator';
 import { ApiError } from '@/lib/api-client';
@@ -83,6 +84,9 @@ export function Shell() {
   const { current, choose } = useCurrentCollection(membershipList);
   const queryClient = useQueryClient();
   const userId = me.data?.user.id;
+  // The temperature unit is the person's own setting: this device follows it.
+  const temperatureUnit = me.data?.user.temperatureUnit;
+  useEffect(() => followTemperatureUnit(temperatureUnit), [temperatureUnit]);
   // The signed-in person's outbox syncs while the app is open; saved taps refresh the rounds.
   useEffect(
     () =>
