@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import { targetsProblem } from '../domain/climate/ranges';
 import { TEMPERATURE_UNITS } from '../domain/temperature';
-import { celsius, relativeHumidity } from './measures';
 import { uuid } from './common';
+import { celsius, relativeHumidity } from './measures';
 
 /**
  * Room climate at the API edge: temperatures always in °C (the client converts from the

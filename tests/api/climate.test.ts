@@ -5,8 +5,8 @@
 import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { readCsv } from '#shared/domain/csv/csv-file';
 import { planLoggerImport } from '#shared/domain/climate/logger-import';
+import { readCsv } from '#shared/domain/csv/csv-file';
 import { climateReadings } from '../../server/db/schema/climate';
 import { collections, locations, memberships } from '../../server/db/schema/collections';
 import { users } from '../../server/db/schema/users';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { dailyMail, describeDay, roomAlerts, summariseByDay } from './daily';
+import { dailyMail, dayOutOfRange, describeDay, roomAlerts, summariseByDay } from './daily';
 
 const targets = { minCelsius: 24, maxCelsius: 28, minHumidity: 60, maxHumidity: 80 };
 const logger = (takenAt: string, c: number, h: number) => ({
@@ -25,6 +25,9 @@ describe('summariseByDay', () => {
       { date: '2026-07-02', lowCelsius: 23, highCelsius: 27.5, lowHumidity: 65, highHumidity: 72, readings: 2 },
     ]);
     expect(describeDay(days[1]!, 'C')).toBe('23.0–27.5 °C · 65–72 %');
+    // 23 °C is below 24 °C; the first day (25 °C, 70 %) is inside 24–28 °C and 60–80 %.
+    expect(dayOutOfRange(days[1]!, targets)).toBe(true);
+    expect(dayOutOfRange(days[0]!, targets)).toBe(false);
   });
 });
 

@@ -49,6 +49,17 @@ export function summariseByDay(readings: readonly TimedReading[], zone: string):
   return [...days.values()].sort((a, b) => a.date.localeCompare(b.date));
 }
 
+/** True when any of the day's lowest or highest values lies beyond the room's range. */
+export function dayOutOfRange(d: DaySummary, t: RoomTargets): boolean {
+  const at = (humidity: number | null) => ({
+    currentCelsius: null,
+    minCelsius: d.lowCelsius,
+    maxCelsius: d.highCelsius,
+    humidity,
+  });
+  return breachesOf(at(d.lowHumidity), t).length > 0 || breachesOf(at(d.highHumidity), t).length > 0;
+}
+
 /** A day in words: "21.5–27.0 °C · 62–75 %". */
 export function describeDay(d: DaySummary, unit: TemperatureUnit, locale?: string): string {
   const parts: string[] = [];

@@ -1,11 +1,11 @@
 import type { CsvTable } from '../csv/csv-file';
-import { isIanaTimeZone } from '../time-zone';
 import {
   humidityProblem,
   temperatureToCelsius,
   TEMPERATURE_SYMBOL,
   type TemperatureUnit,
 } from '../temperature';
+import { isIanaTimeZone } from '../time-zone';
 import { resolveLoggerTime } from './logger-times';
 
 /** The ends a room thermometer can report (the API's `celsius` limits). */
