@@ -231,11 +231,19 @@ export function createApp(options: AppOptions) {
     animalScheduleRoutes(rounds, animals.updateCare, member),
   );
   const climate = createClimateService(database.db, now);
-  const dailyMail = createDailyMail(database.db, { mailer: options.mailer, now, publicUrl, logger });
+  const dailyMail = createDailyMail(database.db, {
+    mailer: options.mailer,
+    now,
+    publicUrl,
+    logger,
+  });
   // A room renamed with its places keeps its climate targets and readings.
   api.use(
     collection('/locations'),
-    locationsRoutes(createLocationsService(database.db, { onRoomRenamed: climate.renameRoom }), member),
+    locationsRoutes(
+      createLocationsService(database.db, { onRoomRenamed: climate.renameRoom }),
+      member,
+    ),
   );
   //   climate: /climate/today, /climate/readings, /climate/rooms, /climate/targets,
   //            /climate/history, /climate/import, /climate/animals/:animalId

@@ -14,8 +14,8 @@ import { DEMO_ACCOUNTS, DEMO_COLLECTION, DEMO_PASSWORD } from '../access/demo-pe
 import { newInviteToken } from '../access/invite-token';
 import { hashPassword } from '../access/passwords';
 import { animals, eggSacs } from '../db/schema/animals';
-import { collections, invites, locations, memberships } from '../db/schema/collections';
 import { climateReadings, roomTargets } from '../db/schema/climate';
+import { collections, invites, locations, memberships } from '../db/schema/collections';
 import { users } from '../db/schema/users';
 import { refoldStates } from '../features/events/projection';
 import { recordEvents } from '../features/events/record-events';

@@ -1,6 +1,6 @@
-import { TEMPERATURE_UNITS } from '../domain/temperature';
 import { z } from 'zod';
 import { ROLES } from '../domain/roles';
+import { TEMPERATURE_UNITS } from '../domain/temperature';
 import { utf8ByteLength } from '../domain/text-bytes';
 import { timeZone } from './common';
 

@@ -27,12 +27,10 @@ export const roomTargets = z.object({
 });
 export type RoomTargetsBody = z.infer<typeof roomTargets>;
 
-export const roomTargetsBody = roomTargets
-  .extend({ room: roomName })
-  .superRefine((t, ctx) => {
-    const problem = targetsProblem(t);
-    if (problem) ctx.addIssue({ code: 'custom', message: problem });
-  });
+export const roomTargetsBody = roomTargets.extend({ room: roomName }).superRefine((t, ctx) => {
+  const problem = targetsProblem(t);
+  if (problem) ctx.addIssue({ code: 'custom', message: problem });
+});
 export type RoomTargetsInput = z.infer<typeof roomTargetsBody>;
 
 /** The typed daily reading: min and max since the last reading, the humidity now. */
@@ -152,9 +150,7 @@ export type DaySummaryView = z.infer<typeof daySummary>;
 
 /** Every room of the collection with its targets and latest reading. */
 export const climateRoomsResponse = z.object({
-  rooms: z.array(
-    z.object({ room: z.string(), targets: roomTargets, latest: reading.nullable() }),
-  ),
+  rooms: z.array(z.object({ room: z.string(), targets: roomTargets, latest: reading.nullable() })),
 });
 
 export const roomHistoryResponse = z.object({

@@ -31,7 +31,10 @@ beforeAll(async () => {
   helper = await signUp(ctx);
   keeper = await signUp(ctx);
   const db = ctx.database.db;
-  await db.update(collections).set({ timeZone: ZONE }).where(eq(collections.id, owner.collectionId));
+  await db
+    .update(collections)
+    .set({ timeZone: ZONE })
+    .where(eq(collections.id, owner.collectionId));
   await addMember(db, {
     collectionId: owner.collectionId,
     userId: helper.userId,
@@ -42,15 +45,18 @@ beforeAll(async () => {
   await addMember(db, { collectionId: owner.collectionId, userId: keeper.userId, role: 'keeper' });
   // The second owner joins as a keeper and is moved up; reads °F.
   await addMember(db, { collectionId: owner.collectionId, userId: coOwner.userId, role: 'keeper' });
-  await db
-    .update(memberships)
-    .set({ role: 'owner' })
-    .where(eq(memberships.userId, coOwner.userId));
+  await db.update(memberships).set({ role: 'owner' }).where(eq(memberships.userId, coOwner.userId));
   await db.update(users).set({ temperatureUnit: 'F' }).where(eq(users.id, coOwner.userId));
   const [spot] = await db
     .insert(locations)
     .values([
-      { collectionId: owner.collectionId, room: 'Spare room', rack: 'A', shelf: '1', position: '01' },
+      {
+        collectionId: owner.collectionId,
+        room: 'Spare room',
+        rack: 'A',
+        shelf: '1',
+        position: '01',
+      },
       { collectionId: owner.collectionId, room: 'Hall', rack: 'B', shelf: '1', position: '01' },
     ])
     .returning();
@@ -79,7 +85,10 @@ describe('targets', () => {
     expect(JSON.stringify(swapped.body)).toMatch(/Swap them/);
     const rooms = await owner.agent.get(`${base()}/rooms`).expect(200);
     expect(rooms.body.rooms.map((r: { room: string }) => r.room)).toEqual(['Hall', 'Spare room']);
-    await helper.agent.put(`${base()}/targets`).send({ room: 'Hall', ...targets }).expect(403);
+    await helper.agent
+      .put(`${base()}/targets`)
+      .send({ room: 'Hall', ...targets })
+      .expect(403);
   });
 });
 
@@ -107,7 +116,15 @@ describe('the typed daily reading', () => {
       {
         room: 'Spare room',
         targets,
-        breaches: [{ measure: 'temperature', side: 'low', value: 22.5, limit: 24, takenAt: expect.any(String) }],
+        breaches: [
+          {
+            measure: 'temperature',
+            side: 'low',
+            value: 22.5,
+            limit: 24,
+            takenAt: expect.any(String),
+          },
+        ],
       },
     ]);
   });
@@ -115,7 +132,13 @@ describe('the typed daily reading', () => {
   it('refuses bad values with a sentence, and a helper sees no history', async () => {
     const bad = await helper.agent
       .post(`${base()}/readings`)
-      .send({ id: randomUUID(), room: 'Spare room', minCelsius: null, maxCelsius: null, humidity: 120 })
+      .send({
+        id: randomUUID(),
+        room: 'Spare room',
+        minCelsius: null,
+        maxCelsius: null,
+        humidity: 120,
+      })
       .expect(422);
     expect(JSON.stringify(bad.body)).toMatch(/0 to 100/);
     await helper.agent.get(`${base()}/history?room=Spare%20room`).expect(403);
@@ -142,7 +165,11 @@ describe('a logger file', () => {
       zone: ZONE,
     });
     expect(plan.problems).toEqual([]);
-    const rows = plan.rows.map(({ takenAt, celsius, humidity }) => ({ takenAt, celsius, humidity }));
+    const rows = plan.rows.map(({ takenAt, celsius, humidity }) => ({
+      takenAt,
+      celsius,
+      humidity,
+    }));
     const first = await keeper.agent
       .post(`${base()}/import`)
       .send({ room: 'Hall', rows })
@@ -208,7 +235,9 @@ describe('the owners’ morning e-mail', () => {
       );
       expect(toCoOwner.text).toContain('Spare room: up to 87.8 °F, above the range 75.2–82.4 °F.');
       expect(
-        ctx.mailbox.messages.filter((m) => m.to.includes(keeper.email) && /out of range/.test(m.subject)),
+        ctx.mailbox.messages.filter(
+          (m) => m.to.includes(keeper.email) && /out of range/.test(m.subject),
+        ),
       ).toEqual([]);
       // The next morning has nothing new to say: no mail.
       ctx.setNow(new Date('2026-06-05T05:05:00Z'));
@@ -223,7 +252,9 @@ describe('the person’s unit and a renamed room', () => {
   it('keeps the unit on the server for every device', async () => {
     const me = await helper.agent.patch('/api/auth/me').send({ temperatureUnit: 'F' }).expect(200);
     expect(me.body.user.temperatureUnit).toBe('F');
-    expect((await helper.agent.get('/api/auth/me').expect(200)).body.user.temperatureUnit).toBe('F');
+    expect((await helper.agent.get('/api/auth/me').expect(200)).body.user.temperatureUnit).toBe(
+      'F',
+    );
     await helper.agent.patch('/api/auth/me').send({ temperatureUnit: 'K' }).expect(422);
   });
 

@@ -16,6 +16,15 @@ import {
 import { meResponse, resetRequestedResponse } from '#shared/schemas/auth';
 import { eggSacListResponse, eggSacView, slingsCreatedResponse } from '#shared/schemas/breeding';
 import {
+  animalClimateResponse,
+  climateRoomsResponse,
+  climateTodayResponse,
+  loggerImportResponse,
+  roomHistoryResponse,
+  roomTargetsResponse,
+  typedReadingResponse,
+} from '#shared/schemas/climate';
+import {
   collectionResponse,
   inviteSentResponse,
   membersResponse,
@@ -32,15 +41,6 @@ import {
 } from '#shared/schemas/cover';
 import { devMailResponse } from '#shared/schemas/dev';
 import { historyResponse } from '#shared/schemas/events';
-import {
-  animalClimateResponse,
-  climateRoomsResponse,
-  climateTodayResponse,
-  loggerImportResponse,
-  roomHistoryResponse,
-  roomTargetsResponse,
-  typedReadingResponse,
-} from '#shared/schemas/climate';
 import { helperReportsResponse } from '#shared/schemas/helper-reports';
 import { importResponse } from '#shared/schemas/import';
 import { relabelResponse } from '#shared/schemas/labels';
@@ -329,7 +329,10 @@ describe('answers the app reads', () => {
       .send({ room: 'Climate room', rack: 'K', shelf: '1', position: '1' })
       .expect(201);
     const t = { minCelsius: 24, maxCelsius: 28, minHumidity: null, maxHumidity: 80 };
-    expectShape(await a.put(`${c}/targets`).send({ room: 'Climate room', ...t }), roomTargetsResponse);
+    expectShape(
+      await a.put(`${c}/targets`).send({ room: 'Climate room', ...t }),
+      roomTargetsResponse,
+    );
     expectShape(
       await helper.agent.post(`${c}/readings`).send({
         id: randomUUID(),

@@ -33,7 +33,8 @@ describe('room climate', () => {
     const zone = DEMO_COLLECTION.timeZone;
     const now = new Date();
     const today = localDateOf(now, zone);
-    const morning = now < morningOf(today, zone) ? morningOf(today, zone) : morningOf(addDays(today, 1), zone);
+    const morning =
+      now < morningOf(today, zone) ? morningOf(today, zone) : morningOf(addDays(today, 1), zone);
     env.server.ctx.setNow(new Date(morning.getTime() + 5 * 60_000));
     try {
       expect(await env.server.ctx.services.dailyMail.runDue()).toBe(1);
@@ -43,7 +44,9 @@ describe('room climate', () => {
     await page.goto(`${env.server.baseUrl}/dev/mailbox`);
     await page.getByText('Northlight Inverts: a room was out of range').first().waitFor();
     await expect
-      .poll(() => page.getByText(/Spare room: up to 30\.5 °C, above the range 22\.0–27\.0 °C\./).count())
+      .poll(() =>
+        page.getByText(/Spare room: up to 30\.5 °C, above the range 22\.0–27\.0 °C\./).count(),
+      )
       .toBeGreaterThan(0);
     await expectAccessible(page, 'mailbox with the morning e-mail');
     await screenshot(page, 'climate-02-mailbox');

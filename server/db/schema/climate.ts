@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import {
   check,
   date,
@@ -10,7 +11,6 @@ import {
   uniqueIndex,
   uuid,
 } from 'drizzle-orm/pg-core';
-import { sql } from 'drizzle-orm';
 import { collections } from './collections';
 import { users } from './users';
 
@@ -63,7 +63,10 @@ export const climateReadings = pgTable(
     uniqueIndex('climate_readings_logger_instant')
       .on(t.collectionId, t.room, t.takenAt)
       .where(sql`${t.source} = 'logger'`),
-    check('climate_readings_humidity', sql`${t.humidity} is null or ${t.humidity} between 0 and 100`),
+    check(
+      'climate_readings_humidity',
+      sql`${t.humidity} is null or ${t.humidity} between 0 and 100`,
+    ),
   ],
 );
 

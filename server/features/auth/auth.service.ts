@@ -3,12 +3,7 @@ import type { FirstOwnerBody, SignUpFinishBody } from '#shared/schemas/auth';
 import { insertCollection } from '../../access/collections';
 import { insertMembership, listMembershipsOfUser } from '../../access/memberships';
 import { burnComparison, decoyHash, hashPassword, verifyPassword } from '../../access/passwords';
-import {
-  findUserByEmail,
-  findUserById,
-  insertUser,
-  setTemperatureUnit,
-} from '../../access/users';
+import { findUserByEmail, findUserById, insertUser, setTemperatureUnit } from '../../access/users';
 import type { Background } from '../../background';
 import type { Db } from '../../db/client';
 import { isUniqueViolation } from '../../db/errors';

@@ -58,7 +58,10 @@ export async function renameRoom(db: Db, collectionId: string, from: string, to:
 
 /** Stores a typed reading once per id; the stored row (this one or the earlier). */
 export async function insertTypedReading(db: Db, values: typeof climateReadings.$inferInsert) {
-  await db.insert(climateReadings).values(values).onConflictDoNothing({ target: climateReadings.id });
+  await db
+    .insert(climateReadings)
+    .values(values)
+    .onConflictDoNothing({ target: climateReadings.id });
   const [row] = await db.select().from(climateReadings).where(eq(climateReadings.id, values.id));
   return row!;
 }

@@ -46,11 +46,19 @@ export function climateRoutes(service: ClimateService, member: (min: Role) => Re
   router.get('/rooms', member('keeper'), async (_req, res) => {
     res.json(await service.rooms(membershipOf(res).collectionId));
   });
-  router.put('/targets', member('keeper'), validate({ body: roomTargetsBody }), async (_req, res) => {
-    res.json(
-      await service.setTargets(membershipOf(res).collectionId, input<RoomTargetsInput>(res, 'body')),
-    );
-  });
+  router.put(
+    '/targets',
+    member('keeper'),
+    validate({ body: roomTargetsBody }),
+    async (_req, res) => {
+      res.json(
+        await service.setTargets(
+          membershipOf(res).collectionId,
+          input<RoomTargetsInput>(res, 'body'),
+        ),
+      );
+    },
+  );
   router.get('/history', member('keeper'), validate({ query: roomQuery }), async (_req, res) => {
     const q = input<{ room: string; days: number }>(res, 'query');
     res.json(await service.history(membershipOf(res), q.room, q.days));

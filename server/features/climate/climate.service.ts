@@ -1,6 +1,11 @@
 import { randomUUID } from 'node:crypto';
 import { roomAlerts, summariseByDay } from '#shared/domain/climate/daily';
-import { breachesOf, hasTargets, NO_TARGETS, type RoomTargets } from '#shared/domain/climate/ranges';
+import {
+  breachesOf,
+  hasTargets,
+  NO_TARGETS,
+  type RoomTargets,
+} from '#shared/domain/climate/ranges';
 import { addDays, localDateOf, startOfLocalDate } from '#shared/domain/local-dates';
 import type {
   ClimateToday,
@@ -109,7 +114,12 @@ export function createClimateService(db: Db, now: () => Date) {
           m.role === 'helper' ? { recordedBy: userId } : {},
         ),
       ]);
-      const readSince = await readingsBetween(db, m.collectionId, dayStart, new Date(at.getTime() + 1));
+      const readSince = await readingsBetween(
+        db,
+        m.collectionId,
+        dayStart,
+        new Date(at.getTime() + 1),
+      );
       const typedToday = new Set(readSince.filter((r) => r.source === 'typed').map((r) => r.room));
       const tracked = new Set(withReadings);
       const rooms = names

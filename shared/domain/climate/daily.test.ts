@@ -21,8 +21,22 @@ describe('summariseByDay', () => {
       'Europe/Amsterdam',
     );
     expect(days).toEqual([
-      { date: '2026-07-01', lowCelsius: 25, highCelsius: 25, lowHumidity: 70, highHumidity: 70, readings: 1 },
-      { date: '2026-07-02', lowCelsius: 23, highCelsius: 27.5, lowHumidity: 65, highHumidity: 72, readings: 2 },
+      {
+        date: '2026-07-01',
+        lowCelsius: 25,
+        highCelsius: 25,
+        lowHumidity: 70,
+        highHumidity: 70,
+        readings: 1,
+      },
+      {
+        date: '2026-07-02',
+        lowCelsius: 23,
+        highCelsius: 27.5,
+        lowHumidity: 65,
+        highHumidity: 72,
+        readings: 2,
+      },
     ]);
     expect(describeDay(days[1]!, 'C')).toBe('23.0–27.5 °C · 65–72 %');
     // 23 °C is below 24 °C; the first day (25 °C, 70 %) is inside 24–28 °C and 60–80 %.

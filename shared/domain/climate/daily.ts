@@ -57,7 +57,9 @@ export function dayOutOfRange(d: DaySummary, t: RoomTargets): boolean {
     maxCelsius: d.highCelsius,
     humidity,
   });
-  return breachesOf(at(d.lowHumidity), t).length > 0 || breachesOf(at(d.highHumidity), t).length > 0;
+  return (
+    breachesOf(at(d.lowHumidity), t).length > 0 || breachesOf(at(d.highHumidity), t).length > 0
+  );
 }
 
 /** A day in words: "21.5–27.0 °C · 62–75 %". */

@@ -77,7 +77,9 @@ export function planLoggerImport(table: CsvTable, s: LoggerSettings): LoggerPlan
   if (s.temperature === null && s.humidity === null)
     return {
       rows,
-      problems: [{ line: 1, message: 'Choose the temperature column, the humidity column or both.' }],
+      problems: [
+        { line: 1, message: 'Choose the temperature column, the humidity column or both.' },
+      ],
     };
   if (!isIanaTimeZone(s.zone))
     return {

@@ -14,20 +14,21 @@ const wall = (s: string) => {
 
 describe('instantsOfWallTime', () => {
   it('finds one instant on an ordinary day', () => {
-    expect(instantsOfWallTime(wall('2026-07-01 12:00'), ZONE).map((d) => d.toISOString())).toEqual(
-      ['2026-07-01T10:00:00.000Z'],
-    );
+    expect(instantsOfWallTime(wall('2026-07-01 12:00'), ZONE).map((d) => d.toISOString())).toEqual([
+      '2026-07-01T10:00:00.000Z',
+    ]);
   });
   it('finds two instants in the repeated autumn hour', () => {
-    expect(instantsOfWallTime(wall('2026-10-25 02:30'), ZONE).map((d) => d.toISOString())).toEqual(
-      ['2026-10-25T00:30:00.000Z', '2026-10-25T01:30:00.000Z'],
-    );
+    expect(instantsOfWallTime(wall('2026-10-25 02:30'), ZONE).map((d) => d.toISOString())).toEqual([
+      '2026-10-25T00:30:00.000Z',
+      '2026-10-25T01:30:00.000Z',
+    ]);
   });
   it('finds none in the skipped spring hour', () => {
     expect(instantsOfWallTime(wall('2026-03-29 02:30'), ZONE)).toEqual([]);
-    expect(instantsOfWallTime(wall('2026-03-29 03:00'), ZONE).map((d) => d.toISOString())).toEqual(
-      ['2026-03-29T01:00:00.000Z'],
-    );
+    expect(instantsOfWallTime(wall('2026-03-29 03:00'), ZONE).map((d) => d.toISOString())).toEqual([
+      '2026-03-29T01:00:00.000Z',
+    ]);
   });
   it('works west of Greenwich too (America/New_York, 2026-11-01 01:30 twice)', () => {
     // US rule in tzdata ("northamerica", Rule US): back at 02:00 EDT on the first Sunday of November.

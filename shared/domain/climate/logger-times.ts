@@ -24,9 +24,7 @@ export interface WallTime {
 }
 
 export type ParsedTime =
-  | { kind: 'wall'; wall: WallTime }
-  | { kind: 'instant'; instant: Date }
-  | { kind: 'invalid' };
+  { kind: 'wall'; wall: WallTime } | { kind: 'instant'; instant: Date } | { kind: 'invalid' };
 
 const ISO =
   /^(\d{4})[-/](\d{1,2})[-/](\d{1,2})[T ](\d{1,2}):(\d{2})(?::(\d{2})(?:[.,]\d+)?)?\s*(Z|[+-]\d{2}:?\d{2})?$/i;
@@ -76,8 +74,7 @@ export function parseLoggerTime(cell: string): ParsedTime {
   return { kind: 'wall', wall };
 }
 
-const wallMs = (w: WallTime) =>
-  Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second);
+const wallMs = (w: WallTime) => Date.UTC(w.year, w.month - 1, w.day, w.hour, w.minute, w.second);
 
 const formatters = new Map<string, Intl.DateTimeFormat>();
 /** The wall clock in `zone` at `instant`, as if it were UTC milliseconds. */
@@ -127,11 +124,7 @@ export type ResolvedTime =
  * A logger's cell as an instant, `previous` being the instant of the row before it in the
  * file (null for the first row): see the rules at the top of this file.
  */
-export function resolveLoggerTime(
-  cell: string,
-  zone: string,
-  previous: Date | null,
-): ResolvedTime {
+export function resolveLoggerTime(cell: string, zone: string, previous: Date | null): ResolvedTime {
   const parsed = parseLoggerTime(cell);
   if (parsed.kind === 'invalid') return { ok: false, reason: 'invalid' };
   if (parsed.kind === 'instant') return { ok: true, instant: parsed.instant, ambiguous: false };

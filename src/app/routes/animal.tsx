@@ -164,7 +164,11 @@ export function AnimalRoute() {
         animal={animal}
         timeZone={collection.timeZone}
         room={
-          <AnimalRoomClimate collectionId={collectionId} animalId={animal.id} unit={temperatureUnit} />
+          <AnimalRoomClimate
+            collectionId={collectionId}
+            animalId={animal.id}
+            unit={temperatureUnit}
+          />
         }
       />
     </div>

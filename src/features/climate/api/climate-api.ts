@@ -46,10 +46,9 @@ export const useRoomHistory = (collectionId: string, room: string, days: number)
   useQuery({
     queryKey: queryKeys.climate.history(collectionId, room, days),
     queryFn: () =>
-      apiRequest(
-        `${base(collectionId)}/history?room=${encodeURIComponent(room)}&days=${days}`,
-        { schema: async () => (await schemas()).roomHistoryResponse },
-      ),
+      apiRequest(`${base(collectionId)}/history?room=${encodeURIComponent(room)}&days=${days}`, {
+        schema: async () => (await schemas()).roomHistoryResponse,
+      }),
     enabled: !!room,
   });
 

@@ -11,7 +11,11 @@ import {
 } from 'recharts';
 import type { RoomTargets } from '#shared/domain/climate/ranges';
 import { formatLocalDate } from '#shared/domain/date-words';
-import { TEMPERATURE_SYMBOL, temperatureInUnit, type TemperatureUnit } from '#shared/domain/temperature';
+import {
+  TEMPERATURE_SYMBOL,
+  temperatureInUnit,
+  type TemperatureUnit,
+} from '#shared/domain/temperature';
 import type { DaySummaryView } from '#shared/schemas/climate';
 
 const axisDate = (date: string) => formatLocalDate(date, undefined, { weekday: false });
@@ -53,7 +57,11 @@ export default function ClimateChart({
           Solid line: the day’s lowest · dashed line: the day’s highest
         </span>
       </figcaption>
-      <div role="img" aria-label={`${title} per day, as in the table below`} className="h-60 w-full">
+      <div
+        role="img"
+        aria-label={`${title} per day, as in the table below`}
+        className="h-60 w-full"
+      >
         <ResponsiveContainer width="100%" height="100%">
           <LineChart data={data} margin={{ top: 8, right: 16, bottom: 20, left: 8 }}>
             <CartesianGrid stroke="var(--c-border)" strokeDasharray="3 3" />
@@ -85,7 +93,10 @@ export default function ClimateChart({
             />
             <Tooltip
               labelFormatter={(d) => formatLocalDate(String(d))}
-              formatter={(v, name) => [`${String(v)} ${symbol}`, name === 'low' ? 'Lowest' : 'Highest']}
+              formatter={(v, name) => [
+                `${String(v)} ${symbol}`,
+                name === 'low' ? 'Lowest' : 'Highest',
+              ]}
               contentStyle={{
                 background: 'var(--c-surface)',
                 border: '2px solid var(--c-border)',

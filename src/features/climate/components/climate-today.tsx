@@ -137,7 +137,6 @@ function ReadingCard({
   );
 }
 
-
 /**
  * Room climate on Today: a high-contrast notice for every room out of range in the last day
  * (room, reading and range in the person's unit), and one reading card per room still due.
@@ -191,4 +190,3 @@ export function ClimateToday({ collectionId }: { collectionId: string }) {
     </section>
   );
 }
-

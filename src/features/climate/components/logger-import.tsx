@@ -6,7 +6,12 @@ import {
 } from '#shared/domain/climate/logger-import';
 import { readCsv, type CsvTable } from '#shared/domain/csv/csv-file';
 import { clockTime, describeLocalDate, localDateOf } from '#shared/domain/local-dates';
-import { formatHumidity, formatTemperature, TEMPERATURE_UNITS, type TemperatureUnit } from '#shared/domain/temperature';
+import {
+  formatHumidity,
+  formatTemperature,
+  TEMPERATURE_UNITS,
+  type TemperatureUnit,
+} from '#shared/domain/temperature';
 import { MAX_LOGGER_ROWS } from '#shared/schemas/climate';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';

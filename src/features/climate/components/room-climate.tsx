@@ -2,7 +2,11 @@ import { lazy, Suspense } from 'react';
 import { describeDay } from '#shared/domain/climate/daily';
 import { describeHumidityRange, describeTemperatureRange } from '#shared/domain/climate/ranges';
 import { formatLocalDate } from '#shared/domain/date-words';
-import { formatHumidity, formatTemperature, type TemperatureUnit } from '#shared/domain/temperature';
+import {
+  formatHumidity,
+  formatTemperature,
+  type TemperatureUnit,
+} from '#shared/domain/temperature';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useRoomHistory } from '../api/climate-api';
@@ -69,7 +73,9 @@ export function RoomClimate({
               ))}
             </tbody>
           </table>
-          <p className="sr-only">{days.map((d) => `${d.date}: ${describeDay(d, unit)}`).join('. ')}</p>
+          <p className="sr-only">
+            {days.map((d) => `${d.date}: ${describeDay(d, unit)}`).join('. ')}
+          </p>
         </>
       )}
     </div>

@@ -1,6 +1,10 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
-import { describeHumidityRange, describeTemperatureRange, targetsProblem } from '#shared/domain/climate/ranges';
+import {
+  describeHumidityRange,
+  describeTemperatureRange,
+  targetsProblem,
+} from '#shared/domain/climate/ranges';
 import {
   formatHumidity,
   formatTemperature,
@@ -82,11 +86,33 @@ function TargetsForm({
         submit();
       }}
     >
-      <TextField label={`Lowest (${symbol})`} inputMode="decimal" value={values.minC} onChange={set('minC')} />
-      <TextField label={`Highest (${symbol})`} inputMode="decimal" value={values.maxC} onChange={set('maxC')} />
-      <TextField label="Lowest humidity (%)" inputMode="decimal" value={values.minH} onChange={set('minH')} />
-      <TextField label="Highest humidity (%)" inputMode="decimal" value={values.maxH} onChange={set('maxH')} />
-      <p className="col-span-2 text-sm text-muted">Leave a field empty for no limit on that side.</p>
+      <TextField
+        label={`Lowest (${symbol})`}
+        inputMode="decimal"
+        value={values.minC}
+        onChange={set('minC')}
+      />
+      <TextField
+        label={`Highest (${symbol})`}
+        inputMode="decimal"
+        value={values.maxC}
+        onChange={set('maxC')}
+      />
+      <TextField
+        label="Lowest humidity (%)"
+        inputMode="decimal"
+        value={values.minH}
+        onChange={set('minH')}
+      />
+      <TextField
+        label="Highest humidity (%)"
+        inputMode="decimal"
+        value={values.maxH}
+        onChange={set('maxH')}
+      />
+      <p className="col-span-2 text-sm text-muted">
+        Leave a field empty for no limit on that side.
+      </p>
       {problem && (
         <div className="col-span-2">
           <Notice tone="error" title={problem} />
@@ -136,7 +162,10 @@ export function RoomTargets({ collectionId }: { collectionId: string }) {
               .join(' · ')
           : null;
         return (
-          <li key={room} className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3">
+          <li
+            key={room}
+            className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3"
+          >
             <h3 className="text-lg font-extrabold">{room}</h3>
             <p>
               <span className="font-bold">Target: </span>
