@@ -50,6 +50,17 @@ describe('room climate', () => {
       .toBeGreaterThan(0);
     await expectAccessible(page, 'mailbox with the morning e-mail');
     await screenshot(page, 'climate-02-mailbox');
+
+    // The range is kept on the Places screen, in the person's unit.
+    await page.goto(`${env.server.baseUrl}/places`);
+    const rooms = page.getByRole('list', { name: 'Rooms and their climate' });
+    await rooms.getByText('22.0–27.0 °C · 60–75 %').waitFor();
+    await rooms.getByRole('button', { name: 'Set range' }).click();
+    const form = page.getByRole('form', { name: 'Target range for Spare room' });
+    expect(await form.getByLabel('Highest (°C)').inputValue()).toBe('27');
+    await form.scrollIntoViewIfNeeded();
+    await expectAccessible(page, 'room range form');
+    await screenshot(page, 'climate-04-places-range');
     expect(consoleErrors).toEqual([]);
     await context.close();
   });
