@@ -152,11 +152,14 @@ export function RoomTargets({ collectionId }: { collectionId: string }) {
           ? [
               latest.currentCelsius !== null
                 ? formatTemperature(latest.currentCelsius, unit)
-                : [latest.minCelsius, latest.maxCelsius]
-                    .filter((v): v is number => v !== null)
-                    .map((v) => formatTemperature(v, unit))
-                    .join(' / '),
-              latest.humidity !== null ? formatHumidity(latest.humidity) : null,
+                : null,
+              latest.minCelsius !== null
+                ? `lowest ${formatTemperature(latest.minCelsius, unit)}`
+                : null,
+              latest.maxCelsius !== null
+                ? `highest ${formatTemperature(latest.maxCelsius, unit)}`
+                : null,
+              latest.humidity !== null ? `humidity ${formatHumidity(latest.humidity)}` : null,
             ]
               .filter(Boolean)
               .join(' · ')
