@@ -1,9 +1,11 @@
 // Room climate at 360 px: the owner types the spare room's morning reading on Today with a
 // value above its range, sees the out-of-range notice at once, and the owners' morning
 // e-mail (the job run with the app's clock moved to the next morning) reaches the dev mailbox.
+import { eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { addDays, localDateOf } from '#shared/domain/local-dates';
 import { DEMO_COLLECTION } from '../../server/access/demo-people';
+import { animals } from '../../server/db/schema/animals';
 import { morningOf } from '../../server/features/climate/daily-mail';
 import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
 
@@ -76,6 +78,19 @@ describe('room climate', () => {
     await page.locator('.recharts-reference-area').first().waitFor();
     await expectAccessible(page, 'room climate page');
     await screenshot(page, 'climate-03-room-1280');
+
+    // An animal of the spare room has its room's days on its timeline, the hot day marked.
+    const [animal] = await env.server.ctx.database.db
+      .select({ id: animals.id })
+      .from(animals)
+      .where(eq(animals.name, 'Dusty'));
+    await page.goto(`${env.server.baseUrl}/animals/${animal!.id}`);
+    const days = page.getByRole('list', { name: 'Climate of Spare room, day by day' });
+    await page.getByRole('button', { name: /Show all \d+ days/ }).click();
+    await days.getByText(/23\.4–29\.5 °C · 64 % · out of range/).waitFor();
+    await days.scrollIntoViewIfNeeded();
+    await expectAccessible(page, 'animal timeline with its room');
+    await screenshot(page, 'climate-05-animal-timeline-1280');
     await context.close();
   });
 });

@@ -1,5 +1,4 @@
 import { lazy, Suspense } from 'react';
-import { describeDay } from '#shared/domain/climate/daily';
 import { describeHumidityRange, describeTemperatureRange } from '#shared/domain/climate/ranges';
 import { formatLocalDate } from '#shared/domain/date-words';
 import {
@@ -73,9 +72,6 @@ export function RoomClimate({
               ))}
             </tbody>
           </table>
-          <p className="sr-only">
-            {days.map((d) => `${d.date}: ${describeDay(d, unit)}`).join('. ')}
-          </p>
         </>
       )}
     </div>
