@@ -33,6 +33,7 @@ const SERVER_LAYERS = [
   'rounds',
   'cover',
   'helper-reports',
+  'climate',
   'data',
 ];
 const unplaced = foldersIn('server/features').filter((f) => !SERVER_LAYERS.includes(f));

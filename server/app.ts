@@ -12,6 +12,9 @@ import { authRoutes, DEFAULT_AUTH_LIMITS, type AuthLimits } from './features/aut
 import { createAuthService } from './features/auth/auth.service';
 import { breedingRoutes } from './features/breeding/breeding.routes';
 import { createBreedingService } from './features/breeding/breeding.service';
+import { climateRoutes } from './features/climate/climate.routes';
+import { createClimateService } from './features/climate/climate.service';
+import { createDailyMail } from './features/climate/daily-mail';
 import { collectionsRoutes } from './features/collections/collections.routes';
 import { createCollectionsService } from './features/collections/collections.service';
 import { myCollectionsRoutes } from './features/collections/my-collections.routes';
@@ -227,7 +230,24 @@ export function createApp(options: AppOptions) {
     collection('/animals/:animalId'),
     animalScheduleRoutes(rounds, animals.updateCare, member),
   );
-  api.use(collection('/locations'), locationsRoutes(createLocationsService(database.db), member));
+  const climate = createClimateService(database.db, now);
+  const dailyMail = createDailyMail(database.db, {
+    mailer: options.mailer,
+    now,
+    publicUrl,
+    logger,
+  });
+  // A room renamed with its places keeps its climate targets and readings.
+  api.use(
+    collection('/locations'),
+    locationsRoutes(
+      createLocationsService(database.db, { onRoomRenamed: climate.renameRoom }),
+      member,
+    ),
+  );
+  //   climate: /climate/today, /climate/readings, /climate/rooms, /climate/targets,
+  //            /climate/history, /climate/import, /climate/animals/:animalId
+  api.use(collection('/climate'), climateRoutes(climate, member));
   api.use(collection('/rounds'), roundsRoutes(rounds, member));
   api.use(collection('/prep-list'), prepListRoutes(rounds, member));
   api.use(collection('/rules'), rulesRoutes(rounds, member));
@@ -253,7 +273,7 @@ export function createApp(options: AppOptions) {
 
   return {
     app,
-    services: { rounds, events, coverReports, helperReports, background },
+    services: { rounds, events, coverReports, helperReports, background, climate, dailyMail },
     async shutdown() {
       // Mail a request started goes out before the database and the mailer close.
       await background.drain();

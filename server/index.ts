@@ -42,6 +42,7 @@ const jobs = await startJobs({
   rounds: services.rounds,
   coverReports: services.coverReports,
   helperReports: services.helperReports,
+  dailyMail: services.dailyMail,
   logger,
 });
 

@@ -25,3 +25,8 @@ export async function insertUser(
   const [row] = await db.insert(users).values(values).returning();
   return row!;
 }
+
+/** How this person reads temperatures (°C or °F): on every device and in their e-mails. */
+export async function setTemperatureUnit(db: Db, id: string, unit: 'C' | 'F') {
+  await db.update(users).set({ temperatureUnit: unit }).where(eq(users.id, id));
+}

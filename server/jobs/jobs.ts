@@ -1,5 +1,6 @@
 import pg from 'pg';
 import PgBoss from 'pg-boss';
+import type { DailyMail } from '../features/climate/daily-mail';
 import type { CoverReportsService } from '../features/cover/cover-reports.service';
 import type { HelperReportsService } from '../features/helper-reports/helper-reports.service';
 import type { RoundsService } from '../features/rounds/rounds.service';
@@ -7,6 +8,7 @@ import type { Logger } from '../logger';
 
 export const BUILD_DUE_ROUNDS = 'build-due-rounds';
 export const SEND_COVER_REPORTS = 'send-cover-reports';
+export const SEND_DAILY_MAILS = 'send-daily-mails';
 
 /**
  * Scheduled work lives in PostgreSQL (pg-boss): a cron schedule is fired by one instance
@@ -19,6 +21,8 @@ export async function startJobs(options: {
   coverReports: CoverReportsService;
   /** Helpers' reports the mail server refused at first go out again with the cover reports. */
   helperReports?: Pick<HelperReportsService, 'deliverDue'>;
+  /** The owners' morning e-mail (rooms out of range), from 07:00 in each collection's zone. */
+  dailyMail?: Pick<DailyMail, 'runDue'>;
   logger: Logger;
   cron?: string;
 }) {
@@ -30,11 +34,15 @@ export async function startJobs(options: {
     await boss.start();
     await boss.createQueue(BUILD_DUE_ROUNDS);
     await boss.createQueue(SEND_COVER_REPORTS);
+    await boss.createQueue(SEND_DAILY_MAILS);
     // Every five minutes: each collection's round is ready within minutes of its local midnight.
     await boss.schedule(BUILD_DUE_ROUNDS, options.cron ?? '*/5 * * * *', {}, { tz: 'UTC' });
     // Cover reports: every ten minutes, so each covered day's report goes out shortly after
     // the day ends in the collection's zone.
     await boss.schedule(SEND_COVER_REPORTS, '*/10 * * * *', {}, { tz: 'UTC' });
+    // The morning e-mail: every quarter hour, so each collection's goes out soon after its 07:00
+    // (zones differ by quarter hours at most); sent once per owner and day whatever the runs.
+    await boss.schedule(SEND_DAILY_MAILS, '*/15 * * * *', {}, { tz: 'UTC' });
   });
   await boss.work(BUILD_DUE_ROUNDS, async ([job]) => {
     await buildDueRoundsJob(options.rounds, options.logger, job?.id);
@@ -46,6 +54,10 @@ export async function startJobs(options: {
       { queue: SEND_COVER_REPORTS, jobId: job?.id, reports: sent, helperReports: helperSent },
       'job done',
     );
+  });
+  await boss.work(SEND_DAILY_MAILS, async ([job]) => {
+    const sent = (await options.dailyMail?.runDue()) ?? 0;
+    options.logger.info({ queue: SEND_DAILY_MAILS, jobId: job?.id, mails: sent }, 'job done');
   });
   return {
     boss,

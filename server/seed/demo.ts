@@ -14,6 +14,7 @@ import { DEMO_ACCOUNTS, DEMO_COLLECTION, DEMO_PASSWORD } from '../access/demo-pe
 import { newInviteToken } from '../access/invite-token';
 import { hashPassword } from '../access/passwords';
 import { animals, eggSacs } from '../db/schema/animals';
+import { climateReadings, roomTargets } from '../db/schema/climate';
 import { collections, invites, locations, memberships } from '../db/schema/collections';
 import { users } from '../db/schema/users';
 import { refoldStates } from '../features/events/projection';
@@ -649,6 +650,7 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
       }
     }
     const insertedPlaces = await tx.insert(locations).values(placeRows).returning();
+    await seedRoomClimate(tx, { collectionId, zone, today, recordedBy: partnerId });
     for (const l of insertedPlaces) places.set(`${l.rack}|${l.shelf}|${l.position}`, l.id);
 
     const drawn = roster.filter((a) => a !== MOTHER);
@@ -746,6 +748,50 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
     await refoldStates(tx, collectionId, zone);
     return { created: true, animals: roster.length, events: rows.length, collectionId, today };
   });
+}
+
+/**
+ * The spare room's range (a warm, fairly humid room for the tarantulas: common practice, no
+ * published source) and a week of the partner's morning readings, one above the range three
+ * days ago: the chart and the animals' timelines show it; Today (last day only) does not, so
+ * the day's reading is due.
+ */
+async function seedRoomClimate(
+  tx: Parameters<Parameters<NodePgDatabase['transaction']>[0]>[0],
+  c: { collectionId: string; zone: string; today: LocalDate; recordedBy: string },
+) {
+  await tx.insert(roomTargets).values({
+    collectionId: c.collectionId,
+    room: 'Spare room',
+    minCelsius: 22,
+    maxCelsius: 27,
+    minHumidity: 60,
+    maxHumidity: 75,
+  });
+  const week: [number, number, number][] = [
+    [22.5, 25.5, 68],
+    [23, 26, 66],
+    [22.8, 25.8, 70],
+    [23.4, 29.5, 64], // three days ago: the heater's thermostat stuck on
+    [23.1, 26.2, 67],
+    [22.6, 25.9, 69],
+  ];
+  await tx.insert(climateReadings).values(
+    week.map(([min, max, humidity], i) => ({
+      id: randomUUID(),
+      collectionId: c.collectionId,
+      room: 'Spare room',
+      // 08:00 local on each of the six days before today.
+      takenAt: new Date(
+        startOfLocalDate(addDays(c.today, i - week.length), c.zone).getTime() + 8 * 3_600_000,
+      ),
+      minCelsius: min,
+      maxCelsius: max,
+      humidity,
+      source: 'typed' as const,
+      recordedBy: c.recordedBy,
+    })),
+  );
 }
 
 export async function demoCollectionId(db: NodePgDatabase): Promise<string | null> {

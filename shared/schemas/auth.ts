@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { ROLES } from '../domain/roles';
+import { TEMPERATURE_UNITS } from '../domain/temperature';
 import { utf8ByteLength } from '../domain/text-bytes';
 import { timeZone } from './common';
 
@@ -97,7 +98,13 @@ export const membershipSummary = z.object({
 export type MembershipSummary = z.infer<typeof membershipSummary>;
 
 export const meResponse = z.object({
-  user: z.object({ id: z.string(), email: z.string(), displayName: z.string() }),
+  user: z.object({
+    id: z.string(),
+    email: z.string(),
+    displayName: z.string(),
+    /** °C or °F, the person's own setting (stored on the server; every device follows it). */
+    temperatureUnit: z.enum(TEMPERATURE_UNITS).default('C'),
+  }),
   memberships: z.array(membershipSummary),
 });
 export type MeResponse = z.infer<typeof meResponse>;

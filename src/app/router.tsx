@@ -84,6 +84,10 @@ const router = createBrowserRouter([
         lazy: () => import('./routes/places').then((m) => ({ Component: m.PlacesRoute })),
       },
       {
+        path: '/climate',
+        lazy: () => import('./routes/climate').then((m) => ({ Component: m.ClimateRoute })),
+      },
+      {
         path: '/import',
         lazy: () => import('./routes/import').then((m) => ({ Component: m.ImportRoute })),
       },

@@ -49,6 +49,15 @@ export const queryKeys = {
       ['cover', collectionId, 'mine', userId] as const,
     invite: (token: string) => ['cover-invite', token] as const,
   },
+  climate: {
+    all: (collectionId: string) => ['climate', collectionId] as const,
+    today: (collectionId: string) => ['climate', collectionId, 'today'] as const,
+    rooms: (collectionId: string) => ['climate', collectionId, 'rooms'] as const,
+    history: (collectionId: string, room: string, days: number) =>
+      ['climate', collectionId, 'history', room, days] as const,
+    animal: (collectionId: string, animalId: string) =>
+      ['climate', collectionId, 'animal', animalId] as const,
+  },
   members: {
     list: (collectionId: string) => ['members', collectionId] as const,
   },

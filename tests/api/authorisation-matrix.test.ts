@@ -109,6 +109,11 @@ const TABLE: Record<string, Row> = {
     restore: signBackIn,
   },
   'GET /api/auth/me': { access: 'signed-in', allowed: 200, call: () => ({ path: '/api/auth/me' }) },
+  'PATCH /api/auth/me': {
+    access: 'signed-in',
+    allowed: 422,
+    call: () => ({ path: '/api/auth/me', body: {} }),
+  },
   'POST /api/auth/password': {
     access: 'signed-in',
     allowed: 422,
@@ -451,6 +456,42 @@ const TABLE: Record<string, Row> = {
     access: 'helper',
     allowed: 422,
     call: (f) => ({ path: `${f.c}/helper-reports`, body: {} }),
+  },
+  // Room climate: a covering helper types the daily reading in the room; the rest is the keepers'.
+  'GET /api/collections/:collectionId/climate/today': {
+    access: 'helper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/climate/today` }),
+  },
+  'POST /api/collections/:collectionId/climate/readings': {
+    access: 'helper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/climate/readings`, body: {} }),
+  },
+  'GET /api/collections/:collectionId/climate/rooms': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/climate/rooms` }),
+  },
+  'PUT /api/collections/:collectionId/climate/targets': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/climate/targets`, body: {} }),
+  },
+  'GET /api/collections/:collectionId/climate/history': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/climate/history` }),
+  },
+  'POST /api/collections/:collectionId/climate/import': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/climate/import`, body: {} }),
+  },
+  'GET /api/collections/:collectionId/climate/animals/:animalId': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/climate/animals/${f.animalId}` }),
   },
   'GET /api/collections/:collectionId/helper-reports': {
     access: 'owner',
@@ -906,6 +947,7 @@ describe('ids from another collection, inside your own', () => {
       ],
       ['POST', { path: `${c}/animals/${a}/reinstate`, body: {} }],
       ['POST', { path: `${c}/animals/${a}/relabel` }],
+      ['GET', { path: `${c}/climate/animals/${a}` }],
       ['POST', { path: `${c}/animals/move`, body: { animalIds: [a], locationId: ownPlace } }],
       ['GET', { path: `${c}/animals/${a}/photo` }],
       ['PUT', { path: `${c}/animals/${a}/photo`, file: jpeg }],

@@ -16,6 +16,15 @@ import {
 import { meResponse, resetRequestedResponse } from '#shared/schemas/auth';
 import { eggSacListResponse, eggSacView, slingsCreatedResponse } from '#shared/schemas/breeding';
 import {
+  animalClimateResponse,
+  climateRoomsResponse,
+  climateTodayResponse,
+  loggerImportResponse,
+  roomHistoryResponse,
+  roomTargetsResponse,
+  typedReadingResponse,
+} from '#shared/schemas/climate';
+import {
   collectionResponse,
   inviteSentResponse,
   membersResponse,
@@ -310,6 +319,43 @@ describe('answers the app reads', () => {
       201,
     );
     expectShape(await a.post(`${base()}/covers/${created.id}/resend`), coverListResponse, 202);
+  });
+
+  it('room climate', async () => {
+    const a = owner.agent;
+    const c = `${base()}/climate`;
+    await a
+      .post(`${base()}/locations`)
+      .send({ room: 'Climate room', rack: 'K', shelf: '1', position: '1' })
+      .expect(201);
+    const t = { minCelsius: 24, maxCelsius: 28, minHumidity: null, maxHumidity: 80 };
+    expectShape(
+      await a.put(`${c}/targets`).send({ room: 'Climate room', ...t }),
+      roomTargetsResponse,
+    );
+    expectShape(
+      await helper.agent.post(`${c}/readings`).send({
+        id: randomUUID(),
+        room: 'Climate room',
+        minCelsius: 21,
+        maxCelsius: 26,
+        humidity: 70,
+      }),
+      typedReadingResponse,
+      201,
+    );
+    expectShape(await helper.agent.get(`${c}/today`), climateTodayResponse);
+    expectShape(await a.get(`${c}/rooms`), climateRoomsResponse);
+    expectShape(
+      await a.post(`${c}/import`).send({
+        room: 'Climate room',
+        rows: [{ takenAt: '2026-10-25T00:30:00Z', celsius: 25, humidity: null }],
+      }),
+      loggerImportResponse,
+    );
+    expectShape(await a.get(`${c}/history?room=Climate%20room`), roomHistoryResponse);
+    expectShape(await a.get(`${c}/animals/${femaleId}`), animalClimateResponse);
+    expectShape(await a.patch('/api/auth/me').send({ temperatureUnit: 'C' }), meResponse);
   });
 
   it('a restore, the mailbox and the account', async () => {

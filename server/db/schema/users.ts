@@ -5,6 +5,10 @@ export const users = pgTable('users', {
   email: text('email').notNull().unique(),
   displayName: text('display_name').notNull(),
   passwordHash: text('password_hash').notNull(),
+  /** °C or °F: how this person reads temperatures, on every device and in their e-mails. */
+  temperatureUnit: text('temperature_unit', { enum: ['C', 'F'] })
+    .notNull()
+    .default('C'),
   passwordChangedAt: timestamp('password_changed_at', { withTimezone: true })
     .notNull()
     .defaultNow(),

@@ -14,6 +14,7 @@ import {
   type SignUpBody,
   type SignUpFinishBody,
 } from '#shared/schemas/auth';
+import { preferencesBody } from '#shared/schemas/climate';
 import { currentUserId, requireUser } from '../../middleware/auth';
 import type { Limiter } from '../../middleware/rate-limit';
 import { startSession } from '../../middleware/session';
@@ -149,6 +150,15 @@ export function authRoutes(
 
   router.get('/me', requireUser, async (req, res) => {
     res.json(await auth.me(currentUserId(req)));
+  });
+  // The person's own settings, kept on the server so every device and e-mail follows them.
+  router.patch('/me', requireUser, validate({ body: preferencesBody }), async (req, res) => {
+    res.json(
+      await auth.setPreferences(
+        currentUserId(req),
+        input<{ temperatureUnit: 'C' | 'F' }>(res, 'body'),
+      ),
+    );
   });
 
   router.post(

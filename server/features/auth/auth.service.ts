@@ -3,7 +3,7 @@ import type { FirstOwnerBody, SignUpFinishBody } from '#shared/schemas/auth';
 import { insertCollection } from '../../access/collections';
 import { insertMembership, listMembershipsOfUser } from '../../access/memberships';
 import { burnComparison, decoyHash, hashPassword, verifyPassword } from '../../access/passwords';
-import { findUserByEmail, findUserById, insertUser } from '../../access/users';
+import { findUserByEmail, findUserById, insertUser, setTemperatureUnit } from '../../access/users';
 import type { Background } from '../../background';
 import type { Db } from '../../db/client';
 import { isUniqueViolation } from '../../db/errors';
@@ -209,13 +209,24 @@ export function createAuthService(deps: AuthDeps) {
       if (!user) throw new HttpError(401, 'signed_out', 'Please sign in.');
       const memberships = await listMembershipsOfUser(db, userId);
       return {
-        user: { id: user.id, email: user.email, displayName: user.displayName },
+        user: {
+          id: user.id,
+          email: user.email,
+          displayName: user.displayName,
+          temperatureUnit: user.temperatureUnit,
+        },
         memberships: memberships.map((m) => ({
           ...m,
           startsAt: m.startsAt?.toISOString() ?? null,
           endsAt: m.endsAt?.toISOString() ?? null,
         })),
       };
+    },
+
+    /** The person's own settings (today the temperature unit); the new `me`. */
+    async setPreferences(userId: string, body: { temperatureUnit: 'C' | 'F' }) {
+      await setTemperatureUnit(db, userId, body.temperatureUnit);
+      return this.me(userId);
     },
 
     async changePassword(

@@ -22,7 +22,12 @@ const placeTaken = () =>
   new HttpError(409, 'place_taken', 'That place already exists in this collection.');
 const notFound = () => new HttpError(404, 'not_found', 'We could not find that place.');
 
-export function createLocationsService(db: Db) {
+export interface LocationsHooks {
+  /** A room renamed: what another feature keeps by the room's name follows, in the same transaction. */
+  onRoomRenamed?: (tx: Db, collectionId: string, from: string, to: string) => Promise<void>;
+}
+
+export function createLocationsService(db: Db, hooks: LocationsHooks = {}) {
   return {
     /** Every place in walk order, with the active animals living there. */
     async list(collectionId: string): Promise<LocationWithCount[]> {
@@ -82,6 +87,8 @@ export function createLocationsService(db: Db) {
           );
         const changed = await renameGroup(tx, collectionId, group, { [body.level]: body.to });
         if (!changed) throw new HttpError(404, 'not_found', `We could not find that ${what}.`);
+        if (body.level === 'room' && body.to !== body.room)
+          await hooks.onRoomRenamed?.(tx, collectionId, body.room, body.to);
       });
     },
 

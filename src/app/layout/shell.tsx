@@ -12,6 +12,7 @@ import { useCurrentCollection } from '@/features/auth/hooks/use-current-collecti
 import { SyncIndicator } from '@/features/sync/components/sync-indicator';
 import { ApiError } from '@/lib/api-client';
 import { forgetEarlyAnswers } from '@/lib/early-requests';
+import { followTemperatureUnit } from '@/lib/preferences';
 import { queryKeys } from '@/lib/query-keys';
 import { startSync } from '@/lib/sync-driver';
 import type { ShellContext } from './use-shell';
@@ -83,6 +84,9 @@ export function Shell() {
   const { current, choose } = useCurrentCollection(membershipList);
   const queryClient = useQueryClient();
   const userId = me.data?.user.id;
+  // The temperature unit is the person's own setting: this device follows it.
+  const temperatureUnit = me.data?.user.temperatureUnit;
+  useEffect(() => followTemperatureUnit(temperatureUnit), [temperatureUnit]);
   // The signed-in person's outbox syncs while the app is open; saved taps refresh the rounds.
   useEffect(
     () =>

@@ -6,6 +6,7 @@ import type { RoundItemView } from '#shared/schemas/rounds';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
+import { ClimateToday } from '@/features/climate/components/climate-today';
 import { useAcknowledgeSafety, useHelperCover } from '@/features/cover/api/cover-api';
 import { CoverHeader } from '@/features/cover/components/general-note';
 import { HelperItemExtras } from '@/features/cover/components/helper-item-extras';
@@ -74,6 +75,7 @@ export function HelperRound({ me, collection }: { me: MeResponse; collection: Me
           Report a problem or leave a note
         </Button>
       )}
+      <ClimateToday collectionId={collection.collectionId} />
       <RoundCautions items={local.data?.round.items ?? []} />
       <TodayRoundPanel
         userId={me.user.id}

@@ -24,13 +24,14 @@ import { MovePanel } from '@/features/animals/components/move-panel';
 import { PhotoPanel } from '@/features/animals/components/photo-panel';
 import { RetirePanel } from '@/features/animals/components/retire-panel';
 import { GrowthPanel } from '@/features/breeding/components/growth-panel';
+import { AnimalRoomClimate } from '@/features/climate/components/animal-room-climate';
 import { LabelPanel } from '@/features/labels/components/label-panel';
 import { useAnimalHistory } from '@/features/rounds/api/animal-history';
 import { localRoundQueryOptions } from '@/features/rounds/api/get-round';
 import { AnimalHistory } from '@/features/rounds/components/animal-history';
 import { CareForm } from '@/features/rounds/components/care-form';
 import { SchedulePanel } from '@/features/rounds/components/schedule-panel';
-import { useSizeUnit } from '@/lib/preferences';
+import { useSizeUnit, useTemperatureUnit } from '@/lib/preferences';
 import { useSyncStatus } from '@/lib/sync-driver';
 
 export function AnimalRoute() {
@@ -43,6 +44,7 @@ export function AnimalRoute() {
   const move = useMoveAnimals(collectionId);
   const retire = useRetireAnimal(collectionId, animalId);
   const [unit] = useSizeUnit();
+  const [temperatureUnit] = useTemperatureUnit();
   const history = useAnimalHistory(collectionId, animalId);
   const recorder = { userId: me.user.id, byName: me.user.displayName, collectionId };
   const [panel, setPanel] = useState<'move' | 'retire' | null>(null);
@@ -157,7 +159,18 @@ export function AnimalRoute() {
         timeZone={collection.timeZone}
       />
       <CareForm key={animal.id} collectionId={collectionId} animal={animal} />
-      <AnimalHistory recorder={recorder} animal={animal} timeZone={collection.timeZone} />
+      <AnimalHistory
+        recorder={recorder}
+        animal={animal}
+        timeZone={collection.timeZone}
+        room={
+          <AnimalRoomClimate
+            collectionId={collectionId}
+            animalId={animal.id}
+            unit={temperatureUnit}
+          />
+        }
+      />
     </div>
   );
 }

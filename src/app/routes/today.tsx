@@ -13,6 +13,13 @@ const RecentHelperReports = lazy(() =>
   })),
 );
 
+// Room climate (alerts and the day's readings), loaded after the round, off the first bundle.
+const ClimateToday = lazy(() =>
+  import('@/features/climate/components/climate-today').then((m) => ({
+    default: m.ClimateToday,
+  })),
+);
+
 // A helper's round adds the safety page, handover notes and cautions: loaded only for helpers.
 const HelperRound = lazy(() =>
   import('@/app/panels/helper-round').then((m) => ({ default: m.HelperRound })),
@@ -42,6 +49,9 @@ export function TodayRoute() {
           />
         </Suspense>
       )}
+      <Suspense fallback={null}>
+        <ClimateToday collectionId={collection.collectionId} />
+      </Suspense>
       <TodayRoundPanel
         userId={me.user.id}
         myName={me.user.displayName}

@@ -12,7 +12,12 @@ import { signOut } from './sign-out';
 const USER = 'user-1';
 const COLLECTION = 'collection-1';
 const me = {
-  user: { id: USER, email: 'robin@example.test', displayName: 'Robin' },
+  user: {
+    id: USER,
+    email: 'robin@example.test',
+    displayName: 'Robin',
+    temperatureUnit: 'C' as const,
+  },
   memberships: [],
 };
 

@@ -1,3 +1,4 @@
+import type { ReactNode } from 'react';
 import { useState } from 'react';
 import { EVENT_WORDS, FED_WHILE_HELD, type EventKind } from '#shared/domain/event-kinds';
 import { describeInstant } from '#shared/domain/local-dates';
@@ -111,10 +112,13 @@ export function AnimalHistory({
   recorder,
   animal,
   timeZone,
+  room,
 }: {
   recorder: Recorder;
   animal: { id: string; name: string };
   timeZone: string;
+  /** The room's climate, day by day (composed by the animal page: features stay apart). */
+  room?: ReactNode;
 }) {
   const when = (iso: string) => describeInstant(iso, timeZone);
   const history = useAnimalHistory(recorder.collectionId, animal.id);
@@ -145,6 +149,7 @@ export function AnimalHistory({
         onChange={setGroup}
         render={(g) => GROUP_WORDS[g]}
       />
+      {room}
       {history.data && !history.data.events.length && (
         <p className="text-muted">Nothing recorded yet.</p>
       )}

@@ -1,0 +1,96 @@
+// Room climate at 360 px: the owner types the spare room's morning reading on Today with a
+// value above its range, sees the out-of-range notice at once, and the owners' morning
+// e-mail (the job run with the app's clock moved to the next morning) reaches the dev mailbox.
+import { eq } from 'drizzle-orm';
+import { describe, expect, it } from 'vitest';
+import { addDays, localDateOf } from '#shared/domain/local-dates';
+import { DEMO_COLLECTION } from '../../server/access/demo-people';
+import { animals } from '../../server/db/schema/animals';
+import { morningOf } from '../../server/features/climate/daily-mail';
+import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
+
+const env = useE2e();
+
+describe('room climate', () => {
+  it('shows a reading out of range on Today and in the owner’s morning e-mail', async () => {
+    const { context, page, consoleErrors } = await phonePage(env.browser);
+    await signInAsDemo(page, env.server.baseUrl, 'owner@northlight.test');
+    const card = page.getByRole('form', { name: 'Climate reading for Spare room' });
+    await card.waitFor();
+    await card.getByLabel('Lowest').fill('23');
+    await card.getByLabel('Highest').fill('30.5');
+    await card.getByLabel('Humidity').fill('66');
+    await screenshot(page, 'climate-00-today-reading');
+    await card.getByRole('button', { name: 'Save reading' }).click();
+    // The demo's range is 22–27 °C: 30.5 °C is above it.
+    const alert = page.getByTestId('climate-alert');
+    await expect
+      .poll(() => alert.textContent())
+      .toContain('Spare room: up to 30.5 °C, above the range 22.0–27.0 °C.');
+    await expect.poll(() => card.isVisible()).toBe(false);
+    await expectAccessible(page, 'today with a climate alert');
+    await screenshot(page, 'climate-01-today-alert');
+
+    // The first morning (07:00 in the collection's zone) after the reading.
+    const zone = DEMO_COLLECTION.timeZone;
+    const now = new Date();
+    const today = localDateOf(now, zone);
+    const morning =
+      now < morningOf(today, zone) ? morningOf(today, zone) : morningOf(addDays(today, 1), zone);
+    env.server.ctx.setNow(new Date(morning.getTime() + 5 * 60_000));
+    try {
+      expect(await env.server.ctx.services.dailyMail.runDue()).toBe(1);
+    } finally {
+      env.server.ctx.setNow(null);
+    }
+    await page.goto(`${env.server.baseUrl}/dev/mailbox`);
+    await page.getByText('Northlight Inverts: a room was out of range').first().waitFor();
+    await expect
+      .poll(() =>
+        page.getByText(/Spare room: up to 30\.5 °C, above the range 22\.0–27\.0 °C\./).count(),
+      )
+      .toBeGreaterThan(0);
+    await expectAccessible(page, 'mailbox with the morning e-mail');
+    await screenshot(page, 'climate-02-mailbox');
+
+    // The range is kept on the Places screen, in the person's unit.
+    await page.goto(`${env.server.baseUrl}/places`);
+    const rooms = page.getByRole('list', { name: 'Rooms and their climate' });
+    await rooms.getByText('22.0–27.0 °C · 60–75 %').waitFor();
+    await rooms.getByRole('button', { name: 'Set range' }).click();
+    const form = page.getByRole('form', { name: 'Target range for Spare room' });
+    expect(await form.getByLabel('Highest (°C)').inputValue()).toBe('27');
+    await form.scrollIntoViewIfNeeded();
+    await expectAccessible(page, 'room range form');
+    await screenshot(page, 'climate-04-places-range');
+    expect(consoleErrors).toEqual([]);
+    await context.close();
+  });
+
+  it('draws the room’s days with its range at 1280 px', async () => {
+    const context = await env.browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    await signInAsDemo(page, env.server.baseUrl, 'owner@northlight.test');
+    await page.goto(`${env.server.baseUrl}/climate?room=Spare%20room`);
+    await page.getByRole('table', { name: 'Each day’s lowest and highest' }).waitFor();
+    // The seeded week has a day above the range (29.5 °C) in the table.
+    await expect.poll(() => page.getByText('22.5 °C – 25.5 °C').count()).toBeGreaterThan(0);
+    await page.locator('.recharts-reference-area').first().waitFor();
+    await expectAccessible(page, 'room climate page');
+    await screenshot(page, 'climate-03-room-1280');
+
+    // An animal of the spare room has its room's days on its timeline, the hot day marked.
+    const [animal] = await env.server.ctx.database.db
+      .select({ id: animals.id })
+      .from(animals)
+      .where(eq(animals.name, 'Dusty'));
+    await page.goto(`${env.server.baseUrl}/animals/${animal!.id}`);
+    const days = page.getByRole('list', { name: 'Climate of Spare room, day by day' });
+    await page.getByRole('button', { name: /Show all \d+ days/ }).click();
+    await days.getByText(/23\.4–29\.5 °C · 64 % · out of range/).waitFor();
+    await days.scrollIntoViewIfNeeded();
+    await expectAccessible(page, 'animal timeline with its room');
+    await screenshot(page, 'climate-05-animal-timeline-1280');
+    await context.close();
+  });
+});
