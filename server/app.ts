@@ -277,7 +277,7 @@ export function createApp(options: AppOptions) {
 
   return {
     app,
-    services: { rounds, events, coverReports, helperReports, background },
+    services: { rounds, events, colonies, coverReports, helperReports, background },
     async shutdown() {
       // Mail a request started goes out before the database and the mailer close.
       await background.drain();

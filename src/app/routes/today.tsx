@@ -13,6 +13,9 @@ const RecentHelperReports = lazy(() =>
   })),
 );
 
+// Feeder colonies' care and today's prep list, for keepers: off the first bundle too.
+const TodayColoniesPanel = lazy(() => import('@/app/panels/today-colonies-panel'));
+
 // A helper's round adds the safety page, handover notes and cautions: loaded only for helpers.
 const HelperRound = lazy(() =>
   import('@/app/panels/helper-round').then((m) => ({ default: m.HelperRound })),
@@ -42,6 +45,13 @@ export function TodayRoute() {
           />
         </Suspense>
       )}
+      <Suspense fallback={null}>
+        <TodayColoniesPanel
+          userId={me.user.id}
+          collectionId={collection.collectionId}
+          timeZone={collection.timeZone}
+        />
+      </Suspense>
       <TodayRoundPanel
         userId={me.user.id}
         myName={me.user.displayName}
