@@ -59,8 +59,11 @@ export default function TodayColoniesPanel({
       )}
       {prep.length > 0 && (
         <details className="rounded-2xl border-2 border-border bg-surface p-3">
-          <summary className="flex min-h-target cursor-pointer items-center text-xl font-extrabold">
+          <summary className="flex min-h-target cursor-pointer items-center justify-between gap-2 text-xl font-extrabold">
             Today’s prep list
+            <span aria-hidden="true" className="text-base font-bold underline underline-offset-4">
+              Show
+            </span>
           </summary>
           <PrepListPanel collectionId={collectionId} lines={prep} />
         </details>

@@ -55,8 +55,9 @@ export function ColonyChores({
         </div>
       ))}
       {cards.map(({ c, due }) => (
-        <article
+        <div
           key={c.id}
+          role="group"
           aria-labelledby={`colony-${c.id}`}
           className="flex flex-col gap-2 rounded-2xl border-2 border-border bg-surface p-3"
         >
@@ -101,7 +102,7 @@ export function ColonyChores({
               );
             })}
           </ul>
-        </article>
+        </div>
       ))}
     </div>
   );

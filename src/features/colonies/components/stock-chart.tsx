@@ -46,7 +46,7 @@ export default function StockChart({
         className="h-64 w-full"
       >
         <ResponsiveContainer width="100%" height="100%">
-          <LineChart data={data} margin={{ top: 8, right: 16, bottom: 20, left: 8 }}>
+          <LineChart data={data} margin={{ top: 8, right: 16, bottom: 20, left: 28 }}>
             <CartesianGrid stroke="var(--c-border)" strokeDasharray="3 3" />
             <XAxis
               dataKey="t"
@@ -63,7 +63,7 @@ export default function StockChart({
             <YAxis
               stroke="var(--c-muted)"
               tick={{ fontSize: 12, fill: 'var(--c-text)' }}
-              width={48}
+              width={56}
               allowDecimals={false}
               domain={[0, 'auto']}
             >
@@ -71,6 +71,7 @@ export default function StockChart({
                 value="Estimated count"
                 angle={-90}
                 position="insideLeft"
+                offset={-4}
                 style={{ textAnchor: 'middle' }}
                 fill="var(--c-text)"
               />
