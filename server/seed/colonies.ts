@@ -10,7 +10,12 @@ interface DemoColony {
   name: string;
   species: string;
   preyType: string;
-  every: { feed: number | null; waterGel: number | null; clean: number | null; split: number | null };
+  every: {
+    feed: number | null;
+    waterGel: number | null;
+    clean: number | null;
+    split: number | null;
+  };
   /** Counts per size at each check, oldest first: [days ago, { size: count }]. */
   checks: [number, Record<string, number>][];
   /** Days ago each care kind was last done (absent: never). */

@@ -182,7 +182,7 @@ export function createSyncEngine({
       });
     }
     // Chores after the taps, by the same rule: only a verdict on a chore settles it.
-    for (size = batchSize; sendChores; ) {
+    for (size = batchSize; sendChores;) {
       const batch = await nextChoreBatch(d, userId, size);
       if (!batch.length) break;
       let answer: { status: number; body: unknown };

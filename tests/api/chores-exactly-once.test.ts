@@ -121,7 +121,13 @@ it(`colony chores are stored exactly once under dropped, failed, doubled request
         const name = `chores-${randomUUID()}`;
         let db: RacksideDb = await openRacksideDb(name);
         const engineOn = (send: ChoreTransport) =>
-          createSyncEngine({ db: async () => db, userId, send: noTaps, sendChores: send, batchSize });
+          createSyncEngine({
+            db: async () => db,
+            userId,
+            send: noTaps,
+            sendChores: send,
+            batchSize,
+          });
         const transport = faultyChores(faults);
         let engine = engineOn(transport);
         const done: string[] = [];
@@ -164,9 +170,9 @@ it(`colony chores are stored exactly once under dropped, failed, doubled request
           .where(eq(chores.subjectId, colonyId));
         expect(stored.map((r) => r.id).sort()).toEqual([...done].sort());
         expect(await waitingChoreCount(db, userId)).toBe(0);
-        expect(
-          (await choresOn(db, collectionId, today)).filter((e) => e.state !== 'sent'),
-        ).toEqual([]);
+        expect((await choresOn(db, collectionId, today)).filter((e) => e.state !== 'sent')).toEqual(
+          [],
+        );
         db.close();
       },
     ),

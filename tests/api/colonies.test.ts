@@ -201,12 +201,18 @@ describe('feeder colonies', () => {
       clientRecordedAt: new Date().toISOString(),
     };
     const body = (list: unknown[]) => ({ clientSentAt: new Date().toISOString(), chores: list });
-    const first = await owner.agent.post(`${base}/chores`).send(body([chore, chore])).expect(200);
+    const first = await owner.agent
+      .post(`${base}/chores`)
+      .send(body([chore, chore]))
+      .expect(200);
     expect(first.body.results.map((r: { status: string }) => r.status)).toEqual([
       'accepted',
       'duplicate',
     ]);
-    const again = await owner.agent.post(`${base}/chores`).send(body([chore])).expect(200);
+    const again = await owner.agent
+      .post(`${base}/chores`)
+      .send(body([chore]))
+      .expect(200);
     expect(again.body.results).toEqual([{ id: chore.id, status: 'duplicate' }]);
     const today = (await owner.agent.get(`${base}/colonies`).expect(200)).body.today;
     expect((await byName('Dubia A')).lastDone.water_gel).toBe(today);

@@ -15,13 +15,13 @@ import {
 } from '#shared/schemas/animals';
 import { meResponse, resetRequestedResponse } from '#shared/schemas/auth';
 import { eggSacListResponse, eggSacView, slingsCreatedResponse } from '#shared/schemas/breeding';
+import { choreBatchResponse } from '#shared/schemas/chores';
 import {
   collectionResponse,
   inviteSentResponse,
   membersResponse,
   restoreResponse,
 } from '#shared/schemas/collections';
-import { choreBatchResponse } from '#shared/schemas/chores';
 import { coloniesResponse, colonyView, stockHistoryResponse } from '#shared/schemas/colonies';
 import { createdResponse, noContent } from '#shared/schemas/common';
 import {
@@ -195,15 +195,13 @@ describe('answers the app reads', () => {
 
   it('feeder colonies, their history and a batch of chores', async () => {
     const colony = expectShape(
-      await owner.agent
-        .post(`${base()}/colonies`)
-        .send({
-          name: 'Shape bin',
-          species: 'Blaptica dubia',
-          preyType: 'roach',
-          sizes: ['adult'],
-          intervals: { feed: 3, water_gel: 3, clean: 14, split: null },
-        }),
+      await owner.agent.post(`${base()}/colonies`).send({
+        name: 'Shape bin',
+        species: 'Blaptica dubia',
+        preyType: 'roach',
+        sizes: ['adult'],
+        intervals: { feed: 3, water_gel: 3, clean: 14, split: null },
+      }),
       colonyView,
       201,
     );

@@ -30,7 +30,9 @@ export function coloniesRoutes(service: ColoniesService, member: (min: Role) => 
     member('keeper'),
     validate({ params: collectionParams, body: colonyInput }),
     async (_req, res) => {
-      res.status(201).json(await service.create(membershipOf(res), input<ColonyInput>(res, 'body')));
+      res
+        .status(201)
+        .json(await service.create(membershipOf(res), input<ColonyInput>(res, 'body')));
     },
   );
 

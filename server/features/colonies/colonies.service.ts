@@ -123,7 +123,9 @@ export function createColoniesService(db: Db, deps: ColoniesDeps) {
    */
   async function takeUsed(c: Zone, recorded: readonly RecordedFact[]) {
     const using = recorded.filter((e) => e.kind === 'ate' || e.kind === 'prey_left_in');
-    const voids = recorded.filter((e) => e.kind === 'void' && typeof e.payload.targetId === 'string');
+    const voids = recorded.filter(
+      (e) => e.kind === 'void' && typeof e.payload.targetId === 'string',
+    );
     if (!using.length && !voids.length) return;
     // Offers come from the round of each event's own local date.
     const byDate = new Map<LocalDate, string[]>();

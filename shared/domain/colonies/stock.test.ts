@@ -132,9 +132,11 @@ describe('what an outcome takes', () => {
       count: 2,
     });
     expect(preyUsed('prey_left_in', { count: 1 }, offer)!.count).toBe(1);
-    expect(
-      preyUsed('ate', { preyType: 'cricket', preySize: 'small', count: 4 }, offer),
-    ).toEqual({ preyType: 'cricket', preySize: 'small', count: 4 });
+    expect(preyUsed('ate', { preyType: 'cricket', preySize: 'small', count: 4 }, offer)).toEqual({
+      preyType: 'cricket',
+      preySize: 'small',
+      count: 4,
+    });
   });
   it('takes nothing for other outcomes or when no prey is named', () => {
     expect(preyUsed('refused', {}, offer)).toBeNull();

@@ -87,8 +87,7 @@ export function drawLine(
     .map((c) => ({ c, held: stockOf(c, preySize), key: sizeKeyOf(c.stock, preySize) ?? preySize }))
     .filter((h) => h.held > 0)
     .sort(
-      (a, b) =>
-        b.held - a.held || a.c.name.localeCompare(b.c.name) || a.c.id.localeCompare(b.c.id),
+      (a, b) => b.held - a.held || a.c.name.localeCompare(b.c.name) || a.c.id.localeCompare(b.c.id),
     );
   let left = wholeEstimate(need);
   const draws: Draw[] = [];

@@ -32,8 +32,8 @@ function Colonies({ collectionId }: { collectionId: string }) {
     <div className="flex flex-col gap-4">
       <h1 className="text-3xl font-extrabold">Feeder colonies</h1>
       <p className="text-muted">
-        Tomorrow’s prep list draws on these: it names the colony to pull from and warns when
-        they hold too few. Meals recorded on the round come off their stock.
+        Tomorrow’s prep list draws on these: it names the colony to pull from and warns when they
+        hold too few. Meals recorded on the round come off their stock.
       </p>
       {list.length === 0 && <p>No colonies yet.</p>}
       <ul className="flex flex-col gap-2">

@@ -51,8 +51,7 @@ export function useColonyChanges(collectionId: string) {
   const view = async () => (await schemas()).colonyView;
   return {
     create: useMutation({
-      mutationFn: (body: ColonyInput) =>
-        apiRequest(base, { method: 'POST', body, schema: view }),
+      mutationFn: (body: ColonyInput) => apiRequest(base, { method: 'POST', body, schema: view }),
       onSuccess: refresh,
     }),
     update: useMutation({

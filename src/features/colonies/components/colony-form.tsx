@@ -34,7 +34,9 @@ export function ColonyForm({
   const [name, setName] = useState(initial?.name ?? '');
   const [species, setSpecies] = useState(initial?.species ?? '');
   const [preyType, setPreyType] = useState(initial?.preyType ?? types[0] ?? '');
-  const catalogueSizes = feeders.filter((f) => sameType(f.preyType, preyType)).map((f) => f.preySize);
+  const catalogueSizes = feeders
+    .filter((f) => sameType(f.preyType, preyType))
+    .map((f) => f.preySize);
   const [sizes, setSizes] = useState<string[]>(
     initial?.stock.map((s) => s.preySize) ?? catalogueSizes,
   );
