@@ -188,6 +188,7 @@ export function createApp(options: AppOptions) {
     lastDone: (c, ids) => chores.lastDone(c, 'colony', ids),
     forgetChores: (collectionId, id) => chores.forget(collectionId, 'colony', id),
     offersOn: rounds.offersOn,
+    feedersOf: async (collectionId) => (await rounds.rules(collectionId)).rules.feeders,
   });
   const chores = createChoresService(database.db, {
     now,

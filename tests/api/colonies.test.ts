@@ -84,6 +84,23 @@ describe('feeder colonies', () => {
       .expect(409);
     expect(twice.body.error.message).toMatch(/already has that name/);
     await owner.agent.get(`${base}/colonies/${randomUUID()}/history`).expect(404);
+    // Sizes come from the feeder catalogue, and a count is for a size the colony holds.
+    const offCatalogue = await owner.agent
+      .post(`${base}/colonies`)
+      .send(colonyBody('Odd bin', ['jumbo']))
+      .expect(422);
+    expect(offCatalogue.body.error.message).toBe(
+      'The feeder catalogue has no roach size called “jumbo”. Its sizes: small nymph, medium nymph, large nymph, adult.',
+    );
+    await owner.agent
+      .post(`${base}/colonies`)
+      .send(colonyBody('Odd bin', ['adult'], 'locust'))
+      .expect(422);
+    const foreignSize = await owner.agent
+      .post(`${base}/colonies/${c.id}/counts`)
+      .send({ counts: [{ preySize: 'adult', count: 3 }] })
+      .expect(422);
+    expect(foreignSize.body.error.message).toMatch(/holds no size called “adult”/);
     // Removed, it leaves the list (and the draws below).
     await owner.agent.delete(`${base}/colonies/${c.id}`).expect(204);
     expect((await colonies()).map((x) => x.name)).not.toContain('Count bin');

@@ -7,6 +7,7 @@ import {
   type PrepLineLike,
 } from '#shared/domain/colonies/stock';
 import { localDateOf, type LocalDate } from '#shared/domain/local-dates';
+import { sameType, type Feeder } from '#shared/domain/rounds/feeders';
 import type {
   ColoniesResponse,
   ColonyInput,
@@ -47,6 +48,8 @@ export interface ColoniesDeps {
   lastDone: (c: Zone, colonyIds: string[]) => Promise<Map<string, Record<string, LocalDate>>>;
   /** Forgets a removed colony's chores. */
   forgetChores: (collectionId: string, colonyId: string) => Promise<void>;
+  /** The collection's feeder catalogue (its round rules). */
+  feedersOf: (collectionId: string) => Promise<readonly Feeder[]>;
   /** The feed task's offer per animal on a date's round (the rounds feature). */
   offersOn: (
     collectionId: string,
@@ -104,6 +107,26 @@ export function createColoniesService(db: Db, deps: ColoniesDeps) {
     const [view] = await views(c, [colonyId]);
     if (!view) throw notFound();
     return view;
+  }
+
+  /** A colony's prey type and sizes come from the catalogue, so the prep list can draw on it. */
+  async function checkCatalogue(collectionId: string, input: ColonyInput) {
+    const feeders = (await deps.feedersOf(collectionId)).filter((f) =>
+      sameType(f.preyType, input.preyType),
+    );
+    if (!feeders.length)
+      throw new HttpError(
+        422,
+        'not_in_catalogue',
+        `“${input.preyType}” is not a prey type of the feeder catalogue. Choose one from the list, or add it in Settings → Round rules.`,
+      );
+    const unknown = input.sizes.filter((s) => !feeders.some((f) => sameType(f.preySize, s)));
+    if (unknown.length)
+      throw new HttpError(
+        422,
+        'not_in_catalogue',
+        `The feeder catalogue has no ${input.preyType} size called “${unknown[0]}”. Its sizes: ${feeders.map((f) => f.preySize).join(', ')}.`,
+      );
   }
 
   const uniqueName = async <T>(work: () => Promise<T>): Promise<T> => {
@@ -189,6 +212,7 @@ export function createColoniesService(db: Db, deps: ColoniesDeps) {
     one,
 
     async create(c: Zone, input: ColonyInput): Promise<ColonyView> {
+      await checkCatalogue(c.collectionId, input);
       const id = await uniqueName(() =>
         db.transaction((tx) => insertColony(tx, c.collectionId, input)),
       );
@@ -196,6 +220,7 @@ export function createColoniesService(db: Db, deps: ColoniesDeps) {
     },
 
     async update(c: Zone, colonyId: string, input: ColonyInput): Promise<ColonyView> {
+      await checkCatalogue(c.collectionId, input);
       const found = await uniqueName(() =>
         db.transaction((tx) => updateColony(tx, c.collectionId, colonyId, input, now())),
       );
@@ -214,6 +239,15 @@ export function createColoniesService(db: Db, deps: ColoniesDeps) {
         const [row] = await loadColonies(tx, c.collectionId, { ids: [colonyId], lock: true });
         if (!row) throw notFound();
         const held = stockOfRows(row.colony, row.stock).stock;
+        const foreign = body.counts.find(
+          (s) => !row.stock.some((h) => sameType(h.preySize, s.preySize)),
+        );
+        if (foreign)
+          throw new HttpError(
+            422,
+            'unknown_size',
+            `${row.colony.name} holds no size called “${foreign.preySize}”: add it to the colony first.`,
+          );
         const at = now();
         for (const change of countUpdateDeltas(held, body.counts))
           await applyStockChange(tx, {
