@@ -138,7 +138,7 @@ export async function applyStockChange(db: Db, change: StockChange): Promise<num
       and(eq(colonyStock.colonyId, change.colonyId), eq(colonyStock.preySize, change.preySize)),
     );
   const { count, applied } = applyDelta(row?.count ?? 0, change.delta);
-  if (applied === 0 && change.reason !== 'count') return 0;
+  if (applied === 0) return 0;
   const inserted = await db
     .insert(colonyStockChanges)
     .values({

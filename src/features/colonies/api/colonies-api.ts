@@ -1,7 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ColonyCareKind } from '#shared/domain/colonies/care';
 import type { ColonyInput, CountUpdateBody } from '#shared/schemas/colonies';
-import { apiRequest } from '@/lib/api-client';
+import { ApiError, apiRequest } from '@/lib/api-client';
 import { choresOn, discardChore, recordChore } from '@/lib/chores';
 import { withDb } from '@/lib/db';
 import { queryKeys } from '@/lib/query-keys';
@@ -28,6 +28,8 @@ export const useColonies = (collectionId: string, { enabled = true } = {}) =>
         );
         return response;
       } catch (err) {
+        // Only with no answer at all: a refusal (403, 404) must not show a stale copy.
+        if (!(err instanceof ApiError && err.status === 0)) throw err;
         const held = await withDb((db) => db.get('colonies', collectionId));
         if (held) return held.response;
         throw err;
