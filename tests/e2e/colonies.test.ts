@@ -22,7 +22,7 @@ describe('feeder colonies at 360 × 740', () => {
     // Today: the colonies' care due, one tap each — here with no signal.
     await underServiceWorker(page);
     const section = page.getByRole('region', { name: 'Colonies' });
-    const feed = section.getByRole('button', { name: 'Feed: Dubia colony' });
+    const feed = section.getByRole('button', { name: /^Feed\W*Dubia colony/ });
     await feed.waitFor();
     await expectAccessible(page, 'today with colonies');
     await screenshot(page, 'colonies-01-today');
@@ -46,7 +46,7 @@ describe('feeder colonies at 360 × 740', () => {
     await expect.poll(() => syncStatus(page)).toMatch(/All saved/);
     await page.reload();
     await section.getByText('Feed done').waitFor();
-    expect(await section.getByRole('button', { name: 'Feed: Dubia colony' }).count()).toBe(0);
+    expect(await section.getByRole('button', { name: /^Feed\W*Dubia colony/ }).count()).toBe(0);
     expect(await fedOnServer()).toEqual(['colony']);
     // Today's prep list draws on the colonies too.
     await page.getByText('Today’s prep list').click();

@@ -86,13 +86,9 @@ export function ColonyChores({
                       </span>
                     </p>
                   ) : (
-                    <Button
-                      variant="secondary"
-                      wide
-                      onClick={() => onDo(c.id, d.kind)}
-                      aria-label={`${word}: ${c.name}`}
-                    >
+                    <Button variant="secondary" wide onClick={() => onDo(c.id, d.kind)}>
                       {word}
+                      <span className="sr-only">: {c.name}</span>
                       {d.overdueDays > 0 && (
                         <span className="text-sm font-normal"> · {d.overdueDays} d late</span>
                       )}
