@@ -31,6 +31,8 @@ const SERVER_LAYERS = [
   'collections',
   'dev',
   'rounds',
+  'chores',
+  'colonies',
   'cover',
   'helper-reports',
   'climate',

@@ -12,12 +12,16 @@ import { authRoutes, DEFAULT_AUTH_LIMITS, type AuthLimits } from './features/aut
 import { createAuthService } from './features/auth/auth.service';
 import { breedingRoutes } from './features/breeding/breeding.routes';
 import { createBreedingService } from './features/breeding/breeding.service';
+import { choresRoutes } from './features/chores/chores.routes';
+import { createChoresService } from './features/chores/chores.service';
 import { climateRoutes } from './features/climate/climate.routes';
 import { createClimateService } from './features/climate/climate.service';
 import { createDailyMail } from './features/climate/daily-mail';
 import { collectionsRoutes } from './features/collections/collections.routes';
 import { createCollectionsService } from './features/collections/collections.service';
 import { myCollectionsRoutes } from './features/collections/my-collections.routes';
+import { coloniesRoutes } from './features/colonies/colonies.routes';
+import { createColoniesService } from './features/colonies/colonies.service';
 import { createCoverReportsService } from './features/cover/cover-reports.service';
 import { coverInviteRoutes, coverRoutes } from './features/cover/cover.routes';
 import { createCoverService } from './features/cover/cover.service';
@@ -181,6 +185,18 @@ export function createApp(options: AppOptions) {
   );
 
   const animals = createAnimalsService(database.db, now);
+  // Feeder colonies and their care (chores): neither feature knows the other, nor rounds.
+  const colonies = createColoniesService(database.db, {
+    now,
+    lastDone: (c, ids) => chores.lastDone(c, 'colony', ids),
+    forgetChores: (collectionId, id) => chores.forget(collectionId, 'colony', id),
+    offersOn: rounds.offersOn,
+    feedersOf: async (collectionId) => (await rounds.rules(collectionId)).rules.feeders,
+  });
+  const chores = createChoresService(database.db, {
+    now,
+    subjects: { colony: colonies.colonyIdsIn },
+  });
   const events = createEventsService(database.db, {
     now,
     feedHolds: rounds.feedHolds,
@@ -192,6 +208,13 @@ export function createApp(options: AppOptions) {
           c.collectionId,
           animalsToReconcile(recorded, c.timeZone, localDateOf(now(), c.timeZone)),
         ),
+      // Meals and prey left in take from the feeder colonies; an undo puts them back. The
+      // events are stored already: a failure here is logged, never a failed sync (the phone
+      // would re-send, and a duplicate runs no hook).
+      (c, recorded) =>
+        colonies
+          .takeUsed(c, recorded)
+          .catch((err: unknown) => logger.error({ err }, 'Feeder colony stock not updated')),
     ],
   });
   const photos = createPhotosService(database.db, path.resolve(env.STORAGE_DIR), now);
@@ -252,6 +275,8 @@ export function createApp(options: AppOptions) {
   api.use(collection('/prep-list'), prepListRoutes(rounds, member));
   api.use(collection('/rules'), rulesRoutes(rounds, member));
   api.use(collection('/events'), eventsRoutes(events, member));
+  api.use(collection('/colonies'), coloniesRoutes(colonies, member));
+  api.use(collection('/chores'), choresRoutes(chores, member));
   //   photos: /animals/:animalId/photo, /animals/:animalId/molts/:eventId/photo,
   //           /animals/:animalId/events/:eventId/photo
   api.use(collection(), photosRoutes(photos, member));
@@ -273,7 +298,16 @@ export function createApp(options: AppOptions) {
 
   return {
     app,
-    services: { rounds, events, coverReports, helperReports, background, climate, dailyMail },
+    services: {
+      rounds,
+      events,
+      colonies,
+      coverReports,
+      helperReports,
+      background,
+      climate,
+      dailyMail,
+    },
     async shutdown() {
       // Mail a request started goes out before the database and the mailer close.
       await background.drain();

@@ -19,6 +19,7 @@ import { collections, invites, locations, memberships } from '../db/schema/colle
 import { users } from '../db/schema/users';
 import { refoldStates } from '../features/events/projection';
 import { recordEvents } from '../features/events/record-events';
+import { seedColonies } from './colonies';
 
 export { DEMO_PASSWORD };
 
@@ -746,6 +747,7 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
     }
     await recordEvents(tx, { collectionId }, rows, { from: 'history' });
     await refoldStates(tx, collectionId, zone);
+    await seedColonies(tx, collectionId, ownerId, today, zone);
     return { created: true, animals: roster.length, events: rows.length, collectionId, today };
   });
 }

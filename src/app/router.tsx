@@ -72,6 +72,14 @@ const router = createBrowserRouter([
         lazy: () => import('./routes/animal-edit').then((m) => ({ Component: m.AnimalEditRoute })),
       },
       {
+        path: '/colonies',
+        lazy: () => import('./routes/colonies').then((m) => ({ Component: m.ColoniesRoute })),
+      },
+      {
+        path: '/colonies/:colonyId',
+        lazy: () => import('./routes/colony').then((m) => ({ Component: m.ColonyRoute })),
+      },
+      {
         path: '/breeding',
         lazy: () => import('./routes/breeding').then((m) => ({ Component: m.BreedingRoute })),
       },

@@ -1,6 +1,8 @@
 import { openDB, type DBSchema, type IDBPDatabase } from 'idb';
 import type { AnimalSummary } from '#shared/schemas/animals';
 import type { MeResponse } from '#shared/schemas/auth';
+import type { RecordedChore } from '#shared/schemas/chores';
+import type { ColoniesResponse } from '#shared/schemas/colonies';
 import type { RecordedEvent, RejectReason } from '#shared/schemas/events';
 import type { EngineInputResponse, RoundResponse } from '#shared/schemas/rounds';
 
@@ -106,6 +108,31 @@ export interface StoredEngineInput {
   fetchedAt: string;
 }
 
+/**
+ * A chore (care of something that is not an animal: decision 020) recorded on this phone.
+ * `waiting` until the server's verdict; then `sent`, kept a few days so the screen shows it
+ * done before the next fetch, or `refused` with the server's words until discarded.
+ */
+export interface ChoreEntry {
+  id: string;
+  userId: string;
+  collectionId: string;
+  /** The local date it was done on, for the day's list. */
+  localDate: string;
+  state: 'waiting' | 'sent' | 'refused';
+  message?: string;
+  /** When its verdict came (ISO): sent chores are pruned after a few days. */
+  settledAt?: string;
+  chore: RecordedChore;
+}
+
+/** A collection's feeder colonies as last fetched, so the Colonies section opens offline. */
+export interface StoredColonies {
+  collectionId: string;
+  response: ColoniesResponse;
+  fetchedAt: string;
+}
+
 export interface RacksideSchema extends DBSchema {
   rounds: { key: string; value: StoredRound };
   roundItems: { key: [string, string]; value: StoredRoundItem; indexes: { byRound: string } };
@@ -113,6 +140,12 @@ export interface RacksideSchema extends DBSchema {
   attention: { key: string; value: AttentionEntry; indexes: { byUser: string } };
   directory: { key: string; value: StoredDirectory };
   engineInputs: { key: string; value: StoredEngineInput };
+  chores: {
+    key: string;
+    value: ChoreEntry;
+    indexes: { byUserState: [string, string]; byCollectionDate: [string, string] };
+  };
+  colonies: { key: string; value: StoredColonies };
   /** Small facts: the device id, the last signed-in person, storage persistence. */
   meta: { key: string; value: unknown };
 }
@@ -121,7 +154,7 @@ export type RacksideDb = IDBPDatabase<RacksideSchema>;
 export const DB_NAME = 'rackside';
 
 export function openRacksideDb(name = DB_NAME): Promise<RacksideDb> {
-  return openDB<RacksideSchema>(name, 3, {
+  return openDB<RacksideSchema>(name, 4, {
     // Each version adds to the one before, so a phone with queued taps upgrades without losing them.
     upgrade(db, oldVersion) {
       if (oldVersion < 1) {
@@ -139,6 +172,12 @@ export function openRacksideDb(name = DB_NAME): Promise<RacksideDb> {
       }
       if (oldVersion < 2) db.createObjectStore('directory', { keyPath: 'collectionId' });
       if (oldVersion < 3) db.createObjectStore('engineInputs', { keyPath: 'key' });
+      if (oldVersion < 4) {
+        const chores = db.createObjectStore('chores', { keyPath: 'id' });
+        chores.createIndex('byUserState', ['userId', 'state']);
+        chores.createIndex('byCollectionDate', ['collectionId', 'localDate']);
+        db.createObjectStore('colonies', { keyPath: 'collectionId' });
+      }
     },
   });
 }
@@ -203,11 +242,12 @@ const DEVICE_META_KEYS = new Set(['deviceId', 'persistAsked']);
  */
 export async function clearCachedCollections(db: RacksideDb): Promise<void> {
   const tx = db.transaction(
-    ['rounds', 'roundItems', 'directory', 'engineInputs', 'meta'],
+    ['rounds', 'roundItems', 'directory', 'engineInputs', 'colonies', 'meta'],
     'readwrite',
   );
   const meta = tx.objectStore('meta');
   const work: Promise<unknown>[] = [
+    tx.objectStore('colonies').clear(),
     tx.objectStore('engineInputs').clear(),
     tx.objectStore('rounds').clear(),
     tx.objectStore('roundItems').clear(),

@@ -37,6 +37,16 @@ export const queryKeys = {
     schedule: (collectionId: string, animalId: string) =>
       ['rounds', collectionId, 'schedule', animalId] as const,
   },
+  colonies: {
+    /** Every collection's colonies: a sync can change stock anywhere. */
+    everywhere: () => ['colonies'] as const,
+    list: (collectionId: string) => ['colonies', collectionId, 'list'] as const,
+    history: (collectionId: string, colonyId: string) =>
+      ['colonies', collectionId, 'history', colonyId] as const,
+    /** This phone's chores of a day (IndexedDB). */
+    choresOn: (collectionId: string, localDate: string) =>
+      ['colonies', collectionId, 'chores', localDate] as const,
+  },
   breeding: {
     sacs: (collectionId: string) => ['breeding', collectionId, 'sacs'] as const,
   },

@@ -1,4 +1,5 @@
 import { useSyncExternalStore } from 'react';
+import type { ChoreBatchBody } from '#shared/schemas/chores';
 import type { EventBatchBody } from '#shared/schemas/events';
 import { apiRaw } from './api-client';
 import { withDb } from './db';
@@ -7,6 +8,7 @@ import {
   createSyncEngine,
   STARTING_STATUS,
   type SyncEngine,
+  type ChoreTransport,
   type SyncStatus,
   type SyncTransport,
 } from './sync';
@@ -21,6 +23,19 @@ const AFTER_TAP_MS = 1_500;
  */
 export const fetchTransport: SyncTransport = async (collectionId: string, body: EventBatchBody) => {
   const res = await apiRaw(`/collections/${collectionId}/events`, {
+    method: 'POST',
+    body,
+    signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS),
+  });
+  return { status: res.status, body: await res.json().catch(() => null) };
+};
+
+/** The same for a batch of chores (decision 020). */
+export const fetchChoreTransport: ChoreTransport = async (
+  collectionId: string,
+  body: ChoreBatchBody,
+) => {
+  const res = await apiRaw(`/collections/${collectionId}/chores`, {
     method: 'POST',
     body,
     signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS),
@@ -86,6 +101,7 @@ export function startSync(userId: string, onSaved: () => void): () => void {
     db: () => withDb(async (d) => d),
     userId,
     send: fetchTransport,
+    sendChores: fetchChoreTransport,
     onStatus: publish,
   });
   window.addEventListener('online', onOnline);

@@ -1,6 +1,8 @@
 import { SYNC_BATCH_SIZE } from '#shared/domain/sync-limits';
+import type { ChoreBatchBody } from '#shared/schemas/chores';
 import type { EventBatchBody } from '#shared/schemas/events';
 import { readErrorBody } from './api-client';
+import { nextChoreBatch, settleChores, waitingChoreCount } from './chores';
 import { deviceIdOf, type RacksideDb } from './db';
 import { nextBatch, settleBatch } from './outbox';
 
@@ -8,6 +10,12 @@ import { nextBatch, settleBatch } from './outbox';
 export type SyncTransport = (
   collectionId: string,
   body: EventBatchBody,
+) => Promise<{ status: number; body: unknown }>;
+
+/** Sends one batch of chores (decision 020); throws when no answer came back. */
+export type ChoreTransport = (
+  collectionId: string,
+  body: ChoreBatchBody,
 ) => Promise<{ status: number; body: unknown }>;
 
 /** `starting`: the outbox has not been counted yet, so nothing can be said about the taps. */
@@ -61,6 +69,8 @@ interface EngineOptions {
   db: () => Promise<RacksideDb>;
   userId: string;
   send: SyncTransport;
+  /** Chores ride the same flush after the taps; without it only taps are sent. */
+  sendChores?: ChoreTransport;
   now?: () => Date;
   batchSize?: number;
   onStatus?: (status: SyncStatus) => void;
@@ -91,6 +101,7 @@ export function createSyncEngine({
   db,
   userId,
   send,
+  sendChores,
   now = () => new Date(),
   batchSize = SYNC_BATCH_SIZE,
   onStatus,
@@ -104,11 +115,12 @@ export function createSyncEngine({
   };
 
   async function counts(d: RacksideDb) {
-    const [waiting, attention] = await Promise.all([
+    const [taps, chores, attention] = await Promise.all([
       d.countFromIndex('outbox', 'byUser', userId),
+      sendChores ? waitingChoreCount(d, userId) : 0,
       d.countFromIndex('attention', 'byUser', userId),
     ]);
-    return { waiting, attention };
+    return { waiting: taps + chores, attention };
   }
 
   async function run(): Promise<FlushResult> {
@@ -168,6 +180,35 @@ export function createSyncEngine({
           total: Math.max(start.waiting, result.acknowledged + result.refused),
         },
       });
+    }
+    // Chores after the taps, by the same rule: only a verdict on a chore settles it.
+    for (size = batchSize; sendChores;) {
+      const batch = await nextChoreBatch(d, userId, size);
+      if (!batch.length) break;
+      let answer: { status: number; body: unknown };
+      try {
+        answer = await sendChores(batch[0]!.collectionId, {
+          deviceId,
+          clientSentAt: now().toISOString(),
+          chores: batch.map((e) => e.chore),
+        });
+      } catch {
+        return fail('offline', NO_ANSWER);
+      }
+      if (answer.status === 401) return fail('signed_out', 'Your sign-in has ended on this phone.');
+      if (answer.status === 413 && size > 1) {
+        size = Math.max(1, Math.floor(size / 2));
+        continue;
+      }
+      if (answer.status !== 200) return fail('failing', waitingReason(answer.status, answer.body));
+      const { choreBatchResponse } = await import('#shared/schemas/chores');
+      const parsed = choreBatchResponse.safeParse(answer.body);
+      if (!parsed.success) return fail('failing', 'The server’s answer could not be read.');
+      const settled = await settleChores(d, batch, parsed.data.results, now());
+      result.acknowledged += settled.acknowledged;
+      result.refused += settled.refused;
+      if (!settled.acknowledged && !settled.refused)
+        return fail('failing', 'The server answered without a word on these chores.');
     }
     update({
       ...(await counts(d)),

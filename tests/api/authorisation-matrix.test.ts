@@ -249,6 +249,44 @@ const TABLE: Record<string, Row> = {
     }),
   },
 
+  // Feeder colonies and their chores: keepers and owners; helpers see none of it. An id that
+  // is not one of the collection's colonies is not found; bodies the route refuses are 422.
+  'GET /api/collections/:collectionId/colonies': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/colonies` }),
+  },
+  'POST /api/collections/:collectionId/colonies': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/colonies`, body: {} }),
+  },
+  'PUT /api/collections/:collectionId/colonies/:colonyId': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/colonies/${randomUUID()}`, body: {} }),
+  },
+  'DELETE /api/collections/:collectionId/colonies/:colonyId': {
+    access: 'keeper',
+    allowed: 404,
+    call: (f) => ({ path: `${f.c}/colonies/${randomUUID()}` }),
+  },
+  'POST /api/collections/:collectionId/colonies/:colonyId/counts': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/colonies/${randomUUID()}/counts`, body: {} }),
+  },
+  'GET /api/collections/:collectionId/colonies/:colonyId/history': {
+    access: 'keeper',
+    allowed: 404,
+    call: (f) => ({ path: `${f.c}/colonies/${randomUUID()}/history` }),
+  },
+  'POST /api/collections/:collectionId/chores': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/chores`, body: {} }),
+  },
+
   'POST /api/collections/:collectionId/events': {
     access: 'helper-any-time',
     allowed: 422,
@@ -913,6 +951,18 @@ describe('ids from another collection, inside your own', () => {
         expiresAt: new Date(Date.now() + 86_400_000),
       })
       .returning();
+    const colony = (
+      await outsider.agent
+        .post(`${o}/colonies`)
+        .send({
+          name: 'Their roaches',
+          species: '',
+          preyType: 'roach',
+          sizes: ['adult'],
+          intervals: { feed: 3, water_gel: 3, clean: 14, split: null },
+        })
+        .expect(201)
+    ).body as { id: string };
     const before = (await outsider.agent.get(`${o}/backup`).expect(200)).body;
 
     const c = fixture.c;
@@ -983,6 +1033,28 @@ describe('ids from another collection, inside your own', () => {
       ['POST', { path: `${c}/covers/${cover!.id}/resend` }],
       ['POST', { path: `${c}/invites/${theirInvite!.id}/resend` }],
       ['DELETE', { path: `${c}/invites/${theirInvite!.id}` }],
+      [
+        'PUT',
+        {
+          path: `${c}/colonies/${colony.id}`,
+          body: {
+            name: 'Mine now',
+            species: '',
+            preyType: 'roach',
+            sizes: ['adult'],
+            intervals: { feed: 3, water_gel: 3, clean: 14, split: null },
+          },
+        },
+      ],
+      [
+        'POST',
+        {
+          path: `${c}/colonies/${colony.id}/counts`,
+          body: { counts: [{ preySize: 'adult', count: 0 }] },
+        },
+      ],
+      ['GET', { path: `${c}/colonies/${colony.id}/history` }],
+      ['DELETE', { path: `${c}/colonies/${colony.id}` }],
       ['POST', { path: `${c}/egg-sacs`, body: { femaleId: a, laidOn: '2026-11-02' } }],
       ['PATCH', { path: `${c}/egg-sacs/${sac.id}`, body: { eggCount: 5 } }],
       [
@@ -1047,6 +1119,24 @@ describe('ids from another collection, inside your own', () => {
       ],
     });
     expect(tap.body.results?.[0]?.status).toBe('rejected');
+    const chore = await owner.agent.post(`${c}/chores`).send({
+      clientSentAt: new Date().toISOString(),
+      chores: [
+        {
+          id: randomUUID(),
+          subjectKind: 'colony',
+          subjectId: colony.id,
+          kind: 'feed',
+          clientRecordedAt: new Date().toISOString(),
+        },
+      ],
+    });
+    expect(chore.body.results?.[0]?.reason).toBe('unknown_subject');
+    expect(
+      (await outsider.agent.get(`${o}/colonies`).expect(200)).body.colonies.map(
+        (x: { name: string; lastDone: { feed: string | null } }) => [x.name, x.lastDone.feed],
+      ),
+    ).toEqual([['Their roaches', null]]);
     expect(seen).toEqual([]);
 
     const after = (await outsider.agent.get(`${o}/backup`).expect(200)).body;

@@ -60,6 +60,38 @@ async function fill(who: SignedUp) {
     .attach('photo', jpeg, { filename: 'm.jpg' })
     .expect(204);
   await who.agent.get(`${c}/rounds/today`).expect(200);
+  // A feeder colony with a count and a chore.
+  const colony = (
+    await who.agent
+      .post(`${c}/colonies`)
+      .send({
+        name: 'Dubia bin',
+        species: '',
+        preyType: 'roach',
+        sizes: ['adult'],
+        intervals: { feed: 3, water_gel: 3, clean: 14, split: null },
+      })
+      .expect(201)
+  ).body.id as string;
+  await who.agent
+    .post(`${c}/colonies/${colony}/counts`)
+    .send({ counts: [{ preySize: 'adult', count: 20 }] })
+    .expect(200);
+  await who.agent
+    .post(`${c}/chores`)
+    .send({
+      clientSentAt: new Date().toISOString(),
+      chores: [
+        {
+          id: randomUUID(),
+          subjectKind: 'colony',
+          subjectId: colony,
+          kind: 'feed',
+          clientRecordedAt: new Date().toISOString(),
+        },
+      ],
+    })
+    .expect(200);
 }
 
 async function rowsOf(collectionId: string) {
@@ -84,6 +116,15 @@ async function rowsOf(collectionId: string) {
     event_photos: await count('event_photos'),
     animal_states: await count('animal_states'),
     rounds: await count('rounds'),
+    colonies: await count('colonies'),
+    chores: await count('chores'),
+    stock_changes: Number(
+      (
+        await db.execute<{ n: string }>(
+          sql`select count(*) as n from colony_stock_changes s join colonies c on c.id = s.colony_id where c.collection_id = ${collectionId}`,
+        )
+      ).rows[0]!.n,
+    ),
     revisions: (
       await db
         .select()
@@ -162,6 +203,9 @@ describe('deleting a collection', () => {
       event_photos: 0,
       animal_states: 0,
       rounds: 0,
+      colonies: 0,
+      chores: 0,
+      stock_changes: 0,
       revisions: 0,
     });
     expect(fs.existsSync(photoDir(owner.collectionId))).toBe(false);

@@ -116,4 +116,23 @@ describe('the demo collection', () => {
     ).body;
     expect(schedule.notes.map((n: { code: string }) => n.code)).toContain('mature_male');
   });
+  it('keeps a dubia colony and a cricket bin, the bin short of large crickets for tomorrow', async () => {
+    const { drawPrepList, shortWarning } = await import('#shared/domain/colonies/stock');
+    const { dueCare } = await import('#shared/domain/colonies/care');
+    const tomorrow = await ctx.services.rounds.tomorrowPreview(demoId);
+    const list = await ctx.services.colonies.list({ collectionId: demoId, timeZone: ZONE });
+    expect(list.colonies.map((c) => c.name)).toEqual(['Cricket bin', 'Dubia colony']);
+    const drawn = drawPrepList(
+      tomorrow.prepList,
+      list.colonies.map((c) => ({
+        ...c,
+        stock: Object.fromEntries(c.stock.map((s) => [s.preySize, s.count])),
+      })),
+    );
+    const warnings = drawn.map(shortWarning).filter(Boolean);
+    expect(warnings).toEqual([expect.stringMatching(/large cricket.*Cricket bin 7/)]);
+    // Some colony care is due on the demo's today, so the Colonies section shows.
+    const due = list.colonies.flatMap((c) => dueCare(c.intervals, c.lastDone, list.today));
+    expect(due.length).toBeGreaterThan(0);
+  });
 });

@@ -15,6 +15,7 @@ import {
 } from '#shared/schemas/animals';
 import { meResponse, resetRequestedResponse } from '#shared/schemas/auth';
 import { eggSacListResponse, eggSacView, slingsCreatedResponse } from '#shared/schemas/breeding';
+import { choreBatchResponse } from '#shared/schemas/chores';
 import {
   animalClimateResponse,
   climateRoomsResponse,
@@ -30,6 +31,7 @@ import {
   membersResponse,
   restoreResponse,
 } from '#shared/schemas/collections';
+import { coloniesResponse, colonyView, stockHistoryResponse } from '#shared/schemas/colonies';
 import { createdResponse, noContent } from '#shared/schemas/common';
 import {
   acceptResponse,
@@ -198,6 +200,47 @@ describe('answers the app reads', () => {
       intervalDays: { adult: 20 },
       groupIntervalDays: { centipede: 9 },
     });
+  });
+
+  it('feeder colonies, their history and a batch of chores', async () => {
+    const colony = expectShape(
+      await owner.agent.post(`${base()}/colonies`).send({
+        name: 'Shape bin',
+        species: 'Blaptica dubia',
+        preyType: 'roach',
+        sizes: ['adult'],
+        intervals: { feed: 3, water_gel: 3, clean: 14, split: null },
+      }),
+      colonyView,
+      201,
+    );
+    expectShape(
+      await owner.agent
+        .post(`${base()}/colonies/${colony.id}/counts`)
+        .send({ counts: [{ preySize: 'adult', count: 12 }] }),
+      colonyView,
+    );
+    expectShape(await owner.agent.get(`${base()}/colonies`), coloniesResponse);
+    expectShape(
+      await owner.agent.get(`${base()}/colonies/${colony.id}/history`),
+      stockHistoryResponse,
+    );
+    expectShape(
+      await owner.agent.post(`${base()}/chores`).send({
+        clientSentAt: new Date().toISOString(),
+        chores: [
+          {
+            id: randomUUID(),
+            subjectKind: 'colony',
+            subjectId: colony.id,
+            kind: 'clean',
+            clientRecordedAt: new Date().toISOString(),
+          },
+        ],
+      }),
+      choreBatchResponse,
+    );
+    expectShape(await owner.agent.delete(`${base()}/colonies/${colony.id}`), noContent, 204);
   });
 
   it('breeding records', async () => {

@@ -25,7 +25,13 @@ import { recordEvents, type DeviceEvent, type EventCollection } from './record-e
 
 export type OnRecorded = (
   collection: EventCollection,
-  recorded: { animalId: string; kind: EventKind; effectiveAt: Date }[],
+  recorded: {
+    id: string;
+    animalId: string;
+    kind: EventKind;
+    payload: Record<string, unknown>;
+    effectiveAt: Date;
+  }[],
 ) => Promise<void>;
 
 export interface EventsServiceOptions {
@@ -72,7 +78,13 @@ export function createEventsService(
     }
     const recorded = incoming
       .filter((e) => inserted.has(e.id))
-      .map(({ animalId, kind, effectiveAt }) => ({ animalId, kind, effectiveAt }));
+      .map(({ id, animalId, kind, payload, effectiveAt }) => ({
+        id,
+        animalId,
+        kind,
+        payload,
+        effectiveAt,
+      }));
     for (const hook of onRecorded) await hook(collection, recorded);
     return { inserted };
   }

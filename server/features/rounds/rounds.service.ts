@@ -1,5 +1,5 @@
 import { addDays, localDateOf, type LocalDate } from '#shared/domain/local-dates';
-import { decideAnimal } from '#shared/domain/rounds/build-round';
+import { decideAnimal, type RoundTask } from '#shared/domain/rounds/build-round';
 import { roundView, unbuiltRound, type BuiltPart } from '#shared/domain/rounds/round-view';
 import {
   engineAnimalOf,
@@ -125,6 +125,18 @@ export function createRoundsService(db: Db, now: () => Date) {
 
     tomorrowPreview,
     engineInputFor,
+
+    /** The feed task's offer per animal on a date's round (what a meal took from a colony). */
+    async offersOn(collectionId: string, date: LocalDate, animalIds: string[]) {
+      const offers = new Map<string, NonNullable<RoundTask['offer']>>();
+      const row = animalIds.length ? await findRound(db, collectionId, date) : null;
+      if (!row) return offers;
+      for (const { item } of await loadRoundItems(db, row.id, animalIds)) {
+        const feed = (item.tasks as RoundTask[]).find((t) => t.kind === 'feed' && t.offer);
+        if (feed?.offer) offers.set(item.animalId, feed.offer);
+      }
+      return offers;
+    },
 
     async prepList(collectionId: string, date: LocalDate) {
       const c = await input.collectionOf(collectionId);

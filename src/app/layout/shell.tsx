@@ -97,6 +97,8 @@ export function Shell() {
             void queryClient.invalidateQueries({ queryKey: queryKeys.rounds.everywhere() });
             // A synced molt can change an animal's size and sex.
             void queryClient.invalidateQueries({ queryKey: queryKeys.animals.everywhere() });
+            // Synced meals take from the feeder colonies; synced chores change what is due.
+            void queryClient.invalidateQueries({ queryKey: queryKeys.colonies.everywhere() });
           })
         : undefined,
     [userId, queryClient],

@@ -70,6 +70,15 @@ export function SettingsRoute() {
         </Link>
       )}
       {collection && collection.role !== 'helper' && (
+        <Link
+          to="/colonies"
+          className="flex min-h-target items-center justify-between rounded-xl border-2 border-border bg-surface px-3 font-bold"
+        >
+          Feeder colonies
+          <span aria-hidden="true">›</span>
+        </Link>
+      )}
+      {collection && collection.role !== 'helper' && (
         <DataPanel collectionId={collection.collectionId} isOwner={collection.role === 'owner'} />
       )}
       {collection?.role === 'owner' && (

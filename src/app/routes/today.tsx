@@ -19,6 +19,8 @@ const ClimateToday = lazy(() =>
     default: m.ClimateToday,
   })),
 );
+// Feeder colonies' care and today's prep list, for keepers: off the first bundle too.
+const TodayColoniesPanel = lazy(() => import('@/app/panels/today-colonies-panel'));
 
 // A helper's round adds the safety page, handover notes and cautions: loaded only for helpers.
 const HelperRound = lazy(() =>
@@ -51,6 +53,11 @@ export function TodayRoute() {
       )}
       <Suspense fallback={null}>
         <ClimateToday collectionId={collection.collectionId} />
+        <TodayColoniesPanel
+          userId={me.user.id}
+          collectionId={collection.collectionId}
+          timeZone={collection.timeZone}
+        />
       </Suspense>
       <TodayRoundPanel
         userId={me.user.id}

@@ -1,12 +1,13 @@
+import { Link } from 'react-router-dom';
 import { formatLocalDate } from '#shared/domain/date-words';
 import { addDays, describeInstant, localDateOf } from '#shared/domain/local-dates';
 import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
+import { PrepListPanel } from '@/app/panels/prep-list-panel';
 import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { useRound } from '@/features/rounds/api/get-round';
-import { PrepList } from '@/features/rounds/components/prep-list';
 import { RoundList } from '@/features/rounds/components/round-list';
 import { RoundUnavailable } from '@/features/rounds/components/round-unavailable';
 
@@ -55,7 +56,13 @@ function Tomorrow({ userId, collectionId }: { userId: string; collectionId: stri
         <h2 id="prep-heading" className="text-xl font-extrabold">
           Prep list · {r.items.length} animals
         </h2>
-        <PrepList lines={r.prepList} />
+        <PrepListPanel collectionId={collectionId} lines={r.prepList} />
+        <Link
+          to="/colonies"
+          className="inline-flex min-h-target items-center font-bold underline underline-offset-4 print:hidden"
+        >
+          Feeder colonies
+        </Link>
         <Button variant="secondary" className="print:hidden" onClick={() => window.print()}>
           Print prep list
         </Button>
