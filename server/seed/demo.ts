@@ -61,6 +61,8 @@ interface DemoAnimal {
     | 'clutch_potted';
   /** Days since the animal came to the collection, where the seed must not draw it at random. */
   acquiredDaysAgo?: number;
+  /** Inside of its enclosure in mm (length, width, and height for a tall one): R22. */
+  enclosure?: [length: number, width: number, height?: number];
 }
 
 /**
@@ -268,6 +270,8 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'unknown',
     sizeMm: 75,
     place: ['B', '1', '1'],
+    // An arboreal pinktoe in a tall enclosure: 3 × 75 mm is 225 mm of height (R22).
+    enclosure: [200, 200, 300],
     cautions: ['fast_defensive'],
     hasWaterDish: true,
     story: 'premolt',
@@ -294,6 +298,7 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'unknown',
     sizeMm: 50,
     place: ['B', '1', '3'],
+    enclosure: [200, 150],
     cautions: ['potent_venom', 'fast_defensive'],
   },
   {
@@ -317,6 +322,7 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'female',
     sizeMm: 95,
     place: ['B', '2', '2'],
+    enclosure: [300, 200],
     cautions: ['urticating_hairs'],
     hasWaterDish: true,
   },
@@ -329,6 +335,8 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'unknown',
     sizeMm: 60,
     place: ['B', '2', '3'],
+    // Molted and outgrew its 110 × 100 mm tub: 2 × 60 mm is 120 mm (R22), so a rehouse is due.
+    enclosure: [110, 100],
     cautions: ['urticating_hairs', 'fast_defensive'],
   },
   {
@@ -340,6 +348,7 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'unknown',
     sizeMm: 12,
     place: ['B', '3', '4'],
+    enclosure: [60, 60],
   },
   {
     name: 'Flicker',
@@ -445,17 +454,30 @@ export function historyFor(
     });
     offset += refused ? Math.max(2, Math.round(interval / 2)) : interval;
   }
-  // Dishes topped up, dish-less slings' substrate moistened and the mantis misted (all recorded
-  // as watering).
-  if (animal.hasWaterDish || animal.lifeStage === 'sling' || animal.group === 'mantis') {
-    // Animals whose story must show on today's round were last watered three days ago.
+  // Dishes topped up every 3 days (R7). Animals whose story must show on today's round were
+  // last watered three days ago.
+  if (animal.hasWaterDish) {
     const last =
       animal.story === 'premolt' || animal.story === 'molted_5_days'
         ? -3
         : -1 - Math.floor(random() * 3);
     for (let d = last; d >= -60; d -= 3)
       out.push({ kind: 'watered', day: at(d), minute: minute(), by: by() });
+  } else if (animal.lifeStage === 'sling') {
+    // Dish-less slings: substrate moistened every 4 days (§ Enclosure care); Pebble, Flicker and
+    // every third pot of the clutch are due today.
+    const due = animal.name === 'Pebble' || animal.name === 'Flicker' || random() < 0.33;
+    const last = due ? -4 : -1 - Math.floor(random() * 3);
+    for (let d = last; d >= -60; d -= 4)
+      out.push({ kind: 'substrate_moistened', day: at(d), minute: minute(), by: by() });
+  } else if (animal.group === 'mantis') {
+    // Misted every 2 days, due today.
+    for (let d = -2; d >= -60; d -= 2)
+      out.push({ kind: 'misted', day: at(d), minute: minute(), by: by() });
   }
+  // Spot-cleaned yesterday (R21): only a meal from yesterday leaves a bolus for today.
+  if (animal.story !== 'guarding_sac' && animal.story !== 'brood_on_back')
+    out.push({ kind: 'spot_cleaned', day: at(-1), minute: 17 * 60, by: by() });
   if (moltAt !== null)
     out.push({
       kind: 'molted',
@@ -669,6 +691,9 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
           sizeMm: a.sizeMm,
           locationId: places.get(a.place.join('|'))!,
           hasWaterDish: a.hasWaterDish ?? false,
+          enclosureLengthMm: a.enclosure?.[0] ?? null,
+          enclosureWidthMm: a.enclosure?.[1] ?? null,
+          enclosureHeightMm: a.enclosure?.[2] ?? null,
           cautions: a.cautions ?? [],
           clutch: a.clutch ?? null,
           acquiredOn: addDays(

@@ -50,6 +50,7 @@ export function TodayRoute() {
         openRecord
         buildsOffline
         photos
+        keeper
       />
     </div>
   );
