@@ -8,6 +8,7 @@ import { breedingFacts, breedingModeOf, type BreedingRecordKind } from '#shared/
 import type { EventKind } from '#shared/domain/event-kinds';
 import { generateLabelCodes } from '#shared/domain/label-codes';
 import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '#shared/domain/local-dates';
+import { hydrationEvery } from '#shared/domain/rounds/enclosure-care';
 import { DEFAULT_RULES, feedingInterval, postMoltHoldDays } from '#shared/domain/rounds/rules';
 import { insertCollection } from '../access/collections';
 import { DEMO_ACCOUNTS, DEMO_COLLECTION, DEMO_PASSWORD } from '../access/demo-people';
@@ -61,6 +62,8 @@ interface DemoAnimal {
     | 'clutch_potted';
   /** Days since the animal came to the collection, where the seed must not draw it at random. */
   acquiredDaysAgo?: number;
+  /** Days since its last spot-clean (R21); 1 unless a story needs one due. */
+  spotCleanedDaysAgo?: number;
   /** Inside of its enclosure in mm (length, width, and height for a tall one): R22. */
   enclosure?: [length: number, width: number, height?: number];
 }
@@ -298,6 +301,8 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'unknown',
     sizeMm: 50,
     place: ['B', '1', '3'],
+    // Last spot-cleaned 15 days ago: due again after 14 (R21).
+    spotCleanedDaysAgo: 15,
     enclosure: [200, 150],
     cautions: ['potent_venom', 'fast_defensive'],
   },
@@ -463,21 +468,27 @@ export function historyFor(
         : -1 - Math.floor(random() * 3);
     for (let d = last; d >= -60; d -= 3)
       out.push({ kind: 'watered', day: at(d), minute: minute(), by: by() });
-  } else if (animal.lifeStage === 'sling') {
-    // Dish-less slings: substrate moistened every 4 days (§ Enclosure care); Pebble, Flicker and
-    // every third pot of the clutch are due today.
+  } else if (hydrationEvery('moisten', { ...animal, hasWaterDish: false }, DEFAULT_RULES)) {
+    // Dish-less slings and small tarantulas: substrate moistened every 4 days (§ Enclosure
+    // care); Pebble, Flicker and about a third of the others are due today.
     const due = animal.name === 'Pebble' || animal.name === 'Flicker' || random() < 0.33;
     const last = due ? -4 : -1 - Math.floor(random() * 3);
     for (let d = last; d >= -60; d -= 4)
       out.push({ kind: 'substrate_moistened', day: at(d), minute: minute(), by: by() });
-  } else if (animal.group === 'mantis') {
-    // Misted every 2 days, due today.
-    for (let d = -2; d >= -60; d -= 2)
+  } else {
+    // Dish-less mantids, true spiders and scorpions: misted on their profile's days, due today.
+    const mist = hydrationEvery('mist', { ...animal, hasWaterDish: false }, DEFAULT_RULES);
+    for (let d = -(mist?.every ?? 0); mist && d >= -60; d -= mist.every)
       out.push({ kind: 'misted', day: at(d), minute: minute(), by: by() });
   }
   // Spot-cleaned yesterday (R21): only a meal from yesterday leaves a bolus for today.
   if (animal.story !== 'guarding_sac' && animal.story !== 'brood_on_back')
-    out.push({ kind: 'spot_cleaned', day: at(-1), minute: 17 * 60, by: by() });
+    out.push({
+      kind: 'spot_cleaned',
+      day: at(-(animal.spotCleanedDaysAgo ?? 1)),
+      minute: 17 * 60,
+      by: by(),
+    });
   if (moltAt !== null)
     out.push({
       kind: 'molted',

@@ -26,8 +26,7 @@ export const UNDO_EFFECTS: Record<Exclude<EventKind, 'void'>, string> = {
   prey_removed: 'The prey shows as still inside until it is removed again.',
   watered: 'The water date goes back to the watering before it.',
   misted: 'The misting date goes back to the one before it: misting may come due again.',
-  substrate_moistened:
-    'The moistening date goes back to the one before it: it may come due again.',
+  substrate_moistened: 'The moistening date goes back to the one before it: it may come due again.',
   spot_cleaned: 'The spot-clean no longer counts: it may come due again.',
   rehoused:
     'The rehouse no longer counts: a rehouse may be asked for again; an enclosure size it gave stays on the record.',

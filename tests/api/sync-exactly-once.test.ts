@@ -10,12 +10,12 @@ import { eq } from 'drizzle-orm';
 import fc from 'fast-check';
 import { afterAll, beforeAll, expect, it } from 'vitest';
 import type { RecordedEvent } from '#shared/schemas/events';
+import { roundResponse, type RoundResponse } from '#shared/schemas/rounds';
 import { events } from '../../server/db/schema/animals';
 import { rounds } from '../../server/db/schema/rounds';
-import { roundResponse, type RoundResponse } from '#shared/schemas/rounds';
 import { openRacksideDb } from '../../src/lib/db';
-import { cachedRound, storeServerRound } from '../../src/lib/round-cache';
 import { attentionOf, recordTap, waitingTaps } from '../../src/lib/outbox';
+import { cachedRound, storeServerRound } from '../../src/lib/round-cache';
 import { createSyncEngine, type SyncTransport } from '../../src/lib/sync';
 import { createAnimal, PASSWORD, signUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
@@ -273,11 +273,7 @@ it('S1 for enclosure care: misting, spot-clean and rehouse taps on the cached ro
         const sent = await post(`/api/collections/${collectionId}/events`, {
           deviceId: 'history',
           clientSentAt: new Date().toISOString(),
-          events: [
-            history('molted', 20, { sizeMm: 60 }),
-            history('watered', 1),
-            history('ate', 1),
-          ],
+          events: [history('molted', 20, { sizeMm: 60 }), history('watered', 1), history('ate', 1)],
         });
         expect(sent.status).toBe(200);
         // Today's round built afresh with this run's animal on it (a stored round keeps its

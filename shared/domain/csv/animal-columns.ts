@@ -340,7 +340,11 @@ export function rowToAnimal(
       ),
       mistEveryDays: read('mist_every_days', readNumber(cell('mist_every_days')), null),
       moistenEveryDays: read('moisten_every_days', readNumber(cell('moisten_every_days')), null),
-      spotCleanEveryDays: read('spot_clean_every_days', readNumber(cell('spot_clean_every_days')), null),
+      spotCleanEveryDays: read(
+        'spot_clean_every_days',
+        readNumber(cell('spot_clean_every_days')),
+        null,
+      ),
       enclosureLengthMm: read('enclosure_length_mm', readNumber(cell('enclosure_length_mm')), null),
       enclosureWidthMm: read('enclosure_width_mm', readNumber(cell('enclosure_width_mm')), null),
       enclosureHeightMm: read('enclosure_height_mm', readNumber(cell('enclosure_height_mm')), null),

@@ -2,6 +2,7 @@ import type { LocalDate } from '../local-dates';
 import { compareKeys, naturalKey, shelfKey } from '../walk-order';
 import type { AnimalState } from './animal-state';
 import { careNotes, decidePremoltCheck } from './checks-and-notes';
+import { decideEnclosureCare, quietCare } from './enclosure-care';
 import {
   TASK_KINDS,
   type AnimalDecision,
@@ -10,7 +11,6 @@ import {
   type ReasonCode,
   type RoundTask,
 } from './engine-types';
-import { decideEnclosureCare, quietCare } from './enclosure-care';
 import { decideFeed, decideSubstrate } from './feed-decision';
 import { feederLength, type Feeder } from './feeders';
 import { leaveAloneReason, notFedReason } from './holds';

@@ -121,6 +121,10 @@ describe('R21 spot-clean (common practice, no published source: a bolus is dropp
       ),
     ).toBe(false);
   });
+  it('gives no spot-clean to an animal with none recorded until it eats (no first-day flood)', () => {
+    expect(decide(animal(), []).tasks.some((t) => t.kind === 'spot_clean')).toBe(false);
+    expect(kinds(decide(animal(), [ev('ate', '2026-03-18')]).tasks)).toContain('spot_clean');
+  });
   it('follows the animal’s own interval, and 0 turns it off, bolus included', () => {
     const own = animal({ spotCleanEveryDays: 3 });
     expect(

@@ -112,8 +112,8 @@ export function spotCleanEvery(
 
 /**
  * R21: a spot-clean the day after a meal of live prey (the bolus — the balled-up remains — is
- * dropped within a day and moulds or draws mites if left), and every N days otherwise. Not in
- * premolt: the animal may have sealed itself in, and its web or burrow is left whole.
+ * dropped within a day and moulds or draws mites if left), and every N days after the last one.
+ * Not in premolt: the animal may have sealed itself in, and its web or burrow is left whole.
  */
 export function decideSpotClean(d: AnimalDecision, s: Situation) {
   if (s.premolt || s.food === 'substrate' || s.food === 'none') return;
@@ -126,7 +126,9 @@ export function decideSpotClean(d: AnimalDecision, s: Situation) {
     s.food === 'prey' && s.rules.bolusAfterDays > 0 && meal && (!last || meal >= last)
       ? addDays(meal, s.rules.bolusAfterDays)
       : null;
-  const periodicDue = every === null ? null : last ? addDays(last, every) : s.date;
+  // Counted from the last spot-clean: with none recorded, a meal starts it (no task for the
+  // whole collection on its first day).
+  const periodicDue = every === null || !last ? null : addDays(last, every);
   const bolus = !!bolusDue && (!periodicDue || bolusDue <= periodicDue);
   const due = bolus ? bolusDue : periodicDue;
   if (!due || due > s.date) return;
@@ -136,18 +138,12 @@ export function decideSpotClean(d: AnimalDecision, s: Situation) {
         text: `Ate on ${shortDate(meal!)}: pick out the bolus and any prey remains before they mould.`,
         dates: [meal!],
       }
-    : last
-      ? {
-          code: 'spot_clean_due',
-          text: `Spot-clean every ${plural(every!, 'day')}: waste, remains and old molts out (last on ${shortDate(last)}).`,
-          dates: [last],
-        }
-      : {
-          code: 'spot_clean_due',
-          text: 'Spot-clean: waste, remains and old molts out (none recorded yet).',
-          dates: [],
-        };
-  const carried = last || bolus ? carriedFrom(due, s.date) : 0;
+    : {
+        code: 'spot_clean_due',
+        text: `Spot-clean every ${plural(every!, 'day')}: waste, remains and old molts out (last on ${shortDate(last!)}).`,
+        dates: [last!],
+      };
+  const carried = carriedFrom(due, s.date);
   const reasons = [reason];
   if (carried > 0)
     reasons.push({

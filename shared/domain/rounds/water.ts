@@ -15,7 +15,9 @@ function waterPlan(
 ): { every: number; code: ReasonCode; first: string; since: (last: string) => string } | null {
   const { animal, rules } = s;
   if (!animal.hasWaterDish) return null;
-  const damp = GROUP_CARE[animal.group].dampSubstrate ? ' Keep part of the substrate damp too.' : '';
+  const damp = GROUP_CARE[animal.group].dampSubstrate
+    ? ' Keep part of the substrate damp too.'
+    : '';
   return {
     every: rules.waterEveryDays,
     code: 'water_due',

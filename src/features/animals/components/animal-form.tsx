@@ -82,8 +82,14 @@ function animalForm(unit: SizeUnit, original: AnimalSummary | null, shownSize: s
       hasWaterDish: care.hasWaterDish,
       doNotFeedUntil: z.string().transform(orNull).pipe(care.doNotFeedUntil),
       mistEveryDays: z.string().transform(numberOrNull).pipe(enclosureCareSettings.mistEveryDays),
-      moistenEveryDays: z.string().transform(numberOrNull).pipe(enclosureCareSettings.moistenEveryDays),
-      spotCleanEveryDays: z.string().transform(numberOrNull).pipe(enclosureCareSettings.spotCleanEveryDays),
+      moistenEveryDays: z
+        .string()
+        .transform(numberOrNull)
+        .pipe(enclosureCareSettings.moistenEveryDays),
+      spotCleanEveryDays: z
+        .string()
+        .transform(numberOrNull)
+        .pipe(enclosureCareSettings.spotCleanEveryDays),
       enclosureLengthMm: enclosureSide(unit).pipe(enclosureCareSettings.enclosureLengthMm),
       enclosureWidthMm: enclosureSide(unit).pipe(enclosureCareSettings.enclosureWidthMm),
       enclosureHeightMm: enclosureSide(unit).pipe(enclosureCareSettings.enclosureHeightMm),

@@ -103,11 +103,13 @@ const SINGLE_RULES: Record<SingleKey, { title: string; explain: string }> = {
   },
   rehouseFloorSpans: {
     title: 'Rehouse: floor (× size)',
-    explain: 'After a molt, rehouse when the floor’s shorter side is under this many times its size.',
+    explain:
+      'After a molt, rehouse when the floor’s shorter side is under this many times its size.',
   },
   rehouseHeightSpans: {
     title: 'Rehouse: height (× size)',
-    explain: 'For a tall enclosure (height recorded): rehouse when lower than this many times its size.',
+    explain:
+      'For a tall enclosure (height recorded): rehouse when lower than this many times its size.',
   },
   spanToBody: {
     title: 'Body share of leg span',
