@@ -62,6 +62,8 @@ interface DemoAnimal {
     | 'clutch_potted';
   /** Days since the animal came to the collection, where the seed must not draw it at random. */
   acquiredDaysAgo?: number;
+  /** Its own spot-clean interval (R21); 0: never on the round. */
+  spotCleanEveryDays?: number;
   /** Days since its last spot-clean (R21); 1 unless a story needs one due. */
   spotCleanedDaysAgo?: number;
   /** Inside of its enclosure in mm (length, width, and height for a tall one): R22. */
@@ -382,6 +384,8 @@ function clutch(): DemoAnimal[] {
       place: ['C', tray, pot],
       cautions: ['urticating_hairs'],
       clutch: 'H. formosus sac 1',
+      // Pots of one clutch are cleaned when potted up, not on the round (the animal's own 0).
+      spotCleanEveryDays: 0,
       story: i === 3 ? 'prey_left_yesterday' : i === 7 || i === 15 ? 'missed' : undefined,
     } satisfies DemoAnimal;
   });
@@ -459,35 +463,39 @@ export function historyFor(
     });
     offset += refused ? Math.max(2, Math.round(interval / 2)) : interval;
   }
-  // Dishes topped up every 3 days (R7). Animals whose story must show on today's round were
-  // last watered three days ago.
-  if (animal.hasWaterDish) {
+  // Dishes topped up every 3 days (R7); dish-less slings' substrate moistened every 4 days and
+  // the mantis misted every 2 (§ Enclosure care). Animals whose story must show on today's
+  // round were last watered three days ago; Pebble and Flicker are due a moistening today.
+  const moisten = hydrationEvery('moisten', { ...animal, hasWaterDish: false }, DEFAULT_RULES);
+  const mist = hydrationEvery('mist', { ...animal, hasWaterDish: false }, DEFAULT_RULES);
+  if (animal.hasWaterDish || animal.lifeStage === 'sling' || animal.group === 'mantis') {
     const last =
       animal.story === 'premolt' || animal.story === 'molted_5_days'
         ? -3
         : -1 - Math.floor(random() * 3);
-    for (let d = last; d >= -60; d -= 3)
-      out.push({ kind: 'watered', day: at(d), minute: minute(), by: by() });
-  } else if (hydrationEvery('moisten', { ...animal, hasWaterDish: false }, DEFAULT_RULES)) {
-    // Dish-less slings and small tarantulas: substrate moistened every 4 days (§ Enclosure
-    // care); Pebble, Flicker and about a third of the others are due today.
-    const due = animal.name === 'Pebble' || animal.name === 'Flicker' || random() < 0.33;
-    const last = due ? -4 : -1 - Math.floor(random() * 3);
-    for (let d = last; d >= -60; d -= 4)
-      out.push({ kind: 'substrate_moistened', day: at(d), minute: minute(), by: by() });
-  } else {
-    // Dish-less mantids, true spiders and scorpions: misted on their profile's days, due today.
-    const mist = hydrationEvery('mist', { ...animal, hasWaterDish: false }, DEFAULT_RULES);
-    for (let d = -(mist?.every ?? 0); mist && d >= -60; d -= mist.every)
-      out.push({ kind: 'misted', day: at(d), minute: minute(), by: by() });
+    for (let d = last; d >= -60; d -= 3) {
+      // Drawn for every animal of this branch alike, so the rest of the demo's history (drawn
+      // from the same sequence) stays as it was before enclosure care.
+      const when = minute();
+      const who = by();
+      if (animal.hasWaterDish) out.push({ kind: 'watered', day: at(d), minute: when, by: who });
+    }
+    if (!animal.hasWaterDish && moisten) {
+      const from = animal.name === 'Pebble' || animal.name === 'Flicker' ? -4 : last;
+      for (let d = from; d >= -60; d -= moisten.every)
+        out.push({ kind: 'substrate_moistened', day: at(d), minute: 18 * 60, by: 'owner' });
+    } else if (!animal.hasWaterDish && mist)
+      for (let d = -mist.every; d >= -60; d -= mist.every)
+        out.push({ kind: 'misted', day: at(d), minute: 18 * 60, by: 'owner' });
   }
+  // Small dish-less juveniles (Rusty, Tiger, Stripes) have no moistening recorded: due today.
   // Spot-cleaned yesterday (R21): only a meal from yesterday leaves a bolus for today.
   if (animal.story !== 'guarding_sac' && animal.story !== 'brood_on_back')
     out.push({
       kind: 'spot_cleaned',
       day: at(-(animal.spotCleanedDaysAgo ?? 1)),
       minute: 17 * 60,
-      by: by(),
+      by: 'owner',
     });
   if (moltAt !== null)
     out.push({
@@ -702,6 +710,7 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
           sizeMm: a.sizeMm,
           locationId: places.get(a.place.join('|'))!,
           hasWaterDish: a.hasWaterDish ?? false,
+          spotCleanEveryDays: a.spotCleanEveryDays ?? null,
           enclosureLengthMm: a.enclosure?.[0] ?? null,
           enclosureWidthMm: a.enclosure?.[1] ?? null,
           enclosureHeightMm: a.enclosure?.[2] ?? null,

@@ -1,4 +1,5 @@
 import { useId, useState, type ReactNode } from 'react';
+import { Link } from 'react-router-dom';
 import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
 import { feedHoldOf } from '#shared/domain/rounds/item-status';
 import type { RoundItemView } from '#shared/schemas/rounds';
@@ -186,6 +187,15 @@ export function OutcomeButtons({ item, onRecord, moltDetails, onPhoto, keeper = 
   return (
     <div className="flex flex-col gap-2">
       {molt && !detailed && moltDetails?.(molt.eventId)}
+      {keeper && recorded.has('rehoused') && (
+        // The tap stays one tap; the new enclosure's size goes on the record (R22) when measured.
+        <Link
+          to={`/animals/${item.animal.id}/edit`}
+          className="inline-flex min-h-target items-center self-start rounded-xl px-2 font-bold underline underline-offset-4"
+        >
+          Enter the new enclosure’s size<span className="sr-only"> for {item.animal.name}</span>
+        </Link>
+      )}
       {confirming && hold && (
         <HeldMealConfirm
           reason={hold.text}
