@@ -290,6 +290,8 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'female',
     sizeMm: 140,
     place: ['B', '1', '2'],
+    // Outgrown at its molt 5 days ago (2 × 140 mm > 250 mm): rehoused after the hold (R22).
+    enclosure: [400, 250],
     cautions: ['urticating_hairs'],
     hasWaterDish: true,
     story: 'molted_5_days',

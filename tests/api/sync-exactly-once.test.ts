@@ -242,7 +242,7 @@ async function todayRound(): Promise<RoundResponse> {
 }
 
 let careRun = 0;
-it('S1 for enclosure care: misting, spot-clean and rehouse taps on the cached round, reloaded, synced exactly once (60 runs)', async () => {
+it('S1 for enclosure care: misting, spot-clean and rehouse taps on the cached round, reloaded, synced exactly once (30 runs)', async () => {
   await fc.assert(
     fc.asyncProperty(
       fc.array(careStep, { minLength: 1, maxLength: 10 }),
@@ -369,6 +369,6 @@ it('S1 for enclosure care: misting, spot-clean and rehouse taps on the cached ro
         db.close();
       },
     ),
-    { numRuns: 60 },
+    { numRuns: 30 },
   );
 }, 600_000);
