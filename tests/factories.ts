@@ -118,6 +118,9 @@ export async function createAnimal(
       scientificName: 'Tliltocatl albopilosus',
       group: 'tarantula',
       lifeStage: 'adult',
+      // Spot-cleaning (§ Enclosure care) off unless a test turns it on: a bolus task the day
+      // after every meal would sit in every other rule's round.
+      spotCleanEveryDays: 0,
       ...overrides,
     })
     .returning();

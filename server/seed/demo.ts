@@ -8,6 +8,7 @@ import { breedingFacts, breedingModeOf, type BreedingRecordKind } from '#shared/
 import type { EventKind } from '#shared/domain/event-kinds';
 import { generateLabelCodes } from '#shared/domain/label-codes';
 import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '#shared/domain/local-dates';
+import { hydrationEvery } from '#shared/domain/rounds/enclosure-care';
 import { DEFAULT_RULES, feedingInterval, postMoltHoldDays } from '#shared/domain/rounds/rules';
 import { insertCollection } from '../access/collections';
 import { DEMO_ACCOUNTS, DEMO_COLLECTION, DEMO_PASSWORD } from '../access/demo-people';
@@ -63,6 +64,12 @@ interface DemoAnimal {
     | 'clutch_potted';
   /** Days since the animal came to the collection, where the seed must not draw it at random. */
   acquiredDaysAgo?: number;
+  /** Its own spot-clean interval (R21); 0: never on the round. */
+  spotCleanEveryDays?: number;
+  /** Days since its last spot-clean (R21); 1 unless a story needs one due. */
+  spotCleanedDaysAgo?: number;
+  /** Inside of its enclosure in mm (length, width, and height for a tall one): R22. */
+  enclosure?: [length: number, width: number, height?: number];
 }
 
 /**
@@ -270,6 +277,8 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'unknown',
     sizeMm: 75,
     place: ['B', '1', '1'],
+    // An arboreal pinktoe in a tall enclosure: 3 × 75 mm is 225 mm of height (R22).
+    enclosure: [200, 200, 300],
     cautions: ['fast_defensive'],
     hasWaterDish: true,
     story: 'premolt',
@@ -283,6 +292,8 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'female',
     sizeMm: 140,
     place: ['B', '1', '2'],
+    // Outgrown at its molt 5 days ago (2 × 140 mm > 250 mm): rehoused after the hold (R22).
+    enclosure: [400, 250],
     cautions: ['urticating_hairs'],
     hasWaterDish: true,
     story: 'molted_5_days',
@@ -296,6 +307,9 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'unknown',
     sizeMm: 50,
     place: ['B', '1', '3'],
+    // Last spot-cleaned 15 days ago: due again after 14 (R21).
+    spotCleanedDaysAgo: 15,
+    enclosure: [200, 150],
     cautions: ['potent_venom', 'fast_defensive'],
   },
   {
@@ -319,6 +333,7 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'female',
     sizeMm: 95,
     place: ['B', '2', '2'],
+    enclosure: [300, 200],
     cautions: ['urticating_hairs'],
     hasWaterDish: true,
   },
@@ -331,6 +346,8 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'unknown',
     sizeMm: 60,
     place: ['B', '2', '3'],
+    // Molted and outgrew its 110 × 100 mm tub: 2 × 60 mm is 120 mm (R22), so a rehouse is due.
+    enclosure: [110, 100],
     cautions: ['urticating_hairs', 'fast_defensive'],
   },
   {
@@ -342,6 +359,7 @@ const JUVENILES: DemoAnimal[] = [
     sex: 'unknown',
     sizeMm: 12,
     place: ['B', '3', '4'],
+    enclosure: [60, 60],
   },
   {
     name: 'Flicker',
@@ -370,6 +388,8 @@ function clutch(): DemoAnimal[] {
       place: ['C', tray, pot],
       cautions: ['urticating_hairs'],
       clutch: 'H. formosus sac 1',
+      // Pots of one clutch are cleaned when potted up, not on the round (the animal's own 0).
+      spotCleanEveryDays: 0,
       story: i === 3 ? 'prey_left_yesterday' : i === 7 || i === 15 ? 'missed' : undefined,
     } satisfies DemoAnimal;
   });
@@ -447,17 +467,40 @@ export function historyFor(
     });
     offset += refused ? Math.max(2, Math.round(interval / 2)) : interval;
   }
-  // Dishes topped up, dish-less slings' substrate moistened and the mantis misted (all recorded
-  // as watering).
+  // Dishes topped up every 3 days (R7); dish-less slings' substrate moistened every 4 days and
+  // the mantis misted every 2 (§ Enclosure care). Animals whose story must show on today's
+  // round were last watered three days ago; Pebble and Flicker are due a moistening today.
+  const moisten = hydrationEvery('moisten', { ...animal, hasWaterDish: false }, DEFAULT_RULES);
+  const mist = hydrationEvery('mist', { ...animal, hasWaterDish: false }, DEFAULT_RULES);
   if (animal.hasWaterDish || animal.lifeStage === 'sling' || animal.group === 'mantis') {
-    // Animals whose story must show on today's round were last watered three days ago.
     const last =
       animal.story === 'premolt' || animal.story === 'molted_5_days'
         ? -3
         : -1 - Math.floor(random() * 3);
-    for (let d = last; d >= -60; d -= 3)
-      out.push({ kind: 'watered', day: at(d), minute: minute(), by: by() });
+    for (let d = last; d >= -60; d -= 3) {
+      // Drawn for every animal of this branch alike, so the rest of the demo's history (drawn
+      // from the same sequence) stays as it was before enclosure care.
+      const when = minute();
+      const who = by();
+      if (animal.hasWaterDish) out.push({ kind: 'watered', day: at(d), minute: when, by: who });
+    }
+    if (!animal.hasWaterDish && moisten) {
+      const from = animal.name === 'Pebble' || animal.name === 'Flicker' ? -4 : last;
+      for (let d = from; d >= -60; d -= moisten.every)
+        out.push({ kind: 'substrate_moistened', day: at(d), minute: 18 * 60, by: 'owner' });
+    } else if (!animal.hasWaterDish && mist)
+      for (let d = -mist.every; d >= -60; d -= mist.every)
+        out.push({ kind: 'misted', day: at(d), minute: 18 * 60, by: 'owner' });
   }
+  // Small dish-less juveniles (Rusty, Tiger, Stripes) have no moistening recorded: due today.
+  // Spot-cleaned yesterday (R21): only a meal from yesterday leaves a bolus for today.
+  if (animal.story !== 'guarding_sac' && animal.story !== 'brood_on_back')
+    out.push({
+      kind: 'spot_cleaned',
+      day: at(-(animal.spotCleanedDaysAgo ?? 1)),
+      minute: 17 * 60,
+      by: 'owner',
+    });
   if (moltAt !== null)
     out.push({
       kind: 'molted',
@@ -672,6 +715,10 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
           sizeMm: a.sizeMm,
           locationId: places.get(a.place.join('|'))!,
           hasWaterDish: a.hasWaterDish ?? false,
+          spotCleanEveryDays: a.spotCleanEveryDays ?? null,
+          enclosureLengthMm: a.enclosure?.[0] ?? null,
+          enclosureWidthMm: a.enclosure?.[1] ?? null,
+          enclosureHeightMm: a.enclosure?.[2] ?? null,
           cautions: a.cautions ?? [],
           clutch: a.clutch ?? null,
           acquiredOn: addDays(

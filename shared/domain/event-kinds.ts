@@ -5,6 +5,12 @@ export const EVENT_KINDS = [
   'prey_left_in',
   'prey_removed',
   'watered',
+  /** Enclosure care (docs/care-rules.md § Enclosure care): misted, a sling's substrate damped… */
+  'misted',
+  'substrate_moistened',
+  /** … a bolus or prey remains picked out, or the animal moved to a bigger enclosure. */
+  'spot_cleaned',
+  'rehoused',
   'molted',
   /** Size, exuviae sex or a note added to a molt already recorded (one molt, one record). */
   'molt_details',
@@ -42,6 +48,10 @@ export const HELPER_EVENT_KINDS: readonly EventKind[] = [
   'prey_left_in',
   'prey_removed',
   'watered',
+  // Enclosure care a helper can do in passing; rehousing handles the animal, so keepers only.
+  'misted',
+  'substrate_moistened',
+  'spot_cleaned',
   'molted',
   'molt_details',
   'premolt_seen',
@@ -58,6 +68,10 @@ export const EVENT_WORDS: Record<EventKind, string> = {
   prey_left_in: 'Prey left in',
   prey_removed: 'Prey removed',
   watered: 'Watered',
+  misted: 'Misted',
+  substrate_moistened: 'Substrate moistened',
+  spot_cleaned: 'Spot-cleaned',
+  rehoused: 'Rehoused',
   molted: 'Molted',
   molt_details: 'Molt details',
   premolt_seen: 'Premolt seen',

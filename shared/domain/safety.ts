@@ -45,7 +45,14 @@ export const TASK_HOW: Record<TaskKind, string> = {
   remove_prey:
     'Take out the uneaten prey with tongs, even if it is dead. Live prey left with a molting animal can injure it.',
   water:
-    'Top up the water dish with clean water to just below the rim (the round asks every few days). Do not pour over the animal. With no dish, do what the task says: pour a little water into one corner of the substrate, or mist the enclosure wall lightly — never the animal.',
+    'Top up the water dish with clean water to just below the rim (the round asks every few days). Do not pour over the animal.',
+  mist: 'Mist one wall of the enclosure lightly with clean water, away from the animal — a few droplets to drink, not a soaking. Never spray the animal itself, and keep the lid open as briefly as you can.',
+  moisten:
+    'Pour a little water into one corner of the substrate, away from the animal and its burrow, so part stays damp and part dry. No puddles: a small animal can drown in one.',
+  spot_clean:
+    'With long tongs, pick out the bolus (the dark ball of prey remains), dead prey, droppings and old molts. Do not put your hand in, do not break the web or the burrow, and close the lid at once.',
+  rehouse:
+    'Keepers only. Work over a large tub or a bath with the plug in, have the new enclosure ready and open, and coax the animal into a catch cup with a soft brush — never by hand. Fast or defensive animals can bite, sting or flick hairs: wear eye protection near hair-flicking species.',
   check:
     'Look without disturbing: note anything odd (a molt, a web-closed burrow, a mat of silk) and record it. For a beetle larva, check the food substrate is moist and not used up, top it up, and tap “Checked”.',
   leave_alone:

@@ -25,6 +25,11 @@ export const UNDO_EFFECTS: Record<Exclude<EventKind, 'void'>, string> = {
   prey_left_in: 'The prey is no longer marked as left inside.',
   prey_removed: 'The prey shows as still inside until it is removed again.',
   watered: 'The water date goes back to the watering before it.',
+  misted: 'The misting date goes back to the one before it: misting may come due again.',
+  substrate_moistened: 'The moistening date goes back to the one before it: it may come due again.',
+  spot_cleaned: 'The spot-clean no longer counts: it may come due again.',
+  rehoused:
+    'The rehouse no longer counts: a rehouse may be asked for again; an enclosure size it gave stays on the record.',
   molted:
     'The molt goes from the record: the hold after molting and the time since the last molt are worked out from the molt before it.',
   molt_details: 'The size, sex or note added to the molt goes.',

@@ -16,7 +16,7 @@ import {
 import { isLabelCode, LABEL_ALPHABET, normaliseLabelCode } from '../domain/label-codes';
 import { checkScientificName } from '../domain/scientific-name';
 import { localDate } from './common';
-import { careSettingsBody, dietSetting } from './rules';
+import { careSettingsBody, dietSetting, enclosureCareDefaults } from './rules';
 
 export const locationSummary = z.object({
   id: z.string(),
@@ -57,6 +57,12 @@ export const animalSummary = z.object({
   location: locationSummary.nullable(),
   hasWaterDish: z.boolean(),
   intervalDays: z.number().nullable(),
+  mistEveryDays: z.number().nullable(),
+  moistenEveryDays: z.number().nullable(),
+  spotCleanEveryDays: z.number().nullable(),
+  enclosureLengthMm: z.number().nullable(),
+  enclosureWidthMm: z.number().nullable(),
+  enclosureHeightMm: z.number().nullable(),
   preyType: z.string().nullable(),
   preySize: z.string().nullable(),
   preyCount: z.number().nullable(),
@@ -159,7 +165,9 @@ export const animalFields = z.object({
   cautionNote: optionalText(CAUTION_NOTE_MAX, 'The caution note'),
   notes: optionalText(4000, 'Notes'),
   clutch: optionalText(80, 'The clutch name'),
-  care: careSettingsBody.required().extend({ diet: dietSetting.default(null) }),
+  care: careSettingsBody
+    .required()
+    .extend({ diet: dietSetting.default(null), ...enclosureCareDefaults }),
 });
 
 /** What a keeper enters for an animal; the label code is drawn when left empty. */

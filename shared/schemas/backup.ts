@@ -8,7 +8,7 @@ import { accountDetails } from './auth';
 import { localDate, timeZone, uuid } from './common';
 import { EVENT_PAYLOADS, eventBatchBody, eventKind } from './events';
 import { locationInput } from './locations';
-import { careSettingsBody, dietSetting, rulesOverride } from './rules';
+import { careSettingsBody, dietSetting, enclosureCareDefaults, rulesOverride } from './rules';
 import './messages';
 
 export const BACKUP_FORMAT = 'rackside-backup';
@@ -74,6 +74,8 @@ export const backupAnimal = z.object({
   ...care,
   // Added with care profiles: backups made before it have no diet (the group's usual).
   diet: dietSetting.default(null),
+  // Added with enclosure care: older backups have none (the profile's, not measured).
+  ...enclosureCareDefaults,
   status: z.enum(ANIMAL_STATUSES, { message: 'Choose kept, sold, deceased, rehomed or on loan.' }),
   statusDate: localDate.nullable(),
   // Per-animal rule overrides: the same shape as a collection's.

@@ -30,6 +30,21 @@ const moltFacts = {
   note,
 };
 
+/** mm inside the new enclosure; each optional (a keeper may rehouse without measuring). */
+const enclosureSide = (what: string) =>
+  z
+    .number()
+    .int({ message: `Give the ${what} in whole millimetres.` })
+    .min(10, { message: `The ${what} must be at least 10 mm.` })
+    .max(3000, { message: `The ${what} must be under 3,000 mm.` })
+    .optional();
+/** A rehouse may give the new enclosure's inside size: the animal record takes it. */
+const enclosureFacts = {
+  lengthMm: enclosureSide('length'),
+  widthMm: enclosureSide('width'),
+  heightMm: enclosureSide('height'),
+};
+
 /** Each event kind's payload: what the engine and the history need, nothing else. */
 export const EVENT_PAYLOADS = {
   ate: z.object({ ...prey, note }).strict(),
@@ -37,6 +52,10 @@ export const EVENT_PAYLOADS = {
   prey_left_in: z.object({ ...prey, note }).strict(),
   prey_removed: empty,
   watered: empty,
+  misted: empty,
+  substrate_moistened: empty,
+  spot_cleaned: empty,
+  rehoused: z.object({ ...enclosureFacts, note }).strict(),
   molted: z.object(moltFacts).strict(),
   molt_details: z.object({ targetId: uuid, ...moltFacts }).strict(),
   premolt_seen: empty,

@@ -112,6 +112,12 @@ export const engineAnimal = roundAnimal.extend({
   doNotFeedUntil: z.string().nullable(),
   doNotFeedBy: z.enum(['keeper', 'handover']).optional(),
   addedOn: z.string().nullable(),
+  mistEveryDays: z.number().nullable().optional(),
+  moistenEveryDays: z.number().nullable().optional(),
+  spotCleanEveryDays: z.number().nullable().optional(),
+  enclosureLengthMm: z.number().nullable().optional(),
+  enclosureWidthMm: z.number().nullable().optional(),
+  enclosureHeightMm: z.number().nullable().optional(),
 }) satisfies z.ZodType<EngineAnimal>;
 
 /** Only the fields the engine reads, so the phone's copy stays small (issue 22's budget). */
@@ -119,6 +125,8 @@ export function engineAnimalOf(a: EngineAnimal): EngineAnimal {
   const { id, labelCode, name, scientificName, group, lifeStage, sex, sizeMm, status } = a;
   const { cautions, location, hasWaterDish, intervalDays, preyType, preySize, preyCount } = a;
   const { diet, doNotFeedUntil, doNotFeedBy, addedOn } = a;
+  const { mistEveryDays, moistenEveryDays, spotCleanEveryDays } = a;
+  const { enclosureLengthMm, enclosureWidthMm, enclosureHeightMm } = a;
   return {
     id,
     labelCode,
@@ -140,6 +148,12 @@ export function engineAnimalOf(a: EngineAnimal): EngineAnimal {
     doNotFeedUntil,
     ...(doNotFeedBy ? { doNotFeedBy } : {}),
     addedOn,
+    mistEveryDays: mistEveryDays ?? null,
+    moistenEveryDays: moistenEveryDays ?? null,
+    spotCleanEveryDays: spotCleanEveryDays ?? null,
+    enclosureLengthMm: enclosureLengthMm ?? null,
+    enclosureWidthMm: enclosureWidthMm ?? null,
+    enclosureHeightMm: enclosureHeightMm ?? null,
   };
 }
 
@@ -167,6 +181,10 @@ export const animalState = z.object({
   lastSkipped: localDay,
   // Projections stored before this field existed lack it (animal-state.ts).
   rehousedOn: localDay.default(null),
+  lastMisted: localDay.optional(),
+  lastMoistened: localDay.optional(),
+  lastSpotCleaned: localDay.optional(),
+  lastRehoused: localDay.optional(),
   lastEventAt: z.string().nullable(),
   lastEventId: z.string().nullable(),
 }) satisfies z.ZodType<AnimalState, unknown>;

@@ -92,6 +92,7 @@ function profileOverride(group: AnimalGroup) {
         .min(1, { message: 'The size must be at least 1 mm.' })
         .max(400, { message: 'The size can be at most 400 mm.' })
         .nullable(),
+      spotCleanEveryDays: days(1, 90, `Spot-cleaning ${word}s`).nullable(),
     })
     .partial()
     .strict();
@@ -134,6 +135,13 @@ const feeders = z
     });
   });
 
+/** R22: how many times the animal's size an enclosure's floor or height must be. */
+const spans = (what: string) =>
+  z
+    .number({ message: `The ${what} rule must be a number (times the animal's size).` })
+    .min(1, { message: `The ${what} rule must be at least 1× the animal's size.` })
+    .max(6, { message: `The ${what} rule can be at most 6× the animal's size.` });
+
 /** A collection's changes to the default rules; every key optional, every value bounded. */
 export const rulesOverride = z
   .object({
@@ -166,6 +174,9 @@ export const rulesOverride = z
       .min(1, { message: 'The tiny sling size must be at least 1 mm.' })
       .max(100, { message: 'The tiny sling size can be at most 100 mm.' }),
     feeders,
+    bolusAfterDays: days(0, 7, 'Picking out a bolus after a meal'),
+    rehouseFloorSpans: spans('floor'),
+    rehouseHeightSpans: spans('height'),
   })
   .partial()
   .strict();
@@ -175,6 +186,33 @@ export type RulesOverrideBody = z.infer<typeof rulesOverride>;
 export const dietSetting = z
   .enum(DIETS, { message: 'Choose live prey, fruit or jelly, plant food or leaf litter.' })
   .nullable();
+
+/** § Enclosure care: an animal's own "every N days"; 0 turns the task off, null follows the profile. */
+const ownEvery = (what: string) =>
+  z
+    .number({ message: `${what}: give a number of days, 0 for never, or leave it empty.` })
+    .int({ message: `${what}: give whole days.` })
+    .min(0, { message: `${what}: 0 (never) at least.` })
+    .max(90, { message: `${what}: every 90 days at most.` })
+    .nullable();
+/** The inside of its enclosure in mm (R22). */
+const enclosureSide = (what: string) =>
+  z
+    .number({ message: `The enclosure ${what} must be a number of mm.` })
+    .int({ message: `Give the enclosure ${what} in whole mm.` })
+    .min(10, { message: `The enclosure ${what} must be at least 10 mm.` })
+    .max(3000, { message: `The enclosure ${what} must be under 3,000 mm.` })
+    .nullable();
+
+/** Enclosure care settings: each optional in a body, null (the profile's, or not measured) when absent. */
+export const enclosureCareSettings = {
+  mistEveryDays: ownEvery('Misting'),
+  moistenEveryDays: ownEvery('Moistening the substrate'),
+  spotCleanEveryDays: ownEvery('Spot-cleaning'),
+  enclosureLengthMm: enclosureSide('length'),
+  enclosureWidthMm: enclosureSide('width'),
+  enclosureHeightMm: enclosureSide('height'),
+};
 
 /** Per-animal care settings the engine honours; null clears a setting. */
 export const careSettingsBody = z
@@ -191,10 +229,16 @@ export const careSettingsBody = z
     diet: dietSetting,
     hasWaterDish: z.boolean(),
     doNotFeedUntil: localDate.nullable(),
+    ...enclosureCareSettings,
   })
   .partial()
   .strict();
 export type CareSettingsBody = z.infer<typeof careSettingsBody>;
+
+/** The enclosure care settings with null when absent (records and files made before them). */
+export const enclosureCareDefaults = Object.fromEntries(
+  Object.entries(enclosureCareSettings).map(([k, v]) => [k, v.default(null)]),
+) as { [K in keyof typeof enclosureCareSettings]: z.ZodDefault<(typeof enclosureCareSettings)[K]> };
 
 /** A collection's rules in full, as the server works them out (the answer, not a body: no bounds). */
 const offerShown = z.object({
@@ -220,6 +264,7 @@ const roundRules: z.ZodType<RoundRules> = z.object({
       hydration: z.enum(HYDRATIONS),
       hydrateEveryDays: z.number(),
       hydrateBelowMm: z.number().nullable(),
+      spotCleanEveryDays: z.number().nullable(),
     }),
   ),
   premoltCheckDays: z.number(),
@@ -233,6 +278,9 @@ const roundRules: z.ZodType<RoundRules> = z.object({
   spanToBody: z.number(),
   tinySlingMm: z.number(),
   feeders: z.array(z.object({ preyType: z.string(), preySize: z.string(), lengthMm: z.number() })),
+  bolusAfterDays: z.number(),
+  rehouseFloorSpans: z.number(),
+  rehouseHeightSpans: z.number(),
 });
 
 export const rulesResponse = z.object({

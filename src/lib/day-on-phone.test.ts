@@ -35,6 +35,7 @@ const animal = (id: string, name: string, position: string): EngineAnimal => ({
   diet: null,
   doNotFeedUntil: null,
   addedOn: '2026-01-01',
+  spotCleanEveryDays: 0, // feeding days only: spot-cleans are enclosure-care.test.ts's
 });
 
 // Sent on Wed 2 Dec at 11:42 Toronto time (16:42 UTC): Dusty last ate on 24 Nov (due since

@@ -799,7 +799,7 @@ describe('a female with a sac or brood', () => {
     // A mantis does not guard her ootheca: she stays on the round.
     expect((await stateOf(mantis.id)).leaveAlone).toBeNull();
     // Fed (and misted: no dish for a mantis, docs/care-rules.md § Mantis), never left alone.
-    expect((await schedule(keeper, mantis.id)).tasks.map((t) => t.kind)).toEqual(['feed', 'water']);
+    expect((await schedule(keeper, mantis.id)).tasks.map((t) => t.kind)).toEqual(['feed', 'mist']);
     const listed = (await keeper.agent.get(`${base()}/egg-sacs`).expect(200)).body.sacs as {
       id: string;
       kind: string;

@@ -59,10 +59,10 @@ describe('today’s round at 360 × 740', () => {
     await item(page, 'Dusty').waitFor();
     expect(await page.getByRole('radio', { name: /^To do/ }).isChecked()).toBe(true);
     // One unit everywhere: animals. Two cards only say "leave alone" and are not counted as work.
-    expect(await page.getByText(/^0 of 20 animals done$/).count()).toBe(1);
-    expect(await page.getByRole('radio', { name: /^To do 22 animals/ }).count()).toBe(1);
+    expect(await page.getByText(/^0 of 24 animals done$/).count()).toBe(1);
+    expect(await page.getByRole('radio', { name: /^To do 26 animals/ }).count()).toBe(1);
     // Take care leaves the handling cautions, not the hairs nearly every card carries.
-    expect(await page.getByRole('radio', { name: /^Take care 8 animals/ }).count()).toBe(1);
+    expect(await page.getByRole('radio', { name: /^Take care 9 animals/ }).count()).toBe(1);
 
     // The place code printed on the card finds it, however it is typed.
     const search = page.getByLabel('Find a label code, a place or a name');
@@ -85,7 +85,7 @@ describe('today’s round at 360 × 740', () => {
     expect(await row.getByRole('button', { name: 'Refused' }).count()).toBe(0);
     expect((await row.boundingBox())!.height).toBeLessThan(tall / 2);
     expect((await row.boundingBox())!.height).toBeLessThanOrEqual(80);
-    expect(await page.getByText(/^1 of 20 animals done$/).count()).toBe(1);
+    expect(await page.getByText(/^1 of 24 animals done$/).count()).toBe(1);
     expect(await page.getByRole('radio', { name: /^Done 1 animal/ }).count()).toBe(1);
     await screenshot(page, 'today-round-01-folded');
 
@@ -198,7 +198,7 @@ describe('today’s round at 360 × 740', () => {
     await signInAsDemo(page, env.server.baseUrl, 'helper@northlight.test');
     await item(page, 'Ember').waitFor();
     const cautions = page.getByRole('region', { name: 'Cautions on today’s round' });
-    expect(await cautions.innerText()).toMatch(/Potent venom — never use your hands · 3 animals/);
+    expect(await cautions.innerText()).toMatch(/Potent venom — never use your hands · 4 animals/);
     // The guidance is written once on the page, not on each card.
     const guidance = /A bite can cause severe cramps/;
     expect(await page.getByText(guidance).count()).toBe(1);
@@ -224,7 +224,7 @@ describe('today’s round at 360 × 740', () => {
     const table = page.getByRole('table');
     await table.waitFor();
     // Every card of the round is a row, in walk order.
-    expect(await table.locator('tbody tr').count()).toBe(22);
+    expect(await table.locator('tbody tr').count()).toBe(26);
     const dusty = table.locator('tbody tr').filter({ hasText: 'Dusty' });
     expect(await dusty.innerText()).toMatch(
       /A1-3[\s\S]*Dusty[\s\S]*Aphonopelma chalcodes[\s\S]*Urticating hairs[\s\S]*Feed · 1–3 × large cricket/,

@@ -54,6 +54,15 @@ export const animals = pgTable(
     // What a stage fed "by diet" eats (beetle adults, other); null: the group's usual diet.
     diet: dietEnum('diet'),
     intervalDays: integer('interval_days'),
+    // Enclosure care (docs/care-rules.md § Enclosure care): the animal's own "every N days";
+    // 0 is never, null follows its care profile.
+    mistEveryDays: integer('mist_every_days'),
+    moistenEveryDays: integer('moisten_every_days'),
+    spotCleanEveryDays: integer('spot_clean_every_days'),
+    // Inside of its enclosure in mm (R22); height only for an arboreal set-up.
+    enclosureLengthMm: integer('enclosure_length_mm'),
+    enclosureWidthMm: integer('enclosure_width_mm'),
+    enclosureHeightMm: integer('enclosure_height_mm'),
     doNotFeedUntil: date('do_not_feed_until'),
     cautions: text('cautions').array().notNull().default([]),
     cautionNote: text('caution_note'),

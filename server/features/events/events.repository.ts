@@ -192,3 +192,20 @@ export async function setSexAndSize(
 ) {
   await db.update(animals).set(values).where(eq(animals.id, animalId));
 }
+
+/** A rehouse's new enclosure size on the animal record (R22). */
+export async function setEnclosure(
+  db: Db,
+  animalId: string,
+  values: Partial<
+    Pick<
+      typeof animals.$inferInsert,
+      'enclosureLengthMm' | 'enclosureWidthMm' | 'enclosureHeightMm'
+    >
+  >,
+) {
+  await db
+    .update(animals)
+    .set({ ...values, updatedAt: new Date() })
+    .where(eq(animals.id, animalId));
+}

@@ -4,7 +4,7 @@
 import { randomUUID } from 'node:crypto';
 import type { EventKind } from '#shared/domain/event-kinds';
 import type { Db } from '../../db/client';
-import { insertEvents, type NewEvent } from './events.repository';
+import { insertEvents, setEnclosure, type NewEvent } from './events.repository';
 import { MOLT_FACT_KINDS, applyMoltFacts } from './molt-facts';
 import { foldNewEvents, refoldStates } from './projection';
 import { lockStates } from './projection.repository';
@@ -135,5 +135,25 @@ export async function recordEvents(
   await applyMoltFacts(db, collectionId, timeZone, [
     ...new Set(fresh.filter((e) => MOLT_FACT_KINDS.includes(e.kind)).map((e) => e.animalId)),
   ]);
+  await applyRehouses(db, fresh);
   return stored;
+}
+
+/**
+ * R22: a rehouse that gives the new enclosure's inside size puts it on the animal record, so the
+ * round measures the next molt against the new enclosure (the latest rehouse last).
+ */
+async function applyRehouses(db: Db, fresh: readonly NewEvent[]) {
+  const rehouses = fresh
+    .filter((e) => e.kind === 'rehoused')
+    .sort((a, b) => a.effectiveAt.getTime() - b.effectiveAt.getTime());
+  for (const e of rehouses) {
+    const p = e.payload as { lengthMm?: number; widthMm?: number; heightMm?: number };
+    const values = {
+      ...(p.lengthMm !== undefined ? { enclosureLengthMm: p.lengthMm } : {}),
+      ...(p.widthMm !== undefined ? { enclosureWidthMm: p.widthMm } : {}),
+      ...(p.heightMm !== undefined ? { enclosureHeightMm: p.heightMm } : {}),
+    };
+    if (Object.keys(values).length) await setEnclosure(db, e.animalId, values);
+  }
 }

@@ -38,6 +38,15 @@ export interface AnimalState {
    * Projections stored before this field existed lack it: read it as `?? null`.
    */
   rehousedOn: LocalDate | null;
+  /**
+   * Enclosure care (docs/care-rules.md § Enclosure care): the last misting, substrate
+   * moistening, spot-clean and rehouse. Projections stored before these fields lack them: read
+   * them as `?? null`.
+   */
+  lastMisted?: LocalDate | null;
+  lastMoistened?: LocalDate | null;
+  lastSpotCleaned?: LocalDate | null;
+  lastRehoused?: LocalDate | null;
   /** Instant of the latest event folded in, to tell whether a new event is in order. */
   lastEventAt: string | null;
   lastEventId: string | null;
@@ -57,6 +66,10 @@ export const EMPTY_STATE: AnimalState = {
   lastObserved: null,
   lastSkipped: null,
   rehousedOn: null,
+  lastMisted: null,
+  lastMoistened: null,
+  lastSpotCleaned: null,
+  lastRehoused: null,
   lastEventAt: null,
   lastEventId: null,
 };
@@ -131,6 +144,21 @@ export function applyEvent(state: AnimalState, event: EngineEvent, zone: string)
       break;
     case 'watered':
       s.lastWatered = day;
+      break;
+    case 'misted':
+      s.lastMisted = day;
+      break;
+    case 'substrate_moistened':
+      s.lastMoistened = day;
+      break;
+    case 'spot_cleaned':
+      s.lastSpotCleaned = day;
+      break;
+    case 'rehoused':
+      // A new enclosure is a clean one, and a move the animal settles in from (R16).
+      s.lastRehoused = day;
+      s.lastSpotCleaned = day;
+      s.rehousedOn = day;
       break;
     case 'molted':
       s.lastMolt = day;

@@ -46,15 +46,27 @@ describe('round engine properties', () => {
           for (const [hold, applies] of Object.entries(holds))
             if (applies)
               expect(feeds, `${hold} for ${animal.group} ${animal.lifeStage}`).toBe(false);
-          // R11 amended: a guarding female's dish is still topped up quietly; a molting animal gets nothing.
+          // R11 amended: a guarding female's dish is still topped up and her substrate moistened
+          // quietly (§ Enclosure care); a molting animal gets nothing.
           const quietWater = (t: { kind: string }) =>
-            t.kind === 'water' && state.leaveAlone!.reason !== 'molting';
+            (t.kind === 'water' || t.kind === 'moisten') && state.leaveAlone!.reason !== 'molting';
           if (state.leaveAlone)
             expect(
               d.tasks.every(
                 (t) => t.kind === 'leave_alone' || t.kind === 'remove_prey' || quietWater(t),
               ),
             ).toBe(true);
+          // § Enclosure care: no cleaning or rehouse in premolt; no rehouse in the post-molt hold,
+          // while settling in, or without a molt since the last rehouse.
+          const has = (kind: string) => d.tasks.some((t) => t.kind === kind);
+          if (holds.premolt) expect(has('spot_clean') || has('rehouse')).toBe(false);
+          if (holds.postMolt || holds.settling) expect(has('rehouse')).toBe(false);
+          if (has('rehouse')) {
+            expect(state.lastMolt).not.toBeNull();
+            expect((state.lastRehoused ?? '') < state.lastMolt!).toBe(true);
+          }
+          if (animal.spotCleanEveryDays === 0) expect(has('spot_clean')).toBe(false);
+          if (animal.mistEveryDays === 0) expect(has('mist')).toBe(false);
           // Whatever the engine names as a hold (the set R18 withdraws by) comes with no feed task.
           if (
             [...d.notes, ...d.tasks.flatMap((t) => t.reasons)].some((r) =>

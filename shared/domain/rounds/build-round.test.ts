@@ -201,8 +201,8 @@ describe('R6 prey left in (common practice, no published source)', () => {
       ev('ate', '2026-03-15'),
       ev('prey_left_in', '2026-03-19', { preyType: 'fruit-fly larvae' }),
     ]);
-    // R7: a sling without a dish also has its substrate moistened (added with care profiles).
-    expect(kinds(d.tasks)).toEqual(['remove_prey', 'water']);
+    // R7: a sling without a dish also has its substrate moistened (§ Enclosure care).
+    expect(kinds(d.tasks)).toEqual(['remove_prey', 'moisten']);
     expect(d.tasks[0]!.reasons[0]!.text).toMatch(/slings are not left with live prey/);
     const after = decide(
       sling,
@@ -234,25 +234,7 @@ describe('R7 water (common practice, no published source; a dish from about 7.5 
         .text,
     ).toBe('Water every 3 days: last topped up on 17 Mar.');
   });
-  it('gives a tarantula sling without a dish "moisten the substrate" every 4 days instead (a dish is a drowning risk)', () => {
-    const sling = animal({ lifeStage: 'sling', sizeMm: 12 });
-    const d = decide(sling, [ev('ate', '2026-03-19'), ev('watered', '2026-03-16')]);
-    expect(kinds(d.tasks)).toEqual(['water']); // kind "water": settled by Watered
-    expect(d.tasks[0]!.reasons[0]).toMatchObject({
-      code: 'moisten_substrate',
-      text: 'No dish at this size: moisten part of the substrate every 4 days (last on 16 Mar).',
-    });
-    expect(decide(sling, [ev('ate', '2026-03-19'), ev('watered', '2026-03-17')]).tasks).toEqual([]);
-    expect(decide(sling, [ev('ate', '2026-03-19'), ev('watered', '2026-03-17')]).nextWater).toBe(
-      '2026-03-21',
-    );
-  });
-  it('leaves a tarantula of 7.5 cm or more without a dish alone (an arid keeper’s choice)', () => {
-    expect(decide(animal({ sizeMm: 75 }), [ev('ate', '2026-03-19')]).tasks).toEqual([]);
-    expect(kinds(decide(animal({ sizeMm: 74 }), [ev('ate', '2026-03-19')]).tasks)).toEqual([
-      'water',
-    ]);
-  });
+  // Without a dish, moistening and misting are enclosure care: enclosure-care.test.ts.
 });
 
 describe('R8 rebuild after an egg sac or for pairing (common practice, no published source)', () => {
@@ -342,12 +324,12 @@ describe('R10 no double meal', () => {
       ).toISOString(),
     };
     const d = decide(sling, [morning, ev('refused', '2026-03-19')], TODAY, rules);
-    expect(kinds(d.tasks)).toEqual(['water']); // moisten the substrate (R7), no food
+    expect(kinds(d.tasks)).toEqual(['moisten']); // moisten the substrate (R7), no food
     expect(d.notes.map((n) => n.code)).toContain('no_double_meal');
     expect(d.notes.map((n) => n.text)).toContain('Ate on 19 Mar: never two meals within 2 days.');
     expect(
       kinds(decide(sling, [morning, ev('refused', '2026-03-19')], '2026-03-21', rules).tasks),
-    ).toEqual(['feed', 'water']);
+    ).toEqual(['feed', 'moisten']);
   });
 });
 

@@ -2,6 +2,7 @@ import type { LocalDate } from '../local-dates';
 import { compareKeys, naturalKey, shelfKey } from '../walk-order';
 import type { AnimalState } from './animal-state';
 import { careNotes, decidePremoltCheck } from './checks-and-notes';
+import { decideEnclosureCare, quietCare } from './enclosure-care';
 import {
   TASK_KINDS,
   type AnimalDecision,
@@ -94,13 +95,16 @@ export function decideAnimal(
   const s = situationOf(animal, state, rules, date);
   decidePreyInside(d, s);
 
-  // R11 (molting) and pupae: nothing else, not even water. Guarding a sac or brood (R11
-  // amended): no food, no disturbance, but a dish is topped up quietly when due.
+  // R11 (molting) and pupae: nothing else, not even water or misting. Guarding a sac or brood
+  // (R11 amended): no food, no disturbance, but a dish is topped up and the substrate
+  // moistened quietly when due (§ Enclosure care).
   const leaveAlone = leaveAloneReason(s);
   if (leaveAlone) {
     d.tasks.push({ kind: 'leave_alone', reasons: [leaveAlone], carriedOverDays: 0 });
-    if (state.leaveAlone && state.leaveAlone.reason !== 'molting')
+    if (state.leaveAlone && state.leaveAlone.reason !== 'molting') {
       quietWater(d, state, rules, date);
+      quietCare(d, s);
+    }
     return d;
   }
   // Stages that are not fed: a note, no task.
@@ -112,6 +116,7 @@ export function decideAnimal(
 
   const blockers = s.food === 'substrate' ? (decideSubstrate(d, s), []) : decideFeed(d, s);
   decideWater(d, s);
+  decideEnclosureCare(d, s);
   decidePremoltCheck(d, s);
   d.notes.push(...careNotes(s));
 

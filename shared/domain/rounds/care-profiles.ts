@@ -141,6 +141,8 @@ export interface CareProfile {
   hydrateEveryDays: number;
   /** … for animals smaller than this (mm), or all sizes when null. */
   hydrateBelowMm: number | null;
+  /** § Enclosure care: a spot-clean every N days (null: none on a schedule). */
+  spotCleanEveryDays: number | null;
 }
 
 const stage = (
@@ -169,6 +171,7 @@ export const DEFAULT_PROFILES: Record<AnimalGroup, CareProfile> = {
     hydration: 'moisten',
     hydrateEveryDays: 4,
     hydrateBelowMm: 75,
+    spotCleanEveryDays: 14,
   },
   true_spider: {
     stages: {
@@ -179,6 +182,7 @@ export const DEFAULT_PROFILES: Record<AnimalGroup, CareProfile> = {
     hydration: 'mist',
     hydrateEveryDays: 2,
     hydrateBelowMm: null,
+    spotCleanEveryDays: 14,
   },
   centipede: {
     stages: {
@@ -189,6 +193,7 @@ export const DEFAULT_PROFILES: Record<AnimalGroup, CareProfile> = {
     hydration: 'moisten',
     hydrateEveryDays: 3,
     hydrateBelowMm: null,
+    spotCleanEveryDays: 10,
   },
   scorpion: {
     stages: {
@@ -199,6 +204,7 @@ export const DEFAULT_PROFILES: Record<AnimalGroup, CareProfile> = {
     hydration: 'mist',
     hydrateEveryDays: 4,
     hydrateBelowMm: null,
+    spotCleanEveryDays: 14,
   },
   mantis: {
     stages: {
@@ -210,6 +216,7 @@ export const DEFAULT_PROFILES: Record<AnimalGroup, CareProfile> = {
     hydration: 'mist',
     hydrateEveryDays: 2,
     hydrateBelowMm: null,
+    spotCleanEveryDays: 7,
   },
   beetle: {
     stages: {
@@ -218,6 +225,7 @@ export const DEFAULT_PROFILES: Record<AnimalGroup, CareProfile> = {
     hydration: 'mist',
     hydrateEveryDays: 3,
     hydrateBelowMm: null,
+    spotCleanEveryDays: 14,
   },
   other: {
     stages: {
@@ -230,6 +238,7 @@ export const DEFAULT_PROFILES: Record<AnimalGroup, CareProfile> = {
     hydration: 'none',
     hydrateEveryDays: 3,
     hydrateBelowMm: null,
+    spotCleanEveryDays: 14,
   },
 };
 

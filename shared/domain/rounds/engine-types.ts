@@ -33,6 +33,18 @@ export interface EngineAnimal {
    * period (R16), then a first meal. Only given for an animal never fed.
    */
   addedOn: LocalDate | null;
+  /**
+   * Enclosure care (docs/care-rules.md § Enclosure care): the animal's own "every N days" for
+   * misting, moistening the substrate and spot-cleaning; 0 turns it off, null (or absent, in a
+   * phone's copy from before these fields) follows the care profile.
+   */
+  mistEveryDays?: number | null;
+  moistenEveryDays?: number | null;
+  spotCleanEveryDays?: number | null;
+  /** Inside size of its enclosure in mm; height only matters for an arboreal set-up. */
+  enclosureLengthMm?: number | null;
+  enclosureWidthMm?: number | null;
+  enclosureHeightMm?: number | null;
 }
 
 export type ReasonCode =
@@ -60,6 +72,10 @@ export type ReasonCode =
   | 'water_due'
   | 'moisten_substrate'
   | 'mist_due'
+  | 'spot_clean_due'
+  | 'bolus'
+  | 'rehouse_due'
+  | 'quiet_care'
   | 'leave_alone'
   | 'mature_male'
   | 'no_more_molts'
@@ -74,7 +90,17 @@ export interface Reason {
   dates: LocalDate[];
 }
 
-export const TASK_KINDS = ['remove_prey', 'leave_alone', 'feed', 'water', 'check'] as const;
+export const TASK_KINDS = [
+  'remove_prey',
+  'leave_alone',
+  'feed',
+  'water',
+  'mist',
+  'moisten',
+  'spot_clean',
+  'rehouse',
+  'check',
+] as const;
 export type TaskKind = (typeof TASK_KINDS)[number];
 
 export interface RoundTask {

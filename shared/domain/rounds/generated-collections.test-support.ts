@@ -16,6 +16,10 @@ export const KINDS: EventKind[] = [
   'prey_left_in',
   'prey_removed',
   'watered',
+  'misted',
+  'substrate_moistened',
+  'spot_cleaned',
+  'rehoused',
   'molted',
   'premolt_seen',
   'premolt_cleared',
@@ -51,6 +55,19 @@ const animalArb = (i: number, TODAY: LocalDate) =>
       rack: fc.constantFrom('A', 'B', 'C'),
       shelf: fc.integer({ min: 1, max: 12 }),
       position: fc.integer({ min: 1, max: 12 }),
+      // § Enclosure care: the animal's own intervals (0: off, none: the profile's) and its
+      // enclosure, small enough now and then for a rehouse.
+      mistEveryDays: fc.option(fc.integer({ min: 0, max: 10 }), { freq: 3 }),
+      moistenEveryDays: fc.option(fc.integer({ min: 0, max: 10 }), { freq: 3 }),
+      spotCleanEveryDays: fc.option(fc.integer({ min: 0, max: 21 }), { freq: 3 }),
+      enclosure: fc.option(
+        fc.tuple(
+          fc.integer({ min: 40, max: 600 }),
+          fc.integer({ min: 40, max: 600 }),
+          fc.option(fc.integer({ min: 60, max: 900 })),
+        ),
+        { freq: 3 },
+      ),
     })
     .map((r): EngineAnimal => ({
       id: `a${i}`,
@@ -79,6 +96,12 @@ const animalArb = (i: number, TODAY: LocalDate) =>
       diet: r.diet,
       doNotFeedUntil: r.doNotFeedUntil,
       addedOn: addDays(TODAY, -r.addedDaysAgo),
+      mistEveryDays: r.mistEveryDays,
+      moistenEveryDays: r.moistenEveryDays,
+      spotCleanEveryDays: r.spotCleanEveryDays,
+      enclosureLengthMm: r.enclosure?.[0] ?? null,
+      enclosureWidthMm: r.enclosure?.[1] ?? null,
+      enclosureHeightMm: r.enclosure?.[2] ?? null,
     }));
 
 const historyArb = (animalIndex: number, TODAY: LocalDate, ZONE: string) =>

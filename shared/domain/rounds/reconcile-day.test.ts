@@ -29,6 +29,7 @@ const animal: EngineAnimal = {
   preyCount: null,
   doNotFeedUntil: null,
   addedOn: '2026-09-01',
+  spotCleanEveryDays: 0, // spot-cleaning has its own cases (enclosure-care.test.ts)
 };
 const at = (date: string, hour: number) =>
   new Date(startOfLocalDate(date, ZONE).getTime() + hour * 3_600_000).toISOString();

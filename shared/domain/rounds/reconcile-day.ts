@@ -3,8 +3,18 @@
 import type { LocalDate } from '../local-dates';
 import type { AnimalState } from './animal-state';
 import { FEED_HOLD_CODES, type AnimalDecision, type Reason, type RoundTask } from './build-round';
+import { CARE_KINDS } from './enclosure-care';
 import { shortDate } from './reason-words';
 import { liveOutcomes, settlingOutcome, type DayOutcome } from './settle';
+
+/** Holds that also stop misting, cleaning or a rehouse (a keeper's do-not-feed does not). */
+const CARE_HOLD_CODES: ReadonlySet<string> = new Set([
+  'leave_alone',
+  'premolt',
+  'possible_premolt',
+  'post_molt_hold',
+  'settling',
+]);
 
 /** The first reason the engine withholds food from an animal, if any. */
 export function feedHoldIn(d: AnimalDecision): Reason | null {
@@ -36,7 +46,14 @@ export function reconcileTasks(
     d.tasks.some((t) => t.kind === 'leave_alone') && !d.tasks.some((t) => t.kind === 'water');
   let changed = false;
   const tasks = planned.map((t) => {
-    const heldKind = t.kind === 'feed' || (t.kind === 'water' && leaveAlone);
+    // Enclosure care a hold now forbids is gone from the new decision (§ Enclosure care).
+    const heldKind =
+      t.kind === 'feed' ||
+      (t.kind === 'water' && leaveAlone) ||
+      (CARE_KINDS.has(t.kind) &&
+        !!hold &&
+        CARE_HOLD_CODES.has(hold.code) &&
+        !d.tasks.some((n) => n.kind === t.kind));
     const settled = !!settlingOutcome(t.kind, live);
     const wanted =
       (heldKind && hold && !settled ? hold : null) ??
@@ -62,10 +79,16 @@ export function reconcileTasks(
   return { tasks, changed, urgent };
 }
 
-/** A feed or water task the build would no longer give, with when it is next due. */
+/** A feed, water or enclosure-care task the build would no longer give, with when it is next due. */
 function lapsed(kind: RoundTask['kind'], built: AnimalDecision): Reason | null {
-  if (kind !== 'feed' && kind !== 'water') return null;
+  if (kind !== 'feed' && kind !== 'water' && !CARE_KINDS.has(kind)) return null;
   if (built.tasks.some((t) => t.kind === kind)) return null;
+  if (CARE_KINDS.has(kind))
+    return {
+      code: 'not_due',
+      text: 'Not due any more: records from an earlier day arrived after this round was made.',
+      dates: [],
+    };
   const next = kind === 'feed' ? built.nextFeed : built.nextWater;
   return {
     code: 'not_due',

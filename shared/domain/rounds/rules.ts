@@ -41,6 +41,12 @@ export interface RoundRules {
   tinySlingMm: number;
   /** R19: the feeders the collection keeps, with their typical body lengths. */
   feeders: Feeder[];
+  /** R21: a bolus is picked out this many days after a meal of live prey (0: no bolus task). */
+  bolusAfterDays: number;
+  /** R22: after a molt, rehouse when the floor's shorter side is under this many × its size… */
+  rehouseFloorSpans: number;
+  /** R22: … or, for an arboreal set-up (a height recorded), the height under this many × it. */
+  rehouseHeightSpans: number;
 }
 
 export const DEFAULT_RULES: RoundRules = {
@@ -56,6 +62,9 @@ export const DEFAULT_RULES: RoundRules = {
   spanToBody: 0.33,
   tinySlingMm: 15,
   feeders: DEFAULT_FEEDERS,
+  bolusAfterDays: 1,
+  rehouseFloorSpans: 2,
+  rehouseHeightSpans: 3,
 };
 
 /** The tiniest slings get fruit-fly larvae: prey no larger than the animal's body (R13). */

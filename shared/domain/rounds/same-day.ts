@@ -13,6 +13,8 @@ export interface SameDayHold {
   at: string;
   reason: Reason;
   withdraws: ReadonlySet<TaskKind>;
+  /** The enclosure care it withdraws, with its own words (§ Enclosure care). */
+  careReason: Reason;
 }
 
 interface HoldOutcome {
@@ -21,17 +23,44 @@ interface HoldOutcome {
   at: string;
 }
 
-const FEED: ReadonlySet<TaskKind> = new Set(['feed']);
+// A molt: no food, and no rehouse until the fangs harden (R5, R22).
+const MOLTED: ReadonlySet<TaskKind> = new Set(['feed', 'rehouse']);
 // Molting now: no food, no water, no disturbance (R11); the check is answered by the molt itself.
-const EVERYTHING_BUT_PREY: ReadonlySet<TaskKind> = new Set(['feed', 'water', 'check']);
+const EVERYTHING_BUT_PREY: ReadonlySet<TaskKind> = new Set([
+  'feed',
+  'water',
+  'mist',
+  'moisten',
+  'spot_clean',
+  'rehouse',
+  'check',
+]);
+// Premolt: water and misting go on; its web and burrow are left whole (R4, R21, R22).
+const PREMOLT: ReadonlySet<TaskKind> = new Set(['feed', 'spot_clean', 'rehouse']);
+// A sac laid: disturbed as little as possible — only water and damp substrate, quietly (R11).
+const SAC: ReadonlySet<TaskKind> = new Set(['feed', 'mist', 'spot_clean', 'rehouse']);
 
 /** Outcomes that start a hold, and the tasks each withdraws. */
 export const HOLD_STARTERS: Partial<Record<EventKind, ReadonlySet<TaskKind>>> = {
-  molted: FEED,
+  molted: MOLTED,
   molting_now: EVERYTHING_BUT_PREY,
-  premolt_seen: FEED,
-  sac_laid: FEED,
+  premolt_seen: PREMOLT,
+  sac_laid: SAC,
 };
+
+/** The words in place of a withdrawn misting, cleaning or rehouse (§ Enclosure care). */
+function careHoldReason(outcome: HoldOutcome, zone: string, base: Reason): Reason {
+  const time = clockTime(outcome.at, zone);
+  const text =
+    outcome.kind === 'molted'
+      ? `Molted today (${time}): no rehouse until the post-molt hold is over and the fangs have hardened.`
+      : outcome.kind === 'premolt_seen'
+        ? `Premolt seen today (${time}): no cleaning or rehouse until it molts — leave its web and burrow whole.`
+        : outcome.kind === 'sac_laid'
+          ? `Egg sac laid today (${time}): leave her alone — no misting, cleaning or rehouse.`
+          : base.text;
+  return { ...base, text };
+}
 
 function holdReason(
   outcome: HoldOutcome,
@@ -88,13 +117,16 @@ export function sameDayHold(
   for (let i = outcomes.length - 1; i >= 0; i -= 1) {
     const o = outcomes[i]!;
     const withdraws = HOLD_STARTERS[o.kind];
-    if (withdraws)
+    if (withdraws) {
+      const reason = holdReason(o, zone, postMoltHoldDays);
       return {
         eventId: o.eventId,
         at: o.at,
-        reason: holdReason(o, zone, postMoltHoldDays),
+        reason,
         withdraws,
+        careReason: careHoldReason(o, zone, reason),
       };
+    }
   }
   return null;
 }

@@ -2,6 +2,7 @@ import type { RoundResponse } from '../../schemas/rounds';
 import type { EventKind } from '../event-kinds';
 import { clockTime } from '../local-dates';
 import type { TaskKind } from './build-round';
+import { CARE_KINDS } from './enclosure-care';
 import { sameDayHold } from './same-day';
 
 /** A reason as stored and sent (its code a plain string once it has been through JSON). */
@@ -12,6 +13,11 @@ export const SETTLED_BY: Record<TaskKind, readonly EventKind[]> = {
   remove_prey: ['prey_removed', 'ate'],
   feed: ['ate', 'refused', 'prey_left_in', 'skipped'],
   water: ['watered', 'skipped'],
+  mist: ['misted', 'skipped'],
+  moisten: ['substrate_moistened', 'skipped'],
+  // A rehouse puts it in a clean enclosure: the spot-clean is done with it.
+  spot_clean: ['spot_cleaned', 'rehoused', 'skipped'],
+  rehouse: ['rehoused', 'skipped'],
   check: [
     'note',
     'premolt_seen',
@@ -101,7 +107,11 @@ export function settleItem<T extends { kind: TaskKind; serverWithdrawn?: Reason 
   const settled = tasks.map((t) => {
     const by = settlingOutcome(t.kind, day);
     const startedBefore = hold && hold.withdraws.has(t.kind) && (!by || by.at > hold.at);
-    const withdrawn = startedBefore ? hold.reason : (t.serverWithdrawn ?? null);
+    const withdrawn = startedBefore
+      ? CARE_KINDS.has(t.kind)
+        ? hold.careReason
+        : hold.reason
+      : (t.serverWithdrawn ?? null);
     if (t.kind === 'feed' && withdrawn)
       heldMeal = heldMealWarning(
         day.find((o) => o.kind === 'ate' && (!hold || o.at > hold.at)),

@@ -6,51 +6,24 @@ import { carriedFrom, plural, shortDate } from './reason-words';
 import type { RoundRules } from './rules';
 import type { Situation } from './situation';
 
-// Water (R7 and the care profiles): a dish, moist substrate or misting, when due; a guarding
-// female's dish topped up quietly (R11 amended).
+// Water (R7): a dish topped up when due; a guarding female's dish topped up quietly (R11
+// amended). Misting and moistening the substrate are enclosure care (enclosure-care.ts).
 
-/** R7 and § Care profiles: how the animal gets water — a dish, moist substrate, misting, none. */
+/** R7: the dish, topped up every few days; misting and moistening are enclosure care now. */
 function waterPlan(
   s: Situation,
 ): { every: number; code: ReasonCode; first: string; since: (last: string) => string } | null {
   const { animal, rules } = s;
-  if (animal.hasWaterDish) {
-    const damp = GROUP_CARE[animal.group].dampSubstrate
-      ? ' Keep part of the substrate damp too.'
-      : '';
-    return {
-      every: rules.waterEveryDays,
-      code: 'water_due',
-      first: `No watering recorded yet.${damp}`,
-      since: (last) =>
-        `Water every ${plural(rules.waterEveryDays, 'day')}: last topped up on ${last}.${damp}`,
-    };
-  }
-  const profile = rules.profiles[animal.group];
-  if (profile.hydration === 'none') return null;
-  const below = profile.hydrateBelowMm;
-  if (
-    below !== null &&
-    !(animal.sizeMm !== null ? animal.sizeMm < below : animal.lifeStage === 'sling')
-  )
-    return null;
-  const every = profile.hydrateEveryDays;
-  const noDish = below !== null ? 'No dish at this size' : 'No dish';
-  if (profile.hydration === 'moisten') {
-    return {
-      every,
-      code: 'moisten_substrate',
-      first: `${noDish}: moisten part of the substrate (no watering recorded yet).`,
-      since: (last) =>
-        `${noDish}: moisten part of the substrate every ${plural(every, 'day')} (last on ${last}).`,
-    };
-  }
+  if (!animal.hasWaterDish) return null;
+  const damp = GROUP_CARE[animal.group].dampSubstrate
+    ? ' Keep part of the substrate damp too.'
+    : '';
   return {
-    every,
-    code: 'mist_due',
-    first: `${noDish}: mist lightly — it drinks the droplets (no misting recorded yet).`,
+    every: rules.waterEveryDays,
+    code: 'water_due',
+    first: `No watering recorded yet.${damp}`,
     since: (last) =>
-      `${noDish}: mist lightly every ${plural(every, 'day')} — it drinks the droplets (last on ${last}).`,
+      `Water every ${plural(rules.waterEveryDays, 'day')}: last topped up on ${last}.${damp}`,
   };
 }
 

@@ -4,7 +4,8 @@ import { Link, useParams } from 'react-router-dom';
 import { STATUS_LABEL } from '#shared/domain/animal-facts';
 import { formatLocalDate } from '#shared/domain/date-words';
 import { localDateOf } from '#shared/domain/local-dates';
-import { formatSize } from '#shared/domain/units';
+import { formatSize, type SizeUnit } from '#shared/domain/units';
+import type { AnimalSummary } from '#shared/schemas/animals';
 import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { AnimalMolts } from '@/app/panels/animal-molts';
@@ -72,6 +73,7 @@ export function AnimalRoute() {
         {animal.source && ` from ${animal.source}`}
         {animal.clutch && ` · clutch ${animal.clutch}`}
       </p>
+      {enclosureCare(animal, unit) && <p className="text-muted">{enclosureCare(animal, unit)}</p>}
       {animal.photoVersion && <PhotoPanel collectionId={collectionId} animal={animal} canChange />}
       {animal.cautionNote && <Notice tone="warning" title={animal.cautionNote} />}
       {!kept && (
@@ -173,4 +175,27 @@ export function AnimalRoute() {
       />
     </div>
   );
+}
+
+/**
+ * The enclosure and the animal's own care intervals in one line (docs/care-rules.md § Enclosure
+ * care): "Enclosure 200 × 150 mm, 300 mm high · mist every 3 days · spot-clean never".
+ */
+function enclosureCare(animal: AnimalSummary, unit: SizeUnit): string | null {
+  const parts: string[] = [];
+  const { enclosureLengthMm: l, enclosureWidthMm: w, enclosureHeightMm: h } = animal;
+  if (l !== null && w !== null) {
+    const side = (mm: number) => formatSize(mm, unit).replace(/ (mm|in)$/, '');
+    parts.push(
+      `Enclosure ${side(l)} × ${formatSize(w, unit)}${h !== null ? `, ${formatSize(h, unit)} high` : ''}`,
+    );
+  }
+  const own = (what: string, days: number | null) => {
+    if (days === null) return;
+    parts.push(days === 0 ? `${what} never` : `${what} every ${days} day${days === 1 ? '' : 's'}`);
+  };
+  own('mist', animal.mistEveryDays);
+  own('moisten substrate', animal.moistenEveryDays);
+  own('spot-clean', animal.spotCleanEveryDays);
+  return parts.length ? parts.join(' · ') : null;
 }

@@ -67,6 +67,7 @@ export function TodayRoute() {
         openRecord
         buildsOffline
         photos
+        keeper
       />
     </div>
   );

@@ -109,6 +109,48 @@ export function WaterIcon(props: SVGProps<SVGSVGElement>) {
   );
 }
 
+/** Mist: a spray nozzle and three droplets. */
+export function MistIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <path d="M3 10h6v6H3zM9 12h3" />
+      <path d="M15 8v.01M18 12v.01M15 16v.01M21 8v.01M21 16v.01" strokeWidth={3} />
+    </Svg>
+  );
+}
+
+/** Moisten substrate: a drop over a layered ground line. */
+export function MoistenIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <path d="M12 3c2 2.8 3.5 4.8 3.5 6.7a3.5 3.5 0 0 1-7 0C8.5 7.8 10 5.8 12 3z" />
+      <path d="M3 16h18M5 20h14" />
+    </Svg>
+  );
+}
+
+/** Spot-clean: tongs lifting a small ball. */
+export function SpotCleanIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <path d="M4 3l8 13M10 3l3 13" />
+      <circle cx="13.5" cy="18.5" r="2.5" />
+      <path d="M3 21h18" />
+    </Svg>
+  );
+}
+
+/** Rehouse: a small box with an arrow into a bigger one. */
+export function RehouseIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <rect x="2" y="11" width="7" height="7" rx="1" />
+      <rect x="12" y="5" width="10" height="15" rx="1" />
+      <path d="M7 8h8M12.5 5.5L15 8l-2.5 2.5" />
+    </Svg>
+  );
+}
+
 /** Check: an eye. */
 export function CheckIcon(props: SVGProps<SVGSVGElement>) {
   return (

@@ -28,7 +28,10 @@ export type SingleKey =
   | 'preyStayCheckDays'
   | 'substrateCheckDays'
   | 'spanToBody'
-  | 'tinySlingMm';
+  | 'tinySlingMm'
+  | 'bolusAfterDays'
+  | 'rehouseFloorSpans'
+  | 'rehouseHeightSpans';
 export const SINGLE_KEYS: readonly SingleKey[] = [
   'settlingDays',
   'preyStayCheckDays',
@@ -39,6 +42,9 @@ export const SINGLE_KEYS: readonly SingleKey[] = [
   'substrateCheckDays',
   'spanToBody',
   'tinySlingMm',
+  'bolusAfterDays',
+  'rehouseFloorSpans',
+  'rehouseHeightSpans',
 ];
 export const DIET_KEYS = ['fruit_jelly', 'plant', 'detritus'] as const;
 
@@ -52,7 +58,7 @@ export const offerPath = (group: AnimalGroup, stage: LifeStage, key: keyof Offer
   `profiles.${group}.stages.${stage}.offer.${key}`;
 export const profilePath = (
   group: AnimalGroup,
-  key: 'hydration' | 'hydrateEveryDays' | 'hydrateBelowMm',
+  key: 'hydration' | 'hydrateEveryDays' | 'hydrateBelowMm' | 'spotCleanEveryDays',
 ) => `profiles.${group}.${key}`;
 
 export function toDraft(r: RoundRules): Draft {
@@ -68,6 +74,8 @@ export function toDraft(r: RoundRules): Draft {
     d[profilePath(g, 'hydrateEveryDays')] = String(profile.hydrateEveryDays);
     d[profilePath(g, 'hydrateBelowMm')] =
       profile.hydrateBelowMm === null ? '' : String(profile.hydrateBelowMm);
+    d[profilePath(g, 'spotCleanEveryDays')] =
+      profile.spotCleanEveryDays === null ? '' : String(profile.spotCleanEveryDays);
   }
   for (const k of SINGLE_KEYS) d[k] = String(r[k]);
   for (const k of DIET_KEYS) d[`dietEveryDays.${k}`] = String(r.dietEveryDays[k]);
@@ -155,6 +163,11 @@ export function toOverrides(d: Draft, defaults: RoundRules): RulesOverride {
         ? null
         : num(d[profilePath(g, 'hydrateBelowMm')]);
     if (below !== base.hydrateBelowMm) profile.hydrateBelowMm = below;
+    const clean =
+      (d[profilePath(g, 'spotCleanEveryDays')] ?? '').trim() === ''
+        ? null
+        : num(d[profilePath(g, 'spotCleanEveryDays')]);
+    if (clean !== base.spotCleanEveryDays) profile.spotCleanEveryDays = clean;
     if (Object.keys(profile).length) profiles[g] = profile;
   }
   if (Object.keys(profiles).length) out.profiles = profiles;

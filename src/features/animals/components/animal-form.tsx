@@ -29,6 +29,7 @@ import {
   type AnimalValues,
 } from '#shared/schemas/animals';
 import type { LocationWithCount } from '#shared/schemas/locations';
+import { enclosureCareSettings } from '#shared/schemas/rules';
 import {
   choiceOf,
   choiceProblems,
@@ -80,6 +81,18 @@ function animalForm(unit: SizeUnit, original: AnimalSummary | null, shownSize: s
         .pipe(care.diet),
       hasWaterDish: care.hasWaterDish,
       doNotFeedUntil: z.string().transform(orNull).pipe(care.doNotFeedUntil),
+      mistEveryDays: z.string().transform(numberOrNull).pipe(enclosureCareSettings.mistEveryDays),
+      moistenEveryDays: z
+        .string()
+        .transform(numberOrNull)
+        .pipe(enclosureCareSettings.moistenEveryDays),
+      spotCleanEveryDays: z
+        .string()
+        .transform(numberOrNull)
+        .pipe(enclosureCareSettings.spotCleanEveryDays),
+      enclosureLengthMm: enclosureSide(unit).pipe(enclosureCareSettings.enclosureLengthMm),
+      enclosureWidthMm: enclosureSide(unit).pipe(enclosureCareSettings.enclosureWidthMm),
+      enclosureHeightMm: enclosureSide(unit).pipe(enclosureCareSettings.enclosureHeightMm),
     })
     .superRefine(checkStageFitsGroup)
     .transform(
@@ -92,14 +105,43 @@ function animalForm(unit: SizeUnit, original: AnimalSummary | null, shownSize: s
         diet,
         hasWaterDish,
         doNotFeedUntil,
+        mistEveryDays,
+        moistenEveryDays,
+        spotCleanEveryDays,
+        enclosureLengthMm,
+        enclosureWidthMm,
+        enclosureHeightMm,
         ...rest
       }): AnimalValues => ({
         ...rest,
         sizeMm: size,
-        care: { intervalDays, preyType, preySize, preyCount, diet, hasWaterDish, doNotFeedUntil },
+        care: {
+          intervalDays,
+          preyType,
+          preySize,
+          preyCount,
+          diet,
+          hasWaterDish,
+          doNotFeedUntil,
+          mistEveryDays,
+          moistenEveryDays,
+          spotCleanEveryDays,
+          enclosureLengthMm,
+          enclosureWidthMm,
+          enclosureHeightMm,
+        },
       }),
     );
 }
+
+/** An enclosure side typed in the keeper's unit, stored in whole mm (R22). */
+const enclosureSide = (unit: SizeUnit) =>
+  z.string().transform((v) => {
+    const n = numberOrNull(v);
+    return n === null || Number.isNaN(n) ? n : Math.round(sizeToMm(n, unit));
+  });
+const sideShown = (mm: number | null | undefined, unit: SizeUnit) =>
+  mm == null ? '' : String(sizeInUnit(mm, unit));
 type FormValues = z.input<ReturnType<typeof animalForm>>;
 
 function fromAnimal(a: AnimalSummary | null, unit: SizeUnit): FormValues {
@@ -126,6 +168,12 @@ function fromAnimal(a: AnimalSummary | null, unit: SizeUnit): FormValues {
     diet: a?.diet ?? '',
     hasWaterDish: a?.hasWaterDish ?? false,
     doNotFeedUntil: a?.doNotFeedUntil ?? '',
+    mistEveryDays: a?.mistEveryDays?.toString() ?? '',
+    moistenEveryDays: a?.moistenEveryDays?.toString() ?? '',
+    spotCleanEveryDays: a?.spotCleanEveryDays?.toString() ?? '',
+    enclosureLengthMm: sideShown(a?.enclosureLengthMm, unit),
+    enclosureWidthMm: sideShown(a?.enclosureWidthMm, unit),
+    enclosureHeightMm: sideShown(a?.enclosureHeightMm, unit),
   };
 }
 
@@ -439,6 +487,58 @@ export function AnimalForm({
           error={e.doNotFeedUntil?.message}
           {...register('doNotFeedUntil')}
         />
+      </fieldset>
+
+      <fieldset className="flex flex-col gap-3">
+        <legend className="mb-1 text-xl font-extrabold">Enclosure</legend>
+        <p className="text-sm">
+          Inside size, so the round can ask for a bigger one after a molt. Height only for a
+          climber’s tall enclosure.
+        </p>
+        <div className="grid grid-cols-2 gap-2">
+          <TextField
+            label={`Length (${unit})`}
+            inputMode="decimal"
+            error={e.enclosureLengthMm?.message}
+            {...register('enclosureLengthMm')}
+          />
+          <TextField
+            label={`Width (${unit})`}
+            inputMode="decimal"
+            error={e.enclosureWidthMm?.message}
+            {...register('enclosureWidthMm')}
+          />
+          <TextField
+            label={`Height (${unit})`}
+            inputMode="decimal"
+            hint="Arboreal only."
+            error={e.enclosureHeightMm?.message}
+            {...register('enclosureHeightMm')}
+          />
+        </div>
+        <p className="text-sm">
+          Every how many days? Empty: the care profile decides. 0: never for this animal.
+        </p>
+        <div className="grid grid-cols-2 gap-2">
+          <TextField
+            label="Mist every"
+            inputMode="numeric"
+            error={e.mistEveryDays?.message}
+            {...register('mistEveryDays')}
+          />
+          <TextField
+            label="Moisten substrate every"
+            inputMode="numeric"
+            error={e.moistenEveryDays?.message}
+            {...register('moistenEveryDays')}
+          />
+          <TextField
+            label="Spot-clean every"
+            inputMode="numeric"
+            error={e.spotCleanEveryDays?.message}
+            {...register('spotCleanEveryDays')}
+          />
+        </div>
       </fieldset>
 
       <TextField label="Notes" error={e.notes?.message} {...register('notes')} />

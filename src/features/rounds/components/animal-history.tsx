@@ -46,7 +46,8 @@ const KIND_GROUPS = {
   all: null,
   feeding: ['ate', 'refused', 'prey_left_in', 'prey_removed', 'skipped'],
   molts: ['molted', 'molt_details', 'premolt_seen', 'premolt_cleared', 'molting_now'],
-  water: ['watered'],
+  water: ['watered', 'misted', 'substrate_moistened'],
+  enclosure: ['spot_cleaned', 'rehoused'],
   notes: ['note'],
   moves: ['moved', 'status_changed'],
 } satisfies Record<string, EventKind[] | null>;
@@ -56,6 +57,7 @@ const GROUP_WORDS: Record<KindGroup, string> = {
   feeding: 'Feeding',
   molts: 'Molts',
   water: 'Water',
+  enclosure: 'Enclosure',
   notes: 'Notes',
   moves: 'Moves',
 };

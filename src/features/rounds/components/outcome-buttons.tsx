@@ -1,4 +1,5 @@
 import { useId, useState, type ReactNode } from 'react';
+import { Link } from 'react-router-dom';
 import { EVENT_WORDS, type EventKind } from '#shared/domain/event-kinds';
 import { feedHoldOf } from '#shared/domain/rounds/item-status';
 import type { RoundItemView } from '#shared/schemas/rounds';
@@ -35,7 +36,7 @@ const SUBSTRATE_CHECKED: Outcome = {
 };
 
 /** The one-tap outcomes an item's tasks call for; the rest sit one step away under "More". */
-function mainOutcomes(item: RoundItemView, held: boolean): Outcome[] {
+function mainOutcomes(item: RoundItemView, held: boolean, canRehouse: boolean): Outcome[] {
   if (!item.tasks.length) return (held ? ANY_DAY.filter((k) => k !== 'ate') : ANY_DAY).map(outcome);
   // A task a hold withdrew offers no buttons: there is nothing to do for it today.
   const open = item.tasks.filter((t) => !t.withdrawn);
@@ -49,6 +50,11 @@ function mainOutcomes(item: RoundItemView, held: boolean): Outcome[] {
   else if (codes.has('check_prey')) list.push('ate');
   if (preyInside) list.push('prey_removed');
   if (kinds.has('water')) list.push('watered');
+  if (kinds.has('mist')) list.push('misted');
+  if (kinds.has('moisten')) list.push('substrate_moistened');
+  if (kinds.has('spot_clean')) list.push('spot_cleaned');
+  // Rehousing stays with keepers: a helper's round never offers it (HELPER_EVENT_KINDS).
+  if (kinds.has('rehouse') && canRehouse) list.push('rehoused');
   return [...list.map(outcome), ...(codes.has('check_substrate') ? [SUBSTRATE_CHECKED] : [])];
 }
 
@@ -126,9 +132,11 @@ interface Props {
   moltDetails?: (moltEventId: string) => ReactNode;
   /** Sends a photo with a recorded outcome; absent where photos are not allowed (helpers). */
   onPhoto?: (outcome: { eventId: string; word: string }, file: File) => void;
+  /** Offer "Rehoused" (keepers and owners: a helper may not record it, HELPER_EVENT_KINDS). */
+  keeper?: boolean;
 }
 
-export function OutcomeButtons({ item, onRecord, moltDetails, onPhoto }: Props) {
+export function OutcomeButtons({ item, onRecord, moltDetails, onPhoto, keeper = false }: Props) {
   const [open, setOpen] = useState(false);
   const [confirming, setConfirming] = useState(false);
   const [noteOpen, setNoteOpen] = useState(false);
@@ -138,7 +146,7 @@ export function OutcomeButtons({ item, onRecord, moltDetails, onPhoto }: Props) 
   const notePanelId = useId();
   const recorded = new Set<EventKind>(item.outcomes.map((o) => o.kind));
   const hold = feedHoldOf(item);
-  const main = mainOutcomes(item, !!hold);
+  const main = mainOutcomes(item, !!hold, keeper);
   // One molt a day: once it is recorded, its details are completed instead.
   const more = (hold ? (['ate', ...MORE] as EventKind[]) : MORE).filter(
     (k) => k !== 'molted' || !recorded.has('molted'),
@@ -179,6 +187,15 @@ export function OutcomeButtons({ item, onRecord, moltDetails, onPhoto }: Props) 
   return (
     <div className="flex flex-col gap-2">
       {molt && !detailed && moltDetails?.(molt.eventId)}
+      {keeper && recorded.has('rehoused') && (
+        // The tap stays one tap; the new enclosure's size goes on the record (R22) when measured.
+        <Link
+          to={`/animals/${item.animal.id}/edit`}
+          className="inline-flex min-h-target items-center self-start rounded-xl px-2 font-bold underline underline-offset-4"
+        >
+          Enter the new enclosure’s size<span className="sr-only"> for {item.animal.name}</span>
+        </Link>
+      )}
       {confirming && hold && (
         <HeldMealConfirm
           reason={hold.text}

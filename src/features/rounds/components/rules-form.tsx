@@ -97,6 +97,20 @@ const SINGLE_RULES: Record<SingleKey, { title: string; explain: string }> = {
     title: 'Larva substrate check (days)',
     explain: 'Beetle larvae: check and top up their food substrate this often.',
   },
+  bolusAfterDays: {
+    title: 'Bolus pick-out (days after a meal)',
+    explain: 'The spot-clean after a meal of live prey; 0: none.',
+  },
+  rehouseFloorSpans: {
+    title: 'Rehouse: floor (× size)',
+    explain:
+      'After a molt, rehouse when the floor’s shorter side is under this many times its size.',
+  },
+  rehouseHeightSpans: {
+    title: 'Rehouse: height (× size)',
+    explain:
+      'For a tall enclosure (height recorded): rehouse when lower than this many times its size.',
+  },
   spanToBody: {
     title: 'Body share of leg span',
     explain:
@@ -267,6 +281,15 @@ export function RulesForm({ collectionId, data }: { collectionId: string; data: 
             hint: 'Empty: every size.',
           })}
         </div>
+      </Box>
+
+      <Box
+        title="Spot-clean"
+        explain="Waste, remains and old molts picked out on a schedule (and a bolus the day after a meal)."
+      >
+        {field(profilePath(group, 'spotCleanEveryDays'), 'Every (days)', {
+          hint: 'Empty: only after meals.',
+        })}
       </Box>
 
       <h2 className="text-2xl font-extrabold">Every group</h2>

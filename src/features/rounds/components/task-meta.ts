@@ -4,7 +4,11 @@ import {
   CheckIcon,
   FeedIcon,
   LeaveAloneIcon,
+  MistIcon,
+  MoistenIcon,
+  RehouseIcon,
   RemovePreyIcon,
+  SpotCleanIcon,
   WaterIcon,
 } from '@/components/ui/icons';
 
@@ -14,6 +18,10 @@ export const TASK_META: Record<TaskKind, { word: string; Icon: typeof FeedIcon }
   leave_alone: { word: 'Leave alone', Icon: LeaveAloneIcon },
   feed: { word: 'Feed', Icon: FeedIcon },
   water: { word: 'Water', Icon: WaterIcon },
+  mist: { word: 'Mist', Icon: MistIcon },
+  moisten: { word: 'Moisten substrate', Icon: MoistenIcon },
+  spot_clean: { word: 'Spot-clean', Icon: SpotCleanIcon },
+  rehouse: { word: 'Rehouse', Icon: RehouseIcon },
   check: { word: 'Check', Icon: CheckIcon },
 };
 

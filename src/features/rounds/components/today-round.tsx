@@ -63,6 +63,8 @@ export interface TodayRoundProps {
   buildsOffline?: boolean;
   /** Offer a photo with an outcome (keepers and owners: photos are theirs to send and see). */
   photos?: boolean;
+  /** Offer the outcomes only keepers may record (a rehouse). */
+  keeper?: boolean;
 }
 
 /** Today's round at the rack: the phone's copy, one-tap outcomes, filters, trays and undo. */
@@ -75,6 +77,7 @@ export function TodayRound({
   openRecord,
   buildsOffline,
   photos,
+  keeper,
 }: TodayRoundProps) {
   const { local, server } = useRound(userId, collectionId, 'today', { buildsOffline });
   const timeZone = local.data?.round.timeZone ?? 'UTC';
@@ -142,6 +145,7 @@ export function TodayRound({
             })
           }
           onPhoto={photos ? (outcome, file) => onPhoto(item.animal.id, outcome, file) : undefined}
+          keeper={keeper}
           moltDetails={
             moltDetails &&
             ((moltId) =>
@@ -160,7 +164,7 @@ export function TodayRound({
         />
       </>
     ),
-    [record, extras, moltDetails, timeZone, keep, photos, onPhoto],
+    [record, extras, moltDetails, timeZone, keep, photos, onPhoto, keeper],
   );
   const items = local.data?.round.items;
   const counts = useMemo(() => roundCounts(items ?? []), [items]);
