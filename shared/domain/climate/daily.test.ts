@@ -91,7 +91,8 @@ describe('roomAlerts and the daily e-mail', () => {
 
 describe('mergeRoomAlerts', () => {
   // The server's alerts and the phone's unsent readings as one notice: each room once, each
-  // broken bound once at its worst (the rule roomAlerts keeps, docs/decisions/019).
+  // broken bound once at its worst (the rule roomAlerts keeps, decision 019; reporting the
+  // worst value per bound is common practice, no published source).
   it('keeps each room and each bound once, at its worst', () => {
     const targets = { minCelsius: 22, maxCelsius: 27, minHumidity: 60, maxHumidity: 75 };
     const server = roomAlerts([
