@@ -2,7 +2,7 @@ CREATE TABLE "chores" (
 	"id" uuid PRIMARY KEY NOT NULL,
 	"collection_id" uuid NOT NULL,
 	"subject_kind" text NOT NULL,
-	"subject_id" uuid NOT NULL,
+	"subject_id" text NOT NULL,
 	"kind" text NOT NULL,
 	"payload" jsonb DEFAULT '{}'::jsonb NOT NULL,
 	"recorded_by" uuid,

@@ -193,9 +193,13 @@ export function createApp(options: AppOptions) {
     offersOn: rounds.offersOn,
     feedersOf: async (collectionId) => (await rounds.rules(collectionId)).rules.feeders,
   });
+  const climate = createClimateService(database.db, now);
+  // Chores know none of their subjects: colonies and rooms bring their look-ups, and a room's
+  // chore becomes its typed climate reading in the chore's own transaction (decision 020).
   const chores = createChoresService(database.db, {
     now,
-    subjects: { colony: colonies.colonyIdsIn },
+    subjects: { colony: colonies.colonyIdsIn, room: climate.roomsIn },
+    onStored: { room: climate.storeTypedReadings },
   });
   const events = createEventsService(database.db, {
     now,
@@ -253,14 +257,14 @@ export function createApp(options: AppOptions) {
     collection('/animals/:animalId'),
     animalScheduleRoutes(rounds, animals.updateCare, member),
   );
-  const climate = createClimateService(database.db, now);
   const dailyMail = createDailyMail(database.db, {
     mailer: options.mailer,
     now,
     publicUrl,
     logger,
   });
-  // A room renamed with its places keeps its climate targets and readings.
+  // A room renamed with its places keeps its climate targets and readings. Its reading chores
+  // keep the name they were made with: a phone re-sending one stays a duplicate.
   api.use(
     collection('/locations'),
     locationsRoutes(
@@ -268,7 +272,7 @@ export function createApp(options: AppOptions) {
       member,
     ),
   );
-  //   climate: /climate/today, /climate/readings, /climate/rooms, /climate/targets,
+  //   climate: /climate/today, /climate/rooms, /climate/targets,
   //            /climate/history, /climate/import, /climate/animals/:animalId
   api.use(collection('/climate'), climateRoutes(climate, member));
   api.use(collection('/rounds'), roundsRoutes(rounds, member));

@@ -1,8 +1,15 @@
 // A chore batch's verdicts, in the style of the event sync (event-verdicts.ts): one per chore,
 // in the order sent. Pure: the server looks up the subjects and stored chores named by
 // `choresToLoad` and hands them in; storing the accepted chores is its business.
-import { recordedChore, type ChoreResult, type RecordedChore } from '../schemas/chores';
+import {
+  CHORE_SUBJECTS,
+  recordedChore,
+  type ChoreResult,
+  type RecordedChore,
+} from '../schemas/chores';
 import { effectiveTime } from './clock';
+import { helperRefusal, type BatchWriter } from './event-verdicts';
+import { judgeHelperWrite } from './helper-writes';
 
 export interface ChoreCandidate {
   index: number;
@@ -64,23 +71,36 @@ export function choresToLoad(candidates: readonly ChoreCandidate[]) {
 }
 
 /**
- * The verdicts. A chore already stored is a duplicate when it is the same chore (a re-send),
- * and refused when another collection or subject holds that id; a subject not in the
- * collection is refused. The rest are accepted, in the order sent.
+ * The verdicts. A helper's chore of a kind helpers may not record (`CHORE_SUBJECTS[…].helpers`)
+ * is refused before anything else, and a new one made outside their cover as their taps are. A
+ * chore already stored is a duplicate when it is the same chore (a re-send), and refused when another
+ * collection or subject holds that id; a subject not in the collection is refused. The rest
+ * are accepted, in the order sent.
  */
 export function judgeChores(
-  collectionId: string,
+  w: BatchWriter,
   screened: ReturnType<typeof screenChores>,
   facts: {
     /** `${subjectKind}:${subjectId}` of the subjects in the collection. */
     subjects: ReadonlySet<string>;
     stored: ReadonlyMap<string, StoredChore>;
   },
+  received: Date,
 ): { results: ChoreResult[]; accepted: ChoreCandidate[] } {
+  const { collectionId } = w;
   const results = [...screened.results];
   const accepted: ChoreCandidate[] = [];
   for (const c of screened.candidates) {
     const { chore } = c;
+    if (w.role === 'helper' && !CHORE_SUBJECTS[chore.subjectKind].helpers) {
+      results[c.index] = {
+        id: chore.id,
+        status: 'rejected',
+        reason: 'not_for_helpers',
+        message: `Helpers do not record ${chore.subjectKind} care; ask a keeper to record this.`,
+      };
+      continue;
+    }
     const stored = facts.stored.get(chore.id);
     if (stored) {
       const same =
@@ -98,12 +118,24 @@ export function judgeChores(
           };
       continue;
     }
+    // After the look-up of stored chores: a reading saved during the cover stays a duplicate
+    // when its phone re-sends it after the cover ended.
+    const verdict = w.role === 'helper' ? judgeHelperWrite(w, c.effectiveAt, received) : 'ok';
+    if (verdict !== 'ok') {
+      results[c.index] = {
+        id: chore.id,
+        status: 'rejected',
+        reason: 'outside_cover',
+        message: helperRefusal(w, verdict, received),
+      };
+      continue;
+    }
     if (!facts.subjects.has(`${chore.subjectKind}:${chore.subjectId}`)) {
       results[c.index] = {
         id: chore.id,
         status: 'rejected',
         reason: 'unknown_subject',
-        message: `That ${chore.subjectKind} is not in this collection any more.`,
+        message: CHORE_SUBJECTS[chore.subjectKind].unknown(chore.subjectId),
       };
       continue;
     }

@@ -128,8 +128,8 @@ export function factsToLoad({ candidates }: ScreenedBatch, role: Role) {
   };
 }
 
-/** Helpers' writes are judged by the server's clock first (helper-writes.ts). */
-function helperRefusal(
+/** Helpers' writes are judged by the server's clock first (helper-writes.ts); chores too. */
+export function helperRefusal(
   w: BatchWriter,
   verdict: Exclude<HelperWriteVerdict, 'ok'>,
   received: Date,

@@ -1,11 +1,13 @@
 import { z } from 'zod';
 import { COLONY_CARE_KINDS } from '../domain/colonies/care';
+import { roomName, roomReadingPayload } from './climate';
 import { uuid } from './common';
 
 // Chores: care of things that are not animals (decision 020). A chore names its subject by
 // kind and id, says which care it was, when, and carries a payload whose shape belongs to its
-// subject kind. A new subject kind is one entry in CHORE_SUBJECTS (its care kinds and payload
-// schema) and one look-up on the server that says which of its ids are in the collection.
+// subject kind. A new subject kind is one entry in CHORE_SUBJECTS (its id, care kinds, payload
+// schema and whether a covering helper may record it) and one look-up on the server that says
+// which of its ids are in the collection.
 
 const note = z
   .string()
@@ -15,8 +17,20 @@ const note = z
 
 export const CHORE_SUBJECTS = {
   colony: {
+    id: uuid,
     kinds: COLONY_CARE_KINDS,
     payload: z.object({ note }).strict(),
+    helpers: false,
+    unknown: () => 'That colony is not in this collection any more.',
+  },
+  // Rooms have no id of their own: a room is the places' name for it (decision 019). A
+  // covering helper is in the room, so they may record its reading.
+  room: {
+    id: roomName,
+    kinds: ['reading'],
+    payload: roomReadingPayload,
+    helpers: true,
+    unknown: (name: string) => `There is no room called “${name}” among your places.`,
   },
 } as const;
 export type ChoreSubjectKind = keyof typeof CHORE_SUBJECTS;
@@ -29,7 +43,8 @@ export const recordedChore = z
     subjectKind: z.enum(CHORE_SUBJECT_KINDS as [ChoreSubjectKind, ...ChoreSubjectKind[]], {
       message: `A chore is for one of: ${CHORE_SUBJECT_KINDS.join(', ')}.`,
     }),
-    subjectId: uuid,
+    // Checked against the subject kind's own id schema below.
+    subjectId: z.string({ message: 'Say which thing this chore is for (subjectId).' }).max(100),
     kind: z.string().min(1).max(40),
     clientRecordedAt: z.iso.datetime({
       offset: true,
@@ -39,6 +54,9 @@ export const recordedChore = z
   })
   .superRefine((chore, ctx) => {
     const subject = CHORE_SUBJECTS[chore.subjectKind];
+    const id = subject.id.safeParse(chore.subjectId);
+    if (!id.success)
+      ctx.addIssue({ code: 'custom', path: ['subjectId'], message: id.error.issues[0]!.message });
     if (!(subject.kinds as readonly string[]).includes(chore.kind)) {
       ctx.addIssue({
         code: 'custom',
@@ -55,7 +73,16 @@ export const recordedChore = z
           path: ['payload', ...issue.path.map(String)],
           message: issue.message,
         });
-  });
+  })
+  // What is stored is what the subject kind's schemas made of it (a room's name trimmed).
+  .transform((chore) => ({
+    ...chore,
+    subjectId: CHORE_SUBJECTS[chore.subjectKind].id.parse(chore.subjectId),
+    payload: CHORE_SUBJECTS[chore.subjectKind].payload.parse(chore.payload) as Record<
+      string,
+      unknown
+    >,
+  }));
 export type RecordedChore = z.infer<typeof recordedChore>;
 
 /** A batch from a phone: each chore is parsed on its own, so one bad chore holds none back. */
@@ -69,7 +96,13 @@ export const choreBatchBody = z.object({
 });
 export type ChoreBatchBody = z.infer<typeof choreBatchBody>;
 
-export const CHORE_REJECT_REASONS = ['invalid', 'unknown_subject', 'id_conflict'] as const;
+export const CHORE_REJECT_REASONS = [
+  'invalid',
+  'unknown_subject',
+  'id_conflict',
+  'not_for_helpers',
+  'outside_cover',
+] as const;
 export const choreResult = z.object({
   id: z.string(),
   status: z.enum(['accepted', 'duplicate', 'rejected']),

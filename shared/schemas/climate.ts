@@ -1,7 +1,6 @@
 import { z } from 'zod';
 import { targetsProblem } from '../domain/climate/ranges';
 import { TEMPERATURE_UNITS } from '../domain/temperature';
-import { uuid } from './common';
 import { celsius, relativeHumidity } from './measures';
 
 /**
@@ -9,7 +8,7 @@ import { celsius, relativeHumidity } from './measures';
  * person's unit), humidity in % RH, any bound or value may be null.
  */
 
-const roomName = z
+export const roomName = z
   .string({ message: 'Say which room.' })
   .trim()
   .min(1, { message: 'Say which room.' })
@@ -33,16 +32,18 @@ export const roomTargetsBody = roomTargets.extend({ room: roomName }).superRefin
 });
 export type RoomTargetsInput = z.infer<typeof roomTargetsBody>;
 
-/** The typed daily reading: min and max since the last reading, the humidity now. */
-export const typedReadingBody = z
+/**
+ * The typed daily reading: min and max since the last reading, the humidity now. It travels as
+ * a room chore's payload (`CHORE_SUBJECTS.room` in chores.ts), so it is recorded offline and
+ * stored once by the chore's phone-made id (decision 020).
+ */
+export const roomReadingPayload = z
   .object({
-    /** Made by the phone: sending it again stores it once. */
-    id: uuid,
-    room: roomName,
     minCelsius: celsius.nullable(),
     maxCelsius: celsius.nullable(),
     humidity: relativeHumidity.nullable(),
   })
+  .strict()
   .superRefine((r, ctx) => {
     if (r.minCelsius === null && r.maxCelsius === null && r.humidity === null)
       ctx.addIssue({ code: 'custom', message: 'Give a temperature or the humidity.' });
@@ -53,7 +54,7 @@ export const typedReadingBody = z
         path: ['minCelsius'],
       });
   });
-export type TypedReadingBody = z.infer<typeof typedReadingBody>;
+export type RoomReadingPayload = z.infer<typeof roomReadingPayload>;
 
 export const MAX_LOGGER_ROWS = 10_000;
 
@@ -130,11 +131,6 @@ export const climateTodayResponse = z.object({
   alerts: z.array(roomAlert),
 });
 export type ClimateToday = z.infer<typeof climateTodayResponse>;
-
-export const typedReadingResponse = z.object({
-  reading,
-  breaches: z.array(breach),
-});
 
 export const roomTargetsResponse = roomTargets.extend({ room: z.string() });
 

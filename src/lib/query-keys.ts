@@ -43,9 +43,12 @@ export const queryKeys = {
     list: (collectionId: string) => ['colonies', collectionId, 'list'] as const,
     history: (collectionId: string, colonyId: string) =>
       ['colonies', collectionId, 'history', colonyId] as const,
-    /** This phone's chores of a day (IndexedDB). */
-    choresOn: (collectionId: string, localDate: string) =>
-      ['colonies', collectionId, 'chores', localDate] as const,
+  },
+  chores: {
+    /** Every collection's chores on this phone: a sync settles them anywhere. */
+    everywhere: () => ['chores'] as const,
+    /** This phone's chores of a day (IndexedDB), colonies' and rooms' alike. */
+    on: (collectionId: string, localDate: string) => ['chores', collectionId, localDate] as const,
   },
   breeding: {
     sacs: (collectionId: string) => ['breeding', collectionId, 'sacs'] as const,
@@ -60,6 +63,8 @@ export const queryKeys = {
     invite: (token: string) => ['cover-invite', token] as const,
   },
   climate: {
+    /** Every collection's climate: synced room readings change what is due and out of range. */
+    everywhere: () => ['climate'] as const,
     all: (collectionId: string) => ['climate', collectionId] as const,
     today: (collectionId: string) => ['climate', collectionId, 'today'] as const,
     rooms: (collectionId: string) => ['climate', collectionId, 'rooms'] as const,

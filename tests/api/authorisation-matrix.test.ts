@@ -249,7 +249,7 @@ const TABLE: Record<string, Row> = {
     }),
   },
 
-  // Feeder colonies and their chores: keepers and owners; helpers see none of it. An id that
+  // Feeder colonies: keepers and owners; helpers see none of it. An id that
   // is not one of the collection's colonies is not found; bodies the route refuses are 422.
   'GET /api/collections/:collectionId/colonies': {
     access: 'keeper',
@@ -281,8 +281,10 @@ const TABLE: Record<string, Row> = {
     allowed: 404,
     call: (f) => ({ path: `${f.c}/colonies/${randomUUID()}/history` }),
   },
+  // Chores: a helper may sync theirs after the cover too (each judged on its own: a room's
+  // reading taken during the cover is kept, colony care never; room-readings-exactly-once).
   'POST /api/collections/:collectionId/chores': {
-    access: 'keeper',
+    access: 'helper-any-time',
     allowed: 422,
     call: (f) => ({ path: `${f.c}/chores`, body: {} }),
   },
@@ -495,16 +497,12 @@ const TABLE: Record<string, Row> = {
     allowed: 422,
     call: (f) => ({ path: `${f.c}/helper-reports`, body: {} }),
   },
-  // Room climate: a covering helper types the daily reading in the room; the rest is the keepers'.
+  // Room climate: a covering helper sees today's rooms (their reading is a chore: POST /chores);
+  // the rest is the keepers'.
   'GET /api/collections/:collectionId/climate/today': {
     access: 'helper',
     allowed: 200,
     call: (f) => ({ path: `${f.c}/climate/today` }),
-  },
-  'POST /api/collections/:collectionId/climate/readings': {
-    access: 'helper',
-    allowed: 422,
-    call: (f) => ({ path: `${f.c}/climate/readings`, body: {} }),
   },
   'GET /api/collections/:collectionId/climate/rooms': {
     access: 'keeper',

@@ -17,17 +17,9 @@ import { openRacksideDb, type RacksideDb } from '../../src/lib/db';
 import { createSyncEngine, type ChoreTransport, type SyncTransport } from '../../src/lib/sync';
 import { PASSWORD, signUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
+import { CHORE_FAULTS, faultyChores } from '../support/faulty-chores';
 
 const RUNS = 60;
-const FAULTS = [
-  'none',
-  'drop_request',
-  'drop_response',
-  'server_error',
-  'duplicate',
-  'proxy_404_after_commit',
-] as const;
-type Fault = (typeof FAULTS)[number];
 
 let ctx: TestContext;
 let server: ReturnType<TestContext['app']['listen']>;
@@ -60,33 +52,6 @@ afterAll(async () => {
   await ctx.close();
 });
 
-function faultyChores(faults: Fault[]): ChoreTransport {
-  let n = 0;
-  const deliver = async (collection: string, body: unknown) => {
-    const res = await post(`/api/collections/${collection}/chores`, body);
-    return { status: res.status, body: await res.json().catch(() => null) };
-  };
-  return async (collection, body) => {
-    const fault = faults[n++ % faults.length]!;
-    switch (fault) {
-      case 'drop_request':
-        throw new TypeError('Failed to fetch');
-      case 'drop_response':
-        await deliver(collection, body);
-        throw new TypeError('Failed to fetch');
-      case 'server_error':
-        return { status: 500, body: { error: { code: 'internal', message: 'Oops.' } } };
-      case 'duplicate':
-        await deliver(collection, body);
-        return deliver(collection, body);
-      case 'proxy_404_after_commit':
-        await deliver(collection, body);
-        return { status: 404, body: null };
-      default:
-        return deliver(collection, body);
-    }
-  };
-}
 /** No round taps in these runs: the event transport is never called. */
 const noTaps: SyncTransport = () => Promise.reject(new Error('no taps were made'));
 
@@ -113,7 +78,7 @@ it(`colony chores are stored exactly once under dropped, failed, doubled request
   await fc.assert(
     fc.asyncProperty(
       fc.array(step, { minLength: 1, maxLength: 10 }),
-      fc.array(fc.constantFrom(...FAULTS), { minLength: 1, maxLength: 6 }),
+      fc.array(fc.constantFrom(...CHORE_FAULTS), { minLength: 1, maxLength: 6 }),
       fc.integer({ min: 1, max: 3 }),
       async (steps, faults, batchSize) => {
         run += 1;
@@ -128,7 +93,7 @@ it(`colony chores are stored exactly once under dropped, failed, doubled request
             sendChores: send,
             batchSize,
           });
-        const transport = faultyChores(faults);
+        const transport = faultyChores(post, faults);
         let engine = engineOn(transport);
         const done: string[] = [];
         const today = localDateOf(new Date(), 'UTC');
@@ -162,7 +127,7 @@ it(`colony chores are stored exactly once under dropped, failed, doubled request
         expect((await choresOn(db, collectionId, today)).map((e) => e.id).sort()).toEqual(
           [...done].sort(),
         );
-        await engineOn(faultyChores(['none'])).flush();
+        await engineOn(faultyChores(post, ['none'])).flush();
 
         const stored = await ctx.database.db
           .select({ id: chores.id })

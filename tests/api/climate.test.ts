@@ -1,5 +1,5 @@
 // Room climate end to end on the real database: targets per room, the typed daily reading
-// (stored once per client id, a covering helper may send it), a logger file's rows across the
+// (a room chore, stored once per client id, a covering helper may send it), a logger file's rows across the
 // autumn change, what is out of range on Today, the owners' morning e-mail in each owner's
 // unit (once per owner and day), a renamed room keeping its climate, and an animal's days.
 import { randomUUID } from 'node:crypto';
@@ -23,6 +23,34 @@ const ZONE = 'Europe/Amsterdam';
 const DAY = 86_400_000;
 const base = () => `/api/collections/${owner.collectionId}/climate`;
 const targets = { minCelsius: 24, maxCelsius: 28, minHumidity: 60, maxHumidity: 80 };
+
+/** The typed reading as the phone sends it: a room chore (decision 020), made now. */
+async function sendReading(
+  who: SignedUp,
+  id: string,
+  room: string,
+  values: { minCelsius: number | null; maxCelsius: number | null; humidity: number | null },
+) {
+  // Sent as made: the server files it at its own time (effectiveTime in shared/domain/clock.ts).
+  const at = new Date().toISOString();
+  const res = await who.agent
+    .post(`/api/collections/${owner.collectionId}/chores`)
+    .send({
+      clientSentAt: at,
+      chores: [
+        {
+          id,
+          subjectKind: 'room',
+          subjectId: room,
+          kind: 'reading',
+          clientRecordedAt: at,
+          payload: values,
+        },
+      ],
+    })
+    .expect(200);
+  return res.body.results[0] as { status: string; reason?: string; message?: string };
+}
 
 beforeAll(async () => {
   ctx = await createTestContext();
@@ -97,19 +125,20 @@ describe('the typed daily reading', () => {
   it('is due on Today, stored once per id, and shows what is out of range', async () => {
     const before = (await helper.agent.get(`${base()}/today`).expect(200)).body;
     expect(before.rooms).toEqual([{ room: 'Spare room', targets, due: true }]);
-    const body = { id, room: 'Spare room', minCelsius: 22.5, maxCelsius: 27, humidity: 70 };
-    const first = await helper.agent.post(`${base()}/readings`).send(body).expect(201);
-    expect(first.body.breaches).toEqual([
-      { measure: 'temperature', side: 'low', value: 22.5, limit: 24 },
-    ]);
-    // Sent again (a phone that lost the answer): the same reading, stored once.
-    const again = await helper.agent.post(`${base()}/readings`).send(body).expect(201);
-    expect(again.body.reading).toEqual(first.body.reading);
+    const values = { minCelsius: 22.5, maxCelsius: 27, humidity: 70 };
+    expect(await sendReading(helper, id, 'Spare room', values)).toEqual({ id, status: 'accepted' });
+    // Sent again (a phone that lost the answer): a duplicate, the reading stored once.
+    expect(await sendReading(helper, id, 'Spare room', values)).toEqual({
+      id,
+      status: 'duplicate',
+    });
     const rows = await ctx.database.db
       .select()
       .from(climateReadings)
       .where(eq(climateReadings.id, id));
-    expect(rows).toHaveLength(1);
+    expect(rows).toEqual([
+      expect.objectContaining({ room: 'Spare room', source: 'typed', ...values }),
+    ]);
     const after = (await owner.agent.get(`${base()}/today`).expect(200)).body;
     expect(after.rooms[0].due).toBe(false);
     expect(after.alerts).toEqual([
@@ -130,17 +159,13 @@ describe('the typed daily reading', () => {
   });
 
   it('refuses bad values with a sentence, and a helper sees no history', async () => {
-    const bad = await helper.agent
-      .post(`${base()}/readings`)
-      .send({
-        id: randomUUID(),
-        room: 'Spare room',
-        minCelsius: null,
-        maxCelsius: null,
-        humidity: 120,
-      })
-      .expect(422);
-    expect(JSON.stringify(bad.body)).toMatch(/0 to 100/);
+    const bad = await sendReading(helper, randomUUID(), 'Spare room', {
+      minCelsius: null,
+      maxCelsius: null,
+      humidity: 120,
+    });
+    expect(bad).toMatchObject({ status: 'rejected', reason: 'invalid' });
+    expect(bad.message).toMatch(/0 to 100/);
     await helper.agent.get(`${base()}/history?room=Spare%20room`).expect(403);
     await helper.agent.post(`${base()}/import`).send({ room: 'Spare room', rows: [] }).expect(403);
   });
@@ -214,10 +239,13 @@ describe('the owners’ morning e-mail', () => {
     const room = 'Spare room';
     // A reading of 31 °C at 15:00 on 3 June; the e-mail goes out from 07:00 on 4 June.
     ctx.setNow(new Date('2026-06-03T13:00:00Z'));
-    await owner.agent
-      .post(`${base()}/readings`)
-      .send({ id: randomUUID(), room, minCelsius: 25, maxCelsius: 31, humidity: 65 })
-      .expect(201);
+    expect(
+      await sendReading(owner, randomUUID(), room, {
+        minCelsius: 25,
+        maxCelsius: 31,
+        humidity: 65,
+      }),
+    ).toMatchObject({ status: 'accepted' });
     try {
       ctx.setNow(new Date('2026-06-04T04:50:00Z')); // 06:50 in Amsterdam: not yet morning
       expect(await ctx.services.dailyMail.runDue()).toBe(0);

@@ -98,7 +98,8 @@ export const chores = pgTable(
       .notNull()
       .references(() => collections.id, { onDelete: 'cascade' }),
     subjectKind: text('subject_kind').notNull(),
-    subjectId: uuid('subject_id').notNull(),
+    /** A colony's uuid, or a room's name (rooms are the places' names: decision 019). */
+    subjectId: text('subject_id').notNull(),
     kind: text('kind').notNull(),
     payload: jsonb('payload').notNull().default({}),
     recordedBy: uuid('recorded_by').references(() => users.id, { onDelete: 'set null' }),

@@ -7,18 +7,28 @@ import { input, validate } from '../../middleware/validate';
 import type { ChoresService } from './chores.service';
 
 /** Mounted on /collections/:collectionId/chores: a phone's batch of chores. */
-export function choresRoutes(service: ChoresService, member: (min: Role) => RequestHandler) {
+export function choresRoutes(
+  service: ChoresService,
+  member: (min: Role, options?: { anyTime?: boolean }) => RequestHandler,
+) {
   const router = Router({ mergeParams: true });
-  // Colony care is for keepers; helpers see none of it (a subject kind a helper may tend
-  // would open this to them per kind: decision 020).
-  router.post('/', member('keeper'), validate({ body: choreBatchBody }), async (req, res) => {
-    res.json(
-      await service.recordBatch(
-        membershipOf(res),
-        currentUserId(req),
-        input<ChoreBatchBody>(res, 'body'),
-      ),
-    );
-  });
+  // A covering helper records a room's reading (they are in the room) but no colony care: each
+  // chore is judged on its own (`CHORE_SUBJECTS[…].helpers`), refused with words. As with the
+  // round's taps, a helper may sync after the cover ends: a chore made during it is still
+  // stored within the grace, any other is refused (shared/domain/helper-writes.ts).
+  router.post(
+    '/',
+    member('helper', { anyTime: true }),
+    validate({ body: choreBatchBody }),
+    async (req, res) => {
+      res.json(
+        await service.recordBatch(
+          membershipOf(res),
+          currentUserId(req),
+          input<ChoreBatchBody>(res, 'body'),
+        ),
+      );
+    },
+  );
   return router;
 }

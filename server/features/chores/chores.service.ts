@@ -2,13 +2,34 @@ import { choresToLoad, judgeChores, screenChores } from '#shared/domain/chore-ve
 import { localDateOf, type LocalDate } from '#shared/domain/local-dates';
 import { MAX_BATCH_EVENTS } from '#shared/domain/sync-limits';
 import type { ChoreBatchBody, ChoreBatchResponse, ChoreSubjectKind } from '#shared/schemas/chores';
-import type { MemberCollection } from '../../access/memberships';
+import type { Membership } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
 import { deleteChoresOf, insertChores, lastDoneOf, storedChores } from './chores.repository';
 
 /** Which of these ids of one subject kind are in the collection (wired in server/app.ts). */
 export type SubjectLookup = (collectionId: string, ids: string[]) => Promise<ReadonlySet<string>>;
+
+/** A chore this batch stored for the first time, as a subject kind's hook receives it. */
+export interface StoredChoreFact {
+  id: string;
+  subjectId: string;
+  kind: string;
+  payload: Record<string, unknown>;
+  effectiveAt: Date;
+  recordedBy: string;
+}
+
+/**
+ * What must follow a newly stored chore of one subject kind elsewhere (a room's reading into
+ * the climate readings), in the chores' own transaction: the chore and what follows it are
+ * stored together or not at all, so a re-send (a duplicate) never needs to redo it.
+ */
+export type ChoreStoredHook = (
+  tx: Db,
+  collectionId: string,
+  chores: StoredChoreFact[],
+) => Promise<void>;
 
 /**
  * Chores (decision 020): care of things that are not animals, synced like the round's taps —
@@ -17,10 +38,18 @@ export type SubjectLookup = (collectionId: string, ids: string[]) => Promise<Rea
  */
 export function createChoresService(
   db: Db,
-  { now, subjects }: { now: () => Date; subjects: Record<ChoreSubjectKind, SubjectLookup> },
+  {
+    now,
+    subjects,
+    onStored = {},
+  }: {
+    now: () => Date;
+    subjects: Record<ChoreSubjectKind, SubjectLookup>;
+    onStored?: Partial<Record<ChoreSubjectKind, ChoreStoredHook>>;
+  },
 ) {
   async function recordBatch(
-    member: MemberCollection,
+    member: Membership,
     userId: string,
     body: ChoreBatchBody,
   ): Promise<ChoreBatchResponse> {
@@ -39,26 +68,44 @@ export function createChoresService(
       for (const id of found) known.add(`${kind}:${id}`);
     }
     const stored = await storedChores(db, wanted.choreIds);
-    const { results, accepted } = judgeChores(member.collectionId, screened, {
-      subjects: known,
-      stored,
-    });
-    const inserted = await insertChores(
-      db,
-      accepted.map(({ chore, effectiveAt }) => ({
-        id: chore.id,
-        collectionId: member.collectionId,
-        subjectKind: chore.subjectKind,
-        subjectId: chore.subjectId,
-        kind: chore.kind,
-        payload: chore.payload,
-        recordedBy: userId,
-        deviceId: body.deviceId ?? null,
-        clientRecordedAt: new Date(chore.clientRecordedAt),
-        serverReceivedAt: received,
-        effectiveAt,
-      })),
+    const { results, accepted } = judgeChores(
+      { ...member, userId },
+      screened,
+      { subjects: known, stored },
+      received,
     );
+    const inserted = await db.transaction(async (tx) => {
+      const ids = await insertChores(
+        tx,
+        accepted.map(({ chore, effectiveAt }) => ({
+          id: chore.id,
+          collectionId: member.collectionId,
+          subjectKind: chore.subjectKind,
+          subjectId: chore.subjectId,
+          kind: chore.kind,
+          payload: chore.payload,
+          recordedBy: userId,
+          deviceId: body.deviceId ?? null,
+          clientRecordedAt: new Date(chore.clientRecordedAt),
+          serverReceivedAt: received,
+          effectiveAt,
+        })),
+      );
+      for (const [kind, hook] of Object.entries(onStored)) {
+        const facts = accepted
+          .filter((c) => c.chore.subjectKind === kind && ids.has(c.chore.id))
+          .map(({ chore, effectiveAt }) => ({
+            id: chore.id,
+            subjectId: chore.subjectId,
+            kind: chore.kind,
+            payload: chore.payload,
+            effectiveAt,
+            recordedBy: userId,
+          }));
+        if (facts.length) await hook(tx, member.collectionId, facts);
+      }
+      return ids;
+    });
     // Two requests carrying the same new chore at once: the one that lost the insert reports a
     // duplicate, as a re-send would.
     for (const { chore, index } of accepted)

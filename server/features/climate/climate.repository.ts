@@ -56,14 +56,13 @@ export async function renameRoom(db: Db, collectionId: string, from: string, to:
     .where(and(eq(climateReadings.collectionId, collectionId), eq(climateReadings.room, from)));
 }
 
-/** Stores a typed reading once per id; the stored row (this one or the earlier). */
-export async function insertTypedReading(db: Db, values: typeof climateReadings.$inferInsert) {
-  await db
-    .insert(climateReadings)
-    .values(values)
-    .onConflictDoNothing({ target: climateReadings.id });
-  const [row] = await db.select().from(climateReadings).where(eq(climateReadings.id, values.id));
-  return row!;
+/** Typed readings, each stored once by its id (a room chore's). */
+export async function insertTypedReadings(
+  db: Db,
+  rows: (typeof climateReadings.$inferInsert)[],
+): Promise<void> {
+  if (!rows.length) return;
+  await db.insert(climateReadings).values(rows).onConflictDoNothing({ target: climateReadings.id });
 }
 
 /** Logger rows, each instant of a room stored once: how many were new. */

@@ -5,10 +5,8 @@ import {
   loggerImportBody,
   roomQuery,
   roomTargetsBody,
-  typedReadingBody,
   type LoggerImportBody,
   type RoomTargetsInput,
-  type TypedReadingBody,
 } from '#shared/schemas/climate';
 import { uuid } from '#shared/schemas/common';
 import { currentUserId } from '../../middleware/auth';
@@ -19,30 +17,14 @@ import type { ClimateService } from './climate.service';
 const animalParams = z.object({ collectionId: uuid, animalId: uuid });
 
 /**
- * Mounted on /climate. A covering helper reads today's rooms and types the daily reading
- * (they are in the room); targets, history, charts and logger imports are the keepers'.
+ * Mounted on /climate. A covering helper reads today's rooms (they type the daily reading as a
+ * room chore: POST /chores); targets, history, charts and logger imports are the keepers'.
  */
 export function climateRoutes(service: ClimateService, member: (min: Role) => RequestHandler) {
   const router = Router({ mergeParams: true });
   router.get('/today', member('helper'), async (req, res) => {
     res.json(await service.today(membershipOf(res), currentUserId(req)));
   });
-  router.post(
-    '/readings',
-    member('helper'),
-    validate({ body: typedReadingBody }),
-    async (req, res) => {
-      res
-        .status(201)
-        .json(
-          await service.recordTyped(
-            membershipOf(res),
-            currentUserId(req),
-            input<TypedReadingBody>(res, 'body'),
-          ),
-        );
-    },
-  );
   router.get('/rooms', member('keeper'), async (_req, res) => {
     res.json(await service.rooms(membershipOf(res).collectionId));
   });

@@ -1,25 +1,20 @@
 import { randomUUID } from 'node:crypto';
 import { roomAlerts, summariseByDay } from '#shared/domain/climate/daily';
-import {
-  breachesOf,
-  hasTargets,
-  NO_TARGETS,
-  type RoomTargets,
-} from '#shared/domain/climate/ranges';
+import { hasTargets, NO_TARGETS, type RoomTargets } from '#shared/domain/climate/ranges';
 import { addDays, localDateOf, startOfLocalDate } from '#shared/domain/local-dates';
 import type {
   ClimateToday,
   LoggerImportBody,
   Reading,
+  RoomReadingPayload,
   RoomTargetsInput,
-  TypedReadingBody,
 } from '#shared/schemas/climate';
 import type { MemberCollection, Membership } from '../../access/memberships';
 import type { Db } from '../../db/client';
 import { HttpError } from '../../middleware/errors';
 import {
   insertLoggerRows,
-  insertTypedReading,
+  insertTypedReadings,
   latestPerRoom,
   newestOfRoom,
   readingsBetween,
@@ -132,26 +127,47 @@ export function createClimateService(db: Db, now: () => Date) {
       return { rooms, alerts: alertsOf(recent, targets) };
     },
 
-    /** The daily typed reading: stored once per id, with what it breaks. */
-    async recordTyped(m: MemberCollection, userId: string, body: TypedReadingBody) {
-      await requireRoom(m.collectionId, body.room);
-      const stored = await insertTypedReading(db, {
-        id: body.id,
-        collectionId: m.collectionId,
-        room: body.room,
-        takenAt: now(),
-        currentCelsius: null,
-        minCelsius: body.minCelsius,
-        maxCelsius: body.maxCelsius,
-        humidity: body.humidity,
-        source: 'typed',
-        recordedBy: userId,
-      });
-      // The same id in another collection (or a logger row's) is not this reading.
-      if (stored.collectionId !== m.collectionId || stored.source !== 'typed')
-        throw new HttpError(409, 'id_taken', 'This reading’s id is already used. Send it again.');
-      const targets = (await targetMap(db, m.collectionId)).get(stored.room) ?? NO_TARGETS;
-      return { reading: toReading(stored), breaches: breachesOf(stored, targets) };
+    /** Which of these names are rooms of the collection's places (the room chores' look-up). */
+    async roomsIn(collectionId: string, names: string[]): Promise<ReadonlySet<string>> {
+      const rooms = new Set(await roomNames(db, collectionId));
+      return new Set(names.filter((n) => rooms.has(n)));
+    },
+
+    /**
+     * Room chores newly stored (decision 020, wired in server/app.ts): each becomes the room's
+     * typed reading, with the chore's id and taken at its effective time, in the chores'
+     * transaction. The chores feature stores a chore once, and the reading's id is the chore's.
+     */
+    async storeTypedReadings(
+      tx: Db,
+      collectionId: string,
+      chores: readonly {
+        id: string;
+        subjectId: string;
+        payload: Record<string, unknown>;
+        effectiveAt: Date;
+        recordedBy: string;
+      }[],
+    ) {
+      await insertTypedReadings(
+        tx,
+        chores.map((c) => {
+          // Parsed by the chore's payload schema (roomReadingPayload) at the edge.
+          const p = c.payload as RoomReadingPayload;
+          return {
+            id: c.id,
+            collectionId,
+            room: c.subjectId,
+            takenAt: c.effectiveAt,
+            currentCelsius: null,
+            minCelsius: p.minCelsius,
+            maxCelsius: p.maxCelsius,
+            humidity: p.humidity,
+            source: 'typed' as const,
+            recordedBy: c.recordedBy,
+          };
+        }),
+      );
     },
 
     async setTargets(collectionId: string, body: RoomTargetsInput) {

@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { dailyMail, dayOutOfRange, describeDay, roomAlerts, summariseByDay } from './daily';
+import {
+  dailyMail,
+  dayOutOfRange,
+  describeDay,
+  mergeRoomAlerts,
+  roomAlerts,
+  summariseByDay,
+} from './daily';
 
 const targets = { minCelsius: 24, maxCelsius: 28, minHumidity: 60, maxHumidity: 80 };
 const logger = (takenAt: string, c: number, h: number) => ({
@@ -79,5 +86,49 @@ describe('roomAlerts and the daily e-mail', () => {
     expect(
       dailyMail({ collectionName: 'x', date: '2026-07-02', alerts: [], unit: 'C', link: '' }),
     ).toBeNull();
+  });
+});
+
+describe('mergeRoomAlerts', () => {
+  // The server's alerts and the phone's unsent readings as one notice: each room once, each
+  // broken bound once at its worst (the rule roomAlerts keeps, decision 019; reporting the
+  // worst value per bound is common practice, no published source).
+  it('keeps each room and each bound once, at its worst', () => {
+    const targets = { minCelsius: 22, maxCelsius: 27, minHumidity: 60, maxHumidity: 75 };
+    const server = roomAlerts([
+      {
+        room: 'Spare room',
+        targets,
+        readings: [
+          { takenAt: 'a', minCelsius: 23, maxCelsius: 29, currentCelsius: null, humidity: 55 },
+        ],
+      },
+    ]);
+    const phone = roomAlerts([
+      {
+        room: 'Spare room',
+        targets,
+        readings: [
+          { takenAt: 'b', minCelsius: 23, maxCelsius: 30.5, currentCelsius: null, humidity: 58 },
+        ],
+      },
+      {
+        room: 'Attic',
+        targets,
+        readings: [
+          { takenAt: 'c', minCelsius: 21, maxCelsius: 24, currentCelsius: null, humidity: null },
+        ],
+      },
+    ]);
+    expect(
+      mergeRoomAlerts(server, phone).map((a) => [
+        a.room,
+        a.breaches.map((b) => `${b.measure} ${b.side} ${b.value} ${b.takenAt}`),
+      ]),
+    ).toEqual([
+      ['Attic', ['temperature low 21 c']],
+      ['Spare room', ['temperature high 30.5 b', 'humidity low 55 a']],
+    ]);
+    expect(mergeRoomAlerts(server, [])).toEqual(server);
   });
 });

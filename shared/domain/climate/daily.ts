@@ -111,6 +111,36 @@ export function roomAlerts(
   return out.sort((a, b) => a.room.localeCompare(b.room));
 }
 
+/**
+ * Alerts from several sources as one list (the server's, and the phone's readings it has not
+ * seen yet): per room, each measure and side kept once at its worst, with the latest targets
+ * given for the room. Rooms in name order.
+ */
+export function mergeRoomAlerts(...lists: readonly (readonly RoomAlert[])[]): RoomAlert[] {
+  const rooms = new Map<
+    string,
+    { targets: RoomTargets; worst: Map<string, RoomAlert['breaches'][number]> }
+  >();
+  for (const list of lists)
+    for (const a of list) {
+      const room = rooms.get(a.room) ?? { targets: a.targets, worst: new Map() };
+      room.targets = a.targets;
+      for (const b of a.breaches) {
+        const key = `${b.measure}:${b.side}`;
+        const prev = room.worst.get(key);
+        const further =
+          b.side === 'high'
+            ? b.value > (prev?.value ?? -Infinity)
+            : b.value < (prev?.value ?? Infinity);
+        if (!prev || further) room.worst.set(key, b);
+      }
+      rooms.set(a.room, room);
+    }
+  return [...rooms]
+    .map(([room, { targets, worst }]) => ({ room, targets, breaches: [...worst.values()] }))
+    .sort((a, b) => a.room.localeCompare(b.room));
+}
+
 /** "Spare room: up to 31.0 °C, above the range 24.0–28.0 °C." */
 export function describeRoomAlert(a: RoomAlert, unit: TemperatureUnit, locale?: string): string {
   return `${a.room}: ${a.breaches.map((b) => describeBreach(b, a.targets, unit, locale)).join('; ')}.`;

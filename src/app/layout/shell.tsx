@@ -97,8 +97,11 @@ export function Shell() {
             void queryClient.invalidateQueries({ queryKey: queryKeys.rounds.everywhere() });
             // A synced molt can change an animal's size and sex.
             void queryClient.invalidateQueries({ queryKey: queryKeys.animals.everywhere() });
-            // Synced meals take from the feeder colonies; synced chores change what is due.
+            // Synced meals take from the feeder colonies; synced chores change what is due,
+            // settle on this phone, and a room's reading changes its climate.
             void queryClient.invalidateQueries({ queryKey: queryKeys.colonies.everywhere() });
+            void queryClient.invalidateQueries({ queryKey: queryKeys.chores.everywhere() });
+            void queryClient.invalidateQueries({ queryKey: queryKeys.climate.everywhere() });
           })
         : undefined,
     [userId, queryClient],

@@ -75,7 +75,11 @@ export function HelperRound({ me, collection }: { me: MeResponse; collection: Me
           Report a problem or leave a note
         </Button>
       )}
-      <ClimateToday collectionId={collection.collectionId} />
+      <ClimateToday
+        userId={me.user.id}
+        collectionId={collection.collectionId}
+        timeZone={collection.timeZone}
+      />
       <RoundCautions items={local.data?.round.items ?? []} />
       <TodayRoundPanel
         userId={me.user.id}

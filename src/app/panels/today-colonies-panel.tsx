@@ -1,13 +1,10 @@
 import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
 import { localDateOf } from '#shared/domain/local-dates';
-import {
-  useChoresOn,
-  useColonies,
-  useRecordColonyChore,
-} from '@/features/colonies/api/colonies-api';
+import { useColonies, useRecordColonyChore } from '@/features/colonies/api/colonies-api';
 import { ColonyChores } from '@/features/colonies/components/colony-chores';
 import { localRoundQueryOptions } from '@/features/rounds/api/get-round';
+import { useChoresOn } from '@/lib/use-chores';
 import { PrepListPanel } from './prep-list-panel';
 
 /**
@@ -51,7 +48,7 @@ export default function TodayColoniesPanel({
             colonies={list}
             today={today}
             timeZone={timeZone}
-            chores={chores.data ?? []}
+            chores={(chores.data ?? []).filter((c) => c.chore.subjectKind === 'colony')}
             onDo={(id, kind) => void record(id, kind)}
             onDiscard={(id) => void discard(id)}
           />

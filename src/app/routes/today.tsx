@@ -52,7 +52,11 @@ export function TodayRoute() {
         </Suspense>
       )}
       <Suspense fallback={null}>
-        <ClimateToday collectionId={collection.collectionId} />
+        <ClimateToday
+          userId={me.user.id}
+          collectionId={collection.collectionId}
+          timeZone={collection.timeZone}
+        />
         <TodayColoniesPanel
           userId={me.user.id}
           collectionId={collection.collectionId}

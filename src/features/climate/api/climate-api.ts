@@ -1,19 +1,37 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
-import type { LoggerImportBody, RoomTargetsInput } from '#shared/schemas/climate';
-import { apiRequest } from '@/lib/api-client';
+import type { ClimateToday, LoggerImportBody, RoomTargetsInput } from '#shared/schemas/climate';
+import { ApiError, apiRequest } from '@/lib/api-client';
+import { withDb } from '@/lib/db';
 import { queryKeys } from '@/lib/query-keys';
 
 const schemas = () => import('#shared/schemas/climate');
 const base = (collectionId: string) => `/collections/${collectionId}/climate`;
 
-/** Today's rooms (their typed reading due or done) and the rooms out of range in the last day. */
+/**
+ * Today's rooms (their typed reading due or done) and the rooms out of range in the last day,
+ * kept on the phone as last fetched (in `meta`, forgotten at sign-out) so the reading card
+ * opens with no signal.
+ */
 export const useClimateToday = (collectionId: string) =>
   useQuery({
     queryKey: queryKeys.climate.today(collectionId),
-    queryFn: () =>
-      apiRequest(`${base(collectionId)}/today`, {
-        schema: async () => (await schemas()).climateTodayResponse,
-      }),
+    networkMode: 'always',
+    queryFn: async () => {
+      const key = `climate-today:${collectionId}`;
+      try {
+        const answer = await apiRequest(`${base(collectionId)}/today`, {
+          schema: async () => (await schemas()).climateTodayResponse,
+        });
+        await withDb((db) => db.put('meta', answer, key));
+        return answer;
+      } catch (err) {
+        // Only with no answer at all: a refusal (403, 404) must not show a stale copy.
+        if (!(err instanceof ApiError && err.status === 0)) throw err;
+        const held = await withDb((db) => db.get('meta', key));
+        if (held) return held as ClimateToday;
+        throw err;
+      }
+    },
     refetchInterval: 5 * 60_000,
   });
 

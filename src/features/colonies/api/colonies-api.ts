@@ -2,10 +2,9 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ColonyCareKind } from '#shared/domain/colonies/care';
 import type { ColonyInput, CountUpdateBody } from '#shared/schemas/colonies';
 import { ApiError, apiRequest } from '@/lib/api-client';
-import { choresOn, discardChore, recordChore } from '@/lib/chores';
 import { withDb } from '@/lib/db';
 import { queryKeys } from '@/lib/query-keys';
-import { tapRecorded } from '@/lib/sync-driver';
+import { useChoreRecorder } from '@/lib/use-chores';
 
 const schemas = () => import('#shared/schemas/colonies');
 
@@ -77,43 +76,11 @@ export function useColonyChanges(collectionId: string) {
   };
 }
 
-/** This phone's chores of a collection on a local date, waiting, sent or refused. */
-export const useChoresOn = (collectionId: string, localDate: string) =>
-  useQuery({
-    queryKey: queryKeys.colonies.choresOn(collectionId, localDate),
-    networkMode: 'always',
-    queryFn: () => withDb((db) => choresOn(db, collectionId, localDate)),
-  });
-
-/** One tap: the chore is stored on the phone at once and sent by the sync engine. */
+/** One tap of colony care, through the chores outbox. */
 export function useRecordColonyChore(userId: string, collectionId: string, localDate: string) {
-  const queryClient = useQueryClient();
-  const key = queryKeys.colonies.choresOn(collectionId, localDate);
+  const { record, discard } = useChoreRecorder(userId, collectionId, localDate);
   return {
-    record: async (colonyId: string, kind: ColonyCareKind) => {
-      const id = crypto.randomUUID();
-      await withDb((db) =>
-        recordChore(db, {
-          id,
-          userId,
-          collectionId,
-          localDate,
-          chore: {
-            id,
-            subjectKind: 'colony',
-            subjectId: colonyId,
-            kind,
-            clientRecordedAt: new Date().toISOString(),
-            payload: {},
-          },
-        }),
-      );
-      tapRecorded();
-      await queryClient.invalidateQueries({ queryKey: key });
-    },
-    discard: async (id: string) => {
-      await withDb((db) => discardChore(db, id));
-      await queryClient.invalidateQueries({ queryKey: key });
-    },
+    record: (colonyId: string, kind: ColonyCareKind) => record('colony', colonyId, kind),
+    discard,
   };
 }
