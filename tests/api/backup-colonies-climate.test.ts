@@ -12,16 +12,17 @@ import { createTestContext, type TestContext } from '../setup/test-app';
 import { withOriginalIds } from '../support/backup-compare';
 
 type Row = Record<string, unknown>;
+type Item = Row & { id: string };
 interface Backup {
   version: number;
-  locations: Row[];
-  animals: Row[];
-  events: Row[];
-  colonies: Row[];
-  colonyStockChanges: Row[];
-  chores: Row[];
+  locations: Item[];
+  animals: Item[];
+  events: (Item & { animalId: string; effectiveAt: string; kind: string })[];
+  colonies: Item[];
+  colonyStockChanges: Item[];
+  chores: (Item & { subjectKind: string; subjectId: string; kind: string; effectiveAt: string })[];
   roomTargets: Row[];
-  climateReadings: Row[];
+  climateReadings: (Item & { room: string; takenAt: string; source: string })[];
   [key: string]: unknown;
 }
 
@@ -343,6 +344,54 @@ describe('a backup with feeder colonies, chores and room climate', () => {
       'Restore into an empty collection: this one already has feeder colonies or room climate.',
     );
   });
+});
+
+describe('long lists go out a page at a time and none is lost', () => {
+  it('2,100 stock changes, chores and readings sharing one instant (pages of 1,000)', async () => {
+    const many = await signUp(ctx);
+    const b = base(many);
+    const colony = (
+      await many.agent
+        .post(`${b}/colonies`)
+        .send(colonyBody('Busy bin', ['adult']))
+        .expect(201)
+    ).body as { id: string };
+    await many.agent
+      .post(`${b}/locations`)
+      .send({ room: 'Loft', rack: 'A', shelf: '1', position: '1' })
+      .expect(201);
+    // Rows written straight in, all at one instant: only the cursors' tie-breaks (write order,
+    // id) keep the pages apart.
+    const at = '2026-11-30T08:00:00.123456Z';
+    const db = ctx.database.db;
+    await db.execute(sql`insert into colony_stock_changes (colony_id, prey_size, delta, after, reason, at)
+      select ${colony.id}, 'adult', 1, n, 'count', ${at}::timestamptz from generate_series(1, 2100) n`);
+    await db.execute(sql`insert into chores (id, collection_id, subject_kind, subject_id, kind, payload,
+      client_recorded_at, server_received_at, effective_at)
+      select gen_random_uuid(), ${many.collectionId}, 'colony', ${colony.id}, 'feed', '{}'::jsonb,
+        ${at}::timestamptz, ${at}::timestamptz, ${at}::timestamptz from generate_series(1, 2100)`);
+    await db.execute(sql`insert into climate_readings (id, collection_id, room, taken_at, humidity, source)
+      select gen_random_uuid(), ${many.collectionId}, 'Loft', ${at}::timestamptz, 60, 'typed'
+      from generate_series(1, 2100)`);
+    const file = (await many.agent.get(`${b}/backup`).expect(200)).body as Backup;
+    // Every change once, in the order written (its count after it runs 1 … 2,100).
+    expect(file.colonyStockChanges.map((s) => s.after)).toEqual(
+      Array.from({ length: 2100 }, (_, i) => i + 1),
+    );
+    expect(new Set(file.chores.map((c) => c.id)).size).toBe(2100);
+    expect(new Set(file.climateReadings.map((r) => r.id)).size).toBe(2100);
+
+    const to = await signUp(ctx);
+    await to.agent
+      .post(`${base(to)}/restore`)
+      .send(file)
+      .expect(201);
+    const copied = (await to.agent.get(`${base(to)}/backup`).expect(200)).body as Backup;
+    expect(copied.colonyStockChanges.map((s) => [s.after, s.at])).toEqual(
+      file.colonyStockChanges.map((s) => [s.after, s.at]),
+    );
+    expect([copied.chores.length, copied.climateReadings.length]).toEqual([2100, 2100]);
+  }, 60_000);
 });
 
 describe('a poisoned backup’s new lists are refused in words, with nothing half-written', () => {

@@ -2,8 +2,8 @@ import { and, asc, eq, gt, sql } from 'drizzle-orm';
 import type { Database, Db } from '../../db/client';
 import { animals, eggSacs, eventPhotos, events } from '../../db/schema/animals';
 import { climateReadings, roomTargets } from '../../db/schema/climate';
-import { chores, colonies, colonyStock, colonyStockChanges } from '../../db/schema/colonies';
 import { collections, locations } from '../../db/schema/collections';
+import { chores, colonies, colonyStock, colonyStockChanges } from '../../db/schema/colonies';
 import { users } from '../../db/schema/users';
 
 export type NewPlace = typeof locations.$inferInsert;
