@@ -2,17 +2,28 @@ import { z } from 'zod';
 import { ANIMAL_STATUSES } from '../domain/animal-facts';
 import { MAX_BACKUP_PHOTO_CHARS } from '../domain/backup-limits';
 import { BREEDING_RECORDS } from '../domain/breeding';
+import { targetsProblem } from '../domain/climate/ranges';
 import { upgradeOverride, type RulesOverride } from '../domain/rounds/rules';
 import { animalInput } from './animals';
 import { accountDetails } from './auth';
+import { CHORE_SUBJECTS, CHORE_SUBJECT_KINDS, type ChoreSubjectKind } from './chores';
+import { roomTargets, roomTargetsBody } from './climate';
+import { colonyInput, colonyIntervals, STOCK_REASONS } from './colonies';
 import { localDate, timeZone, uuid } from './common';
 import { EVENT_PAYLOADS, eventBatchBody, eventKind } from './events';
 import { locationInput } from './locations';
+import { celsius, relativeHumidity } from './measures';
 import { careSettingsBody, dietSetting, enclosureCareDefaults, rulesOverride } from './rules';
 import './messages';
 
 export const BACKUP_FORMAT = 'rackside-backup';
-export const BACKUP_VERSION = 1;
+/**
+ * Version 2 added feeder colonies, their stock history, chores, room targets and climate
+ * readings. A version-1 file (without them) still restores; the version went up so that a server
+ * that reads only version 1 refuses a newer file rather than silently dropping those lists.
+ */
+export const BACKUP_VERSION = 2;
+export const READABLE_BACKUP_VERSIONS = [1, 2] as const;
 
 const instant = z.iso.datetime({
   offset: true,
@@ -27,16 +38,18 @@ const photo = z
 
 /*
  * A backup is one JSON object whose members come in this order: format, version, exportedAt,
- * collection, locations, animals, eggSacs, events (the order the server writes them; a restore
- * reads places before the animals in them, animals before their sacs and their history). Every record is
+ * collection, locations, animals, eggSacs, events, colonies, colonyStockChanges, chores,
+ * roomTargets, climateReadings (the order the server writes them; a restore reads places before
+ * the animals in them, animals before their sacs and their history, colonies before their stock
+ * history). Every record is
  * checked with the schemas the API uses for the same thing, so a restore can store nothing
  * the app itself would refuse.
  */
 
 export const backupHeader = {
   format: z.literal(BACKUP_FORMAT, { message: 'This is not a Rackside backup file.' }),
-  version: z.literal(BACKUP_VERSION, {
-    message: `This backup was made by another version of Rackside (this one reads version ${BACKUP_VERSION}).`,
+  version: z.literal(READABLE_BACKUP_VERSIONS, {
+    message: `This backup was made by another version of Rackside (this one reads versions ${READABLE_BACKUP_VERSIONS.join(' to ')}).`,
   }),
   exportedAt: instant,
 };
@@ -149,3 +162,132 @@ export const backupEvent = z
       ctx.addIssue({ code: 'custom', path: ['photo'], message: 'Only a molt can have a photo.' });
   });
 export type BackupEvent = z.input<typeof backupEvent>;
+
+// --- Version 2: feeder colonies, their stock history and chores; room targets and readings.
+// Each list may be missing (a version-1 file): a restore then has none of them to add.
+
+/** A count as stored: rounds put prey back on an undo, so it may pass what a count update allows. */
+const storedCount = z
+  .number()
+  .int({ message: 'Give the count as a whole number.' })
+  .min(0, { message: 'A count cannot be below zero.' })
+  .max(10_000_000, { message: 'This count is larger than any colony holds.' });
+const sizeName = colonyInput.shape.sizes.element;
+
+/** A feeder colony with its stock (the sizes it holds, in the keeper's order). */
+export const backupColony = z.object({
+  id: uuid,
+  name: colonyInput.shape.name,
+  species: colonyInput.shape.species,
+  preyType: colonyInput.shape.preyType,
+  intervals: colonyIntervals,
+  stock: z
+    .array(
+      z.object({
+        preySize: sizeName,
+        count: storedCount,
+        position: z.number().int().min(0).max(1000),
+      }),
+    )
+    .max(100, { message: 'A colony holds at most 100 sizes.' }),
+  createdAt: instant,
+  updatedAt: instant,
+});
+export type BackupColony = z.input<typeof backupColony>;
+
+/** One change of a colony's stock; `sourceEventId` names the round's event that caused it. */
+export const backupStockChange = z.object({
+  id: uuid,
+  colonyId: uuid,
+  preySize: sizeName,
+  delta: z.number().int().min(-10_000_000).max(10_000_000),
+  after: storedCount,
+  reason: z.enum(STOCK_REASONS, { message: 'Choose count, round, split or correction.' }),
+  sourceEventId: uuid.nullable(),
+  note: z.string().max(300, { message: 'Keep the note under 300 characters.' }).nullable(),
+  at: instant,
+});
+export type BackupStockChange = z.input<typeof backupStockChange>;
+
+/**
+ * A chore. Its subject id is text: a colony's is the colony's uuid (remapped with the colony on
+ * restore); another kind's (a room's name) is kept as it is.
+ */
+export const backupChore = z
+  .object({
+    id: uuid,
+    subjectKind: z.enum(CHORE_SUBJECT_KINDS as [ChoreSubjectKind, ...ChoreSubjectKind[]], {
+      message: `A chore is for one of: ${CHORE_SUBJECT_KINDS.join(', ')}.`,
+    }),
+    subjectId: z
+      .string()
+      .min(1, { message: 'Every chore names what it was done for.' })
+      .max(100, { message: 'Keep what a chore was done for under 100 characters.' }),
+    kind: z.string().min(1).max(40),
+    payload: z.record(z.string(), z.unknown()),
+    recordedBy: uuid.nullable(),
+    deviceId: z.string().max(100).nullable(),
+    clientRecordedAt: instant,
+    serverReceivedAt: instant,
+    effectiveAt: instant,
+  })
+  .superRefine((chore, ctx) => {
+    // The care kind and payload as the chores API checks them for the same subject kind.
+    const subject = CHORE_SUBJECTS[chore.subjectKind];
+    if (chore.subjectKind === 'colony' && !uuid.safeParse(chore.subjectId).success)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['subjectId'],
+        message: 'A colony’s chore names the colony by its id.',
+      });
+    if (!(subject.kinds as readonly string[]).includes(chore.kind)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['kind'],
+        message: `A ${chore.subjectKind}’s chore is one of: ${subject.kinds.join(', ')}.`,
+      });
+      return;
+    }
+    const result = subject.payload.safeParse(chore.payload);
+    if (!result.success)
+      for (const issue of result.error.issues)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['payload', ...issue.path.map(String)],
+          message: issue.message,
+        });
+  });
+export type BackupChore = z.input<typeof backupChore>;
+
+/** A room's target range, checked as the targets screen checks it. */
+export const backupRoomTargets = z
+  .object({ room: roomTargetsBody.shape.room, ...roomTargets.shape, updatedAt: instant })
+  .superRefine((t, ctx) => {
+    const problem = targetsProblem(t);
+    if (problem) ctx.addIssue({ code: 'custom', message: problem });
+  });
+export type BackupRoomTargets = z.input<typeof backupRoomTargets>;
+
+/** A reading typed on the round or imported from a logger's file. */
+export const backupReading = z
+  .object({
+    id: uuid,
+    room: roomTargetsBody.shape.room,
+    takenAt: instant,
+    currentCelsius: celsius.nullable(),
+    minCelsius: celsius.nullable(),
+    maxCelsius: celsius.nullable(),
+    humidity: relativeHumidity.nullable(),
+    source: z.enum(['typed', 'logger'], { message: 'A reading is typed or from a logger.' }),
+    recordedBy: uuid.nullable(),
+    createdAt: instant,
+  })
+  .refine(
+    (r) =>
+      r.currentCelsius !== null ||
+      r.minCelsius !== null ||
+      r.maxCelsius !== null ||
+      r.humidity !== null,
+    { message: 'A reading needs a temperature or the humidity.' },
+  );
+export type BackupReading = z.input<typeof backupReading>;

@@ -52,6 +52,12 @@ describe('S7: the full demo collection, out and back in', () => {
   it('restores the backup into an empty collection: the same records, history and events CSV', async () => {
     const backup = (await owner.get(`${demo}/backup`).expect(200)).body;
     expect(backup.events.length).toBeGreaterThan(100);
+    // The demo's feeder colonies with their counts and care, and its rooms' climate, go along.
+    expect(backup.colonies.length).toBeGreaterThan(0);
+    expect(backup.colonyStockChanges.length).toBeGreaterThan(0);
+    expect(backup.chores.length).toBeGreaterThan(0);
+    expect(backup.roomTargets.length).toBeGreaterThan(0);
+    expect(backup.climateReadings.length).toBeGreaterThan(0);
     const to = await signUp(ctx);
     const c = `/api/collections/${to.collectionId}`;
     const restored = await to.agent.post(`${c}/restore`).send(backup).expect(201);

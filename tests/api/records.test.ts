@@ -7,6 +7,7 @@ import { rowToAnimal } from '#shared/domain/csv/animal-columns';
 import { readCsv } from '#shared/domain/csv/csv-file';
 import { firstSettings, planImport, type ImportSettings } from '#shared/domain/import/plan-import';
 import type { AnimalInput } from '#shared/schemas/animals';
+import { BACKUP_VERSION } from '#shared/schemas/backup';
 import { addMember, animalBody, createAnimal, signUp, type SignedUp } from '../factories';
 import { KEEPERS_SHEET_ROWS } from '../fixtures/keepers-sheet';
 import { createTestContext, type TestContext } from '../setup/test-app';
@@ -606,7 +607,7 @@ describe('full backup and restore', () => {
       .expect(200);
 
     const backup = (await from.agent.get(`${base(from)}/backup`).expect(200)).body;
-    expect(backup).toMatchObject({ format: 'rackside-backup', version: 1 });
+    expect(backup).toMatchObject({ format: 'rackside-backup', version: BACKUP_VERSION });
     expect((await keeper.agent.post(`${base()}/restore`).send(backup)).status).toBe(403);
     const restored = await to.agent
       .post(`${base(to)}/restore`)

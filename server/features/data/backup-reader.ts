@@ -2,7 +2,17 @@ import fs from 'node:fs';
 import { JSONParser } from '@streamparser/json';
 import { HttpError } from '../../middleware/errors';
 
-export const BACKUP_LISTS = ['locations', 'animals', 'eggSacs', 'events'] as const;
+export const BACKUP_LISTS = [
+  'locations',
+  'animals',
+  'eggSacs',
+  'events',
+  'colonies',
+  'colonyStockChanges',
+  'chores',
+  'roomTargets',
+  'climateReadings',
+] as const;
 export type BackupList = (typeof BACKUP_LISTS)[number];
 const SINGLE = ['format', 'version', 'exportedAt', 'collection'] as const;
 

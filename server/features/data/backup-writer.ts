@@ -9,13 +9,20 @@ export interface BackupSink {
   write(text: string): Promise<void>;
 }
 
-const PAGE = { places: 500, animals: 200, events: 1000 };
+const PAGE = {
+  places: 500,
+  animals: 200,
+  events: 1000,
+  stockChanges: 1000,
+  chores: 1000,
+  readings: 1000,
+};
 /** Text gathered before it is handed to the sink: few writes, little memory. */
 const CHUNK_CHARS = 256 * 1024;
 
 /**
- * The whole collection as one JSON document, written piece by piece: places, animals and
- * events are read a page at a time and each photo is read, encoded and written on its own, so
+ * The whole collection as one JSON document, written piece by piece: places, animals, events,
+ * stock changes, chores and climate readings are read a page at a time and each photo is read, encoded and written on its own, so
  * memory stays small however large the collection. One snapshot (repo.inSnapshot) holds every
  * page (no event without its animal); the name and zone are the ones the membership check
  * read. Each record sits on its own line; the members come in the order a restore reads them
@@ -158,6 +165,116 @@ export async function writeBackup(
       if (page.length < PAGE.events) break;
       const last = page.at(-1)!;
       after = { at: last.cursor, id: last.e.id };
+    }
+
+    // Feeder colonies (a handful) with their stock, then each one's stock history a page at a time.
+    await emit('],\n"colonies":[');
+    first = true;
+    const colonies = await repo.coloniesOf(tx, collectionId);
+    for (const { colony: k, stock } of colonies) {
+      const record = {
+        id: k.id,
+        name: k.name,
+        species: k.species,
+        preyType: k.preyType,
+        intervals: {
+          feed: k.feedEvery,
+          water_gel: k.waterGelEvery,
+          clean: k.cleanEvery,
+          split: k.splitEvery,
+        },
+        stock: stock.map(({ preySize, count, position }) => ({ preySize, count, position })),
+        createdAt: k.createdAt.toISOString(),
+        updatedAt: k.updatedAt.toISOString(),
+      };
+      await emit(separator() + J(record));
+    }
+
+    await emit('],\n"colonyStockChanges":[');
+    first = true;
+    for (const { colony } of colonies) {
+      for (let after: { at: string; seq: number } | null = null; ;) {
+        const page = await repo.stockChangesPage(tx, colony.id, after, PAGE.stockChanges);
+        for (const { change: c } of page) {
+          const record = {
+            id: c.id,
+            colonyId: c.colonyId,
+            preySize: c.preySize,
+            delta: c.delta,
+            after: c.after,
+            reason: c.reason,
+            sourceEventId: c.sourceEventId,
+            note: c.note,
+            at: c.at.toISOString(),
+          };
+          await emit(separator() + J(record));
+        }
+        if (page.length < PAGE.stockChanges) break;
+        const last = page.at(-1)!;
+        after = { at: last.cursor, seq: last.change.seq };
+      }
+    }
+
+    await emit('],\n"chores":[');
+    first = true;
+    for (let after: Parameters<typeof repo.choresPage>[2] = null; ;) {
+      const page = await repo.choresPage(tx, collectionId, after, PAGE.chores);
+      for (const c of page) {
+        const record = {
+          id: c.id,
+          subjectKind: c.subjectKind,
+          subjectId: String(c.subjectId),
+          kind: c.kind,
+          payload: c.payload,
+          recordedBy: c.recordedBy,
+          deviceId: c.deviceId,
+          clientRecordedAt: c.clientRecordedAt.toISOString(),
+          serverReceivedAt: c.serverReceivedAt.toISOString(),
+          effectiveAt: c.effectiveAt.toISOString(),
+        };
+        await emit(separator() + J(record));
+      }
+      if (page.length < PAGE.chores) break;
+      const last = page.at(-1)!;
+      after = {
+        subjectKind: last.subjectKind,
+        subjectId: String(last.subjectId),
+        kind: last.kind,
+        id: last.id,
+      };
+    }
+
+    await emit('],\n"roomTargets":[');
+    first = true;
+    for (const { collectionId: _c, updatedAt, ...t } of await repo.roomTargetsOf(
+      tx,
+      collectionId,
+    )) {
+      await emit(separator() + J({ ...t, updatedAt: updatedAt.toISOString() }));
+    }
+
+    await emit('],\n"climateReadings":[');
+    first = true;
+    for (let after: { room: string; at: string; id: string } | null = null; ;) {
+      const page = await repo.readingsPage(tx, collectionId, after, PAGE.readings);
+      for (const { reading: r } of page) {
+        const record = {
+          id: r.id,
+          room: r.room,
+          takenAt: r.takenAt.toISOString(),
+          currentCelsius: r.currentCelsius,
+          minCelsius: r.minCelsius,
+          maxCelsius: r.maxCelsius,
+          humidity: r.humidity,
+          source: r.source,
+          recordedBy: r.recordedBy,
+          createdAt: r.createdAt.toISOString(),
+        };
+        await emit(separator() + J(record));
+      }
+      if (page.length < PAGE.readings) break;
+      const last = page.at(-1)!;
+      after = { room: last.reading.room, at: last.cursor, id: last.reading.id };
     }
     await emit('\n]}\n');
     await flush();

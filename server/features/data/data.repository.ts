@@ -1,7 +1,9 @@
-import { and, asc, count, eq, gt, sql } from 'drizzle-orm';
+import { and, asc, eq, gt, sql } from 'drizzle-orm';
 import type { Database, Db } from '../../db/client';
 import { animals, eggSacs, eventPhotos, events } from '../../db/schema/animals';
+import { climateReadings, roomTargets } from '../../db/schema/climate';
 import { collections, locations } from '../../db/schema/collections';
+import { chores, colonies, colonyStock, colonyStockChanges } from '../../db/schema/colonies';
 import { users } from '../../db/schema/users';
 
 export type NewPlace = typeof locations.$inferInsert;
@@ -9,6 +11,12 @@ export type NewAnimal = typeof animals.$inferInsert;
 export type NewEvent = typeof events.$inferInsert;
 export type NewEggSac = typeof eggSacs.$inferInsert;
 export type NewEventPhoto = typeof eventPhotos.$inferInsert;
+export type NewColony = typeof colonies.$inferInsert;
+export type NewColonyStock = typeof colonyStock.$inferInsert;
+export type NewStockChange = typeof colonyStockChanges.$inferInsert;
+export type NewChore = typeof chores.$inferInsert;
+export type NewRoomTargets = typeof roomTargets.$inferInsert;
+export type NewReading = typeof climateReadings.$inferInsert;
 
 type Place = { room: string; rack: string; shelf: string; position: string };
 const list = (values: unknown[]) => sql.param(values);
@@ -150,19 +158,134 @@ export async function eventsPage(
     .limit(limit);
 }
 
+/** A collection's feeder colonies with their stock (a handful, each with a few sizes: one read). */
+export async function coloniesOf(db: Db, collectionId: string) {
+  const rows = await db
+    .select()
+    .from(colonies)
+    .where(eq(colonies.collectionId, collectionId))
+    .orderBy(asc(colonies.name), asc(colonies.id));
+  const stock = rows.length
+    ? await db
+        .select()
+        .from(colonyStock)
+        .innerJoin(colonies, eq(colonies.id, colonyStock.colonyId))
+        .where(eq(colonies.collectionId, collectionId))
+        .orderBy(asc(colonyStock.position), asc(colonyStock.preySize))
+    : [];
+  return rows.map((colony) => ({
+    colony,
+    stock: stock.filter((s) => s.colonies.id === colony.id).map((s) => s.colony_stock),
+  }));
+}
+
+/**
+ * One colony's stock changes in the order they were made (time, then the order of writing),
+ * a page at a time: the (colony, time) index starts each page at the cursor, kept as
+ * PostgreSQL's own text so microseconds are not lost.
+ */
+export async function stockChangesPage(
+  db: Db,
+  colonyId: string,
+  after: { at: string; seq: number } | null,
+  limit: number,
+) {
+  const { at, seq } = colonyStockChanges;
+  return db
+    .select({ change: colonyStockChanges, cursor: sql<string>`${at}::text` })
+    .from(colonyStockChanges)
+    .where(
+      and(
+        eq(colonyStockChanges.colonyId, colonyId),
+        after
+          ? sql`${at} >= ${after.at}::timestamptz and (${at}, ${seq}) > (${after.at}::timestamptz, ${after.seq})`
+          : undefined,
+      ),
+    )
+    .orderBy(asc(at), asc(seq))
+    .limit(limit);
+}
+
+type ChoreCursor = { subjectKind: string; subjectId: string; kind: string; id: string };
+
+/**
+ * A page of chores in the order of their (collection, subject, kind) index, then id. The
+ * subject id is compared as the column's own type (uuid today, text for a room's name).
+ */
+export async function choresPage(
+  db: Db,
+  collectionId: string,
+  after: ChoreCursor | null,
+  limit: number,
+) {
+  const { subjectKind, subjectId, kind, id } = chores;
+  return db
+    .select()
+    .from(chores)
+    .where(
+      and(
+        eq(chores.collectionId, collectionId),
+        after
+          ? sql`(${subjectKind}, ${subjectId}, ${kind}, ${id}) > (${after.subjectKind}, ${after.subjectId}, ${after.kind}, ${after.id}::uuid)`
+          : undefined,
+      ),
+    )
+    .orderBy(asc(subjectKind), asc(subjectId), asc(kind), asc(id))
+    .limit(limit);
+}
+
+/** A collection's room targets (one row per room: one read). */
+export async function roomTargetsOf(db: Db, collectionId: string) {
+  return db
+    .select()
+    .from(roomTargets)
+    .where(eq(roomTargets.collectionId, collectionId))
+    .orderBy(asc(roomTargets.room));
+}
+
+/** Climate readings by room and time (the (collection, room, time) index), then id. */
+export async function readingsPage(
+  db: Db,
+  collectionId: string,
+  after: { room: string; at: string; id: string } | null,
+  limit: number,
+) {
+  const { room, takenAt, id } = climateReadings;
+  return db
+    .select({ reading: climateReadings, cursor: sql<string>`${takenAt}::text` })
+    .from(climateReadings)
+    .where(
+      and(
+        eq(climateReadings.collectionId, collectionId),
+        after
+          ? sql`(${room}, ${takenAt}, ${id}) > (${after.room}, ${after.at}::timestamptz, ${after.id}::uuid)`
+          : undefined,
+      ),
+    )
+    .orderBy(asc(room), asc(takenAt), asc(id))
+    .limit(limit);
+}
+
 // --- Restore: one transaction writes everything or nothing.
 
-/** Animals and places of a collection (a restore needs both at zero). */
+/**
+ * What a collection already holds that a restore would add to: animals, places, feeder colonies,
+ * room targets and readings (a restore needs all at zero).
+ */
 export async function recordCounts(db: Db, collectionId: string) {
-  const [{ n: animalCount } = { n: 0 }] = await db
-    .select({ n: count() })
-    .from(animals)
-    .where(eq(animals.collectionId, collectionId));
-  const [{ n: placeCount } = { n: 0 }] = await db
-    .select({ n: count() })
-    .from(locations)
-    .where(eq(locations.collectionId, collectionId));
-  return { animals: animalCount, places: placeCount };
+  const n = (table: string) =>
+    sql`(select count(*) from ${sql.identifier(table)} where collection_id = ${collectionId})::int`;
+  const rows = await db.execute<{
+    animals: number;
+    places: number;
+    colonies: number;
+    targets: number;
+    readings: number;
+  }>(
+    sql`select ${n('animals')} as animals, ${n('locations')} as places, ${n('colonies')} as colonies,
+      ${n('room_targets')} as targets, ${n('climate_readings')} as readings`,
+  );
+  return rows.rows[0]!;
 }
 
 /**
@@ -193,6 +316,28 @@ export async function insertSacs(tx: Db, rows: NewEggSac[]) {
 
 export async function insertAnimals(tx: Db, rows: NewAnimal[]) {
   if (rows.length) await tx.insert(animals).values(rows);
+}
+
+export async function insertColonies(tx: Db, rows: NewColony[], stock: NewColonyStock[]) {
+  if (rows.length) await tx.insert(colonies).values(rows);
+  if (stock.length) await tx.insert(colonyStock).values(stock);
+}
+
+/** Inserted in the file's order, so the order of writing (`seq`) keeps the original's order. */
+export async function insertStockChanges(tx: Db, rows: NewStockChange[]) {
+  if (rows.length) await tx.insert(colonyStockChanges).values(rows);
+}
+
+export async function insertChores(tx: Db, rows: NewChore[]) {
+  if (rows.length) await tx.insert(chores).values(rows);
+}
+
+export async function insertRoomTargets(tx: Db, rows: NewRoomTargets[]) {
+  if (rows.length) await tx.insert(roomTargets).values(rows);
+}
+
+export async function insertReadings(tx: Db, rows: NewReading[]) {
+  if (rows.length) await tx.insert(climateReadings).values(rows);
 }
 
 export async function insertEventPhotos(tx: Db, rows: NewEventPhoto[]) {

@@ -9,11 +9,16 @@ import {
 } from '#shared/domain/backup-limits';
 import {
   backupAnimal,
+  backupChore,
   backupCollection,
+  backupColony,
   backupEggSac,
   backupEvent,
   backupHeader,
   backupPlace,
+  backupReading,
+  backupRoomTargets,
+  backupStockChange,
 } from '#shared/schemas/backup';
 import { fieldLabel, isGenericMessage } from '#shared/schemas/messages';
 import type { RulesOverrideBody } from '#shared/schemas/rules';
@@ -36,6 +41,11 @@ const BATCH: Record<BackupList, number> = {
   animals: 200,
   eggSacs: 200,
   events: 1000,
+  colonies: 100,
+  colonyStockChanges: 1000,
+  chores: 1000,
+  roomTargets: 500,
+  climateReadings: 1000,
 };
 /** Problems reported at once; a file with more is surely not worth reading further. */
 const MAX_PROBLEMS = 5;
@@ -44,6 +54,11 @@ const WHAT: Record<BackupList, string> = {
   animals: 'Animal',
   eggSacs: 'Egg sac, case or brood',
   events: 'History entry',
+  colonies: 'Feeder colony',
+  colonyStockChanges: 'Stock change',
+  chores: 'Chore',
+  roomTargets: 'Room target',
+  climateReadings: 'Climate reading',
 };
 
 type Problem = { path: string; message: string };
@@ -105,6 +120,12 @@ async function refuseUnlessEmpty(db: Db, collectionId: string) {
       409,
       'not_empty',
       'Restore into an empty collection: this one already has animals or places.',
+    );
+  if (n.colonies > 0 || n.targets > 0 || n.readings > 0)
+    throw new HttpError(
+      409,
+      'not_empty',
+      'Restore into an empty collection: this one already has feeder colonies or room climate.',
     );
 }
 
@@ -220,11 +241,38 @@ function dataProblem(err: unknown): HttpError | null {
     if (e.constraint === 'locations_pkey') return refuse('This backup lists the same place twice.');
     if (e.constraint === 'events_pkey')
       return refuse('This backup lists the same history entry twice.');
+    if (e.constraint === 'colonies_collection_name')
+      return refuse(
+        `Two feeder colonies in this backup are called ${values.split(', ').slice(1).join(', ')}: each needs its own name.`,
+      );
+    if (e.constraint === 'colonies_pkey') return refuse('This backup lists the same colony twice.');
+    if (e.constraint === 'colony_stock_colony_id_prey_size_pk')
+      return refuse(
+        `A feeder colony in this backup lists the size ${values.split(', ').slice(1).join(', ')} twice.`,
+      );
+    if (
+      e.constraint === 'colony_stock_changes_pkey' ||
+      e.constraint === 'colony_stock_changes_once'
+    )
+      return refuse('This backup lists the same stock change twice.');
+    if (e.constraint === 'chores_pkey') return refuse('This backup lists the same chore twice.');
+    if (e.constraint === 'room_targets_collection_id_room_pk')
+      return refuse(
+        `This backup gives the targets of the room ${values.split(', ').slice(1).join(', ')} twice.`,
+      );
+    if (e.constraint === 'climate_readings_pkey')
+      return refuse('This backup lists the same climate reading twice.');
+    if (e.constraint === 'climate_readings_logger_instant')
+      return refuse(
+        `This backup has two logger readings of the room ${values.split(', ').slice(1, -1).join(', ')} at the same time.`,
+      );
     return refuse('This backup lists something twice.');
   }
   if (e.code === '23503') {
     if (e.constraint === 'events_animal_id_animals_id_fk')
       return refuse('This backup has history for an animal it does not contain.');
+    if (e.constraint === 'colony_stock_changes_colony_id_colonies_id_fk')
+      return refuse('This backup has stock history for a feeder colony it does not contain.');
     return refuse('This backup refers to something it does not contain.');
   }
   // Invalid text, a number out of range, a string too long for its column.
@@ -246,6 +294,12 @@ type AnimalRow = repo.NewAnimal;
 type EventRow = repo.NewEvent;
 type SacRow = repo.NewEggSac;
 type EventPhotoRow = repo.NewEventPhoto;
+type ColonyRow = repo.NewColony;
+type ColonyStockRow = repo.NewColonyStock;
+type StockChangeRow = repo.NewStockChange;
+type ChoreRow = repo.NewChore;
+type TargetsRow = repo.NewRoomTargets;
+type ReadingRow = repo.NewReading;
 /** A photo being written aside while reading goes on: its key once it is on disk. */
 type Staging = { key: Promise<string> };
 /** Photos decoded and written at once, beside the reading (each holds its image in memory). */
@@ -256,7 +310,17 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
   const newId = idMapper();
   const places = new Set<string>();
   const singles = new Map<string, unknown>();
-  const counts = { locations: 0, animals: 0, eggSacs: 0, events: 0 };
+  const counts: Record<BackupList, number> = {
+    locations: 0,
+    animals: 0,
+    eggSacs: 0,
+    events: 0,
+    colonies: 0,
+    colonyStockChanges: 0,
+    chores: 0,
+    roomTargets: 0,
+    climateReadings: 0,
+  };
   const problems: Problem[] = [];
   let stage = -1;
   let rules: RulesOverrideBody = {};
@@ -266,6 +330,12 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
     sacs: [] as SacRow[],
     events: [] as EventRow[],
     photos: [] as { row: EventPhotoRow; photo: Staging }[],
+    colonies: [] as ColonyRow[],
+    stock: [] as ColonyStockRow[],
+    stockChanges: [] as StockChangeRow[],
+    chores: [] as ChoreRow[],
+    targets: [] as TargetsRow[],
+    readings: [] as ReadingRow[],
   });
   let pending = emptyBatch();
   // One batch is written while the next is read: PostgreSQL and the parser work side by side.
@@ -339,19 +409,25 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
         batch.animals.map((a) => a.row),
       );
       await repo.insertSacs(tx, batch.sacs);
-      if (batch.events.length) {
-        // People belong to a server: someone this server does not know is recorded as nobody.
+      // People belong to a server: someone this server does not know is recorded as nobody.
+      const byWhom = [...batch.events, ...batch.chores, ...batch.readings];
+      if (byWhom.length) {
         const known = await repo.existingUserIds(tx, [
-          ...new Set(batch.events.flatMap((e) => (e.recordedBy ? [e.recordedBy] : []))),
+          ...new Set(byWhom.flatMap((r) => (r.recordedBy ? [r.recordedBy] : []))),
         ]);
-        for (const e of batch.events)
-          if (e.recordedBy && !known.has(e.recordedBy)) e.recordedBy = null;
-        await recordEvents(tx, { collectionId }, batch.events, { from: 'history' });
+        for (const r of byWhom) if (r.recordedBy && !known.has(r.recordedBy)) r.recordedBy = null;
       }
+      if (batch.events.length)
+        await recordEvents(tx, { collectionId }, batch.events, { from: 'history' });
       await repo.insertEventPhotos(
         tx,
         batch.photos.map((p) => p.row),
       );
+      await repo.insertColonies(tx, batch.colonies, batch.stock);
+      await repo.insertStockChanges(tx, batch.stockChanges);
+      await repo.insertChores(tx, batch.chores);
+      await repo.insertRoomTargets(tx, batch.targets);
+      await repo.insertReadings(tx, batch.readings);
     });
   }
 
@@ -377,15 +453,23 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
       throw new HttpError(
         422,
         'invalid',
-        'This backup lists places, animals and history out of order (places come first, then animals, then history).',
+        'This backup lists its records out of order (places come first, then animals, then history; feeder colonies before their stock history).',
       );
     if (order > stage) {
       if (!problems.length) await flush();
       stage = order;
     }
     counts[list]++;
+    // An animal is named by its label code, a colony by its name, a room's records by the room.
+    const named = value as { labelCode?: unknown; name?: unknown; room?: unknown } | null;
     const labelCode =
-      list === 'animals' ? (value as { labelCode?: unknown } | null)?.labelCode : undefined;
+      list === 'animals'
+        ? named?.labelCode
+        : list === 'colonies'
+          ? named?.name
+          : list === 'roomTargets' || list === 'climateReadings'
+            ? named?.room
+            : undefined;
     const where = `${WHAT[list]} ${index + 1}${typeof labelCode === 'string' ? ` (${labelCode.slice(0, 20)})` : ''}`;
     const prefix = `${list}.${index}`;
 
@@ -429,6 +513,71 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
         collectionId,
         createdAt: new Date(createdAt),
       });
+    } else if (list === 'colonies') {
+      const result = backupColony.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { id, intervals, stock, createdAt, updatedAt, ...fields } = result.data;
+      const colonyId = newId(id);
+      pending.colonies.push({
+        ...fields,
+        id: colonyId,
+        collectionId,
+        feedEvery: intervals.feed,
+        waterGelEvery: intervals.water_gel,
+        cleanEvery: intervals.clean,
+        splitEvery: intervals.split,
+        createdAt: new Date(createdAt),
+        updatedAt: new Date(updatedAt),
+      });
+      for (const s of stock) pending.stock.push({ ...s, colonyId });
+    } else if (list === 'colonyStockChanges') {
+      const result = backupStockChange.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { id, colonyId, sourceEventId, at, ...fields } = result.data;
+      pending.stockChanges.push({
+        ...fields,
+        id: newId(id),
+        colonyId: newId(colonyId),
+        // The round's event that took the stock: its restored copy has the id derived the same way.
+        sourceEventId: sourceEventId ? newId(sourceEventId) : null,
+        at: new Date(at),
+      });
+    } else if (list === 'chores') {
+      const result = backupChore.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { id, subjectId, clientRecordedAt, serverReceivedAt, effectiveAt, ...fields } =
+        result.data;
+      pending.chores.push({
+        ...fields,
+        id: newId(id),
+        collectionId,
+        // A colony follows its restored copy; a room is named by its name, which stays.
+        subjectId: fields.subjectKind === 'colony' ? newId(subjectId) : subjectId,
+        clientRecordedAt: new Date(clientRecordedAt),
+        serverReceivedAt: new Date(serverReceivedAt),
+        effectiveAt: new Date(effectiveAt),
+      });
+    } else if (list === 'roomTargets') {
+      const result = backupRoomTargets.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { updatedAt, ...fields } = result.data;
+      pending.targets.push({ ...fields, collectionId, updatedAt: new Date(updatedAt) });
+    } else if (list === 'climateReadings') {
+      const result = backupReading.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { id, takenAt, createdAt, ...fields } = result.data;
+      pending.readings.push({
+        ...fields,
+        id: newId(id),
+        collectionId,
+        takenAt: new Date(takenAt),
+        createdAt: new Date(createdAt),
+      });
     } else {
       const result = backupEvent.safeParse(value);
       if (!result.success) return problem(problemsOf(where, prefix, result.error));
@@ -467,6 +616,11 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
       animals: pending.animals.length,
       eggSacs: pending.sacs.length,
       events: pending.events.length,
+      colonies: pending.colonies.length,
+      colonyStockChanges: pending.stockChanges.length,
+      chores: pending.chores.length,
+      roomTargets: pending.targets.length,
+      climateReadings: pending.readings.length,
     }[list];
     if (size >= BATCH[list]) await flush();
   }
