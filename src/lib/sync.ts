@@ -133,7 +133,6 @@ export function createSyncEngine({
       return result;
     }
     update({ ...start, phase: 'saving', progress: { sent: 0, total: start.waiting } });
-    let size = batchSize;
     const fail = async (phase: SyncPhase, reason: string) => {
       update({
         ...(await counts(d)),
@@ -145,71 +144,89 @@ export function createSyncEngine({
       return { ...result, ok: false };
     };
 
-    for (;;) {
-      const batch = await nextBatch(d, userId, size);
-      if (!batch.length) break;
-      let answer: { status: number; body: unknown };
-      try {
-        answer = await send(batch[0]!.collectionId, {
+    /**
+     * Sends one kind of waiting record batch by batch until none is left; a result on the way
+     * out ends the flush there. Only a verdict on a record settles it.
+     */
+    const drain = async <E extends { collectionId: string }>(lane: {
+      next: (size: number) => Promise<E[]>;
+      send: (collectionId: string, batch: E[]) => Promise<{ status: number; body: unknown }>;
+      /** Null when the answer could not be read. */
+      settle: (
+        batch: E[],
+        body: unknown,
+      ) => Promise<{ acknowledged: number; refused: number } | null>;
+      what: string;
+    }): Promise<FlushResult | null> => {
+      for (let size = batchSize; ;) {
+        const batch = await lane.next(size);
+        if (!batch.length) return null;
+        let answer: { status: number; body: unknown };
+        try {
+          answer = await lane.send(batch[0]!.collectionId, batch);
+        } catch {
+          return fail('offline', NO_ANSWER);
+        }
+        if (answer.status === 401)
+          return fail('signed_out', 'Your sign-in has ended on this phone.');
+        if (answer.status === 413 && size > 1) {
+          size = Math.max(1, Math.floor(size / 2));
+          continue;
+        }
+        if (answer.status !== 200)
+          return fail('failing', waitingReason(answer.status, answer.body));
+        const settled = await lane.settle(batch, answer.body);
+        if (!settled) return fail('failing', 'The server’s answer could not be read.');
+        result.acknowledged += settled.acknowledged;
+        result.refused += settled.refused;
+        // A well-formed answer that settled none of what was sent would loop forever.
+        if (!settled.acknowledged && !settled.refused)
+          return fail('failing', `The server answered without a word on these ${lane.what}.`);
+        update({
+          progress: {
+            sent: result.acknowledged + result.refused,
+            total: Math.max(start.waiting, result.acknowledged + result.refused),
+          },
+        });
+      }
+    };
+
+    const taps = await drain({
+      next: (size) => nextBatch(d, userId, size),
+      send: (collectionId, batch) =>
+        send(collectionId, {
           deviceId,
           clientSentAt: now().toISOString(),
           events: batch.map((e) => e.event),
-        });
-      } catch {
-        return fail('offline', NO_ANSWER);
-      }
-      if (answer.status === 401) return fail('signed_out', 'Your sign-in has ended on this phone.');
-      if (answer.status === 413 && size > 1) {
-        size = Math.max(1, Math.floor(size / 2));
-        continue;
-      }
-      if (answer.status !== 200) return fail('failing', waitingReason(answer.status, answer.body));
-      // The schema loads on the first answer, not with the first screen.
-      const { eventBatchResponse } = await import('#shared/schemas/events');
-      const parsed = eventBatchResponse.safeParse(answer.body);
-      if (!parsed.success) return fail('failing', 'The server’s answer could not be read.');
-      const settled = await settleBatch(d, batch, parsed.data.results, now());
-      result.acknowledged += settled.acknowledged;
-      result.refused += settled.refused;
-      // A well-formed answer that settled none of what was sent would loop forever.
-      if (!settled.acknowledged && !settled.refused)
-        return fail('failing', 'The server answered without a word on these taps.');
-      update({
-        progress: {
-          sent: result.acknowledged + result.refused,
-          total: Math.max(start.waiting, result.acknowledged + result.refused),
+        }),
+      settle: async (batch, body) => {
+        // The schema loads on the first answer, not with the first screen.
+        const { eventBatchResponse } = await import('#shared/schemas/events');
+        const parsed = eventBatchResponse.safeParse(body);
+        return parsed.success ? settleBatch(d, batch, parsed.data.results, now()) : null;
+      },
+      what: 'taps',
+    });
+    if (taps) return taps;
+    // Chores after the taps, by the same rule.
+    const chores =
+      sendChores &&
+      (await drain({
+        next: (size) => nextChoreBatch(d, userId, size),
+        send: (collectionId, batch) =>
+          sendChores(collectionId, {
+            deviceId,
+            clientSentAt: now().toISOString(),
+            chores: batch.map((e) => e.chore),
+          }),
+        settle: async (batch, body) => {
+          const { choreBatchResponse } = await import('#shared/schemas/chores');
+          const parsed = choreBatchResponse.safeParse(body);
+          return parsed.success ? settleChores(d, batch, parsed.data.results, now()) : null;
         },
-      });
-    }
-    // Chores after the taps, by the same rule: only a verdict on a chore settles it.
-    for (size = batchSize; sendChores;) {
-      const batch = await nextChoreBatch(d, userId, size);
-      if (!batch.length) break;
-      let answer: { status: number; body: unknown };
-      try {
-        answer = await sendChores(batch[0]!.collectionId, {
-          deviceId,
-          clientSentAt: now().toISOString(),
-          chores: batch.map((e) => e.chore),
-        });
-      } catch {
-        return fail('offline', NO_ANSWER);
-      }
-      if (answer.status === 401) return fail('signed_out', 'Your sign-in has ended on this phone.');
-      if (answer.status === 413 && size > 1) {
-        size = Math.max(1, Math.floor(size / 2));
-        continue;
-      }
-      if (answer.status !== 200) return fail('failing', waitingReason(answer.status, answer.body));
-      const { choreBatchResponse } = await import('#shared/schemas/chores');
-      const parsed = choreBatchResponse.safeParse(answer.body);
-      if (!parsed.success) return fail('failing', 'The server’s answer could not be read.');
-      const settled = await settleChores(d, batch, parsed.data.results, now());
-      result.acknowledged += settled.acknowledged;
-      result.refused += settled.refused;
-      if (!settled.acknowledged && !settled.refused)
-        return fail('failing', 'The server answered without a word on these chores.');
-    }
+        what: 'chores',
+      }));
+    if (chores) return chores;
     update({
       ...(await counts(d)),
       phase: 'idle',
