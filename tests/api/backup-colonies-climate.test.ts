@@ -199,10 +199,23 @@ beforeAll(async () => {
     .put(`${c}/climate/targets`)
     .send({ room: 'Shed', minCelsius: 18, maxCelsius: null, minHumidity: null, maxHumidity: 80 })
     .expect(200);
+  // The day's typed reading travels as a room's chore, and is stored as a reading too.
   await source.agent
-    .post(`${c}/climate/readings`)
-    .send({ id: randomUUID(), room: 'Spare room', minCelsius: 21.25, maxCelsius: 26, humidity: 62 })
-    .expect(201);
+    .post(`${c}/chores`)
+    .send({
+      clientSentAt: new Date().toISOString(),
+      chores: [
+        {
+          id: randomUUID(),
+          subjectKind: 'room',
+          subjectId: 'Spare room',
+          kind: 'reading',
+          payload: { minCelsius: 21.25, maxCelsius: 26, humidity: 62 },
+          clientRecordedAt: new Date().toISOString(),
+        },
+      ],
+    })
+    .expect(200);
   await source.agent
     .post(`${c}/climate/import`)
     .send({
@@ -242,7 +255,7 @@ describe('a backup with feeder colonies, chores and room climate', () => {
       [undo.id, -(round[0]!.delta as number)],
     ]);
     expect(round[0]!.delta).toBeLessThan(0);
-    expect(backup.chores).toHaveLength(3);
+    expect(backup.chores).toHaveLength(4);
     expect(backup.roomTargets.map((t) => t.room)).toEqual(['Shed', 'Spare room']);
     expect(backup.climateReadings).toHaveLength(4);
   });
@@ -259,7 +272,7 @@ describe('a backup with feeder colonies, chores and room climate', () => {
       colonies: 2,
       colony_stock: 3,
       colony_stock_changes: 5,
-      chores: 3,
+      chores: 4,
       room_targets: 2,
       climate_readings: 4,
     });
@@ -271,7 +284,9 @@ describe('a backup with feeder colonies, chores and room climate', () => {
     expect(ateInCopy.id).not.toBe(ate.id);
     const copiedColonies = new Set(copied.colonies.map((k) => k.id));
     for (const chore of copied.chores)
-      expect(copiedColonies.has(chore.subjectId as string)).toBe(true);
+      if (chore.subjectKind === 'colony')
+        expect(copiedColonies.has(chore.subjectId as string)).toBe(true);
+      else expect(chore.subjectId).toBe('Spare room'); // a room is named, not numbered
     expect(copied.climateReadings.map((r) => r.id)).not.toContain(backup.climateReadings[0]!.id);
 
     const original = structuredClone(backup);
