@@ -6,7 +6,7 @@ import { targetsProblem } from '../domain/climate/ranges';
 import { upgradeOverride, type RulesOverride } from '../domain/rounds/rules';
 import { animalInput } from './animals';
 import { accountDetails } from './auth';
-import { CHORE_SUBJECTS, CHORE_SUBJECT_KINDS, type ChoreSubjectKind } from './chores';
+import { checkChoreCare, CHORE_SUBJECT_KINDS, type ChoreSubjectKind } from './chores';
 import { roomTargets, roomTargetsBody } from './climate';
 import { colonyInput, colonyIntervals, STOCK_REASONS } from './colonies';
 import { localDate, timeZone, uuid } from './common';
@@ -233,29 +233,13 @@ export const backupChore = z
   })
   .superRefine((chore, ctx) => {
     // The care kind and payload as the chores API checks them for the same subject kind.
-    const subject = CHORE_SUBJECTS[chore.subjectKind];
     if (chore.subjectKind === 'colony' && !uuid.safeParse(chore.subjectId).success)
       ctx.addIssue({
         code: 'custom',
         path: ['subjectId'],
         message: 'A colony’s chore names the colony by its id.',
       });
-    if (!(subject.kinds as readonly string[]).includes(chore.kind)) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['kind'],
-        message: `A ${chore.subjectKind}’s chore is one of: ${subject.kinds.join(', ')}.`,
-      });
-      return;
-    }
-    const result = subject.payload.safeParse(chore.payload);
-    if (!result.success)
-      for (const issue of result.error.issues)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['payload', ...issue.path.map(String)],
-          message: issue.message,
-        });
+    checkChoreCare(chore, ctx);
   });
 export type BackupChore = z.input<typeof backupChore>;
 

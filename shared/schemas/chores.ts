@@ -36,6 +36,30 @@ export const CHORE_SUBJECTS = {
 export type ChoreSubjectKind = keyof typeof CHORE_SUBJECTS;
 export const CHORE_SUBJECT_KINDS = Object.keys(CHORE_SUBJECTS) as ChoreSubjectKind[];
 
+/** A chore's care kind is its subject kind's, and its payload fits that kind (sync and backup). */
+export function checkChoreCare(
+  chore: { subjectKind: ChoreSubjectKind; kind: string; payload: unknown },
+  ctx: z.RefinementCtx,
+) {
+  const subject = CHORE_SUBJECTS[chore.subjectKind];
+  if (!(subject.kinds as readonly string[]).includes(chore.kind)) {
+    ctx.addIssue({
+      code: 'custom',
+      path: ['kind'],
+      message: `A ${chore.subjectKind}’s chore is one of: ${subject.kinds.join(', ')}.`,
+    });
+    return;
+  }
+  const result = subject.payload.safeParse(chore.payload);
+  if (!result.success)
+    for (const issue of result.error.issues)
+      ctx.addIssue({
+        code: 'custom',
+        path: ['payload', ...issue.path.map(String)],
+        message: issue.message,
+      });
+}
+
 /** One chore as a phone records it; the id is made on the phone and is the sync's key. */
 export const recordedChore = z
   .object({
@@ -57,22 +81,7 @@ export const recordedChore = z
     const id = subject.id.safeParse(chore.subjectId);
     if (!id.success)
       ctx.addIssue({ code: 'custom', path: ['subjectId'], message: id.error.issues[0]!.message });
-    if (!(subject.kinds as readonly string[]).includes(chore.kind)) {
-      ctx.addIssue({
-        code: 'custom',
-        path: ['kind'],
-        message: `A ${chore.subjectKind}’s chore is one of: ${subject.kinds.join(', ')}.`,
-      });
-      return;
-    }
-    const result = subject.payload.safeParse(chore.payload);
-    if (!result.success)
-      for (const issue of result.error.issues)
-        ctx.addIssue({
-          code: 'custom',
-          path: ['payload', ...issue.path.map(String)],
-          message: issue.message,
-        });
+    checkChoreCare(chore, ctx);
   })
   // What is stored is what the subject kind's schemas made of it (a room's name trimmed).
   .transform((chore) => ({
