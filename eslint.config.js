@@ -36,6 +36,11 @@ const SERVER_LAYERS = [
   'cover',
   'helper-reports',
   'climate',
+  'listings',
+  'care-sheets',
+  'availability',
+  'sales',
+  'payments',
   'data',
 ];
 const unplaced = foldersIn('server/features').filter((f) => !SERVER_LAYERS.includes(f));
