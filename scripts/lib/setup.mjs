@@ -98,10 +98,21 @@ function aptInstall(packages, why) {
   say(`Installing ${packages.join(', ')} from Debian's packages (${why})…`);
   // Through sudo, apt-get keeps its usual front end: a sudoers rule may not allow setting
   // DEBIAN_FRONTEND, and these packages ask nothing on a normal install.
-  const apt = (args) =>
-    decision === 'sudo'
-      ? run('sudo', ['apt-get', ...args])
-      : run('apt-get', args, { env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' } });
+  const apt = (args) => {
+    const result =
+      decision === 'sudo'
+        ? spawnSync('sudo', ['apt-get', ...args], { stdio: 'inherit', cwd: repoRoot })
+        : spawnSync('apt-get', args, {
+            stdio: 'inherit',
+            cwd: repoRoot,
+            env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+          });
+    // A wrong password or an account sudo refuses: still say the one command that installs them.
+    if (result.status !== 0)
+      fail(
+        `Installing ${packages.join(', ')} did not work (apt-get ${args[0]}: exit ${result.status ?? result.signal}). Install them once with:\n  ${aptCommandLine(packages)}\nor ask whoever looks after the machine to, then run the command again.`,
+      );
+  };
   apt(['update', '-qq']);
   apt(['install', '-y', '-qq', '--no-install-recommends', ...packages]);
 }

@@ -22,12 +22,15 @@ export interface LanInfo {
 /** LAN mode's facts, or undefined outside it. Reads the certificate files env.ts checked. */
 export function loadLan(
   env: Env,
-  machine: { interfaces: Interfaces; hostname: string } = {
+  // Read only in LAN mode: listing interfaces needs netlink sockets, which the systemd unit's
+  // RestrictAddressFamilies forbids (deploy/rackside.service), and loopback serving needs none.
+  readMachine: () => { interfaces: Interfaces; hostname: string } = () => ({
     interfaces: os.networkInterfaces(),
     hostname: os.hostname(),
-  },
+  }),
 ): LanInfo | undefined {
   if (!env.LAN_MODE || !env.HTTPS_CERT_FILE) return undefined;
+  const machine = readMachine();
   const served = fs.readFileSync(env.HTTPS_CERT_FILE, 'utf8');
   const caPem = env.HTTPS_CA_FILE ? fs.readFileSync(env.HTTPS_CA_FILE, 'utf8') : served;
   return {

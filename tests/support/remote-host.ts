@@ -1,7 +1,8 @@
 // Another host on a private link, for tests of what a client that is not this machine may do:
 // a network namespace joined to this one by a veth pair with addresses of its own (10.231.n.1
-// here, 10.231.n.2 there). Needs `ip` (iproute2), curl and root, as CI has. Nothing else on the
-// machine's network is touched, and close() removes the namespace and with it the pair.
+// here, 10.231.n.2 there). Needs `ip` (iproute2), curl and root, as CI has; a normal account
+// runs `ip` through `sudo -n` (password-free sudo). Nothing else on the machine's network is
+// touched, and close() removes the namespace and with it the pair.
 import { execFile, execFileSync } from 'node:child_process';
 import { promisify } from 'node:util';
 
@@ -26,8 +27,11 @@ export interface RemoteHost {
   close(): void;
 }
 
+// Root runs `ip` itself; anyone else through password-free sudo (`-n`: fail, never prompt).
+const asRoot = (args: string[]): [string, string[]] =>
+  process.getuid?.() === 0 ? ['ip', args] : ['sudo', ['-n', 'ip', ...args]];
 const ip = (...args: string[]) =>
-  execFileSync('ip', args, { stdio: ['ignore', 'pipe', 'pipe'] }).toString();
+  execFileSync(...asRoot(args), { stdio: ['ignore', 'pipe', 'pipe'] }).toString();
 
 export function createRemoteHost(): RemoteHost {
   const id = process.pid % 100_000;
@@ -67,7 +71,7 @@ export function createRemoteHost(): RemoteHost {
   } catch (err) {
     close();
     throw new Error(
-      `Could not create the test's network namespace (needs iproute2 and root): ${(err as { stderr?: Buffer }).stderr?.toString() ?? err}`,
+      `Could not create the test's network namespace (needs iproute2, and root or password-free sudo): ${(err as { stderr?: Buffer }).stderr?.toString() ?? err}`,
     );
   }
 
@@ -80,7 +84,7 @@ export function createRemoteHost(): RemoteHost {
         args.push('-H', `${name}: ${value}`);
       if (init.body !== undefined) args.push('--data-binary', JSON.stringify(init.body));
       // Asynchronous: the server answering may live in this very process.
-      const { stdout } = await run('ip', ['netns', 'exec', ns, 'curl', ...args, url], {
+      const { stdout } = await run(...asRoot(['netns', 'exec', ns, 'curl', ...args, url]), {
         timeout: 20_000,
       });
       // The response head (RFC 9112, 2.1: lines end in CRLF, an empty line ends it), then the body.
