@@ -17,11 +17,6 @@ let labelCode: string;
 const pdfText = (pdf: Buffer) =>
   execFileSync('pdftotext', ['-layout', '-', '-'], { input: pdf }).toString('utf8');
 
-const binary = (res: NodeJS.ReadableStream, done: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => done(null, Buffer.concat(chunks)));
-};
 
 beforeAll(async () => {
   ctx = await createTestContext();
@@ -93,8 +88,7 @@ describe('care sheet PDF', () => {
   it('gives the buyer the animal, its meals, its care by the current rules and the cautions', async () => {
     const res = await owner.agent
       .get(`${base}/animals/${animalId}/care-sheet.pdf`)
-      .buffer(true)
-      .parse(binary)
+      .responseType('blob')
       .expect(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const text = pdfText(res.body as Buffer).replace(/\s+/g, ' ');
