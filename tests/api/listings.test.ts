@@ -2,8 +2,10 @@ import { randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { ListingsResponse } from '#shared/schemas/listings';
+import { DEMO_PASSWORD } from '../../server/access/demo-people';
 import { animals, eggSacs, events } from '../../server/db/schema/animals';
 import { buyers, saleAnimals, sales } from '../../server/db/schema/sales';
+import { demoCollectionId, seedDemo } from '../../server/seed/demo';
 import { createAnimal, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
@@ -205,4 +207,30 @@ describe('listings', () => {
       .send({ clutch: 'No such clutch', ...price })
       .expect(404);
   });
+});
+
+describe('the demo', () => {
+  it('offers 12 of its Hapalopus formosus clutch at CAD 25.00, with the public list off', async () => {
+    await seedDemo(ctx.database.db, { bcryptCost: 10 });
+    const demoId = (await demoCollectionId(ctx.database.db))!;
+    const keeper = ctx.agent();
+    await keeper
+      .post('/api/auth/sign-in')
+      .send({ email: 'owner@northlight.test', password: DEMO_PASSWORD })
+      .expect(200);
+    const { rows, groups, clutches } = (
+      await keeper.get(`/api/collections/${demoId}/listings`).expect(200)
+    ).body as ListingsResponse;
+    expect(rows).toHaveLength(12);
+    expect(new Set(rows.map((r) => `${r.clutch} ${r.priceMinor} ${r.currency}`))).toEqual(
+      new Set(['H. formosus sac 1 2500 CAD']),
+    );
+    expect(groups.map((g) => [g.scientificName, g.lifeStage, g.available, g.reserved])).toEqual([
+      ['Hapalopus formosus', 'sling', 12, 0],
+    ]);
+    // The whole clutch can be offered, or re-priced, at once.
+    expect(clutches).toContainEqual({ clutch: 'H. formosus sac 1', animals: 24 });
+    const list = (await keeper.get(`/api/collections/${demoId}/availability`).expect(200)).body;
+    expect([list.on, list.path]).toEqual([false, null]);
+  }, 30_000);
 });

@@ -43,7 +43,7 @@ describe('careSheetContent', () => {
       Species: 'Hapalopus formosus',
       'Common name': 'Colombian pumpkin patch',
       Stage: 'Sling',
-      Sex: expect.any(String),
+      Sex: 'Not known yet',
       Size: '12 mm leg span · instar 3',
       'Last molt': '20 Nov 2026',
     });
@@ -114,6 +114,7 @@ describe('careSheetContent', () => {
       'Fast or defensive — open slowly',
     ]);
     expect(sheet.general.join(' ')).toContain('local law and licensed practice come first');
+    expect(sheet.general.join(' ')).not.toContain('call the keeper');
     expect(sheet.breederNotes).toBe('Eats well; rehoused on coco fibre.');
     expect(careSheetContent(input()).breederNotes).toBeNull();
   });

@@ -127,7 +127,7 @@ export function careSheetContent(input: CareSheetInput): CareSheet {
     { label: 'Species', value: a.scientificName },
     ...(a.commonName ? [{ label: 'Common name', value: a.commonName }] : []),
     { label: 'Stage', value: stageLabel(a.group, a.lifeStage) },
-    { label: 'Sex', value: SEX_LABEL[a.sex] },
+    { label: 'Sex', value: a.sex === 'unknown' ? 'Not known yet' : SEX_LABEL[a.sex] },
     {
       label: 'Size',
       value: sizeWords({
@@ -153,8 +153,12 @@ export function careSheetContent(input: CareSheetInput): CareSheet {
     feeding: feedingLines(a, rules),
     water: waterLines(a, rules),
     cautions,
-    // Safety first for a new keeper: the general cautions, with the law and licence line.
-    general: GENERAL_SAFETY,
+    // The general cautions, with the law and licence line; the last one (an escape: "call the
+    // keeper") is for a helper, so a new keeper gets their own.
+    general: [
+      ...GENERAL_SAFETY.slice(0, -1),
+      'If it escapes: close the room door, keep pets and children out, and search slowly with a catch cup and a card.',
+    ],
     breederNotes: input.breederNotes.trim() || null,
   };
 }
