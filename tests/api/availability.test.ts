@@ -198,6 +198,20 @@ describe('the public availability list', () => {
   });
 });
 
+describe('a shop polling the list', () => {
+  it('gets a readable 429 past 60 reads a minute from one address', async () => {
+    const url = `/api/available/${tokenOf(await settings())}`;
+    const anon = ctx.agent();
+    let refused: { status: number; body: { error: { message: string } } } | null = null;
+    for (let i = 0; i < 70 && !refused; i++) {
+      const res = await anon.get(url);
+      if (res.status === 429) refused = res;
+      else expect(res.status).toBe(200);
+    }
+    expect(refused?.body.error.message).toMatch(/^Too many attempts\. Wait up to 1 minutes/);
+  });
+});
+
 describe('the strict RFC 4180 reader the CSV checks trust', () => {
   it('reads quoted commas, doubled quotes and line breaks', () => {
     expect(readRfc4180('a,b\r\n"x, y","say ""hi""\r\nthere"\r\n')).toEqual([
