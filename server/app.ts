@@ -10,8 +10,15 @@ import { animalsRoutes } from './features/animals/animals.routes';
 import { createAnimalsService } from './features/animals/animals.service';
 import { authRoutes, DEFAULT_AUTH_LIMITS, type AuthLimits } from './features/auth/auth.routes';
 import { createAuthService } from './features/auth/auth.service';
+import {
+  availabilityRoutes,
+  publicAvailabilityRoutes,
+} from './features/availability/availability.routes';
+import { createAvailabilityService } from './features/availability/availability.service';
 import { breedingRoutes } from './features/breeding/breeding.routes';
 import { createBreedingService } from './features/breeding/breeding.service';
+import { careSheetsRoutes } from './features/care-sheets/care-sheets.routes';
+import { createCareSheetsService } from './features/care-sheets/care-sheets.service';
 import { choresRoutes } from './features/chores/chores.routes';
 import { createChoresService } from './features/chores/chores.service';
 import { climateRoutes } from './features/climate/climate.routes';
@@ -36,6 +43,8 @@ import { createHelperReportsService } from './features/helper-reports/helper-rep
 import { labelsRoutes } from './features/labels/labels.routes';
 import { createLabelsService } from './features/labels/labels.service';
 import { lanRoutes } from './features/lan/lan.routes';
+import { listingsRoutes } from './features/listings/listings.routes';
+import { createListingsService } from './features/listings/listings.service';
 import { locationsRoutes } from './features/locations/locations.routes';
 import { createLocationsService } from './features/locations/locations.service';
 import { photosRoutes } from './features/photos/photos.routes';
@@ -243,6 +252,23 @@ export function createApp(options: AppOptions) {
   });
   api.use('/collections', myCollectionsRoutes(auth, collections));
 
+  // Sales — listings, availability, care sheets (L). The availability list is public: no
+  // session, its own link, a per-address budget.
+  const listings = createListingsService(database.db, now);
+  const availability = createAvailabilityService(database.db, { now, listings });
+  const careSheets = createCareSheetsService(database.db, {
+    now,
+    rules: async (collectionId) => (await rounds.rules(collectionId)).rules,
+    listings,
+  });
+  api.use(
+    '/available',
+    publicAvailabilityRoutes(
+      availability,
+      limiter('available-ip', { windowMs: 60_000, limit: 60 }),
+    ),
+  );
+
   // Everything under a collection: signed in first, then each route's own membership check.
   const collection = (p = '') => `/collections/:collectionId${p}`;
   api.use(collection(), requireUser);
@@ -293,6 +319,11 @@ export function createApp(options: AppOptions) {
   api.use(collection(), labelsRoutes(createLabelsService(database.db), member));
   //   collections: the collection itself (/), /members…, /invites…, /membership
   api.use(collection(), collectionsRoutes(collections, member, inviteLimit));
+  // Sales — listings, availability, care sheets (L)
+  api.use(collection('/listings'), listingsRoutes(listings, member));
+  api.use(collection('/availability'), availabilityRoutes(availability, member));
+  //   care sheets: /animals/:animalId/care-sheet.pdf, /animals/:animalId/history.csv
+  api.use(collection('/animals/:animalId'), careSheetsRoutes(careSheets, member));
   api.use(apiNotFound);
   api.use(errorHandler);
   app.use('/api', api);
@@ -311,6 +342,8 @@ export function createApp(options: AppOptions) {
       background,
       climate,
       dailyMail,
+      // Sales — L: the ship e-mail attaches care sheets.
+      careSheets,
     },
     async shutdown() {
       // Mail a request started goes out before the database and the mailer close.

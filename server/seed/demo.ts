@@ -21,6 +21,7 @@ import { users } from '../db/schema/users';
 import { refoldStates } from '../features/events/projection';
 import { recordEvents } from '../features/events/record-events';
 import { seedColonies } from './colonies';
+import { DEMO_CLUTCH, seedSalesStock } from './sales-stock';
 
 export { DEMO_PASSWORD };
 
@@ -795,6 +796,13 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
     await recordEvents(tx, { collectionId }, rows, { from: 'history' });
     await refoldStates(tx, collectionId, zone);
     await seedColonies(tx, collectionId, ownerId, today, zone);
+    // Sales — L: 12 of the clutch's slings offered for sale.
+    await seedSalesStock(
+      tx,
+      collectionId,
+      ownerId,
+      roster.flatMap((a, i) => (a.clutch === DEMO_CLUTCH ? [insertedAnimals[i]!.id] : [])),
+    );
     return { created: true, animals: roster.length, events: rows.length, collectionId, today };
   });
 }

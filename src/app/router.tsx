@@ -41,6 +41,11 @@ const router = createBrowserRouter([
     path: '/dev/mailbox',
     lazy: () => import('./routes/dev-mailbox').then((m) => ({ Component: m.DevMailboxRoute })),
   },
+  // Sales — L: a breeder's public availability list, no sign-in, no app chrome.
+  {
+    path: '/available/:token',
+    lazy: () => import('./routes/availability').then((m) => ({ Component: m.AvailabilityRoute })),
+  },
   {
     element: <Shell />,
     children: [
@@ -70,6 +75,11 @@ const router = createBrowserRouter([
       {
         path: '/animals/:animalId/edit',
         lazy: () => import('./routes/animal-edit').then((m) => ({ Component: m.AnimalEditRoute })),
+      },
+      // Sales — L
+      {
+        path: '/sales/stock',
+        lazy: () => import('./routes/sales-stock').then((m) => ({ Component: m.SalesStockRoute })),
       },
       {
         path: '/colonies',

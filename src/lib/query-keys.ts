@@ -76,6 +76,15 @@ export const queryKeys = {
   members: {
     list: (collectionId: string) => ['members', collectionId] as const,
   },
+  // Sales — listings, availability (L)
+  listings: {
+    list: (collectionId: string) => ['listings', collectionId] as const,
+  },
+  availability: {
+    settings: (collectionId: string) => ['availability', collectionId] as const,
+    /** The public list, read with no session. */
+    published: (token: string) => ['available', token] as const,
+  },
   devMail: () => ['dev', 'mail'] as const,
   lan: () => ['lan'] as const,
   sync: {

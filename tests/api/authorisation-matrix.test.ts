@@ -576,6 +576,65 @@ const TABLE: Record<string, Row> = {
     allowed: 422,
     call: (f) => ({ path: `${f.c}/incubation`, body: {} }),
   },
+  // Sales — listings, availability, care sheets (L). Helpers never see a price or the list's link.
+  'GET /api/collections/:collectionId/listings': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/listings` }),
+  },
+  'POST /api/collections/:collectionId/listings/bulk': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/listings/bulk`, body: {} }),
+  },
+  'PUT /api/collections/:collectionId/listings/:animalId': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/listings/${f.animalId}`, body: { priceMinor: 'a lot' } }),
+  },
+  'DELETE /api/collections/:collectionId/listings/:animalId': {
+    access: 'keeper',
+    // The fixture's animal is not offered: past the membership check, nothing to remove.
+    allowed: 404,
+    call: (f) => ({ path: `${f.c}/listings/${f.animalId}` }),
+  },
+  'GET /api/collections/:collectionId/availability': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/availability` }),
+  },
+  'PUT /api/collections/:collectionId/availability': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/availability`, body: {} }),
+  },
+  'POST /api/collections/:collectionId/availability/new-link': {
+    access: 'keeper',
+    // A new link for a list that stays off: harmless to repeat.
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/availability/new-link` }),
+  },
+  'GET /api/collections/:collectionId/animals/:animalId/care-sheet.pdf': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/care-sheet.pdf` }),
+  },
+  'GET /api/collections/:collectionId/animals/:animalId/history.csv': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/history.csv` }),
+  },
+  // The public list: a link that was never made is not found, for everyone alike.
+  'GET /api/available/:token': {
+    access: 'public',
+    allowed: 404,
+    call: () => ({ path: '/api/available/AAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAA' }),
+  },
+  'GET /api/available/:token/list.csv': {
+    access: 'public',
+    allowed: 404,
+    call: () => ({ path: '/api/available/AAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAA/list.csv' }),
+  },
 };
 
 // Some routes answer a non-helper member differently from a helper on purpose.
@@ -1052,6 +1111,15 @@ describe('ids from another collection, inside your own', () => {
         },
       ],
       ['GET', { path: `${c}/colonies/${colony.id}/history` }],
+      // Sales — L: another collection's animal is not found for a listing or a care sheet.
+      ['PUT', { path: `${c}/listings/${a}`, body: { priceMinor: 100, currency: 'CAD' } }],
+      ['DELETE', { path: `${c}/listings/${a}` }],
+      [
+        'POST',
+        { path: `${c}/listings/bulk`, body: { animalIds: [a], priceMinor: 1, currency: 'CAD' } },
+      ],
+      ['GET', { path: `${c}/animals/${a}/care-sheet.pdf` }],
+      ['GET', { path: `${c}/animals/${a}/history.csv` }],
       ['DELETE', { path: `${c}/colonies/${colony.id}` }],
       ['POST', { path: `${c}/egg-sacs`, body: { femaleId: a, laidOn: '2026-11-02' } }],
       ['PATCH', { path: `${c}/egg-sacs/${sac.id}`, body: { eggCount: 5 } }],

@@ -45,6 +45,14 @@ import { historyResponse } from '#shared/schemas/events';
 import { helperReportsResponse } from '#shared/schemas/helper-reports';
 import { importResponse } from '#shared/schemas/import';
 import { relabelResponse } from '#shared/schemas/labels';
+// Sales — listings, availability (L)
+import {
+  availabilitySettings,
+  bulkListingResponse,
+  listingResponse,
+  listingsResponse,
+  publicAvailability,
+} from '#shared/schemas/listings';
 import { locationListResponse, locationResponse } from '#shared/schemas/locations';
 import { engineInputResponse, roundResponse, scheduleResponse } from '#shared/schemas/rounds';
 import { rulesResponse } from '#shared/schemas/rules';
@@ -407,5 +415,35 @@ describe('answers the app reads', () => {
       202,
     );
     expectShape(await owner.agent.get('/api/auth/me'), meResponse);
+  });
+
+  // Sales — listings, availability (L)
+  it('stock for sale and the public availability list', async () => {
+    const a = owner.agent;
+    const sling = await createAnimal(ctx.database.db, owner.collectionId, {
+      name: 'Shape sling',
+      lifeStage: 'sling',
+      clutch: 'Shape clutch',
+    });
+    const price = { priceMinor: 2500, currency: 'CAD', description: 'A sling' };
+    expectShape(await a.put(`${base()}/listings/${femaleId}`).send(price), listingResponse);
+    expectShape(
+      await a.post(`${base()}/listings/bulk`).send({ clutch: 'Shape clutch', ...price }),
+      bulkListingResponse,
+    );
+    const listed = expectShape(await a.get(`${base()}/listings`), listingsResponse);
+    expect(listed.rows.map((r) => r.animalId).sort()).toEqual([femaleId, sling.id].sort());
+    expectShape(await a.delete(`${base()}/listings/${sling.id}`), noContent, 204);
+    expectShape(await a.get(`${base()}/availability`), availabilitySettings);
+    const on = expectShape(
+      await a
+        .put(`${base()}/availability`)
+        .send({ on: true, columns: ['species', 'count'], note: 'Hi' }),
+      availabilitySettings,
+    );
+    expectShape(await a.post(`${base()}/availability/new-link`), availabilitySettings);
+    const path = expectShape(await a.get(`${base()}/availability`), availabilitySettings).path!;
+    expect(path).not.toBe(on.path);
+    expectShape(await ctx.agent().get(`/api${path}`), publicAvailability);
   });
 });

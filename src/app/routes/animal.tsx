@@ -27,6 +27,7 @@ import { RetirePanel } from '@/features/animals/components/retire-panel';
 import { GrowthPanel } from '@/features/breeding/components/growth-panel';
 import { AnimalRoomClimate } from '@/features/climate/components/animal-room-climate';
 import { LabelPanel } from '@/features/labels/components/label-panel';
+import { ForSalePanel } from '@/features/listings/components/for-sale-panel';
 import { useAnimalHistory } from '@/features/rounds/api/animal-history';
 import { localRoundQueryOptions } from '@/features/rounds/api/get-round';
 import { AnimalHistory } from '@/features/rounds/components/animal-history';
@@ -141,6 +142,10 @@ export function AnimalRoute() {
         waiting={sync.waiting > 0}
       />
       <LabelPanel collectionId={collectionId} labelTag={collection.labelTag} animal={animal} />
+      {/* Sales — L: owners and keepers only; a helper never sees a price. */}
+      {collection.role !== 'helper' && (
+        <ForSalePanel collectionId={collectionId} animalId={animal.id} kept={kept} />
+      )}
       <GrowthPanel
         events={history.data?.events ?? []}
         timeZone={collection.timeZone}
