@@ -38,6 +38,9 @@ import { createLabelsService } from './features/labels/labels.service';
 import { lanRoutes } from './features/lan/lan.routes';
 import { locationsRoutes } from './features/locations/locations.routes';
 import { createLocationsService } from './features/locations/locations.service';
+import type { PaymentConfig } from './features/payments/payment-config';
+import { paymentsRoutes, paymentsWebhookRoutes } from './features/payments/payments.routes';
+import { createPaymentsService } from './features/payments/payments.service';
 import { photosRoutes } from './features/photos/photos.routes';
 import { createPhotosService } from './features/photos/photos.service';
 import {
@@ -80,6 +83,8 @@ export interface AppOptions {
   publicUrl?: string;
   /** LAN mode (`npm start -- --lan`): the address and certificate phones use. */
   lan?: LanInfo;
+  /** Sales — payments: the card payment service's keys (or the local fake's); none: card off. */
+  payments?: PaymentConfig;
 }
 
 export function createApp(options: AppOptions) {
@@ -107,6 +112,15 @@ export function createApp(options: AppOptions) {
   api.use(
     todayRoundFastPath(rounds, sessionMemberCheck(database.pool, env.SESSION_SECRET, store, now)),
   );
+  // Sales — payments: the service's webhook is checked against its raw bytes, and carries no
+  // session and no app header, so it sits before the JSON parser, the sessions and CSRF check.
+  const payments = createPaymentsService(database.db, {
+    now,
+    config: options.payments,
+    publicUrl: (p) => publicUrl(p),
+    logger,
+  });
+  api.use('/payments/webhook', paymentsWebhookRoutes(payments));
   // Imports and restores may be large: their routes parse them after the membership check.
   api.use(
     express.json({
@@ -291,6 +305,9 @@ export function createApp(options: AppOptions) {
   api.use(collection(), breedingRoutes(breeding, member));
   //   labels: /labels/pdf, /animals/:animalId/relabel
   api.use(collection(), labelsRoutes(createLabelsService(database.db), member));
+  // Sales — payments: /invoices/:invoiceId/checkout, /invoices/:invoiceId/payments,
+  //                   /invoices/:invoiceId/refund
+  api.use(collection(), paymentsRoutes(payments, member));
   //   collections: the collection itself (/), /members…, /invites…, /membership
   api.use(collection(), collectionsRoutes(collections, member, inviteLimit));
   api.use(apiNotFound);
