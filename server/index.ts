@@ -1,14 +1,14 @@
 import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './access/demo-people';
 import { createApp } from './app';
-import type { PaymentConfig } from './features/payments/payment-config';
 import { connectDatabase } from './db/client';
 import { readEnv, type Env } from './env';
+import type { PaymentConfig } from './features/payments/payment-config';
 import { startJobs } from './jobs/jobs';
 import { createHttpServer, lanBanner, loadLan } from './lan/lan-server';
 import { createLogger } from './logger';
 import type { DevSmtp } from './mail/dev-smtp';
-import type { PaymentFake } from './payment-fake/payment-fake';
 import { createSmtpMailer } from './mail/mailer';
+import type { PaymentFake } from './payment-fake/payment-fake';
 
 let env: Env;
 try {

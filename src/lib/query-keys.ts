@@ -76,6 +76,11 @@ export const queryKeys = {
   members: {
     list: (collectionId: string) => ['members', collectionId] as const,
   },
+  // Sales — payments.
+  payments: {
+    invoice: (collectionId: string, invoiceId: string) =>
+      ['payments', collectionId, invoiceId] as const,
+  },
   devMail: () => ['dev', 'mail'] as const,
   lan: () => ['lan'] as const,
   sync: {

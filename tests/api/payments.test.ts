@@ -8,6 +8,7 @@ import { and, count, eq } from 'drizzle-orm';
 import Stripe from 'stripe';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { checkoutAnswer } from '#shared/schemas/payments';
 import { buyers, invoices, paymentEvents, payments, sales } from '../../server/db/schema/sales';
 import { startPaymentFake, type PaymentFake } from '../../server/payment-fake/payment-fake';
 import { signUp, type SignedUp } from '../factories';
@@ -76,7 +77,7 @@ const state = async (id: string) =>
 async function checkoutUrl(id: string): Promise<string> {
   const res = await owner.agent.post(`${c}/invoices/${id}/checkout`);
   expect(res.status, JSON.stringify(res.body)).toBe(200);
-  return res.body.url;
+  return checkoutAnswer.parse(res.body).url;
 }
 
 /** The buyer's side: the fake's checkout form, sent as a browser would send it. */
