@@ -117,7 +117,7 @@ export function createApp(options: AppOptions) {
   const payments = createPaymentsService(database.db, {
     now,
     config: options.payments,
-    publicUrl: (p) => publicUrl(p),
+    publicBase: options.publicUrl ?? env.PUBLIC_URL ?? options.lan?.url,
     logger,
   });
   api.use('/payments/webhook', paymentsWebhookRoutes(payments));

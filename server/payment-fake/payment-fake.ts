@@ -467,7 +467,8 @@ export async function startPaymentFake(options: PaymentFakeOptions = {}): Promis
     }
     const card = form.get('card') ?? '';
     const outcome = await pay(s, card);
-    if (!outcome.ok) return html(402, outcome.problem, card);
+    // The page again with the problem in an alert, as a checkout page shows it (200: a page).
+    if (!outcome.ok) return html(200, outcome.problem, card);
     res.writeHead(303, { location: s.success_url.replace('{CHECKOUT_SESSION_ID}', s.id) });
     res.end();
   }

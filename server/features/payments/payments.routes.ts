@@ -22,8 +22,10 @@ export function paymentsRoutes(service: PaymentsService, member: (min: Role) => 
   const invoiceId = (res: Parameters<RequestHandler>[1]) =>
     input<{ invoiceId: string }>(res, 'params').invoiceId;
 
-  router.post('/invoices/:invoiceId/checkout', member('keeper'), params, async (_req, res) => {
-    res.json(await service.checkout(membershipOf(res).collectionId, invoiceId(res)));
+  router.post('/invoices/:invoiceId/checkout', member('keeper'), params, async (req, res) => {
+    // Where the buyer comes back to when no PUBLIC_URL is set: this server as the keeper sees it.
+    const origin = `${req.protocol}://${req.get('host')}`;
+    res.json(await service.checkout(membershipOf(res).collectionId, invoiceId(res), origin));
   });
   router.get('/invoices/:invoiceId/payments', member('keeper'), params, async (_req, res) => {
     res.json(await service.list(membershipOf(res).collectionId, invoiceId(res)));

@@ -36,7 +36,8 @@ interface Deps {
   now: () => Date;
   /** Card payment is off without it: manual payments still work. */
   config?: PaymentConfig;
-  publicUrl: (path: string) => string;
+  /** PUBLIC_URL (or the LAN address) when set; else the buyer returns to the request's origin. */
+  publicBase?: string;
   logger?: Logger;
 }
 
@@ -168,7 +169,11 @@ export function createPaymentsService(db: Db, deps: Deps) {
    * A checkout session for what is still owed, reused while it is open and for the same
    * amount. The invoice row stays locked meanwhile, so two taps make one session.
    */
-  async function checkout(collectionId: string, invoiceId: string): Promise<{ url: string }> {
+  async function checkout(
+    collectionId: string,
+    invoiceId: string,
+    origin: string,
+  ): Promise<{ url: string }> {
     const stripe = cardOn();
     return db.transaction(async (tx) => {
       const invoice = await found(collectionId, invoiceId, tx);
@@ -193,7 +198,7 @@ export function createPaymentsService(db: Db, deps: Deps) {
       }
       const metadata = { invoiceId: invoice.id, collectionId };
       const back = (result: string) =>
-        `${deps.publicUrl('/payment/done')}?result=${result}&invoice=${invoice.id}`;
+        `${deps.publicBase ?? origin}/payment/done?result=${result}&invoice=${invoice.id}`;
       const session = await service(() =>
         stripe.checkout.sessions.create({
           mode: 'payment',
