@@ -32,6 +32,10 @@ export interface InvoicePaymentProps {
   onChanged?: () => void;
 }
 
+const when = (iso: string) =>
+  new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
+const day = (iso: string) => new Date(iso).toLocaleDateString(undefined, { dateStyle: 'medium' });
+
 const METHOD_WORDS: Record<PaymentView['method'], string> = {
   card: 'card',
   bank_transfer: 'bank transfer',
@@ -67,7 +71,7 @@ export function InvoicePayment({ collectionId, invoice: given, onChanged }: Invo
 
       {data?.lastDecline && (
         <Notice tone="warning" title="The last card attempt was declined">
-          {data.lastDecline.message} ({new Date(data.lastDecline.at).toLocaleString()})
+          {data.lastDecline.message} ({when(data.lastDecline.at)})
         </Notice>
       )}
 
@@ -132,7 +136,7 @@ export function InvoicePayment({ collectionId, invoice: given, onChanged }: Invo
               >
                 <span>
                   {p.kind === 'payment' ? 'Paid' : 'Refunded'} by {METHOD_WORDS[p.method]},{' '}
-                  {new Date(p.at).toLocaleDateString()}
+                  {day(p.at)}
                 </span>
                 <span className="font-bold">
                   {p.kind === 'refund' ? '−' : ''}
@@ -280,9 +284,9 @@ function Refund({
       onRefund({ method, amountMinor: minor });
   };
   const options = [
-    ...(cardAllowed ? [{ value: 'card', label: 'To the card (through the payment service)' }] : []),
-    { value: 'bank_transfer', label: 'I returned it by bank transfer' },
-    { value: 'cash', label: 'I returned it in cash' },
+    ...(cardAllowed ? [{ value: 'card', label: 'To the buyer’s card' }] : []),
+    { value: 'bank_transfer', label: 'Bank transfer (sent by me)' },
+    { value: 'cash', label: 'Cash (given by me)' },
   ];
   return (
     <form onSubmit={submit} className="flex flex-col gap-2 rounded-xl border-2 border-border p-3">
