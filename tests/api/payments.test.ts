@@ -11,8 +11,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { checkoutAnswer } from '#shared/schemas/payments';
 import { buyers, invoices, paymentEvents, payments, sales } from '../../server/db/schema/sales';
 import { startPaymentFake, type PaymentFake } from '../../server/payment-fake/payment-fake';
-import { signUp, type SignedUp } from '../factories';
+import { PASSWORD, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
+import { startServerProcess } from '../support/server-process';
 
 let fake: PaymentFake;
 let ctx: TestContext;
@@ -344,4 +345,56 @@ describe('manual payments', () => {
     const [row] = await ctx.database.db.select().from(invoices).where(eq(invoices.id, theirs));
     expect(row).toMatchObject({ checkoutSessionId: null, status: 'open' });
   });
+});
+
+describe('the server process (server/index.ts)', () => {
+  async function signedIn(url: string) {
+    const agent = supertest.agent(url).set('X-Rackside-Client', '1');
+    await agent
+      .post('/api/auth/sign-in')
+      .send({ email: owner.email, password: PASSWORD })
+      .expect(200);
+    return agent;
+  }
+
+  it('in production without the service’s keys: card payment off, manual payment on', async () => {
+    const proc = await startServerProcess({ databaseUrl: ctx.databaseUrl, quiet: true });
+    try {
+      const agent = await signedIn(proc.url);
+      const id = await newInvoice();
+      const list = await agent.get(`${c}/invoices/${id}/payments`).expect(200);
+      expect(list.body.cardPayments).toBe(false);
+      const refused = await agent.post(`${c}/invoices/${id}/checkout`);
+      expect(refused.status).toBe(409);
+      expect(refused.body.error.code).toBe('card_payments_off');
+      await agent
+        .post(`${c}/invoices/${id}/payments`)
+        .send({ method: 'bank_transfer', amountMinor: TOTAL })
+        .expect(201);
+    } finally {
+      await proc.kill();
+    }
+  }, 60_000);
+
+  it('in development: the local fake starts, and its webhooks reach this process', async () => {
+    const proc = await startServerProcess({
+      databaseUrl: ctx.databaseUrl,
+      quiet: true,
+      env: { NODE_ENV: 'development' },
+    });
+    try {
+      const agent = await signedIn(proc.url);
+      const id = await newInvoice();
+      const { url } = (await agent.post(`${c}/invoices/${id}/checkout`).expect(200)).body;
+      expect(url).toMatch(/^http:\/\/127\.0\.0\.1:\d+\/pay\/cs_test_/);
+      const res = await payOnPage(url, '4242424242424242');
+      expect(res.headers.get('location')).toBe(
+        `${proc.url}/payment/done?result=paid&invoice=${id}`,
+      );
+      const after = await agent.get(`${c}/invoices/${id}/payments`).expect(200);
+      expect(after.body.invoice).toMatchObject({ status: 'paid', paidMinor: TOTAL });
+    } finally {
+      await proc.kill();
+    }
+  }, 60_000);
 });
