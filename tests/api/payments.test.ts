@@ -261,6 +261,24 @@ describe('card checkout on the fake service', () => {
       'refund',
       'refund',
     ]);
+
+    // The service later reports the last refund failed (refund.updated): its money is back.
+    const last = JSON.parse(fake.lastEvent('refund.created')!.payload).data.object;
+    const failed = JSON.stringify({
+      id: `evt_${randomUUID().replace(/-/g, '')}`,
+      object: 'event',
+      type: 'refund.updated',
+      data: { object: { ...last, status: 'failed' } },
+    });
+    const answer = await rawWebhook()
+      .set('content-type', 'application/json')
+      .set(
+        'stripe-signature',
+        Stripe.webhooks.generateTestHeaderString({ payload: failed, secret: fake.webhookSecret }),
+      )
+      .send(failed);
+    expect(answer.body.outcome).toBe('refund_failed');
+    expect((await state(id)).invoice).toMatchObject({ status: 'paid', refundedMinor: 2500 });
   });
 });
 

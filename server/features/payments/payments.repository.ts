@@ -79,6 +79,13 @@ export async function insertPayment(
   return rows.length > 0;
 }
 
+/** A refund the service reports as failed after all: it never gave the money back. */
+export async function deletePayment(db: Db, kind: 'payment' | 'refund', providerRef: string) {
+  await db
+    .delete(payments)
+    .where(and(eq(payments.kind, kind), eq(payments.providerRef, providerRef)));
+}
+
 export async function paymentsOf(db: Db, invoiceId: string) {
   return db
     .select({

@@ -19,6 +19,7 @@ import { HttpError } from '../../middleware/errors';
 import { sdkOptions, type PaymentConfig } from './payment-config';
 import {
   cardPaymentsOf,
+  deletePayment,
   insertPayment,
   invoiceInCollection,
   lastDeclineOf,
@@ -289,6 +290,8 @@ export function createPaymentsService(db: Db, deps: Deps) {
           metadata: { invoiceId },
         }),
       );
+      // A refund the service has not finished is stored when refund.updated says it succeeded.
+      if (made.status !== 'succeeded') return;
       providerRef = made.id;
     } else providerRef = manualRef(body.method);
     await db.transaction(async (tx) => {
@@ -352,7 +355,13 @@ export function createPaymentsService(db: Db, deps: Deps) {
         const r = event.data.object;
         const invoice = await invoiceNamed(tx, r.metadata?.invoiceId);
         if (!invoice) return { invoiceId: null, outcome: 'unknown_invoice' };
-        // A pending refund is stored when its update says it succeeded.
+        // A pending refund is stored when its update says it succeeded; one that failed or was
+        // cancelled after it was stored gives its money back to the invoice.
+        if (r.status === 'failed' || r.status === 'canceled') {
+          await deletePayment(tx, 'refund', r.id);
+          await recompute(tx, invoice);
+          return { invoiceId: invoice.id, outcome: `refund_${r.status}` };
+        }
         if (r.status !== 'succeeded')
           return { invoiceId: invoice.id, outcome: `refund_${r.status}` };
         await insertPayment(tx, {
