@@ -194,9 +194,16 @@ function CopyLink({ url }: { url: string }) {
       >
         Copy payment link for the buyer
       </Button>
-      <p className="break-all text-sm text-muted" aria-live="polite">
+      <p className="text-sm text-muted" aria-live="polite">
         {copied ? 'Copied. ' : ''}
-        {url}
+        <a
+          href={url}
+          target="_blank"
+          rel="noopener noreferrer"
+          className="inline-flex min-h-target items-center break-all font-bold text-text underline underline-offset-4"
+        >
+          {url}
+        </a>
       </p>
     </div>
   );
