@@ -27,7 +27,9 @@ export type ManualPaymentBody = z.infer<typeof manualPaymentBody>;
  */
 export const refundBody = z.strictObject({
   amountMinor,
-  method: z.enum(PAYMENT_METHODS, { message: 'Choose card, bank transfer or cash.' }).default('card'),
+  method: z
+    .enum(PAYMENT_METHODS, { message: 'Choose card, bank transfer or cash.' })
+    .default('card'),
 });
 export type RefundBody = z.infer<typeof refundBody>;
 

@@ -1,6 +1,11 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { invoiceStatus, outstandingMinor, refundableMinor, type InvoiceMoney } from './invoice-state';
+import {
+  invoiceStatus,
+  outstandingMinor,
+  refundableMinor,
+  type InvoiceMoney,
+} from './invoice-state';
 
 const money = (m: Partial<InvoiceMoney>): InvoiceMoney => ({
   totalMinor: 8475,
