@@ -328,6 +328,8 @@ export function createApp(options: AppOptions) {
       background,
       climate,
       dailyMail,
+      // Sales — payments: expireCheckout for a cancelled invoice.
+      payments,
     },
     async shutdown() {
       // Mail a request started goes out before the database and the mailer close.

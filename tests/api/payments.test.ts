@@ -310,6 +310,19 @@ describe('manual payments', () => {
     expect(await (await fetch(first)).text()).toContain('This checkout is closed');
   });
 
+  it('a cancelled invoice’s checkout link is expired at the service too', async () => {
+    const id = await newInvoice();
+    const url = await checkoutUrl(id);
+    await ctx.services.payments.expireCheckout(owner.collectionId, id);
+    expect(await (await fetch(url)).text()).toContain('This checkout is closed');
+    expect((await state(id)).invoice.checkoutUrl).toBeNull();
+    // Another collection's invoice is not found, and its link lives on.
+    const theirs = await newInvoice(other.collectionId);
+    await expect(ctx.services.payments.expireCheckout(owner.collectionId, theirs)).rejects.toThrow(
+      'We could not find that invoice.',
+    );
+  });
+
   it('refunds by hand, refuses nonsense, and a cancelled invoice takes no payment', async () => {
     const id = await newInvoice();
     let res = await owner.agent.post(`${c}/invoices/${id}/refund`).send({ amountMinor: 100 });

@@ -419,7 +419,31 @@ export function createPaymentsService(db: Db, deps: Deps) {
     });
   }
 
-  return { list, checkout, recordManual, refund, webhook, cardPayments: sdk !== null };
+  /**
+   * For the sales feature when an invoice is cancelled: the buyer's checkout link stops taking
+   * money at the service too (Rackside already refuses a new checkout for it).
+   */
+  async function expireCheckout(collectionId: string, invoiceId: string) {
+    const invoice = await found(collectionId, invoiceId);
+    if (!invoice.checkoutSessionId) return;
+    if (sdk) {
+      const session = await service(() =>
+        sdk.checkout.sessions.retrieve(invoice.checkoutSessionId!),
+      );
+      if (session.status === 'open') await service(() => sdk.checkout.sessions.expire(session.id));
+    }
+    await setCheckout(db, invoiceId, null, now());
+  }
+
+  return {
+    list,
+    checkout,
+    recordManual,
+    refund,
+    webhook,
+    expireCheckout,
+    cardPayments: sdk !== null,
+  };
 }
 
 export type PaymentsService = ReturnType<typeof createPaymentsService>;
