@@ -47,6 +47,9 @@ import { listingsRoutes } from './features/listings/listings.routes';
 import { createListingsService } from './features/listings/listings.service';
 import { locationsRoutes } from './features/locations/locations.routes';
 import { createLocationsService } from './features/locations/locations.service';
+import type { PaymentConfig } from './features/payments/payment-config';
+import { paymentsRoutes, paymentsWebhookRoutes } from './features/payments/payments.routes';
+import { createPaymentsService } from './features/payments/payments.service';
 import { photosRoutes } from './features/photos/photos.routes';
 import { createPhotosService } from './features/photos/photos.service';
 import {
@@ -89,6 +92,8 @@ export interface AppOptions {
   publicUrl?: string;
   /** LAN mode (`npm start -- --lan`): the address and certificate phones use. */
   lan?: LanInfo;
+  /** Sales — payments: the card payment service's keys (or the local fake's); none: card off. */
+  payments?: PaymentConfig;
 }
 
 export function createApp(options: AppOptions) {
@@ -116,6 +121,15 @@ export function createApp(options: AppOptions) {
   api.use(
     todayRoundFastPath(rounds, sessionMemberCheck(database.pool, env.SESSION_SECRET, store, now)),
   );
+  // Sales — payments: the service's webhook is checked against its raw bytes, and carries no
+  // session and no app header, so it sits before the JSON parser, the sessions and CSRF check.
+  const payments = createPaymentsService(database.db, {
+    now,
+    config: options.payments,
+    publicBase: options.publicUrl ?? env.PUBLIC_URL ?? options.lan?.url,
+    logger,
+  });
+  api.use('/payments/webhook', paymentsWebhookRoutes(payments));
   // Imports and restores may be large: their routes parse them after the membership check.
   api.use(
     express.json({
@@ -317,6 +331,9 @@ export function createApp(options: AppOptions) {
   api.use(collection(), breedingRoutes(breeding, member));
   //   labels: /labels/pdf, /animals/:animalId/relabel
   api.use(collection(), labelsRoutes(createLabelsService(database.db), member));
+  // Sales — payments: /invoices/:invoiceId/checkout, /invoices/:invoiceId/payments,
+  //                   /invoices/:invoiceId/refund
+  api.use(collection(), paymentsRoutes(payments, member));
   //   collections: the collection itself (/), /members…, /invites…, /membership
   api.use(collection(), collectionsRoutes(collections, member, inviteLimit));
   // Sales — listings, availability, care sheets (L)
@@ -344,6 +361,8 @@ export function createApp(options: AppOptions) {
       dailyMail,
       // Sales — L: the ship e-mail attaches care sheets.
       careSheets,
+      // Sales — payments: expireCheckout for a cancelled invoice.
+      payments,
     },
     async shutdown() {
       // Mail a request started goes out before the database and the mailer close.

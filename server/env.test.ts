@@ -145,3 +145,25 @@ describe('configuration', () => {
     });
   });
 });
+
+// Sales — payments.
+describe('card payment keys', () => {
+  it('takes both keys or neither, and names the missing one', () => {
+    expect(readEnv(production).PAYMENT_SECRET_KEY).toBeUndefined();
+    const both = readEnv({
+      ...production,
+      PAYMENT_SECRET_KEY: 'sk_live_abc',
+      PAYMENT_WEBHOOK_SECRET: 'whsec_abc',
+    });
+    expect(both.PAYMENT_WEBHOOK_SECRET).toBe('whsec_abc');
+    expect(() => readEnv({ ...production, PAYMENT_SECRET_KEY: 'sk_live_abc' })).toThrow(
+      /PAYMENT_WEBHOOK_SECRET is required with PAYMENT_SECRET_KEY/,
+    );
+    expect(() =>
+      readEnv({ ...production, PAYMENT_WEBHOOK_SECRET: 'whsec_abc', PAYMENT_SECRET_KEY: '' }),
+    ).toThrow(/PAYMENT_SECRET_KEY is required with PAYMENT_WEBHOOK_SECRET/);
+    expect(() => readEnv({ ...production, PAYMENT_API_URL: 'localhost:12111' })).toThrow(
+      /PAYMENT_API_URL must/,
+    );
+  });
+});

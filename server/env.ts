@@ -86,6 +86,11 @@ export const envSchema = z
     // network, and the certificate a phone should trust (the home authority) offered for download.
     LAN_MODE: flag.default(false),
     HTTPS_CA_FILE: z.preprocess(unsetIfEmpty, z.string().optional()),
+    // Sales — payments: the card payment service's secret key and webhook signing secret;
+    // without both, dev and demo use the local fake and production has card payment off.
+    PAYMENT_SECRET_KEY: z.preprocess(unsetIfEmpty, z.string().optional()),
+    PAYMENT_WEBHOOK_SECRET: z.preprocess(unsetIfEmpty, z.string().optional()),
+    PAYMENT_API_URL: z.preprocess(unsetIfEmpty, httpUrl('PAYMENT_API_URL').optional()),
   })
   .superRefine((env, ctx) => {
     if (!!env.HTTPS_CERT_FILE !== !!env.HTTPS_KEY_FILE)
@@ -151,6 +156,16 @@ function productionIssues(source: NodeJS.ProcessEnv): { path: string; message: s
       path: 'PUBLIC_URL',
       message:
         'PUBLIC_URL is required in production (e.g. https://rackside.example.org): links in e-mails would point at localhost.',
+    });
+  // Sales — payments: card payment is on with both keys and off with neither; one alone is a
+  // mistake (checkout sessions nobody can confirm, or webhooks for a service never called).
+  const paymentKeys = ['PAYMENT_SECRET_KEY', 'PAYMENT_WEBHOOK_SECRET'] as const;
+  const missingKey = paymentKeys.find((k) => !source[k]);
+  const givenKey = paymentKeys.find((k) => source[k]);
+  if (givenKey && missingKey)
+    issues.push({
+      path: missingKey,
+      message: `${missingKey} is required with ${givenKey}: card payment needs both the secret key and the webhook signing secret (or neither, for manual payments only).`,
     });
   const secret = source.SESSION_SECRET ?? '';
   // Too short (or missing) is the schema's message; this is about a long but guessable one.

@@ -2,11 +2,13 @@ import { DEMO_ACCOUNTS, DEMO_PASSWORD } from './access/demo-people';
 import { createApp } from './app';
 import { connectDatabase } from './db/client';
 import { readEnv, type Env } from './env';
+import type { PaymentConfig } from './features/payments/payment-config';
 import { startJobs } from './jobs/jobs';
 import { createHttpServer, lanBanner, loadLan } from './lan/lan-server';
 import { createLogger } from './logger';
 import type { DevSmtp } from './mail/dev-smtp';
 import { createSmtpMailer } from './mail/mailer';
+import type { PaymentFake } from './payment-fake/payment-fake';
 
 let env: Env;
 try {
@@ -29,6 +31,24 @@ if (!smtpUrl) {
   smtpUrl = devSmtp.url;
 }
 const mailer = createSmtpMailer(smtpUrl, env.MAIL_FROM);
+// Sales — payments: the service's keys when given; else, outside production, the local fake
+// of the service (loaded only then) with keys of its own; production without keys: card off.
+let paymentFake: PaymentFake | undefined;
+let payments: PaymentConfig | undefined;
+if (env.PAYMENT_SECRET_KEY && env.PAYMENT_WEBHOOK_SECRET) {
+  payments = {
+    secretKey: env.PAYMENT_SECRET_KEY,
+    webhookSecret: env.PAYMENT_WEBHOOK_SECRET,
+    apiUrl: env.PAYMENT_API_URL,
+  };
+} else if (env.NODE_ENV !== 'production') {
+  paymentFake = await (await import('./payment-fake/payment-fake')).startPaymentFake();
+  payments = {
+    secretKey: paymentFake.secretKey,
+    webhookSecret: paymentFake.webhookSecret,
+    apiUrl: paymentFake.url,
+  };
+}
 const { app, services, shutdown } = createApp({
   env,
   database,
@@ -36,6 +56,7 @@ const { app, services, shutdown } = createApp({
   devMailbox: devSmtp?.mailbox,
   logger,
   lan,
+  payments,
 });
 const jobs = await startJobs({
   databaseUrl: env.DATABASE_URL,
@@ -51,6 +72,11 @@ const server = createHttpServer(app, env).listen(env.PORT, env.HOST, async () =>
   const scheme = env.HTTPS_CERT_FILE ? 'https' : 'http';
   const url = env.PUBLIC_URL ?? lan?.url ?? `${scheme}://${shown}:${env.PORT}`;
   const lines = [``, `  Rackside is running at ${url}`];
+  const address = server.address();
+  if (paymentFake && typeof address === 'object' && address)
+    paymentFake.setWebhookTarget(
+      `${scheme}://${['0.0.0.0', '::'].includes(env.HOST) ? '127.0.0.1' : env.HOST}:${address.port}/api/payments/webhook`,
+    );
   if (lan) lines.push(await lanBanner(lan));
   if (env.DEMO_MODE) {
     lines.push(`  Demo sign-in: ${DEMO_ACCOUNTS[0]!.email} / ${DEMO_PASSWORD}`);
@@ -61,6 +87,7 @@ const server = createHttpServer(app, env).listen(env.PORT, env.HOST, async () =>
     );
   }
   if (devSmtp) lines.push(`  E-mail goes to a local mailbox: ${url}/dev/mailbox`);
+  if (paymentFake) lines.push(`  Card payments go to a local test checkout (${paymentFake.url})`);
   lines.push(`  Press Ctrl-C to stop.`, ``);
   console.log(lines.join('\n'));
 });
@@ -75,6 +102,7 @@ async function stop() {
   await shutdown();
   mailer.close();
   await devSmtp?.stop();
+  await paymentFake?.stop();
   await database.close();
   process.exit(0);
 }

@@ -18,6 +18,7 @@ describe('log redaction', () => {
         Cookie: 'rackside.sid=abc',
         'set-cookie': ['rackside.sid=abc; Path=/'],
         authorization: 'Bearer x',
+        'Stripe-Signature': 't=1,v1=abc',
         referer: 'https://r.example/reset-password?token=abc123',
         accept: 'application/json',
       }),
@@ -25,6 +26,7 @@ describe('log redaction', () => {
       Cookie: '[redacted]',
       'set-cookie': '[redacted]',
       authorization: '[redacted]',
+      'Stripe-Signature': '[redacted]',
       referer: 'https://r.example/reset-password?token=[redacted]',
       accept: 'application/json',
     });

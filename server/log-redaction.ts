@@ -4,7 +4,14 @@ import { redactUrl } from './redact-url';
 export const REDACTED = '[redacted]';
 
 /** Headers that carry a credential: the session cookie (both ways) and any authorisation. */
-const SECRET_HEADERS = new Set(['cookie', 'set-cookie', 'authorization', 'proxy-authorization']);
+const SECRET_HEADERS = new Set([
+  'cookie',
+  'set-cookie',
+  'authorization',
+  'proxy-authorization',
+  // Sales — payments: a webhook's signature, good for a new delivery for 300 s.
+  'stripe-signature',
+]);
 /** Query parameters that carry a credential (single-use tokens in invite and reset links). */
 const SECRET_QUERY = /token|password|secret/i;
 

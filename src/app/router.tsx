@@ -37,6 +37,11 @@ const router = createBrowserRouter([
     path: '/join',
     lazy: () => import('./routes/cover-accept').then((m) => ({ Component: m.CoverAcceptRoute })),
   },
+  // Sales — payments: the buyer's page after card checkout (no sign-in, no app chrome).
+  {
+    path: '/payment/done',
+    lazy: () => import('./routes/payment-done').then((m) => ({ Component: m.PaymentDoneRoute })),
+  },
   {
     path: '/dev/mailbox',
     lazy: () => import('./routes/dev-mailbox').then((m) => ({ Component: m.DevMailboxRoute })),

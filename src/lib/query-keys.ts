@@ -85,6 +85,11 @@ export const queryKeys = {
     /** The public list, read with no session. */
     published: (token: string) => ['available', token] as const,
   },
+  // Sales — payments.
+  payments: {
+    invoice: (collectionId: string, invoiceId: string) =>
+      ['payments', collectionId, invoiceId] as const,
+  },
   devMail: () => ['dev', 'mail'] as const,
   lan: () => ['lan'] as const,
   sync: {

@@ -635,6 +635,34 @@ const TABLE: Record<string, Row> = {
     allowed: 404,
     call: () => ({ path: '/api/available/AAAAAAAAAAAAAAAAAAAAAAAAAAAAAAAA/list.csv' }),
   },
+
+  // Sales — payments. The webhook is public but signed: unsigned, it is refused (400) for
+  // anyone. The invoice routes get a malformed invoice id (422 after the membership check).
+  'POST /api/payments/webhook': {
+    access: 'public',
+    allowed: 400,
+    call: () => ({ path: '/api/payments/webhook', body: { id: 'evt_unsigned' } }),
+  },
+  'POST /api/collections/:collectionId/invoices/:invoiceId/checkout': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/invoices/not-an-id/checkout` }),
+  },
+  'GET /api/collections/:collectionId/invoices/:invoiceId/payments': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/invoices/not-an-id/payments` }),
+  },
+  'POST /api/collections/:collectionId/invoices/:invoiceId/payments': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/invoices/${randomUUID()}/payments`, body: {} }),
+  },
+  'POST /api/collections/:collectionId/invoices/:invoiceId/refund': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/invoices/${randomUUID()}/refund`, body: {} }),
+  },
 };
 
 // Some routes answer a non-helper member differently from a helper on purpose.

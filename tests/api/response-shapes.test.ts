@@ -54,9 +54,11 @@ import {
   publicAvailability,
 } from '#shared/schemas/listings';
 import { locationListResponse, locationResponse } from '#shared/schemas/locations';
+import { invoicePayments } from '#shared/schemas/payments';
 import { engineInputResponse, roundResponse, scheduleResponse } from '#shared/schemas/rounds';
 import { rulesResponse } from '#shared/schemas/rules';
 import { collections, coverReports } from '../../server/db/schema/collections';
+import { buyers, invoices, sales } from '../../server/db/schema/sales';
 import { addMember, animalBody, createAnimal, PASSWORD, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 
@@ -445,5 +447,41 @@ describe('answers the app reads', () => {
     const path = expectShape(await a.get(`${base()}/availability`), availabilitySettings).path!;
     expect(path).not.toBe(on.path);
     expectShape(await ctx.agent().get(`/api${path}`), publicAvailability);
+  });
+  // Sales — payments (the checkout answer is checked in payments.test.ts, with the fake).
+  it('an invoice’s payments, before and after a manual payment', async () => {
+    const db = ctx.database.db;
+    const collectionId = owner.collectionId;
+    const [buyer] = await db
+      .insert(buyers)
+      .values({ collectionId, name: 'Shape buyer' })
+      .returning();
+    const [sale] = await db
+      .insert(sales)
+      .values({ collectionId, buyerId: buyer!.id, reservedUntil: day(7) })
+      .returning();
+    const [invoice] = await db
+      .insert(invoices)
+      .values({
+        collectionId,
+        saleId: sale!.id,
+        number: 'SHAPE-1',
+        currency: 'CAD',
+        taxRateBp: 0,
+        taxRounding: 'per_invoice',
+        subtotalMinor: 2500,
+        taxMinor: 0,
+        totalMinor: 2500,
+        issuedOn: day(0),
+      })
+      .returning();
+    const path = `${base()}/invoices/${invoice!.id}/payments`;
+    expect(expectShape(await owner.agent.get(path), invoicePayments).cardPayments).toBe(false);
+    const paid = expectShape(
+      await owner.agent.post(path).send({ method: 'cash', amountMinor: 2500 }),
+      invoicePayments,
+      201,
+    );
+    expect(paid.invoice.status).toBe('paid');
   });
 });

@@ -11,6 +11,7 @@ import { localDateOf } from '#shared/domain/local-dates';
 import { DEMO_COLLECTION, DEMO_PASSWORD } from '../../server/access/demo-people';
 import { invites, memberships } from '../../server/db/schema/collections';
 import { users } from '../../server/db/schema/users';
+import { startPaymentFake, type PaymentFake } from '../../server/payment-fake/payment-fake';
 import { seedDemo } from '../../server/seed/demo';
 import { launchBrowser } from '../chromium';
 import { createTestContext, type TestContext } from '../setup/test-app';
@@ -20,6 +21,8 @@ export const screenshotsDir = path.resolve(import.meta.dirname, '../../test-resu
 
 export interface E2eServer {
   ctx: TestContext;
+  /** Sales — payments: the local fake of the card payment service the app pays through. */
+  paymentFake: PaymentFake;
   baseUrl: string;
   /** Seeds the demo afresh when the collection's local day has turned since the last seed. */
   reseedIfDayTurned(): Promise<void>;
@@ -36,7 +39,16 @@ export async function startServer(): Promise<E2eServer> {
   if (!fs.existsSync(path.join(distDir, 'index.html')))
     throw new Error('No production build: run `vite build` first (npm test does).');
   let baseUrl = '';
-  const ctx = await createTestContext({ distDir, publicUrl: undefined });
+  const paymentFake = await startPaymentFake();
+  const ctx = await createTestContext({
+    distDir,
+    publicUrl: undefined,
+    payments: {
+      secretKey: paymentFake.secretKey,
+      webhookSecret: paymentFake.webhookSecret,
+      apiUrl: paymentFake.url,
+    },
+  });
   await seedDemo(ctx.database.db, { bcryptCost: 10 });
   let seededFor = demoToday();
   const listen = (port: number) =>
@@ -46,6 +58,7 @@ export async function startServer(): Promise<E2eServer> {
   let server: import('node:http').Server | null = await listen(0);
   const port = (server.address() as AddressInfo).port;
   baseUrl = `http://127.0.0.1:${port}`;
+  paymentFake.setWebhookTarget(`${baseUrl}/api/payments/webhook`);
   const stop = async () => {
     if (!server) return;
     const s = server;
@@ -55,6 +68,7 @@ export async function startServer(): Promise<E2eServer> {
   };
   return {
     ctx,
+    paymentFake,
     baseUrl,
     // The demo's round is relative to the day it was seeded; a run that crosses local midnight
     // would otherwise find yesterday's fed animals gone from today's round.
@@ -70,6 +84,7 @@ export async function startServer(): Promise<E2eServer> {
     async close() {
       await stop();
       await ctx.close();
+      await paymentFake.stop();
     },
   };
 }

@@ -46,7 +46,9 @@ export async function dropTestDatabase(name: string): Promise<void> {
 }
 
 export async function createTestContext(
-  options: Partial<Pick<AppOptions, 'authLimits' | 'distDir' | 'publicUrl' | 'logger'>> & {
+  options: Partial<
+    Pick<AppOptions, 'authLimits' | 'distDir' | 'publicUrl' | 'logger' | 'payments'>
+  > & {
     /** false: as `npm start -- --no-demo` runs (DEMO_MODE=false). */
     demo?: boolean;
   } = {},
@@ -85,6 +87,7 @@ export async function createTestContext(
     },
     distDir: options.distDir ?? '/nonexistent',
     logger: options.logger,
+    payments: options.payments,
   });
   return {
     app,
