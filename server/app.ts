@@ -49,6 +49,8 @@ import {
 import { createRoundsService } from './features/rounds/rounds.service';
 import { rulesRoutes } from './features/rounds/rules.routes';
 import { animalsToReconcile } from './features/rounds/urgent-tasks';
+import { salesRoutes } from './features/sales/sales.routes';
+import { createSalesService } from './features/sales/sales.service';
 import type { LanInfo } from './lan/lan-server';
 import { createLogger, type Logger } from './logger';
 import type { DevMailbox } from './mail/dev-smtp';
@@ -291,6 +293,18 @@ export function createApp(options: AppOptions) {
   api.use(collection(), breedingRoutes(breeding, member));
   //   labels: /labels/pdf, /animals/:animalId/relabel
   api.use(collection(), labelsRoutes(createLabelsService(database.db), member));
+  // Sales — S: settings, buyers, reservations, invoices, shipping (owners and keepers only).
+  //   sales: /sales-settings, /buyers…, /sales…, /invoices/:invoiceId…, /animals/:animalId/sale
+  const sales = createSalesService(database.db, {
+    now,
+    mailer: options.mailer,
+    background,
+    logger,
+    retireAsSold: (tx, c, animalId, userId, body) =>
+      animals.setStatusIn(tx, c, animalId, userId, body),
+    // careSheetPdf: the lead wires helper L's createCareSheetsService(…).pdf here at the merge.
+  });
+  api.use(collection(), salesRoutes(sales, member));
   //   collections: the collection itself (/), /members…, /invites…, /membership
   api.use(collection(), collectionsRoutes(collections, member, inviteLimit));
   api.use(apiNotFound);
@@ -311,6 +325,7 @@ export function createApp(options: AppOptions) {
       background,
       climate,
       dailyMail,
+      sales,
     },
     async shutdown() {
       // Mail a request started goes out before the database and the mailer close.

@@ -43,6 +43,7 @@ const jobs = await startJobs({
   coverReports: services.coverReports,
   helperReports: services.helperReports,
   dailyMail: services.dailyMail,
+  sales: services.sales,
   logger,
 });
 
