@@ -86,6 +86,13 @@ export const buyerBody = z.object({
   notes: optionalText(1000, 'the notes'),
 });
 export type BuyerBody = z.input<typeof buyerBody>;
+/** A change to a buyer: the fields sent change, the rest stay; an empty string clears one. */
+export const buyerPatchBody = buyerBody
+  .partial()
+  .refine((b) => Object.values(b).some((v) => v !== undefined), {
+    message: 'Say what to change about the buyer.',
+  });
+export type BuyerPatchBody = z.input<typeof buyerPatchBody>;
 export const buyerParams = z.object({ collectionId: uuid, buyerId: uuid });
 
 export const buyerView = z.object({

@@ -70,7 +70,15 @@ describe('buyers', () => {
       .patch(`${c}/buyers/${id}`)
       .send({ name: 'Robin A.', email: '', notes: 'Prefers Tuesday shipping' })
       .expect(200)
-      .expect((r) => expect(r.body).toMatchObject({ name: 'Robin A.', email: null, saleCount: 0 }));
+      .expect((r) =>
+        expect(r.body).toMatchObject({
+          name: 'Robin A.',
+          email: null, // an empty string clears it
+          phone: '416 555 0101', // not sent: kept
+          notes: 'Prefers Tuesday shipping',
+          saleCount: 0,
+        }),
+      );
     const list = await owner.agent.get(`${c}/buyers`).expect(200);
     expect(list.body.buyers.map((b: { id: string }) => b.id)).toContain(id);
     await owner.agent.delete(`${c}/buyers/${id}`).expect(204);

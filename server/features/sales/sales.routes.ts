@@ -6,6 +6,7 @@ import {
   animalSaleParams,
   buyerBody,
   buyerParams,
+  buyerPatchBody,
   confirmShippingBody,
   invoiceBody,
   invoiceParams,
@@ -64,7 +65,7 @@ export function salesRoutes(service: SalesService, member: (min: Role) => Reques
   router.patch(
     '/buyers/:buyerId',
     keeper,
-    validate({ params: buyerParams, body: buyerBody }),
+    validate({ params: buyerParams, body: buyerPatchBody }),
     async (_q, res) => {
       res.json(await service.editBuyer(c(res), param(res, 'buyerId'), body(res)));
     },

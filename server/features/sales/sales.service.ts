@@ -21,6 +21,7 @@ import type {
 } from '#shared/schemas/sales';
 import type {
   buyerBody,
+  buyerPatchBody,
   confirmShippingBody,
   invoiceBody,
   reserveBody,
@@ -299,9 +300,18 @@ export function createSalesService(db: Db, deps: SalesDeps) {
       return this.buyer(c, id);
     },
 
-    async editBuyer(c: Collection, buyerId: string, body: z.infer<typeof buyerBody>) {
-      if (!(await repo.updateBuyer(db, c.collectionId, buyerId, body, now())))
-        throw buyerNotFound();
+    async editBuyer(c: Collection, buyerId: string, body: z.infer<typeof buyerPatchBody>) {
+      const current = await repo.findBuyer(db, c.collectionId, buyerId);
+      if (!current) throw buyerNotFound();
+      const { name, email, phone, address, notes } = current.buyer;
+      const changed = Object.fromEntries(Object.entries(body).filter(([, v]) => v !== undefined));
+      await repo.updateBuyer(
+        db,
+        c.collectionId,
+        buyerId,
+        { name, email, phone, address, notes, ...changed },
+        now(),
+      );
       return this.buyer(c, buyerId);
     },
 
