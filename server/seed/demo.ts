@@ -21,6 +21,7 @@ import { users } from '../db/schema/users';
 import { refoldStates } from '../features/events/projection';
 import { recordEvents } from '../features/events/record-events';
 import { seedColonies } from './colonies';
+import { seedSales } from './sales';
 
 export { DEMO_PASSWORD };
 
@@ -795,6 +796,7 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
     await recordEvents(tx, { collectionId }, rows, { from: 'history' });
     await refoldStates(tx, collectionId, zone);
     await seedColonies(tx, collectionId, ownerId, today, zone);
+    await seedSales(tx, collectionId);
     return { created: true, animals: roster.length, events: rows.length, collectionId, today };
   });
 }

@@ -85,9 +85,9 @@ describe('invoices', () => {
       issuedOn: '2026-12-03',
     });
     expect(res.body.lines.map((l: { description: string }) => l.description)).toEqual([
-      expect.stringMatching(/^Heteroscodra formosus, sling \(TS-/),
-      expect.stringMatching(/^Heteroscodra formosus, sling/),
-      expect.stringMatching(/^Heteroscodra formosus, sling/),
+      expect.stringMatching(/^Hapalopus formosus, sling \(TS-/),
+      expect.stringMatching(/^Hapalopus formosus, sling/),
+      expect.stringMatching(/^Hapalopus formosus, sling/),
       'Shipping',
       'Deli cups',
     ]);
@@ -138,7 +138,7 @@ describe('invoices', () => {
     expect(text).toContain('Test Inverts');
     expect(text).toContain('HST 123456789');
     expect(text).toContain('Kit Marlowe');
-    expect(text).toMatch(/Heteroscodra formosus, sling/);
+    expect(text).toMatch(/Hapalopus formosus, sling/);
     // 70.00 + 13 % (9.10) = 79.10
     expect(text).toMatch(/Tax 13 %\s+CA\$9\.10/);
     expect(text).toMatch(/Total\s+CA\$79\.10/);

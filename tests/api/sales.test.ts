@@ -1,7 +1,8 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { animals, events } from '../../server/db/schema/animals';
-import { saleListings } from '../../server/db/schema/sales';
+import { buyers, saleListings, salesSettings } from '../../server/db/schema/sales';
+import { demoCollectionId, seedDemo } from '../../server/seed/demo';
 import { addMember, createAnimal, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
 import { listedClutch, receivePayment } from '../support/sales';
@@ -264,7 +265,7 @@ describe('shipping and the hand-over', () => {
     await owner.agent.post(`${s}/ship`).expect(409);
     const note = await ctx.mailbox.waitFor((m) => m.subject.includes('on their way'));
     expect(note.to).toEqual(['robin@example.test']);
-    expect(note.text).toMatch(/Heteroscodra formosus/);
+    expect(note.text).toMatch(/Hapalopus formosus/);
   });
 
   it('shows a helper nothing of sales: 403 on every sales route', async () => {
@@ -278,5 +279,21 @@ describe('shipping and the hand-over', () => {
     });
     for (const path of ['/sales', '/buyers', '/sales-settings', '/sales/available'])
       await helper.agent.get(`${c}${path}`).expect(403);
+  });
+});
+
+describe('the demo', () => {
+  it('sells in Canadian dollars with 13 % HST and has one buyer on file', async () => {
+    const db = ctx.database.db;
+    await seedDemo(db, { bcryptCost: 4 });
+    const collectionId = (await demoCollectionId(db))!;
+    const [row] = await db
+      .select()
+      .from(salesSettings)
+      .where(eq(salesSettings.collectionId, collectionId));
+    expect(row).toMatchObject({ currency: 'CAD', taxRateBp: 1300, taxRounding: 'per_invoice' });
+    expect(row!.sellerDetails).toMatch(/^Northlight Inverts/);
+    const onFile = await db.select().from(buyers).where(eq(buyers.collectionId, collectionId));
+    expect(onFile).toHaveLength(1);
   });
 });

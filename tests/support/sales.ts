@@ -16,7 +16,7 @@ export async function listedClutch(
   for (let i = 0; i < count; i++) {
     const animal = await createAnimal(db, collectionId, {
       name: `Sling ${i + 1}`,
-      scientificName: 'Heteroscodra formosus',
+      scientificName: 'Hapalopus formosus',
       lifeStage: 'sling',
       sizeMm: 12,
       clutch,
