@@ -158,8 +158,15 @@ describe('a backup with sales', () => {
   it('holds them, and a restore brings every one back with its references', async () => {
     const d = described(backup);
     expect(d.buyers).toHaveLength(2);
-    expect(d.sales.map((s) => s.status)).toEqual(['shipped', 'cancelled', 'reserved']);
-    expect(d.invoices.map((i) => i.status)).toEqual(['paid', 'cancelled']);
+    expect(d.sales.map((s) => (s as Record<string, unknown>).status)).toEqual([
+      'shipped',
+      'cancelled',
+      'reserved',
+    ]);
+    expect(d.invoices.map((i) => (i as Record<string, unknown>).status)).toEqual([
+      'paid',
+      'cancelled',
+    ]);
     expect(d.payments).toHaveLength(1);
     expect(d.saleListings).toHaveLength(3); // three shipped ones left the stock
     expect(d.soldWith).toHaveLength(3);

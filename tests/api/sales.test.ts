@@ -91,8 +91,11 @@ describe('buyers', () => {
       .post(`${c}/sales`)
       .send({ buyerId: kept, animalIds: [animalId] })
       .expect(201);
+    expect((await owner.agent.get(`${c}/buyers/${kept}`).expect(200)).body.saleCount).toBe(1);
+    const listed = (await owner.agent.get(`${c}/buyers`).expect(200)).body.buyers;
+    expect(listed.find((b: { id: string }) => b.id === kept).saleCount).toBe(1);
     const refused = await owner.agent.delete(`${c}/buyers/${kept}`).expect(409);
-    expect(refused.body.error.message).toMatch(/sale/);
+    expect(refused.body.error.message).toMatch(/has 1 sale\(s\) on record/);
   });
 
   it('refuses a bad e-mail address with words', async () => {

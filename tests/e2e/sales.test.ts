@@ -84,3 +84,37 @@ describe('sales at 360 × 740', () => {
     await context.close();
   }, 45_000);
 });
+
+describe('sales settings and buyers at 360 × 740', () => {
+  it('saves a tax rate typed as a percent and adds a buyer', async () => {
+    const { context, page, consoleErrors } = await phonePage(env.browser);
+    await signInAsDemo(page, env.server.baseUrl, 'owner@northlight.test');
+    await page.goto(`${env.server.baseUrl}/sales/settings`);
+    await page.getByText('Per invoice: the lines are added up first').waitFor();
+    await page.getByLabel('Tax rate (%)').fill('13.5');
+    await page.getByRole('button', { name: 'Save sales settings' }).click();
+    await page.getByText('Sales settings saved.').waitFor();
+    await expectAccessible(page, 'sales settings');
+    await screenshot(page, 'sales-04-settings');
+    const saved = await page.evaluate(async () => {
+      const me = await (await fetch('/api/auth/me')).json();
+      const id = me.memberships[0].collectionId;
+      return (await (await fetch(`/api/collections/${id}/sales-settings`)).json()).taxRateBp;
+    });
+    expect(saved).toBe(1350);
+
+    await page.getByRole('link', { name: '← Sales' }).click();
+    await page.getByRole('link', { name: 'Buyers' }).click();
+    // The first flow sold Maren three slings: her card counts the sale.
+    await page.getByText('1 sale', { exact: true }).waitFor();
+    await page.getByRole('button', { name: 'Add a buyer' }).click();
+    await page.getByLabel('Name').fill('Tobias Renner');
+    await page.getByLabel('E-mail').fill('tobias@example.test');
+    await page.getByRole('button', { name: 'Add buyer' }).click();
+    await page.getByText('Tobias Renner').waitFor();
+    await expectAccessible(page, 'buyers');
+    await screenshot(page, 'sales-05-buyers');
+    expect(consoleErrors).toEqual([]);
+    await context.close();
+  }, 30_000);
+});

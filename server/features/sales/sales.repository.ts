@@ -67,7 +67,9 @@ export async function takeInvoiceNumber(db: Db, collectionId: string): Promise<n
 
 // ---- Buyers ------------------------------------------------------------------------------
 
-const saleCount = sql<number>`(select count(*)::int from ${sales} where ${sales.buyerId} = ${buyers.id})`;
+// Written out with table names: in a one-table select Drizzle leaves columns unqualified, and
+// an unqualified `id` inside the subquery would be the sale's own.
+const saleCount = sql<number>`(select count(*)::int from ${sales} where ${sales}.buyer_id = ${buyers}.id)`;
 
 export async function listBuyers(db: Db, collectionId: string) {
   return db
@@ -121,7 +123,7 @@ export async function deleteBuyer(db: Db, collectionId: string, buyerId: string)
 // ---- Listings the sales read ---------------------------------------------------------------
 
 /** No unreleased sale holds the animal (the partial unique index's condition). */
-const notInLiveSale = sql`not exists (select 1 from ${saleAnimals} where ${saleAnimals.animalId} = ${animals.id} and ${saleAnimals.releasedAt} is null)`;
+const notInLiveSale = sql`not exists (select 1 from ${saleAnimals} where ${saleAnimals}.animal_id = ${animals}.id and ${saleAnimals}.released_at is null)`;
 
 const listedAnimal = {
   id: animals.id,
@@ -195,11 +197,11 @@ export async function listSales(db: Db, collectionId: string) {
     .select({
       sale: sales,
       buyerName: buyers.name,
-      animalCount: sql<number>`(select count(*)::int from ${saleAnimals} where ${saleAnimals.saleId} = ${sales.id})`,
-      priceMinor: sql<number>`(select coalesce(sum(${saleAnimals.priceMinor}), 0)::bigint from ${saleAnimals} where ${saleAnimals.saleId} = ${sales.id})`,
+      animalCount: sql<number>`(select count(*)::int from ${saleAnimals} where ${saleAnimals}.sale_id = ${sales}.id)`,
+      priceMinor: sql<number>`(select coalesce(sum(${saleAnimals}.price_minor), 0)::bigint from ${saleAnimals} where ${saleAnimals}.sale_id = ${sales}.id)`,
       currency: sql<
         string | null
-      >`(select min(${saleAnimals.currency}) from ${saleAnimals} where ${saleAnimals.saleId} = ${sales.id})`,
+      >`(select min(${saleAnimals}.currency) from ${saleAnimals} where ${saleAnimals}.sale_id = ${sales}.id)`,
       invoiceStatus: invoices.status,
     })
     .from(sales)
