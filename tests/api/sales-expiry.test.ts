@@ -120,3 +120,26 @@ describe('reservations expire by themselves', () => {
     await owner.agent.post(`${c}/sales`).send({ buyerId: buyer, animalIds: paid.ids }).expect(409);
   });
 });
+
+describe('the expire-reservations job', () => {
+  it('runs through pg-boss and expires a hold that has run out', async () => {
+    const { startJobs, EXPIRE_RESERVATIONS } = await import('../../server/jobs/jobs');
+    const { createLogger } = await import('../../server/logger');
+    ctx.setNow(new Date('2026-12-10T16:00:00Z'));
+    const sale = await reserve('2026-12-11', 1);
+    ctx.setNow(new Date('2026-12-13T16:00:00Z'));
+    const jobs = await startJobs({
+      databaseUrl: ctx.databaseUrl,
+      rounds: ctx.services.rounds,
+      coverReports: ctx.services.coverReports,
+      sales: ctx.services.sales,
+      logger: createLogger({ NODE_ENV: 'test' }),
+    });
+    try {
+      await jobs.boss.send(EXPIRE_RESERVATIONS, {});
+      await expect.poll(() => statusOf(sale.id), { timeout: 20_000 }).toBe('expired');
+    } finally {
+      await jobs.stop();
+    }
+  }, 40_000);
+});
