@@ -61,6 +61,8 @@ import {
 import { createRoundsService } from './features/rounds/rounds.service';
 import { rulesRoutes } from './features/rounds/rules.routes';
 import { animalsToReconcile } from './features/rounds/urgent-tasks';
+import { salesRoutes } from './features/sales/sales.routes';
+import { createSalesService } from './features/sales/sales.service';
 import type { LanInfo } from './lan/lan-server';
 import { createLogger, type Logger } from './logger';
 import type { DevMailbox } from './mail/dev-smtp';
@@ -334,6 +336,19 @@ export function createApp(options: AppOptions) {
   // Sales — payments: /invoices/:invoiceId/checkout, /invoices/:invoiceId/payments,
   //                   /invoices/:invoiceId/refund
   api.use(collection(), paymentsRoutes(payments, member));
+  // Sales — S: settings, buyers, reservations, invoices, shipping (owners and keepers only).
+  //   sales: /sales-settings, /buyers…, /sales…, /invoices/:invoiceId…, /animals/:animalId/sale
+  const sales = createSalesService(database.db, {
+    now,
+    mailer: options.mailer,
+    background,
+    logger,
+    retireAsSold: (tx, c, animalId, userId, body) =>
+      animals.setStatusIn(tx, c, animalId, userId, body),
+    careSheetPdf: (c, animalId) => careSheets.pdf(c, animalId),
+    closeCheckout: (collectionId, invoiceId) => payments.expireCheckout(collectionId, invoiceId),
+  });
+  api.use(collection(), salesRoutes(sales, member));
   //   collections: the collection itself (/), /members…, /invites…, /membership
   api.use(collection(), collectionsRoutes(collections, member, inviteLimit));
   // Sales — listings, availability, care sheets (L)
@@ -363,6 +378,7 @@ export function createApp(options: AppOptions) {
       careSheets,
       // Sales — payments: expireCheckout for a cancelled invoice.
       payments,
+      sales,
     },
     async shutdown() {
       // Mail a request started goes out before the database and the mailer close.

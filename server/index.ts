@@ -64,6 +64,7 @@ const jobs = await startJobs({
   coverReports: services.coverReports,
   helperReports: services.helperReports,
   dailyMail: services.dailyMail,
+  sales: services.sales,
   logger,
 });
 

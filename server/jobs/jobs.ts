@@ -4,11 +4,13 @@ import type { DailyMail } from '../features/climate/daily-mail';
 import type { CoverReportsService } from '../features/cover/cover-reports.service';
 import type { HelperReportsService } from '../features/helper-reports/helper-reports.service';
 import type { RoundsService } from '../features/rounds/rounds.service';
+import type { SalesService } from '../features/sales/sales.service';
 import type { Logger } from '../logger';
 
 export const BUILD_DUE_ROUNDS = 'build-due-rounds';
 export const SEND_COVER_REPORTS = 'send-cover-reports';
 export const SEND_DAILY_MAILS = 'send-daily-mails';
+export const EXPIRE_RESERVATIONS = 'expire-reservations';
 
 /**
  * Scheduled work lives in PostgreSQL (pg-boss): a cron schedule is fired by one instance
@@ -23,6 +25,8 @@ export async function startJobs(options: {
   helperReports?: Pick<HelperReportsService, 'deliverDue'>;
   /** The owners' morning e-mail (rooms out of range), from 07:00 in each collection's zone. */
   dailyMail?: Pick<DailyMail, 'runDue'>;
+  /** Sales — S: reservations whose hold ended before the collection's today, nothing paid. */
+  sales?: Pick<SalesService, 'expireReservations'>;
   logger: Logger;
   cron?: string;
 }) {
@@ -35,6 +39,7 @@ export async function startJobs(options: {
     await boss.createQueue(BUILD_DUE_ROUNDS);
     await boss.createQueue(SEND_COVER_REPORTS);
     await boss.createQueue(SEND_DAILY_MAILS);
+    await boss.createQueue(EXPIRE_RESERVATIONS);
     // Every five minutes: each collection's round is ready within minutes of its local midnight.
     await boss.schedule(BUILD_DUE_ROUNDS, options.cron ?? '*/5 * * * *', {}, { tz: 'UTC' });
     // Cover reports: every ten minutes, so each covered day's report goes out shortly after
@@ -43,6 +48,8 @@ export async function startJobs(options: {
     // The morning e-mail: every quarter hour, so each collection's goes out soon after its 07:00
     // (zones differ by quarter hours at most); sent once per owner and day whatever the runs.
     await boss.schedule(SEND_DAILY_MAILS, '*/15 * * * *', {}, { tz: 'UTC' });
+    // Holds end at a collection's local midnight: every quarter hour releases them soon after.
+    await boss.schedule(EXPIRE_RESERVATIONS, '*/15 * * * *', {}, { tz: 'UTC' });
   });
   await boss.work(BUILD_DUE_ROUNDS, async ([job]) => {
     await buildDueRoundsJob(options.rounds, options.logger, job?.id);
@@ -58,6 +65,10 @@ export async function startJobs(options: {
   await boss.work(SEND_DAILY_MAILS, async ([job]) => {
     const sent = (await options.dailyMail?.runDue()) ?? 0;
     options.logger.info({ queue: SEND_DAILY_MAILS, jobId: job?.id, mails: sent }, 'job done');
+  });
+  await boss.work(EXPIRE_RESERVATIONS, async ([job]) => {
+    const expired = (await options.sales?.expireReservations()) ?? 0;
+    options.logger.info({ queue: EXPIRE_RESERVATIONS, jobId: job?.id, expired }, 'job done');
   });
   return {
     boss,

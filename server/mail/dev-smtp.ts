@@ -6,6 +6,8 @@ export interface StoredMail {
   subject: string;
   text: string;
   receivedAt: string;
+  /** Files that came with the message (invoices, care sheets): names, types and bytes. */
+  attachments?: { filename: string; contentType: string; content: Buffer }[];
 }
 
 /** Every message the local SMTP fake received, newest last. */
@@ -67,6 +69,11 @@ export async function startDevSmtp(): Promise<DevSmtp> {
             subject: parsed.subject ?? '',
             text: parsed.text ?? '',
             receivedAt: new Date().toISOString(),
+            attachments: parsed.attachments.map((a) => ({
+              filename: a.filename ?? 'attachment',
+              contentType: a.contentType,
+              content: a.content,
+            })),
           });
           callback();
         })

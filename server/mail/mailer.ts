@@ -5,6 +5,14 @@ export interface OutgoingMail {
   subject: string;
   text: string;
   html?: string;
+  /** Sales — S: files sent with the message (an invoice PDF, care sheets). */
+  attachments?: MailAttachment[];
+}
+
+export interface MailAttachment {
+  filename: string;
+  content: Buffer;
+  contentType: string;
 }
 
 export interface Mailer {

@@ -21,6 +21,7 @@ import { users } from '../db/schema/users';
 import { refoldStates } from '../features/events/projection';
 import { recordEvents } from '../features/events/record-events';
 import { seedColonies } from './colonies';
+import { seedSales } from './sales';
 import { DEMO_CLUTCH, seedSalesStock } from './sales-stock';
 
 export { DEMO_PASSWORD };
@@ -803,6 +804,7 @@ export async function seedDemo(db: NodePgDatabase, options: SeedOptions = {}) {
       ownerId,
       roster.flatMap((a, i) => (a.clutch === DEMO_CLUTCH ? [insertedAnimals[i]!.id] : [])),
     );
+    await seedSales(tx, collectionId);
     return { created: true, animals: roster.length, events: rows.length, collectionId, today };
   });
 }

@@ -14,6 +14,15 @@ import { EVENT_PAYLOADS, eventBatchBody, eventKind } from './events';
 import { locationInput } from './locations';
 import { celsius, relativeHumidity } from './measures';
 import { careSettingsBody, dietSetting, enclosureCareDefaults, rulesOverride } from './rules';
+import {
+  buyerBody,
+  currencyCode,
+  INVOICE_STATUSES,
+  SALE_STATUSES,
+  salesSettingsBody,
+  shippingConcernView,
+  TAX_ROUNDINGS,
+} from './sales';
 import './messages';
 
 export const BACKUP_FORMAT = 'rackside-backup';
@@ -21,9 +30,11 @@ export const BACKUP_FORMAT = 'rackside-backup';
  * Version 2 added feeder colonies, their stock history, chores, room targets and climate
  * readings. A version-1 file (without them) still restores; the version went up so that a server
  * that reads only version 1 refuses a newer file rather than silently dropping those lists.
+ * Version 3 added sales (sales settings, buyers, listings, sales with their animals, invoices
+ * with their lines, payments): older files restore with none.
  */
-export const BACKUP_VERSION = 2;
-export const READABLE_BACKUP_VERSIONS = [1, 2] as const;
+export const BACKUP_VERSION = 3;
+export const READABLE_BACKUP_VERSIONS = [1, 2, 3] as const;
 
 const instant = z.iso.datetime({
   offset: true,
@@ -39,7 +50,8 @@ const photo = z
 /*
  * A backup is one JSON object whose members come in this order: format, version, exportedAt,
  * collection, locations, animals, eggSacs, events, colonies, colonyStockChanges, chores,
- * roomTargets, climateReadings (the order the server writes them; a restore reads places before
+ * roomTargets, climateReadings, salesSettings, buyers, saleListings, sales, invoices, payments
+ * (the order the server writes them; a restore reads places before
  * the animals in them, animals before their sacs and their history, colonies before their stock
  * history). Every record is
  * checked with the schemas the API uses for the same thing, so a restore can store nothing
@@ -275,3 +287,134 @@ export const backupReading = z
     { message: 'A reading needs a temperature or the humidity.' },
   );
 export type BackupReading = z.input<typeof backupReading>;
+
+// --- Version 3 (sales — S): what a keeper sells, to whom, invoiced and paid. Helpers never see
+// a backup (owners only), so buyers' details travel in it like the rest of the collection.
+
+const minor = z
+  .number()
+  .int({ message: 'Give amounts as whole minor units.' })
+  .min(0, { message: 'An amount cannot be negative.' })
+  .max(10 ** 12, { message: 'That amount is too large.' });
+const shortText = (max: number) => z.string().max(max).nullable();
+
+/** The collection's sales settings (one element at most). The public list's link is not kept. */
+export const backupSalesSettings = z
+  .object({
+    ...salesSettingsBody.shape,
+    availabilityOn: z.boolean(),
+    availabilityColumns: z.array(z.string().max(40)).max(20),
+    availabilityNote: z.string().max(2000),
+    nextInvoiceNumber: z.number().int().min(1).max(1_000_000),
+    updatedAt: instant,
+  })
+  .refine((x) => x.safeMinC < x.safeMaxC, {
+    message: 'The lowest safe temperature must be below the highest.',
+    path: ['safeMaxC'],
+  });
+export type BackupSalesSettings = z.input<typeof backupSalesSettings>;
+
+export const backupBuyer = z.object({
+  id: uuid,
+  name: buyerBody.shape.name,
+  email: z.email({ message: 'This e-mail address is not valid.' }).max(254).nullable(),
+  phone: shortText(40),
+  address: shortText(500),
+  notes: shortText(1000),
+  createdAt: instant,
+  updatedAt: instant,
+});
+export type BackupBuyer = z.input<typeof backupBuyer>;
+
+export const backupListing = z.object({
+  animalId: uuid,
+  priceMinor: minor,
+  currency: currencyCode,
+  description: z.string().max(2000),
+  listedPublicly: z.boolean(),
+  listedAt: instant,
+  updatedAt: instant,
+});
+export type BackupListing = z.input<typeof backupListing>;
+
+/** A sale with its animals at the agreed price (released ones included: history). */
+export const backupSale = z.object({
+  id: uuid,
+  buyerId: uuid,
+  status: z.enum(SALE_STATUSES, { message: 'A sale is reserved, shipped, expired or cancelled.' }),
+  reservedUntil: localDate,
+  note: shortText(500),
+  shipOn: localDate.nullable(),
+  shipRoute: shortText(200),
+  forecastLowC: celsius.nullable(),
+  forecastHighC: celsius.nullable(),
+  shipCheckConfirmedAt: instant.nullable(),
+  shipCheckConcerns: z.array(shippingConcernView).nullable(),
+  packing: z.record(z.string(), z.boolean()),
+  carrier: shortText(80),
+  tracking: shortText(120),
+  shippedAt: instant.nullable(),
+  endedAt: instant.nullable(),
+  createdAt: instant,
+  updatedAt: instant,
+  animals: z
+    .array(
+      z.object({
+        animalId: uuid,
+        priceMinor: minor,
+        currency: currencyCode,
+        releasedAt: instant.nullable(),
+      }),
+    )
+    .min(1, { message: 'A sale has at least one animal.' })
+    .max(1000),
+});
+export type BackupSale = z.input<typeof backupSale>;
+
+/** An invoice as issued, with its lines. The payment service's session is not kept. */
+export const backupInvoice = z.object({
+  id: uuid,
+  saleId: uuid,
+  number: z.string().min(1).max(20),
+  currency: currencyCode,
+  taxRateBp: z.number().int().min(0).max(10_000),
+  taxRounding: z.enum(TAX_ROUNDINGS),
+  shippingMinor: minor,
+  subtotalMinor: minor,
+  taxMinor: minor,
+  totalMinor: minor,
+  paidMinor: minor,
+  refundedMinor: minor,
+  status: z.enum(INVOICE_STATUSES),
+  issuedOn: localDate,
+  dueOn: localDate.nullable(),
+  emailedAt: instant.nullable(),
+  cancelledAt: instant.nullable(),
+  createdAt: instant,
+  updatedAt: instant,
+  lines: z
+    .array(
+      z.object({
+        position: z.number().int().min(1).max(10_000),
+        animalId: uuid.nullable(),
+        description: z.string().min(1).max(300),
+        quantity: z.number().int().min(1).max(100_000),
+        unitMinor: minor,
+        netMinor: minor,
+        taxMinor: minor,
+      }),
+    )
+    .max(2000),
+});
+export type BackupInvoice = z.input<typeof backupInvoice>;
+
+export const backupPayment = z.object({
+  id: uuid,
+  invoiceId: uuid,
+  kind: z.enum(['payment', 'refund'], { message: 'A payment or a refund.' }),
+  amountMinor: minor.min(1),
+  currency: currencyCode,
+  providerRef: z.string().min(1).max(200),
+  at: instant,
+});
+export type BackupPayment = z.input<typeof backupPayment>;

@@ -11,6 +11,8 @@ export const devMailResponse = z.object({
       subject: z.string(),
       text: z.string(),
       receivedAt: z.string(),
+      /** Names of the files that came with it (an invoice PDF, care sheets). */
+      attachments: z.array(z.string()).optional(),
     }),
   ),
 });

@@ -97,7 +97,13 @@ export const EVENT_PAYLOADS = {
     })
     .strict(),
   status_changed: z
-    .object({ from: z.enum(ANIMAL_STATUSES), to: z.enum(ANIMAL_STATUSES), note })
+    .object({
+      from: z.enum(ANIMAL_STATUSES),
+      to: z.enum(ANIMAL_STATUSES),
+      note,
+      // Sales — S: sold with a sale links it by id only; the buyer's name is never in history.
+      saleId: z.uuid().optional(),
+    })
     .strict(),
 } satisfies Record<(typeof EVENT_KINDS)[number], z.ZodType>;
 

@@ -94,6 +94,26 @@ const router = createBrowserRouter([
         path: '/colonies/:colonyId',
         lazy: () => import('./routes/colony').then((m) => ({ Component: m.ColonyRoute })),
       },
+      // Sales — S: reservations and sales, buyers, settings, one sale (/sales/stock is L's).
+      {
+        path: '/sales',
+        lazy: () => import('./routes/sales').then((m) => ({ Component: m.SalesRoute })),
+      },
+      {
+        path: '/sales/buyers',
+        lazy: () =>
+          import('./routes/sales-buyers').then((m) => ({ Component: m.SalesBuyersRoute })),
+      },
+      {
+        path: '/sales/settings',
+        lazy: () =>
+          import('./routes/sales-settings').then((m) => ({ Component: m.SalesSettingsRoute })),
+      },
+      {
+        path: '/sales/:saleId',
+        lazy: () =>
+          import('./routes/sales-detail').then((m) => ({ Component: m.SalesDetailRoute })),
+      },
       {
         path: '/breeding',
         lazy: () => import('./routes/breeding').then((m) => ({ Component: m.BreedingRoute })),

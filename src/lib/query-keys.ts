@@ -90,6 +90,18 @@ export const queryKeys = {
     invoice: (collectionId: string, invoiceId: string) =>
       ['payments', collectionId, invoiceId] as const,
   },
+  // Sales — S: settings, buyers, sales; `all` refreshes every one of them after a change.
+  sales: {
+    all: (collectionId: string) => ['sales', collectionId] as const,
+    settings: (collectionId: string) => ['sales', collectionId, 'settings'] as const,
+    buyers: (collectionId: string) => ['sales', collectionId, 'buyers'] as const,
+    list: (collectionId: string) => ['sales', collectionId, 'list'] as const,
+    available: (collectionId: string) => ['sales', collectionId, 'available'] as const,
+    sale: (collectionId: string, saleId: string) =>
+      ['sales', collectionId, 'sale', saleId] as const,
+    animal: (collectionId: string, animalId: string) =>
+      ['sales', collectionId, 'animal', animalId] as const,
+  },
   devMail: () => ['dev', 'mail'] as const,
   lan: () => ['lan'] as const,
   sync: {

@@ -8,6 +8,7 @@ import type { Test } from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { handoverNotes } from '../../server/db/schema/animals';
 import { invites, locations, memberships } from '../../server/db/schema/collections';
+import { buyers, invoices, sales } from '../../server/db/schema/sales';
 import { users } from '../../server/db/schema/users';
 import { listRoutes } from '../../server/route-list';
 import { addMember, animalBody, createAnimal, signUp, type SignedUp } from '../factories';
@@ -663,7 +664,165 @@ const TABLE: Record<string, Row> = {
     allowed: 422,
     call: (f) => ({ path: `${f.c}/invoices/${randomUUID()}/refund`, body: {} }),
   },
+  // Sales — S: owners and keepers only; helpers never see prices, buyers or sales (403). Reads
+  // use real records (salesRecords); writes send a body the route refuses (422) or an id that
+  // is no record of the collection (404), so nothing changes.
+  'GET /api/collections/:collectionId/sales-settings': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/sales-settings` }),
+  },
+  'PUT /api/collections/:collectionId/sales-settings': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/sales-settings`, body: {} }),
+  },
+  'GET /api/collections/:collectionId/buyers': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/buyers` }),
+  },
+  'POST /api/collections/:collectionId/buyers': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/buyers`, body: {} }),
+  },
+  'GET /api/collections/:collectionId/buyers/:buyerId': {
+    access: 'keeper',
+    allowed: 200,
+    call: async (f) => ({ path: `${f.c}/buyers/${(await salesRecords(f)).buyerId}` }),
+  },
+  'PATCH /api/collections/:collectionId/buyers/:buyerId': {
+    access: 'keeper',
+    allowed: 422,
+    call: async (f) => ({ path: `${f.c}/buyers/${(await salesRecords(f)).buyerId}`, body: {} }),
+  },
+  'DELETE /api/collections/:collectionId/buyers/:buyerId': {
+    access: 'keeper',
+    allowed: 404,
+    call: (f) => ({ path: `${f.c}/buyers/${randomUUID()}` }),
+  },
+  'GET /api/collections/:collectionId/sales': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/sales` }),
+  },
+  'GET /api/collections/:collectionId/sales/available': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/sales/available` }),
+  },
+  'POST /api/collections/:collectionId/sales': {
+    access: 'keeper',
+    allowed: 422,
+    call: (f) => ({ path: `${f.c}/sales`, body: {} }),
+  },
+  'GET /api/collections/:collectionId/sales/:saleId': {
+    access: 'keeper',
+    allowed: 200,
+    call: async (f) => ({ path: `${f.c}/sales/${(await salesRecords(f)).saleId}` }),
+  },
+  'PATCH /api/collections/:collectionId/sales/:saleId': {
+    access: 'keeper',
+    allowed: 422,
+    call: async (f) => ({ path: `${f.c}/sales/${(await salesRecords(f)).saleId}`, body: {} }),
+  },
+  'POST /api/collections/:collectionId/sales/:saleId/cancel': {
+    access: 'keeper',
+    allowed: 404,
+    call: (f) => ({ path: `${f.c}/sales/${randomUUID()}/cancel` }),
+  },
+  'POST /api/collections/:collectionId/sales/:saleId/invoice': {
+    access: 'keeper',
+    allowed: 422,
+    call: async (f) => ({
+      path: `${f.c}/sales/${(await salesRecords(f)).saleId}/invoice`,
+      body: { shippingMinor: -1 },
+    }),
+  },
+  'GET /api/collections/:collectionId/invoices/:invoiceId': {
+    access: 'keeper',
+    allowed: 200,
+    call: async (f) => ({ path: `${f.c}/invoices/${(await salesRecords(f)).invoiceId}` }),
+  },
+  'GET /api/collections/:collectionId/invoices/:invoiceId/invoice.pdf': {
+    access: 'keeper',
+    allowed: 200,
+    call: async (f) => ({
+      path: `${f.c}/invoices/${(await salesRecords(f)).invoiceId}/invoice.pdf`,
+    }),
+  },
+  'POST /api/collections/:collectionId/invoices/:invoiceId/email': {
+    access: 'keeper',
+    allowed: 404,
+    call: (f) => ({ path: `${f.c}/invoices/${randomUUID()}/email` }),
+  },
+  'POST /api/collections/:collectionId/invoices/:invoiceId/cancel': {
+    access: 'keeper',
+    allowed: 404,
+    call: (f) => ({ path: `${f.c}/invoices/${randomUUID()}/cancel` }),
+  },
+  'PUT /api/collections/:collectionId/sales/:saleId/shipping': {
+    access: 'keeper',
+    allowed: 422,
+    call: async (f) => ({
+      path: `${f.c}/sales/${(await salesRecords(f)).saleId}/shipping`,
+      body: {},
+    }),
+  },
+  'POST /api/collections/:collectionId/sales/:saleId/shipping/confirm': {
+    access: 'keeper',
+    allowed: 422,
+    call: async (f) => ({
+      path: `${f.c}/sales/${(await salesRecords(f)).saleId}/shipping/confirm`,
+      body: { shipAnyway: 'yes' },
+    }),
+  },
+  'POST /api/collections/:collectionId/sales/:saleId/ship': {
+    access: 'keeper',
+    allowed: 404,
+    call: (f) => ({ path: `${f.c}/sales/${randomUUID()}/ship` }),
+  },
+  'GET /api/collections/:collectionId/animals/:animalId/sale': {
+    access: 'keeper',
+    allowed: 200,
+    call: (f) => ({ path: `${f.c}/animals/${f.animalId}/sale` }),
+  },
 };
+
+// Sales — S: a buyer, a reserved sale and its open invoice, written once for the table's reads.
+let salesRecordsMade: Promise<{ buyerId: string; saleId: string; invoiceId: string }> | undefined;
+function salesRecords(f: Fixture) {
+  salesRecordsMade ??= (async () => {
+    const db = ctx.database.db;
+    const collectionId = f.c.split('/').pop()!;
+    const [buyer] = await db
+      .insert(buyers)
+      .values({ collectionId, name: 'Matrix buyer' })
+      .returning();
+    const [sale] = await db
+      .insert(sales)
+      .values({ collectionId, buyerId: buyer!.id, reservedUntil: '2026-12-31' })
+      .returning();
+    const [invoice] = await db
+      .insert(invoices)
+      .values({
+        collectionId,
+        saleId: sale!.id,
+        number: '2026-9999',
+        currency: 'EUR',
+        taxRateBp: 0,
+        taxRounding: 'per_invoice',
+        subtotalMinor: 0,
+        taxMinor: 0,
+        totalMinor: 0,
+        issuedOn: '2026-12-01',
+      })
+      .returning();
+    return { buyerId: buyer!.id, saleId: sale!.id, invoiceId: invoice!.id };
+  })();
+  return salesRecordsMade;
+}
 
 // Some routes answer a non-helper member differently from a helper on purpose.
 const EXCEPTIONS: Partial<Record<string, Partial<Record<Caller, number>>>> = {

@@ -57,10 +57,21 @@ import { locationListResponse, locationResponse } from '#shared/schemas/location
 import { invoicePayments } from '#shared/schemas/payments';
 import { engineInputResponse, roundResponse, scheduleResponse } from '#shared/schemas/rounds';
 import { rulesResponse } from '#shared/schemas/rules';
+import {
+  animalSaleResponse,
+  availableResponse,
+  buyersResponse,
+  buyerView,
+  invoiceView,
+  saleDetail,
+  salesResponse,
+  salesSettingsResponse,
+} from '#shared/schemas/sales';
 import { collections, coverReports } from '../../server/db/schema/collections';
 import { buyers, invoices, sales } from '../../server/db/schema/sales';
 import { addMember, animalBody, createAnimal, PASSWORD, signUp, type SignedUp } from '../factories';
 import { createTestContext, type TestContext } from '../setup/test-app';
+import { listedClutch, receivePayment } from '../support/sales';
 
 let ctx: TestContext;
 let owner: SignedUp;
@@ -483,5 +494,90 @@ describe('answers the app reads', () => {
       201,
     );
     expect(paid.invoice.status).toBe('paid');
+  });
+  // Sales — S: settings, buyers, a sale from reservation to shipped, its invoice.
+  it('sales: settings, buyers, a sale, its invoice, shipping and the animal’s sale', async () => {
+    const c = base();
+    expectShape(await owner.agent.get(`${c}/sales-settings`), salesSettingsResponse);
+    expectShape(
+      await owner.agent.put(`${c}/sales-settings`).send({
+        currency: 'CAD',
+        taxRateBp: 1300,
+        taxRounding: 'per_invoice',
+        sellerDetails: 'Shapes Inverts',
+        holdDays: 7,
+        safeMinC: 5,
+        safeMaxC: 30,
+      }),
+      salesSettingsResponse,
+    );
+    const buyer = expectShape(
+      await owner.agent.post(`${c}/buyers`).send({ name: 'Shape Buyer', email: 'sb@example.test' }),
+      buyerView,
+      201,
+    );
+    expectShape(await owner.agent.get(`${c}/buyers`), buyersResponse);
+    expectShape(await owner.agent.get(`${c}/buyers/${buyer.id}`), buyerView);
+    expectShape(
+      await owner.agent.patch(`${c}/buyers/${buyer.id}`).send({ name: 'Shape Buyer' }),
+      buyerView,
+    );
+    const ids = await listedClutch(ctx.database.db, owner.collectionId, { count: 2 });
+    expectShape(await owner.agent.get(`${c}/sales/available`), availableResponse);
+    const sale = expectShape(
+      await owner.agent.post(`${c}/sales`).send({ buyerId: buyer.id, animalIds: ids }),
+      saleDetail,
+      201,
+    );
+    expectShape(await owner.agent.get(`${c}/sales`), salesResponse);
+    expectShape(
+      await owner.agent.patch(`${c}/sales/${sale.id}`).send({ note: 'Shapes' }),
+      saleDetail,
+    );
+    const invoice = expectShape(
+      await owner.agent.post(`${c}/sales/${sale.id}/invoice`).send({ shippingMinor: 1000 }),
+      invoiceView,
+      201,
+    );
+    expectShape(await owner.agent.get(`${c}/invoices/${invoice.id}`), invoiceView);
+    expectShape(await owner.agent.post(`${c}/invoices/${invoice.id}/email`), invoiceView);
+    expectShape(
+      await owner.agent.put(`${c}/sales/${sale.id}/shipping`).send({
+        shipOn: '2026-12-08',
+        shipRoute: 'Toronto to Montréal',
+        forecastLowC: 10,
+        forecastHighC: 20,
+      }),
+      saleDetail,
+    );
+    expectShape(
+      await owner.agent.post(`${c}/sales/${sale.id}/shipping/confirm`).send({}),
+      saleDetail,
+    );
+    await receivePayment(ctx.database.db, invoice.id, invoice.totalMinor, 'paid');
+    expectShape(await owner.agent.post(`${c}/sales/${sale.id}/ship`), saleDetail);
+    expectShape(await owner.agent.get(`${c}/sales/${sale.id}`), saleDetail);
+    expectShape(await owner.agent.get(`${c}/animals/${ids[0]}/sale`), animalSaleResponse);
+    const other = expectShape(
+      await owner.agent.post(`${c}/buyers`).send({ name: 'Gone Buyer' }),
+      buyerView,
+      201,
+    );
+    expectShape(await owner.agent.delete(`${c}/buyers/${other.id}`), noContent, 204);
+    const second = expectShape(
+      await owner.agent.post(`${c}/sales`).send({
+        buyerId: buyer.id,
+        animalIds: await listedClutch(ctx.database.db, owner.collectionId, { count: 1 }),
+      }),
+      saleDetail,
+      201,
+    );
+    const secondInvoice = expectShape(
+      await owner.agent.post(`${c}/sales/${second.id}/invoice`).send({}),
+      invoiceView,
+      201,
+    );
+    expectShape(await owner.agent.post(`${c}/invoices/${secondInvoice.id}/cancel`), invoiceView);
+    expectShape(await owner.agent.post(`${c}/sales/${second.id}/cancel`), saleDetail);
   });
 });

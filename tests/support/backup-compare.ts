@@ -67,6 +67,12 @@ export function withOriginalIds<T extends Backup>(original: T, copy: T): T {
     extra.climateReadings = byReading(copy.climateReadings);
     pair(original.climateReadings, extra.climateReadings);
   }
+  // Sales — S: buyers, sales, invoices and payments come in the order they were made.
+  for (const list of ['buyers', 'sales', 'invoices', 'payments'])
+    pair(
+      (original[list] as { id: string }[] | undefined) ?? [],
+      (copy[list] as { id: string }[] | undefined) ?? [],
+    );
   return JSON.parse(
     JSON.stringify({ ...copy, events, ...extra }, (_k, v: unknown) =>
       typeof v === 'string' && ids.has(v) ? ids.get(v) : v,

@@ -138,6 +138,8 @@ export const sales = pgTable(
     shipCheckConfirmedBy: uuid('ship_check_confirmed_by').references(() => users.id, {
       onDelete: 'set null',
     }),
+    /** Sales — S: the check's concerns the keeper confirmed over ("ship anyway"); [] when none. */
+    shipCheckConcerns: jsonb('ship_check_concerns'),
     /** Packing checklist: item key → ticked. */
     packing: jsonb('packing').notNull().default({}),
     carrier: text('carrier'),

@@ -177,40 +177,57 @@ export function createAnimalsService(db: Db, now: () => Date = () => new Date())
       userId: string,
       body: { status: AnimalSummary['status']; date: string | null; note?: string | null },
     ) {
-      const { collectionId } = collection;
-      await db.transaction(async (tx) => {
-        const before = await findPlaceAndStatus(tx, collectionId, animalId);
-        if (!before) throw notFound();
-        if (before.status === body.status)
-          throw new HttpError(
-            409,
-            'unchanged',
-            `The animal is already ${body.status.replace('_', ' ')}.`,
-          );
-        await updateAnimal(tx, animalId, {
-          status: body.status,
-          statusDate: body.date,
-          updatedAt: now(),
-        });
-        await recordEvents(
-          tx,
-          collection,
-          [
-            {
-              animalId,
-              kind: 'status_changed',
-              payload: {
-                from: before.status,
-                to: body.status,
-                ...(body.note ? { note: body.note } : {}),
-              },
-              recordedBy: userId,
-            },
-          ],
-          { from: 'server', at: now() },
+      await db.transaction((tx) => this.setStatusIn(tx, collection, animalId, userId, body));
+      return summaryOf(collection.collectionId, animalId);
+    },
+
+    /**
+     * The status change inside a caller's transaction: a sale retires its animals as sold in
+     * the same transaction that marks it shipped (`saleId` links the sale in the history).
+     */
+    async setStatusIn(
+      tx: Db,
+      collection: EventCollection,
+      animalId: string,
+      userId: string,
+      body: {
+        status: AnimalSummary['status'];
+        date: string | null;
+        note?: string | null;
+        saleId?: string;
+      },
+    ): Promise<void> {
+      const before = await findPlaceAndStatus(tx, collection.collectionId, animalId);
+      if (!before) throw notFound();
+      if (before.status === body.status)
+        throw new HttpError(
+          409,
+          'unchanged',
+          `The animal is already ${body.status.replace('_', ' ')}.`,
         );
+      await updateAnimal(tx, animalId, {
+        status: body.status,
+        statusDate: body.date,
+        updatedAt: now(),
       });
-      return summaryOf(collectionId, animalId);
+      await recordEvents(
+        tx,
+        collection,
+        [
+          {
+            animalId,
+            kind: 'status_changed',
+            payload: {
+              from: before.status,
+              to: body.status,
+              ...(body.note ? { note: body.note } : {}),
+              ...(body.saleId ? { saleId: body.saleId } : {}),
+            },
+            recordedBy: userId,
+          },
+        ],
+        { from: 'server', at: now() },
+      );
     },
 
     retire(collection: EventCollection, animalId: string, userId: string, body: RetireBody) {

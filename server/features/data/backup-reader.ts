@@ -12,6 +12,13 @@ export const BACKUP_LISTS = [
   'chores',
   'roomTargets',
   'climateReadings',
+  // Sales — S (version 3).
+  'salesSettings',
+  'buyers',
+  'saleListings',
+  'sales',
+  'invoices',
+  'payments',
 ] as const;
 export type BackupList = (typeof BACKUP_LISTS)[number];
 const SINGLE = ['format', 'version', 'exportedAt', 'collection'] as const;

@@ -276,6 +276,122 @@ export async function writeBackup(
       const last = page.at(-1)!;
       after = { room: last.reading.room, at: last.cursor, id: last.reading.id };
     }
+
+    // Sales — S (version 3): settings, buyers, listings, sales, invoices, payments.
+    const iso = (d: Date | null) => (d ? d.toISOString() : null);
+    await emit('],\n"salesSettings":[');
+    first = true;
+    for (const x of await repo.salesSettingsOf(tx, collectionId)) {
+      const record = {
+        currency: x.currency,
+        taxRateBp: x.taxRateBp,
+        taxRounding: x.taxRounding,
+        sellerDetails: x.sellerDetails,
+        holdDays: x.holdDays,
+        safeMinC: x.safeMinC,
+        safeMaxC: x.safeMaxC,
+        availabilityOn: x.availabilityOn,
+        availabilityColumns: x.availabilityColumns,
+        availabilityNote: x.availabilityNote,
+        nextInvoiceNumber: x.nextInvoiceNumber,
+        updatedAt: x.updatedAt.toISOString(),
+      };
+      await emit(separator() + J(record));
+    }
+    await emit('],\n"buyers":[');
+    first = true;
+    for (const { collectionId: _c, createdAt, updatedAt, ...b } of await repo.buyersOf(
+      tx,
+      collectionId,
+    ))
+      await emit(
+        separator() +
+          J({ ...b, createdAt: createdAt.toISOString(), updatedAt: updatedAt.toISOString() }),
+      );
+    await emit('],\n"saleListings":[');
+    first = true;
+    for (const l of await repo.listingsOf(tx, collectionId)) {
+      const record = {
+        animalId: l.animalId,
+        priceMinor: l.priceMinor,
+        currency: l.currency,
+        description: l.description,
+        listedPublicly: l.listedPublicly,
+        listedAt: l.listedAt.toISOString(),
+        updatedAt: l.updatedAt.toISOString(),
+      };
+      await emit(separator() + J(record));
+    }
+    await emit('],\n"sales":[');
+    first = true;
+    for (const { sale: x, animals: held } of await repo.salesOf(tx, collectionId)) {
+      const record = {
+        id: x.id,
+        buyerId: x.buyerId,
+        status: x.status,
+        reservedUntil: x.reservedUntil,
+        note: x.note,
+        shipOn: x.shipOn,
+        shipRoute: x.shipRoute,
+        forecastLowC: x.forecastLowC,
+        forecastHighC: x.forecastHighC,
+        shipCheckConfirmedAt: iso(x.shipCheckConfirmedAt),
+        shipCheckConcerns: x.shipCheckConcerns,
+        packing: x.packing,
+        carrier: x.carrier,
+        tracking: x.tracking,
+        shippedAt: iso(x.shippedAt),
+        endedAt: iso(x.endedAt),
+        createdAt: x.createdAt.toISOString(),
+        updatedAt: x.updatedAt.toISOString(),
+        animals: held.map(({ a }) => ({
+          animalId: a.animalId,
+          priceMinor: a.priceMinor,
+          currency: a.currency,
+          releasedAt: iso(a.releasedAt),
+        })),
+      };
+      await emit(separator() + J(record));
+    }
+    await emit('],\n"invoices":[');
+    first = true;
+    for (const { invoice: x, lines } of await repo.invoicesOf(tx, collectionId)) {
+      const record = {
+        id: x.id,
+        saleId: x.saleId,
+        number: x.number,
+        currency: x.currency,
+        taxRateBp: x.taxRateBp,
+        taxRounding: x.taxRounding,
+        shippingMinor: x.shippingMinor,
+        subtotalMinor: x.subtotalMinor,
+        taxMinor: x.taxMinor,
+        totalMinor: x.totalMinor,
+        paidMinor: x.paidMinor,
+        refundedMinor: x.refundedMinor,
+        status: x.status,
+        issuedOn: x.issuedOn,
+        dueOn: x.dueOn,
+        emailedAt: iso(x.emailedAt),
+        cancelledAt: iso(x.cancelledAt),
+        createdAt: x.createdAt.toISOString(),
+        updatedAt: x.updatedAt.toISOString(),
+        lines: lines.map((l) => ({
+          position: l.position,
+          animalId: l.animalId,
+          description: l.description,
+          quantity: l.quantity,
+          unitMinor: l.unitMinor,
+          netMinor: l.netMinor,
+          taxMinor: l.taxMinor,
+        })),
+      };
+      await emit(separator() + J(record));
+    }
+    await emit('],\n"payments":[');
+    first = true;
+    for (const { p } of await repo.paymentsOf(tx, collectionId))
+      await emit(separator() + J({ ...p, at: p.at.toISOString() }));
     await emit('\n]}\n');
     await flush();
   });

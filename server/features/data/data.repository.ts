@@ -4,6 +4,16 @@ import { animals, eggSacs, eventPhotos, events } from '../../db/schema/animals';
 import { climateReadings, roomTargets } from '../../db/schema/climate';
 import { collections, locations } from '../../db/schema/collections';
 import { chores, colonies, colonyStock, colonyStockChanges } from '../../db/schema/colonies';
+import {
+  buyers,
+  invoiceLines,
+  invoices,
+  payments,
+  saleAnimals,
+  saleListings,
+  sales,
+  salesSettings,
+} from '../../db/schema/sales';
 import { users } from '../../db/schema/users';
 
 export type NewPlace = typeof locations.$inferInsert;
@@ -17,6 +27,14 @@ export type NewStockChange = typeof colonyStockChanges.$inferInsert;
 export type NewChore = typeof chores.$inferInsert;
 export type NewRoomTargets = typeof roomTargets.$inferInsert;
 export type NewReading = typeof climateReadings.$inferInsert;
+export type NewSalesSettings = typeof salesSettings.$inferInsert;
+export type NewBuyer = typeof buyers.$inferInsert;
+export type NewListing = typeof saleListings.$inferInsert;
+export type NewSale = typeof sales.$inferInsert;
+export type NewSaleAnimal = typeof saleAnimals.$inferInsert;
+export type NewInvoice = typeof invoices.$inferInsert;
+export type NewInvoiceLine = typeof invoiceLines.$inferInsert;
+export type NewPayment = typeof payments.$inferInsert;
 
 type Place = { room: string; rack: string; shelf: string; position: string };
 const list = (values: unknown[]) => sql.param(values);
@@ -281,9 +299,11 @@ export async function recordCounts(db: Db, collectionId: string) {
     colonies: number;
     targets: number;
     readings: number;
+    sales: number;
   }>(
     sql`select ${n('animals')} as animals, ${n('locations')} as places, ${n('colonies')} as colonies,
-      ${n('room_targets')} as targets, ${n('climate_readings')} as readings`,
+      ${n('room_targets')} as targets, ${n('climate_readings')} as readings,
+      ${n('buyers')} + ${n('sales_settings')} as sales`,
   );
   return rows.rows[0]!;
 }
@@ -392,4 +412,102 @@ export async function animalEventCounts(
 
 export async function setCollectionRules(tx: Db, collectionId: string, rules: unknown) {
   await tx.update(collections).set({ rules }).where(eq(collections.id, collectionId));
+}
+
+// ---- Sales — S: a breeder's sales are hundreds, not millions; each list is one read.
+
+export async function salesSettingsOf(db: Db, collectionId: string) {
+  return db.select().from(salesSettings).where(eq(salesSettings.collectionId, collectionId));
+}
+
+export async function buyersOf(db: Db, collectionId: string) {
+  return db
+    .select()
+    .from(buyers)
+    .where(eq(buyers.collectionId, collectionId))
+    .orderBy(asc(buyers.createdAt), asc(buyers.id));
+}
+
+export async function listingsOf(db: Db, collectionId: string) {
+  return db
+    .select()
+    .from(saleListings)
+    .where(eq(saleListings.collectionId, collectionId))
+    .orderBy(asc(saleListings.listedAt), asc(saleListings.animalId));
+}
+
+/** Sales in the order they were made, each with its animals. */
+export async function salesOf(db: Db, collectionId: string) {
+  const rows = await db
+    .select()
+    .from(sales)
+    .where(eq(sales.collectionId, collectionId))
+    .orderBy(asc(sales.createdAt), asc(sales.id));
+  const held = await db
+    .select({ a: saleAnimals })
+    .from(saleAnimals)
+    .innerJoin(sales, eq(sales.id, saleAnimals.saleId))
+    .where(eq(sales.collectionId, collectionId))
+    .orderBy(asc(saleAnimals.animalId));
+  return rows.map((sale) => ({ sale, animals: held.filter((h) => h.a.saleId === sale.id) }));
+}
+
+export async function invoicesOf(db: Db, collectionId: string) {
+  const rows = await db
+    .select()
+    .from(invoices)
+    .where(eq(invoices.collectionId, collectionId))
+    .orderBy(asc(invoices.createdAt), asc(invoices.number));
+  const lines = await db
+    .select({ l: invoiceLines })
+    .from(invoiceLines)
+    .innerJoin(invoices, eq(invoices.id, invoiceLines.invoiceId))
+    .where(eq(invoices.collectionId, collectionId))
+    .orderBy(asc(invoiceLines.position));
+  return rows.map((invoice) => ({
+    invoice,
+    lines: lines.filter((x) => x.l.invoiceId === invoice.id).map((x) => x.l),
+  }));
+}
+
+export async function paymentsOf(db: Db, collectionId: string) {
+  return db
+    .select({ p: payments })
+    .from(payments)
+    .innerJoin(invoices, eq(invoices.id, payments.invoiceId))
+    .where(eq(invoices.collectionId, collectionId))
+    .orderBy(asc(payments.at), asc(payments.id));
+}
+
+export async function insertSalesRows(
+  tx: Db,
+  rows: {
+    settings: NewSalesSettings[];
+    buyers: NewBuyer[];
+    listings: NewListing[];
+    sales: NewSale[];
+    saleAnimals: NewSaleAnimal[];
+    invoices: NewInvoice[];
+    lines: NewInvoiceLine[];
+    payments: NewPayment[];
+  },
+) {
+  if (rows.settings.length) await tx.insert(salesSettings).values(rows.settings);
+  if (rows.buyers.length) await tx.insert(buyers).values(rows.buyers);
+  if (rows.listings.length) await tx.insert(saleListings).values(rows.listings);
+  if (rows.sales.length) await tx.insert(sales).values(rows.sales);
+  if (rows.saleAnimals.length) await tx.insert(saleAnimals).values(rows.saleAnimals);
+  if (rows.invoices.length) await tx.insert(invoices).values(rows.invoices);
+  if (rows.lines.length) await tx.insert(invoiceLines).values(rows.lines);
+  if (rows.payments.length) await tx.insert(payments).values(rows.payments);
+}
+
+/** Payment refs (kind|ref) already on this server: the original of a copy restored beside it. */
+export async function takenProviderRefs(tx: Db, rows: { kind: string; providerRef: string }[]) {
+  if (!rows.length) return new Set<string>();
+  const found = await tx
+    .select({ kind: payments.kind, ref: payments.providerRef })
+    .from(payments)
+    .where(sql`${payments.providerRef} = any(${list(rows.map((r) => r.providerRef))}::text[])`);
+  return new Set(found.map((f) => `${f.kind}|${f.ref}`));
 }

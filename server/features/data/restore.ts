@@ -9,15 +9,21 @@ import {
 } from '#shared/domain/backup-limits';
 import {
   backupAnimal,
+  backupBuyer,
   backupChore,
   backupCollection,
   backupColony,
   backupEggSac,
   backupEvent,
   backupHeader,
+  backupInvoice,
+  backupListing,
+  backupPayment,
   backupPlace,
   backupReading,
   backupRoomTargets,
+  backupSale,
+  backupSalesSettings,
   backupStockChange,
 } from '#shared/schemas/backup';
 import { fieldLabel, isGenericMessage } from '#shared/schemas/messages';
@@ -46,6 +52,12 @@ const BATCH: Record<BackupList, number> = {
   chores: 1000,
   roomTargets: 500,
   climateReadings: 1000,
+  salesSettings: 1,
+  buyers: 500,
+  saleListings: 500,
+  sales: 200,
+  invoices: 200,
+  payments: 500,
 };
 /** Problems reported at once; a file with more is surely not worth reading further. */
 const MAX_PROBLEMS = 5;
@@ -59,6 +71,12 @@ const WHAT: Record<BackupList, string> = {
   chores: 'Chore',
   roomTargets: 'Room target',
   climateReadings: 'Climate reading',
+  salesSettings: 'Sales settings',
+  buyers: 'Buyer',
+  saleListings: 'Listing',
+  sales: 'Sale',
+  invoices: 'Invoice',
+  payments: 'Payment',
 };
 
 type Problem = { path: string; message: string };
@@ -126,6 +144,12 @@ async function refuseUnlessEmpty(db: Db, collectionId: string) {
       409,
       'not_empty',
       'Restore into an empty collection: this one already has feeder colonies or room climate.',
+    );
+  if (n.sales > 0)
+    throw new HttpError(
+      409,
+      'not_empty',
+      'Restore into an empty collection: this one already has sales settings or buyers.',
     );
 }
 
@@ -266,13 +290,26 @@ function dataProblem(err: unknown): HttpError | null {
       return refuse(
         `This backup has two logger readings of the room ${values.split(', ').slice(1, -1).join(', ')} at the same time.`,
       );
+    // Sales — S.
+    if (e.constraint === 'sale_animals_one_live_sale')
+      return refuse('This backup holds one animal in two sales at once.');
+    if (e.constraint === 'invoices_collection_number')
+      return refuse(`Two invoices in this backup have the number ${values.split(', ').pop()}.`);
+    if (e.constraint === 'invoices_one_live_per_sale')
+      return refuse('This backup gives one sale two invoices that are not cancelled.');
     return refuse('This backup lists something twice.');
   }
+  // A rule of a table the schemas do not repeat (a check constraint).
+  if (e.code === '23514') return refuse('This backup holds a value Rackside cannot store.');
   if (e.code === '23503') {
     if (e.constraint === 'events_animal_id_animals_id_fk')
       return refuse('This backup has history for an animal it does not contain.');
     if (e.constraint === 'colony_stock_changes_colony_id_colonies_id_fk')
       return refuse('This backup has stock history for a feeder colony it does not contain.');
+    if (e.constraint?.startsWith('sale') || e.constraint?.startsWith('invoice'))
+      return refuse(
+        'This backup has a sale, listing or invoice for something it does not contain.',
+      );
     return refuse('This backup refers to something it does not contain.');
   }
   // Invalid text, a number out of range, a string too long for its column.
@@ -320,6 +357,12 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
     chores: 0,
     roomTargets: 0,
     climateReadings: 0,
+    salesSettings: 0,
+    buyers: 0,
+    saleListings: 0,
+    sales: 0,
+    invoices: 0,
+    payments: 0,
   };
   const problems: Problem[] = [];
   let stage = -1;
@@ -336,6 +379,16 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
     chores: [] as ChoreRow[],
     targets: [] as TargetsRow[],
     readings: [] as ReadingRow[],
+    sales: {
+      settings: [] as repo.NewSalesSettings[],
+      buyers: [] as repo.NewBuyer[],
+      listings: [] as repo.NewListing[],
+      sales: [] as repo.NewSale[],
+      saleAnimals: [] as repo.NewSaleAnimal[],
+      invoices: [] as repo.NewInvoice[],
+      lines: [] as repo.NewInvoiceLine[],
+      payments: [] as repo.NewPayment[],
+    },
   });
   let pending = emptyBatch();
   // One batch is written while the next is read: PostgreSQL and the parser work side by side.
@@ -382,7 +435,7 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
 
   function remapPayload(payload: Record<string, unknown>) {
     const out = { ...payload };
-    for (const key of ['targetId', 'maleId', 'sacId'])
+    for (const key of ['targetId', 'maleId', 'sacId', 'saleId'])
       if (typeof out[key] === 'string') out[key] = newId(out[key]);
     // A move to a place deleted since keeps the id it had, as the original does.
     for (const key of ['fromLocationId', 'toLocationId'])
@@ -428,6 +481,13 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
       await repo.insertChores(tx, batch.chores);
       await repo.insertRoomTargets(tx, batch.targets);
       await repo.insertReadings(tx, batch.readings);
+      // A payment's ref is the payment service's and unique on this server: a copy restored
+      // beside its original keeps it marked as a copy, so webhooks still find the original.
+      const taken = await repo.takenProviderRefs(tx, batch.sales.payments);
+      for (const p of batch.sales.payments)
+        if (taken.has(`${p.kind}|${p.providerRef}`))
+          p.providerRef = `${p.providerRef}#copy-${p.id}`;
+      await repo.insertSalesRows(tx, batch.sales);
     });
   }
 
@@ -469,7 +529,11 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
           ? named?.name
           : list === 'roomTargets' || list === 'climateReadings'
             ? named?.room
-            : undefined;
+            : list === 'buyers'
+              ? named?.name
+              : list === 'invoices'
+                ? (value as { number?: unknown } | null)?.number
+                : undefined;
     const where = `${WHAT[list]} ${index + 1}${typeof labelCode === 'string' ? ` (${labelCode.slice(0, 20)})` : ''}`;
     const prefix = `${list}.${index}`;
 
@@ -578,6 +642,105 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
         takenAt: new Date(takenAt),
         createdAt: new Date(createdAt),
       });
+    } else if (list === 'salesSettings') {
+      const result = backupSalesSettings.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      if (counts.salesSettings > 1)
+        return problem([{ path: prefix, message: 'A backup has one set of sales settings.' }]);
+      // The public list's link belongs to the original: a restored list starts off, linkless.
+      const { updatedAt, ...fields } = result.data;
+      pending.sales.settings.push({
+        ...fields,
+        collectionId,
+        availabilityOn: false,
+        availabilityToken: null,
+        updatedAt: new Date(updatedAt),
+      });
+    } else if (list === 'buyers') {
+      const result = backupBuyer.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { id, createdAt, updatedAt, ...fields } = result.data;
+      pending.sales.buyers.push({
+        ...fields,
+        id: newId(id),
+        collectionId,
+        createdAt: new Date(createdAt),
+        updatedAt: new Date(updatedAt),
+      });
+    } else if (list === 'saleListings') {
+      const result = backupListing.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { animalId, listedAt, updatedAt, ...fields } = result.data;
+      pending.sales.listings.push({
+        ...fields,
+        animalId: newId(animalId),
+        collectionId,
+        listedAt: new Date(listedAt),
+        updatedAt: new Date(updatedAt),
+      });
+    } else if (list === 'sales') {
+      const result = backupSale.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { id, buyerId, animals: held, ...f } = result.data;
+      const saleId = newId(id);
+      const at = (x: string | null) => (x ? new Date(x) : null);
+      pending.sales.sales.push({
+        ...f,
+        id: saleId,
+        collectionId,
+        buyerId: newId(buyerId),
+        shipCheckConfirmedAt: at(f.shipCheckConfirmedAt),
+        shippedAt: at(f.shippedAt),
+        endedAt: at(f.endedAt),
+        createdAt: new Date(f.createdAt),
+        updatedAt: new Date(f.updatedAt),
+      });
+      for (const h of held)
+        pending.sales.saleAnimals.push({
+          ...h,
+          saleId,
+          animalId: newId(h.animalId),
+          releasedAt: at(h.releasedAt),
+        });
+    } else if (list === 'invoices') {
+      const result = backupInvoice.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { id, saleId, lines, ...f } = result.data;
+      const invoiceId = newId(id);
+      const at = (x: string | null) => (x ? new Date(x) : null);
+      // The payment service's checkout session belongs to the original invoice: not kept.
+      pending.sales.invoices.push({
+        ...f,
+        id: invoiceId,
+        collectionId,
+        saleId: newId(saleId),
+        emailedAt: at(f.emailedAt),
+        cancelledAt: at(f.cancelledAt),
+        createdAt: new Date(f.createdAt),
+        updatedAt: new Date(f.updatedAt),
+      });
+      for (const l of lines)
+        pending.sales.lines.push({
+          ...l,
+          invoiceId,
+          animalId: l.animalId ? newId(l.animalId) : null,
+        });
+    } else if (list === 'payments') {
+      const result = backupPayment.safeParse(value);
+      if (!result.success) return problem(problemsOf(where, prefix, result.error));
+      if (problems.length) return;
+      const { id, invoiceId, at, ...fields } = result.data;
+      pending.sales.payments.push({
+        ...fields,
+        id: newId(id),
+        invoiceId: newId(invoiceId),
+        at: new Date(at),
+      });
     } else {
       const result = backupEvent.safeParse(value);
       if (!result.success) return problem(problemsOf(where, prefix, result.error));
@@ -621,6 +784,12 @@ function createLoader(tx: Db, c: MemberCollection, workspace: RestoreWorkspace, 
       chores: pending.chores.length,
       roomTargets: pending.targets.length,
       climateReadings: pending.readings.length,
+      salesSettings: pending.sales.settings.length,
+      buyers: pending.sales.buyers.length,
+      saleListings: pending.sales.listings.length,
+      sales: pending.sales.sales.length,
+      invoices: pending.sales.invoices.length,
+      payments: pending.sales.payments.length,
     }[list];
     if (size >= BATCH[list]) await flush();
   }

@@ -31,7 +31,11 @@ export function devRoutes(
   // whole mailbox for any owner would hand everyone's reset links to whoever signs up. Anyone
   // else hears what a route that is not there says: nothing tells them a mailbox exists.
   router.get('/mail', async (req, res, next) => {
-    const all = [...mailbox.messages].reverse();
+    // Attachments by name only: their bytes stay in the mailbox (tests read them there).
+    const all = [...mailbox.messages].reverse().map(({ attachments, ...m }) => ({
+      ...m,
+      attachments: (attachments ?? []).map((a) => a.filename),
+    }));
     if (fromLoopback(req)) return void res.json({ scope: 'all', messages: all });
     // On to the API's own "no such route" (apiNotFound): the very answer to any unknown path.
     if (!req.session.userId) return next();

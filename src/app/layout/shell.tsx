@@ -3,7 +3,14 @@ import { useEffect } from 'react';
 import { NavLink, Navigate, Outlet, ScrollRestoration, useLocation } from 'react-router-dom';
 import { coverWindowMessage, coverWindowState } from '#shared/domain/roles';
 import type { MembershipSummary } from '#shared/schemas/auth';
-import { DialIcon, RackIcon, RoundIcon, ScanIcon, TomorrowIcon } from '@/components/ui/icons';
+import {
+  DialIcon,
+  RackIcon,
+  RoundIcon,
+  ScanIcon,
+  TagIcon,
+  TomorrowIcon,
+} from '@/components/ui/icons';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { animalListQueryOptions } from '@/features/animals/api/list-animals';
@@ -22,6 +29,8 @@ const NAV = [
   { to: '/scan', label: 'Scan', Icon: ScanIcon, helper: true },
   { to: '/tomorrow', label: 'Tomorrow', Icon: TomorrowIcon, helper: false },
   { to: '/animals', label: 'Animals', Icon: RackIcon, helper: false },
+  // Sales — S: owners and keepers only (helpers never see prices, buyers or sales).
+  { to: '/sales', label: 'Sales', Icon: TagIcon, helper: false },
   { to: '/settings', label: 'Settings', Icon: DialIcon, helper: true },
 ];
 

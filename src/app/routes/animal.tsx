@@ -33,6 +33,7 @@ import { localRoundQueryOptions } from '@/features/rounds/api/get-round';
 import { AnimalHistory } from '@/features/rounds/components/animal-history';
 import { CareForm } from '@/features/rounds/components/care-form';
 import { SchedulePanel } from '@/features/rounds/components/schedule-panel';
+import { AnimalSoldLine } from '@/features/sales/components/animal-sold-line';
 import { useSizeUnit, useTemperatureUnit } from '@/lib/preferences';
 import { useSyncStatus } from '@/lib/sync-driver';
 
@@ -82,6 +83,10 @@ export function AnimalRoute() {
           tone="info"
           title={`${STATUS_LABEL[animal.status]}${animal.statusDate ? ` on ${formatLocalDate(animal.statusDate)}` : ''}: not on any round.`}
         />
+      )}
+      {/* Sales — S: who bought it, for owners and keepers only. */}
+      {animal.status === 'sold' && collection.role !== 'helper' && (
+        <AnimalSoldLine collectionId={collectionId} animalId={animal.id} />
       )}
       {animal.notes && <p className="whitespace-pre-line">{animal.notes}</p>}
       <nav aria-label="Quick actions" className="grid grid-cols-2 gap-2">

@@ -171,6 +171,16 @@ export function LeaveAloneIcon(props: SVGProps<SVGSVGElement>) {
   );
 }
 
+/** Sales — S: a price tag on a string. */
+export function TagIcon(props: SVGProps<SVGSVGElement>) {
+  return (
+    <Svg {...props}>
+      <path d="M3 12.5V4a1 1 0 0 1 1-1h8.5L21 11.5 12.5 20z" />
+      <circle cx="7.5" cy="7.5" r="1.5" />
+    </Svg>
+  );
+}
+
 /** Tomorrow: a calendar page with an arrow. */
 export function TomorrowIcon(props: SVGProps<SVGSVGElement>) {
   return (

@@ -1,0 +1,1 @@
+ALTER TABLE "sales" ADD COLUMN "ship_check_concerns" jsonb;
