@@ -5,7 +5,7 @@ import { randomUUID } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD } from '../../server/access/demo-people';
 import { buyers, invoices, sales } from '../../server/db/schema/sales';
-import { expectAccessible, phonePage, screenshot, useE2e } from './support';
+import { expectAccessible, followPublicLinks, phonePage, screenshot, useE2e } from './support';
 
 const env = useE2e();
 
@@ -53,14 +53,8 @@ describe('card checkout', () => {
     await screenshot(wide, 'card-checkout-00-page-1280');
     await wide.close();
 
-    const { page, consoleErrors } = await phonePage(env.browser);
-    // The test app's public address is http://rackside.test: links lead to this server instead.
-    await page.route('http://rackside.test/**', (route) =>
-      route.fulfill({
-        status: 302,
-        headers: { location: route.request().url().replace('http://rackside.test', baseUrl) },
-      }),
-    );
+    const { context, page, consoleErrors } = await phonePage(env.browser);
+    await followPublicLinks(context, baseUrl);
     await page.goto(url);
     await page.getByText('$101.70').first().waitFor();
     await expectAccessible(page, 'checkout page');

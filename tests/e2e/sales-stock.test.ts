@@ -24,7 +24,8 @@ describe('stock for sale at 360 × 740', () => {
     expect(await group.innerText()).toMatch(/22\.50/);
     await screenshot(page, 'sales-stock-01-groups');
 
-    // The public list: off by default; on, with its own link.
+    // The public list: off by default; on, with its own link, in the sales settings.
+    await page.getByRole('link', { name: 'Public availability list: settings and link' }).click();
     const settings = page.getByRole('region', { name: 'Public availability list' });
     await settings.getByLabel('Publish the list').check();
     await settings.getByLabel('Note on the list').fill('We ship on Mondays, heat packs in winter.');
@@ -37,6 +38,7 @@ describe('stock for sale at 360 × 740', () => {
     await expectAccessible(page, 'availability settings');
     await screenshot(page, 'sales-stock-02-availability-settings');
     await page.setViewportSize({ width: 1280, height: 800 });
+    await page.goBack();
     await page.getByRole('heading', { name: 'Stock for sale' }).scrollIntoViewIfNeeded();
     await screenshot(page, 'sales-stock-03-groups-1280');
     expect(consoleErrors).toEqual([]);

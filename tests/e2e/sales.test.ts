@@ -2,33 +2,29 @@ import { and, eq } from 'drizzle-orm';
 import { describe, expect, it } from 'vitest';
 import { localDateOf } from '#shared/domain/local-dates';
 import { animals } from '../../server/db/schema/animals';
-import { invoices, saleListings } from '../../server/db/schema/sales';
 import { demoCollectionId } from '../../server/seed/demo';
-import { expectAccessible, phonePage, screenshot, signInAsDemo, useE2e } from './support';
+import {
+  expectAccessible,
+  followPublicLinks,
+  phonePage,
+  screenshot,
+  signInAsDemo,
+  useE2e,
+} from './support';
 
 const env = useE2e();
 
 describe('sales at 360 × 740', () => {
-  it('reserve three slings of the clutch, invoice, check the shipping day, ship: sold', async () => {
-    // Listing is helper L's screen: the test lists six of the clutch at CAD 25.00 directly.
+  it('a clutch from stock to shipped: reserve three slings, invoice, card checkout, ship, sold with care sheets', async () => {
     const db = env.server.ctx.database.db;
     const collectionId = (await demoCollectionId(db))!;
-    const slings = await db
-      .select({ id: animals.id })
-      .from(animals)
-      .where(and(eq(animals.collectionId, collectionId), eq(animals.clutch, 'H. formosus sac 1')))
-      .limit(6);
-    await db
-      .insert(saleListings)
-      .values(
-        slings.map((s) => ({ animalId: s.id, collectionId, priceMinor: 2500, currency: 'CAD' })),
-      )
-      .onConflictDoNothing();
-
     const { context, page, consoleErrors } = await phonePage(env.browser);
+    await followPublicLinks(context, env.server.baseUrl);
     await signInAsDemo(page, env.server.baseUrl, 'owner@northlight.test');
     await page.getByRole('link', { name: 'Sales', exact: true }).click();
     await page.waitForURL('**/sales');
+
+    // The demo offers 12 of its clutch at CAD 25.00: take three for a buyer.
     await page.getByRole('button', { name: 'Reserve animals for a buyer' }).click();
     await page.getByLabel('How many from H. formosus sac 1').fill('3');
     await page.getByRole('button', { name: 'Take them' }).click();
@@ -38,11 +34,27 @@ describe('sales at 360 × 740', () => {
     await page.getByRole('button', { name: 'Reserve 3 animals' }).click();
     await page.getByRole('heading', { name: 'Maren Lindqvist · Reserved' }).waitFor();
 
-    // The invoice: three slings and shipping, 13 % HST.
+    // The invoice: three slings and shipping, 13 % HST on the whole (Ontario's HST rate, from
+    // memory: Government of Canada, GST/HST rates).
     await page.getByLabel('Shipping (CAD)').fill('30');
     await page.getByRole('button', { name: 'Issue the invoice' }).click();
     // 75.00 + 30.00 = 105.00; 13 % = 13.65; total 118.65.
     await page.getByRole('cell', { name: 'CA$118.65' }).waitFor();
+    await page.getByText('Not paid yet: CA$118.65 to pay.').waitFor();
+
+    // The buyer pays by card on the payment service's page (the local fake), in a new tab.
+    const [checkout] = await Promise.all([
+      context.waitForEvent('page'),
+      page.getByRole('button', { name: 'Open card checkout (CA$118.65)' }).click(),
+    ]);
+    await checkout.getByLabel('Card number (test cards only)').fill('4242 4242 4242 4242');
+    await checkout.getByRole('button', { name: /^Pay .*118\.65$/ }).click();
+    await checkout.getByRole('heading', { name: 'Thank you: payment received' }).waitFor();
+    await checkout.close();
+    // The signed webhook marked it paid; the keeper's page shows it on its next read.
+    await page.reload();
+    await page.getByText('Paid in full (CA$118.65 received).').scrollIntoViewIfNeeded();
+    await screenshot(page, 'sales-02a-paid');
 
     // Shipping: a frosty route needs "ship anyway".
     const today = localDateOf(new Date(), 'America/Toronto');
@@ -65,24 +77,34 @@ describe('sales at 360 × 740', () => {
     await screenshot(page, 'sales-02-sale-1280');
     await page.setViewportSize({ width: 360, height: 740 });
 
-    // Paid (helper P's checkout writes this), then shipped: the animals are sold.
-    await db
-      .update(invoices)
-      .set({ paidMinor: 11865, status: 'paid' })
-      .where(eq(invoices.collectionId, collectionId));
-    await page.reload();
+    // Shipped: the animals leave the collection as sold, each with its care sheet.
     await page.getByRole('button', { name: 'Shipped: mark the animals sold' }).click();
     await page.getByRole('heading', { name: 'Maren Lindqvist · Shipped' }).waitFor();
+    const sheets = page.getByRole('link', { name: 'Care sheet (PDF)' });
+    expect(await sheets.count()).toBe(3);
+    const href = (await sheets.first().getAttribute('href'))!;
+    const sheet = await page.request.get(new URL(href, env.server.baseUrl).href);
+    expect(sheet.headers()['content-type']).toBe('application/pdf');
+    const note = await env.server.ctx.mailbox.waitFor((m) =>
+      m.subject.startsWith('Your animals from Northlight Inverts'),
+    );
+    expect(note.attachments?.filter((a) => a.contentType === 'application/pdf')).toHaveLength(3);
+    const sold = await db
+      .select({ status: animals.status })
+      .from(animals)
+      .where(and(eq(animals.collectionId, collectionId), eq(animals.clutch, 'H. formosus sac 1')));
+    expect(sold.filter((a) => a.status === 'sold')).toHaveLength(3);
     await page
       .getByRole('link', { name: /Hapalopus formosus/ })
       .first()
       .click();
     await page.getByText(/^Sold to Maren Lindqvist on /).waitFor();
+    await expectAccessible(page, 'sold animal');
     await screenshot(page, 'sales-03-sold-animal');
 
     expect(consoleErrors).toEqual([]);
     await context.close();
-  }, 45_000);
+  }, 60_000);
 });
 
 describe('sales settings and buyers at 360 × 740', () => {

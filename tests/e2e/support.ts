@@ -110,6 +110,19 @@ export async function phonePage(
 }
 
 /** axe-core: no serious or critical violation (WCAG 2.2 A/AA rules). */
+/**
+ * The test app's public address is http://rackside.test (links in e-mails, the payment
+ * service's way back): in this browser context they lead to the e2e server instead.
+ */
+export async function followPublicLinks(context: BrowserContext, baseUrl: string) {
+  await context.route('http://rackside.test/**', (route) =>
+    route.fulfill({
+      status: 302,
+      headers: { location: route.request().url().replace('http://rackside.test', baseUrl) },
+    }),
+  );
+}
+
 export async function expectAccessible(page: Page, label: string) {
   const results = await new AxeBuilder({ page })
     .withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa'])

@@ -9,6 +9,8 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
 import { TextField } from '@/components/ui/text-field';
+import { CareSheetLinks } from '@/features/listings/components/care-sheet-links';
+import { InvoicePayment } from '@/features/payments/components/invoice-payment';
 import { invoicePdfUrl, useSale, useSaleChanges } from '@/features/sales/api/sales-api';
 import { InvoiceSummary, NewInvoiceForm } from '@/features/sales/components/invoice-panel';
 import { money, SALE_STATUS_WORDS } from '@/features/sales/components/sales-words';
@@ -74,7 +76,7 @@ function Sale({ collectionId, saleId }: { collectionId: string; saleId: string }
       <Section title="Animals" id="sale-animals">
         <ul className="flex flex-col gap-1">
           {s.animals.map((a) => (
-            <li key={a.id}>
+            <li key={a.id} className="flex flex-col gap-1">
               <Link
                 to={`/animals/${a.id}`}
                 className="flex min-h-target flex-col rounded-xl border-2 border-border px-3 py-2"
@@ -88,6 +90,8 @@ function Sale({ collectionId, saleId }: { collectionId: string; saleId: string }
                   {a.released ? ' · released' : ''}
                 </span>
               </Link>
+              {/* What the buyer gets with the animal (and in the shipping note's attachments). */}
+              {!a.released && <CareSheetLinks collectionId={collectionId} animalId={a.id} />}
             </li>
           ))}
         </ul>
@@ -110,7 +114,13 @@ function Sale({ collectionId, saleId }: { collectionId: string; saleId: string }
         {invoice ? (
           <>
             <InvoiceSummary invoice={invoice} />
-            {/* Sales — merge: helper P's <InvoicePayment collectionId={collectionId} invoice={invoice} /> goes here. */}
+            <InvoicePayment
+              collectionId={collectionId}
+              invoice={invoice}
+              onChanged={() =>
+                void queryClient.invalidateQueries({ queryKey: queryKeys.sales.all(collectionId) })
+              }
+            />
             <a
               href={invoicePdfUrl(collectionId, invoice.id)}
               target="_blank"

@@ -3,6 +3,7 @@ import { NoCollection } from '@/app/layout/no-collection';
 import { useShell } from '@/app/layout/use-shell';
 import { Notice } from '@/components/ui/notice';
 import { Loading } from '@/components/ui/spinner';
+import { AvailabilitySettings } from '@/features/availability/components/availability-settings';
 import { useSalesSettings, useSalesSettingsChange } from '@/features/sales/api/sales-api';
 import { SalesSettingsForm } from '@/features/sales/components/settings-form';
 import { useTemperatureUnit } from '@/lib/preferences';
@@ -40,7 +41,7 @@ function Settings({ collectionId }: { collectionId: string }) {
         saved={save.isSuccess}
         onSubmit={(body) => save.mutate(body)}
       />
-      {/* Sales — merge: helper L's <AvailabilitySettings collectionId={collectionId} /> goes here. */}
+      <AvailabilitySettings collectionId={collectionId} />
     </div>
   );
 }

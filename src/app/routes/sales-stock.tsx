@@ -7,7 +7,6 @@ import { Button } from '@/components/ui/button';
 import { Notice } from '@/components/ui/notice';
 import { SelectField } from '@/components/ui/select-field';
 import { Loading } from '@/components/ui/spinner';
-import { AvailabilitySettings } from '@/features/availability/components/availability-settings';
 import { useListingChanges, useListings } from '@/features/listings/api/listings-api';
 import { CareSheetLinks } from '@/features/listings/components/care-sheet-links';
 import { localCurrency, OfferForm } from '@/features/listings/components/offer-form';
@@ -123,8 +122,12 @@ function SalesStock({ collectionId }: { collectionId: string }) {
         </section>
       )}
 
-      {/* Sales — L: the merge may move this to /sales/settings. */}
-      <AvailabilitySettings collectionId={collectionId} />
+      <Link
+        to="/sales/settings"
+        className="inline-flex min-h-target items-center font-bold underline underline-offset-4"
+      >
+        Public availability list: settings and link
+      </Link>
     </div>
   );
 }

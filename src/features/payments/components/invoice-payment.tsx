@@ -115,7 +115,8 @@ export function InvoicePayment({ collectionId, invoice: given, onChanged }: Invo
 
       {refundable > 0 && (
         <Refund
-          key={refundable}
+          // A new amount, or the payments list arriving (card refunds possible), starts afresh.
+          key={`${refundable}:${!!hasCard && !!data?.cardPayments}`}
           currency={currency}
           refundable={refundable}
           cardAllowed={!!hasCard && !!data?.cardPayments}

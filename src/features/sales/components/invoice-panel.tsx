@@ -95,26 +95,26 @@ export function InvoiceSummary({ invoice }: { invoice: InvoiceView }) {
         </tbody>
         <tfoot>
           <tr>
-            <th scope="row" className="py-1 text-right font-normal">
+            <th scope="row" className="py-1 pr-3 text-right font-normal">
               Subtotal
             </th>
             <td className="py-1 text-right">{m(invoice.subtotalMinor)}</td>
           </tr>
           <tr>
-            <th scope="row" className="py-1 text-right font-normal">
+            <th scope="row" className="py-1 pr-3 text-right font-normal">
               Tax {invoice.taxRateBp / 100} %
             </th>
             <td className="py-1 text-right">{m(invoice.taxMinor)}</td>
           </tr>
           <tr>
-            <th scope="row" className="py-1 text-right">
+            <th scope="row" className="py-1 pr-3 text-right">
               Total
             </th>
             <td className="py-1 text-right font-extrabold">{m(invoice.totalMinor)}</td>
           </tr>
           {invoice.paidMinor > 0 && (
             <tr>
-              <th scope="row" className="py-1 text-right font-normal">
+              <th scope="row" className="py-1 pr-3 text-right font-normal">
                 Received
               </th>
               <td className="py-1 text-right">{m(invoice.paidMinor)}</td>
