@@ -1,5 +1,5 @@
 /**
- * An invoice's status, worked out from its money (issue 21; decision 022-sales-payments).
+ * An invoice's status, worked out from its money (decision 022, card payment part).
  *
  * The rules, in order:
  * 1. Money back: once something was refunded and nothing received is still held
