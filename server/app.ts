@@ -209,7 +209,10 @@ export function createApp(options: AppOptions) {
     ),
   );
 
-  const animals = createAnimalsService(database.db, now);
+  // A status change meets the animal's sale first (sales, created below, answers by then).
+  const animals = createAnimalsService(database.db, now, (tx, collectionId, animalId, change) =>
+    sales.animalStatusChanging(tx, collectionId, animalId, change),
+  );
   // Feeder colonies and their care (chores): neither feature knows the other, nor rounds.
   const colonies = createColoniesService(database.db, {
     now,

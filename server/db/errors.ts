@@ -7,6 +7,15 @@ export function isUniqueViolation(err: unknown): boolean {
   return e?.code === UNIQUE_VIOLATION || e?.cause?.code === UNIQUE_VIOLATION;
 }
 
+/** PostgreSQL's SQLSTATE for a foreign key that still has rows pointing at it (Class 23). */
+const FOREIGN_KEY_VIOLATION = '23503';
+
+/** True for a row another table still points at, bare or wrapped by Drizzle. */
+export function isForeignKeyViolation(err: unknown): boolean {
+  const e = err as { code?: string; cause?: { code?: string } } | null;
+  return e?.code === FOREIGN_KEY_VIOLATION || e?.cause?.code === FOREIGN_KEY_VIOLATION;
+}
+
 /**
  * True when PostgreSQL cannot be reached or is going away: SQLSTATE class 08 (connection
  * exception) and 57P01–57P03 (shutdown, cannot connect now), per PostgreSQL's Appendix A,

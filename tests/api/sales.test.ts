@@ -1,3 +1,4 @@
+import { execFileSync } from 'node:child_process';
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { animals, events } from '../../server/db/schema/animals';
@@ -260,15 +261,34 @@ describe('shipping and the hand-over', () => {
       expect(change.payload).toEqual({ from: 'active', to: 'sold', saleId: sale.id });
       expect(JSON.stringify(change.payload)).not.toMatch(/Robin/);
     }
-    expect(await db.select().from(saleListings).where(eq(saleListings.animalId, ids[0]!))).toEqual(
-      [],
-    );
+    // Off the stock for sale (an animal no longer kept), but its listing stays with the sale's
+    // record, so its care sheet keeps the breeder's words after it left.
+    const stock = (await owner.agent.get(`${c}/listings`).expect(200)).body;
+    expect(stock.rows.map((r: { animalId: string }) => r.animalId)).not.toContain(ids[0]);
+    expect(
+      await db.select().from(saleListings).where(eq(saleListings.animalId, ids[0]!)),
+    ).toHaveLength(1);
+    const sheet = await owner.agent
+      .get(`${c}/animals/${ids[0]}/care-sheet.pdf`)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (b: Buffer) => chunks.push(b));
+        res.on('end', () => done(null, Buffer.concat(chunks)));
+      })
+      .expect(200);
+    // poppler's pdftotext, an independent reader of the PDF.
+    const words = execFileSync('pdftotext', ['-layout', '-', '-'], { input: sheet.body as Buffer })
+      .toString('utf8')
+      .replace(/\s+/g, ' ');
+    expect(words).toContain('Hand-raised from our own sac.');
     const record = await owner.agent.get(`${c}/animals/${ids[0]}/sale`).expect(200);
     expect(record.body.sale).toMatchObject({ saleId: sale.id, buyerName: 'Robin Ashgrove' });
     await owner.agent.post(`${s}/ship`).expect(409);
     const note = await ctx.mailbox.waitFor((m) => m.subject.includes('on their way'));
     expect(note.to).toEqual(['robin@example.test']);
     expect(note.text).toMatch(/Hapalopus formosus/);
+    expect(note.attachments?.map((a) => a.contentType)).toEqual(ids.map(() => 'application/pdf'));
   });
 
   it('shows a helper nothing of sales: 403 on every sales route', async () => {

@@ -21,9 +21,13 @@ export async function listedClutch(
       sizeMm: 12,
       clutch,
     });
-    await db
-      .insert(saleListings)
-      .values({ animalId: animal.id, collectionId, priceMinor, currency });
+    await db.insert(saleListings).values({
+      animalId: animal.id,
+      collectionId,
+      priceMinor,
+      currency,
+      description: 'Hand-raised from our own sac.',
+    });
     ids.push(animal.id);
   }
   return ids;

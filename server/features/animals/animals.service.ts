@@ -52,7 +52,22 @@ function columnsOf(v: AnimalValues) {
   };
 }
 
-export function createAnimalsService(db: Db, now: () => Date = () => new Date()) {
+/**
+ * Called in the transaction before an animal's status changes, except when a sale ships it
+ * (the sales feature, wired in app.ts): it may refuse with an HttpError or tidy its own rows.
+ */
+export type StatusChangeGuard = (
+  tx: Db,
+  collectionId: string,
+  animalId: string,
+  change: { from: string; to: string },
+) => Promise<void>;
+
+export function createAnimalsService(
+  db: Db,
+  now: () => Date = () => new Date(),
+  statusChangeGuard: StatusChangeGuard = async () => {},
+) {
   async function checkLocation(tx: Db, collectionId: string, locationId: string | null) {
     if (locationId && !(await locationInCollection(tx, collectionId, locationId))) {
       throw new HttpError(
@@ -205,6 +220,11 @@ export function createAnimalsService(db: Db, now: () => Date = () => new Date())
           'unchanged',
           `The animal is already ${body.status.replace('_', ' ')}.`,
         );
+      if (!body.saleId)
+        await statusChangeGuard(tx, collection.collectionId, animalId, {
+          from: before.status,
+          to: body.status,
+        });
       await updateAnimal(tx, animalId, {
         status: body.status,
         statusDate: body.date,

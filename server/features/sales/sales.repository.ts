@@ -160,15 +160,6 @@ export async function listedAnimals(db: Db, collectionId: string, animalIds: str
     .where(and(eq(saleListings.collectionId, collectionId), inArray(animals.id, animalIds)));
 }
 
-export async function deleteListings(db: Db, collectionId: string, animalIds: string[]) {
-  if (!animalIds.length) return;
-  await db
-    .delete(saleListings)
-    .where(
-      and(eq(saleListings.collectionId, collectionId), inArray(saleListings.animalId, animalIds)),
-    );
-}
-
 // ---- Sales -------------------------------------------------------------------------------
 
 export async function insertSale(
@@ -262,6 +253,52 @@ export async function endReservedSale(
   return rows.length > 0;
 }
 
+/** The sale an animal is in now (its unreleased row), with that sale's buyer; locked. */
+export async function liveSaleOfAnimal(db: Db, collectionId: string, animalId: string) {
+  const [row] = await db
+    .select({
+      saleId: sales.id,
+      status: sales.status,
+      buyerName: buyers.name,
+      labelCode: animals.labelCode,
+    })
+    .from(saleAnimals)
+    .innerJoin(sales, eq(sales.id, saleAnimals.saleId))
+    .innerJoin(buyers, eq(buyers.id, sales.buyerId))
+    .innerJoin(animals, eq(animals.id, saleAnimals.animalId))
+    .where(
+      and(
+        eq(saleAnimals.animalId, animalId),
+        eq(sales.collectionId, collectionId),
+        isNull(saleAnimals.releasedAt),
+      ),
+    )
+    .for('update', { of: sales });
+  return row;
+}
+
+export async function releaseAnimal(db: Db, saleId: string, animalId: string, at: Date) {
+  await db
+    .update(saleAnimals)
+    .set({ releasedAt: at })
+    .where(
+      and(
+        eq(saleAnimals.saleId, saleId),
+        eq(saleAnimals.animalId, animalId),
+        isNull(saleAnimals.releasedAt),
+      ),
+    );
+}
+
+/** How many of a sale's animals are still in it. */
+export async function heldCount(db: Db, saleId: string): Promise<number> {
+  const [row] = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(saleAnimals)
+    .where(and(eq(saleAnimals.saleId, saleId), isNull(saleAnimals.releasedAt)));
+  return Number(row?.n ?? 0);
+}
+
 export async function releaseAnimals(db: Db, saleId: string, at: Date) {
   await db
     .update(saleAnimals)
@@ -280,7 +317,8 @@ export async function reservedSales(db: Db) {
       collectionId: sales.collectionId,
       timeZone: collections.timeZone,
       reservedUntil: sales.reservedUntil,
-      paidMinor: sql<number>`coalesce(${invoices.paidMinor}, 0)`,
+      // Money kept: a fully refunded sale holds nothing and may expire.
+      paidMinor: sql<number>`coalesce(${invoices.paidMinor} - ${invoices.refundedMinor}, 0)`,
     })
     .from(sales)
     .innerJoin(collections, eq(collections.id, sales.collectionId))

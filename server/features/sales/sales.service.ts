@@ -1,8 +1,9 @@
 import type { z } from 'zod';
 import { stageLabel } from '#shared/domain/animal-facts';
 import { localDateOf } from '#shared/domain/local-dates';
+import { invoiceStatus } from '#shared/domain/sales/invoice-state';
 import { invoiceTotals, type TaxRounding } from '#shared/domain/sales/invoice-totals';
-import { formatMoney, type CurrencyCode } from '#shared/domain/sales/money';
+import { formatMoney, MAX_MINOR, type CurrencyCode } from '#shared/domain/sales/money';
 import { packingChecklist, SHIPPING_CAUTION } from '#shared/domain/sales/packing';
 import {
   defaultReservedUntil,
@@ -32,7 +33,7 @@ import type {
 import type { MemberCollection } from '../../access/memberships';
 import type { Background } from '../../background';
 import type { Db } from '../../db/client';
-import { isUniqueViolation } from '../../db/errors';
+import { isForeignKeyViolation, isUniqueViolation } from '../../db/errors';
 import type { Logger } from '../../logger';
 import type { Mailer } from '../../mail/mailer';
 import { HttpError } from '../../middleware/errors';
@@ -57,8 +58,9 @@ export interface SalesDeps {
   /** A care sheet PDF per animal for the shipping note (the care-sheets feature). */
   careSheetPdf: (collection: Collection, animalId: string) => Promise<Buffer>;
   /**
-   * The payments feature, after an invoice is cancelled: the buyer's checkout link stops
-   * taking money at the payment service too. Called after the cancel is committed.
+   * The payments feature, before an invoice is cancelled: the buyer's checkout link stops
+   * taking money at the payment service. Throws a 409 when the buyer has just paid there (the
+   * webhook may not have arrived yet), so the cancel does not go ahead over money received.
    */
   closeCheckout: (collectionId: string, invoiceId: string) => Promise<void>;
 }
@@ -239,32 +241,25 @@ export function createSalesService(db: Db, deps: SalesDeps) {
     };
   }
 
-  /**
-   * Releases a reserved sale's animals and cancels its unpaid invoice, in `tx`. Returns false
-   * when it cannot end (money received), else the cancelled invoice's id, if there was one.
-   */
+  /** Releases a reserved sale's animals and cancels its unpaid invoice, in `tx`. */
   async function endReservation(
     tx: Db,
     saleId: string,
     status: 'expired' | 'cancelled',
-  ): Promise<false | { cancelledInvoiceId: string | null }> {
+  ): Promise<boolean> {
     const at = now();
     const invoice = await repo.liveInvoiceOf(tx, saleId, true);
     if (invoice && invoice.paidMinor - invoice.refundedMinor > 0) return false;
     if (!(await repo.endReservedSale(tx, saleId, status, at))) return false;
     await repo.releaseAnimals(tx, saleId, at);
     if (invoice) await repo.cancelInvoiceRow(tx, invoice.id, at);
-    return { cancelledInvoiceId: invoice?.id ?? null };
+    return true;
   }
 
-  /** After a cancel is committed: a failure at the payment service is logged, not thrown. */
-  async function closeCheckoutOf(collectionId: string, invoiceId: string | null) {
-    if (!invoiceId) return;
-    try {
-      await deps.closeCheckout(collectionId, invoiceId);
-    } catch (err) {
-      deps.logger.warn({ err, invoiceId }, 'could not close the checkout of a cancelled invoice');
-    }
+  /** Before a cancel or an expiry: the live invoice's checkout, if it has one, is closed. */
+  async function closeCheckoutOf(collectionId: string, saleId: string) {
+    const invoice = await repo.liveInvoiceOf(db, saleId);
+    if (invoice?.checkoutSessionId) await deps.closeCheckout(collectionId, invoice.id);
   }
 
   async function invoiceOrThrow(tx: Db, c: Collection, invoiceId: string, lock = false) {
@@ -341,7 +336,7 @@ export function createSalesService(db: Db, deps: SalesDeps) {
         await repo.deleteBuyer(db, c.collectionId, buyerId);
       } catch (err) {
         // A sale made for them between the check and the delete (the foreign key restricts).
-        if ((err as { cause?: { code?: string } }).cause?.code === '23503')
+        if (isForeignKeyViolation(err))
           throw conflict('buyer_has_sales', `${row.buyer.name} now has a sale, so they stay.`);
         throw err;
       }
@@ -462,18 +457,17 @@ export function createSalesService(db: Db, deps: SalesDeps) {
     },
 
     async cancel(c: Collection, saleId: string) {
-      const ended = await db.transaction(async (tx) => {
+      await saleOrThrow(db, c, saleId);
+      await closeCheckoutOf(c.collectionId, saleId);
+      await db.transaction(async (tx) => {
         const sale = await saleOrThrow(tx, c, saleId, true);
         mustBeReserved(sale, 'there is nothing to cancel.');
-        const done = await endReservation(tx, saleId, 'cancelled');
-        if (!done)
+        if (!(await endReservation(tx, saleId, 'cancelled')))
           throw conflict(
             'money_received',
             'Money was received for this sale. Refund it first, then cancel the sale.',
           );
-        return done;
       });
-      await closeCheckoutOf(c.collectionId, ended.cancelledInvoiceId);
       return detail(c, saleId);
     },
 
@@ -492,16 +486,53 @@ export function createSalesService(db: Db, deps: SalesDeps) {
       );
       let expired = 0;
       for (const sale of due) {
-        const done = await db.transaction(async (tx) => {
-          const locked = await repo.findSale(tx, sale.collectionId, sale.id, true);
-          if (!locked || locked.status !== 'reserved') return false;
-          return endReservation(tx, sale.id, 'expired');
-        });
-        if (!done) continue;
-        expired++;
-        await closeCheckoutOf(sale.collectionId, done.cancelledInvoiceId);
+        // One sale that cannot end now (the buyer paying this minute, the service out of
+        // reach) is logged and tried again on the next run; the others still expire.
+        try {
+          await closeCheckoutOf(sale.collectionId, sale.id);
+          const done = await db.transaction(async (tx) => {
+            const locked = await repo.findSale(tx, sale.collectionId, sale.id, true);
+            if (!locked || locked.status !== 'reserved') return false;
+            return endReservation(tx, sale.id, 'expired');
+          });
+          if (done) expired++;
+        } catch (err) {
+          deps.logger.warn({ err, saleId: sale.id }, 'a hold could not expire this run');
+        }
       }
       return expired;
+    },
+
+    /**
+     * The animals feature's guard before an animal's status changes other than by shipping it
+     * (deceased, rehomed, on loan; or a sold animal put back). A reserved animal with no live
+     * invoice leaves its sale (the sale ends cancelled when it was the last); one on a live
+     * invoice is refused in words, since the invoice would be wrong; an animal sold and put
+     * back leaves its shipped sale's hold, so it can be offered again (the sale keeps it).
+     */
+    async animalStatusChanging(
+      tx: Db,
+      collectionId: string,
+      animalId: string,
+      change: { from: string; to: string },
+    ): Promise<void> {
+      const live = await repo.liveSaleOfAnimal(tx, collectionId, animalId);
+      if (!live) return;
+      const at = now();
+      if (live.status === 'shipped') {
+        if (change.from === 'sold') await repo.releaseAnimal(tx, live.saleId, animalId, at);
+        return;
+      }
+      if (live.status !== 'reserved') return;
+      const invoice = await repo.liveInvoiceOf(tx, live.saleId, true);
+      if (invoice)
+        throw conflict(
+          'on_invoice',
+          `${live.labelCode} is on invoice ${invoice.number} for ${live.buyerName}. Cancel that invoice (refund any money first), then record the change; the sale can be invoiced again without it.`,
+        );
+      await repo.releaseAnimal(tx, live.saleId, animalId, at);
+      if ((await repo.heldCount(tx, live.saleId)) === 0)
+        await repo.endReservedSale(tx, live.saleId, 'cancelled', at);
     },
 
     // ---- Invoices ---------------------------------------------------------------------
@@ -543,6 +574,14 @@ export function createSalesService(db: Db, deps: SalesDeps) {
             : []),
           ...body.extraLines.map((l) => ({ animalId: null, ...l })),
         ];
+        // Far beyond any sale, but the sums must stay exact integers (MAX_MINOR < 2^53).
+        const gross = inputs.reduce((sum, l) => sum + l.unitMinor * l.quantity, 0);
+        if (gross > MAX_MINOR)
+          throw new HttpError(
+            422,
+            'total_too_large',
+            'This invoice would be larger than any amount Rackside keeps. Check the prices and quantities.',
+          );
         const totals = invoiceTotals(
           inputs.map((l) => ({
             unitPrice: l.unitMinor,
@@ -552,38 +591,55 @@ export function createSalesService(db: Db, deps: SalesDeps) {
           settings.taxRounding,
         );
         const issuedOn = today(c);
-        const n = await repo.takeInvoiceNumber(tx, c.collectionId);
-        const row = await repo.insertInvoice(
-          tx,
-          {
-            collectionId: c.collectionId,
-            saleId,
-            number: `${issuedOn.slice(0, 4)}-${String(n).padStart(4, '0')}`,
-            currency,
-            taxRateBp: rate,
-            taxRounding: settings.taxRounding,
-            shippingMinor: body.shippingMinor,
-            subtotalMinor: totals.net,
-            taxMinor: totals.tax,
+        const values = (number: string) => ({
+          collectionId: c.collectionId,
+          saleId,
+          number,
+          currency,
+          taxRateBp: rate,
+          taxRounding: settings.taxRounding,
+          shippingMinor: body.shippingMinor,
+          subtotalMinor: totals.net,
+          taxMinor: totals.tax,
+          totalMinor: totals.gross,
+          // A zero invoice (animals given away) is paid as it stands (invoice-state.ts).
+          status: invoiceStatus({
             totalMinor: totals.gross,
-            status: 'open',
-            issuedOn,
-            dueOn: body.dueOn,
-            createdBy: userId,
-            createdAt: now(),
-            updatedAt: now(),
-          },
-          inputs.map((l, i) => ({
-            position: i + 1,
-            animalId: l.animalId,
-            description: l.description,
-            quantity: l.quantity,
-            unitMinor: l.unitMinor,
-            netMinor: totals.lines[i]!.net,
-            taxMinor: totals.lines[i]!.tax,
-          })),
-        );
-        return row.id;
+            paidMinor: 0,
+            refundedMinor: 0,
+            cancelled: false,
+          }),
+          issuedOn,
+          dueOn: body.dueOn,
+          createdBy: userId,
+          createdAt: now(),
+          updatedAt: now(),
+        });
+        const lines = inputs.map((l, i) => ({
+          position: i + 1,
+          animalId: l.animalId,
+          description: l.description,
+          quantity: l.quantity,
+          unitMinor: l.unitMinor,
+          netMinor: totals.lines[i]!.net,
+          taxMinor: totals.lines[i]!.tax,
+        }));
+        // The running number may already be taken (a restored backup's invoices): take the next,
+        // each try in a savepoint so the transaction survives the clash.
+        for (let attempt = 0; ; attempt++) {
+          const n = await repo.takeInvoiceNumber(tx, c.collectionId);
+          const number = `${issuedOn.slice(0, 4)}-${String(n).padStart(4, '0')}`;
+          try {
+            const row = await tx.transaction((sp) => repo.insertInvoice(sp, values(number), lines));
+            return row.id;
+          } catch (err) {
+            const clash = err as { constraint?: string; cause?: { constraint?: string } };
+            const numberTaken =
+              isUniqueViolation(err) &&
+              (clash.cause?.constraint ?? clash.constraint) === 'invoices_collection_number';
+            if (!numberTaken || attempt >= 50) throw err;
+          }
+        }
       });
       return this.invoice(c, id);
     },
@@ -641,6 +697,9 @@ export function createSalesService(db: Db, deps: SalesDeps) {
     },
 
     async cancelInvoice(c: Collection, invoiceId: string): Promise<InvoiceView> {
+      const found = await invoiceOrThrow(db, c, invoiceId);
+      if (found.checkoutSessionId && !found.cancelledAt)
+        await deps.closeCheckout(c.collectionId, invoiceId);
       await db.transaction(async (tx) => {
         const invoice = await invoiceOrThrow(tx, c, invoiceId, true);
         if (invoice.cancelledAt)
@@ -655,7 +714,6 @@ export function createSalesService(db: Db, deps: SalesDeps) {
           throw conflict('sale_ended', 'The animals were shipped: this invoice stays.');
         await repo.cancelInvoiceRow(tx, invoiceId, now());
       });
-      await closeCheckoutOf(c.collectionId, invoiceId);
       return this.invoice(c, invoiceId);
     },
 
@@ -724,7 +782,7 @@ export function createSalesService(db: Db, deps: SalesDeps) {
     /**
      * The hand-over: only a paid sale whose check is confirmed. In one transaction the sale is
      * shipped and each animal retired as sold (a `status_changed` event naming the sale, never
-     * the buyer), its listing removed. The buyer's shipping note goes out afterwards.
+     * the buyer), its listing kept for the care sheet (no longer offered). The buyer's shipping note goes out afterwards.
      */
     async ship(c: Collection, userId: string, saleId: string) {
       const shipped = await db.transaction(async (tx) => {
@@ -753,11 +811,6 @@ export function createSalesService(db: Db, deps: SalesDeps) {
         const day = today(c);
         for (const a of animals)
           await deps.retireAsSold(tx, c, a.id, userId, { status: 'sold', date: day, saleId });
-        await repo.deleteListings(
-          tx,
-          c.collectionId,
-          animals.map((a) => a.id),
-        );
         const at = now();
         await repo.updateSale(tx, saleId, {
           status: 'shipped',

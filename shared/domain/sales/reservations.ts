@@ -25,7 +25,7 @@ export function holdDateProblem(reservedUntil: LocalDate, today: LocalDate): str
 export interface HeldSale {
   status: 'reserved' | 'shipped' | 'expired' | 'cancelled';
   reservedUntil: LocalDate;
-  /** Money received on the sale's live invoice (0 without an invoice). */
+  /** Money kept on the sale's live invoice: received minus refunded (0 without an invoice). */
   paidMinor: number;
 }
 
