@@ -17,7 +17,6 @@ let labelCode: string;
 const pdfText = (pdf: Buffer) =>
   execFileSync('pdftotext', ['-layout', '-', '-'], { input: pdf }).toString('utf8');
 
-
 beforeAll(async () => {
   ctx = await createTestContext();
   owner = await signUp(ctx);

@@ -428,12 +428,16 @@ export async function buyersOf(db: Db, collectionId: string) {
     .orderBy(asc(buyers.createdAt), asc(buyers.id));
 }
 
+// Ties broken by the animal's label code, which a restore keeps (its ids are new), so a backup
+// of the restored collection lists them in the same order.
 export async function listingsOf(db: Db, collectionId: string) {
-  return db
-    .select()
+  const rows = await db
+    .select({ listing: saleListings })
     .from(saleListings)
+    .innerJoin(animals, eq(animals.id, saleListings.animalId))
     .where(eq(saleListings.collectionId, collectionId))
-    .orderBy(asc(saleListings.listedAt), asc(saleListings.animalId));
+    .orderBy(asc(saleListings.listedAt), asc(animals.labelCode));
+  return rows.map((r) => r.listing);
 }
 
 /** Sales in the order they were made, each with its animals. */
@@ -447,8 +451,9 @@ export async function salesOf(db: Db, collectionId: string) {
     .select({ a: saleAnimals })
     .from(saleAnimals)
     .innerJoin(sales, eq(sales.id, saleAnimals.saleId))
+    .innerJoin(animals, eq(animals.id, saleAnimals.animalId))
     .where(eq(sales.collectionId, collectionId))
-    .orderBy(asc(saleAnimals.animalId));
+    .orderBy(asc(animals.labelCode));
   return rows.map((sale) => ({ sale, animals: held.filter((h) => h.a.saleId === sale.id) }));
 }
 
