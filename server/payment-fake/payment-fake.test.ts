@@ -39,21 +39,25 @@ afterAll(async () => {
   await new Promise((resolve) => hook.close(resolve));
 });
 
-async function newSession(amount = 10170) {
-  return stripe.checkout.sessions.create({
-    mode: 'payment',
-    line_items: [
-      {
-        quantity: 1,
-        price_data: { currency: 'cad', unit_amount: amount, product_data: { name: 'Invoice 7' } },
-      },
-    ],
-    success_url: 'http://app.test/done',
-    cancel_url: 'http://app.test/cancelled',
-    client_reference_id: 'inv-1',
-    metadata: { invoiceId: 'inv-1' },
-    payment_intent_data: { metadata: { invoiceId: 'inv-1' } },
-  });
+async function newSession(amount = 10170, options?: Stripe.RequestOptions) {
+  return stripe.checkout.sessions.create(
+    {
+      mode: 'payment',
+      allowed_payment_method_types: ['card'],
+      line_items: [
+        {
+          quantity: 1,
+          price_data: { currency: 'cad', unit_amount: amount, product_data: { name: 'Invoice 7' } },
+        },
+      ],
+      success_url: 'http://app.test/done',
+      cancel_url: 'http://app.test/cancelled',
+      client_reference_id: 'inv-1',
+      metadata: { invoiceId: 'inv-1' },
+      payment_intent_data: { metadata: { invoiceId: 'inv-1' } },
+    },
+    options,
+  );
 }
 
 async function payOnPage(url: string, card: string) {
@@ -194,5 +198,68 @@ describe('the local payment fake, driven by the official SDK', () => {
       'refund.created',
       'charge.refunded',
     ]);
+  });
+
+  it('takes cards only: a session for other payment methods, or none named, is refused', async () => {
+    const base = {
+      mode: 'payment' as const,
+      line_items: [
+        {
+          quantity: 1,
+          price_data: { currency: 'cad', unit_amount: 100, product_data: { name: 'x' } },
+        },
+      ],
+      success_url: 'http://app.test/done',
+    };
+    for (const allowed_payment_method_types of [undefined, ['card', 'link'], ['link']] as const)
+      await expect(
+        stripe.checkout.sessions.create({
+          ...base,
+          ...(allowed_payment_method_types
+            ? { allowed_payment_method_types: [...allowed_payment_method_types] }
+            : {}),
+        }),
+      ).rejects.toMatchObject({
+        type: 'StripeInvalidRequestError',
+        param: 'allowed_payment_method_types',
+      });
+    // The name this API version dropped is an unknown parameter, as the service answers it.
+    await expect(
+      stripe.checkout.sessions.create({
+        ...base,
+        allowed_payment_method_types: ['card'],
+        ...{ payment_method_types: ['card'] },
+      } as Stripe.Checkout.SessionCreateParams),
+    ).rejects.toMatchObject({ param: 'payment_method_types', code: 'parameter_unknown' });
+    const card = await stripe.checkout.sessions.create({
+      ...base,
+      allowed_payment_method_types: ['card'],
+    });
+    expect(card.allowed_payment_method_types).toEqual(['card']);
+  });
+
+  it('answers the same Idempotency-Key with the same object, even while the first is in flight', async () => {
+    const key = { idempotencyKey: `k-${Date.now()}` };
+    const [a, b] = await Promise.all([newSession(700, key), newSession(700, key)]);
+    expect(b.id).toBe(a.id);
+    expect(
+      b.lastResponse.headers['idempotent-replayed'] ??
+        a.lastResponse.headers['idempotent-replayed'],
+    ).toBe('true');
+    expect(fake.checkoutSessions().filter((s) => s.id === a.id)).toHaveLength(1);
+    // The same key with other parameters is the service's idempotency error.
+    await expect(newSession(800, key)).rejects.toBeInstanceOf(Stripe.errors.StripeIdempotencyError);
+
+    const s = await newSession(900);
+    await payOnPage(s.url!, '4242424242424242');
+    const pi = (await stripe.checkout.sessions.retrieve(s.id)).payment_intent as string;
+    const refundKey = { idempotencyKey: `r-${Date.now()}` };
+    const [r1, r2] = await Promise.all([
+      stripe.refunds.create({ payment_intent: pi, amount: 500 }, refundKey),
+      stripe.refunds.create({ payment_intent: pi, amount: 500 }, refundKey),
+    ]);
+    expect(r2.id).toBe(r1.id);
+    // Refunded once: 400 is still left on the charge.
+    expect((await stripe.refunds.create({ payment_intent: pi })).amount).toBe(400);
   });
 });

@@ -11,6 +11,11 @@
  * amount_total); a declined card: `payment_intent.payment_failed` (last_payment_error, the
  * session stays open for another try); a refund: `refund.created` then `charge.refunded`;
  * expiring a session: `checkout.session.expired`.
+ *
+ * `Idempotency-Key` is honoured for creating sessions and refunds, as the service does (its
+ * "Idempotent requests" reference, from memory): the same key with the same parameters answers
+ * the first object again (header `Idempotent-Replayed: true`, even when a request with that key
+ * is still in flight: it waits for it), other parameters are an `idempotency_error`.
  */
 import { randomBytes } from 'node:crypto';
 import http from 'node:http';
@@ -33,6 +38,8 @@ interface Session {
   mode: 'payment';
   status: 'open' | 'complete' | 'expired';
   payment_status: 'unpaid' | 'paid';
+  allowed_payment_method_types: string[];
+  payment_method_types: string[];
   amount_subtotal: number;
   amount_total: number;
   currency: string;
@@ -83,6 +90,13 @@ export interface PaymentFake {
   redeliver(eventId: string): Promise<number>;
   /** The last event of a type (for tests that forge or replay one). */
   lastEvent(type: string): { id: string; payload: string } | undefined;
+  /** Every checkout session made, oldest first (tests count them). */
+  checkoutSessions(): { id: string; status: string; metadata: Record<string, string> }[];
+  /**
+   * Holds the next API request to `path` (e.g. `POST /v1/checkout/sessions`) until `release`:
+   * `arrived` settles once it is held, so a test can look at the database meanwhile.
+   */
+  holdNext(request: string): { arrived: Promise<void>; release(): void };
   stop(): Promise<void>;
 }
 
@@ -188,6 +202,26 @@ export async function startPaymentFake(options: PaymentFakeOptions = {}): Promis
   };
 
   function createSession(body: Record<string, FormValue>): Session {
+    // Cards only. The SDK's API version takes the list as `allowed_payment_method_types`; it
+    // dropped `payment_method_types` on session create (the SDK's CHANGELOG.md, the release
+    // that added `allowed_payment_method_types`), so the old name is refused as unknown here.
+    if (body.payment_method_types !== undefined)
+      throw new FakeError(
+        400,
+        'Received unknown parameter: payment_method_types',
+        'parameter_unknown',
+        'payment_method_types',
+      );
+    const types = Array.isArray(body.allowed_payment_method_types)
+      ? body.allowed_payment_method_types
+      : [];
+    if (types.length !== 1 || types[0] !== 'card')
+      throw new FakeError(
+        400,
+        'This fake takes cards only: send allowed_payment_method_types[]=card.',
+        'parameter_invalid',
+        'allowed_payment_method_types',
+      );
     if (str(body.mode) !== 'payment')
       throw new FakeError(
         400,
@@ -241,6 +275,8 @@ export async function startPaymentFake(options: PaymentFakeOptions = {}): Promis
       mode: 'payment',
       status: 'open',
       payment_status: 'unpaid',
+      allowed_payment_method_types: ['card'],
+      payment_method_types: ['card'],
       amount_subtotal: total,
       amount_total: total,
       currency,
@@ -411,6 +447,37 @@ export async function startPaymentFake(options: PaymentFakeOptions = {}): Promis
     return created;
   }
 
+  const idempotent = new Map<string, { request: string; answer: Promise<[number, unknown]> }>();
+  const holds = new Map<string, { arrived: () => void; released: Promise<void> }>();
+
+  /** The same key and parameters: the first answer again; other parameters: refused. */
+  async function once(
+    req: http.IncomingMessage,
+    path: string,
+    text: string,
+    replayed: () => void,
+  ): Promise<[number, unknown]> {
+    const key = req.headers['idempotency-key'];
+    if (req.method !== 'POST' || typeof key !== 'string') return api(req, path, text);
+    const request = `${path}?${text}`;
+    const first = idempotent.get(key);
+    if (first) {
+      if (first.request !== request)
+        throw new FakeError(
+          400,
+          `Keys for idempotent requests can only be used with the same parameters they were first used with. Try using a key other than '${key}' if you meant to execute a different request.`,
+          'idempotency_key_in_use',
+        );
+      replayed();
+      return first.answer;
+    }
+    const answer = api(req, path, text);
+    idempotent.set(key, { request, answer });
+    // A request that failed before it was carried out may be tried again with its key.
+    answer.catch(() => idempotent.delete(key));
+    return answer;
+  }
+
   async function api(
     req: http.IncomingMessage,
     path: string,
@@ -418,6 +485,12 @@ export async function startPaymentFake(options: PaymentFakeOptions = {}): Promis
   ): Promise<[number, unknown]> {
     if (req.headers.authorization !== `Bearer ${secretKey}`)
       throw new FakeError(401, 'Invalid API Key provided.');
+    const hold = holds.get(`${req.method} ${path}`);
+    if (hold) {
+      holds.delete(`${req.method} ${path}`);
+      hold.arrived();
+      await hold.released;
+    }
     const body = req.method === 'POST' ? parseFormBody(text) : {};
     let m: RegExpExecArray | null;
     if (req.method === 'POST' && path === '/v1/checkout/sessions')
@@ -480,10 +553,15 @@ export async function startPaymentFake(options: PaymentFakeOptions = {}): Promis
       const text = Buffer.concat(chunks).toString('utf8');
       const path = new URL(req.url ?? '/', 'http://fake').pathname;
       const pageMatch = /^\/pay\/([\w]+)$/.exec(path);
+      let replay = false;
       const work = pageMatch
         ? page(req, res, pageMatch[1]!, text)
-        : api(req, path, text).then(([status, json]) => {
-            res.writeHead(status, { 'content-type': 'application/json', 'request-id': id('req') });
+        : once(req, path, text, () => (replay = true)).then(([status, json]) => {
+            res.writeHead(status, {
+              'content-type': 'application/json',
+              'request-id': id('req'),
+              ...(replay ? { 'idempotent-replayed': 'true' } : {}),
+            });
             res.end(JSON.stringify(json));
           });
       work.catch((err: unknown) => {
@@ -492,7 +570,12 @@ export async function startPaymentFake(options: PaymentFakeOptions = {}): Promis
         res.end(
           JSON.stringify({
             error: {
-              type: e.status >= 500 ? 'api_error' : 'invalid_request_error',
+              type:
+                e.status >= 500
+                  ? 'api_error'
+                  : e.code === 'idempotency_key_in_use'
+                    ? 'idempotency_error'
+                    : 'invalid_request_error',
               message: e.message,
               ...(e.code ? { code: e.code } : {}),
               ...(e.param ? { param: e.param } : {}),
@@ -516,6 +599,16 @@ export async function startPaymentFake(options: PaymentFakeOptions = {}): Promis
     deliveries,
     redeliver: (eventId) => deliver(eventId),
     lastEvent: (type) => [...events.values()].reverse().find((e) => e.type === type),
+    checkoutSessions: () =>
+      [...sessions.values()].map((s) => ({ id: s.id, status: s.status, metadata: s.metadata })),
+    holdNext: (request) => {
+      let arrived!: () => void;
+      let release!: () => void;
+      const seen = new Promise<void>((resolve) => (arrived = resolve));
+      const released = new Promise<void>((resolve) => (release = resolve));
+      holds.set(request, { arrived, released });
+      return { arrived: seen, release };
+    },
     stop: () =>
       new Promise<void>((resolve) => {
         server.close(() => resolve());

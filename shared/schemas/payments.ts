@@ -30,6 +30,11 @@ export const refundBody = z.strictObject({
   method: z
     .enum(PAYMENT_METHODS, { message: 'Choose card, bank transfer or cash.' })
     .default('card'),
+  /**
+   * Made once per tap by the client and sent again with a retry: the same nonce is the same
+   * refund (a second one while the first is on its way is refused, a later one answers it).
+   */
+  nonce: uuid.optional(),
 });
 export type RefundBody = z.infer<typeof refundBody>;
 

@@ -181,3 +181,32 @@ export async function cardPaymentsOf(db: Db, invoiceId: string) {
     )
     .orderBy(asc(payments.at));
 }
+
+/** The invoice a card payment (its payment intent, `pi_…`) was stored for, if any. */
+export async function invoiceOfCardPayment(db: Db, paymentIntent: string) {
+  const [row] = await db
+    .select({ invoiceId: payments.invoiceId })
+    .from(payments)
+    .where(and(eq(payments.kind, 'payment'), eq(payments.providerRef, paymentIntent)))
+    .limit(1);
+  return row?.invoiceId ?? null;
+}
+
+/** Takes a card refund's reservation (`hold:…`) off its invoice: the refund's own row replaces it. */
+export async function deleteHold(db: Db, invoiceId: string, holdRef: string) {
+  await db
+    .delete(payments)
+    .where(
+      and(
+        eq(payments.invoiceId, invoiceId),
+        eq(payments.kind, 'refund'),
+        eq(payments.providerRef, holdRef),
+        like(payments.providerRef, 'hold:%'),
+      ),
+    );
+}
+
+/** Forgets a taken id: a refund request the service refused may be sent again. */
+export async function deleteEvent(db: Db, eventId: string) {
+  await db.delete(paymentEvents).where(eq(paymentEvents.eventId, eventId));
+}
