@@ -350,6 +350,8 @@ export function createApp(options: AppOptions) {
       animals.setStatusIn(tx, c, animalId, userId, body),
     careSheetPdf: (c, animalId) => careSheets.pdf(c, animalId),
     closeCheckout: (collectionId, invoiceId) => payments.expireCheckout(collectionId, invoiceId),
+    paymentLink: (collectionId, invoiceId) =>
+      payments.paymentLink(collectionId, invoiceId, publicUrl('')),
   });
   api.use(collection(), salesRoutes(sales, member));
   //   collections: the collection itself (/), /members…, /invites…, /membership

@@ -41,6 +41,15 @@ describe('sales at 360 × 740', () => {
     // 75.00 + 30.00 = 105.00; 13 % = 13.65; total 118.65.
     await page.getByRole('cell', { name: 'CA$118.65' }).waitFor();
     await page.getByText('Not paid yet: CA$118.65 to pay.').waitFor();
+    // The invoice e-mail carries the PDF and the card link.
+    await page.getByRole('button', { name: 'E-mail to the buyer' }).click();
+    const invoiceMail = await env.server.ctx.mailbox.waitFor((m) =>
+      m.subject.startsWith('Invoice '),
+    );
+    expect(invoiceMail.text).toContain(
+      `Pay by card on the payment service's secure page: ${env.server.paymentFake.url}/pay/`,
+    );
+    expect(invoiceMail.attachments?.map((a) => a.contentType)).toEqual(['application/pdf']);
 
     // The buyer pays by card on the payment service's page (the local fake), in a new tab.
     const [checkout] = await Promise.all([

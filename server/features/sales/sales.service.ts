@@ -63,6 +63,8 @@ export interface SalesDeps {
    * webhook may not have arrived yet), so the cancel does not go ahead over money received.
    */
   closeCheckout: (collectionId: string, invoiceId: string) => Promise<void>;
+  /** The payments feature: a card checkout link for the invoice e-mail, or null (card off…). */
+  paymentLink: (collectionId: string, invoiceId: string) => Promise<string | null>;
 }
 
 /** A collection that never saved its sales settings sells with these (the table's defaults). */
@@ -665,6 +667,12 @@ export function createSalesService(db: Db, deps: SalesDeps) {
           `${buyer.name} has no e-mail address. Add one on the Buyers page, then send again.`,
         );
       const total = formatMoney(invoice.totalMinor, invoice.currency as CurrencyCode, 'en-GB');
+      // The card link is a convenience: when the payment service is out of reach, the invoice
+      // still goes, and the keeper can send the link from the sale's page later.
+      const link = await deps.paymentLink(c.collectionId, invoiceId).catch((err: unknown) => {
+        deps.logger.warn({ err, invoiceId }, 'no card payment link for the invoice e-mail');
+        return null;
+      });
       try {
         await deps.mailer.send({
           to: buyer.email,
@@ -674,6 +682,7 @@ export function createSalesService(db: Db, deps: SalesDeps) {
             '',
             `Please find invoice ${invoice.number} for ${total} attached.${invoice.dueOn ? ` It is due on ${invoice.dueOn}.` : ''}`,
             '',
+            ...(link ? [`Pay by card on the payment service's secure page: ${link}`, ''] : []),
             `${c.collectionName}`,
           ].join('\n'),
           attachments: [

@@ -273,8 +273,11 @@ function Refund({
   cardAllowed: boolean;
   busy: boolean;
   error?: string;
-  onRefund: (body: { method: PaymentView['method']; amountMinor: number }) => void;
+  onRefund: (body: { method: PaymentView['method']; amountMinor: number; nonce: string }) => void;
 }) {
+  // One refund per form: a second tap (or a resend) carries the same nonce and is refused by
+  // the server; a new amount after a refund remounts the form with a new one.
+  const [nonce] = useState(() => crypto.randomUUID());
   const [method, setMethod] = useState<PaymentView['method']>(
     cardAllowed ? 'card' : 'bank_transfer',
   );
@@ -289,7 +292,7 @@ function Refund({
     setProblem(undefined);
     const how = method === 'card' ? 'to the buyer’s card' : `by ${METHOD_WORDS[method]}`;
     if (window.confirm(`Refund ${formatMoney(minor, currency)} ${how}? This cannot be undone.`))
-      onRefund({ method, amountMinor: minor });
+      onRefund({ method, amountMinor: minor, nonce });
   };
   const options = [
     ...(cardAllowed ? [{ value: 'card', label: 'To the buyer’s card' }] : []),
