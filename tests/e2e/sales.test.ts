@@ -56,9 +56,18 @@ describe('sales at 360 × 740', () => {
       context.waitForEvent('page'),
       page.getByRole('button', { name: 'Open card checkout (CA$118.65)' }).click(),
     ]);
-    await checkout.getByLabel('Card number (test cards only)').fill('4242 4242 4242 4242');
-    await checkout.getByRole('button', { name: /^Pay .*118\.65$/ }).click();
+    // The service's public test cards: a declined one first, then one that pays.
+    const card = checkout.getByLabel('Card number (test cards only)');
+    const pay = checkout.getByRole('button', { name: /^Pay .*118\.65$/ });
+    await card.fill('4000 0000 0000 0002');
+    await pay.click();
+    await checkout.getByRole('alert').getByText('Your card was declined.').waitFor();
+    await expectAccessible(checkout, 'checkout declined');
+    await screenshot(checkout, 'sales-02b-checkout-declined');
+    await card.fill('4242 4242 4242 4242');
+    await pay.click();
     await checkout.getByRole('heading', { name: 'Thank you: payment received' }).waitFor();
+    await expectAccessible(checkout, 'payment done');
     await checkout.close();
     // The signed webhook marked it paid; the keeper's page shows it on its next read.
     await page.reload();
