@@ -43,7 +43,7 @@ describe('the app shell at 360 × 740', () => {
     ] as const) {
       await page.getByLabel(label, { exact: false }).first().check();
       expect(await page.evaluate(() => document.documentElement.dataset.theme)).toBe(theme);
-      await expectAccessible(page, `settings-${theme}`);
+      await expectAccessible(page, `settings-${theme}`, theme);
       await screenshot(page, `foundation-03-settings-${theme}`);
     }
     // The choice survives a reload.

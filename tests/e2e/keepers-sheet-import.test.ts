@@ -52,7 +52,7 @@ describe('importing a keeper’s own spreadsheet at 360 px', () => {
     expect(tilly).toContain('“03/04/2025” could be day first or month first.');
     for (const theme of ['light', 'dark', 'night'] as const) {
       await showTheme(page, theme);
-      await expectAccessible(page, `import-questions-${theme}`);
+      await expectAccessible(page, `import-questions-${theme}`, theme);
     }
     await screenshot(page, 'import-01-questions-night');
 
@@ -72,7 +72,7 @@ describe('importing a keeper’s own spreadsheet at 360 px', () => {
     expect(previews[2]).toContain('Sex unknown · 20 mm (2 cm)');
     for (const theme of ['light', 'dark', 'night'] as const) {
       await showTheme(page, theme);
-      await expectAccessible(page, `import-ready-${theme}`);
+      await expectAccessible(page, `import-ready-${theme}`, theme);
       await screenshot(page, `import-02-ready-${theme}`);
     }
 

@@ -277,7 +277,7 @@ describe('a phone on the home network', () => {
       await page.reload();
       await section.waitFor();
       await section.getByText('On Android', { exact: true }).click();
-      await expectAccessible(page, `phone setup, ${theme}`);
+      await expectAccessible(page, `phone setup, ${theme}`, theme);
       await section.getByRole('heading').scrollIntoViewIfNeeded();
       await page.evaluate(() => window.scrollBy(0, -80));
       await screenshot(page, `lan-02-settings-${theme}-360`);

@@ -104,7 +104,7 @@ async function decodeQrOnScreen(page: Page, code: string): Promise<string | null
 async function eachTheme(page: Page, name: string, check = true) {
   for (const theme of ['light', 'dark', 'night'] as const) {
     await page.evaluate((t) => (document.documentElement.dataset.theme = t), theme);
-    if (check) await expectAccessible(page, `${name} (${theme})`);
+    if (check) await expectAccessible(page, `${name} (${theme})`, theme);
     await screenshot(page, `${name}-${theme}`);
   }
 }

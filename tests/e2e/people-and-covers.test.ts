@@ -27,7 +27,7 @@ async function accessibleInEveryTheme(page: Page, label: string) {
     await page.evaluate((t) => {
       document.documentElement.dataset.theme = t;
     }, theme);
-    await expectAccessible(page, `${label} (${theme})`);
+    await expectAccessible(page, `${label} (${theme})`, theme);
   }
   await page.evaluate(() => {
     document.documentElement.dataset.theme = 'dark';

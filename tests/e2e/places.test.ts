@@ -13,7 +13,7 @@ async function inEveryTheme(page: Page, label: string) {
     await page.evaluate((t) => {
       document.documentElement.dataset.theme = t;
     }, theme);
-    await expectAccessible(page, `${label} (${theme})`);
+    await expectAccessible(page, `${label} (${theme})`, theme);
     await screenshot(page, `places-${label}-${theme}`);
   }
 }

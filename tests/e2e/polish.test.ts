@@ -10,7 +10,7 @@ const env = useE2e();
 async function inEveryTheme(page: Page, label: string) {
   for (const theme of ['light', 'dark', 'night'] as const) {
     await page.evaluate((t) => (document.documentElement.dataset.theme = t), theme);
-    await expectAccessible(page, `${label} (${theme})`);
+    await expectAccessible(page, `${label} (${theme})`, theme);
     await screenshot(page, `polish-${label.replace(/\W+/g, '-')}-${theme}`);
   }
 }

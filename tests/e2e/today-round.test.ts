@@ -47,7 +47,7 @@ const eventsSince = async (email: string, since: Date) =>
 async function accessibleInEveryTheme(page: Page, name: string) {
   for (const theme of ['light', 'dark', 'night'] as const) {
     await page.evaluate((t) => (document.documentElement.dataset.theme = t), theme);
-    await expectAccessible(page, `${name}-${theme}`);
+    await expectAccessible(page, `${name}-${theme}`, theme);
     await screenshot(page, `${name}-${theme}`);
   }
 }
