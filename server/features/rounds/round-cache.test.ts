@@ -1,6 +1,12 @@
 import { gunzipSync } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
-import { LatestByKey, serialiseRound } from './round-cache';
+import { projectState } from '#shared/domain/rounds/animal-state';
+import { buildRound } from '#shared/domain/rounds/build-round';
+import { roundView, type BuiltPart } from '#shared/domain/rounds/round-view';
+import { DEFAULT_RULES, postMoltHoldDays } from '#shared/domain/rounds/rules';
+import type { DayOutcome } from '#shared/domain/rounds/settle';
+import { engineAnimal } from '../../../tests/fixtures/engine-animal';
+import { createRoundJson, LatestByKey, serialiseRound } from './round-cache';
 
 describe('LatestByKey', () => {
   it('makes a value once per key, shares it while in flight, and replaces it on a new key', async () => {
@@ -42,5 +48,43 @@ describe('serialiseRound', () => {
     expect(serialiseRound('c|2026-12-02|1|6', '{}').etag).not.toBe(a.etag);
     expect(gunzipSync(a.gzip()).equals(a.json)).toBe(true);
     expect(a.gzip()).toBe(a.gzip());
+  });
+});
+
+describe('createRoundJson', () => {
+  const zone = 'America/Toronto';
+  const date = '2026-12-03';
+  const animals = Array.from({ length: 4 }, (_, i) =>
+    engineAnimal(i === 1 ? { name: 'Ünïcode “quoted”, Ñame' } : {}),
+  );
+  const built = buildRound(
+    animals.map((animal) => ({ animal, state: projectState([], zone, date) })),
+    DEFAULT_RULES,
+    date,
+  );
+  const part: BuiltPart = {
+    builtAt: new Date('2026-12-03T05:00:00Z'),
+    prepList: built.prepList,
+    items: built.items.map((i) => ({
+      ...i,
+      addedDuringDay: false,
+      postMoltHoldDays: postMoltHoldDays(DEFAULT_RULES, i.animal),
+    })),
+  };
+  const ate = (animalId: string, eventId: string): [string, DayOutcome[]] => [
+    animalId,
+    [{ eventId, kind: 'ate', at: '2026-12-03T15:00:00.000Z', by: 'Robin', voids: null }],
+  ];
+
+  it('gives the bytes of JSON.stringify(roundView(…)), and again after a tap changes one item', () => {
+    const roundJson = createRoundJson();
+    const none = new Map<string, DayOutcome[]>();
+    expect(roundJson(zone, date, part, none).toString()).toBe(
+      JSON.stringify(roundView(zone, date, part, none)),
+    );
+    const fed = new Map([ate(animals[1]!.id, 'e1')]);
+    const bytes = roundJson(zone, date, part, fed);
+    expect(bytes.toString()).toBe(JSON.stringify(roundView(zone, date, part, fed)));
+    expect(JSON.parse(bytes.toString()).progress.done).toBeGreaterThan(0);
   });
 });
