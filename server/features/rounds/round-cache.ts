@@ -7,7 +7,6 @@ import { gzipSync } from 'node:zlib';
 import type { LocalDate } from '#shared/domain/local-dates';
 import { viewItem, type BuiltPart, type ViewInput } from '#shared/domain/rounds/round-view';
 import { progressOf, type DayOutcome } from '#shared/domain/rounds/settle';
-import type { RoundItemView } from '#shared/schemas/rounds';
 
 export interface SerialisedRound {
   etag: string;
@@ -66,7 +65,7 @@ const COMMA = Buffer.from(',');
 export function createRoundJson() {
   const itemJson = new WeakMap<
     ViewInput,
-    { signature: string; view: RoundItemView; bytes: Buffer }
+    { signature: string; progress: { done: number; total: number }; bytes: Buffer }
   >();
   return (
     zone: string,
@@ -80,13 +79,18 @@ export function createRoundJson() {
       let entry = itemJson.get(item);
       if (entry?.signature !== signature) {
         const v = viewItem(zone, item, own);
-        entry = { signature, view: v, bytes: Buffer.from(JSON.stringify(v)) };
+        entry = { signature, progress: progressOf([v]), bytes: Buffer.from(JSON.stringify(v)) };
         itemJson.set(item, entry);
       }
       return entry;
     });
     const head = { date, timeZone: zone, builtAt: part.builtAt?.toISOString() ?? null };
-    const tail = { prepList: part.prepList, progress: progressOf(entries.map((e) => e.view)) };
+    const progress = { done: 0, total: 0 };
+    for (const e of entries) {
+      progress.done += e.progress.done;
+      progress.total += e.progress.total;
+    }
+    const tail = { prepList: part.prepList, progress };
     const parts: Buffer[] = [Buffer.from(`${JSON.stringify(head).slice(0, -1)},"items":[`)];
     entries.forEach((e, i) => {
       if (i) parts.push(COMMA);
