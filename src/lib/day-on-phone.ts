@@ -2,7 +2,6 @@
 // round cannot be fetched, the phone builds the day itself with the shared round engine from
 // the engine input it keeps, plus the taps it has queued since.
 import { addDays, localDateOf } from '#shared/domain/local-dates';
-import { phoneRound } from '#shared/domain/rounds/phone-round';
 import type { EngineInputResponse } from '#shared/schemas/rounds';
 import type { CachedRound, RacksideDb, RoundDay, StoredEngineInput } from './db';
 import { waitingTaps } from './outbox';
@@ -62,6 +61,8 @@ export async function currentRound(
   const taps = (await waitingTaps(db, userId))
     .filter((e) => e.collectionId === collectionId)
     .map((e) => ({ event: e.event, byName: e.byName }));
+  // The engine loads here, the first time a day is built on this phone: not with the first screen.
+  const { phoneRound } = await import('#shared/domain/rounds/phone-round');
   const round = phoneRound(engine.input, taps, wanted, day === 'today');
   return storePhoneRound(db, userId, collectionId, day, round, engine.input.asOf);
 }

@@ -1,7 +1,7 @@
 import type { IDBPObjectStore, IDBPTransaction, StoreNames } from 'idb';
 import { localDateOf } from '#shared/domain/local-dates';
-import { tapOutcome } from '#shared/domain/rounds/phone-round';
 import { itemWithOutcome, progressOf, withOutcome } from '#shared/domain/rounds/settle';
+import { tapOutcome } from '#shared/domain/rounds/tap-outcome';
 import type { RecordedEvent } from '#shared/schemas/events';
 import type { RoundResponse } from '#shared/schemas/rounds';
 import {

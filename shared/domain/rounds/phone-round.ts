@@ -1,13 +1,15 @@
 // A day's round built on the phone with no signal (decision 015): the same engine and the same
 // view as the server's, from the state the phone was last sent plus the taps it has queued since.
 import type { RoundResponse } from '../../schemas/rounds';
-import type { EventKind } from '../event-kinds';
 import { localDateOf, type LocalDate } from '../local-dates';
 import { applyEvent, compareEvents, type AnimalState, type EngineEvent } from './animal-state';
 import type { EngineAnimal } from './build-round';
 import { unbuiltRound } from './round-view';
 import { effectiveRules, type RulesOverride } from './rules';
 import type { DayOutcome } from './settle';
+import { tapOutcome, type QueuedTap } from './tap-outcome';
+
+export { tapOutcome, type QueuedTap };
 
 /** What the phone keeps of the server's engine input (the API's `engineInputResponse`). */
 export interface PhoneEngineInput {
@@ -16,25 +18,6 @@ export interface PhoneEngineInput {
   date: LocalDate;
   rules: RulesOverride;
   animals: readonly { animal: EngineAnimal; state: AnimalState }[];
-}
-
-/** A tap the phone has not sent yet, as the outbox holds it. */
-export interface QueuedTap {
-  event: {
-    id: string;
-    animalId: string;
-    kind: EventKind;
-    payload: Record<string, unknown>;
-    clientRecordedAt: string;
-  };
-  /** Who tapped, as the round shows it ("done by Robin"). */
-  byName: string;
-}
-
-/** A tap as a day's outcome on the round, the shape the server gives its stored events. */
-export function tapOutcome(event: QueuedTap['event'], by: string): DayOutcome {
-  const targetId = event.kind === 'void' ? (event.payload.targetId as string) : null;
-  return { eventId: event.id, kind: event.kind, at: event.clientRecordedAt, by, voids: targetId };
 }
 
 const engineEventOf = (e: QueuedTap['event']): EngineEvent => ({
