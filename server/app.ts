@@ -235,10 +235,11 @@ export function createApp(options: AppOptions) {
     // Facts that start or lift a hold, or leave prey with a molting animal, change today's
     // round at once (R18): the events feature knows nothing of rounds.
     onRecorded: [
-      (c, recorded) =>
+      (c, recorded, batch) =>
         rounds.reconcileToday(
           c.collectionId,
           animalsToReconcile(recorded, c.timeZone, localDateOf(now(), c.timeZone)),
+          batch,
         ),
       // Meals and prey left in take from the feeder colonies; an undo puts them back. The
       // events are stored already: a failure here is logged, never a failed sync (the phone
