@@ -18,8 +18,8 @@ import {
   doNotFeedNotes,
   findCollection,
   loadAnimalsWithState,
-  loadLogsWithOutcomes,
   loadOutcomes,
+  loadSettlingOutcomes,
   type AnimalRow,
   type RoundCollection,
 } from './rounds.repository';
@@ -59,7 +59,11 @@ export function createRoundInput(db: Db, now: () => Date) {
    */
   async function engineInput(c: RoundCollection, before?: LocalDate, animalIds?: string[]) {
     const rows = await loadAnimalsWithState(db, c.id, animalIds);
-    const logs = await eventLogsOf(db, staleFor(c, rows, before));
+    const logs = await eventLogsOf(
+      db,
+      staleFor(c, rows, before),
+      before ? startOfLocalDate(before, c.timeZone) : undefined,
+    );
     const notes = await doNotFeedNotes(db, c.id, before ?? localDateOf(now(), c.timeZone));
     return engineInputOf(c, rows, notes, before, logs);
   }
@@ -110,12 +114,41 @@ export function createRoundInput(db: Db, now: () => Date) {
     return outcomesOf(rows);
   }
 
-  return { collectionOf, engineInput, engineInputOf, outcomesByAnimal };
+  /**
+   * For settling tasks only (reconcileTasks): per animal, the first standing outcome of each
+   * kind of the day, which settles exactly the tasks all of its outcomes would.
+   */
+  async function settlingOutcomesByAnimal(
+    c: RoundCollection,
+    date: LocalDate,
+    animalIds: string[],
+  ) {
+    return outcomesOf(
+      await loadSettlingOutcomes(
+        db,
+        c.id,
+        startOfLocalDate(date, c.timeZone),
+        startOfLocalDate(addDays(date, 1), c.timeZone),
+        animalIds,
+      ),
+    );
+  }
+
+  return { collectionOf, engineInput, engineInputOf, outcomesByAnimal, settlingOutcomesByAnimal };
 }
 export type RoundInput = ReturnType<typeof createRoundInput>;
 
 /** Outcome rows (`loadOutcomes`) as the round settles them, by animal. */
-export function outcomesOf(rows: Awaited<ReturnType<typeof loadOutcomes>>) {
+export function outcomesOf(
+  rows: readonly {
+    id: string;
+    animalId: string;
+    kind: string;
+    effectiveAt: Date;
+    targetId: string | null;
+    by: string | null;
+  }[],
+) {
   const map = new Map<string, DayOutcome[]>();
   for (const r of rows) {
     const outcome: DayOutcome = {
@@ -130,34 +163,4 @@ export function outcomesOf(rows: Awaited<ReturnType<typeof loadOutcomes>>) {
     else map.set(r.animalId, [outcome]);
   }
   return map;
-}
-
-/**
- * Logs read with `loadLogsWithOutcomes`, split into what `eventLogsOf` gives (every animal
- * asked for, with or without events) and a date's outcomes in the collection, as
- * `outcomesByAnimal` gives them.
- */
-export function logsAndOutcomes(
-  c: RoundCollection,
-  date: LocalDate,
-  animalIds: readonly string[],
-  rows: Awaited<ReturnType<typeof loadLogsWithOutcomes>>,
-) {
-  const logs = new Map<string, EngineEvent[]>(animalIds.map((id) => [id, []]));
-  for (const r of rows)
-    logs.get(r.animalId)?.push({
-      id: r.id,
-      kind: r.kind as EngineEvent['kind'],
-      effectiveAt: r.effectiveAt.toISOString(),
-      payload: r.payload,
-    });
-  const from = startOfLocalDate(date, c.timeZone).getTime();
-  const to = startOfLocalDate(addDays(date, 1), c.timeZone).getTime();
-  const outcomes = outcomesOf(
-    rows.filter(
-      (r) =>
-        r.collectionId === c.id && r.effectiveAt.getTime() >= from && r.effectiveAt.getTime() < to,
-    ),
-  );
-  return { logs, outcomes };
 }

@@ -244,33 +244,44 @@ export async function loadOutcomes(
 }
 
 /**
- * These animals' whole logs, each event with who recorded it and what it undoes: what the
- * engine folds and, of the day's events, the day's outcomes (`loadOutcomes`), in one read.
+ * Of a collection's events in [from, to) for these animals, the first of each kind that no
+ * undo of the period cancelled (undos themselves left out): what `loadOutcomes` gives, cut to
+ * what settling a task asks — whether an outcome of a kind stands (settle.ts: liveOutcomes,
+ * settlingOutcome). A reconciliation runs at every sync: an animal with a busy day has many
+ * outcomes, and this reads a few.
  */
-export async function loadLogsWithOutcomes(db: Db, animalIds: string[]) {
+export async function loadSettlingOutcomes(
+  db: Db,
+  collectionId: string,
+  from: Date,
+  to: Date,
+  animalIds: string[],
+) {
   if (!animalIds.length) return [];
   const { rows } = await db.execute<{
     id: string;
-    collection_id: string;
     animal_id: string;
     kind: string;
     effective_at: Date;
-    payload: Record<string, unknown>;
-    target_id: string | null;
     by: string | null;
   }>(sql`
-    select e.id, e.collection_id, e.animal_id, e.kind, e.effective_at, e.payload,
-           e.payload ->> 'targetId' as target_id, u.display_name as by
+    select distinct on (e.animal_id, e.kind) e.id, e.animal_id, e.kind, e.effective_at, u.display_name as by
     from ${events} e left join ${users} u on u.id = e.recorded_by
-    where e.animal_id = any(${sql.param(animalIds)}::uuid[])`);
+    where e.collection_id = ${collectionId} and e.animal_id = any(${sql.param(animalIds)}::uuid[])
+      and e.effective_at >= ${from.toISOString()} and e.effective_at < ${to.toISOString()}
+      and e.kind <> 'void'
+      and not exists (
+        select 1 from ${events} v
+        where v.collection_id = ${collectionId} and v.animal_id = e.animal_id and v.kind = 'void'
+          and v.effective_at >= ${from.toISOString()} and v.effective_at < ${to.toISOString()}
+          and v.payload ->> 'targetId' = e.id::text)
+    order by e.animal_id, e.kind, e.effective_at, e.id`);
   return rows.map((r) => ({
     id: r.id,
-    collectionId: r.collection_id,
     animalId: r.animal_id,
     kind: r.kind,
     effectiveAt: new Date(r.effective_at),
-    payload: r.payload,
-    targetId: r.target_id,
+    targetId: null,
     by: r.by,
   }));
 }

@@ -1,16 +1,16 @@
 // Today's round during the day (R18): facts and holds that arrive after it was built withdraw
 // feed tasks, give them back, or add an urgent prey removal, at once.
 import type { EventKind } from '#shared/domain/event-kinds';
-import { addDays, localDateOf, type LocalDate } from '#shared/domain/local-dates';
+import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '#shared/domain/local-dates';
 import { decideAnimal, type Reason, type RoundTask } from '#shared/domain/rounds/build-round';
 import { feedHoldIn, reconcileTasks } from '#shared/domain/rounds/reconcile-day';
 import { batchMemo, type BatchMemo } from '../../batch-memo';
 import type { Db } from '../../db/client';
-import { logsAndOutcomes, rulesOf, type RoundInput } from './round-input';
+import { eventLogsOf } from '../events/projection';
+import { rulesOf, type RoundInput } from './round-input';
 import {
   doNotFeedNotes,
   loadAnimalsWithState,
-  loadLogsWithOutcomes,
   roundWithItemsOf,
   updateItemsTasks,
   upsertUrgentItems,
@@ -79,17 +79,16 @@ export function createUrgentTasks(db: Db, now: () => Date, input: RoundInput) {
       const c = await collection(batch, collectionId);
       const date = localDateOf(now(), c.timeZone);
       // Read after the facts were committed, at once: the round and these animals' items, the
-      // animals as they stand, their logs (the build's view from the days before today; of
-      // today's events, the day's outcomes) and the do-not-feed notes. Without a round the
-      // rest goes unused.
-      const [round, rows, events, held] = await Promise.all([
+      // animals as they stand, their logs before today (the build's view), the day's outcomes
+      // that settle tasks and the do-not-feed notes. Without a round the rest goes unused.
+      const [round, rows, logs, outcomes, held] = await Promise.all([
         roundWithItemsOf(db, c.id, date, animalIds),
         loadAnimalsWithState(db, c.id, animalIds),
-        loadLogsWithOutcomes(db, animalIds),
+        eventLogsOf(db, animalIds, startOfLocalDate(date, c.timeZone)),
+        input.settlingOutcomesByAnimal(c, date, animalIds),
         doNotFeedNotes(db, c.id, date),
       ]);
       if (!round) return;
-      const { logs, outcomes } = logsAndOutcomes(c, date, animalIds, events);
       const existing = new Map(round.items.map((item) => [item.animalId, item]));
       const rules = rulesOf(c);
       // As the build would see them now: the facts of the days before today only.
