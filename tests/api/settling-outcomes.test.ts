@@ -74,8 +74,10 @@ describe('the outcomes a reconciliation reads', () => {
     await record(c, 'void', at(24 * 60 + 30), { targetId: note });
     await record(c, 'skipped', at(55));
     await record(c, 'rehoused', at(56));
-    // d: nothing today.
+    // d: nothing today but an undo naming a's second watering: it counts on d's list, not a's.
     await record(d, 'ate', at(-120));
+    const water2 = await record(a, 'watered', at(45));
+    await record(d, 'void', at(46), { targetId: water2 });
 
     const ids = [a, b, c, d];
     const all = outcomesOf(await loadOutcomes(db, owner.collectionId, from, to, ids));
@@ -90,6 +92,7 @@ describe('the outcomes a reconciliation reads', () => {
     for (const id of ids) expect(settled(few, id)).toEqual(settled(all, id));
     // The cases above are not trivial: some tasks are settled, some not.
     expect(settled(few, a)).toMatchObject({ feed: expect.any(String), water: expect.any(String) });
+    expect(few.get(a)!.some((o) => o.kind === 'watered')).toBe(true);
     expect(settled(few, b)).toMatchObject({ feed: null, mist: null, spot_clean: null });
     expect(settled(few, c).check).toEqual(note);
     expect(settled(few, d).feed).toBeNull();

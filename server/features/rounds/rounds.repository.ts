@@ -265,17 +265,22 @@ export async function loadSettlingOutcomes(
     effective_at: Date;
     by: string | null;
   }>(sql`
-    select distinct on (e.animal_id, e.kind) e.id, e.animal_id, e.kind, e.effective_at, u.display_name as by
-    from ${events} e left join ${users} u on u.id = e.recorded_by
-    where e.collection_id = ${collectionId} and e.animal_id = any(${sql.param(animalIds)}::uuid[])
-      and e.effective_at >= ${from.toISOString()} and e.effective_at < ${to.toISOString()}
-      and e.kind <> 'void'
-      and not exists (
-        select 1 from ${events} v
-        where v.collection_id = ${collectionId} and v.animal_id = e.animal_id and v.kind = 'void'
-          and v.effective_at >= ${from.toISOString()} and v.effective_at < ${to.toISOString()}
-          and v.payload ->> 'targetId' = e.id::text)
-    order by e.animal_id, e.kind, e.effective_at, e.id`);
+    with day as materialized (
+      select e.id, e.animal_id, e.kind, e.effective_at, e.recorded_by, e.payload ->> 'targetId' as target_id
+      from ${events} e
+      where e.collection_id = ${collectionId} and e.animal_id = any(${sql.param(animalIds)}::uuid[])
+        and e.effective_at >= ${from.toISOString()} and e.effective_at < ${to.toISOString()}
+    ),
+    -- An undo counts for its own animal's list, as liveOutcomes reads it.
+    undone as (
+      select distinct animal_id, target_id from day where kind = 'void' and target_id is not null
+    )
+    select distinct on (d.animal_id, d.kind) d.id, d.animal_id, d.kind, d.effective_at, u.display_name as by
+    from day d
+    left join undone x on x.animal_id = d.animal_id and x.target_id = d.id::text
+    left join ${users} u on u.id = d.recorded_by
+    where d.kind <> 'void' and x.target_id is null
+    order by d.animal_id, d.kind, d.effective_at, d.id`);
   return rows.map((r) => ({
     id: r.id,
     animalId: r.animal_id,
