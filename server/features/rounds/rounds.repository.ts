@@ -266,21 +266,22 @@ export async function loadSettlingOutcomes(
     by: string | null;
   }>(sql`
     with day as materialized (
-      select e.id, e.animal_id, e.kind, e.effective_at, e.recorded_by, e.payload ->> 'targetId' as target_id
+      select e.id, e.animal_id, e.kind, e.effective_at, e.recorded_by,
+             case when e.kind = 'void' then e.payload ->> 'targetId' end as target_id
       from ${events} e
       where e.collection_id = ${collectionId} and e.animal_id = any(${sql.param(animalIds)}::uuid[])
         and e.effective_at >= ${from.toISOString()} and e.effective_at < ${to.toISOString()}
     ),
     -- An undo counts for its own animal's list, as liveOutcomes reads it.
-    undone as (
-      select distinct animal_id, target_id from day where kind = 'void' and target_id is not null
+    undone as (select distinct animal_id, target_id from day where target_id is not null),
+    firsts as (
+      select distinct on (d.animal_id, d.kind) d.id, d.animal_id, d.kind, d.effective_at, d.recorded_by
+      from day d left join undone x on x.animal_id = d.animal_id and x.target_id = d.id::text
+      where d.kind <> 'void' and x.target_id is null
+      order by d.animal_id, d.kind, d.effective_at, d.id
     )
-    select distinct on (d.animal_id, d.kind) d.id, d.animal_id, d.kind, d.effective_at, u.display_name as by
-    from day d
-    left join undone x on x.animal_id = d.animal_id and x.target_id = d.id::text
-    left join ${users} u on u.id = d.recorded_by
-    where d.kind <> 'void' and x.target_id is null
-    order by d.animal_id, d.kind, d.effective_at, d.id`);
+    select f.id, f.animal_id, f.kind, f.effective_at, u.display_name as by
+    from firsts f left join ${users} u on u.id = f.recorded_by`);
   return rows.map((r) => ({
     id: r.id,
     animalId: r.animal_id,
