@@ -74,10 +74,11 @@ export async function runP5(database: Database): Promise<{ figures: Figure[]; no
       now: () => new Date(),
       feedHolds: rounds.feedHolds,
       onRecorded: [
-        (c, recorded) =>
+        (c, recorded, batch) =>
           rounds.reconcileToday(
             c.collectionId,
             animalsToReconcile(recorded, c.timeZone, localDateOf(new Date(), c.timeZone)),
+            batch,
           ),
       ],
     });

@@ -35,7 +35,7 @@ import { createCoverService } from './features/cover/cover.service';
 import { dataRoutes, LARGE_BODY_PATHS } from './features/data/data.routes';
 import { createDataService } from './features/data/data.service';
 import { devRoutes } from './features/dev/dev.routes';
-import { eventsRoutes } from './features/events/events.routes';
+import { eventsRoutes, syncFastPath } from './features/events/events.routes';
 import { createEventsService } from './features/events/events.service';
 import { healthRoutes } from './features/health/health.routes';
 import { helperReportsRoutes } from './features/helper-reports/helper-reports.routes';
@@ -120,9 +120,8 @@ export function createApp(options: AppOptions) {
   const api = express.Router();
   const rounds = createRoundsService(database.db, now);
   // Today's round, the hot read, skips the session middleware when its one-query check passes.
-  api.use(
-    todayRoundFastPath(rounds, sessionMemberCheck(database.pool, env.SESSION_SECRET, store, now)),
-  );
+  const sessionMember = sessionMemberCheck(database.pool, env.SESSION_SECRET, store, now);
+  api.use(todayRoundFastPath(rounds, sessionMember));
   // Sales — payments: the service's webhook is checked against its raw bytes, and carries no
   // session and no app header, so it sits before the JSON parser, the sessions and CSRF check.
   const payments = createPaymentsService(database.db, {
@@ -140,6 +139,10 @@ export function createApp(options: AppOptions) {
         !LARGE_BODY_PATHS.test(req.url ?? '') && /json/i.test(req.headers['content-type'] ?? ''),
     }),
   );
+  // A sync batch, like today's round, skips the session middleware when its one-query check
+  // passes (its route is added once the events service exists, below).
+  const syncFast = express.Router();
+  api.use(syncFast);
   api.use(sessions(env, store));
   api.use(requireSameSiteWrite);
 
@@ -235,10 +238,11 @@ export function createApp(options: AppOptions) {
     // Facts that start or lift a hold, or leave prey with a molting animal, change today's
     // round at once (R18): the events feature knows nothing of rounds.
     onRecorded: [
-      (c, recorded) =>
+      (c, recorded, batch) =>
         rounds.reconcileToday(
           c.collectionId,
           animalsToReconcile(recorded, c.timeZone, localDateOf(now(), c.timeZone)),
+          batch,
         ),
       // Meals and prey left in take from the feeder colonies; an undo puts them back. The
       // events are stored already: a failure here is logged, never a failed sync (the phone
@@ -249,6 +253,7 @@ export function createApp(options: AppOptions) {
           .catch((err: unknown) => logger.error({ err }, 'Feeder colony stock not updated')),
     ],
   });
+  syncFast.use(syncFastPath(events, sessionMember));
   const photos = createPhotosService(database.db, path.resolve(env.STORAGE_DIR), now);
   const coverReports = createCoverReportsService(database.db, {
     mailer: options.mailer,

@@ -18,14 +18,23 @@ export function sessionMemberCheck(
   store: SessionStore,
   now: () => Date,
 ) {
-  return async (req: Request, minimum: Role): Promise<Membership | null> => {
+  return async (
+    req: Request,
+    minimum: Role,
+    // anyTime: the route judges a helper's cover window itself (as `member(…, { anyTime })`).
+    options: { anyTime?: boolean } = {},
+  ): Promise<(Membership & { userId: string }) | null> => {
     const sid = signedSessionId(req.headers.cookie, secret);
     if (!sid || store.touchDue(sid)) return null;
     const id = uuid.safeParse(req.params.collectionId);
     if (!id.success) return null;
     const m = await findSessionMembership(pool, sid, id.data).catch(() => null);
     if (!m || pastAbsoluteTimeout(m.signedInAt)) return null;
-    if (m.role === 'helper' && coverWindowState(now(), m.startsAt, m.endsAt) !== 'during')
+    if (
+      m.role === 'helper' &&
+      !options.anyTime &&
+      coverWindowState(now(), m.startsAt, m.endsAt) !== 'during'
+    )
       return null;
     return roleAtLeast(m.role, minimum) ? m : null;
   };

@@ -115,3 +115,57 @@ describe('instantOfKeeperDate', () => {
     ); // EST, UTC−5 by noon
   });
 });
+
+describe('an instant’s date, remembered by quarter hour', () => {
+  // Zones with half- and quarter-hour offsets, DST that moves by 30 minutes, a fall-back at
+  // midnight, and the odd local-mean-time offsets of the 19th century.
+  const zones = [
+    'America/Toronto',
+    'Asia/Kathmandu',
+    'Pacific/Chatham',
+    'Australia/Lord_Howe',
+    'America/Asuncion',
+    'America/Santiago',
+    'Asia/Kolkata',
+    'Europe/Dublin',
+    'Pacific/Kiritimati',
+    'Pacific/Pago_Pago',
+    'UTC',
+  ];
+  const luxonDate = (ms: number, zone: string) =>
+    DateTime.fromMillis(ms, { zone }).toISODate() as string;
+
+  it('agrees with luxon for any instant from 1850 to 2100, asked once or again', () => {
+    fc.assert(
+      fc.property(
+        fc.constantFrom(...zones),
+        fc.integer({ min: Date.UTC(1850, 0, 1), max: Date.UTC(2100, 0, 1) }),
+        (zone, ms) => {
+          expect(localDateOf(new Date(ms), zone)).toBe(luxonDate(ms, zone));
+          expect(localDateOf(new Date(ms), zone)).toBe(luxonDate(ms, zone));
+        },
+      ),
+      { numRuns: 3000 },
+    );
+  });
+
+  it('agrees with luxon minute by minute around midnights and clock changes', () => {
+    const around = [
+      '2026-03-08T06:00:00Z', // Toronto springs forward
+      '2026-11-01T05:30:00Z', // Toronto falls back
+      '2026-03-22T02:45:00Z', // Asuncion's last fall-back at midnight
+      '2026-04-04T14:00:00Z', // Lord Howe's half-hour change
+      '2026-06-01T18:15:00Z', // Kathmandu midnight (UTC+5:45)
+      '2026-06-01T11:15:00Z', // Chatham midnight (UTC+12:45)
+      '1880-06-01T00:00:00Z', // local mean times
+    ];
+    for (const zone of zones)
+      for (const at of around)
+        for (let m = -12 * 60; m <= 12 * 60; m += 7) {
+          const ms = Date.parse(at) + m * 60_000 + ((m * 7919) % 60_000);
+          expect(localDateOf(new Date(ms), zone), `${zone} ${new Date(ms).toISOString()}`).toBe(
+            luxonDate(ms, zone),
+          );
+        }
+  });
+});

@@ -39,8 +39,7 @@ function fromDayNumber(n: number): LocalDate {
 // One formatter per zone: building an Intl.DateTimeFormat is the expensive part.
 const formatters = new Map<string, Intl.DateTimeFormat>();
 
-/** The calendar date an instant falls on in `zone`. */
-export function localDateOf(instant: Date, zone: string): LocalDate {
+function formattedDate(instant: Date | number, zone: string): LocalDate {
   let f = formatters.get(zone);
   if (!f) {
     f = new Intl.DateTimeFormat('en-CA', {
@@ -54,6 +53,33 @@ export function localDateOf(instant: Date, zone: string): LocalDate {
   const parts = f.formatToParts(instant);
   const get = (type: string) => parts.find((p) => p.type === type)!.value;
   return `${get('year')}-${get('month')}-${get('day')}`;
+}
+
+// Folding an animal's log asks for the date of every event, again at each sync (P5), and Intl
+// is the slow part. Zones' offsets and their changes fall on whole quarter hours, so an
+// instant's date is its UTC quarter hour's: remembered per zone once the quarter's first and
+// last millisecond agree (an odd old offset then still gets the exact answer). Bounded.
+const QUARTER_MS = 900_000;
+const quarterDates = new Map<string, Map<number, LocalDate>>();
+let rememberedQuarters = 0;
+
+/** The calendar date an instant falls on in `zone`. */
+export function localDateOf(instant: Date, zone: string): LocalDate {
+  const quarter = Math.floor(instant.getTime() / QUARTER_MS);
+  let dates = quarterDates.get(zone);
+  const known = dates?.get(quarter);
+  if (known !== undefined) return known;
+  const first = formattedDate(quarter * QUARTER_MS, zone);
+  if (first !== formattedDate(quarter * QUARTER_MS + QUARTER_MS - 1, zone))
+    return formattedDate(instant, zone);
+  if (rememberedQuarters >= 100_000) {
+    quarterDates.clear();
+    rememberedQuarters = 0;
+  }
+  if (!dates) quarterDates.set(zone, (dates = new Map()));
+  dates.set(quarter, first);
+  rememberedQuarters++;
+  return first;
 }
 
 /** The instant a local calendar date begins in `zone` (handles DST: not always 00:00 UTC±n). */

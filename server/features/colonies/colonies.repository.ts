@@ -105,6 +105,16 @@ export async function deleteColony(db: Db, collectionId: string, colonyId: strin
   return rows.length > 0;
 }
 
+/** Whether the collection keeps any feeder colony (most do not). */
+export async function hasColonies(db: Db, collectionId: string): Promise<boolean> {
+  const rows = await db
+    .select({ id: colonies.id })
+    .from(colonies)
+    .where(eq(colonies.collectionId, collectionId))
+    .limit(1);
+  return rows.length > 0;
+}
+
 export async function colonyIdsIn(db: Db, collectionId: string, ids: string[]) {
   if (!ids.length) return new Set<string>();
   const rows = await db

@@ -23,6 +23,7 @@ import {
   changesFromEvents,
   colonyIdsIn,
   deleteColony,
+  hasColonies,
   insertColony,
   loadColonies,
   stockChangesOf,
@@ -150,6 +151,9 @@ export function createColoniesService(db: Db, deps: ColoniesDeps) {
       (e) => e.kind === 'void' && typeof e.payload.targetId === 'string',
     );
     if (!using.length && !voids.length) return;
+    // Without a colony there is nothing to take from or put back: a batch then costs one look
+    // instead of the round's offers and a locking transaction.
+    if (!(await hasColonies(db, c.collectionId))) return;
     // Offers come from the round of each event's own local date.
     const byDate = new Map<LocalDate, string[]>();
     for (const e of using) {

@@ -11,6 +11,7 @@ import { localDateOf, type LocalDate } from '#shared/domain/local-dates';
 import { MAX_BATCH_EVENTS } from '#shared/domain/sync-limits';
 import type { EventBatchBody, EventBatchResponse, HistoryEvent } from '#shared/schemas/events';
 import type { Membership } from '../../access/memberships';
+import { batchMemo, type BatchMemo } from '../../batch-memo';
 import type { Db } from '../../db/client';
 import { isRetryableConflict } from '../../db/errors';
 import { HttpError } from '../../middleware/errors';
@@ -32,6 +33,8 @@ export type OnRecorded = (
     payload: Record<string, unknown>;
     effectiveAt: Date;
   }[],
+  /** Loads the batch's checks share (feed holds, these hooks): each made once per batch. */
+  batch: BatchMemo,
 ) => Promise<void>;
 
 export interface EventsServiceOptions {
@@ -41,6 +44,7 @@ export interface EventsServiceOptions {
     collectionId: string,
     animalIds: string[],
     date: LocalDate,
+    batch: BatchMemo,
   ) => Promise<ReadonlyMap<string, unknown>>;
   /** Run in order after each device batch is committed. */
   onRecorded?: readonly OnRecorded[];
@@ -60,6 +64,7 @@ export function createEventsService(
     zone: string,
     incoming: DeviceEvent[],
     received = now(),
+    batch = batchMemo(),
   ) {
     const collection = { collectionId, timeZone: zone };
     // Batches sharing animals lock them in the same order, but a first event of an animal, or
@@ -85,29 +90,33 @@ export function createEventsService(
         payload,
         effectiveAt,
       }));
-    for (const hook of onRecorded) await hook(collection, recorded);
+    for (const hook of onRecorded) await hook(collection, recorded, batch);
     return { inserted };
   }
 
   /**
    * A meal recorded while the engine withholds food (a molt hold, premolt, a do-not-feed note…)
-   * is stored — it happened — but flagged for the owner (R18). Judged before the batch lands.
+   * is stored — it happened — but flagged for the owner (R18). Judged before the batch lands,
+   * for every meal in it (the verdicts are not known yet): only accepted ones are flagged.
    */
-  async function flagMealsWhileHeld(member: Membership, list: DeviceEvent[]) {
-    const byDate = new Map<string, DeviceEvent[]>();
-    for (const e of list.filter((e) => e.kind === 'ate')) {
-      const date = localDateOf(e.effectiveAt, member.timeZone);
-      byDate.set(date, [...(byDate.get(date) ?? []), e]);
+  async function holdsOfMeals(
+    member: Membership,
+    meals: readonly { event: { animalId: string }; effectiveAt: Date }[],
+    batch: BatchMemo,
+  ): Promise<Map<string, ReadonlyMap<string, unknown>>> {
+    const byDate = new Map<string, Set<string>>();
+    for (const { event, effectiveAt } of meals) {
+      const date = localDateOf(effectiveAt, member.timeZone);
+      byDate.set(date, (byDate.get(date) ?? new Set()).add(event.animalId));
     }
-    for (const [date, group] of byDate) {
-      const holds = await feedHolds(
-        member.collectionId,
-        [...new Set(group.map((e) => e.animalId))],
-        date,
-      );
-      for (const e of group)
-        if (holds.has(e.animalId)) e.flags = [...(e.flags ?? []), FED_WHILE_HELD];
-    }
+    return new Map(
+      await Promise.all(
+        [...byDate].map(
+          async ([date, ids]) =>
+            [date, await feedHolds(member.collectionId, [...ids], date, batch)] as const,
+        ),
+      ),
+    );
   }
 
   /** One sync request from a device: a verdict per event, a re-sent event a duplicate. */
@@ -127,11 +136,17 @@ export function createEventsService(
     const sentAt = new Date(body.clientSentAt);
     const screened = screenBatch(body.events, sentAt, received);
     const wanted = factsToLoad(screened, member.role);
-    const [animals, stored, breeders, moltTimes] = await Promise.all([
+    const batch = batchMemo();
+    const [animals, stored, breeders, moltTimes, holds] = await Promise.all([
       animalIdsInCollection(db, member.collectionId, wanted.animalIds),
       storedEvents(db, wanted.eventIds),
       breedersAmong(db, member.collectionId, wanted.pairedIds),
       liveMoltTimes(db, wanted.moltingIds),
+      holdsOfMeals(
+        member,
+        screened.candidates.filter((c) => c.event.kind === 'ate'),
+        batch,
+      ),
     ]);
     const { results, accepted } = judgeBatch(
       screened,
@@ -152,9 +167,14 @@ export function createEventsService(
       flags,
     }));
 
-    await flagMealsWhileHeld(member, toInsert);
+    for (const e of toInsert)
+      if (
+        e.kind === 'ate' &&
+        holds.get(localDateOf(e.effectiveAt, member.timeZone))?.has(e.animalId)
+      )
+        e.flags = [...(e.flags ?? []), FED_WHILE_HELD];
     const { inserted } = toInsert.length
-      ? await ingest(member.collectionId, member.timeZone, toInsert, received)
+      ? await ingest(member.collectionId, member.timeZone, toInsert, received, batch)
       : { inserted: new Set<string>() };
     const lost = new Set(toInsert.filter((e) => !inserted.has(e.id)).map((e) => e.id));
     return {

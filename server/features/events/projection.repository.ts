@@ -1,4 +1,4 @@
-import { eq, inArray, sql } from 'drizzle-orm';
+import { and, eq, inArray, lt, or, sql } from 'drizzle-orm';
 import {
   EMPTY_STATE,
   type AnimalState,
@@ -49,10 +49,15 @@ export async function lockStates(
   return found;
 }
 
-/** Each animal's whole log as the engine folds it (unordered: the fold sorts). */
+/**
+ * Each animal's whole log as the engine folds it (unordered: the fold sorts). With `before`,
+ * only what a fold up to that instant reads: the events before it, and every undo (an undo
+ * made later still cancels an earlier event).
+ */
 export async function loadEventsOf(
   db: Db,
   animalIds: string[],
+  before?: Date,
 ): Promise<Map<string, EngineEvent[]>> {
   const byAnimal = new Map<string, EngineEvent[]>(animalIds.map((id) => [id, []]));
   if (!animalIds.length) return byAnimal;
@@ -65,7 +70,14 @@ export async function loadEventsOf(
       payload: events.payload,
     })
     .from(events)
-    .where(inArray(events.animalId, animalIds));
+    .where(
+      before
+        ? and(
+            sql`${events.animalId} = any(${sql.param(animalIds)}::uuid[])`,
+            or(lt(events.effectiveAt, before), eq(events.kind, 'void')),
+          )
+        : inArray(events.animalId, animalIds),
+    );
   for (const r of rows) {
     byAnimal.get(r.animalId)!.push({
       id: r.id,

@@ -11,9 +11,15 @@ import {
 import type { Db } from '../../db/client';
 import { animalIdsOf, loadEventsOf, lockStates, upsertStates } from './projection.repository';
 
-/** Each animal's whole log in effective order, for a reader whose stored state is out of date. */
-export const eventLogsOf = (db: Db, animalIds: string[]): Promise<Map<string, EngineEvent[]>> =>
-  loadEventsOf(db, animalIds);
+/**
+ * Each animal's log, for a reader whose stored state is out of date: whole, or with `before`
+ * what folding it up to that instant needs (projectState with `before`).
+ */
+export const eventLogsOf = (
+  db: Db,
+  animalIds: string[],
+  before?: Date,
+): Promise<Map<string, EngineEvent[]>> => loadEventsOf(db, animalIds, before);
 
 /** Re-folds animals' states from the whole event log (all of a collection's when no ids). */
 export async function refoldStates(

@@ -1,7 +1,12 @@
 // What the round engine decides from: the collection (zone, rules), each animal with its
 // projected state and holds, and the day's outcomes.
 import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '#shared/domain/local-dates';
-import { EMPTY_STATE, projectState, type AnimalState } from '#shared/domain/rounds/animal-state';
+import {
+  EMPTY_STATE,
+  projectState,
+  type AnimalState,
+  type EngineEvent,
+} from '#shared/domain/rounds/animal-state';
 import type { EngineAnimal } from '#shared/domain/rounds/build-round';
 import { effectiveRules, type RoundRules, type RulesOverride } from '#shared/domain/rounds/rules';
 import type { DayOutcome } from '#shared/domain/rounds/settle';
@@ -14,6 +19,7 @@ import {
   findCollection,
   loadAnimalsWithState,
   loadOutcomes,
+  loadSettlingOutcomes,
   type AnimalRow,
   type RoundCollection,
 } from './rounds.repository';
@@ -32,6 +38,14 @@ export function toEngineAnimal(
   };
 }
 
+/** Animals whose stored state holds events on or after `before`: the log gives their state then. */
+function staleFor(c: RoundCollection, rows: readonly AnimalRow[], before?: LocalDate): string[] {
+  const cutoff = before ? startOfLocalDate(before, c.timeZone) : null;
+  return rows
+    .filter((r) => cutoff && r.lastEventAt && r.lastEventAt >= cutoff)
+    .map((r) => r.animal.id);
+}
+
 export function createRoundInput(db: Db, now: () => Date) {
   async function collectionOf(collectionId: string): Promise<RoundCollection> {
     const c = await findCollection(db, collectionId);
@@ -45,21 +59,38 @@ export function createRoundInput(db: Db, now: () => Date) {
    */
   async function engineInput(c: RoundCollection, before?: LocalDate, animalIds?: string[]) {
     const rows = await loadAnimalsWithState(db, c.id, animalIds);
-    const cutoff = before ? startOfLocalDate(before, c.timeZone) : null;
-    const stale = rows
-      .filter((r) => cutoff && r.lastEventAt && r.lastEventAt >= cutoff)
-      .map((r) => r.animal.id);
-    const logs = await eventLogsOf(db, stale);
+    const logs = await eventLogsOf(
+      db,
+      staleFor(c, rows, before),
+      before ? startOfLocalDate(before, c.timeZone) : undefined,
+    );
+    const notes = await doNotFeedNotes(db, c.id, before ?? localDateOf(now(), c.timeZone));
+    return engineInputOf(c, rows, notes, before, logs);
+  }
+
+  /**
+   * `engineInput` from rows already loaded: `notes` may run from an earlier date (they are
+   * read from `before`, or today, here), and `logs` must hold every animal `staleFor` names.
+   */
+  function engineInputOf(
+    c: RoundCollection,
+    rows: readonly AnimalRow[],
+    notes: readonly { animalId: string; until: LocalDate }[],
+    before?: LocalDate,
+    logs?: ReadonlyMap<string, EngineEvent[]>,
+  ) {
+    const from = before ?? localDateOf(now(), c.timeZone);
+    const stale = new Set(staleFor(c, rows, before));
     // A handover note "do not feed during the cover" holds feeding through its last day.
     const holds = new Map(
-      (await doNotFeedNotes(db, c.id, before ?? localDateOf(now(), c.timeZone))).map((h) => [
-        h.animalId,
-        addDays(h.until, 1),
-      ]),
+      notes.filter((h) => h.until >= from).map((h) => [h.animalId, addDays(h.until, 1)]),
     );
     return rows.map((r) => {
-      const state = logs.has(r.animal.id)
-        ? projectState(logs.get(r.animal.id)!, c.timeZone, before)
+      const log = stale.has(r.animal.id) ? logs?.get(r.animal.id) : undefined;
+      if (stale.has(r.animal.id) && !log)
+        throw new Error(`engineInputOf: no log loaded for ${r.animal.id}, whose state is newer`);
+      const state = log
+        ? projectState(log, c.timeZone, before)
         : ((r.state as AnimalState | null) ?? EMPTY_STATE);
       const animal = toEngineAnimal(r, c.timeZone, state.lastMeal === null);
       const hold = holds.get(r.animal.id);
@@ -80,22 +111,56 @@ export function createRoundInput(db: Db, now: () => Date) {
       startOfLocalDate(addDays(date, 1), c.timeZone),
       animalIds,
     );
-    const map = new Map<string, DayOutcome[]>();
-    for (const r of rows) {
-      const outcome: DayOutcome = {
-        eventId: r.id,
-        kind: r.kind as DayOutcome['kind'],
-        at: r.effectiveAt.toISOString(),
-        by: r.by,
-        voids: r.targetId,
-      };
-      const list = map.get(r.animalId);
-      if (list) list.push(outcome);
-      else map.set(r.animalId, [outcome]);
-    }
-    return map;
+    return outcomesOf(rows);
   }
 
-  return { collectionOf, engineInput, outcomesByAnimal };
+  /**
+   * For settling tasks only (reconcileTasks): per animal, the first standing outcome of each
+   * kind of the day, which settles exactly the tasks all of its outcomes would.
+   */
+  async function settlingOutcomesByAnimal(
+    c: RoundCollection,
+    date: LocalDate,
+    animalIds: string[],
+  ) {
+    return outcomesOf(
+      await loadSettlingOutcomes(
+        db,
+        c.id,
+        startOfLocalDate(date, c.timeZone),
+        startOfLocalDate(addDays(date, 1), c.timeZone),
+        animalIds,
+      ),
+    );
+  }
+
+  return { collectionOf, engineInput, engineInputOf, outcomesByAnimal, settlingOutcomesByAnimal };
 }
 export type RoundInput = ReturnType<typeof createRoundInput>;
+
+/** Outcome rows (`loadOutcomes`) as the round settles them, by animal. */
+export function outcomesOf(
+  rows: readonly {
+    id: string;
+    animalId: string;
+    kind: string;
+    effectiveAt: Date;
+    targetId: string | null;
+    by: string | null;
+  }[],
+) {
+  const map = new Map<string, DayOutcome[]>();
+  for (const r of rows) {
+    const outcome: DayOutcome = {
+      eventId: r.id,
+      kind: r.kind as DayOutcome['kind'],
+      at: r.effectiveAt.toISOString(),
+      by: r.by,
+      voids: r.targetId,
+    };
+    const list = map.get(r.animalId);
+    if (list) list.push(outcome);
+    else map.set(r.animalId, [outcome]);
+  }
+  return map;
+}

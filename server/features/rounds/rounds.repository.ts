@@ -110,19 +110,77 @@ export async function insertRoundItems(
   }
 }
 
-export async function upsertUrgentItem(db: Db, item: NewRoundItem) {
-  await db
-    .insert(roundItems)
-    .values(item)
-    .onConflictDoUpdate({
-      target: [roundItems.roundId, roundItems.animalId],
-      set: { tasks: item.tasks, notes: item.notes, addedDuringDay: true },
-    });
+/**
+ * Items added or rewritten during the day (R18), in one statement: an animal's item that is
+ * already there keeps its place and gets the new tasks and notes.
+ */
+export async function upsertUrgentItems(db: Db, items: NewRoundItem[]) {
+  if (!items.length) return;
+  const rows = items.map((it) => ({
+    round_id: it.roundId,
+    animal_id: it.animalId,
+    sort_index: it.sortIndex,
+    tasks: it.tasks,
+    notes: it.notes ?? [],
+    carried_over_days: it.carriedOverDays ?? 0,
+  }));
+  await db.execute(sql`
+    insert into round_items (round_id, animal_id, sort_index, tasks, notes, carried_over_days, added_during_day)
+    select x.round_id, x.animal_id, x.sort_index, x.tasks, x.notes, x.carried_over_days, true
+    from jsonb_to_recordset(${JSON.stringify(rows)}::jsonb)
+      as x(round_id uuid, animal_id uuid, sort_index int, tasks jsonb, notes jsonb, carried_over_days int)
+    on conflict (round_id, animal_id) do update
+      set tasks = excluded.tasks, notes = excluded.notes, added_during_day = true`);
 }
 
-/** A day's item with tasks changed during the day (a hold withdrew some, R18). */
-export async function updateItemTasks(db: Db, itemId: string, tasks: unknown) {
-  await db.update(roundItems).set({ tasks }).where(eq(roundItems.id, itemId));
+/** Day's items with tasks changed during the day (a hold withdrew some, R18), in one statement. */
+export async function updateItemsTasks(db: Db, changes: { id: string; tasks: unknown }[]) {
+  if (!changes.length) return;
+  await db.execute(sql`
+    update round_items i set tasks = x.tasks
+    from jsonb_to_recordset(${JSON.stringify(changes)}::jsonb) as x(id uuid, tasks jsonb)
+    where i.id = x.id`);
+}
+
+/**
+ * A date's round, if built, with these animals' items (active animals only, as
+ * `loadRoundItems` gives them): what bringing the round in line during the day reads, in one
+ * query.
+ */
+export async function roundWithItemsOf(
+  db: Db,
+  collectionId: string,
+  date: LocalDate,
+  animalIds: string[],
+) {
+  const { rows } = await db.execute<{
+    round_id: string;
+    id: string | null;
+    animal_id: string | null;
+    sort_index: number | null;
+    tasks: unknown;
+    notes: unknown;
+    carried_over_days: number | null;
+  }>(sql`
+    select r.id as round_id, i.id, i.animal_id, i.sort_index, i.tasks, i.notes, i.carried_over_days
+    from ${rounds} r
+    left join (${roundItems} i join ${animals} a on a.id = i.animal_id and a.status = 'active')
+      on i.round_id = r.id and i.animal_id = any(${sql.param(animalIds)}::uuid[])
+    where r.collection_id = ${collectionId} and r.local_date = ${date}`);
+  if (!rows.length) return null;
+  return {
+    roundId: rows[0]!.round_id,
+    items: rows
+      .filter((r) => r.id !== null)
+      .map((r) => ({
+        id: r.id!,
+        animalId: r.animal_id!,
+        sortIndex: r.sort_index!,
+        tasks: r.tasks,
+        notes: r.notes,
+        carriedOverDays: r.carried_over_days!,
+      })),
+  };
 }
 
 /** A round's items with their animals; only some animals' items when `animalIds` is given. */
@@ -181,6 +239,55 @@ export async function loadOutcomes(
     kind: r.kind,
     effectiveAt: new Date(r.effective_at),
     targetId: r.target_id,
+    by: r.by,
+  }));
+}
+
+/**
+ * Of a collection's events in [from, to) for these animals, the first of each kind that no
+ * undo of the period cancelled (undos themselves left out): what `loadOutcomes` gives, cut to
+ * what settling a task asks — whether an outcome of a kind stands (settle.ts: liveOutcomes,
+ * settlingOutcome). A reconciliation runs at every sync: an animal with a busy day has many
+ * outcomes, and this reads a few.
+ */
+export async function loadSettlingOutcomes(
+  db: Db,
+  collectionId: string,
+  from: Date,
+  to: Date,
+  animalIds: string[],
+) {
+  if (!animalIds.length) return [];
+  const { rows } = await db.execute<{
+    id: string;
+    animal_id: string;
+    kind: string;
+    effective_at: Date;
+    by: string | null;
+  }>(sql`
+    with day as materialized (
+      select e.id, e.animal_id, e.kind, e.effective_at, e.recorded_by,
+             case when e.kind = 'void' then e.payload ->> 'targetId' end as target_id
+      from ${events} e
+      where e.collection_id = ${collectionId} and e.animal_id = any(${sql.param(animalIds)}::uuid[])
+        and e.effective_at >= ${from.toISOString()} and e.effective_at < ${to.toISOString()}
+    ),
+    -- An undo counts for its own animal's list, as liveOutcomes reads it.
+    undone as (select distinct animal_id, target_id from day where target_id is not null),
+    firsts as (
+      select distinct on (d.animal_id, d.kind) d.id, d.animal_id, d.kind, d.effective_at, d.recorded_by
+      from day d left join undone x on x.animal_id = d.animal_id and x.target_id = d.id::text
+      where d.kind <> 'void' and x.target_id is null
+      order by d.animal_id, d.kind, d.effective_at, d.id
+    )
+    select f.id, f.animal_id, f.kind, f.effective_at, u.display_name as by
+    from firsts f left join ${users} u on u.id = f.recorded_by`);
+  return rows.map((r) => ({
+    id: r.id,
+    animalId: r.animal_id,
+    kind: r.kind,
+    effectiveAt: new Date(r.effective_at),
+    targetId: null,
     by: r.by,
   }));
 }

@@ -1,12 +1,21 @@
 // Today's round during the day (R18): facts and holds that arrive after it was built withdraw
 // feed tasks, give them back, or add an urgent prey removal, at once.
 import type { EventKind } from '#shared/domain/event-kinds';
-import { localDateOf, type LocalDate } from '#shared/domain/local-dates';
+import { addDays, localDateOf, startOfLocalDate, type LocalDate } from '#shared/domain/local-dates';
 import { decideAnimal, type Reason, type RoundTask } from '#shared/domain/rounds/build-round';
 import { feedHoldIn, reconcileTasks } from '#shared/domain/rounds/reconcile-day';
+import { batchMemo, type BatchMemo } from '../../batch-memo';
 import type { Db } from '../../db/client';
+import { eventLogsOf } from '../events/projection';
 import { rulesOf, type RoundInput } from './round-input';
-import { findRound, loadRoundItems, updateItemTasks, upsertUrgentItem } from './rounds.repository';
+import {
+  doNotFeedNotes,
+  loadAnimalsWithState,
+  roundWithItemsOf,
+  updateItemsTasks,
+  upsertUrgentItems,
+  type NewRoundItem,
+} from './rounds.repository';
 
 /**
  * Facts that change today's round during the day: prey left with an animal that is (or turns
@@ -45,32 +54,52 @@ export function animalsToReconcile(
   ];
 }
 
+/**
+ * The first date of the do-not-feed notes that may hold food today in any zone (none is more
+ * than a day from UTC), read before the collection's zone is known: `engineInputOf` keeps
+ * those that run on or after the collection's today.
+ */
+const notesFrom = (now: Date): LocalDate => addDays(localDateOf(now, 'UTC'), -1);
+
 export function createUrgentTasks(db: Db, now: () => Date, input: RoundInput) {
+  // The collection (zone, rules) is read once per batch (`batch`), or per call when the
+  // caller has none. What a sync batch itself changes, or what may change under it (a
+  // do-not-feed note whose own reconciliation runs meanwhile), is read where it is used.
+  const collection = (batch: BatchMemo, collectionId: string) =>
+    batch.once(`rounds:collection:${collectionId}`, () => input.collectionOf(collectionId));
+
   return {
     /**
      * After new facts or holds during the day, today's built round is brought in line without
      * reshuffling it (reconcileTasks): holds withdraw or give back tasks, and prey left with an
      * animal now molting or in premolt is added as an urgent removal.
      */
-    async reconcileToday(collectionId: string, animalIds: string[]) {
+    async reconcileToday(collectionId: string, animalIds: string[], batch = batchMemo()) {
       if (!animalIds.length) return;
-      const c = await input.collectionOf(collectionId);
+      const c = await collection(batch, collectionId);
       const date = localDateOf(now(), c.timeZone);
-      const row = await findRound(db, c.id, date);
-      if (!row) return;
-      const existing = new Map(
-        (await loadRoundItems(db, row.id, animalIds)).map((r) => [r.animal.id, r.item]),
-      );
-      const outcomes = await input.outcomesByAnimal(c, date, animalIds);
+      // Read after the facts were committed, at once: the round and these animals' items, the
+      // animals as they stand, their logs before today (the build's view), the day's outcomes
+      // that settle tasks and the do-not-feed notes. Without a round the rest goes unused.
+      const [round, rows, logs, outcomes, held] = await Promise.all([
+        roundWithItemsOf(db, c.id, date, animalIds),
+        loadAnimalsWithState(db, c.id, animalIds),
+        eventLogsOf(db, animalIds, startOfLocalDate(date, c.timeZone)),
+        input.settlingOutcomesByAnimal(c, date, animalIds),
+        doNotFeedNotes(db, c.id, date),
+      ]);
+      if (!round) return;
+      const existing = new Map(round.items.map((item) => [item.animalId, item]));
       const rules = rulesOf(c);
       // As the build would see them now: the facts of the days before today only.
       const asBuilt = new Map(
-        (await input.engineInput(c, date, animalIds)).map(({ animal, state }) => [
-          animal.id,
-          decideAnimal(animal, state, rules, date),
-        ]),
+        input
+          .engineInputOf(c, rows, held, date, logs)
+          .map(({ animal, state }) => [animal.id, decideAnimal(animal, state, rules, date)]),
       );
-      for (const { animal, state } of await input.engineInput(c, undefined, animalIds)) {
+      const urgentItems: NewRoundItem[] = [];
+      const changedItems: { id: string; tasks: RoundTask[] }[] = [];
+      for (const { animal, state } of input.engineInputOf(c, rows, held)) {
         const d = decideAnimal(animal, state, rules, date);
         const item = existing.get(animal.id);
         const { tasks, changed, urgent } = reconcileTasks(
@@ -82,8 +111,8 @@ export function createUrgentTasks(db: Db, now: () => Date, input: RoundInput) {
           asBuilt.get(animal.id),
         );
         if (urgent) {
-          await upsertUrgentItem(db, {
-            roundId: row.id,
+          urgentItems.push({
+            roundId: round.roundId,
             animalId: animal.id,
             sortIndex: item?.sortIndex ?? -1,
             tasks,
@@ -92,9 +121,11 @@ export function createUrgentTasks(db: Db, now: () => Date, input: RoundInput) {
             addedDuringDay: true,
           });
         } else if (item && changed) {
-          await updateItemTasks(db, item.id, tasks);
+          changedItems.push({ id: item.id, tasks });
         }
       }
+      await upsertUrgentItems(db, urgentItems);
+      await updateItemsTasks(db, changedItems);
     },
 
     /** Whether food is withheld from these animals on a date, and why (a meal then is flagged). */
@@ -102,12 +133,17 @@ export function createUrgentTasks(db: Db, now: () => Date, input: RoundInput) {
       collectionId: string,
       animalIds: string[],
       date: LocalDate,
+      batch = batchMemo(),
     ): Promise<Map<string, Reason>> {
       const holds = new Map<string, Reason>();
       if (!animalIds.length) return holds;
-      const c = await input.collectionOf(collectionId);
+      const [c, rows, held] = await Promise.all([
+        collection(batch, collectionId),
+        loadAnimalsWithState(db, collectionId, animalIds),
+        doNotFeedNotes(db, collectionId, notesFrom(now())),
+      ]);
       const rules = rulesOf(c);
-      for (const { animal, state } of await input.engineInput(c, undefined, animalIds)) {
+      for (const { animal, state } of input.engineInputOf(c, rows, held)) {
         const hold = feedHoldIn(decideAnimal(animal, state, rules, date));
         if (hold) holds.set(animal.id, hold);
       }
