@@ -85,6 +85,15 @@ export async function claimRound(db: Db, collectionId: string, date: LocalDate, 
 
 export type NewRoundItem = typeof roundItems.$inferInsert;
 
+/** A round item as the jsonb_to_recordset statements below read it. */
+const itemRow = (it: Omit<NewRoundItem, 'roundId'>) => ({
+  animal_id: it.animalId,
+  sort_index: it.sortIndex,
+  tasks: it.tasks,
+  notes: it.notes ?? [],
+  carried_over_days: it.carriedOverDays ?? 0,
+});
+
 /**
  * Writes a round's items as one JSON document per 5,000 rows: PostgreSQL unpacks it with
  * jsonb_to_recordset far faster than it binds tens of thousands of parameters.
@@ -95,13 +104,7 @@ export async function insertRoundItems(
   items: Omit<NewRoundItem, 'roundId'>[],
 ) {
   for (let i = 0; i < items.length; i += 5000) {
-    const chunk = items.slice(i, i + 5000).map((it) => ({
-      animal_id: it.animalId,
-      sort_index: it.sortIndex,
-      tasks: it.tasks,
-      notes: it.notes ?? [],
-      carried_over_days: it.carriedOverDays ?? 0,
-    }));
+    const chunk = items.slice(i, i + 5000).map(itemRow);
     await db.execute(sql`
       insert into round_items (round_id, animal_id, sort_index, tasks, notes, carried_over_days)
       select ${roundId}::uuid, x.animal_id, x.sort_index, x.tasks, x.notes, x.carried_over_days
@@ -116,14 +119,7 @@ export async function insertRoundItems(
  */
 export async function upsertUrgentItems(db: Db, items: NewRoundItem[]) {
   if (!items.length) return;
-  const rows = items.map((it) => ({
-    round_id: it.roundId,
-    animal_id: it.animalId,
-    sort_index: it.sortIndex,
-    tasks: it.tasks,
-    notes: it.notes ?? [],
-    carried_over_days: it.carriedOverDays ?? 0,
-  }));
+  const rows = items.map((it) => ({ round_id: it.roundId, ...itemRow(it) }));
   await db.execute(sql`
     insert into round_items (round_id, animal_id, sort_index, tasks, notes, carried_over_days, added_during_day)
     select x.round_id, x.animal_id, x.sort_index, x.tasks, x.notes, x.carried_over_days, true
